@@ -1,0 +1,99 @@
+/**
+ * The design document: the user's feed network as data. SI units everywhere (m, Hz, Ω, S/m, radians for angles
+ * inside; degrees only where the name says `Deg`). This file holds the types; design/schema.ts validates a parsed
+ * file against them, design/migrations.ts brings older versions up to DESIGN_VERSION.
+ *
+ * Topology: a graph. Nodes sit at drawn positions; segments join two nodes. A run with corners is several
+ * segments joined at `vertex` nodes (each vertex becomes a bend, or a width step when the two widths differ).
+ * Tees and crosses are `junction` nodes with three or four segments. Stubs are segments ending at an `open` or
+ * `short` node. The drawn positions give directions and, for `drawn` lengths, the length; sizing replaces the
+ * drawn length wherever the spec fixes it, and the layout places pieces from the anchor port outward.
+ */
+import type { Vec2 } from '../geometry/types.ts';
+
+export const DESIGN_FORMAT = 'stripwright-design';
+
+/** Laminate and copper, SI. */
+export interface SubstrateSpec {
+  /** Generic preset this came from, if any (informational; the numbers below rule). */
+  preset?: string;
+  /** Relative permittivity at `fMeasure` (or frequency-independent). */
+  er: number;
+  /** Dielectric height, m. */
+  h: number;
+  /** Copper thickness, m (35 µm = 1 oz). */
+  t: number;
+  /** Loss tangent at `fMeasure`. */
+  tanDelta: number;
+  /** Conductor conductivity, S/m (annealed copper 5.8e7). */
+  sigma: number;
+  /** RMS surface roughness, m. */
+  roughness: number;
+  /** Carry εr and tanδ from fMeasure to other frequencies with the wideband Debye model (off by default). */
+  dielectricModel?: { kind: 'constant' } | { kind: 'wideband-debye'; fMeasure: number };
+}
+
+/** How the board is made; drives the fabrication checks and export offsets. */
+export type FabProcess =
+  | { kind: 'end-mill'; toolDiameter: number; depth: number }
+  | { kind: 'v-bit'; tipWidth: number; angleDeg: number; depth: number }
+  | { kind: 'etch'; edgeBias: number; minFeature: number };
+
+export type BendStyle =
+  | { style: 'miter-optimal' }
+  | { style: 'miter'; fraction: number }
+  | { style: 'arc'; radius: number }
+  | { style: 'square' };
+
+export interface ViaSpec { drill: number; pad: number; count: number; plating?: number }
+
+export type NodeSpec =
+  | { kind: 'port'; zRef: number; /** heading the line leaves the port at, rad, 0 = +x */ heading: number; launch?: { padWidth: number; padLength: number; pinDrill?: number } }
+  | { kind: 'vertex'; bend: BendStyle }
+  | { kind: 'junction' }
+  | { kind: 'open' }
+  | { kind: 'short'; via: ViaSpec };
+
+export type DesignNode = { id: string; at: Vec2; label?: string } & NodeSpec;
+
+/** Width from an impedance (synthesised at f0 with dispersion) or given directly. */
+export type WidthSpec = { by: 'z0'; z0: number } | { by: 'width'; width: number };
+
+/** Length from an electrical length at f0, a physical length, or the drawn distance. */
+export type LengthSpec = { by: 'degrees'; deg: number } | { by: 'length'; length: number } | { by: 'drawn' };
+
+export type SmdSize = '0402' | '0603' | '0805' | '1206';
+
+export type SegmentSpec =
+  | { kind: 'line'; width: WidthSpec; length: LengthSpec }
+  | { kind: 'taper'; profile: 'linear' | 'klopfenstein'; from: WidthSpec; to: WidthSpec; length: LengthSpec; rippleDb?: number }
+  | { kind: 'lumped'; part: 'resistor' | 'capacitor' | 'inductor'; value: number; size: SmdSize; /** line width at its pads */ width: WidthSpec }
+  | { kind: 'sparams'; /** Touchstone text kept in the design (1 or 2 ports) */ touchstone: string; name: string; width: WidthSpec; length: { by: 'length'; length: number } };
+
+export type DesignSegment = { id: string; a: string; b: string; label?: string } & SegmentSpec;
+
+export interface Area { id: string; kind: 'keep-out' | 'ground-copper'; polygon: Vec2[]; /** clearance kept from the network, m */ clearance?: number }
+
+/** Ports whose paths from `from` must match in phase. */
+export interface PhaseGroup { id: string; name: string; from: string; to: string[]; toleranceDeg: number }
+
+export interface DesignDoc {
+  format: typeof DESIGN_FORMAT;
+  version: number;
+  /** App that last wrote it, e.g. 'stripwright 0.1.0'. */
+  app?: string;
+  name: string;
+  notes?: string;
+  substrate: SubstrateSpec;
+  frequency: { f0: number; band: { start: number; stop: number } };
+  process: FabProcess;
+  nodes: DesignNode[];
+  segments: DesignSegment[];
+  board: { outline: Vec2[] } | null;
+  areas: Area[];
+  phaseGroups: PhaseGroup[];
+  /** Display preferences; never affect the physics. */
+  view?: { units?: 'mm' | 'mil'; grid?: number };
+  /** Fields this version does not know are kept here on load and written back on save. */
+  [unknown: string]: unknown;
+}

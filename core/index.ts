@@ -1,0 +1,6 @@
+/**
+ * Stripwright core: the pure TypeScript library under every face (renderer, CLI, desktop shell).
+ * No DOM, Node built-ins, Electron or Svelte here; see DEVELOPERS.md for the layer order.
+ */
+export * from './util/errors.ts';
+export * from './util/warnings.ts';

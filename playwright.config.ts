@@ -1,0 +1,38 @@
+import { defineConfig } from '@playwright/test';
+import { execSync } from 'node:child_process';
+
+// Debian's chromium, never a downloaded browser (`npx playwright install` cannot work on this machine kind).
+function chromiumPath(): string {
+  if (process.env.CHROMIUM_PATH) return process.env.CHROMIUM_PATH;
+  try {
+    return execSync('command -v chromium', { shell: '/bin/sh' }).toString().trim();
+  } catch {
+    throw new Error('Debian chromium not found: install it with `apt-get install --no-install-recommends chromium` or set CHROMIUM_PATH.');
+  }
+}
+
+export default defineConfig({
+  testDir: 'test/e2e',
+  testIgnore: ['**/electron/**'],
+  workers: 1,
+  timeout: 60_000,
+  outputDir: 'test-results',
+  reporter: process.env.CI ? [['list'], ['json', { outputFile: 'reports/e2e.json' }]] : 'list',
+  use: {
+    baseURL: 'http://127.0.0.1:4173',
+    headless: true,
+    acceptDownloads: true,
+    viewport: { width: 1366, height: 768 },
+    launchOptions: {
+      executablePath: chromiumPath(),
+      args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
+        '--disable-component-update', '--disable-sync'],
+    },
+  },
+  webServer: {
+    command: 'node --import tsx scripts/serve.ts --port 4173',
+    url: 'http://127.0.0.1:4173',
+    reuseExistingServer: false,
+    timeout: 60_000,
+  },
+});
