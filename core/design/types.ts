@@ -10,28 +10,11 @@
  * drawn length wherever the spec fixes it, and the layout places pieces from the anchor port outward.
  */
 import type { Vec2 } from '../geometry/types.ts';
+import type { SubstrateSpec } from '../substrate/types.ts';
+
+export type { SubstrateSpec };
 
 export const DESIGN_FORMAT = 'stripwright-design';
-
-/** Laminate and copper, SI. */
-export interface SubstrateSpec {
-  /** Generic preset this came from, if any (informational; the numbers below rule). */
-  preset?: string;
-  /** Relative permittivity at `fMeasure` (or frequency-independent). */
-  er: number;
-  /** Dielectric height, m. */
-  h: number;
-  /** Copper thickness, m (35 µm = 1 oz). */
-  t: number;
-  /** Loss tangent at `fMeasure`. */
-  tanDelta: number;
-  /** Conductor conductivity, S/m (annealed copper 5.8e7). */
-  sigma: number;
-  /** RMS surface roughness, m. */
-  roughness: number;
-  /** Carry εr and tanδ from fMeasure to other frequencies with the wideband Debye model (off by default). */
-  dielectricModel?: { kind: 'constant' } | { kind: 'wideband-debye'; fMeasure: number };
-}
 
 /** How the board is made; drives the fabrication checks and export offsets. */
 export type FabProcess =
