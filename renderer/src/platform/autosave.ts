@@ -1,0 +1,81 @@
+/**
+ * The autosave schedule: a recovery copy of unsaved changes IDLE_MS after the last edit, and never later than
+ * MAX_MS after the first unsaved edit even while editing goes on (reliability.md §2.1 proposes 2 s idle and at most
+ * every 30 s). The copy goes to the platform's recovery store, never over the user's file.
+ *
+ *   const autosaver = createAutosaver({ platform, snapshot: () => dirty ? { docId, name, path, text } : null });
+ *   store.onChange(() => autosaver.changed());   // after every edit
+ *   // after a successful save or discard: autosaver.saved()
+ */
+import type { AutosaveSnapshot, BridgeError, Platform } from './types.ts';
+
+export const IDLE_MS = 2_000;
+export const MAX_MS = 30_000;
+
+export interface AutosaverOptions {
+  platform: Platform;
+  /** The current unsaved state, or null when there is nothing unsaved. Called only when a copy is due. */
+  snapshot: () => AutosaveSnapshot | null;
+  idleMs?: number;
+  maxMs?: number;
+  /** Told about each failed write (show it: the user should save by hand). Cleared by the next success. */
+  onError?: (error: BridgeError) => void;
+  onSaved?: (savedAt: number) => void;
+}
+
+export interface Autosaver {
+  /** Call after every edit. */
+  changed(): void;
+  /** Write the copy now (also wired to the platform's flush request). */
+  flush(): Promise<void>;
+  /** The document was saved or its changes discarded: cancel the pending copy. */
+  saved(): void;
+  /** Stop timers and listeners. */
+  stop(): void;
+  /** Time of the last good copy, or null. */
+  readonly lastSavedAt: number | null;
+}
+
+export function createAutosaver(o: AutosaverOptions): Autosaver {
+  const idleMs = o.idleMs ?? IDLE_MS;
+  const maxMs = o.maxMs ?? MAX_MS;
+  let idleTimer: ReturnType<typeof setTimeout> | null = null;
+  let maxTimer: ReturnType<typeof setTimeout> | null = null;
+  let lastSavedAt: number | null = null;
+  let writing: Promise<void> | null = null;
+  let again = false;
+
+  const clear = () => {
+    if (idleTimer) clearTimeout(idleTimer);
+    if (maxTimer) clearTimeout(maxTimer);
+    idleTimer = maxTimer = null;
+  };
+
+  const write = async (): Promise<void> => {
+    clear();
+    // One write at a time; an edit during a write asks for one more afterwards.
+    if (writing) { again = true; return writing; }
+    const snap = o.snapshot();
+    if (!snap) return;
+    writing = (async () => {
+      const r = await o.platform.autosave(snap);
+      if (r.ok) { lastSavedAt = r.value.savedAt; o.onSaved?.(r.value.savedAt); } else o.onError?.(r.error);
+    })();
+    try { await writing; } finally { writing = null; }
+    if (again) { again = false; await write(); }
+  };
+
+  const unsubscribe = o.platform.onFlushAutosave(() => { void write(); });
+
+  return {
+    changed() {
+      if (idleTimer) clearTimeout(idleTimer);
+      idleTimer = setTimeout(() => void write(), idleMs);
+      maxTimer ??= setTimeout(() => void write(), maxMs);
+    },
+    flush: write,
+    saved() { clear(); again = false; },
+    stop() { clear(); unsubscribe(); },
+    get lastSavedAt() { return lastSavedAt; },
+  };
+}
