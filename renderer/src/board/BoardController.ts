@@ -1,0 +1,361 @@
+/**
+ * The board drawing: svg.js over a host element, framework-free (attached by the `board` action).
+ * Layers, bottom to top: grid (screen space), world (board space in mm, one transform for pan and zoom), overlay
+ * (screen space: rubber band, box selection). Pieces keep their svg element between draws and only get a new path
+ * when their geometry object changes, so a drag redraws just what moved.
+ */
+import { SVG, type Svg, type G, type Path, type Element as SvgElement } from '@svgdotjs/svg.js';
+import type { Box, Region, Vec2 } from '../../../core/geometry/types.ts';
+import type { Marks, Scene, ScenePiece } from './scene.ts';
+import { EMPTY_SCENE } from './scene.ts';
+import { type View, fitBox, panBy, toBoard, toScreen, zoomAt } from './viewport.ts';
+import { gridLines, rulerLabel, type LengthUnit } from './grid.ts';
+import { hitTest, type Hit } from './hit.ts';
+
+export interface BoardPointer {
+  type: 'down' | 'move' | 'up' | 'leave' | 'dblclick';
+  at: Vec2;
+  screen: Vec2;
+  button: number;
+  shiftKey: boolean;
+  altKey: boolean;
+  ctrlKey: boolean;
+  hit: Hit;
+  /** Pick radius in metres at the current zoom. */
+  tolerance: number;
+}
+
+export interface BoardCallbacks {
+  onPointer(e: BoardPointer): void;
+  onView?(v: View): void;
+}
+
+export interface BoardOptions { unit: LengthUnit; snapStep: number }
+
+export interface Preview { run?: Vec2[]; box?: Box; ghost?: Vec2 | null }
+
+const PICK_PX = 6;
+const RULER_PX = 22;
+const mm = (v: number) => v * 1000;
+
+function ringPath(r: Vec2[]): string {
+  if (r.length === 0) return '';
+  let d = `M${mm(r[0].x)} ${mm(r[0].y)}`;
+  for (let i = 1; i < r.length; i++) d += `L${mm(r[i].x)} ${mm(r[i].y)}`;
+  return d + 'Z';
+}
+
+export function regionsPath(regions: Region[]): string {
+  let d = '';
+  for (const g of regions) { d += ringPath(g.outer); for (const h of g.holes) d += ringPath(h); }
+  return d;
+}
+
+function polyPoints(pts: Vec2[]): [number, number][] {
+  return pts.map((p) => [mm(p.x), mm(p.y)]);
+}
+
+export class BoardController {
+  private readonly root: Svg;
+  private readonly gridLayer: G;
+  private readonly world: G;
+  private readonly outlineLayer: G;
+  private readonly copperLayer: G;
+  private readonly lineLayer: G;
+  private readonly nodeLayer: G;
+  private readonly overlay: G;
+  private readonly rulerX: Svg;
+  private readonly rulerY: Svg;
+  private view: View;
+  private scene: Scene = EMPTY_SCENE;
+  private marks: Marks = { selected: new Set(), flagged: new Set(), hovered: null };
+  private options: BoardOptions;
+  private pieceEls = new Map<string, { el: Path; src: ScenePiece }>();
+  private panning: { x: number; y: number; id: number } | null = null;
+  private spaceDown = false;
+  private readonly resizeObs: ResizeObserver | null;
+  private readonly cleanup: (() => void)[] = [];
+
+  constructor(private readonly host: HTMLElement, private callbacks: BoardCallbacks, options: BoardOptions) {
+    this.options = options;
+    host.classList.add('board-host');
+    const w = host.clientWidth || 800, h = host.clientHeight || 600;
+    this.view = { cx: 0, cy: 0, scale: 8000, width: w, height: h };
+    this.root = SVG().addTo(host).addClass('board-svg').attr({ 'data-testid': 'board-canvas', tabindex: 0, role: 'img', 'aria-label': 'Board drawing' });
+    this.gridLayer = this.root.group().addClass('grid');
+    this.world = this.root.group().addClass('world');
+    this.outlineLayer = this.world.group().addClass('outline');
+    this.copperLayer = this.world.group().addClass('copper');
+    this.lineLayer = this.world.group().addClass('centrelines');
+    this.nodeLayer = this.world.group().addClass('nodes');
+    this.overlay = this.root.group().addClass('overlay');
+    this.rulerX = SVG().addTo(host).addClass('ruler ruler-x');
+    this.rulerY = SVG().addTo(host).addClass('ruler ruler-y');
+
+    const el = this.root.node as unknown as SVGSVGElement;
+    const on = <K extends keyof SVGSVGElementEventMap>(type: K, fn: (e: SVGSVGElementEventMap[K]) => void, opts?: AddEventListenerOptions) => {
+      el.addEventListener(type, fn as EventListener, opts);
+      this.cleanup.push(() => el.removeEventListener(type, fn as EventListener));
+    };
+    on('pointerdown', (e) => this.pointer('down', e));
+    on('pointermove', (e) => this.pointer('move', e));
+    on('pointerup', (e) => this.pointer('up', e));
+    on('pointerleave', (e) => this.pointer('leave', e));
+    on('dblclick', (e) => this.pointer('dblclick', e));
+    on('wheel', (e) => this.wheel(e), { passive: false });
+    on('contextmenu', (e) => e.preventDefault());
+    const key = (e: KeyboardEvent) => { if (e.code === 'Space' && e.target === el) { this.spaceDown = e.type === 'keydown'; if (this.spaceDown) e.preventDefault(); } };
+    el.addEventListener('keydown', key); el.addEventListener('keyup', key);
+    this.cleanup.push(() => { el.removeEventListener('keydown', key); el.removeEventListener('keyup', key); });
+
+    this.resizeObs = typeof ResizeObserver === 'function' ? new ResizeObserver(() => this.resize()) : null;
+    this.resizeObs?.observe(host);
+    this.applyView();
+  }
+
+  /** The svg element, for focus handling by the face. */
+  get element(): SVGSVGElement { return this.root.node as unknown as SVGSVGElement; }
+
+  getView(): View { return this.view; }
+
+  setCallbacks(cb: BoardCallbacks): void { this.callbacks = cb; }
+
+  setOptions(o: BoardOptions): void {
+    if (o.unit === this.options.unit && o.snapStep === this.options.snapStep) return;
+    this.options = o;
+    this.drawGrid();
+  }
+
+  setView(v: Partial<View>): void {
+    this.view = { ...this.view, ...v };
+    this.applyView();
+  }
+
+  zoomBy(factor: number): void {
+    this.view = zoomAt(this.view, { x: this.view.width / 2, y: this.view.height / 2 }, factor);
+    this.applyView();
+  }
+
+  panScreen(dx: number, dy: number): void {
+    this.view = panBy(this.view, dx, dy);
+    this.applyView();
+  }
+
+  fit(box: Box | null): void {
+    if (!box) return;
+    this.view = fitBox(this.view, box, 48);
+    this.applyView();
+  }
+
+  /** Board point under a client (window) coordinate. */
+  boardAtClient(clientX: number, clientY: number): Vec2 {
+    const r = this.element.getBoundingClientRect();
+    return toBoard(this.view, { x: clientX - r.left, y: clientY - r.top });
+  }
+
+  screenOf(p: Vec2): Vec2 { return toScreen(this.view, p); }
+
+  setScene(scene: Scene): void {
+    this.scene = scene;
+    this.drawPieces();
+    this.drawLines();
+    this.drawNodes();
+    this.drawOutline();
+  }
+
+  setMarks(m: Marks): void {
+    this.marks = m;
+    for (const [id, { el }] of this.pieceEls) {
+      el.attr('class', this.pieceClass(id));
+    }
+    this.drawLines();
+    this.drawNodes();
+  }
+
+  setPreview(p: Preview): void {
+    this.overlay.clear();
+    if (p.run && p.run.length >= 2) {
+      this.overlay.polyline(p.run.map((q) => { const s = toScreen(this.view, q); return [s.x, s.y] as [number, number]; })).addClass('rubber');
+    }
+    if (p.box) {
+      const a = toScreen(this.view, { x: p.box.minX, y: p.box.maxY });
+      const b = toScreen(this.view, { x: p.box.maxX, y: p.box.minY });
+      this.overlay.rect(Math.max(b.x - a.x, 0), Math.max(b.y - a.y, 0)).move(a.x, a.y).addClass('lasso');
+    }
+    if (p.ghost) {
+      const s = toScreen(this.view, p.ghost);
+      this.overlay.circle(9).center(s.x, s.y).addClass('ghost');
+    }
+  }
+
+  destroy(): void {
+    this.resizeObs?.disconnect();
+    for (const c of this.cleanup) c();
+    this.root.remove();
+    this.rulerX.remove();
+    this.rulerY.remove();
+    this.host.classList.remove('board-host');
+  }
+
+  // ---- drawing ------------------------------------------------------------------------------------------------
+
+  private pieceClass(id: string): string {
+    const c = ['piece'];
+    if (this.marks.selected.has(id)) c.push('selected');
+    if (this.marks.flagged.has(id)) c.push('flagged');
+    if (this.marks.hovered === id) c.push('hovered');
+    return c.join(' ');
+  }
+
+  private drawPieces(): void {
+    const seen = new Set<string>();
+    for (const p of this.scene.pieces) {
+      seen.add(p.id);
+      const have = this.pieceEls.get(p.id);
+      if (have && have.src === p) continue;
+      const d = regionsPath(p.regions);
+      if (have) { have.el.plot(d); have.src = p; continue; }
+      const el = this.copperLayer.path(d).attr({ class: this.pieceClass(p.id), 'fill-rule': 'evenodd', 'data-piece': p.id });
+      this.pieceEls.set(p.id, { el, src: p });
+    }
+    for (const [id, { el }] of this.pieceEls) if (!seen.has(id)) { el.remove(); this.pieceEls.delete(id); }
+  }
+
+  private drawLines(): void {
+    this.lineLayer.clear();
+    for (const s of this.scene.segments) {
+      const pts = s.centreline && s.centreline.length >= 2 ? s.centreline : [s.a, s.b];
+      const cls = ['cl', `cl-${s.kind}`];
+      if (this.marks.selected.has(s.id)) cls.push('selected');
+      if (this.marks.flagged.has(s.id)) cls.push('flagged');
+      if (this.marks.hovered === s.id) cls.push('hovered');
+      if (!s.centreline) cls.push('unsized');
+      this.lineLayer.polyline(polyPoints(pts)).attr({ class: cls.join(' '), 'data-seg': s.id });
+    }
+  }
+
+  private drawNodes(): void {
+    this.nodeLayer.clear();
+    // Node marks keep a constant screen size: radius in mm from pixels at the current zoom.
+    const r = mm(5 / this.view.scale);
+    for (const n of this.scene.nodes) {
+      const cls = ['node', `node-${n.kind}`];
+      if (this.marks.selected.has(n.id)) cls.push('selected');
+      if (this.marks.flagged.has(n.id)) cls.push('flagged');
+      if (this.marks.hovered === n.id) cls.push('hovered');
+      const x = mm(n.at.x), y = mm(n.at.y);
+      let el: SvgElement;
+      if (n.kind === 'port') el = this.nodeLayer.rect(2.4 * r, 2.4 * r).center(x, y);
+      else if (n.kind === 'short') el = this.nodeLayer.polygon([[x, y + 1.4 * r], [x + 1.4 * r, y], [x, y - 1.4 * r], [x - 1.4 * r, y]]);
+      else el = this.nodeLayer.circle(2 * r * (n.kind === 'vertex' ? 0.7 : 1)).center(x, y);
+      el.attr({ class: cls.join(' '), 'data-node': n.id });
+    }
+    for (const d of this.scene.drills) {
+      this.nodeLayer.circle(mm(d.diameter)).center(mm(d.at.x), mm(d.at.y)).addClass('drill');
+    }
+  }
+
+  private drawOutline(): void {
+    this.outlineLayer.clear();
+    if (this.scene.outline && this.scene.outline.length >= 3) {
+      this.outlineLayer.polygon(polyPoints(this.scene.outline)).addClass('board-outline');
+    }
+  }
+
+  private applyView(): void {
+    const v = this.view;
+    const k = v.scale / 1000; // px per mm
+    this.world.attr('transform', `matrix(${k} 0 0 ${-k} ${v.width / 2 - mm(v.cx) * k} ${v.height / 2 + mm(v.cy) * k})`);
+    this.drawGrid();
+    this.drawNodes();
+    this.callbacks.onView?.(v);
+  }
+
+  private drawGrid(): void {
+    const v = this.view;
+    this.gridLayer.clear();
+    const g = gridLines(v, this.options.snapStep, this.options.unit);
+    const major = g.step * 10;
+    for (const x of g.xs) {
+      const sx = toScreen(v, { x, y: 0 }).x;
+      this.gridLayer.line(sx, 0, sx, v.height).addClass(Math.abs(Math.round(x / major) * major - x) < g.step * 1e-6 ? 'major' : 'minor');
+    }
+    for (const y of g.ys) {
+      const sy = toScreen(v, { x: 0, y }).y;
+      this.gridLayer.line(0, sy, v.width, sy).addClass(Math.abs(Math.round(y / major) * major - y) < g.step * 1e-6 ? 'major' : 'minor');
+    }
+    this.drawRulers(g.step);
+  }
+
+  private drawRulers(gridStep: number): void {
+    const v = this.view;
+    const unit = this.options.unit;
+    // Label spacing of at least 60 px, in whole grid steps.
+    const every = Math.max(1, Math.ceil(60 / (gridStep * v.scale)));
+    const step = gridStep * every;
+    this.rulerX.clear().size(v.width, RULER_PX);
+    this.rulerY.clear().size(RULER_PX, v.height);
+    this.rulerX.rect(v.width, RULER_PX).addClass('ruler-bg');
+    this.rulerY.rect(RULER_PX, v.height).addClass('ruler-bg');
+    const b = { x0: toBoard(v, { x: 0, y: 0 }).x, x1: toBoard(v, { x: v.width, y: 0 }).x, y0: toBoard(v, { x: 0, y: v.height }).y, y1: toBoard(v, { x: 0, y: 0 }).y };
+    for (let i = Math.ceil(b.x0 / step); i * step <= b.x1; i++) {
+      const sx = toScreen(v, { x: i * step, y: 0 }).x;
+      this.rulerX.line(sx, RULER_PX - 7, sx, RULER_PX).addClass('tick');
+      this.rulerX.plain(rulerLabel(i * step, unit, step)).attr({ x: sx + 3, y: 11 }).addClass('tick-label');
+    }
+    for (let i = Math.ceil(b.y0 / step); i * step <= b.y1; i++) {
+      const sy = toScreen(v, { x: 0, y: i * step }).y;
+      this.rulerY.line(RULER_PX - 7, sy, RULER_PX, sy).addClass('tick');
+      this.rulerY.plain(rulerLabel(i * step, unit, step)).attr({ x: 2, y: sy - 3 }).addClass('tick-label');
+    }
+    this.rulerX.plain(unit).attr({ x: v.width - 26, y: 20 }).addClass('unit-label');
+  }
+
+  // ---- input --------------------------------------------------------------------------------------------------
+
+  private resize(): void {
+    const w = this.host.clientWidth, h = this.host.clientHeight;
+    if (w > 0 && h > 0 && (w !== this.view.width || h !== this.view.height)) {
+      this.view = { ...this.view, width: w, height: h };
+      this.applyView();
+    }
+  }
+
+  private wheel(e: WheelEvent): void {
+    e.preventDefault();
+    const r = this.element.getBoundingClientRect();
+    const factor = Math.exp(-e.deltaY * (e.deltaMode === 1 ? 0.05 : 0.0015));
+    this.view = zoomAt(this.view, { x: e.clientX - r.left, y: e.clientY - r.top }, factor);
+    this.applyView();
+  }
+
+  private pointer(type: BoardPointer['type'], e: PointerEvent | MouseEvent): void {
+    const r = this.element.getBoundingClientRect();
+    const screen = { x: e.clientX - r.left, y: e.clientY - r.top };
+    const id = 'pointerId' in e ? e.pointerId : 1;
+    // Middle button, or left button with Space held, pans the view.
+    if (type === 'down' && (e.button === 1 || (e.button === 0 && this.spaceDown))) {
+      this.panning = { x: screen.x, y: screen.y, id };
+      try { this.element.setPointerCapture(id); } catch { /* synthetic events carry no capturable id */ }
+      e.preventDefault();
+      return;
+    }
+    if (this.panning) {
+      if (type === 'move') {
+        this.view = panBy(this.view, screen.x - this.panning.x, screen.y - this.panning.y);
+        this.panning = { ...this.panning, x: screen.x, y: screen.y };
+        this.applyView();
+      } else if (type === 'up' || type === 'leave') {
+        this.panning = null;
+      }
+      return;
+    }
+    if (type === 'down') { this.element.focus({ preventScroll: true }); }
+    const at = toBoard(this.view, screen);
+    const tolerance = PICK_PX / this.view.scale;
+    this.callbacks.onPointer({
+      type, at, screen, button: e.button, shiftKey: e.shiftKey, altKey: e.altKey, ctrlKey: e.ctrlKey || e.metaKey,
+      hit: hitTest(this.scene, at, tolerance), tolerance,
+    });
+  }
+}

@@ -1,0 +1,40 @@
+/**
+ * Hit-testing against the scene in board space (never DOM measurements, so it is the same in tests and the app).
+ */
+import type { Box, Vec2 } from '../../../core/geometry/types.ts';
+import type { Scene } from './scene.ts';
+import { distToSegment } from './snap.ts';
+
+export type Hit = { kind: 'node'; id: string } | { kind: 'segment'; id: string } | null;
+
+/**
+ * The node or segment under board point `p`. `tolerance` is the pick radius in metres (a few pixels at the current
+ * zoom); nodes win over segments so a run can be started from its end.
+ */
+export function hitTest(scene: Scene, p: Vec2, tolerance: number): Hit {
+  let best: Hit = null;
+  let bestD = Infinity;
+  for (const n of scene.nodes) {
+    const d = Math.hypot(n.at.x - p.x, n.at.y - p.y);
+    if (d <= tolerance * 1.5 && d < bestD) { best = { kind: 'node', id: n.id }; bestD = d; }
+  }
+  if (best) return best;
+  for (const s of scene.segments) {
+    const line = s.centreline && s.centreline.length >= 2 ? s.centreline : [s.a, s.b];
+    const reach = Math.max(tolerance, (s.width ?? 0) / 2);
+    for (let i = 0; i + 1 < line.length; i++) {
+      const d = distToSegment(p, line[i], line[i + 1]);
+      if (d <= reach && d < bestD) { best = { kind: 'segment', id: s.id }; bestD = d; }
+    }
+  }
+  return best;
+}
+
+/** Ids of nodes inside the box and of segments whose both drawn ends are inside it. */
+export function boxSelect(scene: Scene, box: Box): string[] {
+  const inside = (q: Vec2) => q.x >= box.minX && q.x <= box.maxX && q.y >= box.minY && q.y <= box.maxY;
+  const ids: string[] = [];
+  for (const n of scene.nodes) if (inside(n.at)) ids.push(n.id);
+  for (const s of scene.segments) if (inside(s.a) && inside(s.b)) ids.push(s.id);
+  return ids;
+}

@@ -1,0 +1,37 @@
+/**
+ * What the board draws, as plain data: built by the editor state from the design and the core's geometry, drawn
+ * by the board controller. Board coordinates in metres, y up.
+ */
+import type { Region, Vec2 } from '../../../core/geometry/types.ts';
+
+export type SceneNodeKind = 'port' | 'vertex' | 'junction' | 'open' | 'short';
+
+export interface SceneNode { id: string; at: Vec2; kind: SceneNodeKind; label?: string; heading?: number }
+
+export interface SceneSegment {
+  id: string;
+  kind: 'line' | 'taper' | 'lumped' | 'sparams';
+  /** Drawn end points (the sketch). */
+  a: Vec2;
+  b: Vec2;
+  /** The sized centreline from the core's geometry, when known. */
+  centreline?: Vec2[];
+  /** Copper width at the ends, m, when sized (for hit-testing and labels). */
+  width?: number;
+}
+
+export interface ScenePiece { id: string; regions: Region[] }
+
+export interface Scene {
+  nodes: SceneNode[];
+  segments: SceneSegment[];
+  /** True copper of each piece (before union), keyed by the piece id. */
+  pieces: ScenePiece[];
+  outline: Vec2[] | null;
+  drills: { at: Vec2; diameter: number }[];
+}
+
+export const EMPTY_SCENE: Scene = { nodes: [], segments: [], pieces: [], outline: null, drills: [] };
+
+/** Selected and marked ids, drawn as overlays. */
+export interface Marks { selected: ReadonlySet<string>; flagged: ReadonlySet<string>; hovered: string | null }
