@@ -1,0 +1,10 @@
+/**
+ * Discontinuity models: each file one published model (or one common-practice rule, marked so) with its source,
+ * equations, validity and VERIFY status. Models marked advisory are shown to the user and not applied to lengths.
+ */
+export * from './kirschningJansenKoster1981OpenEnd.ts';
+export * from './douvilleJames1978Miter.ts';
+export * from './goldfarbPucel1991Via.ts';
+export * from './hammerstad1981TeeJunction.ts';
+export * from './gargBahl1978Step.ts';
+export * from './curvedBend.ts';
