@@ -4,3 +4,7 @@
  */
 export * from './util/errors.ts';
 export * from './util/warnings.ts';
+export * from './units/index.ts';
+export * from './substrate/index.ts';
+export * from './line/index.ts';
+export * from './design/index.ts';

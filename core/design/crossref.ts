@@ -1,0 +1,144 @@
+/**
+ * Checks across records that a schema cannot express: unique ids, segment ends that name existing nodes, node kinds
+ * that agree with how many segments meet there, phase groups that name ports, a band around f0, and outlines that
+ * enclose an area without crossing themselves (OWASP Input Validation Cheat Sheet: semantic after syntactic checks).
+ *
+ * Degree rule (segments meeting at a node): port 1, vertex 2, junction 3 or 4, open 1, short 1. More than that is
+ * a contradiction and an error. Fewer is an unfinished network (a port just placed, a tee with one branch drawn):
+ * it must still load and save so no work is lost, so it is reported as an 'incomplete' warning, and as an error
+ * only when `complete: true` is asked for (what sizing and export ask for).
+ */
+import type { Vec2 } from '../geometry/types.ts';
+import { ringArea } from '../geometry/polygons.ts';
+import type { Warning } from '../util/warnings.ts';
+import type { DesignDoc, DesignNode } from './types.ts';
+import { issue, type DesignIssue } from './issues.ts';
+
+export const DEGREE: Record<DesignNode['kind'], { min: number; max: number; words: string }> = {
+  port: { min: 1, max: 1, words: 'a port has exactly one segment' },
+  vertex: { min: 2, max: 2, words: 'a vertex joins exactly two segments' },
+  junction: { min: 3, max: 4, words: 'a junction joins three or four segments' },
+  open: { min: 1, max: 1, words: 'an open end has exactly one segment' },
+  short: { min: 1, max: 1, words: 'a shorted end has exactly one segment' },
+};
+
+export interface CrossCheck { errors: DesignIssue[]; warnings: Warning[] }
+
+export function crossCheck(doc: DesignDoc, opts: { complete?: boolean } = {}): CrossCheck {
+  const errors: DesignIssue[] = [];
+  const warnings: Warning[] = [];
+  const seen = new Map<string, string>();
+  const claim = (id: string, path: string) => {
+    const prev = seen.get(id);
+    if (prev !== undefined) errors.push(issue('invalid-design', `${path}.id`, `an id not used elsewhere in the design (already used by ${prev})`, JSON.stringify(id)));
+    else seen.set(id, path);
+  };
+  doc.nodes.forEach((n, i) => claim(n.id, `nodes[${i}]`));
+  doc.segments.forEach((s, i) => claim(s.id, `segments[${i}]`));
+  doc.areas.forEach((a, i) => claim(a.id, `areas[${i}]`));
+  doc.phaseGroups.forEach((g, i) => claim(g.id, `phaseGroups[${i}]`));
+
+  const nodeIndex = new Map<string, number>();
+  doc.nodes.forEach((n, i) => { if (!nodeIndex.has(n.id)) nodeIndex.set(n.id, i); });
+  const degree = new Map<string, number>();
+  doc.segments.forEach((s, i) => {
+    for (const end of ['a', 'b'] as const) {
+      const id = s[end];
+      if (!nodeIndex.has(id)) errors.push(issue('invalid-design', `segments[${i}].${end}`, 'the id of a node in this design', `${JSON.stringify(id)}, which no node has`));
+      else degree.set(id, (degree.get(id) ?? 0) + 1);
+    }
+    if (s.a === s.b) errors.push(issue('invalid-design', `segments[${i}].b`, 'a node other than its start a (a segment joins two nodes)', JSON.stringify(s.b)));
+    const na = doc.nodes[nodeIndex.get(s.a) ?? -1], nb = doc.nodes[nodeIndex.get(s.b) ?? -1];
+    if (na && nb && s.a !== s.b && na.at.x === nb.at.x && na.at.y === nb.at.y) {
+      errors.push(issue('invalid-design', `segments[${i}]`, 'ends at two different places (the drawing gives each piece its direction)', `both ends at (${na.at.x}, ${na.at.y}) m`));
+    }
+  });
+
+  doc.nodes.forEach((n, i) => {
+    const d = degree.get(n.id) ?? 0;
+    const rule = DEGREE[n.kind];
+    if (d > rule.max) {
+      errors.push(issue('invalid-design', `nodes[${i}]`, `${rule.words} (a ${n.kind} node)`, `${d} segments at ${JSON.stringify(n.id)}`));
+    } else if (d < rule.min) {
+      const msg = `${rule.words}; ${JSON.stringify(n.id)} has ${d}: the network is unfinished there`;
+      if (opts.complete) errors.push(issue('invalid-design', `nodes[${i}]`, `${rule.words} (a ${n.kind} node)`, `${d} segments at ${JSON.stringify(n.id)}`));
+      else warnings.push({ code: 'note', severity: 'warning', message: `nodes[${i}]: ${msg}. It is kept as drawn; sizing waits until it is connected.`, subjects: [n.id], source: 'design-topology' });
+    }
+    if (n.kind === 'short' && n.via.pad <= n.via.drill) {
+      errors.push(issue('invalid-design', `nodes[${i}].via.pad`, `a pad diameter larger than the drill (${n.via.drill} m)`, String(n.via.pad)));
+    }
+  });
+
+  doc.phaseGroups.forEach((g, i) => {
+    const isPort = (id: string) => { const k = nodeIndex.get(id); return k !== undefined && doc.nodes[k]!.kind === 'port'; };
+    if (!isPort(g.from)) errors.push(issue('invalid-design', `phaseGroups[${i}].from`, 'the id of a port node', JSON.stringify(g.from)));
+    const dup = new Set<string>();
+    g.to.forEach((id, k) => {
+      if (!isPort(id)) errors.push(issue('invalid-design', `phaseGroups[${i}].to[${k}]`, 'the id of a port node', JSON.stringify(id)));
+      else if (id === g.from) errors.push(issue('invalid-design', `phaseGroups[${i}].to[${k}]`, 'a port other than the group\'s start', JSON.stringify(id)));
+      else if (dup.has(id)) errors.push(issue('invalid-design', `phaseGroups[${i}].to[${k}]`, 'each port once', `${JSON.stringify(id)} again`));
+      dup.add(id);
+    });
+  });
+
+  const { f0, band } = doc.frequency;
+  if (!(band.start < band.stop)) {
+    errors.push(issue('invalid-design', 'frequency.band.stop', `a band stop above its start (${band.start} Hz)`, String(band.stop)));
+  } else if (f0 < band.start || f0 > band.stop) {
+    warnings.push({ code: 'note', severity: 'warning', message: `frequency.f0 (${f0} Hz) lies outside the band ${band.start}–${band.stop} Hz; lengths are set at f0, the band only sets the sweep.`, source: 'design-frequency' });
+  }
+
+  if (doc.board) checkRing(doc.board.outline, 'board.outline', errors);
+  doc.areas.forEach((a, i) => checkRing(a.polygon, `areas[${i}].polygon`, errors));
+  return { errors, warnings };
+}
+
+/** Above this many points the O(n²) crossing test is skipped (the area test still runs). */
+const CROSSING_TEST_MAX = 2000;
+
+function checkRing(ring: readonly Vec2[], path: string, errors: DesignIssue[]): void {
+  for (let i = 0; i < ring.length; i++) {
+    const p = ring[i]!, q = ring[(i + 1) % ring.length]!;
+    if (p.x === q.x && p.y === q.y) {
+      const closing = i === ring.length - 1;
+      errors.push(issue('invalid-design', `${path}[${(i + 1) % ring.length}]`, closing
+        ? 'an outline that does not repeat its first point at the end (it closes by itself)'
+        : 'a point different from the one before it', `the same point (${q.x}, ${q.y}) twice`));
+      return;
+    }
+  }
+  if (Math.abs(ringArea(ring as Vec2[])) < 1e-12) {
+    errors.push(issue('invalid-design', path, 'a closed outline enclosing an area (points not all on one line)', `an outline of ${ring.length} points enclosing no area`));
+    return;
+  }
+  if (ring.length > CROSSING_TEST_MAX) return;
+  const n = ring.length;
+  for (let i = 0; i < n; i++) {
+    const a = ring[i]!, b = ring[(i + 1) % n]!;
+    for (let j = i + 2; j < n; j++) {
+      if (i === 0 && j === n - 1) continue; // neighbours through the closing edge
+      const c = ring[j]!, d = ring[(j + 1) % n]!;
+      if (segmentsCross(a, b, c, d)) {
+        errors.push(issue('invalid-design', path, 'an outline that does not cross itself', `edges ${i}–${(i + 1) % n} and ${j}–${(j + 1) % n} crossing`));
+        return;
+      }
+    }
+  }
+}
+
+function orient(a: Vec2, b: Vec2, c: Vec2): number {
+  const v = (b.x - a.x) * (c.y - a.y) - (b.y - a.y) * (c.x - a.x);
+  return Math.abs(v) < 1e-18 ? 0 : Math.sign(v);
+}
+
+/** Proper crossing or touching of two edges (collinear overlap counts). */
+function segmentsCross(a: Vec2, b: Vec2, c: Vec2, d: Vec2): boolean {
+  const o1 = orient(a, b, c), o2 = orient(a, b, d), o3 = orient(c, d, a), o4 = orient(c, d, b);
+  if (o1 !== o2 && o3 !== o4 && o1 !== 0 && o2 !== 0 && o3 !== 0 && o4 !== 0) return true;
+  const on = (p: Vec2, q: Vec2, r: Vec2) => Math.min(p.x, q.x) <= r.x && r.x <= Math.max(p.x, q.x) && Math.min(p.y, q.y) <= r.y && r.y <= Math.max(p.y, q.y);
+  if (o1 === 0 && on(a, b, c)) return true;
+  if (o2 === 0 && on(a, b, d)) return true;
+  if (o3 === 0 && on(c, d, a)) return true;
+  if (o4 === 0 && on(c, d, b)) return true;
+  return false;
+}

@@ -1,0 +1,18 @@
+/**
+ * The design document: types, loading (validation, migrations), saving, commands as data and undo by diffs.
+ * Faces read and edit designs only through these.
+ */
+export * from './types.ts';
+export { DESIGN_LIMITS } from './limits.ts';
+export type { DesignIssue } from './issues.ts';
+export { DESIGN_VERSION, MIGRATIONS, migrate, type Migration } from './migrations.ts';
+export { newDesign, FR4_DEFAULT, PROCESS_DEFAULT, FREQUENCY_DEFAULT, type NewDesignOptions } from './defaults.ts';
+export { validateDesign, type ValidateResult, type ValidateOptions } from './validate.ts';
+export { parseDesign, type ParseResult } from './parse.ts';
+export { serializeDesign } from './serialize.ts';
+export { DEGREE } from './crossref.ts';
+export { DESIGN_COMMANDS, runCommand, defaultNodeSpec, DEFAULT_SEGMENT_SPEC, type DesignCommand } from './commands.ts';
+export { snap as snapToGrid } from './command-args.ts';
+export { copySelection, pasteClipboard, CLIPBOARD_FORMAT, type ClipboardContent } from './clipboard.ts';
+export { diffDesigns, applyDiff, invertDiff, isEmptyDiff, jsonEqual, type DesignDiff, type RecordChanges } from './diff.ts';
+export { History, type HistoryOptions, type HistoryStep } from './history.ts';
