@@ -15,5 +15,12 @@ export interface SubstrateSpec {
   /** RMS surface roughness, m. */
   roughness: number;
   /** Carry εr and tanδ from fMeasure to other frequencies with the wideband Debye model (off by default). */
-  dielectricModel?: { kind: 'constant' } | { kind: 'wideband-debye'; fMeasure: number };
+  dielectricModel?: { kind: 'constant' } | {
+    kind: 'wideband-debye';
+    /** Frequency at which `er` and `tanDelta` were measured, Hz. */
+    fMeasure: number;
+    /** Lower and upper corner of the model's loss band, Hz (defaults 1 kHz and 1 THz). */
+    fLow?: number;
+    fHigh?: number;
+  };
 }

@@ -1,0 +1,134 @@
+/**
+ * Analysis W → Z0, εe, wavelength, velocity, delay and attenuation at f (static values at f = 0).
+ *
+ * Models (each in its own file, with citation): Hammerstad–Jensen 1980 static with thickness; Kirschning–Jansen
+ * 1982 εe(f) and Jansen–Kirschning 1983 Z0(f) (default) or the Hammerstad–Jensen 1980 dispersion; conductor loss by
+ * Wheeler's incremental-inductance rule (default) or the current-distribution form, times the Hammerstad–Bekkadal
+ * roughness factor; dielectric loss by the filling-factor form with εe(f). Optionally εr and tanδ carried to f with
+ * the wideband Debye model (core/substrate/wideband-debye.ts).
+ *
+ * DC / thin metal (methods.md §3.6): the strip's DC resistance gives αdc = 1/(σ W t)/(2 Z0); the conductor loss
+ * reported is √(αskin² + αdc²), a heuristic blend that is continuous in f and t, adds about 1 % at t = 3δ and falls
+ * as (δ/t)² above; below t = 3δ a thin-conductor warning flags the result as approximate.
+ */
+import { C0, MU0, NP_TO_DB } from '../units/constants.ts';
+import type { SubstrateSpec } from '../substrate/types.ts';
+import { DEBYE_F_HIGH, DEBYE_F_LOW, widebandDebyeAt } from '../substrate/wideband-debye.ts';
+import { warn, type Warning } from '../util/warnings.ts';
+import { evaluateModel, scratch } from './model.ts';
+import { checkConductorLoss, checkDispersion, checkFrequency, checkSubstrate, checkWidth } from './inputs.ts';
+import { wheelerIncrementalAlphaC } from './wheeler-incremental-inductance.ts';
+import { currentDistributionAlphaC } from './current-distribution-loss.ts';
+import { hammerstadBekkadalKr } from './hammerstad-bekkadal-roughness.ts';
+import { fillingFactorAlphaD } from './filling-factor-dielectric-loss.ts';
+import { thresholdsFor } from './mode-thresholds.ts';
+import { KJ1982_RANGE } from './kirschning-jansen-1982.ts';
+import { JK1983_RANGE } from './jansen-kirschning-1983.ts';
+import type { LineOptions, LineResult } from './types.ts';
+
+/** εr and tanδ at f for the substrate (entered values, or the wideband Debye model when switched on; f = 0 → entered). */
+export function dielectricAt(sub: SubstrateSpec, f: number): { er: number; tanDelta: number } {
+  const dm = sub.dielectricModel;
+  if (dm === undefined || dm.kind !== 'wideband-debye' || f === 0) return { er: sub.er, tanDelta: sub.tanDelta };
+  return widebandDebyeAt(sub.er, sub.tanDelta, dm.fMeasure, f, dm.fLow ?? DEBYE_F_LOW, dm.fHigh ?? DEBYE_F_HIGH);
+}
+
+function fmt(x: number): string { return String(Number(x.toPrecision(4))); }
+
+/**
+ * Analyses a strip of `width` (m) on `sub` at `f` (Hz; 0 for static values).
+ * Example: analyzeLine({ er: 3.66, h: 0.508e-3, t: 35e-6, tanDelta: 0.0037, sigma: 5.8e7, roughness: 0 }, 1.0734e-3, 10e9).z0 ≈ 50.1.
+ * Throws InputError for invalid input; leaving a model's published range is a warning in the result.
+ */
+export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?: LineOptions): LineResult {
+  checkSubstrate(sub);
+  const h = sub.h;
+  checkWidth(width, h);
+  checkFrequency(f);
+  const disp = checkDispersion(opts);
+  const lossModel = checkConductorLoss(opts);
+  const warnings: Warning[] = [];
+
+  let er = sub.er;
+  let tanDelta = sub.tanDelta;
+  const dm = sub.dielectricModel;
+  if (dm !== undefined && dm.kind === 'wideband-debye' && f > 0) {
+    const fLow = dm.fLow ?? DEBYE_F_LOW; const fHigh = dm.fHigh ?? DEBYE_F_HIGH;
+    const d = widebandDebyeAt(er, tanDelta, dm.fMeasure, f, fLow, fHigh);
+    er = d.er; tanDelta = d.tanDelta;
+    if (f < fLow || f > fHigh) {
+      warnings.push(warn('validity', `f = ${fmt(f)} Hz lies outside the wideband Debye band ${fmt(fLow)}–${fmt(fHigh)} Hz; εr and tanδ are extrapolated.`, { source: 'djordjevic-2001-wideband-debye' }));
+    }
+    if (er < 1.001) er = 1.001; // guarded by the ε∞ ≥ 1 check of validateSubstrate; kept as a floor for safety
+  }
+
+  const t = sub.t;
+  const u = width / h;
+  const tn = t / h;
+  const z0 = evaluateModel(u, tn, er, h, f, disp);
+  const z0s = scratch.z0s; const ees = scratch.ees; const eef = scratch.eef; const u1 = scratch.u1; const ur = scratch.ur;
+
+  // Wave quantities.
+  const sq = Math.sqrt(eef);
+  const vp = C0 / sq;
+  const delayPerM = sq / C0;
+  const lambdaG = f > 0 ? vp / f : 0;
+
+  // Conductor loss.
+  const sigma = sub.sigma;
+  const k = Math.PI * f * MU0 * sigma; // 1/δ²
+  const rs = Math.sqrt((Math.PI * f * MU0) / sigma);
+  const skinDepth = f > 0 ? 1 / Math.sqrt(k) : 0;
+  const kr = hammerstadBekkadalKr(sub.roughness * sub.roughness * k);
+  let alphaSkin: number;
+  if (f === 0) alphaSkin = 0;
+  else if (lossModel === 0 && t > 0) alphaSkin = kr * wheelerIncrementalAlphaC(u, tn, u1, h, rs, z0s);
+  else {
+    alphaSkin = kr * currentDistributionAlphaC(rs, z0, width);
+    if (lossModel === 0) {
+      warnings.push(warn('validity', 'Wheeler\'s incremental-inductance rule needs a strip thickness above 0; the conductor loss uses the current-distribution form instead.', { source: 'wheeler-1942', severity: 'info' }));
+    }
+  }
+  const alphaDc = t > 0 ? 1 / (sigma * width * t) / (2 * z0s) : 0;
+  const alphaC = alphaDc === 0 ? alphaSkin : Math.sqrt(alphaSkin * alphaSkin + alphaDc * alphaDc);
+  const alphaD = f > 0 && tanDelta > 0 ? fillingFactorAlphaD(f, er, eef, tanDelta) : 0;
+
+  // Limits, as data.
+  const thresholds = thresholdsFor(er, h, width);
+  if (u < 0.01 || u > 100) {
+    warnings.push(warn('validity', `W/h = ${fmt(u)} is outside 0.01–100, where the static model is stated to 0.2 %.`, { source: 'hammerstad-jensen-1980' }));
+  }
+  if (tn > 0.28) {
+    warnings.push(warn('validity', `t/h = ${fmt(tn)} is above 0.28, beyond the range where the thickness correction was checked to 1 %.`, { source: 'hammerstad-jensen-1980' }));
+  }
+  if (f > 0) {
+    const fn = f * h * 1e-6;
+    if (disp === 1) {
+      if (ur < KJ1982_RANGE.uMin || ur > KJ1982_RANGE.uMax || er > KJ1982_RANGE.erMax || fn > KJ1982_RANGE.fnMax) {
+        warnings.push(warn('validity', `Outside the stated range of the εe(f) model (0.1 ≤ W/h ≤ 100, εr ≤ 20, f·h ≤ 39 GHz·mm): W/h = ${fmt(ur)}, εr = ${fmt(er)}, f·h = ${fmt(fn)} GHz·mm.`, { source: 'kirschning-jansen-1982' }));
+      }
+      if (ur < JK1983_RANGE.uMin || ur > JK1983_RANGE.uMax || er > JK1983_RANGE.erMax || fn > JK1983_RANGE.fnMax) {
+        warnings.push(warn('validity', `Outside the usually quoted range of the Z0(f) model (0.1 ≤ W/h ≤ 10, εr ≤ 18, f·h ≤ 15 GHz·mm): W/h = ${fmt(ur)}, εr = ${fmt(er)}, f·h = ${fmt(fn)} GHz·mm.`, { source: 'jansen-kirschning-1983' }));
+      }
+    }
+    if (f > thresholds.errorAt) {
+      warnings.push(warn('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above the first higher-order-mode / surface-wave threshold ${fmt(thresholds.errorAt / 1e9)} GHz: the quasi-TEM results do not hold; use a thinner substrate or a narrower strip.`, { source: 'mode-thresholds', severity: 'error' }));
+    } else if (f > thresholds.warnAt) {
+      warnings.push(warn('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above half the higher-order-mode / surface-wave threshold ${fmt(thresholds.errorAt / 1e9)} GHz: radiation and coupling at discontinuities grow.`, { source: 'mode-thresholds' }));
+    }
+    if (t > 0 && t < 3 * skinDepth) {
+      warnings.push(warn('thin-conductor', `Copper t = ${fmt(t * 1e6)} µm is less than 3 skin depths (δ = ${fmt(skinDepth * 1e6)} µm): the conductor loss is an approximate DC/skin blend.`, { source: 'skin-effect' }));
+    }
+    if (sub.roughness > 3 * skinDepth) {
+      warnings.push(warn('validity', `Roughness ${fmt(sub.roughness * 1e6)} µm rms is more than 3 skin depths: the roughness factor saturates at 2 and may under-predict the loss.`, { source: 'hammerstad-bekkadal-1975', severity: 'info' }));
+    }
+  }
+
+  return {
+    width, f, z0, z0Static: z0s, epsEff: eef, epsEffStatic: ees,
+    lambdaG, vp, delayPerM,
+    alphaC, alphaD, alphaCdBPerM: alphaC * NP_TO_DB, alphaDdBPerM: alphaD * NP_TO_DB,
+    lossDbPerWavelength: (alphaC + alphaD) * NP_TO_DB * lambdaG,
+    skinDepth, thresholds, warnings,
+  };
+}

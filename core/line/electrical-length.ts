@@ -1,0 +1,33 @@
+/**
+ * Electrical ↔ physical length at the result's frequency (methods.md §4):
+ *   θ[deg] = 360·f·√εe(f)·l/c0 = 360·l/λg,   l = θ·λg/360.
+ * Units: degrees and metres. Needs a result at f > 0 (there is no wavelength at DC).
+ */
+import { InputError, describe } from '../util/errors.ts';
+import type { LineResult } from './types.ts';
+
+function needWave(r: LineResult): number {
+  if (!(r.f > 0 && r.lambdaG > 0)) {
+    throw new InputError('out-of-range', 'f', 'a line result at a frequency above 0 Hz (electrical length needs a wavelength)', String(r.f),
+      'analyse or size the line at the design frequency');
+  }
+  return r.lambdaG;
+}
+
+/** Physical length (m) of `deg` electrical degrees. */
+export function lengthForDegrees(r: LineResult, deg: number): number {
+  const lg = needWave(r);
+  if (typeof deg !== 'number' || !(deg >= 0 && deg <= 1e6)) {
+    throw new InputError('out-of-range', 'deg', 'an electrical length from 0 to 1e6 degrees', describe(deg));
+  }
+  return (deg / 360) * lg;
+}
+
+/** Electrical length (degrees) of `length` metres. */
+export function degreesForLength(r: LineResult, length: number): number {
+  const lg = needWave(r);
+  if (typeof length !== 'number' || !(length >= 0 && length <= 100)) {
+    throw new InputError('out-of-range', 'length', 'a length from 0 to 100 m', describe(length));
+  }
+  return (360 * length) / lg;
+}

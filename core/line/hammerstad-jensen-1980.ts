@@ -1,0 +1,86 @@
+/**
+ * Quasi-static microstrip: characteristic impedance and effective permittivity with the strip-thickness correction.
+ *
+ * Source: E. Hammerstad and Ø. Jensen, "Accurate models for microstrip computer-aided design", IEEE MTT-S
+ * International Microwave Symposium Digest, 1980, pp. 407–409 — eqs. (1)–(2) air line Z01(u) with f(u),
+ * eqs. (3)–(5) εe(u, εr) with a(u), b(εr), eqs. (6)–(8) thickness correction Δu1, Δur (paper form, t normalised to h).
+ * Symbols as in the paper: u = W/h, tn = t/h, Z01 the air-filled line, ee the effective permittivity.
+ *
+ * Validity and accuracy (as reported by the authors): Z01 better than 0.01 % for u ≤ 1 and 0.03 % for u ≤ 1000;
+ * εe better than 0.2 % for εr ≤ 128 and 0.01 ≤ u ≤ 100. No bound is stated for the thickness correction; a 2-D
+ * field-solver check agrees within 1 % for t/h ≤ 0.28 (methods.md §1.1, §9).
+ * Units: u, tn, εr dimensionless; impedances in Ω.
+ */
+import { ETA0 } from '../units/constants.ts';
+
+const TWO_PI = 2 * Math.PI;
+const E = Math.E;
+
+/** f(u) of eq. (1). */
+function fu(u: number): number {
+  return 6 + (TWO_PI - 6) * Math.exp(-Math.pow(30.666 / u, 0.7528));
+}
+
+/** Air-filled, zero-thickness line impedance Z01(u), Ω — eq. (1). */
+export function hjZ01(u: number): number {
+  return (ETA0 / TWO_PI) * Math.log(fu(u) / u + Math.sqrt(1 + 4 / (u * u)));
+}
+
+/** dZ01/du, Ω — analytic derivative of eq. (1), used by Wheeler's incremental-inductance rule. */
+export function hjZ01Derivative(u: number): number {
+  const q = Math.pow(30.666 / u, 0.7528);
+  const eq = Math.exp(-q);
+  const f = 6 + (TWO_PI - 6) * eq;
+  const df = (TWO_PI - 6) * eq * 0.7528 * q / u;
+  const r = Math.sqrt(1 + 4 / (u * u));
+  const g = f / u + r;
+  const dg = df / u - f / (u * u) - 4 / (u * u * u * r);
+  return (ETA0 / TWO_PI) * dg / g;
+}
+
+/** Effective permittivity εe(u, εr) of the zero-thickness line — eqs. (3)–(5). */
+export function hjEpsEff(u: number, er: number): number {
+  const u2 = u * u;
+  const u4 = u2 * u2;
+  const a = 1 + Math.log((u4 + u2 / 2704) / (u4 + 0.432)) / 49 + Math.log(1 + (u * u2) / 5929.741) / 18.7;
+  const b = 0.564 * Math.pow((er - 0.9) / (er + 3), 0.053);
+  return (er + 1) / 2 + ((er - 1) / 2) * Math.pow(1 + 10 / u, -a * b);
+}
+
+/** Δu1 of eq. (6): the air line's width increment for normalised thickness tn (0 when tn = 0). */
+export function hjDeltaU1(u: number, tn: number): number {
+  if (tn <= 0) return 0;
+  const th = Math.tanh(Math.sqrt(6.517 * u));
+  return (tn / Math.PI) * Math.log(1 + (4 * E * th * th) / tn);
+}
+
+/** Δur of eq. (7): the dielectric line's width increment. */
+export function hjDeltaUr(du1: number, er: number): number {
+  return 0.5 * (1 + 1 / Math.cosh(Math.sqrt(er - 1))) * du1;
+}
+
+/** Static result of the model. */
+export interface HjStatic {
+  /** Characteristic impedance, Ω. */
+  z0: number;
+  /** Effective permittivity. */
+  epsEff: number;
+  /** u1 = u + Δu1 (air line) and ur = u + Δur (dielectric line). */
+  u1: number;
+  ur: number;
+}
+
+/**
+ * Z0 and εe with the thickness correction (eq. 8): Z0 = Z01(ur)/√εe(ur), εe = εe(ur)·(Z01(u1)/Z01(ur))².
+ * Note Z0·√εe = Z01(u1): the air line uses u1. For speed, callers in the hot path use the scalar pieces directly.
+ */
+export function hammerstadJensenStatic(u: number, tn: number, er: number): HjStatic {
+  const du1 = hjDeltaU1(u, tn);
+  const u1 = u + du1;
+  const ur = u + hjDeltaUr(du1, er);
+  const z01r = hjZ01(ur);
+  const eer = hjEpsEff(ur, er);
+  const z0 = z01r / Math.sqrt(eer);
+  const ratio = du1 === 0 ? 1 : hjZ01(u1) / z01r;
+  return { z0, epsEff: eer * ratio * ratio, u1, ur };
+}

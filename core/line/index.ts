@@ -1,0 +1,21 @@
+/**
+ * Microstrip line models behind one interface: analysis, exact synthesis, electrical length, line constants and
+ * mode thresholds. Each published model lives in its own file named for it.
+ */
+export type { LineOptions, LineResult, DispersionModel, ConductorLossModel } from './types.ts';
+export { DISPERSION_MODELS, CONDUCTOR_LOSS_MODELS } from './types.ts';
+export { analyzeLine, dielectricAt } from './analyze.ts';
+export { synthesizeLine } from './synthesize.ts';
+export { lengthForDegrees, degreesForLength } from './electrical-length.ts';
+export { lineConstants } from './line-constants.ts';
+export type { Complex } from './line-constants.ts';
+export { modeThresholds } from './mode-thresholds.ts';
+export type { ModeThresholds } from './mode-thresholds.ts';
+export { hammerstad1975WidthRatio, wheeler1977WidthRatio } from './closed-form-synthesis.ts';
+export { hammerstadJensenStatic, hjZ01, hjEpsEff } from './hammerstad-jensen-1980.ts';
+export { kirschningJansenEpsEff, KJ1982_RANGE } from './kirschning-jansen-1982.ts';
+export { jansenKirschningZ0, JK1983_RANGE } from './jansen-kirschning-1983.ts';
+export { currentDistributionAlphaC } from './current-distribution-loss.ts';
+export { U_MIN, U_MAX, F_MAX } from './inputs.ts';
+export { SUBSTRATE_PRESETS, findPreset, validateSubstrate } from '../substrate/index.ts';
+export type { SubstratePreset } from '../substrate/index.ts';

@@ -1,0 +1,30 @@
+/**
+ * Frequency-dependent effective permittivity εe(f).
+ *
+ * Source: M. Kirschning and R. H. Jansen, "Accurate model for effective dielectric constant of microstrip with
+ * validity up to millimetre-wave frequencies", Electronics Letters, vol. 18, no. 6, pp. 272–273, March 1982,
+ * eqs. (1)–(2) with P1…P4 (constants as in methods.md §2.1).
+ *   P1 = 0.27488 + (0.6315 + 0.525/(1 + 0.0157 fn)^20) u − 0.065683 exp(−8.7513 u)
+ *   P2 = 0.33622 (1 − exp(−0.03442 εr)),  P3 = 0.0363 exp(−4.6 u)(1 − exp(−(fn/38.7)^4.97))
+ *   P4 = 1 + 2.751 (1 − exp(−(εr/15.916)^8)),  P = P1 P2 ((0.1844 + P3 P4) fn)^1.5763
+ *   εe(f) = εr − (εr − εe0)/(1 + P)
+ * fn = f·h in GHz·mm. u = W_eff/h (ur of the thickness correction; the paper is for t = 0, this is the usual
+ * extension). Validity (as usually quoted): 0.1 ≤ u ≤ 100, 1 ≤ εr ≤ 20, h/λ0 ≤ 0.13 (fn ≤ 38.97 GHz·mm);
+ * accuracy better than 0.6 % against the authors' full-wave data.
+ */
+
+/** KJ validity bounds. */
+export const KJ1982_RANGE = { uMin: 0.1, uMax: 100, erMax: 20, fnMax: 0.13 * 299.792458 } as const;
+
+/** εe(f) from the static εe0 (u dimensionless, er relative permittivity, fn in GHz·mm). */
+export function kirschningJansenEpsEff(u: number, er: number, ee0: number, fn: number): number {
+  const d = 1 + 0.0157 * fn;
+  const d2 = d * d; const d4 = d2 * d2; const d5 = d4 * d; const d10 = d5 * d5;
+  const P1 = 0.27488 + (0.6315 + 0.525 / (d10 * d10)) * u - 0.065683 * Math.exp(-8.7513 * u);
+  const P2 = 0.33622 * (1 - Math.exp(-0.03442 * er));
+  const P3 = 0.0363 * Math.exp(-4.6 * u) * (1 - Math.exp(-Math.pow(fn / 38.7, 4.97)));
+  const x = er / 15.916; const x2 = x * x; const x4 = x2 * x2;
+  const P4 = 1 + 2.751 * (1 - Math.exp(-(x4 * x4)));
+  const P = P1 * P2 * Math.pow((0.1844 + P3 * P4) * fn, 1.5763);
+  return er - (er - ee0) / (1 + P);
+}

@@ -1,0 +1,39 @@
+/**
+ * Complex characteristic impedance and propagation constant for the network solver (methods.md §3.7), from the
+ * per-unit-length constants of the analysed line:
+ *   L' = Z0·√εe/c0,  C' = √εe/(Z0·c0),  R' = 2·Z0·αc,  G' = 2·αd/Z0  (Z0 = Z0(f), εe = εe(f))
+ *   γ = √((R' + jωL')(G' + jωC')),   Zc = √((R' + jωL')/(G' + jωC'))
+ * Units: Ω and 1/m (γ = α + jβ with α in Np/m, β in rad/m). Needs f > 0.
+ */
+import { C0 } from '../units/constants.ts';
+import { InputError } from '../util/errors.ts';
+import type { SubstrateSpec } from '../substrate/types.ts';
+import { analyzeLine } from './analyze.ts';
+import type { LineOptions } from './types.ts';
+
+export interface Complex { re: number; im: number }
+
+/** Principal square root (re ≥ 0). */
+function csqrt(re: number, im: number): Complex {
+  const m = Math.hypot(re, im);
+  const r = Math.sqrt((m + re) / 2);
+  const i = Math.sqrt(Math.max(0, (m - re) / 2));
+  return { re: r, im: im < 0 ? -i : i };
+}
+
+export function lineConstants(sub: SubstrateSpec, width: number, f: number, opts?: LineOptions): { zc: Complex; gamma: Complex } {
+  if (typeof f === 'number' && f === 0) {
+    throw new InputError('out-of-range', 'f', 'a frequency above 0 Hz for the line constants', '0', 'at DC a line is its series resistance; use a small frequency');
+  }
+  const r = analyzeLine(sub, width, f, opts);
+  const w = 2 * Math.PI * f;
+  const sq = Math.sqrt(r.epsEff);
+  const L = (r.z0 * sq) / C0; const C = sq / (r.z0 * C0);
+  const R = 2 * r.z0 * r.alphaC; const G = (2 * r.alphaD) / r.z0;
+  // Z = R + jωL, Y = G + jωC
+  const zr = R; const zi = w * L; const yr = G; const yi = w * C;
+  const gamma = csqrt(zr * yr - zi * yi, zr * yi + zi * yr);
+  const d = yr * yr + yi * yi;
+  const zc = csqrt((zr * yr + zi * yi) / d, (zi * yr - zr * yi) / d);
+  return { zc, gamma };
+}

@@ -1,0 +1,86 @@
+/**
+ * Exact synthesis Z0 → W: safeguarded Newton/secant on x = ln(W/h) inverting the active analysis model
+ * (methods.md §1.4), static or at f. The Hammerstad 1975 closed form is only the seed. Bracket
+ * x ∈ [ln 0.001, ln 1000] (Z0 falls monotonically with W); a step that leaves the bracket is replaced by bisection;
+ * stops when |Z0(W) − target| < 1e-10·target. A target outside the bracket's impedances is an
+ * InputError('unreachable-target') that gives the reachable range.
+ */
+import { InputError, describe } from '../util/errors.ts';
+import type { SubstrateSpec } from '../substrate/types.ts';
+import { evaluateModel } from './model.ts';
+import { checkConductorLoss, checkDispersion, checkFrequency, checkSubstrate, U_MAX, U_MIN } from './inputs.ts';
+import { hammerstad1975WidthRatio } from './closed-form-synthesis.ts';
+import { analyzeLine, dielectricAt } from './analyze.ts';
+import type { LineOptions, LineResult } from './types.ts';
+
+const X_LO = Math.log(U_MIN);
+const X_HI = Math.log(U_MAX);
+const REL_TOL = 1e-10;
+const MAX_ITER = 100;
+
+/**
+ * The width (as a full analysis at f) whose Z0 — at f with the chosen dispersion, or static when f = 0 or
+ * dispersion 'none' — equals `z0` (Ω) to 1e-10 relative.
+ * Example: synthesizeLine(glassEpoxy, 50, 0).width ≈ 1.5 mm for εr 4.4, h 0.79 mm.
+ */
+export function synthesizeLine(sub: SubstrateSpec, z0: number, f: number, opts?: LineOptions): LineResult {
+  checkSubstrate(sub);
+  checkFrequency(f);
+  const disp = checkDispersion(opts);
+  checkConductorLoss(opts);
+  if (typeof z0 !== 'number' || !(z0 > 0 && z0 <= 1e4)) {
+    throw new InputError(typeof z0 === 'number' && Number.isFinite(z0) ? 'out-of-range' : 'invalid-number', 'z0', 'a target impedance above 0 Ω and up to 10 kΩ', describe(z0));
+  }
+  const { er } = dielectricAt(sub, f);
+  const h = sub.h;
+  const tn = sub.t / h;
+  const G = (x: number): number => evaluateModel(Math.exp(x), tn, er, h, f, disp) - z0;
+  const tol = REL_TOL * z0;
+
+  const unreachable = (): never => {
+    const zMax = G(X_LO) + z0;
+    const zMin = G(X_HI) + z0;
+    const at = f > 0 && disp !== 0 ? ` at ${Number((f / 1e9).toPrecision(4))} GHz` : ' (static)';
+    throw new InputError('unreachable-target', 'z0',
+      `an impedance from ${zMin.toFixed(2)} Ω to ${zMax.toFixed(2)} Ω, the range of W/h 0.001–1000 on this substrate${at}`,
+      `${z0} Ω`, 'choose a target in that range or change the substrate height or εr');
+  };
+
+  // Bracket [a, b] with g(a) > 0 > g(b) once evaluated (Z0 decreases with W).
+  let a = X_LO; let b = X_HI;
+  let aKnown = false; let bKnown = false;
+  let seed = hammerstad1975WidthRatio(z0, er);
+  if (!(seed > U_MIN && seed < U_MAX)) seed = seed >= U_MAX ? U_MAX * 0.5 : seed <= U_MIN ? U_MIN * 2 : 1;
+  let x0 = Math.log(seed);
+  let g0 = G(x0);
+  let x = x0;
+  let done = Math.abs(g0) < tol;
+  if (!done) {
+    if (g0 > 0) { a = x0; aKnown = true; } else { b = x0; bKnown = true; }
+    const dx = 1e-6;
+    let x1 = x0 + dx;
+    let g1 = G(x1);
+    let slope = (g1 - g0) / dx;
+    x = x1;
+    done = Math.abs(g1) < tol;
+    for (let i = 0; i < MAX_ITER && !done; i++) {
+      if (g1 > 0) { if (x1 > a) { a = x1; aKnown = true; } } else if (x1 < b) { b = x1; bKnown = true; }
+      let xn = slope < 0 ? x1 - g1 / slope : NaN;
+      if (!(xn > a && xn < b)) {
+        // The step leaves the bracket: make sure the far end brackets the root, then bisect.
+        if (!aKnown) { const ga = G(a); if (ga < 0) unreachable(); if (Math.abs(ga) < tol) { x = a; done = true; break; } aKnown = true; }
+        if (!bKnown) { const gb = G(b); if (gb > 0) unreachable(); if (Math.abs(gb) < tol) { x = b; done = true; break; } bKnown = true; }
+        xn = 0.5 * (a + b);
+      }
+      const gn = G(xn);
+      x = xn;
+      if (Math.abs(gn) < tol || b - a < 1e-14) { done = true; break; }
+      slope = (gn - g1) / (xn - x1);
+      x0 = x1; g0 = g1; x1 = xn; g1 = gn;
+    }
+  }
+  if (!done) {
+    throw new InputError('unreachable-target', 'z0', 'a target the width search can converge on', `${z0} Ω`, 'the model did not converge; please report this case');
+  }
+  return analyzeLine(sub, Math.exp(x) * h, f, opts);
+}

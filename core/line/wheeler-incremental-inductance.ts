@@ -1,0 +1,33 @@
+/**
+ * Conductor loss by Wheeler's incremental-inductance rule applied to the Hammerstad–Jensen air line (default,
+ * conductorLoss: 'wheeler-incremental').
+ *
+ * Sources: H. A. Wheeler, "Formulas for the skin effect", Proc. IRE, vol. 30, no. 9, pp. 412–424, Sept. 1942
+ * (the rule); applied to microstrip by R. A. Pucel, D. J. Massé and C. P. Hartwig, "Losses in microstrip", IEEE
+ * Trans. MTT, vol. 16, no. 6, pp. 342–350, June 1968 (correction p. 1064, Dec. 1968). Every conductor wall recedes by
+ * dn: dW/dn = −2, dt/dn = −2, dh/dn = +2, so with Z0a(W, h, t) = Z01(u1) the air-line impedance (methods.md §3.2):
+ *     αc = Rs/(η0·Z0) · (∂Z0a/∂h − ∂Z0a/∂W − ∂Z0a/∂t)            [Np/m]
+ * Z0a depends on W, h, t only through u = W/h and tn = t/h, so with A = ∂u1/∂u and B = ∂u1/∂tn (analytic):
+ *     ∂Z0a/∂h − ∂Z0a/∂W − ∂Z0a/∂t = −(Z01'(u1)/h)·((1 + u)·A + (1 + tn)·B)
+ * Z0 is the static impedance (quasi-static rule). Requires t > 0 (the sharp edge of a zero-thickness strip has
+ * unbounded loss in this rule). Roughness is applied by the caller. Units: Rs Ω, h m, Z0 Ω, result Np/m.
+ */
+import { ETA0 } from '../units/constants.ts';
+import { hjZ01Derivative } from './hammerstad-jensen-1980.ts';
+
+const FOUR_E = 4 * Math.E;
+
+/** The bracket (∂Z0a/∂h − ∂Z0a/∂W − ∂Z0a/∂t)·h, Ω, for u = W/h, tn = t/h > 0 and u1 = u + Δu1. */
+export function wheelerGeometryFactor(u: number, tn: number, u1: number): number {
+  const s = Math.sqrt(6.517 * u);
+  const T = Math.tanh(s);
+  const X = (FOUR_E * T * T) / tn;
+  const A = 1 + (FOUR_E * 6.517 * T * (1 - T * T)) / (Math.PI * s * (1 + X));
+  const B = (Math.log(1 + X) - X / (1 + X)) / Math.PI;
+  return -hjZ01Derivative(u1) * ((1 + u) * A + (1 + tn) * B);
+}
+
+/** αc, Np/m, without roughness. rs surface resistance Ω, h m, z0Static Ω. */
+export function wheelerIncrementalAlphaC(u: number, tn: number, u1: number, h: number, rs: number, z0Static: number): number {
+  return (rs / (ETA0 * z0Static)) * (wheelerGeometryFactor(u, tn, u1) / h);
+}
