@@ -8,3 +8,4 @@ export * from './units/index.ts';
 export * from './substrate/index.ts';
 export * from './line/index.ts';
 export * from './design/index.ts';
+export * from './export/index.ts';

@@ -1,0 +1,10 @@
+/** Export layer: pure functions from BoardGeometry to the text of DXF, SVG, Gerber X2, Excellon and photo masks. */
+export * from './frame.ts';
+export * from './layers.ts';
+export * from './dxf.ts';
+export * from './svg.ts';
+export * from './gerber.ts';
+export * from './excellon.ts';
+export * from './mask.ts';
+export * from './bias.ts';
+export * from './milling.ts';

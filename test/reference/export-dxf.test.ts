@@ -1,0 +1,115 @@
+/**
+ * DXF export checked by two outside readers:
+ * - ezdxf (Debian python3-ezdxf), strict loader + audit: zero errors and zero fixes (scripts/oracles/audit_dxf.py);
+ * - dxf-parser (npm): every vertex read back within 1 µm of the geometry (practice.md §20: "exported dimensions
+ *   within 1 µm of the model after re-import"), closed flags set, $INSUNITS = 4 (Autodesk DXF Reference: 4 = mm).
+ */
+import { describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import DxfParser from 'dxf-parser';
+import { toDxf } from '../../core/export/dxf.ts';
+import { boardFixture, stripOnlyFixture, BEND_MM } from '../fixtures/export/hand-made.ts';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+const dir = mkdtempSync(join(tmpdir(), 'sw-dxf-'));
+
+interface Audit {
+  strict: boolean; strict_error: string | null; version: string; insunits: number; measurement: number;
+  audit_errors: string[]; audit_fixes: string[]; layers: string[];
+  entities: { type: string; layer: string; closed?: boolean; points?: number[][]; center?: number[]; radius?: number }[];
+}
+
+/** Runs Debian's python3 with ezdxf (a pyenv/venv python3 earlier on PATH cannot import it; formats.md §0). */
+export function ezdxfAudit(text: string, name = 'x.dxf'): { code: number | null; report: Audit } {
+  const file = join(dir, name);
+  writeFileSync(file, text);
+  const r = spawnSync('python3', [join(ROOT, 'scripts', 'oracles', 'audit_dxf.py'), file], {
+    encoding: 'utf8', env: { ...process.env, PATH: spawnSync('getconf', ['PATH'], { encoding: 'utf8' }).stdout.trim() },
+  });
+  if (r.stdout.trim() === '') throw new Error(`audit_dxf.py gave no output: ${r.stderr}`);
+  return { code: r.status, report: JSON.parse(r.stdout) as Audit };
+}
+
+describe('DXF export (ezdxf strict load + audit)', () => {
+  it('passes the strict loader and the audit with zero errors and zero fixes, in mm', () => {
+    const { code, report } = ezdxfAudit(toDxf(boardFixture()));
+    expect(report.strict, report.strict_error ?? '').toBe(true);
+    expect(report.audit_errors).toEqual([]);
+    expect(report.audit_fixes).toEqual([]);
+    expect(code).toBe(0);
+    expect(report.insunits).toBe(4); // Autodesk DXF Reference, $INSUNITS: 4 = millimetres
+    expect(report.measurement).toBe(1); // $MEASUREMENT: 1 = metric
+    expect(report.layers).toEqual(expect.arrayContaining(['COPPER', 'GROUND_COPPER', 'BOARD_EDGE', 'CLEAR_AREA', 'DRILLS', 'KEEPOUT']));
+  });
+
+  it('writes one closed polyline per outer ring and per hole, on the right layers, and circles for drills', () => {
+    const g = boardFixture();
+    const { report } = ezdxfAudit(toDxf(g));
+    const count = (layer: string) => report.entities.filter((e) => e.layer === layer).length;
+    expect(count('COPPER')).toBe(2);
+    expect(count('GROUND_COPPER')).toBe(3); // outer + two windows
+    expect(count('CLEAR_AREA')).toBe(6); // three regions, each with one hole
+    expect(count('BOARD_EDGE')).toBe(1);
+    const polys = report.entities.filter((e) => e.type === 'LWPOLYLINE');
+    expect(polys.every((e) => e.closed)).toBe(true);
+    const bend = polys.find((e) => e.layer === 'COPPER' && e.points!.length === 7)!;
+    // Closed without a repeated last vertex (formats.md §1.1 recommendation), vertices as designed.
+    expect(bend.points!.map((p) => [p[0], p[1]])).toEqual(BEND_MM);
+    const circles = report.entities.filter((e) => e.type === 'CIRCLE');
+    expect(circles.map((c) => c.radius).sort()).toEqual([0.4, 0.4, 0.65, 1.6]);
+    expect(circles.every((c) => c.layer === 'DRILLS')).toBe(true);
+  });
+
+  it('is rejected by the same audit when truncated (the oracle can fail)', () => {
+    const text = toDxf(boardFixture());
+    const { code, report } = ezdxfAudit(text.slice(0, Math.floor(text.length / 2)), 'truncated.dxf');
+    expect(report.strict).toBe(false);
+    expect(code).not.toBe(0);
+  });
+});
+
+describe('DXF export read back with dxf-parser', () => {
+  const parse = (text: string) => new DxfParser().parseSync(text)!;
+
+  it('gives every vertex within 1 µm of the geometry, origin at the board corner', () => {
+    const g = boardFixture();
+    const dxf = parse(toDxf(g));
+    expect(dxf.header.$INSUNITS).toBe(4);
+    const copper = dxf.entities.filter((e) => e.layer === 'COPPER') as unknown as { vertices: { x: number; y: number }[]; shape: boolean }[];
+    const want = g.copper.map((r) => r.outer.map((p) => [p.x * 1e3, p.y * 1e3]));
+    expect(copper.length).toBe(want.length);
+    copper.forEach((e, i) => {
+      expect(e.shape).toBe(true); // closed flag
+      e.vertices.forEach((v, k) => {
+        expect(Math.abs(v.x - want[i][k][0])).toBeLessThan(1e-3);
+        expect(Math.abs(v.y - want[i][k][1])).toBeLessThan(1e-3);
+      });
+    });
+  });
+
+  it('moves the board corner to (0, 0) with origin board and keeps design coordinates with origin design', () => {
+    const g = stripOnlyFixture(); // strip at x 10…20 mm, y 20…22 mm, no outline
+    const xs = (text: string) => (parse(text).entities[0] as unknown as { vertices: { x: number; y: number }[] }).vertices;
+    expect(xs(toDxf(g, { origin: 'board' })).map((v) => [v.x, v.y])).toEqual([[0, 0], [10, 0], [10, 2], [0, 2]]);
+    expect(xs(toDxf(g, { origin: 'design' })).map((v) => [v.x, v.y])).toEqual([[10, 20], [20, 20], [20, 22], [10, 22]]);
+  });
+
+  it('mirrors left-right within the board box and keeps outer rings counter-clockwise', () => {
+    const g = boardFixture();
+    const dxf = parse(toDxf(g, { mirror: true, layers: ['copper'] }));
+    const bend = (dxf.entities[0] as unknown as { vertices: { x: number; y: number }[] }).vertices;
+    // Mirror of x about the 50 mm board: x' = 50 − x; order reversed so the signed area stays positive.
+    const want = BEND_MM.map(([x, y]) => [50 - x, y]).reverse();
+    expect(bend.map((v) => [v.x, v.y])).toEqual(want);
+    let a = 0;
+    bend.forEach((p, i) => { const q = bend[(i + 1) % bend.length]; a += p.x * q.y - q.x * p.y; });
+    expect(a).toBeGreaterThan(0);
+  });
+
+  it('is deterministic: the same geometry gives byte-identical text (handle counter reset)', () => {
+    expect(toDxf(boardFixture())).toBe(toDxf(boardFixture()));
+  });
+});
