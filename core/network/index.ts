@@ -1,0 +1,20 @@
+/**
+ * The response layer: netlists, the nodal solve, sweeps, derived figures and Touchstone in and out.
+ *
+ * @example
+ *   const q = lengthForDegrees(90, 1e9);
+ *   const r = solveNetwork({ elements: [{ kind: 'line', id: 't', a: 'p1', b: 'p2', length: q, model: idealLine(70.71) }],
+ *                            ports: [{ name: '1', node: 'p1', zRef: 50 }, { name: '2', node: 'p2', zRef: 100 }] }, [1e9]);
+ *   magnitudeDb(r, 0, 0); // → [-400]: matched at f0
+ */
+export * from './complex.ts';
+export * from './netlist.ts';
+export { compileNetwork, solveAt, type CompiledNetwork, type PointSolution } from './mna.ts';
+export * from './conversions.ts';
+export * from './response.ts';
+export * from './sweep.ts';
+export * from './figures.ts';
+export * from './touchstoneWrite.ts';
+export * from './touchstoneRead.ts';
+export * from './sparamsPart.ts';
+export * from './lineTwoPort.ts';

@@ -1,0 +1,328 @@
+/**
+ * Modified nodal analysis of a netlist at one frequency, giving the full S-matrix of its ports
+ * (methods.md §8.2, §8.3).
+ *
+ * Stamps. Admittances y between a and b: Y[a,a] += y, Y[b,b] += y, Y[a,b] -= y, Y[b,a] -= y (ground rows and
+ * columns are left out). A line is stamped as its Y two-port Y11 = Y22 = coth(γl)/Zc, Y12 = Y21 = −1/(Zc sinh γl)
+ * (methods.md §8.1). Ports of reference Zk add 1/Zk to their node (Norton form of a source with series Zk).
+ *
+ * Fast path: the pattern is symmetric and fixed, so a fill-reducing order and the symbolic factorisation are
+ * computed once (ordering.ts) and each frequency is one sparse LU without pivoting.
+ *
+ * Robust path, taken at a frequency when the fast path cannot be trusted:
+ *  - a line's Y stamp is singular or nearly so (|sinh γl| < 1e-4: a lossless line at a multiple of a half-wave);
+ *  - a pivot of the fixed order is tiny relative to its row (e.g. an open quarter-wave stub at f0 has Y11 = 0).
+ * Then the frequency is solved densely with scaled partial pivoting, and the ill-conditioned lines are stamped in
+ * the ABCD form instead: two extra unknowns I1 (into end a) and I2 (out of end b) and two rows
+ * V_a − A V_b − B I2 = 0, I1 − C V_b − D I2 = 0, which is never singular (methods.md §8.2).
+ * Only a network that is singular in itself (an ideal lossless resonance with no port to damp it) still fails,
+ * with an InputError 'singular-network' naming the frequency and the node.
+ *
+ * S-parameters: power waves with real references (Kurokawa 1965), equal to travelling waves for real Zk.
+ * Excite port j with E_j = 2√Zj (incident wave a_j = 1), i.e. inject E_j/Z_j at its node; then
+ * S_ij = V_i/√Z_i − δij.
+ */
+import { InputError } from '../util/errors.ts';
+import { ccoshSinh, cdiv, cmul, type Complex } from './complex.ts';
+import { denseLuFactor, denseLuSolve } from './denseLu.ts';
+import { GROUND, type NetElement, type Netlist } from './netlist.ts';
+import { sparseFactor, sparseSolve, symbolicFactor, type Symbolic } from './ordering.ts';
+
+/** Below this |sinh γl| a line is stamped in ABCD form (the Y stamp loses about 4 digits there). */
+const SINH_LIMIT = 1e-4;
+/** Below this pivot ratio the fixed-order LU is abandoned for the pivoting dense solve at that frequency. */
+const PIVOT_LIMIT = 1e-8;
+/** Below this pivot ratio the pivoting solve reports the network as singular. */
+const SINGULAR_LIMIT = 1e-13;
+
+type Stamped =
+  | { kind: 'y2'; el: NetElement; a: number; b: number; y: (f: number) => Complex }
+  | { kind: 'line'; el: Extract<NetElement, { kind: 'line' }>; a: number; b: number }
+  | { kind: 'nport'; el: Extract<NetElement, { kind: 'nport' }>; nodes: number[] };
+
+/** A netlist prepared for repeated solves: nodes merged and numbered, pattern and ordering fixed. */
+export interface CompiledNetwork {
+  /** Node names by index (after merging wires; a merged node keeps the first name). */
+  nodeNames: string[];
+  ports: { name: string; node: number; zRef: number }[];
+  stamped: Stamped[];
+  symbolic: Symbolic;
+  /** For the fast path: slots per stamped element (aa, bb, ab, ba; −1 where a terminal is ground). */
+  slots: Int32Array[];
+}
+
+function requirePositive(field: string, v: number, what: string): void {
+  if (typeof v !== 'number' || !Number.isFinite(v) || v < 0) throw new InputError('out-of-range', field, what, String(v));
+}
+
+/** Checks, merges zero-length wires, numbers nodes, fixes the elimination order. Throws InputError. */
+export function compileNetwork(net: Netlist): CompiledNetwork {
+  if (net.ports.length === 0) throw new InputError('singular-network', 'ports', 'at least one port', 'none');
+  // Union-find over node names: zero-length lines, 0 Ω resistors and 0 H inductors are wires.
+  const parent = new Map<string, string>();
+  const find = (x: string): string => {
+    let r = x;
+    while (parent.has(r) && parent.get(r) !== r) r = parent.get(r)!;
+    parent.set(x, r);
+    return r;
+  };
+  const touch = (x: string) => { if (!parent.has(x)) parent.set(x, x); };
+  const union = (a: string, b: string) => {
+    const ra = find(a), rb = find(b);
+    if (ra === rb) return;
+    // Ground always stays the root so a wire to ground grounds the node.
+    if (rb === GROUND) parent.set(ra, rb); else parent.set(rb, ra);
+  };
+  const kept: NetElement[] = [];
+  const ids = new Set<string>();
+  for (const [i, el] of net.elements.entries()) {
+    const f = `elements[${i}]${el.id ? ` (${el.id})` : ''}`;
+    if (ids.has(el.id)) throw new InputError('invalid-design', `${f}.id`, 'a unique element id', JSON.stringify(el.id));
+    ids.add(el.id);
+    const terms = el.kind === 'nport' ? el.nodes : [el.a, el.b];
+    for (const t of terms) {
+      if (typeof t !== 'string' || t === '') throw new InputError('invalid-design', `${f}.nodes`, 'node names', String(t));
+      touch(t);
+    }
+    switch (el.kind) {
+      case 'line':
+        requirePositive(`${f}.length`, el.length, 'a length >= 0 m');
+        if (el.length === 0) { union(el.a, el.b); continue; }
+        break;
+      case 'resistor': case 'inductor':
+        requirePositive(`${f}.value`, el.value, el.kind === 'resistor' ? 'a resistance >= 0 Ω' : 'an inductance >= 0 H');
+        if (el.value === 0) { union(el.a, el.b); continue; }
+        break;
+      case 'capacitor':
+        requirePositive(`${f}.value`, el.value, 'a capacitance >= 0 F');
+        if (el.value === 0) continue;
+        break;
+      case 'series-rl':
+        requirePositive(`${f}.l`, el.l, 'an inductance >= 0 H');
+        if (typeof el.r === 'number') {
+          requirePositive(`${f}.r`, el.r, 'a resistance >= 0 Ω');
+          if (el.r === 0 && el.l === 0) { union(el.a, el.b); continue; }
+        }
+        break;
+      case 'admittance': case 'nport': break;
+      default: {
+        const k = (el as { kind: unknown }).kind;
+        throw new InputError('bad-choice', `${f}.kind`, 'line, resistor, capacitor, inductor, series-rl, admittance or nport', String(k));
+      }
+    }
+    kept.push(el);
+  }
+  touch(GROUND);
+  for (const [i, p] of net.ports.entries()) {
+    if (!(p.zRef > 0) || !Number.isFinite(p.zRef)) throw new InputError('out-of-range', `ports[${i}].zRef`, 'a real reference impedance > 0 Ω', String(p.zRef));
+    if (!parent.has(p.node)) throw new InputError('singular-network', `ports[${i}].node`, 'a node that some element connects to', JSON.stringify(p.node));
+    if (find(p.node) === GROUND) throw new InputError('singular-network', `ports[${i}] (${p.name})`, 'a port node not shorted to ground', 'a zero-length connection or 0 Ω part to ground at its node');
+  }
+  // Number the surviving (root) nodes, ground excluded.
+  const index = new Map<string, number>();
+  const nodeNames: string[] = [];
+  const num = (name: string): number => {
+    const r = find(name);
+    if (r === GROUND) return -1;
+    let k = index.get(r);
+    if (k === undefined) { k = nodeNames.length; index.set(r, k); nodeNames.push(r); }
+    return k;
+  };
+  for (const p of net.ports) num(p.node);
+  const stamped: Stamped[] = [];
+  for (const el of kept) {
+    switch (el.kind) {
+      case 'line': stamped.push({ kind: 'line', el, a: num(el.a), b: num(el.b) }); break;
+      case 'resistor': { const g = 1 / el.value; stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: () => ({ re: g, im: 0 }) }); break; }
+      case 'capacitor': { const c = el.value; stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: (f) => ({ re: 0, im: 2 * Math.PI * f * c }) }); break; }
+      case 'inductor': { const l = el.value; stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: (f) => ({ re: 0, im: -1 / (2 * Math.PI * f * l) }) }); break; }
+      case 'series-rl': {
+        const { r, l } = el;
+        stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: (f) => cdiv({ re: 1, im: 0 }, { re: typeof r === 'number' ? r : r(f), im: 2 * Math.PI * f * l }) });
+        break;
+      }
+      case 'admittance': stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: el.y }); break;
+      case 'nport': stamped.push({ kind: 'nport', el, nodes: el.nodes.map(num) }); break;
+    }
+  }
+  const n = nodeNames.length;
+  // Every part of the network must reach a port; an island has no defined response (and is a drawing slip).
+  const adj: number[][] = Array.from({ length: n }, () => []);
+  const link = (a: number, b: number) => { if (a >= 0 && b >= 0 && a !== b) { adj[a].push(b); adj[b].push(a); } };
+  for (const s of stamped) {
+    if (s.kind === 'nport') { for (const a of s.nodes) for (const b of s.nodes) link(a, b); } else link(s.a, s.b);
+  }
+  const seen = new Uint8Array(n);
+  const stack = net.ports.map((p) => num(p.node));
+  for (const s of stack) seen[s] = 1;
+  while (stack.length) { const k = stack.pop()!; for (const j of adj[k]) if (!seen[j]) { seen[j] = 1; stack.push(j); } }
+  const floating = nodeNames.filter((_, i) => !seen[i]);
+  if (floating.length) {
+    throw new InputError('singular-network', 'nodes', 'every node connected to a port through some element',
+      `node${floating.length > 1 ? 's' : ''} ${floating.slice(0, 6).join(', ')}${floating.length > 6 ? ', …' : ''} floating (reaching no port)`,
+      'join them to the network or delete them');
+  }
+  const symbolic = symbolicFactor(n, adj);
+  const P = symbolic.position;
+  const slotOr = (i: number, j: number) => (i < 0 || j < 0 ? -1 : symbolic.slot(P[i], P[j]));
+  const slots = stamped.map((s) => {
+    if (s.kind === 'nport') {
+      const m = s.nodes.length, out = new Int32Array(m * m);
+      for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) out[i * m + j] = slotOr(s.nodes[i], s.nodes[j]);
+      return out;
+    }
+    return Int32Array.of(slotOr(s.a, s.a), slotOr(s.b, s.b), slotOr(s.a, s.b), slotOr(s.b, s.a));
+  });
+  const ports = net.ports.map((p) => ({ name: p.name, node: num(p.node), zRef: p.zRef }));
+  return { nodeNames, ports, stamped, symbolic, slots };
+}
+
+/** Element values at one frequency, shared by both paths. */
+interface Evaluated {
+  /** For y2 and well-conditioned lines: y11, y22, y12, y21 (8 numbers). For ABCD lines: A, B, C, D. */
+  vals: Float64Array[];
+  abcd: Uint8Array;
+  anyAbcd: boolean;
+}
+
+function finite(c: Complex, what: string, f: number): Complex {
+  if (!Number.isFinite(c.re) || !Number.isFinite(c.im)) {
+    throw new InputError('invalid-number', what, 'a finite value from its model', `${c.re} + j${c.im} at ${f} Hz`);
+  }
+  return c;
+}
+
+function evaluate(cn: CompiledNetwork, f: number): Evaluated {
+  const vals: Float64Array[] = [];
+  const abcd = new Uint8Array(cn.stamped.length);
+  let anyAbcd = false;
+  cn.stamped.forEach((s, idx) => {
+    if (s.kind === 'y2') {
+      const y = finite(s.y(f), `${s.el.id}.admittance`, f);
+      vals.push(Float64Array.of(y.re, y.im, y.re, y.im, -y.re, -y.im, -y.re, -y.im));
+    } else if (s.kind === 'line') {
+      const lc = s.el.model(f);
+      const zc = finite(lc.zc, `${s.el.id}.zc`, f), g = finite(lc.gamma, `${s.el.id}.gamma`, f);
+      if (zc.re === 0 && zc.im === 0) throw new InputError('out-of-range', `${s.el.id}.zc`, 'a non-zero characteristic impedance', '0');
+      const { cosh, sinh } = ccoshSinh({ re: g.re * s.el.length, im: g.im * s.el.length });
+      if (Math.hypot(sinh.re, sinh.im) < SINH_LIMIT) {
+        abcd[idx] = 1; anyAbcd = true;
+        const B = cmul(zc, sinh), C = cdiv(sinh, zc);
+        vals.push(Float64Array.of(cosh.re, cosh.im, B.re, B.im, C.re, C.im, cosh.re, cosh.im));
+      } else {
+        const zs = cmul(zc, sinh);
+        const y11 = cdiv(cosh, zs), y12 = cdiv({ re: -1, im: 0 }, zs);
+        vals.push(Float64Array.of(y11.re, y11.im, y11.re, y11.im, y12.re, y12.im, y12.re, y12.im));
+      }
+    } else {
+      const y = s.el.y(f);
+      const m = s.nodes.length;
+      if (y.length !== 2 * m * m) throw new InputError('invalid-design', `${s.el.id}.y`, `a ${m}×${m} admittance matrix`, `${y.length / 2} entries`);
+      for (const v of y) if (!Number.isFinite(v)) throw new InputError('invalid-number', `${s.el.id}.y`, 'finite admittances', `a non-finite value at ${f} Hz`);
+      vals.push(y);
+    }
+  });
+  return { vals, abcd, anyAbcd };
+}
+
+/** Result of one frequency: S (P×P, row-major interleaved) and whether the pivoting path was needed. */
+export interface PointSolution { s: Float64Array; robust: boolean; pivotRatio: number }
+
+/**
+ * Solves the compiled network at frequency f (Hz > 0) and writes S into `out` (2·P·P numbers) when given.
+ * Throws InputError('singular-network') when the network itself is singular at f.
+ */
+export function solveAt(cn: CompiledNetwork, f: number, out?: Float64Array, opts: { method?: 'auto' | 'dense' } = {}): PointSolution {
+  if (!(f > 0) || !Number.isFinite(f)) throw new InputError('out-of-range', 'frequency', 'a frequency > 0 Hz', String(f));
+  const P = cn.ports.length;
+  const s = out ?? new Float64Array(2 * P * P);
+  const ev = evaluate(cn, f);
+  if (!ev.anyAbcd && opts.method !== 'dense') {
+    const r = solveSparse(cn, ev, s);
+    if (r >= PIVOT_LIMIT) return { s, robust: false, pivotRatio: r };
+  }
+  const ratio = solveDense(cn, ev, f, s);
+  return { s, robust: true, pivotRatio: ratio };
+}
+
+function solveSparse(cn: CompiledNetwork, ev: Evaluated, s: Float64Array): number {
+  const sym = cn.symbolic;
+  const v = new Float64Array(2 * sym.nnz);
+  const add = (slot: number, re: number, im: number) => { if (slot >= 0) { v[2 * slot] += re; v[2 * slot + 1] += im; } };
+  cn.stamped.forEach((st, idx) => {
+    const sl = cn.slots[idx], x = ev.vals[idx];
+    if (st.kind === 'nport') { for (let t = 0; t < sl.length; t++) add(sl[t], x[2 * t], x[2 * t + 1]); return; }
+    add(sl[0], x[0], x[1]); add(sl[1], x[2], x[3]); add(sl[2], x[4], x[5]); add(sl[3], x[6], x[7]);
+  });
+  for (const p of cn.ports) add(sym.diag[sym.position[p.node]], 1 / p.zRef, 0);
+  const rowScale = new Float64Array(sym.n);
+  for (let t = 0; t < sym.nnz; t++) {
+    const m = Math.hypot(v[2 * t], v[2 * t + 1]), r = sym.rowOfSlot[t];
+    if (m > rowScale[r]) rowScale[r] = m;
+  }
+  const { minRatio } = sparseFactor(sym, v, rowScale);
+  if (!(minRatio >= PIVOT_LIMIT)) return minRatio;
+  const P = cn.ports.length;
+  const x = new Float64Array(2 * sym.n);
+  for (let j = 0; j < P; j++) {
+    x.fill(0);
+    const kj = sym.position[cn.ports[j].node];
+    x[2 * kj] = 2 / Math.sqrt(cn.ports[j].zRef);
+    sparseSolve(sym, v, x, kj);
+    for (let i = 0; i < P; i++) {
+      const ki = sym.position[cn.ports[i].node], g = 1 / Math.sqrt(cn.ports[i].zRef);
+      const t = 2 * (i * P + j);
+      s[t] = x[2 * ki] * g - (i === j ? 1 : 0);
+      s[t + 1] = x[2 * ki + 1] * g;
+    }
+  }
+  return minRatio;
+}
+
+function solveDense(cn: CompiledNetwork, ev: Evaluated, f: number, s: Float64Array): number {
+  const n0 = cn.nodeNames.length;
+  const extra: number[] = [];
+  let n = n0;
+  for (let i = 0; i < cn.stamped.length; i++) { extra.push(ev.abcd[i] ? n : -1); if (ev.abcd[i]) n += 2; }
+  const a = new Float64Array(2 * n * n);
+  const add = (i: number, j: number, re: number, im: number) => { if (i >= 0 && j >= 0) { const p = 2 * (i * n + j); a[p] += re; a[p + 1] += im; } };
+  cn.stamped.forEach((st, idx) => {
+    const x = ev.vals[idx];
+    if (st.kind === 'nport') {
+      const m = st.nodes.length;
+      for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) add(st.nodes[i], st.nodes[j], x[2 * (i * m + j)], x[2 * (i * m + j) + 1]);
+      return;
+    }
+    if (!ev.abcd[idx]) {
+      add(st.a, st.a, x[0], x[1]); add(st.b, st.b, x[2], x[3]); add(st.a, st.b, x[4], x[5]); add(st.b, st.a, x[6], x[7]);
+      return;
+    }
+    // ABCD stamp (methods.md §8.2): unknowns I1 = column p, I2 = column p + 1.
+    const p = extra[idx];
+    add(st.a, p, 1, 0); add(st.b, p + 1, -1, 0);
+    add(p, st.a, 1, 0); add(p, st.b, -x[0], -x[1]); add(p, p + 1, -x[2], -x[3]);
+    add(p + 1, p, 1, 0); add(p + 1, st.b, -x[4], -x[5]); add(p + 1, p + 1, -x[6], -x[7]);
+  });
+  for (const p of cn.ports) add(p.node, p.node, 1 / p.zRef, 0);
+  const fac = denseLuFactor(a, n);
+  if (!(fac.minPivotRatio >= SINGULAR_LIMIT)) {
+    const row = fac.worstRow;
+    const where = row >= 0 && row < n0 ? `node ${cn.nodeNames[row]}` : row >= n0 ? `line ${cn.stamped[extra.findIndex((e) => e >= 0 && (row === e || row === e + 1))]?.el.id ?? '?'}` : 'the network';
+    throw new InputError('singular-network', 'network', 'a network with a unique response at every frequency',
+      `a singular nodal matrix at ${f} Hz near ${where}`,
+      'a lossless resonance that no port damps, or a part connected to nothing: add loss, a port or change the frequency');
+  }
+  const P = cn.ports.length;
+  const b = new Float64Array(2 * n);
+  for (let j = 0; j < P; j++) {
+    b.fill(0);
+    b[2 * cn.ports[j].node] = 2 / Math.sqrt(cn.ports[j].zRef);
+    const x = denseLuSolve(fac, b);
+    for (let i = 0; i < P; i++) {
+      const g = 1 / Math.sqrt(cn.ports[i].zRef), k = cn.ports[i].node, t = 2 * (i * P + j);
+      s[t] = x[2 * k] * g - (i === j ? 1 : 0);
+      s[t + 1] = x[2 * k + 1] * g;
+    }
+  }
+  return fac.minPivotRatio;
+}

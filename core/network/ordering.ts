@@ -1,0 +1,153 @@
+/**
+ * Fill-reducing elimination order and symbolic factorisation for the nodal solve.
+ *
+ * The nodal matrix of a drawn network has a symmetric pattern (every element couples its nodes both ways), so
+ * one symbolic step serves every frequency. Minimum degree (eliminate the node with the fewest neighbours,
+ * then join its neighbours) removes a tree or a feed from its leaves inward with no fill at all; loops and
+ * bridged resistors add only their own small cliques. Plain O(n²) selection: networks here have hundreds of
+ * nodes, not millions.
+ */
+export interface Symbolic {
+  n: number;
+  /** order[k] = original node index eliminated k-th. */
+  order: Int32Array;
+  /** position[node] = k. */
+  position: Int32Array;
+  /** Entries of the filled pattern in elimination coordinates; entryOf(i, j) gives the slot. */
+  nnz: number;
+  /** Slot of the diagonal (k, k). */
+  diag: Int32Array;
+  /** For pivot k: later neighbours u = upper[upStart[k] .. upStart[k + 1]), with slots lowSlot (u, k) and upSlot (k, u). */
+  upStart: Int32Array;
+  upper: Int32Array;
+  lowSlot: Int32Array;
+  upSlot: Int32Array;
+  /** Schur updates for pivot k: ops[3t..3t+2] = (target, lower, upper) slots, t in opStart[k] .. opStart[k + 1]. */
+  opStart: Int32Array;
+  ops: Int32Array;
+  /** Row (elimination coordinates) of every slot, for row scaling. */
+  rowOfSlot: Int32Array;
+  slot: (i: number, j: number) => number;
+}
+
+/** `adjacency[i]` lists the original neighbours of node i (no self entries needed). */
+export function symbolicFactor(n: number, adjacency: Iterable<number>[]): Symbolic {
+  const nb: Set<number>[] = [];
+  for (let i = 0; i < n; i++) { nb.push(new Set<number>()); }
+  for (let i = 0; i < n; i++) for (const j of adjacency[i]) if (j !== i) { nb[i].add(j); nb[j].add(i); }
+  const order = new Int32Array(n), position = new Int32Array(n).fill(-1);
+  const alive = new Uint8Array(n).fill(1);
+  for (let k = 0; k < n; k++) {
+    let best = -1, bestDeg = Infinity;
+    for (let i = 0; i < n; i++) if (alive[i] && nb[i].size < bestDeg) { bestDeg = nb[i].size; best = i; }
+    order[k] = best; position[best] = k; alive[best] = 0;
+    const list = [...nb[best]];
+    for (const a of list) {
+      nb[a].delete(best);
+      for (const b of list) if (a !== b) nb[a].add(b);
+    }
+    // Keep the neighbour set at elimination time (needed below) in nb[best]; it is no longer consulted.
+  }
+  // Rebuild the later-neighbour lists in elimination coordinates by replaying the elimination.
+  const later: Set<number>[] = [];
+  for (let k = 0; k < n; k++) later.push(new Set<number>());
+  for (let i = 0; i < n; i++) for (const j of adjacency[i]) if (j !== i) {
+    const a = position[i], b = position[j];
+    if (a < b) later[a].add(b); else later[b].add(a);
+  }
+  for (let k = 0; k < n; k++) {
+    const list = [...later[k]].sort((x, y) => x - y);
+    for (let x = 0; x < list.length; x++) for (let y = x + 1; y < list.length; y++) later[list[x]].add(list[y]);
+  }
+  const slots = new Map<number, number>();
+  const rows: number[] = [];
+  const slot = (i: number, j: number): number => {
+    const key = i * n + j;
+    let s = slots.get(key);
+    if (s === undefined) { s = rows.length; slots.set(key, s); rows.push(i); }
+    return s;
+  };
+  const diag = new Int32Array(n);
+  for (let k = 0; k < n; k++) diag[k] = slot(k, k);
+  const upStart = new Int32Array(n + 1);
+  const upperL: number[] = [], lowL: number[] = [], upL: number[] = [];
+  const sortedLater: number[][] = [];
+  for (let k = 0; k < n; k++) {
+    const list = [...later[k]].sort((x, y) => x - y);
+    sortedLater.push(list);
+    upStart[k] = upperL.length;
+    for (const u of list) { upperL.push(u); lowL.push(slot(u, k)); upL.push(slot(k, u)); }
+  }
+  upStart[n] = upperL.length;
+  const opStart = new Int32Array(n + 1);
+  const opsL: number[] = [];
+  for (let k = 0; k < n; k++) {
+    opStart[k] = opsL.length / 3;
+    const list = sortedLater[k];
+    for (const i of list) for (const j of list) opsL.push(slot(i, j), slot(i, k), slot(k, j));
+  }
+  opStart[n] = opsL.length / 3;
+  return {
+    n, order, position, nnz: rows.length, diag, upStart,
+    upper: Int32Array.from(upperL), lowSlot: Int32Array.from(lowL), upSlot: Int32Array.from(upL),
+    opStart, ops: Int32Array.from(opsL), rowOfSlot: Int32Array.from(rows),
+    slot: (i, j) => { const s = slots.get(i * n + j); if (s === undefined) throw new Error(`no slot (${i}, ${j})`); return s; },
+  };
+}
+
+/**
+ * Numeric LU (no pivoting) of the values `v` (2 * nnz, interleaved) on the symbolic pattern, in place.
+ * Returns the smallest |pivot| relative to its row's largest original entry, and where it happened, so the
+ * caller can fall back to a pivoting solve when the order met a (near-)zero pivot.
+ */
+export function sparseFactor(s: Symbolic, v: Float64Array, rowScale: Float64Array): { minRatio: number; at: number } {
+  const { n, diag, upStart, lowSlot, opStart, ops } = s;
+  let minRatio = Infinity, at = -1;
+  for (let k = 0; k < n; k++) {
+    const d = 2 * diag[k];
+    const pr = v[d], pi = v[d + 1];
+    const m2 = pr * pr + pi * pi;
+    const ratio = Math.sqrt(m2) / (rowScale[k] || 1);
+    if (ratio < minRatio) { minRatio = ratio; at = k; }
+    if (m2 === 0) return { minRatio: 0, at: k };
+    const ir = pr / m2, ii = -pi / m2;
+    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
+      const p = 2 * lowSlot[t];
+      const a = v[p], b = v[p + 1];
+      v[p] = a * ir - b * ii; v[p + 1] = a * ii + b * ir;
+    }
+    for (let t = opStart[k]; t < opStart[k + 1]; t++) {
+      const q = 2 * ops[3 * t], l = 2 * ops[3 * t + 1], u = 2 * ops[3 * t + 2];
+      const lr = v[l], li = v[l + 1], ur = v[u], ui = v[u + 1];
+      v[q] -= lr * ur - li * ui;
+      v[q + 1] -= lr * ui + li * ur;
+    }
+  }
+  return { minRatio, at };
+}
+
+/** Solves with the factors from sparseFactor; `x` (2n, elimination coordinates) holds b on entry, x on exit. */
+export function sparseSolve(s: Symbolic, v: Float64Array, x: Float64Array, firstNonZero = 0): void {
+  const { n, diag, upStart, upper, lowSlot, upSlot } = s;
+  for (let k = firstNonZero; k < n; k++) {
+    const br = x[2 * k], bi = x[2 * k + 1];
+    if (br === 0 && bi === 0) continue;
+    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
+      const i = 2 * upper[t], p = 2 * lowSlot[t];
+      x[i] -= v[p] * br - v[p + 1] * bi;
+      x[i + 1] -= v[p] * bi + v[p + 1] * br;
+    }
+  }
+  for (let k = n - 1; k >= 0; k--) {
+    let sr = x[2 * k], si = x[2 * k + 1];
+    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
+      const j = 2 * upper[t], p = 2 * upSlot[t];
+      sr -= v[p] * x[j] - v[p + 1] * x[j + 1];
+      si -= v[p] * x[j + 1] + v[p + 1] * x[j];
+    }
+    const d = 2 * diag[k];
+    const pr = v[d], pi = v[d + 1], m2 = pr * pr + pi * pi;
+    x[2 * k] = (sr * pr + si * pi) / m2;
+    x[2 * k + 1] = (si * pr - sr * pi) / m2;
+  }
+}

@@ -1,0 +1,84 @@
+/**
+ * Touchstone version 1.1 writer (.sNp). Source: "Touchstone File Format Specification, Rev. 1.1", EIA/IBIS Open
+ * Forum, 2002 (methods.md §8.4, formats.md §5): "!" comments, one option line "# <unit> S <format> R <ohms>",
+ * one record per frequency; 1-port "f S11"; 2-port "f S11 S21 S12 S22" on one line (the historic order);
+ * 3 or more ports one matrix row per line, at most four pairs per line, the frequency only at the start.
+ * Numbers are written with the shortest text that reads back to the same double.
+ */
+import { InputError } from '../util/errors.ts';
+import { renormalize } from './conversions.ts';
+import { matrixAt, type NetworkResponse } from './response.ts';
+
+export type TouchstoneFormat = 'ri' | 'ma' | 'db';
+export type FrequencyUnit = 'hz' | 'khz' | 'mhz' | 'ghz';
+
+export const UNIT_SCALE: Record<FrequencyUnit, number> = { hz: 1, khz: 1e3, mhz: 1e6, ghz: 1e9 };
+const UNIT_TEXT: Record<FrequencyUnit, string> = { hz: 'Hz', khz: 'kHz', mhz: 'MHz', ghz: 'GHz' };
+
+export interface TouchstoneWriteOptions {
+  format?: TouchstoneFormat;
+  unit?: FrequencyUnit;
+  /** Reference impedance of the file, Ω. Default: the ports' common reference; the data are renormalised to it. */
+  zRef?: number;
+  /** Program and version for the header, e.g. 'stripwright 0.1.0'. */
+  app?: string;
+  /** Design name for the header. */
+  design?: string;
+  /** Further comment lines (without the leading '!'). */
+  comments?: string[];
+}
+
+const num = (x: number): string => (Object.is(x, -0) ? '0' : String(x));
+
+export function writeTouchstone(r: NetworkResponse, opts: TouchstoneWriteOptions = {}): string {
+  const format = opts.format ?? 'ri', unit = opts.unit ?? 'ghz';
+  if (!['ri', 'ma', 'db'].includes(format)) throw new InputError('bad-choice', 'format', 'ri, ma or db', String(format));
+  if (!(unit in UNIT_SCALE)) throw new InputError('bad-choice', 'unit', 'hz, khz, mhz or ghz', String(unit));
+  const P = r.ports.length;
+  if (P < 1) throw new InputError('out-of-range', 'ports', 'at least one port', '0');
+  const refs = r.ports.map((p) => p.zRef);
+  const same = refs.every((z) => z === refs[0]);
+  const zRef = opts.zRef ?? (same ? refs[0] : NaN);
+  if (!(zRef > 0) || !Number.isFinite(zRef)) {
+    throw new InputError('out-of-range', 'zRef', 'one reference impedance > 0 Ω for the file (Touchstone 1.1 has a single R)',
+      opts.zRef === undefined ? `ports with different references (${refs.join(', ')} Ω)` : String(opts.zRef), 'choose the reference to renormalise to');
+  }
+  const renorm = !refs.every((z) => z === zRef);
+  // Touchstone files are ASCII: other characters in names become '?'.
+  const clean = (t: string) => t.replace(/[\r\n]+/g, ' ').replace(/[^\x20-\x7e]/g, '?');
+  const lines: string[] = [];
+  lines.push(`! ${clean(opts.app ?? 'stripwright')} - S-parameters, ${P} port${P > 1 ? 's' : ''}`);
+  if (opts.design) lines.push(`! design: ${clean(opts.design)}`);
+  lines.push(`! ports: ${r.ports.map((p, i) => `${i + 1}=${clean(p.name)}`).join(' ')}`);
+  lines.push(`! power-wave S-parameters, real reference ${num(zRef)} ohm on every port${renorm ? ` (renormalised from ${refs.join(', ')} ohm)` : ''}`);
+  for (const c of opts.comments ?? []) lines.push(`! ${clean(c)}`);
+  lines.push(`# ${UNIT_TEXT[unit]} S ${format.toUpperCase()} R ${num(zRef)}`);
+  const pair = (re: number, im: number): string => {
+    if (format === 'ri') return `${num(re)} ${num(im)}`;
+    const m = Math.hypot(re, im), a = (Math.atan2(im, re) * 180) / Math.PI;
+    if (format === 'ma') return `${num(m)} ${num(a)}`;
+    // 20·log10(0) has no value; −400 dB stands for an exact null (far below any measurement).
+    return `${num(m > 0 ? 20 * Math.log10(m) : -400)} ${num(a)}`;
+  };
+  const scale = UNIT_SCALE[unit];
+  for (let k = 0; k < r.freqs.length; k++) {
+    const m = renorm ? renormalize(matrixAt(r, k), P, refs, zRef) : matrixAt(r, k);
+    const at = (i: number, j: number) => pair(m[2 * (i * P + j)], m[2 * (i * P + j) + 1]);
+    const f = num(r.freqs[k] / scale);
+    if (P === 1) lines.push(`${f} ${at(0, 0)}`);
+    else if (P === 2) lines.push(`${f} ${at(0, 0)} ${at(1, 0)} ${at(0, 1)} ${at(1, 1)}`);
+    else {
+      for (let i = 0; i < P; i++) {
+        for (let j0 = 0; j0 < P; j0 += 4) {
+          const parts: string[] = [];
+          for (let j = j0; j < Math.min(P, j0 + 4); j++) parts.push(at(i, j));
+          lines.push(`${i === 0 && j0 === 0 ? f : ' '} ${parts.join(' ')}`);
+        }
+      }
+    }
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** File extension for P ports: '.s2p'. */
+export const touchstoneExtension = (ports: number): string => `.s${ports}p`;

@@ -1,0 +1,123 @@
+"""Oracle for the response solver: builds a network of lines (given Z0 and gamma per frequency), series
+resistors and ports with scikit-rf (Debian python3-scikit-rf 0.15.4) and prints its S-matrix as JSON.
+
+Input (JSON on stdin):
+  {"freqs": [Hz...],
+   "lines": [{"id", "a", "b", "length": m, "z0": [ohm per freq], "gamma": [[re, im] per freq]}],
+   "resistors": [{"id", "a", "b", "value": ohm}],
+   "ports": [{"name", "node", "zRef": ohm}],
+   "mode": "cascade" | "graph", "repeat": N (optional, for timing)}
+"cascade": the lines form one chain from ports[0] to ports[1] and are joined with skrf's `**`.
+"graph": every node becomes an ideal junction (media.splitter) and all pieces are joined with
+skrf.network.connect / innerconnect; scikit-rf inserts the impedance steps between pieces whose
+port impedances differ.
+Output: {"s": [[[[re, im] ...]]] (freq, i, j), "seconds": build+solve time of one run}.
+Lines use a real characteristic impedance (scikit-rf 0.15.4 labels a line with its media's port impedance, so
+the line's media gets z0 = Z0 = the given real value) and a complex gamma.
+Run: PATH="$(getconf PATH)" python3 scripts/reference/skrf_network.py < in.json
+"""
+import json
+import sys
+import time
+import warnings
+
+warnings.filterwarnings("ignore")
+import numpy as np  # noqa: E402
+import skrf as rf  # noqa: E402
+
+
+def build(spec):
+    f = rf.Frequency.from_f(np.array(spec["freqs"]), unit="hz")
+    nets = []  # (network, [terminal node names])
+
+    def line_net(ln):
+        z0 = np.array(ln["z0"], dtype=float)
+        gamma = np.array([complex(g[0], g[1]) for g in ln["gamma"]])
+        media = rf.media.DefinedGammaZ0(frequency=f, z0=z0, gamma=gamma, Z0=z0)
+        return media.line(ln["length"], "m", name=ln["id"])
+
+    if spec.get("mode") == "cascade":
+        p0, p1 = spec["ports"][0], spec["ports"][1]
+        m0 = rf.media.DefinedGammaZ0(frequency=f, z0=p0["zRef"], Z0=p0["zRef"])
+        m1 = rf.media.DefinedGammaZ0(frequency=f, z0=p1["zRef"], Z0=p1["zRef"])
+        ntw = m0.line(0, "m", name="in")
+        for ln in spec["lines"]:
+            ntw = ntw ** line_net(ln)
+        ntw = ntw ** m1.line(0, "m", name="out")
+        return ntw
+
+    for ln in spec["lines"]:
+        nets.append((line_net(ln), [ln["a"], ln["b"]]))
+    for r in spec.get("resistors", []):
+        m50 = rf.media.DefinedGammaZ0(frequency=f, z0=50.0, Z0=50.0)
+        nets.append((m50.resistor(r["value"], name=r["id"]), [r["a"], r["b"]]))
+    # Terminals per node, then one ideal junction per node (plus one terminal for a port there).
+    degree = {}
+    for _, nodes in nets:
+        for n in nodes:
+            degree[n] = degree.get(n, 0) + 1
+    port_at = {}
+    for k, p in enumerate(spec["ports"]):
+        port_at.setdefault(p["node"], []).append(k)
+    # Edge labels: piece terminal t of piece i is edge ("p", i, t); junction ports are ordered:
+    # external ports first, then the pieces' terminals.
+    items = []  # (network, [edge label per port])
+    used = {n: 0 for n in degree}
+    piece_edges = []
+    for i, (ntw, nodes) in enumerate(nets):
+        piece_edges.append([("e", i, t) for t in range(len(nodes))])
+    junction_ports = {n: [] for n in degree}
+    for k, p in enumerate(spec["ports"]):
+        junction_ports[p["node"]].append(("x", k))
+    for i, (_, nodes) in enumerate(nets):
+        for t, n in enumerate(nodes):
+            junction_ports[n].append(("e", i, t))
+    for i, (ntw, nodes) in enumerate(nets):
+        items.append((ntw, piece_edges[i]))
+    for n, labels in junction_ports.items():
+        zj = spec["ports"][port_at[n][0]]["zRef"] if n in port_at else 50.0
+        mj = rf.media.DefinedGammaZ0(frequency=f, z0=zj, Z0=zj)
+        items.append((mj.splitter(len(labels), name="j_" + n), labels))
+    # Join: grow one network, always adding a piece that shares an edge with it.
+    big, labels = items[0][0], list(items[0][1])
+    rest = items[1:]
+    while rest:
+        for idx, (ntw, lab) in enumerate(rest):
+            shared = [e for e in lab if e in labels and e[0] == "e"]
+            if shared:
+                break
+        else:
+            raise SystemExit("network is not connected")
+        ntw, lab = rest.pop(idx)
+        e = shared[0]
+        k, l = labels.index(e), lab.index(e)
+        big = rf.connect(big, k, ntw, l)
+        labels = [x for x in labels if x != e] + [x for x in lab if x != e]
+        # Close loops: any edge now present twice is joined inside.
+        while True:
+            dup = [x for x in set(labels) if labels.count(x) == 2 and x[0] == "e"]
+            if not dup:
+                break
+            x = dup[0]
+            i1 = labels.index(x)
+            i2 = labels.index(x, i1 + 1)
+            big = rf.innerconnect(big, i1, i2)
+            labels = [y for j, y in enumerate(labels) if j not in (i1, i2)]
+    order = [labels.index(("x", k)) for k in range(len(spec["ports"]))]
+    s = big.s[:, order][:, :, order]
+    out = rf.Network(frequency=f, s=s, z0=np.array([p["zRef"] for p in spec["ports"]], dtype=float))
+    return out
+
+
+def main():
+    spec = json.load(sys.stdin)
+    repeat = int(spec.get("repeat", 1))
+    t0 = time.perf_counter()
+    for _ in range(repeat):
+        ntw = build(spec)
+    seconds = (time.perf_counter() - t0) / repeat
+    s = [[[[float(v.real), float(v.imag)] for v in row] for row in m] for m in ntw.s]
+    json.dump({"s": s, "seconds": seconds}, sys.stdout)
+
+
+main()
