@@ -1,0 +1,155 @@
+/**
+ * Atomic replacement of a file, keeping the previous version as a backup (reliability.md §2.2):
+ *
+ *   1. write the new bytes to a temporary file in the same folder (rename is atomic only within one file system),
+ *      fsync it and close it;
+ *   2. if the target exists and a backup is wanted, make `<target>.bak` the current version: a hard link to the
+ *      target under a second temporary name (a copy, fsynced, where links are not supported), renamed over the .bak;
+ *   3. rename the temporary file over the target;
+ *   4. fsync the folder so the new name itself survives a power cut (best effort: not possible on Windows).
+ *
+ * At every instant the target is either the complete old or the complete new file, and the .bak either the
+ * previous backup or the complete old file. A crash can leave a temporary file behind; cleanStrayTemps()
+ * (./temp-files.ts) removes those at the next start. Plain Node: no Electron, so the CLI can use it too.
+ */
+import * as nodeFs from 'node:fs/promises';
+import { basename, dirname, join } from 'node:path';
+import { tempNameFor } from './temp-files.ts';
+
+/** The file-system calls used, so tests can inject a fault at each step. */
+export interface FsOps {
+  open: typeof nodeFs.open;
+  rename: typeof nodeFs.rename;
+  link: typeof nodeFs.link;
+  copyFile: typeof nodeFs.copyFile;
+  unlink: typeof nodeFs.unlink;
+  stat: typeof nodeFs.stat;
+}
+const realFs: FsOps = { open: nodeFs.open, rename: nodeFs.rename, link: nodeFs.link, copyFile: nodeFs.copyFile, unlink: nodeFs.unlink, stat: nodeFs.stat };
+
+export type AtomicStep = 'write-temp' | 'sync-temp' | 'backup' | 'replace' | 'sync-folder';
+
+export class AtomicWriteError extends Error {
+  override name = 'AtomicWriteError';
+  constructor(readonly step: AtomicStep, readonly path: string, override readonly cause: NodeJS.ErrnoException) {
+    super(`${describeStep(step)} ${path} failed: ${explainErrno(cause)}. ${step === 'sync-folder' ? 'The new version is in place but may not survive a power cut.' : 'The file on disk was not changed.'}`);
+  }
+  get errno(): string | undefined { return this.cause.code; }
+}
+
+function describeStep(step: AtomicStep): string {
+  return { 'write-temp': 'Writing a temporary copy next to', 'sync-temp': 'Flushing the temporary copy of', backup: 'Keeping the previous version of', replace: 'Replacing', 'sync-folder': 'Flushing the folder of' }[step];
+}
+
+/** Words a user can act on for the errno values a save meets in practice. */
+export function explainErrno(e: NodeJS.ErrnoException): string {
+  switch (e.code) {
+    case 'ENOSPC': return 'the disk is full (free some space and save again)';
+    case 'EDQUOT': return 'the disk quota is used up';
+    case 'EACCES': case 'EPERM': return 'permission denied (the folder or file is read-only, or another program holds it; choose Save As to put it elsewhere)';
+    case 'EBUSY': return 'the file is locked by another program (an antivirus scan or a sync client, perhaps); try again';
+    case 'EROFS': return 'the disk is read-only';
+    case 'ENOENT': return 'the folder does not exist (any more)';
+    case 'ENAMETOOLONG': return 'the path is too long';
+    case 'EISDIR': return 'a folder has that name';
+    default: return e.message || String(e.code);
+  }
+}
+
+export interface AtomicWriteOptions {
+  /** Keep the replaced version as `<path>.bak` (default false). */
+  backup?: boolean;
+  /** File mode of a new file (an existing file's mode is kept). */
+  mode?: number;
+  fs?: FsOps;
+  /** Windows: rename over a file held by an indexer or antivirus fails with EPERM/EACCES/EBUSY for a moment. */
+  renameRetries?: number;
+}
+
+export interface AtomicWriteResult { path: string; backupPath: string | null; bytes: number }
+
+export const backupPathOf = (path: string): string => `${path}.bak`;
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+async function renameWithRetry(fs: FsOps, from: string, to: string, retries: number): Promise<void> {
+  for (let attempt = 0; ; attempt++) {
+    try {
+      return await fs.rename(from, to);
+    } catch (err) {
+      const code = (err as NodeJS.ErrnoException).code;
+      const transient = process.platform === 'win32' && (code === 'EPERM' || code === 'EACCES' || code === 'EBUSY');
+      if (!transient || attempt >= retries) throw err;
+      await sleep(Math.min(50 * 2 ** attempt, 1000));
+    }
+  }
+}
+
+async function syncFolder(fs: FsOps, folder: string): Promise<void> {
+  if (process.platform === 'win32') return; // folders cannot be opened for fsync there
+  const fd = await fs.open(folder, 'r');
+  try {
+    await fd.sync();
+  } catch (err) {
+    // Some file systems (certain network and FUSE mounts) refuse fsync on a folder; the rename is still atomic.
+    if (!['EINVAL', 'ENOTSUP', 'EISDIR', 'EBADF'].includes((err as NodeJS.ErrnoException).code ?? '')) throw err;
+  } finally {
+    await fd.close();
+  }
+}
+
+export async function atomicWriteFile(path: string, data: string | Uint8Array, options: AtomicWriteOptions = {}): Promise<AtomicWriteResult> {
+  const fs = options.fs ?? realFs;
+  const folder = dirname(path);
+  const bytes = typeof data === 'string' ? Buffer.from(data, 'utf8') : data;
+  const temp = join(folder, tempNameFor(basename(path)));
+  let step: AtomicStep = 'write-temp';
+  let tempExists = false;
+  let bakTemp: string | null = null;
+  try {
+    const existing = await fs.stat(path).catch((e: NodeJS.ErrnoException) => { if (e.code === 'ENOENT') return null; throw e; });
+    if (existing && !existing.isFile()) throw Object.assign(new Error(`${path} is not a regular file`), { code: 'EISDIR' });
+    const fd = await fs.open(temp, 'wx', existing ? existing.mode & 0o777 : (options.mode ?? 0o644));
+    tempExists = true;
+    try {
+      let off = 0;
+      while (off < bytes.length) {
+        const { bytesWritten } = await fd.write(bytes, off, bytes.length - off);
+        off += bytesWritten;
+      }
+      step = 'sync-temp';
+      await fd.sync();
+    } finally {
+      await fd.close();
+    }
+    let backupPath: string | null = null;
+    if (options.backup && existing) {
+      step = 'backup';
+      backupPath = backupPathOf(path);
+      bakTemp = join(folder, tempNameFor(basename(backupPath)));
+      try {
+        await fs.link(path, bakTemp);
+      } catch (e) {
+        const code = (e as NodeJS.ErrnoException).code;
+        if (!['EPERM', 'ENOTSUP', 'EXDEV', 'EMLINK', 'ENOSYS', 'EOPNOTSUPP'].includes(code ?? '')) throw e;
+        await fs.copyFile(path, bakTemp);
+        const bfd = await fs.open(bakTemp, 'r+');
+        try { await bfd.sync(); } finally { await bfd.close(); }
+      }
+      await renameWithRetry(fs, bakTemp, backupPath, options.renameRetries ?? 8);
+      bakTemp = null;
+    }
+    step = 'replace';
+    await renameWithRetry(fs, temp, path, options.renameRetries ?? 8);
+    tempExists = false;
+    step = 'sync-folder';
+    await syncFolder(fs, folder);
+    return { path, backupPath, bytes: bytes.length };
+  } catch (err) {
+    if (tempExists) await fs.unlink(temp).catch(() => {});
+    if (bakTemp) await fs.unlink(bakTemp).catch(() => {});
+    // After 'replace' the new file is in place and only its durability across a power cut is unconfirmed; still an
+    // error, so the caller does not claim a save it cannot vouch for.
+    throw new AtomicWriteError(step, path, err as NodeJS.ErrnoException);
+  }
+}
