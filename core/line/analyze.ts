@@ -16,7 +16,7 @@ import type { SubstrateSpec } from '../substrate/types.ts';
 import { DEBYE_F_HIGH, DEBYE_F_LOW, widebandDebyeAt } from '../substrate/wideband-debye.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import { evaluateModel, scratch } from './model.ts';
-import { checkConductorLoss, checkDispersion, checkFrequency, checkSubstrate, checkWidth } from './inputs.ts';
+import { checkConductorLoss, checkDispersion, checkFrequency, checkQuasiTem, checkSubstrate, checkWidth } from './inputs.ts';
 import { wheelerIncrementalAlphaC } from './wheeler-incremental-inductance.ts';
 import { currentDistributionAlphaC } from './current-distribution-loss.ts';
 import { hammerstadBekkadalKr } from './hammerstad-bekkadal-roughness.ts';
@@ -62,6 +62,7 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
     if (er < 1.001) er = 1.001; // guarded by the ε∞ ≥ 1 check of validateSubstrate; kept as a floor for safety
   }
 
+  checkQuasiTem(f, er, h);
   const t = sub.t;
   const u = width / h;
   const tn = t / h;

@@ -16,6 +16,6 @@ export { hammerstadJensenStatic, hjZ01, hjEpsEff } from './hammerstad-jensen-198
 export { kirschningJansenEpsEff, KJ1982_RANGE } from './kirschning-jansen-1982.ts';
 export { jansenKirschningZ0, JK1983_RANGE } from './jansen-kirschning-1983.ts';
 export { currentDistributionAlphaC } from './current-distribution-loss.ts';
-export { U_MIN, U_MAX, F_MAX } from './inputs.ts';
+export { U_MIN, U_MAX, F_MIN, F_MAX } from './inputs.ts';
 export { SUBSTRATE_PRESETS, findPreset, validateSubstrate } from '../substrate/index.ts';
 export type { SubstratePreset } from '../substrate/index.ts';

@@ -8,12 +8,28 @@ import type { SubstrateSpec } from '../substrate/types.ts';
 import { validateSubstrate } from '../substrate/validate.ts';
 import { CONDUCTOR_LOSS_MODELS, DISPERSION_MODELS, type LineOptions } from './types.ts';
 import { dispersionCode, type DispersionCode } from './model.ts';
+import { C0 } from '../units/constants.ts';
+
+/**
+ * Quasi-TEM line models stop describing the line above the first surface-wave modes; past twice the TE1 onset
+ * (methods.md §5) the dispersion fits also leave every range they were made for (the Z0(f) fit turns non-finite
+ * there for εr above its range), so such a frequency is refused instead of returning numbers that mean nothing.
+ */
+export function checkQuasiTem(f: number, er: number, h: number): void {
+  const limit = (2 * C0) / (4 * h * Math.sqrt(er - 1));
+  if (f > limit) {
+    throw new InputError('out-of-range', 'f', `a frequency up to ${Number((limit / 1e9).toPrecision(4))} GHz, twice the TE1 surface-wave onset of this substrate (above it quasi-TEM models do not apply)`,
+      `${Number((f / 1e9).toPrecision(4))} GHz`, 'use a thinner or lower-εr substrate');
+  }
+}
 
 /** Accepted W/h range: the synthesis bracket (methods.md §1.4). */
 export const U_MIN = 1e-3;
 export const U_MAX = 1e3;
 /** Highest frequency accepted, Hz. */
 export const F_MAX = 1e12;
+/** Lowest non-zero frequency accepted, Hz (below it wavelengths and skin depths overflow). */
+export const F_MIN = 1;
 
 function bad(v: unknown): 'out-of-range' | 'invalid-number' {
   return typeof v === 'number' && Number.isFinite(v) ? 'out-of-range' : 'invalid-number';
@@ -24,7 +40,7 @@ export function checkSubstrate(sub: SubstrateSpec): void {
   if (typeof sub === 'object' && sub !== null && sub.dielectricModel === undefined
     && typeof sub.er === 'number' && sub.er >= 1.001 && sub.er <= 128
     && typeof sub.h === 'number' && sub.h >= 1e-6 && sub.h <= 0.1
-    && typeof sub.t === 'number' && sub.t >= 0 && sub.t <= 1e-3 && sub.t <= sub.h
+    && typeof sub.t === 'number' && (sub.t === 0 || sub.t >= 1e-9) && sub.t <= 1e-3 && sub.t <= sub.h
     && typeof sub.tanDelta === 'number' && sub.tanDelta >= 0 && sub.tanDelta <= 0.5
     && typeof sub.sigma === 'number' && sub.sigma >= 1e3 && sub.sigma <= 1e9
     && typeof sub.roughness === 'number' && sub.roughness >= 0 && sub.roughness <= 1e-4) return;
@@ -39,8 +55,8 @@ export function checkWidth(width: unknown, h: number): number {
 }
 
 export function checkFrequency(f: unknown): number {
-  if (typeof f !== 'number' || !(f >= 0 && f <= F_MAX)) {
-    throw new InputError(bad(f), 'f', 'a frequency from 0 Hz (static) to 1 THz', describe(f));
+  if (typeof f !== 'number' || !(f === 0 || (f >= F_MIN && f <= F_MAX))) {
+    throw new InputError(bad(f), 'f', '0 Hz (static) or a frequency from 1 Hz to 1 THz', describe(f));
   }
   return f;
 }

@@ -8,7 +8,7 @@
 import { InputError, describe } from '../util/errors.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import { evaluateModel } from './model.ts';
-import { checkConductorLoss, checkDispersion, checkFrequency, checkSubstrate, U_MAX, U_MIN } from './inputs.ts';
+import { checkConductorLoss, checkDispersion, checkFrequency, checkQuasiTem, checkSubstrate, U_MAX, U_MIN } from './inputs.ts';
 import { hammerstad1975WidthRatio } from './closed-form-synthesis.ts';
 import { analyzeLine, dielectricAt } from './analyze.ts';
 import type { LineOptions, LineResult } from './types.ts';
@@ -33,6 +33,7 @@ export function synthesizeLine(sub: SubstrateSpec, z0: number, f: number, opts?:
   }
   const { er } = dielectricAt(sub, f);
   const h = sub.h;
+  checkQuasiTem(f, er, h);
   const tn = sub.t / h;
   const G = (x: number): number => evaluateModel(Math.exp(x), tn, er, h, f, disp) - z0;
   const tol = REL_TOL * z0;

@@ -19,7 +19,7 @@ export const SUBSTRATE_LIMITS = {
 const EXPECTED = {
   er: 'a relative permittivity from 1.001 to 128 (use 1.001 for an air-spaced line)',
   h: 'a dielectric height from 1 µm to 100 mm',
-  t: 'a copper thickness from 0 to 1 mm, not more than the dielectric height',
+  t: 'a copper thickness of 0 or from 1 nm to 1 mm, not more than the dielectric height',
   tanDelta: 'a loss tangent from 0 to 0.5',
   sigma: 'a conductivity from 1e3 to 1e9 S/m (annealed copper 5.8e7 S/m)',
   roughness: 'an rms roughness from 0 to 100 µm',
@@ -39,6 +39,7 @@ export function validateSubstrate(sub: SubstrateSpec, prefix = 'substrate.'): Su
   check('er', sub.er, prefix);
   check('h', sub.h, prefix);
   check('t', sub.t, prefix);
+  if (sub.t > 0 && sub.t < 1e-9) throw new InputError('out-of-range', prefix + 't', EXPECTED.t, String(sub.t));
   if (sub.t > sub.h) throw new InputError('out-of-range', prefix + 't', `a copper thickness not more than the dielectric height (${sub.h} m)`, String(sub.t));
   check('tanDelta', sub.tanDelta, prefix);
   check('sigma', sub.sigma, prefix);
