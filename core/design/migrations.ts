@@ -20,14 +20,14 @@ export interface Migration {
 export const MIGRATIONS: readonly Migration[] = [
   {
     from: 1,
-    summary: 'added substrate (generic FR-4 1.6 mm), frequency (2.45 GHz, 2.4–2.5 GHz), process: 30° V-bit, and an empty network',
+    summary: 'added substrate (glass-epoxy FR-4 1.6 mm), frequency (2.45 GHz, 2.4–2.5 GHz), process: 30° V-bit, and an empty network',
     up(doc) {
       // Version 1 had no physics; fill the same defaults a new design gets, keeping anything already present.
       // The literal values are repeated here on purpose: a migration must not change when defaults change later.
       return {
         ...doc,
         version: 2,
-        substrate: doc.substrate ?? { preset: 'generic FR-4 1.6 mm', er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 0 },
+        substrate: doc.substrate ?? { preset: 'glass-epoxy', er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6 },
         frequency: doc.frequency ?? { f0: 2.45e9, band: { start: 2.4e9, stop: 2.5e9 } },
         process: doc.process ?? { kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 },
         nodes: doc.nodes ?? [],
