@@ -1,0 +1,37 @@
+/**
+ * Memoised line model for one substrate: synthesis per (Z0, f) and analysis per (W, f). Sizing asks for the same
+ * few impedances hundreds of times in a corporate feed, so the hot path is a Map lookup (bench/layout.bench.ts).
+ */
+import { analyzeLine, synthesizeLine } from '../line/index.ts';
+import type { LineOptions, LineResult } from '../line/index.ts';
+import type { SubstrateSpec } from '../substrate/types.ts';
+import type { LineFigures } from './types.ts';
+
+export class LineCache {
+  private synth = new Map<string, LineResult>();
+  private anal = new Map<string, LineResult>();
+  constructor(readonly sub: SubstrateSpec, readonly opts?: LineOptions) {}
+
+  /** Width for Z0 at f (exact synthesis with dispersion at f). */
+  forZ0(z0: number, f: number): LineResult {
+    const k = `${z0}@${f}`;
+    let r = this.synth.get(k);
+    if (!r) { r = synthesizeLine(this.sub, z0, f, this.opts); this.synth.set(k, r); this.anal.set(`${r.width}@${f}`, r); }
+    return r;
+  }
+
+  /** Analysis of width W at f. */
+  forWidth(width: number, f: number): LineResult {
+    const k = `${width}@${f}`;
+    let r = this.anal.get(k);
+    if (!r) { r = analyzeLine(this.sub, width, f, this.opts); this.anal.set(k, r); }
+    return r;
+  }
+}
+
+export function figures(r: LineResult): LineFigures {
+  return {
+    z0: r.z0, z0Static: r.z0Static, epsEff: r.epsEff, epsEffStatic: r.epsEffStatic,
+    beta: (2 * Math.PI) / r.lambdaG, lambdaG: r.lambdaG, lossDbPerM: r.alphaCdBPerM + r.alphaDdBPerM, delayPerM: r.delayPerM,
+  };
+}

@@ -1,0 +1,157 @@
+/**
+ * Results of the layout layer. Everything in SI units (m, Hz, Ω, F, H, radians) except fields whose name says
+ * otherwise (`Deg`, `Db`).
+ *
+ * For the network solver: a SizedDesign holds all it needs to build the circuit.
+ * - `pieces`: one per design segment, in document order. Each names its end nodes (`a`, `b`, same ids as the
+ *   design), gives its kind, its copper width(s), and `length` — the physical centreline length of line copper that
+ *   the network should model as a transmission line between the two nodes (compensations already applied). Tapers
+ *   carry `sections` (piecewise-uniform approximation, a → b). Lumped parts carry `part` (value and footprint).
+ *   S-parameter blocks carry `sparams` (the Touchstone text from the design).
+ * - `nodes`: one per design node, with the discontinuity data a network needs at that node: an open end's
+ *   capacitance, a via's L and R at f0 (and the via geometry, to recompute R across the band), a tee's advisory
+ *   reference-plane data, a width step's advisory L/C, a port's reference impedance.
+ */
+import type { Vec2 } from '../geometry/types.ts';
+import type { BendStyle, SmdSize, ViaSpec } from '../design/types.ts';
+import type { Warning } from '../util/warnings.ts';
+import type { MiterCut } from '../discontinuity/douvilleJames1978Miter.ts';
+import type { TeePlanes } from '../discontinuity/hammerstad1981TeeJunction.ts';
+import type { StepModel } from '../discontinuity/gargBahl1978Step.ts';
+
+export type PieceKind = 'line' | 'taper' | 'lumped' | 'sparams';
+
+/** One correction to a piece's length, reported whether applied or only shown. */
+export interface Compensation {
+  /** What kind of correction: 'open-end', 'via', 'arc-bend', 'miter-bend', 'tee-planes', 'lumped-pad', 'launch-pad'. */
+  model: string;
+  /** Citation or 'common practice'. */
+  source: string;
+  /** How much the piece's copper is SHORTENED by it, m (negative = lengthened). */
+  amount_m: number;
+  /** Applied to the copper (true) or advisory only (false). */
+  applied: boolean;
+  /** At which end node. */
+  node: string;
+  note: string;
+}
+
+/** Line figures at f0 (from the line model, core/line). */
+export interface LineFigures {
+  z0: number;
+  z0Static: number;
+  epsEff: number;
+  epsEffStatic: number;
+  /** Phase constant at f0, rad/m. */
+  beta: number;
+  lambdaG: number;
+  /** Total attenuation at f0, dB/m. */
+  lossDbPerM: number;
+  delayPerM: number;
+}
+
+export interface TaperSection {
+  width: number;
+  length: number;
+  /** Z0 at f0, Ω. */
+  z0: number;
+  /** Phase constant at f0, rad/m. */
+  beta: number;
+  lossDbPerM: number;
+}
+
+export interface SmdFootprint {
+  size: SmdSize;
+  /** Pad length along the part's axis, m. */
+  padAlong: number;
+  /** Pad width across the axis, m. */
+  padAcross: number;
+  /** Pad centre to pad centre, m. */
+  pitch: number;
+}
+
+export interface SizedPiece {
+  id: string;
+  kind: PieceKind;
+  /** End nodes (design node ids). */
+  a: string;
+  b: string;
+  label?: string;
+  /** Characteristic impedance at f0, Ω (taper: at end a; lumped/sparams: of the line width at the pads). */
+  z0: number;
+  /** Copper width, m (taper: at end a). */
+  width: number;
+  /** Taper: width at end b, m. */
+  widthB?: number;
+  z0B?: number;
+  /** What the design asked for: the length before compensations, m. */
+  nominalLength: number;
+  /** Physical line length the network models between a and b, m (after applied compensations). */
+  length: number;
+  /** Distance between the two node positions along the centreline (through corner points), m. */
+  span: number;
+  /** Electrical length of `length` at f0, degrees. */
+  deg: number;
+  /** Electrical length the piece realises with its applied end corrections, degrees (the design's target). */
+  effectiveDeg: number;
+  line: LineFigures | null;
+  /** Taper: piecewise-uniform sections from a to b (≥ 20 per guided wavelength at the top of the band). */
+  sections?: TaperSection[];
+  /** Taper: copper widths at equally spaced points from a (first) to b (last), for the outline. */
+  taperWidths?: number[];
+  part?: { part: 'resistor' | 'capacitor' | 'inductor'; value: number; footprint: SmdFootprint };
+  sparams?: { name: string; touchstone: string };
+  compensations: Compensation[];
+  warnings: Warning[];
+}
+
+export interface SizedNode {
+  id: string;
+  kind: 'port' | 'vertex' | 'junction' | 'open' | 'short';
+  /** Drawn position. */
+  at: Vec2;
+  /** Placed position (after sizing). */
+  pos: Vec2;
+  /** Segments meeting here, in document order. */
+  segments: string[];
+  port?: { zRef: number; heading: number; launch?: { padWidth: number; padLength: number; pinDrill?: number } };
+  bend?: {
+    style: BendStyle;
+    /** Turn angle, radians (0 = straight on). */
+    turn: number;
+    /** Width at the bend, m (the narrower of the two pieces when they differ). */
+    width: number;
+    miter?: MiterCut;
+    arc?: { radius: number; tangent: number; arcLength: number };
+  };
+  /** Width step (advisory fit), when the pieces meeting at a vertex differ in width. Side 1 is the wide one. */
+  step?: StepModel & { wide: string; narrow: string; advisory: true };
+  tee?: { main: [string, string]; branch: string; planes: TeePlanes; advisory: true };
+  cross?: { arms: string[] };
+  open?: { dl: number; capacitance: number };
+  via?: ViaSpec & { L: number; R: number; X: number; dlEquivalent: number };
+  warnings: Warning[];
+}
+
+/** A problem that makes the layout impossible as asked; names the pieces and nodes involved. */
+export interface LayoutProblem {
+  code: 'dangling-end' | 'bad-topology' | 'too-short' | 'loop-mismatch' | 'overlap' | 'bad-value';
+  message: string;
+  subjects: string[];
+}
+
+export interface SizedDesign {
+  name: string;
+  f0: number;
+  band: { start: number; stop: number };
+  pieces: SizedPiece[];
+  nodes: SizedNode[];
+  /** Placed centreline of each piece (a → b), for paths and faces. */
+  centrelines: Record<string, Vec2[]>;
+  /** The port placement started from. */
+  anchor: string | null;
+  problems: LayoutProblem[];
+  warnings: Warning[];
+  /** The design it came from (kept for geometry: areas, board, process). */
+  doc: import('../design/types.ts').DesignDoc;
+}
