@@ -5,33 +5,10 @@
  *   within 1 µm of the model after re-import"), closed flags set, $INSUNITS = 4 (Autodesk DXF Reference: 4 = mm).
  */
 import { describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import DxfParser from 'dxf-parser';
 import { toDxf } from '../../core/export/dxf.ts';
+import { ezdxfAudit } from '../../scripts/oracles/dxf-audit.ts';
 import { boardFixture, stripOnlyFixture, BEND_MM } from '../fixtures/export/hand-made.ts';
-
-const ROOT = join(import.meta.dirname, '..', '..');
-const dir = mkdtempSync(join(tmpdir(), 'sw-dxf-'));
-
-interface Audit {
-  strict: boolean; strict_error: string | null; version: string; insunits: number; measurement: number;
-  audit_errors: string[]; audit_fixes: string[]; layers: string[];
-  entities: { type: string; layer: string; closed?: boolean; points?: number[][]; center?: number[]; radius?: number }[];
-}
-
-/** Runs Debian's python3 with ezdxf (a pyenv/venv python3 earlier on PATH cannot import it; formats.md §0). */
-export function ezdxfAudit(text: string, name = 'x.dxf'): { code: number | null; report: Audit } {
-  const file = join(dir, name);
-  writeFileSync(file, text);
-  const r = spawnSync('python3', [join(ROOT, 'scripts', 'oracles', 'audit_dxf.py'), file], {
-    encoding: 'utf8', env: { ...process.env, PATH: spawnSync('getconf', ['PATH'], { encoding: 'utf8' }).stdout.trim() },
-  });
-  if (r.stdout.trim() === '') throw new Error(`audit_dxf.py gave no output: ${r.stderr}`);
-  return { code: r.status, report: JSON.parse(r.stdout) as Audit };
-}
 
 describe('DXF export (ezdxf strict load + audit)', () => {
   it('passes the strict loader and the audit with zero errors and zero fixes, in mm', () => {

@@ -1,0 +1,64 @@
+/**
+ * Golden files: every exporter's full text for the hand-made fixtures and each example design, compared in full
+ * with test/fixtures/export/golden/ (regenerate with `npx tsx scripts/oracles/make-export-goldens.ts` and review
+ * the diff). Each golden file is also run through the outside oracles, so what is frozen is a checked file:
+ * ezdxf strict load + audit (DXF), our Gerber/Excellon rule checker and gerber-parser/plotter (Gerber, drill),
+ * xmllint (SVG), and the rendered copper area against the geometry within 0.5 % (formats.md §3.2).
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync, readdirSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
+import { regionsArea } from '../../core/geometry/polygons.ts';
+import { goldenFiles, goldenSources, type GoldenSource } from '../fixtures/export/golden-sources.ts';
+import { lintExcellon, lintGerber } from '../../scripts/oracles/gerber-lint.ts';
+import { gerberDarkArea, readBack } from '../../scripts/oracles/gerber-read.ts';
+import { ezdxfAudit } from '../../scripts/oracles/dxf-audit.ts';
+
+const DIR = join(import.meta.dirname, '..', 'fixtures', 'export', 'golden');
+let sources: GoldenSource[] = [];
+beforeAll(async () => { sources = await goldenSources(); });
+
+describe('export golden files', () => {
+  it('the golden folder holds exactly the files the sources produce', () => {
+    const want = sources.flatMap((s) => Object.keys(goldenFiles(s.name, s.geometry))).sort();
+    expect(readdirSync(DIR).sort()).toEqual(want);
+  });
+
+  it('every file matches its golden text in full', () => {
+    for (const s of sources) {
+      for (const [name, text] of Object.entries(goldenFiles(s.name, s.geometry))) {
+        expect(text, name).toBe(readFileSync(join(DIR, name), 'utf8'));
+      }
+    }
+  });
+
+  it('every golden file passes its outside oracle', async () => {
+    for (const name of readdirSync(DIR)) {
+      const text = readFileSync(join(DIR, name), 'utf8');
+      if (name.endsWith('.dxf')) {
+        const { code, report } = ezdxfAudit(text, name);
+        expect([code, report.audit_errors, report.audit_fixes], name).toEqual([0, [], []]);
+      } else if (name.endsWith('.gbr')) {
+        expect(lintGerber(text).problems, name).toEqual([]);
+        const r = await readBack(text);
+        expect(r.warnings, name).toEqual([]);
+        expect(r.units, name).toBe('mm');
+      } else if (name.endsWith('.drl')) {
+        expect(lintExcellon(text).problems, name).toEqual([]);
+        expect((await readBack(text)).warnings, name).toEqual([]);
+      } else if (name.endsWith('.svg')) {
+        expect(spawnSync('xmllint', ['--noout', '-'], { input: text }).status, name).toBe(0);
+      }
+    }
+  });
+
+  it('the rendered copper of every source matches its geometry within 0.5 %', async () => {
+    for (const s of sources) {
+      const want = (regionsArea(s.geometry.copper) + regionsArea(s.geometry.groundCopper)) * 1e6;
+      const text = readFileSync(join(DIR, `${s.name}-copper-top.gbr`), 'utf8');
+      const got = (await gerberDarkArea(text, 20)).areaMm2;
+      expect(Math.abs(got - want) / want, s.name).toBeLessThan(0.005);
+    }
+  });
+});
