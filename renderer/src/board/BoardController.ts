@@ -172,7 +172,7 @@ export class BoardController {
     this.drawNodes();
   }
 
-  setPreview(p: Preview): void {
+  preview(p: Preview): void {
     this.overlay.clear();
     if (p.run && p.run.length >= 2) {
       this.overlay.polyline(p.run.map((q) => { const s = toScreen(this.view, q); return [s.x, s.y] as [number, number]; })).addClass('rubber');

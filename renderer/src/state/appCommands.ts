@@ -1,0 +1,51 @@
+/**
+ * Every app command with its shortcut, for the keyboard, the menus and the command finder.
+ */
+import type { AppCommand } from './appCommand.ts';
+import type { EditorState } from './editor.svelte.ts';
+import type { FileActions } from './files.ts';
+import { TOOLS } from '../board/tools.ts';
+import { EXAMPLES } from './examples.ts';
+
+export interface ShellHooks {
+  openFinder(): void;
+  showDock(tab: string): void;
+}
+
+export function appCommands(ed: EditorState, files: FileActions, shell: ShellHooks): AppCommand[] {
+  const sel = () => ed.selection.size > 0;
+  const list: AppCommand[] = [
+    { id: 'file.new', group: 'File', label: 'New design', keys: ['Mod+Alt+N'], run: () => files.newDesign() },
+    { id: 'file.open', group: 'File', label: 'Open design…', keys: ['Mod+O'], run: () => files.open() },
+    { id: 'file.save', group: 'File', label: 'Save', keys: ['Mod+S'], run: async () => { await files.save(); } },
+    { id: 'file.save-as', group: 'File', label: 'Save as…', keys: ['Mod+Shift+S'], run: async () => { await files.saveAs(); } },
+    { id: 'file.export', group: 'File', label: 'Outputs for the shop (DXF, SVG, Gerber, drill, mask)', keys: ['Mod+E'], run: () => shell.showDock('outputs') },
+    { id: 'edit.undo', group: 'Edit', label: 'Undo', keys: ['Mod+Z'], enabled: () => ed.canUndo, run: () => ed.undo() },
+    { id: 'edit.redo', group: 'Edit', label: 'Redo', keys: ['Mod+Shift+Z', 'Mod+Y'], enabled: () => ed.canRedo, run: () => ed.redo() },
+    { id: 'edit.delete', group: 'Edit', label: 'Delete selection', keys: ['Delete', 'Backspace'], enabled: sel, run: () => ed.deleteSelection() },
+    { id: 'edit.copy', group: 'Edit', label: 'Copy', keys: ['Mod+C'], enabled: sel, run: () => { ed.copy(); } },
+    { id: 'edit.cut', group: 'Edit', label: 'Cut', keys: ['Mod+X'], enabled: sel, run: () => ed.cut() },
+    { id: 'edit.paste', group: 'Edit', label: 'Paste', keys: ['Mod+V'], run: () => ed.paste() },
+    { id: 'edit.select-all', group: 'Edit', label: 'Select everything', keys: ['Mod+A'], run: () => ed.selectAll() },
+    { id: 'edit.select-none', group: 'Edit', label: 'Drop selection / stop drawing', keys: ['Escape'], run: () => { if (ed.tools.busy) ed.tools.cancel(); else ed.select([]); } },
+    { id: 'edit.rotate', group: 'Edit', label: 'Turn selection 90° anticlockwise', keys: ['Q'], enabled: sel, run: () => ed.rotateSelection(90) },
+    { id: 'edit.rotate-back', group: 'Edit', label: 'Turn selection 90° clockwise', keys: ['Shift+Q'], enabled: sel, run: () => ed.rotateSelection(-90) },
+    { id: 'edit.mirror', group: 'Edit', label: 'Mirror selection left–right', keys: ['M'], enabled: sel, run: () => ed.mirrorSelection('vertical') },
+    { id: 'edit.mirror-v', group: 'Edit', label: 'Mirror selection top–bottom', keys: ['Shift+M'], enabled: sel, run: () => ed.mirrorSelection('horizontal') },
+    { id: 'draw.finish', group: 'Draw', label: 'Finish the run or board edge', keys: ['Enter'], enabled: () => ed.tools.busy, run: () => ed.tools.finish() },
+    { id: 'view.zoom-in', group: 'View', label: 'Zoom in', keys: ['=', '+'], run: () => ed.board?.zoomBy(1.4) },
+    { id: 'view.zoom-out', group: 'View', label: 'Zoom out', keys: ['-'], run: () => ed.board?.zoomBy(1 / 1.4) },
+    { id: 'view.zoom-fit', group: 'View', label: 'Zoom to fit', keys: ['F', 'Home'], run: () => ed.fitAll() },
+    { id: 'view.units', group: 'View', label: 'Switch units mm / mil', keys: ['U'], run: () => ed.setUnits(ed.units === 'mm' ? 'mil' : 'mm') },
+    { id: 'view.grid-finer', group: 'View', label: 'Finer snap grid', keys: ['['], run: () => ed.setGrid(Math.max(ed.gridStep / 2, 1e-6)) },
+    { id: 'view.grid-coarser', group: 'View', label: 'Coarser snap grid', keys: [']'], run: () => ed.setGrid(Math.min(ed.gridStep * 2, 0.01)) },
+    { id: 'view.theme', group: 'View', label: 'Light or dark theme', keys: ['Mod+Shift+L'], run: () => ed.toggleTheme() },
+    { id: 'view.finder', group: 'View', label: 'Find a command', keys: ['Mod+K', 'F1'], run: () => shell.openFinder() },
+    { id: 'view.paths', group: 'Board', label: 'Show the path ledger', keys: ['Alt+1'], run: () => shell.showDock('paths') },
+    { id: 'view.findings', group: 'Board', label: 'Show the shop check', keys: ['Alt+2'], run: () => shell.showDock('findings') },
+    { id: 'view.response', group: 'Board', label: 'Show the response', keys: ['Alt+3'], run: () => shell.showDock('response') },
+  ];
+  for (const t of TOOLS) list.push({ id: `tool.${t.id}`, group: 'Draw', label: `Tool: ${t.label}`, keys: [t.key], run: () => ed.setTool(t.id) });
+  for (const ex of EXAMPLES) list.push({ id: `example.${ex.id}`, group: 'File', label: `Open example: ${ex.title}`, run: () => files.openExample(ex.id) });
+  return list;
+}

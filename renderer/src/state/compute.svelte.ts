@@ -1,0 +1,69 @@
+/**
+ * Runs the long work (sizing and geometry on every edit, response sweeps on demand) in the compute worker and
+ * puts the results on the editor. Requests made while a job runs coalesce: at most one job waits, always for the
+ * newest revision, so fast typing or a drag never piles up stale work and the canvas never waits for it.
+ */
+import { ComputeClient, type Progress } from '../worker/client.ts';
+import { runJob } from '../worker/jobs.ts';
+import type { EditorState } from './editor.svelte.ts';
+import { figuresFrom, placedFrom, type LayoutView } from './layoutView.ts';
+import type { LayoutOutput, ResponseInput, ResponseOutput } from '../worker/jobs.ts';
+
+export class Compute {
+  private readonly client: ComputeClient;
+  private running = false;
+  private queued = false;
+  busy = $state<string | null>(null);
+  response = $state.raw<ResponseOutput | null>(null);
+  responseError = $state<string | null>(null);
+  responseProgress = $state.raw<Progress | null>(null);
+  lastLayoutMs = $state(0);
+
+  constructor(private readonly editor: EditorState, makeWorker: (() => Worker) | null = defaultWorker()) {
+    this.client = new ComputeClient(makeWorker, runJob);
+  }
+
+  get threaded(): boolean { return this.client.threaded; }
+
+  /** Ask for the layout of the current revision. */
+  request(): void {
+    if (this.running) { this.queued = true; return; }
+    void this.layout();
+  }
+
+  private async layout(): Promise<void> {
+    this.running = true;
+    const revision = this.editor.revision;
+    const doc = this.editor.doc;
+    const t = setTimeout(() => { this.busy = 'sizing…'; }, 150);
+    const out = await this.client.run<LayoutOutput>('layout', { doc });
+    clearTimeout(t);
+    this.busy = null;
+    this.running = false;
+    if (out.ok) {
+      const v: LayoutView = { revision, sized: out.value.sized, geometry: out.value.geometry, placed: placedFrom(out.value.sized), figures: figuresFrom(out.value.sized), ms: out.ms };
+      this.editor.applyLayout(v, out.value.geometryError);
+      this.lastLayoutMs = out.ms;
+    } else if ('error' in out) {
+      this.editor.layoutFailed(out.error.message);
+    }
+    if (this.queued) { this.queued = false; void this.layout(); }
+  }
+
+  /** Sweep the band (or the given settings) and keep the response for the plots. */
+  async sweep(input: Omit<ResponseInput, 'doc'>): Promise<void> {
+    this.responseError = null;
+    this.responseProgress = { done: 0, total: 1, label: 'starting' };
+    const out = await this.client.run<ResponseOutput>('response', { ...input, doc: this.editor.doc }, (p) => { this.responseProgress = p; });
+    this.responseProgress = null;
+    if (out.ok) this.response = out.value;
+    else if ('error' in out) this.responseError = out.error.message;
+  }
+
+  destroy(): void { this.client.destroy(); }
+}
+
+function defaultWorker(): (() => Worker) | null {
+  if (typeof Worker === 'undefined') return null;
+  return () => new Worker(new URL('../worker/compute.worker.ts', import.meta.url), { type: 'module' });
+}

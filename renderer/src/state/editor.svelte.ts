@@ -1,0 +1,337 @@
+/**
+ * The editor's state: one class, because the board controller, the tools and every panel share it and a class
+ * gives them one typed object to hold. Core objects (the design, the layout result) are `$state.raw`: they are
+ * immutable values replaced on every edit, never deeply proxied. View values are `$derived`.
+ *
+ * Every edit goes through the core's History (design commands, undo by diffs); a drag is one live step.
+ */
+import { History, parseDesign, serializeDesign, newDesign, copySelection, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess } from '../../../core/design/index.ts';
+import type { Box, Vec2 } from '../../../core/geometry/types.ts';
+import type { SubstrateSpec } from '../../../core/substrate/types.ts';
+import { InputError } from '../../../core/util/errors.ts';
+import type { Scene } from '../board/scene.ts';
+import type { Preview } from '../board/BoardController.ts';
+import { ToolMachine, type ToolHost, type ToolId, type InsertKind } from '../board/tools.ts';
+import { boxSelect } from '../board/hit.ts';
+import { boxOf } from '../board/viewport.ts';
+import { UNIT_METRES, type LengthUnit } from '../board/grid.ts';
+import { buildScene, scenePoints } from './scene.ts';
+import { runWithComposites, COMPOSITE_LABELS } from './composite.ts';
+import type { PieceFigures } from './figures.ts';
+import type { LayoutView } from './layoutView.ts';
+import { applyTheme, initialTheme, type Theme } from './theme.ts';
+
+/** What the editor needs from the board drawing (the controller, or nothing in tests). */
+export interface BoardPort {
+  preview(p: Preview): void;
+  fit(box: Box | null): void;
+  zoomBy(f: number): void;
+  panScreen(dx: number, dy: number): void;
+}
+
+export interface OpenFile { path: string; name: string; modifiedMs: number | null }
+
+export class EditorState {
+  readonly history: History;
+  doc = $state.raw<DesignDoc>(newDesign());
+  revision = $state(0);
+  savedRevision = $state(0);
+  file = $state.raw<OpenFile | null>(null);
+  docId = $state(makeDocId());
+  selection = $state.raw<ReadonlySet<string>>(new Set());
+  hovered = $state<string | null>(null);
+  hoverAt = $state.raw<Vec2 | null>(null);
+  tool = $state<ToolId>('pick');
+  theme = $state<Theme>('light');
+  status = $state('');
+  /** Sizing, geometry, paths and checks of the current revision (from the worker); null until the first result. */
+  layout = $state.raw<LayoutView | null>(null);
+  layoutError = $state<string | null>(null);
+  /** Ids flagged by the fabrication findings (outlined in red). */
+  flagged = $state.raw<ReadonlySet<string>>(new Set());
+  canUndo = $state(false);
+  canRedo = $state(false);
+
+  readonly tools: ToolMachine;
+  board: BoardPort | null = null;
+
+  dirty = $derived(this.revision !== this.savedRevision);
+  units = $derived<LengthUnit>(this.doc.view?.units ?? 'mm');
+  /** Snap step: the design's own, else 0.1 mm or 5 mil (common practice for hand-drawn RF boards). */
+  gridStep = $derived(this.doc.view?.grid ?? (this.units === 'mil' ? 5 * UNIT_METRES.mil : 0.1e-3));
+  scene = $derived<Scene>(buildScene(this.doc, this.layout?.geometry ?? null, this.layout?.placed ?? null));
+  selectedSegment = $derived<DesignSegment | null>(this.single((id) => this.doc.segments.find((s) => s.id === id)));
+  selectedNode = $derived<DesignNode | null>(this.single((id) => this.doc.nodes.find((n) => n.id === id)));
+  fileName = $derived(this.file?.name ?? null);
+
+  constructor(doc?: DesignDoc) {
+    this.history = new History(doc ?? newDesign(), { run: runWithComposites });
+    this.doc = this.history.doc;
+    this.history.subscribe((d, rev) => {
+      this.doc = d;
+      this.revision = rev;
+      this.canUndo = this.history.canUndo;
+      this.canRedo = this.history.canRedo;
+      // Drop selected ids that no longer exist (after delete or undo).
+      if (this.selection.size) {
+        const alive = new Set<string>([...d.nodes.map((n) => n.id), ...d.segments.map((s) => s.id)]);
+        const kept = [...this.selection].filter((id) => alive.has(id));
+        if (kept.length !== this.selection.size) this.selection = new Set(kept);
+      }
+    });
+    this.tools = new ToolMachine(this.toolHost());
+    this.theme = initialTheme();
+  }
+
+  private single<T>(find: (id: string) => T | undefined): T | null {
+    if (this.selection.size !== 1) return null;
+    return find([...this.selection][0]!) ?? null;
+  }
+
+  // ---- edits ------------------------------------------------------------------------------------------------
+
+  /** Runs a design command as one undo step; a refused edit shows its reason and changes nothing. */
+  edit(id: string, args: unknown, label?: string): boolean {
+    try {
+      this.history.apply(id, args, label ?? COMPOSITE_LABELS[id]);
+      this.history.mark();
+      this.canUndo = this.history.canUndo;
+      return true;
+    } catch (err) {
+      this.status = err instanceof InputError ? `Not done: ${err.field} — expected ${err.expected}, got ${err.got}` : `Not done: ${String(err)}`;
+      return false;
+    }
+  }
+
+  undo(): void { this.tools.cancel(); if (this.history.undo()) this.status = 'Undone'; }
+  redo(): void { if (this.history.redo()) this.status = 'Redone'; }
+
+  updateSegment(id: string, spec: Record<string, unknown>): void { this.edit('segment.setSpec', { id, spec }); }
+
+  updateNode(id: string, patch: Record<string, unknown>): void {
+    const { label, ...spec } = patch;
+    const args: Record<string, unknown> = { id };
+    if (Object.keys(spec).length) args.spec = spec;
+    if ('label' in patch) args.label = label === undefined ? null : label;
+    this.edit('node.setSpec', args);
+  }
+
+  setEnd(id: string, kind: 'open' | 'short'): void { this.edit('node.setSpec', { id, spec: { kind } }); }
+  setSubstrate(patch: Partial<SubstrateSpec>): void { this.edit('design.setSubstrate', { substrate: patch }); }
+  setFrequency(patch: { f0?: number; band?: { start: number; stop: number } }): void { this.edit('design.setFrequency', patch); }
+  setProcess(process: FabProcess): void { this.edit('design.setProcess', { process }); }
+  setUnits(units: LengthUnit): void { this.edit('view.set', { units }); }
+  setGrid(grid: number): void { this.edit('view.set', { grid }); }
+
+  deleteSelection(): void {
+    if (!this.selection.size) return;
+    if (this.edit('selection.delete', { ids: [...this.selection] })) this.selection = new Set();
+  }
+
+  selectionCentre(): Vec2 | null {
+    const pts: Vec2[] = [];
+    const ids = this.selection;
+    for (const n of this.doc.nodes) if (ids.has(n.id)) pts.push(n.at);
+    for (const s of this.doc.segments) if (ids.has(s.id)) for (const e of [s.a, s.b]) { const n = this.doc.nodes.find((x) => x.id === e); if (n) pts.push(n.at); }
+    const b = boxOf(pts);
+    return b ? { x: (b.minX + b.maxX) / 2, y: (b.minY + b.maxY) / 2 } : null;
+  }
+
+  rotateSelection(angleDeg = 90): void {
+    const about = this.selectionCentre();
+    if (about) this.edit('selection.rotate', { ids: [...this.selection], about, angleDeg });
+  }
+
+  mirrorSelection(axis: 'vertical' | 'horizontal' = 'vertical'): void {
+    const about = this.selectionCentre();
+    if (about) this.edit('selection.mirror', { ids: [...this.selection], about, axis });
+  }
+
+  nudge(dx: number, dy: number): void {
+    if (this.selection.size) this.edit('selection.translate', { ids: [...this.selection], by: { x: dx * this.gridStep, y: dy * this.gridStep } });
+  }
+
+  /** Copy: the core's clipboard text, kept in the app and offered to the system clipboard. */
+  clipboard: string | null = null;
+  pasteCount = 0;
+
+  copy(): boolean {
+    if (!this.selection.size) return false;
+    try {
+      this.clipboard = copySelection(this.doc, [...this.selection]);
+      this.pasteCount = 0;
+      void globalThis.navigator?.clipboard?.writeText(this.clipboard).catch(() => undefined);
+      this.status = `Copied ${this.selection.size} item(s)`;
+      return true;
+    } catch (err) {
+      this.status = err instanceof InputError ? `Not copied: ${err.expected}` : String(err);
+      return false;
+    }
+  }
+
+  cut(): void { if (this.copy()) this.deleteSelection(); }
+
+  paste(): void {
+    if (!this.clipboard) { this.status = 'Nothing to paste: copy something first'; return; }
+    this.pasteCount++;
+    const step = Math.max(this.gridStep, 1e-3) * 2 * this.pasteCount;
+    const before = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)]);
+    if (this.edit('selection.paste', { clipboard: this.clipboard, offset: { x: step, y: -step } })) {
+      this.selection = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)].filter((id) => !before.has(id)));
+    }
+  }
+
+  selectAll(): void { this.selection = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)]); }
+
+  // ---- files ------------------------------------------------------------------------------------------------
+
+  /** Replaces the document (open, new, example); history starts afresh. The caller has asked about unsaved work. */
+  load(doc: DesignDoc, file: OpenFile | null): void {
+    this.tools.cancel();
+    this.selection = new Set();
+    this.layout = null;
+    this.history.reset(doc);
+    this.canUndo = false;
+    this.canRedo = false;
+    this.savedRevision = this.history.revision;
+    this.file = file;
+    this.docId = makeDocId();
+  }
+
+  /** Loads design text; returns the problems as text when it cannot be read (the current design stays). */
+  loadText(text: string, file: OpenFile | null): string | null {
+    const r = parseDesign(text);
+    if (!r.ok) return r.errors.slice(0, 5).map((e) => `${e.path}: expected ${e.expected}, found ${e.found}`).join('\n');
+    this.load(r.doc, file);
+    if (r.migratedFrom !== undefined) this.status = `Opened a version ${r.migratedFrom} file; it is saved in the current format.`;
+    return null;
+  }
+
+  serialize(): string { return serializeDesign({ ...this.doc, app: `stripwright ${APP_VERSION}` }); }
+
+  markSaved(file: OpenFile): void { this.file = file; this.savedRevision = this.revision; }
+
+  // ---- selection, view, tools -------------------------------------------------------------------------------
+
+  select(ids: string[], mode: 'replace' | 'toggle' | 'add' = 'replace'): void {
+    if (mode === 'replace') { this.selection = new Set(ids); return; }
+    const s = new Set(this.selection);
+    for (const id of ids) { if (mode === 'toggle' && s.has(id)) s.delete(id); else s.add(id); }
+    this.selection = s;
+  }
+
+  /** Selects ids and zooms to them (from the piece list or a finding). */
+  selectAndFrame(ids: string[]): void {
+    this.select(ids);
+    this.board?.fit(this.boxOfIds(ids, 2e-3));
+  }
+
+  boxOfIds(ids: string[], margin = 0): Box | null {
+    const want = new Set(ids);
+    const pts: Vec2[] = [];
+    const placed = this.layout?.placed ?? null;
+    for (const n of this.doc.nodes) if (want.has(n.id)) pts.push(placed?.get(n.id) ?? n.at);
+    for (const s of this.scene.segments) if (want.has(s.id)) pts.push(...(s.centreline ?? [s.a, s.b]));
+    const b = boxOf(pts);
+    return b && { minX: b.minX - margin, minY: b.minY - margin, maxX: b.maxX + margin, maxY: b.maxY + margin };
+  }
+
+  fitAll(): void { this.board?.fit(boxOf(scenePoints(this.doc, this.layout?.geometry ?? null))); }
+
+  setTool(t: ToolId): void { this.tool = t; this.tools.setTool(t); }
+
+  toggleTheme(): void { this.theme = this.theme === 'dark' ? 'light' : 'dark'; applyTheme(this.theme); }
+
+  /** A layout result from the worker; an older revision's result is still shown until the newer one arrives. */
+  applyLayout(v: LayoutView, geometryError: string | null): void {
+    if (this.layout && v.revision < this.layout.revision) return;
+    this.layout = v;
+    const problems = v.sized.problems.map((p) => p.message);
+    this.layoutError = geometryError ?? (problems.length ? problems.join('; ') : null);
+  }
+
+  layoutFailed(message: string): void { this.layoutError = message; }
+
+  figuresOf(id: string): PieceFigures | null { return this.layout?.figures.get(id) ?? null; }
+
+  drawnLength(id: string): number {
+    const s = this.scene.segments.find((x) => x.id === id);
+    return s ? Math.hypot(s.b.x - s.a.x, s.b.y - s.a.y) : 1e-3;
+  }
+
+  /** App commands (menus, shortcuts, finder) are registered by the shell; the menus call them by id. */
+  commandRunner: ((id: string) => void) | null = null;
+  runCommand(id: string): void { this.commandRunner?.(id); }
+
+  private toolHost(): ToolHost {
+    // The board shows nodes where the layout placed them; the design keeps the drawn positions. A point the user
+    // clicks relative to a placed node is carried into the drawn frame by that node's offset.
+    const offsetOf = (nodeId: string): Vec2 => {
+      const n = this.doc.nodes.find((x) => x.id === nodeId);
+      const p = this.layout?.placed.get(nodeId);
+      return n && p ? { x: n.at.x - p.x, y: n.at.y - p.y } : { x: 0, y: 0 };
+    };
+    const shift = (pts: Vec2[], o: Vec2) => pts.map((p) => ({ x: p.x + o.x, y: p.y + o.y }));
+    return {
+      gridStep: () => this.gridStep,
+      nodeAt: (id) => {
+        const n = this.scene.nodes.find((x) => x.id === id);
+        return n ? { at: n.at, kind: n.kind } : null;
+      },
+      segmentEnds: (id) => {
+        const s = this.scene.segments.find((x) => x.id === id);
+        if (!s) return null;
+        const c = s.centreline;
+        return c && c.length >= 2 ? { a: c[0]!, b: c[c.length - 1]! } : { a: s.a, b: s.b };
+      },
+      isSelected: (id) => this.selection.has(id),
+      select: (ids, mode) => this.select(ids, mode),
+      hover: (id, at) => { this.hovered = id; this.hoverAt = at; },
+      beginMove: () => { try { this.history.beginLive('Move'); } catch { /* a drag is already live */ } },
+      moveBy: (d) => {
+        try { this.history.apply('selection.translate', { ids: [...this.selection], by: d }); } catch (err) {
+          this.status = err instanceof InputError ? `Cannot move there: ${err.expected}` : String(err);
+        }
+      },
+      endMove: (commit) => {
+        if (commit) this.history.commitLive(); else this.history.cancelLive();
+        this.canUndo = this.history.canUndo;
+        this.canRedo = this.history.canRedo;
+      },
+      boxSelect: (box, additive) => this.select(boxSelect(this.scene, box), additive ? 'add' : 'replace'),
+      addRun: (from, points) => {
+        const before = new Set(this.doc.segments.map((s) => s.id));
+        if (this.edit('editor.route', { from, points: shift(points, offsetOf(from)) })) {
+          const made = this.doc.segments.filter((s) => !before.has(s.id)).map((s) => s.id);
+          this.selection = new Set(made.slice(-1));
+          this.status = `Routed ${made.length} line${made.length === 1 ? '' : 's'}`;
+        }
+      },
+      addTee: (segment, at, points) => {
+        const seg = this.doc.segments.find((s) => s.id === segment);
+        const o = seg ? offsetOf(seg.a) : { x: 0, y: 0 };
+        this.edit('editor.tee', { segment, at: shift([at], o)[0], points: shift(points, o) });
+      },
+      addStub: (segment, at, side, end) => {
+        const seg = this.doc.segments.find((s) => s.id === segment);
+        const o = seg ? offsetOf(seg.a) : { x: 0, y: 0 };
+        this.edit('editor.stub', { segment, at: shift([at], o)[0], side, end });
+      },
+      insert: (segment, at, kind: InsertKind) => {
+        const seg = this.doc.segments.find((s) => s.id === segment);
+        const o = seg ? offsetOf(seg.a) : { x: 0, y: 0 };
+        this.edit('editor.insert', { segment, at: shift([at], o)[0], kind });
+      },
+      addPort: (at) => this.edit('node.add', { at, spec: { kind: 'port' } }),
+      setOutline: (points) => this.edit('board.setOutline', { outline: points }),
+      preview: (p) => this.board?.preview(p),
+      status: (t) => { this.status = t; },
+    };
+  }
+}
+
+export const APP_VERSION = '0.1.0';
+
+function makeDocId(): string {
+  return globalThis.crypto?.randomUUID?.().slice(0, 18) ?? `doc-${Date.now().toString(36)}`;
+}

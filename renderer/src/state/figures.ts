@@ -1,0 +1,22 @@
+/**
+ * The sized figures of one piece as the panels show them (the layout's numbers, renamed for display).
+ * Filled from the core's sizing result in state/layoutView.ts; nothing here is computed by the renderer.
+ */
+import type { Warning } from '../../../core/util/warnings.ts';
+
+export interface PieceFigures {
+  id: string;
+  /** Copper width, m (start width for tapers). */
+  width: number;
+  /** End width for tapers, m. */
+  widthEnd?: number;
+  /** Characteristic impedance at f0, Ω. */
+  z0: number;
+  /** Effective permittivity at f0. */
+  eeff?: number;
+  /** Physical length, m, after compensations. */
+  length: number;
+  /** Electrical length at f0, degrees. */
+  electricalDeg: number;
+  warnings: Warning[];
+}

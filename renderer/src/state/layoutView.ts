@@ -1,0 +1,32 @@
+/**
+ * What the panels and the board show of the layout: the core's sized design and geometry, plus lookups by id.
+ * Built from the compute worker's result (layoutJob in worker/jobs.ts); nothing here computes physics.
+ */
+import type { BoardGeometry, Vec2 } from '../../../core/geometry/types.ts';
+import type { SizedDesign } from '../../../core/layout/types.ts';
+import type { PieceFigures } from './figures.ts';
+
+export interface LayoutView {
+  revision: number;
+  sized: SizedDesign;
+  geometry: BoardGeometry | null;
+  /** Placed node positions (after sizing), by node id. */
+  placed: Map<string, Vec2>;
+  figures: Map<string, PieceFigures>;
+  ms: number;
+}
+
+export function figuresFrom(sized: SizedDesign): Map<string, PieceFigures> {
+  const m = new Map<string, PieceFigures>();
+  for (const p of sized.pieces) {
+    m.set(p.id, {
+      id: p.id, width: p.width, widthEnd: p.widthB, z0: p.z0, eeff: p.line?.epsEff, length: p.length, electricalDeg: p.deg,
+      warnings: p.warnings,
+    });
+  }
+  return m;
+}
+
+export function placedFrom(sized: SizedDesign): Map<string, Vec2> {
+  return new Map(sized.nodes.map((n) => [n.id, n.pos]));
+}
