@@ -147,18 +147,18 @@ export function parseQuantity(text: string, kind: QuantityKind, field: string = 
   return v;
 }
 
-/** Display units per kind, largest first: [unit, factor to SI, smallest magnitude shown in it]. */
-const DISPLAY: Record<QuantityKind, [string, number][]> = {
-  length: [['m', 1], ['mm', 1e-3], ['µm', 1e-6], ['nm', 1e-9]],
-  frequency: [['THz', 1e12], ['GHz', 1e9], ['MHz', 1e6], ['kHz', 1e3], ['Hz', 1]],
-  impedance: [['MΩ', 1e6], ['kΩ', 1e3], ['Ω', 1], ['mΩ', 1e-3]],
-  resistance: [['MΩ', 1e6], ['kΩ', 1e3], ['Ω', 1], ['mΩ', 1e-3]],
-  angle: [['°', Math.PI / 180]],
-  db: [['dB', 1]],
-  conductivity: [['MS/m', 1e6], ['kS/m', 1e3], ['S/m', 1]],
-  ratio: [['', 1]],
-  capacitance: [['F', 1], ['mF', 1e-3], ['µF', 1e-6], ['nF', 1e-9], ['pF', 1e-12], ['fF', 1e-15]],
-  inductance: [['H', 1], ['mH', 1e-3], ['µH', 1e-6], ['nH', 1e-9], ['pH', 1e-12]],
+/** Display units per kind, largest first: [unit, factor to SI, smallest magnitude shown in it (SI)]. */
+const DISPLAY: Record<QuantityKind, [string, number, number][]> = {
+  length: [['m', 1, 1], ['mm', 1e-3, 1e-4], ['µm', 1e-6, 1e-7], ['nm', 1e-9, 0]],
+  frequency: [['THz', 1e12, 1e12], ['GHz', 1e9, 1e9], ['MHz', 1e6, 1e6], ['kHz', 1e3, 1e3], ['Hz', 1, 0]],
+  impedance: [['MΩ', 1e6, 1e6], ['kΩ', 1e3, 1e4], ['Ω', 1, 0.1], ['mΩ', 1e-3, 0]],
+  resistance: [['MΩ', 1e6, 1e6], ['kΩ', 1e3, 1e3], ['Ω', 1, 1], ['mΩ', 1e-3, 0]],
+  angle: [['°', Math.PI / 180, 0]],
+  db: [['dB', 1, 0]],
+  conductivity: [['MS/m', 1e6, 1e6], ['kS/m', 1e3, 1e3], ['S/m', 1, 0]],
+  ratio: [['', 1, 0]],
+  capacitance: [['F', 1, 1], ['mF', 1e-3, 1e-3], ['µF', 1e-6, 1e-6], ['nF', 1e-9, 1e-9], ['pF', 1e-12, 1e-12], ['fF', 1e-15, 0]],
+  inductance: [['H', 1, 1], ['mH', 1e-3, 1e-3], ['µH', 1e-6, 1e-6], ['nH', 1e-9, 1e-9], ['pH', 1e-12, 0]],
 };
 
 /**
@@ -187,9 +187,9 @@ export function formatQuantity(value: number, kind: QuantityKind, opts: { unit?:
     const list = DISPLAY[kind];
     const mag = Math.abs(value);
     let pick = list[list.length - 1]!;
-    for (const entry of list) if (mag >= entry[1] * 0.9995) { pick = entry; break; }
+    for (const entry of list) if (mag >= entry[2] * 0.99995) { pick = entry; break; }
     if (mag === 0) pick = list.find((e) => e[1] === 1) ?? pick;
-    [unit, factor] = pick;
+    unit = pick[0]; factor = pick[1];
   }
   const n = value / factor;
   const text = n === 0 ? '0' : String(Number(n.toPrecision(digits)));
