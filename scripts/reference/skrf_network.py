@@ -8,8 +8,8 @@ Input (JSON on stdin):
    "ports": [{"name", "node", "zRef": ohm}],
    "mode": "cascade" | "graph", "repeat": N (optional, for timing)}
 "cascade": the lines form one chain from ports[0] to ports[1] and are joined with skrf's `**`.
-"graph": every node becomes an ideal junction (media.splitter) and all pieces are joined with
-skrf.network.connect / innerconnect; scikit-rf inserts the impedance steps between pieces whose
+"graph": every node becomes an ideal junction (media.splitter, or media.open for a lone end) and all pieces are
+joined with skrf.network.innerconnect; scikit-rf inserts the impedance steps between pieces whose
 port impedances differ.
 Output: {"s": [[[[re, im] ...]]] (freq, i, j), "seconds": build+solve time of one run}.
 Lines use a real characteristic impedance (scikit-rf 0.15.4 labels a line with its media's port impedance, so
@@ -22,8 +22,16 @@ import time
 import warnings
 
 warnings.filterwarnings("ignore")
+import contextlib  # noqa: E402
+import io  # noqa: E402
 import numpy as np  # noqa: E402
-import skrf as rf  # noqa: E402
+
+# scikit-rf 0.15.4 still uses the alias np.complex, removed in numpy 1.24 (Debian ships 1.24): restore the alias
+# (it was always the builtin complex) so the library's own resistor and conversions run.
+if not hasattr(np, "complex"):
+    np.complex = complex
+with contextlib.redirect_stdout(io.StringIO()):  # it prints a note about matplotlib on import
+    import skrf as rf  # noqa: E402
 
 
 def build(spec):
@@ -62,7 +70,6 @@ def build(spec):
     # Edge labels: piece terminal t of piece i is edge ("p", i, t); junction ports are ordered:
     # external ports first, then the pieces' terminals.
     items = []  # (network, [edge label per port])
-    used = {n: 0 for n in degree}
     piece_edges = []
     for i, (ntw, nodes) in enumerate(nets):
         piece_edges.append([("e", i, t) for t in range(len(nodes))])
@@ -77,32 +84,33 @@ def build(spec):
     for n, labels in junction_ports.items():
         zj = spec["ports"][port_at[n][0]]["zRef"] if n in port_at else 50.0
         mj = rf.media.DefinedGammaZ0(frequency=f, z0=zj, Z0=zj)
-        items.append((mj.splitter(len(labels), name="j_" + n), labels))
-    # Join: grow one network, always adding a piece that shares an edge with it.
-    big, labels = items[0][0], list(items[0][1])
-    rest = items[1:]
-    while rest:
-        for idx, (ntw, lab) in enumerate(rest):
-            shared = [e for e in lab if e in labels and e[0] == "e"]
-            if shared:
-                break
-        else:
-            raise SystemExit("network is not connected")
-        ntw, lab = rest.pop(idx)
-        e = shared[0]
-        k, l = labels.index(e), lab.index(e)
-        big = rf.connect(big, k, ntw, l)
-        labels = [x for x in labels if x != e] + [x for x in lab if x != e]
-        # Close loops: any edge now present twice is joined inside.
-        while True:
-            dup = [x for x in set(labels) if labels.count(x) == 2 and x[0] == "e"]
-            if not dup:
-                break
-            x = dup[0]
-            i1 = labels.index(x)
-            i2 = labels.index(x, i1 + 1)
-            big = rf.innerconnect(big, i1, i2)
-            labels = [y for j, y in enumerate(labels) if j not in (i1, i2)]
+        # A lone terminal is an open end (splitter(1) divides by zero in 0.15.4).
+        j = mj.open(name="j_" + n) if len(labels) == 1 else mj.splitter(len(labels), name="j_" + n)
+        items.append((j, labels))
+    # Join: all pieces side by side as one block-diagonal network, then every shared edge joined with skrf's
+    # innerconnect (which keeps the other ports in order and inserts the impedance step between unequal ports).
+    # skrf's two-network connect() is not used: in 0.15.4 it reorders ports when one side is a 2-port.
+    nports = sum(ntw.nports for ntw, _ in items)
+    s_all = np.zeros((len(f), nports, nports), dtype=complex)
+    z_all = np.zeros((len(f), nports), dtype=complex)
+    labels = []
+    at = 0
+    for ntw, lab in items:
+        n = ntw.nports
+        s_all[:, at:at + n, at:at + n] = ntw.s
+        z_all[:, at:at + n] = ntw.z0
+        labels += lab
+        at += n
+    big = rf.Network(frequency=f, s=s_all, z0=z_all)
+    while True:
+        dup = [x for x in labels if x[0] == "e"]
+        if not dup:
+            break
+        x = dup[0]
+        i1 = labels.index(x)
+        i2 = labels.index(x, i1 + 1)
+        big = rf.innerconnect(big, i1, i2)
+        labels = [y for j, y in enumerate(labels) if j not in (i1, i2)]
     order = [labels.index(("x", k)) for k in range(len(spec["ports"]))]
     s = big.s[:, order][:, :, order]
     out = rf.Network(frequency=f, s=s, z0=np.array([p["zRef"] for p in spec["ports"]], dtype=float))
