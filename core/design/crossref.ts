@@ -15,11 +15,11 @@ import type { DesignDoc, DesignNode } from './types.ts';
 import { issue, type DesignIssue } from './issues.ts';
 
 export const DEGREE: Record<DesignNode['kind'], { min: number; max: number; words: string }> = {
-  port: { min: 1, max: 1, words: 'a port has exactly one segment' },
-  vertex: { min: 2, max: 2, words: 'a vertex joins exactly two segments' },
-  junction: { min: 3, max: 4, words: 'a junction joins three or four segments' },
-  open: { min: 1, max: 1, words: 'an open end has exactly one segment' },
-  short: { min: 1, max: 1, words: 'a shorted end has exactly one segment' },
+  port: { min: 1, max: 1, words: 'one segment at a port' },
+  vertex: { min: 2, max: 2, words: 'two segments at a vertex' },
+  junction: { min: 3, max: 4, words: 'three or four segments at a junction' },
+  open: { min: 1, max: 1, words: 'one segment at an open end' },
+  short: { min: 1, max: 1, words: 'one segment at a shorted end' },
 };
 
 export interface CrossCheck { errors: DesignIssue[]; warnings: Warning[] }
@@ -58,10 +58,10 @@ export function crossCheck(doc: DesignDoc, opts: { complete?: boolean } = {}): C
     const d = degree.get(n.id) ?? 0;
     const rule = DEGREE[n.kind];
     if (d > rule.max) {
-      errors.push(issue('invalid-design', `nodes[${i}]`, `${rule.words} (a ${n.kind} node)`, `${d} segments at ${JSON.stringify(n.id)}`));
+      errors.push(issue('invalid-design', `nodes[${i}]`, rule.words, `${d} segments meeting at ${n.kind} ${JSON.stringify(n.id)}`));
     } else if (d < rule.min) {
-      const msg = `${rule.words}; ${JSON.stringify(n.id)} has ${d}: the network is unfinished there`;
-      if (opts.complete) errors.push(issue('invalid-design', `nodes[${i}]`, `${rule.words} (a ${n.kind} node)`, `${d} segments at ${JSON.stringify(n.id)}`));
+      const msg = `${JSON.stringify(n.id)} has ${d} segment${d === 1 ? '' : 's'}, needs ${rule.words}: the network is unfinished there`;
+      if (opts.complete) errors.push(issue('invalid-design', `nodes[${i}]`, rule.words, `${d} segments meeting at ${n.kind} ${JSON.stringify(n.id)} (the network is unfinished there)`));
       else warnings.push({ code: 'note', severity: 'warning', message: `nodes[${i}]: ${msg}. It is kept as drawn; sizing waits until it is connected.`, subjects: [n.id], source: 'design-topology' });
     }
     if (n.kind === 'short' && n.via.pad <= n.via.drill) {
@@ -107,11 +107,13 @@ function checkRing(ring: readonly Vec2[], path: string, errors: DesignIssue[]): 
       return;
     }
   }
+  if (ring.length <= CROSSING_TEST_MAX && crossesItself(ring, path, errors)) return;
   if (Math.abs(ringArea(ring as Vec2[])) < 1e-12) {
     errors.push(issue('invalid-design', path, 'a closed outline enclosing an area (points not all on one line)', `an outline of ${ring.length} points enclosing no area`));
-    return;
   }
-  if (ring.length > CROSSING_TEST_MAX) return;
+}
+
+function crossesItself(ring: readonly Vec2[], path: string, errors: DesignIssue[]): boolean {
   const n = ring.length;
   for (let i = 0; i < n; i++) {
     const a = ring[i]!, b = ring[(i + 1) % n]!;
@@ -120,10 +122,11 @@ function checkRing(ring: readonly Vec2[], path: string, errors: DesignIssue[]): 
       const c = ring[j]!, d = ring[(j + 1) % n]!;
       if (segmentsCross(a, b, c, d)) {
         errors.push(issue('invalid-design', path, 'an outline that does not cross itself', `edges ${i}–${(i + 1) % n} and ${j}–${(j + 1) % n} crossing`));
-        return;
+        return true;
       }
     }
   }
+  return false;
 }
 
 function orient(a: Vec2, b: Vec2, c: Vec2): number {
