@@ -41,7 +41,7 @@ export class Compute {
     this.busy = null;
     this.running = false;
     if (out.ok) {
-      const v: LayoutView = { revision, sized: out.value.sized, geometry: out.value.geometry, placed: placedFrom(out.value.sized), figures: figuresFrom(out.value.sized), ms: out.ms };
+      const v: LayoutView = { revision, sized: out.value.sized, outlines: out.value.outlines, drills: out.value.drills, placed: placedFrom(out.value.sized), figures: figuresFrom(out.value.sized), ms: out.ms };
       this.editor.applyLayout(v, out.value.geometryError);
       this.lastLayoutMs = out.ms;
     } else if ('error' in out) {

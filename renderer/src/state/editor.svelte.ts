@@ -59,7 +59,7 @@ export class EditorState {
   units = $derived<LengthUnit>(this.doc.view?.units ?? 'mm');
   /** Snap step: the design's own, else 0.1 mm or 5 mil (common practice for hand-drawn RF boards). */
   gridStep = $derived(this.doc.view?.grid ?? (this.units === 'mil' ? 5 * UNIT_METRES.mil : 0.1e-3));
-  scene = $derived<Scene>(buildScene(this.doc, this.layout?.geometry ?? null, this.layout?.placed ?? null));
+  scene = $derived<Scene>(buildScene(this.doc, this.layout, this.layout?.placed ?? null));
   selectedSegment = $derived<DesignSegment | null>(this.single((id) => this.doc.segments.find((s) => s.id === id)));
   selectedNode = $derived<DesignNode | null>(this.single((id) => this.doc.nodes.find((n) => n.id === id)));
   fileName = $derived(this.file?.name ?? null);
@@ -236,7 +236,7 @@ export class EditorState {
     return b && { minX: b.minX - margin, minY: b.minY - margin, maxX: b.maxX + margin, maxY: b.maxY + margin };
   }
 
-  fitAll(): void { this.board?.fit(boxOf(scenePoints(this.doc, this.layout?.geometry ?? null))); }
+  fitAll(): void { this.board?.fit(boxOf(scenePoints(this.doc, this.layout))); }
 
   setTool(t: ToolId): void { this.tool = t; this.tools.setTool(t); }
 

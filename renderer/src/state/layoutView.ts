@@ -2,14 +2,17 @@
  * What the panels and the board show of the layout: the core's sized design and geometry, plus lookups by id.
  * Built from the compute worker's result (layoutJob in worker/jobs.ts); nothing here computes physics.
  */
-import type { BoardGeometry, Vec2 } from '../../../core/geometry/types.ts';
+import type { DrillHit, Vec2 } from '../../../core/geometry/types.ts';
+import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { SizedDesign } from '../../../core/layout/types.ts';
 import type { PieceFigures } from './figures.ts';
 
 export interface LayoutView {
   revision: number;
   sized: SizedDesign;
-  geometry: BoardGeometry | null;
+  /** Each piece's and node's own copper (before union) with its centreline. */
+  outlines: PieceOutline[];
+  drills: DrillHit[];
   /** Placed node positions (after sizing), by node id. */
   placed: Map<string, Vec2>;
   figures: Map<string, PieceFigures>;
