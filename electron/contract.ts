@@ -7,8 +7,10 @@
  * `{ ok: true, value } | { ok: false, error: { code, message } }`, because an Error thrown across the bridge loses
  * its type and most of its text.
  *
- * This file is pure (no Node, no Electron, no DOM) so the renderer may import it; keep it that way.
+ * This file is pure (no Node, no Electron, no DOM; only the core's pure limits) so the renderer may import it; keep it that way.
  */
+
+import { DESIGN_LIMITS } from '../core/design/limits.ts';
 
 /** The file extension of a design (its content is the JSON design document, core/design/types.ts). */
 export const DESIGN_EXTENSION = 'stripwright';
@@ -17,8 +19,8 @@ export const OPENABLE_EXTENSIONS = [DESIGN_EXTENSION, 'json'] as const;
 
 /** Limits the main process enforces on every request (bytes are UTF-16 code units for text). */
 export const LIMITS = {
-  /** A design file larger than this is refused before reading (reliability.md §3.1 step 1). */
-  designBytes: 50 * 1024 * 1024,
+  /** A design file larger than this is refused before reading (reliability.md §3.1 step 1); the core's limit. */
+  designBytes: DESIGN_LIMITS.fileBytes,
   /** One exported file. */
   exportFileBytes: 100 * 1024 * 1024,
   /** All files of one export together. */
