@@ -135,11 +135,12 @@ export function toMask(geometry: ExportGeometry, options: MaskOptions = {}): Mas
   }
   body.push(`<g id="scale-bar" fill="${ink}" font-family="sans-serif" font-size="3">`,
     `<rect id="scale-bar-line" x="${fmtMm(sx)}" y="${fmtMm(sy)}" width="${BAR_LENGTH}" height="${BAR_H}"/>`, ...ticks, '</g>');
-  const state = [polarity.toUpperCase(), mirror ? 'MIRRORED' : 'NOT MIRRORED', `etch bias ${bias >= 0 ? '+' : '−'}${fmtMm(Math.abs(toMm(bias)), 3)} mm per edge`].join(', ');
+  const state = [polarity.toUpperCase(), mirror ? 'MIRRORED' : 'NOT MIRRORED', `etch bias ${bias >= 0 ? '+' : '−'}${Math.abs(toMm(bias)).toFixed(3)} mm per edge`].join(', ');
   const title = options.title ? escapeXml(options.title.slice(0, 80)) + ' — ' : '';
-  body.push(`<g id="notes" fill="${ink}" font-family="sans-serif" font-size="3.5">`,
-    `<text x="${PRINT_MARGIN}" y="${PRINT_MARGIN + 4}">${title}Stripwright photo mask, top copper: ${state}</text>`,
-    `<text x="${PRINT_MARGIN}" y="${PRINT_MARGIN + 9}">Print at 100 % / actual size (no fit-to-page). Board ${fmtMm(W, 3)} × ${fmtMm(H, 3)} mm. Check: the bar below must measure 100.0 mm.</text>`,
+  body.push(`<g id="notes" fill="${ink}" font-family="sans-serif" font-size="3">`,
+    `<text x="${PRINT_MARGIN}" y="${PRINT_MARGIN + 3}">${title}Stripwright photo mask, top copper</text>`,
+    `<text x="${PRINT_MARGIN}" y="${PRINT_MARGIN + 7}">${state}. Board ${fmtMm(W, 3)} × ${fmtMm(H, 3)} mm.</text>`,
+    `<text x="${PRINT_MARGIN}" y="${PRINT_MARGIN + 11}">Print at 100 % / actual size, no fit-to-page. The bar below must measure 100.0 mm.</text>`,
     '</g>');
   const svg = [
     '<?xml version="1.0" encoding="UTF-8"?>',

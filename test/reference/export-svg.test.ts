@@ -110,7 +110,7 @@ describe('Photo mask', () => {
     for (let y = 0; y < png.height; y++) if (isDark(png, Math.round(x * PX), y)) col.push(y);
     const inBoard = col.filter((y) => y / PX > m.layout.board.y - 1 && y / PX < m.layout.board.y + 3);
     expect((inBoard.length) / PX).toBeCloseTo(2.2, 1);
-    expect(m.svg).toContain('etch bias +0.1 mm per edge');
+    expect(m.svg).toContain('etch bias +0.100 mm per edge');
   });
   it('refuses a board that does not fit the page, saying what fits and what to do', () => {
     const big = stripOnlyFixture();
