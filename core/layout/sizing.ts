@@ -158,10 +158,10 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   });
 
   // ---- nominal lengths
-  for (const w of works) {
+  for (let i = 0; i < works.length; i++) {
+    const w = works[i]!;
     if (!w.ok) continue;
     const { seg, piece } = w;
-    const i = doc.segments.indexOf(seg);
     try {
       if (seg.kind === 'line') {
         const r = w.endA!.r;
@@ -459,6 +459,7 @@ function placeNodes(
     parentSeg.set(start.id, null);
     // Fixed-length pieces first, drawn ones last, so a loop closes through a drawn piece when it has one.
     const fixedQ: [string, string][] = [], drawnQ: [string, string][] = [];
+    let fi = 0, di = 0;
     const enqueue = (n: string) => {
       for (const sid of adj.get(n) ?? []) {
         const w = workById.get(sid);
@@ -469,8 +470,8 @@ function placeNodes(
     };
     enqueue(start.id);
     const done = new Set<string>();
-    while (fixedQ.length || drawnQ.length) {
-      const [n, sid] = (fixedQ.length ? fixedQ.shift() : drawnQ.shift())!;
+    while (fi < fixedQ.length || di < drawnQ.length) {
+      const [n, sid] = (fi < fixedQ.length ? fixedQ[fi++] : drawnQ[di++])!;
       if (done.has(sid)) continue;
       done.add(sid);
       const w = workById.get(sid)!;

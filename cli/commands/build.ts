@@ -1,0 +1,169 @@
+/**
+ * `stripwright build FILE [--json]`: sizes a design, lays out its copper, traces its paths and runs the fabrication
+ * checks. Prints the sized pieces (with compensations), the paths report and the findings. Exit 0 when the design
+ * can be built as drawn, 1 with the errors listed when not (or the file is not a valid design), 2 for a bad command
+ * line.
+ */
+import { parseArgs } from 'node:util';
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { InputError } from '../../core/util/errors.ts';
+import type { Warning } from '../../core/util/warnings.ts';
+import { parseDesign } from '../../core/design/parse.ts';
+import { initPolygons } from '../../core/geometry/polygons.ts';
+import { sizeDesign } from '../../core/layout/sizing.ts';
+import { buildBoardGeometry } from '../../core/layout/geometry.ts';
+import { designPaths, type PathReport } from '../../core/layout/paths.ts';
+import { checkFabrication, type Finding } from '../../core/layout/checks.ts';
+import type { SizedDesign } from '../../core/layout/types.ts';
+import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+
+const usage = `Usage: stripwright build FILE [options]
+
+Sizes the design FILE (a Stripwright design, .json) at its design frequency, lays out the copper, traces the paths
+between its ports (or its phase groups) and checks it against its fabrication process.
+
+Options:
+  --json              print one JSON object instead of tables
+  --tolerance DEG     phase tolerance for matched paths, degrees (default: each phase group's own, else 5)
+  --loss-limit DB     loss budget per path, dB (default 1)
+
+Exit status: 0 the design can be built as drawn; 1 it cannot (errors listed) or FILE is not a valid design;
+2 a bad command line.
+
+Examples:
+  stripwright build assets/examples/wilkinson-2g45.json
+  stripwright build feed.json --json --tolerance 2`;
+
+function number(flag: string, v: string | undefined, min: number, max: number): number | undefined {
+  if (v === undefined) return undefined;
+  const x = Number(v);
+  if (!Number.isFinite(x) || x <= min || x > max) throw new UsageError(`--${flag} expects a number above ${min} and up to ${max}, got '${v}'`);
+  return x;
+}
+
+const mm = (m: number, d = 3) => (m * 1e3).toFixed(d);
+
+export interface BuildReport {
+  ok: boolean;
+  design: string;
+  f0_hz: number;
+  pieces: {
+    id: string; kind: string; a: string; b: string; z0_ohm: number | null; width_m: number | null; width_b_m?: number;
+    length_m: number; span_m: number; deg_at_f0: number; drawn_deg: number;
+    compensations: { model: string; source: string; amount_m: number; applied: boolean; node: string; note: string }[];
+  }[];
+  paths: PathReport[];
+  findings: Finding[];
+  warnings: Warning[];
+}
+
+export function buildReport(sized: SizedDesign, paths: PathReport[], findings: Finding[]): BuildReport {
+  const fin = (x: number) => (Number.isFinite(x) ? x : null);
+  const warnings: Warning[] = [...sized.warnings];
+  for (const p of sized.pieces) warnings.push(...p.warnings);
+  for (const n of sized.nodes) warnings.push(...n.warnings);
+  return {
+    ok: !findings.some((f) => f.severity === 'error'),
+    design: sized.name,
+    f0_hz: sized.f0,
+    pieces: sized.pieces.map((p) => ({
+      id: p.id, kind: p.kind, a: p.a, b: p.b, z0_ohm: fin(p.z0), width_m: fin(p.width), ...(p.widthB !== undefined ? { width_b_m: p.widthB } : {}),
+      length_m: p.length, span_m: p.span, deg_at_f0: p.effectiveDeg, drawn_deg: p.deg,
+      compensations: p.compensations.map((c) => ({ ...c })),
+    })),
+    paths, findings, warnings,
+  };
+}
+
+function table(rows: string[][]): string[] {
+  const w = rows[0]!.map((_, i) => Math.max(...rows.map((r) => (r[i] ?? '').length)));
+  return rows.map((r) => r.map((c, i) => (i === r.length - 1 ? c : c.padEnd(w[i]!))).join('  ').trimEnd());
+}
+
+function text(rep: BuildReport): string[] {
+  const out: string[] = [];
+  out.push(`${rep.design} — sized at ${(rep.f0_hz / 1e9).toFixed(4)} GHz`, '');
+  const rows: string[][] = [['piece', 'kind', 'Z0 Ω', 'W mm', 'L mm', 'deg', 'compensations (mm; * applied)']];
+  for (const p of rep.pieces) {
+    const comps = p.compensations.filter((c) => c.amount_m !== 0 || !c.applied)
+      .map((c) => `${c.model}${c.applied ? '*' : ''} ${mm(c.amount_m)}@${c.node}`).join(', ');
+    rows.push([p.id, p.kind, p.z0_ohm === null ? '—' : p.z0_ohm.toFixed(2),
+      p.width_m === null ? '—' : p.width_b_m !== undefined ? `${mm(p.width_m)}→${mm(p.width_b_m)}` : mm(p.width_m),
+      mm(p.length_m), p.kind === 'lumped' || p.kind === 'sparams' ? '—' : p.deg_at_f0.toFixed(1), comps]);
+  }
+  out.push(...table(rows));
+  for (const r of rep.paths) {
+    out.push('', `Paths: ${r.name} (from ${r.from}${r.matched ? `, tolerance ±${r.toleranceDeg}°` : ''})`);
+    const pr: string[][] = [['to', 'length mm', 'deg @f0', 'Δ deg', 'Δ band', 'delay ps', 'loss dB', 'bends', 'tees', 'S_er', 'S_h', 'S_W', '']];
+    for (const e of r.paths) {
+      pr.push([e.to, mm(e.physicalLength, 2), e.degAtF0.toFixed(1), e.phaseDiffDeg.toFixed(1), `${e.phaseDiffBandDeg[0].toFixed(1)}/${e.phaseDiffBandDeg[1].toFixed(1)}`,
+        (e.delay * 1e12).toFixed(1), e.lossDb.toFixed(2), String(e.bends), String(e.junctions),
+        e.sensitivity.er.toFixed(3), e.sensitivity.h.toFixed(3), e.sensitivity.W.toFixed(3), !r.matched ? '' : e.withinTolerance ? 'ok' : 'OUT']);
+    }
+    out.push(...table(pr));
+    out.push(`spread ${r.spreadDeg.toFixed(2)}°`);
+  }
+  out.push('');
+  if (!rep.findings.length) out.push('Findings: none');
+  else {
+    out.push('Findings:');
+    for (const f of rep.findings) out.push(`  ${f.severity.toUpperCase().padEnd(7)} ${f.code}: ${f.message}`, `          → ${f.fix}`);
+  }
+  const notes = rep.warnings.filter((w) => w.severity !== 'info');
+  if (notes.length) {
+    out.push('', 'Model warnings:');
+    for (const w of notes) out.push(`  ${w.subjects?.length ? `[${w.subjects.join(', ')}] ` : ''}${w.message}`);
+  }
+  out.push('', rep.ok ? 'Result: can be built as drawn.' : `Result: ${rep.findings.filter((f) => f.severity === 'error').length} error(s) — fix them before building.`);
+  return out;
+}
+
+export const buildCommand: CliCommand = {
+  name: 'build',
+  summary: 'Size a design, lay out its copper, report paths and phase, and check it for fabrication',
+  usage,
+  async run(argv: string[], io: CliIo): Promise<number> {
+    const { values, positionals } = parseArgs({
+      args: argv, allowPositionals: true, strict: true,
+      options: { json: { type: 'boolean' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' } },
+    });
+    if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to build' : `give one design FILE, got ${positionals.length}`);
+    const tolerance = number('tolerance', values.tolerance, 0, 180);
+    const lossLimit = number('loss-limit', values['loss-limit'], 0, 1000);
+    const name = positionals[0]!;
+    let text0: string;
+    try { text0 = readFileSync(resolve(io.cwd, name), 'utf8'); } catch (e) {
+      io.err(`stripwright build: cannot read ${name}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
+      return 1;
+    }
+    const parsed = parseDesign(text0);
+    if (!parsed.ok) {
+      if (values.json) io.out(JSON.stringify({ ok: false, design: name, errors: parsed.errors }, null, 2));
+      else { io.err(`stripwright build: ${name} is not a valid design:`); for (const i of parsed.errors) io.err(`  ${i.message}`); }
+      return 1;
+    }
+    try {
+      await initPolygons();
+      const sized = sizeDesign(parsed.doc);
+      const geometry = buildBoardGeometry(sized);
+      const paths = designPaths(sized, tolerance !== undefined ? { toleranceDeg: tolerance } : {});
+      const findings = checkFabrication(sized, geometry, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
+      const rep = buildReport(sized, paths, findings);
+      rep.warnings.unshift(...parsed.warnings);
+      if (values.json) io.out(JSON.stringify(rep, null, 2));
+      else {
+        for (const l of text(rep)) io.out(l);
+        if (!rep.ok) io.err(`stripwright build: ${name} cannot be built as drawn (see the errors above)`);
+      }
+      return rep.ok ? 0 : 1;
+    } catch (e) {
+      if (e instanceof InputError) {
+        if (values.json) io.out(JSON.stringify({ ok: false, design: name, errors: [{ field: e.field, expected: e.expected, got: e.got, message: e.message }] }, null, 2));
+        else io.err(`stripwright build: ${name}: ${e.message}`);
+        return 1;
+      }
+      throw e;
+    }
+  },
+};

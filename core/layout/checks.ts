@@ -1,0 +1,314 @@
+/**
+ * Fabrication checks for the design's process (FabProcess): each finding names its pieces and location and says
+ * what to change.
+ *
+ * - Cut width of the tool: end mill = its diameter; V-bit = tip + 2·depth·tan(angle/2) (the V's width at the cutting
+ *   depth, plain geometry); etching = the process's minimum feature (artwork gaps shrink by 2 × edge bias).
+ * - Gaps narrower than the cut cannot be made (the copper would stay and bridge); found by a morphological closing
+ *   of the copper with a disc of the tool's radius: closing − copper = what the tool cannot remove. Leftovers between
+ *   pieces that do not share a node are gaps (error); leftovers where pieces meet are inside corners a round tool
+ *   leaves filleted (info; not for etching).
+ * - Copper narrower than the cut (milling): fragile, lifts easily (common practice) → warning; etching: below the
+ *   minimum feature → error.
+ * - Ground copper closer than 3h to a line (methods.md §13 item 7): the microstrip model no longer holds there; the
+ *   size of the Z0 change is given for the one case methods.md §9.4 computed, otherwise said to be not modelled.
+ * - Copper off the board or inside a keep-out → error. Non-adjacent pieces overlapping → error (impossible layout).
+ * - Loss per path above a budget (default 1 dB, practice.md need 5); lossy laminate (tanδ ≥ 0.01) above 6 GHz → warning.
+ * - Paths out of their phase tolerance (from the paths report) → warning.
+ * Layout problems from sizing are carried over as errors.
+ */
+import type { BoardGeometry, Region, Vec2, Box } from '../geometry/types.ts';
+import { differenceRegions, intersectRegions, offsetRegions, regionsArea, unionRegions, ringArea } from '../geometry/polygons.ts';
+import { exhaustive } from '../util/errors.ts';
+import type { FabProcess } from '../design/types.ts';
+import { LineCache } from './lineCache.ts';
+import { designPaths, type PathReport } from './paths.ts';
+import { defaultGroundClearance } from './geometry.ts';
+import type { SizedDesign, SizedPiece } from './types.ts';
+
+export type FindingCode =
+  | 'layout' | 'min-width' | 'min-gap' | 'inside-corner' | 'depth-sensitivity' | 'ground-near' | 'off-board' | 'keep-out'
+  | 'overlap' | 'loss-budget' | 'lossy-laminate' | 'phase';
+
+export interface Finding {
+  severity: 'error' | 'warning' | 'info';
+  code: FindingCode;
+  message: string;
+  /** What to change. */
+  fix: string;
+  /** Pieces, nodes or areas involved. */
+  subjects: string[];
+  /** Where on the board, m. */
+  at?: Vec2;
+}
+
+export interface CheckOptions {
+  /** Path loss budget, dB (default 1). */
+  lossLimitDb?: number;
+  /** Paths report to check (default: designPaths(sized)). */
+  paths?: PathReport[];
+}
+
+export const DEFAULT_LOSS_LIMIT_DB = 1;
+const MIN_AREA = 1e-12; // 1 µm², below which leftovers are numerical dust
+
+/** Width of the cut the process makes (the narrowest gap it can open), m. */
+export function cutWidth(p: FabProcess): number {
+  switch (p.kind) {
+    case 'end-mill': return p.toolDiameter;
+    case 'v-bit': return p.tipWidth + 2 * p.depth * Math.tan(((p.angleDeg * Math.PI) / 180) / 2);
+    case 'etch': return p.minFeature + 2 * Math.max(0, p.edgeBias);
+    default: return exhaustive(p, 'process kind');
+  }
+}
+
+/** Reference Z0 change from top-side ground copper at gap s on both sides (methods.md §9.4, 2-D solver, one case). */
+const GROUND_TABLE: [number, number][] = [[0.25, -22.8], [0.63, -9.8], [1, -5.0], [2, -1.3], [3, -0.48], [5, -0.12]];
+export function referenceGroundShiftPct(sOverH: number): number | null {
+  if (sOverH < GROUND_TABLE[0]![0] || sOverH > GROUND_TABLE[GROUND_TABLE.length - 1]![0]) return null;
+  for (let i = 0; i + 1 < GROUND_TABLE.length; i++) {
+    const [x0, y0] = GROUND_TABLE[i]!, [x1, y1] = GROUND_TABLE[i + 1]!;
+    if (sOverH >= x0 && sOverH <= x1) {
+      const t = (Math.log(sOverH) - Math.log(x0)) / (Math.log(x1) - Math.log(x0));
+      return y0 + t * (y1 - y0);
+    }
+  }
+  return null;
+}
+
+function boxOfRegions(rs: Region[]): Box {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (const r of rs) for (const p of r.outer) {
+    if (p.x < minX) minX = p.x; if (p.x > maxX) maxX = p.x; if (p.y < minY) minY = p.y; if (p.y > maxY) maxY = p.y;
+  }
+  return { minX, minY, maxX, maxY };
+}
+const boxesMeet = (a: Box, b: Box, m = 0) => a.minX - m <= b.maxX && b.minX - m <= a.maxX && a.minY - m <= b.maxY && b.minY - m <= a.maxY;
+
+function centroid(r: Region): Vec2 {
+  let cx = 0, cy = 0, a = 0;
+  const ring = r.outer;
+  for (let i = 0; i < ring.length; i++) {
+    const p = ring[i]!, q = ring[(i + 1) % ring.length]!;
+    const c = p.x * q.y - q.x * p.y;
+    a += c; cx += (p.x + q.x) * c; cy += (p.y + q.y) * c;
+  }
+  if (Math.abs(a) < 1e-30) return ring[0]!;
+  return { x: cx / (3 * a), y: cy / (3 * a) };
+}
+
+function distToSegment(p: Vec2, a: Vec2, b: Vec2): number {
+  const dx = b.x - a.x, dy = b.y - a.y;
+  const l2 = dx * dx + dy * dy;
+  const t = l2 === 0 ? 0 : Math.max(0, Math.min(1, ((p.x - a.x) * dx + (p.y - a.y) * dy) / l2));
+  return Math.hypot(p.x - a.x - t * dx, p.y - a.y - t * dy);
+}
+const mmS = (m: number) => (m * 1e3).toFixed(3);
+const at = (p: Vec2) => `(${mmS(p.x)}, ${mmS(p.y)}) mm`;
+
+/**
+ * All fabrication findings for a sized design and its geometry (from buildBoardGeometry). Needs the polygon engine.
+ */
+export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, opts: CheckOptions = {}): Finding[] {
+  const out: Finding[] = [];
+  const doc = sized.doc;
+  const proc = doc.process;
+  const h = doc.substrate.h;
+  const pieceById = new Map(sized.pieces.map((p) => [p.id, p]));
+  const outlineById = new Map(geometry.pieces.map((p) => [p.id, p]));
+  const lines = sized.pieces.filter((p) => (p.kind === 'line' || p.kind === 'taper') && Number.isFinite(p.width));
+
+  for (const p of sized.problems) {
+    out.push({ severity: 'error', code: 'layout', message: p.message, fix: 'see the message: change the lengths, ends or topology it names', subjects: p.subjects });
+  }
+
+  // ---- widths and gaps the tool cannot make
+  const cut = cutWidth(proc);
+  const procName = proc.kind === 'end-mill' ? `the ${mmS(proc.toolDiameter)} mm end mill`
+    : proc.kind === 'v-bit' ? `the ${proc.angleDeg}° V-bit (${mmS(proc.tipWidth)} mm tip at ${mmS(proc.depth)} mm deep cuts ${mmS(cut)} mm wide)`
+      : `etching (minimum feature ${mmS(proc.minFeature)} mm, edge bias ${mmS(proc.edgeBias)} mm)`;
+  const minW = proc.kind === 'etch' ? proc.minFeature : cut;
+  for (const p of lines) {
+    const w = Math.min(p.width, p.widthB ?? p.width, ...(p.sections ?? []).map((s) => s.width));
+    if (w < minW) {
+      out.push({
+        severity: proc.kind === 'etch' ? 'error' : 'warning', code: 'min-width', subjects: [p.id],
+        message: `${p.id} is ${mmS(w)} mm wide, narrower than ${proc.kind === 'etch' ? 'the minimum feature' : 'one cut'} of ${procName}`,
+        fix: proc.kind === 'etch' ? 'use a thicker substrate (wider lines for the same Z0) or a finer process' : 'narrow copper lifts easily when milled (common practice): use a thicker substrate, lower Z0, or a finer tool',
+        ...(pieceCentre(sized, p) ? { at: pieceCentre(sized, p)! } : {}),
+      });
+    }
+  }
+  if (proc.kind === 'v-bit' && lines.length) {
+    // Depth error changes every line's width by ∓2·tan(α/2)·Δdepth (plain V geometry); show it on the narrowest line.
+    const narrow = lines.reduce((a, b) => (b.width < a.width ? b : a));
+    const dDepth = 0.02e-3;
+    const dW = 2 * Math.tan(((proc.angleDeg * Math.PI) / 180) / 2) * dDepth;
+    try {
+      const cache = new LineCache(doc.substrate);
+      const zLo = cache.forWidth(Math.max(1e-6, narrow.width - dW), sized.f0).z0, zHi = cache.forWidth(narrow.width + dW, sized.f0).z0;
+      out.push({
+        severity: 'info', code: 'depth-sensitivity', subjects: [narrow.id],
+        message: `±${mmS(dDepth)} mm of cutting depth moves every edge by ${mmS(dW / 2)} mm: ${narrow.id} (${mmS(narrow.width)} mm, ${narrow.z0.toFixed(1)} Ω) then ranges ${zHi.toFixed(1)}–${zLo.toFixed(1)} Ω`,
+        fix: 'level the blank (probe or face it) and set the depth carefully; a narrower V angle is less sensitive',
+      });
+    } catch { /* width outside the model: nothing to add */ }
+  }
+  if (geometry.copper.length) {
+    const r = cut / 2;
+    const closed = offsetRegions(offsetRegions(geometry.copper, r, 'round'), -r, 'round');
+    const left = differenceRegions(closed, geometry.copper).filter((x) => Math.abs(ringArea(x.outer)) > MIN_AREA);
+    const corners = new Map<string, { n: number; at: Vec2 }>();
+    for (const reg of left) {
+      const c = centroid(reg);
+      // The two nearest pieces (by centreline distance minus half width).
+      const near = lines.concat(sized.pieces.filter((p) => p.kind === 'lumped' || p.kind === 'sparams'))
+        .map((p) => ({ p, d: centrelineDistance(sized, p, c) - p.width / 2 }))
+        .filter((x) => Number.isFinite(x.d)).sort((a, b) => a.d - b.d).slice(0, 2);
+      if (near.length < 2) continue;
+      const [a, b] = [near[0]!.p, near[1]!.p];
+      const shared = [a.a, a.b].find((n) => n === b.a || n === b.b);
+      if (shared === undefined && near[1]!.d < cut) {
+        out.push({
+          severity: 'error', code: 'min-gap', subjects: [a.id, b.id], at: c,
+          message: `the gap between ${a.id} and ${b.id} near ${at(c)} is narrower than ${procName} can cut (${mmS(cut)} mm); the copper would stay and join them`,
+          fix: `move them at least ${mmS(cut)} mm apart (better 3·W to limit coupling) or use a finer tool`,
+        });
+      } else if (proc.kind !== 'etch') {
+        const key = shared ?? a.id;
+        const e = corners.get(key);
+        if (e) e.n++; else corners.set(key, { n: 1, at: c });
+      }
+    }
+    if (corners.size) {
+      const list = [...corners.entries()];
+      const total = list.reduce((s, [, e]) => s + e.n, 0);
+      const names = list.slice(0, 12).map(([n]) => n).join(', ') + (list.length > 12 ? ` and ${list.length - 12} more` : '');
+      out.push({
+        severity: 'info', code: 'inside-corner', subjects: list.map(([n]) => n), at: list[0]![1].at,
+        message: `${total} inside corner(s) at ${names} keep a fillet of radius ${mmS(r)} mm that ${procName} cannot cut`,
+        fix: 'usually harmless; a smaller tool for the finishing pass makes them sharper',
+      });
+    }
+  }
+
+  // ---- ground copper near lines
+  const defaultClear = defaultGroundClearance(sized);
+  for (const a of doc.areas ?? []) {
+    if (a.kind !== 'ground-copper') continue;
+    const c = a.clearance ?? defaultClear;
+    if (c < cut) {
+      out.push({ severity: 'error', code: 'min-gap', subjects: [a.id], message: `ground copper ${a.id} keeps ${mmS(c)} mm from the network, narrower than ${procName} can cut`, fix: `set its clearance to at least ${mmS(cut)} mm` });
+    }
+    if (c < 3 * h) {
+      const ground = geometry.groundCopper;
+      const gBox = ground.length ? boxOfRegions(ground) : null;
+      const near: string[] = [];
+      for (const p of lines) {
+        const o = outlineById.get(p.id);
+        if (!o || !o.regions.length || !gBox) continue;
+        if (!boxesMeet(boxOfRegions(o.regions), gBox, 3 * h)) continue;
+        if (regionsArea(intersectRegions(offsetRegions(o.regions, 3 * h * 0.999, 'round'), ground)) > MIN_AREA) near.push(p.id);
+      }
+      if (!near.length) continue;
+      const ref = referenceGroundShiftPct(c / h);
+      const moved = ref === null
+        ? 'how far Z0 moves is not modelled for this gap'
+        : `for the one case computed in methods.md §9.4 (50 Ω on εr 3.66, h 0.508 mm, copper on both sides) this gap ratio lowers Z0 by about ${Math.abs(ref).toFixed(1)} %; for these lines it is not modelled`;
+      out.push({
+        severity: 'warning', code: 'ground-near', subjects: [a.id, ...near],
+        message: `ground copper ${a.id} comes ${mmS(c)} mm (${(c / h).toFixed(2)} h) from ${near.join(', ')}, closer than 3h = ${mmS(3 * h)} mm where the microstrip model holds; ${moved}`,
+        fix: `widen the clearance of ${a.id} to at least ${mmS(3 * h)} mm, or size these lines as grounded coplanar lines`,
+      });
+    }
+  }
+
+  // ---- copper off the board and in keep-outs
+  if (geometry.outline) {
+    const off = differenceRegions(geometry.copper, [geometry.outline]);
+    if (regionsArea(off) > MIN_AREA) {
+      const who = geometry.pieces.filter((o) => o.regions.length && regionsArea(differenceRegions(o.regions, [geometry.outline!])) > MIN_AREA).map((o) => o.id);
+      out.push({ severity: 'error', code: 'off-board', subjects: who, message: `copper of ${who.join(', ')} lies outside the board outline (${(regionsArea(off) * 1e6).toFixed(3)} mm²)`, fix: 'enlarge the board outline or move these pieces inside it', at: centroid(off[0]!) });
+    }
+  }
+  for (const k of geometry.keepouts) {
+    const hit = intersectRegions(geometry.copper, [k]);
+    if (regionsArea(hit) <= MIN_AREA) continue;
+    const who = geometry.pieces.filter((o) => o.regions.length && regionsArea(intersectRegions(o.regions, [k])) > MIN_AREA).map((o) => o.id);
+    const area = (doc.areas ?? []).find((a) => a.kind === 'keep-out' && a.polygon.length === k.outer.length);
+    out.push({ severity: 'error', code: 'keep-out', subjects: [...(area ? [area.id] : []), ...who], message: `copper of ${who.join(', ')} lies inside keep-out ${area?.id ?? ''}`.trim(), fix: 'route these pieces around the keep-out or shrink it', at: centroid(hit[0]!) });
+  }
+
+  // ---- overlapping pieces (not sharing a node)
+  out.push(...overlaps(sized, geometry, pieceById));
+
+  // ---- loss and phase
+  const limit = opts.lossLimitDb ?? DEFAULT_LOSS_LIMIT_DB;
+  let paths: PathReport[] = [];
+  try { paths = opts.paths ?? designPaths(sized); } catch { paths = []; }
+  const lossy = doc.substrate.tanDelta >= 0.01;
+  for (const rep of paths) {
+    for (const e of rep.paths) {
+      if (e.lossDb > limit) {
+        out.push({
+          severity: 'warning', code: 'loss-budget', subjects: [e.to, ...e.pieces],
+          message: `path ${rep.from} → ${e.to} loses ${e.lossDb.toFixed(2)} dB at f0 in its lines, above the ${limit} dB budget`,
+          fix: lossy ? `a low-loss laminate (tanδ ≈ 0.001–0.004) cuts the dielectric part, which dominates on this board (tanδ ${doc.substrate.tanDelta}); or shorten the path` : 'shorten the path or use wider (lower-loss) lines where the impedance allows',
+        });
+      }
+    }
+    for (const w of rep.warnings) {
+      if (w.severity === 'info') continue;
+      out.push({ severity: w.severity === 'error' ? 'error' : 'warning', code: 'phase', subjects: w.subjects ?? [], message: w.message, fix: 'balance the paths\' electrical lengths (same lengths, widths and bend counts)' });
+    }
+  }
+  if (lossy && sized.f0 > 6e9) {
+    out.push({ severity: 'warning', code: 'lossy-laminate', subjects: [], message: `tanδ ${doc.substrate.tanDelta} at ${(sized.f0 / 1e9).toFixed(2)} GHz: glass-epoxy boards lose quickly above about 6 GHz (practice.md need 5)`, fix: 'use a low-loss laminate for this frequency, or keep every path short' });
+  }
+  return out;
+}
+
+function pieceCentre(sized: SizedDesign, p: SizedPiece): Vec2 | null {
+  const c = sized.centrelines[p.id];
+  return c && c.length >= 2 ? { x: (c[0]!.x + c[1]!.x) / 2, y: (c[0]!.y + c[1]!.y) / 2 } : null;
+}
+
+function centrelineDistance(sized: SizedDesign, p: SizedPiece, q: Vec2): number {
+  const c = sized.centrelines[p.id];
+  return c && c.length >= 2 ? distToSegment(q, c[0]!, c[1]!) : Infinity;
+}
+
+/** Pairs of pieces that do not share a node but whose copper overlaps; bucketed on a grid by bounding box. */
+function overlaps(sized: SizedDesign, geometry: BoardGeometry, pieceById: Map<string, SizedPiece>): Finding[] {
+  const items = geometry.pieces.filter((o) => pieceById.has(o.id) && o.regions.length).map((o) => ({ o, p: pieceById.get(o.id)!, box: boxOfRegions(o.regions) }));
+  if (items.length < 2) return [];
+  const span = Math.max(...items.map((i) => Math.max(i.box.maxX - i.box.minX, i.box.maxY - i.box.minY)));
+  const cell = Math.max(span, 1e-4);
+  const grid = new Map<string, number[]>();
+  items.forEach((it, idx) => {
+    for (let gx = Math.floor(it.box.minX / cell); gx <= Math.floor(it.box.maxX / cell); gx++) {
+      for (let gy = Math.floor(it.box.minY / cell); gy <= Math.floor(it.box.maxY / cell); gy++) {
+        const k = `${gx},${gy}`;
+        const l = grid.get(k); if (l) l.push(idx); else grid.set(k, [idx]);
+      }
+    }
+  });
+  const seen = new Set<string>();
+  const out: Finding[] = [];
+  for (const list of grid.values()) {
+    for (let i = 0; i < list.length; i++) for (let j = i + 1; j < list.length; j++) {
+      const A = items[list[i]!]!, B = items[list[j]!]!;
+      const key = A.p.id < B.p.id ? `${A.p.id}|${B.p.id}` : `${B.p.id}|${A.p.id}`;
+      if (seen.has(key)) continue;
+      seen.add(key);
+      if (A.p.a === B.p.a || A.p.a === B.p.b || A.p.b === B.p.a || A.p.b === B.p.b) continue;
+      if (!boxesMeet(A.box, B.box)) continue;
+      const hit = intersectRegions(A.o.regions, B.o.regions);
+      if (regionsArea(hit) > MIN_AREA) {
+        out.push({ severity: 'error', code: 'overlap', subjects: [A.p.id, B.p.id], at: centroid(hit[0]!), message: `${A.p.id} and ${B.p.id} overlap although they are not connected there`, fix: 'change the lengths or the drawn directions so the pieces do not cross' });
+      }
+    }
+  }
+  void unionRegions;
+  return out;
+}
