@@ -18,3 +18,4 @@ export * from './touchstoneWrite.ts';
 export * from './touchstoneRead.ts';
 export * from './sparamsPart.ts';
 export * from './lineTwoPort.ts';
+export { netlistFromSized, type FromSizedOptions, type SizedNetlist, type AdvisoryModel } from './fromSized.ts';

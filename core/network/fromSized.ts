@@ -1,0 +1,182 @@
+/**
+ * Sized design → netlist for the nodal solver.
+ *
+ * Each line piece is a lossy, dispersive line whose Zc(f) and γ(f) come from the line model at every frequency
+ * (core/line `lineConstants`, methods.md §3.7), over the physical length the layout gives (compensations applied).
+ * Around the pieces, what the layout applied is put back as circuit elements so the model stays whole:
+ *  - open end (Kirschning, Jansen & Koster 1981, methods.md §6.1, applied by the layout as a Δl cut): the end
+ *    capacitance C_oc from node to ground;
+ *  - via to ground (Goldfarb & Pucel 1991, methods.md §6.5): series R(f) + jωL to ground, R with its skin effect
+ *    recomputed at each frequency;
+ *  - lumped parts: the ideal part between its pad centres, and each pad as a short line of the pad's width over the
+ *    length the layout took off the adjoining line (common practice: a pad is a piece of wide line);
+ *  - edge-launch pads: likewise a short line of the pad width between the port and its piece;
+ *  - tapers: their piecewise-uniform sections in a chain;
+ *  - 'sparams' parts: their Touchstone data, interpolated and stamped as an admittance matrix (sparamsPart.ts);
+ *  - ports: their reference impedance at the port node.
+ * Optional, off by default because their constants are not yet verified against the papers (methods.md §6.4 VERIFY,
+ * shown, not applied): the Garg–Bahl width-step L/C (`advisory: ['step']`). Mitered and square bends add nothing
+ * (methods.md §6.2: the path is measured through the corner; no closed form adopted); tee-junction plane shifts
+ * (methods.md §6.3, VERIFY) are not modelled — a warning says so where a tee is present.
+ */
+import { InputError } from '../util/errors.ts';
+import { warn, type Warning } from '../util/warnings.ts';
+import { lineConstants, type LineOptions } from '../line/index.ts';
+import { viaGround } from '../discontinuity/goldfarbPucel1991Via.ts';
+import type { SizedDesign, SizedNode, SizedPiece } from '../layout/types.ts';
+import { GROUND, type LineModel, type NetElement, type NetPort, type Netlist } from './netlist.ts';
+import { sparamsAdmittance } from './sparamsPart.ts';
+
+export type AdvisoryModel = 'step';
+
+export interface FromSizedOptions {
+  line?: LineOptions;
+  /** Advisory discontinuity models to include (default none). */
+  advisory?: AdvisoryModel[];
+}
+
+export interface SizedNetlist extends Netlist {
+  /** Index of the port the layout started from (the usual input), or 0. */
+  input: number;
+  warnings: Warning[];
+}
+
+export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}): SizedNetlist {
+  if (sized.problems.length) {
+    const p = sized.problems[0];
+    throw new InputError('impossible-layout', p.subjects[0] ?? 'design', 'a design whose every piece can be sized', p.message,
+      sized.problems.length > 1 ? `and ${sized.problems.length - 1} more problem(s)` : undefined);
+  }
+  const sub = sized.doc.substrate;
+  const advisory = new Set(opts.advisory ?? []);
+  const warnings: Warning[] = [];
+  const elements: NetElement[] = [];
+  const nodes = new Map(sized.nodes.map((n) => [n.id, n]));
+  const pieces = new Map(sized.pieces.map((p) => [p.id, p]));
+  const pads: PadContext = {
+    nodes,
+    padAcross: (node) => Math.max(0, ...(nodes.get(node)?.segments ?? []).map((id) => pieces.get(id)?.part?.footprint.padAcross ?? 0)),
+  };
+
+  // One memo per width: the sweep asks every piece at one frequency before the next, and pieces share widths.
+  const models = new Map<number, LineModel>();
+  const modelFor = (width: number): LineModel => {
+    let m = models.get(width);
+    if (!m) {
+      let lastF = NaN, last: ReturnType<LineModel> | null = null;
+      m = (f) => {
+        if (f !== lastF || !last) { last = lineConstants(sub, width, f, opts.line); lastF = f; }
+        return last;
+      };
+      models.set(width, m);
+    }
+    return m;
+  };
+
+  // The network node a piece's end attaches to; a width step (advisory) moves the ends apart.
+  const terminal = new Map<string, string>();
+  const endNode = (piece: string, node: string) => terminal.get(`${piece}@${node}`) ?? node;
+
+  if (advisory.has('step')) {
+    for (const n of sized.nodes) {
+      if (!n.step) continue;
+      const w = `${n.id}~wide`, c = `${n.id}~step`, nn = `${n.id}~narrow`;
+      terminal.set(`${n.step.wide}@${n.id}`, w);
+      terminal.set(`${n.step.narrow}@${n.id}`, nn);
+      elements.push({ kind: 'inductor', id: `${n.id}:step-L1`, a: w, b: c, value: n.step.L1 });
+      elements.push({ kind: 'capacitor', id: `${n.id}:step-Cs`, a: c, b: GROUND, value: n.step.Cs });
+      elements.push({ kind: 'inductor', id: `${n.id}:step-L2`, a: c, b: nn, value: n.step.L2 });
+      // The step's nominal node still exists for anything else attached there (nothing, at a vertex): join it.
+      elements.push({ kind: 'line', id: `${n.id}:step-join`, a: n.id, b: c, length: 0, model: modelFor(1e-3) });
+      warnings.push(warn('advisory-model', `width step at ${n.id}: Garg–Bahl L/C included (advisory model, constants not yet verified)`, { source: 'garg-bahl-1978-step', subjects: [n.id], severity: 'info' }));
+    }
+  }
+
+  for (const p of sized.pieces) {
+    const a = endNode(p.id, p.a), b = endNode(p.id, p.b);
+    switch (p.kind) {
+      case 'line': {
+        const [a1, b1] = padsAround(p, a, b, pads, elements, modelFor);
+        elements.push({ kind: 'line', id: p.id, a: a1, b: b1, length: p.length, model: modelFor(p.width) });
+        break;
+      }
+      case 'taper': {
+        const secs = p.sections ?? [];
+        if (secs.length === 0) throw new InputError('impossible-layout', p.id, 'a taper with sections from the layout', 'none');
+        const [a1, b1] = padsAround(p, a, b, pads, elements, modelFor);
+        // The layout's sections sum to the nominal length; scale them to the modelled length (end cuts applied).
+        const total = secs.reduce((s, x) => s + x.length, 0);
+        const k = total > 0 ? p.length / total : 1;
+        secs.forEach((s, i) => {
+          elements.push({ kind: 'line', id: `${p.id}#${i}`, a: i === 0 ? a1 : `${p.id}#${i - 1}`, b: i === secs.length - 1 ? b1 : `${p.id}#${i}`, length: s.length * k, model: modelFor(s.width) });
+        });
+        break;
+      }
+      case 'lumped': {
+        const part = p.part;
+        if (!part) throw new InputError('impossible-layout', p.id, 'a lumped part with its value', 'none');
+        elements.push({ kind: part.part, id: p.id, a, b, value: part.value });
+        break;
+      }
+      case 'sparams': {
+        const sp = p.sparams;
+        if (!sp) throw new InputError('impossible-layout', p.id, 'an S-parameter block with its data', 'none');
+        const blk = sparamsAdmittance(sp.touchstone, sp.name, `segments.${p.id}.touchstone`);
+        elements.push({ kind: 'nport', id: p.id, nodes: blk.ports === 1 ? [a] : [a, b], y: blk.y });
+        if (blk.ports === 1) warnings.push(warn('note', `${p.id}: a 1-port data block terminates node ${p.a}; its other end ${p.b} is left open`, { subjects: [p.id], severity: 'info' }));
+        break;
+      }
+    }
+  }
+
+  const ports: NetPort[] = [];
+  for (const n of sized.nodes) {
+    if (n.kind === 'port' && n.port) ports.push({ name: n.id, node: n.id, zRef: n.port.zRef });
+    if (n.kind === 'open' && n.open && n.open.capacitance > 0) {
+      elements.push({ kind: 'capacitor', id: `${n.id}:open-end`, a: onlyTerminal(n, endNode), b: GROUND, value: n.open.capacitance });
+    }
+    if (n.kind === 'short') {
+      if (!n.via) throw new InputError('impossible-layout', n.id, 'a short with its via data from the layout', 'none');
+      const v = n.via, h = sub.h, rho = 1 / sub.sigma;
+      elements.push({
+        kind: 'series-rl', id: `${n.id}:via`, a: onlyTerminal(n, endNode), b: GROUND, l: v.L,
+        r: (f) => viaGround({ h, drill: v.drill, count: v.count, f, rho, ...(v.plating !== undefined ? { plating: v.plating } : {}) }).R,
+      });
+    }
+    if (n.cross) warnings.push(warn('advisory-model', `cross ${n.id}: no cross-junction model; arms are joined at the junction centre`, { subjects: [n.id], severity: 'info' }));
+    if (n.tee) warnings.push(warn('advisory-model', `tee ${n.id}: reference-plane shifts are not in the network (advisory model); arms are joined at the junction centre`, { source: 'hammerstad-1981-tee', subjects: [n.id], severity: 'info' }));
+  }
+  if (ports.length === 0) throw new InputError('singular-network', 'nodes', 'at least one port node in the design', 'none', 'add a port where the network is fed');
+  const input = Math.max(0, ports.findIndex((p) => p.node === sized.anchor));
+  return { elements, ports, input, warnings };
+}
+
+function onlyTerminal(n: SizedNode, endNode: (piece: string, node: string) => string): string {
+  return n.segments.length === 1 ? endNode(n.segments[0], n.id) : n.id;
+}
+
+/**
+ * Pads the layout cut off a line's ends (lumped-part pads, edge-launch pads) come back as short lines of the pad
+ * width between the node and the line. Returns the line's own end nodes.
+ */
+function padsAround(p: SizedPiece, a: string, b: string, ctx: PadContext, out: NetElement[], modelFor: (w: number) => LineModel): [string, string] {
+  const ends: [string, string] = [a, b];
+  for (const [k, node] of [[0, p.a], [1, p.b]] as const) {
+    const cuts = p.compensations.filter((c) => c.applied && c.node === node && (c.model === 'lumped-pad' || c.model === 'launch-pad') && c.amount_m > 0);
+    let prev = ends[k];
+    cuts.forEach((c, i) => {
+      const width = Math.max(p.width, c.model === 'launch-pad' ? (ctx.nodes.get(node)?.port?.launch?.padWidth ?? 0) : ctx.padAcross(node));
+      const inner = `${p.id}@${node}~pad${i}`;
+      out.push({ kind: 'line', id: `${p.id}:${c.model}@${node}#${i}`, a: prev, b: inner, length: c.amount_m, model: modelFor(width) });
+      prev = inner;
+    });
+    ends[k] = prev;
+  }
+  return ends;
+}
+
+interface PadContext {
+  nodes: Map<string, SizedNode>;
+  /** Width across the path of the widest part pad at a node (0 when none), m. */
+  padAcross: (node: string) => number;
+}

@@ -1,0 +1,73 @@
+/**
+ * From a sized design to the netlist: the plumbing between layout, line model and solver.
+ * Checks against closed forms: a uniform line between two ports has
+ *   S11 = Γ(1 − P²)/(1 − Γ²P²), S21 = P(1 − Γ²)/(1 − Γ²P²), Γ = (Zc − Z0)/(Zc + Z0), P = e^(−γl)
+ * (D. M. Pozar, Microwave Engineering, 4th ed., §2.3–2.4 / Table 4.2 conversion, from memory), with Zc and γ from the
+ * line model (methods.md §3.7).
+ */
+import { describe, expect, it } from 'vitest';
+import { newDesign } from '../../core/design/index.ts';
+import type { DesignDoc } from '../../core/design/types.ts';
+import { sizeDesign } from '../../core/layout/index.ts';
+import { lineConstants } from '../../core/line/index.ts';
+import { netlistFromSized, solveNetwork, lineS, sAt, sweepFrequencies } from '../../core/network/index.ts';
+import { InputError } from '../../core/util/errors.ts';
+
+function twoPortLine(extra: Partial<DesignDoc> = {}): DesignDoc {
+  const doc = newDesign({ name: 'one line', f0: 2.45e9 });
+  doc.nodes = [
+    { id: 'p1', kind: 'port', zRef: 50, heading: 0, at: { x: 0, y: 0 } },
+    { id: 'p2', kind: 'port', zRef: 50, heading: Math.PI, at: { x: 0.03, y: 0 } },
+  ];
+  doc.segments = [{ id: 'l', a: 'p1', b: 'p2', kind: 'line', width: { by: 'z0', z0: 35 }, length: { by: 'length', length: 0.03 } }];
+  return { ...doc, ...extra };
+}
+
+describe('netlistFromSized', () => {
+  it('a single sized line equals the closed-form lossy line two-port with the line model’s Zc and γ', () => {
+    const sized = sizeDesign(twoPortLine());
+    const piece = sized.pieces[0];
+    const r = solveNetwork(netlistFromSized(sized), sweepFrequencies({ start: 1e9, stop: 4e9, points: 7 }));
+    r.freqs.forEach((f, k) => {
+      const want = lineS(lineConstants(sized.doc.substrate, piece.width, f), piece.length, 50);
+      const s11 = sAt(r, k, 0, 0), s21 = sAt(r, k, 1, 0);
+      expect(Math.hypot(s11.re - want.s11.re, s11.im - want.s11.im)).toBeLessThan(1e-12);
+      expect(Math.hypot(s21.re - want.s21.re, s21.im - want.s21.im)).toBeLessThan(1e-12);
+    });
+  });
+  it('an open stub gets its end capacitance, a shorted stub its via, ports their references', () => {
+    const doc = twoPortLine();
+    doc.nodes.push({ id: 'j', kind: 'junction', at: { x: 0.015, y: 0 } }, { id: 'o', kind: 'open', at: { x: 0.015, y: 0.01 } }, { id: 's', kind: 'short', via: { drill: 0.4e-3, pad: 0.8e-3, count: 1 }, at: { x: 0.015, y: -0.01 } });
+    doc.segments = [
+      { id: 'l1', a: 'p1', b: 'j', kind: 'line', width: { by: 'z0', z0: 50 }, length: { by: 'drawn' } },
+      { id: 'l2', a: 'j', b: 'p2', kind: 'line', width: { by: 'z0', z0: 50 }, length: { by: 'drawn' } },
+      { id: 'st', a: 'j', b: 'o', kind: 'line', width: { by: 'z0', z0: 50 }, length: { by: 'degrees', deg: 60 } },
+      { id: 'sv', a: 'j', b: 's', kind: 'line', width: { by: 'z0', z0: 50 }, length: { by: 'degrees', deg: 60 } },
+    ];
+    const sized = sizeDesign(doc);
+    expect(sized.problems).toEqual([]);
+    const net = netlistFromSized(sized);
+    const cap = net.elements.find((e) => e.id === 'o:open-end');
+    expect(cap?.kind).toBe('capacitor');
+    expect((cap as { value: number }).value).toBe(sized.nodes.find((n) => n.id === 'o')!.open!.capacitance);
+    const via = net.elements.find((e) => e.id === 's:via');
+    expect(via?.kind).toBe('series-rl');
+    expect(net.ports.map((p) => [p.name, p.zRef])).toEqual([['p1', 50], ['p2', 50]]);
+    expect(net.warnings.some((w) => /cross j: no cross-junction model/.test(w.message))).toBe(true);
+    // Solvable across the band, reciprocal.
+    const r = solveNetwork(net, sweepFrequencies({ start: 2e9, stop: 3e9, points: 5 }));
+    for (let k = 0; k < 5; k++) {
+      expect(sAt(r, k, 0, 1).re).toBeCloseTo(sAt(r, k, 1, 0).re, 12);
+      expect(sAt(r, k, 0, 1).im).toBeCloseTo(sAt(r, k, 1, 0).im, 12);
+    }
+  });
+  it('a design the layout cannot size is refused with the layout’s own reason', () => {
+    const doc = twoPortLine();
+    doc.nodes.push({ id: 'lost', kind: 'open', at: { x: 1, y: 1 } });
+    try { netlistFromSized(sizeDesign(doc)); expect.unreachable(); } catch (e) {
+      expect(e).toBeInstanceOf(InputError);
+      expect((e as InputError).code).toBe('impossible-layout');
+      expect((e as InputError).message).toMatch(/lost/);
+    }
+  });
+});
