@@ -29,6 +29,12 @@ export default defineConfig({
         '--disable-component-update', '--disable-sync'],
     },
   },
+  projects: [
+    { name: 'chromium', testIgnore: ['**/electron/**'] },
+    // The desktop shell through Playwright's Electron driver; each test skips itself, with the reason, where no
+    // Electron binary or display is available (test/e2e/electron/electron-binary.ts).
+    { name: 'electron', testDir: 'test/e2e/electron', testIgnore: [] },
+  ],
   webServer: {
     command: 'node --import tsx scripts/serve.ts --port 4173',
     url: 'http://127.0.0.1:4173',

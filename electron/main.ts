@@ -20,6 +20,8 @@ import { createMainWindow, hardenContents, windowStateOf } from './window.ts';
 // Must run before 'ready': our scheme is standard (relative URLs, origin), secure (like https) and may use fetch.
 protocol.registerSchemesAsPrivileged([{ scheme: APP_SCHEME, privileges: { standard: true, secure: true, supportFetchAPI: true, stream: true } }]);
 app.enableSandbox();
+// A separate settings/recovery folder on request (portable use, the Electron smoke test); before anything reads it.
+if (process.env.STRIPWRIGHT_USER_DATA) app.setPath('userData', resolve(process.env.STRIPWRIGHT_USER_DATA));
 
 const RENDERER_ROOT = join(__dirname, '..', 'dist', 'renderer');
 const PRELOAD = join(__dirname, 'preload.cjs');
@@ -97,6 +99,7 @@ function start(): void {
     await refreshMenu();
   };
   const openFromOs = (path: string): void => {
+    shell.grant(path); // at once, so the page may ask for it before the push arrives
     if (pageReady) void deliver(path);
     else pendingOpens.push(path);
   };
