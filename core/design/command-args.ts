@@ -95,10 +95,13 @@ export function snap(x: number): number {
 
 export function snapVec(p: Vec2): Vec2 { return { x: snap(p.x), y: snap(p.y) }; }
 
-/** Angle wrapped to (−π, π]. */
+/** Angle wrapped to (−π, π]; angles already inside are returned as they are (no rounding drift), −0 as 0. */
 export function wrapAngle(a: number): number {
-  let r = a % (2 * Math.PI);
-  if (r <= -Math.PI) r += 2 * Math.PI;
-  if (r > Math.PI) r -= 2 * Math.PI;
-  return Math.round(r * 1e12) / 1e12;
+  let r = a;
+  if (r <= -Math.PI || r > Math.PI) {
+    r = a % (2 * Math.PI);
+    if (r <= -Math.PI) r += 2 * Math.PI;
+    if (r > Math.PI) r -= 2 * Math.PI;
+  }
+  return r === 0 ? 0 : r;
 }

@@ -30,7 +30,8 @@ export function isEmptyDiff(d: DesignDiff): boolean {
 
 /** Structural equality of JSON values (records not touched by a command are the same object: fast path). */
 export function jsonEqual(a: unknown, b: unknown): boolean {
-  if (a === b) return true;
+  // Object.is: 0 and −0 differ here, so a change between them is recorded and undone exactly.
+  if (Object.is(a, b)) return true;
   if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return false;
   if (Array.isArray(a) !== Array.isArray(b)) return false;
   if (Array.isArray(a)) {
