@@ -7,7 +7,7 @@ import { ComputeClient, type Progress } from '../worker/client.ts';
 import { runJob } from '../worker/jobs.ts';
 import type { EditorState } from './editor.svelte.ts';
 import { figuresFrom, placedFrom, type LayoutView } from './layoutView.ts';
-import type { LayoutOutput, ResponseInput, ResponseOutput } from '../worker/jobs.ts';
+import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, ResponseInput, ResponseOutput } from '../worker/jobs.ts';
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -41,7 +41,7 @@ export class Compute {
     this.busy = null;
     this.running = false;
     if (out.ok) {
-      const v: LayoutView = { revision, sized: out.value.sized, outlines: out.value.outlines, drills: out.value.drills, placed: placedFrom(out.value.sized), figures: figuresFrom(out.value.sized), ms: out.ms };
+      const v: LayoutView = { revision, sized: out.value.sized, outlines: out.value.outlines, drills: out.value.drills, paths: out.value.paths, placed: placedFrom(out.value.sized), figures: figuresFrom(out.value.sized), ms: out.ms };
       this.editor.applyLayout(v, out.value.geometryError);
       this.lastLayoutMs = out.ms;
     } else if ('error' in out) {
@@ -58,6 +58,29 @@ export class Compute {
     this.responseProgress = null;
     if (out.ok) this.response = out.value;
     else if ('error' in out) this.responseError = out.error.message;
+  }
+
+  /** Export preview and files of the current design (runs the polygon engine in the worker). */
+  async exportFiles(opts: Omit<ExportInput, 'doc'>): Promise<{ ok: true; value: ExportOutput } | { ok: false; error: string }> {
+    const out = await this.client.run<ExportOutput>('export', { ...opts, doc: this.editor.doc });
+    if (out.ok) return { ok: true, value: out.value };
+    return { ok: false, error: 'error' in out ? out.error.message : 'a newer export replaced this one' };
+  }
+
+  findings = $state.raw<CheckOutput['findings'] | null>(null);
+  findingsError = $state<string | null>(null);
+  checking = $state(false);
+
+  /** Run the fabrication checks on the current design. */
+  async check(): Promise<void> {
+    this.checking = true;
+    const out = await this.client.run<CheckOutput>('check', { doc: this.editor.doc });
+    this.checking = false;
+    if (out.ok) {
+      this.findings = out.value.findings;
+      this.findingsError = null;
+      this.editor.flagged = new Set(out.value.findings.filter((f) => f.severity !== 'info').flatMap((f) => f.subjects));
+    } else if ('error' in out) this.findingsError = out.error.message;
   }
 
   destroy(): void { this.client.destroy(); }

@@ -5,6 +5,7 @@
 import type { DrillHit, Vec2 } from '../../../core/geometry/types.ts';
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { SizedDesign } from '../../../core/layout/types.ts';
+import type { PathReport } from '../../../core/layout/paths.ts';
 import type { PieceFigures } from './figures.ts';
 
 export interface LayoutView {
@@ -13,6 +14,8 @@ export interface LayoutView {
   /** Each piece's and node's own copper (before union) with its centreline. */
   outlines: PieceOutline[];
   drills: DrillHit[];
+  /** Path and phase reports (phase groups, or the anchor port to every other port). */
+  paths: PathReport[];
   /** Placed node positions (after sizing), by node id. */
   placed: Map<string, Vec2>;
   figures: Map<string, PieceFigures>;

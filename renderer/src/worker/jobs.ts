@@ -6,9 +6,12 @@
 import type { DesignDoc } from '../../../core/design/types.ts';
 import type { BoardGeometry, DrillHit } from '../../../core/geometry/types.ts';
 import { initPolygons } from '../../../core/geometry/index.ts';
-import { sizeDesign, LineCache, type SizedDesign } from '../../../core/layout/index.ts';
-import { buildBoardGeometry, pieceOutlines, type PieceOutline } from '../../../core/layout/geometry.ts';
+import { sizeDesign, LineCache, designPaths, checkFabrication, buildBoardGeometry, pieceOutlines, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
+import type { PieceOutline } from '../../../core/layout/geometry.ts';
+import type { Finding } from '../../../core/layout/checks.ts';
+import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
 import { InputError, exhaustive } from '../../../core/util/errors.ts';
+import { toDxf, toSvg, toGerber, toExcellon, toMask, type ExportLayer } from '../../../core/export/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 
@@ -17,10 +20,20 @@ export interface LayoutInput { doc: DesignDoc }
  * The live layout: sized pieces and each piece's own copper (no union, so it needs no polygon engine and stays
  * fast while dragging). The united board geometry is built only for outputs (geometryJob).
  */
-export interface LayoutOutput { sized: SizedDesign; outlines: PieceOutline[]; drills: DrillHit[]; geometryError: string | null }
+export interface LayoutOutput { sized: SizedDesign; outlines: PieceOutline[]; drills: DrillHit[]; paths: PathReport[]; geometryError: string | null }
 
-export interface ResponseInput { doc: DesignDoc; points?: number; start?: number; stop?: number }
-export interface ResponseOutput { freqs: number[]; ports: string[] }
+export interface ResponseInput { doc: DesignDoc; points?: number }
+/** Plot-ready series: for every (i, j) pair |S| in dB, phase in degrees and group delay in s; reflections for Smith. */
+export interface ResponseOutput {
+  freqs: number[];
+  ports: string[];
+  input: number;
+  traces: { i: number; j: number; db: number[]; phase: number[]; delay: number[] }[];
+  smith: { i: number; re: number[]; im: number[] }[];
+  warnings: string[];
+}
+
+export interface CheckOutput { findings: Finding[] }
 
 /** How the polygon engine finds its wasm: the worker passes Vite's asset URL; Node needs nothing. */
 let polygonInit: (() => Promise<void>) | null = null;
@@ -45,7 +58,9 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
   switch (kind) {
     case 'layout': return layoutJob(input as LayoutInput, progress);
     case 'geometry': return geometryJob(input as LayoutInput);
-    case 'response': throw new InputError('bad-choice', 'job', 'a job this build can run', 'response');
+    case 'export': return exportJob(input as ExportInput);
+    case 'check': return checkJob(input as LayoutInput);
+    case 'response': return responseJob(input as ResponseInput, progress);
     default: return exhaustive(kind, 'job');
   }
 }
@@ -63,8 +78,12 @@ export async function layoutJob(input: LayoutInput, progress: (p: Progress) => v
     // The sizes are still worth showing when the copper cannot be drawn (an unplaced piece, for example).
     geometryError = errorText(err);
   }
+  let paths: PathReport[] = [];
+  if (!sized.problems.length) {
+    try { paths = designPaths(sized, { sensitivities: false }); } catch (err) { geometryError ??= errorText(err); }
+  }
   progress({ done: 2, total: 2, label: 'done' });
-  return { sized, outlines, drills, geometryError };
+  return { sized, outlines, drills, paths, geometryError };
 }
 
 /** The united board geometry for outputs (copper, ground, clearance, drills), from the polygon engine. */
@@ -79,4 +98,83 @@ export async function geometryJob(input: LayoutInput): Promise<BoardGeometry> {
 
 export function errorText(err: unknown): string {
   return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : err instanceof Error ? err.message : String(err);
+}
+
+export type OutputKind = 'dxf' | 'svg' | 'gerber' | 'drill' | 'mask';
+
+export interface ExportInput {
+  doc: DesignDoc;
+  layers: ExportLayer[];
+  mirror: boolean;
+  /** Which files to write; none gives only the preview. */
+  kinds: OutputKind[];
+  /** Base of the file names. */
+  base: string;
+  version: string;
+}
+
+export interface ExportOutput { preview: string; files: { name: string; data: string }[]; notes: string[] }
+
+/** The preview (an SVG of the chosen layers, mirrored as asked) and the chosen files, from the core's exporters. */
+export async function exportJob(input: ExportInput): Promise<ExportOutput> {
+  const g = await geometryJob(input);
+  const sw = { application: 'Stripwright', version: input.version };
+  const preview = toSvg(g, { layers: input.layers, mirror: input.mirror });
+  const files: { name: string; data: string }[] = [];
+  const notes: string[] = [];
+  for (const k of input.kinds) {
+    switch (k) {
+      case 'dxf': files.push({ name: `${input.base}.dxf`, data: toDxf(g, { layers: input.layers, mirror: input.mirror }) }); break;
+      case 'svg': files.push({ name: `${input.base}.svg`, data: preview }); break;
+      case 'gerber': {
+        const gb = toGerber(g, { mirror: input.mirror, ...sw });
+        files.push({ name: `${input.base}-copper-top.gbr`, data: gb.copper }, { name: `${input.base}-profile.gbr`, data: gb.profile });
+        break;
+      }
+      case 'drill': {
+        const ex = toExcellon(g, { mirror: input.mirror, ...sw });
+        if (ex.plated) files.push({ name: `${input.base}-plated.drl`, data: ex.plated });
+        if (ex.nonPlated) files.push({ name: `${input.base}-non-plated.drl`, data: ex.nonPlated });
+        if (!ex.plated && !ex.nonPlated) notes.push('No holes: no drill file written.');
+        break;
+      }
+      case 'mask': {
+        const m = toMask(g, { mirror: input.mirror, title: input.doc.name });
+        files.push({ name: `${input.base}-mask.svg`, data: m.svg });
+        notes.push(...m.warnings.map((w) => w.message));
+        break;
+      }
+      default: exhaustive(k, 'output');
+    }
+  }
+  return { preview, files, notes };
+}
+
+/** Fabrication findings: the core's checks on the united copper (needs the polygon engine). */
+export async function checkJob(input: LayoutInput): Promise<CheckOutput> {
+  const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
+  if (sized.problems.length) {
+    return { findings: sized.problems.map((p) => ({ severity: 'error', code: 'layout', message: p.message, fix: 'Change the pieces named here so the layout closes.', subjects: p.subjects })) };
+  }
+  await polygons();
+  const geometry = buildBoardGeometry(sized);
+  return { findings: checkFabrication(sized, geometry) };
+}
+
+/** A sweep of the sized network over the band (and f0), chunked so progress reaches the editor. */
+export async function responseJob(input: ResponseInput, progress: (p: Progress) => void): Promise<ResponseOutput> {
+  const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
+  const net = netlistFromSized(sized);
+  const settings = bandSweep(input.doc.frequency.band, input.doc.frequency.f0, input.points ?? 201);
+  const r: NetworkResponse = await sweepNetwork(net, settings, {
+    onProgress: (done, total) => progress({ done, total, label: 'sweeping' }),
+    yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
+  });
+  const P = r.ports.length;
+  const traces: ResponseOutput['traces'] = [];
+  for (let i = 0; i < P; i++) for (let j = 0; j < P; j++) {
+    traces.push({ i, j, db: [...magnitudeDb(r, i, j)], phase: [...phaseDeg(r, i, j)], delay: [...groupDelay(r, i, j)] });
+  }
+  const sm = Array.from({ length: P }, (_, i) => { const s = smith(r, i); return { i, re: [...s.re], im: [...s.im] }; });
+  return { freqs: [...r.freqs], ports: r.ports.map((p) => p.name), input: net.input, traces, smith: sm, warnings: [...net.warnings, ...r.warnings].map((w) => w.message) };
 }
