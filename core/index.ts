@@ -11,4 +11,5 @@ export * from './discontinuity/index.ts';
 export * from './geometry/index.ts';
 export * from './design/index.ts';
 export * from './layout/index.ts';
+export * from './network/index.ts';
 export * from './export/index.ts';

@@ -2,7 +2,10 @@
  * Complex numbers for the network layer. Public values use the small `Complex` record; hot loops work on
  * interleaved Float64Arrays (re at 2k, im at 2k + 1) and inline the arithmetic.
  */
-export interface Complex { re: number; im: number }
+import type { Complex } from '../line/line-constants.ts';
+
+// The same record the line model returns, so its values pass straight in.
+export type { Complex };
 
 export const cx = (re: number, im = 0): Complex => ({ re, im });
 export const cadd = (a: Complex, b: Complex): Complex => ({ re: a.re + b.re, im: a.im + b.im });

@@ -2,7 +2,7 @@
  * The response layer: netlists, the nodal solve, sweeps, derived figures and Touchstone in and out.
  *
  * @example
- *   const q = lengthForDegrees(90, 1e9);
+ *   const q = temLengthForDegrees(90, 1e9);
  *   const r = solveNetwork({ elements: [{ kind: 'line', id: 't', a: 'p1', b: 'p2', length: q, model: idealLine(70.71) }],
  *                            ports: [{ name: '1', node: 'p1', zRef: 50 }, { name: '2', node: 'p2', zRef: 100 }] }, [1e9]);
  *   magnitudeDb(r, 0, 0); // → [-400]: matched at f0

@@ -3,6 +3,7 @@
  * Independent of the design document, so ideal circuits (tests, generators, benches) and sized designs
  * (fromSized.ts) use the same engine. SI units: m, Hz, Ω, F, H, S.
  */
+import { C0 } from '../units/constants.ts';
 import type { Complex } from './complex.ts';
 
 /** The reserved name of the ground (return) node. */
@@ -52,9 +53,6 @@ export function idealLine(z0: number, eeff = 1): LineModel {
 }
 
 /** Physical length (m) of an ideal line of `deg` degrees at `f0` with effective permittivity `eeff`. */
-export function lengthForDegrees(deg: number, f0: number, eeff = 1): number {
+export function temLengthForDegrees(deg: number, f0: number, eeff = 1): number {
   return (deg / 360) * C0 / (f0 * Math.sqrt(eeff));
 }
-
-/** Speed of light in vacuum, m/s (exact, methods.md §0). */
-export const C0 = 299_792_458;

@@ -10,7 +10,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import {
-  solveNetwork, sweepFrequencies, writeTouchstone, readTouchstone, idealLine, lengthForDegrees,
+  solveNetwork, sweepFrequencies, writeTouchstone, readTouchstone, idealLine, temLengthForDegrees,
   type LineModel, type Netlist, type NetElement, type NetworkResponse,
 } from '../../core/network/index.ts';
 
@@ -96,7 +96,7 @@ describe('agreement with scikit-rf 0.15.4 for the same Z0 and γ', () => {
 describe('Touchstone written by us, read by scikit-rf 0.15.4 (formats.md §5.2)', () => {
   const dir = mkdtempSync(join(tmpdir(), 'sw-ts-'));
   const read = (file: string) => JSON.parse(python('skrf_read.py', '', [file])) as { nports: number; f: number[]; z0: number[]; s: number[][][][] };
-  const q = lengthForDegrees(90, 2.45e9);
+  const q = temLengthForDegrees(90, 2.45e9);
   const nets: Record<number, Netlist> = {
     1: { elements: [{ kind: 'line', id: 'l', a: 'a', b: 'o', length: q * 0.7, model: idealLine(40) }, { kind: 'resistor', id: 'r', a: 'o', b: 'gnd', value: 80 }], ports: [{ name: 'in', node: 'a', zRef: 50 }] },
     2: { elements: [{ kind: 'line', id: 'l', a: 'a', b: 'b', length: q * 1.3, model: idealLine(70) }, { kind: 'capacitor', id: 'c', a: 'b', b: 'gnd', value: 0.7e-12 }], ports: [{ name: 'in', node: 'a', zRef: 50 }, { name: 'out', node: 'b', zRef: 50 }] },

@@ -4,9 +4,10 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
-  solveNetwork, sweepFrequencies, idealLine, lengthForDegrees, groupDelay, phaseDeg, vswr, returnLoss, insertionLoss,
-  amplitudeBalance, phaseBalance, isolation, smith, summarize, unwrapDeg, wrap180, C0, type Netlist,
+  solveNetwork, sweepFrequencies, idealLine, temLengthForDegrees, groupDelay, phaseDeg, vswr, returnLoss, insertionLoss,
+  amplitudeBalance, phaseBalance, isolation, smith, summarize, unwrapDeg, wrap180, type Netlist,
 } from '../../core/network/index.ts';
+import { C0 } from '../../core/units/constants.ts';
 
 const f0 = 2.45e9;
 const freqs = sweepFrequencies({ start: 1e9, stop: 4e9, points: 301 });
@@ -42,7 +43,7 @@ describe('a resistive load', () => {
 });
 
 describe('balance and isolation', () => {
-  const l = (id: string, a: string, b: string, z: number) => ({ kind: 'line' as const, id, a, b, length: lengthForDegrees(90, f0), model: idealLine(z) });
+  const l = (id: string, a: string, b: string, z: number) => ({ kind: 'line' as const, id, a, b, length: temLengthForDegrees(90, f0), model: idealLine(z) });
   const hybrid: Netlist = {
     elements: [l('s12', 'n1', 'n2', 50 / Math.SQRT2), l('s43', 'n4', 'n3', 50 / Math.SQRT2), l('p14', 'n1', 'n4', 50), l('p23', 'n2', 'n3', 50)],
     ports: ['n1', 'n2', 'n3', 'n4'].map((n, i) => ({ name: `${i + 1}`, node: n, zRef: 50 })),

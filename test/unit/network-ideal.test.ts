@@ -4,15 +4,15 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
-  compileNetwork, idealLine, lengthForDegrees, solveAt, solveNetwork, sweepFrequencies, magnitudeDb, phaseDeg,
+  compileNetwork, idealLine, temLengthForDegrees, solveAt, solveNetwork, sweepFrequencies, magnitudeDb, phaseDeg,
   type Netlist, type NetElement,
 } from '../../core/network/index.ts';
 import { InputError } from '../../core/util/errors.ts';
 
 const f0 = 2.45e9;
-const quarter = lengthForDegrees(90, f0);
+const quarter = temLengthForDegrees(90, f0);
 const line = (id: string, a: string, b: string, z: number, deg: number, eeff = 1): NetElement =>
-  ({ kind: 'line', id, a, b, length: lengthForDegrees(deg, f0, eeff), model: idealLine(z, eeff) });
+  ({ kind: 'line', id, a, b, length: temLengthForDegrees(deg, f0, eeff), model: idealLine(z, eeff) });
 const port = (name: string, node: string, zRef = 50) => ({ name, node, zRef });
 const S = (r: { s: Float64Array; ports: unknown[] }, k: number, i: number, j: number) => {
   const P = r.ports.length, t = 2 * ((k * P + i) * P + j);

@@ -3,7 +3,7 @@
  * IBIS Open Forum 2009; methods.md §8.4, formats.md §5.1). Hand-written files; values worked by hand.
  */
 import { describe, expect, it } from 'vitest';
-import { readTouchstone, writeTouchstone, solveNetwork, idealLine, lengthForDegrees, sAt, type NetworkResponse } from '../../core/network/index.ts';
+import { readTouchstone, writeTouchstone, solveNetwork, idealLine, temLengthForDegrees, sAt, type NetworkResponse } from '../../core/network/index.ts';
 import { InputError } from '../../core/util/errors.ts';
 
 const err = (fn: () => unknown): InputError => {
@@ -104,7 +104,7 @@ describe('bad files: InputError bad-file with the line number', () => {
 });
 
 describe('writing version 1.1', () => {
-  const q = lengthForDegrees(90, 1e9);
+  const q = temLengthForDegrees(90, 1e9);
   const r = solveNetwork({ elements: [{ kind: 'line', id: 't', a: 'a', b: 'b', length: q, model: idealLine(70.71) }], ports: [{ name: 'in', node: 'a', zRef: 50 }, { name: 'out', node: 'b', zRef: 100 }] }, [0.9e9, 1e9, 1.1e9]);
   it('refuses ports of different references unless one file reference is chosen', () => {
     expect(err(() => writeTouchstone(r)).field).toBe('zRef');
