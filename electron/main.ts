@@ -36,12 +36,6 @@ let closeAfterSave = false;
 let closeConfirmed = false;
 let autosaveWaiter: (() => void) | null = null;
 
-if (!app.requestSingleInstanceLock()) {
-  app.quit();
-} else {
-  start();
-}
-
 function parent(): BrowserWindow | undefined { return win && !win.isDestroyed() ? win : undefined; }
 
 const dialogs: Dialogs = {
@@ -183,4 +177,11 @@ function start(): void {
 
     for (const p of Shell.designPathsIn(process.argv.slice(app.isPackaged ? 1 : 2))) openFromOs(resolve(p));
   });
+}
+
+// Last, after every binding above exists: one instance per user; a second one hands its files over and quits.
+if (!app.requestSingleInstanceLock()) {
+  app.quit();
+} else {
+  start();
 }

@@ -46,3 +46,61 @@ export class FakeBrowserWindow extends FakeEmitter {
 }
 
 export const fakeElectron = { BrowserWindow: FakeBrowserWindow };
+
+/** A whole stand-in 'electron' for importing electron/main.ts: records what the main process wires up. */
+export function makeFakeMain(o: { lock?: boolean; userData: string; argv?: string[] }) {
+  const appEvents = new FakeEmitter();
+  let ready!: () => void;
+  const whenReady = new Promise<void>((r) => { ready = r; });
+  const calls: { name: string; args: unknown[] }[] = [];
+  const rec = (name: string) => (...args: unknown[]) => { calls.push({ name, args }); };
+  const handles = new Map<string, (...a: unknown[]) => unknown>();
+  const protocolHandlers = new Map<string, (r: Request) => Promise<Response>>();
+  const messageBoxAnswers: number[] = [];
+  class MainWindow extends FakeBrowserWindow {
+    static fromWebContents(wc: unknown) { return FakeBrowserWindow.created.find((w) => w.webContents === wc) ?? null; }
+    title = '';
+    closed = 0;
+    setTitle(t: string) { this.title = t; }
+    setDocumentEdited() {}
+    isMinimized() { return false; }
+    restore() {}
+    focus() { calls.push({ name: 'focus', args: [] }); }
+    isDestroyed() { return false; }
+    close() {
+      this.closed++;
+      let prevented = false;
+      this.emit('close', { preventDefault: () => { prevented = true; } });
+      return prevented;
+    }
+  }
+  const electron = {
+    app: Object.assign(appEvents, {
+      requestSingleInstanceLock: () => o.lock ?? true,
+      quit: rec('app.quit'),
+      whenReady: () => whenReady,
+      getPath: (n: string) => (n === 'userData' ? o.userData : `${o.userData}-${n}`),
+      setPath: rec('app.setPath'),
+      enableSandbox: rec('app.enableSandbox'),
+      getVersion: () => '0.1.0',
+      isPackaged: false,
+    }),
+    protocol: {
+      registerSchemesAsPrivileged: rec('protocol.registerSchemesAsPrivileged'),
+      handle: (scheme: string, h: (r: Request) => Promise<Response>) => { protocolHandlers.set(scheme, h); },
+    },
+    BrowserWindow: MainWindow,
+    dialog: {
+      showOpenDialog: async () => ({ canceled: true, filePaths: [] }),
+      showSaveDialog: async () => ({ canceled: true }),
+      showMessageBox: async () => ({ response: 1 }),
+      showMessageBoxSync: (...args: unknown[]) => { calls.push({ name: 'dialog.showMessageBoxSync', args }); return messageBoxAnswers.shift() ?? 2; },
+      showErrorBox: rec('dialog.showErrorBox'),
+    },
+    ipcMain: { handle: (c: string, h: (...a: unknown[]) => unknown) => { handles.set(c, h); } },
+    Menu: { buildFromTemplate: (t: unknown) => ({ template: t }), setApplicationMenu: rec('Menu.setApplicationMenu') },
+    screen: { getAllDisplays: () => [{ workArea: { x: 0, y: 0, width: 1920, height: 1080 } }] },
+    shell: { openPath: rec('shell.openPath') },
+  };
+  return { electron, appEvents, ready, calls, handles, protocolHandlers, messageBoxAnswers };
+}
