@@ -33,7 +33,7 @@ async function started() {
   fake.ready();
   await vi.waitFor(() => expect(FakeBrowserWindow.created.length).toBe(1));
   await settle();
-  return FakeBrowserWindow.created[0]! as FakeBrowserWindow & { close(): boolean; title: string };
+  return FakeBrowserWindow.created[0]! as FakeBrowserWindow & { close(): boolean; title: string; closed: number };
 }
 const pushes = (w: FakeBrowserWindow, channel: string) => w.webContents.sent.filter((s) => s.channel === channel).map((s) => s.payload);
 
