@@ -261,3 +261,13 @@ describe('size limits', () => {
     expect(firstError(withDoc((d) => { d.board.outline = pts; }))).toBe(`board.outline: expected an outline of at most ${DESIGN_LIMITS.polygonPoints} points, found a list of ${DESIGN_LIMITS.polygonPoints + 1}`);
   });
 });
+
+describe('the README example', () => {
+  it('the JSON shown in the README design section is a complete, valid design', () => {
+    const readme = readFileSync(join(ROOT, 'README.md'), 'utf8');
+    const section = readme.slice(readme.indexOf('<!-- section:design -->'), readme.indexOf('<!-- /section:design -->'));
+    const json = /```json\n([\s\S]*?)```/.exec(section)![1]!;
+    const r = parseDesign(json, { complete: true });
+    expect(r.ok ? r.warnings : r.errors.map((e) => e.message)).toEqual([]);
+  });
+});
