@@ -117,6 +117,15 @@ export class EditorState {
   }
 
   setEnd(id: string, kind: 'open' | 'short'): void { this.edit('node.setSpec', { id, spec: { kind } }); }
+
+  /** Turns an open or shorted end into a port facing along its line (the line leaves the port towards its neighbour). */
+  makePort(id: string): void {
+    const n = this.doc.nodes.find((x) => x.id === id);
+    const s = this.doc.segments.find((x) => x.a === id || x.b === id);
+    const o = s && this.doc.nodes.find((x) => x.id === (s.a === id ? s.b : s.a));
+    const heading = n && o ? Math.atan2(o.at.y - n.at.y, o.at.x - n.at.x) : 0;
+    this.edit('node.setSpec', { id, spec: { kind: 'port', zRef: 50, heading } }, 'Make port');
+  }
   setSubstrate(patch: Partial<SubstrateSpec>): void { this.edit('design.setSubstrate', { substrate: patch }); }
   setFrequency(patch: { f0?: number; band?: { start: number; stop: number } }): void { this.edit('design.setFrequency', patch); }
   setProcess(process: FabProcess): void { this.edit('design.setProcess', { process }); }
