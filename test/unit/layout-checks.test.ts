@@ -1,0 +1,93 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { initPolygons } from '../../core/geometry/polygons.ts';
+import { sizeDesign } from '../../core/layout/sizing.ts';
+import { buildBoardGeometry } from '../../core/layout/geometry.ts';
+import { checkFabrication, cutWidth, referenceGroundShiftPct } from '../../core/layout/checks.ts';
+import type { DesignDoc } from '../../core/design/types.ts';
+import { design, port, line, wd, lenOf } from './layout-fixtures.ts';
+
+beforeAll(async () => { await initPolygons(); });
+const run = (d: DesignDoc, opts = {}) => { const s = sizeDesign(d); return checkFabrication(s, buildBoardGeometry(s), opts); };
+const endMill = (d: number) => ({ kind: 'end-mill' as const, toolDiameter: d, depth: 0.1e-3 });
+
+/** Two separate straight lines `gap` apart (edge to edge), each 1 mm wide and 10 mm long. */
+const pair = (gap: number, process = endMill(0.2e-3)) => design({
+  process,
+  nodes: [port('a1', 0, 0), port('b1', 0.01, 0), port('a2', 0, 1e-3 + gap), port('b2', 0.01, 1e-3 + gap)],
+  segments: [line('l1', 'a1', 'b1', wd(1e-3), lenOf(0.01)), line('l2', 'a2', 'b2', wd(1e-3), lenOf(0.01))],
+});
+
+describe('tool cut width', () => {
+  it('V-bit: tip + 2·depth·tan(angle/2) (plain geometry): 30°, 0.1 mm tip, 0.05 mm deep → 0.12679 mm', () => {
+    expect(cutWidth({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 }) * 1e3).toBeCloseTo(0.1 + 2 * 0.05 * Math.tan(Math.PI / 12), 9);
+    expect(cutWidth(endMill(0.4e-3))).toBe(0.4e-3);
+    // Etching: the artwork gap is the final gap minus twice the edge bias.
+    expect(cutWidth({ kind: 'etch', edgeBias: 35e-6, minFeature: 0.2e-3 })).toBeCloseTo(0.27e-3, 12);
+  });
+});
+
+describe('gaps and widths the process cannot make', () => {
+  it('a 0.1 mm gap under a 0.2 mm end mill is an error naming both pieces; 0.3 mm is fine', () => {
+    const f = run(pair(0.1e-3));
+    const g = f.find((x) => x.code === 'min-gap')!;
+    expect(g.severity).toBe('error');
+    expect(new Set(g.subjects)).toEqual(new Set(['l1', 'l2']));
+    expect(g.at!.y).toBeGreaterThan(0.5e-3); expect(g.at!.y).toBeLessThan(0.6e-3);
+    expect(run(pair(0.3e-3)).some((x) => x.code === 'min-gap')).toBe(false);
+  });
+  it('etching: a line below the minimum feature is an error', () => {
+    const d = design({ process: { kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 }, nodes: [port('a', 0, 0), port('b', 0.01, 0)], segments: [line('thin', 'a', 'b', wd(0.15e-3), lenOf(0.01))] });
+    const f = run(d).find((x) => x.code === 'min-width')!;
+    expect(f.severity).toBe('error');
+    expect(f.subjects).toEqual(['thin']);
+  });
+  it('crossing pieces that are not connected overlap: an error naming both', () => {
+    const d = design({
+      nodes: [port('a', 0, 0), port('b', 0.01, 0), port('c', 0.005, -0.005), port('e', 0.005, 0.005)],
+      segments: [line('x', 'a', 'b', wd(1e-3), lenOf(0.01)), line('y', 'c', 'e', wd(1e-3), lenOf(0.01))],
+    });
+    const f = run(d).filter((x) => x.code === 'overlap');
+    expect(f).toHaveLength(1);
+    expect(new Set(f[0]!.subjects)).toEqual(new Set(['x', 'y']));
+  });
+});
+
+describe('board, keep-outs, ground copper', () => {
+  it('copper off the board outline and inside a keep-out are errors naming the piece', () => {
+    const d = pair(1e-3);
+    d.board = { outline: [{ x: 0.001, y: -0.001 }, { x: 0.02, y: -0.001 }, { x: 0.02, y: 0.01 }, { x: 0.001, y: 0.01 }] };
+    d.areas = [{ id: 'k', kind: 'keep-out', polygon: [{ x: 0.004, y: 1.5e-3 }, { x: 0.006, y: 1.5e-3 }, { x: 0.006, y: 3e-3 }, { x: 0.004, y: 3e-3 }] }];
+    const f = run(d);
+    const off = f.find((x) => x.code === 'off-board')!;
+    expect(new Set(off.subjects)).toEqual(new Set(['l1', 'l2']));
+    const k = f.find((x) => x.code === 'keep-out')!;
+    expect(k.subjects).toEqual(['k', 'l2']);
+  });
+  it('ground copper closer than 3h warns, quoting the methods.md §9.4 reference shift (s/h = 1: −5.0 %)', () => {
+    expect(referenceGroundShiftPct(1)).toBeCloseTo(-5.0, 9);
+    expect(referenceGroundShiftPct(3)).toBeCloseTo(-0.48, 9);
+    expect(referenceGroundShiftPct(0.1)).toBeNull();
+    const d = design({ nodes: [port('a', 0, 0), port('b', 0.01, 0)], segments: [line('l', 'a', 'b', wd(1.1e-3), lenOf(0.01))] });
+    const box = [{ x: 0, y: -0.005 }, { x: 0.01, y: -0.005 }, { x: 0.01, y: 0.005 }, { x: 0, y: 0.005 }];
+    d.areas = [{ id: 'gnd', kind: 'ground-copper', polygon: box, clearance: d.substrate.h }];
+    const f = run(d).find((x) => x.code === 'ground-near')!;
+    expect(f.subjects).toEqual(['gnd', 'l']);
+    expect(f.message).toMatch(/about 5\.0 %/);
+    d.areas[0]!.clearance = 3.2 * d.substrate.h;
+    expect(run(d).some((x) => x.code === 'ground-near')).toBe(false);
+  });
+});
+
+describe('loss budget', () => {
+  it('a 300 mm 50 Ω line on glass-epoxy at 7 GHz exceeds 1 dB and the laminate is flagged above 6 GHz (practice.md need 5)', () => {
+    const fr4 = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 0 };
+    const d = design({ substrate: fr4, f0: 7e9, nodes: [port('a', 0, 0), port('b', 0.3, 0)], segments: [line('long', 'a', 'b', wd(3e-3), lenOf(0.3))] });
+    const f = run(d);
+    const loss = f.find((x) => x.code === 'loss-budget')!;
+    expect(loss.severity).toBe('warning');
+    expect(loss.subjects).toContain('long');
+    expect(loss.fix).toMatch(/low-loss laminate/);
+    expect(f.some((x) => x.code === 'lossy-laminate')).toBe(true);
+    expect(run(d, { lossLimitDb: 100 }).some((x) => x.code === 'loss-budget')).toBe(false);
+  });
+});
