@@ -1,0 +1,217 @@
+/**
+ * `stripwright export FILE --format dxf|svg|gerber|drill|mask[,…] --out PATH`: writes fabrication files for a design.
+ * The design goes through the same pipeline as the app (parse → size → copper geometry), then through the pure
+ * exporters in core/export. File I/O lives here: every target is checked before anything is written (nothing is
+ * overwritten without --force), and each file is written atomically (temp file in the same folder, fsync, rename).
+ */
+import { parseArgs } from 'node:util';
+import { closeSync, existsSync, fsyncSync, mkdirSync, openSync, readFileSync, renameSync, statSync, unlinkSync, writeSync } from 'node:fs';
+import { basename, dirname, extname, join, resolve } from 'node:path';
+import { randomBytes } from 'node:crypto';
+import {
+  InputError, initPolygons, parseDesign, parseQuantity, toDxf, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
+  sizeDesign, buildBoardGeometry, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
+} from '../../core/index.ts';
+import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+import { VERSION } from '../version.ts';
+
+const FORMATS = ['dxf', 'svg', 'gerber', 'drill', 'mask'] as const;
+type Format = (typeof FORMATS)[number];
+
+const usage = `Usage: stripwright export FILE --format FORMAT[,FORMAT…] --out PATH [options]
+
+Writes fabrication files for the design FILE (a Stripwright design, .json).
+
+Formats:
+  dxf      DXF drawing (mm): one closed polyline per outline and hole, a layer per kind, drills as circles
+  svg      SVG drawing at true size (width/height in mm), one group per layer
+  gerber   Gerber X2 (RS-274X, mm, 4.6): NAME-copper-top.gbr (copper as regions) and NAME-profile.gbr
+  drill    Excellon (METRIC): NAME-plated.drl and NAME-nonplated.drl (only those the board has)
+  mask     1:1 photo mask / toner-transfer sheet (SVG page) with scale bar and registration marks
+
+Options:
+  --out PATH              where to write: a file for one output, a folder (created if missing) for several
+  --force                 overwrite existing files (otherwise nothing is written when a target exists)
+  --mirror                mirror left-right (all formats; usual for toner transfer and emulsion-down films)
+  --bias LEN              etch bias per copper edge, e.g. 0.035mm (+ grows copper, − shrinks); all formats
+  --origin board|design   (0,0) at the board's lower-left corner (default) or at the design origin
+  --layers L[,L…]         layers for dxf/svg among: ${EXPORT_LAYERS.join(', ')}
+  --tool LEN              milling tool diameter: adds isolation outlines offset by its radius (dxf/svg layer 'isolation')
+  --style filled|outline  svg: filled copper (default) or outlines only
+  --page a4|letter        mask page (default a4)
+  --polarity positive|negative   mask polarity (default positive: copper black)
+
+Examples:
+  stripwright export wilkinson.json --format mask --mirror --bias 0.035mm --out wilkinson-mask.svg
+  stripwright export array.json --format gerber,drill,dxf --tool 0.2mm --out fab/`;
+
+interface Output { name: string; text: string; what: string }
+
+export const exportCommand: CliCommand = {
+  name: 'export',
+  summary: 'Write DXF, SVG, Gerber X2, Excellon drill or a 1:1 photo mask for a design',
+  usage,
+  async run(argv: string[], io: CliIo): Promise<number> {
+    const { values, positionals } = parseArgs({
+      args: argv,
+      allowPositionals: true,
+      strict: true,
+      options: {
+        format: { type: 'string' }, out: { type: 'string' }, force: { type: 'boolean' }, mirror: { type: 'boolean' },
+        bias: { type: 'string' }, origin: { type: 'string' }, layers: { type: 'string' }, tool: { type: 'string' },
+        style: { type: 'string' }, page: { type: 'string' }, polarity: { type: 'string' },
+      },
+    });
+    if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to export' : `give one design FILE, got ${positionals.length}`);
+    if (!values.format) throw new UsageError('give --format, e.g. --format gerber,drill');
+    if (!values.out) throw new UsageError('give --out PATH (a file, or a folder when several files are written)');
+    const formats = values.format.split(',').map((f) => f.trim().toLowerCase()).filter((f) => f !== '');
+    for (const f of formats) if (!(FORMATS as readonly string[]).includes(f)) throw new UsageError(`unknown format '${f}': expected ${FORMATS.join(', ')}`);
+    const choice = <T extends string>(flag: string, v: string | undefined, allowed: readonly T[]): T | undefined => {
+      if (v === undefined) return undefined;
+      if (!(allowed as readonly string[]).includes(v)) throw new UsageError(`--${flag} must be ${allowed.join(' or ')}, got '${v}'`);
+      return v as T;
+    };
+    const origin = choice('origin', values.origin, ['board', 'design'] as const);
+    const style = choice('style', values.style, ['filled', 'outline'] as const);
+    const page = choice('page', values.page, ['a4', 'letter'] as const);
+    const polarity = choice('polarity', values.polarity, ['positive', 'negative'] as const);
+    const layers = values.layers?.split(',').map((l) => l.trim()).filter((l) => l !== '');
+
+    const file = resolve(io.cwd, positionals[0]);
+    const warnings: Warning[] = [];
+    try {
+      const bias = values.bias !== undefined ? parseQuantity(values.bias, 'length', '--bias') : 0;
+      const tool = values.tool !== undefined ? parseQuantity(values.tool, 'length', '--tool') : undefined;
+      let text: string;
+      try { text = readFileSync(file, 'utf8'); } catch (e) {
+        io.err(`stripwright export: cannot read ${positionals[0]}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
+        return 1;
+      }
+      const parsed = parseDesign(text);
+      if (!parsed.ok) {
+        io.err(`stripwright export: ${positionals[0]} is not a valid design:`);
+        for (const i of parsed.errors) io.err(`  ${i.message}`);
+        return 1;
+      }
+      warnings.push(...parsed.warnings);
+      await initPolygons();
+      const board = designToBoard(parsed.doc);
+      warnings.push(...board.warnings);
+      const raw: ExportGeometry = board.geometry;
+      let g: ExportGeometry = raw;
+      if (bias !== 0) { const b = withEtchBias(g, bias); g = b.geometry; warnings.push(...b.warnings); }
+      if (tool !== undefined) { const m = withIsolation(g, tool); g = m.geometry; warnings.push(...m.warnings); }
+      if (layers !== undefined) checkLayers(layers, g, '--layers');
+      if ((layers !== undefined || tool !== undefined) && !formats.some((f) => f === 'dxf' || f === 'svg')) {
+        io.err(`stripwright export: note: ${layers !== undefined ? '--layers' : '--tool'} only changes dxf and svg output`);
+      }
+      const base = safeBase(file);
+      const sw = { application: 'Stripwright', version: VERSION };
+      const frame = { origin, mirror: values.mirror ?? false };
+      const outputs: Output[] = [];
+      for (const f of new Set(formats as Format[])) {
+        switch (f) {
+          case 'dxf': outputs.push({ name: `${base}.dxf`, text: toDxf(g, { ...frame, layers }), what: 'DXF drawing, mm' }); break;
+          case 'svg': outputs.push({ name: `${base}.svg`, text: toSvg(g, { mirror: frame.mirror, layers, style }), what: 'SVG drawing, true size' }); break;
+          case 'gerber': {
+            const gb = toGerber(g, { ...frame, ...sw });
+            outputs.push({ name: `${base}-copper-top.gbr`, text: gb.copper, what: 'Gerber X2, top copper' });
+            outputs.push({ name: `${base}-profile.gbr`, text: gb.profile, what: 'Gerber X2, board profile' });
+            break;
+          }
+          case 'drill': {
+            const d = toExcellon(g, { ...frame, ...sw });
+            if (d.plated) outputs.push({ name: `${base}-plated.drl`, text: d.plated, what: 'Excellon, plated holes' });
+            if (d.nonPlated) outputs.push({ name: `${base}-nonplated.drl`, text: d.nonPlated, what: 'Excellon, non-plated holes' });
+            if (!d.plated && !d.nonPlated) io.err('stripwright export: the board has no drilled holes; no drill file written');
+            break;
+          }
+          case 'mask': {
+            // The mask applies the bias itself so the sheet can state it; give it the unbiased copper.
+            const m = toMask(raw, { page, polarity, mirror: frame.mirror, bias, title: basename(file) });
+            if (bias === 0) warnings.push(...m.warnings);
+            outputs.push({ name: `${base}-mask.svg`, text: m.svg, what: `photo mask, ${polarity ?? 'positive'}${frame.mirror ? ', mirrored' : ''}, print at 100 %` });
+            break;
+          }
+        }
+      }
+      if (outputs.length === 0) { io.err('stripwright export: nothing to write'); return 1; }
+      const targets = placeOutputs(resolve(io.cwd, values.out), values.out, outputs);
+      const existing = targets.filter((t) => existsSync(t.path));
+      if (existing.length > 0 && !values.force) {
+        io.err(`stripwright export: not overwriting ${existing.map((t) => t.path).join(', ')}; nothing was written (add --force to replace)`);
+        return 1;
+      }
+      for (const w of warnings) io.err(`${w.severity === 'error' ? 'error' : 'warning'}: ${w.message}`);
+      for (const t of targets) {
+        atomicWrite(t.path, t.text);
+        io.out(`wrote ${t.path}  (${t.what}, ${formatSize(Buffer.byteLength(t.text))})`);
+      }
+      return 0;
+    } catch (e) {
+      if (e instanceof InputError) {
+        io.err(`stripwright export: ${e.message}`);
+        return 1;
+      }
+      if (e instanceof OutError) { io.err(`stripwright export: ${e.message}`); return 1; }
+      throw e;
+    }
+  },
+};
+
+class OutError extends Error {}
+
+/** The app's pipeline from a design to copper: size every piece, then build the board geometry. */
+export function designToBoard(doc: DesignDoc): { geometry: ExportGeometry; warnings: Warning[] } {
+  const sized = sizeDesign(doc);
+  return { geometry: buildBoardGeometry(sized), warnings: sized.warnings };
+}
+
+/** File name stem from the design file: its name without extension, limited to safe characters. */
+function safeBase(file: string): string {
+  const stem = basename(file, extname(file)).replace(/[^\w.-]+/g, '_').replace(/^[.]+/, '');
+  return stem || 'board';
+}
+
+/** One output and --out not a folder: that file; otherwise files by name inside the --out folder. */
+function placeOutputs(out: string, given: string, outputs: Output[]): { path: string; text: string; what: string }[] {
+  const isDir = existsSync(out) && statSync(out).isDirectory();
+  const wantsDir = isDir || /[\\/]$/.test(given) || outputs.length > 1;
+  if (!wantsDir) {
+    if (!existsSync(dirname(out))) throw new OutError(`the folder of --out does not exist: ${dirname(out)}`);
+    return [{ path: out, text: outputs[0].text, what: outputs[0].what }];
+  }
+  if (existsSync(out) && !isDir) throw new OutError(`--out ${given} is a file, but ${outputs.length} files are to be written: give a folder`);
+  if (!isDir && !/[\\/]$/.test(given) && extname(out) !== '') {
+    throw new OutError(`--out ${given} looks like a file name, but ${outputs.length} files are to be written (${outputs.map((o) => o.name).join(', ')}): give a folder, e.g. --out ${basename(out, extname(out))}/`);
+  }
+  mkdirSync(out, { recursive: true });
+  return outputs.map((o) => ({ path: join(out, o.name), text: o.text, what: o.what }));
+}
+
+/** Temp file in the same folder (rename is atomic only within one file system), fsync, rename, fsync the folder. */
+export function atomicWrite(path: string, text: string): void {
+  const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`);
+  let fd: number | null = null;
+  try {
+    fd = openSync(tmp, 'wx', 0o644);
+    writeSync(fd, text);
+    fsyncSync(fd);
+    closeSync(fd);
+    fd = null;
+    renameSync(tmp, path);
+  } catch (e) {
+    if (fd !== null) try { closeSync(fd); } catch { /* already failing */ }
+    try { unlinkSync(tmp); } catch { /* nothing to clean */ }
+    throw new OutError(`could not write ${path}: ${(e as Error).message}`);
+  }
+  try {
+    const dfd = openSync(dirname(path), 'r');
+    try { fsyncSync(dfd); } finally { closeSync(dfd); }
+  } catch { /* some file systems refuse fsync on a folder; the rename already happened */ }
+}
+
+function formatSize(n: number): string {
+  return n < 1024 ? `${n} B` : `${(n / 1024).toFixed(1)} kB`;
+}
