@@ -2,6 +2,7 @@ import type { CliCommand } from '../registry.ts';
 import { lineCommand } from './line.ts';
 import { exportCommand } from './export.ts';
 import { buildCommand } from './build.ts';
+import { sweepCommand } from './sweep.ts';
 
 /** Every command of the CLI. Add a new command file and list it here. */
-export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand];
+export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand];

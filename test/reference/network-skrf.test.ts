@@ -5,7 +5,6 @@
  * Touchstone files we write are read back by `skrf.Network` with identical values (formats.md §5.2).
  */
 import { describe, expect, it } from 'vitest';
-import { execSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -13,15 +12,7 @@ import {
   solveNetwork, sweepFrequencies, writeTouchstone, readTouchstone, idealLine, temLengthForDegrees,
   type LineModel, type Netlist, type NetElement, type NetworkResponse,
 } from '../../core/network/index.ts';
-
-const ROOT = join(import.meta.dirname, '..', '..');
-const PY_PATH = execSync('getconf PATH', { encoding: 'utf8' }).trim();
-
-export function python(script: string, input: string, args: string[] = []): string {
-  const r = spawnSync('python3', [join(ROOT, 'scripts', 'reference', script), ...args], { input, encoding: 'utf8', env: { PATH: PY_PATH, HOME: process.env.HOME ?? '/tmp' }, maxBuffer: 1 << 28 });
-  if (r.status !== 0) throw new Error(`python ${script} failed (${r.status}): ${r.stderr}`);
-  return r.stdout;
-}
+import { python } from './network-oracle.ts';
 
 interface Tabled { id: string; a: string; b: string; length: number; z0: number[]; gamma: [number, number][] }
 

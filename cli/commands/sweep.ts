@@ -1,0 +1,284 @@
+/**
+ * `stripwright sweep`: the response of a design across frequency — S-parameters of every port, derived figures,
+ * a Touchstone file. A thin face over core/network: the design is parsed, sized, turned into a netlist and swept.
+ * A Touchstone file given instead of a design is read and summarised the same way (to look at a measured board).
+ */
+import { parseArgs } from 'node:util';
+import { closeSync, existsSync, fsyncSync, openSync, readFileSync, renameSync, unlinkSync, writeSync } from 'node:fs';
+import { basename, dirname, join, resolve } from 'node:path';
+import {
+  InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepNetwork,
+  readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
+  phaseBalance, isolation, portIndex, MAX_POINTS,
+  type NetworkResponse, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
+} from '../../core/index.ts';
+import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+import { VERSION } from '../version.ts';
+
+const USAGE = `Usage: stripwright sweep FILE [--from FREQ --to FREQ --points N --log] [--out FILE.sNp]
+                        [--format ri|ma|db] [--unit hz|khz|mhz|ghz] [--zref OHMS] [--input PORT] [--json]
+
+Computes the S-parameters of a design (FILE.json) across frequency: every piece as a lossy, dispersive line,
+with open ends, vias, part pads and S-parameter parts, solved by nodal analysis. A Touchstone file
+(FILE.s1p, .s2p, …) is read and summarised instead, e.g. to look at a measured board.
+
+Sweep (default: the design's band, 201 linear points, widened to include f0):
+  --from FREQ, --to FREQ   band edges, e.g. 2.3GHz, 2500MHz
+  --points N               number of frequencies (1 to ${MAX_POINTS})
+  --log                    logarithmic spacing
+
+Output (default: a summary table — worst figures over the band and the values at f0):
+  --out FILE.sNp           write a Touchstone 1.1 file (N = number of ports); refuses to replace a file unless --force
+  --format ri|ma|db        Touchstone number format (default ri: real/imaginary, full precision)
+  --unit hz|khz|mhz|ghz    Touchstone frequency unit (default ghz)
+  --zref OHMS              reference impedance of the Touchstone file (default: the ports' own, when all agree)
+  --input PORT             port taken as the input for the figures (default: the layout's anchor port)
+  --json                   one JSON object: frequencies, S as real and imaginary parts, derived figures
+  --force                  replace an existing --out file
+
+Examples:
+  stripwright sweep assets/examples/wilkinson-2g45.json
+  stripwright sweep feed.json --from 5GHz --to 6.5GHz --points 301 --out feed.s5p
+  stripwright sweep measured.s2p --json`;
+
+const OPTIONS = {
+  from: { type: 'string' }, to: { type: 'string' }, points: { type: 'string' }, log: { type: 'boolean' },
+  out: { type: 'string' }, format: { type: 'string' }, unit: { type: 'string' }, zref: { type: 'string' },
+  input: { type: 'string' }, json: { type: 'boolean' }, force: { type: 'boolean' },
+} as const;
+
+function choice<T extends string>(flag: string, v: string | undefined, allowed: readonly T[]): T | undefined {
+  if (v === undefined) return undefined;
+  const l = v.toLowerCase();
+  if (!(allowed as readonly string[]).includes(l)) throw new UsageError(`--${flag} must be one of ${allowed.join(', ')}, not '${v}'`);
+  return l as T;
+}
+
+function flagQuantity(flag: string, v: string | undefined, kind: 'frequency'): number | undefined {
+  if (v === undefined) return undefined;
+  try { return parseQuantity(v, kind, `--${flag}`); } catch (e) {
+    if (e instanceof InputError) throw new UsageError(`--${flag}: expected ${e.expected}, got ${e.got}`);
+    throw e;
+  }
+}
+
+interface Loaded { name: string; f0?: number; response: NetworkResponse; input: number; warnings: Warning[]; from: 'design' | 'touchstone' }
+
+export const sweepCommand: CliCommand = {
+  name: 'sweep',
+  summary: 'S-parameters of a design across frequency; figures, Touchstone out',
+  usage: USAGE,
+  async run(argv: string[], io: CliIo): Promise<number> {
+    const { values, positionals } = parseArgs({ args: argv, options: OPTIONS, allowPositionals: true, strict: true });
+    if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design (or Touchstone) file to sweep' : `one file at a time, got ${positionals.length}`);
+    const format = choice<TouchstoneFormat>('format', values.format, ['ri', 'ma', 'db']);
+    const unit = choice<FrequencyUnit>('unit', values.unit, ['hz', 'khz', 'mhz', 'ghz']);
+    const from = flagQuantity('from', values.from, 'frequency');
+    const to = flagQuantity('to', values.to, 'frequency');
+    let zref: number | undefined;
+    if (values.zref !== undefined) {
+      zref = Number(values.zref.replace(/\s*(ohm|Ω)s?$/i, ''));
+      if (!(zref > 0) || !Number.isFinite(zref)) throw new UsageError(`--zref must be a resistance above 0 ohm, e.g. 50, not '${values.zref}'`);
+    }
+    let points: number | undefined;
+    if (values.points !== undefined) {
+      points = Number(values.points);
+      if (!Number.isInteger(points) || points < 1 || points > MAX_POINTS) throw new UsageError(`--points must be a whole number from 1 to ${MAX_POINTS}, not '${values.points}'`);
+    }
+    if ((format || unit || zref !== undefined || values.force) && !values.out) throw new UsageError('--format, --unit, --zref and --force apply to the Touchstone file: add --out FILE.sNp');
+
+    const file = resolve(io.cwd, positionals[0]);
+    let text: string;
+    try { text = readFileSync(file, 'utf8'); } catch (e) {
+      io.err(`stripwright sweep: cannot read ${positionals[0]}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
+      return 1;
+    }
+    try {
+      const loaded = /\.s\d+p$/i.test(file)
+        ? loadTouchstone(text, file, { from, to, points, log: values.log })
+        : await loadDesign(text, positionals[0], { from, to, points, log: values.log }, io);
+      if (!loaded) return 1;
+      const r = loaded.response;
+      const input = values.input !== undefined ? portIndex(r, values.input, '--input') : loaded.input;
+      if (values.out) {
+        const out = resolve(io.cwd, values.out);
+        const want = `.s${r.ports.length}p`;
+        if (!out.toLowerCase().endsWith(want)) {
+          io.err(`stripwright sweep: --out should end in ${want} for ${r.ports.length} port(s) (Touchstone readers take the port count from the extension); nothing was written`);
+          return 1;
+        }
+        if (existsSync(out) && !values.force) {
+          io.err(`stripwright sweep: not replacing ${out}; nothing was written (add --force to replace it)`);
+          return 1;
+        }
+        const ts = writeTouchstone(r, {
+          format, unit, zRef: zref, app: `stripwright ${VERSION}`, design: loaded.name,
+          comments: [`ports: ${r.ports.map((p, i) => `${i + 1}=${p.name}`).join(' ')}`, `from ${basename(file)}`],
+        });
+        atomicWrite(out, ts);
+        if (!values.json) io.out(`wrote ${out}  (Touchstone 1.1, ${r.ports.length} port(s), ${r.freqs.length} frequencies)`);
+      }
+      for (const w of [...loaded.warnings, ...r.warnings]) if (w.severity !== 'info') io.err(`warning: ${w.message}`);
+      if (values.json) io.out(JSON.stringify(toJson(loaded, input)));
+      else if (!values.out) io.out(table(loaded, input));
+      return 0;
+    } catch (e) {
+      if (e instanceof InputError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
+      if (e instanceof WriteError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
+      throw e;
+    }
+  },
+};
+
+interface SweepFlags { from?: number; to?: number; points?: number; log?: boolean }
+
+function settingsFor(band: { start: number; stop: number }, f0: number | undefined, s: SweepFlags): SweepSettings {
+  let start = s.from ?? band.start, stop = s.to ?? band.stop;
+  if (s.from === undefined && s.to === undefined && f0 !== undefined) { start = Math.min(start, f0); stop = Math.max(stop, f0); }
+  if (stop < start) throw new UsageError(`--to (${formatQuantity(stop, 'frequency')}) must not be below --from (${formatQuantity(start, 'frequency')})`);
+  return { start, stop, points: s.points ?? (start === stop ? 1 : 201), log: s.log ?? false };
+}
+
+async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo): Promise<Loaded | null> {
+  const parsed = parseDesign(text);
+  if (!parsed.ok) {
+    io.err(`stripwright sweep: ${shown} is not a valid design:`);
+    for (const i of parsed.errors) io.err(`  ${i.message}`);
+    return null;
+  }
+  const doc = parsed.doc;
+  const sized = sizeDesign(doc);
+  const net = netlistFromSized(sized);
+  const settings = settingsFor(doc.frequency.band, doc.frequency.f0, s);
+  let lastShown = -1;
+  const tty = Boolean((process.stderr as { isTTY?: boolean }).isTTY);
+  const response = await sweepNetwork(net, settings, {
+    chunk: 200,
+    onProgress: (done, total) => {
+      if (!tty || total < 2000) return;
+      const pct = Math.floor((100 * done) / total);
+      if (pct !== lastShown) { lastShown = pct; process.stderr.write(`\rsweeping ${pct}%${done === total ? '\n' : ''}`); }
+    },
+    yieldTo: () => new Promise<void>((r) => setImmediate(r)),
+  });
+  return { name: doc.name, f0: doc.frequency.f0, response, input: net.input, warnings: [...parsed.warnings, ...sized.warnings, ...net.warnings], from: 'design' };
+}
+
+function loadTouchstone(text: string, file: string, s: SweepFlags): Loaded {
+  const d = readTouchstone(text, { fileName: basename(file) });
+  if (s.from !== undefined || s.to !== undefined || s.points !== undefined || s.log) {
+    // A measured file is shown at its own points; a range only selects from them.
+    const lo = s.from ?? -Infinity, hi = s.to ?? Infinity;
+    const keep: number[] = [];
+    d.freqs.forEach((f, k) => { if (f >= lo && f <= hi) keep.push(k); });
+    if (keep.length === 0) throw new InputError('out-of-range', '--from/--to', `a range that holds some of the file's frequencies (${formatQuantity(d.freqs[0], 'frequency')} – ${formatQuantity(d.freqs[d.freqs.length - 1], 'frequency')})`, 'none inside');
+    if (s.points !== undefined || s.log) throw new UsageError('--points and --log apply to a design; a Touchstone file is shown at its own frequencies');
+    const P = d.ports.length, m = 2 * P * P;
+    const sub = new Float64Array(keep.length * m);
+    keep.forEach((k, i) => sub.set(d.s.subarray(k * m, (k + 1) * m), i * m));
+    d.freqs = Float64Array.from(keep.map((k) => d.freqs[k]));
+    d.s = sub;
+  }
+  return { name: basename(file), response: d, input: 0, warnings: d.warnings, from: 'touchstone' };
+}
+
+const r6 = (x: number) => Number(x.toPrecision(12));
+
+function toJson(l: Loaded, input: number) {
+  const r = l.response, P = r.ports.length, F = r.freqs.length;
+  const sRe: number[][][] = [], sIm: number[][][] = [];
+  for (let k = 0; k < F; k++) {
+    const re: number[][] = [], im: number[][] = [];
+    for (let i = 0; i < P; i++) {
+      const a: number[] = [], b: number[] = [];
+      for (let j = 0; j < P; j++) { const t = 2 * ((k * P + i) * P + j); a.push(r.s[t]); b.push(r.s[t + 1]); }
+      re.push(a); im.push(b);
+    }
+    sRe.push(re); sIm.push(im);
+  }
+  const arr = (x: Float64Array) => Array.from(x, r6);
+  const outs = r.ports.map((_, i) => i).filter((i) => i !== input);
+  return {
+    app: `stripwright ${VERSION}`,
+    source: l.from,
+    name: l.name,
+    f0: l.f0 ?? null,
+    definition: 'power-wave S-parameters, real reference impedance per port',
+    frequencies: Array.from(r.freqs),
+    ports: r.ports,
+    input: r.ports[input].name,
+    s: { re: sRe, im: sIm },
+    figures: {
+      ports: r.ports.map((p, i) => ({ name: p.name, returnLossDb: arr(returnLoss(r, i)), vswr: arr(vswr(r, i)) })),
+      paths: outs.map((j) => ({ from: r.ports[input].name, to: r.ports[j].name, magnitudeDb: arr(magnitudeDb(r, j, input)), phaseDeg: arr(phaseDeg(r, j, input)), groupDelayS: arr(groupDelay(r, j, input)) })),
+      pairs: pairsOf(outs).map(([a, b]) => ({ a: r.ports[a].name, b: r.ports[b].name, isolationDb: arr(isolation(r, a, b)), amplitudeBalanceDb: arr(amplitudeBalance(r, input, a, b)), phaseBalanceDeg: arr(phaseBalance(r, input, a, b)) })),
+    },
+    worst: summarize(r, input),
+    warnings: [...l.warnings, ...r.warnings],
+  };
+}
+
+function pairsOf(outs: number[]): [number, number][] {
+  const out: [number, number][] = [];
+  for (let x = 0; x < outs.length; x++) for (let y = x + 1; y < outs.length; y++) out.push([outs[x], outs[y]]);
+  return out;
+}
+
+const fq = (f: number) => formatQuantity(f, 'frequency', { digits: 5 });
+const fix = (x: number, d: number) => (Math.abs(x) < 0.5 * 10 ** -d ? 0 : x).toFixed(d);
+const db = (x: number) => (x <= -399 ? '  < -300' : x >= 399 ? '   > 300' : x.toFixed(2).padStart(8));
+
+function table(l: Loaded, input: number): string {
+  const r = l.response, F = r.freqs.length, P = r.ports.length;
+  const lines: string[] = [];
+  const spacing = F > 2 && Math.abs((r.freqs[2] - r.freqs[1]) - (r.freqs[1] - r.freqs[0])) > 1e-6 * r.freqs[1] ? 'logarithmic' : 'linear';
+  lines.push(`${l.from === 'design' ? 'Design' : 'Touchstone file'} "${l.name}": ${F} point${F > 1 ? 's' : ''}, ${fq(r.freqs[0])} – ${fq(r.freqs[F - 1])}${F > 2 ? ` (${spacing})` : ''}`);
+  lines.push(`Ports: ${r.ports.map((p, i) => `${p.name} (${p.zRef} Ω)${i === input ? ' input' : ''}`).join(', ')}`);
+  lines.push('S-parameters: power waves, real reference per port. Return loss and isolation are positive dB (larger is better).');
+  const s = summarize(r, input);
+  lines.push('', 'Worst over the band');
+  lines.push('  port        return loss dB   at             VSWR');
+  for (const p of s.ports) lines.push(`  ${p.name.padEnd(10)} ${db(p.returnLoss.value)}      ${fq(p.returnLoss.freq).padEnd(13)} ${p.vswr.value >= 1e11 ? '   (≥ |Γ| = 1)' : p.vswr.value.toFixed(3).padStart(8)}`);
+  if (s.paths.length) {
+    lines.push(`  path from ${r.ports[input].name}   insertion loss dB (best … worst)`);
+    for (const p of s.paths.slice(0, 16)) lines.push(`  → ${p.to.padEnd(10)} ${db(p.insertionLoss.best.value)} … ${db(p.insertionLoss.worst.value).trim()}`);
+    if (s.paths.length > 16) lines.push(`  … and ${s.paths.length - 16} more paths (use --json for all)`);
+  }
+  if (s.pairs.length) {
+    const shown = s.pairs.length > 12 ? [...s.pairs].sort((a, b) => Math.abs(b.phaseBalance.value) - Math.abs(a.phaseBalance.value)).slice(0, 12) : s.pairs;
+    lines.push('  outputs        isolation dB   amplitude balance dB   phase balance °');
+    for (const p of shown) lines.push(`  ${`${p.a}/${p.b}`.padEnd(14)} ${db(p.isolation.value)}       ${fix(p.amplitudeBalance.value, 3).padStart(8)}            ${fix(p.phaseBalance.value, 2).padStart(8)}`);
+    if (s.pairs.length > shown.length) lines.push(`  (the ${shown.length} pairs of largest phase imbalance of ${s.pairs.length}; use --json for all)`);
+  }
+  if (l.f0 !== undefined) {
+    const k = r.freqs.reduce((b, f, i) => (Math.abs(f - l.f0!) < Math.abs(r.freqs[b] - l.f0!) ? i : b), 0);
+    lines.push('', `At ${fq(r.freqs[k])}${r.freqs[k] !== l.f0 ? ` (nearest point to f0 = ${fq(l.f0)})` : ' (f0)'}`);
+    lines.push(`  port        |S| dB from ${r.ports[input].name.padEnd(8)} phase °    group delay ns`);
+    for (let j = 0; j < Math.min(P, 17); j++) {
+      const mag = magnitudeDb(r, j, input)[k], ph = phaseDeg(r, j, input)[k], gd = groupDelay(r, j, input)[k];
+      lines.push(`  ${r.ports[j].name.padEnd(10)} ${db(mag)}   ${(((ph + 180) % 360 + 360) % 360 - 180).toFixed(2).padStart(9)}   ${F > 1 ? (gd * 1e9).toFixed(4).padStart(10) : '         -'}`);
+    }
+    if (P > 17) lines.push(`  … and ${P - 17} more ports (use --json for all)`);
+  }
+  return lines.join('\n');
+}
+
+class WriteError extends Error {}
+
+/** Write to a temporary file beside the target, flush, then rename: a crash never leaves half a file. */
+function atomicWrite(path: string, text: string): void {
+  const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.tmp`);
+  let fd: number | null = null;
+  try {
+    fd = openSync(tmp, 'wx', 0o644);
+    writeSync(fd, text);
+    fsyncSync(fd);
+    closeSync(fd);
+    fd = null;
+    renameSync(tmp, path);
+  } catch (e) {
+    if (fd !== null) try { closeSync(fd); } catch { /* already failing */ }
+    try { unlinkSync(tmp); } catch { /* nothing to clean */ }
+    throw new WriteError(`could not write ${path}: ${(e as Error).message}`);
+  }
+}

@@ -1,0 +1,109 @@
+/**
+ * `stripwright sweep` end to end: runs the CLI from source (cli() helper of cli-basics.test.ts). The numbers are
+ * checked against the core solved in-process and, for the Touchstone file, against Debian's scikit-rf reading it.
+ */
+import { describe, expect, it } from 'vitest';
+import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { cli } from './cli-basics.test.ts';
+import { python } from '../reference/network-oracle.ts';
+import { parseDesign } from '../../core/design/index.ts';
+import { sizeDesign } from '../../core/layout/index.ts';
+import { netlistFromSized, solveNetwork, sweepFrequencies } from '../../core/network/index.ts';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+const WILK = join(ROOT, 'assets', 'examples', 'wilkinson-2g45.json');
+const dir = mkdtempSync(join(tmpdir(), 'sw-sweep-'));
+
+describe('stripwright sweep', () => {
+  it('prints a summary: worst figures over the band and the values at f0', () => {
+    const r = cli(['sweep', WILK]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/201 points, 2\.4 GHz – 2\.5 GHz/);
+    expect(r.stdout).toMatch(/Worst over the band/);
+    expect(r.stdout).toMatch(/At 2\.45 GHz \(f0\)/);
+    expect(r.stdout).toMatch(/o1\/o2/);
+  });
+  it('--json holds the frequencies, S as re/im and the figures, equal to the core solved in-process', () => {
+    const r = cli(['sweep', WILK, '--from', '2.3GHz', '--to', '2.6GHz', '--points', '31', '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(j.frequencies).toHaveLength(31);
+    expect(j.frequencies[0]).toBe(2.3e9);
+    expect(j.s.re).toHaveLength(31);
+    expect(j.s.re[0]).toHaveLength(3);
+    const doc = parseDesign(readFileSync(WILK, 'utf8'));
+    if (!doc.ok) throw new Error('example does not parse');
+    const own = solveNetwork(netlistFromSized(sizeDesign(doc.doc)), sweepFrequencies({ start: 2.3e9, stop: 2.6e9, points: 31 }));
+    for (let k = 0; k < 31; k++) for (let i = 0; i < 3; i++) for (let q = 0; q < 3; q++) {
+      const t = 2 * ((k * 3 + i) * 3 + q);
+      expect(j.s.re[k][i][q]).toBe(own.s[t]);
+      expect(j.s.im[k][i][q]).toBe(own.s[t + 1]);
+    }
+    expect(j.figures.paths.map((p: { to: string }) => p.to)).toEqual(['o1', 'o2']);
+    expect(j.figures.pairs[0].isolationDb).toHaveLength(31);
+    expect(j.worst.ports[0].name).toBe('in');
+  });
+  it('--out writes Touchstone 1.1 that scikit-rf reads back to the same S as --json (formats.md §5.2)', () => {
+    const out = join(dir, 'wilk.s3p');
+    const w = cli(['sweep', WILK, '--points', '11', '--out', out]);
+    expect(w.code).toBe(0);
+    expect(w.stdout).toMatch(/wrote .*wilk\.s3p/);
+    const text = readFileSync(out, 'utf8');
+    expect(text).toMatch(/^! stripwright /);
+    expect(text).toMatch(/^# GHz S RI R 50$/m);
+    const j = JSON.parse(cli(['sweep', WILK, '--points', '11', '--json']).stdout);
+    const back = JSON.parse(python('skrf_read.py', '', [out])) as { s: number[][][][]; f: number[] };
+    expect(back.f).toEqual(j.frequencies);
+    back.s.forEach((m, k) => m.forEach((row, i) => row.forEach(([re, im], q) => {
+      expect(Math.abs(re - j.s.re[k][i][q]) + Math.abs(im - j.s.im[k][i][q])).toBeLessThan(1e-12);
+    })));
+  });
+  it('never replaces a file without --force, and says so', () => {
+    const out = join(dir, 'keep.s3p');
+    writeFileSync(out, 'mine');
+    const r = cli(['sweep', WILK, '--points', '3', '--out', out]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/not replacing .*--force/);
+    expect(readFileSync(out, 'utf8')).toBe('mine');
+    expect(cli(['sweep', WILK, '--points', '3', '--out', out, '--force']).code).toBe(0);
+    expect(readFileSync(out, 'utf8')).toMatch(/^! stripwright/);
+  });
+  it('refuses an --out name whose extension does not match the port count', () => {
+    const out = join(dir, 'wrong.s2p');
+    const r = cli(['sweep', WILK, '--points', '3', '--out', out]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/should end in \.s3p/);
+    expect(existsSync(out)).toBe(false);
+  });
+  it('summarises a Touchstone file given instead of a design', () => {
+    const out = join(dir, 'again.s3p');
+    cli(['sweep', WILK, '--points', '5', '--out', out]);
+    const r = cli(['sweep', out]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/Touchstone file "again\.s3p": 5 points/);
+  });
+  it('bad command lines exit 2 with the reason; bad files exit 1 with the reason', () => {
+    expect(cli(['sweep']).code).toBe(2);
+    const pts = cli(['sweep', WILK, '--points', 'many']);
+    expect(pts.code).toBe(2);
+    expect(pts.stderr).toMatch(/--points must be a whole number/);
+    expect(cli(['sweep', WILK, '--format', 'xy', '--out', 'x.s3p']).stderr).toMatch(/--format must be one of ri, ma, db/);
+    expect(cli(['sweep', WILK, '--from', '3 apples']).code).toBe(2);
+    expect(cli(['sweep', WILK, '--frobnicate']).code).toBe(2);
+    const missing = cli(['sweep', join(dir, 'nope.json')]);
+    expect(missing.code).toBe(1);
+    expect(missing.stderr).toMatch(/no such file/);
+    const bad = join(dir, 'bad.json');
+    writeFileSync(bad, '{"format": "stripwright-design", "version": 1');
+    const b = cli(['sweep', bad]);
+    expect(b.code).toBe(1);
+    expect(b.stderr).toMatch(/not a valid design/);
+    const ts = join(dir, 'short.s2p');
+    writeFileSync(ts, '# GHz S RI R 50\n1 0 0 1 0 1 0 0\n');
+    const t = cli(['sweep', ts]);
+    expect(t.code).toBe(1);
+    expect(t.stderr).toMatch(/short\.s2p:2/);
+  });
+});
