@@ -1,0 +1,163 @@
+/**
+ * Panels of the board editor in happy-dom, with the core doing the real sizing (run inline, as the worker would).
+ * Outside references:
+ *  - practice.md scenario S1 (our own [calc] estimates for 1.6 mm FR-4, εr 4.4, at 5.8 GHz): 50 Ω ≈ 3.0 mm wide,
+ *    70.7 Ω ≈ 1.57–1.60 mm wide and ≈ 7.2 mm for a quarter-wave. Checked to ±5 % (they are estimates).
+ *  - Units: 1 mil = 25.4 µm exactly (international inch, 1959).
+ *  - The microstrip fact that Z0 rises as the strip narrows (Hammerstad & Jensen 1980, and every model since).
+ */
+import { describe, expect, it, vi, beforeAll } from 'vitest';
+import { render, fireEvent, screen } from '@testing-library/svelte';
+import { flushSync } from 'svelte';
+import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
+import { exampleText } from '../../renderer/src/state/examples.ts';
+import { layoutJob } from '../../renderer/src/worker/jobs.ts';
+import { figuresFrom, placedFrom } from '../../renderer/src/state/layoutView.ts';
+import PieceSheet from '../../renderer/src/components/PieceSheet.svelte';
+import PathLedger from '../../renderer/src/components/PathLedger.svelte';
+import PieceList from '../../renderer/src/components/PieceList.svelte';
+import StackPanel from '../../renderer/src/components/StackPanel.svelte';
+import CommandFinder from '../../renderer/src/components/CommandFinder.svelte';
+import type { AppCommand } from '../../renderer/src/state/appCommand.ts';
+
+vi.mock('uplot', () => ({ default: class { destroy() {} } }));
+
+async function sized(ed: EditorState): Promise<void> {
+  const out = await layoutJob({ doc: ed.doc }, () => {});
+  ed.applyLayout({ revision: ed.revision, sized: out.sized, outlines: out.outlines, drills: out.drills, paths: out.paths, placed: placedFrom(out.sized), figures: figuresFrom(out.sized), ms: 0 }, out.geometryError);
+  flushSync();
+}
+
+function demoEditor(): EditorState {
+  const ed = new EditorState();
+  const err = ed.loadText(exampleText('demo')!, null);
+  expect(err).toBeNull();
+  return ed;
+}
+
+const mm = (text: string) => parseFloat(text.replace(/[^\d.]/g, ''));
+
+describe('piece sheet', () => {
+  let ed: EditorState;
+  beforeAll(async () => { ed = demoEditor(); await sized(ed); });
+
+  it('shows the sized 50 Ω feed near the width practice.md S1 estimates (≈3.0 mm, ±5 %)', async () => {
+    ed.select(['feed']);
+    render(PieceSheet, { editor: ed });
+    expect(mm(screen.getByTestId('fig-width').textContent!)).toBeGreaterThan(2.85);
+    expect(mm(screen.getByTestId('fig-width').textContent!)).toBeLessThan(3.15);
+  });
+
+  it('shows the 70.7 Ω quarter-wave at ≈1.57–1.60 mm and ≈7.2 mm (practice.md S1, ±5 %), 90° at f0', () => {
+    ed.select(['qwl']);
+    render(PieceSheet, { editor: ed });
+    const w = mm(screen.getByTestId('fig-width').textContent!);
+    expect(w).toBeGreaterThan(1.57 * 0.95);
+    expect(w).toBeLessThan(1.6 * 1.05);
+    const l = mm(screen.getByTestId('fig-length').textContent!);
+    expect(l).toBeGreaterThan(7.2 * 0.95);
+    expect(l).toBeLessThan(7.2 * 1.05);
+    expect(screen.getByTestId('fig-deg').textContent).toBe('90.0°');
+  });
+
+  it('a typed Z0 with units becomes one undoable edit; a higher Z0 sizes a narrower line', async () => {
+    ed.select(['feed']);
+    render(PieceSheet, { editor: ed });
+    const before = mm(screen.getByTestId('fig-width').textContent!);
+    const field = screen.getByTestId('field-z0') as HTMLInputElement;
+    await fireEvent.focus(field);
+    await fireEvent.input(field, { target: { value: '75 ohm' } });
+    const seg = ed.doc.segments.find((s) => s.id === 'feed')!;
+    expect(seg.kind === 'line' && seg.width.by === 'z0' && seg.width.z0).toBe(75);
+    await sized(ed);
+    expect(mm(screen.getByTestId('fig-width').textContent!)).toBeLessThan(before);
+    ed.undo();
+    const back = ed.doc.segments.find((s) => s.id === 'feed')!;
+    expect(back.kind === 'line' && back.width.by === 'z0' && back.width.z0).toBe(50);
+  });
+
+  it('refuses text that is not a quantity, says what was expected, and leaves the design alone', async () => {
+    ed.select(['feed']);
+    render(PieceSheet, { editor: ed });
+    const rev = ed.revision;
+    const field = screen.getByTestId('field-z0') as HTMLInputElement;
+    await fireEvent.focus(field);
+    await fireEvent.input(field, { target: { value: '50 furlongs' } });
+    expect(screen.getByTestId('field-z0-error').textContent).toMatch(/expected .*impedance/);
+    expect(ed.revision).toBe(rev);
+  });
+
+  it('lengths typed in mil arrive in metres (1 mil = 25.4 µm)', async () => {
+    ed.select(['feed']);
+    render(PieceSheet, { editor: ed });
+    await fireEvent.click(screen.getByTestId('length-by-length'));
+    const field = screen.getByTestId('field-length') as HTMLInputElement;
+    await fireEvent.focus(field);
+    await fireEvent.input(field, { target: { value: '400 mil' } });
+    const seg = ed.doc.segments.find((s) => s.id === 'feed')!;
+    expect(seg.kind === 'line' && seg.length.by === 'length' && seg.length.length).toBeCloseTo(400 * 25.4e-6, 12);
+  });
+});
+
+describe('path ledger and piece list', () => {
+  it('lists the four outputs of the demo feed in phase (all equal by symmetry) and marks a path pushed out of tolerance', async () => {
+    const ed = demoEditor();
+    await sized(ed);
+    render(PathLedger, { editor: ed });
+    const rows = screen.getByTestId('path-ledger').querySelectorAll('tbody tr');
+    expect(rows.length).toBe(4);
+    expect(screen.queryAllByText('out of tolerance').length).toBe(0);
+    // Fix one branch at 200° at f0 instead of its drawn length: its output moves far outside the group's ±5°.
+    const seg = ed.doc.segments.find((s) => s.id === 'br1')!;
+    ed.updateSegment(seg.id, { length: { by: 'degrees', deg: 200 } });
+    await sized(ed);
+    expect(screen.queryAllByText('out of tolerance').length).toBeGreaterThan(0);
+  });
+
+  it('the piece list shows every segment, and clicking one selects it', async () => {
+    const ed = demoEditor();
+    await sized(ed);
+    render(PieceList, { editor: ed });
+    expect(screen.getByTestId('piece-list').querySelectorAll('tbody tr').length).toBe(ed.doc.segments.length);
+    await fireEvent.click(screen.getByTestId('piece-row-qwl'));
+    expect([...ed.selection]).toEqual(['qwl']);
+  });
+});
+
+describe('stack panel', () => {
+  it('a new laminate height typed in mil is stored in metres and can be undone', async () => {
+    const ed = demoEditor();
+    render(StackPanel, { editor: ed });
+    const h = screen.getByTestId('field-h') as HTMLInputElement;
+    await fireEvent.focus(h);
+    await fireEvent.input(h, { target: { value: '31 mil' } });
+    expect(ed.doc.substrate.h).toBeCloseTo(31 * 25.4e-6, 12);
+    ed.undo();
+    expect(ed.doc.substrate.h).toBe(1.6e-3);
+  });
+
+  it('shows the dust caution for milling glass-fibre laminate', () => {
+    const ed = demoEditor();
+    render(StackPanel, { editor: ed });
+    expect(screen.getByTestId('stack-panel').textContent).toMatch(/dust/);
+  });
+});
+
+describe('command finder', () => {
+  it('finds commands by a few letters and runs the chosen one with Enter', async () => {
+    const ran: string[] = [];
+    const cmds: AppCommand[] = [
+      { id: 'a', group: 'View', label: 'Zoom to fit', run: () => { ran.push('fit'); } },
+      { id: 'b', group: 'Edit', label: 'Undo', run: () => { ran.push('undo'); } },
+      { id: 'c', group: 'Edit', label: 'Redo', enabled: () => false, run: () => { ran.push('redo'); } },
+    ];
+    let closed = false;
+    render(CommandFinder, { commands: cmds, onclose: () => { closed = true; } });
+    const input = screen.getByLabelText('Search commands');
+    await fireEvent.input(input, { target: { value: 'zf' } });
+    expect(screen.getAllByRole('option').length).toBe(1);
+    await fireEvent.keyDown(input, { key: 'Enter' });
+    expect(ran).toEqual(['fit']);
+    expect(closed).toBe(true);
+  });
+});
