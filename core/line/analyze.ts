@@ -11,16 +11,15 @@
  * reported is √(αskin² + αdc²), a heuristic blend that is continuous in f and t, adds about 1 % at t = 3δ and falls
  * as (δ/t)² above; below t = 3δ a thin-conductor warning flags the result as approximate.
  */
-import { C0, MU0, NP_TO_DB } from '../units/constants.ts';
+import { C0, ETA0, MU0, NP_TO_DB } from '../units/constants.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import { DEBYE_F_HIGH, DEBYE_F_LOW, widebandDebyeAt } from '../substrate/wideband-debye.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import { evaluateModel, scratch } from './model.ts';
 import { checkConductorLoss, checkDispersion, checkFrequency, checkQuasiTem, checkSubstrate, checkWidth } from './inputs.ts';
-import { wheelerIncrementalAlphaC } from './wheeler-incremental-inductance.ts';
+import { wheelerBracket } from './wheeler-incremental-inductance.ts';
 import { currentDistributionAlphaC } from './current-distribution-loss.ts';
 import { hammerstadBekkadalKr } from './hammerstad-bekkadal-roughness.ts';
-import { fillingFactorAlphaD } from './filling-factor-dielectric-loss.ts';
 import { thresholdsFor } from './mode-thresholds.ts';
 import { KJ1982_RANGE } from './kirschning-jansen-1982.ts';
 import { JK1983_RANGE } from './jansen-kirschning-1983.ts';
@@ -34,6 +33,18 @@ export function dielectricAt(sub: SubstrateSpec, f: number): { er: number; tanDe
 }
 
 function fmt(x: number): string { return String(Number(x.toPrecision(4))); }
+
+// Skin-effect terms depend only on f, σ and roughness: remembered for the last values (sweeps repeat them).
+let mF = Number.NaN; let mSigma = Number.NaN; let mRough = Number.NaN;
+let mRs = 0; let mSkin = 0; let mKr = 1;
+function skinTerms(f: number, sigma: number, rough: number): void {
+  if (f === mF && sigma === mSigma && rough === mRough) return;
+  mF = f; mSigma = sigma; mRough = rough;
+  const k = Math.PI * f * MU0 * sigma; // 1/δ²
+  mRs = Math.sqrt((Math.PI * f * MU0) / sigma);
+  mSkin = f > 0 ? 1 / Math.sqrt(k) : 0;
+  mKr = hammerstadBekkadalKr(rough * rough * k);
+}
 
 /**
  * Analyses a strip of `width` (m) on `sub` at `f` (Hz; 0 for static values).
@@ -67,7 +78,7 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   const u = width / h;
   const tn = t / h;
   const z0 = evaluateModel(u, tn, er, h, f, disp);
-  const z0s = scratch.z0s; const ees = scratch.ees; const eef = scratch.eef; const u1 = scratch.u1; const ur = scratch.ur;
+  const z0s = scratch.z0s; const ees = scratch.ees; const eef = scratch.eef; const ur = scratch.ur;
 
   // Wave quantities.
   const sq = Math.sqrt(eef);
@@ -77,13 +88,13 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
 
   // Conductor loss.
   const sigma = sub.sigma;
-  const k = Math.PI * f * MU0 * sigma; // 1/δ²
-  const rs = Math.sqrt((Math.PI * f * MU0) / sigma);
-  const skinDepth = f > 0 ? 1 / Math.sqrt(k) : 0;
-  const kr = hammerstadBekkadalKr(sub.roughness * sub.roughness * k);
+  skinTerms(f, sigma, sub.roughness);
+  const rs = mRs; const skinDepth = mSkin; const kr = mKr;
   let alphaSkin: number;
   if (f === 0) alphaSkin = 0;
-  else if (lossModel === 0 && t > 0) alphaSkin = kr * wheelerIncrementalAlphaC(u, tn, u1, h, rs, z0s);
+  else if (lossModel === 0 && t > 0) {
+    alphaSkin = kr * (rs / (ETA0 * z0s)) * (wheelerBracket(u, tn, scratch.s, scratch.T, scratch.X, scratch.lnX1, scratch.slopeU1) / h);
+  }
   else {
     alphaSkin = kr * currentDistributionAlphaC(rs, z0, width);
     if (lossModel === 0) {
@@ -92,7 +103,7 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   }
   const alphaDc = t > 0 ? 1 / (sigma * width * t) / (2 * z0s) : 0;
   const alphaC = alphaDc === 0 ? alphaSkin : Math.sqrt(alphaSkin * alphaSkin + alphaDc * alphaDc);
-  const alphaD = f > 0 && tanDelta > 0 ? fillingFactorAlphaD(f, er, eef, tanDelta) : 0;
+  const alphaD = f > 0 && tanDelta > 0 ? ((Math.PI * f) / C0) * (er / sq) * ((eef - 1) / (er - 1)) * tanDelta : 0; // fillingFactorAlphaD, inlined
 
   // Limits, as data.
   const thresholds = thresholdsFor(er, h, width);

@@ -15,27 +15,42 @@ import { ETA0 } from '../units/constants.ts';
 
 const TWO_PI = 2 * Math.PI;
 const E = Math.E;
+const LN_30666 = Math.log(30.666);
+const Z_SCALE = ETA0 / TWO_PI;
 
-/** f(u) of eq. (1). */
-function fu(u: number): number {
-  return 6 + (TWO_PI - 6) * Math.exp(-Math.pow(30.666 / u, 0.7528));
-}
+// Powers are written as exp(k·ln x) (same value to ~1e-15, about twice as fast as Math.pow here).
 
-/** Air-filled, zero-thickness line impedance Z01(u), Ω — eq. (1). */
+/** Air-filled, zero-thickness line impedance Z01(u), Ω — eq. (1), with f(u) = 6 + (2π − 6)·exp(−(30.666/u)^0.7528). */
 export function hjZ01(u: number): number {
-  return (ETA0 / TWO_PI) * Math.log(fu(u) / u + Math.sqrt(1 + 4 / (u * u)));
+  const f = 6 + (TWO_PI - 6) * Math.exp(-Math.exp(0.7528 * (LN_30666 - Math.log(u))));
+  return Z_SCALE * Math.log(f / u + Math.sqrt(1 + 4 / (u * u)));
 }
 
-/** dZ01/du, Ω — analytic derivative of eq. (1), used by Wheeler's incremental-inductance rule. */
-export function hjZ01Derivative(u: number): number {
-  const q = Math.pow(30.666 / u, 0.7528);
+/** Z01(u) and its slope dZ01/du in one pass; the slope is left in `hjSlope.value` (used by Wheeler's rule). */
+export const hjSlope = { value: 0 };
+export function hjZ01WithSlope(u: number): number {
+  const q = Math.exp(0.7528 * (LN_30666 - Math.log(u)));
   const eq = Math.exp(-q);
   const f = 6 + (TWO_PI - 6) * eq;
   const df = (TWO_PI - 6) * eq * 0.7528 * q / u;
   const r = Math.sqrt(1 + 4 / (u * u));
   const g = f / u + r;
-  const dg = df / u - f / (u * u) - 4 / (u * u * u * r);
-  return (ETA0 / TWO_PI) * dg / g;
+  hjSlope.value = Z_SCALE * (df / u - f / (u * u) - 4 / (u * u * u * r)) / g;
+  return Z_SCALE * Math.log(g);
+}
+
+/** dZ01/du, Ω — analytic derivative of eq. (1). */
+export function hjZ01Derivative(u: number): number {
+  hjZ01WithSlope(u);
+  return hjSlope.value;
+}
+
+let bEr = Number.NaN;
+let bVal = 0;
+/** b(εr) of eq. (5), remembered for the last εr (substrate-only term). */
+function bOf(er: number): number {
+  if (er !== bEr) { bEr = er; bVal = 0.564 * Math.exp(0.053 * Math.log((er - 0.9) / (er + 3))); }
+  return bVal;
 }
 
 /** Effective permittivity εe(u, εr) of the zero-thickness line — eqs. (3)–(5). */
@@ -43,20 +58,29 @@ export function hjEpsEff(u: number, er: number): number {
   const u2 = u * u;
   const u4 = u2 * u2;
   const a = 1 + Math.log((u4 + u2 / 2704) / (u4 + 0.432)) / 49 + Math.log(1 + (u * u2) / 5929.741) / 18.7;
-  const b = 0.564 * Math.pow((er - 0.9) / (er + 3), 0.053);
-  return (er + 1) / 2 + ((er - 1) / 2) * Math.pow(1 + 10 / u, -a * b);
+  return (er + 1) / 2 + ((er - 1) / 2) * Math.exp(-a * bOf(er) * Math.log(1 + 10 / u));
 }
+
+/** Intermediate values of the thickness correction, kept for Wheeler's rule (eq. 6: s = √(6.517u), T = tanh s). */
+export const hjThickness = { s: 0, T: 0, X: 0, lnX1: 0 };
 
 /** Δu1 of eq. (6): the air line's width increment for normalised thickness tn (0 when tn = 0). */
 export function hjDeltaU1(u: number, tn: number): number {
   if (tn <= 0) return 0;
-  const th = Math.tanh(Math.sqrt(6.517 * u));
-  return (tn / Math.PI) * Math.log(1 + (4 * E * th * th) / tn);
+  const s = Math.sqrt(6.517 * u);
+  const T = s > 20 ? 1 : 1 - 2 / (Math.exp(2 * s) + 1); // tanh s
+  const X = (4 * E * T * T) / tn;
+  const lnX1 = Math.log(1 + X);
+  hjThickness.s = s; hjThickness.T = T; hjThickness.X = X; hjThickness.lnX1 = lnX1;
+  return (tn / Math.PI) * lnX1;
 }
 
-/** Δur of eq. (7): the dielectric line's width increment. */
+let cEr = Number.NaN;
+let cVal = 0;
+/** Δur of eq. (7): the dielectric line's width increment (its εr factor remembered for the last εr). */
 export function hjDeltaUr(du1: number, er: number): number {
-  return 0.5 * (1 + 1 / Math.cosh(Math.sqrt(er - 1))) * du1;
+  if (er !== cEr) { cEr = er; cVal = 0.5 * (1 + 1 / Math.cosh(Math.sqrt(er - 1))); }
+  return cVal * du1;
 }
 
 /** Static result of the model. */

@@ -12,34 +12,60 @@
 
 export const JK1983_RANGE = { uMin: 0.1, uMax: 10, erMax: 18, fnMax: 15 } as const;
 
-/** exp(−x) with x clamped at 700 so that huge exponents (u⁷ at u = 1000) stay finite. */
+/** exp(−x), skipping the call where it underflows to 0 anyway (u⁷ at u = 1000 gives x ≈ 3e20). */
 function expNeg(x: number): number {
-  return Math.exp(-(x > 700 ? 700 : x));
+  return x > 746 ? 0 : Math.exp(-x);
 }
+const LN_18365 = Math.log(18.365);
+const LN_123 = Math.log(12.3);
 
-/** Z0(f), Ω. */
+// Terms of εr only, of fn only, and of both, remembered for the last values (pure functions of their inputs).
+let mEr = Number.NaN; let eR1 = 0; let R4 = 0; let er1674 = 0; let R10 = 0; let eTerm = 0; let er2 = 0;
+let mFn = Number.NaN; let lnFn = 0; let R5 = 0; let R11 = 0; let fn2745 = 0; let mFnEr = Number.NaN;
+let R9 = 0; let e17 = 0;
+
+/** Z0(f), Ω (fn > 0). */
 export function jansenKirschningZ0(u: number, er: number, ee0: number, eef: number, fn: number, z00: number): number {
+  let newEr = false;
+  if (er !== mEr) {
+    mEr = er; newEr = true;
+    eR1 = expNeg(0.03891 * Math.exp(1.4 * Math.log(er)));            // exp(−R1)
+    R4 = 0.016 + Math.exp(4.524 * Math.log(0.0514 * er));
+    er1674 = Math.exp(1.674 * Math.log(er));
+    R10 = 0.00044 * Math.exp(2.136 * Math.log(er)) + 0.0184;
+    const e1 = er - 1; const e2 = e1 * e1; const e6 = e2 * e2 * e2;
+    eTerm = e6 / (1 + 10 * e6);
+    er2 = er * er;
+  }
+  if (fn !== mFn) {
+    mFn = fn;
+    lnFn = Math.log(fn);
+    const a5 = fn / 28.843; const a5_2 = a5 * a5; const a5_4 = a5_2 * a5_2;
+    R5 = a5_4 * a5_4 * a5_4;
+    const a11 = fn / 19.47; const a11_2 = a11 * a11; const a11_6 = a11_2 * a11_2 * a11_2;
+    R11 = a11_6 / (1 + 0.0962 * a11_6);
+    fn2745 = Math.exp(2.745 * (lnFn - LN_18365));
+    mFnEr = Number.NaN; // the (εr, fn) terms below must be redone
+  }
+  if (newEr || mFnEr !== mFn) {
+    mFnEr = mFn;
+    R9 = ((5.086 * R4 * R5) / (0.3838 + 0.386 * R4)) / (1 + 1.2992 * R5) * eTerm; // × exp(−R6) per width
+    const R15 = 0.707 * R10 * Math.exp(1.097 * (lnFn - LN_123));
+    e17 = Math.exp(-0.026 * Math.exp(1.15656 * lnFn) - R15); // the frequency factor of R17
+  }
+  const lnU = Math.log(u);
   const u2 = u * u; const u4 = u2 * u2;
-  const R1 = 0.03891 * Math.pow(er, 1.4);
   const R2 = 0.267 * u4 * u2 * u;
-  const R3 = 4.766 * Math.exp(-3.228 * Math.pow(u, 0.641));
-  const R4 = 0.016 + Math.pow(0.0514 * er, 4.524);
-  const a5 = fn / 28.843; const a5_2 = a5 * a5; const a5_4 = a5_2 * a5_2;
-  const R5 = a5_4 * a5_4 * a5_4;
-  const R6 = 22.2 * Math.pow(u, 1.92);
-  const R7 = 1.206 - 0.3144 * expNeg(R1) * (1 - expNeg(R2));
-  const R8 = 1 + 1.275 * (1 - expNeg(0.004625 * R3 * Math.pow(er, 1.674) * Math.pow(fn / 18.365, 2.745)));
-  const e1 = er - 1; const e2 = e1 * e1; const e6 = e2 * e2 * e2;
-  const R9 = ((5.086 * R4 * R5) / (0.3838 + 0.386 * R4)) * (expNeg(R6) / (1 + 1.2992 * R5)) * (e6 / (1 + 10 * e6));
-  const R10 = 0.00044 * Math.pow(er, 2.136) + 0.0184;
-  const a11 = fn / 19.47; const a11_2 = a11 * a11; const a11_6 = a11_2 * a11_2 * a11_2;
-  const R11 = a11_6 / (1 + 0.0962 * a11_6);
+  const R3 = 4.766 * Math.exp(-3.228 * Math.exp(0.641 * lnU));
+  const R6 = 22.2 * Math.exp(1.92 * lnU);
+  const R7 = 1.206 - 0.3144 * eR1 * (1 - expNeg(R2));
+  const R8 = 1 + 1.275 * (1 - expNeg(0.004625 * R3 * er1674 * fn2745));
+  const R9u = R9 * expNeg(R6);
   const R12 = 1 / (1 + 0.00245 * u2);
-  const R13 = 0.9408 * Math.pow(eef, R8) - 0.9603;
-  const R14 = (0.9408 - R9) * Math.pow(ee0, R8) - 0.9603;
-  const R15 = 0.707 * R10 * Math.pow(fn / 12.3, 1.097);
+  const R13 = 0.9408 * Math.exp(R8 * Math.log(eef)) - 0.9603;
+  const R14 = (0.9408 - R9u) * Math.exp(R8 * Math.log(ee0)) - 0.9603;
   const w15 = u / 15; const w15_2 = w15 * w15;
-  const R16 = 1 + 0.0503 * er * er * R11 * (1 - expNeg(w15_2 * w15_2 * w15_2));
-  const R17 = R7 * (1 - 1.1241 * (R12 / R16) * expNeg(0.026 * Math.pow(fn, 1.15656) + R15));
-  return z00 * Math.pow(R13 / R14, R17);
+  const R16 = 1 + 0.0503 * er2 * R11 * (1 - expNeg(w15_2 * w15_2 * w15_2));
+  const R17 = R7 * (1 - 1.1241 * (R12 / R16) * e17);
+  return z00 * Math.exp(R17 * Math.log(R13 / R14));
 }

@@ -16,15 +16,28 @@
 /** KJ validity bounds. */
 export const KJ1982_RANGE = { uMin: 0.1, uMax: 100, erMax: 20, fnMax: 0.13 * 299.792458 } as const;
 
-/** εe(f) from the static εe0 (u dimensionless, er relative permittivity, fn in GHz·mm). */
+// Terms that depend only on εr or only on fn are remembered for the last value (sweeps and width searches repeat them).
+const LN_387 = Math.log(38.7);
+let mEr = Number.NaN; let P2 = 0; let P4 = 0;
+let mFn = Number.NaN; let c1 = 0; let F3 = 0;
+
+/** εe(f) from the static εe0 (u dimensionless, er relative permittivity, fn in GHz·mm > 0). */
 export function kirschningJansenEpsEff(u: number, er: number, ee0: number, fn: number): number {
-  const d = 1 + 0.0157 * fn;
-  const d2 = d * d; const d4 = d2 * d2; const d5 = d4 * d; const d10 = d5 * d5;
-  const P1 = 0.27488 + (0.6315 + 0.525 / (d10 * d10)) * u - 0.065683 * Math.exp(-8.7513 * u);
-  const P2 = 0.33622 * (1 - Math.exp(-0.03442 * er));
-  const P3 = 0.0363 * Math.exp(-4.6 * u) * (1 - Math.exp(-Math.pow(fn / 38.7, 4.97)));
-  const x = er / 15.916; const x2 = x * x; const x4 = x2 * x2;
-  const P4 = 1 + 2.751 * (1 - Math.exp(-(x4 * x4)));
-  const P = P1 * P2 * Math.pow((0.1844 + P3 * P4) * fn, 1.5763);
+  if (er !== mEr) {
+    mEr = er;
+    P2 = 0.33622 * (1 - Math.exp(-0.03442 * er));
+    const x = er / 15.916; const x2 = x * x; const x4 = x2 * x2;
+    P4 = 1 + 2.751 * (1 - Math.exp(-(x4 * x4)));
+  }
+  if (fn !== mFn) {
+    mFn = fn;
+    const d = 1 + 0.0157 * fn;
+    const d2 = d * d; const d4 = d2 * d2; const d5 = d4 * d; const d10 = d5 * d5;
+    c1 = 0.6315 + 0.525 / (d10 * d10);
+    F3 = 1 - Math.exp(-Math.exp(4.97 * (Math.log(fn) - LN_387)));
+  }
+  const P1 = 0.27488 + c1 * u - 0.065683 * Math.exp(-8.7513 * u);
+  const P3 = 0.0363 * Math.exp(-4.6 * u) * F3;
+  const P = P1 * P2 * Math.exp(1.5763 * Math.log((0.1844 + P3 * P4) * fn));
   return er - (er - ee0) / (1 + P);
 }

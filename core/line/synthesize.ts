@@ -35,7 +35,8 @@ export function synthesizeLine(sub: SubstrateSpec, z0: number, f: number, opts?:
   const h = sub.h;
   checkQuasiTem(f, er, h);
   const tn = sub.t / h;
-  const G = (x: number): number => evaluateModel(Math.exp(x), tn, er, h, f, disp) - z0;
+  // u is taken as (e^x·h)/h, exactly what the final analysis of the width e^x·h will see, so its evaluation is reused.
+  const G = (x: number): number => evaluateModel((Math.exp(x) * h) / h, tn, er, h, f, disp) - z0;
   const tol = REL_TOL * z0;
 
   const unreachable = (): never => {
@@ -58,15 +59,13 @@ export function synthesizeLine(sub: SubstrateSpec, z0: number, f: number, opts?:
   let done = Math.abs(g0) < tol;
   if (!done) {
     if (g0 > 0) { a = x0; aKnown = true; } else { b = x0; bKnown = true; }
-    const dx = 1e-6;
-    let x1 = x0 + dx;
-    let g1 = G(x1);
-    let slope = (g1 - g0) / dx;
-    x = x1;
-    done = Math.abs(g1) < tol;
-    for (let i = 0; i < MAX_ITER && !done; i++) {
-      if (g1 > 0) { if (x1 > a) { a = x1; aKnown = true; } } else if (x1 < b) { b = x1; bKnown = true; }
-      let xn = slope < 0 ? x1 - g1 / slope : NaN;
+    // First step: the slope dx/dZ0 of the closed form (cheap, and close to the model's), then secant steps.
+    const seedUp = hammerstad1975WidthRatio(z0 * 1.001, er);
+    const dxdz = seedUp > 0 && seed > 0 ? Math.log(seedUp / seed) / (0.001 * z0) : Number.NaN;
+    let slope = dxdz < 0 && Number.isFinite(dxdz) ? 1 / dxdz : Number.NaN;
+    let x1 = x0; let g1 = g0;
+    for (let i = 0; i < MAX_ITER; i++) {
+      let xn = slope < 0 ? x1 - g1 / slope : Number.NaN;
       if (!(xn > a && xn < b)) {
         // The step leaves the bracket: make sure the far end brackets the root, then bisect.
         if (!aKnown) { const ga = G(a); if (ga < 0) unreachable(); if (Math.abs(ga) < tol) { x = a; done = true; break; } aKnown = true; }
@@ -76,8 +75,9 @@ export function synthesizeLine(sub: SubstrateSpec, z0: number, f: number, opts?:
       const gn = G(xn);
       x = xn;
       if (Math.abs(gn) < tol || b - a < 1e-14) { done = true; break; }
+      if (gn > 0) { if (xn > a) { a = xn; aKnown = true; } } else if (xn < b) { b = xn; bKnown = true; }
       slope = (gn - g1) / (xn - x1);
-      x0 = x1; g0 = g1; x1 = xn; g1 = gn;
+      x1 = xn; g1 = gn;
     }
   }
   if (!done) {

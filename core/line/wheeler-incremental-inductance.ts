@@ -13,21 +13,27 @@
  * unbounded loss in this rule). Roughness is applied by the caller. Units: Rs Ω, h m, Z0 Ω, result Np/m.
  */
 import { ETA0 } from '../units/constants.ts';
-import { hjZ01Derivative } from './hammerstad-jensen-1980.ts';
+import { hjDeltaU1, hjThickness, hjZ01Derivative } from './hammerstad-jensen-1980.ts';
 
 const FOUR_E = 4 * Math.E;
 
-/** The bracket (∂Z0a/∂h − ∂Z0a/∂W − ∂Z0a/∂t)·h, Ω, for u = W/h, tn = t/h > 0 and u1 = u + Δu1. */
-export function wheelerGeometryFactor(u: number, tn: number, u1: number): number {
-  const s = Math.sqrt(6.517 * u);
-  const T = Math.tanh(s);
-  const X = (FOUR_E * T * T) / tn;
+/**
+ * The bracket (∂Z0a/∂h − ∂Z0a/∂W − ∂Z0a/∂t)·h, Ω, from the thickness-correction intermediates of eq. (6)
+ * (s = √(6.517u), T = tanh s, X = 4e·T²/tn, lnX1 = ln(1 + X)) and slopeU1 = dZ01/du at u1.
+ */
+export function wheelerBracket(u: number, tn: number, s: number, T: number, X: number, lnX1: number, slopeU1: number): number {
   const A = 1 + (FOUR_E * 6.517 * T * (1 - T * T)) / (Math.PI * s * (1 + X));
-  const B = (Math.log(1 + X) - X / (1 + X)) / Math.PI;
-  return -hjZ01Derivative(u1) * ((1 + u) * A + (1 + tn) * B);
+  const B = (lnX1 - X / (1 + X)) / Math.PI;
+  return -slopeU1 * ((1 + u) * A + (1 + tn) * B);
 }
 
-/** αc, Np/m, without roughness. rs surface resistance Ω, h m, z0Static Ω. */
-export function wheelerIncrementalAlphaC(u: number, tn: number, u1: number, h: number, rs: number, z0Static: number): number {
-  return (rs / (ETA0 * z0Static)) * (wheelerGeometryFactor(u, tn, u1) / h);
+/**
+ * αc, Np/m, without roughness, for u = W/h and tn = t/h > 0; rs surface resistance Ω, h m, z0Static Ω.
+ * (The analysis uses wheelerBracket with the intermediates it already has; this form computes them.)
+ */
+export function wheelerIncrementalAlphaC(u: number, tn: number, h: number, rs: number, z0Static: number): number {
+  const du1 = hjDeltaU1(u, tn);
+  const { s, T, X, lnX1 } = hjThickness;
+  const slope = hjZ01Derivative(u + du1);
+  return (rs / (ETA0 * z0Static)) * (wheelerBracket(u, tn, s, T, X, lnX1, slope) / h);
 }
