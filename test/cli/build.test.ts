@@ -1,0 +1,63 @@
+import { describe, expect, it } from 'vitest';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { cli } from './cli-basics.test.ts';
+
+const EX = join(import.meta.dirname, '..', '..', 'assets', 'examples');
+
+describe('stripwright build', () => {
+  it('prints the sized pieces, paths and findings for a valid design and exits 0', () => {
+    const r = cli(['build', join(EX, 'wilkinson-2g45.json')]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/piece\s+kind\s+Z0 Ω\s+W mm\s+L mm\s+deg/);
+    expect(r.stdout).toMatch(/arma1\s+line\s+70\.71/);
+    expect(r.stdout).toMatch(/Paths: Outputs balanced/);
+    expect(r.stdout).toMatch(/Result: can be built as drawn\./);
+  });
+  it('--json gives the documented fields', () => {
+    const r = cli(['build', join(EX, 'open-stub-match.json'), '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(j.ok).toBe(true);
+    const stub = j.pieces.find((p: { id: string }) => p.id === 'stub');
+    for (const k of ['id', 'kind', 'z0_ohm', 'width_m', 'length_m', 'deg_at_f0', 'compensations']) expect(stub).toHaveProperty(k);
+    expect(stub.compensations.some((c: { model: string; applied: boolean }) => c.model === 'open-end' && c.applied)).toBe(true);
+    expect(j.paths[0].paths[0].to).toBe('load');
+    expect(Array.isArray(j.findings)).toBe(true);
+  });
+  it('exits 1 and lists the errors for a design that cannot be built', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-build-'));
+    const file = join(dir, 'bad.json');
+    const doc = JSON.parse(readFileSync(join(EX, 'open-stub-match.json'), 'utf8'));
+    // Make the stub far shorter than its open-end correction.
+    const stub = doc.segments.find((s: { id: string }) => s.id === 'stub');
+    stub.length = { by: 'length', length: 0.0001 };
+    writeFileSync(file, JSON.stringify(doc));
+    const r = cli(['build', file]);
+    expect(r.code).toBe(1);
+    expect(r.stdout).toMatch(/ERROR\s+layout: piece stub is 0\.100 mm long/);
+    expect(r.stderr).toMatch(/cannot be built as drawn/);
+    const j = JSON.parse(cli(['build', file, '--json']).stdout);
+    expect(j.ok).toBe(false);
+    expect(j.findings.find((f: { severity: string }) => f.severity === 'error').subjects).toEqual(['stub']);
+  });
+  it('exits 1 with the parser’s messages for a file that is not a design', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-build-'));
+    const file = join(dir, 'junk.json');
+    writeFileSync(file, '{"format": "something-else"}');
+    const r = cli(['build', file]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/is not a valid design/);
+    expect(cli(['build', join(dir, 'missing.json')]).stderr).toMatch(/no such file/);
+  });
+  it('exits 2 for a bad command line', () => {
+    expect(cli(['build']).code).toBe(2);
+    expect(cli(['build', 'a.json', 'b.json']).code).toBe(2);
+    const r = cli(['build', join(EX, 'demo.json'), '--tolerance', 'lots']);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/--tolerance expects a number/);
+    expect(cli(['build', join(EX, 'demo.json'), '--frobnicate']).code).toBe(2);
+  });
+});
+
