@@ -154,6 +154,12 @@ export const MENU_COMMANDS = [
 ] as const;
 export type MenuCommandId = (typeof MENU_COMMANDS)[number];
 
+/** The window title for a document: its name, a dot while unsaved, the app's name once (even if the page added it). */
+export function windowTitle(title: string, dirty: boolean): string {
+  const name = title.replace(/\s+[—-]\s+Stripwright\s*$/, '').slice(0, LIMITS.titleChars) || 'Untitled';
+  return `${dirty ? '• ' : ''}${name} — Stripwright`;
+}
+
 /** Messages the main process pushes to the renderer (not request/response). */
 export const PUSH_CHANNELS = {
   menuCommand: 'stripwright:push:menu-command',

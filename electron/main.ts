@@ -7,7 +7,7 @@
 import { app, BrowserWindow, dialog, ipcMain, Menu, protocol, screen, shell as electronShell, type IpcMainInvokeEvent } from 'electron';
 import { randomUUID } from 'node:crypto';
 import { join, resolve } from 'node:path';
-import { DESIGN_EXTENSION, OPENABLE_EXTENSIONS, PUSH_CHANNELS, type MenuCommandId, type OpenedDesign } from './contract.ts';
+import { DESIGN_EXTENSION, OPENABLE_EXTENSIONS, PUSH_CHANNELS, windowTitle, type MenuCommandId, type OpenedDesign } from './contract.ts';
 import { DEFAULT_WINDOW, placeOnDisplays, readJson, validateWindowState, writeJson } from './files/json-store.ts';
 import { RecoveryStore } from './files/recovery-store.ts';
 import { registerBridge } from './ipc.ts';
@@ -130,7 +130,7 @@ function start(): void {
         docState = state;
         const w = windowOf(e);
         if (!w) return;
-        w.setTitle(`${state.dirty ? '• ' : ''}${state.title} — Stripwright`);
+        w.setTitle(windowTitle(state.title, state.dirty));
         w.setDocumentEdited(state.dirty);
         if (closeAfterSave && !state.dirty) { closeAfterSave = false; w.close(); }
       },

@@ -117,3 +117,12 @@ describe('menu', () => {
     for (const label of ['&Undo', '&Redo', '&Delete', 'Select &All']) expect(edit.find((i) => i.label === label)!.registerAccelerator).toBe(false);
   });
 });
+
+describe('window title', () => {
+  it('adds the app name once and a dot while unsaved', async () => {
+    const { windowTitle } = await import('../../electron/contract.ts');
+    expect(windowTitle('Feed', false)).toBe('Feed — Stripwright');
+    expect(windowTitle('Feed — Stripwright', true)).toBe('• Feed — Stripwright');
+    expect(windowTitle('', false)).toBe('Untitled — Stripwright');
+  });
+});

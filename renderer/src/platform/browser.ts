@@ -6,7 +6,7 @@
  * HEARTBEAT_MS. checkRecovery() offers the copies of sessions whose heartbeat stopped (the tab was closed or
  * crashed), never those of another tab that is still open.
  */
-import { DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, type BridgeResult, type OpenedDesign, type RecoveryEntry } from '../../../electron/contract.ts';
+import { DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, windowTitle, type BridgeResult, type OpenedDesign, type RecoveryEntry } from '../../../electron/contract.ts';
 import { decodeDesignBytes, describeBytes } from '../../../electron/text-decode.ts';
 import type { Platform } from './types.ts';
 
@@ -146,7 +146,7 @@ export function createBrowserPlatform(options: BrowserPlatformOptions = {}): Pla
       return ok(null);
     },
     setDocumentState: async (state) => {
-      if (typeof document !== 'undefined') document.title = `${state.dirty ? '• ' : ''}${state.title.slice(0, LIMITS.titleChars)} — Stripwright`;
+      if (typeof document !== 'undefined') document.title = windowTitle(state.title, state.dirty);
       return ok(null);
     },
     onMenuCommand: () => () => {},

@@ -53,7 +53,8 @@ export interface Platform {
   readRecovery(docId: string): Promise<BridgeResult<RecoveredDesign>>;
   /** Drop an earlier session's recovery copy (after it was restored and saved, or the user declined it). */
   discardRecovery(docId: string): Promise<BridgeResult<null>>;
-  /** Window title and the unsaved-changes flag (the desktop shell asks before closing a dirty window). */
+  /** The document's name and the unsaved-changes flag; the shell makes the window title (windowTitle in the contract)
+   *  and asks before closing a dirty window. */
   setDocumentState(state: { title: string; dirty: boolean }): Promise<BridgeResult<null>>;
   /** Native menu commands (desktop); the browser never sends any. Returns the unsubscribe function. */
   onMenuCommand(handler: (id: MenuCommandId) => void): () => void;
