@@ -15,6 +15,7 @@
  * - every coordinate written in full (X and Y), and M02* ends the file.
  */
 import type { Region } from '../geometry/types.ts';
+import { InputError, describe } from '../util/errors.ts';
 import { fmtMm, makeFrame, signedArea2, type Frame, type FrameOptions, type PointMm } from './frame.ts';
 import { profileRegion, type ExportGeometry } from './layers.ts';
 
@@ -100,6 +101,9 @@ function gerberCopper(g: ExportGeometry, frame: Frame, sw: SoftwareInfo): string
 
 function gerberProfile(g: ExportGeometry, frame: Frame, opts: GerberOptions): string {
   const d = opts.profileLine ?? 1e-4;
+  if (typeof d !== 'number' || !Number.isFinite(d) || d <= 0 || d > 1e-3) {
+    throw new InputError('out-of-range', 'profileLine', 'a profile line width above 0 and up to 1 mm', describe(d));
+  }
   const region = profileRegion(g);
   const lines = header('Profile,NP', 'board profile', frame, opts);
   lines.push('%TA.AperFunction,Profile*%', `%ADD10C,${fmtMm(d * 1000, 6)}*%`, '%TD*%', 'D10*');

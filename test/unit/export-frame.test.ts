@@ -61,6 +61,9 @@ describe('bad geometry gets a clear error naming the field', () => {
     expect(fails(() => checkLayers(['copper', 'silk'], boardFixture())).message).toMatch(/layer names among copper, ground/);
     expect(fails(() => checkLayers(['isolation'], boardFixture())).hint).toMatch(/tool diameter/);
   });
+  it('a profile line width of zero', () => {
+    expect(fails(() => toGerber(boardFixture(), { profileLine: 0 })).field).toBe('profileLine');
+  });
   it('coordinates beyond what %FSLAX46Y46*% can hold', () => {
     const g = boardFixture();
     g.copper[1].outer[0] = { x: 12, y: 0 };
