@@ -7,7 +7,7 @@ import { createServer, type Server } from 'node:http';
 import { readFile, stat } from 'node:fs/promises';
 import { extname, join, normalize, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { CONTENT_SECURITY_POLICY } from '../electron/csp.ts';
+import { policyFor } from '../electron/csp.ts';
 
 const MIME: Record<string, string> = {
   '.html': 'text/html; charset=utf-8', '.js': 'text/javascript; charset=utf-8', '.mjs': 'text/javascript; charset=utf-8',
@@ -30,7 +30,7 @@ export function serveRenderer(port: number, root = RENDERER_DIR): Promise<Server
       const body = await readFile(file);
       res.writeHead(200, {
         'Content-Type': MIME[extname(file)] ?? 'application/octet-stream',
-        'Content-Security-Policy': CONTENT_SECURITY_POLICY,
+        'Content-Security-Policy': policyFor(file),
         'X-Content-Type-Options': 'nosniff',
         'Cache-Control': 'no-store',
       });
