@@ -71,6 +71,7 @@ async function main(): Promise<void> {
   const electron = findElectron();
   if ('reason' in electron) return serveFallback(electron.reason);
   const args = [ROOT, ...process.argv.slice(2)];
+  console.log(`stripwright: opening the desktop app (${electron.path})`);
   const child = spawn(electron.path, args, { stdio: ['ignore', 'inherit', 'pipe'] });
   let stderr = '';
   child.stderr.on('data', (d: Buffer) => { stderr += d.toString(); process.stderr.write(d); });
