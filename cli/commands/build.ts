@@ -88,9 +88,10 @@ function text(rep: BuildReport): string[] {
   for (const p of rep.pieces) {
     const comps = p.compensations.filter((c) => c.amount_m !== 0 || !c.applied)
       .map((c) => `${c.model}${c.applied ? '*' : ''} ${mm(c.amount_m)}@${c.node}`).join(', ');
-    rows.push([p.id, p.kind, p.z0_ohm === null ? '—' : p.z0_ohm.toFixed(2),
+    const part = p.kind === 'lumped' || p.kind === 'sparams';
+    rows.push([p.id, p.kind, p.z0_ohm === null || part ? '—' : p.z0_ohm.toFixed(2),
       p.width_m === null ? '—' : p.width_b_m !== undefined ? `${mm(p.width_m)}→${mm(p.width_b_m)}` : mm(p.width_m),
-      mm(p.length_m), p.kind === 'lumped' || p.kind === 'sparams' ? '—' : p.deg_at_f0.toFixed(1), comps]);
+      part ? `${mm(p.span_m)} span` : mm(p.length_m), part ? '—' : p.deg_at_f0.toFixed(1), comps]);
   }
   out.push(...table(rows));
   for (const r of rep.paths) {
