@@ -179,8 +179,12 @@ export function compileNetwork(net: Netlist): CompiledNetwork {
 
 /** Element values at one frequency, shared by both paths. */
 interface Evaluated {
-  /** For y2 and well-conditioned lines: y11, y22, y12, y21 (8 numbers). For ABCD lines: A, B, C, D. */
-  vals: Float64Array[];
+  /**
+   * 8 numbers per element at 8·idx: for admittances and Y-stamped lines y11, y22, y12, y21 (re, im each);
+   * for ABCD-stamped lines A, B, C, D. N-ports keep their matrix in `nport[idx]`.
+   */
+  flat: Float64Array;
+  nport: (Float64Array | null)[];
   abcd: Uint8Array;
   anyAbcd: boolean;
 }
@@ -193,36 +197,42 @@ function finite(c: Complex, what: string, f: number): Complex {
 }
 
 function evaluate(cn: CompiledNetwork, f: number): Evaluated {
-  const vals: Float64Array[] = [];
-  const abcd = new Uint8Array(cn.stamped.length);
+  const E = cn.stamped.length;
+  const flat = new Float64Array(8 * E);
+  const nport: (Float64Array | null)[] = new Array(E).fill(null);
+  const abcd = new Uint8Array(E);
   let anyAbcd = false;
-  cn.stamped.forEach((s, idx) => {
+  for (let idx = 0; idx < E; idx++) {
+    const s = cn.stamped[idx], o = 8 * idx;
     if (s.kind === 'y2') {
       const y = finite(s.y(f), `${s.el.id}.admittance`, f);
-      vals.push(Float64Array.of(y.re, y.im, y.re, y.im, -y.re, -y.im, -y.re, -y.im));
+      flat[o] = y.re; flat[o + 1] = y.im; flat[o + 2] = y.re; flat[o + 3] = y.im;
+      flat[o + 4] = -y.re; flat[o + 5] = -y.im; flat[o + 6] = -y.re; flat[o + 7] = -y.im;
     } else if (s.kind === 'line') {
       const lc = s.el.model(f);
       const zc = finite(lc.zc, `${s.el.id}.zc`, f), g = finite(lc.gamma, `${s.el.id}.gamma`, f);
       if (zc.re === 0 && zc.im === 0) throw new InputError('out-of-range', `${s.el.id}.zc`, 'a non-zero characteristic impedance', '0');
       const { cosh, sinh } = ccoshSinh({ re: g.re * s.el.length, im: g.im * s.el.length });
-      if (Math.hypot(sinh.re, sinh.im) < SINH_LIMIT) {
+      if (sinh.re * sinh.re + sinh.im * sinh.im < SINH_LIMIT * SINH_LIMIT) {
         abcd[idx] = 1; anyAbcd = true;
         const B = cmul(zc, sinh), C = cdiv(sinh, zc);
-        vals.push(Float64Array.of(cosh.re, cosh.im, B.re, B.im, C.re, C.im, cosh.re, cosh.im));
+        flat[o] = cosh.re; flat[o + 1] = cosh.im; flat[o + 2] = B.re; flat[o + 3] = B.im;
+        flat[o + 4] = C.re; flat[o + 5] = C.im; flat[o + 6] = cosh.re; flat[o + 7] = cosh.im;
       } else {
         const zs = cmul(zc, sinh);
         const y11 = cdiv(cosh, zs), y12 = cdiv({ re: -1, im: 0 }, zs);
-        vals.push(Float64Array.of(y11.re, y11.im, y11.re, y11.im, y12.re, y12.im, y12.re, y12.im));
+        flat[o] = y11.re; flat[o + 1] = y11.im; flat[o + 2] = y11.re; flat[o + 3] = y11.im;
+        flat[o + 4] = y12.re; flat[o + 5] = y12.im; flat[o + 6] = y12.re; flat[o + 7] = y12.im;
       }
     } else {
       const y = s.el.y(f);
       const m = s.nodes.length;
       if (y.length !== 2 * m * m) throw new InputError('invalid-design', `${s.el.id}.y`, `a ${m}×${m} admittance matrix`, `${y.length / 2} entries`);
       for (const v of y) if (!Number.isFinite(v)) throw new InputError('invalid-number', `${s.el.id}.y`, 'finite admittances', `a non-finite value at ${f} Hz`);
-      vals.push(y);
+      nport[idx] = y;
     }
-  });
-  return { vals, abcd, anyAbcd };
+  }
+  return { flat, nport, abcd, anyAbcd };
 }
 
 /** Result of one frequency: S (P×P, row-major interleaved) and whether the pivoting path was needed. */
@@ -248,18 +258,28 @@ export function solveAt(cn: CompiledNetwork, f: number, out?: Float64Array, opts
 function solveSparse(cn: CompiledNetwork, ev: Evaluated, s: Float64Array): number {
   const sym = cn.symbolic;
   const v = new Float64Array(2 * sym.nnz);
-  const add = (slot: number, re: number, im: number) => { if (slot >= 0) { v[2 * slot] += re; v[2 * slot + 1] += im; } };
-  cn.stamped.forEach((st, idx) => {
-    const sl = cn.slots[idx], x = ev.vals[idx];
-    if (st.kind === 'nport') { for (let t = 0; t < sl.length; t++) add(sl[t], x[2 * t], x[2 * t + 1]); return; }
-    add(sl[0], x[0], x[1]); add(sl[1], x[2], x[3]); add(sl[2], x[4], x[5]); add(sl[3], x[6], x[7]);
-  });
-  for (const p of cn.ports) add(sym.diag[sym.position[p.node]], 1 / p.zRef, 0);
+  const { flat, nport } = ev;
+  for (let idx = 0; idx < cn.stamped.length; idx++) {
+    const sl = cn.slots[idx];
+    const x = nport[idx];
+    if (x) {
+      for (let t = 0; t < sl.length; t++) if (sl[t] >= 0) { v[2 * sl[t]] += x[2 * t]; v[2 * sl[t] + 1] += x[2 * t + 1]; }
+      continue;
+    }
+    const o = 8 * idx;
+    for (let q = 0; q < 4; q++) {
+      const slot = sl[q];
+      if (slot >= 0) { v[2 * slot] += flat[o + 2 * q]; v[2 * slot + 1] += flat[o + 2 * q + 1]; }
+    }
+  }
+  for (const p of cn.ports) v[2 * sym.diag[sym.position[p.node]]] += 1 / p.zRef;
   const rowScale = new Float64Array(sym.n);
+  const rows = sym.rowOfSlot;
   for (let t = 0; t < sym.nnz; t++) {
-    const m = Math.hypot(v[2 * t], v[2 * t + 1]), r = sym.rowOfSlot[t];
+    const a = v[2 * t], b = v[2 * t + 1], m = a * a + b * b, r = rows[t];
     if (m > rowScale[r]) rowScale[r] = m;
   }
+  for (let r = 0; r < sym.n; r++) rowScale[r] = Math.sqrt(rowScale[r]);
   const { minRatio } = sparseFactor(sym, v, rowScale);
   if (!(minRatio >= PIVOT_LIMIT)) return minRatio;
   const P = cn.ports.length;
@@ -287,7 +307,8 @@ function solveDense(cn: CompiledNetwork, ev: Evaluated, f: number, s: Float64Arr
   const a = new Float64Array(2 * n * n);
   const add = (i: number, j: number, re: number, im: number) => { if (i >= 0 && j >= 0) { const p = 2 * (i * n + j); a[p] += re; a[p + 1] += im; } };
   cn.stamped.forEach((st, idx) => {
-    const x = ev.vals[idx];
+    const o = 8 * idx;
+    const x = st.kind === 'nport' ? ev.nport[idx]! : ev.flat.subarray(o, o + 8);
     if (st.kind === 'nport') {
       const m = st.nodes.length;
       for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) add(st.nodes[i], st.nodes[j], x[2 * (i * m + j)], x[2 * (i * m + j) + 1]);

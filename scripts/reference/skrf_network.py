@@ -6,10 +6,11 @@ Input (JSON on stdin):
    "lines": [{"id", "a", "b", "length": m, "z0": [ohm per freq], "gamma": [[re, im] per freq]}],
    "resistors": [{"id", "a", "b", "value": ohm}],
    "ports": [{"name", "node", "zRef": ohm}],
-   "mode": "cascade" | "graph", "repeat": N (optional, for timing)}
+   "mode": "cascade" | "graph" | "grow", "repeat": N (optional, for timing)}
 "cascade": the lines form one chain from ports[0] to ports[1] and are joined with skrf's `**`.
 "graph": every node becomes an ideal junction (media.splitter, or media.open for a lone end) and all pieces are
-joined with skrf.network.innerconnect; scikit-rf inserts the impedance steps between pieces whose
+joined with skrf.network.innerconnect ("graph": all side by side first; "grow": one piece at a time with
+skrf.network.connect, the usual way for large networks); scikit-rf inserts the impedance steps between pieces whose
 port impedances differ.
 Output: {"s": [[[[re, im] ...]]] (freq, i, j), "seconds": build+solve time of one run}.
 Lines use a real characteristic impedance (scikit-rf 0.15.4 labels a line with its media's port impedance, so
@@ -87,9 +88,20 @@ def build(spec):
         # A lone terminal is an open end (splitter(1) divides by zero in 0.15.4).
         j = mj.open(name="j_" + n) if len(labels) == 1 else mj.splitter(len(labels), name="j_" + n)
         items.append((j, labels))
-    # Join: all pieces side by side as one block-diagonal network, then every shared edge joined with skrf's
-    # innerconnect (which keeps the other ports in order and inserts the impedance step between unequal ports).
-    # skrf's two-network connect() is not used: in 0.15.4 it reorders ports when one side is a 2-port.
+    if spec.get("mode") == "grow":
+        big, labels = grow(items)
+    else:
+        big, labels = side_by_side(f, items)
+    order = [labels.index(("x", k)) for k in range(len(spec["ports"]))]
+    s = big.s[:, order][:, :, order]
+    out = rf.Network(frequency=f, s=s, z0=np.array([p["zRef"] for p in spec["ports"]], dtype=float))
+    return out
+
+
+def side_by_side(f, items):
+    """All pieces side by side as one block-diagonal network, then every shared edge joined with skrf's
+    innerconnect (which keeps the other ports in order and inserts the impedance step between unequal ports).
+    Exact for any topology; memory grows with the square of all pieces' ports, so only for small networks."""
     nports = sum(ntw.nports for ntw, _ in items)
     s_all = np.zeros((len(f), nports, nports), dtype=complex)
     z_all = np.zeros((len(f), nports), dtype=complex)
@@ -102,19 +114,46 @@ def build(spec):
         labels += lab
         at += n
     big = rf.Network(frequency=f, s=s_all, z0=z_all)
+    return close_loops(big, labels)
+
+
+def close_loops(big, labels):
     while True:
-        dup = [x for x in labels if x[0] == "e"]
+        dup = [x for x in labels if x[0] == "e" and labels.count(x) == 2]
         if not dup:
-            break
+            return big, labels
         x = dup[0]
         i1 = labels.index(x)
         i2 = labels.index(x, i1 + 1)
         big = rf.innerconnect(big, i1, i2)
         labels = [y for j, y in enumerate(labels) if j not in (i1, i2)]
-    order = [labels.index(("x", k)) for k in range(len(spec["ports"]))]
-    s = big.s[:, order][:, :, order]
-    out = rf.Network(frequency=f, s=s, z0=np.array([p["zRef"] for p in spec["ports"]], dtype=float))
-    return out
+
+
+def grow(items):
+    """The usual way of building a large network with scikit-rf: start from one piece and connect the others one
+    by one with skrf.network.connect (loops closed with innerconnect). skrf 0.15.4's connect() moves the
+    remaining port of a 2-port `ntwkB` back to position k; a 2-port is therefore always passed as `ntwkA`, where
+    the result is simply its other port followed by the big network's remaining ports."""
+    big, labels = items[0][0], list(items[0][1])
+    rest = list(items[1:])
+    while rest:
+        for idx, (ntw, lab) in enumerate(rest):
+            shared = [e for e in lab if e[0] == "e" and e in labels]
+            if shared:
+                break
+        else:
+            raise SystemExit("network is not connected")
+        ntw, lab = rest.pop(idx)
+        e = shared[0]
+        k, l = labels.index(e), lab.index(e)
+        if ntw.nports == 2:
+            big = rf.connect(ntw, l, big, k)
+            labels = [x for j, x in enumerate(lab) if j != l] + [x for j, x in enumerate(labels) if j != k]
+        else:
+            big = rf.connect(big, k, ntw, l)
+            labels = [x for j, x in enumerate(labels) if j != k] + [x for j, x in enumerate(lab) if j != l]
+        big, labels = close_loops(big, labels)
+    return big, labels
 
 
 def main():
