@@ -7,7 +7,8 @@
  */
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
-import { analyzeLine, synthesizeLine, type SubstrateSpec } from '../core/index.ts';
+import { analyzeLine, synthesizeLine } from '../core/line/index.ts';
+import type { SubstrateSpec } from '../core/substrate/types.ts';
 
 const N = 100_000;
 const SUB: SubstrateSpec = { er: 4.4, h: 0.79e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1e-6 };
@@ -17,14 +18,20 @@ function lcg(seed: number) {
   return () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 4294967296);
 }
 
-function timeBest(fn: () => number, rounds: number): { seconds: number; sink: number } {
-  let best = Infinity; let sink = 0;
+/**
+ * Best of `rounds`, in CPU seconds of this process (user + system): on a machine shared with other jobs, wall time
+ * mostly measures the others. The wall time of the best round is kept for the record.
+ */
+function timeBest(fn: () => number, rounds: number): { seconds: number; wall: number; sink: number } {
+  let best = Infinity; let wall = Infinity; let sink = 0;
   for (let r = 0; r < rounds; r++) {
-    const t0 = performance.now();
+    const c0 = process.cpuUsage(); const t0 = performance.now();
     sink += fn();
-    best = Math.min(best, (performance.now() - t0) / 1000);
+    const c = process.cpuUsage(c0);
+    const cpu = (c.user + c.system) / 1e6;
+    if (cpu < best) { best = cpu; wall = (performance.now() - t0) / 1000; }
   }
-  return { seconds: best, sink };
+  return { seconds: best, wall, sink };
 }
 
 function pythonSkrf(n: number): { per_second: number; seconds: number; skrf: string } | string {
@@ -56,7 +63,7 @@ export async function run(): Promise<void> {
   const py = pythonSkrf(N);
 
   const f = (x: number) => Math.round(x).toLocaleString('en-US');
-  console.log(`| measure (${N.toLocaleString('en-US')} cases, one core, best of runs) | per second | target | met |`);
+  console.log(`| measure (${N.toLocaleString('en-US')} cases, one core, CPU time, best of runs) | per second | target | met |`);
   console.log('|---|---|---|---|');
   console.log(`| analyses, random W and f every call (static + KJ/JK dispersion + losses) | ${f(anaRate)} | ≥ 2,000,000 | ${anaRate >= 2e6 ? 'yes' : 'no'} |`);
   console.log(`| analyses, frequency sweeps of fixed lines | ${f(N / fSweep.seconds)} | ≥ 2,000,000 | ${N / fSweep.seconds >= 2e6 ? 'yes' : 'no'} |`);
@@ -69,5 +76,6 @@ export async function run(): Promise<void> {
     console.log(`| scikit-rf ${py.skrf} vectorised analyses (numpy, timed in Python) | ${f(py.per_second)} | slower than ours | ${ratio > 1 ? 'yes' : 'no'} |`);
     console.log(`\nratio ours / scikit-rf vectorised: ${ratio.toFixed(2)}× (one run each; the library computes static, εe(f), Z0(f) and αd, no conductor loss or warnings)`);
   }
+  console.log(`wall-clock rate of the random-case analyses: ${f(N / ana.wall)} per second (machine load affects it)`);
   if (!Number.isFinite(ana.sink + fSweep.sink + wSweep.sink + syn.sink + synStatic.sink)) console.log('warning: a non-finite result appeared');
 }

@@ -8,6 +8,18 @@
  * Inputs: u = W_eff/h, εr, εe0 static and εef at f (from kirschning-jansen-1982.ts), fn = f·h in GHz·mm,
  * z00 the static impedance in Ω. Validity (as usually quoted, range to be verified against the paper):
  * 0.1 ≤ u ≤ 10, 1 ≤ εr ≤ 18, fn ≤ 15 GHz·mm.
+ *
+ *   R1 = 0.03891 εr^1.4        R2 = 0.267 u^7              R3 = 4.766 exp(−3.228 u^0.641)
+ *   R4 = 0.016 + (0.0514 εr)^4.524                         R5 = (fn/28.843)^12          R6 = 22.2 u^1.92
+ *   R7 = 1.206 − 0.3144 exp(−R1)(1 − exp(−R2))
+ *   R8 = 1 + 1.275 (1 − exp(−0.004625 R3 εr^1.674 (fn/18.365)^2.745))
+ *   R9 = 5.086 R4 R5/(0.3838 + 0.386 R4) · exp(−R6)/(1 + 1.2992 R5) · (εr − 1)^6/(1 + 10 (εr − 1)^6)
+ *   R10 = 0.00044 εr^2.136 + 0.0184    R11 = (fn/19.47)^6/(1 + 0.0962 (fn/19.47)^6)    R12 = 1/(1 + 0.00245 u²)
+ *   R13 = 0.9408 εef^R8 − 0.9603       R14 = (0.9408 − R9) εe0^R8 − 0.9603          R15 = 0.707 R10 (fn/12.3)^1.097
+ *   R16 = 1 + 0.0503 εr² R11 (1 − exp(−(u/15)^6))
+ *   R17 = R7 (1 − 1.1241 (R12/R16) exp(−0.026 fn^1.15656 − R15))
+ *   Z0(f) = Z00 (R13/R14)^R17
+ * The code groups the terms by what they depend on (εr, fn, u) so that sweeps reuse them; the values are the same.
  */
 
 export const JK1983_RANGE = { uMin: 0.1, uMax: 10, erMax: 18, fnMax: 15 } as const;
