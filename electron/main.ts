@@ -32,7 +32,8 @@ let win: BrowserWindow | null = null;
 let pageReady = false;
 const pendingOpens: string[] = [];
 let docState = { title: 'Stripwright', dirty: false };
-let closeAfterSave = false;
+/** Set when the user chose Save in the close prompt: close once the page reports it saved (within a minute). */
+let closeAfterSaveUntil = 0;
 let closeConfirmed = false;
 let autosaveWaiter: (() => void) | null = null;
 
@@ -132,7 +133,7 @@ function start(): void {
         if (!w) return;
         w.setTitle(windowTitle(state.title, state.dirty));
         w.setDocumentEdited(state.dirty);
-        if (closeAfterSave && !state.dirty) { closeAfterSave = false; w.close(); }
+        if (!state.dirty && Date.now() < closeAfterSaveUntil) { closeAfterSaveUntil = 0; w.close(); }
       },
       autosaved() { autosaveWaiter?.(); },
     });
@@ -164,7 +165,7 @@ function start(): void {
         message: `${docState.title} has unsaved changes.`,
         detail: 'If you close without saving, the changes are kept as a recovery copy and offered the next time Stripwright starts.',
       });
-      if (choice === 0) { closeAfterSave = true; runCommand('file.save'); }
+      if (choice === 0) { closeAfterSaveUntil = Date.now() + 60_000; runCommand('file.save'); }
       else if (choice === 1) {
         // Ask the page for a fresh recovery copy, close when it is written (or after 3 s with the last one).
         const done = () => { autosaveWaiter = null; closeConfirmed = true; w.close(); };

@@ -8,6 +8,7 @@
  *   3. rename the temporary file over the target;
  *   4. fsync the folder so the new name itself survives a power cut (best effort: not possible on Windows).
  *
+ * A symlinked target is resolved first, so the link stays and the file it points to is replaced.
  * At every instant the target is either the complete old or the complete new file, and the .bak either the
  * previous backup or the complete old file. A crash can leave a temporary file behind; cleanStrayTemps()
  * (./temp-files.ts) removes those at the next start. Plain Node: no Electron, so the CLI can use it too.
@@ -98,8 +99,10 @@ async function syncFolder(fs: FsOps, folder: string): Promise<void> {
   }
 }
 
-export async function atomicWriteFile(path: string, data: string | Uint8Array, options: AtomicWriteOptions = {}): Promise<AtomicWriteResult> {
+export async function atomicWriteFile(givenPath: string, data: string | Uint8Array, options: AtomicWriteOptions = {}): Promise<AtomicWriteResult> {
   const fs = options.fs ?? realFs;
+  // Save through a symlink to the file it points at: renaming over the link itself would replace it with a copy.
+  const path = await nodeFs.realpath(givenPath).catch(() => givenPath);
   const folder = dirname(path);
   const bytes = typeof data === 'string' ? Buffer.from(data, 'utf8') : data;
   const temp = join(folder, tempNameFor(basename(path)));

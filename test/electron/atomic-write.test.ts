@@ -39,6 +39,18 @@ describe('atomicWriteFile', () => {
     expect(strays()).toEqual([]);
   });
 
+  it('saves through a symlink to its target and keeps the link (common practice: Emacs resolves links before saving)', async () => {
+    const real = join(dir, 'real.stripwright');
+    const link = join(dir, 'link.stripwright');
+    writeFileSync(real, 'v1');
+    await fs.symlink(real, link);
+    const r = await atomicWriteFile(link, 'v2', { backup: true });
+    expect(r.path).toBe(await fs.realpath(real));
+    expect((await fs.lstat(link)).isSymbolicLink()).toBe(true);
+    expect(readFileSync(real, 'utf8')).toBe('v2');
+    expect(readFileSync(`${real}.bak`, 'utf8')).toBe('v1');
+  });
+
   it('writes binary data and large payloads completely', async () => {
     const p = join(dir, 'mask.png');
     const data = new Uint8Array(3 * 1024 * 1024).map((_, i) => (i * 31) & 0xff);

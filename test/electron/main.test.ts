@@ -109,6 +109,19 @@ describe('electron/main.ts', () => {
     expect(w.closed).toBe(before + 1); // closed once the fresh recovery copy was written
   });
 
+  it('closes after the save the user chose in the prompt, once the page reports it clean', async () => {
+    await boot();
+    const w = await started();
+    const ours = { senderFrame: { url: 'app://stripwright/index.html' }, sender: w.webContents };
+    await fake.handles.get(ipcName('document:state'))!(ours, { title: 'Feed', dirty: true });
+    fake.messageBoxAnswers.push(0);
+    w.close();
+    const before = w.closed;
+    await fake.handles.get(ipcName('document:state'))!(ours, { title: 'Feed', dirty: false });
+    expect(w.closed).toBe(before + 1);
+    expect(w.title).toBe('Feed — Stripwright');
+  });
+
   it('closes without asking when nothing is unsaved', async () => {
     await boot();
     const w = await started();
