@@ -49,6 +49,7 @@ Output:
   --batch FILE.csv      one case per row; columns named like the flags (er,h,t,tand,sigma,rough,preset,
                         f-measure,z0,width,f,deg,length,dispersion,conductor-loss); flags give defaults
   --out FILE.csv        write the batch results here instead of standard output
+  --force               let --out replace an existing file
 
 Examples:
   stripwright line --preset glass-epoxy --z0 50 --f 5.8GHz --deg 90
@@ -60,7 +61,7 @@ const OPTIONS = {
   tand: { type: 'string' }, sigma: { type: 'string' }, rough: { type: 'string' }, 'f-measure': { type: 'string' },
   z0: { type: 'string' }, width: { type: 'string' }, f: { type: 'string' }, deg: { type: 'string' }, length: { type: 'string' },
   dispersion: { type: 'string' }, 'conductor-loss': { type: 'string' },
-  json: { type: 'boolean' }, batch: { type: 'string' }, out: { type: 'string' },
+  json: { type: 'boolean' }, batch: { type: 'string' }, out: { type: 'string' }, force: { type: 'boolean' },
 } as const;
 
 /** Inputs of one case, as text (from flags or a CSV row). */
@@ -212,6 +213,10 @@ function readCsv(text: string): { line: number; cells: string[] }[] {
   return rows;
 }
 
+function exists(p: string): boolean {
+  try { statSync(p); return true; } catch { return false; }
+}
+
 function csvCell(v: unknown): string {
   const s = v === undefined || v === null ? '' : typeof v === 'number' ? String(v) : String(v);
   return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
@@ -220,7 +225,7 @@ function csvCell(v: unknown): string {
 const RESULT_COLUMNS = ['width_m', 'z0_ohm', 'z0_static_ohm', 'eps_eff', 'eps_eff_static', 'f_hz', 'lambda_g_m', 'vp_m_per_s',
   'delay_s_per_m', 'alpha_c_db_per_m', 'alpha_d_db_per_m', 'skin_depth_m', 'threshold_hz', 'length_m', 'deg'] as const;
 
-function runBatch(path: string, defaults: CaseText, outPath: string | undefined, io: CliIo): number {
+function runBatch(path: string, defaults: CaseText, outPath: string | undefined, force: boolean, io: CliIo): number {
   const file = resolve(io.cwd, path);
   let text: string;
   try {
@@ -266,6 +271,7 @@ function runBatch(path: string, defaults: CaseText, outPath: string | undefined,
   else {
     const target = resolve(io.cwd, outPath);
     if (target === file) { io.err('stripwright line: --out must not be the batch file itself (it would be overwritten)'); return 1; }
+    if (!force && exists(target)) { io.err(`stripwright line: ${outPath} exists; choose another --out or add --force to replace it`); return 1; }
     // Write next to the target, then rename: a crash never leaves a half-written results file.
     const tmp = join(dirname(target), `.${basename(target)}.${process.pid}.tmp`);
     try { writeFileSync(tmp, csv, { encoding: 'utf8', flag: 'wx' }); renameSync(tmp, target); } catch (e) {
@@ -289,9 +295,9 @@ export const lineCommand: CliCommand = {
     for (const k of CASE_KEYS) if (values[k] !== undefined) c[k] = values[k];
     if (values.batch !== undefined) {
       if (values.json) throw new UsageError('--json is for one case; --batch writes CSV');
-      return runBatch(values.batch, c, values.out, io);
+      return runBatch(values.batch, c, values.out, values.force === true, io);
     }
-    if (values.out !== undefined) throw new UsageError('--out goes with --batch');
+    if (values.out !== undefined || values.force) throw new UsageError('--out and --force go with --batch');
     try {
       const s = solve(c);
       io.out(values.json ? JSON.stringify(toJson(s), null, 2) : table(s));

@@ -134,6 +134,14 @@ describe('stripwright line --batch', () => {
     expect(ok.code).toBe(1); // the bad row still fails
     expect(readFileSync(join(dir, 'sized.csv'), 'utf8').split('\n')[0]).toMatch(/^line,z0,f,deg,h,width_m/);
     expect(readdirSync(dir).filter((n) => n.endsWith('.tmp'))).toEqual([]);
+    // An existing results file is kept unless --force.
+    writeFileSync(join(dir, 'sized.csv'), 'mine\n');
+    const keep = await run(['--er', '4.4', '--h', '1.6mm', '--batch', 'lines.csv', '--out', 'sized.csv'], dir);
+    expect(keep.code).toBe(1);
+    expect(keep.stderr).toMatch(/sized\.csv exists; .*--force/);
+    expect(readFileSync(join(dir, 'sized.csv'), 'utf8')).toBe('mine\n');
+    await run(['--er', '4.4', '--h', '1.6mm', '--batch', 'lines.csv', '--out', 'sized.csv', '--force'], dir);
+    expect(readFileSync(join(dir, 'sized.csv'), 'utf8')).toMatch(/^line,/);
     const same = await run(['--er', '4.4', '--h', '1.6mm', '--batch', 'lines.csv', '--out', 'lines.csv'], dir);
     expect(same.code).toBe(1);
     expect(readFileSync(join(dir, 'lines.csv'), 'utf8')).toBe(csv);

@@ -203,3 +203,35 @@ describe('Line constants for the network solver (methods §3.7)', () => {
   });
   it('refuses f = 0', () => { expect(() => lineConstants(RO35, 1e-3, 0)).toThrow(InputError); });
 });
+
+describe("validity warnings at the authors' stated ranges", () => {
+  const base: SubstrateSpec = { er: 4.4, h: 1e-3, t: 0, tanDelta: 0, sigma: 5.8e7, roughness: 0 };
+  const sources = (s: SubstrateSpec, w: number, f: number) => analyzeLine(s, w, f).warnings.filter((x) => x.code === 'validity').map((x) => x.source);
+  it('Hammerstad–Jensen 1980: εe stated to 0.2 % for 0.01 ≤ W/h ≤ 100', () => {
+    expect(sources(base, 0.0101e-3, 0)).not.toContain('hammerstad-jensen-1980');
+    expect(sources(base, 0.0099e-3, 0)).toContain('hammerstad-jensen-1980');
+    expect(sources(base, 99e-3, 0)).not.toContain('hammerstad-jensen-1980');
+    expect(sources(base, 101e-3, 0)).toContain('hammerstad-jensen-1980');
+  });
+  it('Kirschning–Jansen 1982: 0.1 ≤ W/h ≤ 100, εr ≤ 20, f·h ≤ 39 GHz·mm (h/λ0 ≤ 0.13)', () => {
+    expect(sources(base, 1e-3, 10e9)).not.toContain('kirschning-jansen-1982');
+    expect(sources(base, 0.09e-3, 1e9)).toContain('kirschning-jansen-1982');
+    expect(sources({ ...base, er: 21, h: 0.1e-3 }, 0.1e-3, 1e9)).toContain('kirschning-jansen-1982');
+    // f·h = 38 vs 40 GHz·mm on a thin low-εr sheet (far below its surface-wave onset).
+    expect(sources({ ...base, er: 1.5, h: 1e-3 }, 1e-3, 38e9)).not.toContain('kirschning-jansen-1982');
+    expect(sources({ ...base, er: 1.5, h: 1e-3 }, 1e-3, 40e9)).toContain('kirschning-jansen-1982');
+  });
+  it('Jansen–Kirschning 1983 (as usually quoted): W/h ≤ 10, εr ≤ 18, f·h ≤ 15 GHz·mm', () => {
+    expect(sources(base, 1e-3, 10e9)).not.toContain('jansen-kirschning-1983');
+    expect(sources(base, 11e-3, 1e9)).toContain('jansen-kirschning-1983');
+    expect(sources({ ...base, er: 1.5 }, 1e-3, 14e9)).not.toContain('jansen-kirschning-1983');
+    expect(sources({ ...base, er: 1.5 }, 1e-3, 16e9)).toContain('jansen-kirschning-1983');
+  });
+  it('thickness beyond t/h 0.28, copper under 3 skin depths, and t = 0 with Wheeler\'s rule are flagged', () => {
+    expect(sources({ ...base, t: 0.3e-3 }, 1e-3, 0)).toContain('hammerstad-jensen-1980');
+    const thin = analyzeLine({ ...base, t: 5e-6 }, 1e-3, 100e6).warnings.map((x) => x.code);
+    expect(thin).toContain('thin-conductor'); // δ(100 MHz, Cu) ≈ 6.6 µm
+    expect(analyzeLine({ ...base, t: 35e-6 }, 1e-3, 1e9).warnings.map((x) => x.code)).not.toContain('thin-conductor');
+    expect(sources(base, 1e-3, 1e9)).toContain('wheeler-1942');
+  });
+});
