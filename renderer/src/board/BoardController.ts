@@ -63,6 +63,7 @@ export class BoardController {
   private readonly copperLayer: G;
   private readonly lineLayer: G;
   private readonly nodeLayer: G;
+  private readonly drillLayer: G;
   private readonly overlay: G;
   private readonly rulerX: Svg;
   private readonly rulerY: Svg;
@@ -70,7 +71,10 @@ export class BoardController {
   private scene: Scene = EMPTY_SCENE;
   private marks: Marks = { selected: new Set(), flagged: new Set(), hovered: null };
   private options: BoardOptions;
-  private pieceEls = new Map<string, { el: Path; src: ScenePiece }>();
+  private pieceEls = new Map<string, { el: Path; src: ScenePiece; d: string }>();
+  private lineEls = new Map<string, { el: SvgElement; key: string }>();
+  private nodeEls = new Map<string, { el: SvgElement; key: string }>();
+  private drillKey = '';
   private panning: { x: number; y: number; id: number } | null = null;
   private spaceDown = false;
   private readonly resizeObs: ResizeObserver | null;
@@ -87,6 +91,7 @@ export class BoardController {
     this.outlineLayer = this.world.group().addClass('outline');
     this.copperLayer = this.world.group().addClass('copper');
     this.lineLayer = this.world.group().addClass('centrelines');
+    this.drillLayer = this.world.group().addClass('drills');
     this.nodeLayer = this.world.group().addClass('nodes');
     this.overlay = this.root.group().addClass('overlay');
     this.rulerX = SVG().addTo(host).addClass('ruler ruler-x');
@@ -214,15 +219,29 @@ export class BoardController {
       const have = this.pieceEls.get(p.id);
       if (have && have.src === p) continue;
       const d = regionsPath(p.regions);
-      if (have) { have.el.plot(d); have.src = p; continue; }
+      if (have) {
+        // A new layout result brings new objects for every piece; touch the DOM only where the copper moved.
+        if (have.d !== d) { have.el.plot(d); have.d = d; }
+        have.src = p;
+        continue;
+      }
       const el = this.copperLayer.path(d).attr({ class: this.pieceClass(p.id), 'fill-rule': 'evenodd', 'data-piece': p.id });
-      this.pieceEls.set(p.id, { el, src: p });
+      this.pieceEls.set(p.id, { el, src: p, d });
     }
     for (const [id, { el }] of this.pieceEls) if (!seen.has(id)) { el.remove(); this.pieceEls.delete(id); }
   }
 
+  /** Keeps one element per id, updating attributes only when its key (shape and class) changed. */
+  private keyed(map: Map<string, { el: SvgElement; key: string }>, id: string, key: string, make: () => SvgElement, seen: Set<string>): void {
+    seen.add(id);
+    const have = map.get(id);
+    if (have && have.key === key) return;
+    have?.el.remove();
+    map.set(id, { el: make(), key });
+  }
+
   private drawLines(): void {
-    this.lineLayer.clear();
+    const seen = new Set<string>();
     for (const s of this.scene.segments) {
       const pts = s.centreline && s.centreline.length >= 2 ? s.centreline : [s.a, s.b];
       const cls = ['cl', `cl-${s.kind}`];
@@ -230,12 +249,15 @@ export class BoardController {
       if (this.marks.flagged.has(s.id)) cls.push('flagged');
       if (this.marks.hovered === s.id) cls.push('hovered');
       if (!s.centreline) cls.push('unsized');
-      this.lineLayer.polyline(polyPoints(pts)).attr({ class: cls.join(' '), 'data-seg': s.id });
+      const points = polyPoints(pts);
+      const c = cls.join(' ');
+      this.keyed(this.lineEls, s.id, `${c}|${points.join(' ')}`, () => this.lineLayer.polyline(points).attr({ class: c, 'data-seg': s.id }), seen);
     }
+    for (const [id, { el }] of this.lineEls) if (!seen.has(id)) { el.remove(); this.lineEls.delete(id); }
   }
 
   private drawNodes(): void {
-    this.nodeLayer.clear();
+    const seen = new Set<string>();
     // Node marks keep a constant screen size: radius in mm from pixels at the current zoom.
     const r = mm(5 / this.view.scale);
     for (const n of this.scene.nodes) {
@@ -244,14 +266,21 @@ export class BoardController {
       if (this.marks.flagged.has(n.id)) cls.push('flagged');
       if (this.marks.hovered === n.id) cls.push('hovered');
       const x = mm(n.at.x), y = mm(n.at.y);
-      let el: SvgElement;
-      if (n.kind === 'port') el = this.nodeLayer.rect(2.4 * r, 2.4 * r).center(x, y);
-      else if (n.kind === 'short') el = this.nodeLayer.polygon([[x, y + 1.4 * r], [x + 1.4 * r, y], [x, y - 1.4 * r], [x - 1.4 * r, y]]);
-      else el = this.nodeLayer.circle(2 * r * (n.kind === 'vertex' ? 0.7 : 1)).center(x, y);
-      el.attr({ class: cls.join(' '), 'data-node': n.id });
+      const c = cls.join(' ');
+      this.keyed(this.nodeEls, n.id, `${c}|${x}|${y}|${r}`, () => {
+        let el: SvgElement;
+        if (n.kind === 'port') el = this.nodeLayer.rect(2.4 * r, 2.4 * r).center(x, y);
+        else if (n.kind === 'short') el = this.nodeLayer.polygon([[x, y + 1.4 * r], [x + 1.4 * r, y], [x, y - 1.4 * r], [x - 1.4 * r, y]]);
+        else el = this.nodeLayer.circle(2 * r * (n.kind === 'vertex' ? 0.7 : 1)).center(x, y);
+        return el.attr({ class: c, 'data-node': n.id });
+      }, seen);
     }
-    for (const d of this.scene.drills) {
-      this.nodeLayer.circle(mm(d.diameter)).center(mm(d.at.x), mm(d.at.y)).addClass('drill');
+    for (const [id, { el }] of this.nodeEls) if (!seen.has(id)) { el.remove(); this.nodeEls.delete(id); }
+    const drillKey = this.scene.drills.map((d) => `${d.at.x},${d.at.y},${d.diameter}`).join(';');
+    if (drillKey !== this.drillKey) {
+      this.drillKey = drillKey;
+      this.drillLayer.clear();
+      for (const d of this.scene.drills) this.drillLayer.circle(mm(d.diameter)).center(mm(d.at.x), mm(d.at.y)).addClass('drill');
     }
   }
 

@@ -238,8 +238,7 @@ export class EditorState {
   boxOfIds(ids: string[], margin = 0): Box | null {
     const want = new Set(ids);
     const pts: Vec2[] = [];
-    const placed = this.layout?.placed ?? null;
-    for (const n of this.doc.nodes) if (want.has(n.id)) pts.push(placed?.get(n.id) ?? n.at);
+    for (const n of this.scene.nodes) if (want.has(n.id)) pts.push(n.at);
     for (const s of this.scene.segments) if (want.has(s.id)) pts.push(...(s.centreline ?? [s.a, s.b]));
     const b = boxOf(pts);
     return b && { minX: b.minX - margin, minY: b.minY - margin, maxX: b.maxX + margin, maxY: b.maxY + margin };
@@ -278,7 +277,7 @@ export class EditorState {
     const offsetOf = (nodeId: string): Vec2 => {
       const n = this.doc.nodes.find((x) => x.id === nodeId);
       const p = this.layout?.placed.get(nodeId);
-      return n && p ? { x: n.at.x - p.x, y: n.at.y - p.y } : { x: 0, y: 0 };
+      return n && p ? { x: p.at.x - p.pos.x, y: p.at.y - p.pos.y } : { x: 0, y: 0 };
     };
     const shift = (pts: Vec2[], o: Vec2) => pts.map((p) => ({ x: p.x + o.x, y: p.y + o.y }));
     return {

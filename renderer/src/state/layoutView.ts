@@ -16,8 +16,8 @@ export interface LayoutView {
   drills: DrillHit[];
   /** Path and phase reports (phase groups, or the anchor port to every other port). */
   paths: PathReport[];
-  /** Placed node positions (after sizing), by node id. */
-  placed: Map<string, Vec2>;
+  /** Each node's drawn position the layout was made from, and where it placed the node, by node id. */
+  placed: Map<string, { at: Vec2; pos: Vec2 }>;
   figures: Map<string, PieceFigures>;
   ms: number;
 }
@@ -33,6 +33,6 @@ export function figuresFrom(sized: SizedDesign): Map<string, PieceFigures> {
   return m;
 }
 
-export function placedFrom(sized: SizedDesign): Map<string, Vec2> {
-  return new Map(sized.nodes.map((n) => [n.id, n.pos]));
+export function placedFrom(sized: SizedDesign): Map<string, { at: Vec2; pos: Vec2 }> {
+  return new Map(sized.nodes.map((n) => [n.id, { at: n.at, pos: n.pos }]));
 }

@@ -9,22 +9,31 @@ import type { PieceOutline } from '../../../core/layout/geometry.ts';
 export interface SceneCopper { outlines: PieceOutline[]; drills: DrillHit[] }
 import type { Scene, SceneSegment } from '../board/scene.ts';
 
-export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed: ReadonlyMap<string, Vec2> | null = null): Scene {
+export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed: ReadonlyMap<string, { at: Vec2; pos: Vec2 }> | null = null): Scene {
   const byId = new Map<string, DesignNode>(doc.nodes.map((n) => [n.id, n]));
-  // Where the layout placed a node (sized lengths move nodes off their drawn spots); the drawn spot until sized.
-  const at = (n: DesignNode): Vec2 => placed?.get(n.id) ?? n.at;
+  // Where the layout placed a node (sized lengths move nodes off their drawn spots), plus how far the node was
+  // dragged since that layout: a dragged node follows the pointer at once, before the worker's new layout lands.
+  const moved = (n: DesignNode): boolean => { const p = placed?.get(n.id); return !!p && (p.at.x !== n.at.x || p.at.y !== n.at.y); };
+  const at = (n: DesignNode): Vec2 => {
+    const p = placed?.get(n.id);
+    return p ? { x: p.pos.x + n.at.x - p.at.x, y: p.pos.y + n.at.y - p.at.y } : n.at;
+  };
   const pieces = new Map((geometry?.outlines ?? []).map((p) => [p.id, p]));
   const segments: SceneSegment[] = [];
+  const stale = new Set<string>();
   for (const s of doc.segments) {
     const a = byId.get(s.a), b = byId.get(s.b);
     if (!a || !b) continue;
     const piece = pieces.get(s.id);
-    segments.push({ id: s.id, kind: s.kind, a: at(a), b: at(b), centreline: piece?.centreline });
+    // A stale centreline of a piece whose end moved is dropped: the sketch line shows until the new layout arrives.
+    const off = moved(a) || moved(b);
+    if (off) { stale.add(s.id); stale.add(a.id); stale.add(b.id); }
+    segments.push({ id: s.id, kind: s.kind, a: at(a), b: at(b), centreline: off ? undefined : piece?.centreline });
   }
   return {
     nodes: doc.nodes.map((n) => ({ id: n.id, at: at(n), kind: n.kind, label: n.label, heading: n.kind === 'port' ? n.heading : undefined })),
     segments,
-    pieces: geometry?.outlines ?? [],
+    pieces: stale.size ? (geometry?.outlines ?? []).filter((o) => !stale.has(o.id)) : geometry?.outlines ?? [],
     outline: doc.board?.outline ?? null,
     drills: (geometry?.drills ?? []).map((d) => ({ at: d.at, diameter: d.diameter })),
   };

@@ -1,0 +1,103 @@
+/**
+ * Frame time of the board editor while dragging a bend of the 64-output corporate feed (core/layout/generators),
+ * in Debian chromium against the built renderer under the app's CSP. Target: median under 16 ms (one 60 Hz frame).
+ *
+ * Per pointer move it measures the main-thread work from the event to the board's DOM being updated and laid out:
+ * the pointer handler, the live History edit, Svelte's effects, the svg.js redraw and a forced style/layout. The
+ * sizing and copper of each revision run in the worker meanwhile and are counted separately (worker job time).
+ * Also printed: the interval between animation frames during a drag driven by real input events (headless chromium
+ * paces frames at its own rate, so this is context, not the figure of merit).
+ *   npm run bench -- frame        (builds the renderer first)
+ */
+import { chromium } from 'playwright-core';
+import { execSync, spawn } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { corporateFeed } from '../core/layout/index.ts';
+import { serializeDesign } from '../core/design/index.ts';
+
+const OUTPUTS = 64;
+const MOVES = 120;
+
+function median(xs: number[]): number { const s = [...xs].sort((a, b) => a - b); return s.length ? s[Math.floor(s.length / 2)]! : NaN; }
+function pct(xs: number[], p: number): number { const s = [...xs].sort((a, b) => a - b); return s[Math.min(s.length - 1, Math.floor(s.length * p))]!; }
+
+export async function run(): Promise<void> {
+  execSync('npx vite build', { stdio: 'ignore' });
+  const port = 4500 + Math.floor(Math.random() * 400);
+  const server = spawn(process.execPath, ['--import', 'tsx', 'scripts/serve.ts', '--port', String(port)], { stdio: 'ignore' });
+  const exe = process.env.CHROMIUM_PATH ?? execSync('command -v chromium', { shell: '/bin/sh' }).toString().trim();
+  const browser = await chromium.launch({ executablePath: exe, args: ['--no-sandbox', '--disable-gpu', '--no-first-run'] });
+  try {
+    // Wait for the server to answer (tsx start-up takes a moment on a busy machine).
+    for (let i = 0; i < 100; i++) {
+      const up = await fetch(`http://127.0.0.1:${port}/`).then((r) => r.ok, () => false);
+      if (up) break;
+      await new Promise((r) => setTimeout(r, 200));
+    }
+    const doc = corporateFeed({ outputs: OUTPUTS });
+    const file = join(mkdtempSync(join(tmpdir(), 'sw-bench-')), 'feed64.json');
+    writeFileSync(file, serializeDesign(doc));
+    const page = await browser.newPage({ viewport: { width: 1366, height: 768 } });
+    await page.goto(`http://127.0.0.1:${port}/`);
+    await page.getByTestId('menu-file').click();
+    const chooser = page.waitForEvent('filechooser');
+    await page.getByTestId('menu-file.open').click();
+    await (await chooser).setFiles(file);
+    await page.getByTestId('design-name').filter({ hasText: `${OUTPUTS}-way` }).waitFor();
+    await page.locator('[data-piece]').first().waitFor({ timeout: 60_000 });
+    await page.waitForTimeout(500);
+    const vertex = doc.nodes.find((n) => n.kind === 'vertex')!.id;
+    const counts = (await page.evaluate(`({ pieces: document.querySelectorAll('[data-piece]').length, nodes: document.querySelectorAll('[data-node]').length, lines: document.querySelectorAll('[data-seg]').length })`)) as { pieces: number; nodes: number; lines: number };
+
+    // 1. Main-thread work per move, measured in the page.
+    // In-page code is a string: tsx would otherwise wrap functions in helpers the page does not have.
+    const work = (await page.evaluate(`(async (id, moves) => {
+      const svg = document.querySelector('[data-testid="board-canvas"]');
+      const el = document.querySelector('[data-node="' + id + '"]');
+      const r = el.getBoundingClientRect();
+      const x0 = r.left + r.width / 2, y0 = r.top + r.height / 2;
+      const ev = (type, x, y) => new PointerEvent(type, { clientX: x, clientY: y, button: 0, buttons: 1, bubbles: true, pointerId: 1, isPrimary: true });
+      const flush = async () => { for (let i = 0; i < 4; i++) await Promise.resolve(); };
+      svg.dispatchEvent(ev('pointerdown', x0, y0));
+      const times = [];
+      for (let k = 1; k <= moves; k++) {
+        const t0 = performance.now();
+        svg.dispatchEvent(ev('pointermove', x0 + k * 2, y0 + (k % 2)));
+        await flush();
+        svg.getBoundingClientRect();
+        document.body.offsetHeight;
+        times.push(performance.now() - t0);
+        await new Promise((ok) => requestAnimationFrame(() => ok(null)));
+      }
+      svg.dispatchEvent(ev('pointerup', x0 + moves * 2, y0));
+      return times;
+    })(${JSON.stringify(vertex)}, ${MOVES})`)) as number[];
+
+    // 2. Frame intervals with real input events from the browser.
+    await page.keyboard.press('Control+z');
+    await page.waitForTimeout(400);
+    await page.evaluate(`(() => {
+      window.__frames = []; window.__run = true;
+      let last = performance.now();
+      const tick = (t) => { window.__frames.push(t - last); last = t; if (window.__run) requestAnimationFrame(tick); };
+      requestAnimationFrame(tick);
+    })()`);
+    const box = await page.locator(`[data-node="${vertex}"]`).boundingBox();
+    if (box) {
+      await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+      await page.mouse.down();
+      for (let k = 1; k <= 60; k++) await page.mouse.move(box.x + box.width / 2 + k * 2, box.y + box.height / 2);
+      await page.mouse.up();
+    }
+    const frames = (await page.evaluate(`(() => { window.__run = false; return window.__frames.slice(2); })()`)) as number[];
+
+    console.log(`design: ${OUTPUTS}-output corporate feed, ${doc.nodes.length} nodes, ${doc.segments.length} segments; board shows ${counts.pieces} copper pieces, ${counts.lines} centrelines, ${counts.nodes} node marks`);
+    console.log(`drag of bend ${vertex}, ${MOVES} moves: main-thread work per frame median ${median(work).toFixed(2)} ms, p90 ${pct(work, 0.9).toFixed(2)} ms, max ${Math.max(...work).toFixed(2)} ms (target < 16 ms)`);
+    console.log(`animation-frame interval during a real-input drag: median ${median(frames).toFixed(2)} ms, p90 ${pct(frames, 0.9).toFixed(2)} ms over ${frames.length} frames`);
+  } finally {
+    await browser.close();
+    server.kill();
+  }
+}
