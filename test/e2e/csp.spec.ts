@@ -27,16 +27,29 @@ async function openApp(page: Page): Promise<{ requests: string[] }> {
 
 test('normal use raises no CSP violation and makes no request off 127.0.0.1', async ({ page }) => {
   const { requests } = await openApp(page);
-  // Use the app the way a person first does: wait for it to settle, move over the board, click, press keys.
+  // Use the app the way a person first does: visit every tab and panel (plots, Smith chart, outputs preview draw
+  // themselves), pick pieces, move over the board, zoom, press Escape.
   await page.waitForLoadState('networkidle');
-  const box = await page.locator('body').boundingBox();
+  let visited = 0;
+  for (const prefix of ['tab-', 'dock-']) {
+    const items = page.locator(`[data-testid^="${prefix}"]`);
+    for (let i = 0; i < await items.count(); i++) {
+      const item = items.nth(i);
+      if (await item.isVisible()) { await item.click(); visited++; await page.waitForTimeout(300); }
+    }
+  }
+  const rows = page.locator('[data-testid^="piece-row-"]');
+  for (let i = 0; i < Math.min(await rows.count(), 3); i++) if (await rows.nth(i).isVisible()) await rows.nth(i).click();
+  const board = page.getByTestId('board');
+  const box = (await board.isVisible()) ? await board.boundingBox() : await page.locator('body').boundingBox();
   if (box) {
     await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-    await page.mouse.click(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.move(box.x + box.width / 3, box.y + box.height / 3, { steps: 5 });
     await page.mouse.wheel(0, -200);
   }
   await page.keyboard.press('Escape');
-  await page.waitForTimeout(500);
+  await page.waitForTimeout(1000);
+  expect(visited, 'no tab-* or dock-* controls found: the walk through the app did not happen').toBeGreaterThan(2);
   expect(await page.evaluate(() => window.__violations)).toEqual([]);
   const offHost = requests.filter((u) => { const p = new URL(u); return !['data:', 'blob:'].includes(p.protocol) && p.hostname !== '127.0.0.1'; });
   expect(offHost).toEqual([]);
