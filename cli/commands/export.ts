@@ -15,7 +15,7 @@ import {
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { VERSION } from '../version.ts';
 
-const FORMATS = ['dxf', 'svg', 'gerber', 'drill', 'mask'] as const;
+const FORMATS = ['dxf', 'svg', 'gerber', 'drill', 'mask', 'mask-pdf'] as const;
 type Format = (typeof FORMATS)[number];
 
 const usage = `Usage: stripwright export FILE --format FORMAT[,FORMAT…] --out PATH [options]
@@ -28,6 +28,7 @@ Formats:
   gerber   Gerber X2 (RS-274X, mm, 4.6): NAME-copper-top.gbr (copper as regions) and NAME-profile.gbr
   drill    Excellon (METRIC): NAME-plated.drl and NAME-nonplated.drl (only those the board has)
   mask     1:1 photo mask / toner-transfer sheet (SVG page) with scale bar and registration marks
+  mask-pdf the same sheet as a vector PDF (NAME-mask.pdf)
 
 Options:
   --out PATH              where to write: a file for one output, a folder (created if missing) for several
@@ -127,11 +128,13 @@ export const exportCommand: CliCommand = {
             if (!d.plated && !d.nonPlated) io.err('stripwright export: the board has no drilled holes; no drill file written');
             break;
           }
-          case 'mask': {
+          case 'mask':
+          case 'mask-pdf': {
             // The mask applies the bias itself so the sheet can state it; give it the unbiased copper.
             const m = toMask(raw, { page, polarity, mirror: frame.mirror, bias, title: basename(file) });
             if (bias === 0) warnings.push(...m.warnings);
-            outputs.push({ name: `${base}-mask.svg`, text: m.svg, what: `photo mask, ${polarity ?? 'positive'}${frame.mirror ? ', mirrored' : ''}, print at 100 %` });
+            const what = `photo mask${f === 'mask-pdf' ? ' (PDF)' : ''}, ${polarity ?? 'positive'}${frame.mirror ? ', mirrored' : ''}, print at 100 %`;
+            outputs.push(f === 'mask' ? { name: `${base}-mask.svg`, text: m.svg, what } : { name: `${base}-mask.pdf`, text: m.pdf, what });
             break;
           }
         }

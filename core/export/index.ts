@@ -6,5 +6,6 @@ export * from './svg.ts';
 export * from './gerber.ts';
 export * from './excellon.ts';
 export * from './mask.ts';
+export * from './mask-pdf.ts';
 export * from './bias.ts';
 export * from './milling.ts';

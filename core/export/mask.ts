@@ -15,7 +15,8 @@
 import { InputError, describe } from '../util/errors.ts';
 import type { Warning } from '../util/warnings.ts';
 import { fmtMm, makeFrame, roundMm, toMm, type PointMm } from './frame.ts';
-import { regionPath } from './svg.ts';
+import { ringPath } from './svg.ts';
+import { sheetToPdf } from './mask-pdf.ts';
 import { withEtchBias } from './bias.ts';
 import type { ExportGeometry } from './layers.ts';
 
@@ -43,6 +44,8 @@ export interface MaskOptions {
 
 export interface Mask {
   svg: string;
+  /** The same sheet as a one-page vector PDF (ASCII text; see mask-pdf.ts). */
+  pdf: string;
   warnings: Warning[];
   /** Where things are on the page, mm from the top-left corner (y down): for tests and for print previews. */
   layout: {
@@ -65,9 +68,20 @@ const TEXT_BLOCK = 16, BAR_BLOCK = 16, BAR_LENGTH = 100, BAR_H = 1;
 /** Drill centre dot diameter, mm (or the hole, if smaller). */
 const DRILL_DOT = 0.5;
 
+/** A drawing item on the sheet, in page millimetres from the top-left corner, y down. */
+export type SheetItem =
+  | { kind: 'fill'; id: string; colour: 'ink' | 'paper'; subpaths: PointMm[][] }
+  | { kind: 'rect'; id?: string; x: number; y: number; w: number; h: number }
+  | { kind: 'dot'; c: PointMm; r: number; colour: 'ink' | 'paper' }
+  | { kind: 'mark'; c: PointMm; r: number; arm: number; line: number }
+  | { kind: 'text'; x: number; y: number; size: number; text: string; anchor: 'start' | 'middle' };
+
+/** The sheet as data: one model drawn by both the SVG and the PDF writer, so the two never disagree. */
+export interface Sheet { w: number; h: number; title: string; items: SheetItem[] }
+
 export function toMask(geometry: ExportGeometry, options: MaskOptions = {}): Mask {
   const pageName = options.page ?? 'a4';
-  if (!(pageName in PAGES)) throw new InputError('bad-choice', 'page', "'a4' or 'letter'", describe(pageName));
+  if (typeof pageName !== 'string' || !Object.hasOwn(PAGES, pageName)) throw new InputError('bad-choice', 'page', "'a4' or 'letter'", describe(pageName));
   const polarity = options.polarity ?? 'positive';
   if (polarity !== 'positive' && polarity !== 'negative') throw new InputError('bad-choice', 'polarity', "'positive' or 'negative'", describe(polarity));
   const mirror = options.mirror ?? false;
@@ -93,66 +107,46 @@ export function toMask(geometry: ExportGeometry, options: MaskOptions = {}): Mas
   }
   const bx = roundMm((pw - W) / 2), by = roundMm(PRINT_MARGIN + TEXT_BLOCK + MARK_OFFSET + MARK_R + 1);
   const place = (p: PointMm): PointMm => ({ x: roundMm(p.x - base.box.minX + bx), y: roundMm(base.box.maxY - p.y + by) });
-  const ink = '#000000', paper = '#ffffff';
-  const copperColour = polarity === 'positive' ? ink : paper;
-  const fieldColour = polarity === 'positive' ? paper : ink;
-  const copper = [...g.groundCopper, ...g.copper].map((r) => regionPath(frame, place, r)).join(' ');
-  const body: string[] = [];
+  const items: SheetItem[] = [];
+  const copper: PointMm[][] = [];
+  for (const r of [...g.groundCopper, ...g.copper]) for (const ring of [r.outer, ...r.holes]) copper.push(frame.ring(ring).map(place));
   if (polarity === 'negative') {
-    // One even-odd path: the opaque field with the copper cut out of it (clear on film, nothing printed on paper).
+    // One even-odd fill: the opaque field with the copper cut out of it (clear on film, nothing printed on paper).
     const x0 = roundMm(bx - SURROUND), y0 = roundMm(by - SURROUND), x1 = roundMm(bx + W + SURROUND), y1 = roundMm(by + H + SURROUND);
-    const field = `M${fmtMm(x0)} ${fmtMm(y0)} L${fmtMm(x1)} ${fmtMm(y0)} L${fmtMm(x1)} ${fmtMm(y1)} L${fmtMm(x0)} ${fmtMm(y1)} Z`;
-    body.push(`<g id="copper" data-polarity="negative"><path fill="${ink}" fill-rule="evenodd" d="${field}${copper ? ' ' + copper : ''}"/></g>`);
+    const field = [{ x: x0, y: y0 }, { x: x1, y: y0 }, { x: x1, y: y1 }, { x: x0, y: y1 }];
+    items.push({ kind: 'fill', id: 'copper', colour: 'ink', subpaths: [field, ...copper] });
   } else {
-    body.push(`<g id="copper" data-polarity="positive"><path fill="${copperColour}" fill-rule="evenodd" d="${copper}"/></g>`);
+    items.push({ kind: 'fill', id: 'copper', colour: 'ink', subpaths: copper });
   }
   if (options.drillMarks ?? true) {
-    const dots = g.drills.map((hit) => {
-      const c = place(frame.point(hit.at));
-      const r = roundMm(Math.min(DRILL_DOT, toMm(hit.diameter)) / 2);
-      return `<circle cx="${fmtMm(c.x)}" cy="${fmtMm(c.y)}" r="${fmtMm(r)}"/>`;
-    });
-    if (dots.length) body.push(`<g id="drill-centres" fill="${fieldColour}">`, ...dots, '</g>');
+    for (const hit of g.drills) {
+      items.push({ kind: 'dot', c: place(frame.point(hit.at)), r: roundMm(Math.min(DRILL_DOT, toMm(hit.diameter)) / 2), colour: polarity === 'positive' ? 'paper' : 'ink' });
+    }
   }
   const registration: PointMm[] = [
     { x: bx - MARK_OFFSET, y: by - MARK_OFFSET }, { x: bx + W + MARK_OFFSET, y: by - MARK_OFFSET },
     { x: bx + W + MARK_OFFSET, y: by + H + MARK_OFFSET }, { x: bx - MARK_OFFSET, y: by + H + MARK_OFFSET },
   ].map((p) => ({ x: roundMm(p.x), y: roundMm(p.y) }));
-  body.push(`<g id="registration" fill="none" stroke="${ink}" stroke-width="0.15">`);
-  for (const m of registration) {
-    const l = MARK_R + 1;
-    body.push(`<circle cx="${fmtMm(m.x)}" cy="${fmtMm(m.y)}" r="${MARK_R}"/><path d="M${fmtMm(m.x - l)} ${fmtMm(m.y)} L${fmtMm(m.x + l)} ${fmtMm(m.y)} M${fmtMm(m.x)} ${fmtMm(m.y - l)} L${fmtMm(m.x)} ${fmtMm(m.y + l)}"/>`);
-  }
-  body.push('</g>');
+  for (const c of registration) items.push({ kind: 'mark', c, r: MARK_R, arm: MARK_R + 1, line: 0.15 });
   // Scale bar: a filled bar exactly BAR_LENGTH mm long, ticks every 10 mm hanging below it, kept inside its ends.
   const sx = roundMm((pw - BAR_LENGTH) / 2), sy = roundMm(by + H + MARK_OFFSET + MARK_R + 1 + 6);
-  const ticks: string[] = [];
+  items.push({ kind: 'rect', id: 'scale-bar-line', x: sx, y: sy, w: BAR_LENGTH, h: BAR_H });
   for (let k = 0; k <= BAR_LENGTH; k += 10) {
     const tw = 0.2, len = k % 50 === 0 ? 3 : 1.8;
     const tx = k === 0 ? sx : k === BAR_LENGTH ? sx + BAR_LENGTH - tw : sx + k - tw / 2;
-    ticks.push(`<rect x="${fmtMm(roundMm(tx))}" y="${fmtMm(roundMm(sy + BAR_H))}" width="${tw}" height="${len}"/>`);
-    if (k % 50 === 0) ticks.push(`<text x="${fmtMm(roundMm(sx + k))}" y="${fmtMm(roundMm(sy + BAR_H + 6.5))}" text-anchor="middle">${k === BAR_LENGTH ? `${k} mm` : k}</text>`);
+    items.push({ kind: 'rect', x: roundMm(tx), y: roundMm(sy + BAR_H), w: tw, h: len });
+    if (k % 50 === 0) items.push({ kind: 'text', x: roundMm(sx + k), y: roundMm(sy + BAR_H + 6.5), size: 3, text: k === BAR_LENGTH ? `${k} mm` : String(k), anchor: 'middle' });
   }
-  body.push(`<g id="scale-bar" fill="${ink}" font-family="sans-serif" font-size="3">`,
-    `<rect id="scale-bar-line" x="${fmtMm(sx)}" y="${fmtMm(sy)}" width="${BAR_LENGTH}" height="${BAR_H}"/>`, ...ticks, '</g>');
   const state = [polarity.toUpperCase(), mirror ? 'MIRRORED' : 'NOT MIRRORED', `etch bias ${bias >= 0 ? '+' : '−'}${Math.abs(toMm(bias)).toFixed(3)} mm per edge`].join(', ');
-  const title = options.title ? escapeXml(options.title.slice(0, 80)) + ' — ' : '';
-  body.push(`<g id="notes" fill="${ink}" font-family="sans-serif" font-size="3">`,
-    `<text x="${PRINT_MARGIN}" y="${PRINT_MARGIN + 3}">${title}Stripwright photo mask, top copper</text>`,
-    `<text x="${PRINT_MARGIN}" y="${PRINT_MARGIN + 7}">${state}. Board ${fmtMm(W, 3)} × ${fmtMm(H, 3)} mm.</text>`,
-    `<text x="${PRINT_MARGIN}" y="${PRINT_MARGIN + 11}">Print at 100 % / actual size, no fit-to-page. The bar below must measure 100.0 mm.</text>`,
-    '</g>');
-  const svg = [
-    '<?xml version="1.0" encoding="UTF-8"?>',
-    `<svg xmlns="http://www.w3.org/2000/svg" width="${fmtMm(pw)}mm" height="${fmtMm(ph)}mm" viewBox="0 0 ${fmtMm(pw)} ${fmtMm(ph)}">`,
-    `<title>Stripwright photo mask (${sheet.name}${landscape ? ' landscape' : ''}, 1:1)</title>`,
-    `<rect id="paper" x="0" y="0" width="${fmtMm(pw)}" height="${fmtMm(ph)}" fill="${paper}"/>`,
-    ...body,
-    '</svg>',
-    '',
-  ].join('\n');
+  const title = options.title ? options.title.slice(0, 80) + ' — ' : '';
+  items.push(
+    { kind: 'text', x: PRINT_MARGIN, y: PRINT_MARGIN + 3, size: 3, text: `${title}Stripwright photo mask, top copper`, anchor: 'start' },
+    { kind: 'text', x: PRINT_MARGIN, y: PRINT_MARGIN + 7, size: 3, text: `${state}. Board ${fmtMm(W, 3)} × ${fmtMm(H, 3)} mm.`, anchor: 'start' },
+    { kind: 'text', x: PRINT_MARGIN, y: PRINT_MARGIN + 11, size: 3, text: 'Print at 100 % / actual size, no fit-to-page. The bar below must measure 100.0 mm.', anchor: 'start' },
+  );
+  const model: Sheet = { w: pw, h: ph, title: `Stripwright photo mask (${sheet.name}${landscape ? ' landscape' : ''}, 1:1)`, items };
   return {
-    svg, warnings,
+    svg: sheetToSvg(model), pdf: sheetToPdf(model), warnings,
     layout: {
       page: { w: pw, h: ph, landscape },
       board: { x: bx, y: by, w: W, h: H },
@@ -160,6 +154,40 @@ export function toMask(geometry: ExportGeometry, options: MaskOptions = {}): Mas
       registration,
     },
   };
+}
+
+const COLOUR = { ink: '#000000', paper: '#ffffff' } as const;
+
+/** The sheet as SVG: width/height in mm with a matching viewBox, one group per kind of item. */
+export function sheetToSvg(sheet: Sheet): string {
+  const n = (v: number) => fmtMm(v);
+  const fills = sheet.items.filter((i) => i.kind === 'fill');
+  const dots = sheet.items.filter((i) => i.kind === 'dot');
+  const marks = sheet.items.filter((i) => i.kind === 'mark');
+  const rects = sheet.items.filter((i) => i.kind === 'rect');
+  const texts = sheet.items.filter((i) => i.kind === 'text');
+  const out = [
+    '<?xml version="1.0" encoding="UTF-8"?>',
+    `<svg xmlns="http://www.w3.org/2000/svg" width="${n(sheet.w)}mm" height="${n(sheet.h)}mm" viewBox="0 0 ${n(sheet.w)} ${n(sheet.h)}">`,
+    `<title>${escapeXml(sheet.title)}</title>`,
+    `<rect id="paper" x="0" y="0" width="${n(sheet.w)}" height="${n(sheet.h)}" fill="${COLOUR.paper}"/>`,
+  ];
+  for (const f of fills) out.push(`<g id="${f.id}"><path fill="${COLOUR[f.colour]}" fill-rule="evenodd" d="${f.subpaths.map(ringPath).join(' ')}"/></g>`);
+  if (dots.length) {
+    out.push('<g id="drill-centres">');
+    for (const d of dots) out.push(`<circle cx="${n(d.c.x)}" cy="${n(d.c.y)}" r="${n(d.r)}" fill="${COLOUR[d.colour]}"/>`);
+    out.push('</g>');
+  }
+  out.push(`<g id="registration" fill="none" stroke="${COLOUR.ink}" stroke-width="${marks[0]?.line ?? 0.15}">`);
+  for (const m of marks) {
+    out.push(`<circle cx="${n(m.c.x)}" cy="${n(m.c.y)}" r="${n(m.r)}"/><path d="M${n(m.c.x - m.arm)} ${n(m.c.y)} L${n(m.c.x + m.arm)} ${n(m.c.y)} M${n(m.c.x)} ${n(m.c.y - m.arm)} L${n(m.c.x)} ${n(m.c.y + m.arm)}"/>`);
+  }
+  out.push('</g>', `<g id="scale-bar" fill="${COLOUR.ink}">`);
+  for (const r of rects) out.push(`<rect${r.id ? ` id="${r.id}"` : ''} x="${n(r.x)}" y="${n(r.y)}" width="${n(r.w)}" height="${n(r.h)}"/>`);
+  out.push('</g>', `<g id="notes" fill="${COLOUR.ink}" font-family="sans-serif">`);
+  for (const t of texts) out.push(`<text x="${n(t.x)}" y="${n(t.y)}" font-size="${n(t.size)}"${t.anchor === 'middle' ? ' text-anchor="middle"' : ''}>${escapeXml(t.text)}</text>`);
+  out.push('</g>', '</svg>', '');
+  return out.join('\n');
 }
 
 function escapeXml(s: string): string {

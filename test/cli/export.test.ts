@@ -63,11 +63,11 @@ describe('stripwright export: bad input (exit 1, nothing written)', () => {
 describe('stripwright export: writing files', () => {
   it('writes every format into a folder, lists them, and each passes its oracle', async () => {
     const dir = workdir();
-    const r = cli(['export', 'stub.json', '--format', 'dxf,svg,gerber,drill,mask', '--tool', '0.2mm', '--out', 'fab'], { cwd: dir });
+    const r = cli(['export', 'stub.json', '--format', 'dxf,svg,gerber,drill,mask,mask-pdf', '--tool', '0.2mm', '--out', 'fab'], { cwd: dir });
     expect(r.stderr).not.toMatch(/internal error/);
     expect(r.code).toBe(0);
     const files = readdirSync(join(dir, 'fab')).sort();
-    expect(files).toEqual(['stub-copper-top.gbr', 'stub-mask.svg', 'stub-plated.drl', 'stub-profile.gbr', 'stub.dxf', 'stub.svg']);
+    expect(files).toEqual(['stub-copper-top.gbr', 'stub-mask.pdf', 'stub-mask.svg', 'stub-plated.drl', 'stub-profile.gbr', 'stub.dxf', 'stub.svg']);
     for (const f of files) expect(r.stdout).toContain(join(dir, 'fab', f));
     const read = (f: string) => readFileSync(join(dir, 'fab', f), 'utf8');
     expect(lintGerber(read('stub-copper-top.gbr')).problems).toEqual([]);
@@ -77,6 +77,9 @@ describe('stripwright export: writing files', () => {
     const dxf = ezdxfAudit(read('stub.dxf'), 'stub.dxf');
     expect([dxf.code, dxf.report.audit_errors, dxf.report.audit_fixes]).toEqual([0, [], []]);
     expect(dxf.report.layers).toContain('ISOLATION_PATH');
+    const info = spawnSync('pdfinfo', [join(dir, 'fab', 'stub-mask.pdf')], { encoding: 'utf8' }); // poppler-utils
+    expect([info.status, info.stderr]).toEqual([0, '']);
+    expect(info.stdout).toMatch(/\(A4\)/);
     expect(read('stub-copper-top.gbr')).toMatch(/%TF.GenerationSoftware,Stripwright,Stripwright,\d+\.\d+\.\d+\*%/);
   });
 

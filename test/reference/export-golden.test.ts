@@ -3,7 +3,7 @@
  * with test/fixtures/export/golden/ (regenerate with `npx tsx scripts/oracles/make-export-goldens.ts` and review
  * the diff). Each golden file is also run through the outside oracles, so what is frozen is a checked file:
  * ezdxf strict load + audit (DXF), our Gerber/Excellon rule checker and gerber-parser/plotter (Gerber, drill),
- * xmllint (SVG), and the rendered copper area against the geometry within 0.5 % (formats.md §3.2).
+ * xmllint (SVG), poppler's pdfinfo (PDF), and the rendered copper area against the geometry within 0.5 % (formats.md §3.2).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync, readdirSync } from 'node:fs';
@@ -47,6 +47,9 @@ describe('export golden files', () => {
       } else if (name.endsWith('.drl')) {
         expect(lintExcellon(text).problems, name).toEqual([]);
         expect((await readBack(text)).warnings, name).toEqual([]);
+      } else if (name.endsWith('.pdf')) {
+        const r = spawnSync('pdfinfo', ['-'], { input: text, encoding: 'utf8' }); // poppler-utils
+        expect([r.status, r.stderr], name).toEqual([0, '']);
       } else if (name.endsWith('.svg')) {
         expect(spawnSync('xmllint', ['--noout', '-'], { input: text }).status, name).toBe(0);
       }
