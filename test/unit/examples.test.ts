@@ -15,6 +15,7 @@ import { checkFabrication } from '../../core/layout/checks.ts';
 import { designPaths } from '../../core/layout/paths.ts';
 import type { SizedDesign } from '../../core/layout/types.ts';
 import { oracleLine, oracleSynth, oracleOpenEnd, C0 } from './hj-oracle.ts';
+import { shoelace, selfIntersects } from './geometry-test-helpers.ts';
 
 const DIR = join(import.meta.dirname, '..', '..', 'assets', 'examples');
 const files = readdirSync(DIR).filter((f) => f.endsWith('.json')).sort();
@@ -35,6 +36,11 @@ describe('every example loads, sizes and passes its checks', () => {
       expect(s.problems).toEqual([]);
       const g = buildBoardGeometry(s);
       expect(g.copper.length).toBeGreaterThan(0);
+      for (const r of [...g.copper, ...g.groundCopper, ...g.clearance]) {
+        expect(shoelace(r.outer)).toBeGreaterThan(0);
+        expect(selfIntersects(r.outer)).toBe(false);
+        for (const hole of r.holes) { expect(shoelace(hole)).toBeLessThan(0); expect(selfIntersects(hole)).toBe(false); }
+      }
       const errors = checkFabrication(s, g).filter((x) => x.severity === 'error');
       expect(errors).toEqual([]);
       for (const rep of designPaths(s)) expect(rep.paths.length).toBeGreaterThan(0);
