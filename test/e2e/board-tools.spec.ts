@@ -1,0 +1,156 @@
+/**
+ * The board's tools and commands with mouse and keyboard, in Debian chromium under the app's CSP.
+ * Facts checked: a quarter-wave stub ends in a via when shorted (trade practice: a shorted stub is grounded
+ * through a via); a whole drag is one undo step (our requirement); mm ↔ mil display (1 mil = 25.4 µm).
+ * Also writes the README screenshots (docs/screenshots/).
+ */
+import { expect, test, type Page } from '@playwright/test';
+import { mkdirSync } from 'node:fs';
+
+const shots = 'docs/screenshots';
+mkdirSync(shots, { recursive: true });
+
+const count = (page: Page, sel: string) => page.locator(sel).count();
+
+async function lineMid(page: Page, id: string) {
+  const b = await page.locator(`[data-seg="${id}"]`).boundingBox();
+  if (!b) throw new Error(`line ${id} not drawn`);
+  return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
+}
+
+async function nodeAt(page: Page, id: string) {
+  const b = await page.locator(`[data-node="${id}"]`).boundingBox();
+  if (!b) throw new Error(`node ${id} not drawn`);
+  return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
+}
+
+async function openDemo(page: Page) {
+  await page.goto('/');
+  await expect(page.getByTestId('design-name')).toContainText('5.8 GHz');
+  await page.locator('[data-piece]').first().waitFor();
+}
+
+test('the demo opens with true copper, and the overview screenshots', async ({ page }) => {
+  await openDemo(page);
+  expect(await count(page, '[data-piece]')).toBeGreaterThan(10);
+  await page.getByTestId('dock-response').click();
+  await expect(page.getByTestId('response-plot')).toBeVisible({ timeout: 30_000 });
+  await page.getByTestId('board-canvas').hover();
+  await page.screenshot({ path: `${shots}/editor-light.png` });
+  await page.getByTestId('dock-paths').click();
+  await expect(page.getByTestId('path-ledger').locator('tbody tr')).toHaveCount(4);
+  await page.getByTestId('theme').click();
+  await expect(page.locator('html')).toHaveClass(/dark/);
+  await page.mouse.move((await lineMid(page, 'qwl')).x, (await lineMid(page, 'qwl')).y);
+  await expect(page.getByTestId('hover-readout')).toContainText('Z0');
+  await page.screenshot({ path: `${shots}/editor-dark-paths.png` });
+});
+
+test('zoom with keys and wheel, fit, and switch to mil', async ({ page }) => {
+  await openDemo(page);
+  const scale = async () => parseFloat((await page.getByTestId('status').locator('..').innerText()).match(/([\d.]+) px\/mm/)![1]!);
+  const s0 = await scale();
+  await page.getByTestId('board-canvas').focus();
+  await page.keyboard.press('=');
+  expect(await scale()).toBeGreaterThan(s0);
+  await page.keyboard.press('-');
+  await page.keyboard.press('-');
+  expect(await scale()).toBeLessThan(s0);
+  const box = (await page.getByTestId('board-canvas').boundingBox())!;
+  await page.mouse.move(box.x + 300, box.y + 200);
+  await page.mouse.wheel(0, -400);
+  const zoomed = await scale();
+  await page.keyboard.press('f');
+  expect(Math.abs((await scale()) - s0) / s0).toBeLessThan(0.05);
+  expect(zoomed).not.toBe(s0);
+  await page.keyboard.press('u');
+  await expect(page.locator('.ruler .unit-label').first()).toHaveText('mil');
+  await expect(page.getByTestId('units')).toHaveText('mil');
+});
+
+test('a whole drag is one undo step; rotate, mirror, copy, paste and delete', async ({ page }) => {
+  await openDemo(page);
+  await page.keyboard.press('v');
+  const p0 = await nodeAt(page, 'in');
+  await page.mouse.move(p0.x, p0.y);
+  await page.mouse.down();
+  for (let k = 1; k <= 10; k++) await page.mouse.move(p0.x + k * 4, p0.y, { steps: 2 });
+  await page.mouse.up();
+  await expect.poll(async () => (await nodeAt(page, 'in')).x).toBeGreaterThan(p0.x + 20);
+  await page.keyboard.press('Control+z');
+  await expect.poll(async () => Math.round((await nodeAt(page, 'in')).x)).toBe(Math.round(p0.x));
+  await page.keyboard.press('Control+Shift+z');
+  await expect.poll(async () => (await nodeAt(page, 'in')).x).toBeGreaterThan(p0.x + 20);
+  await page.keyboard.press('Control+z');
+
+  // Box-select the left half, copy, paste: the design grows by the copied pieces.
+  const segs = await count(page, '[data-seg]');
+  const b = (await page.getByTestId('board-canvas').boundingBox())!;
+  await page.mouse.move(b.x + 30, b.y + 30);
+  await page.mouse.down();
+  await page.mouse.move(b.x + b.width * 0.45, b.y + b.height - 20, { steps: 5 });
+  await page.mouse.up();
+  await expect(page.getByTestId('piece-sheet')).toContainText('items selected');
+  await page.keyboard.press('Control+c');
+  await page.keyboard.press('Control+v');
+  await expect.poll(() => count(page, '[data-seg]')).toBeGreaterThan(segs);
+  const pasted = await count(page, '[data-seg]');
+  await page.keyboard.press('q'); // turn the pasted copy
+  await page.keyboard.press('m'); // and mirror it
+  await page.keyboard.press('Delete');
+  await expect.poll(() => count(page, '[data-seg]')).toBe(segs);
+  await page.keyboard.press('Control+z'); // delete undone
+  await expect.poll(() => count(page, '[data-seg]')).toBe(pasted);
+});
+
+test('stubs, a width step, a taper, a part, a port and a board edge from the tool strip', async ({ page }) => {
+  await page.goto('/');
+  await page.getByTestId('menu-file').click();
+  await page.getByTestId('menu-file.new').click();
+  const b = (await page.getByTestId('board-canvas').boundingBox())!;
+  const y = b.y + b.height / 2;
+  await page.getByTestId('tool-port').click();
+  await page.mouse.click(b.x + 100, y);
+  await page.getByTestId('tool-route').click();
+  await page.mouse.click(b.x + 100, y);
+  await page.mouse.click(b.x + b.width - 100, y);
+  await page.keyboard.press('Enter');
+  await expect.poll(() => count(page, '[data-seg]')).toBe(1);
+
+  await page.getByTestId('tool-stub-open').click();
+  await page.mouse.click(b.x + 250, y - 2);
+  await expect.poll(() => count(page, '[data-node]')).toBe(4); // port, end, tee, stub end
+  await page.getByTestId('tool-stub-short').click();
+  await page.mouse.click(b.x + 400, y + 2);
+  await expect.poll(() => count(page, '.node-short')).toBe(1);
+  await expect.poll(() => count(page, '.drill')).toBe(1); // the shorted stub ends in a via
+  const beforeStep = await count(page, '[data-seg]');
+  await page.getByTestId('tool-step').click();
+  await page.mouse.click(b.x + 550, y);
+  await expect(page.getByTestId('status')).not.toContainText('Not done');
+  await expect.poll(() => count(page, '[data-seg]')).toBe(beforeStep + 1);
+  await page.getByTestId('tool-taper').click();
+  await page.mouse.click(b.x + 650, y);
+  await expect.poll(() => count(page, '.cl-taper')).toBe(1);
+  await page.getByTestId('tool-part').click();
+  await page.mouse.click(b.x + 180, y);
+  await expect.poll(() => count(page, '.cl-lumped')).toBe(1);
+  await page.keyboard.press('b');
+  for (const [dx, dy] of [[60, 60], [b.width - 60, 60], [b.width - 60, b.height - 60], [60, b.height - 60]]) await page.mouse.click(b.x + dx, b.y + dy);
+  await page.keyboard.press('Enter');
+  await expect(page.locator('.board-outline')).toHaveCount(1);
+  // Every one of these was one step: undo them all back to the single run.
+  for (let i = 0; i < 6; i++) await page.keyboard.press('Control+z');
+  await expect.poll(() => count(page, '[data-seg]')).toBe(1);
+});
+
+test('the command finder runs any command by name', async ({ page }) => {
+  await openDemo(page);
+  await page.keyboard.press('Control+k');
+  await expect(page.getByTestId('command-finder')).toBeVisible();
+  await page.keyboard.type('theme');
+  await page.screenshot({ path: `${shots}/command-finder.png` });
+  await page.keyboard.press('Enter');
+  await expect(page.getByTestId('command-finder')).toHaveCount(0);
+  await expect(page.locator('html')).toHaveClass(/dark/);
+});
