@@ -106,21 +106,28 @@ export function pieceOutlines(sized: SizedDesign): { outlines: PieceOutline[]; d
         }
         if (patch.length >= 3) regions.push(R(patch));
       }
-    } else if (n.kind === 'junction' && segs.length >= 3 && segs.every(isLine)) {
-      // Junction square: aligned with the main line, Wbranch long and Wmain wide, plus the hull of the arms' end
-      // edges so arms at other angles meet without notches.
+    } else if (n.kind === 'junction' && segs.filter(isLine).length >= 2) {
+      // Junction square: aligned with the main line, as long as the widest other arm and as wide as the main line,
+      // plus the hull of the line arms' end edges so arms at other angles meet without notches. Parts meeting here
+      // (a Wilkinson resistor) bring their own pads.
+      const arms = segs.filter(isLine);
       const pts: Vec2[] = [];
-      for (const p of segs) {
+      for (const p of arms) {
         const d = dirFrom(n, p), nn = mul(left(d), widthAt(p, n.id) / 2);
         pts.push(add(n.pos, nn), sub(n.pos, nn));
       }
-      const mainIds = n.tee ? n.tee.main : [segs[0]!.id, segs.find((p) => dot(dirFrom(n, p), dirFrom(n, segs[0]!)) < -0.99)?.id ?? segs[1]!.id];
-      const main = segs.find((p) => p.id === mainIds[0])!;
+      const first = arms[0]!;
+      const opposite = arms.find((p) => p !== first && dot(dirFrom(n, p), dirFrom(n, first)) < -0.99);
+      const mainIds = n.tee ? n.tee.main : [first.id, ...(opposite ? [opposite.id] : [])];
+      const main = arms.find((p) => p.id === mainIds[0]) ?? first;
       const dm = dirFrom(n, main);
-      const wMain = Math.max(...segs.filter((p) => mainIds.includes(p.id)).map((p) => widthAt(p, n.id)));
-      const wOther = Math.max(...segs.filter((p) => !mainIds.includes(p.id)).map((p) => widthAt(p, n.id)));
-      const nm = left(dm);
-      for (const sa of [-1, 1]) for (const sb of [-1, 1]) pts.push(add(n.pos, add(mul(dm, sa * wOther / 2), mul(nm, sb * wMain / 2))));
+      const wMain = Math.max(...arms.filter((p) => mainIds.includes(p.id)).map((p) => widthAt(p, n.id)));
+      const others = arms.filter((p) => !mainIds.includes(p.id));
+      if (others.length) {
+        const wOther = Math.max(...others.map((p) => widthAt(p, n.id)));
+        const nm = left(dm);
+        for (const sa of [-1, 1]) for (const sb of [-1, 1]) pts.push(add(n.pos, add(mul(dm, sa * wOther / 2), mul(nm, sb * wMain / 2))));
+      }
       regions.push(R(convexHull(pts)));
     } else if (n.kind === 'short' && n.via && segs[0]) {
       const d = dirFrom(n, segs[0]);

@@ -71,6 +71,8 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   if (typeof f0 !== 'number' || !(f0 > 0) || !Number.isFinite(f0)) throw new InputError('out-of-range', 'frequency.f0', 'a design frequency above 0 Hz', describe(f0));
   if (!Array.isArray(doc.nodes) || !Array.isArray(doc.segments)) throw new InputError('invalid-design', 'nodes', 'lists of nodes and segments', describe(doc.nodes));
   const subs = doc.substrate;
+  if (!subs || typeof subs !== 'object') throw new InputError('invalid-design', 'substrate', 'a substrate (er, h, t, tanDelta, sigma, roughness)', describe(subs));
+  const band = doc.frequency.band && doc.frequency.band.stop >= doc.frequency.band.start ? doc.frequency.band : { start: f0, stop: f0 };
   const cache = opts.cache && opts.cache.sub === subs ? opts.cache : new LineCache(subs, opts.line);
   const problems: LayoutProblem[] = [];
   const warnings: Warning[] = [];
@@ -167,7 +169,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
         const r = w.endA!.r;
         piece.nominalLength = nominalLength(seg.length, r, seg, at, `segments[${i}].length`);
       } else if (seg.kind === 'taper') {
-        sizeTaper(w, cache, f0, doc.frequency.band.stop, at, i);
+        sizeTaper(w, cache, f0, Math.max(band.stop, f0), at, i);
       } else if (seg.kind === 'lumped') {
         const fp = smdFootprint(seg.size);
         piece.part = { part: seg.part, value: seg.value, footprint: fp };
@@ -371,7 +373,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     const p = problems[0]!;
     throw new InputError('impossible-layout', p.subjects[0] ? `segments.${p.subjects[0]}` : 'design', 'a layout that can be realised', p.message);
   }
-  return { name: doc.name, f0, band: doc.frequency.band, pieces, nodes: sizedNodes, centrelines, anchor: placed, problems, warnings, doc };
+  return { name: doc.name, f0, band, pieces, nodes: sizedNodes, centrelines, anchor: placed, problems, warnings, doc };
 }
 
 /** β at f0 of a line or taper piece (taper: mean over its sections), rad/m. */
