@@ -11,7 +11,7 @@ const ROOT = resolve(fileURLToPath(new URL('../..', import.meta.url)));
 function files(dir: string): string[] {
   return readdirSync(dir).flatMap((n) => { const p = join(dir, n); return statSync(p).isDirectory() ? files(p) : p.endsWith('.ts') ? [p] : []; });
 }
-const sources = files(join(ROOT, 'electron')).map((p) => ({ path: relative(ROOT, p), text: readFileSync(p, 'utf8').replace(/\/\*[\s\S]*?\*\/|\/\/.*$/gm, '') }));
+const sources = files(join(ROOT, 'electron')).map((p) => ({ path: relative(ROOT, p), text: readFileSync(p, 'utf8').replace(/\/\*[\s\S]*?\*\//g, "").replace(/(^|\s)\/\/.*$/gm, "$1") }));
 
 const forbidden: [RegExp, string][] = [
   [/nodeIntegration\w*\s*:\s*true/, 'item 2: Node integration'],
