@@ -4,7 +4,10 @@
  * Units: degrees and metres. Needs a result at f > 0 (there is no wavelength at DC).
  */
 import { InputError, describe } from '../util/errors.ts';
-import type { LineResult } from './types.ts';
+import { C0 } from '../units/constants.ts';
+import type { SubstrateSpec } from '../substrate/types.ts';
+import { analyzeLine } from './analyze.ts';
+import type { LineOptions, LineResult } from './types.ts';
 
 function needWave(r: LineResult): number {
   if (!(r.f > 0 && r.lambdaG > 0)) {
@@ -30,4 +33,19 @@ export function degreesForLength(r: LineResult, length: number): number {
     throw new InputError('out-of-range', 'length', 'a length from 0 to 100 m', describe(length));
   }
   return (360 * length) / lg;
+}
+
+/**
+ * Group delay per metre, s/m (methods.md §4): τg = (1/c0)·d(f·√εe(f))/df = (√εe + f·(dεe/df)/(2√εe))/c0, with dεe/df
+ * by a central difference of the dispersion model (relative step 1e-4). Equals the phase delay without dispersion.
+ * Needs f > 0; throws InputError for invalid input like analyzeLine.
+ */
+export function groupDelayPerM(sub: SubstrateSpec, width: number, f: number, opts?: LineOptions): number {
+  const r = analyzeLine(sub, width, f, opts);
+  needWave(r);
+  const df = 1e-4 * f;
+  const lo = analyzeLine(sub, width, f - df, opts).epsEff;
+  const hi = analyzeLine(sub, width, f + df, opts).epsEff;
+  const sq = Math.sqrt(r.epsEff);
+  return (sq + (f * (hi - lo)) / (2 * df) / (2 * sq)) / C0;
 }

@@ -6,7 +6,7 @@ export type { LineOptions, LineResult, DispersionModel, ConductorLossModel } fro
 export { DISPERSION_MODELS, CONDUCTOR_LOSS_MODELS } from './types.ts';
 export { analyzeLine, dielectricAt } from './analyze.ts';
 export { synthesizeLine } from './synthesize.ts';
-export { lengthForDegrees, degreesForLength } from './electrical-length.ts';
+export { lengthForDegrees, degreesForLength, groupDelayPerM } from './electrical-length.ts';
 export { lineConstants } from './line-constants.ts';
 export type { Complex } from './line-constants.ts';
 export { modeThresholds } from './mode-thresholds.ts';

@@ -77,6 +77,15 @@ describe('stripwright line', () => {
     const b = analyzeLine({ er: 4.4, h: 1.5748e-3, t: 35e-6, tanDelta: 0, sigma: 5.8e7, roughness: 0 }, 3e-3, 0);
     expect(a.z0_ohm).toBeCloseTo(b.z0, 9);
   });
+  it('--f-measure carries εr to the design frequency (wideband Debye): lower εeff above the measurement frequency', async () => {
+    const args = ['--er', '4.4', '--tand', '0.02', '--h', '1.6mm', '--width', '3mm', '--f', '5.8GHz', '--json'];
+    const plain = JSON.parse((await run(args)).stdout);
+    const deb = JSON.parse((await run([...args, '--f-measure', '1GHz'])).stdout);
+    expect(deb.eps_eff).toBeLessThan(plain.eps_eff);
+    const at = JSON.parse((await run(['--er', '4.4', '--tand', '0.02', '--h', '1.6mm', '--width', '3mm', '--f', '1GHz', '--f-measure', '1GHz', '--json'])).stdout);
+    const at0 = JSON.parse((await run(['--er', '4.4', '--tand', '0.02', '--h', '1.6mm', '--width', '3mm', '--f', '1GHz', '--json'])).stdout);
+    expect(at.eps_eff).toBeCloseTo(at0.eps_eff, 10);
+  });
   it('bad values exit 1 with the field, what was expected and what was given', async () => {
     const r = await run(['--er', '4.4', '--h', '1.6', '--z0', '50']);
     expect(r.code).toBe(1);

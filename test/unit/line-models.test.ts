@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   analyzeLine, synthesizeLine, hammerstad1975WidthRatio, wheeler1977WidthRatio, lengthForDegrees, degreesForLength,
-  modeThresholds, lineConstants, hjZ01, InputError, type SubstrateSpec,
+  modeThresholds, lineConstants, hjZ01, groupDelayPerM, InputError, type SubstrateSpec,
 } from '../../core/index.ts';
 import { hjZ01Derivative } from '../../core/line/hammerstad-jensen-1980.ts';
 import { hammerstadBekkadalKr } from '../../core/line/hammerstad-bekkadal-roughness.ts';
@@ -102,6 +102,16 @@ describe('Wavelength and electrical length (methods §4)', () => {
     expect(rel(r.vp / 299792458, 0.5961)).toBeLessThan(1e-4);
     expect(rel(r.delayPerM * 1e-3, 5.596e-12)).toBeLessThan(1e-4);
     expect(degreesForLength(r, lengthForDegrees(r, 123.4))).toBeCloseTo(123.4, 10);
+  });
+  it('group delay: equals the phase delay without dispersion, exceeds it with εe rising in f (methods §4)', () => {
+    const none = groupDelayPerM(RO35, 1.0734e-3, 10e9, { dispersion: 'none' });
+    expect(Math.abs(none / analyzeLine(RO35, 1.0734e-3, 10e9, { dispersion: 'none' }).delayPerM - 1)).toBeLessThan(1e-12);
+    const kj = groupDelayPerM(RO35, 1.0734e-3, 10e9);
+    const phase = analyzeLine(RO35, 1.0734e-3, 10e9);
+    expect(kj).toBeGreaterThan(phase.delayPerM);
+    // d(f√εe)/df by a coarse difference of the phase constant over ±100 MHz agrees to 1e-4.
+    const b = (f: number) => f * Math.sqrt(analyzeLine(RO35, 1.0734e-3, f).epsEff);
+    expect(Math.abs(kj / ((b(10.1e9) - b(9.9e9)) / 0.2e9 / 299792458) - 1)).toBeLessThan(1e-4);
   });
   it('refuses electrical length without a frequency', () => {
     expect(() => lengthForDegrees(analyzeLine(RO35, 1e-3, 0), 90)).toThrow(InputError);
