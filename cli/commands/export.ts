@@ -9,7 +9,7 @@ import { closeSync, existsSync, fsyncSync, mkdirSync, openSync, readFileSync, re
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import { randomBytes } from 'node:crypto';
 import {
-  InputError, initPolygons, parseDesign, parseQuantity, toDxf, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
+  InputError, initPolygons, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
   sizeDesign, buildBoardGeometry, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
@@ -39,6 +39,7 @@ Options:
   --layers L[,L…]         layers for dxf/svg among: ${EXPORT_LAYERS.join(', ')}
   --tool LEN              milling tool diameter: adds isolation outlines offset by its radius (dxf/svg layer 'isolation')
   --style filled|outline  svg: filled copper (default) or outlines only
+  --dxf-version 2007|r12  dxf: AutoCAD 2007 with LWPOLYLINE and $INSUNITS (default), or R12 POLYLINE for cutters
   --page a4|letter        mask page (default a4)
   --polarity positive|negative   mask polarity (default positive: copper black)
 
@@ -60,7 +61,7 @@ export const exportCommand: CliCommand = {
       options: {
         format: { type: 'string' }, out: { type: 'string' }, force: { type: 'boolean' }, mirror: { type: 'boolean' },
         bias: { type: 'string' }, origin: { type: 'string' }, layers: { type: 'string' }, tool: { type: 'string' },
-        style: { type: 'string' }, page: { type: 'string' }, polarity: { type: 'string' },
+        style: { type: 'string' }, page: { type: 'string' }, polarity: { type: 'string' }, 'dxf-version': { type: 'string' },
       },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to export' : `give one design FILE, got ${positionals.length}`);
@@ -77,6 +78,7 @@ export const exportCommand: CliCommand = {
     const style = choice('style', values.style, ['filled', 'outline'] as const);
     const page = choice('page', values.page, ['a4', 'letter'] as const);
     const polarity = choice('polarity', values.polarity, ['positive', 'negative'] as const);
+    const dxfVersion = choice('dxf-version', values['dxf-version'], ['2007', 'r12'] as const) ?? '2007';
     const layers = values.layers?.split(',').map((l) => l.trim()).filter((l) => l !== '');
 
     const file = resolve(io.cwd, positionals[0]);
@@ -113,7 +115,9 @@ export const exportCommand: CliCommand = {
       const outputs: Output[] = [];
       for (const f of new Set(formats as Format[])) {
         switch (f) {
-          case 'dxf': outputs.push({ name: `${base}.dxf`, text: toDxf(g, { ...frame, layers }), what: 'DXF drawing, mm' }); break;
+          case 'dxf': outputs.push(dxfVersion === 'r12'
+            ? { name: `${base}.dxf`, text: toDxfR12(g, { ...frame, layers }), what: 'DXF R12 drawing, mm' }
+            : { name: `${base}.dxf`, text: toDxf(g, { ...frame, layers }), what: 'DXF drawing, mm' }); break;
           case 'svg': outputs.push({ name: `${base}.svg`, text: toSvg(g, { mirror: frame.mirror, layers, style }), what: 'SVG drawing, true size' }); break;
           case 'gerber': {
             const gb = toGerber(g, { ...frame, ...sw });

@@ -9,3 +9,4 @@ export * from './mask.ts';
 export * from './mask-pdf.ts';
 export * from './bias.ts';
 export * from './milling.ts';
+export * from './dxf-r12.ts';

@@ -127,5 +127,10 @@ describe('stripwright export: layer choice', () => {
     expect(ok.code).toBe(0);
     const { report } = ezdxfAudit(readFileSync(join(dir, 'x.dxf'), 'utf8'), 'x.dxf');
     expect([...new Set(report.entities.map((e) => e.layer))].sort()).toEqual(['BOARD_EDGE', 'COPPER']);
+    const r12 = cli(['export', 'stub.json', '--format', 'dxf', '--dxf-version', 'r12', '--out', 'r12.dxf'], { cwd: dir });
+    expect(r12.code).toBe(0);
+    const a = ezdxfAudit(readFileSync(join(dir, 'r12.dxf'), 'utf8'), 'r12.dxf');
+    expect([a.code, a.report.version, a.report.audit_fixes]).toEqual([0, 'AC1009', []]);
+    expect(cli(['export', 'stub.json', '--format', 'dxf', '--dxf-version', '14', '--out', 'x14.dxf'], { cwd: dir }).stderr).toMatch(/--dxf-version must be 2007 or r12/);
   });
 });

@@ -7,6 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import DxfParser from 'dxf-parser';
 import { toDxf } from '../../core/export/dxf.ts';
+import { toDxfR12 } from '../../core/export/dxf-r12.ts';
 import { ezdxfAudit } from '../../scripts/oracles/dxf-audit.ts';
 import { boardFixture, stripOnlyFixture, BEND_MM } from '../fixtures/export/hand-made.ts';
 
@@ -88,5 +89,26 @@ describe('DXF export read back with dxf-parser', () => {
 
   it('is deterministic: the same geometry gives byte-identical text (handle counter reset)', () => {
     expect(toDxf(boardFixture())).toBe(toDxf(boardFixture()));
+  });
+});
+
+describe('DXF R12 (AC1009) variant for cutters and older importers', () => {
+  it('passes ezdxf strict load and audit with zero errors and zero fixes, same entities as the R2007 file', () => {
+    const g = boardFixture();
+    const r12 = ezdxfAudit(toDxfR12(g), 'r12.dxf');
+    const r2007 = ezdxfAudit(toDxf(g), 'r2007.dxf');
+    expect([r12.code, r12.report.strict, r12.report.audit_errors, r12.report.audit_fixes]).toEqual([0, true, [], []]);
+    expect(r12.report.version).toBe('AC1009'); // DXF Reference: AC1009 = R11/R12
+    expect(r12.report.entities.every((e) => e.type === 'POLYLINE' ? e.closed : e.type === 'CIRCLE')).toBe(true);
+    // Same geometry as the LWPOLYLINE file: layer, closed flag and every vertex.
+    const strip = (es: typeof r12.report.entities) => es.map((e) => [e.layer, e.closed ?? null, e.points?.map((p) => [p[0], p[1]]) ?? e.center, e.radius ?? null]);
+    expect(strip(r12.report.entities)).toEqual(strip(r2007.report.entities));
+  });
+  it('reads back with dxf-parser as closed POLYLINEs', () => {
+    const dxf = new DxfParser().parseSync(toDxfR12(stripOnlyFixture()))!;
+    const e = dxf.entities[0] as unknown as { type: string; shape: boolean; vertices: { x: number; y: number }[] };
+    expect(e.type).toBe('POLYLINE');
+    expect(e.shape).toBe(true);
+    expect(e.vertices.map((v) => [v.x, v.y])).toEqual([[0, 0], [10, 0], [10, 2], [0, 2]]);
   });
 });
