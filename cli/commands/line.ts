@@ -23,7 +23,7 @@ const USAGE = `Usage: stripwright line [substrate] (--z0 OHMS | --width LEN) [--
 Sizes a microstrip line for a target impedance (--z0) or analyses a given width (--width).
 Values take units: 1.6mm, 62mil, 35um, 1oz, 5.8GHz, 50ohm, 90deg.
 
-Substrate (a preset fills every field; flags given after it override):
+Substrate (a preset fills every field; the flags you give override it):
   --preset NAME         generic laminate: ${SUBSTRATE_PRESETS.map((p) => p.id).join(', ')}
   --er N                relative permittivity (needed without --preset)
   --h LEN               dielectric height, e.g. 1.6mm (needed without --preset)

@@ -245,3 +245,22 @@ describe("validity warnings at the authors' stated ranges", () => {
     expect(sources(base, 1e-3, 1e9)).toContain('wheeler-1942');
   });
 });
+
+describe('independent closed form: Wheeler 1977 thin-strip analysis', () => {
+  // H. A. Wheeler, IEEE Trans. MTT 25(8), 1977, zero-thickness analysis formula (as recalled from memory):
+  //   Z0 = 42.4/√(εr+1) · ln(1 + (4h/W)·(k·4h/W + √(k²(4h/W)² + π²(1 + 1/εr)/2))),  k = (14 + 8/εr)/11
+  // An independent derivation (conformal mapping with a filling estimate), stated to about 1 %.
+  const wheeler77 = (u: number, er: number) => {
+    const a = 4 / u; const k = (14 + 8 / er) / 11;
+    return (42.4 / Math.sqrt(er + 1)) * Math.log(1 + a * (k * a + Math.sqrt(k * k * a * a + (Math.PI ** 2) * (1 + 1 / er) / 2)));
+  };
+  it('agrees with the Hammerstad–Jensen static Z0 within 1.5 % for 0.1 ≤ W/h ≤ 20, εr 1–20', () => {
+    let worst = 0;
+    for (const er of [1.001, 2.2, 3.66, 4.4, 6.15, 9.8, 12.9, 20]) for (let lu = -1; lu <= 1.3; lu += 0.1) {
+      const u = 10 ** lu;
+      const z = analyzeLine({ ...RO, er, h: 1e-3 }, u * 1e-3, 0).z0;
+      worst = Math.max(worst, rel(wheeler77(u, er), z));
+    }
+    expect(worst).toBeLessThan(0.015);
+  });
+});
