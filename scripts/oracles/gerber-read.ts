@@ -57,3 +57,16 @@ export function gerberSvg(text: string): Promise<string> {
 export async function gerberDarkArea(text: string, pxPerMm = 20): Promise<DarkArea> {
   return darkArea(await gerberSvg(text), pxPerMm);
 }
+
+// Command line use: `npx tsx scripts/oracles/gerber-read.ts FILE...` prints units, extent, warnings and the
+// rendered dark area of each Gerber or Excellon file.
+if (import.meta.url === `file://${process.argv[1]}`) {
+  const { readFileSync } = await import('node:fs');
+  for (const f of process.argv.slice(2)) {
+    const text = readFileSync(f, 'utf8');
+    const r = await readBack(text);
+    const a = await gerberDarkArea(text, 20);
+    console.log(`${f}: units ${r.units}, box [${r.box?.join(', ')}], ${r.objects.length} objects, end ${r.done ? 'found' : 'MISSING'}, dark area ${a.areaMm2.toFixed(3)} mm²`);
+    for (const w of r.warnings) console.log(`  warning: ${w}`);
+  }
+}
