@@ -112,6 +112,11 @@ describe('Excellon drill files', () => {
     // Extent: vias 0.8 mm at (40,30),(42,30) and the 1.3 mm pin at (6,10).
     expect(r.box).toEqual([5.35, 9.35, 42.4, 30.4]);
   });
+  it('rendered holes (gerber-to-svg → resvg) cover Σ π·d²/4 within 1 % (pixel-limited at 40 px/mm)', async () => {
+    const want = g.drills.filter((d) => d.plated).reduce((a, d) => a + Math.PI * (d.diameter * 1e3) ** 2 / 4, 0);
+    const got = (await gerberDarkArea(files.plated!, 40)).areaMm2;
+    expect(Math.abs(got - want) / want).toBeLessThan(0.01);
+  });
   it('every drill centre lies inside the board outline', () => {
     const hits = [...lintExcellon(files.plated!).facts.hits, ...lintExcellon(files.nonPlated!).facts.hits];
     expect(hits.every((h) => h.x > 0 && h.x < 50 && h.y > 0 && h.y < 40)).toBe(true);
