@@ -2,7 +2,8 @@
  * The one Content-Security-Policy of the app. The desktop shell sends it as a response header from its custom
  * protocol; the browser fallback server (scripts/serve.ts) and the e2e tests send the very same header, so the
  * renderer is tested under the policy it ships with.
- * 'wasm-unsafe-eval' lets the polygon engine (WebAssembly) compile; nothing else may evaluate code.
+ * 'wasm-unsafe-eval' lets the polygon engine (WebAssembly) compile; nothing else may evaluate code. Workers come
+ * from our own files only (Vite emits the compute worker as a file), images also from data: and blob: URLs (previews).
  */
 export const CONTENT_SECURITY_POLICY = [
   "default-src 'none'",
@@ -11,7 +12,7 @@ export const CONTENT_SECURITY_POLICY = [
   "img-src 'self' data: blob:",
   "font-src 'self'",
   "connect-src 'self'",
-  "worker-src 'self' blob:",
+  "worker-src 'self'",
   "object-src 'none'",
   "base-uri 'none'",
   "form-action 'none'",

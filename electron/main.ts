@@ -36,6 +36,7 @@ let docState = { title: 'Stripwright', dirty: false };
 let closeAfterSaveUntil = 0;
 let closeConfirmed = false;
 let autosaveWaiter: (() => void) | null = null;
+let crashes: number[] = [];
 
 function parent(): BrowserWindow | undefined { return win && !win.isDestroyed() ? win : undefined; }
 
@@ -152,6 +153,12 @@ function start(): void {
       // reloaded page offers to restore them like after a crash of the whole app.
       pageReady = false;
       recovery.renewSession(randomUUID());
+      // Reload, but not in a loop: after three crashes within a minute, leave the window for the user to close.
+      crashes = crashes.filter((t) => Date.now() - t < 60_000).concat(Date.now());
+      if (crashes.length > 3) {
+        dialog.showErrorBox('The Stripwright page keeps stopping', `Reason: ${details.reason}. Your autosaved work is in ${recovery.folder}; restart Stripwright to restore it.`);
+        return;
+      }
       dialog.showErrorBox('The Stripwright page stopped', `Reason: ${details.reason}. The page reloads now and offers the work it had autosaved.`);
       win?.webContents.reload();
     });

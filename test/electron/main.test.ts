@@ -122,6 +122,17 @@ describe('electron/main.ts', () => {
     expect(w.title).toBe('Feed — Stripwright');
   });
 
+  it('reloads a crashed page into a new recovery session, but stops reloading after repeated crashes', async () => {
+    await boot();
+    const w = await started();
+    let reloads = 0;
+    (w.webContents as unknown as { reload: () => void }).reload = () => { reloads++; };
+    for (let i = 0; i < 5; i++) w.webContents.emit('render-process-gone', {}, { reason: 'crashed' });
+    expect(reloads).toBe(3);
+    const boxes = fake.calls.filter((c) => c.name === 'dialog.showErrorBox').map((c) => c.args[0]);
+    expect(boxes.slice(-1)).toEqual(['The Stripwright page keeps stopping']);
+  });
+
   it('closes without asking when nothing is unsaved', async () => {
     await boot();
     const w = await started();
