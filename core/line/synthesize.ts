@@ -10,6 +10,7 @@ import type { SubstrateSpec } from '../substrate/types.ts';
 import { evaluateModel } from './model.ts';
 import { checkConductorLoss, checkDispersion, checkFrequency, checkQuasiTem, checkSubstrate, U_MAX, U_MIN } from './inputs.ts';
 import { hammerstad1975WidthRatio } from './closed-form-synthesis.ts';
+import { hjDeltaU1, hjDeltaUr } from './hammerstad-jensen-1980.ts';
 import { analyzeLine, dielectricAt } from './analyze.ts';
 import type { LineOptions, LineResult } from './types.ts';
 
@@ -51,7 +52,14 @@ export function synthesizeLine(sub: SubstrateSpec, z0: number, f: number, opts?:
   // Bracket [a, b] with g(a) > 0 > g(b) once evaluated (Z0 decreases with W).
   let a = X_LO; let b = X_HI;
   let aKnown = false; let bKnown = false;
-  let seed = hammerstad1975WidthRatio(z0, er);
+  // Seed: the closed form gives the width of a zero-thickness strip; a strip of thickness t acts as one Δur wider
+  // (HJ 1980 eq. 7), so start Δur narrower. The closed form's slope, scaled the same way, makes the first step.
+  const cf = hammerstad1975WidthRatio(z0, er);
+  let seed = cf;
+  if (tn > 0 && cf > 0) {
+    const du = hjDeltaUr(hjDeltaU1(cf, tn), er);
+    if (cf - du > U_MIN) seed = cf - du;
+  }
   if (!(seed > U_MIN && seed < U_MAX)) seed = seed >= U_MAX ? U_MAX * 0.5 : seed <= U_MIN ? U_MIN * 2 : 1;
   let x0 = Math.log(seed);
   let g0 = G(x0);
@@ -60,8 +68,8 @@ export function synthesizeLine(sub: SubstrateSpec, z0: number, f: number, opts?:
   if (!done) {
     if (g0 > 0) { a = x0; aKnown = true; } else { b = x0; bKnown = true; }
     // First step: the slope dx/dZ0 of the closed form (cheap, and close to the model's), then secant steps.
-    const seedUp = hammerstad1975WidthRatio(z0 * 1.001, er);
-    const dxdz = seedUp > 0 && seed > 0 ? Math.log(seedUp / seed) / (0.001 * z0) : Number.NaN;
+    const cfUp = hammerstad1975WidthRatio(z0 * 1.001, er);
+    const dxdz = cfUp > 0 && cf > 0 ? (Math.log(cfUp / cf) / (0.001 * z0)) * (cf / seed) : Number.NaN;
     let slope = dxdz < 0 && Number.isFinite(dxdz) ? 1 / dxdz : Number.NaN;
     let x1 = x0; let g1 = g0;
     for (let i = 0; i < MAX_ITER; i++) {
