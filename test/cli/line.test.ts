@@ -166,3 +166,19 @@ describe('stripwright line --batch', () => {
     expect(existsSync(join(dir, 'nope.csv'))).toBe(false);
   });
 });
+
+describe('stripwright line --batch on arbitrary text (fast-check, seeded)', () => {
+  it('never crashes: every file gives exit 0 or 1 and a message for each bad row', async () => {
+    const fc = (await import('fast-check')).default;
+    const dir = mkdtempSync(join(tmpdir(), 'sw-line-fuzz-'));
+    const cell = fc.oneof(fc.constantFrom('50', '70.7ohm', '5.8GHz', '1.6mm', '', 'x', '-3', '1e999', '"q,uoted"', 'NaN', '0', '90deg', 'glass-epoxy'), fc.string({ maxLength: 6 }));
+    const header = fc.shuffledSubarray(['z0', 'width', 'f', 'deg', 'length', 'h', 'er', 'preset', 't'], { minLength: 1 });
+    await fc.assert(fc.asyncProperty(header, fc.array(fc.array(cell, { maxLength: 10 }), { maxLength: 8 }), fc.boolean(), async (cols, rows, crlf) => {
+      const text = [cols.join(','), ...rows.map((r) => r.join(','))].join(crlf ? '\r\n' : '\n');
+      writeFileSync(join(dir, 'f.csv'), text);
+      const r = await run(['--er', '4.4', '--h', '1.6mm', '--batch', 'f.csv'], dir);
+      expect([0, 1]).toContain(r.code);
+      if (r.code === 1) expect(r.stderr).toMatch(/stripwright line: f\.csv/);
+    }), { seed: 42, numRuns: 150 });
+  });
+});
