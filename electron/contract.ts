@@ -150,7 +150,6 @@ export const MENU_COMMANDS = [
   'file.new', 'file.open', 'file.save', 'file.save-as', 'file.export', 'file.recover',
   'edit.undo', 'edit.redo', 'edit.delete', 'edit.select-all',
   'view.zoom-in', 'view.zoom-out', 'view.zoom-fit',
-  'help.about', 'help.cautions',
 ] as const;
 export type MenuCommandId = (typeof MENU_COMMANDS)[number];
 

@@ -16,6 +16,7 @@ import { APP_SCHEME } from './policy.ts';
 import { createBundleHandler } from './protocol.ts';
 import { Shell, type Dialogs } from './shell.ts';
 import { createMainWindow, hardenContents, windowStateOf } from './window.ts';
+import { CAUTIONS_TEXT, CAUTIONS_TITLE } from './cautions.ts';
 
 // Must run before 'ready': our scheme is standard (relative URLs, origin), secure (like https) and may use fetch.
 protocol.registerSchemesAsPrivileged([{ scheme: APP_SCHEME, privileges: { standard: true, secure: true, supportFetchAPI: true, stream: true } }]);
@@ -80,6 +81,11 @@ function send(channel: string, payload?: unknown): void {
 
 function runCommand(id: MenuCommandId): void { send(PUSH_CHANNELS.menuCommand, id); }
 
+function messageBox(opts: Electron.MessageBoxOptions): Promise<Electron.MessageBoxReturnValue> {
+  const p = parent();
+  return p ? dialog.showMessageBox(p, opts) : dialog.showMessageBox(opts);
+}
+
 function start(): void {
   const session = randomUUID();
   const userData = app.getPath('userData');
@@ -107,6 +113,8 @@ function start(): void {
       openRecent: (p) => void deliver(p),
       clearRecent: () => void shell.clearRecent().then(refreshMenu),
       showRecoveryFolder: () => void electronShell.openPath(recovery.folder),
+      showCautions: () => void messageBox({ type: 'warning', title: CAUTIONS_TITLE, message: CAUTIONS_TITLE, detail: CAUTIONS_TEXT, buttons: ['OK'] }),
+      showAbout: () => void messageBox({ type: 'info', title: 'About Stripwright', message: `Stripwright ${app.getVersion()}`, detail: `Microstrip feed networks for boards made in-house.\nElectron ${process.versions.electron ?? '?'}, Chromium ${process.versions.chrome ?? '?'}.\nRecovery copies: ${recovery.folder}`, buttons: ['OK'] }),
     }, recent.ok ? recent.value : [])));
   };
 

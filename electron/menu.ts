@@ -11,13 +11,24 @@ export interface MenuActions {
   openRecent(path: string): void;
   clearRecent(): void;
   showRecoveryFolder(): void;
+  /** Native message boxes, so they work even when the page does not. */
+  showCautions(): void;
+  showAbout(): void;
 }
 
+/** True when an accelerator has a modifier (a bare key like 'F' or '=' must never be taken from text fields). */
+const hasModifier = (a: string) => /(Cmd|Ctrl|CmdOrCtrl|Command|Control|Alt|Option|Super|Meta)\+/.test(a);
+
 export function menuTemplate(a: MenuActions, recent: RecentFile[], platform: string = process.platform): MenuItemConstructorOptions[] {
-  const cmd = (label: string, id: MenuCommandId, accelerator?: string): MenuItemConstructorOptions => ({ label, ...(accelerator ? { accelerator } : {}), click: () => a.command(id) });
-  // Edit keys stay with the page (it knows whether a text field has the focus): shown, not registered.
-  const pageKey = (label: string, id: MenuCommandId, accelerator: string): MenuItemConstructorOptions => ({ ...cmd(label, id, accelerator), registerAccelerator: false });
   const mac = platform === 'darwin';
+  // The page's command registry owns the keys (it knows whether a text field has the focus), so the menu shows
+  // them without registering them (Linux, Windows). macOS menus always own their key equivalents, so there bare keys
+  // are left out of the menu and only keys with a modifier are given.
+  const cmd = (label: string, id: MenuCommandId, accelerator?: string): MenuItemConstructorOptions => {
+    const item: MenuItemConstructorOptions = { label, click: () => a.command(id) };
+    if (accelerator && (!mac || hasModifier(accelerator))) { item.accelerator = accelerator; if (!mac) item.registerAccelerator = false; }
+    return item;
+  };
   const recentItems: MenuItemConstructorOptions[] = recent.length
     ? [...recent.map((r) => ({ label: r.name, sublabel: r.path, click: () => a.openRecent(r.path) })), { type: 'separator' as const }, { label: 'Clear List', click: () => a.clearRecent() }]
     : [{ label: 'No Recent Designs', enabled: false }];
@@ -26,7 +37,7 @@ export function menuTemplate(a: MenuActions, recent: RecentFile[], platform: str
     {
       label: '&File',
       submenu: [
-        cmd('&New Design', 'file.new', 'CmdOrCtrl+N'),
+        cmd('&New Design', 'file.new', 'CmdOrCtrl+Alt+N'),
         cmd('&Open…', 'file.open', 'CmdOrCtrl+O'),
         { label: 'Open &Recent', submenu: recentItems },
         { type: 'separator' },
@@ -43,20 +54,20 @@ export function menuTemplate(a: MenuActions, recent: RecentFile[], platform: str
     {
       label: '&Edit',
       submenu: [
-        pageKey('&Undo', 'edit.undo', 'CmdOrCtrl+Z'),
-        pageKey('&Redo', 'edit.redo', mac ? 'Cmd+Shift+Z' : 'Ctrl+Y'),
+        cmd('&Undo', 'edit.undo', 'CmdOrCtrl+Z'),
+        cmd('&Redo', 'edit.redo', 'CmdOrCtrl+Shift+Z'),
         { type: 'separator' },
         { role: 'cut' }, { role: 'copy' }, { role: 'paste' },
-        pageKey('&Delete', 'edit.delete', 'Delete'),
-        pageKey('Select &All', 'edit.select-all', 'CmdOrCtrl+A'),
+        cmd('&Delete', 'edit.delete', 'Delete'),
+        cmd('Select &All', 'edit.select-all', 'CmdOrCtrl+A'),
       ],
     },
     {
       label: '&View',
       submenu: [
-        cmd('Zoom &In', 'view.zoom-in', 'CmdOrCtrl+='),
-        cmd('Zoom &Out', 'view.zoom-out', 'CmdOrCtrl+-'),
-        cmd('&Fit Board', 'view.zoom-fit', 'CmdOrCtrl+0'),
+        cmd('Zoom &In', 'view.zoom-in', '='),
+        cmd('Zoom &Out', 'view.zoom-out', '-'),
+        cmd('&Fit Board', 'view.zoom-fit', 'F'),
         { type: 'separator' },
         { role: 'togglefullscreen' },
         { role: 'toggleDevTools' },
@@ -64,7 +75,7 @@ export function menuTemplate(a: MenuActions, recent: RecentFile[], platform: str
     },
     {
       label: '&Help',
-      submenu: [cmd('Safety &Cautions', 'help.cautions'), cmd('&About Stripwright', 'help.about')],
+      submenu: [{ label: 'Safety &Cautions', click: () => a.showCautions() }, { label: '&About Stripwright', click: () => a.showAbout() }],
     },
   ];
 }

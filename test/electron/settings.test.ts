@@ -101,20 +101,38 @@ describe('text decoding', () => {
 describe('menu', () => {
   it('sends every app command of MENU_COMMANDS from some item, and only those', () => {
     const sent: string[] = [];
-    const t = menuTemplate({ command: (id) => sent.push(id), openRecent: vi.fn(), clearRecent: vi.fn(), showRecoveryFolder: vi.fn() }, [], 'linux');
+    const t = menuTemplate({ command: (id) => sent.push(id), openRecent: vi.fn(), clearRecent: vi.fn(), showRecoveryFolder: vi.fn(), showCautions: vi.fn(), showAbout: vi.fn() }, [], 'linux');
     const walk = (items: unknown[]): void => { for (const i of items as { click?: () => void; submenu?: unknown[] }[]) { i.click?.(); if (Array.isArray(i.submenu)) walk(i.submenu); } };
     walk(t);
     expect([...sent].sort()).toEqual([...MENU_COMMANDS].sort());
   });
-  it('lists recent designs, and leaves edit keys to the page (text fields keep their own undo and delete)', () => {
+  it('lists recent designs and shows the safety cautions natively', () => {
     const opened: string[] = [];
-    const t = menuTemplate({ command: vi.fn(), openRecent: (p) => opened.push(p), clearRecent: vi.fn(), showRecoveryFolder: vi.fn() }, [{ path: '/d/a.stripwright', name: 'a.stripwright', openedAt: 1 }], 'linux');
+    const cautions = vi.fn();
+    const t = menuTemplate({ command: vi.fn(), openRecent: (p) => opened.push(p), clearRecent: vi.fn(), showRecoveryFolder: vi.fn(), showCautions: cautions, showAbout: vi.fn() }, [{ path: '/d/a.stripwright', name: 'a.stripwright', openedAt: 1 }], 'linux');
     const file = t.find((m) => m.label === '&File')!.submenu as { label?: string; submenu?: { label?: string; click?: () => void }[] }[];
-    const recent = file.find((i) => i.label === 'Open &Recent')!.submenu!;
-    recent[0]!.click!();
+    file.find((i) => i.label === 'Open &Recent')!.submenu![0]!.click!();
     expect(opened).toEqual(['/d/a.stripwright']);
-    const edit = t.find((m) => m.label === '&Edit')!.submenu as { label?: string; registerAccelerator?: boolean }[];
-    for (const label of ['&Undo', '&Redo', '&Delete', 'Select &All']) expect(edit.find((i) => i.label === label)!.registerAccelerator).toBe(false);
+    const help = t.find((m) => m.label === '&Help')!.submenu as { label?: string; click?: () => void }[];
+    help.find((i) => i.label === 'Safety &Cautions')!.click!();
+    expect(cautions).toHaveBeenCalled();
+  });
+  it('never takes keys from the page: display-only on Linux/Windows, no bare keys on macOS (where menus own their keys)', () => {
+    const acts = { command: vi.fn(), openRecent: vi.fn(), clearRecent: vi.fn(), showRecoveryFolder: vi.fn(), showCautions: vi.fn(), showAbout: vi.fn() };
+    const items = (platform: string) => {
+      const out: { label?: string; accelerator?: string; registerAccelerator?: boolean; role?: string }[] = [];
+      const walk = (xs: unknown[]): void => { for (const x of xs as { submenu?: unknown[] }[]) { out.push(x as never); if (Array.isArray(x.submenu)) walk(x.submenu); } };
+      walk(menuTemplate(acts, [], platform));
+      return out;
+    };
+    for (const i of items('linux')) if (i.accelerator) expect(i.registerAccelerator, i.label).toBe(false);
+    const mac = items('darwin');
+    for (const i of mac) if (i.accelerator) expect(i.accelerator, i.label).toMatch(/CmdOrCtrl\+/);
+    expect(mac.find((i) => i.label === '&Fit Board')!.accelerator).toBeUndefined();
+  });
+  it('keeps the cautions on RF exposure, glass-fibre dust and etchants, deferring to local rules', async () => {
+    const { CAUTIONS_TEXT } = await import('../../electron/cautions.ts');
+    for (const re of [/RF exposure/, /FR-4/, /respirator/, /Etchants/, /hazardous waste/, /local codes/]) expect(CAUTIONS_TEXT).toMatch(re);
   });
 });
 
