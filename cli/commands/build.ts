@@ -13,7 +13,7 @@ import { parseDesign } from '../../core/design/parse.ts';
 import { initPolygons } from '../../core/geometry/polygons.ts';
 import { sizeDesign } from '../../core/layout/sizing.ts';
 import { buildBoardGeometry } from '../../core/layout/geometry.ts';
-import { designPaths, type PathReport } from '../../core/layout/paths.ts';
+import { designPaths, tracePaths, type PathReport } from '../../core/layout/paths.ts';
 import { checkFabrication, type Finding } from '../../core/layout/checks.ts';
 import type { SizedDesign } from '../../core/layout/types.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
@@ -27,6 +27,8 @@ Options:
   --json              print one JSON object instead of tables
   --tolerance DEG     phase tolerance for matched paths, degrees (default: each phase group's own, else 5)
   --loss-limit DB     loss budget per path, dB (default 1)
+  --from PORT --to PORT[,PORT…]
+                      report these paths (meant to match in phase) instead of the design's phase groups
 
 Exit status: 0 the design can be built as drawn; 1 it cannot (errors listed) or FILE is not a valid design;
 2 a bad command line.
@@ -127,11 +129,14 @@ export const buildCommand: CliCommand = {
   async run(argv: string[], io: CliIo): Promise<number> {
     const { values, positionals } = parseArgs({
       args: argv, allowPositionals: true, strict: true,
-      options: { json: { type: 'boolean' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' } },
+      options: { json: { type: 'boolean' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' } },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to build' : `give one design FILE, got ${positionals.length}`);
     const tolerance = number('tolerance', values.tolerance, 0, 180);
     const lossLimit = number('loss-limit', values['loss-limit'], 0, 1000);
+    if ((values.from === undefined) !== (values.to === undefined)) throw new UsageError('give --from and --to together, e.g. --from in --to out1,out2');
+    const toList = values.to?.split(',').map((x) => x.trim()).filter((x) => x !== '');
+    if (toList && toList.length === 0) throw new UsageError('--to needs at least one port id');
     const name = positionals[0]!;
     let text0: string;
     try { text0 = readFileSync(resolve(io.cwd, name), 'utf8'); } catch (e) {
@@ -148,7 +153,8 @@ export const buildCommand: CliCommand = {
       await initPolygons();
       const sized = sizeDesign(parsed.doc);
       const geometry = buildBoardGeometry(sized);
-      const paths = designPaths(sized, tolerance !== undefined ? { toleranceDeg: tolerance } : {});
+      const popts = tolerance !== undefined ? { toleranceDeg: tolerance } : {};
+      const paths = values.from !== undefined && toList ? [tracePaths(sized, values.from, toList, popts)] : designPaths(sized, popts);
       const findings = checkFabrication(sized, geometry, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
       const rep = buildReport(sized, paths, findings);
       rep.warnings.unshift(...parsed.warnings);

@@ -51,6 +51,18 @@ describe('stripwright build', () => {
     expect(r.stderr).toMatch(/is not a valid design/);
     expect(cli(['build', join(dir, 'missing.json')]).stderr).toMatch(/no such file/);
   });
+  it('--from/--to reports chosen paths as a matched group; an unknown port is an error naming the ports', () => {
+    const r = cli(['build', join(EX, 'branchline-10g4.json'), '--from', 'p1', '--to', 'p2,p4', '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(j.paths).toHaveLength(1);
+    expect(j.paths[0].matched).toBe(true);
+    expect(j.paths[0].paths.map((p: { to: string }) => p.to)).toEqual(['p2', 'p4']);
+    const bad = cli(['build', join(EX, 'branchline-10g4.json'), '--from', 'nope', '--to', 'p2']);
+    expect(bad.code).toBe(1);
+    expect(bad.stderr).toMatch(/from: expected a node id of this design \(ports: p1, p2, p3, p4\)/);
+    expect(cli(['build', join(EX, 'branchline-10g4.json'), '--from', 'p1']).code).toBe(2);
+  });
   it('exits 2 for a bad command line', () => {
     expect(cli(['build']).code).toBe(2);
     expect(cli(['build', 'a.json', 'b.json']).code).toBe(2);
