@@ -48,7 +48,24 @@ export function toDxf(geometry: ExportGeometry, options: DxfOptions = {}): strin
     '999', `Origin: ${frame.origin === 'board' ? 'lower-left corner of the board' : 'design origin'}. Mirrored: ${frame.mirror ? 'yes (left-right)' : 'no'}.`,
     '999', `Layers: ${layers.map((l: ExportLayer) => LAYER_INFO[l].dxf).join(', ')}.`,
   ].join('\n');
-  return `${comment}\n${d.toDxfString()}`;
+  return `${comment}\n${fixHandseed(d.toDxfString())}`;
+}
+
+/**
+ * $HANDSEED must be the next free handle, above every handle in the file (DXF Reference, HEADER section:
+ * "Next available handle"); dxf-writer 1.18.4 writes the last one used (toolchain.md §8), so a strict reader
+ * could hand out a duplicate. Handles are group codes 5 and 105, hexadecimal.
+ */
+export function fixHandseed(text: string): string {
+  const lines = text.split('\n');
+  let max = 0, seedAt = -1;
+  for (let i = 0; i + 1 < lines.length; i += 2) {
+    const code = lines[i].trim();
+    if (code === '9' && lines[i + 1] === '$HANDSEED') { seedAt = i + 3; i += 2; continue; } // its own 5-group is no handle
+    if (code === '5' || code === '105') max = Math.max(max, parseInt(lines[i + 1], 16));
+  }
+  if (seedAt > 0) lines[seedAt] = (max + 1).toString(16).toUpperCase();
+  return lines.join('\n');
 }
 
 function drawRegion(d: Drawing, ring: (r: Region['outer']) => PointMm[], region: Region): void {

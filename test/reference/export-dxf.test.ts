@@ -87,6 +87,17 @@ describe('DXF export read back with dxf-parser', () => {
     expect(a).toBeGreaterThan(0);
   });
 
+  it('$HANDSEED is the next free handle, above every handle used (DXF Reference, HEADER: "Next available handle")', () => {
+    const lines = toDxf(boardFixture()).split('\n');
+    let max = 0, seed = -1;
+    for (let i = 0; i + 1 < lines.length; i += 2) {
+      const code = lines[i].trim();
+      if (code === '9' && lines[i + 1] === '$HANDSEED') { seed = parseInt(lines[i + 3], 16); i += 2; continue; }
+      if (code === '5' || code === '105') max = Math.max(max, parseInt(lines[i + 1], 16));
+    }
+    expect(max).toBeGreaterThan(0);
+    expect(seed).toBe(max + 1);
+  });
   it('is deterministic: the same geometry gives byte-identical text (handle counter reset)', () => {
     expect(toDxf(boardFixture())).toBe(toDxf(boardFixture()));
   });
