@@ -189,7 +189,14 @@ function start(): void {
         send(PUSH_CHANNELS.flushAutosave);
       }
     });
-    win.on('closed', () => { win = null; });
+    // Remember the placement also while the window lives (a crash then keeps it), at most once a second.
+    let placeTimer: NodeJS.Timeout | null = null;
+    const rememberPlace = () => {
+      if (placeTimer) clearTimeout(placeTimer);
+      placeTimer = setTimeout(() => { const w = parent(); if (w) void writeJson(windowFile, windowStateOf(w)).catch(() => {}); }, 1000);
+    };
+    for (const e of ['resize', 'move', 'maximize', 'unmaximize'] as const) win.on(e as 'resize', rememberPlace);
+    win.on('closed', () => { if (placeTimer) clearTimeout(placeTimer); win = null; });
 
     for (const p of Shell.designPathsIn(process.argv.slice(app.isPackaged ? 1 : 2))) openFromOs(resolve(p));
   });
