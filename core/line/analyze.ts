@@ -25,11 +25,17 @@ import { KJ1982_RANGE } from './kirschning-jansen-1982.ts';
 import { JK1983_RANGE } from './jansen-kirschning-1983.ts';
 import type { LineOptions, LineResult } from './types.ts';
 
-/** εr and tanδ at f for the substrate (entered values, or the wideband Debye model when switched on; f = 0 → entered). */
+/**
+ * εr and tanδ at f for the substrate: the entered values, or the wideband Debye model when switched on (f = 0 →
+ * entered values). εr is floored at 1.001, the lowest the models accept (the ε∞ ≥ 1 check of validateSubstrate
+ * keeps a fit physical; the floor only guards rounding). Shared by analysis and synthesis so both see the same εr.
+ */
 export function dielectricAt(sub: SubstrateSpec, f: number): { er: number; tanDelta: number } {
   const dm = sub.dielectricModel;
   if (dm === undefined || dm.kind !== 'wideband-debye' || f === 0) return { er: sub.er, tanDelta: sub.tanDelta };
-  return widebandDebyeAt(sub.er, sub.tanDelta, dm.fMeasure, f, dm.fLow ?? DEBYE_F_LOW, dm.fHigh ?? DEBYE_F_HIGH);
+  const d = widebandDebyeAt(sub.er, sub.tanDelta, dm.fMeasure, f, dm.fLow ?? DEBYE_F_LOW, dm.fHigh ?? DEBYE_F_HIGH);
+  if (d.er < 1.001) d.er = 1.001;
+  return d;
 }
 
 function fmt(x: number): string { return String(Number(x.toPrecision(4))); }
@@ -64,13 +70,12 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   let tanDelta = sub.tanDelta;
   const dm = sub.dielectricModel;
   if (dm !== undefined && dm.kind === 'wideband-debye' && f > 0) {
-    const fLow = dm.fLow ?? DEBYE_F_LOW; const fHigh = dm.fHigh ?? DEBYE_F_HIGH;
-    const d = widebandDebyeAt(er, tanDelta, dm.fMeasure, f, fLow, fHigh);
+    const d = dielectricAt(sub, f);
     er = d.er; tanDelta = d.tanDelta;
+    const fLow = dm.fLow ?? DEBYE_F_LOW; const fHigh = dm.fHigh ?? DEBYE_F_HIGH;
     if (f < fLow || f > fHigh) {
       warnings.push(warn('validity', `f = ${fmt(f)} Hz lies outside the wideband Debye band ${fmt(fLow)}–${fmt(fHigh)} Hz; εr and tanδ are extrapolated.`, { source: 'djordjevic-2001-wideband-debye' }));
     }
-    if (er < 1.001) er = 1.001; // guarded by the ε∞ ≥ 1 check of validateSubstrate; kept as a floor for safety
   }
 
   checkQuasiTem(f, er, h);
