@@ -23,10 +23,10 @@
  * S_ij = V_i/√Z_i − δij.
  */
 import { InputError } from '../util/errors.ts';
-import { ccoshSinh, cdiv, cmul, type Complex } from './complex.ts';
+import { cdiv, cmul, type Complex } from './complex.ts';
 import { denseLuFactor, denseLuSolve } from './denseLu.ts';
 import { GROUND, type NetElement, type Netlist } from './netlist.ts';
-import { sparseFactor, sparseSolve, symbolicFactor, type Symbolic } from './ordering.ts';
+import { sparseFactor, sparseSolveMany, symbolicFactor, type Symbolic } from './ordering.ts';
 
 /** Below this |sinh γl| a line is stamped in ABCD form (the Y stamp loses about 4 digits there). */
 const SINH_LIMIT = 1e-4;
@@ -212,17 +212,23 @@ function evaluate(cn: CompiledNetwork, f: number): Evaluated {
       const lc = s.el.model(f);
       const zc = finite(lc.zc, `${s.el.id}.zc`, f), g = finite(lc.gamma, `${s.el.id}.gamma`, f);
       if (zc.re === 0 && zc.im === 0) throw new InputError('out-of-range', `${s.el.id}.zc`, 'a non-zero characteristic impedance', '0');
-      const { cosh, sinh } = ccoshSinh({ re: g.re * s.el.length, im: g.im * s.el.length });
-      if (sinh.re * sinh.re + sinh.im * sinh.im < SINH_LIMIT * SINH_LIMIT) {
+      // cosh and sinh of γl inline (this loop runs for every line at every frequency).
+      const xr = g.re * s.el.length, xi = g.im * s.el.length;
+      const c = Math.cos(xi), sn = Math.sin(xi), shr = Math.sinh(xr), chr = Math.cosh(xr);
+      const coR = chr * c, coI = shr * sn, siR = shr * c, siI = chr * sn;
+      if (siR * siR + siI * siI < SINH_LIMIT * SINH_LIMIT) {
         abcd[idx] = 1; anyAbcd = true;
-        const B = cmul(zc, sinh), C = cdiv(sinh, zc);
-        flat[o] = cosh.re; flat[o + 1] = cosh.im; flat[o + 2] = B.re; flat[o + 3] = B.im;
-        flat[o + 4] = C.re; flat[o + 5] = C.im; flat[o + 6] = cosh.re; flat[o + 7] = cosh.im;
+        const B = cmul(zc, { re: siR, im: siI }), C = cdiv({ re: siR, im: siI }, zc);
+        flat[o] = coR; flat[o + 1] = coI; flat[o + 2] = B.re; flat[o + 3] = B.im;
+        flat[o + 4] = C.re; flat[o + 5] = C.im; flat[o + 6] = coR; flat[o + 7] = coI;
       } else {
-        const zs = cmul(zc, sinh);
-        const y11 = cdiv(cosh, zs), y12 = cdiv({ re: -1, im: 0 }, zs);
-        flat[o] = y11.re; flat[o + 1] = y11.im; flat[o + 2] = y11.re; flat[o + 3] = y11.im;
-        flat[o + 4] = y12.re; flat[o + 5] = y12.im; flat[o + 6] = y12.re; flat[o + 7] = y12.im;
+        // y12 = −1/(Zc sinh γl), y11 = cosh γl/(Zc sinh γl) = −cosh·y12.
+        const zr = zc.re * siR - zc.im * siI, zi = zc.re * siI + zc.im * siR;
+        const d = zr * zr + zi * zi;
+        const y12r = -zr / d, y12i = zi / d;
+        const y11r = -(coR * y12r - coI * y12i), y11i = -(coR * y12i + coI * y12r);
+        flat[o] = y11r; flat[o + 1] = y11i; flat[o + 2] = y11r; flat[o + 3] = y11i;
+        flat[o + 4] = y12r; flat[o + 5] = y12i; flat[o + 6] = y12r; flat[o + 7] = y12i;
       }
     } else {
       const y = s.el.y(f);
@@ -240,7 +246,8 @@ export interface PointSolution { s: Float64Array; robust: boolean; pivotRatio: n
 
 /**
  * Solves the compiled network at frequency f (Hz > 0) and writes S into `out` (2·P·P numbers) when given.
- * Throws InputError('singular-network') when the network itself is singular at f.
+ * `method: 'dense'` forces the pivoting path (for cross-checks). Throws InputError('singular-network') when the
+ * network itself is singular at f.
  */
 export function solveAt(cn: CompiledNetwork, f: number, out?: Float64Array, opts: { method?: 'auto' | 'dense' } = {}): PointSolution {
   if (!(f > 0) || !Number.isFinite(f)) throw new InputError('out-of-range', 'frequency', 'a frequency > 0 Hz', String(f));
@@ -283,17 +290,16 @@ function solveSparse(cn: CompiledNetwork, ev: Evaluated, s: Float64Array): numbe
   const { minRatio } = sparseFactor(sym, v, rowScale);
   if (!(minRatio >= PIVOT_LIMIT)) return minRatio;
   const P = cn.ports.length;
-  const x = new Float64Array(2 * sym.n);
-  for (let j = 0; j < P; j++) {
-    x.fill(0);
-    const kj = sym.position[cn.ports[j].node];
-    x[2 * kj] = 2 / Math.sqrt(cn.ports[j].zRef);
-    sparseSolve(sym, v, x, kj);
-    for (let i = 0; i < P; i++) {
-      const ki = sym.position[cn.ports[i].node], g = 1 / Math.sqrt(cn.ports[i].zRef);
+  // All port excitations at once: column j is port j driven with E_j = 2√Z_j (injected current E_j/Z_j).
+  const X = new Float64Array(2 * sym.n * P);
+  for (let j = 0; j < P; j++) X[2 * (sym.position[cn.ports[j].node] * P + j)] += 2 / Math.sqrt(cn.ports[j].zRef);
+  sparseSolveMany(sym, v, X, P);
+  for (let i = 0; i < P; i++) {
+    const row = 2 * sym.position[cn.ports[i].node] * P, g = 1 / Math.sqrt(cn.ports[i].zRef);
+    for (let j = 0; j < P; j++) {
       const t = 2 * (i * P + j);
-      s[t] = x[2 * ki] * g - (i === j ? 1 : 0);
-      s[t + 1] = x[2 * ki + 1] * g;
+      s[t] = X[row + 2 * j] * g - (i === j ? 1 : 0);
+      s[t + 1] = X[row + 2 * j + 1] * g;
     }
   }
   return minRatio;

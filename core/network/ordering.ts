@@ -151,3 +151,45 @@ export function sparseSolve(s: Symbolic, v: Float64Array, x: Float64Array, first
     x[2 * k + 1] = (si * pr - sr * pi) / m2;
   }
 }
+
+/**
+ * Solves for `m` right-hand sides at once: `X` (2·n·m, row k holds the m values of unknown k in elimination
+ * coordinates) holds B on entry and the solution on exit. Same arithmetic as sparseSolve, but the inner loops run
+ * over contiguous columns, several times faster for the many port excitations of a feed.
+ */
+export function sparseSolveMany(s: Symbolic, v: Float64Array, X: Float64Array, m: number): void {
+  const { n, diag, upStart, upper, lowSlot, upSlot } = s;
+  const w = 2 * m;
+  for (let k = 0; k < n; k++) {
+    const bk = k * w;
+    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
+      const bi = upper[t] * w, p = 2 * lowSlot[t];
+      const lr = v[p], li = v[p + 1];
+      for (let c = 0; c < w; c += 2) {
+        const xr = X[bk + c], xi = X[bk + c + 1];
+        X[bi + c] -= lr * xr - li * xi;
+        X[bi + c + 1] -= lr * xi + li * xr;
+      }
+    }
+  }
+  for (let k = n - 1; k >= 0; k--) {
+    const bk = k * w;
+    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
+      const bj = upper[t] * w, p = 2 * upSlot[t];
+      const ur = v[p], ui = v[p + 1];
+      for (let c = 0; c < w; c += 2) {
+        const xr = X[bj + c], xi = X[bj + c + 1];
+        X[bk + c] -= ur * xr - ui * xi;
+        X[bk + c + 1] -= ur * xi + ui * xr;
+      }
+    }
+    const d = 2 * diag[k];
+    const pr = v[d], pi = v[d + 1], m2 = pr * pr + pi * pi;
+    const ir = pr / m2, ii = -pi / m2;
+    for (let c = 0; c < w; c += 2) {
+      const xr = X[bk + c], xi = X[bk + c + 1];
+      X[bk + c] = xr * ir - xi * ii;
+      X[bk + c + 1] = xr * ii + xi * ir;
+    }
+  }
+}

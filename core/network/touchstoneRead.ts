@@ -187,7 +187,6 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
   for (let k = 0; k < F; k++) {
     const t0 = recs[k];
     freqs[k] = toks[t0].v * scale;
-    if (freqs[k] === 0 && option.param === 'S') { /* DC point: allowed */ }
     const m = new Float64Array(2 * N * N);
     const put = (i: number, j: number, a: number, b: number) => {
       let re: number, im: number;
