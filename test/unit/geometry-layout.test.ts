@@ -73,6 +73,61 @@ describe('copper of straight runs, bends and tees', () => {
   });
 });
 
+describe('tees with a branch wider than the main line', () => {
+  it('area equals the union of the rectangles (coordinate compression); one simple outline', () => {
+    const Wm = 0.5e-3, Wb = 1.6e-3;
+    const s = sizeDesign(design({
+      nodes: [port('a', -0.01, 0), junction('j', 0, 0), port('b', 0.01, 0), port('c', 0, -0.01)],
+      segments: [line('m1', 'a', 'j', wd(Wm), lenOf(0.01)), line('m2', 'j', 'b', wd(Wm), lenOf(0.01)), line('br', 'j', 'c', wd(Wb), lenOf(0.01))],
+    }));
+    const g = buildBoardGeometry(s);
+    expect(g.copper).toHaveLength(1);
+    // The junction square: Wb along the main line, Wm across, centred on the junction.
+    const want = unionAreaOfRects([
+      { x0: -0.01, y0: -Wm / 2, x1: 0.01, y1: Wm / 2 }, { x0: -Wb / 2, y0: -0.01, x1: Wb / 2, y1: 0 }, { x0: -Wb / 2, y0: -Wm / 2, x1: Wb / 2, y1: Wm / 2 },
+    ]);
+    closeArea(regionAreaOracle(g.copper[0]!), want, [g.copper[0]!.outer]);
+    expect(selfIntersects(g.copper[0]!.outer)).toBe(false);
+  });
+});
+
+describe('property: random trees of tees give clean copper', () => {
+  const arm = fc.record({ len: fc.integer({ min: 6, max: 20 }), w: fc.integer({ min: 3, max: 15 }), deeper: fc.boolean() });
+  it('every copper region is simple and oriented; area within the parts', () => {
+    fc.assert(fc.property(fc.array(arm, { minLength: 3, maxLength: 9 }), (arms) => {
+      const nodes: DesignNode[] = [port('in', 0, -5e-3), junction('j0', 0, 0)];
+      const segs: DesignSegment[] = [line('feed', 'in', 'j0', wd(1e-3), lenOf(5e-3))];
+      // Grow a comb: each junction sends a branch up and continues to the right.
+      let x = 0, k = 0;
+      arms.forEach((a, i) => {
+        const L = a.len * 1e-3, W = a.w * 0.1e-3;
+        const last = i === arms.length - 1;
+        const next = last ? `end${i}` : `j${i + 1}`;
+        nodes.push(last ? port(next, x + L, 0) : junction(next, x + L, 0));
+        segs.push(line(`run${i}`, `j${i}`, next, wd(W), lenOf(L)));
+        const top = `top${k++}`;
+        nodes.push(port(top, x, a.deeper ? 0.02 : 0.01));
+        segs.push(line(`up${i}`, `j${i}`, top, wd(W / 2 + 0.2e-3), lenOf(a.deeper ? 0.02 : 0.01)));
+        x += L;
+      });
+      const s = sizeDesign(design({ nodes, segments: segs }));
+      expect(s.problems).toEqual([]);
+      const g = buildBoardGeometry(s);
+      let parts = 0, largest = 0;
+      for (const p of g.pieces) for (const r of p.regions) { const a = Math.abs(shoelace(r.outer)); parts += a; largest = Math.max(largest, a); }
+      const area = g.copper.reduce((a, r) => a + regionAreaOracle(r), 0);
+      const tol = gridTol(g.copper.flatMap((r) => [r.outer, ...r.holes]));
+      expect(area).toBeLessThanOrEqual(parts + tol);
+      expect(area).toBeGreaterThanOrEqual(largest - tol);
+      expect(g.copper).toHaveLength(1);
+      for (const r of g.copper) {
+        expect(shoelace(r.outer)).toBeGreaterThan(0);
+        expect(selfIntersects(r.outer)).toBe(false);
+      }
+    }), { numRuns: 40 });
+  });
+});
+
 describe('Klopfenstein 1956 profile (methods.md §11.7 checked example, Grossberg series)', () => {
   it('50 → 100 Ω, Γm = 0.02: A = 3.5447 and Z at z/L = 0, 0.1, …, 1', () => {
     const p = klopfensteinProfile(50, 100, 0.02);
