@@ -68,7 +68,22 @@ const OPTIONS = {
 type CaseText = Partial<Record<'preset' | 'er' | 'h' | 't' | 'tand' | 'sigma' | 'rough' | 'f-measure' | 'z0' | 'width' | 'f' | 'deg' | 'length' | 'dispersion' | 'conductor-loss', string>>;
 const CASE_KEYS = ['preset', 'er', 'h', 't', 'tand', 'sigma', 'rough', 'f-measure', 'z0', 'width', 'f', 'deg', 'length', 'dispersion', 'conductor-loss'] as const;
 
-interface Solved { result: LineResult; sub: SubstrateSpec; lengthM?: number; deg?: number }
+interface Solved { result: LineResult; sub: SubstrateSpec; opts: LineOptions; lengthM?: number; deg?: number }
+
+/** The models behind a result, named with their sources (the table's last row). */
+function modelNames(s: Solved): string {
+  const d = s.opts.dispersion ?? 'kirschning-jansen';
+  const c = s.opts.conductorLoss ?? 'wheeler-incremental';
+  const parts = ['static Hammerstad–Jensen 1980 (with thickness)'];
+  if (s.result.f > 0) {
+    parts.push(d === 'kirschning-jansen' ? 'εeff(f) Kirschning–Jansen 1982, Z0(f) Jansen–Kirschning 1983'
+      : d === 'hammerstad-jensen' ? 'dispersion Hammerstad–Jensen 1980' : 'no dispersion');
+    parts.push(c === 'wheeler-incremental' && s.sub.t > 0 ? "conductor loss Wheeler's incremental inductance" : 'conductor loss current-distribution form');
+    parts.push('roughness Hammerstad–Bekkadal 1975', 'dielectric loss filling factor');
+    if (s.sub.dielectricModel?.kind === 'wideband-debye') parts.push('εr, tanδ wideband Debye (Djordjevic et al. 2001)');
+  }
+  return parts.join('; ');
+}
 
 function substrateOf(c: CaseText): SubstrateSpec {
   let base: SubstrateSpec | undefined;
@@ -117,7 +132,7 @@ function solve(c: CaseText): Solved {
   const result = c.z0 !== undefined
     ? synthesizeLine(sub, parseQuantity(c.z0, 'impedance', 'z0'), f, opts)
     : analyzeLine(sub, parseQuantity(c.width!, 'length', 'width'), f, opts);
-  const out: Solved = { result, sub };
+  const out: Solved = { result, sub, opts };
   if (c.deg !== undefined) {
     out.deg = (parseQuantity(c.deg, 'angle', 'deg') * 180) / Math.PI;
     out.lengthM = lengthForDegrees(result, out.deg);
@@ -171,6 +186,7 @@ function table(s: Solved): string {
   if (preset) rows.splice(1, 0, ['preset note', preset.note]);
   if (s.lengthM !== undefined) rows.push(['electrical length', `${q(s.deg!, 'ratio')}° = ${q(s.lengthM, 'length')}`]);
   rows.push(['mode threshold', `${q(r.thresholds.errorAt, 'frequency')} (caution above ${q(r.thresholds.warnAt, 'frequency')}; rule of thumb c0/(4h√(εr−1)) = ${q(r.thresholds.ruleOfThumb, 'frequency')})`]);
+  rows.push(['models', modelNames(s)]);
   const width = Math.max(...rows.map(([k]) => k.length));
   const lines = rows.map(([k, v]) => `  ${k.padEnd(width)}  ${v}`);
   if (r.warnings.length > 0) {

@@ -71,6 +71,7 @@ describe('stripwright line', () => {
     expect(r.stdout).toMatch(/Z0\s+50 Ω at f/);
     expect(r.stdout).toMatch(/data sheet wins/);
     expect(r.stdout).toMatch(/90° = \d+\.\d+ mm/);
+    expect(r.stdout).toMatch(/models\s+static Hammerstad–Jensen 1980.*Kirschning–Jansen 1982.*Wheeler/);
   });
   it('units on every flag: 62mil = 1.5748 mm, 1oz = 35 µm', async () => {
     const a = JSON.parse((await run(['--er', '4.4', '--h', '62mil', '--t', '1oz', '--width', '3mm', '--json'])).stdout);
