@@ -6,9 +6,9 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import DxfParser from 'dxf-parser';
-import { initPolygons, regionsArea, unionRegions, differenceRegions, rectRing } from '../../core/geometry/polygons.ts';
+import { initPolygons, regionsArea, unionRegions, differenceRegions, rectRing, GRID_M } from '../../core/geometry/polygons.ts';
 import type { BoardGeometry, Region, Ring } from '../../core/geometry/types.ts';
-import { toDxf, toGerber, toSvg } from '../../core/export/index.ts';
+import { toDxf, toGerber, toSvg, withEtchBias, withIsolation } from '../../core/export/index.ts';
 import { lintGerber } from '../../scripts/oracles/gerber-lint.ts';
 import { readBack } from '../../scripts/oracles/gerber-read.ts';
 
@@ -96,5 +96,38 @@ describe('random geometries through every exporter', () => {
         }
       }
     }), { numRuns: 30 });
+  });
+});
+
+describe('random shapes through etch bias and isolation', () => {
+  it('a rotated w × h rectangle biased by b has area (w + 2b)(h + 2b) (miter joins keep it a rectangle)', () => {
+    fc.assert(fc.property(arbQuad, fc.double({ min: -0.2e-3, max: 0.2e-3, noNaN: true }), (q, b) => {
+      fc.pre(Math.min(q.w, q.h) > 2 * Math.abs(b) + 1e-5);
+      const g: BoardGeometry = {
+        copper: [{ outer: quad(q.cx, q.cy, q.w, q.h, q.a), holes: [] }], groundCopper: [], outline: { outer: rectRing(0, 0, BOARD.w, BOARD.h), holes: [] },
+        clearance: [], keepouts: [], drills: [], extent: { minX: 0, minY: 0, maxX: BOARD.w, maxY: BOARD.h }, pieces: [],
+      };
+      const got = regionsArea(withEtchBias(g, b).geometry.copper);
+      const want = (q.w + 2 * b) * (q.h + 2 * b);
+      // Tolerance: the engine snaps vertices to its 10 nm grid (GRID_M), moving each edge by up to that much:
+      // perimeter × 10 nm.
+      expect(Math.abs(got - want)).toBeLessThan(2 * (q.w + q.h + 4 * Math.abs(b)) * GRID_M);
+    }), { numRuns: 40 });
+  });
+  it('isolation outline of a convex quad: area within the chord deficit below Steiner A + P·r + π·r²', () => {
+    fc.assert(fc.property(arbQuad, fc.double({ min: 0.05e-3, max: 0.5e-3, noNaN: true }), (q, d) => {
+      const r = d / 2;
+      const g: BoardGeometry = {
+        copper: [{ outer: quad(q.cx, q.cy, q.w, q.h, q.a), holes: [] }], groundCopper: [], outline: null,
+        clearance: [], keepouts: [], drills: [], extent: { minX: 0, minY: 0, maxX: BOARD.w, maxY: BOARD.h }, pieces: [],
+      };
+      const got = regionsArea(withIsolation(g, d).geometry.isolation!);
+      const steiner = q.w * q.h + 2 * (q.w + q.h) * r + Math.PI * r * r;
+      // Round joins are flattened to 1 µm chords: the polygon lies inside the true offset, losing at most
+      // (arc length) × 1 µm = 2πr × 1e-6 m² (plus grid noise).
+      const grid = 2 * (q.w + q.h + 2 * Math.PI * r) * GRID_M; // grid snapping, as above
+      expect(got).toBeLessThanOrEqual(steiner + grid);
+      expect(steiner - got).toBeLessThan(2 * Math.PI * r * 1e-6 + grid);
+    }), { numRuns: 40 });
   });
 });
