@@ -28,7 +28,9 @@ describe('export golden files', () => {
   it('every file matches its golden text in full', () => {
     for (const s of sources) {
       for (const [name, text] of Object.entries(goldenFiles(s.name, s.geometry))) {
-        expect(text, name).toBe(readFileSync(join(DIR, name), 'utf8'));
+        // On an intended change (an exporter, or the sizing/geometry behind an example), regenerate with
+        // `npx tsx scripts/oracles/make-export-goldens.ts` and review the diff.
+        expect(text, `${name} differs from its golden file; if intended, run npx tsx scripts/oracles/make-export-goldens.ts`).toBe(readFileSync(join(DIR, name), 'utf8'));
       }
     }
   });
