@@ -131,3 +131,19 @@ describe('shortcuts and the command finder', () => {
     expect(rank(labels, 'zo', (s) => s)[0]).toBe('Zoom out');
   });
 });
+
+import { gammaOf, reactanceArc, resistanceCircle } from '../../renderer/src/board/smith.ts';
+
+describe('Smith chart construction (P. H. Smith, Electronics, Jan. 1939; Pozar, Microwave Engineering, 4th ed., §2.4)', () => {
+  it('Γ of z = r + jx lies on the r circle and on the x arc', () => {
+    for (const [r, x] of [[0.5, 1], [1, -2], [2, 0.2], [0.2, 5]] as const) {
+      const g = gammaOf(r, x);
+      const c = resistanceCircle(r), a = reactanceArc(x);
+      expect(Math.hypot(g.re - c.cx, g.im - c.cy)).toBeCloseTo(c.radius, 12);
+      expect(Math.hypot(g.re - a.cx, g.im - a.cy)).toBeCloseTo(a.radius, 12);
+    }
+    // z = 1 (matched) is the centre; the r = 0 circle is the unit circle.
+    expect(gammaOf(1, 0)).toEqual({ re: 0, im: 0 });
+    expect(resistanceCircle(0)).toEqual({ cx: 0, cy: 0, radius: 1 });
+  });
+});

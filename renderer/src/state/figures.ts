@@ -18,5 +18,7 @@ export interface PieceFigures {
   length: number;
   /** Electrical length at f0, degrees. */
   electricalDeg: number;
+  /** Length corrections at the ends (open end, via, bends, pads), applied or advisory, from the sizing. */
+  compensations: { model: string; source: string; amount: number; applied: boolean; node: string; note: string }[];
   warnings: Warning[];
 }

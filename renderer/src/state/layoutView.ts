@@ -27,6 +27,7 @@ export function figuresFrom(sized: SizedDesign): Map<string, PieceFigures> {
   for (const p of sized.pieces) {
     m.set(p.id, {
       id: p.id, width: p.width, widthEnd: p.widthB, z0: p.z0, eeff: p.line?.epsEff, length: p.length, electricalDeg: p.deg,
+      compensations: p.compensations.map((c) => ({ model: c.model, source: c.source, amount: c.amount_m, applied: c.applied, node: c.node, note: c.note })),
       warnings: p.warnings,
     });
   }

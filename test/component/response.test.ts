@@ -1,0 +1,35 @@
+/**
+ * The response dock over the core's solver (run inline, as the worker would), on the demo four-way feed.
+ * Outside facts: an ideal equal four-way split sends 1/4 of the power to each output, 10·log10(1/4) = −6.02 dB
+ * (conservation of energy); the line loss on top is the path ledger's figure (the core's own loss model), so |S21|
+ * at f0 ≈ −6.02 dB − loss, within 0.3 dB for the small mismatch. A passive network reflects no more than it
+ * receives: every Γ drawn on the Smith chart lies inside the unit circle.
+ */
+import { describe, expect, it, vi } from 'vitest';
+import { render, screen, waitFor } from '@testing-library/svelte';
+import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
+import { Compute } from '../../renderer/src/state/compute.svelte.ts';
+import { exampleText } from '../../renderer/src/state/examples.ts';
+import { layoutJob } from '../../renderer/src/worker/jobs.ts';
+import ResponsePanel from '../../renderer/src/components/ResponsePanel.svelte';
+
+vi.mock('uplot', () => ({ default: class { destroy() {} } }));
+
+describe('response dock', () => {
+  it('shows S21 at f0 at the four-way split less the path loss, and Γ inside the unit circle', async () => {
+    const ed = new EditorState();
+    expect(ed.loadText(exampleText('demo')!, null)).toBeNull();
+    const compute = new Compute(ed, null);
+    render(ResponsePanel, { editor: ed, compute });
+    await waitFor(() => expect(screen.getByTestId('f0-S21')).toBeTruthy(), { timeout: 20_000 });
+    const s21 = parseFloat(screen.getByTestId('f0-S21').textContent!.replace('S21', ''));
+    const lay = await layoutJob({ doc: ed.doc }, () => {});
+    const loss = lay.paths[0]!.paths[0]!.lossDb;
+    expect(s21).toBeCloseTo(10 * Math.log10(1 / 4) - loss, 0);
+    expect(Math.abs(s21 - (10 * Math.log10(1 / 4) - loss))).toBeLessThan(0.3);
+    const r = compute.response!;
+    for (const s of r.smith) s.re.forEach((re, k) => expect(Math.hypot(re, s.im[k]!)).toBeLessThanOrEqual(1 + 1e-9));
+    expect(screen.getByTestId('smith').querySelectorAll('polyline').length).toBeGreaterThan(0);
+    compute.destroy();
+  });
+});
