@@ -146,6 +146,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     const w: Work = { seg, piece, endA: null, endB: null, cut: 0, pads: 0, arcExtra: 0, straightNeed: 0, ok: true };
     works.push(w); workById.set(seg.id, w);
     const field = `segments[${i}]`;
+    if (!nodeById.has(seg.a) || !nodeById.has(seg.b) || seg.a === seg.b) { w.ok = false; return; } // reported above
     let ra: LineResult | null, rb: LineResult | null;
     if (seg.kind === 'taper') { ra = resolve(seg.from, `${field}.from`, seg.id); rb = resolve(seg.to, `${field}.to`, seg.id); }
     else { ra = rb = resolve(seg.width, `${field}.width`, seg.id); }

@@ -145,6 +145,11 @@ describe('impossible requests are errors that name the pieces', () => {
       expect((e as InputError).field).toBe('segments.l');
     }
   });
+  it('a piece to a node that does not exist, or from a node to itself, is a problem, not a crash', () => {
+    const s = sizeDesign(design({ nodes: [port('a', 0, 0), port('b', 0.01, 0)], segments: [line('l', 'a', 'ghost', z(50), lenOf(0.01)), line('loop', 'b', 'b', z(50), lenOf(0.01))] }));
+    expect(s.problems.some((p) => p.code === 'bad-topology' && p.subjects.includes('l') && /ghost/.test(p.message))).toBe(true);
+    expect(s.problems.some((p) => p.subjects.includes('loop'))).toBe(true);
+  });
   it('a bad design frequency is an InputError naming frequency.f0', () => {
     const d = design({ nodes: [], segments: [] });
     d.frequency.f0 = -1;
