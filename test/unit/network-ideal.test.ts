@@ -160,3 +160,56 @@ describe('bad networks get clear errors', () => {
     expect(err(() => compileNetwork({ elements: [line('t', 'a', 'b', 50, 10), line('t', 'b', 'c', 50, 10)], ports: [port('1', 'a')] })).code).toBe('invalid-design');
   });
 });
+
+describe('unequal Wilkinson, power ratio P3/P2 = K² = 2 (Parad & Moynihan 1965; Pozar §7.3; values in methods.md §11.2)', () => {
+  const K = Math.SQRT2, z0 = 50;
+  const z03 = z0 * Math.sqrt((1 + K * K) / K ** 3), z02 = K * K * z03, R = z0 * (K + 1 / K);
+  const r2 = z0 * K, r3 = z0 / K;
+  const net: Netlist = {
+    elements: [
+      line('a2', 'in', 'x2', z02, 90), line('a3', 'in', 'x3', z03, 90), { kind: 'resistor', id: 'r', a: 'x2', b: 'x3', value: R },
+      line('t2', 'x2', 'o2', Math.sqrt(z0 * r2), 90), line('t3', 'x3', 'o3', Math.sqrt(z0 * r3), 90),
+    ],
+    ports: [port('1', 'in'), port('2', 'o2'), port('3', 'o3')],
+  };
+  it('the design values match the worked example: Z02 = 102.99, Z03 = 51.49, R = 106.07 Ω', () => {
+    expect(z02).toBeCloseTo(102.99, 2); expect(z03).toBeCloseTo(51.49, 2); expect(R).toBeCloseTo(106.07, 2);
+  });
+  it('|S21|² = 1/3, |S31|² = 2/3, all ports matched and S23 = 0 at f0', () => {
+    const r = solveNetwork(net, [f0]);
+    const m2 = (i: number, j: number) => S(r, 0, i, j).re ** 2 + S(r, 0, i, j).im ** 2;
+    expect(m2(1, 0)).toBeCloseTo(1 / 3, 13);
+    expect(m2(2, 0)).toBeCloseTo(2 / 3, 13);
+    for (const [i, j] of [[0, 0], [1, 1], [2, 2], [1, 2]]) expect(m2(i, j)).toBeLessThan(1e-26);
+  });
+});
+
+describe('multi-section transformers, 50 → 100 Ω (methods.md §11.5–11.6)', () => {
+  const chain = (zs: number[]): Netlist => ({
+    elements: zs.map((z, i) => line(`s${i}`, `n${i}`, `n${i + 1}`, z, 90)),
+    ports: [port('1', 'n0', 50), port('2', `n${zs.length}`, 100)],
+  });
+  it('binomial N = 3 (54.53, 70.71, 91.70 Ω; Pozar §5.6): matched at f0, maximally flat around it', () => {
+    const r = solveNetwork(chain([54.53, 70.71, 91.7]), [f0 * 0.8, f0, f0 * 1.2]);
+    expect(Math.hypot(S(r, 1, 0, 0).re, S(r, 1, 0, 0).im)).toBeLessThan(2e-4); // the published values are rounded to 0.01 Ω
+    // Small-reflection estimate |Γ| ≈ 2^N·|A|·|cos θ|³ with the log form A = 2^−N·ln(ZL/Z0)/2 (Pozar §5.6),
+    // within 10 % (an approximation: it neglects multiple reflections).
+    for (const k of [0, 2]) {
+      const th = (Math.PI / 2) * (k === 0 ? 0.8 : 1.2);
+      const est = (Math.log(2) / 2) * Math.abs(Math.cos(th)) ** 3;
+      expect(Math.hypot(S(r, k, 0, 0).re, S(r, k, 0, 0).im) / est).toBeGreaterThan(0.9);
+      expect(Math.hypot(S(r, k, 0, 0).re, S(r, k, 0, 0).im) / est).toBeLessThan(1.1);
+    }
+  });
+  it('Chebyshev N = 2, Γm = 0.05 (60.97, 82.01 Ω; Collin 1955): in-band peak |S11| ≈ 0.05 across 0.665–1.335 f0', () => {
+    const freqs = sweepFrequencies({ start: 0.665 * f0, stop: 1.335 * f0, points: 201 });
+    const r = solveNetwork(chain([60.97, 82.01]), freqs);
+    let peak = 0;
+    for (let k = 0; k < freqs.length; k++) peak = Math.max(peak, Math.hypot(S(r, k, 0, 0).re, S(r, k, 0, 0).im));
+    expect(peak).toBeGreaterThan(0.048);
+    expect(peak).toBeLessThan(0.052);
+    // Outside the band the ripple bound no longer holds.
+    const out = solveNetwork(chain([60.97, 82.01]), [0.5 * f0]);
+    expect(Math.hypot(out.s[0], out.s[1])).toBeGreaterThan(0.06);
+  });
+});
