@@ -9,53 +9,64 @@ import { DOC_ID_RE } from './files/recovery-store.ts';
 import { isTrustedSender, plainFileNameProblem } from './policy.ts';
 import type { Shell } from './shell.ts';
 
-type Check<T> = (v: unknown) => { value: T } | { problem: string };
-const bad = (problem: string) => ({ problem });
+/** A problem with an argument; `tooLarge` ones answer 'too-large' (the user can act on it), the rest 'bad-request'. */
+type Problem = { problem: string; tooLarge?: boolean };
+type Check<T> = (v: unknown) => { value: T } | Problem;
+const bad = (problem: string): Problem => ({ problem });
+const big = (problem: string): Problem => ({ problem, tooLarge: true });
 const good = <T>(value: T) => ({ value });
 
 function isPlainObject(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v) && (Object.getPrototypeOf(v) === Object.prototype || Object.getPrototypeOf(v) === null);
 }
 
-function str(o: Record<string, unknown>, key: string, max: number): string | { problem: string } {
+function str(o: Record<string, unknown>, key: string, max: number): string | Problem {
   const v = o[key];
   if (typeof v !== 'string') return bad(`${key}: expected text, got ${v === null ? 'null' : typeof v}`);
   if (v.length > max) return bad(`${key}: expected at most ${max} characters, got ${v.length}`);
   return v;
 }
 
-function path(o: Record<string, unknown>, key: string): string | { problem: string } {
+/** The design text: over the limit is something the user can fix (split the design), so it says so. */
+function text(o: Record<string, unknown>): string | Problem {
+  const v = o.text;
+  if (typeof v === 'string' && v.length > LIMITS.designBytes) {
+    return big(`the design is ${(v.length / 1024 / 1024).toFixed(1)} MiB of text; at most ${(LIMITS.designBytes / 1024 / 1024).toFixed(0)} MiB can be saved (expected a smaller design: remove unused pieces or long Touchstone blocks)`);
+  }
+  return str(o, 'text', LIMITS.designBytes);
+}
+
+function path(o: Record<string, unknown>, key: string): string | Problem {
   const p = str(o, key, LIMITS.pathChars);
   if (typeof p !== 'string') return p;
   if (p.length === 0 || p.includes('\0')) return bad(`${key}: expected a file path, got ${JSON.stringify(p).slice(0, 80)}`);
   return p;
 }
 
-function docId(o: Record<string, unknown>): string | { problem: string } {
+function docId(o: Record<string, unknown>): string | Problem {
   const d = o.docId;
   if (typeof d !== 'string' || !DOC_ID_RE.test(d)) return bad(`docId: expected 1–${LIMITS.docIdChars} letters, digits, '-' or '_', got ${JSON.stringify(d)?.slice(0, 80)}`);
   return d;
 }
 
 /** Build a validator of a plain object from field checks; the first problem wins. */
-function object<T>(fields: (o: Record<string, unknown>) => T | { problem: string }): Check<T> {
+function object<T>(fields: (o: Record<string, unknown>) => T | Problem): Check<T> {
   return (v) => {
     if (!isPlainObject(v)) return bad(`expected an object, got ${Array.isArray(v) ? 'an array' : v === null ? 'null' : typeof v}`);
     const r = fields(v);
-    return typeof r === 'object' && r !== null && 'problem' in r ? (r as { problem: string }) : good(r as T);
+    return typeof r === 'object' && r !== null && 'problem' in r ? (r as Problem) : good(r as T);
   };
 }
 
 const none: Check<void> = (v) => (v === undefined ? good(undefined) : bad(`expected no argument, got ${typeof v}`));
 
-function firstProblem(...xs: unknown[]): { problem: string } | null {
-  for (const x of xs) if (typeof x === 'object' && x !== null && 'problem' in x) return x as { problem: string };
+function firstProblem(...xs: unknown[]): Problem | null {
+  for (const x of xs) if (typeof x === 'object' && x !== null && 'problem' in x) return x as Problem;
   return null;
 }
 
-const text = (o: Record<string, unknown>) => str(o, 'text', LIMITS.designBytes);
 
-function exportFiles(v: unknown): ExportFile[] | { problem: string } {
+function exportFiles(v: unknown): ExportFile[] | Problem {
   if (!Array.isArray(v) || v.length === 0) return bad('files: expected a non-empty list of { name, data }');
   if (v.length > LIMITS.exportFiles) return bad(`files: expected at most ${LIMITS.exportFiles} files, got ${v.length}`);
   const seen = new Set<string>();
@@ -70,11 +81,11 @@ function exportFiles(v: unknown): ExportFile[] | { problem: string } {
     seen.add(name.toLowerCase());
     const data = f.data;
     if (typeof data !== 'string' && !(data instanceof Uint8Array)) return bad(`files[${i}].data: expected text or bytes (Uint8Array), got ${typeof data}`);
-    if (data.length > LIMITS.exportFileBytes) return bad(`files[${i}].data: expected at most ${LIMITS.exportFileBytes} bytes, got ${data.length}`);
+    if (data.length > LIMITS.exportFileBytes) return big(`files[${i}].data: expected at most ${LIMITS.exportFileBytes} bytes, got ${data.length}`);
     total += data.length;
     out.push({ name, data });
   }
-  if (total > LIMITS.exportTotalBytes) return bad(`files: expected at most ${LIMITS.exportTotalBytes} bytes in all, got ${total}`);
+  if (total > LIMITS.exportTotalBytes) return big(`files: expected at most ${LIMITS.exportTotalBytes} bytes in all, got ${total}`);
   return out;
 }
 
@@ -147,7 +158,7 @@ export function guarded<C extends Channel>(channel: C, handler: Handler<C>): (ev
     if (!isTrustedSender(event.senderFrame)) return fail('forbidden', `${channel}: refused a message that did not come from the Stripwright page.`);
     if (args.length > 1) return fail('bad-request', `${channel}: expected at most one argument, got ${args.length}.`);
     const checked = VALIDATORS[channel](args[0]);
-    if ('problem' in checked) return fail('bad-request', `${channel}: ${checked.problem}.`);
+    if ('problem' in checked) return fail(checked.tooLarge ? 'too-large' : 'bad-request', `${channel}: ${checked.problem}.`);
     try {
       return await handler(checked.value, event);
     } catch (err) {

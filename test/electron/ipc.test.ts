@@ -71,7 +71,6 @@ describe('argument checks', () => {
     ['design:open-path', [{ path: 'p'.repeat(5000) }], /at most 4096/],
     ['design:open-path', [['/x']], /got an array/],
     ['design:save', [{ docId: '../../etc', path: '/x', text: '', expectedModifiedMs: null }], /docId/],
-    ['design:save', [{ docId: 'd', path: '/x', text: big, expectedModifiedMs: null }], /text: expected at most/],
     ['design:save', [{ docId: 'd', path: '/x', text: '', expectedModifiedMs: 'yesterday' }], /expectedModifiedMs/],
     ['design:save', [{ docId: 'd', path: '/x', text: '', expectedModifiedMs: Number.NaN }], /expectedModifiedMs/],
     ['design:save-as', [{ docId: 'd', suggestedName: 'n'.repeat(500), text: '' }], /suggestedName/],
@@ -94,6 +93,12 @@ describe('argument checks', () => {
       expect(r.error!.message).toMatch(re);
     });
   }
+  it('answers too-large, with what to do, for a design over the size limit', async () => {
+    const r = await call('design:save', ours, { docId: 'd', path: '/x', text: big, expectedModifiedMs: null });
+    expect(r).toMatchObject({ ok: false, error: { code: 'too-large', message: expect.stringMatching(/at most 16 MiB can be saved \(expected a smaller design/) } });
+    const e = await call('export:files', ours, { title: 't', files: [{ name: 'a.png', data: new Uint8Array(LIMITS.exportFileBytes + 1) }] });
+    expect(e).toMatchObject({ ok: false, error: { code: 'too-large' } });
+  });
   it('turns a failure inside a handler into an error result, never a throw', async () => {
     const r = await call('design:open-path', ours, { path: '/x/never-granted.stripwright' });
     expect(r).toMatchObject({ ok: false, error: { code: 'forbidden' } });
