@@ -7,13 +7,11 @@ import { readFileSync, writeFileSync, renameSync, statSync, unlinkSync } from 'n
 import { resolve, dirname, basename, join } from 'node:path';
 import {
   analyzeLine, synthesizeLine, lengthForDegrees, degreesForLength, parseQuantity, formatQuantity, findPreset,
-  SUBSTRATE_PRESETS, DISPERSION_MODELS, CONDUCTOR_LOSS_MODELS, InputError,
+  SUBSTRATE_PRESETS, DISPERSION_MODELS, CONDUCTOR_LOSS_MODELS, DEFAULT_COPPER_T, ANNEALED_COPPER_SIGMA, InputError,
   type SubstrateSpec, type LineOptions, type LineResult, type DispersionModel, type ConductorLossModel, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 
-const DEFAULT_T = 35e-6;
-const DEFAULT_SIGMA = 5.8e7;
 const MAX_BATCH_BYTES = 20 * 1024 * 1024;
 const MAX_BATCH_ROWS = 200_000;
 
@@ -95,7 +93,7 @@ function substrateOf(c: CaseText): SubstrateSpec {
   if (!base && (c.er === undefined || c.h === undefined)) {
     throw new UsageError('give the substrate: --er and --h, or --preset NAME');
   }
-  const sub: SubstrateSpec = base ?? { er: 0, h: 0, t: DEFAULT_T, tanDelta: 0, sigma: DEFAULT_SIGMA, roughness: 0 };
+  const sub: SubstrateSpec = base ?? { er: 0, h: 0, t: DEFAULT_COPPER_T, tanDelta: 0, sigma: ANNEALED_COPPER_SIGMA, roughness: 0 };
   if (c.er !== undefined) sub.er = parseQuantity(c.er, 'ratio', 'er');
   if (c.h !== undefined) sub.h = parseQuantity(c.h, 'length', 'h');
   if (c.t !== undefined) sub.t = parseQuantity(c.t, 'length', 't');

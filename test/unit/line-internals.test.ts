@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { analyzeLine, synthesizeLine, widebandDebyeAt, widebandDebyeEpsInf, validateSubstrate, InputError, type SubstrateSpec } from '../../core/index.ts';
+import { analyzeLine, synthesizeLine, widebandDebyeAt, widebandDebyeEpsInf, validateSubstrate, substrateWithDefaults, InputError, type SubstrateSpec } from '../../core/index.ts';
 import { hjDeltaU1, hjZ01 } from '../../core/line/hammerstad-jensen-1980.ts';
 import { wheelerIncrementalAlphaC } from '../../core/line/wheeler-incremental-inductance.ts';
 import { ETA0 } from '../../core/units/constants.ts';
@@ -90,5 +90,14 @@ describe('wideband Debye dielectric (Djordjevic et al., IEEE Trans. EMC 43(4), 2
     expect(analyzeLine(deb, 3e-3, 5.8e9).epsEff).toBeLessThan(analyzeLine(base, 3e-3, 5.8e9).epsEff);
     expect(() => validateSubstrate({ ...base, er: 1.2, tanDelta: 0.4, dielectricModel: { kind: 'wideband-debye', fMeasure: 1e9 } })).toThrow(InputError);
     expect(() => validateSubstrate({ ...base, dielectricModel: { kind: 'wideband-debye', fMeasure: 1e13 } })).toThrow(/between fLow/);
+  });
+});
+
+describe('substrate defaults', () => {
+  it('fills 35 µm copper (1 oz, common practice) and annealed copper 5.8e7 S/m (100 %IACS), and validates', () => {
+    const s = substrateWithDefaults({ er: 4.4, h: 1.6e-3 });
+    expect(s).toEqual({ er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0, sigma: 5.8e7, roughness: 0 });
+    expect(substrateWithDefaults({ er: 4.4, h: 1.6e-3, t: 0 }).t).toBe(0);
+    expect(() => substrateWithDefaults({ er: 0.5, h: 1.6e-3 })).toThrow(/substrate\.er/);
   });
 });
