@@ -33,6 +33,7 @@ Output (default: a summary table — worst figures over the band and the values 
   --unit hz|khz|mhz|ghz    Touchstone frequency unit (default ghz)
   --zref OHMS              reference impedance of the Touchstone file (default: the ports' own, when all agree)
   --input PORT             port taken as the input for the figures (default: the layout's anchor port)
+  --advisory step          also model width steps with the Garg–Bahl L/C fit (not yet verified; off by default)
   --json                   one JSON object: frequencies, S as real and imaginary parts, derived figures
   --force                  replace an existing --out file
 
@@ -44,7 +45,7 @@ Examples:
 const OPTIONS = {
   from: { type: 'string' }, to: { type: 'string' }, points: { type: 'string' }, log: { type: 'boolean' },
   out: { type: 'string' }, format: { type: 'string' }, unit: { type: 'string' }, zref: { type: 'string' },
-  input: { type: 'string' }, json: { type: 'boolean' }, force: { type: 'boolean' },
+  input: { type: 'string' }, json: { type: 'boolean' }, force: { type: 'boolean' }, advisory: { type: 'string', multiple: true },
 } as const;
 
 function choice<T extends string>(flag: string, v: string | undefined, allowed: readonly T[]): T | undefined {
@@ -85,6 +86,8 @@ export const sweepCommand: CliCommand = {
       points = Number(values.points);
       if (!Number.isInteger(points) || points < 1 || points > MAX_POINTS) throw new UsageError(`--points must be a whole number from 1 to ${MAX_POINTS}, not '${values.points}'`);
     }
+    const advisory = (values.advisory ?? []).flatMap((a) => a.split(',')).map((a) => a.trim().toLowerCase()).filter(Boolean);
+    for (const a of advisory) if (a !== 'step') throw new UsageError(`--advisory takes 'step' (the only advisory model in the network), not '${a}'`);
     if ((format || unit || zref !== undefined || values.force) && !values.out) throw new UsageError('--format, --unit, --zref and --force apply to the Touchstone file: add --out FILE.sNp');
 
     const file = resolve(io.cwd, positionals[0]);
@@ -96,7 +99,7 @@ export const sweepCommand: CliCommand = {
     try {
       const loaded = /\.s\d+p$/i.test(file)
         ? loadTouchstone(text, file, { from, to, points, log: values.log })
-        : await loadDesign(text, positionals[0], { from, to, points, log: values.log }, io);
+        : await loadDesign(text, positionals[0], { from, to, points, log: values.log, advisory: advisory as 'step'[] }, io);
       if (!loaded) return 1;
       const r = loaded.response;
       const input = values.input !== undefined ? portIndex(r, values.input, '--input') : loaded.input;
@@ -130,7 +133,7 @@ export const sweepCommand: CliCommand = {
   },
 };
 
-interface SweepFlags { from?: number; to?: number; points?: number; log?: boolean }
+interface SweepFlags { from?: number; to?: number; points?: number; log?: boolean; advisory?: 'step'[] }
 
 function settingsFor(band: { start: number; stop: number }, f0: number | undefined, s: SweepFlags): SweepSettings {
   let start = s.from ?? band.start, stop = s.to ?? band.stop;
@@ -148,7 +151,7 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
   }
   const doc = parsed.doc;
   const sized = sizeDesign(doc);
-  const net = netlistFromSized(sized);
+  const net = netlistFromSized(sized, { advisory: s.advisory ?? [] });
   const settings = settingsFor(doc.frequency.band, doc.frequency.f0, s);
   let lastShown = -1;
   const tty = Boolean((process.stderr as { isTTY?: boolean }).isTTY);

@@ -105,3 +105,29 @@ describe("S-parameter parts (segment kind 'sparams')", () => {
     }
   });
 });
+
+describe('advisory width-step model (Garg & Bahl 1978, methods.md §6.4 VERIFY: off by default)', () => {
+  it('is left out by default and, when asked for, adds L1–Cs–L2 at each step with the layout’s values', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { join } = await import('node:path');
+    const { parseDesign } = await import('../../core/design/index.ts');
+    const parsed = parseDesign(readFileSync(join(import.meta.dirname, '..', '..', 'assets', 'examples', 'three-section-transformer.json'), 'utf8'));
+    if (!parsed.ok) throw new Error('example does not parse');
+    const sized = sizeDesign(parsed.doc);
+    const steps = sized.nodes.filter((n) => n.step);
+    expect(steps.length).toBeGreaterThan(0);
+    const plain = netlistFromSized(sized);
+    expect(plain.elements.some((e) => e.id.includes(':step-'))).toBe(false);
+    const withSteps = netlistFromSized(sized, { advisory: ['step'] });
+    for (const n of steps) {
+      const c = withSteps.elements.find((e) => e.id === `${n.id}:step-Cs`) as { value: number } | undefined;
+      expect(c?.value).toBe(n.step!.Cs);
+    }
+    expect(withSteps.warnings.filter((w) => w.code === 'advisory-model' && /width step/.test(w.message))).toHaveLength(steps.length);
+    const f = [sized.f0];
+    const a = solveNetwork(plain, f), b = solveNetwork(withSteps, f);
+    expect(a.s[0]).not.toBe(b.s[0]);
+    // Small reactances (tens of fF, tens of pH): the match at f0 moves only a little.
+    expect(Math.hypot(b.s[0], b.s[1])).toBeLessThan(0.1);
+  });
+});
