@@ -137,12 +137,18 @@ function oriented(ring: Ring, ccw: boolean): Ring {
 // ---------------------------------------------------------------------------------------------------------------
 // Conversion to and from the engine
 
+/** Largest coordinate the engine is given, m: far beyond any board, far inside the engine's integer range. */
+export const MAX_COORD_M = 100;
+
 function checkRing(ring: Ring, field: string): void {
   if (!Array.isArray(ring) || ring.length < 3) throw new InputError('out-of-range', field, 'a ring of at least 3 points', describe(ring));
   for (let i = 0; i < ring.length; i++) {
     const p = ring[i]!;
     if (!p || !Number.isFinite(p.x) || !Number.isFinite(p.y)) {
       throw new InputError('invalid-number', `${field}[${i}]`, 'a point with finite x and y in metres', describe(p));
+    }
+    if (Math.abs(p.x) > MAX_COORD_M || Math.abs(p.y) > MAX_COORD_M) {
+      throw new InputError('out-of-range', `${field}[${i}]`, `a point within ±${MAX_COORD_M} m of the origin`, `(${p.x}, ${p.y})`);
     }
   }
 }
@@ -227,7 +233,12 @@ function holeProbe(h: Ring): Vec2 {
 
 function run(fn: (m: MainModule) => PathsD): Region[] {
   const m = E();
-  const out = fn(m);
+  let out: PathsD;
+  try { out = fn(m); } catch (e) {
+    if (e instanceof InputError || e instanceof Error) throw e;
+    // The engine throws bare numbers (C++ exceptions) on input it cannot take.
+    throw new InputError('impossible-layout', 'geometry', 'outlines the polygon engine can process', `an engine failure (${describe(e)})`, 'check for pieces drawn far from the board or folded back on themselves');
+  }
   try { return fromPaths(out); } finally { out.delete(); }
 }
 

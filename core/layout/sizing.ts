@@ -43,6 +43,8 @@ export interface SizeOptions {
   cache?: LineCache;
 }
 
+/** Largest turn a square or mitered corner may make (the miter fit's own limit), rad. */
+export const MAX_CORNER_TURN = (135 * Math.PI) / 180;
 /** Loop closure tolerance, m. */
 export const CLOSE_TOL = 1e-6;
 /** Klopfenstein default ripple when the design gives none: return loss 34 dB (|Γm| ≈ 0.02, methods.md §11.7 example). */
@@ -259,6 +261,10 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
         if (turn < 1e-6 || n.kind !== 'vertex') break;
         const W = Math.min(W1, W2);
         const style = n.bend;
+        if (style.style !== 'arc' && turn > MAX_CORNER_TURN) {
+          problem('bad-topology', `${n.id} turns ${deg(turn)}°, more than ${deg(MAX_CORNER_TURN)}°: a corner that folds back this far cannot be ${style.style === 'square' ? 'drawn square' : 'mitered'}; use an arc bend or two bends`, [n.id, w1.seg.id, w2.seg.id]);
+          break;
+        }
         sn.bend = { style, turn, width: W };
         if (!lineish) {
           if (turn > 1e-3) sn.warnings.push(warn('fabrication', `${n.id} turns ${deg(turn)}° next to a part; the part's pads are drawn along its own axis`, { subjects: [n.id], severity: 'info' }));
@@ -293,7 +299,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
             }
           }
         } catch (err) {
-          if (err instanceof InputError) problem('bad-value', `bend at ${n.id}: ${err.message}`, [n.id, w1.seg.id, w2.seg.id]);
+          if (err instanceof InputError) { problem('bad-value', `bend at ${n.id}: ${err.message}`, [n.id, w1.seg.id, w2.seg.id]); delete sn.bend; }
           else throw err;
         }
         break;
