@@ -160,6 +160,7 @@ function start(): void {
       // The page crashed. Its recovery copies stay on disk; a new session id makes them "earlier" copies, so the
       // reloaded page offers to restore them like after a crash of the whole app.
       pageReady = false;
+      docState = { title: docState.title, dirty: false }; // the page's unsaved state is gone; its copies remain
       recovery.renewSession(randomUUID());
       // Reload, but not in a loop: after three crashes within a minute, leave the window for the user to close.
       crashes = crashes.filter((t) => Date.now() - t < 60_000).concat(Date.now());
@@ -177,7 +178,7 @@ function start(): void {
       event.preventDefault();
       const choice = dialog.showMessageBoxSync(w, {
         type: 'warning', buttons: ['Save', 'Close, keep a recovery copy', 'Cancel'], defaultId: 0, cancelId: 2,
-        message: `${docState.title} has unsaved changes.`,
+        message: `${windowTitle(docState.title, false).replace(/ — Stripwright$/, '')} has unsaved changes.`,
         detail: 'If you close without saving, the changes are kept as a recovery copy and offered the next time Stripwright starts.',
       });
       if (choice === 0) { closeAfterSaveUntil = Date.now() + 60_000; runCommand('file.save'); }

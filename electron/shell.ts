@@ -8,6 +8,7 @@
  */
 import { stat, mkdir } from 'node:fs/promises';
 import { basename, dirname, extname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import {
   DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, type AppInfo, type BridgeResult, type ExportedFiles, type ExportFile,
   type OpenedDesign, type RecentFile, type RecoveredDesign, type RecoveryEntry, type SavedDesign,
@@ -202,8 +203,18 @@ export class Shell {
     return { shell: 'electron', version: this.o.version, platform: this.o.platform ?? process.platform, recoveryFolder: this.o.recovery.folder };
   }
 
-  /** Files given on the command line (the first instance's or a second one's): the design-looking ones. */
+  /**
+   * Files given on the command line (the first instance's or a second one's): the design-looking ones. Linux
+   * desktop entries pass `%U`, so a file:// URL is turned into its path; other URLs are ignored.
+   */
   static designPathsIn(argv: string[]): string[] {
-    return argv.filter((a) => !a.startsWith('-') && hasOpenableExtension(a) && extname(a) !== '' && !a.endsWith('package.json'));
+    const out: string[] = [];
+    for (const a of argv) {
+      let p = a;
+      if (/^file:\/\//i.test(a)) { try { p = fileURLToPath(a); } catch { continue; } }
+      else if (/^[a-z][a-z0-9+.-]*:\/\//i.test(a)) continue;
+      if (!p.startsWith('-') && hasOpenableExtension(p) && extname(p) !== '' && !p.endsWith('package.json')) out.push(p);
+    }
+    return out;
   }
 }

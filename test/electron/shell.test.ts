@@ -173,5 +173,7 @@ describe('export', () => {
 describe('argv', () => {
   it('picks design paths out of a command line', () => {
     expect(Shell.designPathsIn(['--inspect', '/x/a.stripwright', 'b.json', '/app/package.json', 'readme.txt', 'dir'])).toEqual(['/x/a.stripwright', 'b.json']);
+    // Freedesktop Desktop Entry spec: %U passes URLs; file:// ones become paths (RFC 8089), others are ignored.
+    expect(Shell.designPathsIn(['file:///home/me/My%20feed.stripwright', 'https://example.com/x.stripwright', 'smb://host/x.json'])).toEqual(['/home/me/My feed.stripwright']);
   });
 });
