@@ -92,6 +92,8 @@ describe('polygon engine (clipper2-wasm)', () => {
     expect(() => unionRegions([{ outer: [{ x: 0, y: 0 }, { x: 1, y: 0 }], holes: [] }])).toThrow(InputError);
     expect(() => unionRegions([{ outer: [{ x: 0, y: 0 }, { x: NaN, y: 0 }, { x: 0, y: 1 }], holes: [] }])).toThrow(/regions\[0\]\.outer\[1\]/);
     expect(() => offsetRegions([sq(0, 0, 1, 1)], Infinity, 'round')).toThrow(InputError);
+    // Far outside any board (and outside the engine's integer range once scaled): refused before the engine sees it.
+    expect(() => unionRegions([{ outer: [{ x: 0, y: 0 }, { x: 1e6, y: 0 }, { x: 0, y: 1 }], holes: [] }])).toThrow(/within ±100 m/);
     expect(() => offsetRegions([sq(0, 0, 1, 1)], 1, 'bevel' as never)).toThrow(/'round', 'miter' or 'square'/);
   });
   it('property: the union of random rectangles has the exact union area, no self-intersections, outers CCW and holes CW', () => {
