@@ -9,6 +9,7 @@ import { analyzeLine, synthesizeLine, widebandDebyeAt, widebandDebyeEpsInf, vali
 import { hjDeltaU1, hjZ01 } from '../../core/line/hammerstad-jensen-1980.ts';
 import { wheelerIncrementalAlphaC } from '../../core/line/wheeler-incremental-inductance.ts';
 import { ETA0 } from '../../core/units/constants.ts';
+import { fillingFactorAlphaD } from '../../core/line/filling-factor-dielectric-loss.ts';
 
 describe("Wheeler's incremental-inductance rule (Wheeler 1942; Pucel, Massé, Hartwig 1968)", () => {
   // Z0a(W, h, t): the Hammerstad–Jensen air line with thickness, Z01(u + Δu1).
@@ -28,6 +29,15 @@ describe("Wheeler's incremental-inductance rule (Wheeler 1942; Pucel, Massé, Ha
     const rs = Math.sqrt((Math.PI * 20e9 * 1.25663706212e-6) / 5.8e7);
     const direct = wheelerIncrementalAlphaC(1.0734e-3 / 0.508e-3, 35e-6 / 0.508e-3, 0.508e-3, rs, r.z0Static);
     expect(Math.abs(r.alphaC / direct - 1)).toBeLessThan(1e-4);
+  });
+});
+
+describe('the analysis uses the model files it cites', () => {
+  it('dielectric loss equals the filling-factor function with εe(f) (Welch & Pratt 1966 form)', () => {
+    for (const [er, h, w, f, tand] of [[4.4, 1.6e-3, 3e-3, 5.8e9, 0.02], [2.2, 0.787e-3, 2.4e-3, 10e9, 0.0009], [9.8, 0.635e-3, 0.6e-3, 1e9, 0.0002]] as const) {
+      const r = analyzeLine({ er, h, t: 35e-6, tanDelta: tand, sigma: 5.8e7, roughness: 0 }, w, f);
+      expect(Math.abs(r.alphaD / fillingFactorAlphaD(f, er, r.epsEff, tand) - 1)).toBeLessThan(1e-14);
+    }
   });
 });
 
