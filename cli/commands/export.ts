@@ -25,7 +25,8 @@ Writes fabrication files for the design FILE (a Stripwright design, .json).
 Formats:
   dxf      DXF drawing (mm): one closed polyline per outline and hole, a layer per kind, drills as circles
   svg      SVG drawing at true size (width/height in mm), one group per layer
-  gerber   Gerber X2 (RS-274X, mm, 4.6): NAME-copper-top.gbr (copper as regions) and NAME-profile.gbr
+  gerber   Gerber X2 (RS-274X, mm, 4.6): NAME-copper-top.gbr (copper as regions), NAME-copper-bottom.gbr
+           (the ground plane) and NAME-profile.gbr
   drill    Excellon (METRIC): NAME-plated.drl and NAME-nonplated.drl (only those the board has)
   mask     1:1 photo mask / toner-transfer sheet (SVG page) with scale bar and registration marks
   mask-pdf the same sheet as a vector PDF (NAME-mask.pdf)
@@ -122,6 +123,7 @@ export const exportCommand: CliCommand = {
           case 'gerber': {
             const gb = toGerber(g, { ...frame, ...sw });
             outputs.push({ name: `${base}-copper-top.gbr`, text: gb.copper, what: 'Gerber X2, top copper' });
+            outputs.push({ name: `${base}-copper-bottom.gbr`, text: gb.bottom, what: 'Gerber X2, bottom copper (ground plane)' });
             outputs.push({ name: `${base}-profile.gbr`, text: gb.profile, what: 'Gerber X2, board profile' });
             break;
           }

@@ -1,10 +1,11 @@
 /**
- * Gerber RS-274X with X2 attributes: one file for the top copper, one for the board profile.
+ * Gerber RS-274X with X2 attributes: one file for the top copper, one for the bottom copper (the microstrip ground
+ * plane) and one for the board profile.
  *
  * Follows Ucamco, "The Gerber Layer Format Specification" (revision 2022.02 read for this):
  * - header before any coordinate: %FSLAX46Y46*% (leading zeros omitted, absolute, 4 integer and 6 decimal digits,
  *   so integers count nanometres of millimetres) and %MOMM*% (§4.1 FS, §4.2 MO);
- * - X2 file attributes %TF.GenerationSoftware%, %TF.FileFunction% (Copper,L1,Top / Profile,NP) and
+ * - X2 file attributes %TF.GenerationSoftware%, %TF.FileFunction% (Copper,L1,Top / Copper,L2,Bot / Profile,NP) and
  *   %TF.FilePolarity,Positive% (§5.6); the aperture attribute %TA.AperFunction% is set before the objects it
  *   describes (Conductor for copper regions, Profile for the profile draw), and %TD*% clears it at the end;
  * - copper as regions: G36, a D02 move to the first vertex, G01 D01 segments back to the first vertex (closed
@@ -33,6 +34,11 @@ export interface GerberOptions extends FrameOptions, SoftwareInfo {
 export interface GerberFiles {
   /** Top copper: network copper and ground copper, as regions. */
   copper: string;
+  /**
+   * Bottom copper: the microstrip ground plane, one region over the whole board profile (its cut-outs cleared).
+   * A board house needs it for a two-layer job; an in-house mill leaves the bottom foil as it is.
+   */
+  bottom: string;
   /** Board profile (cut line), non-plated. */
   profile: string;
 }
@@ -75,7 +81,7 @@ function contour(pts: PointMm[]): string[] {
 /** Copper and profile Gerber files of the board. */
 export function toGerber(geometry: ExportGeometry, options: GerberOptions = {}): GerberFiles {
   const frame = makeFrame(geometry, options);
-  return { copper: gerberCopper(geometry, frame, options), profile: gerberProfile(geometry, frame, options) };
+  return { copper: gerberCopper(geometry, frame, options), bottom: gerberBottom(geometry, frame, options), profile: gerberProfile(geometry, frame, options) };
 }
 
 function gerberCopper(g: ExportGeometry, frame: Frame, sw: SoftwareInfo): string {
@@ -94,6 +100,19 @@ function gerberCopper(g: ExportGeometry, frame: Frame, sw: SoftwareInfo): string
       for (const h of r.holes) lines.push('G36*', ...contour(h), 'G37*');
       lines.push('%LPD*%');
     }
+  }
+  lines.push('%TD*%', 'M02*', '');
+  return lines.join('\n');
+}
+
+function gerberBottom(g: ExportGeometry, frame: Frame, sw: SoftwareInfo): string {
+  const region = profileRegion(g);
+  const lines = header('Copper,L2,Bot', 'bottom copper (ground plane)', frame, sw);
+  lines.push('%TA.AperFunction,Conductor*%', 'G36*', ...contour(frame.ring(region.outer)), 'G37*');
+  if (region.holes.length > 0) {
+    lines.push('%LPC*%');
+    for (const h of region.holes) lines.push('G36*', ...contour(frame.ring(h)), 'G37*');
+    lines.push('%LPD*%');
   }
   lines.push('%TD*%', 'M02*', '');
   return lines.join('\n');

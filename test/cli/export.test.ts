@@ -67,11 +67,12 @@ describe('stripwright export: writing files', () => {
     expect(r.stderr).not.toMatch(/internal error/);
     expect(r.code).toBe(0);
     const files = readdirSync(join(dir, 'fab')).sort();
-    expect(files).toEqual(['stub-copper-top.gbr', 'stub-mask.pdf', 'stub-mask.svg', 'stub-plated.drl', 'stub-profile.gbr', 'stub.dxf', 'stub.svg']);
+    expect(files).toEqual(['stub-copper-bottom.gbr', 'stub-copper-top.gbr', 'stub-mask.pdf', 'stub-mask.svg', 'stub-plated.drl', 'stub-profile.gbr', 'stub.dxf', 'stub.svg']);
     for (const f of files) expect(r.stdout).toContain(join(dir, 'fab', f));
     const read = (f: string) => readFileSync(join(dir, 'fab', f), 'utf8');
     expect(lintGerber(read('stub-copper-top.gbr')).problems).toEqual([]);
     expect(lintGerber(read('stub-profile.gbr')).problems).toEqual([]);
+    expect(lintGerber(read('stub-copper-bottom.gbr')).problems).toEqual([]);
     expect(lintExcellon(read('stub-plated.drl')).problems).toEqual([]);
     expect((await readBack(read('stub-copper-top.gbr'))).warnings).toEqual([]);
     const dxf = ezdxfAudit(read('stub.dxf'), 'stub.dxf');
@@ -87,7 +88,7 @@ describe('stripwright export: writing files', () => {
     const dir = workdir();
     const two = cli(['export', 'stub.json', '--format', 'gerber', '--out', 'one.gbr'], { cwd: dir });
     expect(two.code).toBe(1);
-    expect(two.stderr).toMatch(/one.gbr looks like a file name, but 2 files are to be written .*give a folder, e.g. --out one\//);
+    expect(two.stderr).toMatch(/one.gbr looks like a file name, but 3 files are to be written .*give a folder, e.g. --out one\//);
     expect(existsSync(join(dir, 'one.gbr'))).toBe(false);
     const first = cli(['export', 'stub.json', '--format', 'svg', '--out', 'board.svg'], { cwd: dir });
     expect(first.code).toBe(0);

@@ -32,6 +32,16 @@ describe('Gerber copper and profile: own rule checker (Gerber Layer Format Speci
     expect(problems).toEqual([]);
     expect(facts.fileFunction).toBe('Profile,NP');
   });
+  it('bottom copper is the ground plane over the whole board (Copper,L2,Bot)', async () => {
+    const { problems, facts } = lintGerber(files.bottom);
+    expect(problems).toEqual([]);
+    expect(facts.fileFunction).toBe('Copper,L2,Bot');
+    const r = await readBack(files.bottom);
+    expect(r.warnings).toEqual([]);
+    expect(r.box).toEqual([0, 0, 50, 40]); // the fixture's 50 × 40 mm outline
+    const a = await gerberDarkArea(files.bottom, 10);
+    expect(Math.abs(a.areaMm2 - 2000) / 2000).toBeLessThan(0.005);
+  });
   it('the checker rejects broken variants (so a pass means something)', () => {
     const c = files.copper;
     const variants: [string, string, RegExp][] = [
