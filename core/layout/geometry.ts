@@ -8,7 +8,8 @@
  *   bend it is clipped by the miter cut (so the union shows the exact Douville–James cut, methods.md §6.2).
  * - Node copper is listed in BoardGeometry.pieces under the node's id (bends, junctions, vias, launch pads), so a
  *   face can hit-test it like a piece.
- * - Ground copper keeps `clearance` from the network (default max(h, 2·Wmax): practice.md need 16, common practice).
+ * - Ground copper keeps `clearance` from the network (default max(h, 2·Wmax): practice.md need 16, common practice)
+ *   and gives way to keep-outs.
  * - Without a board outline, the clearance layer covers the copper extent plus BOARD_MARGIN.
  */
 import type { BoardGeometry, Box, DrillHit, Region, Ring, Vec2 } from '../geometry/types.ts';
@@ -189,6 +190,8 @@ export function buildBoardGeometry(sized: SizedDesign): BoardGeometry {
       ground.push(...differenceRegions([reg], grown));
     }
   }
+  // No copper of any kind inside a keep-out: ground copper gives way too.
+  if (keepouts.length && ground.length) { const g2 = differenceRegions(ground, keepouts); ground.length = 0; ground.push(...g2); }
   const outline: Region | null = doc.board && doc.board.outline && doc.board.outline.length >= 3
     ? { outer: isCounterClockwise(doc.board.outline) ? doc.board.outline : doc.board.outline.slice().reverse(), holes: [] }
     : null;

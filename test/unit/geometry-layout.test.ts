@@ -174,6 +174,21 @@ describe('ground copper, clearance layer and drills', () => {
   });
 });
 
+describe('keep-outs', () => {
+  it('ground copper gives way to a keep-out', () => {
+    const d = design({ nodes: [port('a', 0, 0), port('b', 0.01, 0)], segments: [line('l', 'a', 'b', wd(1e-3), lenOf(0.01))] });
+    const box = [{ x: 0, y: -0.01 }, { x: 0.01, y: -0.01 }, { x: 0.01, y: 0.01 }, { x: 0, y: 0.01 }];
+    const ko = [{ x: 0.002, y: 0.004 }, { x: 0.004, y: 0.004 }, { x: 0.004, y: 0.006 }, { x: 0.002, y: 0.006 }];
+    d.areas = [{ id: 'g', kind: 'ground-copper', polygon: box, clearance: 1e-3 }];
+    const without = buildBoardGeometry(sizeDesign(d)).groundCopper.reduce((a, r) => a + regionAreaOracle(r), 0);
+    d.areas.push({ id: 'k', kind: 'keep-out', polygon: ko });
+    const g = buildBoardGeometry(sizeDesign(d));
+    const withKo = g.groundCopper.reduce((a, r) => a + regionAreaOracle(r), 0);
+    expect(without - withKo).toBeCloseTo(4e-6, 10); // the 2 mm × 2 mm keep-out
+    expect(g.keepouts).toHaveLength(1);
+  });
+});
+
 describe('property: random networks give clean copper', () => {
   const step = fc.record({ len: fc.integer({ min: 4, max: 20 }), turn: fc.constantFrom(-90, -45, 0, 45, 90), bend: fc.constantFrom('square', 'miter-optimal', 'arc'), w: fc.integer({ min: 3, max: 15 }) });
   it('simple outlines, outers counter-clockwise, holes clockwise, area between the largest part and the sum of parts', () => {
