@@ -121,3 +121,23 @@ test('unsaved work is never dropped without asking', async ({ page }) => {
   await page.getByTestId('confirm-cancel').click();
   await expect(page.getByTestId('design-name')).toHaveText('Untitled feed');
 });
+
+test('rename the design, ask for a phase match, and read the safety cautions', async ({ page }) => {
+  await page.goto('/');
+  await drawDivider(page);
+  await page.getByTestId('design-name').click();
+  await page.getByTestId('rename').fill('Bench divider 2.45 GHz');
+  await page.getByTestId('rename').press('Enter');
+  await expect(page.getByTestId('design-name')).toHaveText('Bench divider 2.45 GHz');
+  // The two arms differ in length, so once a match is asked for they are out of the ±5° tolerance.
+  await page.getByTestId('dock-paths').click();
+  await page.getByTestId('ask-phase-match').click();
+  await expect(page.getByTestId('path-ledger').getByText('out of tolerance')).toHaveCount(1);
+  await page.getByTestId('field-phase-tol').fill('180 deg');
+  await expect(page.getByTestId('path-ledger').getByText('out of tolerance')).toHaveCount(0);
+  await page.keyboard.press('Control+k');
+  await page.keyboard.type('safety');
+  await page.keyboard.press('Enter');
+  await expect(page.getByTestId('confirm-dialog')).toContainText('dust');
+  await expect(page.getByTestId('confirm-dialog')).toContainText('exposure');
+});

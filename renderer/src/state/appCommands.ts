@@ -6,10 +6,13 @@ import type { EditorState } from './editor.svelte.ts';
 import type { FileActions } from './files.ts';
 import { TOOLS } from '../board/tools.ts';
 import { EXAMPLES } from './examples.ts';
+import { CAUTIONS } from './cautions.ts';
+import { APP_VERSION } from './editor.svelte.ts';
 
 export interface ShellHooks {
   openFinder(): void;
   showDock(tab: string): void;
+  tell(title: string, message: string): void;
 }
 
 export function appCommands(ed: EditorState, files: FileActions, shell: ShellHooks): AppCommand[] {
@@ -44,6 +47,10 @@ export function appCommands(ed: EditorState, files: FileActions, shell: ShellHoo
     { id: 'view.paths', group: 'Board', label: 'Show the path ledger', keys: ['Alt+1'], run: () => shell.showDock('paths') },
     { id: 'view.findings', group: 'Board', label: 'Show the shop check', keys: ['Alt+2'], run: () => shell.showDock('findings') },
     { id: 'view.response', group: 'Board', label: 'Show the response', keys: ['Alt+3'], run: () => shell.showDock('response') },
+    { id: 'file.recover', group: 'File', label: 'Recover unsaved work from an earlier session', run: () => files.offerRecovery(true) },
+    { id: 'edit.rename', group: 'Edit', label: 'Rename the design', run: () => (document.querySelector('[data-testid="design-name"]') as HTMLElement | null)?.click() },
+    { id: 'help.cautions', group: 'Help', label: 'Safety cautions', run: () => shell.tell('Safety cautions', CAUTIONS) },
+    { id: 'help.about', group: 'Help', label: 'About Stripwright', run: () => shell.tell('Stripwright', `Version ${APP_VERSION}. Sketch, size, check and export microstrip feed networks for boards made in-house.`) },
   ];
   for (const t of TOOLS) list.push({ id: `tool.${t.id}`, group: 'Draw', label: `Tool: ${t.label}`, keys: [t.key], run: () => ed.setTool(t.id) });
   for (const ex of EXAMPLES) list.push({ id: `example.${ex.id}`, group: 'File', label: `Open example: ${ex.title}`, run: () => files.openExample(ex.id) });

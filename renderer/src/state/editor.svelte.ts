@@ -116,6 +116,14 @@ export class EditorState {
     this.edit('node.setSpec', args);
   }
 
+  /** A phase group from one port to others (±5°, the usual default of the path report). */
+  askPhaseMatch(from: string, to: string[]): void {
+    const name = (id: string) => this.doc.nodes.find((n) => n.id === id)?.label ?? id;
+    this.edit('phaseGroup.set', { from, to, toleranceDeg: 5, name: `${name(from)} → ${to.map(name).join(', ')} in phase` }, 'Ask for phase match');
+  }
+
+  rename(name: string): void { this.edit('design.setInfo', { name }, 'Rename'); }
+
   setEnd(id: string, kind: 'open' | 'short'): void { this.edit('node.setSpec', { id, spec: { kind } }); }
 
   /** Turns an open or shorted end into a port facing along its line (the line leaves the port towards its neighbour). */

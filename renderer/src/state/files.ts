@@ -90,9 +90,11 @@ export class FileActions {
   }
 
   /** At start: offer recovery copies left by a session that ended without saving. */
-  async offerRecovery(): Promise<void> {
+  async offerRecovery(asked = false): Promise<void> {
     const r = await this.platform.checkRecovery();
-    if (!r.ok || r.value.length === 0) return;
+    if (!r.ok) { if (asked) await this.tell('Could not look for recovery copies', r.error.message); return; }
+    if (r.value.length === 0) { if (asked) await this.tell('Nothing to recover', 'No unsaved work from an earlier session was found.'); return; }
+    if (!(await this.mayDiscard('restore earlier work'))) return;
     const e = r.value[0]!;
     const when = new Date(e.savedAt).toLocaleString();
     const a = await this.ask('Recover unsaved work?', `A copy of “${e.name}” from ${when} was not saved when the app last closed.`, [
