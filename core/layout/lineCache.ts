@@ -10,7 +10,18 @@ import type { LineFigures } from './types.ts';
 export class LineCache {
   private synth = new Map<string, LineResult>();
   private anal = new Map<string, LineResult>();
-  constructor(readonly sub: SubstrateSpec, readonly opts?: LineOptions) {}
+  /** Identity of the substrate and options the results belong to. */
+  readonly key: string;
+  constructor(readonly sub: SubstrateSpec, readonly opts?: LineOptions) {
+    this.key = LineCache.keyOf(sub, opts);
+  }
+
+  static keyOf(sub: SubstrateSpec, opts?: LineOptions): string {
+    return JSON.stringify([sub.er, sub.h, sub.t, sub.tanDelta, sub.sigma, sub.roughness, sub.dielectricModel ?? null, opts?.dispersion ?? null, opts?.conductorLoss ?? null]);
+  }
+
+  /** True when this cache's results hold for `sub` with `opts` (same numbers, not necessarily the same object). */
+  fits(sub: SubstrateSpec, opts?: LineOptions): boolean { return this.key === LineCache.keyOf(sub, opts); }
 
   /** Width for Z0 at f (exact synthesis with dispersion at f). */
   forZ0(z0: number, f: number): LineResult {

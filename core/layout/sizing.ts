@@ -75,7 +75,8 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   const subs = doc.substrate;
   if (!subs || typeof subs !== 'object') throw new InputError('invalid-design', 'substrate', 'a substrate (er, h, t, tanDelta, sigma, roughness)', describe(subs));
   const band = doc.frequency.band && doc.frequency.band.stop >= doc.frequency.band.start ? doc.frequency.band : { start: f0, stop: f0 };
-  const cache = opts.cache && opts.cache.sub === subs ? opts.cache : new LineCache(subs, opts.line);
+  // A face passes its cache back on every edit; it is reused while the substrate's numbers are unchanged.
+  const cache = opts.cache && opts.cache.fits(subs, opts.line) ? opts.cache : new LineCache(subs, opts.line);
   const problems: LayoutProblem[] = [];
   const warnings: Warning[] = [];
   const problem = (code: LayoutProblem['code'], message: string, subjects: string[]) => problems.push({ code, message, subjects });

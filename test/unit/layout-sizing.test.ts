@@ -157,6 +157,21 @@ describe('impossible requests are errors that name the pieces', () => {
   });
 });
 
+describe('line cache reuse', () => {
+  it('a cache is reused for an equal substrate (a copy), not for a changed one', async () => {
+    const { LineCache } = await import('../../core/layout/lineCache.ts');
+    const d = design({ nodes: [port('a', 0, 0), port('b', 0.01, 0)], segments: [line('l', 'a', 'b', z(50), lenOf(0.01))] });
+    const cache = new LineCache({ ...d.substrate });
+    expect(cache.fits({ ...d.substrate })).toBe(true);
+    expect(cache.fits({ ...d.substrate, er: 3.7 })).toBe(false);
+    expect(cache.fits(d.substrate, { dispersion: 'none' })).toBe(false);
+    const w1 = sizeDesign(d, { cache }).pieces[0]!.width;
+    d.substrate = { ...d.substrate, h: 0.8e-3 };
+    const w2 = sizeDesign(d, { cache }).pieces[0]!.width;
+    expect(w2).toBeGreaterThan(w1 * 1.3); // re-sized for the thicker board, not served from the stale cache
+  });
+});
+
 describe('open-end extension agrees with a second transcription across widths', () => {
   it('KJK Δl for u = 0.2 … 8 (hj-oracle transcription of methods.md §6.1)', () => {
     for (const W of [0.1e-3, 0.5e-3, 1.1122e-3, 2e-3, 4e-3]) {
