@@ -136,9 +136,9 @@ export const exportCommand: CliCommand = {
           }
           case 'mask':
           case 'mask-pdf': {
-            // The mask applies the bias itself so the sheet can state it; give it the unbiased copper.
+            // The mask applies the bias itself so the sheet can state it; give it the unbiased copper. Its bias
+            // warnings are the ones already collected from withEtchBias above.
             const m = toMask(raw, { page, polarity, mirror: frame.mirror, bias, title: basename(file) });
-            if (bias === 0) warnings.push(...m.warnings);
             const what = `photo mask${f === 'mask-pdf' ? ' (PDF)' : ''}, ${polarity ?? 'positive'}${frame.mirror ? ', mirrored' : ''}, print at 100 %`;
             outputs.push(f === 'mask' ? { name: `${base}-mask.svg`, text: m.svg, what } : { name: `${base}-mask.pdf`, text: m.pdf, what });
             break;
