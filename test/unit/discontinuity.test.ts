@@ -4,7 +4,7 @@ import {
   viaInductance, viaResistance, viaGround, viaEquivalentLength, teeReferencePlanes, widthStep, arcBend,
 } from '../../core/discontinuity/index.ts';
 import { InputError } from '../../core/util/errors.ts';
-import { hjEe, hjZ0 } from './hj-oracle.ts';
+import { hjEe, hjZ0 } from './layout-oracle.ts';
 
 // Reference case of methods.md §6: 50 Ω on εr 3.66, h 0.508 mm, t = 0: W = 1.1122 mm, u = 2.1894.
 const h = 0.508e-3, er = 3.66, u = 2.1894, W = u * h;

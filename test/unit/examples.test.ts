@@ -1,6 +1,6 @@
 /**
  * Every example design loads, sizes and passes its checks; key figures are pinned against numbers computed here
- * from the published formulas (test/unit/hj-oracle.ts transcribes methods.md §1.1, §2.1–2.2 and §6.1 again), not
+ * from the published formulas (test/uni./layout-oracle.ts transcribes methods.md §1.1, §2.1–2.2 and §6.1 again), not
  * from the project's own code paths.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -14,7 +14,7 @@ import { buildBoardGeometry } from '../../core/layout/geometry.ts';
 import { checkFabrication } from '../../core/layout/checks.ts';
 import { designPaths } from '../../core/layout/paths.ts';
 import type { SizedDesign } from '../../core/layout/types.ts';
-import { oracleLine, oracleSynth, oracleOpenEnd, C0 } from './hj-oracle.ts';
+import { oracleLine, oracleSynth, oracleOpenEnd, C0 } from './layout-oracle.ts';
 import { shoelace, selfIntersects } from './geometry-test-helpers.ts';
 
 const DIR = join(import.meta.dirname, '..', '..', 'assets', 'examples');

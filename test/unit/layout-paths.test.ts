@@ -3,7 +3,7 @@ import { sizeDesign } from '../../core/layout/sizing.ts';
 import { tracePaths, designPaths } from '../../core/layout/paths.ts';
 import { InputError } from '../../core/util/errors.ts';
 import { design, port, vertex, junction, line, wd, z, lenOf, degs } from './layout-fixtures.ts';
-import { oracleLine, C0 } from './hj-oracle.ts';
+import { oracleLine, C0 } from './layout-oracle.ts';
 
 describe('phase of a line and its sensitivities (methods.md §10.1 checked table, 50 Ω lines at 5 GHz, 100 mm)', () => {
   const rows = [
