@@ -1,6 +1,6 @@
 /**
  * Every example design loads, sizes and passes its checks; key figures are pinned against numbers computed here
- * from the published formulas (test/uni./layout-oracle.ts transcribes methods.md §1.1, §2.1–2.2 and §6.1 again), not
+ * from the published formulas (test/unit/layout-oracle.ts transcribes methods.md §1.1, §2.1–2.2 and §6.1 again), not
  * from the project's own code paths.
  */
 import { beforeAll, describe, expect, it } from 'vitest';

@@ -21,7 +21,7 @@ describe('widths and lengths at f0', () => {
     expect(s.pieces[0]!.deg).toBeCloseTo(90, 6);
     expect(s.pieces[0]!.z0).toBeCloseTo(50.100, 2); // methods.md §2: JK Z0(f) = 50.100 Ω
   });
-  it('an independent transcription of HJ + KJ + JK (test/uni./layout-oracle.ts) gives the same widths for 35.36, 70.71 and 100 Ω at 5.8 GHz on 1.6 mm FR-4 with 35 µm copper', () => {
+  it('an independent transcription of HJ + KJ + JK (test/unit/layout-oracle.ts) gives the same widths for 35.36, 70.71 and 100 Ω at 5.8 GHz on 1.6 mm FR-4 with 35 µm copper', () => {
     const fr4 = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 0 };
     for (const z0 of [35.36, 70.71, 100]) {
       const s = sizeDesign(design({ substrate: fr4, f0: 5.8e9, nodes: [port('a', 0, 0), port('b', 0.01, 0)], segments: [line('l', 'a', 'b', z(z0), degs(90))] }));
