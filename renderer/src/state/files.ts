@@ -24,7 +24,21 @@ export class FileActions {
   /** Call after every change of the design. */
   changed(): void {
     if (this.editor.dirty) this.autosaver.changed();
-    void this.platform.setDocumentState({ title: `${this.editor.doc.name} — Stripwright`, dirty: this.editor.dirty });
+    // Tell the shell only when the title or the unsaved flag changes (not on every step of a drag).
+    const state = { title: `${this.editor.doc.name} — Stripwright`, dirty: this.editor.dirty };
+    if (state.title !== this.shown?.title || state.dirty !== this.shown?.dirty) {
+      this.shown = state;
+      void this.platform.setDocumentState(state);
+    }
+  }
+
+  private shown: { title: string; dirty: boolean } | null = null;
+
+  /** A design the OS or a second app instance asked to open. */
+  async openHanded(d: { path: string; name: string; text: string; modifiedMs: number }): Promise<void> {
+    if (!(await this.mayDiscard(`open ${d.name}`))) return;
+    const err = this.editor.loadText(d.text, { path: d.path, name: d.name, modifiedMs: d.modifiedMs });
+    if (err) await this.tell(`“${d.name}” is not a design this app can read`, `${err}\n\nYour current design is unchanged.`);
   }
 
   stop(): void { this.autosaver.stop(); }
