@@ -9,8 +9,8 @@ import { basename, dirname, join, resolve } from 'node:path';
 import {
   InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepNetwork,
   readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
-  phaseBalance, isolation, portIndex, MAX_POINTS,
-  type NetworkResponse, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
+  phaseBalance, isolation, portIndex, compareResponses, MAX_POINTS,
+  type NetworkResponse, type TouchstoneData, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { VERSION } from '../version.ts';
@@ -33,6 +33,8 @@ Output (default: a summary table — worst figures over the band and the values 
   --unit hz|khz|mhz|ghz    Touchstone frequency unit (default ghz)
   --zref OHMS              reference impedance of the Touchstone file (default: the ports' own, when all agree)
   --input PORT             port taken as the input for the figures (default: the layout's anchor port)
+  --compare FILE.sNp       sweep at that file's frequencies and show how far the design is from it
+                           (largest |ΔS|, Δ dB and Δ phase per S-parameter), e.g. a measured board
   --advisory step          also model width steps with the Garg–Bahl L/C fit (not yet verified; off by default)
   --json                   one JSON object: frequencies, S as real and imaginary parts, derived figures
   --force                  replace an existing --out file
@@ -45,7 +47,7 @@ Examples:
 const OPTIONS = {
   from: { type: 'string' }, to: { type: 'string' }, points: { type: 'string' }, log: { type: 'boolean' },
   out: { type: 'string' }, format: { type: 'string' }, unit: { type: 'string' }, zref: { type: 'string' },
-  input: { type: 'string' }, json: { type: 'boolean' }, force: { type: 'boolean' }, advisory: { type: 'string', multiple: true },
+  input: { type: 'string' }, json: { type: 'boolean' }, force: { type: 'boolean' }, advisory: { type: 'string', multiple: true }, compare: { type: 'string' },
 } as const;
 
 function choice<T extends string>(flag: string, v: string | undefined, allowed: readonly T[]): T | undefined {
@@ -91,6 +93,21 @@ export const sweepCommand: CliCommand = {
     if ((format || unit || zref !== undefined || values.force) && !values.out) throw new UsageError('--format, --unit, --zref and --force apply to the Touchstone file: add --out FILE.sNp');
 
     const file = resolve(io.cwd, positionals[0]);
+    let measured: TouchstoneData | undefined;
+    if (values.compare !== undefined) {
+      if (/\.s\d+p$/i.test(file)) throw new UsageError('--compare goes with a design file; to compare two Touchstone files, sweep the design against each');
+      if (values.points !== undefined || values.log) throw new UsageError('--compare sweeps at the frequencies of the compared file; leave out --points and --log');
+      const cf = resolve(io.cwd, values.compare);
+      let ctext: string;
+      try { ctext = readFileSync(cf, 'utf8'); } catch (e) {
+        io.err(`stripwright sweep: cannot read ${values.compare}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
+        return 1;
+      }
+      try { measured = loadTouchstone(ctext, cf, { from, to }).response as TouchstoneData; } catch (e) {
+        if (e instanceof InputError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
+        throw e;
+      }
+    }
     let text: string;
     try { text = readFileSync(file, 'utf8'); } catch (e) {
       io.err(`stripwright sweep: cannot read ${positionals[0]}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
@@ -99,7 +116,7 @@ export const sweepCommand: CliCommand = {
     try {
       const loaded = /\.s\d+p$/i.test(file)
         ? loadTouchstone(text, file, { from, to, points, log: values.log })
-        : await loadDesign(text, positionals[0], { from, to, points, log: values.log, advisory: advisory as 'step'[] }, io);
+        : await loadDesign(text, positionals[0], { from, to, points, log: values.log, advisory: advisory as 'step'[], freqs: measured?.freqs }, io);
       if (!loaded) return 1;
       const r = loaded.response;
       const input = values.input !== undefined ? portIndex(r, values.input, '--input') : loaded.input;
@@ -122,8 +139,9 @@ export const sweepCommand: CliCommand = {
         if (!values.json) io.out(`wrote ${out}  (Touchstone 1.1, ${r.ports.length} port(s), ${r.freqs.length} frequencies)`);
       }
       for (const w of [...loaded.warnings, ...r.warnings]) if (w.severity !== 'info') io.err(`warning: ${w.message}`);
-      if (values.json) io.out(JSON.stringify(toJson(loaded, input)));
-      else if (!values.out) io.out(table(loaded, input));
+      const diff = measured ? compareResponses(r, measured) : undefined;
+      if (values.json) io.out(JSON.stringify({ ...toJson(loaded, input), ...(diff ? { comparison: { file: basename(values.compare!), ...comparisonJson(r, diff) } } : {}) }));
+      else if (!values.out || diff) io.out([values.out ? '' : table(loaded, input), diff ? comparisonTable(r, diff, basename(values.compare!)) : ''].filter(Boolean).join('\n\n'));
       return 0;
     } catch (e) {
       if (e instanceof InputError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
@@ -133,7 +151,7 @@ export const sweepCommand: CliCommand = {
   },
 };
 
-interface SweepFlags { from?: number; to?: number; points?: number; log?: boolean; advisory?: 'step'[] }
+interface SweepFlags { from?: number; to?: number; points?: number; log?: boolean; advisory?: 'step'[]; freqs?: Float64Array }
 
 function settingsFor(band: { start: number; stop: number }, f0: number | undefined, s: SweepFlags): SweepSettings {
   let start = s.from ?? band.start, stop = s.to ?? band.stop;
@@ -152,7 +170,7 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
   const doc = parsed.doc;
   const sized = sizeDesign(doc);
   const net = netlistFromSized(sized, { advisory: s.advisory ?? [] });
-  const settings = settingsFor(doc.frequency.band, doc.frequency.f0, s);
+  const settings: SweepSettings | Float64Array = s.freqs ?? settingsFor(doc.frequency.band, doc.frequency.f0, s);
   let lastShown = -1;
   const tty = Boolean((process.stderr as { isTTY?: boolean }).isTTY);
   const response = await sweepNetwork(net, settings, {
@@ -263,6 +281,26 @@ function table(l: Loaded, input: number): string {
     }
     if (P > 17) lines.push(`  … and ${P - 17} more ports (use --json for all)`);
   }
+  return lines.join('\n');
+}
+
+function comparisonJson(r: NetworkResponse, d: ResponseDifference) {
+  const name = (i: number) => r.ports[i].name;
+  return {
+    frequencies: d.freqs.length,
+    note: 'dB and phase differences count only where both |S| are above -30 dB',
+    entries: d.entries.map((e) => ({ s: `S${e.i + 1}${e.j + 1}`, to: name(e.i), from: name(e.j), maxVector: e.vector, maxDb: e.db, maxDeg: e.deg })),
+  };
+}
+
+function comparisonTable(r: NetworkResponse, d: ResponseDifference, file: string): string {
+  const lines = [`Compared with ${file} at its ${d.freqs.length} frequencies (ports in order: ${r.ports.map((p, i) => `${i + 1}=${p.name}`).join(', ')})`];
+  lines.push('  S      largest |ΔS|  at             Δ dB     Δ phase °   (dB and phase only where both |S| > −30 dB)');
+  const shown = d.entries.length > 16 ? [...d.entries].sort((a, b) => b.vector.value - a.vector.value).slice(0, 16) : d.entries;
+  for (const e of shown) {
+    lines.push(`  S${e.i + 1}${e.j + 1}`.padEnd(9) + `${e.vector.value.toFixed(4).padStart(10)}    ${fq(e.vector.freq).padEnd(13)} ${e.db.value.toFixed(2).padStart(6)}   ${e.deg.value.toFixed(1).padStart(8)}`);
+  }
+  if (shown.length < d.entries.length) lines.push(`  (the ${shown.length} largest of ${d.entries.length}; use --json for all)`);
   return lines.join('\n');
 }
 

@@ -19,3 +19,4 @@ export * from './touchstoneRead.ts';
 export * from './sparamsPart.ts';
 export * from './lineTwoPort.ts';
 export { netlistFromSized, type FromSizedOptions, type SizedNetlist, type AdvisoryModel } from './fromSized.ts';
+export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';

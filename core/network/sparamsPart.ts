@@ -8,10 +8,11 @@
  */
 import { InputError } from '../util/errors.ts';
 import { sToY } from './conversions.ts';
-import { readTouchstone, type TouchstoneData } from './touchstoneRead.ts';
+import { readTouchstone } from './touchstoneRead.ts';
+import type { NetworkResponse } from './response.ts';
 
 /** S-matrix of the data at f (Hz), interpolated. */
-export function interpolateS(d: TouchstoneData, f: number, field = 'sparams'): Float64Array {
+export function interpolateS(d: NetworkResponse, f: number, field = 'sparams'): Float64Array {
   const F = d.freqs.length, P = d.ports.length, m = 2 * P * P;
   const lo = d.freqs[0], hi = d.freqs[F - 1];
   // A relative slack of 1e-9 accepts band edges that went through a unit conversion.
@@ -29,7 +30,7 @@ export function interpolateS(d: TouchstoneData, f: number, field = 'sparams'): F
 }
 
 /** Reads a part's Touchstone text (1 or 2 ports) and gives its admittance matrix over frequency. */
-export function sparamsAdmittance(touchstone: string, name: string, field = 'sparams'): { ports: number; data: TouchstoneData; y: (f: number) => Float64Array } {
+export function sparamsAdmittance(touchstone: string, name: string, field = 'sparams'): { ports: number; data: NetworkResponse; y: (f: number) => Float64Array } {
   const ext = /\.s\dp$/i.test(name) ? name : undefined;
   const data = readTouchstone(touchstone, { fileName: ext ?? `${name}`, ports: ext ? undefined : guessPorts(touchstone) });
   const P = data.ports.length;

@@ -10,7 +10,7 @@ import { cli } from './cli-basics.test.ts';
 import { python } from '../reference/network-oracle.ts';
 import { parseDesign } from '../../core/design/index.ts';
 import { sizeDesign } from '../../core/layout/index.ts';
-import { netlistFromSized, solveNetwork, sweepFrequencies } from '../../core/network/index.ts';
+import { netlistFromSized, solveNetwork, sweepFrequencies, readTouchstone, writeTouchstone } from '../../core/network/index.ts';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const WILK = join(ROOT, 'assets', 'examples', 'wilkinson-2g45.json');
@@ -83,6 +83,31 @@ describe('stripwright sweep', () => {
     const r = cli(['sweep', out]);
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/Touchstone file "again\.s3p": 5 points/);
+  });
+  it('--compare sweeps at a measured file’s frequencies and reports the differences (a board 0.9× in S21 and S12 shows 0.92 dB)', () => {
+    const own = join(dir, 'own.s3p');
+    cli(['sweep', WILK, '--from', '2.41GHz', '--to', '2.49GHz', '--points', '9', '--out', own]);
+    // A "measured" file: the same data with the through paths 10 % low (20·log10(0.9) = −0.915 dB).
+    const data = readTouchstone(readFileSync(own, 'utf8'), { fileName: 'own.s3p' });
+    for (let k = 0; k < data.freqs.length; k++) for (const [i, j] of [[1, 0], [0, 1]]) {
+      const t = 2 * ((k * 3 + i) * 3 + j);
+      data.s[t] *= 0.9; data.s[t + 1] *= 0.9;
+    }
+    const meas = join(dir, 'meas.s3p');
+    writeFileSync(meas, writeTouchstone(data));
+    const same = JSON.parse(cli(['sweep', WILK, '--compare', own, '--json']).stdout);
+    for (const e of same.comparison.entries) expect(e.maxVector.value).toBeLessThan(1e-12);
+    const r = cli(['sweep', WILK, '--compare', meas, '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(j.frequencies).toHaveLength(9);
+    const byName = (n: string) => j.comparison.entries.find((e: { s: string }) => e.s === n);
+    expect(byName('S21').maxDb.value).toBeCloseTo(-20 * Math.log10(0.9), 9);
+    expect(byName('S12').maxDb.value).toBeCloseTo(-20 * Math.log10(0.9), 9);
+    expect(byName('S31').maxVector.value).toBeLessThan(1e-12);
+    expect(byName('S21').maxDeg.value).toBeLessThan(1e-9);
+    const text = cli(['sweep', WILK, '--compare', meas]);
+    expect(text.stdout).toMatch(/Compared with meas\.s3p at its 9 frequencies/);
   });
   it('bad command lines exit 2 with the reason; bad files exit 1 with the reason', () => {
     expect(cli(['sweep']).code).toBe(2);
