@@ -40,7 +40,7 @@ export function compareResponses(a: NetworkResponse, b: NetworkResponse, opts: {
   for (let i = 0; i < P; i++) for (let j = 0; j < P; j++) entries.push({ i, j, vector: { value: 0, freq: b.freqs[0] }, db: { value: 0, freq: b.freqs[0] }, deg: { value: 0, freq: b.freqs[0] } });
   for (let k = 0; k < b.freqs.length; k++) {
     const f = b.freqs[k];
-    const sa = interpolateS(a, f, 'compare');
+    const sa = interpolateS(a, f, 'compare', 'the first response');
     for (let t = 0; t < P * P; t++) {
       const ar = sa[2 * t], ai = sa[2 * t + 1];
       const br = b.s[2 * (k * P * P + t)], bi = b.s[2 * (k * P * P + t) + 1];

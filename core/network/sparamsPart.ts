@@ -12,12 +12,12 @@ import { readTouchstone } from './touchstoneRead.ts';
 import type { NetworkResponse } from './response.ts';
 
 /** S-matrix of the data at f (Hz), interpolated. */
-export function interpolateS(d: NetworkResponse, f: number, field = 'sparams'): Float64Array {
+export function interpolateS(d: NetworkResponse, f: number, field = 'sparams', what = "the part's data"): Float64Array {
   const F = d.freqs.length, P = d.ports.length, m = 2 * P * P;
   const lo = d.freqs[0], hi = d.freqs[F - 1];
   // A relative slack of 1e-9 accepts band edges that went through a unit conversion.
   if (f < lo * (1 - 1e-9) || f > hi * (1 + 1e-9)) {
-    throw new InputError('out-of-range', field, `a frequency inside the part's data (${lo / 1e9} – ${hi / 1e9} GHz)`, `${f / 1e9} GHz`, 'narrow the sweep or supply data covering the band');
+    throw new InputError('out-of-range', field, `a frequency inside ${what} (${lo / 1e9} – ${hi / 1e9} GHz)`, `${f / 1e9} GHz`, 'narrow the sweep or supply data covering the band');
   }
   if (F === 1 || f <= lo) return d.s.slice(0, m);
   if (f >= hi) return d.s.slice((F - 1) * m, F * m);
