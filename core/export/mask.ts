@@ -1,7 +1,8 @@
 /**
- * Photo mask (also toner-transfer artwork): a print-ready 1:1 sheet as SVG, page A4 (210 × 297 mm, ISO 216) or US
- * Letter (8.5 × 11 in = 215.9 × 279.4 mm), width and height in mm with a matching viewBox so a browser or viewer
- * printing at "actual size" / 100 % reproduces it true to scale.
+ * Photo mask (also toner-transfer artwork): a print-ready 1:1 sheet, page A4 (210 × 297 mm, ISO 216) or US Letter
+ * (8.5 × 11 in = 215.9 × 279.4 mm), as SVG (width and height in mm with a matching viewBox) and as a one-page vector
+ * PDF (mask-pdf.ts), so a viewer printing at "actual size" / 100 % reproduces it true to scale. Both are drawn from
+ * one `Sheet` model built here.
  *
  * On the sheet: the top copper (network + ground copper) in the chosen polarity, optionally mirrored; drill centres
  * as small no-copper dots so the etched copper guides the drill; four registration marks around the board; a
