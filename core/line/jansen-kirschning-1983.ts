@@ -35,6 +35,7 @@ const LN_123 = Math.log(12.3);
 let mEr = Number.NaN; let eR1 = 0; let R4 = 0; let er1674 = 0; let R10 = 0; let eTerm = 0; let er2 = 0;
 let mFn = Number.NaN; let lnFn = 0; let R5 = 0; let R11 = 0; let fn2745 = 0; let mFnEr = Number.NaN;
 let R9 = 0; let e17 = 0;
+let mU = Number.NaN; let mEe0 = Number.NaN; let R3 = 0; let R7 = 0; let eR6 = 0; let R12 = 0; let w15Term = 0; let lnEe0 = 0;
 
 /** Z0(f), Ω (fn > 0). */
 export function jansenKirschningZ0(u: number, er: number, ee0: number, eef: number, fn: number, z00: number): number {
@@ -65,19 +66,25 @@ export function jansenKirschningZ0(u: number, er: number, ee0: number, eef: numb
     const R15 = 0.707 * R10 * Math.exp(1.097 * (lnFn - LN_123));
     e17 = Math.exp(-0.026 * Math.exp(1.15656 * lnFn) - R15); // the frequency factor of R17
   }
-  const lnU = Math.log(u);
-  const u2 = u * u; const u4 = u2 * u2;
-  const R2 = 0.267 * u4 * u2 * u;
-  const R3 = 4.766 * Math.exp(-3.228 * Math.exp(0.641 * lnU));
-  const R6 = 22.2 * Math.exp(1.92 * lnU);
-  const R7 = 1.206 - 0.3144 * eR1 * (1 - expNeg(R2));
+  if (u !== mU || ee0 !== mEe0 || newEr) {
+    // Terms of the width (and εe0) only: a frequency sweep of one line reuses them.
+    mU = u; mEe0 = ee0;
+    const lnU = Math.log(u);
+    const u2 = u * u; const u4 = u2 * u2;
+    const R2 = 0.267 * u4 * u2 * u;
+    R3 = 4.766 * Math.exp(-3.228 * Math.exp(0.641 * lnU));
+    const R6 = 22.2 * Math.exp(1.92 * lnU);
+    R7 = 1.206 - 0.3144 * eR1 * (1 - expNeg(R2));
+    eR6 = expNeg(R6);
+    R12 = 1 / (1 + 0.00245 * u2);
+    const w15 = u / 15; const w15_2 = w15 * w15;
+    w15Term = 1 - expNeg(w15_2 * w15_2 * w15_2);
+    lnEe0 = Math.log(ee0);
+  }
   const R8 = 1 + 1.275 * (1 - expNeg(0.004625 * R3 * er1674 * fn2745));
-  const R9u = R9 * expNeg(R6);
-  const R12 = 1 / (1 + 0.00245 * u2);
   const R13 = 0.9408 * Math.exp(R8 * Math.log(eef)) - 0.9603;
-  const R14 = (0.9408 - R9u) * Math.exp(R8 * Math.log(ee0)) - 0.9603;
-  const w15 = u / 15; const w15_2 = w15 * w15;
-  const R16 = 1 + 0.0503 * er2 * R11 * (1 - expNeg(w15_2 * w15_2 * w15_2));
+  const R14 = (0.9408 - R9 * eR6) * Math.exp(R8 * lnEe0) - 0.9603;
+  const R16 = 1 + 0.0503 * er2 * R11 * w15Term;
   const R17 = R7 * (1 - 1.1241 * (R12 / R16) * e17);
   return z00 * Math.exp(R17 * Math.log(R13 / R14));
 }

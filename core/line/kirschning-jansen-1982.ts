@@ -20,6 +20,7 @@ export const KJ1982_RANGE = { uMin: 0.1, uMax: 100, erMax: 20, fnMax: 0.13 * 299
 const LN_387 = Math.log(38.7);
 let mEr = Number.NaN; let P2 = 0; let P4 = 0;
 let mFn = Number.NaN; let c1 = 0; let F3 = 0;
+let mU = Number.NaN; let eU1 = 0; let eU3 = 0;
 
 /** εe(f) from the static εe0 (u dimensionless, er relative permittivity, fn in GHz·mm > 0). */
 export function kirschningJansenEpsEff(u: number, er: number, ee0: number, fn: number): number {
@@ -36,8 +37,9 @@ export function kirschningJansenEpsEff(u: number, er: number, ee0: number, fn: n
     c1 = 0.6315 + 0.525 / (d10 * d10);
     F3 = 1 - Math.exp(-Math.exp(4.97 * (Math.log(fn) - LN_387)));
   }
-  const P1 = 0.27488 + c1 * u - 0.065683 * Math.exp(-8.7513 * u);
-  const P3 = 0.0363 * Math.exp(-4.6 * u) * F3;
+  if (u !== mU) { mU = u; eU1 = 0.065683 * Math.exp(-8.7513 * u); eU3 = 0.0363 * Math.exp(-4.6 * u); } // width-only terms
+  const P1 = 0.27488 + c1 * u - eU1;
+  const P3 = eU3 * F3;
   const P = P1 * P2 * Math.exp(1.5763 * Math.log((0.1844 + P3 * P4) * fn));
   return er - (er - ee0) / (1 + P);
 }
