@@ -3,7 +3,8 @@
  * data lost = 0"). Each round starts a child that saves a large design in a loop with the atomic save and a
  * recovery copy, kills it with SIGKILL at a random moment, cleans stray temporaries as the app does at start, and
  * checks what is on disk:
- *   corrupt — the design, its .bak or the recovery copy does not load with core/design's parser;
+ *   corrupt — the design, its .bak or the recovery copy is not byte for byte one of the saved versions (each of which
+ *             loads with core/design's parser);
  *   lost    — the design is missing, or older than the last save the child had reported as done.
  *   npx tsx scripts/kill-test.ts [--rounds N] [--naive]   (prints the figures; exits 1 on any corrupt or lost)
  */
@@ -18,7 +19,7 @@ import { parseDesign } from '../core/design/index.ts';
 import { backupPathOf } from '../electron/files/atomic-write.ts';
 import { RecoveryStore } from '../electron/files/recovery-store.ts';
 import { cleanStrayTemps, parseTempName } from '../electron/files/temp-files.ts';
-import { KILL_TEST_FILE } from './kill-test-design.ts';
+import { KILL_TEST_FILE, killTestDesign } from './kill-test-design.ts';
 
 export interface KillFigures {
   mode: 'atomic' | 'naive';
@@ -37,39 +38,54 @@ export interface KillFigures {
 
 export interface RoundState { lastAck: number }
 
-/** Read a saved design and say what is wrong with it, or null when it loads. Exported for its own test. */
-export function designProblem(path: string): string | null {
-  let text: string;
-  try { text = readFileSync(path, 'utf8'); } catch { return 'missing'; }
-  const r = parseDesign(text);
-  return r.ok ? null : `does not load: ${r.errors[0]?.expected ?? 'unknown'} (${text.length} characters)`;
+/** The exact text the writer saves as save number `seq` (it sets `notes` last on the same design object). */
+export function expectedTextFactory(): (seq: number) => string {
+  const doc = killTestDesign();
+  doc.notes = 'kill-test save @@SEQ@@';
+  const [head, tail] = JSON.stringify(doc).split('@@SEQ@@') as [string, string];
+  return (seq) => `${head}${seq}${tail}`;
 }
+
+const SEQ_RE = /"notes":"kill-test save (\d+)"/;
 
 export function seqOf(path: string): number | null {
   try {
-    const m = /"notes":"kill-test save (\d+)"/.exec(readFileSync(path, 'utf8'));
+    const m = SEQ_RE.exec(readFileSync(path, 'utf8'));
     return m ? Number(m[1]) : null;
   } catch { return null; }
 }
 
+/**
+ * What is wrong with a saved text, or null: it must be byte for byte one of the versions the writer saved (so it
+ * also loads, since every version does). On a mismatch, core/design's parser says how it fails to load.
+ */
+export function textProblem(text: string, expected: (seq: number) => string): string | null {
+  const m = SEQ_RE.exec(text);
+  if (m && text === expected(Number(m[1]))) return null;
+  const r = parseDesign(text);
+  return r.ok ? `loads, but is not any version the writer saved (${text.length} characters)` : `does not load: ${r.errors[0]?.expected ?? 'unknown'} (${text.length} characters)`;
+}
+
 /** Check the folder after a kill. Returns the problems found (empty when nothing is corrupt or lost). */
-export async function checkAfterKill(folder: string, state: RoundState): Promise<{ corrupt: string[]; lost: string[] }> {
+export async function checkAfterKill(folder: string, state: RoundState, expected = expectedTextFactory()): Promise<{ corrupt: string[]; lost: string[] }> {
   const corrupt: string[] = [], lost: string[] = [];
+  const read = (p: string) => { try { return readFileSync(p, 'utf8'); } catch { return null; } };
   const target = join(folder, KILL_TEST_FILE);
-  if (existsSync(target)) {
-    const p = designProblem(target);
+  const design = read(target);
+  if (design !== null) {
+    const p = textProblem(design, expected);
     if (p) corrupt.push(`design ${p}`);
     else {
-      const seq = seqOf(target) ?? -1;
+      const seq = Number(SEQ_RE.exec(design)![1]);
       if (seq < state.lastAck) lost.push(`design holds save ${seq}, but save ${state.lastAck} had been reported done`);
     }
   } else if (state.lastAck > 0) lost.push('design missing after a save had been reported done');
-  const bak = backupPathOf(target);
-  if (existsSync(bak)) { const p = designProblem(bak); if (p) corrupt.push(`backup ${p}`); }
-  const copy = await new RecoveryStore(join(folder, 'recovery'), 'checker').read('kill-test-doc');
+  const bak = read(backupPathOf(target));
+  if (bak !== null) { const p = textProblem(bak, expected); if (p) corrupt.push(`backup ${p}`); }
   if (existsSync(join(folder, 'recovery', 'kill-test-doc.recovery.json'))) {
+    const copy = await new RecoveryStore(join(folder, 'recovery'), 'checker').read('kill-test-doc');
     if (!copy) corrupt.push('recovery copy does not read');
-    else if (!parseDesign(copy.text).ok) corrupt.push('recovery copy holds a design that does not load');
+    else { const p = textProblem(copy.text, expected); if (p) corrupt.push(`recovery copy ${p}`); }
   }
   return { corrupt, lost };
 }
@@ -91,6 +107,10 @@ export async function runKillTest(o: { rounds?: number; mode?: 'atomic' | 'naive
   const f: KillFigures = { mode, rounds, killedAfterSaves: 0, saves: 0, corrupt: 0, lost: 0, strayTempsCleaned: 0, strayTempsLeft: 0, designBytes: 0, seconds: 0, problems: [] };
   try {
     const writer = await bundleWriter(work);
+    const expected = expectedTextFactory();
+    // Every version the writer saves is this design with another note; check once that it loads at all.
+    const first = parseDesign(expected(1));
+    if (!first.ok) throw new Error(`the kill-test design does not load: ${first.errors[0]?.expected}`);
     const state: RoundState = { lastAck: 0 };
     let nextSeq = 1;
     for (let round = 1; round <= rounds; round++) {
@@ -122,7 +142,7 @@ export async function runKillTest(o: { rounds?: number; mode?: 'atomic' | 'naive
       // What the app does at its next start: remove the temporaries the killed process left.
       f.strayTempsCleaned += (await cleanStrayTemps(folder)).length + (await cleanStrayTemps(join(folder, 'recovery'))).length;
       f.strayTempsLeft = [...readdirSync(folder), ...readdirSync(join(folder, 'recovery'))].filter((n) => parseTempName(n)).length;
-      const { corrupt, lost } = await checkAfterKill(folder, state);
+      const { corrupt, lost } = await checkAfterKill(folder, state, expected);
       if (corrupt.length) { f.corrupt++; f.problems.push(`round ${round}: ${corrupt.join('; ')}`); }
       if (lost.length) { f.lost++; f.problems.push(`round ${round}: ${lost.join('; ')}`); }
       nextSeq = Math.max(state.lastAck, seqOf(join(folder, KILL_TEST_FILE)) ?? 0) + 1;

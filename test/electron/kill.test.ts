@@ -5,7 +5,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { checkAfterKill, formatFigures, runKillTest } from '../../scripts/kill-test.ts';
+import { checkAfterKill, expectedTextFactory, formatFigures, runKillTest } from '../../scripts/kill-test.ts';
 import { KILL_TEST_FILE, killTestDesign } from '../../scripts/kill-test-design.ts';
 
 let dir = '';
@@ -13,23 +13,30 @@ afterEach(() => { if (dir) rmSync(dir, { recursive: true, force: true }); });
 
 describe('the kill-test checker can fail', () => {
   const setup = () => { dir = mkdtempSync(join(tmpdir(), 'sw-killcheck-')); mkdirSync(join(dir, 'recovery')); return join(dir, KILL_TEST_FILE); };
-  it('calls a truncated design corrupt', async () => {
+  const expected = expectedTextFactory();
+  it('calls a truncated design corrupt, saying it does not load', async () => {
     const p = setup();
-    const doc = killTestDesign(50);
-    doc.notes = 'kill-test save 3';
-    const text = JSON.stringify(doc);
+    const text = expected(3);
     writeFileSync(p, text.slice(0, Math.floor(text.length * 0.6)));
-    expect((await checkAfterKill(dir, { lastAck: 3 })).corrupt).toHaveLength(1);
+    const r = await checkAfterKill(dir, { lastAck: 3 }, expected);
+    expect(r.corrupt).toEqual([expect.stringMatching(/^design does not load/)]);
+  });
+  it('calls a valid design that is not a saved version corrupt, and a bad backup too', async () => {
+    const p = setup();
+    const doc = killTestDesign();
+    doc.notes = 'kill-test save 3';
+    doc.name = 'changed';
+    writeFileSync(p, JSON.stringify(doc));
+    writeFileSync(`${p}.bak`, '');
+    expect((await checkAfterKill(dir, { lastAck: 3 }, expected)).corrupt).toEqual([expect.stringMatching(/^design loads, but is not/), expect.stringMatching(/^backup does not load/)]);
   });
   it('calls a design older than the last completed save lost, and a missing one too', async () => {
     const p = setup();
-    const doc = killTestDesign(50);
-    doc.notes = 'kill-test save 4';
-    writeFileSync(p, JSON.stringify(doc));
-    expect(await checkAfterKill(dir, { lastAck: 4 })).toEqual({ corrupt: [], lost: [] });
-    expect((await checkAfterKill(dir, { lastAck: 5 })).lost).toHaveLength(1);
+    writeFileSync(p, expected(4));
+    expect(await checkAfterKill(dir, { lastAck: 4 }, expected)).toEqual({ corrupt: [], lost: [] });
+    expect((await checkAfterKill(dir, { lastAck: 5 }, expected)).lost).toHaveLength(1);
     rmSync(p);
-    expect((await checkAfterKill(dir, { lastAck: 5 })).lost).toEqual(['design missing after a save had been reported done']);
+    expect((await checkAfterKill(dir, { lastAck: 5 }, expected)).lost).toEqual(['design missing after a save had been reported done']);
   });
 });
 
