@@ -2,15 +2,15 @@
  * Gerber RS-274X with X2 attributes: one file for the top copper, one for the bottom copper (the microstrip ground
  * plane) and one for the board profile.
  *
- * Follows Ucamco, "The Gerber Layer Format Specification" (revision 2022.02 read for this):
+ * Follows Ucamco, "The Gerber Layer Format Specification" (revision 2022.02), as summarised in /work/shared/formats.md §3.1:
  * - header before any coordinate: %FSLAX46Y46*% (leading zeros omitted, absolute, 4 integer and 6 decimal digits,
- *   so integers count nanometres of millimetres) and %MOMM*% (§4.1 FS, §4.2 MO);
+ *   so integers count nanometres of millimetres) and %MOMM*%, each once;
  * - X2 file attributes %TF.GenerationSoftware%, %TF.FileFunction% (Copper,L1,Top / Copper,L2,Bot / Profile,NP) and
- *   %TF.FilePolarity,Positive% (§5.6); the aperture attribute %TA.AperFunction% is set before the objects it
+ *   %TF.FilePolarity,Positive%; the aperture attribute %TA.AperFunction% is set before the objects it
  *   describes (Conductor for copper regions, Profile for the profile draw), and %TD*% clears it at the end;
  * - copper as regions: G36, a D02 move to the first vertex, G01 D01 segments back to the first vertex (closed
- *   contour), G37 (§4.10); holes in copper are regions drawn with clear polarity %LPC*% right after the region they
- *   pierce, then %LPD*% again (§4.9). Regions are written largest outer contour first, so an island standing in
+ *   contour), G37; holes in copper are regions drawn with clear polarity %LPC*% right after the region they
+ *   pierce, then %LPD*% again. Regions are written largest outer contour first, so an island standing in
  *   another region's hole (the network inside a ground-copper window) comes after that hole has been cleared;
  * - only straight segments (G01): the geometry is polygonal, so there is no arc mode to leave on by mistake;
  * - every coordinate written in full (X and Y), and M02* ends the file.

@@ -1,6 +1,6 @@
 /**
  * The photo-mask sheet as a one-page vector PDF, written directly (ISO 32000-1:2008, "Document management —
- * Portable document format — Part 1: PDF 1.7"): catalog, page tree, one page whose MediaBox is the paper size in
+ * Portable document format — Part 1: PDF 1.7"; clause numbers below are from memory): catalog, page tree, one page whose MediaBox is the paper size in
  * points (1 pt = 1/72 in, §8.3.2.3), the standard Helvetica font (one of the 14 standard Type 1 fonts, §9.6.2.2,
  * so nothing is embedded), an uncompressed content stream, and a cross-reference table with byte offsets (§7.5.4).
  *
@@ -22,7 +22,7 @@ function n(v: number): string {
   return s === '-0' ? '0' : s;
 }
 
-/** WinAnsiEncoding (ISO 32000-1 Annex D) for the characters the sheet uses; others become '?'. */
+/** WinAnsiEncoding (ISO 32000-1 Annex D; codes from memory) for the characters the sheet uses; others become '?'. */
 const WIN_ANSI: Record<string, number> = { '×': 0xd7, '—': 0x97, '–': 0x96, 'µ': 0xb5, '°': 0xb0, '±': 0xb1, 'é': 0xe9, 'ü': 0xfc, 'ö': 0xf6, 'ä': 0xe4 };
 
 function pdfString(s: string): string {

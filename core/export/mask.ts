@@ -24,7 +24,7 @@ import type { ExportGeometry } from './layers.ts';
 export type PageSize = 'a4' | 'letter';
 export type Polarity = 'positive' | 'negative';
 
-/** Page sizes, mm (ISO 216 A4; ANSI/ASME Y14.1 Letter 8.5 × 11 in). */
+/** Page sizes, mm (ISO 216 A4; US Letter is 8.5 × 11 in by definition of the size). */
 export const PAGES: Record<PageSize, { w: number; h: number; name: string }> = {
   a4: { w: 210, h: 297, name: 'A4' },
   letter: { w: 215.9, h: 279.4, name: 'Letter' },

@@ -2,7 +2,7 @@
  * SVG export: a drawing at true size for vector editors, laser and CAM programs that take SVG.
  *
  * - `width`/`height` in millimetres with a matching `viewBox`, so one user unit is 1 mm whatever the viewer's
- *   pixels per inch (CSS Values and Units: 1 in = 96 px = 25.4 mm; W3C SVG 1.1 §7.10 on units and viewBox);
+ *   pixels per inch (CSS Values and Units: 1 in = 96 px = 25.4 mm; W3C SVG 1.1, units and the viewBox attribute);
  *   no transforms: y is flipped once, here, by writing y_svg = top − y (SVG y points down, the board's up);
  * - one `<g>` per layer with a readable id (layers.ts), marked as a layer for editors that read
  *   `inkscape:groupmode="layer"`;

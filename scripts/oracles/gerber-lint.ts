@@ -1,7 +1,7 @@
 /**
  * Our own rule checker for Gerber RS-274X/X2 and Excellon drill files, written from the open specifications
- * (Ucamco, "The Gerber Layer Format Specification", rev. 2022.02: §3 syntax, §4.1 FS, §4.2 MO, §4.3 AD, §4.7 G01–G03
- * and G75, §4.9 LP, §4.10 regions, §5 attributes, §8 deprecated commands; for drill files the Excellon header/body
+ * (Ucamco, "The Gerber Layer Format Specification", rev. 2022.02, as summarised in /work/shared/formats.md §3.1:
+ * syntax, FS, MO, AD, G01–G03 and G75, LP, regions, attributes, deprecated commands; for drill files the Excellon header/body
  * layout summarised in /work/shared/formats.md §3.3). It shares no code with core/export, so a passing file means
  * a second reading of the rules agrees with the writer.
  *
@@ -45,11 +45,11 @@ export function lintGerber(text: string): { problems: string[]; facts: GerberFac
       if (/^FS/.test(t)) {
         fsCount++;
         const m = /^FSLAX(\d)(\d)Y(\d)(\d)$/.exec(t);
-        if (!m) p(`${where}: FS must be FSLAXnmYnm (leading zeros omitted, absolute; §4.1)`);
+        if (!m) p(`${where}: FS must be FSLAXnmYnm (leading zeros omitted, absolute)`);
         else {
           if (m[1] !== m[3] || m[2] !== m[4]) p(`${where}: X and Y formats differ`);
           facts.format = { int: Number(m[1]), dec: Number(m[2]) };
-          if (facts.format.dec < 5 || facts.format.dec > 6) p(`${where}: use 5 or 6 decimals in mm (§4.1)`);
+          if (facts.format.dec < 5 || facts.format.dec > 6) p(`${where}: use 5 or 6 decimals in mm`);
         }
         if (sawCoordinate) p(`${where}: FS after the first coordinate`);
       } else if (/^MO/.test(t)) {
@@ -81,7 +81,7 @@ export function lintGerber(text: string): { problems: string[]; facts: GerberFac
           if (t.length > 2 && !/^TD[.A-Za-z_$][\w.$]*$/.test(t)) p(`${where}: bad TD`);
         } else if (!/^T[AO][.A-Za-z_$][\w.$]*(,.*)?$/.test(t)) p(`${where}: bad attribute`);
       } else if (/^(IP|IR|AS|MI|OF|SF|IN|LN)/.test(t)) {
-        p(`${where}: deprecated image/layer command ${t.slice(0, 2)} (§8)`);
+        p(`${where}: deprecated image/layer command ${t.slice(0, 2)}`);
       } else if (/^(AM|SR|AB|LM|LR|LS)/.test(t)) {
         // allowed, not checked further
       } else p(`${where}: unknown extended command`);
@@ -90,7 +90,7 @@ export function lintGerber(text: string): { problems: string[]; facts: GerberFac
     const t = b.text;
     if (/^G0?4(\s|$)/.test(t) || t === 'G04') return; // comment
     if (t === 'M02') { m02 = idx; return; }
-    if (/^(G54|G55|G70|G71|G90|G91|M00|M01|G74)/.test(t)) { p(`${where}: deprecated code ${t.slice(0, 3)} (§8)`); return; }
+    if (/^(G54|G55|G70|G71|G90|G91|M00|M01|G74)/.test(t)) { p(`${where}: deprecated code ${t.slice(0, 3)}`); return; }
     if (t === 'G36') { if (inRegion) p(`${where}: G36 inside a region`); inRegion = true; facts.regions++; contourStart = null; return; }
     if (t === 'G37') { if (!inRegion) p(`${where}: G37 without G36`); closeContour(where); inRegion = false; return; }
     if (t === 'G75') { g75 = true; return; }

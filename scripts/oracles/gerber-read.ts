@@ -1,5 +1,5 @@
 /**
- * Read-back of Gerber and Excellon files through third-party parsers (tracespace's gerber-parser + gerber-plotter,
+ * Read-back of Gerber and Excellon files through third-party parsers (gerber-parser + gerber-plotter,
  * npm), and rendering through gerber-to-svg → @resvg/resvg-js → pngjs for an area measured in pixels.
  * See /work/shared/formats.md §3.2 for what each catches. Warnings the parser gives for X2 attributes it does not
  * implement ("... was not recognized and was ignored" for %TF/%TA/%TD) are separated from real warnings.

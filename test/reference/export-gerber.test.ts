@@ -1,7 +1,7 @@
 /**
  * Gerber X2 and Excellon export, checked three ways (formats.md §3):
  * (a) our own rule checker written from the open Gerber Layer Format Specification (scripts/oracles/gerber-lint.ts);
- * (b) read-back through tracespace's gerber-parser + gerber-plotter (units, exact image extent, no warnings);
+ * (b) read-back through gerber-parser + gerber-plotter (units, exact image extent, no warnings);
  * (c) rendering through gerber-to-svg → resvg → pngjs: dark area within 0.5 % of the geometry's copper area,
  *     the check that catches region/polarity mistakes invisible to parsers.
  */
