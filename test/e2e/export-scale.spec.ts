@@ -1,6 +1,6 @@
 /**
  * Exported SVG drawings and photo masks shown in Debian's Chromium come out at true size.
- * Scale rule: CSS Values and Units §6.2 (1 in = 96 px = 25.4 mm), so a length in CSS px × 25.4 / 96 is mm.
+ * Scale rule: CSS Values and Units (absolute lengths) (1 in = 96 px = 25.4 mm), so a length in CSS px × 25.4 / 96 is mm.
  * Chromium lays out in 1/64 px (≈ 4 µm, formats.md §2.2), well inside the 0.01 mm asked for.
  */
 import { expect, test } from '@playwright/test';
