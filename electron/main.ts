@@ -21,6 +21,7 @@ import { CAUTIONS_TEXT, CAUTIONS_TITLE } from './cautions.ts';
 // Must run before 'ready': our scheme is standard (relative URLs, origin), secure (like https) and may use fetch.
 protocol.registerSchemesAsPrivileged([{ scheme: APP_SCHEME, privileges: { standard: true, secure: true, supportFetchAPI: true, stream: true } }]);
 app.enableSandbox();
+if (process.platform === 'win32') app.setAppUserModelId('org.stripwright.desktop'); // taskbar grouping = the package's appId
 // A separate settings/recovery folder on request (portable use, the Electron smoke test); before anything reads it.
 if (process.env.STRIPWRIGHT_USER_DATA) app.setPath('userData', resolve(process.env.STRIPWRIGHT_USER_DATA));
 
@@ -189,6 +190,14 @@ function start(): void {
         autosaveWaiter = () => { clearTimeout(timer); done(); };
         send(PUSH_CHANNELS.flushAutosave);
       }
+    });
+    // The page's own beforeunload guard (for the browser) would silently stop a close the user already confirmed
+    // in our prompt. Let a confirmed close through; otherwise the page knows of unsaved changes we were not told
+    // of, so mark them and ask through our prompt.
+    win.webContents.on('will-prevent-unload', (event) => {
+      if (closeConfirmed) { event.preventDefault(); return; }
+      docState = { ...docState, dirty: true };
+      setImmediate(() => parent()?.close());
     });
     // Remember the placement also while the window lives (a crash then keeps it), at most once a second.
     let placeTimer: NodeJS.Timeout | null = null;

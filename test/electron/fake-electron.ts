@@ -82,6 +82,7 @@ export function makeFakeMain(o: { lock?: boolean; userData: string; argv?: strin
       getPath: (n: string) => (n === 'userData' ? o.userData : `${o.userData}-${n}`),
       setPath: rec('app.setPath'),
       enableSandbox: rec('app.enableSandbox'),
+      setAppUserModelId: rec('app.setAppUserModelId'),
       getVersion: () => '0.1.0',
       isPackaged: false,
     }),

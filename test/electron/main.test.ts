@@ -133,6 +133,23 @@ describe('electron/main.ts', () => {
     expect(boxes.slice(-1)).toEqual(['The Stripwright page keeps stopping']);
   });
 
+  it('lets a confirmed close past the page’s beforeunload guard, and asks when the page knows of changes we do not', async () => {
+    await boot();
+    const w = await started();
+    const ev = { preventDefault: vi.fn() };
+    w.webContents.emit('will-prevent-unload', ev);
+    expect(ev.preventDefault).not.toHaveBeenCalled(); // not confirmed: the unload stays stopped ...
+    await settle();
+    expect(fake.calls.filter((c) => c.name === 'dialog.showMessageBoxSync')).toHaveLength(1); // ... and our prompt asks
+    const ours = { senderFrame: { url: 'app://stripwright/index.html' }, sender: w.webContents };
+    fake.messageBoxAnswers.push(1);
+    w.close();
+    await fake.handles.get(ipcName('autosave:write'))!(ours, { docId: 'd1', name: 'Feed', path: null, text: '{}' });
+    const ev2 = { preventDefault: vi.fn() };
+    w.webContents.emit('will-prevent-unload', ev2);
+    expect(ev2.preventDefault).toHaveBeenCalled(); // confirmed: the page's guard is overridden
+  });
+
   it('closes without asking when nothing is unsaved', async () => {
     await boot();
     const w = await started();
