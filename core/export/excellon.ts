@@ -49,6 +49,7 @@ function drillFile(hits: DrillHit[], plated: boolean, frame: Frame, sw: Software
     `; #@! TF.GenerationSoftware,${app},${app},${ver}`,
     `; #@! TF.FileFunction,${plated ? 'Plated,1,2,PTH' : 'NonPlated,1,2,NPTH'}`,
     '; #@! TF.FilePolarity,Positive',
+    '; #@! TF.SameCoordinates',
     'FMAT,2',
     'METRIC,TZ',
     ...diameters.map((um, i) => `T${i + 1}C${num(um / 1000)}`),

@@ -6,7 +6,7 @@
  * - header before any coordinate: %FSLAX46Y46*% (leading zeros omitted, absolute, 4 integer and 6 decimal digits,
  *   so integers count nanometres of millimetres) and %MOMM*%, each once;
  * - X2 file attributes %TF.GenerationSoftware%, %TF.FileFunction% (Copper,L1,Top / Copper,L2,Bot / Profile,NP) and
- *   %TF.FilePolarity,Positive%; the aperture attribute %TA.AperFunction% is set before the objects it
+ *   %TF.FilePolarity,Positive% and %TF.SameCoordinates% (all files of one export share one frame); the aperture attribute %TA.AperFunction% is set before the objects it
  *   describes (Conductor for copper regions, Profile for the profile draw), and %TD*% clears it at the end;
  * - copper as regions: G36, a D02 move to the first vertex, G01 D01 segments back to the first vertex (closed
  *   contour), G37; holes in copper are regions drawn with clear polarity %LPC*% right after the region they
@@ -64,6 +64,7 @@ function header(fileFunction: string, what: string, frame: Frame, sw: SoftwareIn
     `%TF.GenerationSoftware,${app},${app},${ver}*%`,
     `%TF.FileFunction,${fileFunction}*%`,
     '%TF.FilePolarity,Positive*%',
+    '%TF.SameCoordinates*%',
     '%FSLAX46Y46*%',
     '%MOMM*%',
     '%LPD*%',

@@ -8,7 +8,7 @@ import fc from 'fast-check';
 import DxfParser from 'dxf-parser';
 import { initPolygons, regionsArea, unionRegions, differenceRegions, rectRing, GRID_M } from '../../core/geometry/polygons.ts';
 import type { BoardGeometry, Region, Ring } from '../../core/geometry/types.ts';
-import { toDxf, toGerber, toSvg, withEtchBias, withIsolation } from '../../core/export/index.ts';
+import { toDxf, toDxfR12, toGerber, toSvg, withEtchBias, withIsolation } from '../../core/export/index.ts';
 import { lintGerber } from '../../scripts/oracles/gerber-lint.ts';
 import { readBack } from '../../scripts/oracles/gerber-read.ts';
 
@@ -60,6 +60,18 @@ describe('random geometries through every exporter', () => {
       }
       expect(Math.abs(area - regionsArea(g.copper) * 1e6)).toBeLessThan(1e-4);
     }), { numRuns: 30 });
+  });
+
+  it('DXF R12 (dxf-parser): the same closed outlines as the 2007 file, vertex for vertex', () => {
+    fc.assert(fc.property(arbGeometry, (g) => {
+      const a = new DxfParser().parseSync(toDxf(g, { layers: ['copper'] }))!.entities as unknown as { shape: boolean; vertices: { x: number; y: number }[] }[];
+      const b = new DxfParser().parseSync(toDxfR12(g, { layers: ['copper'] }))!.entities as unknown as { shape: boolean; vertices: { x: number; y: number }[] }[];
+      expect(b.length).toBe(a.length);
+      b.forEach((e, i) => {
+        expect(e.shape).toBe(true);
+        expect(e.vertices.map((v) => [v.x, v.y])).toEqual(a[i].vertices.map((v) => [v.x, v.y]));
+      });
+    }), { numRuns: 20 });
   });
 
   it('Gerber (own rules + gerber-parser/plotter): clean, closed contours, inside the board, area equal', async () => {
