@@ -11,6 +11,9 @@ function chromiumPath(): string {
   }
 }
 
+// E2E_PORT lets a developer run the browser tests beside another server already on the default port.
+const PORT = Number(process.env.E2E_PORT ?? 4173);
+
 export default defineConfig({
   testDir: 'test/e2e',
   testIgnore: ['**/electron/**'],
@@ -19,7 +22,7 @@ export default defineConfig({
   outputDir: 'test-results',
   reporter: process.env.CI ? [['list'], ['json', { outputFile: 'reports/e2e.json' }]] : 'list',
   use: {
-    baseURL: 'http://127.0.0.1:4173',
+    baseURL: `http://127.0.0.1:${PORT}`,
     headless: true,
     acceptDownloads: true,
     viewport: { width: 1366, height: 768 },
@@ -36,8 +39,8 @@ export default defineConfig({
     { name: 'electron', testDir: 'test/e2e/electron', testIgnore: [] },
   ],
   webServer: {
-    command: 'node --import tsx scripts/serve.ts --port 4173',
-    url: 'http://127.0.0.1:4173',
+    command: `node --import tsx scripts/serve.ts --port ${PORT}`,
+    url: `http://127.0.0.1:${PORT}`,
     reuseExistingServer: false,
     timeout: 60_000,
   },
