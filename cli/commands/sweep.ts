@@ -32,6 +32,8 @@ Output (default: a summary table — worst figures over the band and the values 
   --format ri|ma|db        Touchstone number format (default ri: real/imaginary, full precision)
   --unit hz|khz|mhz|ghz    Touchstone frequency unit (default ghz)
   --zref OHMS              reference impedance of the Touchstone file (default: the ports' own, when all agree)
+  --touchstone 1.1|2.0     file version (default 1.1; 2.0 keeps different port references, older readers may
+                           ignore them)
   --input PORT             port taken as the input for the figures (default: the layout's anchor port)
   --compare FILE.sNp       sweep at that file's frequencies and show how far the design is from it
                            (largest |ΔS|, Δ dB and Δ phase per S-parameter), e.g. a measured board
@@ -47,7 +49,7 @@ Examples:
 const OPTIONS = {
   from: { type: 'string' }, to: { type: 'string' }, points: { type: 'string' }, log: { type: 'boolean' },
   out: { type: 'string' }, format: { type: 'string' }, unit: { type: 'string' }, zref: { type: 'string' },
-  input: { type: 'string' }, json: { type: 'boolean' }, force: { type: 'boolean' }, advisory: { type: 'string', multiple: true }, compare: { type: 'string' },
+  input: { type: 'string' }, json: { type: 'boolean' }, force: { type: 'boolean' }, advisory: { type: 'string', multiple: true }, compare: { type: 'string' }, touchstone: { type: 'string' },
 } as const;
 
 function choice<T extends string>(flag: string, v: string | undefined, allowed: readonly T[]): T | undefined {
@@ -75,6 +77,7 @@ export const sweepCommand: CliCommand = {
     const { values, positionals } = parseArgs({ args: argv, options: OPTIONS, allowPositionals: true, strict: true });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design (or Touchstone) file to sweep' : `one file at a time, got ${positionals.length}`);
     const format = choice<TouchstoneFormat>('format', values.format, ['ri', 'ma', 'db']);
+    const tsVersion = choice<'1.1' | '2.0'>('touchstone', values.touchstone, ['1.1', '2.0']);
     const unit = choice<FrequencyUnit>('unit', values.unit, ['hz', 'khz', 'mhz', 'ghz']);
     const from = flagQuantity('from', values.from, 'frequency');
     const to = flagQuantity('to', values.to, 'frequency');
@@ -90,7 +93,7 @@ export const sweepCommand: CliCommand = {
     }
     const advisory = (values.advisory ?? []).flatMap((a) => a.split(',')).map((a) => a.trim().toLowerCase()).filter(Boolean);
     for (const a of advisory) if (a !== 'step') throw new UsageError(`--advisory takes 'step' (the only advisory model in the network), not '${a}'`);
-    if ((format || unit || zref !== undefined || values.force) && !values.out) throw new UsageError('--format, --unit, --zref and --force apply to the Touchstone file: add --out FILE.sNp');
+    if ((format || unit || tsVersion || zref !== undefined || values.force) && !values.out) throw new UsageError('--format, --unit, --touchstone, --zref and --force apply to the Touchstone file: add --out FILE.sNp');
 
     const file = resolve(io.cwd, positionals[0]);
     let measured: TouchstoneData | undefined;
@@ -132,11 +135,11 @@ export const sweepCommand: CliCommand = {
           return 1;
         }
         const ts = writeTouchstone(r, {
-          format, unit, zRef: zref, app: `stripwright ${VERSION}`, design: loaded.name,
-          comments: [`ports: ${r.ports.map((p, i) => `${i + 1}=${p.name}`).join(' ')}`, `from ${basename(file)}`],
+          format, unit, zRef: zref, version: tsVersion, app: `stripwright ${VERSION}`, design: loaded.name,
+          comments: [`from ${basename(file)}`],
         });
         atomicWrite(out, ts);
-        if (!values.json) io.out(`wrote ${out}  (Touchstone 1.1, ${r.ports.length} port(s), ${r.freqs.length} frequencies)`);
+        if (!values.json) io.out(`wrote ${out}  (Touchstone ${tsVersion ?? '1.1'}, ${r.ports.length} port(s), ${r.freqs.length} frequencies)`);
       }
       for (const w of [...loaded.warnings, ...r.warnings]) if (w.severity !== 'info') io.err(`warning: ${w.message}`);
       const diff = measured ? compareResponses(r, measured) : undefined;

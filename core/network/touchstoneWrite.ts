@@ -4,6 +4,9 @@
  * one record per frequency; 1-port "f S11"; 2-port "f S11 S21 S12 S22" on one line (the historic order);
  * 3 or more ports one matrix row per line, at most four pairs per line, the frequency only at the start.
  * Numbers are written with the shortest text that reads back to the same double.
+ * Version 2.0 ("Touchstone File Format Specification, Version 2.0", IBIS Open Forum, 2009) is offered for ports
+ * with different references: [Version] 2.0, [Number of Ports], [Two-Port Data Order] 21_12 (the v1 row layout,
+ * valid in 2.0), [Number of Frequencies], [Reference] per port, [Network Data] … [End]; no renormalisation needed.
  */
 import { InputError } from '../util/errors.ts';
 import { renormalize } from './conversions.ts';
@@ -26,7 +29,11 @@ export interface TouchstoneWriteOptions {
   design?: string;
   /** Further comment lines (without the leading '!'). */
   comments?: string[];
+  /** '1.1' (default, the widest support) or '2.0' (keeps per-port references). */
+  version?: '1.1' | '2.0';
 }
+
+const ASCII: Record<string, string> = { 'Ω': 'ohm', 'µ': 'u', '°': 'deg', '→': '->', '–': '-', '—': '-', '×': 'x' };
 
 const num = (x: number): string => (Object.is(x, -0) ? '0' : String(x));
 
@@ -38,21 +45,35 @@ export function writeTouchstone(r: NetworkResponse, opts: TouchstoneWriteOptions
   if (P < 1) throw new InputError('out-of-range', 'ports', 'at least one port', '0');
   const refs = r.ports.map((p) => p.zRef);
   const same = refs.every((z) => z === refs[0]);
-  const zRef = opts.zRef ?? (same ? refs[0] : NaN);
+  const v2 = opts.version === '2.0';
+  if (opts.version !== undefined && opts.version !== '1.1' && !v2) throw new InputError('bad-choice', 'version', "'1.1' or '2.0'", String(opts.version));
+  // Version 2.0 keeps each port's own reference unless one is asked for.
+  const zRef = opts.zRef ?? (same || v2 ? refs[0] : NaN);
   if (!(zRef > 0) || !Number.isFinite(zRef)) {
     throw new InputError('out-of-range', 'zRef', 'one reference impedance > 0 Ω for the file (Touchstone 1.1 has a single R)',
       opts.zRef === undefined ? `ports with different references (${refs.join(', ')} Ω)` : String(opts.zRef), 'choose the reference to renormalise to');
   }
-  const renorm = !refs.every((z) => z === zRef);
-  // Touchstone files are ASCII: other characters in names become '?'.
-  const clean = (t: string) => t.replace(/[\r\n]+/g, ' ').replace(/[^\x20-\x7e]/g, '?');
+  const renorm = v2 ? opts.zRef !== undefined && !refs.every((z) => z === zRef) : !refs.every((z) => z === zRef);
+  const fileRefs = v2 && opts.zRef === undefined ? refs : refs.map(() => zRef);
+  // Touchstone files are ASCII: common symbols are spelt out, anything else becomes '?'.
+  const clean = (t: string) => t.replace(/[\r\n]+/g, ' ').replace(/[Ωµ°→–—×]/g, (c) => ASCII[c] ?? '?').replace(/[^\x20-\x7e]/g, '?');
   const lines: string[] = [];
   lines.push(`! ${clean(opts.app ?? 'stripwright')} - S-parameters, ${P} port${P > 1 ? 's' : ''}`);
   if (opts.design) lines.push(`! design: ${clean(opts.design)}`);
   lines.push(`! ports: ${r.ports.map((p, i) => `${i + 1}=${clean(p.name)}`).join(' ')}`);
-  lines.push(`! power-wave S-parameters, real reference ${num(zRef)} ohm on every port${renorm ? ` (renormalised from ${refs.join(', ')} ohm)` : ''}`);
+  lines.push(fileRefs.every((z) => z === fileRefs[0])
+    ? `! power-wave S-parameters, real reference ${num(zRef)} ohm on every port${renorm ? ` (renormalised from ${refs.join(', ')} ohm)` : ''}`
+    : `! power-wave S-parameters, real references per port: ${fileRefs.map(num).join(', ')} ohm`);
   for (const c of opts.comments ?? []) lines.push(`! ${clean(c)}`);
+  if (v2) lines.push('[Version] 2.0');
   lines.push(`# ${UNIT_TEXT[unit]} S ${format.toUpperCase()} R ${num(zRef)}`);
+  if (v2) {
+    lines.push(`[Number of Ports] ${P}`);
+    if (P === 2) lines.push('[Two-Port Data Order] 21_12');
+    lines.push(`[Number of Frequencies] ${r.freqs.length}`);
+    lines.push(`[Reference] ${fileRefs.map(num).join(' ')}`);
+    lines.push('[Network Data]');
+  }
   const pair = (re: number, im: number): string => {
     if (format === 'ri') return `${num(re)} ${num(im)}`;
     const m = Math.hypot(re, im), a = (Math.atan2(im, re) * 180) / Math.PI;
@@ -62,7 +83,7 @@ export function writeTouchstone(r: NetworkResponse, opts: TouchstoneWriteOptions
   };
   const scale = UNIT_SCALE[unit];
   for (let k = 0; k < r.freqs.length; k++) {
-    const m = renorm ? renormalize(matrixAt(r, k), P, refs, zRef) : matrixAt(r, k);
+    const m = renorm ? renormalize(matrixAt(r, k), P, refs, fileRefs) : matrixAt(r, k);
     const at = (i: number, j: number) => pair(m[2 * (i * P + j)], m[2 * (i * P + j) + 1]);
     const f = num(r.freqs[k] / scale);
     if (P === 1) lines.push(`${f} ${at(0, 0)}`);
@@ -77,6 +98,7 @@ export function writeTouchstone(r: NetworkResponse, opts: TouchstoneWriteOptions
       }
     }
   }
+  if (v2) lines.push('[End]');
   return lines.join('\n') + '\n';
 }
 

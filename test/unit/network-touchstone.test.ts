@@ -3,7 +3,7 @@
  * IBIS Open Forum 2009; methods.md §8.4, formats.md §5.1). Hand-written files; values worked by hand.
  */
 import { describe, expect, it } from 'vitest';
-import { readTouchstone, writeTouchstone, solveNetwork, idealLine, temLengthForDegrees, sAt, type NetworkResponse } from '../../core/network/index.ts';
+import { readTouchstone, writeTouchstone, solveNetwork, idealLine, temLengthForDegrees, sAt, renormalize, type NetworkResponse } from '../../core/network/index.ts';
 import { InputError } from '../../core/util/errors.ts';
 
 const err = (fn: () => unknown): InputError => {
@@ -117,9 +117,9 @@ describe('writing version 1.1', () => {
     for (let t = 0; t < direct.s.length; t++) expect(back.s[t]).toBeCloseTo(direct.s[t], 13);
   });
   it('the header names the app, design and ports in "!" comments, ASCII only', () => {
-    const text = writeTouchstone(r, { zRef: 50, app: 'stripwright 0.1.0', design: 'Feed µ-strip' });
+    const text = writeTouchstone(r, { zRef: 50, app: 'stripwright 0.1.0', design: 'Feed µ-strip ✓' });
     expect(text.split('\n')[0]).toMatch(/^! stripwright 0\.1\.0/);
-    expect(text).toMatch(/^! design: Feed \?-strip$/m);
+    expect(text).toMatch(/^! design: Feed u-strip \?$/m);
     expect(/^[\x20-\x7e\n]*$/.test(text)).toBe(true);
   });
   it('5 ports: at most four pairs per line, each row on a new line, frequency only at the start', () => {
@@ -131,5 +131,27 @@ describe('writing version 1.1', () => {
     expect(lines[1].trim().split(/\s+/).length).toBe(2);
     const back = readTouchstone(writeTouchstone(five), { fileName: 'x.s5p' });
     expect(Array.from(back.s)).toEqual(Array.from(s));
+  });
+});
+
+describe('writing version 2.0 (per-port references kept)', () => {
+  const q = temLengthForDegrees(90, 1e9);
+  const net = { elements: [{ kind: 'line' as const, id: 't', a: 'a', b: 'b', length: q, model: idealLine(70.71) }], ports: [{ name: 'in', node: 'a', zRef: 50 }, { name: 'out', node: 'b', zRef: 100 }] };
+  const r = solveNetwork(net, [0.9e9, 1e9, 1.1e9]);
+  it('keywords in the order of the 2.0 specification, [Reference] per port, no renormalisation', () => {
+    const text = writeTouchstone(r, { version: '2.0' });
+    const keys = text.split('\n').filter((l) => /^\[|^#/.test(l));
+    expect(keys).toEqual(['[Version] 2.0', '# GHz S RI R 50', '[Number of Ports] 2', '[Two-Port Data Order] 21_12', '[Number of Frequencies] 3', '[Reference] 50 100', '[Network Data]', '[End]']);
+    const back = readTouchstone(text);
+    expect(back.ports.map((p) => p.zRef)).toEqual([50, 100]);
+    expect(Array.from(back.s)).toEqual(Array.from(r.s));
+  });
+  it('its data renormalised to 50 Ω equal the version 1.1 export at R 50', () => {
+    const v2 = readTouchstone(writeTouchstone(r, { version: '2.0' }));
+    const v1 = readTouchstone(writeTouchstone(r, { zRef: 50 }), { fileName: 'x.s2p' });
+    for (let k = 0; k < 3; k++) {
+      const m = renormalize(v2.s.subarray(8 * k, 8 * k + 8), 2, [50, 100], 50);
+      for (let t = 0; t < 8; t++) expect(m[t]).toBeCloseTo(v1.s[8 * k + t], 14);
+    }
   });
 });
