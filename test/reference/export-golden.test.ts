@@ -58,6 +58,23 @@ describe('export golden files', () => {
     }
   });
 
+  it('every plated hole of every source lands on top copper, reading both files back (formats.md §3.3 cross-check)', async () => {
+    for (const name of readdirSync(DIR).filter((n) => n.endsWith('-plated.drl'))) {
+      const hits = lintExcellon(readFileSync(join(DIR, name), 'utf8')).facts.hits;
+      expect(hits.length, name).toBeGreaterThan(0);
+      const copper = await readBack(readFileSync(join(DIR, name.replace('-plated.drl', '-copper-top.gbr')), 'utf8'));
+      for (const h of hits) {
+        // The last fill containing the point decides: dark = copper there, clear = a hole in the copper.
+        let dark = true, state = false;
+        for (const o of copper.objects) {
+          if (o.type === 'polarity') dark = o.polarity === 'dark';
+          if (o.type === 'fill' && inside(h, (o.path as { start: number[] }[]).map((seg) => seg.start))) state = dark;
+        }
+        expect(state, `${name}: hole at (${h.x}, ${h.y}) mm is not on copper`).toBe(true);
+      }
+    }
+  });
+
   it('the rendered copper of every source matches its geometry within 0.5 %', async () => {
     for (const s of sources) {
       const want = (regionsArea(s.geometry.copper) + regionsArea(s.geometry.groundCopper)) * 1e6;
@@ -67,3 +84,13 @@ describe('export golden files', () => {
     }
   });
 });
+
+/** Point in polygon by ray casting (even-odd). */
+function inside(p: { x: number; y: number }, poly: number[][]): boolean {
+  let c = false;
+  for (let i = 0, j = poly.length - 1; i < poly.length; j = i++) {
+    const [xi, yi] = poly[i], [xj, yj] = poly[j];
+    if ((yi > p.y) !== (yj > p.y) && p.x < ((xj - xi) * (p.y - yi)) / (yj - yi) + xi) c = !c;
+  }
+  return c;
+}
