@@ -65,6 +65,8 @@ export interface AtomicWriteOptions {
   fs?: FsOps;
   /** Windows: rename over a file held by an indexer or antivirus fails with EPERM/EACCES/EBUSY for a moment. */
   renameRetries?: number;
+  /** The platform whose rules apply (tests); default process.platform. */
+  platform?: NodeJS.Platform;
 }
 
 export interface AtomicWriteResult { path: string; backupPath: string | null; bytes: number }
@@ -73,21 +75,21 @@ export const backupPathOf = (path: string): string => `${path}.bak`;
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-async function renameWithRetry(fs: FsOps, from: string, to: string, retries: number): Promise<void> {
+async function renameWithRetry(fs: FsOps, from: string, to: string, retries: number, platform: NodeJS.Platform): Promise<void> {
   for (let attempt = 0; ; attempt++) {
     try {
       return await fs.rename(from, to);
     } catch (err) {
       const code = (err as NodeJS.ErrnoException).code;
-      const transient = process.platform === 'win32' && (code === 'EPERM' || code === 'EACCES' || code === 'EBUSY');
+      const transient = platform === 'win32' && (code === 'EPERM' || code === 'EACCES' || code === 'EBUSY');
       if (!transient || attempt >= retries) throw err;
       await sleep(Math.min(50 * 2 ** attempt, 1000));
     }
   }
 }
 
-async function syncFolder(fs: FsOps, folder: string): Promise<void> {
-  if (process.platform === 'win32') return; // folders cannot be opened for fsync there
+async function syncFolder(fs: FsOps, folder: string, platform: NodeJS.Platform): Promise<void> {
+  if (platform === 'win32') return; // folders cannot be opened for fsync there
   const fd = await fs.open(folder, 'r');
   try {
     await fd.sync();
@@ -101,6 +103,7 @@ async function syncFolder(fs: FsOps, folder: string): Promise<void> {
 
 export async function atomicWriteFile(givenPath: string, data: string | Uint8Array, options: AtomicWriteOptions = {}): Promise<AtomicWriteResult> {
   const fs = options.fs ?? realFs;
+  const platform = options.platform ?? process.platform;
   // Save through a symlink to the file it points at: renaming over the link itself would replace it with a copy.
   const path = await nodeFs.realpath(givenPath).catch(() => givenPath);
   const folder = dirname(path);
@@ -139,14 +142,14 @@ export async function atomicWriteFile(givenPath: string, data: string | Uint8Arr
         const bfd = await fs.open(bakTemp, 'r+');
         try { await bfd.sync(); } finally { await bfd.close(); }
       }
-      await renameWithRetry(fs, bakTemp, backupPath, options.renameRetries ?? 8);
+      await renameWithRetry(fs, bakTemp, backupPath, options.renameRetries ?? 8, platform);
       bakTemp = null;
     }
     step = 'replace';
-    await renameWithRetry(fs, temp, path, options.renameRetries ?? 8);
+    await renameWithRetry(fs, temp, path, options.renameRetries ?? 8, platform);
     tempExists = false;
     step = 'sync-folder';
-    await syncFolder(fs, folder);
+    await syncFolder(fs, folder, platform);
     return { path, backupPath, bytes: bytes.length };
   } catch (err) {
     if (tempExists) await fs.unlink(temp).catch(() => {});

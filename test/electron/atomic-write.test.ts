@@ -96,6 +96,26 @@ describe('atomicWriteFile', () => {
     expect(readFileSync(`${p}.bak`, 'utf8')).toBe('old');
   });
 
+  // graceful-fs's rename retry on Windows (isaacs/node-graceful-fs PR #97, cited in reliability.md §2.2): a file held
+  // for a moment by an antivirus or indexer fails with EBUSY/EPERM; a bounded retry gets through.
+  it('retries a briefly locked rename on Windows, and gives up after the bound with the original intact', async () => {
+    const p = join(dir, 'w.stripwright');
+    writeFileSync(p, 'old');
+    const real: FsOps = { open: fs.open, rename: fs.rename, link: fs.link, copyFile: fs.copyFile, unlink: fs.unlink, stat: fs.stat };
+    let failures = 2;
+    const flaky = (async (a: string, b: string) => { if (b === p && failures-- > 0) throw Object.assign(new Error('busy'), { code: 'EBUSY' }); return real.rename(a, b); }) as FsOps['rename'];
+    await atomicWriteFile(p, 'new', { fs: { ...real, rename: flaky }, platform: 'win32' });
+    expect(readFileSync(p, 'utf8')).toBe('new');
+    const locked = (async (a: string, b: string) => { if (b === p) throw Object.assign(new Error('busy'), { code: 'EBUSY' }); return real.rename(a, b); }) as FsOps['rename'];
+    const err = await atomicWriteFile(p, 'newer', { fs: { ...real, rename: locked }, platform: 'win32', renameRetries: 3 }).catch((e: unknown) => e);
+    expect((err as AtomicWriteError).message).toMatch(/locked by another program/);
+    expect(readFileSync(p, 'utf8')).toBe('new');
+    expect(strays()).toEqual([]);
+    // Elsewhere EBUSY is not transient: no retry.
+    failures = 1;
+    await expect(atomicWriteFile(p, 'x', { fs: { ...real, rename: flaky }, platform: 'linux' })).rejects.toBeInstanceOf(AtomicWriteError);
+  });
+
   it('explains a full disk in words a user can act on', async () => {
     const p = join(dir, 'e.stripwright');
     const real: FsOps = { open: fs.open, rename: fs.rename, link: fs.link, copyFile: fs.copyFile, unlink: fs.unlink, stat: fs.stat };
