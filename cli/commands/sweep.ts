@@ -4,7 +4,7 @@
  * A Touchstone file given instead of a design is read and summarised the same way (to look at a measured board).
  */
 import { parseArgs } from 'node:util';
-import { closeSync, existsSync, fsyncSync, openSync, readFileSync, renameSync, unlinkSync, writeSync } from 'node:fs';
+import { closeSync, existsSync, fsyncSync, openSync, readFileSync, renameSync, statSync, unlinkSync, writeSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import {
   InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepNetwork,
@@ -101,21 +101,15 @@ export const sweepCommand: CliCommand = {
       if (/\.s\d+p$/i.test(file)) throw new UsageError('--compare goes with a design file; to compare two Touchstone files, sweep the design against each');
       if (values.points !== undefined || values.log) throw new UsageError('--compare sweeps at the frequencies of the compared file; leave out --points and --log');
       const cf = resolve(io.cwd, values.compare);
-      let ctext: string;
-      try { ctext = readFileSync(cf, 'utf8'); } catch (e) {
-        io.err(`stripwright sweep: cannot read ${values.compare}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
-        return 1;
-      }
+      const ctext = readInput(cf, values.compare, io);
+      if (ctext === null) return 1;
       try { measured = loadTouchstone(ctext, cf, { from, to }).response as TouchstoneData; } catch (e) {
         if (e instanceof InputError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
         throw e;
       }
     }
-    let text: string;
-    try { text = readFileSync(file, 'utf8'); } catch (e) {
-      io.err(`stripwright sweep: cannot read ${positionals[0]}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
-      return 1;
-    }
+    const text = readInput(file, positionals[0], io);
+    if (text === null) return 1;
     try {
       const loaded = /\.s\d+p$/i.test(file)
         ? loadTouchstone(text, file, { from, to, points, log: values.log })
@@ -305,6 +299,25 @@ function comparisonTable(r: NetworkResponse, d: ResponseDifference, file: string
   }
   if (shown.length < d.entries.length) lines.push(`  (the ${shown.length} largest of ${d.entries.length}; use --json for all)`);
   return lines.join('\n');
+}
+
+/** Largest input file read (a 1001-point 65-port Touchstone file is about 200 MB in RI at full precision). */
+const MAX_INPUT_BYTES = 512 * 1024 * 1024;
+
+/** Reads a text file after checking its size, or reports why not and returns null. */
+function readInput(path: string, shown: string, io: CliIo): string | null {
+  try {
+    const size = statSync(path).size;
+    if (size > MAX_INPUT_BYTES) {
+      io.err(`stripwright sweep: ${shown} is ${(size / 2 ** 20).toFixed(0)} MB; files above ${MAX_INPUT_BYTES / 2 ** 20} MB are not read (is it the right file?)`);
+      return null;
+    }
+    return readFileSync(path, 'utf8');
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    io.err(`stripwright sweep: cannot read ${shown}: ${code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : (e as Error).message}`);
+    return null;
+  }
 }
 
 class WriteError extends Error {}

@@ -35,13 +35,16 @@ export interface TouchstoneReadOptions {
 interface Tok { v: number; line: number; first: boolean }
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+/** Port count accepted from a file (a feed of 1024 outputs has 1025 ports). */
+export const MAX_PORTS = 4097;
 
 export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): TouchstoneData {
   const name = opts.fileName ?? 'touchstone';
   const bad = (line: number, expected: string, got: string, hint?: string) =>
     new InputError('bad-file', line > 0 ? `${name}:${line}` : name, expected, got, hint);
   if (typeof text !== 'string' || text.trim() === '') throw bad(0, 'Touchstone text (an option line and data)', 'an empty file');
-  const lines = text.split(/\r\n|\r|\n/);
+  // A UTF-8 byte-order mark is harmless; anything else outside ASCII is reported with its line below.
+  const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\r|\n/);
   const comments: string[] = [];
   const warnings: Warning[] = [];
   let version: '1' | '2.0' = '1';
@@ -138,7 +141,9 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
 
   function parseNum(t: string, ln: number): number {
     if (!NUMBER.test(t)) throw bad(ln, 'a number', JSON.stringify(t));
-    return Number(t);
+    const v = Number(t);
+    if (!Number.isFinite(v)) throw bad(ln, 'a finite number', JSON.stringify(t));
+    return v;
   }
 
   // Port count.
@@ -154,6 +159,7 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
     else N = inferPorts(toks);
     if (!Number.isInteger(N) || N < 1) throw bad(0, 'a port count of 1 or more (from the .sNp extension)', String(N));
   }
+  if (N > MAX_PORTS) throw bad(0, `at most ${MAX_PORTS} ports`, String(N));
   const perMatrix = matrix === 'full' ? N * N : (N * (N + 1)) / 2;
   const perRecord = 1 + 2 * perMatrix;
 

@@ -3,6 +3,7 @@
  * IBIS Open Forum 2009; methods.md §8.4, formats.md §5.1). Hand-written files; values worked by hand.
  */
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { readTouchstone, writeTouchstone, solveNetwork, idealLine, temLengthForDegrees, sAt, renormalize, type NetworkResponse } from '../../core/network/index.ts';
 import { InputError } from '../../core/util/errors.ts';
 
@@ -153,5 +154,39 @@ describe('writing version 2.0 (per-port references kept)', () => {
       const m = renormalize(v2.s.subarray(8 * k, 8 * k + 8), 2, [50, 100], 50);
       for (let t = 0; t < 8; t++) expect(m[t]).toBeCloseTo(v1.s[8 * k + t], 14);
     }
+  });
+});
+
+describe('hostile and damaged files (reliability.md §3.5 catalogue)', () => {
+  const good = writeTouchstone(solveNetwork({ elements: [{ kind: 'line', id: 't', a: 'a', b: 'b', length: 0.05, model: idealLine(60, 2) }, { kind: 'capacitor', id: 'c', a: 'b', b: 'gnd', value: 1e-12 }], ports: [{ name: '1', node: 'a', zRef: 50 }, { name: '2', node: 'b', zRef: 50 }] }, [1e9, 1.5e9, 2e9, 2.5e9]));
+  const check = (text: string) => {
+    try {
+      const d = readTouchstone(text, { fileName: 'x.s2p' });
+      for (const v of d.s) expect(Number.isFinite(v)).toBe(true);
+      for (const f of d.freqs) expect(Number.isFinite(f)).toBe(true);
+    } catch (e) {
+      expect(e).toBeInstanceOf(InputError);
+      expect((e as InputError).code).toBe('bad-file');
+    }
+  };
+  it('a byte-order mark is accepted', () => {
+    expect(readTouchstone('\uFEFF' + good, { fileName: 'x.s2p' }).freqs.length).toBe(4);
+  });
+  it('1e309 (overflows to Infinity), NUL bytes and UTF-16 text are refused with their line', () => {
+    expect(err(() => readTouchstone('# GHz S RI R 50\n1 1e309 0\n', { fileName: 'x.s1p' })).message).toMatch(/x\.s1p:2: expected a finite number/);
+    expect(err(() => readTouchstone('# GHz S RI R 50\n1 0\u0000 0\n', { fileName: 'x.s1p' })).message).toMatch(/x\.s1p:2: expected ASCII/);
+    const utf16 = Array.from('# GHz S RI R 50\n1 0 0\n').map((c) => c + '\u0000').join('');
+    expect(err(() => readTouchstone(utf16, { fileName: 'x.s1p' })).code).toBe('bad-file');
+  });
+  it('truncated at every 10 % of its length: data or a bad-file error, never anything else', () => {
+    for (let p = 0; p <= 10; p++) check(good.slice(0, Math.floor((good.length * p) / 10)));
+  });
+  it('random damage (fast-check, seeded): data or a bad-file error, never NaN or a crash', () => {
+    fc.assert(fc.property(fc.nat(good.length), fc.string({ maxLength: 6 }), fc.nat(8), (at, insert, cut) => {
+      check(good.slice(0, at) + insert + good.slice(at + cut));
+    }), { seed: 4242, numRuns: 500 });
+  });
+  it('a huge port count is refused before allocating', () => {
+    expect(err(() => readTouchstone('[Version] 2.0\n# GHz S RI\n[Number of Ports] 100000\n[Number of Frequencies] 1\n[Network Data]\n1 0 0\n[End]\n')).message).toMatch(/at most 4097 ports/);
   });
 });
