@@ -85,6 +85,90 @@ function boxOfRegions(rs: Region[]): Box {
 }
 const boxesMeet = (a: Box, b: Box, m = 0) => a.minX - m <= b.maxX && b.minX - m <= a.maxX && a.minY - m <= b.maxY && b.minY - m <= a.maxY;
 
+/**
+ * Uniform grid over bounding boxes, so neighbour queries stay near-linear on big feeds. The cell is a few times the
+ * typical (median) piece size; long pieces are entered in every cell they cover.
+ */
+class BoxGrid<T> {
+  private cells = new Map<string, T[]>();
+  constructor(private cell: number) {}
+  private range(b: Box): [number, number, number, number] {
+    const c = this.cell;
+    return [Math.floor(b.minX / c), Math.floor(b.maxX / c), Math.floor(b.minY / c), Math.floor(b.maxY / c)];
+  }
+  insert(b: Box, item: T): void {
+    const [x0, x1, y0, y1] = this.range(b);
+    for (let gx = x0; gx <= x1; gx++) for (let gy = y0; gy <= y1; gy++) {
+      const k = `${gx},${gy}`;
+      const l = this.cells.get(k); if (l) l.push(item); else this.cells.set(k, [item]);
+    }
+  }
+  query(b: Box): Set<T> {
+    const out = new Set<T>();
+    const [x0, x1, y0, y1] = this.range(b);
+    for (let gx = x0; gx <= x1; gx++) for (let gy = y0; gy <= y1; gy++) for (const it of this.cells.get(`${gx},${gy}`) ?? []) out.add(it);
+    return out;
+  }
+  static cellFor(boxes: Box[]): number {
+    if (!boxes.length) return 1e-3;
+    const spans = boxes.map((b) => Math.max(b.maxX - b.minX, b.maxY - b.minY)).sort((a, b) => a - b);
+    return Math.max(4 * spans[Math.floor(spans.length / 2)]!, 1e-4);
+  }
+}
+
+/**
+ * What a round tool of radius r cannot remove: closing(copper) − copper, with closing = dilate by r then erode by r
+ * (round joins). Done in tiles built from the per-piece outlines, because the engine's erosion of one huge outline is
+ * far slower than many small ones; a point's result depends only on copper within 2r, so each tile works on a window
+ * 2r + 10 µm larger than the part it keeps. Slivers thinner than 1 µm (grid noise along long edges) are dropped.
+ */
+export function untoolableCopper(geometry: BoardGeometry, r: number, opts: { tile?: number } = {}): Region[] {
+  const items = geometry.pieces.flatMap((p) => p.regions.map((reg) => ({ reg, box: boxOfRegions([reg]) })));
+  if (!items.length || !(r > 0)) return [];
+  const cell = BoxGrid.cellFor(items.map((i) => i.box));
+  const grid = new BoxGrid<number>(cell);
+  items.forEach((it, i) => grid.insert(it.box, i));
+  const e = geometry.extent;
+  const vertices = geometry.copper.reduce((n, c) => n + c.outer.length + c.holes.reduce((k, h) => k + h.length, 0), 0);
+  // Small boards in one window; big ones in tiles of about 64 outlines each.
+  const areaExt = Math.max(1e-12, (e.maxX - e.minX) * (e.maxY - e.minY));
+  const T = opts.tile !== undefined ? Math.max(opts.tile, 4 * r) : vertices < 4000 ? Math.max(e.maxX - e.minX, e.maxY - e.minY) + 1e-3 : Math.max(cell, 20 * r, Math.sqrt((areaExt * 64) / items.length));
+  const m = 2 * r + 10e-6;
+  const out: Region[] = [];
+  for (let x0 = Math.floor(e.minX / T) * T; x0 < e.maxX; x0 += T) {
+    for (let y0 = Math.floor(e.minY / T) * T; y0 < e.maxY; y0 += T) {
+      const win: Box = { minX: x0 - m, minY: y0 - m, maxX: x0 + T + m, maxY: y0 + T + m };
+      const hits = [...grid.query(win)];
+      if (!hits.length) continue;
+      const winR: Region = { outer: [{ x: win.minX, y: win.minY }, { x: win.maxX, y: win.minY }, { x: win.maxX, y: win.maxY }, { x: win.minX, y: win.maxY }], holes: [] };
+      const local = intersectRegions(unionRegions(hits.map((i) => items[i]!.reg)), [winR]);
+      if (!local.length) continue;
+      const closed = offsetRegions(offsetRegions(local, r, 'round'), -r, 'round');
+      const left = differenceRegions(closed, local);
+      if (!left.length) continue;
+      const core: Region = { outer: [{ x: x0, y: y0 }, { x: x0 + T, y: y0 }, { x: x0 + T, y: y0 + T }, { x: x0, y: y0 + T }], holes: [] };
+      for (const reg of intersectRegions(left, [core])) {
+        const a = Math.abs(ringArea(reg.outer));
+        if (a <= MIN_AREA) continue;
+        let per = 0;
+        for (let i = 0; i < reg.outer.length; i++) { const p = reg.outer[i]!, q = reg.outer[(i + 1) % reg.outer.length]!; per += Math.hypot(q.x - p.x, q.y - p.y); }
+        if (a / (per / 2) < 1e-6) continue;
+        out.push(reg);
+      }
+    }
+  }
+  return out;
+}
+
+function centreBox(sized: SizedDesign, p: SizedPiece, grow: number): Box | null {
+  const c = sized.centrelines[p.id];
+  if (!c || c.length < 2) return null;
+  return {
+    minX: Math.min(c[0]!.x, c[1]!.x) - grow, maxX: Math.max(c[0]!.x, c[1]!.x) + grow,
+    minY: Math.min(c[0]!.y, c[1]!.y) - grow, maxY: Math.max(c[0]!.y, c[1]!.y) + grow,
+  };
+}
+
 function centroid(r: Region): Vec2 {
   let cx = 0, cy = 0, a = 0;
   const ring = r.outer;
@@ -104,6 +188,8 @@ function distToSegment(p: Vec2, a: Vec2, b: Vec2): number {
   return Math.hypot(p.x - a.x - t * dx, p.y - a.y - t * dy);
 }
 const mmS = (m: number) => (m * 1e3).toFixed(3);
+/** A readable list: the first 12 names, then how many more. */
+const listOf = (names: string[]) => names.slice(0, 12).join(', ') + (names.length > 12 ? ` and ${names.length - 12} more` : '');
 const at = (p: Vec2) => `(${mmS(p.x)}, ${mmS(p.y)}) mm`;
 
 /**
@@ -156,24 +242,33 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
   }
   if (geometry.copper.length) {
     const r = cut / 2;
-    const closed = offsetRegions(offsetRegions(geometry.copper, r, 'round'), -r, 'round');
-    const left = differenceRegions(closed, geometry.copper).filter((x) => Math.abs(ringArea(x.outer)) > MIN_AREA);
+    const left = untoolableCopper(geometry, r);
     const corners = new Map<string, { n: number; at: Vec2 }>();
+    const gapPairs = new Set<string>();
+    const candidates = lines.concat(sized.pieces.filter((p) => p.kind === 'lumped' || p.kind === 'sparams'));
+    const wMax = Math.max(0, ...candidates.map((p) => Math.max(p.width, p.widthB ?? 0, p.part?.footprint.padAcross ?? 0)));
+    const boxes = candidates.map((p) => centreBox(sized, p, wMax));
+    const grid = new BoxGrid<SizedPiece>(BoxGrid.cellFor(boxes.filter((b): b is Box => !!b)));
+    candidates.forEach((p, i) => { const b = boxes[i]; if (b) grid.insert(b, p); });
     for (const reg of left) {
       const c = centroid(reg);
-      // The two nearest pieces (by centreline distance minus half width).
-      const near = lines.concat(sized.pieces.filter((p) => p.kind === 'lumped' || p.kind === 'sparams'))
+      // The two nearest pieces (by centreline distance minus half width) among those whose box reaches here.
+      const near = [...grid.query({ minX: c.x - cut, maxX: c.x + cut, minY: c.y - cut, maxY: c.y + cut })]
         .map((p) => ({ p, d: centrelineDistance(sized, p, c) - p.width / 2 }))
         .filter((x) => Number.isFinite(x.d)).sort((a, b) => a.d - b.d).slice(0, 2);
       if (near.length < 2) continue;
       const [a, b] = [near[0]!.p, near[1]!.p];
       const shared = [a.a, a.b].find((n) => n === b.a || n === b.b);
-      if (shared === undefined && near[1]!.d < cut) {
+      const pairKey = a.id < b.id ? `${a.id}|${b.id}` : `${b.id}|${a.id}`;
+      if (shared === undefined && near[1]!.d < cut && !gapPairs.has(pairKey)) {
+        gapPairs.add(pairKey);
         out.push({
           severity: 'error', code: 'min-gap', subjects: [a.id, b.id], at: c,
           message: `the gap between ${a.id} and ${b.id} near ${at(c)} is narrower than ${procName} can cut (${mmS(cut)} mm); the copper would stay and join them`,
           fix: `move them at least ${mmS(cut)} mm apart (better 3·W to limit coupling) or use a finer tool`,
         });
+      } else if (shared === undefined && near[1]!.d < cut) {
+        // already reported for this pair
       } else if (proc.kind !== 'etch') {
         const key = shared ?? a.id;
         const e = corners.get(key);
@@ -182,11 +277,10 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     }
     if (corners.size) {
       const list = [...corners.entries()];
-      const total = list.reduce((s, [, e]) => s + e.n, 0);
       const names = list.slice(0, 12).map(([n]) => n).join(', ') + (list.length > 12 ? ` and ${list.length - 12} more` : '');
       out.push({
         severity: 'info', code: 'inside-corner', subjects: list.map(([n]) => n), at: list[0]![1].at,
-        message: `${total} inside corner(s) at ${names} keep a fillet of radius ${mmS(r)} mm that ${procName} cannot cut`,
+        message: `inside corners at ${names} keep fillets of radius ${mmS(r)} mm that ${procName} cannot cut`,
         fix: 'usually harmless; a smaller tool for the finishing pass makes them sharper',
       });
     }
@@ -202,14 +296,21 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     }
     if (c < 3 * h) {
       const ground = geometry.groundCopper;
-      const gBox = ground.length ? boxOfRegions(ground) : null;
-      const near: string[] = [];
-      for (const p of lines) {
-        const o = outlineById.get(p.id);
-        if (!o || !o.regions.length || !gBox) continue;
-        if (!boxesMeet(boxOfRegions(o.regions), gBox, 3 * h)) continue;
-        if (regionsArea(intersectRegions(offsetRegions(o.regions, 3 * h * 0.999, 'round'), ground)) > MIN_AREA) near.push(p.id);
+      if (!ground.length || !geometry.copper.length) continue;
+      // The copper lying within 3h of ground copper, found in one pass; then which pieces that copper belongs to.
+      const zone = intersectRegions(offsetRegions(ground, 3 * h * 0.999, 'round'), geometry.copper).filter((z) => Math.abs(ringArea(z.outer)) > MIN_AREA);
+      if (!zone.length) continue;
+      const wMax = Math.max(0, ...lines.map((p) => Math.max(p.width, p.widthB ?? 0)));
+      const boxes = lines.map((p) => centreBox(sized, p, wMax));
+      const grid = new BoxGrid<SizedPiece>(BoxGrid.cellFor(boxes.filter((b): b is Box => !!b)));
+      lines.forEach((p, i) => { const b = boxes[i]; if (b) grid.insert(b, p); });
+      const nearSet = new Set<string>();
+      for (const z of zone) for (const q of z.outer) {
+        for (const p of grid.query({ minX: q.x, maxX: q.x, minY: q.y, maxY: q.y })) {
+          if (!nearSet.has(p.id) && centrelineDistance(sized, p, q) <= Math.max(p.width, p.widthB ?? 0) / 2 + 1e-6) nearSet.add(p.id);
+        }
       }
+      const near = lines.filter((p) => nearSet.has(p.id)).map((p) => p.id);
       if (!near.length) continue;
       const ref = referenceGroundShiftPct(c / h);
       const moved = ref === null
@@ -217,7 +318,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
         : `for the one case computed in methods.md §9.4 (50 Ω on εr 3.66, h 0.508 mm, copper on both sides) this gap ratio lowers Z0 by about ${Math.abs(ref).toFixed(1)} %; for these lines it is not modelled`;
       out.push({
         severity: 'warning', code: 'ground-near', subjects: [a.id, ...near],
-        message: `ground copper ${a.id} comes ${mmS(c)} mm (${(c / h).toFixed(2)} h) from ${near.join(', ')}, closer than 3h = ${mmS(3 * h)} mm where the microstrip model holds; ${moved}`,
+        message: `ground copper ${a.id} comes ${mmS(c)} mm (${(c / h).toFixed(2)} h) from ${listOf(near)}, closer than 3h = ${mmS(3 * h)} mm where the microstrip model holds; ${moved}`,
         fix: `widen the clearance of ${a.id} to at least ${mmS(3 * h)} mm, or size these lines as grounded coplanar lines`,
       });
     }
@@ -228,7 +329,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     const off = differenceRegions(geometry.copper, [geometry.outline]);
     if (regionsArea(off) > MIN_AREA) {
       const who = geometry.pieces.filter((o) => o.regions.length && regionsArea(differenceRegions(o.regions, [geometry.outline!])) > MIN_AREA).map((o) => o.id);
-      out.push({ severity: 'error', code: 'off-board', subjects: who, message: `copper of ${who.join(', ')} lies outside the board outline (${(regionsArea(off) * 1e6).toFixed(3)} mm²)`, fix: 'enlarge the board outline or move these pieces inside it', at: centroid(off[0]!) });
+      out.push({ severity: 'error', code: 'off-board', subjects: who, message: `copper of ${listOf(who)} lies outside the board outline (${(regionsArea(off) * 1e6).toFixed(3)} mm²)`, fix: 'enlarge the board outline or move these pieces inside it', at: centroid(off[0]!) });
     }
   }
   for (const k of geometry.keepouts) {
@@ -236,7 +337,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     if (regionsArea(hit) <= MIN_AREA) continue;
     const who = geometry.pieces.filter((o) => o.regions.length && regionsArea(intersectRegions(o.regions, [k])) > MIN_AREA).map((o) => o.id);
     const area = (doc.areas ?? []).find((a) => a.kind === 'keep-out' && a.polygon.length === k.outer.length);
-    out.push({ severity: 'error', code: 'keep-out', subjects: [...(area ? [area.id] : []), ...who], message: `copper of ${who.join(', ')} lies inside keep-out ${area?.id ?? ''}`.trim(), fix: 'route these pieces around the keep-out or shrink it', at: centroid(hit[0]!) });
+    out.push({ severity: 'error', code: 'keep-out', subjects: [...(area ? [area.id] : []), ...who], message: `copper of ${listOf(who)} lies inside keep-out ${area?.id ?? ''}`.trim(), fix: 'route these pieces around the keep-out or shrink it', at: centroid(hit[0]!) });
   }
 
   // ---- overlapping pieces (not sharing a node)
@@ -248,18 +349,24 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
   try { paths = opts.paths ?? designPaths(sized); } catch { paths = []; }
   const lossy = doc.substrate.tanDelta >= 0.01;
   for (const rep of paths) {
-    for (const e of rep.paths) {
-      if (e.lossDb > limit) {
-        out.push({
-          severity: 'warning', code: 'loss-budget', subjects: [e.to, ...e.pieces],
-          message: `path ${rep.from} → ${e.to} loses ${e.lossDb.toFixed(2)} dB at f0 in its lines, above the ${limit} dB budget`,
-          fix: lossy ? `a low-loss laminate (tanδ ≈ 0.001–0.004) cuts the dielectric part, which dominates on this board (tanδ ${doc.substrate.tanDelta}); or shorten the path` : 'shorten the path or use wider (lower-loss) lines where the impedance allows',
-        });
-      }
+    const over = rep.paths.filter((e) => e.lossDb > limit);
+    if (over.length) {
+      const worst = over.reduce((a, b) => (b.lossDb > a.lossDb ? b : a));
+      out.push({
+        severity: 'warning', code: 'loss-budget', subjects: [...over.map((e) => e.to), ...worst.pieces],
+        message: over.length === 1
+          ? `path ${rep.from} → ${worst.to} loses ${worst.lossDb.toFixed(2)} dB at f0 in its lines, above the ${limit} dB budget`
+          : `${over.length} paths from ${rep.from} (to ${listOf(over.map((e) => e.to))}) lose more than the ${limit} dB budget at f0; the worst, to ${worst.to}, loses ${worst.lossDb.toFixed(2)} dB`,
+        fix: lossy ? `a low-loss laminate (tanδ ≈ 0.001–0.004) cuts the dielectric part, which dominates on this board (tanδ ${doc.substrate.tanDelta}); or shorten the paths` : 'shorten the paths or use wider (lower-loss) lines where the impedance allows',
+      });
     }
-    for (const w of rep.warnings) {
-      if (w.severity === 'info') continue;
+    const bad = rep.warnings.filter((w) => w.severity !== 'info');
+    const shown = bad.length > 8 ? bad.slice(0, 8) : bad;
+    for (const w of shown) {
       out.push({ severity: w.severity === 'error' ? 'error' : 'warning', code: 'phase', subjects: w.subjects ?? [], message: w.message, fix: 'balance the paths\' electrical lengths (same lengths, widths and bend counts)' });
+    }
+    if (bad.length > shown.length) {
+      out.push({ severity: 'warning', code: 'phase', subjects: [], message: `and ${bad.length - shown.length} more phase findings in ${rep.name}`, fix: 'see the paths report' });
     }
   }
   if (lossy && sized.f0 > 6e9) {
@@ -282,25 +389,13 @@ function centrelineDistance(sized: SizedDesign, p: SizedPiece, q: Vec2): number 
 function overlaps(sized: SizedDesign, geometry: BoardGeometry, pieceById: Map<string, SizedPiece>): Finding[] {
   const items = geometry.pieces.filter((o) => pieceById.has(o.id) && o.regions.length).map((o) => ({ o, p: pieceById.get(o.id)!, box: boxOfRegions(o.regions) }));
   if (items.length < 2) return [];
-  const span = Math.max(...items.map((i) => Math.max(i.box.maxX - i.box.minX, i.box.maxY - i.box.minY)));
-  const cell = Math.max(span, 1e-4);
-  const grid = new Map<string, number[]>();
-  items.forEach((it, idx) => {
-    for (let gx = Math.floor(it.box.minX / cell); gx <= Math.floor(it.box.maxX / cell); gx++) {
-      for (let gy = Math.floor(it.box.minY / cell); gy <= Math.floor(it.box.maxY / cell); gy++) {
-        const k = `${gx},${gy}`;
-        const l = grid.get(k); if (l) l.push(idx); else grid.set(k, [idx]);
-      }
-    }
-  });
-  const seen = new Set<string>();
+  const grid = new BoxGrid<number>(BoxGrid.cellFor(items.map((i) => i.box)));
+  items.forEach((it, idx) => grid.insert(it.box, idx));
   const out: Finding[] = [];
-  for (const list of grid.values()) {
-    for (let i = 0; i < list.length; i++) for (let j = i + 1; j < list.length; j++) {
-      const A = items[list[i]!]!, B = items[list[j]!]!;
-      const key = A.p.id < B.p.id ? `${A.p.id}|${B.p.id}` : `${B.p.id}|${A.p.id}`;
-      if (seen.has(key)) continue;
-      seen.add(key);
+  for (let i = 0; i < items.length; i++) {
+    for (const j of grid.query(items[i]!.box)) {
+      if (j <= i) continue;
+      const A = items[i]!, B = items[j]!;
       if (A.p.a === B.p.a || A.p.a === B.p.b || A.p.b === B.p.a || A.p.b === B.p.b) continue;
       if (!boxesMeet(A.box, B.box)) continue;
       const hit = intersectRegions(A.o.regions, B.o.regions);

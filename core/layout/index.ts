@@ -14,7 +14,7 @@ export { buildBoardGeometry, pieceOutlines, defaultGroundClearance, BOARD_MARGIN
 export type { PieceOutline } from './geometry.ts';
 export { tracePaths, designPaths, DEFAULT_PHASE_TOLERANCE_DEG } from './paths.ts';
 export type { PathEntry, PathReport, PathOptions } from './paths.ts';
-export { checkFabrication, cutWidth, referenceGroundShiftPct, DEFAULT_LOSS_LIMIT_DB } from './checks.ts';
+export { checkFabrication, cutWidth, referenceGroundShiftPct, untoolableCopper, DEFAULT_LOSS_LIMIT_DB } from './checks.ts';
 export type { Finding, FindingCode, CheckOptions } from './checks.ts';
 export { placeDesign } from './place.ts';
 export type { PlacedDesign } from './place.ts';

@@ -2,7 +2,11 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { initPolygons } from '../../core/geometry/polygons.ts';
 import { sizeDesign } from '../../core/layout/sizing.ts';
 import { buildBoardGeometry } from '../../core/layout/geometry.ts';
-import { checkFabrication, cutWidth, referenceGroundShiftPct } from '../../core/layout/checks.ts';
+import { checkFabrication, cutWidth, referenceGroundShiftPct, untoolableCopper } from '../../core/layout/checks.ts';
+import { regionsArea } from '../../core/geometry/polygons.ts';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { parseDesign } from '../../core/design/parse.ts';
 import type { DesignDoc } from '../../core/design/types.ts';
 import { design, port, line, wd, lenOf } from './layout-fixtures.ts';
 
@@ -49,6 +53,29 @@ describe('gaps and widths the process cannot make', () => {
     const f = run(d).filter((x) => x.code === 'overlap');
     expect(f).toHaveLength(1);
     expect(new Set(f[0]!.subjects)).toEqual(new Set(['x', 'y']));
+  });
+});
+
+describe('what a round tool cannot remove', () => {
+  it('a tee keeps two fillets of (1 − π/4)·r² each (disc closing of a right-angled inside corner)', () => {
+    const r = 0.2e-3;
+    const d = design({ process: endMill(2 * r), nodes: [port('a', -0.01, 0), { id: 'j', kind: 'junction', at: { x: 0, y: 0 } }, port('b', 0.01, 0), port('c', 0, 0.01)],
+      segments: [line('m1', 'a', 'j', wd(1e-3), lenOf(0.01)), line('m2', 'j', 'b', wd(1e-3), lenOf(0.01)), line('br', 'j', 'c', wd(1e-3), lenOf(0.01))] });
+    const g = buildBoardGeometry(sizeDesign(d));
+    const left = untoolableCopper(g, r);
+    expect(left).toHaveLength(2);
+    // Round joins are flattened to 1 µm chords: each fillet may differ by at most a 1 µm band along its quarter arc.
+    expect(Math.abs(regionsArea(left) - 2 * (1 - Math.PI / 4) * r * r)).toBeLessThan(2 * (Math.PI / 2) * r * 1e-6);
+  });
+  it('tiling gives the same leftovers as one window (the branch-line example, 0.4 mm end mill)', () => {
+    const text = readFileSync(join(import.meta.dirname, '..', '..', 'assets', 'examples', 'branchline-10g4.json'), 'utf8');
+    const r0 = parseDesign(text);
+    if (!r0.ok) throw new Error('example did not load');
+    const g = buildBoardGeometry(sizeDesign(r0.doc));
+    const whole = regionsArea(untoolableCopper(g, 0.2e-3));
+    const tiled = regionsArea(untoolableCopper(g, 0.2e-3, { tile: 2e-3 }));
+    expect(whole).toBeGreaterThan(0);
+    expect(Math.abs(tiled - whole) / whole).toBeLessThan(1e-3);
   });
 });
 
