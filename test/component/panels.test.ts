@@ -161,3 +161,22 @@ describe('command finder', () => {
     expect(closed).toBe(true);
   });
 });
+
+describe('typing in a field', () => {
+  it('gathers the keystrokes of one entry into one undo step, and Esc drops them', async () => {
+    const ed = demoEditor();
+    const start = ed.doc;
+    // The App provides the field session through context; here the editor's hooks are called as the field would.
+    ed.fieldStart();
+    for (const z0 of [7, 70, 70.7]) ed.updateSegment('feed', { width: { by: 'z0', z0 } });
+    ed.fieldEnd(true);
+    const seg = () => ed.doc.segments.find((s) => s.id === 'feed')!;
+    expect(seg().kind === 'line' && seg().width).toEqual({ by: 'z0', z0: 70.7 });
+    ed.undo();
+    expect(ed.doc).toEqual(start);
+    ed.fieldStart();
+    ed.updateSegment('feed', { width: { by: 'z0', z0: 30 } });
+    ed.fieldEnd(false);
+    expect(ed.doc).toEqual(start);
+  });
+});

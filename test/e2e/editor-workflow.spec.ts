@@ -58,13 +58,17 @@ test('draw a two-way divider, size an arm, undo and redo, read the paths', async
   const length90 = await page.getByTestId('fig-length').innerText();
   await page.getByTestId('field-z0').fill('70.7 ohm');
   await expect(page.getByTestId('fig-z0')).toContainText('70.7');
+  await page.getByTestId('field-z0').press('Enter');
   const width707 = await page.getByTestId('fig-width').innerText();
   expect(parseFloat(width707)).toBeLessThan(parseFloat(width50));
-  // A bad entry shows its error beside the field and changes nothing.
+  // A bad entry shows its error beside the field and changes nothing; Esc puts the field back as it was.
+  await page.getByTestId('field-z0').fill('75');
+  await expect(page.getByTestId('fig-z0')).toContainText('75');
   await page.getByTestId('field-z0').fill('seventy');
   await expect(page.getByTestId('field-z0-error')).toContainText('expected');
-  await expect(page.getByTestId('fig-width')).toHaveText(width707);
   await page.getByTestId('field-z0').press('Escape');
+  await expect(page.getByTestId('fig-width')).toHaveText(width707);
+  await expect(page.getByTestId('field-z0')).toHaveValue(/70\.7/);
 
   // Undo brings the 50 Ω width back, redo the 70.7 Ω one.
   await page.getByTestId('board-canvas').focus();

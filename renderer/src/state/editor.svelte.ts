@@ -93,8 +93,15 @@ export class EditorState {
   /** Runs a design command as one undo step; a refused edit shows its reason and changes nothing. */
   edit(id: string, args: unknown, label?: string): boolean {
     try {
-      this.history.apply(id, args, label ?? COMPOSITE_LABELS[id]);
-      this.history.mark();
+      if (this.field) {
+        // Typing in a field: every keystroke shows at once, and the whole entry becomes one undo step.
+        if (!this.history.isLive) this.history.beginLive(label ?? COMPOSITE_LABELS[id] ?? 'Edit');
+        this.history.apply(id, args);
+        this.field.changed = true;
+      } else {
+        this.history.apply(id, args, label ?? COMPOSITE_LABELS[id]);
+        this.history.mark();
+      }
       this.canUndo = this.history.canUndo;
       return true;
     } catch (err) {
@@ -103,8 +110,23 @@ export class EditorState {
     }
   }
 
-  undo(): void { this.tools.cancel(); if (this.history.undo()) this.status = 'Undone'; }
-  redo(): void { if (this.history.redo()) this.status = 'Redone'; }
+  /** The field being typed in, if any (see fieldStart). */
+  private field: { changed: boolean } | null = null;
+
+  /** A quantity field got the focus: its edits gather into one undo step until fieldEnd. */
+  fieldStart(): void { this.fieldEnd(true); this.field = { changed: false }; }
+
+  /** The field lost the focus (commit) or the user pressed Esc (drop what was typed). */
+  fieldEnd(commit: boolean): void {
+    if (!this.field) return;
+    this.field = null;
+    if (this.history.isLive) { if (commit) this.history.commitLive(); else this.history.cancelLive(); }
+    this.canUndo = this.history.canUndo;
+    this.canRedo = this.history.canRedo;
+  }
+
+  undo(): void { this.tools.cancel(); this.fieldEnd(true); if (this.history.undo()) this.status = 'Undone'; }
+  redo(): void { this.fieldEnd(true); if (this.history.redo()) this.status = 'Redone'; }
 
   updateSegment(id: string, spec: Record<string, unknown>): void { this.edit('segment.setSpec', { id, spec }); }
 
@@ -303,7 +325,7 @@ export class EditorState {
       isSelected: (id) => this.selection.has(id),
       select: (ids, mode) => this.select(ids, mode),
       hover: (id, at) => { this.hovered = id; this.hoverAt = at; },
-      beginMove: () => { try { this.history.beginLive('Move'); } catch { /* a drag is already live */ } },
+      beginMove: () => { this.fieldEnd(true); try { this.history.beginLive('Move'); } catch { /* a drag is already live */ } },
       moveBy: (d) => {
         try { this.history.apply('selection.translate', { ids: [...this.selection], by: d }); } catch (err) {
           this.status = err instanceof InputError ? `Cannot move there: ${err.expected}` : String(err);
