@@ -251,12 +251,16 @@ function table(l: Loaded, input: number): string {
   const lines: string[] = [];
   const spacing = F > 2 && Math.abs((r.freqs[2] - r.freqs[1]) - (r.freqs[1] - r.freqs[0])) > 1e-6 * r.freqs[1] ? 'logarithmic' : 'linear';
   lines.push(`${l.from === 'design' ? 'Design' : 'Touchstone file'} "${l.name}": ${F} point${F > 1 ? 's' : ''}, ${fq(r.freqs[0])} – ${fq(r.freqs[F - 1])}${F > 2 ? ` (${spacing})` : ''}`);
-  lines.push(`Ports: ${r.ports.map((p, i) => `${p.name} (${p.zRef} Ω)${i === input ? ' input' : ''}`).join(', ')}`);
+  const portText = r.ports.map((p, i) => `${p.name} (${p.zRef} Ω)${i === input ? ' input' : ''}`);
+  lines.push(`Ports: ${portText.length > 9 ? `${portText.slice(0, 8).join(', ')}, … and ${portText.length - 8} more` : portText.join(', ')}`);
   lines.push('S-parameters: power waves, real reference per port. Return loss and isolation are positive dB (larger is better).');
   const s = summarize(r, input);
   lines.push('', 'Worst over the band');
   lines.push('  port        return loss dB   at             VSWR');
-  for (const p of s.ports) lines.push(`  ${p.name.padEnd(10)} ${db(p.returnLoss.value)}      ${fq(p.returnLoss.freq).padEnd(13)} ${p.vswr.value >= 1e11 ? '   (≥ |Γ| = 1)' : p.vswr.value.toFixed(3).padStart(8)}`);
+  // Many ports: the input and the worst matched others.
+  const portRows = s.ports.length > 17 ? [s.ports[input], ...s.ports.filter((_, i) => i !== input).sort((a, b) => a.returnLoss.value - b.returnLoss.value).slice(0, 15)] : s.ports;
+  for (const p of portRows) lines.push(`  ${p.name.padEnd(10)} ${db(p.returnLoss.value)}      ${fq(p.returnLoss.freq).padEnd(13)} ${p.vswr.value >= 1e11 ? '   (≥ |Γ| = 1)' : p.vswr.value.toFixed(3).padStart(8)}`);
+  if (portRows.length < s.ports.length) lines.push(`  (the input and the ${portRows.length - 1} worst matched of ${s.ports.length - 1} other ports; use --json for all)`);
   if (s.paths.length) {
     lines.push(`  path from ${r.ports[input].name}   insertion loss dB (best … worst)`);
     for (const p of s.paths.slice(0, 16)) lines.push(`  → ${p.to.padEnd(10)} ${db(p.insertionLoss.best.value)} … ${db(p.insertionLoss.worst.value).trim()}`);
