@@ -6,7 +6,7 @@
  */
 import { readFile, realpath, stat } from 'node:fs/promises';
 import { extname, relative, isAbsolute } from 'node:path';
-import { CONTENT_SECURITY_POLICY } from './csp.ts';
+import { CONTENT_SECURITY_POLICY, policyFor } from './csp.ts';
 import { resolveBundlePath } from './policy.ts';
 
 const MIME: Record<string, string> = {
@@ -39,7 +39,9 @@ export function createBundleHandler(root: string): (request: Request) => Promise
       const info = await stat(fileReal);
       if (!info.isFile()) return refuse(404, 'not found');
       const body = request.method === 'HEAD' ? null : await readFile(fileReal);
-      return new Response(body, { status: 200, headers: { 'Content-Type': MIME[extname(fileReal).toLowerCase()] ?? 'application/octet-stream', ...SECURITY_HEADERS } });
+      // The compute worker's script carries its own, narrower policy (see csp.ts for why).
+      const headers = { 'Content-Type': MIME[extname(fileReal).toLowerCase()] ?? 'application/octet-stream', ...SECURITY_HEADERS, 'Content-Security-Policy': policyFor(fileReal) };
+      return new Response(body, { status: 200, headers });
     } catch {
       return refuse(404, 'not found');
     }

@@ -61,3 +61,25 @@ describe('app:// bundle handler', () => {
     expect((await get('/index.html', 'POST')).status).toBe(405);
   });
 });
+
+describe('the compute worker policy', () => {
+  it('serves worker scripts with the worker policy and everything else with the page policy', async () => {
+    const { mkdtempSync, writeFileSync, mkdirSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const { join } = await import('node:path');
+    const { CONTENT_SECURITY_POLICY, WORKER_CONTENT_SECURITY_POLICY } = await import('../../electron/csp.ts');
+    const { createBundleHandler } = await import('../../electron/protocol.ts');
+    const root = mkdtempSync(join(tmpdir(), 'sw-worker-csp-'));
+    mkdirSync(join(root, 'assets'));
+    writeFileSync(join(root, 'assets', 'compute.worker-AbC123.js'), 'self.onmessage = () => {};');
+    writeFileSync(join(root, 'assets', 'index-XyZ.js'), 'console.log(1);');
+    const handle = createBundleHandler(root);
+    const worker = await handle(new Request('app://stripwright/assets/compute.worker-AbC123.js'));
+    const page = await handle(new Request('app://stripwright/assets/index-XyZ.js'));
+    expect(worker.headers.get('Content-Security-Policy')).toBe(WORKER_CONTENT_SECURITY_POLICY);
+    expect(page.headers.get('Content-Security-Policy')).toBe(CONTENT_SECURITY_POLICY);
+    // The page policy never allows string evaluation; only the worker's does.
+    expect(CONTENT_SECURITY_POLICY).not.toMatch(/'unsafe-eval'/);
+    expect(WORKER_CONTENT_SECURITY_POLICY).toMatch(/script-src 'self' 'wasm-unsafe-eval' 'unsafe-eval'/);
+  });
+});
