@@ -13,6 +13,8 @@ import {
   type LineModel, type Netlist, type NetElement, type NetworkResponse,
 } from '../../core/network/index.ts';
 import { python } from './network-oracle.ts';
+import { lineConstants } from '../../core/line/index.ts';
+import { FR4_DEFAULT } from '../../core/design/index.ts';
 
 interface Tabled { id: string; a: string; b: string; length: number; z0: number[]; gamma: [number, number][] }
 
@@ -60,6 +62,13 @@ function solveBoth(lines: Tabled[], resistors: { id: string; a: string; b: strin
 
 const freqs = sweepFrequencies({ start: 0.5e9, stop: 6e9, points: 56 });
 
+/** Constants of a real board line from our line model (real part of Zc, as scikit-rf's line media take it). */
+function fromLineModel(id: string, a: string, b: string, width: number, length: number): Tabled {
+  const z0: number[] = [], gamma: [number, number][] = [];
+  for (const f of freqs) { const c = lineConstants(FR4_DEFAULT, width, f); z0.push(c.zc.re); gamma.push([c.gamma.re, c.gamma.im]); }
+  return { id, a, b, length, z0, gamma };
+}
+
 describe('agreement with scikit-rf 0.15.4 for the same Z0 and γ', () => {
   it('a chain of five lossy, dispersive lines of different impedance, joined by skrf cascade (**), 50 → 75 Ω ports', () => {
     const zs = [50, 31, 88, 64, 42], ls = [0.012, 0.0183, 0.0071, 0.0222, 0.0139];
@@ -84,6 +93,14 @@ describe('agreement with scikit-rf 0.15.4 for the same Z0 and γ', () => {
     compare(ours, skrf, 1e-9);
   });
 }
+});
+
+describe('agreement with scikit-rf 0.15.4 on glass-epoxy lines from the line model', () => {
+  it('a single-stub matcher (feed, open stub, line to the load) with FR-4 loss and dispersion', () => {
+    const lines = [fromLineModel('feed', 'src', 'tee', 3.0e-3, 0.02), fromLineModel('stub', 'tee', 'end', 3.0e-3, 0.0071), fromLineModel('toLoad', 'tee', 'load', 1.4e-3, 0.0253)];
+    const { ours, skrf } = solveBoth(lines, [], [{ name: 'src', node: 'src', zRef: 50 }, { name: 'load', node: 'load', zRef: 100 }], freqs, 'graph');
+    compare(ours, skrf, 1e-9);
+  });
 });
 
 describe('Touchstone written by us, read by scikit-rf 0.15.4 (formats.md §5.2)', () => {
