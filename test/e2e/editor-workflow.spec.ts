@@ -145,3 +145,31 @@ test('rename the design, ask for a phase match, and read the safety cautions', a
   await expect(page.getByTestId('confirm-dialog')).toContainText('dust');
   await expect(page.getByTestId('confirm-dialog')).toContainText('exposure');
 });
+
+test('work left unsaved is offered back after the page is closed', async ({ page }) => {
+  await page.goto('/');
+  await drawDivider(page);
+  await page.waitForTimeout(2600); // the recovery copy is written 2 s after the last edit
+  await page.reload();
+  await expect(page.getByTestId('confirm-dialog')).toContainText('Recover unsaved work?');
+  await page.getByTestId('confirm-restore').click();
+  await expect(page.getByTestId('design-name')).toHaveText('Untitled feed');
+  await expect(page.getByTestId('dirty')).toBeVisible();
+  await expect(page.locator('[data-seg]')).toHaveCount(3);
+});
+
+test('a file that is not a design is refused with the reason, and the open design stays', async ({ page }, info) => {
+  await page.goto('/');
+  await expect(page.getByTestId('design-name')).toContainText('5.8 GHz');
+  const bad = info.outputPath('notes.json');
+  const { writeFileSync } = await import('node:fs');
+  writeFileSync(bad, '{ "format": "stripwright-design", "version": 2, "name": 7 ');
+  const chooser = page.waitForEvent('filechooser');
+  await page.getByTestId('menu-file').click();
+  await page.getByTestId('menu-file.open').click();
+  await (await chooser).setFiles(bad);
+  await expect(page.getByTestId('confirm-dialog')).toContainText('is not a design this app can read');
+  await expect(page.getByTestId('confirm-dialog')).toContainText('unchanged');
+  await page.getByTestId('confirm-ok').click();
+  await expect(page.getByTestId('design-name')).toContainText('5.8 GHz');
+});
