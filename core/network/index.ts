@@ -20,3 +20,4 @@ export * from './sparamsPart.ts';
 export * from './lineTwoPort.ts';
 export { netlistFromSized, type FromSizedOptions, type SizedNetlist, type AdvisoryModel } from './fromSized.ts';
 export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';
+export { responseCacheKey } from './cacheKey.ts';

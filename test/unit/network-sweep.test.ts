@@ -62,3 +62,17 @@ describe('cache', () => {
     expect(cache.size).toBe(2);
   });
 });
+
+describe('responseCacheKey', () => {
+  it('ignores name, notes and view; follows the physics, the sweep and the solver options', async () => {
+    const { newDesign } = await import('../../core/design/index.ts');
+    const { responseCacheKey } = await import('../../core/network/index.ts');
+    const doc = newDesign({ name: 'a' });
+    const s = { start: 1e9, stop: 2e9, points: 11 };
+    const k = responseCacheKey(doc, s);
+    expect(responseCacheKey({ ...doc, name: 'b', notes: 'x', view: { units: 'mil' } }, s)).toBe(k);
+    expect(responseCacheKey({ ...doc, substrate: { ...doc.substrate, er: doc.substrate.er + 0.01 } }, s)).not.toBe(k);
+    expect(responseCacheKey(doc, { ...s, points: 12 })).not.toBe(k);
+    expect(responseCacheKey(doc, s, { advisory: ['step'] })).not.toBe(k);
+  });
+});

@@ -1,0 +1,14 @@
+/**
+ * Cache key of a design's response: everything that changes the physics (substrate, frequency, nodes, segments,
+ * process — the layout's compensations depend on it) plus the sweep settings and solver options; not the name,
+ * notes or view preferences, so renaming or zooming never recomputes a sweep.
+ */
+import type { DesignDoc } from '../design/types.ts';
+import type { FromSizedOptions } from './fromSized.ts';
+import { SweepCache, designHash, type SweepSettings } from './sweep.ts';
+
+export function responseCacheKey(doc: DesignDoc, settings: SweepSettings, opts: FromSizedOptions = {}): string {
+  const { name: _name, notes: _notes, view: _view, app: _app, ...physics } = doc;
+  void _name; void _notes; void _view; void _app;
+  return SweepCache.key(designHash(physics), settings, designHash(opts));
+}
