@@ -2,12 +2,13 @@
  * The nodal solver against scikit-rf (Debian python3-scikit-rf 0.15.4, scripts/reference/skrf_network.py):
  * the same lines — the same real Z0 and complex γ at each frequency, invented for the test — joined by the
  * library's own cascade (`**`) and innerconnect with ideal junctions. Complex S must agree to 1e-9.
- * Touchstone files we write are read back by `skrf.Network` with identical values (formats.md §5.2).
+ * Touchstone files we write are read back by `skrf.Network` with identical values (formats.md §5.2), and files
+ * scikit-rf writes (`Network.write_touchstone`, scripts/reference/skrf_write.py) are read by us to its own values.
  */
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import {
   solveNetwork, sweepFrequencies, writeTouchstone, readTouchstone, idealLine, temLengthForDegrees,
   type LineModel, type Netlist, type NetElement, type NetworkResponse,
@@ -144,6 +145,16 @@ describe('Touchstone written by us, read by scikit-rf 0.15.4 (formats.md §5.2)'
     expect(back.z0).toHaveLength(3);
     compare(r, back.s, 1e-12);
   });
+  for (const n of [1, 2, 3]) for (const form of ['ri', 'ma', 'db'] as const) {
+    it(`a ${n}-port ${form.toUpperCase()} file written by scikit-rf reads back to its own values`, () => {
+      const out = JSON.parse(python('skrf_write.py', '', [dir, `w${n}${form}`, String(n), form])) as { f: number[]; z0: number[]; s: number[][][][]; file: string };
+      const d = readTouchstone(readFileSync(out.file, 'utf8'), { fileName: basename(out.file) });
+      expect(d.ports.length).toBe(n);
+      expect(Array.from(d.freqs)).toEqual(out.f);
+      expect(d.ports.map((p) => p.zRef)).toEqual(out.z0);
+      compare(d, out.s, form === 'ri' ? 1e-15 : 1e-12);
+    });
+  }
   it('a 2-port with S21 ≠ S12 keeps them apart (the v1.1 order S11 S21 S12 S22)', () => {
     const s = Float64Array.of(0.1, 0.01, 0.3, 0.03, 0.9, -0.2, 0.2, 0.02);
     const r: NetworkResponse = { freqs: Float64Array.of(1e9), ports: [{ name: '1', zRef: 50 }, { name: '2', zRef: 50 }], s, warnings: [] };
