@@ -171,7 +171,8 @@ describe('typing in a field', () => {
     for (const z0 of [7, 70, 70.7]) ed.updateSegment('feed', { width: { by: 'z0', z0 } });
     ed.fieldEnd(true);
     const seg = () => ed.doc.segments.find((s) => s.id === 'feed')!;
-    expect(seg().kind === 'line' && seg().width).toEqual({ by: 'z0', z0: 70.7 });
+    const s = seg();
+    expect(s.kind === 'line' ? s.width : null).toEqual({ by: 'z0', z0: 70.7 });
     ed.undo();
     expect(ed.doc).toEqual(start);
     ed.fieldStart();

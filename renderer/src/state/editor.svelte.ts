@@ -11,8 +11,8 @@ import type { SubstrateSpec } from '../../../core/substrate/types.ts';
 import { InputError } from '../../../core/util/errors.ts';
 import type { Scene } from '../board/scene.ts';
 import type { Preview } from '../board/BoardController.ts';
-import { ToolMachine, type ToolHost, type ToolId, type InsertKind } from '../board/tools.ts';
-import { boxSelect } from '../board/hit.ts';
+import { ToolMachine, type ToolId } from '../board/tools.ts';
+import { createToolHost } from './toolHost.ts';
 import { boxOf } from '../board/viewport.ts';
 import { UNIT_METRES, type LengthUnit } from '../board/grid.ts';
 import { buildScene, scenePoints } from './scene.ts';
@@ -79,7 +79,7 @@ export class EditorState {
         if (kept.length !== this.selection.size) this.selection = new Set(kept);
       }
     });
-    this.tools = new ToolMachine(this.toolHost());
+    this.tools = new ToolMachine(createToolHost(this));
     this.theme = initialTheme();
   }
 
@@ -300,72 +300,6 @@ export class EditorState {
   /** App commands (menus, shortcuts, finder) are registered by the shell; the menus call them by id. */
   commandRunner: ((id: string) => void) | null = null;
   runCommand(id: string): void { this.commandRunner?.(id); }
-
-  private toolHost(): ToolHost {
-    // The board shows nodes where the layout placed them; the design keeps the drawn positions. A point the user
-    // clicks relative to a placed node is carried into the drawn frame by that node's offset.
-    const offsetOf = (nodeId: string): Vec2 => {
-      const n = this.doc.nodes.find((x) => x.id === nodeId);
-      const p = this.layout?.placed.get(nodeId);
-      return n && p ? { x: p.at.x - p.pos.x, y: p.at.y - p.pos.y } : { x: 0, y: 0 };
-    };
-    const shift = (pts: Vec2[], o: Vec2) => pts.map((p) => ({ x: p.x + o.x, y: p.y + o.y }));
-    return {
-      gridStep: () => this.gridStep,
-      nodeAt: (id) => {
-        const n = this.scene.nodes.find((x) => x.id === id);
-        return n ? { at: n.at, kind: n.kind } : null;
-      },
-      segmentEnds: (id) => {
-        const s = this.scene.segments.find((x) => x.id === id);
-        if (!s) return null;
-        const c = s.centreline;
-        return c && c.length >= 2 ? { a: c[0]!, b: c[c.length - 1]! } : { a: s.a, b: s.b };
-      },
-      isSelected: (id) => this.selection.has(id),
-      select: (ids, mode) => this.select(ids, mode),
-      hover: (id, at) => { this.hovered = id; this.hoverAt = at; },
-      beginMove: () => { this.fieldEnd(true); try { this.history.beginLive('Move'); } catch { /* a drag is already live */ } },
-      moveBy: (d) => {
-        try { this.history.apply('selection.translate', { ids: [...this.selection], by: d }); } catch (err) {
-          this.status = err instanceof InputError ? `Cannot move there: ${err.expected}` : String(err);
-        }
-      },
-      endMove: (commit) => {
-        if (commit) this.history.commitLive(); else this.history.cancelLive();
-        this.canUndo = this.history.canUndo;
-        this.canRedo = this.history.canRedo;
-      },
-      boxSelect: (box, additive) => this.select(boxSelect(this.scene, box), additive ? 'add' : 'replace'),
-      addRun: (from, points) => {
-        const before = new Set(this.doc.segments.map((s) => s.id));
-        if (this.edit('editor.route', { from, points: shift(points, offsetOf(from)) })) {
-          const made = this.doc.segments.filter((s) => !before.has(s.id)).map((s) => s.id);
-          this.selection = new Set(made.slice(-1));
-          this.status = `Routed ${made.length} line${made.length === 1 ? '' : 's'}`;
-        }
-      },
-      addTee: (segment, at, points) => {
-        const seg = this.doc.segments.find((s) => s.id === segment);
-        const o = seg ? offsetOf(seg.a) : { x: 0, y: 0 };
-        this.edit('editor.tee', { segment, at: shift([at], o)[0], points: shift(points, o) });
-      },
-      addStub: (segment, at, side, end) => {
-        const seg = this.doc.segments.find((s) => s.id === segment);
-        const o = seg ? offsetOf(seg.a) : { x: 0, y: 0 };
-        this.edit('editor.stub', { segment, at: shift([at], o)[0], side, end });
-      },
-      insert: (segment, at, kind: InsertKind) => {
-        const seg = this.doc.segments.find((s) => s.id === segment);
-        const o = seg ? offsetOf(seg.a) : { x: 0, y: 0 };
-        this.edit('editor.insert', { segment, at: shift([at], o)[0], kind });
-      },
-      addPort: (at) => this.edit('node.add', { at, spec: { kind: 'port' } }),
-      setOutline: (points) => this.edit('board.setOutline', { outline: points }),
-      preview: (p) => this.board?.preview(p),
-      status: (t) => { this.status = t; },
-    };
-  }
 }
 
 export const APP_VERSION = '0.1.0';
