@@ -205,6 +205,12 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
       case 'port': {
         sn.port = { zRef: n.zRef, heading: n.heading, ...(n.launch ? { launch: n.launch } : {}) };
         const w = segs[0];
+        if (w && Number.isFinite(n.heading)) {
+          // The drawing sets the direction; a port heading that disagrees is probably a slip worth showing.
+          const d = dirFrom(n.id, w.seg)!;
+          const off = Math.abs(Math.atan2(Math.sin(Math.atan2(d.y, d.x) - n.heading), Math.cos(Math.atan2(d.y, d.x) - n.heading)));
+          if (off > (5 * Math.PI) / 180) sn.warnings.push(warn('note', `port ${n.id} says its line leaves at ${deg(n.heading)}°, but ${w.seg.id} is drawn leaving at ${deg(Math.atan2(d.y, d.x))}°; the drawing is used`, { subjects: [n.id, w.seg.id], severity: 'info' }));
+        }
         if (w && n.launch && isLine(w)) {
           w.pads += n.launch.padLength;
           comp(w, { model: 'launch-pad', source: 'common practice', amount_m: n.launch.padLength, applied: true, node: n.id,

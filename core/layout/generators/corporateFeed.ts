@@ -58,7 +58,7 @@ export function corporateFeed(opts: CorporateFeedOptions): DesignDoc {
         nodes.push({ id: t, kind: 'vertex', bend: { style: 'square' }, at: { x: xs, y: y - drop } });
         segments.push({ id: `qw${k}`, a: v, b: t, kind: 'line', width: { by: 'z0', z0: Math.SQRT2 * z0 }, length: { by: 'degrees', deg: 90 } });
         const o = `out${outputs.length + 1}`;
-        nodes.push({ id: o, kind: 'port', zRef: z0, heading: -Math.PI / 2, at: { x: xs, y: y - drop - feed } });
+        nodes.push({ id: o, kind: 'port', zRef: z0, heading: Math.PI / 2, at: { x: xs, y: y - drop - feed } });
         segments.push({ id: `run${k}`, a: t, b: o, kind: 'line', width: { by: 'z0', z0 }, length: { by: 'length', length: feed } });
         outputs.push(o);
       } else {
