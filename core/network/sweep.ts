@@ -131,6 +131,7 @@ function newAccumulator() {
  */
 export class SweepCache {
   private map = new Map<string, NetworkResponse>();
+  private inFlight = new Map<string, Promise<NetworkResponse>>();
   constructor(private readonly limit = 16) {}
   static key(revision: string | number, settings: SweepSettings, extra = ''): string {
     return `${revision}|${settings.start}|${settings.stop}|${settings.points}|${settings.log ? 'log' : 'lin'}|${extra}`;
@@ -145,13 +146,21 @@ export class SweepCache {
     this.map.set(key, value);
     while (this.map.size > this.limit) this.map.delete(this.map.keys().next().value as string);
   }
-  /** Returns the cached response or computes, stores and returns it. A cancelled sweep stores nothing. */
+  /**
+   * Returns the cached response or computes, stores and returns it. Calls for the same key while a sweep runs
+   * share that sweep. A failed or cancelled sweep stores nothing.
+   */
   async getOrSweep(key: string, compute: () => Promise<NetworkResponse>): Promise<NetworkResponse> {
     const hit = this.get(key);
     if (hit) return hit;
-    const v = await compute();
-    this.set(key, v);
-    return v;
+    const running = this.inFlight.get(key);
+    if (running) return running;
+    const p = compute().then(
+      (v) => { this.inFlight.delete(key); this.set(key, v); return v; },
+      (e: unknown) => { this.inFlight.delete(key); throw e; },
+    );
+    this.inFlight.set(key, p);
+    return p;
   }
   get size(): number { return this.map.size; }
   clear(): void { this.map.clear(); }

@@ -63,6 +63,19 @@ describe('cache', () => {
   });
 });
 
+describe('cache, concurrent and failed sweeps', () => {
+  it('two requests for the same key while it runs share one sweep; a failure stores nothing', async () => {
+    const cache = new SweepCache();
+    let computed = 0;
+    const compute = async () => { computed++; await Promise.resolve(); return solveNetwork(net, [1e9]); };
+    const [a, b] = await Promise.all([cache.getOrSweep('k', compute), cache.getOrSweep('k', compute)]);
+    expect(a).toBe(b);
+    expect(computed).toBe(1);
+    await expect(cache.getOrSweep('bad', async () => { throw new Error('cancelled'); })).rejects.toThrow('cancelled');
+    expect(cache.get('bad')).toBeUndefined();
+  });
+});
+
 describe('responseCacheKey', () => {
   it('ignores name, notes and view; follows the physics, the sweep and the solver options', async () => {
     const { newDesign } = await import('../../core/design/index.ts');
