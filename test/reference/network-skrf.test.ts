@@ -78,22 +78,22 @@ describe('agreement with scikit-rf 0.15.4 for the same Z0 and γ', () => {
     compare(ours, skrf, 1e-9);
   });
   for (const mode of ['graph', 'grow'] as const) {
-  it(`a lossy Wilkinson divider with its isolation resistor, joined by skrf ${mode === 'graph' ? 'innerconnect' : 'connect, one piece at a time'}`, () => {
-    const q = 0.0183;
-    const lines = [tabled('feed', 'p1', 'j', 50, 0.01, freqs, 2.8), tabled('a2', 'j', 'o2', 70.7, q, freqs, 2.9), tabled('a3', 'j', 'o3', 70.7, q, freqs, 2.9),
-      tabled('out2', 'o2', 'p2', 50, 0.006, freqs, 2.8), tabled('out3', 'o3', 'p3', 50, 0.009, freqs, 2.8)];
-    const { ours, skrf } = solveBoth(lines, [{ id: 'r', a: 'o2', b: 'o3', value: 100 }], [{ name: '1', node: 'p1', zRef: 50 }, { name: '2', node: 'p2', zRef: 50 }, { name: '3', node: 'p3', zRef: 50 }], freqs, mode);
-    compare(ours, skrf, 1e-9);
-  });
-  it(`a lossy branch-line loop with an open stub on one output (${mode})`, () => {
-    const q = 0.0183;
-    const lines = [tabled('s12', 'n1', 'n2', 35.4, q, freqs, 2.9), tabled('s43', 'n4', 'n3', 35.4, q, freqs, 2.9), tabled('p14', 'n1', 'n4', 50, q, freqs, 2.8),
-      tabled('p23', 'n2', 'n3', 50, q, freqs, 2.8), tabled('stub', 'n3', 'open', 60, 0.011, freqs, 2.85)];
-    const ports = ['n1', 'n2', 'n3', 'n4'].map((n, i) => ({ name: `${i + 1}`, node: n, zRef: 50 }));
-    const { ours, skrf } = solveBoth(lines, [], ports, freqs, mode);
-    compare(ours, skrf, 1e-9);
-  });
-}
+    it(`a lossy Wilkinson divider with its isolation resistor, joined by skrf ${mode === 'graph' ? 'innerconnect' : 'connect, one piece at a time'}`, () => {
+      const q = 0.0183;
+      const lines = [tabled('feed', 'p1', 'j', 50, 0.01, freqs, 2.8), tabled('a2', 'j', 'o2', 70.7, q, freqs, 2.9), tabled('a3', 'j', 'o3', 70.7, q, freqs, 2.9),
+        tabled('out2', 'o2', 'p2', 50, 0.006, freqs, 2.8), tabled('out3', 'o3', 'p3', 50, 0.009, freqs, 2.8)];
+      const { ours, skrf } = solveBoth(lines, [{ id: 'r', a: 'o2', b: 'o3', value: 100 }], [{ name: '1', node: 'p1', zRef: 50 }, { name: '2', node: 'p2', zRef: 50 }, { name: '3', node: 'p3', zRef: 50 }], freqs, mode);
+      compare(ours, skrf, 1e-9);
+    });
+    it(`a lossy branch-line loop with an open stub on one output (${mode})`, () => {
+      const q = 0.0183;
+      const lines = [tabled('s12', 'n1', 'n2', 35.4, q, freqs, 2.9), tabled('s43', 'n4', 'n3', 35.4, q, freqs, 2.9), tabled('p14', 'n1', 'n4', 50, q, freqs, 2.8),
+        tabled('p23', 'n2', 'n3', 50, q, freqs, 2.8), tabled('stub', 'n3', 'open', 60, 0.011, freqs, 2.85)];
+      const ports = ['n1', 'n2', 'n3', 'n4'].map((n, i) => ({ name: `${i + 1}`, node: n, zRef: 50 }));
+      const { ours, skrf } = solveBoth(lines, [], ports, freqs, mode);
+      compare(ours, skrf, 1e-9);
+    });
+  }
 });
 
 describe('agreement with scikit-rf 0.15.4 on glass-epoxy lines from the line model', () => {
