@@ -147,3 +147,17 @@ describe('Smith chart construction (P. H. Smith, Electronics, Jan. 1939; Pozar, 
     expect(resistanceCircle(0)).toEqual({ cx: 0, cy: 0, radius: 1 });
   });
 });
+
+import { insidePolygon, signedArea } from '../../renderer/src/board/hit.ts';
+
+describe('areas (plane geometry: even-odd rule, shoelace formula)', () => {
+  const sq = [{ x: 0, y: 0 }, { x: 2, y: 0 }, { x: 2, y: 2 }, { x: 0, y: 2 }];
+  it('finds points inside and outside a polygon', () => {
+    expect(insidePolygon({ x: 1, y: 1 }, sq)).toBe(true);
+    expect(insidePolygon({ x: 3, y: 1 }, sq)).toBe(false);
+  });
+  it('signed area is positive counter-clockwise', () => {
+    expect(signedArea(sq)).toBe(4);
+    expect(signedArea([...sq].reverse())).toBe(-4);
+  });
+});

@@ -154,3 +154,23 @@ test('the command finder runs any command by name', async ({ page }) => {
   await expect(page.getByTestId('command-finder')).toHaveCount(0);
   await expect(page.locator('html')).toHaveClass(/dark/);
 });
+
+test('ground copper and keep-out areas: draw, select, set the clearance, delete', async ({ page }) => {
+  await openDemo(page);
+  const b = (await page.getByTestId('board-canvas').boundingBox())!;
+  const before = await count(page, '.area-ground');
+  await page.keyboard.press('k');
+  for (const [dx, dy] of [[40, 40], [160, 40], [160, 120], [40, 120]]) await page.mouse.click(b.x + dx, b.y + dy);
+  await page.keyboard.press('Enter');
+  await expect(page.locator('.area-keepout')).toHaveCount(1);
+  await page.keyboard.press('v');
+  await page.mouse.click(b.x + 100, b.y + 80);
+  await expect(page.getByTestId('piece-sheet')).toContainText('keep-out area');
+  await page.getByTestId('field-area-kind').selectOption('ground-copper');
+  await expect(page.locator('.area-ground')).toHaveCount(before + 1);
+  await page.getByTestId('field-clearance').fill('2 mm');
+  await page.getByTestId('field-clearance').press('Enter');
+  await page.getByTestId('board-canvas').focus();
+  await page.keyboard.press('Delete');
+  await expect(page.locator('.area-ground')).toHaveCount(before);
+});

@@ -60,6 +60,8 @@ export class BoardController {
   private readonly gridLayer: G;
   private readonly world: G;
   private readonly outlineLayer: G;
+  private readonly areaLayer: G;
+  private areaKey = '';
   private readonly copperLayer: G;
   private readonly lineLayer: G;
   private readonly nodeLayer: G;
@@ -88,6 +90,7 @@ export class BoardController {
     this.root = SVG().addTo(host).addClass('board-svg').attr({ 'data-testid': 'board-canvas', tabindex: 0, role: 'img', 'aria-label': 'Board drawing' });
     this.gridLayer = this.root.group().addClass('grid');
     this.world = this.root.group().addClass('world');
+    this.areaLayer = this.world.group().addClass('areas');
     this.outlineLayer = this.world.group().addClass('outline');
     this.copperLayer = this.world.group().addClass('copper');
     this.lineLayer = this.world.group().addClass('centrelines');
@@ -175,6 +178,7 @@ export class BoardController {
     }
     this.drawLines();
     this.drawNodes();
+    this.drawAreas();
   }
 
   preview(p: Preview): void {
@@ -284,7 +288,25 @@ export class BoardController {
     }
   }
 
+  private drawAreas(): void {
+    const sel = this.marks.selected, fl = this.marks.flagged;
+    const key = this.scene.areas.map((a) => `${a.id}${a.kind}${sel.has(a.id) ? '*' : ''}${fl.has(a.id) ? '!' : ''}:${a.polygon.map((p) => `${p.x},${p.y}`).join(' ')}`).join('|')
+      + `#${this.scene.ground.length}:${this.scene.ground.reduce((n, r) => n + r.outer.length, 0)}`;
+    if (key === this.areaKey) return;
+    this.areaKey = key;
+    this.areaLayer.clear();
+    // Ground copper as it will be made (cleared around the network), when the last check is current.
+    if (this.scene.ground.length) this.areaLayer.path(regionsPath(this.scene.ground)).attr({ class: 'ground-copper', 'fill-rule': 'evenodd' });
+    for (const a of this.scene.areas) {
+      const cls = ['area', a.kind === 'keep-out' ? 'area-keepout' : 'area-ground'];
+      if (sel.has(a.id)) cls.push('selected');
+      if (fl.has(a.id)) cls.push('flagged');
+      this.areaLayer.polygon(polyPoints(a.polygon)).attr({ class: cls.join(' '), 'data-area': a.id });
+    }
+  }
+
   private drawOutline(): void {
+    this.drawAreas();
     this.outlineLayer.clear();
     if (this.scene.outline && this.scene.outline.length >= 3) {
       this.outlineLayer.polygon(polyPoints(this.scene.outline)).addClass('board-outline');

@@ -5,7 +5,7 @@ import type { Box, Vec2 } from '../../../core/geometry/types.ts';
 import type { Scene } from './scene.ts';
 import { distToSegment } from './snap.ts';
 
-export type Hit = { kind: 'node'; id: string } | { kind: 'segment'; id: string } | null;
+export type Hit = { kind: 'node'; id: string } | { kind: 'segment'; id: string } | { kind: 'area'; id: string } | null;
 
 /**
  * The node or segment under board point `p`. `tolerance` is the pick radius in metres (a few pixels at the current
@@ -27,6 +27,14 @@ export function hitTest(scene: Scene, p: Vec2, tolerance: number): Hit {
       if (d <= reach && d < bestD) { best = { kind: 'segment', id: s.id }; bestD = d; }
     }
   }
+  if (best) return best;
+  // Areas last: inside the polygon (even-odd), the smallest area first so a keep-out inside ground copper wins.
+  let bestArea = Infinity;
+  for (const a of scene.areas) {
+    if (!insidePolygon(p, a.polygon)) continue;
+    const area = Math.abs(signedArea(a.polygon));
+    if (area < bestArea) { best = { kind: 'area', id: a.id }; bestArea = area; }
+  }
   return best;
 }
 
@@ -36,5 +44,23 @@ export function boxSelect(scene: Scene, box: Box): string[] {
   const ids: string[] = [];
   for (const n of scene.nodes) if (inside(n.at)) ids.push(n.id);
   for (const s of scene.segments) if (inside(s.a) && inside(s.b)) ids.push(s.id);
+  for (const a of scene.areas) if (a.polygon.every(inside)) ids.push(a.id);
   return ids;
+}
+
+/** Even-odd point in polygon (ray casting along +x). */
+export function insidePolygon(p: Vec2, poly: readonly Vec2[]): boolean {
+  let inside = false;
+  for (let i = 0, j = poly.length - 1; i < poly.length; j = i++) {
+    const a = poly[i]!, b = poly[j]!;
+    if ((a.y > p.y) !== (b.y > p.y) && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) inside = !inside;
+  }
+  return inside;
+}
+
+/** Shoelace formula: positive for counter-clockwise rings. */
+export function signedArea(poly: readonly Vec2[]): number {
+  let s = 0;
+  for (let i = 0; i < poly.length; i++) { const a = poly[i]!, b = poly[(i + 1) % poly.length]!; s += a.x * b.y - b.x * a.y; }
+  return s / 2;
 }

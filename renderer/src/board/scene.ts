@@ -28,10 +28,13 @@ export interface Scene {
   /** True copper of each piece (before union), keyed by the piece id. */
   pieces: ScenePiece[];
   outline: Vec2[] | null;
+  /** Ground-copper and keep-out areas as drawn, and the ground copper left after clearing (from the last check). */
+  areas: { id: string; kind: 'ground-copper' | 'keep-out'; polygon: Vec2[] }[];
+  ground: Region[];
   drills: { at: Vec2; diameter: number }[];
 }
 
-export const EMPTY_SCENE: Scene = { nodes: [], segments: [], pieces: [], outline: null, drills: [] };
+export const EMPTY_SCENE: Scene = { nodes: [], segments: [], pieces: [], outline: null, areas: [], ground: [], drills: [] };
 
 /** Selected and marked ids, drawn as overlays. */
 export interface Marks { selected: ReadonlySet<string>; flagged: ReadonlySet<string>; hovered: string | null }

@@ -8,7 +8,7 @@ import type { BoardPointer, Preview } from './BoardController.ts';
 import { headingRuleFor, projectOnSegment, snapHeading, snapToGrid } from './snap.ts';
 
 /** Our own tool names; the keys are the ones shown in the tool strip. */
-export type ToolId = 'pick' | 'route' | 'tee' | 'stub-open' | 'stub-short' | 'step' | 'taper' | 'part' | 'port' | 'outline';
+export type ToolId = 'pick' | 'route' | 'tee' | 'stub-open' | 'stub-short' | 'step' | 'taper' | 'part' | 'port' | 'outline' | 'ground' | 'keepout';
 
 export const TOOLS: { id: ToolId; label: string; key: string; hint: string }[] = [
   { id: 'pick', label: 'Pick', key: 'V', hint: 'Click to select, drag to move, drag on empty board to select a box' },
@@ -21,6 +21,8 @@ export const TOOLS: { id: ToolId; label: string; key: string; hint: string }[] =
   { id: 'part', label: 'Part', key: 'L', hint: 'Click a run to insert a lumped part (resistor, capacitor, inductor)' },
   { id: 'port', label: 'Port', key: 'P', hint: 'Click to place a port' },
   { id: 'outline', label: 'Board edge', key: 'B', hint: 'Click the corners of the board edge; double-click or Enter closes it' },
+  { id: 'ground', label: 'Ground copper', key: 'G', hint: 'Click the corners of an area kept as ground copper (cleared around the network); Enter closes it' },
+  { id: 'keepout', label: 'Keep-out', key: 'K', hint: 'Click the corners of an area where no copper may go; Enter closes it' },
 ];
 
 export type InsertKind = 'step' | 'taper' | 'part';
@@ -44,6 +46,7 @@ export interface ToolHost {
   insert(segment: string, at: Vec2, kind: InsertKind): void;
   addPort(at: Vec2): void;
   setOutline(points: Vec2[]): void;
+  addArea(kind: 'ground-copper' | 'keep-out', points: Vec2[]): void;
   preview(p: Preview): void;
   status(text: string): void;
 }
@@ -93,8 +96,10 @@ export class ToolMachine {
       }
     } else if (g.kind === 'outlining') {
       const pts = dedupe(g.points);
-      if (pts.length >= 3) this.host.setOutline(pts);
-      else this.host.status('A board edge needs at least three corners');
+      if (pts.length < 3) this.host.status('An outline needs at least three corners');
+      else if (this.tool === 'ground') this.host.addArea('ground-copper', pts);
+      else if (this.tool === 'keepout') this.host.addArea('keep-out', pts);
+      else this.host.setOutline(pts);
     }
     this.g = { kind: 'idle' };
     this.host.preview({});
@@ -105,7 +110,7 @@ export class ToolMachine {
     switch (this.tool) {
       case 'pick': return this.pick(e);
       case 'route': case 'tee': return this.route(e);
-      case 'outline': return this.outline(e);
+      case 'outline': case 'ground': case 'keepout': return this.outline(e);
       default: return this.place(e);
     }
   }
@@ -229,7 +234,7 @@ export class ToolMachine {
         this.g = { kind: 'outlining', points: [...g.points, p] };
       } else {
         this.g = { kind: 'outlining', points: [p] };
-        this.host.status('Click the next corner; click the first corner, double-click or press Enter to close the edge');
+        this.host.status('Click the next corner; click the first corner, double-click or press Enter to close it');
       }
     } else if (e.type === 'dblclick' && g.kind === 'outlining') {
       this.finish();

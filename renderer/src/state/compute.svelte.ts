@@ -74,10 +74,12 @@ export class Compute {
   /** Run the fabrication checks on the current design. */
   async check(): Promise<void> {
     this.checking = true;
+    const revision = this.editor.revision;
     const out = await this.client.run<CheckOutput>('check', { doc: this.editor.doc });
     this.checking = false;
     if (out.ok) {
       this.findings = out.value.findings;
+      this.editor.ground = { revision, regions: out.value.ground };
       this.findingsError = null;
       this.editor.flagged = new Set(out.value.findings.filter((f) => f.severity !== 'info').flatMap((f) => f.subjects));
     } else if ('error' in out) this.findingsError = out.error.message;

@@ -5,10 +5,11 @@
  *
  * Every edit goes through the core's History (design commands, undo by diffs); a drag is one live step.
  */
-import { History, parseDesign, serializeDesign, newDesign, copySelection, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess } from '../../../core/design/index.ts';
-import type { Box, Vec2 } from '../../../core/geometry/types.ts';
+import { History, parseDesign, serializeDesign, newDesign, copySelection, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess } from '../../../core/design/index.ts';
+import type { Box, Region, Vec2 } from '../../../core/geometry/types.ts';
 import type { SubstrateSpec } from '../../../core/substrate/types.ts';
 import { InputError } from '../../../core/util/errors.ts';
+import { defaultGroundClearance } from '../../../core/layout/index.ts';
 import type { Scene } from '../board/scene.ts';
 import type { Preview } from '../board/BoardController.ts';
 import { ToolMachine, type ToolId } from '../board/tools.ts';
@@ -59,10 +60,15 @@ export class EditorState {
   units = $derived<LengthUnit>(this.doc.view?.units ?? 'mm');
   /** Snap step: the design's own, else 0.1 mm or 5 mil (common practice for hand-drawn RF boards). */
   gridStep = $derived(this.doc.view?.grid ?? (this.units === 'mil' ? 5 * UNIT_METRES.mil : 0.1e-3));
-  scene = $derived<Scene>(buildScene(this.doc, this.layout, this.layout?.placed ?? null));
+  /** Ground copper left after clearing, from the last shop check, with the revision it belongs to. */
+  ground = $state.raw<{ revision: number; regions: Region[] } | null>(null);
+  scene = $derived<Scene>(buildScene(this.doc, this.layout, this.layout?.placed ?? null, this.ground?.revision === this.revision ? this.ground.regions : []));
   selectedSegment = $derived<DesignSegment | null>(this.single((id) => this.doc.segments.find((s) => s.id === id)));
   selectedNode = $derived<DesignNode | null>(this.single((id) => this.doc.nodes.find((n) => n.id === id)));
+  selectedArea = $derived<Area | null>(this.single((id) => this.doc.areas.find((a) => a.id === id)));
   fileName = $derived(this.file?.name ?? null);
+  /** The ground clearance the layout uses when an area gives none (the core's rule). */
+  defaultClearance = $derived(this.layout ? defaultGroundClearance(this.layout.sized) : this.doc.substrate.h);
 
   constructor(doc?: DesignDoc) {
     this.history = new History(doc ?? newDesign(), { run: runWithComposites });
@@ -74,7 +80,7 @@ export class EditorState {
       this.canRedo = this.history.canRedo;
       // Drop selected ids that no longer exist (after delete or undo).
       if (this.selection.size) {
-        const alive = new Set<string>([...d.nodes.map((n) => n.id), ...d.segments.map((s) => s.id)]);
+        const alive = new Set<string>([...d.nodes.map((n) => n.id), ...d.segments.map((s) => s.id), ...d.areas.map((a) => a.id)]);
         const kept = [...this.selection].filter((id) => alive.has(id));
         if (kept.length !== this.selection.size) this.selection = new Set(kept);
       }
@@ -172,6 +178,7 @@ export class EditorState {
     const ids = this.selection;
     for (const n of this.doc.nodes) if (ids.has(n.id)) pts.push(n.at);
     for (const s of this.doc.segments) if (ids.has(s.id)) for (const e of [s.a, s.b]) { const n = this.doc.nodes.find((x) => x.id === e); if (n) pts.push(n.at); }
+    for (const a of this.doc.areas) if (ids.has(a.id)) pts.push(...a.polygon);
     const b = boxOf(pts);
     return b ? { x: (b.minX + b.maxX) / 2, y: (b.minY + b.maxY) / 2 } : null;
   }
@@ -220,7 +227,7 @@ export class EditorState {
     }
   }
 
-  selectAll(): void { this.selection = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)]); }
+  selectAll(): void { this.selection = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id), ...this.doc.areas.map((a) => a.id)]); }
 
   // ---- files ------------------------------------------------------------------------------------------------
 
@@ -270,6 +277,7 @@ export class EditorState {
     const pts: Vec2[] = [];
     for (const n of this.scene.nodes) if (want.has(n.id)) pts.push(n.at);
     for (const s of this.scene.segments) if (want.has(s.id)) pts.push(...(s.centreline ?? [s.a, s.b]));
+    for (const a of this.doc.areas) if (want.has(a.id)) pts.push(...a.polygon);
     const b = boxOf(pts);
     return b && { minX: b.minX - margin, minY: b.minY - margin, maxX: b.maxX + margin, maxY: b.maxY + margin };
   }

@@ -3,13 +3,13 @@
  * lookups the tools need. View data only: no physics is computed here.
  */
 import type { DesignDoc, DesignNode } from '../../../core/design/types.ts';
-import type { DrillHit, Vec2 } from '../../../core/geometry/types.ts';
+import type { DrillHit, Region, Vec2 } from '../../../core/geometry/types.ts';
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
 
 export interface SceneCopper { outlines: PieceOutline[]; drills: DrillHit[] }
 import type { Scene, SceneSegment } from '../board/scene.ts';
 
-export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed: ReadonlyMap<string, { at: Vec2; pos: Vec2 }> | null = null): Scene {
+export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed: ReadonlyMap<string, { at: Vec2; pos: Vec2 }> | null = null, ground: Region[] = []): Scene {
   const byId = new Map<string, DesignNode>(doc.nodes.map((n) => [n.id, n]));
   // Where the layout placed a node (sized lengths move nodes off their drawn spots), plus how far the node was
   // dragged since that layout: a dragged node follows the pointer at once, before the worker's new layout lands.
@@ -35,6 +35,8 @@ export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed:
     segments,
     pieces: stale.size ? (geometry?.outlines ?? []).filter((o) => !stale.has(o.id)) : geometry?.outlines ?? [],
     outline: doc.board?.outline ?? null,
+    areas: doc.areas.map((a) => ({ id: a.id, kind: a.kind, polygon: a.polygon })),
+    ground,
     drills: (geometry?.drills ?? []).map((d) => ({ at: d.at, diameter: d.diameter })),
   };
 }
@@ -44,5 +46,6 @@ export function scenePoints(doc: DesignDoc, geometry: SceneCopper | null): Vec2[
   const pts: Vec2[] = doc.nodes.map((n) => n.at);
   if (doc.board) pts.push(...doc.board.outline);
   for (const o of geometry?.outlines ?? []) for (const r of o.regions) pts.push(...r.outer);
+  for (const a of doc.areas) pts.push(...a.polygon);
   return pts;
 }

@@ -68,6 +68,12 @@ export function createToolHost(ed: EditorState): ToolHost {
     },
     addPort: (at) => ed.edit('node.add', { at, spec: { kind: 'port' } }),
     setOutline: (points) => ed.edit('board.setOutline', { outline: points }),
+    addArea: (kind, points) => {
+      // Areas are stored counter-clockwise (outer rings, core/geometry/types.ts), whichever way they were clicked.
+      let a2 = 0;
+      for (let i = 0; i < points.length; i++) { const p = points[i]!, q = points[(i + 1) % points.length]!; a2 += p.x * q.y - q.x * p.y; }
+      ed.edit('area.add', { kind, polygon: a2 < 0 ? [...points].reverse() : points }, kind === 'keep-out' ? 'Add keep-out' : 'Add ground copper');
+    },
     preview: (p) => ed.board?.preview(p),
     status: (t) => { ed.status = t; },
   };

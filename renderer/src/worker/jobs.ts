@@ -4,7 +4,7 @@
  * network). All physics and geometry come from the core; this file only sequences the calls and reports progress.
  */
 import type { DesignDoc } from '../../../core/design/types.ts';
-import type { BoardGeometry, DrillHit } from '../../../core/geometry/types.ts';
+import type { BoardGeometry, DrillHit, Region } from '../../../core/geometry/types.ts';
 import { initPolygons } from '../../../core/geometry/index.ts';
 import { sizeDesign, LineCache, designPaths, checkFabrication, buildBoardGeometry, pieceOutlines, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
@@ -33,7 +33,7 @@ export interface ResponseOutput {
   warnings: string[];
 }
 
-export interface CheckOutput { findings: Finding[] }
+export interface CheckOutput { findings: Finding[]; /** Ground copper left after clearing around the network. */ ground: Region[] }
 
 /** How the polygon engine finds its wasm: the worker passes Vite's asset URL; Node needs nothing. */
 let polygonInit: (() => Promise<void>) | null = null;
@@ -154,11 +154,11 @@ export async function exportJob(input: ExportInput): Promise<ExportOutput> {
 export async function checkJob(input: LayoutInput): Promise<CheckOutput> {
   const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
   if (sized.problems.length) {
-    return { findings: sized.problems.map((p) => ({ severity: 'error', code: 'layout', message: p.message, fix: 'Change the pieces named here so the layout closes.', subjects: p.subjects })) };
+    return { findings: sized.problems.map((p) => ({ severity: 'error', code: 'layout', message: p.message, fix: 'Change the pieces named here so the layout closes.', subjects: p.subjects })), ground: [] };
   }
   await polygons();
   const geometry = buildBoardGeometry(sized);
-  return { findings: checkFabrication(sized, geometry) };
+  return { findings: checkFabrication(sized, geometry), ground: geometry.groundCopper };
 }
 
 /** A sweep of the sized network over the band (and f0), chunked so progress reaches the editor. */
