@@ -138,7 +138,7 @@ export const sweepCommand: CliCommand = {
       for (const w of [...loaded.warnings, ...r.warnings]) if (w.severity !== 'info') io.err(`warning: ${w.message}`);
       const diff = measured ? compareResponses(r, measured) : undefined;
       if (values.json) io.out(JSON.stringify({ ...toJson(loaded, input), ...(diff ? { comparison: { file: basename(values.compare!), ...comparisonJson(r, diff) } } : {}) }));
-      else if (!values.out || diff) io.out([values.out ? '' : table(loaded, input), diff ? comparisonTable(r, diff, basename(values.compare!)) : ''].filter(Boolean).join('\n\n'));
+      else if (!values.out || diff) io.out([values.out ? '' : table(loaded, input), diff ? comparisonTable(r, diff, basename(values.compare!)) : '', values.out ? '' : notes([...loaded.warnings, ...r.warnings])].filter(Boolean).join('\n\n'));
       return 0;
     } catch (e) {
       if (e instanceof InputError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
@@ -283,6 +283,28 @@ function table(l: Loaded, input: number): string {
     if (P > 17) lines.push(`  … and ${P - 17} more ports (use --json for all)`);
   }
   return lines.join('\n');
+}
+
+/** Information notes (what the model leaves out, where), grouped so a feed with 63 tees says it once. */
+function notes(ws: Warning[]): string {
+  const info = ws.filter((w) => w.severity === 'info');
+  if (info.length === 0) return '';
+  const groups = new Map<string, string[]>();
+  for (const w of info) {
+    const m = /^(tee|cross) (\S+): (.*)$/.exec(w.message);
+    const key = m ? `${m[1]}|${m[3]}` : `|${w.message}`;
+    const list = groups.get(key) ?? [];
+    if (m) list.push(m[2]);
+    groups.set(key, list);
+  }
+  const lines = ['Notes'];
+  for (const [key, subjects] of groups) {
+    const [kind, text] = [key.slice(0, key.indexOf('|')), key.slice(key.indexOf('|') + 1)];
+    if (!kind) { lines.push(`  ${text}`); continue; }
+    const shown = subjects.length > 6 ? `${subjects.slice(0, 6).join(', ')}, … (${subjects.length})` : subjects.join(', ');
+    lines.push(`  ${kind}${subjects.length > 1 ? 's' : ''} ${shown}: ${text}`);
+  }
+  return lines.slice(0, 12).join('\n');
 }
 
 function comparisonJson(r: NetworkResponse, d: ResponseDifference) {
