@@ -160,6 +160,56 @@ export function untoolableCopper(geometry: BoardGeometry, r: number, opts: { til
   return out;
 }
 
+/** Distance from p to a region's copper (0 inside). */
+function distToRegion(p: Vec2, r: Region): number {
+  let inside = false, d = Infinity;
+  for (const ring of [r.outer, ...r.holes]) {
+    for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
+      const a = ring[i]!, b = ring[j]!;
+      if ((a.y > p.y) !== (b.y > p.y) && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) inside = !inside;
+      d = Math.min(d, distToSegment(p, a, b));
+    }
+  }
+  return inside ? 0 : d;
+}
+
+/**
+ * The per-piece and per-node outlines of a board with who owns them: a piece touches its two end nodes; node copper
+ * (a bend, a junction square, a pad) touches its node. Two owners are adjacent when they share a node, or when they
+ * are the copper of two nodes joined by one piece.
+ */
+function outlineOwners(sized: SizedDesign, geometry: BoardGeometry) {
+  const pieceById = new Map(sized.pieces.map((p) => [p.id, p]));
+  const nodesOf = new Map<string, string[]>();
+  for (const o of geometry.pieces) {
+    const p = pieceById.get(o.id);
+    nodesOf.set(o.id, p ? [p.a, p.b] : [o.id]);
+  }
+  const joined = new Set<string>();
+  for (const p of sized.pieces) { joined.add(`${p.a}|${p.b}`); joined.add(`${p.b}|${p.a}`); }
+  const items = geometry.pieces.filter((o) => o.regions.length).map((o) => ({ id: o.id, regions: o.regions, box: boxOfRegions(o.regions) }));
+  const grid = new BoxGrid<number>(BoxGrid.cellFor(items.map((i) => i.box)));
+  items.forEach((it, i) => grid.insert(it.box, i));
+  return {
+    near(c: Vec2, reach: number): { id: string; d: number }[] {
+      const found = [...grid.query({ minX: c.x - reach, maxX: c.x + reach, minY: c.y - reach, maxY: c.y + reach })]
+        .map((i) => ({ id: items[i]!.id, d: Math.min(...items[i]!.regions.map((r) => distToRegion(c, r))) }))
+        .sort((a, b) => a.d - b.d);
+      return found.slice(0, 2);
+    },
+    sharedNode(a: string, b: string): string | undefined {
+      const na = nodesOf.get(a) ?? [a], nb = nodesOf.get(b) ?? [b];
+      return na.find((n) => nb.includes(n));
+    },
+    adjacent(a: string, b: string): boolean {
+      const na = nodesOf.get(a) ?? [a], nb = nodesOf.get(b) ?? [b];
+      if (na.some((n) => nb.includes(n))) return true;
+      return na.length === 1 && nb.length === 1 && joined.has(`${na[0]}|${nb[0]}`);
+    },
+    items, grid,
+  };
+}
+
 function centreBox(sized: SizedDesign, p: SizedPiece, grow: number): Box | null {
   const c = sized.centrelines[p.id];
   if (!c || c.length < 2) return null;
@@ -245,32 +295,25 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     const left = untoolableCopper(geometry, r);
     const corners = new Map<string, { n: number; at: Vec2 }>();
     const gapPairs = new Set<string>();
-    const candidates = lines.concat(sized.pieces.filter((p) => p.kind === 'lumped' || p.kind === 'sparams'));
-    const wMax = Math.max(0, ...candidates.map((p) => Math.max(p.width, p.widthB ?? 0, p.part?.footprint.padAcross ?? 0)));
-    const boxes = candidates.map((p) => centreBox(sized, p, wMax));
-    const grid = new BoxGrid<SizedPiece>(BoxGrid.cellFor(boxes.filter((b): b is Box => !!b)));
-    candidates.forEach((p, i) => { const b = boxes[i]; if (b) grid.insert(b, p); });
+    const owners = outlineOwners(sized, geometry);
     for (const reg of left) {
       const c = centroid(reg);
-      // The two nearest pieces (by centreline distance minus half width) among those whose box reaches here.
-      const near = [...grid.query({ minX: c.x - cut, maxX: c.x + cut, minY: c.y - cut, maxY: c.y + cut })]
-        .map((p) => ({ p, d: centrelineDistance(sized, p, c) - p.width / 2 }))
-        .filter((x) => Number.isFinite(x.d)).sort((a, b) => a.d - b.d).slice(0, 2);
+      // The two nearest outlines (pieces or node copper) of different owners, by distance to their copper.
+      const near = owners.near(c, cut);
       if (near.length < 2) continue;
-      const [a, b] = [near[0]!.p, near[1]!.p];
-      const shared = [a.a, a.b].find((n) => n === b.a || n === b.b);
+      const [a, b] = [near[0]!, near[1]!];
+      const adjacent = owners.adjacent(a.id, b.id);
       const pairKey = a.id < b.id ? `${a.id}|${b.id}` : `${b.id}|${a.id}`;
-      if (shared === undefined && near[1]!.d < cut && !gapPairs.has(pairKey)) {
+      if (!adjacent && b.d < cut) {
+        if (gapPairs.has(pairKey)) continue;
         gapPairs.add(pairKey);
         out.push({
           severity: 'error', code: 'min-gap', subjects: [a.id, b.id], at: c,
           message: `the gap between ${a.id} and ${b.id} near ${at(c)} is narrower than ${procName} can cut (${mmS(cut)} mm); the copper would stay and join them`,
           fix: `move them at least ${mmS(cut)} mm apart (better 3·W to limit coupling) or use a finer tool`,
         });
-      } else if (shared === undefined && near[1]!.d < cut) {
-        // already reported for this pair
       } else if (proc.kind !== 'etch') {
-        const key = shared ?? a.id;
+        const key = owners.sharedNode(a.id, b.id) ?? a.id;
         const e = corners.get(key);
         if (e) e.n++; else corners.set(key, { n: 1, at: c });
       }
@@ -341,7 +384,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
   }
 
   // ---- overlapping pieces (not sharing a node)
-  out.push(...overlaps(sized, geometry, pieceById));
+  out.push(...overlaps(sized, geometry));
 
   // ---- loss and phase
   const limit = opts.lossLimitDb ?? DEFAULT_LOSS_LIMIT_DB;
@@ -386,24 +429,20 @@ function centrelineDistance(sized: SizedDesign, p: SizedPiece, q: Vec2): number 
 }
 
 /** Pairs of pieces that do not share a node but whose copper overlaps; bucketed on a grid by bounding box. */
-function overlaps(sized: SizedDesign, geometry: BoardGeometry, pieceById: Map<string, SizedPiece>): Finding[] {
-  const items = geometry.pieces.filter((o) => pieceById.has(o.id) && o.regions.length).map((o) => ({ o, p: pieceById.get(o.id)!, box: boxOfRegions(o.regions) }));
-  if (items.length < 2) return [];
-  const grid = new BoxGrid<number>(BoxGrid.cellFor(items.map((i) => i.box)));
-  items.forEach((it, idx) => grid.insert(it.box, idx));
+function overlaps(sized: SizedDesign, geometry: BoardGeometry): Finding[] {
+  const owners = outlineOwners(sized, geometry);
+  const { items, grid } = owners;
   const out: Finding[] = [];
   for (let i = 0; i < items.length; i++) {
     for (const j of grid.query(items[i]!.box)) {
       if (j <= i) continue;
       const A = items[i]!, B = items[j]!;
-      if (A.p.a === B.p.a || A.p.a === B.p.b || A.p.b === B.p.a || A.p.b === B.p.b) continue;
-      if (!boxesMeet(A.box, B.box)) continue;
-      const hit = intersectRegions(A.o.regions, B.o.regions);
+      if (owners.adjacent(A.id, B.id) || !boxesMeet(A.box, B.box)) continue;
+      const hit = intersectRegions(A.regions, B.regions);
       if (regionsArea(hit) > MIN_AREA) {
-        out.push({ severity: 'error', code: 'overlap', subjects: [A.p.id, B.p.id], at: centroid(hit[0]!), message: `${A.p.id} and ${B.p.id} overlap although they are not connected there`, fix: 'change the lengths or the drawn directions so the pieces do not cross' });
+        out.push({ severity: 'error', code: 'overlap', subjects: [A.id, B.id], at: centroid(hit[0]!), message: `${A.id} and ${B.id} overlap although they are not connected there`, fix: 'change the lengths or the drawn directions so the pieces do not cross' });
       }
     }
   }
-  void unionRegions;
   return out;
 }

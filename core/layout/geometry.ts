@@ -124,7 +124,8 @@ export function pieceOutlines(sized: SizedDesign): { outlines: PieceOutline[]; d
       const dm = dirFrom(n, main);
       const wMain = Math.max(...arms.filter((p) => mainIds.includes(p.id)).map((p) => widthAt(p, n.id)));
       const others = arms.filter((p) => !mainIds.includes(p.id));
-      if (others.length) {
+      // The square only where the main line runs straight through: elsewhere it would poke out opposite an arm.
+      if (others.length && mainIds.length === 2 && arms.some((p) => p.id === mainIds[1]) && dot(dirFrom(n, main), dirFrom(n, arms.find((p) => p.id === mainIds[1])!)) < -0.99) {
         const wOther = Math.max(...others.map((p) => widthAt(p, n.id)));
         const nm = left(dm);
         for (const sa of [-1, 1]) for (const sb of [-1, 1]) pts.push(add(n.pos, add(mul(dm, sa * wOther / 2), mul(nm, sb * wMain / 2))));

@@ -39,6 +39,19 @@ describe('gaps and widths the process cannot make', () => {
     expect(g.at!.y).toBeGreaterThan(0.5e-3); expect(g.at!.y).toBeLessThan(0.6e-3);
     expect(run(pair(0.3e-3)).some((x) => x.code === 'min-gap')).toBe(false);
   });
+  it('node copper counts too: a via pad 0.1 mm from an unconnected line is a gap error naming the node', () => {
+    const d = design({
+      process: endMill(0.2e-3),
+      nodes: [port('a', 0, 0), { id: 'e', kind: 'short', at: { x: 0.01, y: 0 }, via: { drill: 0.8e-3, pad: 1.6e-3, count: 1 } }, port('b1', 0.005, 1.4e-3), port('b2', 0.015, 1.4e-3)],
+      segments: [line('la', 'a', 'e', wd(1e-3), lenOf(0.01)), line('lb', 'b1', 'b2', wd(1e-3), lenOf(0.01))],
+    });
+    const s = sizeDesign(d);
+    const e = s.nodes.find((n) => n.id === 'e')!.pos;
+    d.nodes[2] = port('b1', e.x - 0.005, 1.4e-3); d.nodes[3] = port('b2', e.x + 0.005, 1.4e-3); // centre line B over the via
+    const gaps = run(d).filter((x) => x.code === 'min-gap');
+    expect(gaps).toHaveLength(1);
+    expect(new Set(gaps[0]!.subjects)).toEqual(new Set(['e', 'lb']));
+  });
   it('etching: a line below the minimum feature is an error', () => {
     const d = design({ process: { kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 }, nodes: [port('a', 0, 0), port('b', 0.01, 0)], segments: [line('thin', 'a', 'b', wd(0.15e-3), lenOf(0.01))] });
     const f = run(d).find((x) => x.code === 'min-width')!;
