@@ -24,6 +24,8 @@ describe('stripwright sweep', () => {
     expect(r.stdout).toMatch(/Worst over the band/);
     expect(r.stdout).toMatch(/At 2\.45 GHz \(f0\)/);
     expect(r.stdout).toMatch(/o1\/o2/);
+    // What the model leaves out is said, not hidden (the tee model is advisory, methods.md §6.3).
+    expect(r.stdout).toMatch(/Notes\n  tee j: reference-plane shifts are not in the network/);
   });
   it('--json holds the frequencies, S as re/im and the figures, equal to the core solved in-process', () => {
     const r = cli(['sweep', WILK, '--from', '2.3GHz', '--to', '2.6GHz', '--points', '31', '--json']);
