@@ -163,6 +163,34 @@ describe('impossible requests are errors that name the pieces', () => {
   });
 });
 
+describe('tapers', () => {
+  it('a linear taper by degrees: straight edges, sections summing to the length, Σβ·l = the electrical length asked', () => {
+    const s = sizeDesign(design({
+      f0: 5e9, nodes: [port('a', 0, 0), port('b', 0.02, 0)],
+      segments: [{ id: 't', a: 'a', b: 'b', kind: 'taper', profile: 'linear', from: { by: 'z0', z0: 50 }, to: { by: 'z0', z0: 100 }, length: degs(180) }],
+    }));
+    const p = s.pieces[0]!;
+    const ws = p.taperWidths!;
+    const n = ws.length - 1;
+    ws.forEach((w, k) => expect(w).toBeCloseTo(p.width + ((p.widthB! - p.width) * k) / n, 12));
+    const L = p.sections!.reduce((a, x) => a + x.length, 0);
+    expect(L).toBeCloseTo(p.nominalLength, 12);
+    const phase = p.sections!.reduce((a, x) => a + x.beta * x.length, 0);
+    expect((phase * 180) / Math.PI).toBeCloseTo(180, 6);
+    expect(p.effectiveDeg).toBeCloseTo(180, 6);
+    // ≥ 20 sections per guided wavelength at the top of the band (methods.md §11.7)
+    expect(p.sections!.length).toBeGreaterThanOrEqual(Math.ceil((20 * L) / Math.min(...p.sections!.map((x) => (2 * Math.PI) / x.beta))) - 1);
+  });
+  it('a Klopfenstein taper whose ends are too close for the ripple asked is a bad-value problem naming it', () => {
+    const s = sizeDesign(design({
+      nodes: [port('a', 0, 0), port('b', 0.02, 0)],
+      segments: [{ id: 't', a: 'a', b: 'b', kind: 'taper', profile: 'klopfenstein', from: { by: 'z0', z0: 50 }, to: { by: 'z0', z0: 51 }, length: lenOf(0.02), rippleDb: 20 }],
+    }));
+    expect(s.problems[0]!.subjects).toEqual(['t']);
+    expect(s.problems[0]!.message).toMatch(/ripple/);
+  });
+});
+
 describe('line cache reuse', () => {
   it('a cache is reused for an equal substrate (a copy), not for a changed one', async () => {
     const { LineCache } = await import('../../core/layout/lineCache.ts');
