@@ -181,3 +181,39 @@ describe('typing in a field', () => {
     expect(ed.doc).toEqual(start);
   });
 });
+
+describe('the piece sheet against an outside oracle', () => {
+  it('shows the Z0 scikit-rf computes for the same line (shared/checks/line-reference.csv, row er 2.2, h 0.79 mm, W 0.79 mm, t 17.5 µm, 100 MHz: 93.436 Ω)', async () => {
+    const ed = new EditorState();
+    ed.edit('design.setSubstrate', { substrate: { er: 2.2, h: 0.79e-3, t: 17.5e-6, tanDelta: 0.0009, sigma: 1 / 1.72e-8, roughness: 0 } });
+    ed.edit('design.setFrequency', { f0: 100e6, band: { start: 90e6, stop: 110e6 } });
+    ed.edit('node.add', { at: { x: 0, y: 0 }, spec: { kind: 'port' } });
+    const port = ed.doc.nodes[0]!.id;
+    ed.edit('editor.route', { from: port, points: [{ x: 0.02, y: 0 }] });
+    const seg = ed.doc.segments[0]!.id;
+    ed.updateSegment(seg, { width: { by: 'width', width: 0.79e-3 } });
+    await sized(ed);
+    ed.select([seg]);
+    render(PieceSheet, { editor: ed });
+    // Shown to 4 significant digits: 93.44 Ω (scikit-rf: 93.43631621 Ω at 100 MHz).
+    expect(screen.getByTestId('fig-z0').textContent).toMatch(/^93\.4[34] Ω$/);
+  });
+});
+
+describe('stack panel presets', () => {
+  it('a preset fills every laminate number from the core\'s preset table, and editing one is marked', async () => {
+    const { findPreset } = await import('../../core/substrate/index.ts');
+    const ed = demoEditor();
+    render(StackPanel, { editor: ed });
+    const pick = screen.getByTestId('field-preset') as HTMLSelectElement;
+    await fireEvent.change(pick, { target: { value: 'ptfe-woven-glass-2.2' } });
+    const p = findPreset('ptfe-woven-glass-2.2')!;
+    expect(ed.doc.substrate.er).toBe(p.spec.er);
+    expect(ed.doc.substrate.h).toBe(p.spec.h);
+    expect(ed.doc.substrate.tanDelta).toBe(p.spec.tanDelta);
+    expect(screen.getByTestId('preset-note').textContent).not.toMatch(/^Edited/);
+    ed.setSubstrate({ h: 0.5e-3 });
+    flushSync();
+    expect(screen.getByTestId('preset-note').textContent).toMatch(/^Edited/);
+  });
+});
