@@ -7,7 +7,7 @@ import { parseArgs } from 'node:util';
 import { closeSync, existsSync, fsyncSync, openSync, readFileSync, renameSync, statSync, unlinkSync, writeSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import {
-  InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepNetwork,
+  InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
   readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
   phaseBalance, isolation, portIndex, compareResponses, MAX_POINTS,
   type NetworkResponse, type TouchstoneData, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
@@ -179,7 +179,8 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
     },
     yieldTo: () => new Promise<void>((r) => setImmediate(r)),
   });
-  return { name: doc.name, f0: doc.frequency.f0, response, input: net.input, warnings: [...parsed.warnings, ...sized.warnings, ...net.warnings], from: 'design' };
+  const range = sweepRangeWarnings(sized, response.freqs[response.freqs.length - 1], { advisory: s.advisory ?? [] });
+  return { name: doc.name, f0: doc.frequency.f0, response, input: net.input, warnings: [...parsed.warnings, ...sized.warnings, ...net.warnings, ...range], from: 'design' };
 }
 
 function loadTouchstone(text: string, file: string, s: SweepFlags): Loaded {

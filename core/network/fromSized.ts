@@ -21,7 +21,7 @@
  */
 import { InputError } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
-import { lineConstants, type LineOptions } from '../line/index.ts';
+import { analyzeLine, lineConstants, type LineOptions } from '../line/index.ts';
 import { viaGround } from '../discontinuity/goldfarbPucel1991Via.ts';
 import type { SizedDesign, SizedNode, SizedPiece } from '../layout/types.ts';
 import { GROUND, type LineModel, type NetElement, type NetPort, type Netlist } from './netlist.ts';
@@ -149,6 +149,36 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
   if (ports.length === 0) throw new InputError('singular-network', 'nodes', 'at least one port node in the design', 'none', 'add a port where the network is fed');
   const input = Math.max(0, ports.findIndex((p) => p.node === sized.anchor));
   return { elements, ports, input, warnings };
+}
+
+/**
+ * The line model's own warnings at the top of a sweep, once per copper width: validity ranges of the published
+ * fits and the higher-order-mode / surface-wave thresholds (methods.md §5, §13.7), so a sweep that runs past where
+ * the quasi-TEM model holds says so. Warnings are deduplicated by message and name the pieces.
+ */
+export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: FromSizedOptions = {}): Warning[] {
+  const byWidth = new Map<number, string[]>();
+  for (const p of sized.pieces) {
+    if (p.kind !== 'line' && p.kind !== 'taper') continue;
+    const widths = p.kind === 'taper' && p.sections ? p.sections.map((x) => x.width) : [p.width];
+    for (const w of widths) { const l = byWidth.get(w) ?? []; if (!l.includes(p.id)) l.push(p.id); byWidth.set(w, l); }
+  }
+  const out = new Map<string, Warning>();
+  for (const [w, ids] of byWidth) {
+    let ws: Warning[];
+    try { ws = analyzeLine(sized.doc.substrate, w, fStop, opts.line).warnings; } catch (e) {
+      if (e instanceof InputError) {
+        ws = [{ code: 'higher-order-mode', severity: 'error', message: `at ${fStop / 1e9} GHz the line model refuses width ${(w * 1e3).toFixed(3)} mm: ${e.message}` }];
+      } else throw e;
+    }
+    for (const x of ws) {
+      if (x.severity === 'info') continue;
+      const prev = out.get(x.message);
+      const subjects = [...(prev?.subjects ?? []), ...ids];
+      out.set(x.message, { ...x, subjects, message: x.message });
+    }
+  }
+  return [...out.values()].map((x) => ({ ...x, message: `${x.message} (top of the sweep, ${fStop / 1e9} GHz; pieces ${(x.subjects ?? []).slice(0, 6).join(', ')}${(x.subjects ?? []).length > 6 ? ', …' : ''})` }));
 }
 
 function onlyTerminal(n: SizedNode, endNode: (piece: string, node: string) => string): string {

@@ -18,6 +18,6 @@ export * from './touchstoneWrite.ts';
 export * from './touchstoneRead.ts';
 export * from './sparamsPart.ts';
 export * from './lineTwoPort.ts';
-export { netlistFromSized, type FromSizedOptions, type SizedNetlist, type AdvisoryModel } from './fromSized.ts';
+export { netlistFromSized, sweepRangeWarnings, type FromSizedOptions, type SizedNetlist, type AdvisoryModel } from './fromSized.ts';
 export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';
 export { responseCacheKey } from './cacheKey.ts';

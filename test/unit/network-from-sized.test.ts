@@ -131,3 +131,17 @@ describe('advisory width-step model (Garg & Bahl 1978, methods.md §6.4 VERIFY: 
     expect(Math.hypot(b.s[0], b.s[1])).toBeLessThan(0.1);
   });
 });
+
+describe('sweepRangeWarnings (methods.md §5: caution above half the higher-order-mode threshold)', () => {
+  it('is quiet inside the band and warns, naming the pieces, when the sweep runs past the caution frequency', async () => {
+    const { analyzeLine } = await import('../../core/line/index.ts');
+    const { sweepRangeWarnings } = await import('../../core/network/index.ts');
+    const sized = sizeDesign(twoPortLine());
+    const warnAt = analyzeLine(sized.doc.substrate, sized.pieces[0].width, 1e9).thresholds.warnAt;
+    expect(sweepRangeWarnings(sized, sized.band.stop).filter((w) => w.code === 'higher-order-mode')).toEqual([]);
+    const high = sweepRangeWarnings(sized, warnAt * 1.05).filter((w) => w.code === 'higher-order-mode');
+    expect(high.length).toBe(1);
+    expect(high[0].subjects).toEqual(['l']);
+    expect(high[0].message).toMatch(/top of the sweep/);
+  });
+});
