@@ -74,6 +74,14 @@ export function writeTouchstone(r: NetworkResponse, opts: TouchstoneWriteOptions
     lines.push(`[Reference] ${fileRefs.map(num).join(' ')}`);
     lines.push('[Network Data]');
   }
+  for (let k = 0; k < r.freqs.length; k++) {
+    if (!(r.freqs[k] > 0) || !Number.isFinite(r.freqs[k]) || (k > 0 && !(r.freqs[k] > r.freqs[k - 1]))) {
+      throw new InputError('out-of-range', `freqs[${k}]`, 'finite frequencies above 0 Hz, strictly increasing', String(r.freqs[k]));
+    }
+  }
+  for (let t = 0; t < r.s.length; t++) {
+    if (!Number.isFinite(r.s[t])) throw new InputError('invalid-number', 's', 'finite S-parameters', `a non-finite value at frequency ${r.freqs[Math.floor(t / (2 * P * P))]} Hz`);
+  }
   const pair = (re: number, im: number): string => {
     if (format === 'ri') return `${num(re)} ${num(im)}`;
     const m = Math.hypot(re, im), a = (Math.atan2(im, re) * 180) / Math.PI;

@@ -190,3 +190,12 @@ describe('hostile and damaged files (reliability.md §3.5 catalogue)', () => {
     expect(err(() => readTouchstone('[Version] 2.0\n# GHz S RI\n[Number of Ports] 100000\n[Number of Frequencies] 1\n[Network Data]\n1 0 0\n[End]\n')).message).toMatch(/at most 4097 ports/);
   });
 });
+
+describe('the writer refuses what would make a broken file', () => {
+  it('non-finite S or frequencies that do not increase', () => {
+    const bad: NetworkResponse = { freqs: Float64Array.of(1e9, 2e9), ports: [{ name: '1', zRef: 50 }], s: Float64Array.of(0, 0, NaN, 0), warnings: [] };
+    expect(err(() => writeTouchstone(bad)).code).toBe('invalid-number');
+    const order: NetworkResponse = { ...bad, freqs: Float64Array.of(2e9, 1e9), s: new Float64Array(4) };
+    expect(err(() => writeTouchstone(order)).field).toBe('freqs[1]');
+  });
+});
