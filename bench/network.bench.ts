@@ -4,7 +4,7 @@
  * built and connected with scikit-rf 0.15.4 (Debian python3, scripts/reference/skrf_network.py, "grow" mode: one
  * piece at a time with skrf.network.connect). Prints both times, the ratio and the largest |ΔS| between the two.
  * Target (brief): under 1 s here and at least 10× faster than the library.
- * The library run takes tens of seconds (most of it building and connecting the ~700 small networks, nearly
+ * The library run takes a few minutes here (most of it building and connecting the ~700 small networks, nearly
  * independent of the point count — so a shorter library run could not be scaled fairly). NETWORK_BENCH_SKRF=0
  * skips it.
  */
