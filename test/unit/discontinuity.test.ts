@@ -44,6 +44,14 @@ describe('Douville–James 1978 optimal miter (methods.md §6.2a example)', () =
     const c = miterCut({ W, h, er, turnRad: Math.PI / 2, fraction: 0.5 });
     expect(c.leg).toBeCloseTo(W, 12); // 2 · 0.5 · W
   });
+  it('other angles (our own rule): the cut follows the corner, x = 2MW·sin²(θ/2)/cos(θ/2), and vanishes for a straight run', () => {
+    const M = optimalMiterFraction(u);
+    const c45 = miterCut({ W, h, er, turnRad: Math.PI / 4 });
+    expect(c45.x).toBeCloseTo((2 * M * W * Math.sin(Math.PI / 8) ** 2) / Math.cos(Math.PI / 8), 12);
+    // The cut never reaches past the centreline point P at 45°: P lies W/(2cos(θ/2)) from the outer corner.
+    expect(c45.x).toBeLessThan(W / (2 * Math.cos(Math.PI / 8)));
+    expect(miterCut({ W, h, er, turnRad: 0.01 }).leg).toBeLessThan(0.01 * W);
+  });
 });
 
 describe('Goldfarb–Pucel 1991 via (methods.md §6.5 checked examples)', () => {
