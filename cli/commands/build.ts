@@ -55,6 +55,14 @@ export interface BuildReport {
     length_m: number; span_m: number; deg_at_f0: number; drawn_deg: number;
     compensations: { model: string; source: string; amount_m: number; applied: boolean; node: string; note: string }[];
   }[];
+  /** Placed nodes with their discontinuity data (bends, ends, vias, tees). */
+  nodes: {
+    id: string; kind: string; x_m: number; y_m: number;
+    bend?: { style: string; turn_deg: number; miter_fraction?: number; miter_leg_m?: number; arc_radius_m?: number; arc_tangent_m?: number };
+    open_dl_m?: number; open_c_f?: number;
+    via?: { count: number; drill_m: number; l_h: number; x_ohm: number; dl_m: number };
+    tee?: { main: string[]; branch: string; d1_m: number; d2_m: number; advisory: true };
+  }[];
   paths: PathReport[];
   findings: Finding[];
   warnings: Warning[];
@@ -73,6 +81,17 @@ export function buildReport(sized: SizedDesign, paths: PathReport[], findings: F
       id: p.id, kind: p.kind, a: p.a, b: p.b, z0_ohm: fin(p.z0), width_m: fin(p.width), ...(p.widthB !== undefined ? { width_b_m: p.widthB } : {}),
       length_m: p.length, span_m: p.span, deg_at_f0: p.effectiveDeg, drawn_deg: p.deg,
       compensations: p.compensations.map((c) => ({ ...c })),
+    })),
+    nodes: sized.nodes.filter((n) => Number.isFinite(n.pos.x)).map((n) => ({
+      id: n.id, kind: n.kind, x_m: n.pos.x, y_m: n.pos.y,
+      ...(n.bend ? { bend: {
+        style: n.bend.style.style, turn_deg: (n.bend.turn * 180) / Math.PI,
+        ...(n.bend.miter ? { miter_fraction: n.bend.miter.fraction, miter_leg_m: n.bend.miter.leg } : {}),
+        ...(n.bend.arc ? { arc_radius_m: n.bend.arc.radius, arc_tangent_m: n.bend.arc.tangent } : {}),
+      } } : {}),
+      ...(n.open ? { open_dl_m: n.open.dl, open_c_f: n.open.capacitance } : {}),
+      ...(n.via ? { via: { count: n.via.count, drill_m: n.via.drill, l_h: n.via.L, x_ohm: n.via.X, dl_m: n.via.dlEquivalent } } : {}),
+      ...(n.tee ? { tee: { main: [...n.tee.main], branch: n.tee.branch, d1_m: n.tee.planes.d1, d2_m: n.tee.planes.d2, advisory: true as const } } : {}),
     })),
     paths, findings, warnings,
   };
@@ -96,6 +115,22 @@ function text(rep: BuildReport): string[] {
       part ? `${mm(p.span_m)} span` : mm(p.length_m), part ? '—' : p.deg_at_f0.toFixed(1), comps]);
   }
   out.push(...table(rows));
+  const corners = rep.nodes.filter((n) => n.bend || n.open_dl_m !== undefined || n.via);
+  if (corners.length) {
+    out.push('', 'Corners and ends:');
+    const cr: string[][] = [['node', 'what', 'detail']];
+    for (const n of corners) {
+      if (n.bend) {
+        const b = n.bend;
+        const d = b.miter_fraction !== undefined ? `miter ${(b.miter_fraction * 100).toFixed(1)} %, legs ${mm(b.miter_leg_m!)} mm`
+          : b.arc_radius_m !== undefined ? `arc R ${mm(b.arc_radius_m)} mm, tangent ${mm(b.arc_tangent_m!)} mm` : 'square corner';
+        cr.push([n.id, `${b.turn_deg.toFixed(1)}° bend`, d]);
+      }
+      if (n.open_dl_m !== undefined) cr.push([n.id, 'open end', `Δl ${mm(n.open_dl_m)} mm, C ${(n.open_c_f! * 1e15).toFixed(1)} fF`]);
+      if (n.via) cr.push([n.id, `${n.via.count} via(s) ⌀${mm(n.via.drill_m)} mm`, `L ${(n.via.l_h * 1e12).toFixed(1)} pH, X ${n.via.x_ohm.toFixed(2)} Ω at f0 ≙ ${mm(n.via.dl_m)} mm of line`]);
+    }
+    out.push(...table(cr));
+  }
   for (const r of rep.paths) {
     out.push('', `Paths: ${r.name} (from ${r.from}${r.matched ? `, tolerance ±${r.toleranceDeg}°` : ''})`);
     const pr: string[][] = [['to', 'length mm', 'deg @f0', 'Δ deg', 'Δ band', 'delay ps', 'loss dB', 'bends', 'tees', 'S_er', 'S_h', 'S_W', '']];

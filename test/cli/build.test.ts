@@ -13,6 +13,7 @@ describe('stripwright build', () => {
     expect(r.stdout).toMatch(/piece\s+kind\s+Z0 Ω\s+W mm\s+L mm\s+deg/);
     expect(r.stdout).toMatch(/arma1\s+line\s+70\.71/);
     expect(r.stdout).toMatch(/Paths: Outputs balanced/);
+    expect(r.stdout).toMatch(/va\s+90\.0° bend\s+arc R 2\.000 mm/);
     expect(r.stdout).toMatch(/Result: can be built as drawn\./);
   });
   it('--json gives the documented fields', () => {
@@ -24,6 +25,8 @@ describe('stripwright build', () => {
     for (const k of ['id', 'kind', 'z0_ohm', 'width_m', 'length_m', 'deg_at_f0', 'compensations']) expect(stub).toHaveProperty(k);
     expect(stub.compensations.some((c: { model: string; applied: boolean }) => c.model === 'open-end' && c.applied)).toBe(true);
     expect(j.paths[0].paths[0].to).toBe('load');
+    const end = j.nodes.find((n: { id: string }) => n.id === 'stubend');
+    expect(end.open_dl_m).toBeCloseTo(stub.compensations.find((c: { model: string }) => c.model === 'open-end').amount_m, 12);
     expect(Array.isArray(j.findings)).toBe(true);
   });
   it('exits 1 and lists the errors for a design that cannot be built', () => {
