@@ -126,36 +126,11 @@ export function sparseFactor(s: Symbolic, v: Float64Array, rowScale: Float64Arra
   return { minRatio, at };
 }
 
-/** Solves with the factors from sparseFactor; `x` (2n, elimination coordinates) holds b on entry, x on exit. */
-export function sparseSolve(s: Symbolic, v: Float64Array, x: Float64Array, firstNonZero = 0): void {
-  const { n, diag, upStart, upper, lowSlot, upSlot } = s;
-  for (let k = firstNonZero; k < n; k++) {
-    const br = x[2 * k], bi = x[2 * k + 1];
-    if (br === 0 && bi === 0) continue;
-    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
-      const i = 2 * upper[t], p = 2 * lowSlot[t];
-      x[i] -= v[p] * br - v[p + 1] * bi;
-      x[i + 1] -= v[p] * bi + v[p + 1] * br;
-    }
-  }
-  for (let k = n - 1; k >= 0; k--) {
-    let sr = x[2 * k], si = x[2 * k + 1];
-    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
-      const j = 2 * upper[t], p = 2 * upSlot[t];
-      sr -= v[p] * x[j] - v[p + 1] * x[j + 1];
-      si -= v[p] * x[j + 1] + v[p + 1] * x[j];
-    }
-    const d = 2 * diag[k];
-    const pr = v[d], pi = v[d + 1], m2 = pr * pr + pi * pi;
-    x[2 * k] = (sr * pr + si * pi) / m2;
-    x[2 * k + 1] = (si * pr - sr * pi) / m2;
-  }
-}
-
 /**
- * Solves for `m` right-hand sides at once: `X` (2·n·m, row k holds the m values of unknown k in elimination
- * coordinates) holds B on entry and the solution on exit. Same arithmetic as sparseSolve, but the inner loops run
- * over contiguous columns, several times faster for the many port excitations of a feed.
+ * Solves with the factors from sparseFactor for `m` right-hand sides at once: `X` (2·n·m, row k holds the m values
+ * of unknown k in elimination coordinates) holds B on entry and the solution on exit. Forward substitution with the
+ * unit-lower L, then back substitution with U; the inner loops run over contiguous columns, several times faster
+ * than one right-hand side at a time for the many port excitations of a feed.
  */
 export function sparseSolveMany(s: Symbolic, v: Float64Array, X: Float64Array, m: number): void {
   const { n, diag, upStart, upper, lowSlot, upSlot } = s;
