@@ -77,6 +77,11 @@ describe('pinned figures', () => {
       const M = (52 + 65 * Math.exp((-1.35 * W) / h)) / 100;
       expect(n.bend!.miter!.leg).toBeCloseTo(2 * M * W, 12);
     }
+    // practice.md S1: four outputs in phase with equal bend counts on all paths.
+    const rep = designPaths(s)[0]!;
+    expect(rep.paths).toHaveLength(4);
+    expect(rep.spreadDeg).toBeLessThan(0.1);
+    expect(new Set(rep.paths.map((p) => p.bends)).size).toBe(1);
     // practice.md S1: miters ≈ 89 % for the 100 Ω lines.
     const m100 = s.nodes.find((n) => n.bend?.miter && Math.abs(n.bend.width - p100.width) < 1e-9)!;
     expect(Math.round(m100.bend!.miter!.fraction * 100)).toBe(89);
