@@ -5,6 +5,7 @@ import { sizeDesign } from '../../core/layout/sizing.ts';
 import { buildBoardGeometry } from '../../core/layout/geometry.ts';
 import { checkFabrication } from '../../core/layout/checks.ts';
 import { designPaths } from '../../core/layout/paths.ts';
+import { placeDesign } from '../../core/layout/place.ts';
 import { validateDesign } from '../../core/design/validate.ts';
 import { InputError } from '../../core/util/errors.ts';
 import { selfIntersects, shoelace } from './geometry-test-helpers.ts';
@@ -25,6 +26,10 @@ describe('corporate-feed generator', () => {
         expect(outs[i]!.x - outs[i - 1]!.x).toBeCloseTo(24e-3, 9);
         expect(outs[i]!.y).toBeCloseTo(outs[0]!.y, 9);
       }
+      const placed = placeDesign(s);
+      expect(placed.anchor).toBe('in');
+      expect(placed.centrelines).toHaveLength(s.pieces.length);
+      expect(placed.nodes.find((x) => x.id === 'in')!.pos).toEqual(doc.nodes[0]!.at); // the anchor keeps its drawn position
       const rep = designPaths(s)[0]!;
       expect(rep.paths).toHaveLength(n);
       expect(rep.spreadDeg).toBeLessThan(1e-6);
