@@ -5,7 +5,7 @@
  *
  * Every edit goes through the core's History (design commands, undo by diffs); a drag is one live step.
  */
-import { History, parseDesign, serializeDesign, newDesign, copySelection, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess } from '../../../core/design/index.ts';
+import { DESIGN_COMMANDS, History, parseDesign, serializeDesign, newDesign, copySelection, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess } from '../../../core/design/index.ts';
 import type { Box, Region, Vec2 } from '../../../core/geometry/types.ts';
 import type { SubstrateSpec } from '../../../core/substrate/types.ts';
 import { InputError } from '../../../core/util/errors.ts';
@@ -52,6 +52,9 @@ export class EditorState {
   flagged = $state.raw<ReadonlySet<string>>(new Set());
   canUndo = $state(false);
   canRedo = $state(false);
+  /** Labels of the next undo and redo steps, for the buttons' tooltips. */
+  undoLabel = $derived.by(() => { void this.revision; void this.canUndo; return this.history.undoLabels.at(-1) ?? ''; });
+  redoLabel = $derived.by(() => { void this.revision; void this.canRedo; return this.history.redoLabels[0] ?? ''; });
 
   readonly tools: ToolMachine;
   board: BoardPort | null = null;
@@ -101,7 +104,7 @@ export class EditorState {
     try {
       if (this.field) {
         // Typing in a field: every keystroke shows at once, and the whole entry becomes one undo step.
-        if (!this.history.isLive) this.history.beginLive(label ?? COMPOSITE_LABELS[id] ?? 'Edit');
+        if (!this.history.isLive) this.history.beginLive(label ?? COMPOSITE_LABELS[id] ?? DESIGN_COMMANDS.get(id)?.label ?? id);
         this.history.apply(id, args);
         this.field.changed = true;
       } else {
