@@ -38,7 +38,7 @@ test('fix a shop-check finding: the loss budget, with a low-loss laminate', asyn
   await finding.click(); // selects and frames the pieces of that path
   await expect(page.getByTestId('piece-sheet')).toContainText('items selected');
   await page.getByTestId('tab-stack').click();
-  const tan = page.getByLabel('tan δ');
+  const tan = page.getByTestId('field-tan');
   await tan.fill('0.002');
   await expect(page.getByTestId('finding-loss-budget')).toHaveCount(0, { timeout: 15_000 });
 });
