@@ -250,8 +250,6 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
   const doc = sized.doc;
   const proc = doc.process;
   const h = doc.substrate.h;
-  const pieceById = new Map(sized.pieces.map((p) => [p.id, p]));
-  const outlineById = new Map(geometry.pieces.map((p) => [p.id, p]));
   const lines = sized.pieces.filter((p) => (p.kind === 'line' || p.kind === 'taper') && Number.isFinite(p.width));
 
   for (const p of sized.problems) {

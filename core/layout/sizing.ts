@@ -375,7 +375,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   }
 
   // ---- placement
-  const placed = placeNodes(doc, works, workById, adj, nodeById, nodeOut, dirFrom, problem, warnings);
+  const placed = placeNodes(doc, workById, adj, nodeOut, dirFrom, problem, warnings);
 
   const pieces = works.map((w) => w.piece);
   const centrelines: Record<string, Vec2[]> = {};
@@ -463,7 +463,7 @@ function sizeTaper(w: Work, cache: LineCache, f0: number, fTop: number, at: (id:
 }
 
 function placeNodes(
-  doc: DesignDoc, works: Work[], workById: Map<string, Work>, adj: Map<string, string[]>, nodeById: Map<string, DesignNode>,
+  doc: DesignDoc, workById: Map<string, Work>, adj: Map<string, string[]>,
   nodeOut: Map<string, SizedNode>, dirFrom: (n: string, s: DesignSegment) => Vec2 | null,
   problem: (code: LayoutProblem['code'], message: string, subjects: string[]) => void, warnings: Warning[],
 ): string | null {
@@ -529,7 +529,6 @@ function placeNodes(
     warnings.push(warn('note', `node ${n.id} is not connected to the anchor port ${anchorNode.id}; its part of the network is placed from its drawn position`, { subjects: [n.id], severity: 'info' }));
     placedFrom(n);
   }
-  void works; void nodeById;
   return anchorNode.id;
 }
 
