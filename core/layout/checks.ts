@@ -276,7 +276,8 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
   if (proc.kind === 'v-bit' && lines.length) {
     // Depth error changes every line's width by ∓2·tan(α/2)·Δdepth (plain V geometry); show it on the narrowest line.
     const narrow = lines.reduce((a, b) => (b.width < a.width ? b : a));
-    const dDepth = 0.02e-3;
+    // ±0.05 mm: about what a clamped blank bows or varies in thickness (practice.md need 15).
+    const dDepth = 0.05e-3;
     const dW = 2 * Math.tan(((proc.angleDeg * Math.PI) / 180) / 2) * dDepth;
     try {
       const cache = new LineCache(doc.substrate);
@@ -334,6 +335,14 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     const c = a.clearance ?? defaultClear;
     if (c < cut) {
       out.push({ severity: 'error', code: 'min-gap', subjects: [a.id], message: `ground copper ${a.id} keeps ${mmS(c)} mm from the network, narrower than ${procName} can cut`, fix: `set its clearance to at least ${mmS(cut)} mm` });
+    }
+    const wBig = Math.max(0, ...lines.map((p) => p.width));
+    if (c >= 3 * h && c < 5 * wBig) {
+      out.push({
+        severity: 'info', code: 'ground-near', subjects: [a.id],
+        message: `ground copper ${a.id} keeps ${mmS(c)} mm, less than 5 × the widest line (${mmS(5 * wBig)} mm): some makers size lines with a coplanar model below that (practice.md need 16); beyond 3h the microstrip model is used here`,
+        fix: `keep ${mmS(5 * wBig)} mm if the board has room`,
+      });
     }
     if (c < 3 * h) {
       const ground = geometry.groundCopper;

@@ -273,6 +273,9 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
           break;
         }
         sn.bend = { style, turn, width: W };
+        if (style.style === 'square' && lineish && f0 > 2e9 && h >= 0.8e-3 && Math.abs(turn - Math.PI / 2) < 0.2) {
+          sn.warnings.push(warn('validity', `square ${deg(turn)}° bend at ${n.id} at ${(f0 / 1e9).toFixed(2)} GHz on a ${(h * 1e3).toFixed(2)} mm board: an unmitered corner reflects noticeably here (practice: flag above 2 GHz on boards of 0.8 mm and more); consider an optimal miter or an arc`, { subjects: [n.id], source: 'common practice' }));
+        }
         if (!lineish) {
           if (turn > 1e-3) sn.warnings.push(warn('fabrication', `${n.id} turns ${deg(turn)}° next to a part; the part's pads are drawn along its own axis`, { subjects: [n.id], severity: 'info' }));
           break;

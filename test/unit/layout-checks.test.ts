@@ -25,6 +25,9 @@ describe('tool cut width', () => {
   it('V-bit: tip + 2·depth·tan(angle/2) (plain geometry): 30°, 0.1 mm tip, 0.05 mm deep → 0.12679 mm', () => {
     expect(cutWidth({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 }) * 1e3).toBeCloseTo(0.1 + 2 * 0.05 * Math.tan(Math.PI / 12), 9);
     expect(cutWidth(endMill(0.4e-3))).toBe(0.4e-3);
+    // practice.md need 15 [calc]: 60° at 0.1 mm deep → 0.215 mm; 90° at 0.1 mm → 0.30 mm (0.1 mm tips).
+    expect(cutWidth({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 60, depth: 0.1e-3 }) * 1e3).toBeCloseTo(0.215, 3);
+    expect(cutWidth({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 90, depth: 0.1e-3 }) * 1e3).toBeCloseTo(0.30, 3);
     // Etching: the artwork gap is the final gap minus twice the edge bias.
     expect(cutWidth({ kind: 'etch', edgeBias: 35e-6, minFeature: 0.2e-3 })).toBeCloseTo(0.27e-3, 12);
   });
@@ -114,6 +117,11 @@ describe('board, keep-outs, ground copper', () => {
     expect(f.subjects).toEqual(['gnd', 'l']);
     expect(f.message).toMatch(/about 5\.0 %/);
     d.areas[0]!.clearance = 3.2 * d.substrate.h;
+    const f2 = run(d).filter((x) => x.code === 'ground-near');
+    expect(f2.some((x) => x.severity === 'warning')).toBe(false);
+    // Still under 5 W (5.5 mm): the coplanar-rule note of practice.md need 16, as information only.
+    expect(f2.map((x) => x.severity)).toEqual(['info']);
+    d.areas[0]!.clearance = 6e-3;
     expect(run(d).some((x) => x.code === 'ground-near')).toBe(false);
   });
 });

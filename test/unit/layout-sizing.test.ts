@@ -150,6 +150,13 @@ describe('impossible requests are errors that name the pieces', () => {
     expect(s.problems.some((p) => p.code === 'bad-topology' && p.subjects.includes('l') && /ghost/.test(p.message))).toBe(true);
     expect(s.problems.some((p) => p.subjects.includes('loop'))).toBe(true);
   });
+  it('square bends are flagged above 2 GHz on boards of 0.8 mm and more (practice.md need 12), not below', () => {
+    const mk = (f0: number) => sizeDesign(design({ f0, substrate: { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 0 },
+      nodes: [port('a', 0, 0), vertex('v', 0.02, 0, { style: 'square' }), port('b', 0.02, 0.02)],
+      segments: [line('l1', 'a', 'v', z(50), lenOf(0.02)), line('l2', 'v', 'b', z(50), lenOf(0.02))] })).nodes.find((n) => n.id === 'v')!.warnings;
+    expect(mk(2.45e9).some((w) => /square 90\.0° bend/.test(w.message))).toBe(true);
+    expect(mk(1e9).some((w) => /square/.test(w.message))).toBe(false);
+  });
   it('a port heading that disagrees with the drawing is noted (the drawing wins)', () => {
     const s = sizeDesign(design({ nodes: [{ ...port('a', 0, 0), heading: Math.PI / 2 }, port('b', 0.01, 0)], segments: [line('l', 'a', 'b', z(50), lenOf(0.01))] }));
     const w = s.nodes.find((n) => n.id === 'a')!.warnings;
