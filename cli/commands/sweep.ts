@@ -263,8 +263,11 @@ function table(l: Loaded, input: number): string {
   for (const p of portRows) lines.push(`  ${p.name.padEnd(10)} ${db(p.returnLoss.value)}      ${fq(p.returnLoss.freq).padEnd(13)} ${p.vswr.value >= 1e11 ? '   (≥ |Γ| = 1)' : p.vswr.value.toFixed(3).padStart(8)}`);
   if (portRows.length < s.ports.length) lines.push(`  (the input and the ${portRows.length - 1} worst matched of ${s.ports.length - 1} other ports; use --json for all)`);
   if (s.paths.length) {
-    lines.push(`  path from ${r.ports[input].name}   insertion loss dB (best … worst)`);
-    for (const p of s.paths.slice(0, 16)) lines.push(`  → ${p.to.padEnd(10)} ${db(p.insertionLoss.best.value)} … ${db(p.insertionLoss.worst.value).trim()}`);
+    lines.push(`  path from ${r.ports[input].name}   insertion loss dB (best … worst)${F > 2 ? '   group delay ns (min … max)' : ''}`);
+    for (const p of s.paths.slice(0, 16)) {
+      const il = `${db(p.insertionLoss.best.value)} … ${db(p.insertionLoss.worst.value).trim()}`;
+      lines.push(`  → ${p.to.padEnd(10)} ${il.padEnd(18)}${F > 2 ? `      ${(p.groupDelay.min.value * 1e9).toFixed(4)} … ${(p.groupDelay.max.value * 1e9).toFixed(4)}` : ''}`);
+    }
     if (s.paths.length > 16) lines.push(`  … and ${s.paths.length - 16} more paths (use --json for all)`);
   }
   if (s.pairs.length) {

@@ -119,7 +119,7 @@ export interface FigureSummary {
     vswr: Worst;
   }[];
   /** From the input to each other port. */
-  paths: { to: string; insertionLoss: { best: Worst; worst: Worst }; groupDelayAtMid: number }[];
+  paths: { to: string; insertionLoss: { best: Worst; worst: Worst }; groupDelayAtMid: number; groupDelay: { min: Worst; max: Worst } }[];
   /** Between each pair of outputs (ports other than the input). */
   pairs: { a: string; b: string; isolation: Worst; amplitudeBalance: Worst; phaseBalance: Worst }[];
 }
@@ -133,7 +133,8 @@ export function summarize(r: NetworkResponse, input = 0): FigureSummary {
   for (let j = 0; j < P; j++) if (j !== input) outs.push(j);
   for (const j of outs) {
     const il = insertionLoss(r, input, j);
-    paths.push({ to: r.ports[j].name, insertionLoss: { best: worst(f, il, 'min'), worst: worst(f, il, 'max') }, groupDelayAtMid: groupDelay(r, j, input)[mid] });
+    const gd = groupDelay(r, j, input);
+    paths.push({ to: r.ports[j].name, insertionLoss: { best: worst(f, il, 'min'), worst: worst(f, il, 'max') }, groupDelayAtMid: gd[mid], groupDelay: { min: worst(f, gd, 'min'), max: worst(f, gd, 'max') } });
   }
   const pairs: FigureSummary['pairs'] = [];
   for (let x = 0; x < outs.length; x++) for (let y = x + 1; y < outs.length; y++) {

@@ -77,3 +77,12 @@ describe('phase helpers', () => {
     expect(wrap180(540)).toBe(180);
   });
 });
+
+describe('summary group delay', () => {
+  it('a matched TEM line has the same delay everywhere: min = max = l·√εeff/c0', () => {
+    const r = solveNetwork({ elements: [{ kind: 'line', id: 'l', a: 'a', b: 'b', length: 0.1, model: idealLine(50, 3) }], ports: [{ name: '1', node: 'a', zRef: 50 }, { name: '2', node: 'b', zRef: 50 }] }, freqs);
+    const p = summarize(r, 0).paths[0];
+    expect(p.groupDelay.min.value).toBeCloseTo((0.1 * Math.sqrt(3)) / C0, 18);
+    expect(p.groupDelay.max.value).toBeCloseTo((0.1 * Math.sqrt(3)) / C0, 18);
+  });
+});
