@@ -11,6 +11,9 @@ import { EMPTY_SCENE } from './scene.ts';
 import { type View, fitBox, panBy, toBoard, toScreen, zoomAt } from './viewport.ts';
 import { gridLines, rulerLabel, type LengthUnit } from './grid.ts';
 import { hitTest, type Hit } from './hit.ts';
+import { regionsPath } from './paths.ts';
+
+export { regionsPath };
 
 export interface BoardPointer {
   type: 'down' | 'move' | 'up' | 'leave' | 'dblclick';
@@ -37,19 +40,6 @@ export interface Preview { run?: Vec2[]; box?: Box; ghost?: Vec2 | null }
 const PICK_PX = 6;
 const RULER_PX = 22;
 const mm = (v: number) => v * 1000;
-
-function ringPath(r: Vec2[]): string {
-  if (r.length === 0) return '';
-  let d = `M${mm(r[0].x)} ${mm(r[0].y)}`;
-  for (let i = 1; i < r.length; i++) d += `L${mm(r[i].x)} ${mm(r[i].y)}`;
-  return d + 'Z';
-}
-
-export function regionsPath(regions: Region[]): string {
-  let d = '';
-  for (const g of regions) { d += ringPath(g.outer); for (const h of g.holes) d += ringPath(h); }
-  return d;
-}
 
 function polyPoints(pts: Vec2[]): [number, number][] {
   return pts.map((p) => [mm(p.x), mm(p.y)]);
@@ -222,7 +212,8 @@ export class BoardController {
       seen.add(p.id);
       const have = this.pieceEls.get(p.id);
       if (have && have.src === p) continue;
-      const d = regionsPath(p.regions);
+      // The worker sends each piece's path text ready-made, so comparing is all the main thread does.
+      const d = p.d ?? regionsPath(p.regions);
       if (have) {
         // A new layout result brings new objects for every piece; touch the DOM only where the copper moved.
         if (have.d !== d) { have.el.plot(d); have.d = d; }

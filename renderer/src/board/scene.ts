@@ -20,7 +20,7 @@ export interface SceneSegment {
   width?: number;
 }
 
-export interface ScenePiece { id: string; regions: Region[] }
+export interface ScenePiece { id: string; regions: Region[]; /** SVG path text of the regions in mm, when prepared by the worker. */ d?: string }
 
 export interface Scene {
   nodes: SceneNode[];

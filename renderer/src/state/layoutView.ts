@@ -12,7 +12,7 @@ export interface LayoutView {
   revision: number;
   sized: SizedDesign;
   /** Each piece's and node's own copper (before union) with its centreline. */
-  outlines: PieceOutline[];
+  outlines: (PieceOutline & { d?: string })[];
   drills: DrillHit[];
   /** Path and phase reports (phase groups, or the anchor port to every other port). */
   paths: PathReport[];

@@ -6,7 +6,7 @@ import type { DesignDoc, DesignNode } from '../../../core/design/types.ts';
 import type { DrillHit, Region, Vec2 } from '../../../core/geometry/types.ts';
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
 
-export interface SceneCopper { outlines: PieceOutline[]; drills: DrillHit[] }
+export interface SceneCopper { outlines: (PieceOutline & { d?: string })[]; drills: DrillHit[] }
 import type { Scene, SceneSegment } from '../board/scene.ts';
 
 export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed: ReadonlyMap<string, { at: Vec2; pos: Vec2 }> | null = null, ground: Region[] = []): Scene {

@@ -14,13 +14,14 @@ import { InputError, exhaustive } from '../../../core/util/errors.ts';
 import { toDxf, toSvg, toGerber, toExcellon, toMask, type ExportLayer } from '../../../core/export/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
+import { regionsPath } from '../board/paths.ts';
 
 export interface LayoutInput { doc: DesignDoc }
 /**
  * The live layout: sized pieces and each piece's own copper (no union, so it needs no polygon engine and stays
  * fast while dragging). The united board geometry is built only for outputs (geometryJob).
  */
-export interface LayoutOutput { sized: SizedDesign; outlines: PieceOutline[]; drills: DrillHit[]; paths: PathReport[]; geometryError: string | null }
+export interface LayoutOutput { sized: SizedDesign; outlines: (PieceOutline & { d: string })[]; drills: DrillHit[]; paths: PathReport[]; geometryError: string | null }
 
 export interface ResponseInput { doc: DesignDoc; points?: number }
 /** Plot-ready series: for every (i, j) pair |S| in dB, phase in degrees and group delay in s; reflections for Smith. */
@@ -69,11 +70,13 @@ export async function layoutJob(input: LayoutInput, progress: (p: Progress) => v
   progress({ done: 0, total: 2, label: 'sizing' });
   const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
   progress({ done: 1, total: 2, label: 'copper' });
-  let outlines: PieceOutline[] = [];
+  let outlines: (PieceOutline & { d: string })[] = [];
   let drills: DrillHit[] = [];
   let geometryError: string | null = null;
   try {
-    ({ outlines, drills } = pieceOutlines(sized));
+    const made = pieceOutlines(sized);
+    outlines = made.outlines.map((o) => ({ ...o, d: regionsPath(o.regions) }));
+    drills = made.drills;
   } catch (err) {
     // The sizes are still worth showing when the copper cannot be drawn (an unplaced piece, for example).
     geometryError = errorText(err);
