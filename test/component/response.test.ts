@@ -33,3 +33,19 @@ describe('response dock', () => {
     compute.destroy();
   });
 });
+
+describe('response dock on the two-way divider example', () => {
+  it('shows an equal split (10·log10(1/2) = −3.01 dB less the line loss) and isolated outputs at f0 (Wilkinson, IRE Trans. MTT-8, 1960)', async () => {
+    const ed = new EditorState();
+    expect(ed.loadText(exampleText('wilkinson-2g45')!, null)).toBeNull();
+    const compute = new Compute(ed, null);
+    render(ResponsePanel, { editor: ed, compute });
+    await waitFor(() => expect(screen.getByTestId('f0-S32')).toBeTruthy(), { timeout: 20_000 });
+    const val = (id: string) => parseFloat(screen.getByTestId(id).textContent!.replace(/^S\d\d/, ''));
+    const lay = await layoutJob({ doc: ed.doc }, () => {});
+    const loss = lay.paths[0]!.paths[0]!.lossDb;
+    expect(Math.abs(val('f0-S21') - (10 * Math.log10(1 / 2) - loss))).toBeLessThan(0.3);
+    expect(val('f0-S32')).toBeLessThan(-20);
+    compute.destroy();
+  });
+});
