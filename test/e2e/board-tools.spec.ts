@@ -174,3 +174,14 @@ test('ground copper and keep-out areas: draw, select, set the clearance, delete'
   await page.keyboard.press('Delete');
   await expect(page.locator('.area-ground')).toHaveCount(before);
 });
+
+test('the two-way divider example: response with isolation, and its screenshot', async ({ page }) => {
+  await openDemo(page);
+  await page.getByTestId('menu-examples').click();
+  await page.getByTestId('example-wilkinson-2g45').click();
+  await expect(page.getByTestId('design-name')).toContainText('2.45 GHz');
+  await page.getByTestId('dock-response').click();
+  await expect(page.getByTestId('f0-S32')).toBeVisible({ timeout: 30_000 });
+  await page.mouse.move(10, 300);
+  await page.screenshot({ path: `${shots}/divider-response.png` });
+});
