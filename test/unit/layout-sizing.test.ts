@@ -158,7 +158,7 @@ describe('impossible requests are errors that name the pieces', () => {
     expect(mk(1e9).some((w) => /square/.test(w.message))).toBe(false);
   });
   it('a port heading that disagrees with the drawing is noted (the drawing wins)', () => {
-    const s = sizeDesign(design({ nodes: [{ ...port('a', 0, 0), heading: Math.PI / 2 }, port('b', 0.01, 0)], segments: [line('l', 'a', 'b', z(50), lenOf(0.01))] }));
+    const s = sizeDesign(design({ nodes: [port('a', 0, 0, Math.PI / 2), port('b', 0.01, 0)], segments: [line('l', 'a', 'b', z(50), lenOf(0.01))] }));
     const w = s.nodes.find((n) => n.id === 'a')!.warnings;
     expect(w.some((x) => /leaves at 90\.0°/.test(x.message))).toBe(true);
     expect(s.nodes.find((n) => n.id === 'b')!.pos.x).toBeCloseTo(0.01, 12);
