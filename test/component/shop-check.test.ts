@@ -24,6 +24,8 @@ describe('shop check dock', () => {
     expect(ed.loadText(exampleText('demo')!, null)).toBeNull();
     const compute = new Compute(ed, null);
     render(ShopCheck, { editor: ed, compute });
+    // The App runs the check after each edit; here the test does.
+    void compute.check();
     await waitFor(() => expect(screen.getAllByTestId('finding-loss-budget').length).toBeGreaterThan(0), { timeout: 20_000 });
     expect(screen.getByTestId('shop-check').textContent).toMatch(/Fix: a low-loss laminate/);
     await fireEvent.click(screen.getAllByTestId('finding-loss-budget')[0]!);
@@ -31,6 +33,7 @@ describe('shop check dock', () => {
     expect([...ed.selection].sort()).toEqual([...f.subjects].sort());
     expect(f.subjects.every((id) => ed.flagged.has(id))).toBe(true);
     ed.setSubstrate({ tanDelta: 0.002 });
+    void compute.check();
     await waitFor(() => expect(screen.queryAllByTestId('finding-loss-budget').length).toBe(0), { timeout: 20_000 });
     compute.destroy();
   });

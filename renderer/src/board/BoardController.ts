@@ -57,6 +57,8 @@ export class BoardController {
   private readonly nodeLayer: G;
   private readonly drillLayer: G;
   private readonly overlay: G;
+  private readonly labelLayer: G;
+  private labelKey = '';
   private readonly rulerX: Svg;
   private readonly rulerY: Svg;
   private view: View;
@@ -86,6 +88,7 @@ export class BoardController {
     this.lineLayer = this.world.group().addClass('centrelines');
     this.drillLayer = this.world.group().addClass('drills');
     this.nodeLayer = this.world.group().addClass('nodes');
+    this.labelLayer = this.root.group().addClass('labels');
     this.overlay = this.root.group().addClass('overlay');
     this.rulerX = SVG().addTo(host).addClass('ruler ruler-x');
     this.rulerY = SVG().addTo(host).addClass('ruler ruler-y');
@@ -159,6 +162,7 @@ export class BoardController {
     this.drawLines();
     this.drawNodes();
     this.drawOutline();
+    this.drawLabels();
   }
 
   setMarks(m: Marks): void {
@@ -310,7 +314,23 @@ export class BoardController {
     this.world.attr('transform', `matrix(${k} 0 0 ${-k} ${v.width / 2 - mm(v.cx) * k} ${v.height / 2 + mm(v.cy) * k})`);
     this.drawGrid();
     this.drawNodes();
+    this.drawLabels();
     this.callbacks.onView?.(v);
+  }
+
+  /** Port names in screen space (text never mirrors or scales with the board), beside each port. */
+  private drawLabels(): void {
+    const v = this.view;
+    const ports = this.scene.nodes.filter((n) => n.kind === 'port');
+    const key = `${v.cx},${v.cy},${v.scale},${v.width},${v.height}|` + ports.map((n) => `${n.id}:${n.label ?? ''}:${n.at.x},${n.at.y}`).join(';');
+    if (key === this.labelKey) return;
+    this.labelKey = key;
+    this.labelLayer.clear();
+    for (const n of ports) {
+      const sp = toScreen(v, n.at);
+      if (sp.x < -50 || sp.y < -20 || sp.x > v.width + 50 || sp.y > v.height + 20) continue;
+      this.labelLayer.plain(n.label ?? n.id).attr({ x: sp.x + 9, y: sp.y - 8, 'data-label': n.id }).addClass('port-label');
+    }
   }
 
   private drawGrid(): void {
