@@ -217,3 +217,20 @@ describe('stack panel presets', () => {
     expect(screen.getByTestId('preset-note').textContent).toMatch(/^Edited/);
   });
 });
+
+describe('port launch pads', () => {
+  it('a launch pad starts as wide as the line it feeds and becomes copper on the board', async () => {
+    const ed = demoEditor();
+    await sized(ed);
+    expect(ed.layout!.outlines.some((o) => o.id === 'out1')).toBe(false);
+    ed.select(['out1']);
+    render(PieceSheet, { editor: ed });
+    await fireEvent.click(screen.getByTestId('field-launch'));
+    const port = ed.doc.nodes.find((n) => n.id === 'out1')!;
+    const line = ed.doc.segments.find((x) => x.a === 'out1' || x.b === 'out1')!;
+    const f = ed.figuresOf(line.id)!;
+    expect(port.kind === 'port' && port.launch?.padWidth).toBeCloseTo(line.b === 'out1' ? f.widthEnd ?? f.width : f.width, 12);
+    await sized(ed);
+    expect(ed.layout!.outlines.some((o) => o.id === 'out1')).toBe(true);
+  });
+});

@@ -303,6 +303,13 @@ export class EditorState {
 
   figuresOf(id: string): PieceFigures | null { return this.layout?.figures.get(id) ?? null; }
 
+  /** Sized copper width of the line that meets node `id`, if known. */
+  lineWidthAt(id: string): number | null {
+    const s = this.doc.segments.find((x) => x.a === id || x.b === id);
+    const f = s ? this.figuresOf(s.id) : null;
+    return f ? (s!.b === id && f.widthEnd !== undefined ? f.widthEnd : f.width) : null;
+  }
+
   drawnLength(id: string): number {
     const s = this.scene.segments.find((x) => x.id === id);
     return s ? Math.hypot(s.b.x - s.a.x, s.b.y - s.a.y) : 1e-3;
