@@ -230,12 +230,17 @@ function toJson(l: Loaded, input: number) {
     figures: {
       ports: r.ports.map((p, i) => ({ name: p.name, returnLossDb: arr(returnLoss(r, i)), vswr: arr(vswr(r, i)) })),
       paths: outs.map((j) => ({ from: r.ports[input].name, to: r.ports[j].name, magnitudeDb: arr(magnitudeDb(r, j, input)), phaseDeg: arr(phaseDeg(r, j, input)), groupDelayS: arr(groupDelay(r, j, input)) })),
-      pairs: pairsOf(outs).map(([a, b]) => ({ a: r.ports[a].name, b: r.ports[b].name, isolationDb: arr(isolation(r, a, b)), amplitudeBalanceDb: arr(amplitudeBalance(r, input, a, b)), phaseBalanceDeg: arr(phaseBalance(r, input, a, b)) })),
+      // Per-frequency pair series grow with the square of the outputs; past MAX_PAIR_SERIES only the worst values
+      // (in `worst.pairs`) are given, and S itself still holds everything.
+      pairs: pairsOf(outs).length > MAX_PAIR_SERIES ? [] : pairsOf(outs).map(([a, b]) => ({ a: r.ports[a].name, b: r.ports[b].name, isolationDb: arr(isolation(r, a, b)), amplitudeBalanceDb: arr(amplitudeBalance(r, input, a, b)), phaseBalanceDeg: arr(phaseBalance(r, input, a, b)) })),
+      ...(pairsOf(outs).length > MAX_PAIR_SERIES ? { pairsOmitted: `${pairsOf(outs).length} output pairs: per-frequency series left out (see worst.pairs and s)` } : {}),
     },
     worst: summarize(r, input),
     warnings: [...l.warnings, ...r.warnings],
   };
 }
+
+const MAX_PAIR_SERIES = 120;
 
 function pairsOf(outs: number[]): [number, number][] {
   const out: [number, number][] = [];
