@@ -364,6 +364,12 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
       p.length = 0; p.span = p.nominalLength; p.deg = 0; p.effectiveDeg = 0;
       continue;
     }
+    if ((w.seg.kind === 'line' || w.seg.kind === 'taper') && w.seg.length.by === 'drawn') {
+      // A drawn piece keeps the drawing: its nodes stay where they were drawn, and the electrical length it realises
+      // follows from its ends (an open end adds Δl, an arc path is shorter than the corner path).
+      p.span = p.nominalLength;
+      p.nominalLength = p.span + w.cut - w.arcExtra;
+    }
     p.length = p.nominalLength - w.cut - w.pads;
     p.span = p.nominalLength - w.cut + w.arcExtra;
     const beta = pieceBeta(p);

@@ -31,6 +31,14 @@ describe('widths and lengths at f0', () => {
       expect(Math.abs(s.pieces[0]!.length - C0 / (4 * 5.8e9 * Math.sqrt(ee))) / s.pieces[0]!.length).toBeLessThan(1e-5);
     }
   });
+  it('a drawn piece keeps the drawing: a drawn open stub ends where drawn and realises Δl more electrical length', () => {
+    const s = sizeDesign(design({ nodes: [port('a', 0, 0), open('e', 0.01, 0)], segments: [line('s', 'a', 'e', wd(1.1122e-3), { by: 'drawn' })] }));
+    const p = s.pieces[0]!;
+    expect(s.nodes.find((n) => n.id === 'e')!.pos.x).toBeCloseTo(0.01, 12);
+    expect(p.length).toBeCloseTo(0.01, 12);
+    expect(p.nominalLength - 0.01).toBeCloseTo(0.2174e-3, 7); // KJK Δl, methods.md §6.1
+    expect(p.effectiveDeg).toBeGreaterThan(p.deg);
+  });
   it('drawn length is the distance between the drawn nodes', () => {
     const s = sizeDesign(design({ nodes: [port('a', 0, 0), port('b', 0.003, 0.004)], segments: [line('l', 'a', 'b', z(50), { by: 'drawn' })] }));
     expect(s.pieces[0]!.length).toBeCloseTo(0.005, 12);
