@@ -150,12 +150,16 @@ test('work left unsaved is offered back after the page is closed', async ({ page
   await page.goto('/');
   await drawDivider(page);
   await page.waitForTimeout(2600); // the recovery copy is written 2 s after the last edit
+  // Leaving with unsaved work makes the browser ask first; say yes.
+  const asked: string[] = [];
+  page.on('dialog', (d) => { asked.push(d.type()); void d.accept(); });
   await page.reload();
   await expect(page.getByTestId('confirm-dialog')).toContainText('Recover unsaved work?');
   await page.getByTestId('confirm-restore').click();
   await expect(page.getByTestId('design-name')).toHaveText('Untitled feed');
   await expect(page.getByTestId('dirty')).toBeVisible();
   await expect(page.locator('[data-seg]')).toHaveCount(3);
+  expect(asked).toContain('beforeunload');
 });
 
 test('a file that is not a design is refused with the reason, and the open design stays', async ({ page }, info) => {

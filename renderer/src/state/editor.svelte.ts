@@ -285,7 +285,10 @@ export class EditorState {
     return b && { minX: b.minX - margin, minY: b.minY - margin, maxX: b.maxX + margin, maxY: b.maxY + margin };
   }
 
-  fitAll(): void { this.board?.fit(boxOf(scenePoints(this.doc, this.layout))); }
+  /** Zoom to fit everything; an empty design shows 60 × 40 mm around the origin. */
+  fitAll(): void {
+    this.board?.fit(boxOf(scenePoints(this.doc, this.layout)) ?? { minX: -0.03, minY: -0.02, maxX: 0.03, maxY: 0.02 });
+  }
 
   setTool(t: ToolId): void { this.tool = t; this.tools.setTool(t); }
 
