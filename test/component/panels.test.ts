@@ -234,3 +234,16 @@ describe('port launch pads', () => {
     expect(ed.layout!.outlines.some((o) => o.id === 'out1')).toBe(true);
   });
 });
+
+describe('phase sensitivity', () => {
+  it('for a line held at its physical length, φ ∝ √εeff, so the phase sensitivity to εr lies between 0 and ½ (methods.md §10.1)', async () => {
+    const ed = demoEditor();
+    ed.showSensitivity = true;
+    const out = await layoutJob({ doc: ed.doc, sensitivities: true }, () => {});
+    ed.applyLayout({ revision: ed.revision, sized: out.sized, outlines: out.outlines, drills: out.drills, paths: out.paths, placed: placedFrom(out.sized), figures: figuresFrom(out.sized), ms: 0 }, out.geometryError);
+    render(PathLedger, { editor: ed });
+    const s = parseFloat(screen.getByTestId('sens-er-out1').textContent!);
+    expect(s).toBeGreaterThan(0);
+    expect(s).toBeLessThan(0.5);
+  });
+});

@@ -36,7 +36,7 @@ export class Compute {
     const revision = this.editor.revision;
     const doc = this.editor.doc;
     const t = setTimeout(() => { this.busy = 'sizing…'; }, 150);
-    const out = await this.client.run<LayoutOutput>('layout', { doc });
+    const out = await this.client.run<LayoutOutput>('layout', { doc, sensitivities: this.editor.showSensitivity });
     clearTimeout(t);
     this.busy = null;
     this.running = false;

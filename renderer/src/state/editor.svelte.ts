@@ -43,6 +43,8 @@ export class EditorState {
   hovered = $state<string | null>(null);
   hoverAt = $state.raw<Vec2 | null>(null);
   tool = $state<ToolId>('pick');
+  /** The path ledger shows each path's phase sensitivity to εr, h and W (the layout job then works them out). */
+  showSensitivity = $state(false);
   theme = $state<Theme>('light');
   status = $state('');
   /** Sizing, geometry, paths and checks of the current revision (from the worker); null until the first result. */

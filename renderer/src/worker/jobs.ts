@@ -16,7 +16,7 @@ import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
 
-export interface LayoutInput { doc: DesignDoc }
+export interface LayoutInput { doc: DesignDoc; /** Also work out each path's phase sensitivity to εr, h and W (slower). */ sensitivities?: boolean }
 /**
  * The live layout: sized pieces and each piece's own copper (no union, so it needs no polygon engine and stays
  * fast while dragging). The united board geometry is built only for outputs (geometryJob).
@@ -83,7 +83,7 @@ export async function layoutJob(input: LayoutInput, progress: (p: Progress) => v
   }
   let paths: PathReport[] = [];
   if (!sized.problems.length) {
-    try { paths = designPaths(sized, { sensitivities: false }); } catch (err) { geometryError ??= errorText(err); }
+    try { paths = designPaths(sized, { sensitivities: input.sensitivities === true }); } catch (err) { geometryError ??= errorText(err); }
   }
   progress({ done: 2, total: 2, label: 'done' });
   return { sized, outlines, drills, paths, geometryError };
