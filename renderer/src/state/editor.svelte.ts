@@ -247,6 +247,9 @@ export class EditorState {
     this.savedRevision = this.history.revision;
     this.file = file;
     this.docId = makeDocId();
+    // Frame the new design at once from its drawn positions (not later, when the first layout lands: the view
+    // must not jump under a user who has started drawing).
+    this.fitAll();
   }
 
   /** Loads design text; returns the problems as text when it cannot be read (the current design stays). */
