@@ -247,3 +247,18 @@ describe('phase sensitivity', () => {
     expect(s).toBeLessThan(0.5);
   });
 });
+
+describe('hover notes for nodes', () => {
+  it('a 90° bend of a 100 Ω line carries the optimal miter of Douville & James (IEEE Trans. MTT-26, 1978): M = 52 + 65·exp(−1.35 W/h) %', async () => {
+    const { nodeNotes } = await import('../../renderer/src/state/layoutView.ts');
+    const ed = demoEditor();
+    const out = await layoutJob({ doc: ed.doc }, () => {});
+    const notes = nodeNotes(out.sized);
+    const W = out.sized.pieces.find((p) => p.id === 'br1')!.width;
+    const M = 52 + 65 * Math.exp((-1.35 * W) / ed.doc.substrate.h);
+    const note = notes.get('c1')!;
+    expect(note).toMatch(/^bend 90\.0°, miter \d+ %/);
+    expect(Math.abs(parseFloat(note.match(/miter (\d+) %/)![1]!) - M)).toBeLessThanOrEqual(1);
+    expect(notes.get('t0')).toBe('tee');
+  });
+});

@@ -6,7 +6,7 @@
 import { ComputeClient, type Progress } from '../worker/client.ts';
 import { runJob } from '../worker/jobs.ts';
 import type { EditorState } from './editor.svelte.ts';
-import { figuresFrom, placedFrom, type LayoutView } from './layoutView.ts';
+import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
 import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, ResponseInput, ResponseOutput } from '../worker/jobs.ts';
 
 export class Compute {
@@ -41,7 +41,7 @@ export class Compute {
     this.busy = null;
     this.running = false;
     if (out.ok) {
-      const v: LayoutView = { revision, sized: out.value.sized, outlines: out.value.outlines, drills: out.value.drills, paths: out.value.paths, placed: placedFrom(out.value.sized), figures: figuresFrom(out.value.sized), ms: out.ms };
+      const v: LayoutView = { revision, sized: out.value.sized, outlines: out.value.outlines, drills: out.value.drills, paths: out.value.paths, placed: placedFrom(out.value.sized), figures: figuresFrom(out.value.sized), notes: nodeNotes(out.value.sized), ms: out.ms };
       this.editor.applyLayout(v, out.value.geometryError);
       this.lastLayoutMs = out.ms;
     } else if ('error' in out) {

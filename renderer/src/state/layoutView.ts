@@ -19,6 +19,8 @@ export interface LayoutView {
   /** Each node's drawn position the layout was made from, and where it placed the node, by node id. */
   placed: Map<string, { at: Vec2; pos: Vec2 }>;
   figures: Map<string, PieceFigures>;
+  /** A line about each node (bend, tee, end, via, port) for the hover readout. */
+  notes?: Map<string, string>;
   ms: number;
 }
 
@@ -30,6 +32,27 @@ export function figuresFrom(sized: SizedDesign): Map<string, PieceFigures> {
       compensations: p.compensations.map((c) => ({ model: c.model, source: c.source, amount: c.amount_m, applied: c.applied, node: c.node, note: c.note })),
       warnings: p.warnings,
     });
+  }
+  return m;
+}
+
+/** One line about a node for the hover readout: the bend, tee, end or via as the sizing made it. */
+export function nodeNotes(sized: SizedDesign): Map<string, string> {
+  const m = new Map<string, string>();
+  const mm = (v: number) => `${(v * 1e3).toFixed(3)} mm`;
+  for (const n of sized.nodes) {
+    let t = '';
+    if (n.bend) {
+      const deg = (n.bend.turn * 180) / Math.PI;
+      const style = n.bend.style.style;
+      t = `bend ${deg.toFixed(1)}°, ${style === 'miter-optimal' || style === 'miter' ? `miter ${((n.bend.miter?.fraction ?? 0) * 100).toFixed(0)} %` : style === 'arc' ? `arc r ${mm(n.bend.arc?.radius ?? 0)}` : 'square corner'}, w ${mm(n.bend.width)}`;
+    } else if (n.step) t = 'width step';
+    else if (n.tee) t = 'tee';
+    else if (n.cross) t = 'cross';
+    else if (n.open) t = `open end, Δl ${mm(n.open.dl)}`;
+    else if (n.via) t = `via ${mm(n.via.drill)} drill, L ${(n.via.L * 1e9).toFixed(3)} nH`;
+    else if (n.port) t = `port, ${n.port.zRef} Ω`;
+    if (t) m.set(n.id, t);
   }
   return m;
 }
