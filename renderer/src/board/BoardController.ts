@@ -286,12 +286,12 @@ export class BoardController {
   private drawAreas(): void {
     const sel = this.marks.selected, fl = this.marks.flagged;
     const key = this.scene.areas.map((a) => `${a.id}${a.kind}${sel.has(a.id) ? '*' : ''}${fl.has(a.id) ? '!' : ''}:${a.polygon.map((p) => `${p.x},${p.y}`).join(' ')}`).join('|')
-      + `#${this.scene.ground.length}:${this.scene.ground.reduce((n, r) => n + r.outer.length, 0)}`;
+      + `#${this.scene.groundStale ? 's' : ''}${this.scene.ground.length}:${this.scene.ground.reduce((n, r) => n + r.outer.length, 0)}`;
     if (key === this.areaKey) return;
     this.areaKey = key;
     this.areaLayer.clear();
     // Ground copper as it will be made (cleared around the network), when the last check is current.
-    if (this.scene.ground.length) this.areaLayer.path(regionsPath(this.scene.ground)).attr({ class: 'ground-copper', 'fill-rule': 'evenodd' });
+    if (this.scene.ground.length) this.areaLayer.path(regionsPath(this.scene.ground)).attr({ class: this.scene.groundStale ? 'ground-copper stale' : 'ground-copper', 'fill-rule': 'evenodd' });
     for (const a of this.scene.areas) {
       const cls = ['area', a.kind === 'keep-out' ? 'area-keepout' : 'area-ground'];
       if (sel.has(a.id)) cls.push('selected');

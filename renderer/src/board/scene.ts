@@ -31,6 +31,8 @@ export interface Scene {
   /** Ground-copper and keep-out areas as drawn, and the ground copper left after clearing (from the last check). */
   areas: { id: string; kind: 'ground-copper' | 'keep-out'; polygon: Vec2[] }[];
   ground: Region[];
+  /** The ground copper is from an earlier revision (a check is on its way): drawn faded. */
+  groundStale?: boolean;
   drills: { at: Vec2; diameter: number }[];
 }
 

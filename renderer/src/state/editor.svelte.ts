@@ -67,7 +67,7 @@ export class EditorState {
   gridStep = $derived(this.doc.view?.grid ?? (this.units === 'mil' ? 5 * UNIT_METRES.mil : 0.1e-3));
   /** Ground copper left after clearing, from the last shop check, with the revision it belongs to. */
   ground = $state.raw<{ revision: number; regions: Region[] } | null>(null);
-  scene = $derived<Scene>(buildScene(this.doc, this.layout, this.layout?.placed ?? null, this.ground?.revision === this.revision ? this.ground.regions : []));
+  scene = $derived<Scene>({ ...buildScene(this.doc, this.layout, this.layout?.placed ?? null, this.ground?.regions ?? []), groundStale: this.ground?.revision !== this.revision });
   selectedSegment = $derived<DesignSegment | null>(this.single((id) => this.doc.segments.find((s) => s.id === id)));
   selectedNode = $derived<DesignNode | null>(this.single((id) => this.doc.nodes.find((n) => n.id === id)));
   selectedArea = $derived<Area | null>(this.single((id) => this.doc.areas.find((a) => a.id === id)));
@@ -241,6 +241,8 @@ export class EditorState {
     this.tools.cancel();
     this.selection = new Set();
     this.layout = null;
+    this.ground = null;
+    this.flagged = new Set();
     this.history.reset(doc);
     this.canUndo = false;
     this.canRedo = false;
