@@ -185,3 +185,18 @@ test('the two-way divider example: response with isolation, and its screenshot',
   await page.mouse.move(10, 300);
   await page.screenshot({ path: `${shots}/divider-response.png` });
 });
+
+test('the snap grid can be chosen in the status line and frames the selection with Shift+F', async ({ page }) => {
+  await openDemo(page);
+  await page.getByTestId('grid-step').selectOption({ label: '1 mm' });
+  await expect(page.getByTestId('grid-step')).toHaveValue('0.001');
+  await page.getByTestId('tab-pieces').click();
+  await page.getByTestId('piece-row-qwl').click();
+  const scale = async () => parseFloat((await page.getByTestId('status').locator('..').innerText()).match(/([\d.]+) px\/mm/)![1]!);
+  const framed = await scale();
+  await page.getByTestId('board-canvas').focus();
+  await page.keyboard.press('f');
+  expect(await scale()).toBeLessThan(framed);
+  await page.keyboard.press('Shift+F');
+  expect(await scale()).toBeCloseTo(framed, 1);
+});

@@ -39,6 +39,7 @@ export function appCommands(ed: EditorState, files: FileActions, shell: ShellHoo
     { id: 'view.zoom-in', group: 'View', label: 'Zoom in', keys: ['=', '+'], run: () => ed.board?.zoomBy(1.4) },
     { id: 'view.zoom-out', group: 'View', label: 'Zoom out', keys: ['-'], run: () => ed.board?.zoomBy(1 / 1.4) },
     { id: 'view.zoom-fit', group: 'View', label: 'Zoom to fit', keys: ['F', 'Home'], run: () => ed.fitAll() },
+    { id: 'view.zoom-selection', group: 'View', label: 'Zoom to the selection', keys: ['Shift+F'], enabled: sel, run: () => ed.selectAndFrame([...ed.selection]) },
     { id: 'view.units', group: 'View', label: 'Switch units mm / mil', keys: ['U'], run: () => ed.setUnits(ed.units === 'mm' ? 'mil' : 'mm') },
     { id: 'view.grid-finer', group: 'View', label: 'Finer snap grid', keys: ['['], run: () => ed.setGrid(Math.max(ed.gridStep / 2, 1e-6)) },
     { id: 'view.grid-coarser', group: 'View', label: 'Coarser snap grid', keys: [']'], run: () => ed.setGrid(Math.min(ed.gridStep * 2, 0.01)) },
