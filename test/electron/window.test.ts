@@ -1,5 +1,5 @@
 // The window factory and its hardening, key by key against the Electron security checklist
-// (https://www.electronjs.org/docs/latest/tutorial/security, items as numbered in /work/shared/reliability.md §1),
+// (https://www.electronjs.org/docs/latest/tutorial/security, items as numbered in reliability.md §1),
 // with a stand-in 'electron' module (never the real one: toolchain.md §4).
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { FakeBrowserWindow } from './fake-electron.ts';

@@ -7,7 +7,7 @@
  * Sources: single-stub shunt tuning and the binomial multisection transformer, D. M. Pozar, Microwave Engineering,
  * 4th ed., Wiley 2012, §5.2 (eqs. 5.9–5.10) and §5.6 (eqs. 5.46–5.51); Wilkinson arm impedance √2·Z0 and resistor
  * 2·Z0, E. J. Wilkinson, IRE Trans. MTT-8, 1960; branch-line arms Z0/√2 and Z0, Pozar §7.5. Scenario numbers
- * (36.2 mm pitch, band 5.725–5.875 GHz, processes) from /work/shared/practice.md S1–S3.
+ * (36.2 mm pitch, band 5.725–5.875 GHz, processes) from practice.md S1–S3.
  */
 import { describe, expect, it } from 'vitest';
 import { execSync, spawnSync } from 'node:child_process';

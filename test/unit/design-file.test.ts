@@ -1,5 +1,5 @@
 /**
- * The design file: round trip, unknown fields, the bad-input catalogue of /work/shared/reliability.md §3.5 (each
+ * The design file: round trip, unknown fields, the bad-input catalogue of reliability.md §3.5 (each
  * with its exact message), version refusal and size limits. The messages are our own wording, so they are checked
  * word for word: a face shows them as they are.
  */

@@ -1,6 +1,6 @@
 /**
  * Migrations of the design file (reliability.md §3.3; the "every migration exercised" guard follows the practice
- * described in /work/shared/style.md rule 8). Fixtures under test/fixtures/design/vN/ are files as version N wrote
+ * described in style.md rule 8). Fixtures under test/fixtures/design/vN/ are files as version N wrote
  * them.
  */
 import { describe, expect, it } from 'vitest';
