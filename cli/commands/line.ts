@@ -2,9 +2,10 @@
  * `stripwright line`: size (Z0 → W) or analyse (W → Z0) one microstrip line, or a CSV file of them.
  * A thin face over core/line: values are parsed with core/units, results printed as a table or JSON (SI numbers).
  */
+import { writeOutputFile } from '../files.ts';
 import { parseArgs } from 'node:util';
-import { readFileSync, writeFileSync, renameSync, statSync, unlinkSync } from 'node:fs';
-import { resolve, dirname, basename, join } from 'node:path';
+import { readFileSync, statSync } from 'node:fs';
+import { resolve } from 'node:path';
 import {
   analyzeLine, synthesizeLine, lengthForDegrees, degreesForLength, parseQuantity, formatQuantity, findPreset,
   SUBSTRATE_PRESETS, DISPERSION_MODELS, CONDUCTOR_LOSS_MODELS, DEFAULT_COPPER_T, ANNEALED_COPPER_SIGMA, InputError,
@@ -239,7 +240,7 @@ function csvCell(v: unknown): string {
 const RESULT_COLUMNS = ['width_m', 'z0_ohm', 'z0_static_ohm', 'eps_eff', 'eps_eff_static', 'f_hz', 'lambda_g_m', 'vp_m_per_s',
   'delay_s_per_m', 'alpha_c_db_per_m', 'alpha_d_db_per_m', 'skin_depth_m', 'threshold_hz', 'length_m', 'deg'] as const;
 
-function runBatch(path: string, defaults: CaseText, outPath: string | undefined, force: boolean, io: CliIo): number {
+async function runBatch(path: string, defaults: CaseText, outPath: string | undefined, force: boolean, io: CliIo): Promise<number> {
   const file = resolve(io.cwd, path);
   let text: string;
   try {
@@ -286,11 +287,8 @@ function runBatch(path: string, defaults: CaseText, outPath: string | undefined,
     const target = resolve(io.cwd, outPath);
     if (target === file) { io.err('stripwright line: --out must not be the batch file itself (it would be overwritten)'); return 1; }
     if (!force && exists(target)) { io.err(`stripwright line: ${outPath} exists; choose another --out or add --force to replace it`); return 1; }
-    // Write next to the target, then rename: a crash never leaves a half-written results file.
-    const tmp = join(dirname(target), `.${basename(target)}.${process.pid}.tmp`);
-    try { writeFileSync(tmp, csv, { encoding: 'utf8', flag: 'wx' }); renameSync(tmp, target); } catch (e) {
-      try { unlinkSync(tmp); } catch { /* nothing to clean */ }
-      io.err(`stripwright line: cannot write ${outPath}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+    try { await writeOutputFile(target, csv); } catch (e) {
+      io.err(`stripwright line: ${(e as Error).message}`);
       return 1;
     }
     io.err(`stripwright line: ${rows.length - 1 - failed} of ${rows.length - 1} rows sized, results in ${outPath}`);
@@ -309,7 +307,7 @@ export const lineCommand: CliCommand = {
     for (const k of CASE_KEYS) if (values[k] !== undefined) c[k] = values[k];
     if (values.batch !== undefined) {
       if (values.json) throw new UsageError('--json is for one case; --batch writes CSV');
-      return runBatch(values.batch, c, values.out, values.force === true, io);
+      return await runBatch(values.batch, c, values.out, values.force === true, io);
     }
     if (values.out !== undefined || values.force) throw new UsageError('--out and --force go with --batch');
     try {

@@ -3,9 +3,10 @@
  * a Touchstone file. A thin face over core/network: the design is parsed, sized, turned into a netlist and swept.
  * A Touchstone file given instead of a design is read and summarised the same way (to look at a measured board).
  */
+import { OutputError, writeOutputFile } from '../files.ts';
 import { parseArgs } from 'node:util';
-import { closeSync, existsSync, fsyncSync, openSync, readFileSync, renameSync, statSync, unlinkSync, writeSync } from 'node:fs';
-import { basename, dirname, join, resolve } from 'node:path';
+import { existsSync, readFileSync, statSync } from 'node:fs';
+import { basename, resolve } from 'node:path';
 import {
   InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
   readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
@@ -132,7 +133,7 @@ export const sweepCommand: CliCommand = {
           format, unit, zRef: zref, version: tsVersion, app: `stripwright ${VERSION}`, design: loaded.name,
           comments: [`from ${basename(file)}`],
         });
-        atomicWrite(out, ts);
+        await writeOutputFile(out, ts);
         if (!values.json) io.out(`wrote ${out}  (Touchstone ${tsVersion ?? '1.1'}, ${r.ports.length} port(s), ${r.freqs.length} frequencies)`);
       }
       for (const w of [...loaded.warnings, ...r.warnings]) if (w.severity !== 'info') io.err(`warning: ${w.message}`);
@@ -142,7 +143,7 @@ export const sweepCommand: CliCommand = {
       return 0;
     } catch (e) {
       if (e instanceof InputError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
-      if (e instanceof WriteError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
+      if (e instanceof OutputError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
       throw e;
     }
   },
@@ -355,22 +356,3 @@ function readInput(path: string, shown: string, io: CliIo): string | null {
   }
 }
 
-class WriteError extends Error {}
-
-/** Write to a temporary file beside the target, flush, then rename: a crash never leaves half a file. */
-function atomicWrite(path: string, text: string): void {
-  const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.tmp`);
-  let fd: number | null = null;
-  try {
-    fd = openSync(tmp, 'wx', 0o644);
-    writeSync(fd, text);
-    fsyncSync(fd);
-    closeSync(fd);
-    fd = null;
-    renameSync(tmp, path);
-  } catch (e) {
-    if (fd !== null) try { closeSync(fd); } catch { /* already failing */ }
-    try { unlinkSync(tmp); } catch { /* nothing to clean */ }
-    throw new WriteError(`could not write ${path}: ${(e as Error).message}`);
-  }
-}
