@@ -2,17 +2,17 @@
  * `stripwright export FILE --format dxf|svg|gerber|drill|mask[,…] --out PATH`: writes fabrication files for a design.
  * The design goes through the same pipeline as the app (parse → size → copper geometry), then through the pure
  * exporters in core/export. File I/O lives here: every target is checked before anything is written (nothing is
- * overwritten without --force), and each file is written atomically (temp file in the same folder, fsync, rename).
+ * overwritten without --force), and each file is written atomically by the CLI's one writer (cli/files.ts).
  */
 import { parseArgs } from 'node:util';
-import { closeSync, existsSync, fsyncSync, mkdirSync, openSync, readFileSync, renameSync, statSync, unlinkSync, writeSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, dirname, extname, join, resolve } from 'node:path';
-import { randomBytes } from 'node:crypto';
 import {
   InputError, initPolygons, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
   sizeDesign, buildBoardGeometry, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+import { OutputError, writeOutputFile } from '../files.ts';
 import { VERSION } from '../version.ts';
 
 const FORMATS = ['dxf', 'svg', 'gerber', 'drill', 'mask', 'mask-pdf'] as const;
@@ -154,7 +154,7 @@ export const exportCommand: CliCommand = {
       }
       for (const w of warnings) io.err(`${w.severity === 'error' ? 'error' : 'warning'}: ${w.message}`);
       for (const t of targets) {
-        atomicWrite(t.path, t.text);
+        await writeOutputFile(t.path, t.text);
         io.out(`wrote ${t.path}  (${t.what}, ${formatSize(Buffer.byteLength(t.text))})`);
       }
       return 0;
@@ -163,7 +163,7 @@ export const exportCommand: CliCommand = {
         io.err(`stripwright export: ${e.message}`);
         return 1;
       }
-      if (e instanceof OutError) { io.err(`stripwright export: ${e.message}`); return 1; }
+      if (e instanceof OutError || e instanceof OutputError) { io.err(`stripwright export: ${e.message}`); return 1; }
       throw e;
     }
   },
@@ -197,28 +197,6 @@ function placeOutputs(out: string, given: string, outputs: Output[]): { path: st
   }
   mkdirSync(out, { recursive: true });
   return outputs.map((o) => ({ path: join(out, o.name), text: o.text, what: o.what }));
-}
-
-/** Temp file in the same folder (rename is atomic only within one file system), fsync, rename, fsync the folder. */
-export function atomicWrite(path: string, text: string): void {
-  const tmp = join(dirname(path), `.${basename(path)}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`);
-  let fd: number | null = null;
-  try {
-    fd = openSync(tmp, 'wx', 0o644);
-    writeSync(fd, text);
-    fsyncSync(fd);
-    closeSync(fd);
-    fd = null;
-    renameSync(tmp, path);
-  } catch (e) {
-    if (fd !== null) try { closeSync(fd); } catch { /* already failing */ }
-    try { unlinkSync(tmp); } catch { /* nothing to clean */ }
-    throw new OutError(`could not write ${path}: ${(e as Error).message}`);
-  }
-  try {
-    const dfd = openSync(dirname(path), 'r');
-    try { fsyncSync(dfd); } finally { closeSync(dfd); }
-  } catch { /* some file systems refuse fsync on a folder; the rename already happened */ }
 }
 
 function formatSize(n: number): string {

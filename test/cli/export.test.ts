@@ -4,7 +4,7 @@
  * reliability.md §2.2: nothing overwritten without --force, no temp files left behind.
  */
 import { describe, expect, it } from 'vitest';
-import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -133,22 +133,6 @@ describe('stripwright export: layer choice', () => {
     const a = ezdxfAudit(readFileSync(join(dir, 'r12.dxf'), 'utf8'), 'r12.dxf');
     expect([a.code, a.report.version, a.report.audit_fixes]).toEqual([0, 'AC1009', []]);
     expect(cli(['export', 'stub.json', '--format', 'dxf', '--dxf-version', '14', '--out', 'x14.dxf'], { cwd: dir }).stderr).toMatch(/--dxf-version must be 2007 or r12/);
-  });
-});
-
-describe('atomic write (reliability.md §2.2: temp file in the same folder, fsync, rename)', () => {
-  it('replaces a file whole, and on a failed rename leaves the target as it was and no temp file', async () => {
-    const { atomicWrite } = await import('../../cli/commands/export.ts');
-    const dir = mkdtempSync(join(tmpdir(), 'sw-atomic-'));
-    atomicWrite(join(dir, 'a.txt'), 'first');
-    atomicWrite(join(dir, 'a.txt'), 'second');
-    expect(readFileSync(join(dir, 'a.txt'), 'utf8')).toBe('second');
-    // A non-empty folder in the way: rename(2) refuses it (EISDIR/ENOTEMPTY), whoever runs the test.
-    mkdirSync(join(dir, 'busy'));
-    writeFileSync(join(dir, 'busy', 'keep.txt'), 'user data');
-    expect(() => atomicWrite(join(dir, 'busy'), 'x')).toThrow(/could not write/);
-    expect(readFileSync(join(dir, 'busy', 'keep.txt'), 'utf8')).toBe('user data');
-    expect(readdirSync(dir).sort()).toEqual(['a.txt', 'busy']);
   });
 });
 
