@@ -14,7 +14,7 @@
 import { C0, ETA0, MU0, NP_TO_DB } from '../units/constants.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import { DEBYE_F_HIGH, DEBYE_F_LOW, widebandDebyeAt } from '../substrate/wideband-debye.ts';
-import { warn, type Warning } from '../util/warnings.ts';
+import type { Warning, WarningCode } from '../util/warnings.ts';
 import { evaluateModel, scratch } from './model.ts';
 import { checkConductorLoss, checkDispersion, checkFrequency, checkQuasiTem, checkSubstrate, checkWidth } from './inputs.ts';
 import { wheelerBracket } from './wheeler-incremental-inductance.ts';
@@ -40,16 +40,22 @@ export function dielectricAt(sub: SubstrateSpec, f: number): { er: number; tanDe
 
 function fmt(x: number): string { return String(Number(x.toPrecision(4))); }
 
-// Skin-effect terms depend only on f, σ and roughness: remembered for the last values (sweeps repeat them).
-let mF = Number.NaN; let mSigma = Number.NaN; let mRough = Number.NaN;
-let mRs = 0; let mSkin = 0; let mKr = 1;
+/** A warning of this model: the same record as warn() from util/warnings.ts (same keys in the same order), built
+ * directly as one object shape instead of by spreading an options object. */
+function lineWarning(code: WarningCode, message: string, source: string, severity: Warning['severity'] = 'warning'): Warning {
+  return { code, message, severity, source };
+}
+
+// Skin-effect terms depend only on f, σ and roughness: remembered for the last values (sweeps repeat them), as number
+// fields of one object (V8 boxes a double written to a module-level `let` on every write).
+const sk = { f: Number.NaN, sigma: Number.NaN, rough: Number.NaN, rs: 0.5, skin: 0.5, kr: 1.5 };
 function skinTerms(f: number, sigma: number, rough: number): void {
-  if (f === mF && sigma === mSigma && rough === mRough) return;
-  mF = f; mSigma = sigma; mRough = rough;
+  if (f === sk.f && sigma === sk.sigma && rough === sk.rough) return;
+  sk.f = f; sk.sigma = sigma; sk.rough = rough;
   const k = Math.PI * f * MU0 * sigma; // 1/δ²
-  mRs = Math.sqrt((Math.PI * f * MU0) / sigma);
-  mSkin = f > 0 ? 1 / Math.sqrt(k) : 0;
-  mKr = hammerstadBekkadalKr(rough * rough * k);
+  sk.rs = Math.sqrt((Math.PI * f * MU0) / sigma);
+  sk.skin = f > 0 ? 1 / Math.sqrt(k) : 0;
+  sk.kr = hammerstadBekkadalKr(rough * rough * k);
 }
 
 /**
@@ -74,7 +80,7 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
     er = d.er; tanDelta = d.tanDelta;
     const fLow = dm.fLow ?? DEBYE_F_LOW; const fHigh = dm.fHigh ?? DEBYE_F_HIGH;
     if (f < fLow || f > fHigh) {
-      warnings.push(warn('validity', `f = ${fmt(f)} Hz lies outside the wideband Debye band ${fmt(fLow)}–${fmt(fHigh)} Hz; εr and tanδ are extrapolated.`, { source: 'djordjevic-2001-wideband-debye' }));
+      warnings.push(lineWarning('validity', `f = ${fmt(f)} Hz lies outside the wideband Debye band ${fmt(fLow)}–${fmt(fHigh)} Hz; εr and tanδ are extrapolated.`, 'djordjevic-2001-wideband-debye'));
     }
   }
 
@@ -94,7 +100,7 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   // Conductor loss.
   const sigma = sub.sigma;
   skinTerms(f, sigma, sub.roughness);
-  const rs = mRs; const skinDepth = mSkin; const kr = mKr;
+  const rs = sk.rs; const skinDepth = sk.skin; const kr = sk.kr;
   let alphaSkin: number;
   if (f === 0) alphaSkin = 0;
   else if (lossModel === 0 && t > 0) {
@@ -103,7 +109,7 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   else {
     alphaSkin = kr * currentDistributionAlphaC(rs, z0, width);
     if (lossModel === 0) {
-      warnings.push(warn('validity', 'Wheeler\'s incremental-inductance rule needs a strip thickness above 0; the conductor loss uses the current-distribution form instead.', { source: 'wheeler-1942', severity: 'info' }));
+      warnings.push(lineWarning('validity', 'Wheeler\'s incremental-inductance rule needs a strip thickness above 0; the conductor loss uses the current-distribution form instead.', 'wheeler-1942', 'info'));
     }
   }
   const alphaDc = t > 0 ? 1 / (sigma * width * t) / (2 * z0s) : 0;
@@ -113,31 +119,31 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   // Limits, as data.
   const thresholds = thresholdsFor(er, h, width);
   if (u < 0.01 || u > 100) {
-    warnings.push(warn('validity', `W/h = ${fmt(u)} is outside 0.01–100, where the static model is stated to 0.2 %.`, { source: 'hammerstad-jensen-1980' }));
+    warnings.push(lineWarning('validity', `W/h = ${fmt(u)} is outside 0.01–100, where the static model is stated to 0.2 %.`, 'hammerstad-jensen-1980'));
   }
   if (tn > 0.28) {
-    warnings.push(warn('validity', `t/h = ${fmt(tn)} is above 0.28, beyond the range where the thickness correction was checked to 1 %.`, { source: 'hammerstad-jensen-1980' }));
+    warnings.push(lineWarning('validity', `t/h = ${fmt(tn)} is above 0.28, beyond the range where the thickness correction was checked to 1 %.`, 'hammerstad-jensen-1980'));
   }
   if (f > 0) {
     const fn = f * h * 1e-6;
     if (disp === 1) {
       if (ur < KJ1982_RANGE.uMin || ur > KJ1982_RANGE.uMax || er > KJ1982_RANGE.erMax || fn > KJ1982_RANGE.fnMax) {
-        warnings.push(warn('validity', `Outside the stated range of the εe(f) model (0.1 ≤ W/h ≤ 100, εr ≤ 20, f·h ≤ 39 GHz·mm): W/h = ${fmt(ur)}, εr = ${fmt(er)}, f·h = ${fmt(fn)} GHz·mm.`, { source: 'kirschning-jansen-1982' }));
+        warnings.push(lineWarning('validity', `Outside the stated range of the εe(f) model (0.1 ≤ W/h ≤ 100, εr ≤ 20, f·h ≤ 39 GHz·mm): W/h = ${fmt(ur)}, εr = ${fmt(er)}, f·h = ${fmt(fn)} GHz·mm.`, 'kirschning-jansen-1982'));
       }
       if (ur < JK1983_RANGE.uMin || ur > JK1983_RANGE.uMax || er > JK1983_RANGE.erMax || fn > JK1983_RANGE.fnMax) {
-        warnings.push(warn('validity', `Outside the usually quoted range of the Z0(f) model (0.1 ≤ W/h ≤ 10, εr ≤ 18, f·h ≤ 15 GHz·mm): W/h = ${fmt(ur)}, εr = ${fmt(er)}, f·h = ${fmt(fn)} GHz·mm.`, { source: 'jansen-kirschning-1983' }));
+        warnings.push(lineWarning('validity', `Outside the usually quoted range of the Z0(f) model (0.1 ≤ W/h ≤ 10, εr ≤ 18, f·h ≤ 15 GHz·mm): W/h = ${fmt(ur)}, εr = ${fmt(er)}, f·h = ${fmt(fn)} GHz·mm.`, 'jansen-kirschning-1983'));
       }
     }
     if (f > thresholds.errorAt) {
-      warnings.push(warn('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above the first higher-order-mode / surface-wave threshold ${fmt(thresholds.errorAt / 1e9)} GHz: the quasi-TEM results do not hold; use a thinner substrate or a narrower strip.`, { source: 'mode-thresholds', severity: 'error' }));
+      warnings.push(lineWarning('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above the first higher-order-mode / surface-wave threshold ${fmt(thresholds.errorAt / 1e9)} GHz: the quasi-TEM results do not hold; use a thinner substrate or a narrower strip.`, 'mode-thresholds', 'error'));
     } else if (f > thresholds.warnAt) {
-      warnings.push(warn('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above half the higher-order-mode / surface-wave threshold ${fmt(thresholds.errorAt / 1e9)} GHz: radiation and coupling at discontinuities grow.`, { source: 'mode-thresholds' }));
+      warnings.push(lineWarning('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above half the higher-order-mode / surface-wave threshold ${fmt(thresholds.errorAt / 1e9)} GHz: radiation and coupling at discontinuities grow.`, 'mode-thresholds'));
     }
     if (t > 0 && t < 3 * skinDepth) {
-      warnings.push(warn('thin-conductor', `Copper t = ${fmt(t * 1e6)} µm is less than 3 skin depths (δ = ${fmt(skinDepth * 1e6)} µm): the conductor loss is an approximate DC/skin blend.`, { source: 'skin-effect' }));
+      warnings.push(lineWarning('thin-conductor', `Copper t = ${fmt(t * 1e6)} µm is less than 3 skin depths (δ = ${fmt(skinDepth * 1e6)} µm): the conductor loss is an approximate DC/skin blend.`, 'skin-effect'));
     }
     if (sub.roughness > 3 * skinDepth) {
-      warnings.push(warn('validity', `Roughness ${fmt(sub.roughness * 1e6)} µm rms is more than 3 skin depths: the roughness factor saturates at 2 and may under-predict the loss.`, { source: 'hammerstad-bekkadal-1975', severity: 'info' }));
+      warnings.push(lineWarning('validity', `Roughness ${fmt(sub.roughness * 1e6)} µm rms is more than 3 skin depths: the roughness factor saturates at 2 and may under-predict the loss.`, 'hammerstad-bekkadal-1975', 'info'));
     }
   }
 

@@ -22,7 +22,12 @@ const Z_SCALE = ETA0 / TWO_PI;
 
 /** Air-filled, zero-thickness line impedance Z01(u), Ω — eq. (1), with f(u) = 6 + (2π − 6)·exp(−(30.666/u)^0.7528). */
 export function hjZ01(u: number): number {
-  const f = 6 + (TWO_PI - 6) * Math.exp(-Math.exp(0.7528 * (LN_30666 - Math.log(u))));
+  return hjZ01Ln(u, Math.log(u));
+}
+
+/** As hjZ01, with lnU = ln u supplied by a caller that needs ln u as well. */
+export function hjZ01Ln(u: number, lnU: number): number {
+  const f = 6 + (TWO_PI - 6) * Math.exp(-Math.exp(0.7528 * (LN_30666 - lnU)));
   return Z_SCALE * Math.log(f / u + Math.sqrt(1 + 4 / (u * u)));
 }
 
@@ -45,12 +50,14 @@ export function hjZ01Derivative(u: number): number {
   return hjSlope.value;
 }
 
-let bEr = Number.NaN;
-let bVal = 0;
+// Substrate-only terms remembered for the last εr, as number fields of one object (V8 boxes a double written to a
+// module-level `let` on every write, and updates an object's double field in place).
+const m = { bEr: Number.NaN, bVal: 0.5, cEr: Number.NaN, cVal: 0.5 };
+
 /** b(εr) of eq. (5), remembered for the last εr (substrate-only term). */
 function bOf(er: number): number {
-  if (er !== bEr) { bEr = er; bVal = 0.564 * Math.exp(0.053 * Math.log((er - 0.9) / (er + 3))); }
-  return bVal;
+  if (er !== m.bEr) { m.bEr = er; m.bVal = 0.564 * Math.exp(0.053 * Math.log((er - 0.9) / (er + 3))); }
+  return m.bVal;
 }
 
 /** Effective permittivity εe(u, εr) of the zero-thickness line — eqs. (3)–(5). */
@@ -75,12 +82,10 @@ export function hjDeltaU1(u: number, tn: number): number {
   return (tn / Math.PI) * lnX1;
 }
 
-let cEr = Number.NaN;
-let cVal = 0;
 /** Δur of eq. (7): the dielectric line's width increment (its εr factor remembered for the last εr). */
 export function hjDeltaUr(du1: number, er: number): number {
-  if (er !== cEr) { cEr = er; cVal = 0.5 * (1 + 1 / Math.cosh(Math.sqrt(er - 1))); }
-  return cVal * du1;
+  if (er !== m.cEr) { m.cEr = er; m.cVal = 0.5 * (1 + 1 / Math.cosh(Math.sqrt(er - 1))); }
+  return m.cVal * du1;
 }
 
 /** Static result of the model. */

@@ -15,8 +15,10 @@ import { C0 } from '../units/constants.ts';
  * (methods.md §5) the dispersion fits also leave every range they were made for (the Z0(f) fit turns non-finite
  * there for εr above its range), so such a frequency is refused instead of returning numbers that mean nothing.
  */
+const qt = { er: Number.NaN, h: Number.NaN, limit: 0.5 }; // the limit for the last substrate (εr, h)
 export function checkQuasiTem(f: number, er: number, h: number): void {
-  const limit = (2 * C0) / (4 * h * Math.sqrt(er - 1));
+  if (er !== qt.er || h !== qt.h) { qt.er = er; qt.h = h; qt.limit = (2 * C0) / (4 * h * Math.sqrt(er - 1)); }
+  const limit = qt.limit;
   if (f > limit) {
     throw new InputError('out-of-range', 'f', `a frequency up to ${Number((limit / 1e9).toPrecision(4))} GHz, twice the TE1 surface-wave onset of this substrate (above it quasi-TEM models do not apply)`,
       `${Number((f / 1e9).toPrecision(4))} GHz`, 'use a thinner or lower-εr substrate');

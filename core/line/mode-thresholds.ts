@@ -31,19 +31,21 @@ export interface ModeThresholds {
   errorAt: number;
 }
 
-let mEr = Number.NaN; let mH = Number.NaN; let te1 = 0; let surfaceWave = 0; let sqrtEr = 0;
+// Substrate-only terms, remembered for the last substrate (number fields of one object rather than module `let`s).
+const m = { er: Number.NaN, h: Number.NaN, te1: 0.5, surfaceWave: 0.5, sqrtEr: 0.5 };
 
 /** Thresholds from εr and h (m), and the strip width (m) when known. Inputs assumed validated. */
 export function thresholdsFor(er: number, h: number, width?: number): ModeThresholds {
-  if (er !== mEr || h !== mH) { // substrate-only terms, remembered for the last substrate
-    mEr = er; mH = h;
+  if (er !== m.er || h !== m.h) {
+    m.er = er; m.h = h;
     const root = Math.sqrt(er - 1);
-    te1 = C0 / (4 * h * root);
-    surfaceWave = (C0 / (2 * Math.PI * h)) * Math.sqrt(2 / (er - 1)) * Math.atan(er);
-    sqrtEr = Math.sqrt(er);
+    m.te1 = C0 / (4 * h * root);
+    m.surfaceWave = (C0 / (2 * Math.PI * h)) * Math.sqrt(2 / (er - 1)) * Math.atan(er);
+    m.sqrtEr = Math.sqrt(er);
   }
+  const te1 = m.te1; const surfaceWave = m.surfaceWave;
   if (width === undefined) return { ruleOfThumb: te1, te1, surfaceWave, warnAt: 0.5 * te1, errorAt: te1 };
-  const transverseResonance = C0 / (sqrtEr * (2 * width + 0.8 * h));
+  const transverseResonance = C0 / (m.sqrtEr * (2 * width + 0.8 * h));
   const lim = transverseResonance < te1 ? transverseResonance : te1;
   return { ruleOfThumb: te1, te1, surfaceWave, transverseResonance, warnAt: 0.5 * lim, errorAt: lim };
 }

@@ -3,9 +3,9 @@
  * exactly the numbers the analysis reports. One straight function, plain numbers, no allocation: results go to a
  * module-level scratch record (the core is single-threaded; nothing calls back into it during a run).
  */
-import { hjDeltaU1, hjDeltaUr, hjEpsEff, hjSlope, hjThickness, hjZ01, hjZ01WithSlope } from './hammerstad-jensen-1980.ts';
-import { kirschningJansenEpsEff } from './kirschning-jansen-1982.ts';
-import { jansenKirschningZ0 } from './jansen-kirschning-1983.ts';
+import { hjDeltaU1, hjDeltaUr, hjEpsEff, hjSlope, hjThickness, hjZ01Ln, hjZ01WithSlope } from './hammerstad-jensen-1980.ts';
+import { kirschningJansenEpsEffLn } from './kirschning-jansen-1982.ts';
+import { jansenKirschningZ0Ln } from './jansen-kirschning-1983.ts';
 import { hjDispersionEpsEff, hjDispersionZ0 } from './hammerstad-jensen-1980-dispersion.ts';
 import type { DispersionModel } from './types.ts';
 
@@ -25,10 +25,11 @@ export interface ModelScratch {
 /** Filled by evaluateModel. */
 export const scratch: ModelScratch = { z0s: 0, ees: 0, u1: 0, ur: 0, z0f: 0, eef: 0, s: 0, T: 0, X: 0, lnX1: 0, slopeU1: 0 };
 
-// The static part depends only on (u, tn, εr): a frequency sweep of one line reuses it.
-let mU = Number.NaN; let mTn = Number.NaN; let mEr = Number.NaN;
-// The whole result is reused when the same line is asked again at the same frequency (a synthesis ends that way).
-let mF = Number.NaN; let mH = Number.NaN; let mDisp = -1;
+// The static part depends only on (u, tn, εr): a frequency sweep of one line reuses it (with ln ur, which the static
+// and the dispersive Z0 both need). The whole result is reused when the same line is asked again at the same
+// frequency (a synthesis ends that way). Number fields of one object: V8 boxes a double written to a module-level
+// `let` on every write, and updates an object's double field in place.
+const m = { u: Number.NaN, tn: Number.NaN, er: Number.NaN, lnUr: 0.5, f: Number.NaN, h: Number.NaN, disp: -1, fn: Number.NaN, lnFn: 0.5 };
 
 
 /**
@@ -36,12 +37,13 @@ let mF = Number.NaN; let mH = Number.NaN; let mDisp = -1;
  * Writes scratch and returns Z0 at f (Ω).
  */
 export function evaluateModel(u: number, tn: number, er: number, h: number, f: number, disp: DispersionCode): number {
-  if (u === mU && tn === mTn && er === mEr && f === mF && h === mH && disp === mDisp) return scratch.z0f;
-  if (u !== mU || tn !== mTn || er !== mEr) {
+  if (u === m.u && tn === m.tn && er === m.er && f === m.f && h === m.h && disp === m.disp) return scratch.z0f;
+  if (u !== m.u || tn !== m.tn || er !== m.er) {
     const du1 = hjDeltaU1(u, tn);
     const u1 = u + du1;
     const ur = du1 === 0 ? u : u + hjDeltaUr(du1, er);
-    const z01r = hjZ01(ur);
+    const lnUr = Math.log(ur);
+    const z01r = hjZ01Ln(ur, lnUr);
     const eer = hjEpsEff(ur, er);
     let ees = eer;
     if (du1 !== 0) {
@@ -51,7 +53,7 @@ export function evaluateModel(u: number, tn: number, er: number, h: number, f: n
       scratch.s = hjThickness.s; scratch.T = hjThickness.T; scratch.X = hjThickness.X; scratch.lnX1 = hjThickness.lnX1;
     }
     scratch.z0s = z01r / Math.sqrt(eer); scratch.ees = ees; scratch.u1 = u1; scratch.ur = ur;
-    mU = u; mTn = tn; mEr = er;
+    m.u = u; m.tn = tn; m.er = er; m.lnUr = lnUr;
   }
   const z0s = scratch.z0s; const ees = scratch.ees; const ur = scratch.ur;
   let z0f = z0s;
@@ -59,14 +61,16 @@ export function evaluateModel(u: number, tn: number, er: number, h: number, f: n
   if (f > 0 && disp !== 0) {
     if (disp === 1) {
       const fn = f * h * 1e-6;
-      eef = kirschningJansenEpsEff(ur, er, ees, fn);
-      z0f = jansenKirschningZ0(ur, er, ees, eef, fn, z0s);
+      if (fn !== m.fn) { m.fn = fn; m.lnFn = Math.log(fn); }
+      const lnFn = m.lnFn;
+      eef = kirschningJansenEpsEffLn(ur, er, ees, fn, lnFn);
+      z0f = jansenKirschningZ0Ln(ur, m.lnUr, er, ees, eef, fn, lnFn, z0s);
     } else {
       eef = hjDispersionEpsEff(er, ees, z0s, h, f);
       z0f = hjDispersionZ0(ees, eef, z0s);
     }
   }
   scratch.z0f = z0f; scratch.eef = eef;
-  mF = f; mH = h; mDisp = disp;
+  m.f = f; m.h = h; m.disp = disp;
   return z0f;
 }
