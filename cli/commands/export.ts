@@ -40,7 +40,7 @@ Options:
   --layers L[,L…]         layers for dxf/svg among: ${EXPORT_LAYERS.join(', ')}
   --tool LEN              milling tool diameter: adds isolation outlines offset by its radius (dxf/svg layer 'isolation')
   --style filled|outline  svg: filled copper (default) or outlines only
-  --dxf-version 2007|r12  dxf: AutoCAD 2007 with LWPOLYLINE and $INSUNITS (default), or R12 POLYLINE for cutters
+  --dxf-version 2007|r12  dxf: AC1021 (the 2007 DXF) with LWPOLYLINE and $INSUNITS (default), or R12 POLYLINE for cutters
   --page a4|letter        mask page (default a4)
   --polarity positive|negative   mask polarity (default positive: copper black)
 

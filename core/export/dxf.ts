@@ -1,5 +1,5 @@
 /**
- * DXF export (AutoCAD 2007 text DXF, AC1021, written through dxf-writer) for CAD and CAM programs.
+ * DXF export (text DXF of the 2007 release, AC1021, written through dxf-writer) for CAD and CAM programs.
  *
  * Layout of the file:
  * - one closed LWPOLYLINE (group 70 bit 1 set, last vertex not repeated) per outer ring and per hole, on the

@@ -22,7 +22,7 @@ export interface LayerInfo {
   svg: string;
   /** Human description for usage text and docs. */
   title: string;
-  /** AutoCAD Color Index of the DXF layer (1 red, 2 yellow, 3 green, 4 cyan, 5 blue, 6 magenta, 7 white/black). */
+  /** DXF colour index (ACI) of the layer (1 red, 2 yellow, 3 green, 4 cyan, 5 blue, 6 magenta, 7 white/black). */
   aci: number;
   /** SVG colour in the layered drawing. */
   colour: string;
