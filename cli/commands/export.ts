@@ -8,7 +8,7 @@ import { parseArgs } from 'node:util';
 import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import {
-  InputError, initPolygons, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
+  EXPORT_FILE_NAMES, InputError, initPolygons, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
   sizeDesign, buildBoardGeometry, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
@@ -117,20 +117,20 @@ export const exportCommand: CliCommand = {
       for (const f of new Set(formats as Format[])) {
         switch (f) {
           case 'dxf': outputs.push(dxfVersion === 'r12'
-            ? { name: `${base}.dxf`, text: toDxfR12(g, { ...frame, layers }), what: 'DXF R12 drawing, mm' }
-            : { name: `${base}.dxf`, text: toDxf(g, { ...frame, layers }), what: 'DXF drawing, mm' }); break;
-          case 'svg': outputs.push({ name: `${base}.svg`, text: toSvg(g, { mirror: frame.mirror, layers, style }), what: 'SVG drawing, true size' }); break;
+            ? { name: EXPORT_FILE_NAMES.dxf(base), text: toDxfR12(g, { ...frame, layers }), what: 'DXF R12 drawing, mm' }
+            : { name: EXPORT_FILE_NAMES.dxf(base), text: toDxf(g, { ...frame, layers }), what: 'DXF drawing, mm' }); break;
+          case 'svg': outputs.push({ name: EXPORT_FILE_NAMES.svg(base), text: toSvg(g, { mirror: frame.mirror, layers, style }), what: 'SVG drawing, true size' }); break;
           case 'gerber': {
             const gb = toGerber(g, { ...frame, ...sw });
-            outputs.push({ name: `${base}-copper-top.gbr`, text: gb.copper, what: 'Gerber X2, top copper' });
-            outputs.push({ name: `${base}-copper-bottom.gbr`, text: gb.bottom, what: 'Gerber X2, bottom copper (ground plane)' });
-            outputs.push({ name: `${base}-profile.gbr`, text: gb.profile, what: 'Gerber X2, board profile' });
+            outputs.push({ name: EXPORT_FILE_NAMES.gerberCopperTop(base), text: gb.copper, what: 'Gerber X2, top copper' });
+            outputs.push({ name: EXPORT_FILE_NAMES.gerberCopperBottom(base), text: gb.bottom, what: 'Gerber X2, bottom copper (ground plane)' });
+            outputs.push({ name: EXPORT_FILE_NAMES.gerberProfile(base), text: gb.profile, what: 'Gerber X2, board profile' });
             break;
           }
           case 'drill': {
             const d = toExcellon(g, { ...frame, ...sw });
-            if (d.plated) outputs.push({ name: `${base}-plated.drl`, text: d.plated, what: 'Excellon, plated holes' });
-            if (d.nonPlated) outputs.push({ name: `${base}-nonplated.drl`, text: d.nonPlated, what: 'Excellon, non-plated holes' });
+            if (d.plated) outputs.push({ name: EXPORT_FILE_NAMES.drillPlated(base), text: d.plated, what: 'Excellon, plated holes' });
+            if (d.nonPlated) outputs.push({ name: EXPORT_FILE_NAMES.drillNonPlated(base), text: d.nonPlated, what: 'Excellon, non-plated holes' });
             if (!d.plated && !d.nonPlated) io.err('stripwright export: the board has no drilled holes; no drill file written');
             break;
           }
@@ -140,7 +140,7 @@ export const exportCommand: CliCommand = {
             // warnings are the ones already collected from withEtchBias above.
             const m = toMask(raw, { page, polarity, mirror: frame.mirror, bias, title: basename(file) });
             const what = `photo mask${f === 'mask-pdf' ? ' (PDF)' : ''}, ${polarity ?? 'positive'}${frame.mirror ? ', mirrored' : ''}, print at 100 %`;
-            outputs.push(f === 'mask' ? { name: `${base}-mask.svg`, text: m.svg, what } : { name: `${base}-mask.pdf`, text: m.pdf, what });
+            outputs.push(f === 'mask' ? { name: EXPORT_FILE_NAMES.maskSvg(base), text: m.svg, what } : { name: EXPORT_FILE_NAMES.maskPdf(base), text: m.pdf, what });
             break;
           }
         }

@@ -10,3 +10,4 @@ export * from './mask-pdf.ts';
 export * from './bias.ts';
 export * from './milling.ts';
 export * from './dxf-r12.ts';
+export * from './file-names.ts';

@@ -66,6 +66,9 @@ describe('outputs from the editor', () => {
     expect(names).toContain('demo-copper-top.gbr');
     expect(names).toContain('demo-profile.gbr');
     expect(names).toContain('demo-mask.svg');
+    // The same file set the CLI writes for a board with a ground plane (README export table): bottom copper too.
+    expect(names).toContain('demo-copper-bottom.gbr');
+    expect(out.files.find((f) => f.name === 'demo-copper-bottom.gbr')!.data).toMatch(/%TF\.FileFunction,Copper,L2,Bot\*%/);
     // Gerber X2 files end with M02 (Ucamco Gerber Layer Format Specification, end of file).
     expect(out.files.find((f) => f.name === 'demo-copper-top.gbr')!.data.trim().endsWith('M02*')).toBe(true);
   });

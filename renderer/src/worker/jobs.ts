@@ -11,7 +11,7 @@ import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { Finding } from '../../../core/layout/checks.ts';
 import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
 import { InputError, exhaustive } from '../../../core/util/errors.ts';
-import { toDxf, toSvg, toGerber, toExcellon, toMask, type ExportLayer } from '../../../core/export/index.ts';
+import { EXPORT_FILE_NAMES, toDxf, toSvg, toGerber, toExcellon, toMask, type ExportLayer } from '../../../core/export/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
@@ -127,23 +127,27 @@ export async function exportJob(input: ExportInput): Promise<ExportOutput> {
   const notes: string[] = [];
   for (const k of input.kinds) {
     switch (k) {
-      case 'dxf': files.push({ name: `${input.base}.dxf`, data: toDxf(g, { layers: input.layers, mirror: input.mirror }) }); break;
-      case 'svg': files.push({ name: `${input.base}.svg`, data: preview }); break;
+      case 'dxf': files.push({ name: EXPORT_FILE_NAMES.dxf(input.base), data: toDxf(g, { layers: input.layers, mirror: input.mirror }) }); break;
+      case 'svg': files.push({ name: EXPORT_FILE_NAMES.svg(input.base), data: preview }); break;
       case 'gerber': {
         const gb = toGerber(g, { mirror: input.mirror, ...sw });
-        files.push({ name: `${input.base}-copper-top.gbr`, data: gb.copper }, { name: `${input.base}-profile.gbr`, data: gb.profile });
+        files.push(
+          { name: EXPORT_FILE_NAMES.gerberCopperTop(input.base), data: gb.copper },
+          { name: EXPORT_FILE_NAMES.gerberCopperBottom(input.base), data: gb.bottom },
+          { name: EXPORT_FILE_NAMES.gerberProfile(input.base), data: gb.profile },
+        );
         break;
       }
       case 'drill': {
         const ex = toExcellon(g, { mirror: input.mirror, ...sw });
-        if (ex.plated) files.push({ name: `${input.base}-plated.drl`, data: ex.plated });
-        if (ex.nonPlated) files.push({ name: `${input.base}-non-plated.drl`, data: ex.nonPlated });
+        if (ex.plated) files.push({ name: EXPORT_FILE_NAMES.drillPlated(input.base), data: ex.plated });
+        if (ex.nonPlated) files.push({ name: EXPORT_FILE_NAMES.drillNonPlated(input.base), data: ex.nonPlated });
         if (!ex.plated && !ex.nonPlated) notes.push('No holes: no drill file written.');
         break;
       }
       case 'mask': {
         const m = toMask(g, { mirror: input.mirror, title: input.doc.name });
-        files.push({ name: `${input.base}-mask.svg`, data: m.svg });
+        files.push({ name: EXPORT_FILE_NAMES.maskSvg(input.base), data: m.svg });
         notes.push(...m.warnings.map((w) => w.message));
         break;
       }

@@ -1,0 +1,15 @@
+/**
+ * The names of exported files, one table for every face (CLI, board editor), so a board exported from the app and
+ * from the command line gives the same file set. `base` is the design's file stem.
+ */
+export const EXPORT_FILE_NAMES = {
+  dxf: (base: string) => `${base}.dxf`,
+  svg: (base: string) => `${base}.svg`,
+  gerberCopperTop: (base: string) => `${base}-copper-top.gbr`,
+  gerberCopperBottom: (base: string) => `${base}-copper-bottom.gbr`,
+  gerberProfile: (base: string) => `${base}-profile.gbr`,
+  drillPlated: (base: string) => `${base}-plated.drl`,
+  drillNonPlated: (base: string) => `${base}-nonplated.drl`,
+  maskSvg: (base: string) => `${base}-mask.svg`,
+  maskPdf: (base: string) => `${base}-mask.pdf`,
+} as const;
