@@ -61,7 +61,9 @@ export class EditorState {
   readonly tools: ToolMachine;
   board: BoardPort | null = null;
 
-  dirty = $derived(this.revision !== this.savedRevision);
+  /** The design as it was last opened or saved: undoing back to it is not an unsaved change. */
+  private savedDoc: DesignDoc | null = null;
+  dirty = $derived(this.revision !== this.savedRevision && !sameRecords(this.doc, this.savedDoc));
   units = $derived<LengthUnit>(this.doc.view?.units ?? 'mm');
   /** Snap step: the design's own, else 0.1 mm or 5 mil (common practice for hand-drawn RF boards). */
   gridStep = $derived(this.doc.view?.grid ?? (this.units === 'mil' ? 5 * UNIT_METRES.mil : 0.1e-3));
@@ -247,6 +249,7 @@ export class EditorState {
     this.canUndo = false;
     this.canRedo = false;
     this.savedRevision = this.history.revision;
+    this.savedDoc = this.doc;
     this.file = file;
     this.docId = makeDocId();
     // Frame the new design at once from its drawn positions (not later, when the first layout lands: the view
@@ -265,7 +268,7 @@ export class EditorState {
 
   serialize(): string { return serializeDesign({ ...this.doc, app: `stripwright ${APP_VERSION}` }); }
 
-  markSaved(file: OpenFile): void { this.file = file; this.savedRevision = this.revision; }
+  markSaved(file: OpenFile): void { this.file = file; this.savedDoc = this.doc; this.savedRevision = this.revision; }
 
   // ---- selection, view, tools -------------------------------------------------------------------------------
 
@@ -334,4 +337,23 @@ export const APP_VERSION = '0.1.0';
 
 function makeDocId(): string {
   return globalThis.crypto?.randomUUID?.().slice(0, 18) ?? `doc-${Date.now().toString(36)}`;
+}
+
+/**
+ * Whether two documents hold the very same records: undo restores the record objects it replaced, so comparing
+ * top-level fields and list entries by identity is exact for "back to the saved state" and costs no serialising
+ * (a drag of a large design asks this every frame). Anything else counts as changed.
+ */
+function sameRecords(a: DesignDoc, b: DesignDoc | null): boolean {
+  if (b === null) return false;
+  if (a === b) return true;
+  const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
+  for (const k of keys) {
+    const x = (a as Record<string, unknown>)[k];
+    const y = (b as Record<string, unknown>)[k];
+    if (x === y) continue;
+    if (!Array.isArray(x) || !Array.isArray(y) || x.length !== y.length) return false;
+    for (let i = 0; i < x.length; i++) if (x[i] !== y[i]) return false;
+  }
+  return true;
 }
