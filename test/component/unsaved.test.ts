@@ -46,4 +46,12 @@ describe('unsaved changes', () => {
     flushSync();
     expect(ed.dirty).toBe(false);
   });
+
+  it('a design restored from a recovery copy counts as unsaved until it is saved', () => {
+    const ed = new EditorState();
+    ed.loadText(exampleText('demo')!, null);
+    ed.markUnsaved();
+    flushSync();
+    expect(ed.dirty).toBe(true);
+  });
 });

@@ -270,6 +270,9 @@ export class EditorState {
 
   markSaved(file: OpenFile): void { this.file = file; this.savedDoc = this.doc; this.savedRevision = this.revision; }
 
+  /** The open design has never been saved as it is (e.g. restored from a recovery copy). */
+  markUnsaved(): void { this.savedDoc = null; this.savedRevision = -1; }
+
   // ---- selection, view, tools -------------------------------------------------------------------------------
 
   select(ids: string[], mode: 'replace' | 'toggle' | 'add' = 'replace'): void {

@@ -121,7 +121,7 @@ export class FileActions {
     const err = this.editor.loadText(copy.value.text, null);
     if (err) { await this.tell('The copy could not be read', err); return; }
     // Restored work is unsaved until the user saves it; keep the copy until then.
-    this.editor.savedRevision = -1;
+    this.editor.markUnsaved();
     this.editor.status = `Restored “${e.name}”: save it to keep it.`;
   }
 
