@@ -79,6 +79,9 @@ export function crossCheck(doc: DesignDoc, opts: { complete?: boolean } = {}): C
       else if (dup.has(id)) errors.push(issue('invalid-design', `phaseGroups[${i}].to[${k}]`, 'each port once', `${JSON.stringify(id)} again`));
       dup.add(id);
     });
+    if (g.offsetsDeg && g.offsetsDeg.length !== g.to.length) {
+      errors.push(issue('invalid-design', `phaseGroups[${i}].offsetsDeg`, `one offset per port in "to" (${g.to.length})`, `${g.offsetsDeg.length}`));
+    }
   });
 
   const { f0, band } = doc.frequency;

@@ -158,7 +158,8 @@ export const phaseGroupSchema = v.looseObject({
   from: idSchema,
   to: v.pipe(v.array(idSchema, 'a list of port ids'), v.minLength(1, 'at least one port id'), v.maxLength(L.phaseGroupPorts, `at most ${L.phaseGroupPorts} port ids`)),
   toleranceDeg: num('a tolerance in degrees above 0 and at most 180', 0, 180, { minExclusive: true }),
-}, 'a phase group {id, name, from, to, toleranceDeg}');
+  offsetsDeg: v.optional(v.pipe(v.array(num('a phase offset in degrees from −360 to 360', -360, 360), 'a list of phase offsets in degrees'), v.maxLength(L.phaseGroupPorts, `at most ${L.phaseGroupPorts} offsets`))),
+}, 'a phase group {id, name, from, to, toleranceDeg, offsetsDeg?}');
 
 const list = <T extends v.GenericSchema>(item: T, what: string, max: number) =>
   v.pipe(v.array(item, `a list of ${what}`), v.maxLength(max, `at most ${max} ${what}`));

@@ -57,8 +57,12 @@ export type DesignSegment = { id: string; a: string; b: string; label?: string }
 
 export interface Area { id: string; kind: 'keep-out' | 'ground-copper'; polygon: Vec2[]; /** clearance kept from the network, m */ clearance?: number }
 
-/** Ports whose paths from `from` must match in phase. */
-export interface PhaseGroup { id: string; name: string; from: string; to: string[]; toleranceDeg: number }
+/**
+ * Ports whose paths from `from` must match in phase. `offsetsDeg` (optional, one per `to` port) gives the wanted
+ * electrical-length difference of each path to the first one, degrees at f0: [0, 90] asks the second path to be a
+ * quarter-wave longer (a quadrature hybrid's coupled port). Without it all paths must be equal.
+ */
+export interface PhaseGroup { id: string; name: string; from: string; to: string[]; toleranceDeg: number; offsetsDeg?: number[] }
 
 export interface DesignDoc {
   format: typeof DESIGN_FORMAT;

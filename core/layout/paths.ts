@@ -45,6 +45,9 @@ export interface PathEntry {
   phaseDiffDeg: number;
   /** Same at band start and stop. */
   phaseDiffBandDeg: [number, number];
+  /** The wanted phase difference to the first path (the group's offset), degrees; 0 for an in-phase group. */
+  targetDeg: number;
+  /** |phaseDiffDeg − targetDeg| within the tolerance (always true when the paths are only reported). */
   withinTolerance: boolean;
   /** Relative sensitivity of this path's phase at f0 to εr, h and W. */
   sensitivity: { er: number; h: number; W: number };
@@ -72,6 +75,8 @@ export interface PathOptions {
   name?: string;
   /** The paths are meant to match in phase (default true); false reports differences without judging them. */
   matched?: boolean;
+  /** Wanted phase difference of each `to` path to the first, degrees at f0 (a phase group's offsetsDeg). */
+  offsetsDeg?: number[];
 }
 
 const wrap = (d: number) => ((((d + 180) % 360) + 360) % 360) - 180;
@@ -211,7 +216,7 @@ export function tracePaths(sized: SizedDesign, from: string, to: string[], opts:
     } : { er: 0, h: 0, W: 0 };
     entries.push({
       to: t, pieces: pieces.map((p) => p.id), nodes: route, physicalLength: phys, degAtF0: phi0, band, delay, lossDb: loss,
-      bends, junctions, parts, phaseDiffDeg: 0, phaseDiffBandDeg: [0, 0], withinTolerance: true, sensitivity,
+      bends, junctions, parts, phaseDiffDeg: 0, phaseDiffBandDeg: [0, 0], targetDeg: opts.offsetsDeg?.[to.indexOf(t)] ?? 0, withinTolerance: true, sensitivity,
     });
   }
   const ref = entries[0];
@@ -221,11 +226,15 @@ export function tracePaths(sized: SizedDesign, from: string, to: string[], opts:
     if (!ref) break;
     e.phaseDiffDeg = wrap(e.degAtF0 - ref.degAtF0);
     e.phaseDiffBandDeg = [wrap(e.band[0]!.deg - ref.band[0]!.deg), wrap(e.band[2]!.deg - ref.band[2]!.deg)];
-    e.withinTolerance = !matched || Math.abs(e.phaseDiffDeg) <= tol;
+    // Against the wanted offset (0 for an in-phase group), measured from the first path's own offset.
+    const miss = wrap(e.phaseDiffDeg - (e.targetDeg - ref.targetDeg));
+    e.withinTolerance = !matched || Math.abs(miss) <= tol;
     lo = Math.min(lo, e.phaseDiffDeg); hi = Math.max(hi, e.phaseDiffDeg);
     if (e === ref || !matched) continue;
     if (!e.withinTolerance) {
-      warnings.push(warn('phase', `path ${from} → ${e.to} is ${e.phaseDiffDeg.toFixed(1)}° from ${from} → ${ref.to} at f0, outside ±${tol}°; lengthen the shorter path by ${Math.abs(e.phaseDiffDeg).toFixed(1)}° or balance the two`, { subjects: [e.to, ref.to, ...e.pieces], severity: 'warning' }));
+      const wanted = e.targetDeg - ref.targetDeg;
+      const aim = wanted === 0 ? '' : ` (wanted ${wanted.toFixed(1)}°)`;
+      warnings.push(warn('phase', `path ${from} → ${e.to} is ${e.phaseDiffDeg.toFixed(1)}° from ${from} → ${ref.to} at f0${aim}, outside ±${tol}°; ${miss > 0 ? 'shorten' : 'lengthen'} it by ${Math.abs(miss).toFixed(1)}° or balance the two`, { subjects: [e.to, ref.to, ...e.pieces], severity: 'warning' }));
     }
     const physDiff = Math.abs(e.physicalLength - ref.physicalLength);
     const lg = pieceLambda(sized, e.pieces);
@@ -255,7 +264,7 @@ function portsOf(sized: SizedDesign): string[] { return sized.nodes.filter((n) =
 export function designPaths(sized: SizedDesign, opts: PathOptions = {}): PathReport[] {
   const groups = sized.doc.phaseGroups ?? [];
   if (groups.length) {
-    return groups.map((g) => tracePaths(sized, g.from, g.to, { ...opts, toleranceDeg: opts.toleranceDeg ?? g.toleranceDeg, group: g.id, name: g.name }));
+    return groups.map((g) => tracePaths(sized, g.from, g.to, { ...opts, toleranceDeg: opts.toleranceDeg ?? g.toleranceDeg, group: g.id, name: g.name, ...(g.offsetsDeg ? { offsetsDeg: g.offsetsDeg } : {}) }));
   }
   const ports = portsOf(sized);
   const from = sized.anchor && ports.includes(sized.anchor) ? sized.anchor : ports[0];
