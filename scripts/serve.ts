@@ -1,42 +1,30 @@
 /**
- * Static server for the built renderer (dist/renderer) on 127.0.0.1, with the app's CSP as a header.
+ * Static server for the built renderer (dist/renderer) on 127.0.0.1, answering through the desktop shell's app:// handler.
  * Used by `npm start` when Electron cannot start, and by the Playwright tests.
  *   tsx scripts/serve.ts [--port N]
  */
 import { createServer, type Server } from 'node:http';
-import { readFile, stat } from 'node:fs/promises';
-import { extname, join, normalize, resolve, sep } from 'node:path';
+import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { policyFor } from '../electron/csp.ts';
-
-const MIME: Record<string, string> = {
-  '.html': 'text/html; charset=utf-8', '.js': 'text/javascript; charset=utf-8', '.mjs': 'text/javascript; charset=utf-8',
-  '.css': 'text/css; charset=utf-8', '.json': 'application/json', '.wasm': 'application/wasm', '.svg': 'image/svg+xml',
-  '.png': 'image/png', '.ico': 'image/x-icon', '.woff2': 'font/woff2', '.txt': 'text/plain; charset=utf-8',
-};
+import { APP_ORIGIN } from '../electron/policy.ts';
+import { createBundleHandler } from '../electron/protocol.ts';
 
 export const RENDERER_DIR = resolve(fileURLToPath(new URL('../dist/renderer', import.meta.url)));
 
+/**
+ * Serves the bundle through the desktop shell's own app:// handler (electron/protocol.ts), so the browser gets
+ * the same files, path checks, MIME types and Content-Security-Policy headers as the desktop app.
+ */
 export function serveRenderer(port: number, root = RENDERER_DIR): Promise<Server> {
+  const handle = createBundleHandler(root);
   const server = createServer(async (req, res) => {
     try {
-      const url = new URL(req.url ?? '/', 'http://127.0.0.1');
-      let rel = decodeURIComponent(url.pathname);
-      if (rel.endsWith('/')) rel += 'index.html';
-      const file = normalize(join(root, rel));
-      if (!file.startsWith(root + sep) && file !== root) { res.writeHead(403).end('forbidden'); return; }
-      const info = await stat(file).catch(() => null);
-      if (!info || !info.isFile()) { res.writeHead(404, { 'Content-Type': 'text/plain' }).end('not found'); return; }
-      const body = await readFile(file);
-      res.writeHead(200, {
-        'Content-Type': MIME[extname(file)] ?? 'application/octet-stream',
-        'Content-Security-Policy': policyFor(file),
-        'X-Content-Type-Options': 'nosniff',
-        'Cache-Control': 'no-store',
-      });
-      res.end(body);
+      const path = new URL(req.url ?? '/', 'http://127.0.0.1').pathname;
+      const answer = await handle(new Request(`${APP_ORIGIN}${path}`, { method: req.method ?? 'GET' }));
+      res.writeHead(answer.status, Object.fromEntries(answer.headers));
+      res.end(Buffer.from(await answer.arrayBuffer()));
     } catch (err) {
-      res.writeHead(500).end(String(err));
+      res.writeHead(500, { 'Content-Type': 'text/plain; charset=utf-8' }).end(String(err));
     }
   });
   return new Promise((ok, fail) => {

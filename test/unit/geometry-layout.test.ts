@@ -15,6 +15,25 @@ const perimeter = (ring: { x: number; y: number }[]) => ring.reduce((s, p, i) =>
 const gridTol = (rings: { x: number; y: number }[][]) => rings.reduce((s, r) => s + perimeter(r), 0) * 1e-8;
 const closeArea = (got: number, want: number, rings: { x: number; y: number }[][]) => expect(Math.abs(got - want)).toBeLessThanOrEqual(gridTol(rings));
 
+/**
+ * Union invariants of a board's copper: its area lies between the largest part and the sum of the parts (less the
+ * grid rounding), every outer ring runs counter-clockwise without crossing itself, and (when asked) every hole runs
+ * clockwise without crossing itself.
+ */
+function expectCleanUnion(g: ReturnType<typeof buildBoardGeometry>, opts: { holes: boolean }): void {
+  let parts = 0, largest = 0;
+  for (const p of g.pieces) for (const r of p.regions) { const a = Math.abs(shoelace(r.outer)); parts += a; largest = Math.max(largest, a); }
+  const area = g.copper.reduce((a, r) => a + regionAreaOracle(r), 0);
+  const tol = gridTol(g.copper.flatMap((r) => [r.outer, ...r.holes]));
+  expect(area).toBeLessThanOrEqual(parts + tol);
+  expect(area).toBeGreaterThanOrEqual(largest - tol);
+  for (const r of g.copper) {
+    expect(shoelace(r.outer)).toBeGreaterThan(0);
+    expect(selfIntersects(r.outer)).toBe(false);
+    if (opts.holes) for (const hole of r.holes) { expect(shoelace(hole)).toBeLessThan(0); expect(selfIntersects(hole)).toBe(false); }
+  }
+}
+
 describe('copper of straight runs, bends and tees', () => {
   it('every outline point of a straight run lies W/2 ± 1 µm from its centreline', () => {
     const W = 1.1122e-3;
@@ -113,17 +132,8 @@ describe('property: random trees of tees give clean copper', () => {
       const s = sizeDesign(design({ nodes, segments: segs }));
       expect(s.problems).toEqual([]);
       const g = buildBoardGeometry(s);
-      let parts = 0, largest = 0;
-      for (const p of g.pieces) for (const r of p.regions) { const a = Math.abs(shoelace(r.outer)); parts += a; largest = Math.max(largest, a); }
-      const area = g.copper.reduce((a, r) => a + regionAreaOracle(r), 0);
-      const tol = gridTol(g.copper.flatMap((r) => [r.outer, ...r.holes]));
-      expect(area).toBeLessThanOrEqual(parts + tol);
-      expect(area).toBeGreaterThanOrEqual(largest - tol);
+      expectCleanUnion(g, { holes: false });
       expect(g.copper).toHaveLength(1);
-      for (const r of g.copper) {
-        expect(shoelace(r.outer)).toBeGreaterThan(0);
-        expect(selfIntersects(r.outer)).toBe(false);
-      }
     }), { numRuns: 40 });
   });
 });
@@ -209,18 +219,7 @@ describe('property: random networks give clean copper', () => {
       });
       const s = sizeDesign(design({ nodes, segments: segs }));
       if (s.problems.length) return; // a too-short piece between bends: a correct refusal, nothing to draw
-      const g = buildBoardGeometry(s);
-      let parts = 0, largest = 0;
-      for (const p of g.pieces) for (const r of p.regions) { const a = Math.abs(shoelace(r.outer)); parts += a; largest = Math.max(largest, a); }
-      const area = g.copper.reduce((a, r) => a + regionAreaOracle(r), 0);
-      const tol = gridTol(g.copper.flatMap((r) => [r.outer, ...r.holes]));
-      expect(area).toBeLessThanOrEqual(parts + tol);
-      expect(area).toBeGreaterThanOrEqual(largest - tol);
-      for (const r of g.copper) {
-        expect(shoelace(r.outer)).toBeGreaterThan(0);
-        expect(selfIntersects(r.outer)).toBe(false);
-        for (const hole of r.holes) { expect(shoelace(hole)).toBeLessThan(0); expect(selfIntersects(hole)).toBe(false); }
-      }
+      expectCleanUnion(buildBoardGeometry(s), { holes: true });
     }), { numRuns: 60 });
   });
 });
