@@ -15,15 +15,16 @@ import { C0, ETA0, MU0, NP_TO_DB } from '../units/constants.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import { DEBYE_F_HIGH, DEBYE_F_LOW, widebandDebyeAt } from '../substrate/wideband-debye.ts';
 import type { Warning, WarningCode } from '../util/warnings.ts';
+import { InputError, describe } from '../util/errors.ts';
 import { evaluateModel, scratch } from './model.ts';
 import { checkConductorLoss, checkDispersion, checkFrequency, checkQuasiTem, checkSubstrate, checkWidth } from './inputs.ts';
 import { wheelerBracket } from './wheeler-incremental-inductance.ts';
 import { currentDistributionAlphaC } from './current-distribution-loss.ts';
 import { hammerstadBekkadalKr } from './hammerstad-bekkadal-roughness.ts';
-import { thresholdsFor } from './mode-thresholds.ts';
+import { limits, thresholdLimits, thresholdsFor } from './mode-thresholds.ts';
 import { KJ1982_RANGE } from './kirschning-jansen-1982.ts';
 import { JK1983_RANGE } from './jansen-kirschning-1983.ts';
-import type { LineOptions, LineResult } from './types.ts';
+import type { LineColumns, LineOptions, LineResult } from './types.ts';
 
 /**
  * εr and tanδ at f for the substrate: the entered values, or the wideband Debye model when switched on (f = 0 →
@@ -53,25 +54,24 @@ function skinTerms(f: number, sigma: number, rough: number): void {
   if (f === sk.f && sigma === sk.sigma && rough === sk.rough) return;
   sk.f = f; sk.sigma = sigma; sk.rough = rough;
   const k = Math.PI * f * MU0 * sigma; // 1/δ²
-  sk.rs = Math.sqrt((Math.PI * f * MU0) / sigma);
-  sk.skin = f > 0 ? 1 / Math.sqrt(k) : 0;
-  sk.kr = hammerstadBekkadalKr(rough * rough * k);
+  const rs = Math.sqrt((Math.PI * f * MU0) / sigma);
+  sk.rs = rs;
+  sk.skin = f > 0 ? 1 / (sigma * rs) : 0; // δ = 1/√(π f μ0 σ) = 1/(σ Rs)
+  sk.kr = rough === 0 ? 1 : hammerstadBekkadalKr(rough * rough * k);
 }
 
-/**
- * Analyses a strip of `width` (m) on `sub` at `f` (Hz; 0 for static values).
- * Example: analyzeLine({ er: 3.66, h: 0.508e-3, t: 35e-6, tanDelta: 0.0037, sigma: 5.8e7, roughness: 0 }, 1.0734e-3, 10e9).z0 ≈ 50.1.
- * Throws InputError for invalid input; leaving a model's published range is a warning in the result.
- */
-export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?: LineOptions): LineResult {
-  checkSubstrate(sub);
-  const h = sub.h;
-  checkWidth(width, h);
-  checkFrequency(f);
-  const disp = checkDispersion(opts);
-  const lossModel = checkConductorLoss(opts);
-  const warnings: Warning[] = [];
+/** One analysis' numbers, written by analyzeInto (one record reused: no allocation per analysis). */
+const r = {
+  z0: 0.5, z0s: 0.5, ees: 0.5, eef: 0.5, lambdaG: 0.5, vp: 0.5, delayPerM: 0.5, alphaC: 0.5, alphaD: 0.5, skinDepth: 0.5,
+};
 
+/**
+ * The analysis of one strip with checked inputs (substrate, width and frequency valid; `disp` and `lossModel` from
+ * the option checks): numbers to `r`, warnings appended to `warnings`. Shared by analyzeLine and analyzeLines so
+ * that both give the same numbers to the last bit.
+ */
+function analyzeInto(sub: SubstrateSpec, width: number, f: number, disp: 0 | 1 | 2, lossModel: 0 | 1, warnings: Warning[]): void {
+  const h = sub.h;
   let er = sub.er;
   let tanDelta = sub.tanDelta;
   const dm = sub.dielectricModel;
@@ -88,14 +88,14 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   const t = sub.t;
   const u = width / h;
   const tn = t / h;
-  const z0 = evaluateModel(u, tn, er, h, f, disp);
-  const z0s = scratch.z0s; const ees = scratch.ees; const eef = scratch.eef; const ur = scratch.ur;
+  evaluateModel(u, tn, er, h, f, disp);
+  const z0 = scratch.z0f; const z0s = scratch.z0s; const eef = scratch.eef; const ur = scratch.ur;
 
   // Wave quantities.
   const sq = Math.sqrt(eef);
   const vp = C0 / sq;
-  const delayPerM = sq / C0;
-  const lambdaG = f > 0 ? vp / f : 0;
+  r.z0 = z0; r.z0s = z0s; r.ees = scratch.ees; r.eef = eef;
+  r.vp = vp; r.delayPerM = sq / C0; r.lambdaG = f > 0 ? vp / f : 0;
 
   // Conductor loss.
   const sigma = sub.sigma;
@@ -113,11 +113,11 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
     }
   }
   const alphaDc = t > 0 ? 1 / (sigma * width * t) / (2 * z0s) : 0;
-  const alphaC = alphaDc === 0 ? alphaSkin : Math.sqrt(alphaSkin * alphaSkin + alphaDc * alphaDc);
-  const alphaD = f > 0 && tanDelta > 0 ? ((Math.PI * f) / C0) * (er / sq) * ((eef - 1) / (er - 1)) * tanDelta : 0; // fillingFactorAlphaD, inlined
+  r.alphaC = alphaDc === 0 ? alphaSkin : Math.sqrt(alphaSkin * alphaSkin + alphaDc * alphaDc);
+  r.alphaD = f > 0 && tanDelta > 0 ? ((Math.PI * f) / C0) * (er / sq) * ((eef - 1) / (er - 1)) * tanDelta : 0; // fillingFactorAlphaD, inlined
+  r.skinDepth = skinDepth;
 
   // Limits, as data.
-  const thresholds = thresholdsFor(er, h, width);
   if (u < 0.01 || u > 100) {
     warnings.push(lineWarning('validity', `W/h = ${fmt(u)} is outside 0.01–100, where the static model is stated to 0.2 %.`, 'hammerstad-jensen-1980'));
   }
@@ -134,10 +134,12 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
         warnings.push(lineWarning('validity', `Outside the usually quoted range of the Z0(f) model (0.1 ≤ W/h ≤ 10, εr ≤ 18, f·h ≤ 15 GHz·mm): W/h = ${fmt(ur)}, εr = ${fmt(er)}, f·h = ${fmt(fn)} GHz·mm.`, 'jansen-kirschning-1983'));
       }
     }
-    if (f > thresholds.errorAt) {
-      warnings.push(lineWarning('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above the first higher-order-mode / surface-wave threshold ${fmt(thresholds.errorAt / 1e9)} GHz: the quasi-TEM results do not hold; use a thinner substrate or a narrower strip.`, 'mode-thresholds', 'error'));
-    } else if (f > thresholds.warnAt) {
-      warnings.push(lineWarning('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above half the higher-order-mode / surface-wave threshold ${fmt(thresholds.errorAt / 1e9)} GHz: radiation and coupling at discontinuities grow.`, 'mode-thresholds'));
+    thresholdLimits(er, h, width);
+    const errorAt = limits.errorAt;
+    if (f > errorAt) {
+      warnings.push(lineWarning('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above the first higher-order-mode / surface-wave threshold ${fmt(errorAt / 1e9)} GHz: the quasi-TEM results do not hold; use a thinner substrate or a narrower strip.`, 'mode-thresholds', 'error'));
+    } else if (f > limits.warnAt) {
+      warnings.push(lineWarning('higher-order-mode', `f = ${fmt(f / 1e9)} GHz is above half the higher-order-mode / surface-wave threshold ${fmt(errorAt / 1e9)} GHz: radiation and coupling at discontinuities grow.`, 'mode-thresholds'));
     }
     if (t > 0 && t < 3 * skinDepth) {
       warnings.push(lineWarning('thin-conductor', `Copper t = ${fmt(t * 1e6)} µm is less than 3 skin depths (δ = ${fmt(skinDepth * 1e6)} µm): the conductor loss is an approximate DC/skin blend.`, 'skin-effect'));
@@ -146,12 +148,80 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
       warnings.push(lineWarning('validity', `Roughness ${fmt(sub.roughness * 1e6)} µm rms is more than 3 skin depths: the roughness factor saturates at 2 and may under-predict the loss.`, 'hammerstad-bekkadal-1975', 'info'));
     }
   }
+}
 
+/**
+ * Analyses a strip of `width` (m) on `sub` at `f` (Hz; 0 for static values).
+ * Example: analyzeLine({ er: 3.66, h: 0.508e-3, t: 35e-6, tanDelta: 0.0037, sigma: 5.8e7, roughness: 0 }, 1.0734e-3, 10e9).z0 ≈ 50.1.
+ * Throws InputError for invalid input; leaving a model's published range is a warning in the result.
+ */
+export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?: LineOptions): LineResult {
+  checkSubstrate(sub);
+  checkWidth(width, sub.h);
+  checkFrequency(f);
+  const disp = checkDispersion(opts);
+  const lossModel = checkConductorLoss(opts);
+  const warnings: Warning[] = [];
+  analyzeInto(sub, width, f, disp, lossModel, warnings);
+  const er = sub.dielectricModel === undefined || f === 0 ? sub.er : dielectricAt(sub, f).er;
+  const { alphaC, alphaD, lambdaG } = r;
   return {
-    width, f, z0, z0Static: z0s, epsEff: eef, epsEffStatic: ees,
-    lambdaG, vp, delayPerM,
+    width, f, z0: r.z0, z0Static: r.z0s, epsEff: r.eef, epsEffStatic: r.ees,
+    lambdaG, vp: r.vp, delayPerM: r.delayPerM,
     alphaC, alphaD, alphaCdBPerM: alphaC * NP_TO_DB, alphaDdBPerM: alphaD * NP_TO_DB,
     lossDbPerWavelength: (alphaC + alphaD) * NP_TO_DB * lambdaG,
-    skinDepth, thresholds, warnings,
+    skinDepth: r.skinDepth, thresholds: thresholdsFor(er, sub.h, width), warnings,
   };
+}
+
+function columnOf(name: string, v: ArrayLike<number> | number, n: number): (i: number) => number {
+  if (typeof v === 'number') return () => v;
+  if (v === null || typeof v !== 'object' || typeof v.length !== 'number') {
+    throw new InputError('invalid-number', name, 'a number or an array of numbers', describe(v));
+  }
+  if (v.length !== n) throw new InputError('out-of-range', name, `${n} values, one per width`, `${v.length} values`, 'give one frequency per width, or one frequency for all');
+  return (i) => v[i]!;
+}
+
+/**
+ * Analyses many strips on one substrate, the form for sweeps and tables: widths[i] (m) at freqs[i] (Hz), or every
+ * width at one frequency. Same numbers as analyzeLine to the last bit, written to columns (Float64Array, SI units)
+ * instead of one object per analysis; warnings come with the index of the analysis they belong to.
+ * Throws InputError naming the first bad entry (e.g. `widths[17]`); nothing is returned then.
+ * Example: analyzeLines(glassEpoxy, [1.5e-3, 3e-3], 2.45e9).z0 → Float64Array [≈ 50, ≈ 33].
+ */
+export function analyzeLines(sub: SubstrateSpec, widths: ArrayLike<number>, freqs: ArrayLike<number> | number, opts?: LineOptions): LineColumns {
+  checkSubstrate(sub);
+  const disp = checkDispersion(opts);
+  const lossModel = checkConductorLoss(opts);
+  if (widths === null || typeof widths !== 'object' || typeof widths.length !== 'number') {
+    throw new InputError('invalid-number', 'widths', 'an array of strip widths in metres', describe(widths));
+  }
+  const n = widths.length;
+  const fAt = columnOf('freqs', freqs, n);
+  for (let i = 0; i < n; i++) {
+    try { checkWidth(widths[i], sub.h); checkFrequency(fAt(i)); } catch (e) {
+      if (e instanceof InputError) throw new InputError(e.code, `${e.field === 'width' ? 'widths' : 'freqs'}[${i}]`, e.expected, e.got, e.hint);
+      throw e;
+    }
+  }
+  const cols: LineColumns = {
+    width: Float64Array.from(widths), f: new Float64Array(n), z0: new Float64Array(n), z0Static: new Float64Array(n),
+    epsEff: new Float64Array(n), epsEffStatic: new Float64Array(n), lambdaG: new Float64Array(n), vp: new Float64Array(n),
+    delayPerM: new Float64Array(n), alphaC: new Float64Array(n), alphaD: new Float64Array(n), skinDepth: new Float64Array(n),
+    warnings: [],
+  };
+  const pending: Warning[] = [];
+  for (let i = 0; i < n; i++) {
+    const f = fAt(i);
+    analyzeInto(sub, cols.width[i]!, f, disp, lossModel, pending);
+    cols.f[i] = f; cols.z0[i] = r.z0; cols.z0Static[i] = r.z0s; cols.epsEff[i] = r.eef; cols.epsEffStatic[i] = r.ees;
+    cols.lambdaG[i] = r.lambdaG; cols.vp[i] = r.vp; cols.delayPerM[i] = r.delayPerM;
+    cols.alphaC[i] = r.alphaC; cols.alphaD[i] = r.alphaD; cols.skinDepth[i] = r.skinDepth;
+    if (pending.length > 0) {
+      for (const warning of pending) cols.warnings.push({ index: i, warning });
+      pending.length = 0;
+    }
+  }
+  return cols;
 }

@@ -31,23 +31,14 @@ export function hjZ01Ln(u: number, lnU: number): number {
   return Z_SCALE * Math.log(f / u + Math.sqrt(1 + 4 / (u * u)));
 }
 
-/** Z01(u) and its slope dZ01/du in one pass; the slope is left in `hjSlope.value` (used by Wheeler's rule). */
-export const hjSlope = { value: 0 };
-export function hjZ01WithSlope(u: number): number {
+/** dZ01/du, Ω — analytic derivative of eq. (1) (used by Wheeler's rule). */
+export function hjZ01Derivative(u: number): number {
   const q = Math.exp(0.7528 * (LN_30666 - Math.log(u)));
   const eq = Math.exp(-q);
   const f = 6 + (TWO_PI - 6) * eq;
   const df = (TWO_PI - 6) * eq * 0.7528 * q / u;
   const r = Math.sqrt(1 + 4 / (u * u));
-  const g = f / u + r;
-  hjSlope.value = Z_SCALE * (df / u - f / (u * u) - 4 / (u * u * u * r)) / g;
-  return Z_SCALE * Math.log(g);
-}
-
-/** dZ01/du, Ω — analytic derivative of eq. (1). */
-export function hjZ01Derivative(u: number): number {
-  hjZ01WithSlope(u);
-  return hjSlope.value;
+  return Z_SCALE * (df / u - f / (u * u) - 4 / (u * u * u * r)) / (f / u + r);
 }
 
 // Substrate-only terms remembered for the last εr, as number fields of one object (V8 boxes a double written to a
@@ -60,32 +51,62 @@ function bOf(er: number): number {
   return m.bVal;
 }
 
-/** Effective permittivity εe(u, εr) of the zero-thickness line — eqs. (3)–(5). */
-export function hjEpsEff(u: number, er: number): number {
+/**
+ * The width part of eq. (3)'s exponent, a(u)·ln(1 + 10/u) (eq. 4), so that εe = (εr + 1)/2 + ((εr − 1)/2)·
+ * exp(−a(u)·b(εr)·ln(1 + 10/u)). A function of u alone: the analysis reads it from a table (term-tables.ts).
+ */
+export function hjEpsEffExponent(u: number): number {
   const u2 = u * u;
   const u4 = u2 * u2;
   const a = 1 + Math.log((u4 + u2 / 2704) / (u4 + 0.432)) / 49 + Math.log(1 + (u * u2) / 5929.741) / 18.7;
-  return (er + 1) / 2 + ((er - 1) / 2) * Math.exp(-a * bOf(er) * Math.log(1 + 10 / u));
+  return a * Math.log(1 + 10 / u);
 }
 
-/** Intermediate values of the thickness correction, kept for Wheeler's rule (eq. 6: s = √(6.517u), T = tanh s). */
-export const hjThickness = { s: 0, T: 0, X: 0, lnX1: 0 };
+/** εe of eq. (3) from the width exponent of hjEpsEffExponent. */
+export function hjEpsEffFromExponent(exponent: number, er: number): number {
+  return (er + 1) / 2 + ((er - 1) / 2) * Math.exp(-exponent * bOf(er));
+}
 
-/** Δu1 of eq. (6): the air line's width increment for normalised thickness tn (0 when tn = 0). */
-export function hjDeltaU1(u: number, tn: number): number {
-  if (tn <= 0) return 0;
+/** Effective permittivity εe(u, εr) of the zero-thickness line — eqs. (3)–(5). */
+export function hjEpsEff(u: number, er: number): number {
+  return hjEpsEffFromExponent(hjEpsEffExponent(u), er);
+}
+
+/** Intermediate values of the thickness correction, kept for Wheeler's rule (eq. 6: s = √(6.517u), T = tanh s), and
+ * Δu1 itself; filled by hjThicknessTerms. */
+export const hjThickness = { s: 0, T: 0, X: 0, lnX1: 0, du1: 0 };
+
+/** Fills hjThickness for u and normalised thickness tn (all 0 when tn = 0). A void function: hot callers read the
+ * fields, which avoids boxing a returned double. */
+export function hjThicknessTerms(u: number, tn: number): void {
+  if (tn <= 0) { hjThickness.du1 = 0; return; }
   const s = Math.sqrt(6.517 * u);
-  const T = s > 20 ? 1 : 1 - 2 / (Math.exp(2 * s) + 1); // tanh s
+  hjThicknessTermsWith(tn, s, s > 20 ? 1 : 1 - 2 / (Math.exp(2 * s) + 1)); // tanh s
+}
+
+/** As hjThicknessTerms, with s = √(6.517u) and T = tanh s supplied (tn > 0). */
+export function hjThicknessTermsWith(tn: number, s: number, T: number): void {
   const X = (4 * E * T * T) / tn;
   const lnX1 = Math.log(1 + X);
   hjThickness.s = s; hjThickness.T = T; hjThickness.X = X; hjThickness.lnX1 = lnX1;
-  return (tn / Math.PI) * lnX1;
+  hjThickness.du1 = (tn / Math.PI) * lnX1;
+}
+
+/** Δu1 of eq. (6): the air line's width increment for normalised thickness tn (0 when tn = 0). */
+export function hjDeltaU1(u: number, tn: number): number {
+  hjThicknessTerms(u, tn);
+  return hjThickness.du1;
 }
 
 /** Δur of eq. (7): the dielectric line's width increment (its εr factor remembered for the last εr). */
 export function hjDeltaUr(du1: number, er: number): number {
+  return hjDeltaUrFactor(er) * du1;
+}
+
+/** Δur/Δu1 = (1 + sech √(εr − 1))/2 of eq. (7), remembered for the last εr. */
+export function hjDeltaUrFactor(er: number): number {
   if (er !== m.cEr) { m.cEr = er; m.cVal = 0.5 * (1 + 1 / Math.cosh(Math.sqrt(er - 1))); }
-  return m.cVal * du1;
+  return m.cVal;
 }
 
 /** Static result of the model. */

@@ -2,9 +2,9 @@
  * Microstrip line models behind one interface: analysis, exact synthesis, electrical length, line constants and
  * mode thresholds. Each published model lives in its own file named for it.
  */
-export type { LineOptions, LineResult, DispersionModel, ConductorLossModel } from './types.ts';
+export type { LineOptions, LineResult, LineColumns, DispersionModel, ConductorLossModel } from './types.ts';
 export { DISPERSION_MODELS, CONDUCTOR_LOSS_MODELS } from './types.ts';
-export { analyzeLine, dielectricAt } from './analyze.ts';
+export { analyzeLine, analyzeLines, dielectricAt } from './analyze.ts';
 export { synthesizeLine } from './synthesize.ts';
 export { lengthForDegrees, degreesForLength, groupDelayPerM } from './electrical-length.ts';
 export { lineConstants } from './line-constants.ts';

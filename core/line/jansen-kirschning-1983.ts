@@ -28,73 +28,89 @@ export const JK1983_RANGE = { uMin: 0.1, uMax: 10, erMax: 18, fnMax: 15 } as con
 function expNeg(x: number): number {
   return x > 746 ? 0 : Math.exp(-x);
 }
-const LN_18365 = Math.log(18.365);
-const LN_123 = Math.log(12.3);
 
-// Terms of εr only, of fn only, and of both, remembered for the last values (pure functions of their inputs). Kept in
-// one object of number fields rather than module-level `let`s: V8 boxes a double stored in a module variable on every
-// write, but updates an object's double field in place.
-const m = {
-  er: Number.NaN, eR1: 0.5, R4: 0.5, er1674: 0.5, R10: 0.5, eTerm: 0.5, er2: 0.5,
-  fn: Number.NaN, R5: 0.5, R11: 0.5, fn2745: 0.5, fnEr: Number.NaN, R9: 0.5, e17: 0.5,
-  u: Number.NaN, ee0: Number.NaN, R3: 0.5, R7: 0.5, eR6: 0.5, R12: 0.5, w15Term: 0.5, lnEe0: 0.5,
-};
-
-/** Z0(f), Ω (fn > 0). */
-export function jansenKirschningZ0(u: number, er: number, ee0: number, eef: number, fn: number, z00: number): number {
-  return jansenKirschningZ0Ln(u, Math.log(u), er, ee0, eef, fn, Math.log(fn), z00);
+/** 1 − exp(−x) for x ≥ 0: below 1e-3 by its series to x⁵ (remainder below 2e-21 relative), else −expm1(−x). */
+function oneMinusExpNeg(x: number): number {
+  if (x < 1e-3) return x * (1 - x * (1 / 2 - x * (1 / 6 - x * (1 / 24 - x / 120))));
+  return -Math.expm1(-x);
 }
 
-/** As jansenKirschningZ0, with lnU = ln u and lnFn = ln fn supplied by a caller that already has them. */
-export function jansenKirschningZ0Ln(u: number, lnU: number, er: number, ee0: number, eef: number, fn: number, lnFn: number, z00: number): number {
+/** exp(−x) for small x ≥ 0: below 0.02 by its series to x⁷ (remainder below 1e-18 relative), else Math.exp. */
+function expNegSmall(x: number): number {
+  if (x < 0.02) return 1 - x * (1 - x * (1 / 2 - x * (1 / 6 - x * (1 / 24 - x * (1 / 120 - x * (1 / 720 - x / 5040))))));
+  return Math.exp(-x);
+}
+
+// Terms of one variable. The analysis reads them from tables (term-tables.ts); the formulas here are what the tables
+// are fitted from, and what the analysis uses outside the tabulated ranges.
+
+/** R3 = 4.766·exp(−3.228·u^0.641). */
+export function jkR3(u: number): number { return 4.766 * Math.exp(-3.228 * Math.pow(u, 0.641)); }
+/** 1 − exp(−R2), R2 = 0.267·u⁷ (the width factor of R7). */
+export function jkR7WidthFactor(u: number): number { return -Math.expm1(-0.267 * Math.pow(u, 7)); }
+/** exp(−R6), R6 = 22.2·u^1.92 (the width factor of R9's term in R14). */
+export function jkExpMinusR6(u: number): number { return expNeg(22.2 * Math.pow(u, 1.92)); }
+/** 1 − exp(−(u/15)^6) (the width factor of R16). */
+export function jkR16WidthFactor(u: number): number { return -Math.expm1(-Math.pow(u / 15, 6)); }
+/** (fn/18.365)^2.745 (the frequency factor of R8). */
+export function jkR8FrequencyFactor(fn: number): number { return Math.pow(fn / 18.365, 2.745); }
+/** (fn/12.3)^1.097 (the frequency factor of R15). */
+export function jkR15FrequencyFactor(fn: number): number { return Math.pow(fn / 12.3, 1.097); }
+/** exp(−0.026·fn^1.15656) (the frequency factor of R17's exponential without R15). */
+export function jkR17FrequencyFactor(fn: number): number { return Math.exp(-0.026 * Math.pow(fn, 1.15656)); }
+
+/** Z0(f), Ω (fn > 0): the paper's formula. */
+export function jansenKirschningZ0(u: number, er: number, ee0: number, eef: number, fn: number, z00: number): number {
+  return jansenKirschningZ0WithTerms(u, er, Math.log(ee0), eef, fn, z00,
+    jkR3(u), jkR7WidthFactor(u), jkExpMinusR6(u), jkR16WidthFactor(u),
+    jkR8FrequencyFactor(fn), jkR15FrequencyFactor(fn), jkR17FrequencyFactor(fn));
+}
+
+// Terms of εr only and of (εr, fn), remembered for the last values (pure functions of their inputs). Kept in one
+// object of number fields rather than module-level `let`s: V8 boxes a double stored in a module variable on every
+// write, but updates an object's double field in place.
+const m = {
+  er: Number.NaN, eR1: 0.5, R4: 0.5, c8: 0.5, R10: 0.5, eTerm: 0.5, er2: 0.5,
+  fnEr: Number.NaN, R9: 0.5, R11: 0.5, e17: 0.5,
+};
+
+/**
+ * Z0(f) from the one-variable terms (as the functions above give them; lnEe0 = ln εe0). Same formula, grouped by
+ * what each part depends on so that sweeps and width searches reuse the rest.
+ */
+export function jansenKirschningZ0WithTerms(u: number, er: number, lnEe0: number, eef: number, fn: number, z00: number,
+  r3: number, r7Width: number, expMinusR6: number, r16Width: number, r8Freq: number, r15Freq: number, r17Freq: number): number {
   let newEr = false;
   if (er !== m.er) {
     m.er = er; newEr = true;
     const lnEr = Math.log(er);
     m.eR1 = expNeg(0.03891 * Math.exp(1.4 * lnEr));            // exp(−R1)
     m.R4 = 0.016 + Math.exp(4.524 * Math.log(0.0514 * er));
-    m.er1674 = Math.exp(1.674 * lnEr);
+    m.c8 = 0.004625 * Math.exp(1.674 * lnEr);                  // 0.004625·εr^1.674 of R8
     m.R10 = 0.00044 * Math.exp(2.136 * lnEr) + 0.0184;
     const e1 = er - 1; const e2 = e1 * e1; const e6 = e2 * e2 * e2;
     m.eTerm = e6 / (1 + 10 * e6);
     m.er2 = er * er;
   }
-  if (fn !== m.fn) {
-    m.fn = fn;
+  if (newEr || fn !== m.fnEr) {
+    // Terms of (εr, fn): R9 without exp(−R6), R11, and R17's frequency exponential.
+    m.fnEr = fn;
     const a5 = fn / 28.843; const a5_2 = a5 * a5; const a5_4 = a5_2 * a5_2;
-    m.R5 = a5_4 * a5_4 * a5_4;
+    const R5 = a5_4 * a5_4 * a5_4;
     const a11 = fn / 19.47; const a11_2 = a11 * a11; const a11_6 = a11_2 * a11_2 * a11_2;
     m.R11 = a11_6 / (1 + 0.0962 * a11_6);
-    m.fn2745 = Math.exp(2.745 * (lnFn - LN_18365));
-    m.fnEr = Number.NaN; // the (εr, fn) terms below must be redone
+    const R4 = m.R4;
+    m.R9 = ((5.086 * R4 * R5) / (0.3838 + 0.386 * R4)) / (1 + 1.2992 * R5) * m.eTerm;
+    m.e17 = r17Freq * expNegSmall(0.707 * m.R10 * r15Freq); // exp(−0.026·fn^1.15656 − R15)
   }
-  if (newEr || m.fnEr !== fn) {
-    m.fnEr = fn;
-    const R4 = m.R4; const R5 = m.R5;
-    m.R9 = ((5.086 * R4 * R5) / (0.3838 + 0.386 * R4)) / (1 + 1.2992 * R5) * m.eTerm; // × exp(−R6) per width
-    const R15 = 0.707 * m.R10 * Math.exp(1.097 * (lnFn - LN_123));
-    m.e17 = Math.exp(-0.026 * Math.exp(1.15656 * lnFn) - R15); // the frequency factor of R17
-  }
-  if (u !== m.u || ee0 !== m.ee0 || newEr) {
-    // Terms of the width (and εe0) only: a frequency sweep of one line reuses them.
-    m.u = u; m.ee0 = ee0;
-    const u2 = u * u; const u4 = u2 * u2;
-    m.R3 = 4.766 * Math.exp(-3.228 * Math.exp(0.641 * lnU));
-    // 1 − exp(−R2) with R2 = 0.267·u⁷: above R2 = 38 (u > 2.03) exp(−R2) < 2⁻⁵⁴ and the difference rounds to 1 exactly.
-    m.R7 = 1.206 - 0.3144 * m.eR1 * (u > 2.04 ? 1 : 1 - expNeg(0.267 * u4 * u2 * u));
-    // exp(−R6) with R6 = 22.2·u^1.92 only enters as R9·exp(−R6) subtracted from 0.9408, and R9 < 5.086/(0.386·1.2992)
-    // ·0.1 ≈ 1.01 for any εr and fn; above R6 = 40 (u > 1.37) the product is below 4.4e-18, under half an ulp of 0.9408
-    // (5.6e-17), so the difference is 0.9408 exactly: exp(−R6) is taken as 0.
-    m.eR6 = u > 1.37 ? 0 : expNeg(22.2 * Math.exp(1.92 * lnU));
-    m.R12 = 1 / (1 + 0.00245 * u2);
-    const w15 = u / 15; const w15_2 = w15 * w15;
-    m.w15Term = 1 - expNeg(w15_2 * w15_2 * w15_2);
-    m.lnEe0 = Math.log(ee0);
-  }
-  const R8 = 1 + 1.275 * (1 - expNeg(0.004625 * m.R3 * m.er1674 * m.fn2745));
+  // 1 − exp(−R2) rounds to 1 above u = 2.04 (R2 > 38); R9·exp(−R6) is below half an ulp of 0.9408 above u = 1.37
+  // (R9 < 5.086/(0.386·1.2992)·0.1 ≈ 1.01 for any εr and fn, exp(−40) < 4.3e-18): both are taken as their limits.
+  const R7 = 1.206 - 0.3144 * m.eR1 * (u > 2.04 ? 1 : r7Width);
+  const R8 = 1 + 1.275 * oneMinusExpNeg(r3 * m.c8 * r8Freq);
+  const R12 = 1 / (1 + 0.00245 * u * u);
   const R13 = 0.9408 * Math.exp(R8 * Math.log(eef)) - 0.9603;
-  const R14 = (0.9408 - m.R9 * m.eR6) * Math.exp(R8 * m.lnEe0) - 0.9603;
-  const R16 = 1 + 0.0503 * m.er2 * m.R11 * m.w15Term;
-  const R17 = m.R7 * (1 - 1.1241 * (m.R12 / R16) * m.e17);
+  const R14 = (0.9408 - (u > 1.37 ? 0 : m.R9 * expMinusR6)) * Math.exp(R8 * lnEe0) - 0.9603;
+  const R16 = 1 + 0.0503 * m.er2 * m.R11 * r16Width;
+  const R17 = R7 * (1 - 1.1241 * (R12 / R16) * m.e17);
   return z00 * Math.exp(R17 * Math.log(R13 / R14));
 }

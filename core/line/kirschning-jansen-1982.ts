@@ -16,40 +16,55 @@
 /** KJ validity bounds. */
 export const KJ1982_RANGE = { uMin: 0.1, uMax: 100, erMax: 20, fnMax: 0.13 * 299.792458 } as const;
 
-// Terms that depend only on εr or only on fn are remembered for the last value (sweeps and width searches repeat
-// them), in one object of number fields (a double written to a module-level `let` is boxed anew on every write).
-const LN_387 = Math.log(38.7);
-const m = { er: Number.NaN, P2: 0.5, P4: 0.5, fn: Number.NaN, c1: 0.5, F3: 0.5, u: Number.NaN, eU1: 0.5, eU3: 0.5 };
+// Terms of one variable. The analysis reads them from tables (term-tables.ts) and the formula here is what the tables
+// are fitted from; 1 − exp(−x) is written −expm1(−x), the same quantity without the cancellation.
 
-/** εe(f) from the static εe0 (u dimensionless, er relative permittivity, fn in GHz·mm > 0). */
+/** 0.065683·exp(−8.7513u), the width term of P1. */
+export function kjP1WidthTerm(u: number): number { return 0.065683 * Math.exp(-8.7513 * u); }
+/** 0.0363·exp(−4.6u), the width factor of P3. */
+export function kjP3WidthTerm(u: number): number { return 0.0363 * Math.exp(-4.6 * u); }
+/** 1 − exp(−(fn/38.7)^4.97), the frequency factor of P3. */
+export function kjP3FrequencyFactor(fn: number): number { return -Math.expm1(-Math.pow(fn / 38.7, 4.97)); }
+/** fn^1.5763, the frequency factor of P. */
+export function kjFnPower(fn: number): number { return Math.pow(fn, 1.5763); }
+
+/** εe(f) from the static εe0 (u dimensionless, er relative permittivity, fn in GHz·mm > 0): the paper's formula. */
 export function kirschningJansenEpsEff(u: number, er: number, ee0: number, fn: number): number {
-  return kirschningJansenEpsEffLn(u, er, ee0, fn, Math.log(fn));
+  return kirschningJansenEpsEffWithTerms(u, er, ee0, fn, kjP1WidthTerm(u), kjP3WidthTerm(u), kjP3FrequencyFactor(fn), kjFnPower(fn));
 }
 
-/** As kirschningJansenEpsEff, with lnFn = ln fn supplied by a caller that already has it. */
-export function kirschningJansenEpsEffLn(u: number, er: number, ee0: number, fn: number, lnFn: number): number {
+// Terms of εr alone, remembered for the last εr (number fields of one object: V8 boxes a double written to a
+// module-level `let` on every write, and updates an object's double field in place).
+const m = { er: Number.NaN, P2: 0.5, P4: 0.5 };
+const K0 = Math.pow(0.1844, 1.5763);
+const A = 1.5763;
+// Binomial coefficients of (1 + w)^1.5763 for the short series below.
+const B1 = A; const B2 = (B1 * (A - 1)) / 2; const B3 = (B2 * (A - 2)) / 3; const B4 = (B3 * (A - 3)) / 4; const B5 = (B4 * (A - 4)) / 5;
+
+/**
+ * εe(f) from the one-variable terms (as the functions above give them): P = P1·P2·fn^1.5763·(0.1844 + P3·P4)^1.5763,
+ * the paper's ((0.1844 + P3·P4)·fn)^1.5763 split in two. With w = P3·P4/0.1844 below 1e-3 (f·h below about
+ * 9 GHz·mm) the second factor is 0.1844^1.5763·(1 + w)^1.5763 by its binomial series to w⁵ (remainder < 1e-18).
+ */
+export function kirschningJansenEpsEffWithTerms(u: number, er: number, ee0: number, fn: number, p1Width: number, p3Width: number, p3Freq: number, fnPower: number): number {
   if (er !== m.er) {
     m.er = er;
     m.P2 = 0.33622 * (1 - Math.exp(-0.03442 * er));
     const x = er / 15.916; const x2 = x * x; const x4 = x2 * x2;
     m.P4 = 1 + 2.751 * (1 - Math.exp(-(x4 * x4)));
   }
-  if (fn !== m.fn) {
-    m.fn = fn;
-    const d = 1 + 0.0157 * fn;
-    const d2 = d * d; const d4 = d2 * d2; const d5 = d4 * d; const d10 = d5 * d5;
-    m.c1 = 0.6315 + 0.525 / (d10 * d10);
-    m.F3 = 1 - Math.exp(-Math.exp(4.97 * (lnFn - LN_387)));
-  }
-  if (u !== m.u) { // width-only terms
-    m.u = u;
-    // Above u = 4.1, 0.065683·exp(−8.7513u) < 1.8e-17 is below half an ulp (2.2e-16) of 0.27488 + c1·u (≥ 2.86 as
-    // c1 > 0.63): subtracting it leaves P1 unchanged, so it is taken as 0 without the exp.
-    m.eU1 = u > 4.1 ? 0 : 0.065683 * Math.exp(-8.7513 * u);
-    m.eU3 = 0.0363 * Math.exp(-4.6 * u);
-  }
-  const P1 = 0.27488 + m.c1 * u - m.eU1;
-  const P3 = m.eU3 * m.F3;
-  const P = P1 * m.P2 * Math.exp(1.5763 * Math.log((0.1844 + P3 * m.P4) * fn));
+  const c1 = 0.6315 + 0.525 / pow20(1 + 0.0157 * fn);
+  // Above u = 4.1, 0.065683·exp(−8.7513u) < 1.8e-17 is below half an ulp (2.2e-16) of 0.27488 + c1·u (≥ 2.86 as
+  // c1 > 0.63): subtracting it leaves P1 unchanged, so it is taken as 0.
+  const P1 = 0.27488 + c1 * u - (u > 4.1 ? 0 : p1Width);
+  const z = p3Width * p3Freq * m.P4;
+  const w = z / 0.1844;
+  const tail = w < 1e-3 ? K0 * (1 + w * (B1 + w * (B2 + w * (B3 + w * (B4 + w * B5))))) : Math.exp(A * Math.log(0.1844 + z));
+  const P = P1 * m.P2 * fnPower * tail;
   return er - (er - ee0) / (1 + P);
+}
+
+function pow20(d: number): number {
+  const d2 = d * d; const d4 = d2 * d2; const d5 = d4 * d; const d10 = d5 * d5;
+  return d10 * d10;
 }

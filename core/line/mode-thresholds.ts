@@ -34,8 +34,7 @@ export interface ModeThresholds {
 // Substrate-only terms, remembered for the last substrate (number fields of one object rather than module `let`s).
 const m = { er: Number.NaN, h: Number.NaN, te1: 0.5, surfaceWave: 0.5, sqrtEr: 0.5 };
 
-/** Thresholds from εr and h (m), and the strip width (m) when known. Inputs assumed validated. */
-export function thresholdsFor(er: number, h: number, width?: number): ModeThresholds {
+function substrateTerms(er: number, h: number): void {
   if (er !== m.er || h !== m.h) {
     m.er = er; m.h = h;
     const root = Math.sqrt(er - 1);
@@ -43,11 +42,28 @@ export function thresholdsFor(er: number, h: number, width?: number): ModeThresh
     m.surfaceWave = (C0 / (2 * Math.PI * h)) * Math.sqrt(2 / (er - 1)) * Math.atan(er);
     m.sqrtEr = Math.sqrt(er);
   }
+}
+
+/** Thresholds from εr and h (m), and the strip width (m) when known. Inputs assumed validated. */
+export function thresholdsFor(er: number, h: number, width?: number): ModeThresholds {
+  substrateTerms(er, h);
   const te1 = m.te1; const surfaceWave = m.surfaceWave;
   if (width === undefined) return { ruleOfThumb: te1, te1, surfaceWave, warnAt: 0.5 * te1, errorAt: te1 };
   const transverseResonance = C0 / (m.sqrtEr * (2 * width + 0.8 * h));
   const lim = transverseResonance < te1 ? transverseResonance : te1;
   return { ruleOfThumb: te1, te1, surfaceWave, transverseResonance, warnAt: 0.5 * lim, errorAt: lim };
+}
+
+/** Written by thresholdLimits: the caution and error frequencies of thresholdsFor, Hz. */
+export const limits = { warnAt: 0.5, errorAt: 0.5 };
+
+/** The warnAt and errorAt of thresholdsFor(er, h, width), into `limits` without building the record (hot path). */
+export function thresholdLimits(er: number, h: number, width: number): void {
+  substrateTerms(er, h);
+  const te1 = m.te1;
+  const transverseResonance = C0 / (m.sqrtEr * (2 * width + 0.8 * h));
+  const lim = transverseResonance < te1 ? transverseResonance : te1;
+  limits.warnAt = 0.5 * lim; limits.errorAt = lim;
 }
 
 /**

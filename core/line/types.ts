@@ -49,3 +49,23 @@ export interface LineResult {
   /** Validity, mode and thin-metal warnings, as data. */
   warnings: Warning[];
 }
+
+/** Many analyses on one substrate (analyzeLines): one column per quantity, index i for the i-th width. SI units. */
+export interface LineColumns {
+  width: Float64Array;
+  f: Float64Array;
+  z0: Float64Array;
+  z0Static: Float64Array;
+  epsEff: Float64Array;
+  epsEffStatic: Float64Array;
+  lambdaG: Float64Array;
+  vp: Float64Array;
+  delayPerM: Float64Array;
+  /** Np/m. */
+  alphaC: Float64Array;
+  /** Np/m. */
+  alphaD: Float64Array;
+  skinDepth: Float64Array;
+  /** The warnings of the analyses that have any, each with the index of its analysis. */
+  warnings: { index: number; warning: Warning }[];
+}
