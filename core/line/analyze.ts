@@ -174,6 +174,12 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   };
 }
 
+/** An InputError about a width or a frequency, renamed for entry i of the batch (widths[i], freqs[i]). */
+function atEntry(e: unknown, i: number): unknown {
+  if (!(e instanceof InputError) || (e.field !== 'width' && e.field !== 'f')) return e;
+  return new InputError(e.code, `${e.field === 'width' ? 'widths' : 'freqs'}[${i}]`, e.expected, e.got, e.hint);
+}
+
 function columnOf(name: string, v: ArrayLike<number> | number, n: number): (i: number) => number {
   if (typeof v === 'number') return () => v;
   if (v === null || typeof v !== 'object' || typeof v.length !== 'number') {
@@ -200,10 +206,7 @@ export function analyzeLines(sub: SubstrateSpec, widths: ArrayLike<number>, freq
   const n = widths.length;
   const fAt = columnOf('freqs', freqs, n);
   for (let i = 0; i < n; i++) {
-    try { checkWidth(widths[i], sub.h); checkFrequency(fAt(i)); } catch (e) {
-      if (e instanceof InputError) throw new InputError(e.code, `${e.field === 'width' ? 'widths' : 'freqs'}[${i}]`, e.expected, e.got, e.hint);
-      throw e;
-    }
+    try { checkWidth(widths[i], sub.h); checkFrequency(fAt(i)); } catch (e) { throw atEntry(e, i); }
   }
   const cols: LineColumns = {
     width: Float64Array.from(widths), f: new Float64Array(n), z0: new Float64Array(n), z0Static: new Float64Array(n),
@@ -214,7 +217,7 @@ export function analyzeLines(sub: SubstrateSpec, widths: ArrayLike<number>, freq
   const pending: Warning[] = [];
   for (let i = 0; i < n; i++) {
     const f = fAt(i);
-    analyzeInto(sub, cols.width[i]!, f, disp, lossModel, pending);
+    try { analyzeInto(sub, cols.width[i]!, f, disp, lossModel, pending); } catch (e) { throw atEntry(e, i); }
     cols.f[i] = f; cols.z0[i] = r.z0; cols.z0Static[i] = r.z0s; cols.epsEff[i] = r.eef; cols.epsEffStatic[i] = r.ees;
     cols.lambdaG[i] = r.lambdaG; cols.vp[i] = r.vp; cols.delayPerM[i] = r.delayPerM;
     cols.alphaC[i] = r.alphaC; cols.alphaD[i] = r.alphaD; cols.skinDepth[i] = r.skinDepth;

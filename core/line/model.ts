@@ -16,6 +16,7 @@ import {
   W_EE_EXPONENT, W_JK_R16, W_JK_R3, W_JK_R6, W_JK_R7, W_KJ_P1, W_KJ_P3, W_TANH, W_Z01, W_Z01_SLOPE, WIDTH_U_MAX, widthTerms,
 } from './term-tables.ts';
 import type { DispersionModel } from './types.ts';
+import { InputError } from '../util/errors.ts';
 
 /** 0 = none, 1 = Kirschning–Jansen, 2 = Hammerstad–Jensen. */
 export type DispersionCode = 0 | 1 | 2;
@@ -61,10 +62,10 @@ function staticPart(u: number, tn: number, er: number, dispersive: boolean): voi
   const u1 = u + du1;
   const ur = du1 === 0 ? u : u + hjDeltaUrFactor(er) * du1;
   let z01r: number; let exponent: number;
-  const inTable = evaluateOctaveTable(W, ur, W_Z01, dispersive ? W_JK_R16 + 1 : W_EE_EXPONENT + 1, tv);
+  const inTable = evaluateOctaveTable(W, ur, W_Z01, (dispersive ? W_JK_R16 : W_EE_EXPONENT) - W_Z01 + 1, tv);
   if (inTable) {
-    z01r = tv[W_Z01]!; exponent = tv[W_EE_EXPONENT]!;
-    if (dispersive) widthTermsFromTable(ur, 0);
+    z01r = tv[W_Z01 - W_Z01]!; exponent = tv[W_EE_EXPONENT - W_Z01]!;
+    if (dispersive) widthTermsFromTable(ur, W_Z01);
   } else {
     z01r = hjZ01(ur); exponent = hjEpsEffExponent(ur);
   }
@@ -72,8 +73,8 @@ function staticPart(u: number, tn: number, er: number, dispersive: boolean): voi
   let ees = eer;
   if (du1 !== 0) {
     let z01u1: number;
-    if (evaluateOctaveTable(W, u1, W_Z01, W_Z01_SLOPE + 1, tv)) {
-      z01u1 = tv[W_Z01]!; scratch.slopeU1 = tv[W_Z01_SLOPE]!;
+    if (evaluateOctaveTable(W, u1, W_Z01_SLOPE, 2, tv)) { // W_Z01_SLOPE, W_Z01
+      z01u1 = tv[W_Z01 - W_Z01_SLOPE]!; scratch.slopeU1 = tv[0]!;
     } else {
       z01u1 = hjZ01(u1); scratch.slopeU1 = hjZ01Derivative(u1);
     }
@@ -122,6 +123,12 @@ function dispersionFrequencyTerms(fn: number): void {
   }
 }
 
+function undefinedFit(er: number, fn: number): never {
+  throw new InputError('out-of-range', 'f',
+    `a frequency where the Jansen–Kirschning Z0(f) fit has a value for εr = ${Number(er.toPrecision(4))} (it has none at f·h = ${Number(fn.toPrecision(3))} GHz·mm, far beyond the 15 GHz·mm it was made for)`,
+    `f·h = ${Number(fn.toPrecision(3))} GHz·mm`, "use dispersion 'hammerstad-jensen' or 'none' for this substrate, a lower frequency or a thinner substrate");
+}
+
 /**
  * Static HJ model with thickness, then dispersion at f (Hz). u = W/h, tn = t/h, h in m.
  * Writes scratch (Z0 at f in scratch.z0f, Ω). Returns nothing: a returned double would be boxed on the heap when the
@@ -140,6 +147,9 @@ export function evaluateModel(u: number, tn: number, er: number, h: number, f: n
       if (!m.widthTermsReady) dispersionWidthTerms(ur);
       eef = kirschningJansenEpsEffWithTerms(ur, er, ees, fn, m.p1, m.p3, m.p3f, m.fnPower);
       z0f = jansenKirschningZ0WithTerms(ur, er, m.lnEes, eef, fn, z0s, m.r3, m.r7, m.r6, m.r16, m.r8f, m.r15f, m.r17f);
+      // The fit's R13 and R14 both pass through zero near εe^R8 = 1.0207 (εr barely above 1): far outside its
+      // f·h ≤ 15 GHz·mm range their ratio can turn negative, and the power has no value. Say so instead of a NaN.
+      if (!(z0f > 0 && z0f < Infinity)) undefinedFit(er, fn);
     } else {
       eef = hjDispersionEpsEff(er, ees, z0s, h, f);
       z0f = hjDispersionZ0(ees, eef, z0s);

@@ -20,9 +20,10 @@ import { hjEpsEffExponent, hjZ01, hjZ01Derivative } from './hammerstad-jensen-19
 import { kjFnPower, kjP1WidthTerm, kjP3FrequencyFactor, kjP3WidthTerm } from './kirschning-jansen-1982.ts';
 import { jkExpMinusR6, jkR15FrequencyFactor, jkR16WidthFactor, jkR17FrequencyFactor, jkR3, jkR7WidthFactor, jkR8FrequencyFactor } from './jansen-kirschning-1983.ts';
 
-/** Column order of widthTerms(): the static model's first, then the dispersion models'. */
-export const W_Z01 = 0;
-export const W_Z01_SLOPE = 1;
+/** Column order of widthTerms(): dZ01/du and Z01 side by side (both wanted at u1), Z01 and the εe exponent then the
+ * dispersion models' terms (all wanted at ur), so that each lookup reads one run of columns. */
+export const W_Z01_SLOPE = 0;
+export const W_Z01 = 1;
 export const W_EE_EXPONENT = 2;
 export const W_KJ_P1 = 3;
 export const W_KJ_P3 = 4;
@@ -62,7 +63,7 @@ let frequencyTable: OctaveTable | undefined;
 /** The width-term table, built on first use (about 34 000 formula evaluations, a few ms). */
 export function widthTerms(): OctaveTable {
   return widthTable ??= buildOctaveTable([
-    hjZ01, hjZ01Derivative, hjEpsEffExponent,
+    hjZ01Derivative, hjZ01, hjEpsEffExponent,
     kjP1WidthTerm, kjP3WidthTerm,
     jkR3, jkR7WidthFactor, jkExpMinusR6, jkR16WidthFactor,
     (u) => Math.tanh(Math.sqrt(6.517 * u)),
