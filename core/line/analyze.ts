@@ -112,9 +112,10 @@ function analyzeInto(sub: SubstrateSpec, width: number, f: number, disp: 0 | 1 |
       warnings.push(lineWarning('validity', 'Wheeler\'s incremental-inductance rule needs a strip thickness above 0; the conductor loss uses the current-distribution form instead.', 'wheeler-1942', 'info'));
     }
   }
-  const alphaDc = t > 0 ? 1 / (sigma * width * t) / (2 * z0s) : 0;
+  const alphaDc = t > 0 ? 1 / (2 * sigma * width * t * z0s) : 0; // R_dc/(2 Z0), R_dc = 1/(σ W t)
   r.alphaC = alphaDc === 0 ? alphaSkin : Math.sqrt(alphaSkin * alphaSkin + alphaDc * alphaDc);
-  r.alphaD = f > 0 && tanDelta > 0 ? ((Math.PI * f) / C0) * (er / sq) * ((eef - 1) / (er - 1)) * tanDelta : 0; // fillingFactorAlphaD, inlined
+  // fillingFactorAlphaD, inlined with one division: (π f/c0)·(εr/√εe)·((εe − 1)/(εr − 1))·tanδ.
+  r.alphaD = f > 0 && tanDelta > 0 ? (Math.PI * f * er * (eef - 1) * tanDelta) / (C0 * sq * (er - 1)) : 0;
   r.skinDepth = skinDepth;
 
   // Limits, as data.

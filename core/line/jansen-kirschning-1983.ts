@@ -107,10 +107,11 @@ export function jansenKirschningZ0WithTerms(u: number, er: number, lnEe0: number
   // (R9 < 5.086/(0.386·1.2992)·0.1 ≈ 1.01 for any εr and fn, exp(−40) < 4.3e-18): both are taken as their limits.
   const R7 = 1.206 - 0.3144 * m.eR1 * (u > 2.04 ? 1 : r7Width);
   const R8 = 1 + 1.275 * oneMinusExpNeg(r3 * m.c8 * r8Freq);
-  const R12 = 1 / (1 + 0.00245 * u * u);
+
   const R13 = 0.9408 * Math.exp(R8 * Math.log(eef)) - 0.9603;
   const R14 = (0.9408 - (u > 1.37 ? 0 : m.R9 * expMinusR6)) * Math.exp(R8 * lnEe0) - 0.9603;
   const R16 = 1 + 0.0503 * m.er2 * m.R11 * r16Width;
-  const R17 = R7 * (1 - 1.1241 * (R12 / R16) * m.e17);
+  const R12overR16 = 1 / ((1 + 0.00245 * u * u) * R16); // R12 = 1/(1 + 0.00245 u²)
+  const R17 = R7 * (1 - 1.1241 * R12overR16 * m.e17);
   return z00 * Math.exp(R17 * Math.log(R13 / R14));
 }

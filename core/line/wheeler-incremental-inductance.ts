@@ -22,8 +22,9 @@ const FOUR_E = 4 * Math.E;
  * (s = √(6.517u), T = tanh s, X = 4e·T²/tn, lnX1 = ln(1 + X)) and slopeU1 = dZ01/du at u1.
  */
 export function wheelerBracket(u: number, tn: number, s: number, T: number, X: number, lnX1: number, slopeU1: number): number {
-  const A = 1 + (FOUR_E * 6.517 * T * (1 - T * T)) / (Math.PI * s * (1 + X));
-  const B = (lnX1 - X / (1 + X)) / Math.PI;
+  const r = 1 / (1 + X);
+  const A = 1 + (FOUR_E * 6.517 / Math.PI) * ((T * (1 - T * T)) / s) * r;
+  const B = (lnX1 - X * r) * (1 / Math.PI);
   return -slopeU1 * ((1 + u) * A + (1 + tn) * B);
 }
 
