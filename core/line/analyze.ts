@@ -16,7 +16,7 @@ import type { SubstrateSpec } from '../substrate/types.ts';
 import { DEBYE_F_HIGH, DEBYE_F_LOW, widebandDebyeAt } from '../substrate/wideband-debye.ts';
 import type { Warning, WarningCode } from '../util/warnings.ts';
 import { InputError, describe } from '../util/errors.ts';
-import { evaluateModel, scratch } from './model.ts';
+import { evaluateModel, modelQuery, scratch } from './model.ts';
 import { checkConductorLoss, checkDispersion, checkFrequency, checkQuasiTem, checkSubstrate, checkWidth } from './inputs.ts';
 import { wheelerBracket } from './wheeler-incremental-inductance.ts';
 import { currentDistributionAlphaC } from './current-distribution-loss.ts';
@@ -88,7 +88,9 @@ function analyzeInto(sub: SubstrateSpec, width: number, f: number, disp: 0 | 1 |
   const t = sub.t;
   const u = width / h;
   const tn = t / h;
-  evaluateModel(u, tn, er, h, f, disp);
+  const q = modelQuery;
+  q.u = u; q.tn = tn; q.er = er; q.h = h; q.f = f; q.disp = disp;
+  evaluateModel(q);
   const z0 = scratch.z0f; const z0s = scratch.z0s; const eef = scratch.eef; const ur = scratch.ur;
 
   // Wave quantities.

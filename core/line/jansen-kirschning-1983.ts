@@ -59,11 +59,24 @@ export function jkR15FrequencyFactor(fn: number): number { return Math.pow(fn / 
 /** exp(−0.026·fn^1.15656) (the frequency factor of R17's exponential without R15). */
 export function jkR17FrequencyFactor(fn: number): number { return Math.exp(-0.026 * Math.pow(fn, 1.15656)); }
 
+/** The inputs of jansenKirschningZ0WithTerms (one-variable terms as the functions above give them) and its output. */
+export interface JkTerms {
+  /** W/h (the thickness-corrected ur in the analysis), εr, ln εe0, εe(f), fn = f·h in GHz·mm, static Z0 in Ω. */
+  u: number; er: number; lnEe0: number; eef: number; fn: number; z00: number;
+  r3: number; r7Width: number; expMinusR6: number; r16Width: number; r8Freq: number; r15Freq: number; r17Freq: number;
+  /** Output: Z0(f), Ω. */
+  z0f: number;
+}
+
 /** Z0(f), Ω (fn > 0): the paper's formula. */
 export function jansenKirschningZ0(u: number, er: number, ee0: number, eef: number, fn: number, z00: number): number {
-  return jansenKirschningZ0WithTerms(u, er, Math.log(ee0), eef, fn, z00,
-    jkR3(u), jkR7WidthFactor(u), jkExpMinusR6(u), jkR16WidthFactor(u),
-    jkR8FrequencyFactor(fn), jkR15FrequencyFactor(fn), jkR17FrequencyFactor(fn));
+  const q: JkTerms = {
+    u, er, lnEe0: Math.log(ee0), eef, fn, z00,
+    r3: jkR3(u), r7Width: jkR7WidthFactor(u), expMinusR6: jkExpMinusR6(u), r16Width: jkR16WidthFactor(u),
+    r8Freq: jkR8FrequencyFactor(fn), r15Freq: jkR15FrequencyFactor(fn), r17Freq: jkR17FrequencyFactor(fn), z0f: 0,
+  };
+  jansenKirschningZ0WithTerms(q);
+  return q.z0f;
 }
 
 // Terms of εr only and of (εr, fn), remembered for the last values (pure functions of their inputs). Kept in one
@@ -75,11 +88,12 @@ const m = {
 };
 
 /**
- * Z0(f) from the one-variable terms (as the functions above give them; lnEe0 = ln εe0). Same formula, grouped by
- * what each part depends on so that sweeps and width searches reuse the rest.
+ * Z0(f) from the one-variable terms, into q.z0f. Same formula, grouped by what each part depends on so that sweeps and
+ * width searches reuse the rest. Inputs and output travel in one record: a double passed to (or returned from) a call
+ * that the compiler does not inline is boxed on the heap, a field of a long-lived record is updated in place.
  */
-export function jansenKirschningZ0WithTerms(u: number, er: number, lnEe0: number, eef: number, fn: number, z00: number,
-  r3: number, r7Width: number, expMinusR6: number, r16Width: number, r8Freq: number, r15Freq: number, r17Freq: number): number {
+export function jansenKirschningZ0WithTerms(q: JkTerms): void {
+  const u = q.u; const er = q.er; const fn = q.fn;
   let newEr = false;
   if (er !== m.er) {
     m.er = er; newEr = true;
@@ -101,17 +115,17 @@ export function jansenKirschningZ0WithTerms(u: number, er: number, lnEe0: number
     m.R11 = a11_6 / (1 + 0.0962 * a11_6);
     const R4 = m.R4;
     m.R9 = ((5.086 * R4 * R5) / (0.3838 + 0.386 * R4)) / (1 + 1.2992 * R5) * m.eTerm;
-    m.e17 = r17Freq * expNegSmall(0.707 * m.R10 * r15Freq); // exp(−0.026·fn^1.15656 − R15)
+    m.e17 = q.r17Freq * expNegSmall(0.707 * m.R10 * q.r15Freq); // exp(−0.026·fn^1.15656 − R15)
   }
   // 1 − exp(−R2) rounds to 1 above u = 2.04 (R2 > 38); R9·exp(−R6) is below half an ulp of 0.9408 above u = 1.37
   // (R9 < 5.086/(0.386·1.2992)·0.1 ≈ 1.01 for any εr and fn, exp(−40) < 4.3e-18): both are taken as their limits.
-  const R7 = 1.206 - 0.3144 * m.eR1 * (u > 2.04 ? 1 : r7Width);
-  const R8 = 1 + 1.275 * oneMinusExpNeg(r3 * m.c8 * r8Freq);
+  const R7 = 1.206 - 0.3144 * m.eR1 * (u > 2.04 ? 1 : q.r7Width);
+  const R8 = 1 + 1.275 * oneMinusExpNeg(q.r3 * m.c8 * q.r8Freq);
 
-  const R13 = 0.9408 * Math.exp(R8 * Math.log(eef)) - 0.9603;
-  const R14 = (0.9408 - (u > 1.37 ? 0 : m.R9 * expMinusR6)) * Math.exp(R8 * lnEe0) - 0.9603;
-  const R16 = 1 + 0.0503 * m.er2 * m.R11 * r16Width;
+  const R13 = 0.9408 * Math.exp(R8 * Math.log(q.eef)) - 0.9603;
+  const R14 = (0.9408 - (u > 1.37 ? 0 : m.R9 * q.expMinusR6)) * Math.exp(R8 * q.lnEe0) - 0.9603;
+  const R16 = 1 + 0.0503 * m.er2 * m.R11 * q.r16Width;
   const R12overR16 = 1 / ((1 + 0.00245 * u * u) * R16); // R12 = 1/(1 + 0.00245 u²)
   const R17 = R7 * (1 - 1.1241 * R12overR16 * m.e17);
-  return z00 * Math.exp(R17 * Math.log(R13 / R14));
+  q.z0f = q.z00 * Math.exp(R17 * Math.log(R13 / R14));
 }

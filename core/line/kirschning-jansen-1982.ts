@@ -28,9 +28,20 @@ export function kjP3FrequencyFactor(fn: number): number { return -Math.expm1(-Ma
 /** fn^1.5763, the frequency factor of P. */
 export function kjFnPower(fn: number): number { return Math.pow(fn, 1.5763); }
 
+/** The inputs of kirschningJansenEpsEffWithTerms (one-variable terms as the functions above give them) and its output. */
+export interface KjTerms {
+  /** W/h (the thickness-corrected ur in the analysis), εr, static εe0, fn = f·h in GHz·mm. */
+  u: number; er: number; ee0: number; fn: number;
+  p1Width: number; p3Width: number; p3Freq: number; fnPower: number;
+  /** Output: εe(f). */
+  eef: number;
+}
+
 /** εe(f) from the static εe0 (u dimensionless, er relative permittivity, fn in GHz·mm > 0): the paper's formula. */
 export function kirschningJansenEpsEff(u: number, er: number, ee0: number, fn: number): number {
-  return kirschningJansenEpsEffWithTerms(u, er, ee0, fn, kjP1WidthTerm(u), kjP3WidthTerm(u), kjP3FrequencyFactor(fn), kjFnPower(fn));
+  const q: KjTerms = { u, er, ee0, fn, p1Width: kjP1WidthTerm(u), p3Width: kjP3WidthTerm(u), p3Freq: kjP3FrequencyFactor(fn), fnPower: kjFnPower(fn), eef: 0 };
+  kirschningJansenEpsEffWithTerms(q);
+  return q.eef;
 }
 
 // Terms of εr alone, remembered for the last εr (number fields of one object: V8 boxes a double written to a
@@ -45,8 +56,10 @@ const B1 = A; const B2 = (B1 * (A - 1)) / 2; const B3 = (B2 * (A - 2)) / 3; cons
  * εe(f) from the one-variable terms (as the functions above give them): P = P1·P2·fn^1.5763·(0.1844 + P3·P4)^1.5763,
  * the paper's ((0.1844 + P3·P4)·fn)^1.5763 split in two. With w = P3·P4/0.1844 below 1e-3 (f·h below about
  * 9 GHz·mm) the second factor is 0.1844^1.5763·(1 + w)^1.5763 by its binomial series to w⁵ (remainder < 1e-18).
+ * Into q.eef; inputs and output in one record (a double passed to a call that is not inlined is boxed on the heap).
  */
-export function kirschningJansenEpsEffWithTerms(u: number, er: number, ee0: number, fn: number, p1Width: number, p3Width: number, p3Freq: number, fnPower: number): number {
+export function kirschningJansenEpsEffWithTerms(q: KjTerms): void {
+  const u = q.u; const er = q.er; const fn = q.fn;
   if (er !== m.er) {
     m.er = er;
     m.P2 = 0.33622 * (1 - Math.exp(-0.03442 * er));
@@ -56,12 +69,12 @@ export function kirschningJansenEpsEffWithTerms(u: number, er: number, ee0: numb
   const c1 = 0.6315 + 0.525 / pow20(1 + 0.0157 * fn);
   // Above u = 4.1, 0.065683·exp(−8.7513u) < 1.8e-17 is below half an ulp (2.2e-16) of 0.27488 + c1·u (≥ 2.86 as
   // c1 > 0.63): subtracting it leaves P1 unchanged, so it is taken as 0.
-  const P1 = 0.27488 + c1 * u - (u > 4.1 ? 0 : p1Width);
-  const z = p3Width * p3Freq * m.P4;
+  const P1 = 0.27488 + c1 * u - (u > 4.1 ? 0 : q.p1Width);
+  const z = q.p3Width * q.p3Freq * m.P4;
   const w = z / 0.1844;
   const tail = w < 1e-3 ? K0 * (1 + w * (B1 + w * (B2 + w * (B3 + w * (B4 + w * B5))))) : Math.exp(A * Math.log(0.1844 + z));
-  const P = P1 * m.P2 * fnPower * tail;
-  return er - (er - ee0) / (1 + P);
+  const P = P1 * m.P2 * q.fnPower * tail;
+  q.eef = er - (er - q.ee0) / (1 + P);
 }
 
 function pow20(d: number): number {

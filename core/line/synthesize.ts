@@ -7,7 +7,7 @@
  */
 import { InputError, describe } from '../util/errors.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { evaluateModel, scratch } from './model.ts';
+import { evaluateModel, modelQuery, scratch } from './model.ts';
 import { checkConductorLoss, checkDispersion, checkFrequency, checkQuasiTem, checkSubstrate, U_MAX, U_MIN } from './inputs.ts';
 import { hammerstad1975WidthRatio } from './closed-form-synthesis.ts';
 import { hjDeltaU1, hjDeltaUr } from './hammerstad-jensen-1980.ts';
@@ -37,7 +37,12 @@ export function synthesizeLine(sub: SubstrateSpec, z0: number, f: number, opts?:
   checkQuasiTem(f, er, h);
   const tn = sub.t / h;
   // u is taken as (e^x·h)/h, exactly what the final analysis of the width e^x·h will see, so its evaluation is reused.
-  const G = (x: number): number => { evaluateModel((Math.exp(x) * h) / h, tn, er, h, f, disp); return scratch.z0f - z0; };
+  const q = modelQuery;
+  const G = (x: number): number => {
+    q.u = (Math.exp(x) * h) / h; q.tn = tn; q.er = er; q.h = h; q.f = f; q.disp = disp;
+    evaluateModel(q);
+    return scratch.z0f - z0;
+  };
   const tol = REL_TOL * z0;
 
   const unreachable = (): never => {

@@ -145,11 +145,16 @@ const bits64 = new Float64Array(1);
 const bits32 = new Uint32Array(bits64.buffer);
 const HI = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 1 : 0;
 
+/** Where an octave table is read: the argument as a field, because a double passed to a call that the compiler does
+ * not inline is boxed on the heap, and a field of a long-lived record is updated in place. */
+export interface TablePoint { x: number }
+
 /**
- * Writes functions first … first + n − 1 of the octave table at x to out[0 … n − 1] and returns true, or returns
- * false (writing nothing) when x lies outside the table: the caller then uses the formula.
+ * Writes functions first … first + n − 1 of the octave table at p.x to out[0 … n − 1] and returns true, or returns
+ * false (writing nothing) when p.x lies outside the table: the caller then uses the formula.
  */
-export function evaluateOctaveTable(tb: OctaveTable, x: number, first: number, n: number, out: Float64Array): boolean {
+export function readOctaveTable(tb: OctaveTable, p: TablePoint, first: number, n: number, out: Float64Array): boolean {
+  const x = p.x;
   bits64[0] = x;
   const i = (bits32[HI]! >>> 16) - tb.keyLo;
   if (!(i >= 0 && i < tb.pieces)) return false; // also false for NaN, negative x and x beyond the table
@@ -163,4 +168,12 @@ export function evaluateOctaveTable(tb: OctaveTable, x: number, first: number, n
       + t8 * (c[b + 8]! + c[b + 9]! * t);
   }
   return true;
+}
+
+const point: TablePoint = { x: 0 };
+
+/** As readOctaveTable, with x as an argument (tests and cold paths). */
+export function evaluateOctaveTable(tb: OctaveTable, x: number, first: number, n: number, out: Float64Array): boolean {
+  point.x = x;
+  return readOctaveTable(tb, point, first, n, out);
 }
