@@ -64,7 +64,8 @@ export function hjEpsEffExponent(u: number): number {
 
 /** εe of eq. (3) from the width exponent of hjEpsEffExponent. */
 export function hjEpsEffFromExponent(exponent: number, er: number): number {
-  return (er + 1) / 2 + ((er - 1) / 2) * Math.exp(-exponent * bOf(er));
+  if (er !== m.bEr) bOf(er); // remembered in m.bVal; read as a field, not a returned (boxed) double
+  return (er + 1) / 2 + ((er - 1) / 2) * Math.exp(-exponent * m.bVal);
 }
 
 /** Effective permittivity εe(u, εr) of the zero-thickness line — eqs. (3)–(5). */
@@ -86,9 +87,17 @@ export function hjThicknessTerms(u: number, tn: number): void {
 
 /** As hjThicknessTerms, with s = √(6.517u) and T = tanh s supplied (tn > 0). */
 export function hjThicknessTermsWith(tn: number, s: number, T: number): void {
+  hjThickness.s = s; hjThickness.T = T;
+  hjThicknessFromFields(tn);
+}
+
+/** The rest of eq. (6) from hjThickness.s and hjThickness.T already set (tn > 0): the hot path's form, whose only
+ * argument is tn (a double argument to a call that is not inlined is boxed on the heap). */
+export function hjThicknessFromFields(tn: number): void {
+  const T = hjThickness.T;
   const X = (4 * E * T * T) / tn;
   const lnX1 = Math.log(1 + X);
-  hjThickness.s = s; hjThickness.T = T; hjThickness.X = X; hjThickness.lnX1 = lnX1;
+  hjThickness.X = X; hjThickness.lnX1 = lnX1;
   hjThickness.du1 = (tn / Math.PI) * lnX1;
 }
 

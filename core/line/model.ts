@@ -6,7 +6,7 @@
  * The models' one-variable terms come from tables fitted to their formulas (term-tables.ts), which agree with the
  * formulas to about 1e-14 relative; outside the tabulated ranges the formulas themselves are used.
  */
-import { hjDeltaUrFactor, hjEpsEffExponent, hjEpsEffFromExponent, hjThickness, hjThicknessTerms, hjThicknessTermsWith, hjZ01, hjZ01Derivative } from './hammerstad-jensen-1980.ts';
+import { hjDeltaUrFactor, hjEpsEffExponent, hjEpsEffFromExponent, hjThickness, hjThicknessFromFields, hjThicknessTerms, hjZ01, hjZ01Derivative } from './hammerstad-jensen-1980.ts';
 import { kirschningJansenEpsEffWithTerms, kjFnPower, kjP1WidthTerm, kjP3FrequencyFactor, kjP3WidthTerm, type KjTerms } from './kirschning-jansen-1982.ts';
 import { jansenKirschningZ0WithTerms, type JkTerms, jkExpMinusR6, jkR15FrequencyFactor, jkR16WidthFactor, jkR17FrequencyFactor, jkR3, jkR7WidthFactor, jkR8FrequencyFactor } from './jansen-kirschning-1983.ts';
 import { hjDispersionEpsEff, hjDispersionZ0 } from './hammerstad-jensen-1980-dispersion.ts';
@@ -68,8 +68,8 @@ function staticPart(q: ModelQuery, dispersive: boolean): void {
     // Thickness correction (HJ eq. 6) with tanh √(6.517u) from the table.
     const s = Math.sqrt(6.517 * u);
     at.x = u;
-    if (u > WIDTH_U_MAX.tanh) hjThicknessTermsWith(tn, s, 1);
-    else if (readOctaveTable(W, at, W_TANH, 1, tv)) hjThicknessTermsWith(tn, s, tv[0]!);
+    if (u > WIDTH_U_MAX.tanh) { hjThickness.s = s; hjThickness.T = 1; hjThicknessFromFields(tn); }
+    else if (readOctaveTable(W, at, W_TANH, 1, tv)) { hjThickness.s = s; hjThickness.T = tv[0]!; hjThicknessFromFields(tn); }
     else hjThicknessTerms(u, tn);
   } else hjThickness.du1 = 0;
   const du1 = hjThickness.du1;
