@@ -60,6 +60,9 @@ function skinTerms(f: number, sigma: number, rough: number): void {
   sk.kr = rough === 0 ? 1 : hammerstadBekkadalKr(rough * rough * k);
 }
 
+/** What analyzeInto is asked (a record, not arguments: a double passed to a call that is not inlined is boxed). */
+const ask = { width: 0.5, f: 0.5 };
+
 /** One analysis' numbers, written by analyzeInto (one record reused: no allocation per analysis). */
 const r = {
   z0: 0.5, z0s: 0.5, ees: 0.5, eef: 0.5, lambdaG: 0.5, vp: 0.5, delayPerM: 0.5, alphaC: 0.5, alphaD: 0.5, skinDepth: 0.5,
@@ -70,7 +73,8 @@ const r = {
  * the option checks): numbers to `r`, warnings appended to `warnings`. Shared by analyzeLine and analyzeLines so
  * that both give the same numbers to the last bit.
  */
-function analyzeInto(sub: SubstrateSpec, width: number, f: number, disp: 0 | 1 | 2, lossModel: 0 | 1, warnings: Warning[]): void {
+function analyzeInto(sub: SubstrateSpec, a: { width: number; f: number }, disp: 0 | 1 | 2, lossModel: 0 | 1, warnings: Warning[]): void {
+  const width = a.width; const f = a.f;
   const h = sub.h;
   let er = sub.er;
   let tanDelta = sub.tanDelta;
@@ -165,7 +169,8 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   const disp = checkDispersion(opts);
   const lossModel = checkConductorLoss(opts);
   const warnings: Warning[] = [];
-  analyzeInto(sub, width, f, disp, lossModel, warnings);
+  ask.width = width; ask.f = f;
+  analyzeInto(sub, ask, disp, lossModel, warnings);
   const er = sub.dielectricModel === undefined || f === 0 ? sub.er : dielectricAt(sub, f).er;
   const { alphaC, alphaD, lambdaG } = r;
   return {
@@ -220,7 +225,8 @@ export function analyzeLines(sub: SubstrateSpec, widths: ArrayLike<number>, freq
   const pending: Warning[] = [];
   for (let i = 0; i < n; i++) {
     const f = fAt(i);
-    try { analyzeInto(sub, cols.width[i]!, f, disp, lossModel, pending); } catch (e) { throw atEntry(e, i); }
+    ask.width = cols.width[i]!; ask.f = f;
+    try { analyzeInto(sub, ask, disp, lossModel, pending); } catch (e) { throw atEntry(e, i); }
     cols.f[i] = f; cols.z0[i] = r.z0; cols.z0Static[i] = r.z0s; cols.epsEff[i] = r.eef; cols.epsEffStatic[i] = r.ees;
     cols.lambdaG[i] = r.lambdaG; cols.vp[i] = r.vp; cols.delayPerM[i] = r.delayPerM;
     cols.alphaC[i] = r.alphaC; cols.alphaD[i] = r.alphaD; cols.skinDepth[i] = r.skinDepth;

@@ -46,7 +46,7 @@ function substrateTerms(er: number, h: number): void {
 
 /** Thresholds from εr and h (m), and the strip width (m) when known. Inputs assumed validated. */
 export function thresholdsFor(er: number, h: number, width?: number): ModeThresholds {
-  substrateTerms(er, h);
+  if (er !== m.er || h !== m.h) substrateTerms(er, h);
   const te1 = m.te1; const surfaceWave = m.surfaceWave;
   if (width === undefined) return { ruleOfThumb: te1, te1, surfaceWave, warnAt: 0.5 * te1, errorAt: te1 };
   const transverseResonance = C0 / (m.sqrtEr * (2 * width + 0.8 * h));
@@ -59,7 +59,7 @@ export const limits = { warnAt: 0.5, errorAt: 0.5 };
 
 /** The warnAt and errorAt of thresholdsFor(er, h, width), into `limits` without building the record (hot path). */
 export function thresholdLimits(er: number, h: number, width: number): void {
-  substrateTerms(er, h);
+  if (er !== m.er || h !== m.h) substrateTerms(er, h);
   const te1 = m.te1;
   const transverseResonance = C0 / (m.sqrtEr * (2 * width + 0.8 * h));
   const lim = transverseResonance < te1 ? transverseResonance : te1;
