@@ -2,11 +2,17 @@
  * Line-model throughput on one core: full analyses per second (HJ static with thickness + KJ/JK dispersion +
  * Wheeler conductor loss with roughness + dielectric loss + thresholds and warnings), exact syntheses per second,
  * and — where Debian's python3-scikit-rf is installed — the same 100 000 analyses vectorised by that library
- * (timed inside Python, best of 3), printed as a ratio, and the machine's pace (ns per Math.exp call) for context. Targets: ≥ 2 000 000 analyses/s, ≥ 300 000 syntheses/s,
- * faster than the vectorised library. Figures vary with machine load; run it alone.
+ * (timed inside Python, best of 3), printed as a ratio, and the machine's pace (ns per Math.exp call) for context.
+ * Targets: ≥ 2 000 000 analyses/s, ≥ 300 000 syntheses/s, faster than the vectorised library.
+ *
+ * Each measure runs in a process of its own (this file with --measure NAME), as benchmark harnesses fork: the
+ * compiler shapes a function's machine code by the calls it has seen, so one pattern timed after another measures
+ * the mix. One extra measure does exactly that on purpose (random analyses after every other pattern), as a tool
+ * that sizes, sweeps and analyses in one session would see. Figures vary with machine load; run it alone.
  */
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { analyzeLine, analyzeLines, synthesizeLine } from '../core/line/index.ts';
 import type { SubstrateSpec } from '../core/substrate/types.ts';
 
@@ -22,29 +28,57 @@ function lcg(seed: number) {
 
 interface Timing { seconds: number; wall: number; sink: number }
 
-/**
- * Each measure's best round, in CPU seconds of this process (user + system); the wall time of the best round is kept
- * for the record. Rounds go round-robin over the measures, so that every measure samples the whole run: on a virtual
- * machine whose speed drifts with its neighbours' load, a measure timed in one stretch can land in a slow spell.
- */
-function timeRoundRobin(measures: Record<string, () => number>, rounds: number): Record<string, Timing> {
-  const out: Record<string, Timing> = {};
-  for (const k of Object.keys(measures)) out[k] = { seconds: Infinity, wall: Infinity, sink: 0 };
+/** Best of `rounds`, in CPU seconds of this process (user + system); the wall time of the best round is kept too. */
+function timeBest(fn: () => number, rounds: number): Timing {
+  const o: Timing = { seconds: Infinity, wall: Infinity, sink: 0 };
   for (let r = 0; r < rounds; r++) {
-    for (const [k, fn] of Object.entries(measures)) {
-      const c0 = process.cpuUsage(); const t0 = performance.now();
-      const sink = fn();
-      const c = process.cpuUsage(c0);
-      const cpu = (c.user + c.system) / 1e6;
-      const o = out[k]!;
-      o.sink += sink;
-      if (cpu < o.seconds) { o.seconds = cpu; o.wall = (performance.now() - t0) / 1000; }
-    }
+    const c0 = process.cpuUsage(); const t0 = performance.now();
+    o.sink += fn();
+    const c = process.cpuUsage(c0);
+    const cpu = (c.user + c.system) / 1e6;
+    if (cpu < o.seconds) { o.seconds = cpu; o.wall = (performance.now() - t0) / 1000; }
   }
-  return out;
+  return o;
 }
 
-/** The machine's pace: ns per Math.exp call in a plain loop (about 8–10 ns on an idle machine of the CI kind). */
+const rnd = lcg(1);
+const widths = new Float64Array(N); const freqs = new Float64Array(N); const z0s = new Float64Array(N);
+for (let i = 0; i < N; i++) {
+  widths[i] = SUB.h * 10 ** (rnd() * 2 - 1); // W/h 0.1–10
+  freqs[i] = 10 ** (8 + rnd() * 2); // 100 MHz – 10 GHz
+  z0s[i] = 25 + rnd() * 100; // 25–125 Ω
+}
+
+/** The measures: each returns a number that depends on every result (so nothing is optimised away). */
+const MEASURES = {
+  ana: () => { let s = 0; for (let i = 0; i < N; i++) s += analyzeLine(SUB, widths[i]!, freqs[i]!).alphaC; return s; },
+  // The batch form (one call, columns out), as a vectorised library is called.
+  batch: () => analyzeLines(SUB, widths, freqs).alphaC[N - 1]!,
+  // A frequency sweep of 100 lines (the network solver's pattern) and a width sweep at one frequency (sizing tables).
+  fSweep: () => { let s = 0; for (let l = 0; l < 100; l++) for (let k = 0; k < N / 100; k++) s += analyzeLine(SUB, widths[l]!, 1e8 + k * 1e7).alphaC; return s; },
+  wSweep: () => { let s = 0; for (let i = 0; i < N; i++) s += analyzeLine(SUB, widths[i]!, 5.8e9).alphaC; return s; },
+  syn: () => { let s = 0; for (let i = 0; i < N; i++) s += synthesizeLine(SUB, z0s[i]!, freqs[i]!).width; return s; },
+  synStatic: () => { let s = 0; for (let i = 0; i < N; i++) s += synthesizeLine(SUB, z0s[i]!, 0).width; return s; },
+  // Random analyses after every pattern above has run in this process (mixed feedback, as in a working session).
+  anaMixed: () => MEASURES.ana(),
+} as const;
+type MeasureName = keyof typeof MEASURES;
+
+/** In the child: warm up on the measure (for anaMixed: on all of them), then time it. */
+function measureHere(name: MeasureName): Timing {
+  if (name === 'anaMixed') for (const k of Object.keys(MEASURES) as MeasureName[]) if (k !== 'anaMixed') MEASURES[k]();
+  for (let r = 0; r < 3; r++) MEASURES[name]();
+  return timeBest(MEASURES[name], ROUNDS);
+}
+
+/** In the parent: one child process per measure. */
+function measureInChild(name: MeasureName): Timing {
+  const r = spawnSync(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), '--measure', name], { encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(`line bench: measure ${name} failed: ${(r.stderr || r.error?.message || '').trim()}`);
+  return JSON.parse(r.stdout.trim().split('\n').pop()!) as Timing;
+}
+
+/** The machine's pace: ns per Math.exp call in a plain loop (about 7–10 ns on an idle machine of the CI kind). */
 function expPace(): number {
   const xs = new Float64Array(1 << 16);
   for (let i = 0; i < xs.length; i++) xs[i] = (i / xs.length) * 8 - 4;
@@ -65,29 +99,9 @@ function pythonSkrf(n: number): { per_second: number; seconds: number; skrf: str
 }
 
 export async function run(): Promise<void> {
-  const rnd = lcg(1);
-  const widths = new Float64Array(N); const freqs = new Float64Array(N); const z0s = new Float64Array(N);
-  for (let i = 0; i < N; i++) {
-    widths[i] = SUB.h * 10 ** (rnd() * 2 - 1); // W/h 0.1–10
-    freqs[i] = 10 ** (8 + rnd() * 2); // 100 MHz – 10 GHz
-    z0s[i] = 25 + rnd() * 100; // 25–125 Ω
-  }
-  // Warm up the JIT on the same code path.
-  for (let i = 0; i < 20_000; i++) analyzeLine(SUB, widths[i]!, freqs[i]!);
-  for (let i = 0; i < 5_000; i++) synthesizeLine(SUB, z0s[i]!, freqs[i]!);
-
-  for (let i = 0; i < 5; i++) analyzeLines(SUB, widths, freqs);
-  const t = timeRoundRobin({
-    ana: () => { let s = 0; for (let i = 0; i < N; i++) s += analyzeLine(SUB, widths[i]!, freqs[i]!).alphaC; return s; },
-    // The batch form (one call, columns out), as a vectorised library is called.
-    batch: () => analyzeLines(SUB, widths, freqs).alphaC[N - 1]!,
-    // A frequency sweep of 100 lines (the network solver's pattern) and a width sweep at one frequency (sizing tables).
-    fSweep: () => { let s = 0; for (let l = 0; l < 100; l++) for (let k = 0; k < N / 100; k++) s += analyzeLine(SUB, widths[l]!, 1e8 + k * 1e7).alphaC; return s; },
-    wSweep: () => { let s = 0; for (let i = 0; i < N; i++) s += analyzeLine(SUB, widths[i]!, 5.8e9).alphaC; return s; },
-    syn: () => { let s = 0; for (let i = 0; i < N; i++) s += synthesizeLine(SUB, z0s[i]!, freqs[i]!).width; return s; },
-    synStatic: () => { let s = 0; for (let i = 0; i < N; i++) s += synthesizeLine(SUB, z0s[i]!, 0).width; return s; },
-  }, ROUNDS);
-  const { ana, batch, fSweep, wSweep, syn, synStatic } = t as Record<'ana' | 'batch' | 'fSweep' | 'wSweep' | 'syn' | 'synStatic', Timing>;
+  const t = {} as Record<MeasureName, Timing>;
+  for (const k of Object.keys(MEASURES) as MeasureName[]) t[k] = measureInChild(k);
+  const { ana, batch, fSweep, wSweep, syn, synStatic, anaMixed } = t;
   const anaRate = N / ana.seconds; const batchRate = N / batch.seconds; const synRate = N / syn.seconds; const synStaticRate = N / synStatic.seconds;
   const pace = expPace();
   const py = pythonSkrf(N);
@@ -97,6 +111,7 @@ export async function run(): Promise<void> {
   console.log('|---|---|---|---|');
   console.log(`| analyses, random W and f every call (static + KJ/JK dispersion + losses) | ${f(anaRate)} | ≥ 2,000,000 | ${anaRate >= 2e6 ? 'yes' : 'no'} |`);
   console.log(`| analyses in one batch call (analyzeLines), random W and f | ${f(batchRate)} | ≥ 2,000,000 | ${batchRate >= 2e6 ? 'yes' : 'no'} |`);
+  console.log(`| analyses, random W and f, after every other pattern ran in the same process | ${f(N / anaMixed.seconds)} | — | — |`);
   console.log(`| analyses, frequency sweeps of fixed lines | ${f(N / fSweep.seconds)} | ≥ 2,000,000 | ${N / fSweep.seconds >= 2e6 ? 'yes' : 'no'} |`);
   console.log(`| analyses, width sweep at one frequency | ${f(N / wSweep.seconds)} | ≥ 2,000,000 | ${N / wSweep.seconds >= 2e6 ? 'yes' : 'no'} |`);
   console.log(`| exact syntheses at f (to 1e-10) | ${f(synRate)} | ≥ 300,000 | ${synRate >= 3e5 ? 'yes' : 'no'} |`);
@@ -107,7 +122,13 @@ export async function run(): Promise<void> {
     console.log(`| scikit-rf ${py.skrf} vectorised analyses (numpy, timed in Python) | ${f(py.per_second)} | slower than ours | ${ratio > 1 ? 'yes' : 'no'} |`);
     console.log(`\nratio ours / scikit-rf vectorised: ${ratio.toFixed(2)}× one call per analysis, ${(batchRate / py.per_second).toFixed(2)}× in one batch call (one run each; the library computes static, εe(f), Z0(f) and αd, no conductor loss or warnings)`);
   }
-  console.log(`machine pace: ${pace.toFixed(1)} ns per Math.exp call (about 8–10 on an idle machine of this kind; higher means a slow spell)`);
+  console.log(`machine pace: ${pace.toFixed(1)} ns per Math.exp call (about 7–10 on an idle machine of this kind; higher means a slow spell)`);
   console.log(`wall-clock rate of the random-case analyses: ${f(N / ana.wall)} per second (machine load affects it)`);
-  if (!Number.isFinite(ana.sink + batch.sink + fSweep.sink + wSweep.sink + syn.sink + synStatic.sink)) console.log('warning: a non-finite result appeared');
+  if (!Object.values(t).every((x) => Number.isFinite(x.sink))) console.log('warning: a non-finite result appeared');
+}
+
+if (process.argv[2] === '--measure') {
+  const name = process.argv[3] as MeasureName;
+  if (!(name in MEASURES)) { console.error(`unknown measure ${name}; one of ${Object.keys(MEASURES).join(', ')}`); process.exit(2); }
+  console.log(JSON.stringify(measureHere(name)));
 }
