@@ -22,11 +22,7 @@ const Z_SCALE = ETA0 / TWO_PI;
 
 /** Air-filled, zero-thickness line impedance Z01(u), Ω — eq. (1), with f(u) = 6 + (2π − 6)·exp(−(30.666/u)^0.7528). */
 export function hjZ01(u: number): number {
-  return hjZ01Ln(u, Math.log(u));
-}
-
-/** As hjZ01, with lnU = ln u supplied by a caller that needs ln u as well. */
-export function hjZ01Ln(u: number, lnU: number): number {
+  const lnU = Math.log(u);
   const f = 6 + (TWO_PI - 6) * Math.exp(-Math.exp(0.7528 * (LN_30666 - lnU)));
   return Z_SCALE * Math.log(f / u + Math.sqrt(1 + 4 / (u * u)));
 }
@@ -82,12 +78,8 @@ export const hjThickness = { s: 0, T: 0, X: 0, lnX1: 0, du1: 0 };
 export function hjThicknessTerms(u: number, tn: number): void {
   if (tn <= 0) { hjThickness.du1 = 0; return; }
   const s = Math.sqrt(6.517 * u);
-  hjThicknessTermsWith(tn, s, s > 20 ? 1 : 1 - 2 / (Math.exp(2 * s) + 1)); // tanh s
-}
-
-/** As hjThicknessTerms, with s = √(6.517u) and T = tanh s supplied (tn > 0). */
-export function hjThicknessTermsWith(tn: number, s: number, T: number): void {
-  hjThickness.s = s; hjThickness.T = T;
+  hjThickness.s = s;
+  hjThickness.T = s > 20 ? 1 : 1 - 2 / (Math.exp(2 * s) + 1); // tanh s
   hjThicknessFromFields(tn);
 }
 

@@ -1,5 +1,6 @@
 /**
- * Piecewise-polynomial tables of smooth one-variable functions, built from the functions themselves on first use.
+ * Piecewise-polynomial tables of smooth one-variable functions of x > 0, built from the functions themselves on first
+ * use.
  *
  * Why: the line model's terms that depend on W/h alone or on f·h alone are exp/log compositions, each a library call
  * of about 10 ns; a degree-9 polynomial on a short piece, evaluated in Estrin's form (independent products, so the
@@ -8,7 +9,7 @@
  * test/unit/line-term-tables.test.ts). The formula stays the source of truth: the table is fitted from it at run time,
  * no coefficient is written down.
  *
- * Method: interpolation at the 10 Chebyshev points of each of `pieces` equal intervals of x (near-best polynomial
+ * Method: interpolation at the 10 Chebyshev points of each piece (near-best polynomial
  * approximation; L. N. Trefethen, Approximation Theory and Approximation Practice, SIAM 2013, ch. 3–4, 16), converted
  * to powers of the local variable t ∈ [−1, 1]. For a function whose k-th derivative grows like a^k, the error on a
  * piece of half-width r is about 2·(a·r/2)^10/10!, so a table is only used where a·r stays small; callers fall back to
@@ -17,18 +18,6 @@
 
 /** Coefficients per function and piece (degree 9). */
 const NC = 10;
-
-export interface SmoothTable {
-  readonly lo: number;
-  readonly hi: number;
-  readonly pieces: number;
-  /** pieces / (hi − lo). */
-  readonly scale: number;
-  /** Number of functions sharing the pieces. */
-  readonly count: number;
-  /** coef[(piece·count + k)·10 + j]: power-basis coefficient j of function k on the piece. */
-  readonly coef: Float64Array;
-}
 
 /** Chebyshev-point interpolant of g on [a, b] as powers of t ∈ [−1, 1] (x = a + (b − a)(t + 1)/2). */
 function fitPiece(g: (x: number) => number, a: number, b: number, out: Float64Array, at: number): void {
@@ -57,58 +46,20 @@ function fitPiece(g: (x: number) => number, a: number, b: number, out: Float64Ar
 }
 
 /**
- * Tables of `fns` on [lo, hi] in `pieces` equal intervals. Every function must be finite on the whole interval.
- * Example: buildTable([Math.exp], 0, 1, 8) reproduces exp on [0, 1] to about 1e-16.
- */
-export function buildTable(fns: readonly ((x: number) => number)[], lo: number, hi: number, pieces: number): SmoothTable {
-  if (!(hi > lo) || !(pieces >= 1) || !Number.isInteger(pieces)) throw new RangeError(`buildTable: need lo < hi and a whole number of pieces, got [${lo}, ${hi}] in ${pieces}`);
-  const count = fns.length;
-  const coef = new Float64Array(pieces * count * NC);
-  const w = (hi - lo) / pieces;
-  for (let i = 0; i < pieces; i++) {
-    for (let k = 0; k < count; k++) fitPiece(fns[k]!, lo + i * w, i === pieces - 1 ? hi : lo + (i + 1) * w, coef, (i * count + k) * NC);
-  }
-  for (let i = 0; i < coef.length; i++) {
-    if (!Number.isFinite(coef[i]!)) throw new RangeError(`buildTable: function ${Math.floor(i / NC) % count} is not finite on [${lo}, ${hi}]`);
-  }
-  return { lo, hi, pieces, scale: pieces / (hi - lo), count, coef };
-}
-
-/**
- * Writes functions first … first + n − 1 of the table at x (x must lie in [lo, hi]; callers check) to out[0 … n − 1].
- * One call fills several values: a double returned from a call that the compiler does not inline is boxed on the
- * heap, a double written to a Float64Array is not. Each value in Estrin's form (independent products).
- */
-export function evaluateTable(tb: SmoothTable, x: number, first: number, n: number, out: Float64Array): void {
-  const sc = (x - tb.lo) * tb.scale;
-  let i = sc | 0;
-  if (i >= tb.pieces) i = tb.pieces - 1;
-  else if (i < 0) i = 0;
-  const t = 2 * (sc - i) - 1;
-  const t2 = t * t; const t4 = t2 * t2; const t8 = t4 * t4;
-  const c = tb.coef;
-  let b = (i * tb.count + first) * NC;
-  for (let k = 0; k < n; k++, b += NC) {
-    out[k] = (c[b]! + c[b + 1]! * t + t2 * (c[b + 2]! + c[b + 3]! * t))
-      + t4 * ((c[b + 4]! + c[b + 5]! * t) + t2 * (c[b + 6]! + c[b + 7]! * t))
-      + t8 * (c[b + 8]! + c[b + 9]! * t);
-  }
-}
-
-/** Function k of the table at x (x in [lo, hi]), for tests and cold paths. */
-export function lookup(tb: SmoothTable, k: number, x: number): number {
-  const out = new Float64Array(1);
-  evaluateTable(tb, x, k, 1, out);
-  return out[0]!;
-}
-
-/**
  * A table over x > 0 whose pieces are found from the bits of x instead of its logarithm: 16 pieces per octave
  * (x from 2^e·(1 + j/16) to 2^e·(1 + (j + 1)/16)), each a polynomial in x itself. A piece spans a ratio of at most
  * 17/16, about as much as 0.06 in ln x, so functions that are smooth in ln x are reproduced as well as by a table over
  * ln x, without the library log call that would locate them.
  */
-export interface OctaveTable extends SmoothTable {
+export interface OctaveTable {
+  /** The table covers [lo, hi) = [2^eLo, 2^eHi). */
+  readonly lo: number;
+  readonly hi: number;
+  readonly pieces: number;
+  /** Number of functions sharing the pieces. */
+  readonly count: number;
+  /** coef[(piece·count + k)·10 + j]: power-basis coefficient j of function k on the piece. */
+  readonly coef: Float64Array;
   /** Key of the first piece: the top 16 bits of the IEEE 754 double 2^eLo (sign, exponent and 4 mantissa bits). */
   readonly keyLo: number;
   /** Per piece: its start and 2/width. */
@@ -136,7 +87,7 @@ export function buildOctaveTable(fns: readonly ((x: number) => number)[], eLo: n
     if (!Number.isFinite(coef[i]!)) throw new RangeError(`buildOctaveTable: function ${Math.floor(i / NC) % count} is not finite on [2^${eLo}, 2^${eHi})`);
   }
   const keyLo = (eLo + 1023) * PIECES_PER_OCTAVE;
-  return { lo: 2 ** eLo, hi: 2 ** eHi, pieces, scale: Number.NaN, count, coef, keyLo, start, twoOverWidth };
+  return { lo: 2 ** eLo, hi: 2 ** eHi, pieces, count, coef, keyLo, start, twoOverWidth };
 }
 
 // The bits of a double, read through two views of one buffer; HI is the 32-bit word with the sign, the exponent and
