@@ -13,6 +13,7 @@
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { getHeapSpaceStatistics } from 'node:v8';
 import { analyzeLine, analyzeLines, synthesizeLine } from '../core/line/index.ts';
 import type { SubstrateSpec } from '../core/substrate/types.ts';
 
@@ -71,6 +72,24 @@ function measureHere(name: MeasureName): Timing {
   return timeBest(MEASURES[name], ROUNDS);
 }
 
+/**
+ * JS-heap bytes allocated per analysis, per call and in the batch form: the young generation's used size around a
+ * loop short enough to fit in it (rounds where a collection ran show a drop and are skipped; the least is kept).
+ */
+function heapBytesPerAnalysis(): { perCall: number; batch: number } {
+  const young = () => getHeapSpaceStatistics().find((x) => x.space_name === 'new_space')?.space_used_size ?? Number.NaN;
+  const n = 2000; const w = widths.subarray(0, n); const fr = freqs.subarray(0, n);
+  const least = (fn: () => void): number => {
+    let best = Infinity;
+    for (let r = 0; r < 15; r++) { const a = young(); fn(); const b = young(); if (b >= a) best = Math.min(best, (b - a) / n); }
+    return best;
+  };
+  for (let r = 0; r < 20; r++) { MEASURES.ana(); }
+  const perCall = least(() => { for (let i = 0; i < n; i++) analyzeLine(SUB, w[i]!, fr[i]!); });
+  const batch = least(() => { analyzeLines(SUB, w, fr); });
+  return { perCall, batch };
+}
+
 /** In the parent: one child process per measure. */
 function measureInChild(name: MeasureName): Timing {
   const r = spawnSync(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), '--measure', name], { encoding: 'utf8' });
@@ -102,6 +121,8 @@ export async function run(): Promise<void> {
   const t = {} as Record<MeasureName, Timing>;
   for (const k of Object.keys(MEASURES) as MeasureName[]) t[k] = measureInChild(k);
   const { ana, batch, fSweep, wSweep, syn, synStatic, anaMixed } = t;
+  const heap = spawnSync(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), '--heap'], { encoding: 'utf8' });
+  const bytes = heap.status === 0 ? JSON.parse(heap.stdout.trim().split('\n').pop()!) as { perCall: number; batch: number } : undefined;
   const anaRate = N / ana.seconds; const batchRate = N / batch.seconds; const synRate = N / syn.seconds; const synStaticRate = N / synStatic.seconds;
   const pace = expPace();
   const py = pythonSkrf(N);
@@ -122,11 +143,13 @@ export async function run(): Promise<void> {
     console.log(`| scikit-rf ${py.skrf} vectorised analyses (numpy, timed in Python) | ${f(py.per_second)} | slower than ours | ${ratio > 1 ? 'yes' : 'no'} |`);
     console.log(`\nratio ours / scikit-rf vectorised: ${ratio.toFixed(2)}× one call per analysis, ${(batchRate / py.per_second).toFixed(2)}× in one batch call (one run each; the library computes static, εe(f), Z0(f) and αd, no conductor loss or warnings)`);
   }
+  if (bytes) console.log(`JS heap allocated per analysis: ${bytes.perCall.toFixed(0)} bytes one call each (the result record), ${bytes.batch.toFixed(0)} bytes in one batch call (column storage outside the JS heap)`);
   console.log(`machine pace: ${pace.toFixed(1)} ns per Math.exp call (about 7–10 on an idle machine of this kind; higher means a slow spell)`);
   console.log(`wall-clock rate of the random-case analyses: ${f(N / ana.wall)} per second (machine load affects it)`);
   if (!Object.values(t).every((x) => Number.isFinite(x.sink))) console.log('warning: a non-finite result appeared');
 }
 
+if (process.argv[2] === '--heap') console.log(JSON.stringify(heapBytesPerAnalysis()));
 if (process.argv[2] === '--measure') {
   const name = process.argv[3] as MeasureName;
   if (!(name in MEASURES)) { console.error(`unknown measure ${name}; one of ${Object.keys(MEASURES).join(', ')}`); process.exit(2); }
