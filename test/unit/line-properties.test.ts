@@ -35,6 +35,17 @@ function allFinite(r: LineResult): boolean {
   return nums.every(Number.isFinite) && r.z0 > 0 && r.epsEff >= 1 && r.alphaC >= 0 && r.alphaD >= 0;
 }
 
+/**
+ * The analysis, or undefined when it raised the one refusal allowed at accepted input: the Jansen–Kirschning Z0(f)
+ * fit has no value for εr barely above 1 far beyond its f·h range (an InputError naming 'f' that says so).
+ */
+function finiteOrUndefinedFit(run: () => LineResult): LineResult | undefined {
+  try { return run(); } catch (e) {
+    if (e instanceof InputError && e.field === 'f' && /Z0\(f\) fit has a value/.test(e.expected)) return undefined;
+    throw e;
+  }
+}
+
 describe('line model properties', () => {
   it('no finite in-range input yields NaN or Infinity (every model choice)', () => {
     fc.assert(fc.property(
@@ -43,10 +54,19 @@ describe('line model properties', () => {
       (s, logU, fe, dispersion, conductorLoss) => {
         const f = freqOf(s, fe);
         const w = s.h * 10 ** logU;
-        const r = analyzeLine(s, w, f, { dispersion, conductorLoss });
+        const r = finiteOrUndefinedFit(() => analyzeLine(s, w, f, { dispersion, conductorLoss }));
+        if (r === undefined) return;
         expect(allFinite(r)).toBe(true);
         for (const wn of r.warnings) expect(wn.message.length).toBeGreaterThan(10);
       }), { seed: SEED, numRuns: 3000 });
+  });
+  it('near εr = 1 at any accepted frequency: finite numbers, or the typed error of the Z0(f) fit, never NaN', () => {
+    const airLike = sub.map((s) => ({ ...s, er: 1.001 + (s.er - 1.001) / 640 })); // εr 1.001–1.2
+    fc.assert(fc.property(airLike, fc.double({ min: -3, max: 3, noNaN: true }), fc.double({ min: -3, max: 0, noNaN: true }),
+      (s, logU, fe) => {
+        const r = finiteOrUndefinedFit(() => analyzeLine(s, s.h * 10 ** logU, freqOf(s, fe)));
+        if (r !== undefined) expect(allFinite(r)).toBe(true);
+      }), { seed: SEED + 5, numRuns: 3000 });
   });
   it('synthesis of any reachable target inverts the analysis to 1e-9 and stays finite', () => {
     fc.assert(fc.property(sub, fc.double({ min: -2.9, max: 2.9, noNaN: true }), freqFraction,
