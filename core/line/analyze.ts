@@ -63,9 +63,9 @@ function skinTerms(f: number, sigma: number, rough: number): void {
 /** What analyzeInto is asked (a record, not arguments: a double passed to a call that is not inlined is boxed). */
 const ask = { width: 0.5, f: 0.5 };
 
-/** One analysis' numbers, written by analyzeInto (one record reused: no allocation per analysis). */
+/** One analysis' numbers (and the εr at f it used), written by analyzeInto (one record reused: no allocation). */
 const r = {
-  z0: 0.5, z0s: 0.5, ees: 0.5, eef: 0.5, lambdaG: 0.5, vp: 0.5, delayPerM: 0.5, alphaC: 0.5, alphaD: 0.5, skinDepth: 0.5,
+  er: 0.5, z0: 0.5, z0s: 0.5, ees: 0.5, eef: 0.5, lambdaG: 0.5, vp: 0.5, delayPerM: 0.5, alphaC: 0.5, alphaD: 0.5, skinDepth: 0.5,
 };
 
 /**
@@ -89,6 +89,7 @@ function analyzeInto(sub: SubstrateSpec, a: { width: number; f: number }, disp: 
   }
 
   checkQuasiTem(f, er, h);
+  r.er = er;
   const t = sub.t;
   const u = width / h;
   const tn = t / h;
@@ -171,14 +172,13 @@ export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?:
   const warnings: Warning[] = [];
   ask.width = width; ask.f = f;
   analyzeInto(sub, ask, disp, lossModel, warnings);
-  const er = sub.dielectricModel === undefined || f === 0 ? sub.er : dielectricAt(sub, f).er;
   const { alphaC, alphaD, lambdaG } = r;
   return {
     width, f, z0: r.z0, z0Static: r.z0s, epsEff: r.eef, epsEffStatic: r.ees,
     lambdaG, vp: r.vp, delayPerM: r.delayPerM,
     alphaC, alphaD, alphaCdBPerM: alphaC * NP_TO_DB, alphaDdBPerM: alphaD * NP_TO_DB,
     lossDbPerWavelength: (alphaC + alphaD) * NP_TO_DB * lambdaG,
-    skinDepth: r.skinDepth, thresholds: thresholdsFor(er, sub.h, width), warnings,
+    skinDepth: r.skinDepth, thresholds: thresholdsFor(r.er, sub.h, width), warnings,
   };
 }
 

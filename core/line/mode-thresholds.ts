@@ -34,14 +34,13 @@ export interface ModeThresholds {
 // Substrate-only terms, remembered for the last substrate (number fields of one object rather than module `let`s).
 const m = { er: Number.NaN, h: Number.NaN, te1: 0.5, surfaceWave: 0.5, sqrtEr: 0.5 };
 
+/** Recomputes m for (er, h); callers check `er !== m.er || h !== m.h` first, so the common case makes no call. */
 function substrateTerms(er: number, h: number): void {
-  if (er !== m.er || h !== m.h) {
-    m.er = er; m.h = h;
-    const root = Math.sqrt(er - 1);
-    m.te1 = C0 / (4 * h * root);
-    m.surfaceWave = (C0 / (2 * Math.PI * h)) * Math.sqrt(2 / (er - 1)) * Math.atan(er);
-    m.sqrtEr = Math.sqrt(er);
-  }
+  m.er = er; m.h = h;
+  const root = Math.sqrt(er - 1);
+  m.te1 = C0 / (4 * h * root);
+  m.surfaceWave = (C0 / (2 * Math.PI * h)) * Math.sqrt(2 / (er - 1)) * Math.atan(er);
+  m.sqrtEr = Math.sqrt(er);
 }
 
 /** Thresholds from εr and h (m), and the strip width (m) when known. Inputs assumed validated. */
@@ -49,21 +48,20 @@ export function thresholdsFor(er: number, h: number, width?: number): ModeThresh
   if (er !== m.er || h !== m.h) substrateTerms(er, h);
   const te1 = m.te1; const surfaceWave = m.surfaceWave;
   if (width === undefined) return { ruleOfThumb: te1, te1, surfaceWave, warnAt: 0.5 * te1, errorAt: te1 };
-  const transverseResonance = C0 / (m.sqrtEr * (2 * width + 0.8 * h));
-  const lim = transverseResonance < te1 ? transverseResonance : te1;
-  return { ruleOfThumb: te1, te1, surfaceWave, transverseResonance, warnAt: 0.5 * lim, errorAt: lim };
+  thresholdLimits(er, h, width);
+  return { ruleOfThumb: te1, te1, surfaceWave, transverseResonance: limits.transverseResonance, warnAt: limits.warnAt, errorAt: limits.errorAt };
 }
 
-/** Written by thresholdLimits: the caution and error frequencies of thresholdsFor, Hz. */
-export const limits = { warnAt: 0.5, errorAt: 0.5 };
+/** Written by thresholdLimits: the transverse resonance and the caution and error frequencies of thresholdsFor, Hz. */
+export const limits = { transverseResonance: 0.5, warnAt: 0.5, errorAt: 0.5 };
 
-/** The warnAt and errorAt of thresholdsFor(er, h, width), into `limits` without building the record (hot path). */
+/** The width-dependent part of thresholdsFor(er, h, width), into `limits` without building the record (hot path). */
 export function thresholdLimits(er: number, h: number, width: number): void {
   if (er !== m.er || h !== m.h) substrateTerms(er, h);
   const te1 = m.te1;
   const transverseResonance = C0 / (m.sqrtEr * (2 * width + 0.8 * h));
   const lim = transverseResonance < te1 ? transverseResonance : te1;
-  limits.warnAt = 0.5 * lim; limits.errorAt = lim;
+  limits.transverseResonance = transverseResonance; limits.warnAt = 0.5 * lim; limits.errorAt = lim;
 }
 
 /**
