@@ -5,11 +5,12 @@
  *
  * Every edit goes through the core's History (design commands, undo by diffs); a drag is one live step.
  */
-import { DESIGN_COMMANDS, History, parseDesign, serializeDesign, newDesign, copySelection, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess } from '../../../core/design/index.ts';
+import { DESIGN_COMMANDS, DESIGN_LIMITS, History, parseDesign, serializeDesign, newDesign, copySelection, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess } from '../../../core/design/index.ts';
 import type { Box, Region, Vec2 } from '../../../core/geometry/types.ts';
 import type { SubstrateSpec } from '../../../core/substrate/types.ts';
 import { InputError } from '../../../core/util/errors.ts';
-import { defaultGroundClearance } from '../../../core/layout/index.ts';
+import { defaultGroundClearance, smdFootprint } from '../../../core/layout/index.ts';
+import { sparamsAdmittance } from '../../../core/network/index.ts';
 import type { Scene } from '../board/scene.ts';
 import type { Preview } from '../board/BoardController.ts';
 import { ToolMachine, type ToolId } from '../board/tools.ts';
@@ -142,6 +143,24 @@ export class EditorState {
   redo(): void { this.fieldEnd(true); if (this.history.redo()) this.status = 'Redone'; }
 
   updateSegment(id: string, spec: Record<string, unknown>): void { this.edit('segment.setSpec', { id, spec }); }
+
+  /**
+   * Makes the part or measured block `id` a measured block with the Touchstone text of `fileName` (1 or 2 ports),
+   * checked the way the sweep will read it. One undo step. Returns the reason when the file is refused (the design
+   * is then left as it was). A lumped part keeps its place: the block takes the part's pad pitch as its length.
+   */
+  useMeasuredData(id: string, fileName: string, text: string): string | null {
+    const seg = this.doc.segments.find((s) => s.id === id);
+    if (!seg || (seg.kind !== 'lumped' && seg.kind !== 'sparams')) return 'Select a part or a measured block first.';
+    if (text.length > DESIGN_LIMITS.touchstone) return `${fileName}: expected a Touchstone file of at most ${DESIGN_LIMITS.touchstone.toLocaleString('en-US')} characters, got ${text.length.toLocaleString('en-US')}`;
+    try { sparamsAdmittance(text, fileName, fileName); } catch (err) {
+      return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}${err.hint ? ` (${err.hint})` : ''}` : String(err);
+    }
+    const length = seg.kind === 'sparams' ? seg.length : { by: 'length', length: smdFootprint(seg.size).pitch };
+    const ok = this.edit('segment.setSpec', { id, spec: { kind: 'sparams', touchstone: text, name: fileName, width: seg.width, length } }, 'Use measured data');
+    if (ok) this.status = `${id} now uses the measured data of ${fileName}`;
+    return ok ? null : this.status;
+  }
 
   updateNode(id: string, patch: Record<string, unknown>): void {
     const { label, ...spec } = patch;
