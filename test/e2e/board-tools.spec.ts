@@ -200,3 +200,31 @@ test('the snap grid can be chosen in the status line and frames the selection wi
   await page.keyboard.press('Shift+F');
   expect(await scale()).toBeCloseTo(framed, 1);
 });
+
+test('a part takes measured data from a Touchstone file chosen in the piece sheet, and the response follows', async ({ page }) => {
+  // Series 100 Ω between 50 Ω ports: S11 = S22 = Z/(Z + 2Z0) = 0.5, S21 = S12 = 2Z0/(Z + 2Z0) = 0.5
+  // (D. M. Pozar, Microwave Engineering, 4th ed., §4.4); written here for the test.
+  const s2p = ['! series 100 ohm', '# GHz S RI R 50', ...[1, 2, 3, 4].map((f) => `${f} 0.5 0 0.5 0 0.5 0 0.5 0`)].join('\n');
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await openDemo(page);
+  await page.getByTestId('menu-examples').click();
+  await page.getByTestId('example-wilkinson-2g45').click();
+  await expect(page.getByTestId('design-name')).toContainText('2.45 GHz');
+  await page.getByTestId('tab-pieces').click();
+  await page.getByTestId('piece-row-r1').click();
+  await page.getByTestId('tab-sheet').click();
+  await page.getByTestId('touchstone-input').setInputFiles({ name: 'bad.s2p', mimeType: 'text/plain', buffer: Buffer.from('hello') });
+  await expect(page.getByTestId('touchstone-error')).toContainText('bad.s2p');
+  await page.getByTestId('touchstone-input').setInputFiles({ name: 'r100.s2p', mimeType: 'text/plain', buffer: Buffer.from(s2p) });
+  await expect(page.getByTestId('block-summary')).toContainText('2-port data, 4 points from 1 GHz to 4 GHz');
+  await page.getByTestId('dock-response').click();
+  await expect(page.getByTestId('f0-S32')).toBeVisible({ timeout: 30_000 });
+  await expect(page.getByTestId('response-error')).toHaveCount(0);
+  await page.keyboard.press('Control+z');
+  await page.getByTestId('tab-pieces').click();
+  await page.getByTestId('piece-row-r1').click();
+  await page.getByTestId('tab-sheet').click();
+  await expect(page.getByTestId('field-part')).toBeVisible();
+  expect(errors).toEqual([]);
+});
