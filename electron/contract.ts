@@ -21,6 +21,8 @@ export const OPENABLE_EXTENSIONS = [DESIGN_EXTENSION, 'json'] as const;
 export const LIMITS = {
   /** A design file larger than this is refused before reading (reliability.md §3.1 step 1); the core's limit. */
   designBytes: DESIGN_LIMITS.fileBytes,
+  /** A Touchstone file for a measured block (the design keeps at most this many characters of it). */
+  touchstoneBytes: DESIGN_LIMITS.touchstone,
   /** One exported file. */
   exportFileBytes: 100 * 1024 * 1024,
   /** All files of one export together. */
@@ -107,6 +109,12 @@ export interface AppInfo {
   recoveryFolder: string;
 }
 
+/** Extensions the measured-data dialog offers (Touchstone 1.x .sNp for 1 and 2 ports, and 2.0 .ts). */
+export const TOUCHSTONE_EXTENSIONS = ['s1p', 's2p', 'ts'] as const;
+
+/** A Touchstone file read for a measured block: its name (no folders) and its text. No path: nothing is written back. */
+export interface OpenedData { name: string; text: string }
+
 /**
  * Channel → request and response. `void` requests take no argument. Paths in requests must be ones the main process
  * handed out itself (from a dialog, the recent list, the command line or the OS), so a compromised page cannot read
@@ -115,6 +123,7 @@ export interface AppInfo {
 export interface BridgeChannels {
   'design:open-dialog': { request: void; response: OpenedDesign | null };
   'design:open-path': { request: { path: string }; response: OpenedDesign };
+  'data:open-touchstone': { request: void; response: OpenedData | null };
   'design:save': { request: { docId: string; path: string; text: string; expectedModifiedMs: number | null }; response: SavedDesign };
   'design:save-as': { request: { docId: string; suggestedName: string; text: string }; response: SavedDesign | null };
   'export:files': { request: { title: string; files: ExportFile[] }; response: ExportedFiles | null };
@@ -134,7 +143,7 @@ export type RequestOf<C extends Channel> = BridgeChannels[C]['request'];
 export type ResponseOf<C extends Channel> = BridgeChannels[C]['response'];
 
 export const CHANNELS = [
-  'design:open-dialog', 'design:open-path', 'design:save', 'design:save-as', 'export:files', 'recent:list',
+  'design:open-dialog', 'design:open-path', 'data:open-touchstone', 'design:save', 'design:save-as', 'export:files', 'recent:list',
   'recent:clear', 'autosave:write', 'autosave:discard', 'recovery:list', 'recovery:read', 'recovery:discard',
   'document:state', 'app:info',
 ] as const satisfies readonly Channel[];

@@ -91,6 +91,7 @@ function exportFiles(v: unknown): ExportFile[] | Problem {
 
 export const VALIDATORS: { [C in Channel]: Check<RequestOf<C>> } = {
   'design:open-dialog': none,
+  'data:open-touchstone': none,
   'design:open-path': object((o) => { const p = path(o, 'path'); return firstProblem(p) ?? { path: p as string }; }),
   'design:save': object((o) => {
     const d = docId(o), p = path(o, 'path'), t = text(o), m = o.expectedModifiedMs;
@@ -136,6 +137,7 @@ type Handler<C extends Channel> = (req: RequestOf<C>, event: IpcMainInvokeEvent)
 export function channelHandlers(shell: Shell, hooks: WindowHooks): { [C in Channel]: Handler<C> } {
   return {
     'design:open-dialog': () => shell.openDialog(),
+    'data:open-touchstone': () => shell.openTouchstone(),
     'design:open-path': (r) => shell.openPath(r.path),
     'design:save': (r) => shell.save(r),
     'design:save-as': (r) => shell.saveAs(r),

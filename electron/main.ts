@@ -7,7 +7,7 @@
 import { app, BrowserWindow, dialog, ipcMain, Menu, protocol, screen, shell as electronShell, type IpcMainInvokeEvent } from 'electron';
 import { randomUUID } from 'node:crypto';
 import { join, resolve } from 'node:path';
-import { DESIGN_EXTENSION, OPENABLE_EXTENSIONS, PUSH_CHANNELS, windowTitle, type MenuCommandId, type OpenedDesign } from './contract.ts';
+import { DESIGN_EXTENSION, OPENABLE_EXTENSIONS, PUSH_CHANNELS, TOUCHSTONE_EXTENSIONS, windowTitle, type MenuCommandId, type OpenedDesign } from './contract.ts';
 import { DEFAULT_WINDOW, placeOnDisplays, readJson, validateWindowState, writeJson } from './files/json-store.ts';
 import { RecoveryStore } from './files/recovery-store.ts';
 import { registerBridge } from './ipc.ts';
@@ -45,6 +45,12 @@ function parent(): BrowserWindow | undefined { return win && !win.isDestroyed() 
 const dialogs: Dialogs = {
   async openDesign(defaultFolder) {
     const opts = { title: 'Open design', properties: ['openFile' as const], filters: FILTERS, ...(defaultFolder ? { defaultPath: defaultFolder } : {}) };
+    const p = parent();
+    const r = p ? await dialog.showOpenDialog(p, opts) : await dialog.showOpenDialog(opts);
+    return r.canceled ? null : (r.filePaths[0] ?? null);
+  },
+  async openTouchstone(defaultFolder) {
+    const opts = { title: 'Measured data (Touchstone)', properties: ['openFile' as const], filters: [{ name: 'Touchstone', extensions: [...TOUCHSTONE_EXTENSIONS] }, { name: 'All files', extensions: ['*'] }], ...(defaultFolder ? { defaultPath: defaultFolder } : {}) };
     const p = parent();
     const r = p ? await dialog.showOpenDialog(p, opts) : await dialog.showOpenDialog(opts);
     return r.canceled ? null : (r.filePaths[0] ?? null);

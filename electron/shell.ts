@@ -11,17 +11,19 @@ import { basename, dirname, extname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import {
   DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, type AppInfo, type BridgeResult, type ExportedFiles, type ExportFile,
-  type OpenedDesign, type RecentFile, type RecoveredDesign, type RecoveryEntry, type SavedDesign,
+  type OpenedData, type OpenedDesign, type RecentFile, type RecoveredDesign, type RecoveryEntry, type SavedDesign,
 } from './contract.ts';
 import { atomicWriteFile, AtomicWriteError, explainErrno } from './files/atomic-write.ts';
 import { readJson, touchRecent, validateRecent, writeJson } from './files/json-store.ts';
-import { readDesignFile } from './files/read-design.ts';
+import { readDesignFile, readTouchstoneFile } from './files/read-design.ts';
 import type { RecoveryStore } from './files/recovery-store.ts';
 import { cleanStrayTemps } from './files/temp-files.ts';
 
 export interface Dialogs {
   /** Native open dialog for a design; the chosen path or null. */
   openDesign(defaultFolder: string | null): Promise<string | null>;
+  /** Native open dialog for a Touchstone file (measured data); the chosen path or null. */
+  openTouchstone(defaultFolder: string | null): Promise<string | null>;
   /** Native save dialog (it asks before replacing a file); the chosen path or null. */
   saveDesign(defaultPath: string): Promise<string | null>;
   /** Save dialog for a single export file. */
@@ -91,6 +93,13 @@ export class Shell {
     const path = await this.o.dialogs.openDesign(this.lastFolder ?? this.o.documentsFolder);
     if (!path) return ok(null);
     return this.open(path);
+  }
+
+  /** Measured data for a block: the file's name and text (the path stays here; nothing is written back to it). */
+  async openTouchstone(): Promise<BridgeResult<OpenedData | null>> {
+    const path = await this.o.dialogs.openTouchstone(this.lastFolder ?? this.o.documentsFolder);
+    if (!path) return ok(null);
+    return readTouchstoneFile(path);
   }
 
   async openPath(path: string): Promise<BridgeResult<OpenedDesign>> {

@@ -12,18 +12,40 @@ export function describeBytes(n: number): string {
   return `${(n / 1024 / 1024).toFixed(1)} MiB`;
 }
 
+/** A kind of text file the app reads: its name in messages, what its text should be, and its size limit. */
+export interface TextFileKind {
+  /** 'a design file' */
+  noun: string;
+  /** 'the JSON text of a design' */
+  content: string;
+  /** 'plain JSON text' */
+  plain: string;
+  maxBytes: number;
+  /** Added to the too-large message. */
+  tooLargeHint?: string;
+}
+
+export const DESIGN_TEXT: TextFileKind = {
+  noun: 'a design file', content: 'the JSON text of a design', plain: 'plain JSON text', maxBytes: LIMITS.designBytes,
+  tooLargeHint: ' Is it really a Stripwright design?',
+};
+export const TOUCHSTONE_TEXT: TextFileKind = {
+  noun: 'a Touchstone file', content: 'Touchstone text (an option line and data)', plain: 'plain Touchstone text', maxBytes: LIMITS.touchstoneBytes,
+};
+
 /** Refuse a file before reading it when its size is already known to be over the limit. */
-export function checkDesignSize(name: string, bytes: number): BridgeResult<null> {
-  if (bytes > LIMITS.designBytes) {
-    return fail('too-large', `${name} is ${describeBytes(bytes)}; a design file may be at most ${describeBytes(LIMITS.designBytes)}. Is it really a Stripwright design?`);
+export function checkTextSize(kind: TextFileKind, name: string, bytes: number): BridgeResult<null> {
+  if (bytes > kind.maxBytes) {
+    return fail('too-large', `${name} is ${describeBytes(bytes)}; ${kind.noun} may be at most ${describeBytes(kind.maxBytes)}.${kind.tooLargeHint ?? ''}`);
   }
   return ok(null);
 }
 
-export function decodeDesignBytes(name: string, bytes: Uint8Array): BridgeResult<string> {
-  const size = checkDesignSize(name, bytes.length);
+/** UTF-8 text of a file of `kind`, or the reason it is not (too large, empty, UTF-16, binary, NUL bytes). */
+export function decodeTextBytes(kind: TextFileKind, name: string, bytes: Uint8Array): BridgeResult<string> {
+  const size = checkTextSize(kind, name, bytes.length);
   if (!size.ok) return size;
-  if (bytes.length === 0) return fail('not-text', `${name} is empty; expected the JSON text of a design.`);
+  if (bytes.length === 0) return fail('not-text', `${name} is empty; expected ${kind.content}.`);
   if (bytes.length >= 2 && ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff))) {
     return fail('not-text', `${name} is UTF-16 text; expected UTF-8. Re-save it as UTF-8 in a text editor.`);
   }
@@ -31,9 +53,14 @@ export function decodeDesignBytes(name: string, bytes: Uint8Array): BridgeResult
   try {
     text = new TextDecoder('utf-8', { fatal: true, ignoreBOM: false }).decode(bytes);
   } catch {
-    return fail('not-text', `${name} is not UTF-8 text (it looks binary); expected the JSON text of a design.`);
+    return fail('not-text', `${name} is not UTF-8 text (it looks binary); expected ${kind.content}.`);
   }
   const nul = text.indexOf('\u0000');
-  if (nul >= 0) return fail('not-text', `${name} contains a NUL byte at character ${nul}; expected plain JSON text (the file may be damaged or binary).`);
+  if (nul >= 0) return fail('not-text', `${name} contains a NUL byte at character ${nul}; expected ${kind.plain} (the file may be damaged or binary).`);
   return ok(text);
 }
+
+/** checkTextSize for a design file. */
+export const checkDesignSize = (name: string, bytes: number): BridgeResult<null> => checkTextSize(DESIGN_TEXT, name, bytes);
+/** decodeTextBytes for a design file. */
+export const decodeDesignBytes = (name: string, bytes: Uint8Array): BridgeResult<string> => decodeTextBytes(DESIGN_TEXT, name, bytes);

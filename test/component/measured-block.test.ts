@@ -89,15 +89,21 @@ describe('measured block from a Touchstone file', () => {
     expect(ed.doc.segments.find((s) => s.id === 'r1')!.kind).toBe('lumped');
   });
 
-  it('the piece sheet reads the chosen file, shows what the data holds, and edits the block length', async () => {
+  /** The browser platform's file picker answers with `file` (as the user choosing it would). */
+  function pickerAnswers(file: File): void {
+    vi.spyOn(HTMLInputElement.prototype, 'click').mockImplementation(function (this: HTMLInputElement) {
+      Object.defineProperty(this, 'files', { value: [file], configurable: true });
+      this.dispatchEvent(new Event('change'));
+    });
+  }
+
+  it('the piece sheet asks the platform for the file, shows what the data holds, and edits the block length', async () => {
     const ed = wilkinson();
     await sized(ed);
     ed.select(['r1']);
     render(PieceSheet, { editor: ed });
-    const input = screen.getByTestId('touchstone-input') as HTMLInputElement;
-    const file = new File([SERIES_100_OHM], 'r100.s2p', { type: 'text/plain' });
-    Object.defineProperty(input, 'files', { value: [file], configurable: true });
-    await fireEvent.change(input);
+    pickerAnswers(new File([SERIES_100_OHM], 'r100.s2p', { type: 'text/plain' }));
+    await fireEvent.click(screen.getByTestId('load-touchstone'));
     await waitFor(() => expect(ed.doc.segments.find((s) => s.id === 'r1')!.kind).toBe('sparams'));
     flushSync();
     expect(screen.getByTestId('block-summary').textContent).toMatch(/2-port data, 6 points from 0\.5 GHz to 6 GHz/);
@@ -106,16 +112,20 @@ describe('measured block from a Touchstone file', () => {
     await fireEvent.input(field, { target: { value: '2.5 mm' } });
     const seg = ed.doc.segments.find((s) => s.id === 'r1')!;
     expect(seg.kind === 'sparams' && seg.length.length).toBeCloseTo(2.5e-3, 12);
+    vi.restoreAllMocks();
   });
 
-  it('shows the reason beside the button when the chosen file is refused', async () => {
+  it('shows the reason beside the button when the chosen file is refused, by the platform or by the check', async () => {
     const ed = wilkinson();
     ed.select(['r1']);
     render(PieceSheet, { editor: ed });
-    const input = screen.getByTestId('touchstone-input') as HTMLInputElement;
-    Object.defineProperty(input, 'files', { value: [new File(['hello'], 'bad.s2p')], configurable: true });
-    await fireEvent.change(input);
+    pickerAnswers(new File(['hello'], 'bad.s2p'));
+    await fireEvent.click(screen.getByTestId('load-touchstone'));
     await waitFor(() => expect(screen.getByTestId('touchstone-error').textContent).toMatch(/bad\.s2p/));
+    pickerAnswers(new File([new Uint8Array([0xff, 0xd8, 0xff, 0x00])], 'photo.s2p'));
+    await fireEvent.click(screen.getByTestId('load-touchstone'));
+    await waitFor(() => expect(screen.getByTestId('touchstone-error').textContent).toMatch(/photo\.s2p is not UTF-8 text/));
     expect(ed.doc.segments.find((s) => s.id === 'r1')!.kind).toBe('lumped');
+    vi.restoreAllMocks();
   });
 });

@@ -66,6 +66,23 @@ describe('browser files', () => {
     vi.spyOn(HTMLInputElement.prototype, 'click').mockImplementation(function (this: HTMLInputElement) { this.dispatchEvent(new Event('cancel')); });
     expect(await p.openDesign()).toEqual({ ok: true, value: null });
   });
+  it('picks a Touchstone file for a measured block (name and text), or refuses a binary one saying what was expected', async () => {
+    const p = createBrowserPlatform({ heartbeat: false });
+    const s2p = '# GHz S RI R 50\n1 0.5 0 0.5 0 0.5 0 0.5 0\n'; // series 100 Ω in 50 Ω (Pozar §4.4)
+    vi.spyOn(HTMLInputElement.prototype, 'click').mockImplementation(function (this: HTMLInputElement) {
+      expect(this.accept).toBe('.s1p,.s2p,.ts');
+      Object.defineProperty(this, 'files', { value: [new File([s2p], 'r100.s2p')] });
+      this.dispatchEvent(new Event('change'));
+    });
+    expect(await p.openTouchstone()).toEqual({ ok: true, value: { name: 'r100.s2p', text: s2p } });
+    vi.spyOn(HTMLInputElement.prototype, 'click').mockImplementation(function (this: HTMLInputElement) {
+      Object.defineProperty(this, 'files', { value: [new File([new Uint8Array([0xff, 0xd8, 0xff, 0x00])], 'photo.s2p')] });
+      this.dispatchEvent(new Event('change'));
+    });
+    expect(await p.openTouchstone()).toMatchObject({ ok: false, error: { code: 'not-text', message: expect.stringMatching(/expected Touchstone text/) } });
+    vi.spyOn(HTMLInputElement.prototype, 'click').mockImplementation(function (this: HTMLInputElement) { this.dispatchEvent(new Event('cancel')); });
+    expect(await p.openTouchstone()).toEqual({ ok: true, value: null });
+  });
   it('refuses a binary file with a message saying what was expected', async () => {
     const p = createBrowserPlatform({ heartbeat: false });
     vi.spyOn(HTMLInputElement.prototype, 'click').mockImplementation(function (this: HTMLInputElement) {

@@ -19,7 +19,7 @@ beforeAll(async () => {
   dir = mkdtempSync(join(tmpdir(), 'sw-ipc-'));
   const recovery = new RecoveryStore(join(dir, 'recovery'), 'sess');
   const none = async () => null;
-  const shell = new Shell({ userData: dir, documentsFolder: dir, recovery, version: '0.1.0', dialogs: { openDesign: none, saveDesign: none, saveExport: none, chooseFolder: none, confirmReplace: async () => false } });
+  const shell = new Shell({ userData: dir, documentsFolder: dir, recovery, version: '0.1.0', dialogs: { openDesign: none, openTouchstone: none, saveDesign: none, saveExport: none, chooseFolder: none, confirmReplace: async () => false } });
   await shell.start();
   const registered = registerBridge({ handle: (name: string, h: H) => { handlers.set(name, h); } } as never, shell, { setDocumentState: (_e, s) => states.push(s) });
   expect(registered).toEqual([...CHANNELS]);
@@ -30,7 +30,7 @@ const ours = { senderFrame: { url: 'app://stripwright/index.html', parent: null 
 const call = (c: Channel, event: unknown, ...args: unknown[]) => handlers.get(ipcName(c))!(event, ...args);
 
 const GOOD: { [C in Channel]: unknown[] } = {
-  'design:open-dialog': [], 'design:open-path': [{ path: '/x/a.stripwright' }],
+  'design:open-dialog': [], 'design:open-path': [{ path: '/x/a.stripwright' }], 'data:open-touchstone': [],
   'design:save': [{ docId: 'd1', path: '/x/a.stripwright', text: '{}', expectedModifiedMs: null }],
   'design:save-as': [{ docId: 'd1', suggestedName: 'a', text: '{}' }],
   'export:files': [{ title: 'Export', files: [{ name: 'a.gbr', data: 'x' }] }],

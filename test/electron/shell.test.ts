@@ -9,11 +9,13 @@ import { join } from 'node:path';
 import { RecoveryStore } from '../../electron/files/recovery-store.ts';
 import { tempNameFor } from '../../electron/files/temp-files.ts';
 import { Shell, type Dialogs } from '../../electron/shell.ts';
+import { LIMITS } from '../../electron/contract.ts';
 
 let dir: string;
-let answers: { open?: string | null; save?: string | null; folder?: string | null; replace?: boolean; exportPath?: string | null };
+let answers: { open?: string | null; data?: string | null; save?: string | null; folder?: string | null; replace?: boolean; exportPath?: string | null };
 const dialogs: Dialogs = {
   openDesign: async () => answers.open ?? null,
+  openTouchstone: async () => answers.data ?? null,
   saveDesign: async () => answers.save ?? null,
   saveExport: async () => answers.exportPath ?? null,
   chooseFolder: async () => answers.folder ?? null,
@@ -27,6 +29,33 @@ beforeEach(() => { dir = mkdtempSync(join(tmpdir(), 'sw-shell-')); mkdirSync(joi
 afterEach(() => rmSync(dir, { recursive: true, force: true }));
 
 const DESIGN = JSON.stringify({ format: 'stripwright-design', version: 2, name: 'Invented test network' });
+
+describe('measured data (Touchstone) for a block', () => {
+  // Series 100 Ω between 50 Ω ports (S11 = S21 = 0.5; Pozar, Microwave Engineering, 4th ed., §4.4), written here.
+  const S2P = '# GHz S RI R 50\n1 0.5 0 0.5 0 0.5 0 0.5 0\n';
+  it('answers the chosen file’s name and text (no path), and null when the dialog is cancelled', async () => {
+    const p = join(dir, 'docs', 'r100.s2p');
+    writeFileSync(p, S2P);
+    const s = shellFor('t1'); await s.start();
+    answers.data = p;
+    expect(await s.openTouchstone()).toEqual({ ok: true, value: { name: 'r100.s2p', text: S2P } });
+    answers.data = null;
+    expect(await s.openTouchstone()).toEqual({ ok: true, value: null });
+  });
+  it('refuses binary, empty and oversized files with what was expected, and does not grant the path', async () => {
+    const s = shellFor('t2'); await s.start();
+    const bin = join(dir, 'docs', 'photo.s2p'); writeFileSync(bin, Buffer.from([0xff, 0xd8, 0xff, 0x00, 0x80]));
+    answers.data = bin;
+    expect(await s.openTouchstone()).toMatchObject({ ok: false, error: { code: 'not-text', message: expect.stringMatching(/expected Touchstone text/) } });
+    const empty = join(dir, 'docs', 'empty.s2p'); writeFileSync(empty, '');
+    answers.data = empty;
+    expect(await s.openTouchstone()).toMatchObject({ ok: false, error: { code: 'not-text', message: expect.stringMatching(/empty/) } });
+    const big = join(dir, 'docs', 'big.s2p'); writeFileSync(big, 'x'.repeat(LIMITS.touchstoneBytes + 1));
+    answers.data = big;
+    expect(await s.openTouchstone()).toMatchObject({ ok: false, error: { code: 'too-large', message: expect.stringMatching(/a Touchstone file may be at most/) } });
+    expect((await s.openPath(bin)).ok).toBe(false); // reading measured data grants nothing
+  });
+});
 
 describe('open and grants', () => {
   it('opens the file chosen in the dialog and remembers it as recent', async () => {

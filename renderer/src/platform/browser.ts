@@ -6,8 +6,8 @@
  * HEARTBEAT_MS. checkRecovery() offers the copies of sessions whose heartbeat stopped (the tab was closed or
  * crashed), never those of another tab that is still open.
  */
-import { DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, windowTitle, type BridgeResult, type OpenedDesign, type RecoveryEntry } from '../../../electron/contract.ts';
-import { decodeDesignBytes, describeBytes } from '../../../electron/text-decode.ts';
+import { DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, TOUCHSTONE_EXTENSIONS, windowTitle, type BridgeResult, type OpenedDesign, type RecoveryEntry } from '../../../electron/contract.ts';
+import { checkDesignSize, checkTextSize, decodeDesignBytes, decodeTextBytes, TOUCHSTONE_TEXT } from '../../../electron/text-decode.ts';
 import type { Platform } from './types.ts';
 
 const PREFIX = 'stripwright.recovery.v1.';
@@ -96,7 +96,8 @@ export function createBrowserPlatform(options: BrowserPlatformOptions = {}): Pla
   const noPaths = fail('not-found', 'a browser cannot reopen files by path; use Open and pick the file.');
 
   const readPicked = async (file: File): Promise<BridgeResult<OpenedDesign>> => {
-    if (file.size > LIMITS.designBytes) return fail('too-large', `${file.name} is ${describeBytes(file.size)}; a design file may be at most ${describeBytes(LIMITS.designBytes)}.`);
+    const size = checkDesignSize(file.name, file.size);
+    if (!size.ok) return size;
     const text = decodeDesignBytes(file.name, new Uint8Array(await file.arrayBuffer()));
     if (!text.ok) return text;
     return ok({ path: file.name, name: file.name, text: text.value, modifiedMs: file.lastModified });
@@ -116,6 +117,14 @@ export function createBrowserPlatform(options: BrowserPlatformOptions = {}): Pla
       return readPicked(file);
     },
     openRecent: async () => noPaths,
+    async openTouchstone() {
+      const file = await pickFile(TOUCHSTONE_EXTENSIONS.map((e) => `.${e}`).join(','));
+      if (!file) return ok(null);
+      const size = checkTextSize(TOUCHSTONE_TEXT, file.name, file.size);
+      if (!size.ok) return size;
+      const text = decodeTextBytes(TOUCHSTONE_TEXT, file.name, new Uint8Array(await file.arrayBuffer()));
+      return text.ok ? ok({ name: file.name, text: text.value }) : text;
+    },
     saveDesign: async (req) => saveByDownload(req.docId, withDesignExtension(req.path), req.text),
     saveDesignAs: async (req) => saveByDownload(req.docId, withDesignExtension(req.suggestedName), req.text),
     async exportFiles(req) {

@@ -17,6 +17,7 @@ export function createDesktopPlatform(bridge: StripwrightBridge): Platform {
     kind: 'desktop',
     openDesign: () => settle(c['design:open-dialog']()),
     openRecent: (path) => settle(c['design:open-path']({ path })),
+    openTouchstone: () => settle(c['data:open-touchstone']()),
     saveDesign: (req) => settle(c['design:save'](req)),
     saveDesignAs: (req) => settle(c['design:save-as'](req)),
     exportFiles: (req) => settle(c['export:files'](req)),

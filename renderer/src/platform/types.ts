@@ -6,12 +6,12 @@
  * cancelled dialog is `{ ok: true, value: null }`, not an error.
  */
 import type {
-  AutosaveSnapshot, BridgeResult, ExportedFiles, ExportFile, MenuCommandId, OpenedDesign, RecentFile,
+  AutosaveSnapshot, BridgeResult, ExportedFiles, ExportFile, MenuCommandId, OpenedData, OpenedDesign, RecentFile,
   RecoveredDesign, RecoveryEntry, SavedDesign,
 } from '../../../electron/contract.ts';
 
 export type {
-  AutosaveSnapshot, BridgeError, BridgeErrorCode, BridgeResult, ExportedFiles, ExportFile, MenuCommandId, OpenedDesign,
+  AutosaveSnapshot, BridgeError, BridgeErrorCode, BridgeResult, ExportedFiles, ExportFile, MenuCommandId, OpenedData, OpenedDesign,
   RecentFile, RecoveredDesign, RecoveryEntry, SavedDesign,
 } from '../../../electron/contract.ts';
 export { DESIGN_EXTENSION, MENU_COMMANDS, OPENABLE_EXTENSIONS, LIMITS } from '../../../electron/contract.ts';
@@ -34,6 +34,8 @@ export interface Platform {
   readonly kind: 'desktop' | 'browser';
   /** Ask the user for a design file (native dialog or <input type=file>); null when cancelled. */
   openDesign(): Promise<BridgeResult<OpenedDesign | null>>;
+  /** Ask the user for a Touchstone file for a measured block (native dialog or <input type=file>); null when cancelled. */
+  openTouchstone(): Promise<BridgeResult<OpenedData | null>>;
   /** Reopen an entry of listRecent() (desktop only; the browser has no paths and answers 'not-found'). */
   openRecent(path: string): Promise<BridgeResult<OpenedDesign>>;
   /** Save over `path` atomically, keeping the previous version as `<path>.bak` (desktop) / download (browser). */
