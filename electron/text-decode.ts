@@ -1,6 +1,6 @@
 /**
- * Turning the bytes of a design file into text, with the checks of reliability.md §3.1 steps 1–2 (size first,
- * then UTF-8 with the BOM removed, refusing UTF-16, invalid UTF-8 and NUL bytes). Pure (TextDecoder only), so the
+ * Turning the bytes of a text file the app reads (a design, a Touchstone file) into text, with the checks of
+ * reliability.md §3.1 steps 1–2 (size first, then UTF-8 with the BOM removed, refusing UTF-16, invalid UTF-8 and NUL bytes). Pure (TextDecoder only), so the
  * main process and the browser fallback refuse the same files with the same words. Parsing and schema checks of
  * the design itself belong to core/design.
  */
@@ -59,8 +59,3 @@ export function decodeTextBytes(kind: TextFileKind, name: string, bytes: Uint8Ar
   if (nul >= 0) return fail('not-text', `${name} contains a NUL byte at character ${nul}; expected ${kind.plain} (the file may be damaged or binary).`);
   return ok(text);
 }
-
-/** checkTextSize for a design file. */
-export const checkDesignSize = (name: string, bytes: number): BridgeResult<null> => checkTextSize(DESIGN_TEXT, name, bytes);
-/** decodeTextBytes for a design file. */
-export const decodeDesignBytes = (name: string, bytes: Uint8Array): BridgeResult<string> => decodeTextBytes(DESIGN_TEXT, name, bytes);

@@ -44,6 +44,14 @@ function expNegSmall(x: number): number {
 // Terms of one variable. The analysis reads them from tables (term-tables.ts); the formulas here are what the tables
 // are fitted from, and what the analysis uses outside the tabulated ranges.
 
+/** Above this u, 1 − exp(−R2) (R2 = 0.267·u⁷ > 38) rounds to 1 exactly. */
+export const JK_R7_WIDTH_FACTOR_IS_ONE_ABOVE = 2.04;
+/**
+ * Above this u, R9·exp(−R6) is taken as 0: R9 < 5.086/(0.386·1.2992)·0.1 ≈ 1.01 for any εr and fn, and
+ * exp(−R6) < exp(−40) < 4.3e-18 there, below half an ulp of the 0.9408 it is subtracted from.
+ */
+export const JK_R6_TERM_NEGLIGIBLE_ABOVE = 1.37;
+
 /** R3 = 4.766·exp(−3.228·u^0.641). */
 export function jkR3(u: number): number { return 4.766 * Math.exp(-3.228 * Math.pow(u, 0.641)); }
 /** 1 − exp(−R2), R2 = 0.267·u⁷ (the width factor of R7). */
@@ -117,13 +125,11 @@ export function jansenKirschningZ0WithTerms(q: JkTerms): void {
     m.R9 = ((5.086 * R4 * R5) / (0.3838 + 0.386 * R4)) / (1 + 1.2992 * R5) * m.eTerm;
     m.e17 = q.r17Freq * expNegSmall(0.707 * m.R10 * q.r15Freq); // exp(−0.026·fn^1.15656 − R15)
   }
-  // 1 − exp(−R2) rounds to 1 above u = 2.04 (R2 > 38); R9·exp(−R6) is below half an ulp of 0.9408 above u = 1.37
-  // (R9 < 5.086/(0.386·1.2992)·0.1 ≈ 1.01 for any εr and fn, exp(−40) < 4.3e-18): both are taken as their limits.
-  const R7 = 1.206 - 0.3144 * m.eR1 * (u > 2.04 ? 1 : q.r7Width);
+  const R7 = 1.206 - 0.3144 * m.eR1 * (u > JK_R7_WIDTH_FACTOR_IS_ONE_ABOVE ? 1 : q.r7Width);
   const R8 = 1 + 1.275 * oneMinusExpNeg(q.r3 * m.c8 * q.r8Freq);
 
   const R13 = 0.9408 * Math.exp(R8 * Math.log(q.eef)) - 0.9603;
-  const R14 = (0.9408 - (u > 1.37 ? 0 : m.R9 * q.expMinusR6)) * Math.exp(R8 * q.lnEe0) - 0.9603;
+  const R14 = (0.9408 - (u > JK_R6_TERM_NEGLIGIBLE_ABOVE ? 0 : m.R9 * q.expMinusR6)) * Math.exp(R8 * q.lnEe0) - 0.9603;
   const R16 = 1 + 0.0503 * m.er2 * m.R11 * q.r16Width;
   const R12overR16 = 1 / ((1 + 0.00245 * u * u) * R16); // R12 = 1/(1 + 0.00245 u²)
   const R17 = R7 * (1 - 1.1241 * R12overR16 * m.e17);

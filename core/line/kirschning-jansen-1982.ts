@@ -19,6 +19,12 @@ export const KJ1982_RANGE = { uMin: 0.1, uMax: 100, erMax: 20, fnMax: 0.13 * 299
 // Terms of one variable. The analysis reads them from tables (term-tables.ts) and the formula here is what the tables
 // are fitted from; 1 − exp(−x) is written −expm1(−x), the same quantity without the cancellation.
 
+/**
+ * Above this u the P1 width term is taken as 0: 0.065683·exp(−8.7513u) < 1.8e-17 there, below half an ulp (2.2e-16)
+ * of 0.27488 + c1·u (≥ 2.86 as c1 > 0.63), so subtracting it leaves P1 unchanged.
+ */
+export const KJ_P1_WIDTH_TERM_NEGLIGIBLE_ABOVE = 4.1;
+
 /** 0.065683·exp(−8.7513u), the width term of P1. */
 export function kjP1WidthTerm(u: number): number { return 0.065683 * Math.exp(-8.7513 * u); }
 /** 0.0363·exp(−4.6u), the width factor of P3. */
@@ -67,9 +73,7 @@ export function kirschningJansenEpsEffWithTerms(q: KjTerms): void {
     m.P4 = 1 + 2.751 * (1 - Math.exp(-(x4 * x4)));
   }
   const c1 = 0.6315 + 0.525 / pow20(1 + 0.0157 * fn);
-  // Above u = 4.1, 0.065683·exp(−8.7513u) < 1.8e-17 is below half an ulp (2.2e-16) of 0.27488 + c1·u (≥ 2.86 as
-  // c1 > 0.63): subtracting it leaves P1 unchanged, so it is taken as 0.
-  const P1 = 0.27488 + c1 * u - (u > 4.1 ? 0 : q.p1Width);
+  const P1 = 0.27488 + c1 * u - (u > KJ_P1_WIDTH_TERM_NEGLIGIBLE_ABOVE ? 0 : q.p1Width);
   const z = q.p3Width * q.p3Freq * m.P4;
   const w = z / 0.1844;
   const tail = w < 1e-3 ? K0 * (1 + w * (B1 + w * (B2 + w * (B3 + w * (B4 + w * B5))))) : Math.exp(A * Math.log(0.1844 + z));

@@ -104,15 +104,16 @@ function staticPart(q: ModelQuery, dispersive: boolean): void {
   if (m.widthTermsReady) d.lnEe0 = Math.log(ees);
 }
 
-/** The width terms at d.u from tv, where column c sits at tv[c − shift]; each past its tabulated range from the
- * formula or the limit (WIDTH_U_MAX). */
+/** The width terms at d.u from tv, where column c sits at tv[c − shift]; past its tabulated range (WIDTH_U_MAX) a
+ * term comes from the formula or its limit. (The P1, R7 and R6 terms need no test here: the model files apply their
+ * own limits above those ranges, so the table's value there is never used.) */
 function widthTermsFromTable(shift: number): void {
   const ur = d.u;
-  d.p1Width = ur > WIDTH_U_MAX.p1 ? 0 : tv[W_KJ_P1 - shift]!;
+  d.p1Width = tv[W_KJ_P1 - shift]!;
   d.p3Width = ur > WIDTH_U_MAX.p3 ? kjP3WidthTerm(ur) : tv[W_KJ_P3 - shift]!;
   d.r3 = ur > WIDTH_U_MAX.r3 ? jkR3(ur) : tv[W_JK_R3 - shift]!;
-  d.r7Width = ur > WIDTH_U_MAX.r7 ? 1 : tv[W_JK_R7 - shift]!;
-  d.expMinusR6 = ur > WIDTH_U_MAX.r6 ? 0 : tv[W_JK_R6 - shift]!;
+  d.r7Width = tv[W_JK_R7 - shift]!;
+  d.expMinusR6 = tv[W_JK_R6 - shift]!;
   d.r16Width = ur > WIDTH_U_MAX.r16 ? 1 : tv[W_JK_R16 - shift]!;
 }
 

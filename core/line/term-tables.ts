@@ -17,8 +17,8 @@
  */
 import { buildOctaveTable, type OctaveTable } from '../util/smooth-table.ts';
 import { hjEpsEffExponent, hjZ01, hjZ01Derivative } from './hammerstad-jensen-1980.ts';
-import { kjFnPower, kjP1WidthTerm, kjP3FrequencyFactor, kjP3WidthTerm } from './kirschning-jansen-1982.ts';
-import { jkExpMinusR6, jkR15FrequencyFactor, jkR16WidthFactor, jkR17FrequencyFactor, jkR3, jkR7WidthFactor, jkR8FrequencyFactor } from './jansen-kirschning-1983.ts';
+import { KJ_P1_WIDTH_TERM_NEGLIGIBLE_ABOVE, kjFnPower, kjP1WidthTerm, kjP3FrequencyFactor, kjP3WidthTerm } from './kirschning-jansen-1982.ts';
+import { JK_R6_TERM_NEGLIGIBLE_ABOVE, JK_R7_WIDTH_FACTOR_IS_ONE_ABOVE, jkExpMinusR6, jkR15FrequencyFactor, jkR16WidthFactor, jkR17FrequencyFactor, jkR3, jkR7WidthFactor, jkR8FrequencyFactor } from './jansen-kirschning-1983.ts';
 
 /** Column order of widthTerms(): dZ01/du and Z01 side by side (both wanted at u1), Z01 and the εe exponent then the
  * dispersion models' terms (all wanted at ur), so that each lookup reads one run of columns. */
@@ -38,13 +38,16 @@ export const WIDTH_COLUMNS = 10;
 export const WIDTH_OCTAVES = [-10, 11] as const;
 
 /**
- * Upper ends in u of the columns read from the table only on part of it (above them the analysis uses the formula, or
- * the limit the model file states). R3's relative slope in ln u, 2.07·u^0.641, reaches 14 at u = 20; the P3 term's
- * 4.6u reaches 37 at u = 8, where the term is 4e-18 against the 0.1844 it is added to; 1 − exp(−R2) is 1 to the last
- * bit above u = 2.04, exp(−R6) negligible above 1.37 and the P1 term above 4.1 (the model files' limits); the R16
- * factor is 1 to the last bit above u = 27.5; tanh √(6.517u) is 1 to the last bit above u = 61.4 (√(6.517u) > 20).
+ * Upper ends in u of the columns read from the table only on part of it. Above r3 and p3 the analysis uses the
+ * formula: R3's relative slope in ln u, 2.07·u^0.641, reaches 14 at u = 20; the P3 term's 4.6u reaches 37 at u = 8,
+ * where the term is 4e-18 against the 0.1844 it is added to. Above r16 and tanh it uses 1, which each is to the last
+ * bit (the R16 factor above u = 27.5, tanh √(6.517u) above u = 61.4, √(6.517u) > 20). Above p1, r7 and r6 the model
+ * files themselves use their limits (their own constants), so what the table holds there is never read.
  */
-export const WIDTH_U_MAX = { r3: 20, p3: 8, p1: 4.1, r7: 2.04, r6: 1.37, r16: 27.5, tanh: 61.4 } as const;
+export const WIDTH_U_MAX = {
+  r3: 20, p3: 8, r16: 27.5, tanh: 61.4,
+  p1: KJ_P1_WIDTH_TERM_NEGLIGIBLE_ABOVE, r7: JK_R7_WIDTH_FACTOR_IS_ONE_ABOVE, r6: JK_R6_TERM_NEGLIGIBLE_ABOVE,
+} as const;
 
 /** Column order of frequencyTerms(). */
 export const F_KJ_P3 = 0;

@@ -8,12 +8,10 @@
 import { describe, expect, it, vi } from 'vitest';
 import { render, fireEvent, screen, waitFor } from '@testing-library/svelte';
 import { flushSync } from 'svelte';
-import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
-import { exampleText } from '../../renderer/src/state/examples.ts';
-import { layoutJob, responseJob } from '../../renderer/src/worker/jobs.ts';
+import { responseJob } from '../../renderer/src/worker/jobs.ts';
 import { sizeDesign } from '../../core/layout/index.ts';
 import { netlistFromSized } from '../../core/network/index.ts';
-import { figuresFrom, placedFrom } from '../../renderer/src/state/layoutView.ts';
+import { editorOn, sized } from './harness.ts';
 import PieceSheet from '../../renderer/src/components/PieceSheet.svelte';
 
 vi.mock('uplot', () => ({ default: class { destroy() {} } }));
@@ -24,17 +22,7 @@ const SERIES_100_OHM = [
   ...[0.5, 1, 2, 3, 4, 6].map((f) => `${f} 0.5 0 0.5 0 0.5 0 0.5 0`),
 ].join('\n');
 
-function wilkinson(): EditorState {
-  const ed = new EditorState();
-  expect(ed.loadText(exampleText('wilkinson-2g45')!, null)).toBeNull();
-  return ed;
-}
-
-async function sized(ed: EditorState): Promise<void> {
-  const out = await layoutJob({ doc: ed.doc }, () => {});
-  ed.applyLayout({ revision: ed.revision, sized: out.sized, outlines: out.outlines, drills: out.drills, paths: out.paths, placed: placedFrom(out.sized), figures: figuresFrom(out.sized), ms: 0 }, out.geometryError);
-  flushSync();
-}
+const wilkinson = () => editorOn('wilkinson-2g45');
 
 describe('measured block from a Touchstone file', () => {
   it('replaces the lumped resistor in one undo step, keeps its pad pitch as the length, and undoes back', () => {

@@ -10,9 +10,8 @@ import { describe, expect, it, vi, beforeAll } from 'vitest';
 import { render, fireEvent, screen } from '@testing-library/svelte';
 import { flushSync } from 'svelte';
 import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
-import { exampleText } from '../../renderer/src/state/examples.ts';
 import { layoutJob } from '../../renderer/src/worker/jobs.ts';
-import { figuresFrom, placedFrom } from '../../renderer/src/state/layoutView.ts';
+import { editorOn, sized } from './harness.ts';
 import PieceSheet from '../../renderer/src/components/PieceSheet.svelte';
 import PathLedger from '../../renderer/src/components/PathLedger.svelte';
 import PieceList from '../../renderer/src/components/PieceList.svelte';
@@ -22,24 +21,11 @@ import type { AppCommand } from '../../renderer/src/state/appCommand.ts';
 
 vi.mock('uplot', () => ({ default: class { destroy() {} } }));
 
-async function sized(ed: EditorState): Promise<void> {
-  const out = await layoutJob({ doc: ed.doc }, () => {});
-  ed.applyLayout({ revision: ed.revision, sized: out.sized, outlines: out.outlines, drills: out.drills, paths: out.paths, placed: placedFrom(out.sized), figures: figuresFrom(out.sized), ms: 0 }, out.geometryError);
-  flushSync();
-}
-
-function demoEditor(): EditorState {
-  const ed = new EditorState();
-  const err = ed.loadText(exampleText('demo')!, null);
-  expect(err).toBeNull();
-  return ed;
-}
-
 const mm = (text: string) => parseFloat(text.replace(/[^\d.]/g, ''));
 
 describe('piece sheet', () => {
   let ed: EditorState;
-  beforeAll(async () => { ed = demoEditor(); await sized(ed); });
+  beforeAll(async () => { ed = editorOn('demo'); await sized(ed); });
 
   it('shows the sized 50 Ω feed near the width practice.md S1 estimates (≈3.0 mm, ±5 %)', async () => {
     ed.select(['feed']);
@@ -101,7 +87,7 @@ describe('piece sheet', () => {
 
 describe('path ledger and piece list', () => {
   it('lists the four outputs of the demo feed in phase (all equal by symmetry) and marks a path pushed out of tolerance', async () => {
-    const ed = demoEditor();
+    const ed = editorOn('demo');
     await sized(ed);
     render(PathLedger, { editor: ed });
     const rows = screen.getByTestId('path-ledger').querySelectorAll('tbody tr');
@@ -115,7 +101,7 @@ describe('path ledger and piece list', () => {
   });
 
   it('the piece list shows every segment, and clicking one selects it', async () => {
-    const ed = demoEditor();
+    const ed = editorOn('demo');
     await sized(ed);
     render(PieceList, { editor: ed });
     expect(screen.getByTestId('piece-list').querySelectorAll('tbody tr').length).toBe(ed.doc.segments.length);
@@ -126,7 +112,7 @@ describe('path ledger and piece list', () => {
 
 describe('stack panel', () => {
   it('a new laminate height typed in mil is stored in metres and can be undone', async () => {
-    const ed = demoEditor();
+    const ed = editorOn('demo');
     render(StackPanel, { editor: ed });
     const h = screen.getByTestId('field-h') as HTMLInputElement;
     await fireEvent.focus(h);
@@ -137,7 +123,7 @@ describe('stack panel', () => {
   });
 
   it('shows the dust caution for milling glass-fibre laminate', () => {
-    const ed = demoEditor();
+    const ed = editorOn('demo');
     render(StackPanel, { editor: ed });
     expect(screen.getByTestId('stack-panel').textContent).toMatch(/dust/);
   });
@@ -164,7 +150,7 @@ describe('command finder', () => {
 
 describe('typing in a field', () => {
   it('gathers the keystrokes of one entry into one undo step, and Esc drops them', async () => {
-    const ed = demoEditor();
+    const ed = editorOn('demo');
     const start = ed.doc;
     // The App provides the field session through context; here the editor's hooks are called as the field would.
     ed.fieldStart();
@@ -203,7 +189,7 @@ describe('the piece sheet against an outside oracle', () => {
 describe('stack panel presets', () => {
   it('a preset fills every laminate number from the core\'s preset table, and editing one is marked', async () => {
     const { findPreset } = await import('../../core/substrate/index.ts');
-    const ed = demoEditor();
+    const ed = editorOn('demo');
     render(StackPanel, { editor: ed });
     const pick = screen.getByTestId('field-preset') as HTMLSelectElement;
     await fireEvent.change(pick, { target: { value: 'ptfe-woven-glass-2.2' } });
@@ -220,7 +206,7 @@ describe('stack panel presets', () => {
 
 describe('port launch pads', () => {
   it('a launch pad starts as wide as the line it feeds and becomes copper on the board', async () => {
-    const ed = demoEditor();
+    const ed = editorOn('demo');
     await sized(ed);
     expect(ed.layout!.outlines.some((o) => o.id === 'out1')).toBe(false);
     ed.select(['out1']);
@@ -237,10 +223,9 @@ describe('port launch pads', () => {
 
 describe('phase sensitivity', () => {
   it('for a line held at its physical length, φ ∝ √εeff, so the phase sensitivity to εr lies between 0 and ½ (methods.md §10.1)', async () => {
-    const ed = demoEditor();
+    const ed = editorOn('demo');
     ed.showSensitivity = true;
-    const out = await layoutJob({ doc: ed.doc, sensitivities: true }, () => {});
-    ed.applyLayout({ revision: ed.revision, sized: out.sized, outlines: out.outlines, drills: out.drills, paths: out.paths, placed: placedFrom(out.sized), figures: figuresFrom(out.sized), ms: 0 }, out.geometryError);
+    await sized(ed, { sensitivities: true });
     render(PathLedger, { editor: ed });
     const s = parseFloat(screen.getByTestId('sens-er-out1').textContent!);
     expect(s).toBeGreaterThan(0);
@@ -251,7 +236,7 @@ describe('phase sensitivity', () => {
 describe('hover notes for nodes', () => {
   it('a 90° bend of a 100 Ω line carries the optimal miter of Douville & James (IEEE Trans. MTT-26, 1978): M = 52 + 65·exp(−1.35 W/h) %', async () => {
     const { nodeNotes } = await import('../../renderer/src/state/layoutView.ts');
-    const ed = demoEditor();
+    const ed = editorOn('demo');
     const out = await layoutJob({ doc: ed.doc }, () => {});
     const notes = nodeNotes(out.sized);
     const W = out.sized.pieces.find((p) => p.id === 'br1')!.width;

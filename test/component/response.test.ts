@@ -7,9 +7,8 @@
  */
 import { describe, expect, it, vi } from 'vitest';
 import { render, screen, waitFor } from '@testing-library/svelte';
-import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
+import { editorOn } from './harness.ts';
 import { Compute } from '../../renderer/src/state/compute.svelte.ts';
-import { exampleText } from '../../renderer/src/state/examples.ts';
 import { layoutJob } from '../../renderer/src/worker/jobs.ts';
 import ResponsePanel from '../../renderer/src/components/ResponsePanel.svelte';
 
@@ -17,8 +16,7 @@ vi.mock('uplot', () => ({ default: class { destroy() {} } }));
 
 describe('response dock', () => {
   it('shows S21 at f0 at the four-way split less the path loss, and Γ inside the unit circle', async () => {
-    const ed = new EditorState();
-    expect(ed.loadText(exampleText('demo')!, null)).toBeNull();
+    const ed = editorOn('demo');
     const compute = new Compute(ed, null);
     render(ResponsePanel, { editor: ed, compute });
     await waitFor(() => expect(screen.getByTestId('f0-S21')).toBeTruthy(), { timeout: 20_000 });
@@ -36,8 +34,7 @@ describe('response dock', () => {
 
 describe('response dock on the two-way divider example', () => {
   it('shows an equal split (10·log10(1/2) = −3.01 dB less the line loss) and isolated outputs at f0 (Wilkinson, IRE Trans. MTT-8, 1960)', async () => {
-    const ed = new EditorState();
-    expect(ed.loadText(exampleText('wilkinson-2g45')!, null)).toBeNull();
+    const ed = editorOn('wilkinson-2g45');
     const compute = new Compute(ed, null);
     render(ResponsePanel, { editor: ed, compute });
     await waitFor(() => expect(screen.getByTestId('f0-S32')).toBeTruthy(), { timeout: 20_000 });

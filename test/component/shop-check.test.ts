@@ -7,9 +7,8 @@
 import { describe, expect, it, vi } from 'vitest';
 import { render, screen, waitFor, fireEvent } from '@testing-library/svelte';
 import { join } from 'node:path';
-import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
+import { editorOn } from './harness.ts';
 import { Compute } from '../../renderer/src/state/compute.svelte.ts';
-import { exampleText } from '../../renderer/src/state/examples.ts';
 import { setPolygonInit } from '../../renderer/src/worker/jobs.ts';
 import { initPolygons } from '../../core/geometry/index.ts';
 import ShopCheck from '../../renderer/src/components/ShopCheck.svelte';
@@ -20,8 +19,7 @@ setPolygonInit(() => initPolygons({ locateFile: () => wasm }));
 
 describe('shop check dock', () => {
   it('lists the loss-budget finding, selects its pieces on click, and clears it after the fix', async () => {
-    const ed = new EditorState();
-    expect(ed.loadText(exampleText('demo')!, null)).toBeNull();
+    const ed = editorOn('demo');
     const compute = new Compute(ed, null);
     render(ShopCheck, { editor: ed, compute });
     // The App runs the check after each edit; here the test does.

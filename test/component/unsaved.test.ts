@@ -3,12 +3,12 @@
 import { describe, expect, it } from 'vitest';
 import { flushSync } from 'svelte';
 import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
+import { editorOn } from './harness.ts';
 import { exampleText } from '../../renderer/src/state/examples.ts';
 
 describe('unsaved changes', () => {
   it('an edit marks the design unsaved, undoing back clears it, redo and a second edit set it again', () => {
-    const ed = new EditorState();
-    expect(ed.loadText(exampleText('demo')!, null)).toBeNull();
+    const ed = editorOn('demo');
     flushSync();
     expect(ed.dirty).toBe(false);
     ed.rename('Renamed once');

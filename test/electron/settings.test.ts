@@ -9,7 +9,7 @@ import { MENU_COMMANDS, LIMITS } from '../../electron/contract.ts';
 import { DEFAULT_WINDOW, placeOnDisplays, readJson, touchRecent, validateRecent, validateWindowState, writeJson } from '../../electron/files/json-store.ts';
 import { RecoveryStore } from '../../electron/files/recovery-store.ts';
 import { menuTemplate } from '../../electron/menu.ts';
-import { decodeDesignBytes } from '../../electron/text-decode.ts';
+import { decodeTextBytes, DESIGN_TEXT } from '../../electron/text-decode.ts';
 
 let dir: string;
 beforeEach(() => { dir = mkdtempSync(join(tmpdir(), 'sw-settings-')); });
@@ -79,7 +79,7 @@ describe('recovery store', () => {
 describe('text decoding', () => {
   const enc = (s: string) => new TextEncoder().encode(s);
   it('removes a UTF-8 BOM and keeps the text otherwise', () => {
-    expect(decodeDesignBytes('a', new Uint8Array([0xef, 0xbb, 0xbf, ...enc('{"x":"Ω"}')]))).toEqual({ ok: true, value: '{"x":"Ω"}' });
+    expect(decodeTextBytes(DESIGN_TEXT, 'a', new Uint8Array([0xef, 0xbb, 0xbf, ...enc('{"x":"Ω"}')]))).toEqual({ ok: true, value: '{"x":"Ω"}' });
   });
   it.each([
     ['empty', new Uint8Array(), /empty/],
@@ -88,12 +88,12 @@ describe('text decoding', () => {
     ['invalid UTF-8', new Uint8Array([0x7b, 0xc3, 0x28, 0x7d]), /not UTF-8/],
     ['NUL byte', enc('{"a":\u00001}'), /NUL byte at character 5/],
   ])('refuses %s with what was expected', (_n, bytes, re) => {
-    const r = decodeDesignBytes('f.stripwright', bytes);
+    const r = decodeTextBytes(DESIGN_TEXT, 'f.stripwright', bytes);
     expect(r.ok).toBe(false);
     if (!r.ok) { expect(r.error.code).toBe('not-text'); expect(r.error.message).toMatch(re); expect(r.error.message).toMatch(/f\.stripwright/); }
   });
   it('refuses a file over the size limit before decoding it', () => {
-    const r = decodeDesignBytes('big.json', new Uint8Array(LIMITS.designBytes + 1));
+    const r = decodeTextBytes(DESIGN_TEXT, 'big.json', new Uint8Array(LIMITS.designBytes + 1));
     expect(r).toMatchObject({ ok: false, error: { code: 'too-large' } });
   });
 });

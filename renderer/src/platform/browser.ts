@@ -7,7 +7,7 @@
  * crashed), never those of another tab that is still open.
  */
 import { DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, TOUCHSTONE_EXTENSIONS, windowTitle, type BridgeResult, type OpenedDesign, type RecoveryEntry } from '../../../electron/contract.ts';
-import { checkDesignSize, checkTextSize, decodeDesignBytes, decodeTextBytes, TOUCHSTONE_TEXT } from '../../../electron/text-decode.ts';
+import { checkTextSize, decodeTextBytes, DESIGN_TEXT, TOUCHSTONE_TEXT, type TextFileKind } from '../../../electron/text-decode.ts';
 import type { Platform } from './types.ts';
 
 const PREFIX = 'stripwright.recovery.v1.';
@@ -95,12 +95,11 @@ export function createBrowserPlatform(options: BrowserPlatformOptions = {}): Pla
   const findEarlier = (docId: string) => copies().find((c) => c.docId === docId && !sessionAlive(c.session));
   const noPaths = fail('not-found', 'a browser cannot reopen files by path; use Open and pick the file.');
 
-  const readPicked = async (file: File): Promise<BridgeResult<OpenedDesign>> => {
-    const size = checkDesignSize(file.name, file.size);
+  /** The text of a picked file of `kind`: its size refused before reading, then the text checks. */
+  const readPicked = async (kind: TextFileKind, file: File): Promise<BridgeResult<string>> => {
+    const size = checkTextSize(kind, file.name, file.size);
     if (!size.ok) return size;
-    const text = decodeDesignBytes(file.name, new Uint8Array(await file.arrayBuffer()));
-    if (!text.ok) return text;
-    return ok({ path: file.name, name: file.name, text: text.value, modifiedMs: file.lastModified });
+    return decodeTextBytes(kind, file.name, new Uint8Array(await file.arrayBuffer()));
   };
 
   const saveByDownload = (docId: string, name: string, text: string) => {
@@ -114,15 +113,14 @@ export function createBrowserPlatform(options: BrowserPlatformOptions = {}): Pla
     async openDesign() {
       const file = await pickFile(OPENABLE_EXTENSIONS.map((e) => `.${e}`).join(','));
       if (!file) return ok(null);
-      return readPicked(file);
+      const text = await readPicked(DESIGN_TEXT, file);
+      return text.ok ? ok({ path: file.name, name: file.name, text: text.value, modifiedMs: file.lastModified }) : text;
     },
     openRecent: async () => noPaths,
     async openTouchstone() {
       const file = await pickFile(TOUCHSTONE_EXTENSIONS.map((e) => `.${e}`).join(','));
       if (!file) return ok(null);
-      const size = checkTextSize(TOUCHSTONE_TEXT, file.name, file.size);
-      if (!size.ok) return size;
-      const text = decodeTextBytes(TOUCHSTONE_TEXT, file.name, new Uint8Array(await file.arrayBuffer()));
+      const text = await readPicked(TOUCHSTONE_TEXT, file);
       return text.ok ? ok({ name: file.name, text: text.value }) : text;
     },
     saveDesign: async (req) => saveByDownload(req.docId, withDesignExtension(req.path), req.text),
