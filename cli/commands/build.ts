@@ -12,9 +12,9 @@ import type { Warning } from '../../core/util/warnings.ts';
 import { parseDesign } from '../../core/design/parse.ts';
 import { initPolygons } from '../../core/geometry/polygons.ts';
 import { sizeDesign } from '../../core/layout/sizing.ts';
-import { buildBoardGeometry } from '../../core/layout/geometry.ts';
 import { designPaths, tracePaths, type PathReport } from '../../core/layout/paths.ts';
-import { checkFabrication, type Finding } from '../../core/layout/checks.ts';
+import type { Finding } from '../../core/layout/checks.ts';
+import { checkBoard } from '../../core/layout/board.ts';
 import type { SizedDesign } from '../../core/layout/types.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 
@@ -187,10 +187,10 @@ export const buildCommand: CliCommand = {
     try {
       await initPolygons();
       const sized = sizeDesign(parsed.doc);
-      const geometry = buildBoardGeometry(sized);
       const popts = tolerance !== undefined ? { toleranceDeg: tolerance } : {};
-      const paths = values.from !== undefined && toList ? [tracePaths(sized, values.from, toList, popts)] : designPaths(sized, popts);
-      const findings = checkFabrication(sized, geometry, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
+      // Sizing problems first (as the app does): with any, they are the findings, and no copper or paths are built.
+      const paths = sized.problems.length ? [] : values.from !== undefined && toList ? [tracePaths(sized, values.from, toList, popts)] : designPaths(sized, popts);
+      const { findings } = checkBoard(sized, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
       const rep = buildReport(sized, paths, findings);
       rep.warnings.unshift(...parsed.warnings);
       if (values.json) io.out(JSON.stringify(rep, null, 2));

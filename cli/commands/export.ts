@@ -9,7 +9,7 @@ import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import {
   EXPORT_FILE_NAMES, InputError, initPolygons, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
-  sizeDesign, buildBoardGeometry, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
+  sizeDesign, boardGeometryOf, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { OutputError, writeOutputFile } from '../files.ts';
@@ -171,10 +171,10 @@ export const exportCommand: CliCommand = {
 
 class OutError extends Error {}
 
-/** The app's pipeline from a design to copper: size every piece, then build the board geometry. */
+/** The app's pipeline from a design to copper: size every piece, then build the board geometry (sizing problems first). */
 export function designToBoard(doc: DesignDoc): { geometry: ExportGeometry; warnings: Warning[] } {
   const sized = sizeDesign(doc);
-  return { geometry: buildBoardGeometry(sized), warnings: sized.warnings };
+  return { geometry: boardGeometryOf(sized), warnings: sized.warnings };
 }
 
 /** File name stem from the design file: its name without extension, limited to safe characters. */

@@ -28,6 +28,29 @@ export const DESIGN_LIMITS = {
   issues: 50,
 } as const;
 
+/**
+ * What real cutting tools and etch processes are, so a slip (a unit mistake, an angle typed as 179.9°) is refused at
+ * load instead of making a cut metres wide that the polygon engine then works on for minutes. Generous bounds, from
+ * memory of what is sold and used for isolation milling and etching (common practice):
+ * - engraving V-bits come with included angles from about 10° to 90°, chamfer bits up to 120°; flat tips up to
+ *   about 0.5 mm; an isolation cut goes just through the copper (18–70 µm), 1 mm deep is already a groove;
+ * - end mills for boards run from 0.05 mm micro mills to 1/4 inch (6.35 mm); 3.5 mm cuts through a 3.2 mm board;
+ * - etching undercuts each edge by about the copper thickness (35 µm for 1 oz); ±0.25 mm covers 6 oz copper; the
+ *   smallest feature of home etching is some tenths of a millimetre, 10 µm to 2 mm covers every process.
+ */
+export const PROCESS_LIMITS = {
+  vBitAngleDegMin: 10,
+  vBitAngleDegMax: 120,
+  vBitTipMax: 0.5e-3,
+  vBitDepthMax: 1e-3,
+  endMillDiameterMin: 0.05e-3,
+  endMillDiameterMax: 6.35e-3,
+  endMillDepthMax: 3.5e-3,
+  etchBiasMax: 0.25e-3,
+  etchMinFeatureMin: 10e-6,
+  etchMinFeatureMax: 2e-3,
+} as const;
+
 /** Byte length of `text` encoded as UTF-8, without TextEncoder (not part of the core's ES2022 library). */
 export function utf8Length(text: string): number {
   let n = 0;

@@ -8,7 +8,7 @@
  */
 import * as v from 'valibot';
 import { DESIGN_FORMAT } from './types.ts';
-import { DESIGN_LIMITS as L } from './limits.ts';
+import { DESIGN_LIMITS as L, PROCESS_LIMITS } from './limits.ts';
 
 /** A finite number in [min, max] (either end exclusive on request), all failures described by `what`. */
 function num(what: string, min: number, max: number, opts: { minExclusive?: boolean; maxExclusive?: boolean } = {}) {
@@ -60,15 +60,25 @@ export const frequencySchema = v.looseObject({
   band: v.looseObject({ start: num(FREQ, 1e6, 300e9), stop: num(FREQ, 1e6, 300e9) }, 'a band {start, stop} in hertz'),
 }, 'a frequency object {f0, band}');
 
+const P = PROCESS_LIMITS;
+/** Process parameters are bounded by what tools are (limits.ts PROCESS_LIMITS), not only by sanity. */
 export const processSchema = v.variant('kind', [
-  v.looseObject({ kind: v.literal('end-mill'), toolDiameter: LEN('a tool diameter', 0.01), depth: LEN('a cut depth', 0.005) }),
+  v.looseObject({
+    kind: v.literal('end-mill'),
+    toolDiameter: num(`a tool diameter in metres from ${P.endMillDiameterMin * 1e3} mm to ${P.endMillDiameterMax * 1e3} mm (what end mills are; 0.4 mm is 0.0004)`, P.endMillDiameterMin, P.endMillDiameterMax),
+    depth: num(`a cut depth in metres above 0 and at most ${P.endMillDepthMax * 1e3} mm`, 0, P.endMillDepthMax, { minExclusive: true }),
+  }),
   v.looseObject({
     kind: v.literal('v-bit'),
-    tipWidth: num('a tip width in metres from 0 to 5 mm', 0, 0.005),
-    angleDeg: num('an included angle in degrees above 0 and below 180', 0, 180, { minExclusive: true, maxExclusive: true }),
-    depth: LEN('a cut depth', 0.005),
+    tipWidth: num(`a tip width in metres from 0 to ${P.vBitTipMax * 1e3} mm (what V-bits are; 0.1 mm is 0.0001)`, 0, P.vBitTipMax),
+    angleDeg: num(`an included angle in degrees from ${P.vBitAngleDegMin} to ${P.vBitAngleDegMax} (what V-bits are; 30 is usual)`, P.vBitAngleDegMin, P.vBitAngleDegMax),
+    depth: num(`a cut depth in metres above 0 and at most ${P.vBitDepthMax * 1e3} mm (an isolation cut goes just through the copper; 0.05 mm is 0.00005)`, 0, P.vBitDepthMax, { minExclusive: true }),
   }),
-  v.looseObject({ kind: v.literal('etch'), edgeBias: num('an edge bias in metres within ±1 mm', -1e-3, 1e-3), minFeature: LEN('a smallest feature', 0.01) }),
+  v.looseObject({
+    kind: v.literal('etch'),
+    edgeBias: num(`an edge bias in metres within ±${P.etchBiasMax * 1e3} mm (about the copper thickness; 35 µm is 0.000035)`, -P.etchBiasMax, P.etchBiasMax),
+    minFeature: num(`a smallest feature in metres from ${P.etchMinFeatureMin * 1e6} µm to ${P.etchMinFeatureMax * 1e3} mm`, P.etchMinFeatureMin, P.etchMinFeatureMax),
+  }),
 ], 'a process: kind "end-mill", "v-bit" or "etch"');
 
 const bendSchema = v.variant('style', [

@@ -140,6 +140,65 @@ function oriented(ring: Ring, ccw: boolean): Ring {
 /** Largest coordinate the engine is given, m: far beyond any board, far inside the engine's integer range. */
 export const MAX_COORD_M = 100;
 
+/**
+ * Work bounds of one engine call, so no input can keep the engine busy for minutes (a cut metres wide once took
+ * 200 s in one negative offset). Points: what a call takes in. Offset work: for each ring, its points times the
+ * number of neighbouring edges its offset edges sweep over (2·|delta| over its mean edge length, at most all of
+ * them), plus the points the round joins add. Measured here: 1.6 million units took about 4 s on a loaded machine,
+ * 9 million took 200 s (it grows faster than linearly); real boards stay below 100 000.
+ */
+export const MAX_ENGINE_POINTS = 1_000_000;
+export const MAX_OFFSET_WORK = 2_000_000;
+
+/** 1234567 → "1 234 567" (thin grouping for messages, as the README writes numbers). */
+function grouped(n: number): string { return String(n).replace(/\B(?=(\d{3})+(?!\d))/g, ' '); }
+
+function tooMuch(what: string, found: string): InputError {
+  return new InputError('impossible-layout', 'geometry', what, found,
+    'the copper is far larger or far finer than a board: check the design frequency, the lengths, the process tool and the clearances');
+}
+
+/** Points in a list of regions; refused beyond MAX_ENGINE_POINTS before anything reaches the engine. */
+function countPoints(regions: Region[], op: string): number {
+  let n = 0;
+  for (const r of regions) {
+    n += Array.isArray(r.outer) ? r.outer.length : 0;
+    for (const h of r.holes ?? []) n += Array.isArray(h) ? h.length : 0;
+  }
+  if (n > MAX_ENGINE_POINTS) throw tooMuch(`at most ${grouped(MAX_ENGINE_POINTS)} outline points in one polygon operation`, `${grouped(n)} points for ${op}`);
+  return n;
+}
+
+/** The estimated work of offsetting `regions` by `delta` (see MAX_OFFSET_WORK); refused beyond the bound. */
+function checkOffsetWork(regions: Region[], delta: number, join: JoinStyle, arcTol: number): void {
+  countPoints(regions, 'an offset');
+  const d = Math.abs(delta);
+  const arcPoints = join === 'round' && d > arcTol ? Math.ceil(Math.PI / Math.acos(1 - arcTol / d)) : 4;
+  let work = 0, extent = 0;
+  for (const r of regions) {
+    for (const ring of [r.outer, ...(r.holes ?? [])]) {
+      const n = ring.length;
+      if (n === 0) continue;
+      let per = 0;
+      for (let i = 0; i < n; i++) {
+        const p = ring[i]!, q = ring[(i + 1) % n]!;
+        per += Math.hypot(q.x - p.x, q.y - p.y);
+        extent = Math.max(extent, Math.abs(p.x), Math.abs(p.y));
+      }
+      const mean = per / n;
+      const reach = mean > 0 ? Math.min(n, 1 + (2 * d) / mean) : n;
+      work += n * reach + arcPoints;
+    }
+  }
+  if (!(work <= MAX_OFFSET_WORK)) {
+    throw tooMuch(`an offset of at most ${grouped(MAX_OFFSET_WORK)} units of work (outline points times the edges each offset edge passes)`,
+      `an offset of ${(delta * 1e3).toPrecision(4)} mm on outlines of ${grouped(countPoints(regions, 'an offset'))} points, about ${grouped(Math.round(work))} units`);
+  }
+  if (extent + d > MAX_COORD_M) {
+    throw tooMuch(`outlines within ±${MAX_COORD_M} m of the origin after the offset`, `${(extent + d).toPrecision(4)} m`);
+  }
+}
+
 function checkRing(ring: Ring, field: string): void {
   if (!Array.isArray(ring) || ring.length < 3) throw new InputError('out-of-range', field, 'a ring of at least 3 points', describe(ring));
   for (let i = 0; i < ring.length; i++) {
@@ -248,6 +307,7 @@ function run(fn: (m: MainModule) => PathsD): Region[] {
 /** Union of any number of regions (overlapping or not) into simple, non-overlapping regions with holes. */
 export function unionRegions(regions: Region[]): Region[] {
   if (regions.length === 0) return [];
+  countPoints(regions, 'a union');
   return run((m) => {
     const s = toPaths(m, regions, 'regions');
     try { return m.UnionSelfD(s, m.FillRule.NonZero, PRECISION); } finally { s.delete(); }
@@ -263,6 +323,7 @@ export function unionRings(rings: Ring[]): Region[] {
 export function differenceRegions(a: Region[], b: Region[]): Region[] {
   if (a.length === 0) return [];
   if (b.length === 0) return unionRegions(a);
+  countPoints([...a, ...b], 'a difference');
   return run((m) => {
     const s = toPaths(m, a, 'a');
     try {
@@ -275,6 +336,7 @@ export function differenceRegions(a: Region[], b: Region[]): Region[] {
 /** Where a and b overlap. */
 export function intersectRegions(a: Region[], b: Region[]): Region[] {
   if (a.length === 0 || b.length === 0) return [];
+  countPoints([...a, ...b], 'an intersection');
   return run((m) => {
     const s = toPaths(m, a, 'a');
     try {
@@ -295,6 +357,7 @@ export function offsetRegions(regions: Region[], delta: number, join: JoinStyle,
   if (join !== 'round' && join !== 'miter' && join !== 'square') throw new InputError('bad-choice', 'join', "'round', 'miter' or 'square'", describe(join));
   if (regions.length === 0) return [];
   const arcTol = opts.arcTolerance ?? ARC_TOLERANCE_M;
+  checkOffsetWork(regions, delta, join, arcTol);
   return run((m) => {
     const s = toPaths(m, regions, 'regions');
     try {

@@ -19,7 +19,7 @@
  */
 import type { BoardGeometry, Region, Vec2, Box } from '../geometry/types.ts';
 import { differenceRegions, intersectRegions, offsetRegions, regionsArea, unionRegions, ringArea } from '../geometry/polygons.ts';
-import { exhaustive } from '../util/errors.ts';
+import { InputError, exhaustive } from '../util/errors.ts';
 import type { FabProcess } from '../design/types.ts';
 import { LineCache } from './lineCache.ts';
 import { designPaths, type PathReport } from './paths.ts';
@@ -51,6 +51,8 @@ export interface CheckOptions {
 
 export const DEFAULT_LOSS_LIMIT_DB = 1;
 const MIN_AREA = 1e-12; // 1 µm², below which leftovers are numerical dust
+/** Most tiles the round-tool check works in (a 1 m board in 5 mm tiles); beyond it the tiling is refused. */
+const MAX_TILES = 40_000;
 
 /** Width of the cut the process makes (the narrowest gap it can open), m. */
 export function cutWidth(p: FabProcess): number {
@@ -106,6 +108,14 @@ class BoxGrid<T> {
   query(b: Box): Set<T> {
     const out = new Set<T>();
     const [x0, x1, y0, y1] = this.range(b);
+    // A window far larger than the cells (a huge tool radius): walk the filled cells instead of the empty ones.
+    if ((x1 - x0 + 1) * (y1 - y0 + 1) > this.cells.size) {
+      for (const [k, items] of this.cells) {
+        const [gx, gy] = k.split(',').map(Number) as [number, number];
+        if (gx >= x0 && gx <= x1 && gy >= y0 && gy <= y1) for (const it of items) out.add(it);
+      }
+      return out;
+    }
     for (let gx = x0; gx <= x1; gx++) for (let gy = y0; gy <= y1; gy++) for (const it of this.cells.get(`${gx},${gy}`) ?? []) out.add(it);
     return out;
   }
@@ -134,6 +144,11 @@ export function untoolableCopper(geometry: BoardGeometry, r: number, opts: { til
   const areaExt = Math.max(1e-12, (e.maxX - e.minX) * (e.maxY - e.minY));
   const T = opts.tile !== undefined ? Math.max(opts.tile, 4 * r) : vertices < 4000 ? Math.max(e.maxX - e.minX, e.maxY - e.minY) + 1e-3 : Math.max(cell, 20 * r, Math.sqrt((areaExt * 64) / items.length));
   const m = 2 * r + 10e-6;
+  // Work bound: a tile count beyond this means a tile far finer than the board (or a radius far beyond it).
+  const tiles = Math.ceil((e.maxX - Math.floor(e.minX / T) * T) / T) * Math.ceil((e.maxY - Math.floor(e.minY / T) * T) / T);
+  if (!(tiles <= MAX_TILES)) {
+    throw new InputError('impossible-layout', 'geometry', `at most ${MAX_TILES} tiles for the round-tool check`, `${tiles} tiles of ${mmS(T)} mm`, 'check the process tool size and the board size');
+  }
   const out: Region[] = [];
   for (let x0 = Math.floor(e.minX / T) * T; x0 < e.maxX; x0 += T) {
     for (let y0 = Math.floor(e.minY / T) * T; y0 < e.maxY; y0 += T) {
@@ -252,9 +267,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
   const h = doc.substrate.h;
   const lines = sized.pieces.filter((p) => (p.kind === 'line' || p.kind === 'taper') && Number.isFinite(p.width));
 
-  for (const p of sized.problems) {
-    out.push({ severity: 'error', code: 'layout', message: p.message, fix: 'see the message: change the lengths, ends or topology it names', subjects: p.subjects });
-  }
+  out.push(...problemFindings(sized));
 
   // ---- widths and gaps the tool cannot make
   const cut = cutWidth(proc);
@@ -423,6 +436,14 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     out.push({ severity: 'warning', code: 'lossy-laminate', subjects: [], message: `tanδ ${doc.substrate.tanDelta} at ${(sized.f0 / 1e9).toFixed(2)} GHz: glass-epoxy boards lose quickly above about 6 GHz (practice.md need 5)`, fix: 'use a low-loss laminate for this frequency, or keep every path short' });
   }
   return out;
+}
+
+/** Sizing problems as error findings (code 'layout'), each naming its pieces. */
+export function problemFindings(sized: SizedDesign): Finding[] {
+  return sized.problems.map((p) => ({
+    severity: 'error' as const, code: 'layout' as const, message: p.message, subjects: p.subjects,
+    fix: p.code === 'too-large' ? 'raise the design frequency or shorten the pieces named, so the board fits' : 'see the message: change the lengths, ends or topology it names',
+  }));
 }
 
 function pieceCentre(sized: SizedDesign, p: SizedPiece): Vec2 | null {

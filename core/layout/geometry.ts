@@ -13,8 +13,10 @@
  * - Without a board outline, the clearance layer covers the copper extent plus BOARD_MARGIN.
  */
 import type { BoardGeometry, Box, DrillHit, Region, Ring, Vec2 } from '../geometry/types.ts';
-import { differenceRegions, offsetRegions, unionRegions, rectRing, isCounterClockwise } from '../geometry/polygons.ts';
+import { differenceRegions, offsetRegions, unionRegions, rectRing, isCounterClockwise, ringArea } from '../geometry/polygons.ts';
 import type { SizedDesign, SizedNode, SizedPiece } from './types.ts';
+import { InputError } from '../util/errors.ts';
+import { BOARD_SIZE_LIMIT } from './sizing.ts';
 import {
   add, sub, mul, unit, left, dot, len, rectAlong, taperOutline, circle, arcBand, clipHalfPlane, convexHull,
   squareCornerPatch, miterCutLine, cornerGeometry, ccw,
@@ -24,6 +26,9 @@ import {
 export const BOARD_MARGIN = 3e-3;
 
 export interface PieceOutline { id: string; regions: Region[]; centreline: Vec2[] }
+
+/** Node copper smaller than this (m², a 1 µm square) is no copper: a hull folded flat onto a line. */
+const MIN_PATCH_AREA = 1e-12;
 
 const R = (outer: Ring): Region => ({ outer: ccw(outer), holes: [] });
 
@@ -130,7 +135,10 @@ export function pieceOutlines(sized: SizedDesign): { outlines: PieceOutline[]; d
         const nm = left(dm);
         for (const sa of [-1, 1]) for (const sb of [-1, 1]) pts.push(add(n.pos, add(mul(dm, sa * wOther / 2), mul(nm, sb * wMain / 2))));
       }
-      regions.push(R(convexHull(pts)));
+      // A straight line through a junction whose other arms are parts (a resistor to one side) has no corner to fill:
+      // the hull of its arms' end edges is then a flat line, which is no copper at all.
+      const hull = convexHull(pts);
+      if (hull.length >= 3 && Math.abs(ringArea(hull)) > MIN_PATCH_AREA) regions.push(R(hull));
     } else if (n.kind === 'short' && n.via && segs[0]) {
       const d = dirFrom(n, segs[0]);
       const across = left(d);
@@ -173,6 +181,9 @@ export function defaultGroundClearance(sized: SizedDesign): number {
  * The board's copper and its companions. Requires `await initPolygons()` (core/geometry) once beforehand.
  */
 export function buildBoardGeometry(sized: SizedDesign): BoardGeometry {
+  // A board beyond the size limit is refused before any polygon work (sizing found it; see BOARD_SIZE_LIMIT).
+  const big = sized.problems.find((p) => p.code === 'too-large');
+  if (big) throw new InputError('impossible-layout', big.subjects[0] ?? 'design', `a board within ${BOARD_SIZE_LIMIT * 1e3} mm a side`, big.message, 'raise the design frequency or shorten the pieces named');
   const { outlines, drills } = pieceOutlines(sized);
   const all: Region[] = [];
   for (const o of outlines) for (const r of o.regions) all.push(r);

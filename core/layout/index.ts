@@ -3,7 +3,7 @@
  * fabrication checks, and the corporate-feed generator. See core/layout/types.ts for the data a network needs.
  */
 export type * from './types.ts';
-export { sizeDesign, pieceBeta, CLOSE_TOL, DEFAULT_TAPER_RIPPLE_DB } from './sizing.ts';
+export { sizeDesign, pieceBeta, CLOSE_TOL, DEFAULT_TAPER_RIPPLE_DB, BOARD_SIZE_LIMIT } from './sizing.ts';
 export type { SizeOptions } from './sizing.ts';
 export { LineCache } from './lineCache.ts';
 export { smdFootprint } from './footprints.ts';
@@ -14,7 +14,8 @@ export { buildBoardGeometry, pieceOutlines, defaultGroundClearance, BOARD_MARGIN
 export type { PieceOutline } from './geometry.ts';
 export { tracePaths, designPaths, DEFAULT_PHASE_TOLERANCE_DEG } from './paths.ts';
 export type { PathEntry, PathReport, PathOptions } from './paths.ts';
-export { checkFabrication, cutWidth, referenceGroundShiftPct, untoolableCopper, DEFAULT_LOSS_LIMIT_DB } from './checks.ts';
+export { boardGeometryOf, checkBoard } from './board.ts';
+export { checkFabrication, problemFindings, cutWidth, referenceGroundShiftPct, untoolableCopper, DEFAULT_LOSS_LIMIT_DB } from './checks.ts';
 export type { Finding, FindingCode, CheckOptions } from './checks.ts';
 export { placeDesign } from './place.ts';
 export type { PlacedDesign } from './place.ts';

@@ -47,6 +47,12 @@ export interface SizeOptions {
 export const MAX_CORNER_TURN = (135 * Math.PI) / 180;
 /** Loop closure tolerance, m. */
 export const CLOSE_TOL = 1e-6;
+/**
+ * Largest side of a board this app lays out, m (our choice): far above any blank made in-house, and small enough that
+ * the polygon engine's work stays bounded. A design beyond it (a quarter wave at 1 MHz is tens of metres) is refused
+ * here, during sizing, before any geometry is built.
+ */
+export const BOARD_SIZE_LIMIT = 1;
 /** Klopfenstein default ripple when the design gives none: return loss 34 dB (|Γm| ≈ 0.02, methods.md §11.7 example). */
 export const DEFAULT_TAPER_RIPPLE_DB = 34;
 
@@ -387,6 +393,8 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   const placed = placeNodes(doc, workById, adj, nodeOut, dirFrom, problem, warnings);
 
   const pieces = works.map((w) => w.piece);
+  // First in the list: a board too large explains the other problems it causes (loops that miss by metres).
+  checkBoardSize(doc, pieces, sizedNodes, (code, message, subjects) => problems.unshift({ code, message, subjects }));
   const centrelines: Record<string, Vec2[]> = {};
   for (const w of works) {
     const pa = nodeOut.get(w.seg.a)?.pos, pb = nodeOut.get(w.seg.b)?.pos;
@@ -397,6 +405,35 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     throw new InputError('impossible-layout', p.subjects[0] ? `segments.${p.subjects[0]}` : 'design', 'a layout that can be realised', p.message);
   }
   return { name: doc.name, f0, band, pieces, nodes: sizedNodes, centrelines, anchor: placed, problems, warnings, doc };
+}
+
+/**
+ * The extent of everything that would become copper or board (placed nodes, drawn nodes, outline, areas) against
+ * BOARD_SIZE_LIMIT; beyond it a 'too-large' problem naming the longest pieces (or the areas) that make it so.
+ */
+function checkBoardSize(doc: DesignDoc, pieces: SizedPiece[], nodes: SizedNode[], problem: (code: LayoutProblem['code'], message: string, subjects: string[]) => void): void {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  const grow = (p: Vec2 | undefined, r = 0) => {
+    if (!p || !Number.isFinite(p.x) || !Number.isFinite(p.y)) return;
+    minX = Math.min(minX, p.x - r); maxX = Math.max(maxX, p.x + r); minY = Math.min(minY, p.y - r); maxY = Math.max(maxY, p.y + r);
+  };
+  const wMax = Math.max(0, ...pieces.map((p) => (Number.isFinite(p.width) ? Math.max(p.width, p.widthB ?? 0) : 0)));
+  for (const n of nodes) { grow(n.at); grow(n.pos, wMax / 2); }
+  for (const p of doc.board?.outline ?? []) grow(p);
+  const bigAreas: string[] = [];
+  for (const a of doc.areas ?? []) {
+    for (const p of a.polygon ?? []) grow(p);
+    const xs = (a.polygon ?? []).map((p) => p.x), ys = (a.polygon ?? []).map((p) => p.y);
+    if (xs.length && Math.max(Math.max(...xs) - Math.min(...xs), Math.max(...ys) - Math.min(...ys)) > BOARD_SIZE_LIMIT) bigAreas.push(a.id);
+  }
+  const dx = maxX - minX, dy = maxY - minY;
+  if (!(dx > BOARD_SIZE_LIMIT || dy > BOARD_SIZE_LIMIT)) return;
+  const longest = pieces.filter((p) => Number.isFinite(p.span) && p.span > 0).sort((a, b) => b.span - a.span);
+  const named = longest.filter((p) => p.span >= BOARD_SIZE_LIMIT / 4).slice(0, 12);
+  const list = (named.length ? named : longest.slice(0, 3));
+  const why = list.length ? `; the longest pieces are ${list.map((p) => `${p.id} (${mm(p.span)} mm)`).join(', ')}` : '';
+  problem('too-large', `the board would be ${mm(dx)} × ${mm(dy)} mm, more than the ${BOARD_SIZE_LIMIT * 1e3} mm a side Stripwright lays out${why}${bigAreas.length ? `; areas ${bigAreas.join(', ')} are larger than that` : ''}: check the design frequency (${(doc.frequency.f0 / 1e6).toPrecision(4)} MHz), the lengths and the outline`,
+    [...list.map((p) => p.id), ...bigAreas]);
 }
 
 /** β at f0 of a line or taper piece (taper: mean over its sections), rad/m. */

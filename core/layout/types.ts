@@ -135,7 +135,7 @@ export interface SizedNode {
 
 /** A problem that makes the layout impossible as asked; names the pieces and nodes involved. */
 export interface LayoutProblem {
-  code: 'dangling-end' | 'bad-topology' | 'too-short' | 'loop-mismatch' | 'overlap' | 'bad-value';
+  code: 'dangling-end' | 'bad-topology' | 'too-short' | 'loop-mismatch' | 'overlap' | 'bad-value' | 'too-large';
   message: string;
   subjects: string[];
 }

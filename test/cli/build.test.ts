@@ -45,6 +45,37 @@ describe('stripwright build', () => {
     expect(j.ok).toBe(false);
     expect(j.findings.find((f: { severity: string }) => f.severity === 'error').subjects).toEqual(['stub']);
   });
+  it('the demo with its quarter-wave piece made an 0805 part builds (no internal geometry message)', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-build-'));
+    const file = join(dir, 'part.json');
+    const doc = JSON.parse(readFileSync(join(EX, 'demo.json'), 'utf8'));
+    const i = doc.segments.findIndex((s: { id: string }) => s.id === 'qwl');
+    const q = doc.segments[i];
+    doc.segments[i] = { id: q.id, kind: 'lumped', a: q.a, b: q.b, part: 'resistor', value: 100, size: '0805', width: q.width };
+    writeFileSync(file, JSON.stringify(doc));
+    const r = cli(['build', file]);
+    expect(`${r.stdout}${r.stderr}`).not.toMatch(/regions\[|ring of at least/);
+    expect(r.stdout).toMatch(/qwl\s+lumped/);
+  });
+  it('reports sizing problems, not geometry, for an impedance out of range and a board beyond the size limit', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-build-'));
+    const doc = JSON.parse(readFileSync(join(EX, 'demo.json'), 'utf8'));
+    doc.segments.find((s: { id: string }) => s.id === 'qwl').width = { by: 'z0', z0: 5000 };
+    writeFileSync(join(dir, 'z.json'), JSON.stringify(doc));
+    const z = cli(['build', join(dir, 'z.json')]);
+    expect(z.code).toBe(1);
+    expect(z.stdout).toMatch(/ERROR\s+layout: piece qwl/);
+    expect(`${z.stdout}${z.stderr}`).not.toMatch(/regions\[|ring of at least/);
+    const low = JSON.parse(readFileSync(join(EX, 'wilkinson-2g45.json'), 'utf8'));
+    low.frequency = { f0: 1e6, band: { start: 1e6, stop: 2e6 } };
+    writeFileSync(join(dir, 'low.json'), JSON.stringify(low));
+    const j = JSON.parse(cli(['build', join(dir, 'low.json'), '--json']).stdout);
+    expect(j.ok).toBe(false);
+    expect(j.findings[0].message).toMatch(/more than the 1000 mm a side/);
+    const ex = cli(['export', join(dir, 'low.json'), '--format', 'svg', '--out', join(dir, 'low.svg')]);
+    expect(ex.code).toBe(1);
+    expect(ex.stderr).toMatch(/more than the 1000 mm a side/);
+  });
   it('exits 1 with the parser’s messages for a file that is not a design', () => {
     const dir = mkdtempSync(join(tmpdir(), 'sw-build-'));
     const file = join(dir, 'junk.json');

@@ -6,7 +6,7 @@
 import type { DesignDoc } from '../../../core/design/types.ts';
 import type { BoardGeometry, DrillHit, Region } from '../../../core/geometry/types.ts';
 import { initPolygons } from '../../../core/geometry/index.ts';
-import { sizeDesign, LineCache, designPaths, checkFabrication, buildBoardGeometry, pieceOutlines, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
+import { sizeDesign, LineCache, designPaths, boardGeometryOf, checkBoard, pieceOutlines, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { Finding } from '../../../core/layout/checks.ts';
 import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
@@ -92,11 +92,8 @@ export async function layoutJob(input: LayoutInput, progress: (p: Progress) => v
 /** The united board geometry for outputs (copper, ground, clearance, drills), from the polygon engine. */
 export async function geometryJob(input: LayoutInput): Promise<BoardGeometry> {
   const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
-  if (sized.problems.length) {
-    throw new InputError('impossible-layout', 'design', 'a design that can be laid out', sized.problems.map((p) => p.message).join('; '));
-  }
-  await polygons();
-  return buildBoardGeometry(sized);
+  if (!sized.problems.length) await polygons();
+  return boardGeometryOf(sized);
 }
 
 export function errorText(err: unknown): string {
@@ -160,12 +157,9 @@ export async function exportJob(input: ExportInput): Promise<ExportOutput> {
 /** Fabrication findings: the core's checks on the united copper (needs the polygon engine). */
 export async function checkJob(input: LayoutInput): Promise<CheckOutput> {
   const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
-  if (sized.problems.length) {
-    return { findings: sized.problems.map((p) => ({ severity: 'error', code: 'layout', message: p.message, fix: 'Change the pieces named here so the layout closes.', subjects: p.subjects })), ground: [] };
-  }
-  await polygons();
-  const geometry = buildBoardGeometry(sized);
-  return { findings: checkFabrication(sized, geometry), ground: geometry.groundCopper };
+  if (!sized.problems.length) await polygons();
+  const { findings, geometry } = checkBoard(sized);
+  return { findings, ground: geometry?.groundCopper ?? [] };
 }
 
 /** A sweep of the sized network over the band (and f0), chunked so progress reaches the editor. */
