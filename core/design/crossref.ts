@@ -10,6 +10,7 @@
  */
 import type { Vec2 } from '../geometry/types.ts';
 import { ringArea } from '../geometry/polygons.ts';
+import { findSelfCrossing } from '../geometry/crossing.ts';
 import type { Warning } from '../util/warnings.ts';
 import type { DesignDoc, DesignNode } from './types.ts';
 import { issue, type DesignIssue } from './issues.ts';
@@ -96,9 +97,6 @@ export function crossCheck(doc: DesignDoc, opts: { complete?: boolean } = {}): C
   return { errors, warnings };
 }
 
-/** Above this many points the O(n²) crossing test is skipped (the area test still runs). */
-const CROSSING_TEST_MAX = 2000;
-
 function checkRing(ring: readonly Vec2[], path: string, errors: DesignIssue[]): void {
   for (let i = 0; i < ring.length; i++) {
     const p = ring[i]!, q = ring[(i + 1) % ring.length]!;
@@ -110,41 +108,17 @@ function checkRing(ring: readonly Vec2[], path: string, errors: DesignIssue[]): 
       return;
     }
   }
-  if (ring.length <= CROSSING_TEST_MAX && crossesItself(ring, path, errors)) return;
+  if (crossesItself(ring, path, errors)) return;
   if (Math.abs(ringArea(ring as Vec2[])) < 1e-12) {
     errors.push(issue('invalid-design', path, 'a closed outline enclosing an area (points not all on one line)', `an outline of ${ring.length} points enclosing no area`));
   }
 }
 
+/** Any two non-neighbouring edges crossing or touching, found by a sweep line at any size (core/geometry/crossing.ts). */
 function crossesItself(ring: readonly Vec2[], path: string, errors: DesignIssue[]): boolean {
+  const hit = findSelfCrossing(ring);
+  if (!hit) return false;
   const n = ring.length;
-  for (let i = 0; i < n; i++) {
-    const a = ring[i]!, b = ring[(i + 1) % n]!;
-    for (let j = i + 2; j < n; j++) {
-      if (i === 0 && j === n - 1) continue; // neighbours through the closing edge
-      const c = ring[j]!, d = ring[(j + 1) % n]!;
-      if (segmentsCross(a, b, c, d)) {
-        errors.push(issue('invalid-design', path, 'an outline that does not cross itself', `edges ${i}–${(i + 1) % n} and ${j}–${(j + 1) % n} crossing`));
-        return true;
-      }
-    }
-  }
-  return false;
-}
-
-function orient(a: Vec2, b: Vec2, c: Vec2): number {
-  const v = (b.x - a.x) * (c.y - a.y) - (b.y - a.y) * (c.x - a.x);
-  return Math.abs(v) < 1e-18 ? 0 : Math.sign(v);
-}
-
-/** Proper crossing or touching of two edges (collinear overlap counts). */
-function segmentsCross(a: Vec2, b: Vec2, c: Vec2, d: Vec2): boolean {
-  const o1 = orient(a, b, c), o2 = orient(a, b, d), o3 = orient(c, d, a), o4 = orient(c, d, b);
-  if (o1 !== o2 && o3 !== o4 && o1 !== 0 && o2 !== 0 && o3 !== 0 && o4 !== 0) return true;
-  const on = (p: Vec2, q: Vec2, r: Vec2) => Math.min(p.x, q.x) <= r.x && r.x <= Math.max(p.x, q.x) && Math.min(p.y, q.y) <= r.y && r.y <= Math.max(p.y, q.y);
-  if (o1 === 0 && on(a, b, c)) return true;
-  if (o2 === 0 && on(a, b, d)) return true;
-  if (o3 === 0 && on(c, d, a)) return true;
-  if (o4 === 0 && on(c, d, b)) return true;
-  return false;
+  errors.push(issue('invalid-design', path, 'an outline that does not cross itself', `edges ${hit.i}–${(hit.i + 1) % n} and ${hit.j}–${(hit.j + 1) % n} crossing`));
+  return true;
 }
