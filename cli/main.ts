@@ -5,6 +5,7 @@
 import { COMMANDS } from './commands/index.ts';
 import { UsageError, type CliCommand, type CliIo } from './registry.ts';
 import { VERSION } from './version.ts';
+import { explainErrno } from '../electron/files/atomic-write.ts';
 
 function overview(): string {
   const width = Math.max(4, ...COMMANDS.map((c) => c.name.length));
@@ -43,6 +44,12 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
     // node:util parseArgs reports unknown or malformed flags with these codes.
     const code = (err as { code?: string }).code;
     if (code && code.startsWith('ERR_PARSE_ARGS')) { io.err(`stripwright ${cmd.name}: ${(err as Error).message}`); io.err(cmd.usage); return 2; }
+    // A file-system refusal no command put in words: say what was wrong, never the bare errno code.
+    if (code && /^E[A-Z0-9]+$/.test(code)) {
+      const path = (err as NodeJS.ErrnoException).path;
+      io.err(`stripwright ${cmd.name}: ${path ? `${path}: ` : ''}${explainErrno(err as NodeJS.ErrnoException)}`);
+      return 1;
+    }
     throw err;
   }
 }

@@ -6,7 +6,7 @@
  * Path grants: the page can only name paths the shell handed it (chosen in a dialog, in the recent list, given on
  * the command line or by the OS), so a compromised page cannot read or overwrite arbitrary files.
  */
-import { stat, mkdir } from 'node:fs/promises';
+import { stat, mkdir, readFile } from 'node:fs/promises';
 import { basename, dirname, extname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import {
@@ -15,7 +15,7 @@ import {
 } from './contract.ts';
 import { atomicWriteFile, AtomicWriteError, explainErrno } from './files/atomic-write.ts';
 import { readJson, touchRecent, validateRecent, writeJson } from './files/json-store.ts';
-import { readDesignFile, readTouchstoneFile } from './files/read-design.ts';
+import { readDesignFile, readTouchstoneFile, sha256Hex } from './files/read-design.ts';
 import type { RecoveryStore } from './files/recovery-store.ts';
 import { cleanStrayTemps } from './files/temp-files.ts';
 
@@ -49,8 +49,16 @@ const hasOpenableExtension = (p: string) => OPENABLE_EXTENSIONS.some((e) => p.to
 const ioFail = (what: string, e: unknown) =>
   e instanceof AtomicWriteError ? fail('io', e.message) : fail('io', `${what}: ${explainErrno(e as NodeJS.ErrnoException)}.`);
 
+const textHash = (text: string): string => sha256Hex(Buffer.from(text, 'utf8'));
+
 export class Shell {
   private readonly grants = new Set<string>();
+  /** SHA-256 of the bytes last read from or written to each path: a change on disk that keeps the time shows here. */
+  private readonly contentHash = new Map<string, string>();
+  /** Hash of the text last saved per document: an autosave of exactly that text is already safe, no copy needed. */
+  private readonly savedHash = new Map<string, string>();
+  /** Saves, autosaves and discards of one document run one after another in the order they arrived. */
+  private readonly queues = new Map<string, Promise<unknown>>();
   private recent: RecentFile[] = [];
   private lastFolder: string | null = null;
   private readonly now: () => number;
@@ -85,8 +93,33 @@ export class Shell {
 
   private async open(path: string): Promise<BridgeResult<OpenedDesign>> {
     const r = await readDesignFile(path);
-    if (r.ok) await this.remember(path);
-    return r;
+    if (!r.ok) return r;
+    const { sha256, ...opened } = r.value;
+    this.contentHash.set(path, sha256);
+    await this.remember(path);
+    return ok(opened);
+  }
+
+  /**
+   * One document's file work in arrival order. Without it an autosave that started before a save could finish
+   * after the save had dropped the recovery copy, leaving a copy of saved work to be offered as unsaved.
+   */
+  private inOrder<T>(docId: string, work: () => Promise<T>): Promise<T> {
+    const before = this.queues.get(docId) ?? Promise.resolve();
+    const run = before.then(work, work);
+    const tail = run.catch(() => {});
+    this.queues.set(docId, tail);
+    void tail.then(() => { if (this.queues.get(docId) === tail) this.queues.delete(docId); });
+    return run;
+  }
+
+  /** True when the file at `path` no longer holds the bytes we last read or wrote there (unknown: false). */
+  private async contentChanged(path: string, size: number): Promise<boolean> {
+    const known = this.contentHash.get(path);
+    if (known === undefined) return false;
+    if (size > LIMITS.designBytes) return true; // we never read or wrote anything that large
+    const bytes = await readFile(path).catch(() => null);
+    return bytes === null || sha256Hex(bytes) !== known;
   }
 
   async openDialog(): Promise<BridgeResult<OpenedDesign | null>> {
@@ -109,12 +142,18 @@ export class Shell {
 
   async save(req: { docId: string; path: string; text: string; expectedModifiedMs: number | null }): Promise<BridgeResult<SavedDesign>> {
     if (!this.grants.has(req.path)) return fail('forbidden', `the shell did not hand out ${req.path}; use Save As to choose where to save.`);
-    const current = await stat(req.path).catch(() => null);
-    // Another program (or a second copy on a shared drive) changed the file since we read or wrote it.
-    if (current && req.expectedModifiedMs !== null && Math.abs(current.mtimeMs - req.expectedModifiedMs) > 1) {
-      return fail('changed-on-disk', `${basename(req.path)} was changed by another program since it was opened (${new Date(current.mtimeMs).toISOString()}). Nothing was written; use Save As to keep your version under another name, then compare.`);
-    }
-    return this.write(req.docId, req.path, req.text);
+    return this.inOrder(req.docId, async () => {
+      const current = await stat(req.path).catch(() => null);
+      // Another program (or a second copy on a shared drive) changed the file since we read or wrote it: by its
+      // time, or by its content when the time was kept (a sync client or a tool that restores timestamps).
+      if (current && req.expectedModifiedMs !== null) {
+        const timeMoved = Math.abs(current.mtimeMs - req.expectedModifiedMs) > 1;
+        if (timeMoved || (await this.contentChanged(req.path, current.size))) {
+          return fail('changed-on-disk', `${basename(req.path)} was changed by another program since it was opened (${timeMoved ? new Date(current.mtimeMs).toISOString() : 'its content differs, though its time was kept'}). Nothing was written; use Save As to keep your version under another name, then compare.`);
+        }
+      }
+      return this.write(req.docId, req.path, req.text);
+    });
   }
 
   private async write(docId: string, path: string, text: string): Promise<BridgeResult<SavedDesign>> {
@@ -125,6 +164,8 @@ export class Shell {
       return ioFail(`saving ${path}`, e);
     }
     const after = await stat(path);
+    this.contentHash.set(path, textHash(text));
+    this.savedHash.set(docId, textHash(text));
     await this.remember(path);
     await this.o.recovery.discard(docId).catch(() => {}); // saved: the recovery copy has done its job
     return ok({ path, name: basename(path), modifiedMs: after.mtimeMs, backupPath });
@@ -137,7 +178,8 @@ export class Shell {
     if (!path) return ok(null);
     // GTK's dialog does not add the extension; without one the OS would not know the file is ours.
     if (!hasOpenableExtension(path)) path += `.${DESIGN_EXTENSION}`;
-    return this.write(req.docId, path, req.text);
+    const chosen = path;
+    return this.inOrder(req.docId, () => this.write(req.docId, chosen, req.text));
   }
 
   async exportFiles(req: { title: string; files: ExportFile[] }): Promise<BridgeResult<ExportedFiles | null>> {
@@ -182,17 +224,26 @@ export class Shell {
   async autosave(s: { docId: string; name: string; path: string | null; text: string }): Promise<BridgeResult<{ savedAt: number }>> {
     // A recovery copy may only point back at a path the shell handed out, so restoring it cannot widen the grants.
     if (s.path !== null && !this.grants.has(s.path)) return fail('forbidden', `the shell did not hand out ${s.path}; autosave the document with path null.`);
-    try {
-      const m = await this.o.recovery.write({ docId: s.docId, name: s.name, originalPath: s.path, text: s.text });
-      return ok({ savedAt: m.savedAt });
-    } catch (e) {
-      return ioFail(`writing the recovery copy in ${this.o.recovery.folder}`, e);
-    }
+    return this.inOrder(s.docId, async () => {
+      // Exactly the text last saved: nothing is unsaved, so no copy (and none left from before).
+      if (this.savedHash.get(s.docId) === textHash(s.text)) {
+        await this.o.recovery.discard(s.docId).catch(() => {});
+        return ok({ savedAt: this.now() });
+      }
+      try {
+        const m = await this.o.recovery.write({ docId: s.docId, name: s.name, originalPath: s.path, text: s.text });
+        return ok({ savedAt: m.savedAt });
+      } catch (e) {
+        return ioFail(`writing the recovery copy in ${this.o.recovery.folder}`, e);
+      }
+    });
   }
 
   async discard(docId: string): Promise<BridgeResult<null>> {
-    try { await this.o.recovery.discard(docId); } catch (e) { return ioFail('dropping the recovery copy', e); }
-    return ok(null);
+    return this.inOrder(docId, async () => {
+      try { await this.o.recovery.discard(docId); } catch (e) { return ioFail('dropping the recovery copy', e); }
+      return ok(null);
+    });
   }
 
   async listRecovery(): Promise<BridgeResult<RecoveryEntry[]>> {

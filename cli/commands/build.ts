@@ -5,7 +5,6 @@
  * line.
  */
 import { parseArgs } from 'node:util';
-import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { InputError } from '../../core/util/errors.ts';
 import type { Warning } from '../../core/util/warnings.ts';
@@ -17,6 +16,8 @@ import type { Finding } from '../../core/layout/checks.ts';
 import { checkBoard } from '../../core/layout/board.ts';
 import type { SizedDesign } from '../../core/layout/types.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+import { DESIGN_TEXT, readInputText } from '../files.ts';
+import { resultJson } from '../json.ts';
 
 const usage = `Usage: stripwright build FILE [options]
 
@@ -51,7 +52,7 @@ export interface BuildReport {
   design: string;
   f0_hz: number;
   pieces: {
-    id: string; kind: string; a: string; b: string; z0_ohm: number | null; width_m: number | null; width_b_m?: number;
+    id: string; kind: string; a: string; b: string; z0_ohm?: number; width_m?: number; width_b_m?: number;
     length_m: number; span_m: number; deg_at_f0: number; drawn_deg: number;
     compensations: { model: string; source: string; amount_m: number; applied: boolean; node: string; note: string }[];
   }[];
@@ -69,7 +70,6 @@ export interface BuildReport {
 }
 
 export function buildReport(sized: SizedDesign, paths: PathReport[], findings: Finding[]): BuildReport {
-  const fin = (x: number) => (Number.isFinite(x) ? x : null);
   const warnings: Warning[] = [...sized.warnings];
   for (const p of sized.pieces) warnings.push(...p.warnings);
   for (const n of sized.nodes) warnings.push(...n.warnings);
@@ -78,7 +78,9 @@ export function buildReport(sized: SizedDesign, paths: PathReport[], findings: F
     design: sized.name,
     f0_hz: sized.f0,
     pieces: sized.pieces.map((p) => ({
-      id: p.id, kind: p.kind, a: p.a, b: p.b, z0_ohm: fin(p.z0), width_m: fin(p.width), ...(p.widthB !== undefined ? { width_b_m: p.widthB } : {}),
+      id: p.id, kind: p.kind, a: p.a, b: p.b,
+      // A part or a data block has no line impedance or width: left out, never null.
+      ...(Number.isFinite(p.z0) ? { z0_ohm: p.z0 } : {}), ...(Number.isFinite(p.width) ? { width_m: p.width } : {}), ...(p.widthB !== undefined ? { width_b_m: p.widthB } : {}),
       length_m: p.length, span_m: p.span, deg_at_f0: p.effectiveDeg, drawn_deg: p.deg,
       compensations: p.compensations.map((c) => ({ ...c })),
     })),
@@ -110,8 +112,8 @@ function text(rep: BuildReport): string[] {
     const comps = p.compensations.filter((c) => c.amount_m !== 0 || !c.applied)
       .map((c) => `${c.model}${c.applied ? '*' : ''} ${mm(c.amount_m)}@${c.node}`).join(', ');
     const part = p.kind === 'lumped' || p.kind === 'sparams';
-    rows.push([p.id, p.kind, p.z0_ohm === null || part ? '—' : p.z0_ohm.toFixed(2),
-      p.width_m === null ? '—' : p.width_b_m !== undefined ? `${mm(p.width_m)}→${mm(p.width_b_m)}` : mm(p.width_m),
+    rows.push([p.id, p.kind, p.z0_ohm === undefined || part ? '—' : p.z0_ohm.toFixed(2),
+      p.width_m === undefined ? '—' : p.width_b_m !== undefined ? `${mm(p.width_m)}→${mm(p.width_b_m)}` : mm(p.width_m),
       part ? `${mm(p.span_m)} span` : mm(p.length_m), part ? '—' : p.deg_at_f0.toFixed(1), comps]);
   }
   out.push(...table(rows));
@@ -173,14 +175,12 @@ export const buildCommand: CliCommand = {
     const toList = values.to?.split(',').map((x) => x.trim()).filter((x) => x !== '');
     if (toList && toList.length === 0) throw new UsageError('--to needs at least one port id');
     const name = positionals[0]!;
-    let text0: string;
-    try { text0 = readFileSync(resolve(io.cwd, name), 'utf8'); } catch (e) {
-      io.err(`stripwright build: cannot read ${name}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
-      return 1;
-    }
+    const read = await readInputText(resolve(io.cwd, name), name, DESIGN_TEXT, 'a design file (.json)');
+    if (!read.ok) { io.err(`stripwright build: ${read.message}`); return 1; }
+    const text0 = read.text;
     const parsed = parseDesign(text0);
     if (!parsed.ok) {
-      if (values.json) io.out(JSON.stringify({ ok: false, design: name, errors: parsed.errors }, null, 2));
+      if (values.json) io.out(resultJson({ ok: false, design: name, errors: parsed.errors }, 2));
       else { io.err(`stripwright build: ${name} is not a valid design:`); for (const i of parsed.errors) io.err(`  ${i.message}`); }
       return 1;
     }
@@ -193,7 +193,7 @@ export const buildCommand: CliCommand = {
       const { findings } = checkBoard(sized, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
       const rep = buildReport(sized, paths, findings);
       rep.warnings.unshift(...parsed.warnings);
-      if (values.json) io.out(JSON.stringify(rep, null, 2));
+      if (values.json) io.out(resultJson(rep, 2));
       else {
         for (const l of text(rep)) io.out(l);
         if (!rep.ok) io.err(`stripwright build: ${name} cannot be built as drawn (see the errors above)`);
@@ -201,7 +201,7 @@ export const buildCommand: CliCommand = {
       return rep.ok ? 0 : 1;
     } catch (e) {
       if (e instanceof InputError) {
-        if (values.json) io.out(JSON.stringify({ ok: false, design: name, errors: [{ field: e.field, expected: e.expected, got: e.got, message: e.message }] }, null, 2));
+        if (values.json) io.out(resultJson({ ok: false, design: name, errors: [{ field: e.field, expected: e.expected, got: e.got, message: e.message }] }, 2));
         else io.err(`stripwright build: ${name}: ${e.message}`);
         return 1;
       }

@@ -5,14 +5,15 @@
  * overwritten without --force), and each file is written atomically by the CLI's one writer (cli/files.ts).
  */
 import { parseArgs } from 'node:util';
-import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, statSync } from 'node:fs';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import {
   EXPORT_FILE_NAMES, InputError, initPolygons, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
   sizeDesign, boardGeometryOf, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
-import { OutputError, writeOutputFile } from '../files.ts';
+import { DESIGN_TEXT, OutputError, readInputText, writeOutputFile } from '../files.ts';
+import { explainErrno } from '../../electron/files/atomic-write.ts';
 import { VERSION } from '../version.ts';
 
 const FORMATS = ['dxf', 'svg', 'gerber', 'drill', 'mask', 'mask-pdf'] as const;
@@ -87,11 +88,9 @@ export const exportCommand: CliCommand = {
     try {
       const bias = values.bias !== undefined ? parseQuantity(values.bias, 'length', '--bias') : 0;
       const tool = values.tool !== undefined ? parseQuantity(values.tool, 'length', '--tool') : undefined;
-      let text: string;
-      try { text = readFileSync(file, 'utf8'); } catch (e) {
-        io.err(`stripwright export: cannot read ${positionals[0]}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
-        return 1;
-      }
+      const read = await readInputText(file, positionals[0], DESIGN_TEXT, 'a design file (.json)');
+      if (!read.ok) { io.err(`stripwright export: ${read.message}`); return 1; }
+      const text = read.text;
       const parsed = parseDesign(text);
       if (!parsed.ok) {
         io.err(`stripwright export: ${positionals[0]} is not a valid design:`);
@@ -195,7 +194,9 @@ function placeOutputs(out: string, given: string, outputs: Output[]): { path: st
   if (!isDir && !/[\\/]$/.test(given) && extname(out) !== '') {
     throw new OutError(`--out ${given} looks like a file name, but ${outputs.length} files are to be written (${outputs.map((o) => o.name).join(', ')}): give a folder, e.g. --out ${basename(out, extname(out))}/`);
   }
-  mkdirSync(out, { recursive: true });
+  try { mkdirSync(out, { recursive: true }); } catch (e) {
+    throw new OutError(`cannot make the folder ${given}: ${explainErrno(e as NodeJS.ErrnoException)}`);
+  }
   return outputs.map((o) => ({ path: join(out, o.name), text: o.text, what: o.what }));
 }
 

@@ -2,9 +2,10 @@
  * `stripwright line`: size (Z0 → W) or analyse (W → Z0) one microstrip line, or a CSV file of them.
  * A thin face over core/line: values are parsed with core/units, results printed as a table or JSON (SI numbers).
  */
-import { writeOutputFile } from '../files.ts';
+import { CSV_INPUT, readInputText, writeOutputFile } from '../files.ts';
+import { resultJson } from '../json.ts';
 import { parseArgs } from 'node:util';
-import { readFileSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import {
   analyzeLine, synthesizeLine, lengthForDegrees, degreesForLength, parseQuantity, formatQuantity, findPreset,
@@ -13,7 +14,6 @@ import {
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 
-const MAX_BATCH_BYTES = 20 * 1024 * 1024;
 const MAX_BATCH_ROWS = 200_000;
 
 const USAGE = `Usage: stripwright line [substrate] (--z0 OHMS | --width LEN) [--f FREQ] [--deg DEG | --length LEN] [--json]
@@ -152,8 +152,8 @@ function toJson(s: Solved): Record<string, unknown> {
   const atF = r.f > 0;
   const o: Record<string, unknown> = {
     width_m: r.width, z0_ohm: r.z0, z0_static_ohm: r.z0Static, eps_eff: r.epsEff, eps_eff_static: r.epsEffStatic,
-    f_hz: r.f, lambda_g_m: atF ? r.lambdaG : null, vp_m_per_s: r.vp, delay_s_per_m: r.delayPerM,
-    alpha_c_db_per_m: r.alphaCdBPerM, alpha_d_db_per_m: r.alphaDdBPerM, skin_depth_m: atF ? r.skinDepth : null,
+    f_hz: r.f, ...(atF ? { lambda_g_m: r.lambdaG } : {}), vp_m_per_s: r.vp, delay_s_per_m: r.delayPerM,
+    alpha_c_db_per_m: r.alphaCdBPerM, alpha_d_db_per_m: r.alphaDdBPerM, ...(atF ? { skin_depth_m: r.skinDepth } : {}),
     threshold_hz: r.thresholds.errorAt, warnings: r.warnings.map(warningJson),
   };
   if (s.lengthM !== undefined) { o.length_m = s.lengthM; o.deg = s.deg; }
@@ -242,16 +242,9 @@ const RESULT_COLUMNS = ['width_m', 'z0_ohm', 'z0_static_ohm', 'eps_eff', 'eps_ef
 
 async function runBatch(path: string, defaults: CaseText, outPath: string | undefined, force: boolean, io: CliIo): Promise<number> {
   const file = resolve(io.cwd, path);
-  let text: string;
-  try {
-    const st = statSync(file);
-    if (!st.isFile()) throw new Error('not a file');
-    if (st.size > MAX_BATCH_BYTES) { io.err(`stripwright line: ${path}: expected a CSV file up to ${MAX_BATCH_BYTES / 1024 / 1024} MB, got ${(st.size / 1024 / 1024).toFixed(1)} MB`); return 1; }
-    text = readFileSync(file, 'utf8');
-  } catch (e) {
-    io.err(`stripwright line: cannot read the batch file ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
-    return 1;
-  }
+  const read = await readInputText(file, path, CSV_INPUT, 'a CSV file with a header row');
+  if (!read.ok) { io.err(`stripwright line: the batch file: ${read.message}`); return 1; }
+  const text = read.text;
   let rows: { line: number; cells: string[] }[];
   try { rows = readCsv(text); } catch (e) { io.err(`stripwright line: ${path}: ${errorText(e)}`); return 1; }
   if (rows.length === 0) { io.err(`stripwright line: ${path}: expected a header row naming the columns (${CASE_KEYS.join(',')}), got an empty file`); return 1; }
@@ -312,7 +305,7 @@ export const lineCommand: CliCommand = {
     if (values.out !== undefined || values.force) throw new UsageError('--out and --force go with --batch');
     try {
       const s = solve(c);
-      io.out(values.json ? JSON.stringify(toJson(s), null, 2) : table(s));
+      io.out(values.json ? resultJson(toJson(s), 2) : table(s));
       return 0;
     } catch (e) {
       if (e instanceof UsageError) throw e;

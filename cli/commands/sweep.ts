@@ -3,9 +3,9 @@
  * a Touchstone file. A thin face over core/network: the design is parsed, sized, turned into a netlist and swept.
  * A Touchstone file given instead of a design is read and summarised the same way (to look at a measured board).
  */
-import { OutputError, writeOutputFile } from '../files.ts';
+import { DESIGN_TEXT, OutputError, readInputText, TOUCHSTONE_INPUT, writeOutputFile } from '../files.ts';
 import { parseArgs } from 'node:util';
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { basename, resolve } from 'node:path';
 import {
   InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
@@ -15,6 +15,7 @@ import {
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { VERSION } from '../version.ts';
+import { resultJson } from '../json.ts';
 
 const USAGE = `Usage: stripwright sweep FILE [--from FREQ --to FREQ --points N --log] [--out FILE.sNp]
                         [--format ri|ma|db] [--unit hz|khz|mhz|ghz] [--zref OHMS] [--input PORT] [--json]
@@ -102,14 +103,14 @@ export const sweepCommand: CliCommand = {
       if (/\.s\d+p$/i.test(file)) throw new UsageError('--compare goes with a design file; to compare two Touchstone files, sweep the design against each');
       if (values.points !== undefined || values.log) throw new UsageError('--compare sweeps at the frequencies of the compared file; leave out --points and --log');
       const cf = resolve(io.cwd, values.compare);
-      const ctext = readInput(cf, values.compare, io);
+      const ctext = await readInput(cf, values.compare, io);
       if (ctext === null) return 1;
       try { measured = loadTouchstone(ctext, cf, { from, to }).response as TouchstoneData; } catch (e) {
         if (e instanceof InputError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
         throw e;
       }
     }
-    const text = readInput(file, positionals[0], io);
+    const text = await readInput(file, positionals[0], io);
     if (text === null) return 1;
     try {
       const loaded = /\.s\d+p$/i.test(file)
@@ -138,7 +139,7 @@ export const sweepCommand: CliCommand = {
       }
       for (const w of [...loaded.warnings, ...r.warnings]) if (w.severity !== 'info') io.err(`warning: ${w.message}`);
       const diff = measured ? compareResponses(r, measured) : undefined;
-      if (values.json) io.out(JSON.stringify({ ...toJson(loaded, input), ...(diff ? { comparison: { file: basename(values.compare!), ...comparisonJson(r, diff) } } : {}) }));
+      if (values.json) io.out(resultJson({ ...toJson(loaded, input), ...(diff ? { comparison: { file: basename(values.compare!), ...comparisonJson(r, diff) } } : {}) }));
       else if (!values.out || diff) io.out([values.out ? '' : table(loaded, input), diff ? comparisonTable(r, diff, basename(values.compare!)) : '', values.out ? '' : notes([...loaded.warnings, ...r.warnings])].filter(Boolean).join('\n\n'));
       return 0;
     } catch (e) {
@@ -222,7 +223,7 @@ function toJson(l: Loaded, input: number) {
     app: `stripwright ${VERSION}`,
     source: l.from,
     name: l.name,
-    f0: l.f0 ?? null,
+    ...(l.f0 !== undefined ? { f0: l.f0 } : {}),
     definition: 'power-wave S-parameters, real reference impedance per port',
     frequencies: Array.from(r.freqs),
     ports: r.ports,
@@ -337,22 +338,11 @@ function comparisonTable(r: NetworkResponse, d: ResponseDifference, file: string
   return lines.join('\n');
 }
 
-/** Largest input file read (a 1001-point 65-port Touchstone file is about 200 MB in RI at full precision). */
-const MAX_INPUT_BYTES = 512 * 1024 * 1024;
-
-/** Reads a text file after checking its size, or reports why not and returns null. */
-function readInput(path: string, shown: string, io: CliIo): string | null {
-  try {
-    const size = statSync(path).size;
-    if (size > MAX_INPUT_BYTES) {
-      io.err(`stripwright sweep: ${shown} is ${(size / 2 ** 20).toFixed(0)} MB; files above ${MAX_INPUT_BYTES / 2 ** 20} MB are not read (is it the right file?)`);
-      return null;
-    }
-    return readFileSync(path, 'utf8');
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    io.err(`stripwright sweep: cannot read ${shown}: ${code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : (e as Error).message}`);
-    return null;
-  }
+/** Reads an input file (a design, or a Touchstone file by its .sNp extension) through the one text reader, or reports why not and returns null. */
+async function readInput(path: string, shown: string, io: CliIo): Promise<string | null> {
+  const touchstone = /\.s\d+p$/i.test(path);
+  const r = await readInputText(path, shown, touchstone ? TOUCHSTONE_INPUT : DESIGN_TEXT, touchstone ? 'a Touchstone file (.sNp)' : 'a design file (.json)');
+  if (r.ok) return r.text;
+  io.err(`stripwright sweep: ${r.message}`);
+  return null;
 }
-

@@ -61,8 +61,12 @@ export function groupDelay(r: NetworkResponse, i: number, j: number): Float64Arr
   const out = new Float64Array(F);
   if (F < 2) return out;
   for (let k = 0; k < F; k++) {
-    const a = Math.max(0, k - 1), b = Math.min(F - 1, k + 1);
-    out[k] = -((ph[b] - ph[a]) * Math.PI / 180) / (2 * Math.PI * (f[b] - f[a]));
+    // Central difference over the nearest points of another frequency (measured data may repeat one); data at a
+    // single frequency has no slope, and 0 is shown as for one point.
+    let a = Math.max(0, k - 1), b = Math.min(F - 1, k + 1);
+    while (a > 0 && f[a] === f[k]) a--;
+    while (b < F - 1 && f[b] === f[k]) b++;
+    out[k] = f[b] > f[a] ? -((ph[b] - ph[a]) * Math.PI / 180) / (2 * Math.PI * (f[b] - f[a])) : 0;
   }
   return out;
 }

@@ -36,15 +36,19 @@ export function sparamsAdmittance(touchstone: string, name: string, field = 'spa
   const P = data.ports.length;
   if (P !== 1 && P !== 2) throw new InputError('bad-file', field, 'a 1- or 2-port Touchstone file for a part', `${P} ports`);
   const refs = data.ports.map((p) => p.zRef);
-  return {
-    ports: P, data,
-    y: (f) => {
-      const s = interpolateS(data, f, field);
-      try { return sToY(s, P, refs); } catch {
-        throw new InputError('singular-network', field, 'a part with an admittance matrix', `an ideal short (S = −1) at ${f / 1e9} GHz`, 'use a short segment instead');
-      }
-    },
+  const y = (f: number): Float64Array => {
+    const s = interpolateS(data, f, field);
+    let out: Float64Array;
+    try { out = sToY(s, P, refs); } catch {
+      throw new InputError('singular-network', field, 'a part with an admittance matrix', `an ideal short (S = −1) at ${f / 1e9} GHz`, 'use a short segment instead');
+    }
+    for (const v of out) if (!Number.isFinite(v)) throw new InputError('singular-network', field, 'a part with a finite admittance matrix', `values too large to solve at ${f / 1e9} GHz`, 'check the file; a part this close to an ideal short is better drawn as a short segment');
+    return out;
   };
+  // Taken in as the sweep will use it: every data point must give an admittance, so data the sweep would refuse is
+  // refused here, when the file is chosen, rather than later in the response.
+  for (const f of data.freqs) y(f);
+  return { ports: P, data, y };
 }
 
 /** v1 text without a file name: one record per line with 3 values → 1-port, 9 → 2-port. */

@@ -57,6 +57,8 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
   let refLine = 0;
   let inInfo = false, inData = false, ended = false, sawContent = false, skippedNoise = false;
   const toks: Tok[] = [];
+  /** Values on each data line (by line number): tells network data from a v1 noise block. */
+  const perLine = new Map<number, number>();
 
   for (let li = 0; li < lines.length && !ended; li++) {
     const ln = li + 1;
@@ -133,6 +135,7 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
     }
     if (!option) throw bad(ln, 'the option line (e.g. # GHz S RI R 50) before the data', JSON.stringify(body.slice(0, 40)), 'Touchstone data must follow a line starting with #');
     const parts = body.split(/[\s,]+/).filter(Boolean);
+    perLine.set(ln, parts.length);
     parts.forEach((t, i) => toks.push({ v: parseNum(t, ln), line: ln, first: i === 0 }));
   }
   if (version === '2.0' && !ended) throw bad(lines.length, 'an [End] line closing a Touchstone 2.0 file', 'the end of the file', 'the file may be cut short');
@@ -163,18 +166,29 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
   const perMatrix = matrix === 'full' ? N * N : (N * (N + 1)) / 2;
   const perRecord = 1 + 2 * perMatrix;
 
-  // Split records; in v1 a 2-port noise block starts where the frequency stops increasing.
+  // Split records. In v1 a 2-port noise block follows the network data with a frequency that does not rise; its
+  // lines hold 5 values. A record on a line with the network data's column count is network data whatever its
+  // frequency: a repeated frequency is kept (with a warning naming the line), a falling one is refused.
+  const dataColumns = perLine.get(toks[0].line) ?? 0;
   const recs: number[] = [];
+  const repeats: number[] = [];
   let lastF = -Infinity;
   for (let t = 0; t < toks.length; t += perRecord) {
-    const f = toks[t].v;
-    if (version === '1' && N === 2 && t > 0 && f <= lastF) { skippedNoise = true; break; }
+    const f = toks[t].v, ln = toks[t].line;
+    const isNoise = version === '1' && N === 2 && t > 0 && f <= lastF && (!toks[t].first || perLine.get(ln) !== dataColumns);
+    if (isNoise) { skippedNoise = true; break; }
     if (t + perRecord > toks.length) {
-      throw bad(toks[t].line, `${perRecord - 1} values after the frequency for a ${N}-port record`, `${toks.length - t - 1}`, 'the last record is incomplete');
+      throw bad(ln, `${perRecord - 1} values after the frequency for a ${N}-port record`, `${toks.length - t - 1}`, 'the last record is incomplete');
     }
-    if (!(f >= 0) || !(f > lastF)) throw bad(toks[t].line, `frequencies strictly increasing (this one after ${lastF})`, String(f));
-    if (version === '1' && N >= 3 && !toks[t].first) throw bad(toks[t].line, 'each frequency record to start on a new line', 'a record starting mid-line', 'check the port count');
+    if (!(f >= 0)) throw bad(ln, 'a frequency of 0 or more', String(f));
+    if (f < lastF) throw bad(ln, `frequencies in rising order (this one after ${lastF})`, String(f), 'sort the records by frequency');
+    if (f === lastF) repeats.push(ln);
+    if (version === '1' && N >= 3 && !toks[t].first) throw bad(ln, 'each frequency record to start on a new line', 'a record starting mid-line', 'check the port count');
     lastF = f; recs.push(t);
+  }
+  if (repeats.length > 0) {
+    const shown = repeats.slice(0, 5).map((l) => `${l}`).join(', ') + (repeats.length > 5 ? ` and ${repeats.length - 5} more` : '');
+    warnings.push({ code: 'note', severity: 'warning', message: `${name}: a frequency repeats the one before it on line${repeats.length > 1 ? 's' : ''} ${shown}; both points are kept as data (is the file two sweeps joined?)` });
   }
   if (nFreq !== null && recs.length !== nFreq) throw bad(0, `${nFreq} frequencies as [Number of Frequencies] says`, String(recs.length));
   if (skippedNoise) warnings.push({ code: 'note', severity: 'info', message: `${name}: noise parameters were skipped (not used)` });
@@ -193,6 +207,7 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
   for (let k = 0; k < F; k++) {
     const t0 = recs[k];
     freqs[k] = toks[t0].v * scale;
+    if (!Number.isFinite(freqs[k])) throw bad(toks[t0].line, 'a frequency that is a finite number of hertz once scaled by the unit', `${toks[t0].v} ${option.unit}`);
     const m = new Float64Array(2 * N * N);
     const put = (i: number, j: number, a: number, b: number) => {
       let re: number, im: number;
@@ -201,6 +216,8 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
         const ang = (b * Math.PI) / 180;
         re = mag * Math.cos(ang); im = mag * Math.sin(ang);
       }
+      // dB values above about 6165 overflow a double; refuse them where they are, not later as a silent short.
+      if (!Number.isFinite(re) || !Number.isFinite(im)) throw bad(toks[q - 1].line, `a ${option!.format === 'db' ? 'dB magnitude' : 'value'} that gives a finite ${option!.param}-parameter`, `${a} ${b}`);
       m[2 * (i * N + j)] = re; m[2 * (i * N + j) + 1] = im;
     };
     let q = t0 + 1;
@@ -219,6 +236,7 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
         m[2 * (i * N + j)] = m[2 * (si * N + sj)]; m[2 * (i * N + j) + 1] = m[2 * (si * N + sj) + 1];
       }
     }
+    for (const v of m) if (!Number.isFinite(v)) throw bad(toks[t0].line, `${option.param}-parameters that are finite numbers once scaled`, 'a value beyond the range of a number');
     let sm: Float64Array = m;
     if (option.param !== 'S') {
       // v1 Y and Z are normalised to R; v2 gives them in siemens / ohms.
@@ -232,6 +250,7 @@ export function readTouchstone(text: string, opts: TouchstoneReadOptions = {}): 
         throw bad(toks[t0].line, `${option.param}-parameters that have an S-matrix`, 'a singular matrix');
       }
     }
+    for (const v of sm) if (!Number.isFinite(v)) throw bad(toks[t0].line, `${option.param}-parameters that have a finite S-matrix`, 'values too large to convert');
     s.set(sm, 2 * N * N * k);
   }
   const ports = refs.map((z, i) => ({ name: String(i + 1), zRef: z }));

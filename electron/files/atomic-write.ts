@@ -28,18 +28,20 @@ export interface FsOps {
 }
 const realFs: FsOps = { open: nodeFs.open, rename: nodeFs.rename, link: nodeFs.link, copyFile: nodeFs.copyFile, unlink: nodeFs.unlink, stat: nodeFs.stat };
 
-export type AtomicStep = 'write-temp' | 'sync-temp' | 'backup' | 'replace' | 'sync-folder';
+export type AtomicStep = 'check' | 'write-temp' | 'sync-temp' | 'backup' | 'replace' | 'sync-folder';
 
 export class AtomicWriteError extends Error {
   override name = 'AtomicWriteError';
   constructor(readonly step: AtomicStep, readonly path: string, override readonly cause: NodeJS.ErrnoException) {
-    super(`${describeStep(step)} ${path} failed: ${explainErrno(cause)}. ${step === 'sync-folder' ? 'The new version is in place but may not survive a power cut.' : 'The file on disk was not changed.'}`);
+    super(step === 'check'
+      ? `${path} is read-only, so it was not replaced and is unchanged. Use Save As to keep your version under another name (or make the file writable first).`
+      : `${describeStep(step)} ${path} failed: ${explainErrno(cause)}. ${step === 'sync-folder' ? 'The new version is in place but may not survive a power cut.' : 'The file on disk was not changed.'}`);
   }
   get errno(): string | undefined { return this.cause.code; }
 }
 
 function describeStep(step: AtomicStep): string {
-  return { 'write-temp': 'Writing a temporary copy next to', 'sync-temp': 'Flushing the temporary copy of', backup: 'Keeping the previous version of', replace: 'Replacing', 'sync-folder': 'Flushing the folder of' }[step];
+  return { check: 'Checking', 'write-temp': 'Writing a temporary copy next to', 'sync-temp': 'Flushing the temporary copy of', backup: 'Keeping the previous version of', replace: 'Replacing', 'sync-folder': 'Flushing the folder of' }[step];
 }
 
 /** Words a user can act on for the errno values a save meets in practice. */
@@ -53,7 +55,16 @@ export function explainErrno(e: NodeJS.ErrnoException): string {
     case 'ENOENT': return 'the folder does not exist (any more)';
     case 'ENAMETOOLONG': return 'the path is too long';
     case 'EISDIR': return 'a folder has that name';
-    default: return e.message || String(e.code);
+    case 'ENOTDIR': return 'a part of the path is a file, not a folder';
+    case 'EEXIST': return 'something with that name is already there';
+    case 'ELOOP': return 'the path is a loop of symbolic links';
+    case 'EIO': return 'the disk reported an input/output error';
+    case 'EMFILE': case 'ENFILE': return 'too many files are open; close some programs and try again';
+    case 'EXDEV': return 'the file and its folder are on different disks';
+    case 'ETXTBSY': return 'the file is in use by a running program';
+    case 'EFBIG': return 'the file is larger than the disk allows';
+    // Never a bare code: Node's messages start with it ("ENOTEMPTY: directory not empty, ..."); keep the words.
+    default: return (e.message || 'the system refused').replace(/^E[A-Z0-9]+:\s*/, '').replace(/,\s*\w+\s+'[^']*'(\s*->\s*'[^']*')?$/, '');
   }
 }
 
@@ -101,6 +112,16 @@ async function syncFolder(fs: FsOps, folder: string, platform: NodeJS.Platform):
   }
 }
 
+/**
+ * Whether the user may change the file itself: the OS says so (access W_OK) and the file is not marked read-only
+ * for everyone (no write bit at all; also what Windows' read-only attribute shows as). The second test matters for
+ * an administrator, whom the OS lets write anything.
+ */
+async function userMayWrite(path: string, mode: number): Promise<boolean> {
+  if ((mode & 0o222) === 0) return false;
+  return nodeFs.access(path, nodeFs.constants.W_OK).then(() => true, () => false);
+}
+
 export async function atomicWriteFile(givenPath: string, data: string | Uint8Array, options: AtomicWriteOptions = {}): Promise<AtomicWriteResult> {
   const fs = options.fs ?? realFs;
   const platform = options.platform ?? process.platform;
@@ -115,6 +136,12 @@ export async function atomicWriteFile(givenPath: string, data: string | Uint8Arr
   try {
     const existing = await fs.stat(path).catch((e: NodeJS.ErrnoException) => { if (e.code === 'ENOENT') return null; throw e; });
     if (existing && !existing.isFile()) throw Object.assign(new Error(`${path} is not a regular file`), { code: 'EISDIR' });
+    // A rename replaces a file whatever its permissions (only the folder's count), so a read-only file would be
+    // silently swapped for a writable copy with our owner. Refuse it instead: the user marked it so on purpose.
+    if (existing && !(await userMayWrite(path, existing.mode))) {
+      step = 'check';
+      throw Object.assign(new Error(`${path} is read-only`), { code: 'EACCES' });
+    }
     const fd = await fs.open(temp, 'wx', existing ? existing.mode & 0o777 : (options.mode ?? 0o644));
     tempExists = true;
     try {
