@@ -262,3 +262,30 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
     tolerances, ignored, robustPoints: robust, warnings,
   };
 }
+
+/**
+ * The made boards of a run, one by one: each board's draws (one list per tolerance: one number, or one per piece in
+ * piece order) and its S over the grid, from the same generator, board maker and solver as runYield. For checks
+ * against an independent rebuild (test/reference/yield-skrf.test.ts) and for anyone who wants the raw boards.
+ */
+export function madeBoardResponses(doc: DesignDoc, opts: { samples: number; seed: number; points?: number; line?: LineOptions }): {
+  freqs: Float64Array; ports: { name: string; zRef: number }[]; tolerances: Tolerance[]; boards: { draws: number[][]; s: Float64Array }[];
+} {
+  checkOptions({ samples: opts.samples, seed: opts.seed });
+  const sized = sizeDesign(doc, opts.line ? { line: opts.line } : {});
+  const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, opts.points ?? 201), doc.targets ?? []);
+  const solver = new BatchSolver(sized, freqs, opts.line);
+  const { tolerances } = applicableTolerances(sized);
+  const draws = new ToleranceDraws(tolerances, sized.pieces.length, opts.seed);
+  const board = new MadeBoard(sized, draws);
+  const P = solver.ports.length;
+  const boards: { draws: number[][]; s: Float64Array }[] = [];
+  for (let n = 0; n < opts.samples; n++) {
+    draws.next();
+    const { made, laminate, pieceDw } = board.make();
+    const s = new Float64Array(2 * P * P * freqs.length);
+    solver.solve(made, laminate, pieceDw, s);
+    boards.push({ draws: draws.values.map((v) => [...v]), s });
+  }
+  return { freqs, ports: solver.ports, tolerances, boards };
+}
