@@ -15,6 +15,9 @@ import { designPaths, tracePaths, type PathReport } from '../../core/layout/path
 import type { Finding } from '../../core/layout/checks.ts';
 import { checkBoard } from '../../core/layout/board.ts';
 import type { SizedDesign } from '../../core/layout/types.ts';
+import { netlistFromSized } from '../../core/network/fromSized.ts';
+import { bandSweep, solveNetwork } from '../../core/network/sweep.ts';
+import { evaluateTargets, targetFrequencies, targetText, type TargetEvaluation } from '../../core/network/targets.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
 import { resultJson } from '../json.ts';
@@ -66,6 +69,8 @@ export interface BuildReport {
   }[];
   paths: PathReport[];
   findings: Finding[];
+  /** The design's targets on the nominal board (absent when it has none). */
+  targets?: TargetEvaluation;
   warnings: Warning[];
 }
 
@@ -144,6 +149,13 @@ function text(rep: BuildReport): string[] {
     out.push(...table(pr));
     out.push(`spread ${r.spreadDeg.toFixed(2)}°`);
   }
+  if (rep.targets) {
+    out.push('', 'Targets (the board as drawn, nominal laminate):');
+    for (const t of rep.targets.results) {
+      const u = t.unit === 'dB' ? ' dB' : '°';
+      out.push(`  ${t.pass ? 'PASS' : 'FAIL'}  ${t.name}: worst ${t.worst.value.toFixed(2)}${u} at ${(t.worst.freq / 1e9).toFixed(4)} GHz (limit ${t.limitText}, margin ${t.margin.toFixed(2)}${u})`);
+    }
+  }
   out.push('');
   if (!rep.findings.length) out.push('Findings: none');
   else {
@@ -193,6 +205,8 @@ export const buildCommand: CliCommand = {
       const { findings } = checkBoard(sized, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
       const rep = buildReport(sized, paths, findings);
       rep.warnings.unshift(...parsed.warnings);
+      const targets = nominalTargets(sized);
+      if (targets) rep.targets = targets;
       if (values.json) io.out(resultJson(rep, 2));
       else {
         for (const l of text(rep)) io.out(l);
@@ -209,3 +223,12 @@ export const buildCommand: CliCommand = {
     }
   },
 };
+
+/** The design's targets evaluated on its nominal sweep (band, 201 points, every target band edge added). */
+function nominalTargets(sized: SizedDesign): TargetEvaluation | null {
+  const doc = sized.doc;
+  if (!doc.targets?.length) return null;
+  const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, 201), doc.targets);
+  const ev = evaluateTargets(solveNetwork(netlistFromSized(sized), freqs), doc);
+  return { ...ev, results: ev.results.map((r, i) => ({ ...r, name: r.name === targetText(doc.targets[i]!) ? r.name : `${r.name} (${targetText(doc.targets[i]!)})` })) };
+}

@@ -19,6 +19,7 @@ import {
   allIds, argId, argIds, argNumber, argString, argVec, argsObject, checkWith, findNode, findSegment, freshId, snapVec, wrapAngle, type Args,
 } from './command-args.ts';
 import { pasteClipboard } from './clipboard.ts';
+import { setTargets, setTolerances } from './commands-targets.ts';
 
 export interface DesignCommand {
   /** Stable id, e.g. 'node.move'; menus, shortcuts and scripts refer to it. */
@@ -460,7 +461,7 @@ const viewSet: DesignCommand = {
 export const DESIGN_COMMANDS: ReadonlyMap<string, DesignCommand> = new Map(
   [nodeAdd, nodeMove, nodeSetSpec, segmentAdd, segmentSetSpec, selectionDelete, selectionTranslate, selectionRotate, selectionMirror,
     selectionPaste, setSubstrate, setFrequency, setProcess, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
-    phaseGroupSet, viewSet].map((c) => [c.id, c]),
+    phaseGroupSet, viewSet, setTargets, setTolerances].map((c) => [c.id, c]),
 );
 
 /** Runs command `id` on `doc`; throws InputError on an unknown id or bad arguments. `doc` is never changed. */

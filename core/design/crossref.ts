@@ -14,6 +14,7 @@ import { findSelfCrossing } from '../geometry/crossing.ts';
 import type { Warning } from '../util/warnings.ts';
 import type { DesignDoc, DesignNode } from './types.ts';
 import { issue, type DesignIssue } from './issues.ts';
+import { crossCheckTargets } from './crossref-targets.ts';
 
 export const DEGREE: Record<DesignNode['kind'], { min: number; max: number; words: string }> = {
   port: { min: 1, max: 1, words: 'one segment at a port' },
@@ -92,6 +93,7 @@ export function crossCheck(doc: DesignDoc, opts: { complete?: boolean } = {}): C
     warnings.push({ code: 'note', severity: 'warning', message: `frequency.f0 (${f0} Hz) lies outside the band ${band.start}–${band.stop} Hz; lengths are set at f0, the band only sets the sweep.`, source: 'design-frequency' });
   }
 
+  crossCheckTargets(doc, errors);
   if (doc.board) checkRing(doc.board.outline, 'board.outline', errors);
   doc.areas.forEach((a, i) => checkRing(a.polygon, `areas[${i}].polygon`, errors));
   return { errors, warnings };

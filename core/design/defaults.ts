@@ -47,6 +47,8 @@ export function newDesign(opts: NewDesignOptions = {}): DesignDoc {
     board: null,
     areas: [],
     phaseGroups: [],
+    targets: [],
+    tolerances: [],
   };
   if (opts.notes !== undefined) doc.notes = opts.notes;
   return doc;

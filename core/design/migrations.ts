@@ -7,6 +7,8 @@
  * - 1: the first slice of the app wrote only `{ format, version, name }`.
  * - 2: the full document of core/design/types.ts (substrate, frequency, process, nodes, segments, board, areas,
  *      phase groups).
+ * - 3: targets (requirements on the response over a band) and tolerances (how a made board may differ), both
+ *      empty lists in an upgraded file.
  */
 type Json = Record<string, unknown>;
 
@@ -36,6 +38,14 @@ export const MIGRATIONS: readonly Migration[] = [
         areas: doc.areas ?? [],
         phaseGroups: doc.phaseGroups ?? [],
       };
+    },
+  },
+  {
+    from: 2,
+    summary: 'added empty lists of targets (requirements on the response) and tolerances (how a made board may differ)',
+    up(doc) {
+      // Nothing was required of the response before; an empty list keeps every upgraded design passing as it did.
+      return { ...doc, version: 3, targets: doc.targets ?? [], tolerances: doc.tolerances ?? [] };
     },
   },
 ];

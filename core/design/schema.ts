@@ -9,6 +9,7 @@
 import * as v from 'valibot';
 import { DESIGN_FORMAT } from './types.ts';
 import { DESIGN_LIMITS as L, PROCESS_LIMITS } from './limits.ts';
+import { targetsSchema, tolerancesSchema } from './targets-schema.ts';
 
 /** A finite number in [min, max] (either end exclusive on request), all failures described by `what`. */
 function num(what: string, min: number, max: number, opts: { minExclusive?: boolean; maxExclusive?: boolean } = {}) {
@@ -189,6 +190,8 @@ export function designSchema(version: number) {
     board: v.nullable(v.looseObject({ outline: polygon('an outline') }, 'a board {outline} or null')),
     areas: list(areaSchema, 'areas', L.areas),
     phaseGroups: list(phaseGroupSchema, 'phase groups', L.phaseGroups),
+    targets: targetsSchema,
+    tolerances: tolerancesSchema,
     view: v.optional(v.looseObject({
       units: v.optional(v.picklist(['mm', 'mil'], 'display units "mm" or "mil"')),
       grid: v.optional(LEN('a grid step', 0.1)),

@@ -11,8 +11,10 @@
  */
 import type { Vec2 } from '../geometry/types.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
+import type { Target, Tolerance } from './targets.ts';
 
 export type { SubstrateSpec };
+export type * from './targets.ts';
 
 export const DESIGN_FORMAT = 'stripwright-design';
 
@@ -79,6 +81,10 @@ export interface DesignDoc {
   board: { outline: Vec2[] } | null;
   areas: Area[];
   phaseGroups: PhaseGroup[];
+  /** Requirements on the response (format 3; core/design/targets.ts). */
+  targets: Target[];
+  /** How the made board may differ from the drawing (format 3; core/design/targets.ts). */
+  tolerances: Tolerance[];
   /** Display preferences; never affect the physics. */
   view?: { units?: 'mm' | 'mil'; grid?: number };
   /** Fields this version does not know are kept here on load and written back on save. */

@@ -134,7 +134,7 @@ function shortest(adj: Map<string, Edge[]>, from: string): Map<string, { prev: s
 }
 
 /** Copper length of a piece that lies on a through path: its line length plus the pad copper at its ends. */
-function pathLength(p: SizedPiece): number {
+export function pathLength(p: SizedPiece): number {
   if (p.kind === 'lumped' || p.kind === 'sparams') return p.span;
   let pads = 0;
   for (const c of p.compensations) if (c.applied && (c.model === 'lumped-pad' || c.model === 'launch-pad')) pads += c.amount_m;

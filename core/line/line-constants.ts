@@ -26,14 +26,24 @@ export function lineConstants(sub: SubstrateSpec, width: number, f: number, opts
     throw new InputError('out-of-range', 'f', 'a frequency above 0 Hz for the line constants', '0', 'at DC a line is its series resistance; use a small frequency');
   }
   const r = analyzeLine(sub, width, f, opts);
+  const out = { zc: { re: 0, im: 0 }, gamma: { re: 0, im: 0 } };
+  lineConstantsFrom(r.z0, r.epsEff, r.alphaC, r.alphaD, f, out);
+  return out;
+}
+
+/**
+ * The same constants from an analysis already made (Z0(f), εe(f), αc and αd in Np/m at f), written into `out`:
+ * the form for many lines at once (analyzeLines columns), the same arithmetic to the last bit.
+ */
+export function lineConstantsFrom(z0: number, epsEff: number, alphaC: number, alphaD: number, f: number, out: { zc: Complex; gamma: Complex }): void {
   const w = 2 * Math.PI * f;
-  const sq = Math.sqrt(r.epsEff);
-  const L = (r.z0 * sq) / C0; const C = sq / (r.z0 * C0);
-  const R = 2 * r.z0 * r.alphaC; const G = (2 * r.alphaD) / r.z0;
+  const sq = Math.sqrt(epsEff);
+  const L = (z0 * sq) / C0; const C = sq / (z0 * C0);
+  const R = 2 * z0 * alphaC; const G = (2 * alphaD) / z0;
   // Z = R + jωL, Y = G + jωC
   const zr = R; const zi = w * L; const yr = G; const yi = w * C;
   const gamma = csqrt(zr * yr - zi * yi, zr * yi + zi * yr);
   const d = yr * yr + yi * yi;
   const zc = csqrt((zr * yr + zi * yi) / d, (zi * yr - zr * yi) / d);
-  return { zc, gamma };
+  out.zc.re = zc.re; out.zc.im = zc.im; out.gamma.re = gamma.re; out.gamma.im = gamma.im;
 }

@@ -33,6 +33,12 @@ export interface FromSizedOptions {
   line?: LineOptions;
   /** Advisory discontinuity models to include (default none). */
   advisory?: AdvisoryModel[];
+  /**
+   * The line model of a piece's copper of `width` (its own line, taper sections and pads); default: the line model
+   * on the design's substrate, memoised per width. The yield estimate (core/yield) passes tabulated models of a
+   * made board, whose pieces may sit on slightly different laminate.
+   */
+  lineModel?: (width: number, piece: SizedPiece) => LineModel;
 }
 
 export interface SizedNetlist extends Netlist {
@@ -60,7 +66,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
 
   // One memo per width: the sweep asks every piece at one frequency before the next, and pieces share widths.
   const models = new Map<number, LineModel>();
-  const modelFor = (width: number): LineModel => {
+  const defaultModelFor = (width: number): LineModel => {
     let m = models.get(width);
     if (!m) {
       let lastF = NaN, last: ReturnType<LineModel> | null = null;
@@ -87,13 +93,15 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
       elements.push({ kind: 'capacitor', id: `${n.id}:step-Cs`, a: c, b: GROUND, value: n.step.Cs });
       elements.push({ kind: 'inductor', id: `${n.id}:step-L2`, a: c, b: nn, value: n.step.L2 });
       // The step's nominal node still exists for anything else attached there (nothing, at a vertex): join it.
-      elements.push({ kind: 'line', id: `${n.id}:step-join`, a: n.id, b: c, length: 0, model: modelFor(1e-3) });
+      elements.push({ kind: 'line', id: `${n.id}:step-join`, a: n.id, b: c, length: 0, model: defaultModelFor(1e-3) });
       warnings.push(warn('advisory-model', `width step at ${n.id}: Garg–Bahl L/C included (advisory model, constants not yet verified)`, { source: 'garg-bahl-1978-step', subjects: [n.id], severity: 'info' }));
     }
   }
 
   for (const p of sized.pieces) {
     const a = endNode(p.id, p.a), b = endNode(p.id, p.b);
+    const custom = opts.lineModel;
+    const modelFor = custom ? (w: number) => custom(w, p) : defaultModelFor;
     switch (p.kind) {
       case 'line': {
         const [a1, b1] = padsAround(p, a, b, pads, elements, modelFor);

@@ -40,6 +40,8 @@ function everyCommand(d: DesignDoc): [string, Record<string, unknown>][] {
     ['board.setOutline', { outline: null }],
     ['phaseGroup.set', { id: 'outputs', toleranceDeg: 3 }],
     ['view.set', { units: 'mil' }],
+    ['design.setTargets', { targets: [{ id: 'match', figure: 'return-loss', ports: ['in'], band: { start: 5.7e9, stop: 5.9e9 }, limit: { min: 12 } }] }],
+    ['design.setTolerances', { tolerances: [{ quantity: 'er', distribution: 'normal', spread: 0.05, scope: 'board' }] }],
   ];
 }
 
