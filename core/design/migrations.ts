@@ -7,6 +7,8 @@
  * - 1: the first slice of the app wrote only `{ format, version, name }`.
  * - 2: the full document of core/design/types.ts (substrate, frequency, process, nodes, segments, board, areas,
  *      phase groups).
+ * - 3: `junctions`: tees and width steps sized and swept with their published models ('modelled') or joined at
+ *      the centre ('ideal').
  */
 type Json = Record<string, unknown>;
 
@@ -36,6 +38,15 @@ export const MIGRATIONS: readonly Migration[] = [
         areas: doc.areas ?? [],
         phaseGroups: doc.phaseGroups ?? [],
       };
+    },
+  },
+  {
+    from: 2,
+    summary: 'junctions: tees (Hammerstad 1981) and width steps (Garg–Bahl 1978) are now modelled — tee arms are lengthened by their reference-plane shifts; set junctions to "ideal" to size as before',
+    up(doc) {
+      // Literal value on purpose (see the first migration). Version 2 sized every junction as ideal; the upgraded file
+      // asks for the published models, which size the arms so their electrical lengths are what the file asks for.
+      return { ...doc, version: 3, junctions: doc.junctions ?? 'modelled' };
     },
   },
 ];

@@ -164,6 +164,9 @@ export const phaseGroupSchema = v.looseObject({
 const list = <T extends v.GenericSchema>(item: T, what: string, max: number) =>
   v.pipe(v.array(item, `a list of ${what}`), v.maxLength(max, `at most ${max} ${what}`));
 
+/** How junctions are treated (format 3): published models, or ideal for comparison. */
+export const junctionChoiceSchema = v.picklist(['modelled', 'ideal'], 'junctions "modelled" (published tee and step models) or "ideal" (arms joined at the centre)');
+
 export function designSchema(version: number) {
   return v.looseObject({
     format: v.literal(DESIGN_FORMAT, `"${DESIGN_FORMAT}"`),
@@ -179,6 +182,7 @@ export function designSchema(version: number) {
     board: v.nullable(v.looseObject({ outline: polygon('an outline') }, 'a board {outline} or null')),
     areas: list(areaSchema, 'areas', L.areas),
     phaseGroups: list(phaseGroupSchema, 'phase groups', L.phaseGroups),
+    junctions: v.optional(junctionChoiceSchema),
     view: v.optional(v.looseObject({
       units: v.optional(v.picklist(['mm', 'mil'], 'display units "mm" or "mil"')),
       grid: v.optional(LEN('a grid step', 0.1)),

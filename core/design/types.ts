@@ -64,6 +64,12 @@ export interface Area { id: string; kind: 'keep-out' | 'ground-copper'; polygon:
  */
 export interface PhaseGroup { id: string; name: string; from: string; to: string[]; toleranceDeg: number; offsetsDeg?: number[] }
 
+/**
+ * How junctions (tees, width steps) are treated: 'modelled' — the published models in sizing and the sweep (the
+ * default); 'ideal' — arms joined at the junction centre, kept to compare against.
+ */
+export type JunctionChoice = 'modelled' | 'ideal';
+
 export interface DesignDoc {
   format: typeof DESIGN_FORMAT;
   version: number;
@@ -79,6 +85,8 @@ export interface DesignDoc {
   board: { outline: Vec2[] } | null;
   areas: Area[];
   phaseGroups: PhaseGroup[];
+  /** Junction models (format 3); absent counts as 'modelled'. */
+  junctions?: JunctionChoice;
   /** Display preferences; never affect the physics. */
   view?: { units?: 'mm' | 'mil'; grid?: number };
   /** Fields this version does not know are kept here on load and written back on save. */

@@ -18,6 +18,7 @@ export * from './touchstoneWrite.ts';
 export * from './touchstoneRead.ts';
 export * from './sparamsPart.ts';
 export * from './lineTwoPort.ts';
-export { netlistFromSized, sweepRangeWarnings, type FromSizedOptions, type SizedNetlist, type AdvisoryModel } from './fromSized.ts';
+export { netlistFromSized, sweepRangeWarnings, type FromSizedOptions, type SizedNetlist } from './fromSized.ts';
+export { starAdmittance, type StarArm, type StarState } from './junctionStar.ts';
 export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';
 export { responseCacheKey } from './cacheKey.ts';
