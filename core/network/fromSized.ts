@@ -37,6 +37,11 @@ import { sparamsAdmittance } from './sparamsPart.ts';
 
 export interface FromSizedOptions {
   line?: LineOptions;
+  /**
+   * The constants of a line of a given copper width (default: core/line `lineConstants` on the design's substrate).
+   * For other line models, or for checks that must feed an outside library the very same values.
+   */
+  lineModel?: (width: number) => LineModel;
 }
 
 export interface SizedNetlist extends Netlist {
@@ -67,8 +72,9 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
     let m = models.get(width);
     if (!m) {
       let lastF = NaN, last: ReturnType<LineModel> | null = null;
+      const base = opts.lineModel?.(width);
       m = (f) => {
-        if (f !== lastF || !last) { last = lineConstants(sub, width, f, opts.line); lastF = f; }
+        if (f !== lastF || !last) { last = base ? base(f) : lineConstants(sub, width, f, opts.line); lastF = f; }
         return last;
       };
       models.set(width, m);
