@@ -28,7 +28,8 @@ describe('Hammerstad 1981 tee: against an independent transcription (parallel-pl
       // d1 and d2 pass through zero at high F; compare them on the scale of their guide widths.
       expect(Math.abs(ours.d2 - ref.d2) / ref.D1, `d2 ${z1}/${z2} f ${f}`).toBeLessThan(1e-11);
       expect(Math.abs(ours.d1 - ref.d1) / ref.D2, `d1 ${z1}/${z2} f ${f}`).toBeLessThan(1e-11);
-      expect(Math.abs(ours.n2 - ref.n2), `n² ${z1}/${z2} f ${f}`).toBeLessThan(1e-11);
+      // n² ≈ 0 far above fp1 (20 GHz on 1.6 mm): the two η0 values' last digits show there, hence 1e-9.
+      expect(Math.abs(ours.n2 - ref.n2), `n² ${z1}/${z2} f ${f}`).toBeLessThan(1e-9);
       n++;
     }
     expect(n).toBe(90);
