@@ -303,7 +303,7 @@ function notes(ws: Warning[]): string {
   if (info.length === 0) return '';
   const groups = new Map<string, string[]>();
   for (const w of info) {
-    const m = /^(tee|cross) (\S+): (.*)$/.exec(w.message);
+    const m = /^(tee|cross|junction|step) (\S+): (.*)$/.exec(w.message);
     const key = m ? `${m[1]}|${m[3]}` : `|${w.message}`;
     const list = groups.get(key) ?? [];
     if (m) list.push(m[2]);

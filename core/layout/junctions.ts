@@ -84,10 +84,10 @@ export function sizeTee(node: string, arms: TeeArmInput[], o: { h: number; f0: n
 
 /** A junction with no model at hand: reported on each arm, joined at its centre. */
 export function noJunctionModel(node: string, kind: 'cross' | 'other', armIds: string[]): { warning: Warning; compensation: Compensation } {
-  const what = kind === 'cross' ? 'cross (four arms)' : 'junction whose arms are not a T (two in line, one square to them)';
+  const what = kind === 'cross' ? 'a cross (four arms)' : 'arms not in a T (two in line, one square to them)';
   const validity = `${what}: no published model at hand; arms joined at the centre`;
   return {
-    warning: warn('advisory-model', `${node}: ${validity} — its effect is not in the sweep`, { subjects: [node, ...armIds], severity: 'info' }),
+    warning: warn('advisory-model', `${kind === 'cross' ? 'cross' : 'junction'} ${node}: ${validity}, so its effect is not in the sweep`, { subjects: [node, ...armIds], severity: 'info' }),
     compensation: { model: kind === 'cross' ? 'cross' : 'junction', source: 'none at hand', amount_m: 0, applied: false, node,
       note: `${validity}; the arm is measured from the centre`,
       junction: { kind, role: 'arm', modelled: false, inRange: false, validity, residual: null } },

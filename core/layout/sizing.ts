@@ -287,7 +287,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
               note: modelled ? `width step: ${parts} in the sweep (Garg–Bahl fits); the step is not moved` : `width step: not in the sweep (${!inLine ? 'at a bend' : junctions === 'ideal' ? 'ideal junctions chosen' : 'outside the fits'})`,
               junction: { kind: 'step', role, modelled, inRange: inLine && st.cValid && st.lValid, validity, residual } });
           }
-          if (!modelled && junctions === 'modelled') sn.warnings.push(warn('advisory-model', `width step at ${n.id} is not in the sweep: ${validity}`, { source: 'garg-bahl-1978-step', subjects: [n.id], severity: 'info' }));
+          if (!modelled && junctions === 'modelled') sn.warnings.push(warn('advisory-model', `step ${n.id}: not in the sweep (${validity})`, { source: 'garg-bahl-1978-step', subjects: [n.id], severity: 'info' }));
         }
         if (turn < 1e-6 || n.kind !== 'vertex') break;
         const W = Math.min(W1, W2);
@@ -394,11 +394,11 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     const beta = pieceBeta(p);
     p.deg = (p.length * beta * 180) / Math.PI;
     p.effectiveDeg = (p.nominalLength * beta * 180) / Math.PI;
-    if (p.length > 0 && !(p.length - w.teeReserve > 0)) {
-      problem('too-short', `piece ${p.id} is ${mm(p.length)} mm of copper between junction centres, but its tees' reference planes reach ${mm(w.teeReserve)} mm into it, so no line is left between them; lengthen it or choose ideal junctions`, [p.id]);
-    } else if (!(p.length > 0)) {
+    if (!(p.length - w.teeReserve > 0)) {
+      // A modelled tee keeps its static plane shift of line inside the junction (teeReserve), so that much must remain.
       const list = p.compensations.filter((c) => c.applied && c.amount_m !== 0).map((c) => `${c.model} ${mm(c.amount_m)} mm at ${c.node}`).join(', ');
-      problem('too-short', `piece ${p.id} is ${mm(p.nominalLength)} mm long but its end corrections take ${mm(w.cut + w.pads)} mm (${list}); lengthen it (e.g. add 180° to a stub) or change its ends`, [p.id]);
+      const tee = w.teeReserve > 0 ? `, and ${mm(w.teeReserve)} mm stays inside the tee as its reference plane at low frequency` : '';
+      problem('too-short', `piece ${p.id} is ${mm(p.nominalLength)} mm long but its end corrections take ${mm(w.cut + w.pads + w.teeReserve)} mm (${list}${tee}); lengthen it (e.g. add 180° to a stub) or change its ends`, [p.id]);
     } else if (p.span - w.straightNeed < -1e-9) {
       problem('too-short', `piece ${p.id} spans ${mm(p.span)} mm but the bends at its ends need ${mm(w.straightNeed)} mm of straight run; lengthen it, use a smaller arc radius or a square bend`, [p.id]);
     }

@@ -154,7 +154,8 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
         r: (f) => viaGround({ h, drill: v.drill, count: v.count, f, rho, ...(v.plating !== undefined ? { plating: v.plating } : {}) }).R,
       });
     }
-    if (n.cross) warnings.push(warn('advisory-model', `cross ${n.id}: no cross-junction model at hand; arms are joined at the junction centre`, { subjects: [n.id], severity: 'info' }));
+    // What the sizing found no model for (crosses, junctions not in a T, steps at bends or outside their fits).
+    for (const w of n.warnings) if (w.code === 'advisory-model') warnings.push(w);
     if (n.tee && !n.tee.modelled) warnings.push(warn('note', `tee ${n.id}: ideal junction (chosen for comparison); arms are joined at the junction centre`, { source: TEE_SOURCE, subjects: [n.id], severity: 'info' }));
   }
   if (ports.length === 0) throw new InputError('singular-network', 'nodes', 'at least one port node in the design', 'none', 'add a port where the network is fed');
