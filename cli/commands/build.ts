@@ -14,7 +14,8 @@ import { sizeDesign } from '../../core/layout/sizing.ts';
 import { designPaths, tracePaths, type PathReport } from '../../core/layout/paths.ts';
 import type { Finding } from '../../core/layout/checks.ts';
 import { checkBoard } from '../../core/layout/board.ts';
-import type { SizedDesign } from '../../core/layout/types.ts';
+import type { JunctionInfo, SizedDesign } from '../../core/layout/types.ts';
+import type { JunctionChoice } from '../../core/design/types.ts';
 import { netlistFromSized } from '../../core/network/fromSized.ts';
 import { bandSweep, solveNetwork } from '../../core/network/sweep.ts';
 import { evaluateTargets, targetFrequencies, targetText, type TargetEvaluation } from '../../core/network/targets.ts';
@@ -33,6 +34,9 @@ Options:
   --loss-limit DB     loss budget per path, dB (default 1)
   --from PORT --to PORT[,PORT…]
                       report these paths (meant to match in phase) instead of the design's phase groups
+  --junctions modelled|ideal
+                      size tees and width steps with their published models, or as ideal junctions joined at
+                      the centre, for comparison (default: the design's own setting, else modelled)
 
 Exit status: 0 the design can be built as drawn; 1 it cannot (errors listed) or FILE is not a valid design;
 2 a bad command line.
@@ -57,15 +61,18 @@ export interface BuildReport {
   pieces: {
     id: string; kind: string; a: string; b: string; z0_ohm?: number; width_m?: number; width_b_m?: number;
     length_m: number; span_m: number; deg_at_f0: number; drawn_deg: number;
-    compensations: { model: string; source: string; amount_m: number; applied: boolean; node: string; note: string }[];
+    compensations: { model: string; source: string; amount_m: number; applied: boolean; node: string; note: string; junction?: JunctionInfo }[];
   }[];
+  /** The junction choice the design was sized with. */
+  junctions: JunctionChoice;
   /** Placed nodes with their discontinuity data (bends, ends, vias, tees). */
   nodes: {
     id: string; kind: string; x_m: number; y_m: number;
     bend?: { style: string; turn_deg: number; miter_fraction?: number; miter_leg_m?: number; arc_radius_m?: number; arc_tangent_m?: number };
     open_dl_m?: number; open_c_f?: number;
     via?: { count: number; drill_m: number; l_h: number; x_ohm: number; dl_m: number };
-    tee?: { main: string[]; branch: string; d1_m: number; d2_m: number; advisory: true };
+    tee?: { main: string[]; branch: string; d1_m: [number, number]; d2_m: number; n2: number; modelled: boolean };
+    step?: { wide: string; narrow: string; cs_f: number; ls_h: number; c_valid: boolean; l_valid: boolean; modelled: boolean };
   }[];
   paths: PathReport[];
   findings: Finding[];
@@ -82,6 +89,7 @@ export function buildReport(sized: SizedDesign, paths: PathReport[], findings: F
     ok: !findings.some((f) => f.severity === 'error'),
     design: sized.name,
     f0_hz: sized.f0,
+    junctions: sized.junctions,
     pieces: sized.pieces.map((p) => ({
       id: p.id, kind: p.kind, a: p.a, b: p.b,
       // A part or a data block has no line impedance or width: left out, never null.
@@ -98,7 +106,8 @@ export function buildReport(sized: SizedDesign, paths: PathReport[], findings: F
       } } : {}),
       ...(n.open ? { open_dl_m: n.open.dl, open_c_f: n.open.capacitance } : {}),
       ...(n.via ? { via: { count: n.via.count, drill_m: n.via.drill, l_h: n.via.L, x_ohm: n.via.X, dl_m: n.via.dlEquivalent } } : {}),
-      ...(n.tee ? { tee: { main: [...n.tee.main], branch: n.tee.branch, d1_m: n.tee.planes.d1, d2_m: n.tee.planes.d2, advisory: true as const } } : {}),
+      ...(n.tee ? { tee: { main: [...n.tee.main], branch: n.tee.branch, d1_m: [n.tee.atF0.d1[0], n.tee.atF0.d1[1]] as [number, number], d2_m: n.tee.atF0.d2, n2: n.tee.atF0.n2, modelled: n.tee.modelled } } : {}),
+      ...(n.step ? { step: { wide: n.step.wide, narrow: n.step.narrow, cs_f: n.step.Cs, ls_h: n.step.Ls, c_valid: n.step.cValid, l_valid: n.step.lValid, modelled: n.step.modelled } } : {}),
     })),
     paths, findings, warnings,
   };
@@ -114,7 +123,7 @@ function text(rep: BuildReport): string[] {
   out.push(`${rep.design} — sized at ${(rep.f0_hz / 1e9).toFixed(4)} GHz`, '');
   const rows: string[][] = [['piece', 'kind', 'Z0 Ω', 'W mm', 'L mm', 'deg', 'compensations (mm; * applied)']];
   for (const p of rep.pieces) {
-    const comps = p.compensations.filter((c) => c.amount_m !== 0 || !c.applied)
+    const comps = p.compensations.filter((c) => !c.junction && (c.amount_m !== 0 || !c.applied))
       .map((c) => `${c.model}${c.applied ? '*' : ''} ${mm(c.amount_m)}@${c.node}`).join(', ');
     const part = p.kind === 'lumped' || p.kind === 'sparams';
     rows.push([p.id, p.kind, p.z0_ohm === undefined || part ? '—' : p.z0_ohm.toFixed(2),
@@ -122,6 +131,7 @@ function text(rep: BuildReport): string[] {
       part ? `${mm(p.span_m)} span` : mm(p.length_m), part ? '—' : p.deg_at_f0.toFixed(1), comps]);
   }
   out.push(...table(rows));
+  out.push(...junctionTable(rep));
   const corners = rep.nodes.filter((n) => n.bend || n.open_dl_m !== undefined || n.via);
   if (corners.length) {
     out.push('', 'Corners and ends:');
@@ -171,6 +181,21 @@ function text(rep: BuildReport): string[] {
   return out;
 }
 
+/** Every junction as each piece meets it: model, whether it is in the sweep, validity and what it leaves at f0. */
+function junctionTable(rep: BuildReport): string[] {
+  const rows: string[][] = [['piece', 'at', 'junction', 'role', 'shift mm', 'in sweep', 'residual at f0', 'validity']];
+  for (const p of rep.pieces) {
+    for (const c of p.compensations) {
+      const j = c.junction;
+      if (!j) continue;
+      const res = j.residual ? `${j.residual.phaseDeg.toFixed(2)}°, ${j.residual.reflectionDb <= -399 ? '—' : `${j.residual.reflectionDb.toFixed(1)} dB`}` : 'not estimated';
+      rows.push([p.id, c.node, `${j.kind} (${c.source.split(',')[0]})`, j.role, c.model === 'tee-planes' ? mm(-c.amount_m) : '—', j.modelled ? 'yes' : 'no (ideal)', res, `${j.inRange ? '' : 'OUT: '}${j.validity}`]);
+    }
+  }
+  if (rows.length === 1) return [];
+  return ['', `Junctions (${rep.junctions}; shift = reference plane from the junction centre, residual = phase and reflection the lengths leave):`, ...table(rows)];
+}
+
 export const buildCommand: CliCommand = {
   name: 'build',
   summary: 'Size a design, lay out its copper, report paths and phase, and check it for fabrication',
@@ -178,11 +203,13 @@ export const buildCommand: CliCommand = {
   async run(argv: string[], io: CliIo): Promise<number> {
     const { values, positionals } = parseArgs({
       args: argv, allowPositionals: true, strict: true,
-      options: { json: { type: 'boolean' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' } },
+      options: { json: { type: 'boolean' }, junctions: { type: 'string' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' } },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to build' : `give one design FILE, got ${positionals.length}`);
     const tolerance = number('tolerance', values.tolerance, 0, 180);
     const lossLimit = number('loss-limit', values['loss-limit'], 0, 1000);
+    const junctions = values.junctions?.toLowerCase();
+    if (junctions !== undefined && junctions !== 'modelled' && junctions !== 'ideal') throw new UsageError(`--junctions must be modelled or ideal, not '${values.junctions}'`);
     if ((values.from === undefined) !== (values.to === undefined)) throw new UsageError('give --from and --to together, e.g. --from in --to out1,out2');
     const toList = values.to?.split(',').map((x) => x.trim()).filter((x) => x !== '');
     if (toList && toList.length === 0) throw new UsageError('--to needs at least one port id');
@@ -198,7 +225,7 @@ export const buildCommand: CliCommand = {
     }
     try {
       await initPolygons();
-      const sized = sizeDesign(parsed.doc);
+      const sized = sizeDesign(parsed.doc, junctions ? { junctions } : {});
       const popts = tolerance !== undefined ? { toleranceDeg: tolerance } : {};
       // Sizing problems first (as the app does): with any, they are the findings, and no copper or paths are built.
       const paths = sized.problems.length ? [] : values.from !== undefined && toList ? [tracePaths(sized, values.from, toList, popts)] : designPaths(sized, popts);

@@ -11,7 +11,7 @@ import {
   InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
   readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
   phaseBalance, isolation, portIndex, compareResponses, MAX_POINTS,
-  type NetworkResponse, type TouchstoneData, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
+  type NetworkResponse, type TouchstoneData, type JunctionChoice, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { VERSION } from '../version.ts';
@@ -39,19 +39,22 @@ Output (default: a summary table — worst figures over the band and the values 
   --input PORT             port taken as the input for the figures (default: the layout's anchor port)
   --compare FILE.sNp       sweep at that file's frequencies and show how far the design is from it
                            (largest |ΔS|, Δ dB and Δ phase per S-parameter), e.g. a measured board
-  --advisory step          also model width steps with the Garg–Bahl L/C fit (not yet verified; off by default)
+  --junctions modelled|ideal
+                           tees (Hammerstad 1981) and width steps (Garg–Bahl 1978) as modelled, or ideal junctions
+                           joined at their centre, for comparison (default: the design's own setting, else modelled)
   --json                   one JSON object: frequencies, S as real and imaginary parts, derived figures
   --force                  replace an existing --out file
 
 Examples:
   stripwright sweep assets/examples/wilkinson-2g45.json
+  stripwright sweep assets/examples/branchline-10g4.json --junctions ideal
   stripwright sweep feed.json --from 5GHz --to 6.5GHz --points 301 --out feed.s5p
   stripwright sweep measured.s2p --json`;
 
 const OPTIONS = {
   from: { type: 'string' }, to: { type: 'string' }, points: { type: 'string' }, log: { type: 'boolean' },
   out: { type: 'string' }, format: { type: 'string' }, unit: { type: 'string' }, zref: { type: 'string' },
-  input: { type: 'string' }, json: { type: 'boolean' }, force: { type: 'boolean' }, advisory: { type: 'string', multiple: true }, compare: { type: 'string' }, touchstone: { type: 'string' },
+  input: { type: 'string' }, json: { type: 'boolean' }, force: { type: 'boolean' }, junctions: { type: 'string' }, compare: { type: 'string' }, touchstone: { type: 'string' },
 } as const;
 
 function choice<T extends string>(flag: string, v: string | undefined, allowed: readonly T[]): T | undefined {
@@ -93,8 +96,7 @@ export const sweepCommand: CliCommand = {
       points = Number(values.points);
       if (!Number.isInteger(points) || points < 1 || points > MAX_POINTS) throw new UsageError(`--points must be a whole number from 1 to ${MAX_POINTS}, not '${values.points}'`);
     }
-    const advisory = (values.advisory ?? []).flatMap((a) => a.split(',')).map((a) => a.trim().toLowerCase()).filter(Boolean);
-    for (const a of advisory) if (a !== 'step') throw new UsageError(`--advisory takes 'step' (the only advisory model in the network), not '${a}'`);
+    const junctions = choice<JunctionChoice>('junctions', values.junctions, ['modelled', 'ideal']);
     if ((format || unit || tsVersion || zref !== undefined || values.force) && !values.out) throw new UsageError('--format, --unit, --touchstone, --zref and --force apply to the Touchstone file: add --out FILE.sNp');
 
     const file = resolve(io.cwd, positionals[0]);
@@ -115,7 +117,7 @@ export const sweepCommand: CliCommand = {
     try {
       const loaded = /\.s\d+p$/i.test(file)
         ? loadTouchstone(text, file, { from, to, points, log: values.log })
-        : await loadDesign(text, positionals[0], { from, to, points, log: values.log, advisory: advisory as 'step'[], freqs: measured?.freqs }, io);
+        : await loadDesign(text, positionals[0], { from, to, points, log: values.log, junctions, freqs: measured?.freqs }, io);
       if (!loaded) return 1;
       const r = loaded.response;
       const input = values.input !== undefined ? portIndex(r, values.input, '--input') : loaded.input;
@@ -150,7 +152,7 @@ export const sweepCommand: CliCommand = {
   },
 };
 
-interface SweepFlags { from?: number; to?: number; points?: number; log?: boolean; advisory?: 'step'[]; freqs?: Float64Array }
+interface SweepFlags { from?: number; to?: number; points?: number; log?: boolean; junctions?: JunctionChoice | undefined; freqs?: Float64Array }
 
 function settingsFor(band: { start: number; stop: number }, f0: number | undefined, s: SweepFlags): SweepSettings {
   let start = s.from ?? band.start, stop = s.to ?? band.stop;
@@ -167,8 +169,8 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
     return null;
   }
   const doc = parsed.doc;
-  const sized = sizeDesign(doc);
-  const net = netlistFromSized(sized, { advisory: s.advisory ?? [] });
+  const sized = sizeDesign(doc, s.junctions ? { junctions: s.junctions } : {});
+  const net = netlistFromSized(sized);
   const settings: SweepSettings | Float64Array = s.freqs ?? settingsFor(doc.frequency.band, doc.frequency.f0, s);
   let lastShown = -1;
   const tty = Boolean((process.stderr as { isTTY?: boolean }).isTTY);
@@ -181,7 +183,7 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
     },
     yieldTo: () => new Promise<void>((r) => setImmediate(r)),
   });
-  const range = sweepRangeWarnings(sized, response.freqs[response.freqs.length - 1], { advisory: s.advisory ?? [] });
+  const range = sweepRangeWarnings(sized, response.freqs[response.freqs.length - 1]);
   return { name: doc.name, f0: doc.frequency.f0, response, input: net.input, warnings: [...parsed.warnings, ...sized.warnings, ...net.warnings, ...range], from: 'design' };
 }
 
@@ -302,7 +304,7 @@ function notes(ws: Warning[]): string {
   if (info.length === 0) return '';
   const groups = new Map<string, string[]>();
   for (const w of info) {
-    const m = /^(tee|cross) (\S+): (.*)$/.exec(w.message);
+    const m = /^(tee|cross|junction|step) (\S+): (.*)$/.exec(w.message);
     const key = m ? `${m[1]}|${m[3]}` : `|${w.message}`;
     const list = groups.get(key) ?? [];
     if (m) list.push(m[2]);

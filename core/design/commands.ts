@@ -11,8 +11,8 @@
 import * as v from 'valibot';
 import { InputError, describe } from '../util/errors.ts';
 import type { Vec2 } from '../geometry/types.ts';
-import type { Area, DesignDoc, DesignNode, DesignSegment, FabProcess, NodeSpec, PhaseGroup, SegmentSpec } from './types.ts';
-import { areaSchema, frequencySchema, nodeSchema, phaseGroupSchema, processSchema, segmentSchema, substrateSchema, vec2Schema } from './schema.ts';
+import type { Area, DesignDoc, DesignNode, DesignSegment, FabProcess, JunctionChoice, NodeSpec, PhaseGroup, SegmentSpec } from './types.ts';
+import { areaSchema, frequencySchema, junctionChoiceSchema, nodeSchema, phaseGroupSchema, processSchema, segmentSchema, substrateSchema, vec2Schema } from './schema.ts';
 import { DESIGN_LIMITS } from './limits.ts';
 import { crossCheck, DEGREE } from './crossref.ts';
 import {
@@ -316,6 +316,13 @@ const setProcess: DesignCommand = {
   },
 };
 
+const setJunctions: DesignCommand = {
+  id: 'design.setJunctions', label: 'Change junction models',
+  run(doc, a) {
+    return { ...doc, junctions: checkWith(junctionChoiceSchema, a.junctions, 'args.junctions') as JunctionChoice };
+  },
+};
+
 const setInfo: DesignCommand = {
   id: 'design.setInfo', label: 'Rename',
   run(doc, a) {
@@ -460,7 +467,7 @@ const viewSet: DesignCommand = {
 /** Every command, by id. */
 export const DESIGN_COMMANDS: ReadonlyMap<string, DesignCommand> = new Map(
   [nodeAdd, nodeMove, nodeSetSpec, segmentAdd, segmentSetSpec, selectionDelete, selectionTranslate, selectionRotate, selectionMirror,
-    selectionPaste, setSubstrate, setFrequency, setProcess, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
+    selectionPaste, setSubstrate, setFrequency, setProcess, setJunctions, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
     phaseGroupSet, viewSet, setTargets, setTolerances].map((c) => [c.id, c]),
 );
 

@@ -9,6 +9,8 @@
  *      phase groups).
  * - 3: targets (requirements on the response over a band) and tolerances (how a made board may differ), both
  *      empty lists in an upgraded file.
+ * - 4: `junctions`: tees and width steps sized and swept with their published models ('modelled') or joined at
+ *      the centre ('ideal').
  */
 type Json = Record<string, unknown>;
 
@@ -46,6 +48,16 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Nothing was required of the response before; an empty list keeps every upgraded design passing as it did.
       return { ...doc, version: 3, targets: doc.targets ?? [], tolerances: doc.tolerances ?? [] };
+    },
+  },
+  {
+    from: 3,
+    summary: 'junctions: tees (Hammerstad 1981) and width steps (Garg–Bahl 1978) are now modelled — tee arms are lengthened by their reference-plane shifts; set junctions to "ideal" to size as before',
+    up(doc) {
+      // Literal value on purpose (see the first migration). Earlier versions sized every junction as ideal; the
+      // upgraded file asks for the published models, which size the arms so their electrical lengths are what the
+      // file asks for.
+      return { ...doc, version: 4, junctions: doc.junctions ?? 'modelled' };
     },
   },
 ];

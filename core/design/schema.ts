@@ -175,6 +175,9 @@ export const phaseGroupSchema = v.looseObject({
 const list = <T extends v.GenericSchema>(item: T, what: string, max: number) =>
   v.pipe(v.array(item, `a list of ${what}`), v.maxLength(max, `at most ${max} ${what}`));
 
+/** How junctions are treated (format 4): published models, or ideal for comparison. */
+export const junctionChoiceSchema = v.picklist(['modelled', 'ideal'], 'junctions "modelled" (published tee and step models) or "ideal" (arms joined at the centre)');
+
 export function designSchema(version: number) {
   return v.looseObject({
     format: v.literal(DESIGN_FORMAT, `"${DESIGN_FORMAT}"`),
@@ -192,6 +195,7 @@ export function designSchema(version: number) {
     phaseGroups: list(phaseGroupSchema, 'phase groups', L.phaseGroups),
     targets: targetsSchema,
     tolerances: tolerancesSchema,
+    junctions: v.optional(junctionChoiceSchema),
     view: v.optional(v.looseObject({
       units: v.optional(v.picklist(['mm', 'mil'], 'display units "mm" or "mil"')),
       grid: v.optional(LEN('a grid step', 0.1)),

@@ -66,6 +66,12 @@ export interface Area { id: string; kind: 'keep-out' | 'ground-copper'; polygon:
  */
 export interface PhaseGroup { id: string; name: string; from: string; to: string[]; toleranceDeg: number; offsetsDeg?: number[] }
 
+/**
+ * How junctions (tees, width steps) are treated: 'modelled' — the published models in sizing and the sweep (the
+ * default); 'ideal' — arms joined at the junction centre, kept to compare against.
+ */
+export type JunctionChoice = 'modelled' | 'ideal';
+
 export interface DesignDoc {
   format: typeof DESIGN_FORMAT;
   version: number;
@@ -85,6 +91,8 @@ export interface DesignDoc {
   targets: Target[];
   /** How the made board may differ from the drawing (format 3; core/design/targets.ts). */
   tolerances: Tolerance[];
+  /** Junction models (format 4); absent counts as 'modelled'. */
+  junctions?: JunctionChoice;
   /** Display preferences; never affect the physics. */
   view?: { units?: 'mm' | 'mil'; grid?: number };
   /** Fields this version does not know are kept here on load and written back on save. */

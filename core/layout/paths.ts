@@ -6,7 +6,8 @@
  * (practice.md need 7: default ±5°).
  *
  * Electrical length: Σ β(f)·l over the pieces' line lengths, where each piece's pad copper (launch or part pads at
- * its ends) is counted at the piece's own β; junctions count to their centre (tee planes are advisory); lumped parts
+ * its ends) is counted at the piece's own β; a modelled tee's arms count from its reference planes (the shifts at
+ * f0, the copper beyond them belongs to the junction), ideal junctions to their centre; lumped parts
  * and S-parameter blocks add no line length and are listed.
  *
  * Sensitivities (methods.md §10.1): S_x^φ = (x/φ)(∂φ/∂x) for x ∈ {εr, h, W} by central differences of the full line
@@ -143,10 +144,17 @@ export function pathLength(p: SizedPiece): number {
 
 type PhaseFn = (p: SizedPiece, f: number, cache: LineCache, widthScale: number) => number;
 
+/** Copper a modelled tee takes into the junction at the piece's ends (its applied plane shifts), m. */
+function teeShifts(p: SizedPiece): number {
+  let d = 0;
+  for (const c of p.compensations) if (c.applied && c.model === 'tee-planes') d -= c.amount_m;
+  return d;
+}
+
 /** Electrical length of a piece's path copper, radians. */
 const piecePhase: PhaseFn = (p, f, cache, k) => {
   if (p.kind === 'lumped' || p.kind === 'sparams') return 0;
-  const L = pathLength(p);
+  const L = pathLength(p) - teeShifts(p);
   if (p.sections && p.sections.length) {
     const scale = L / p.sections.reduce((s, x) => s + x.length, 0);
     let ph = 0;

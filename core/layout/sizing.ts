@@ -13,10 +13,14 @@
  *                   corner-to-corner span grown so the path keeps its electrical length;
  *     lumped pads   the line's own copper stops at the pad edge (the pad carries the rest of the path);
  *     launch pads   likewise at an edge launch;
- *     tee planes    Hammerstad 1981 reference-plane shifts, ADVISORY (methods.md §6.3 VERIFY): shown, not applied.
+ *     tee planes    Hammerstad 1981 reference-plane shifts at f0 (static line values): each arm's copper is drawn
+ *                   that much longer, so its electrical length runs from plane to plane as asked (junctions
+ *                   'modelled'); with 'ideal' junctions the shifts are only reported;
+ *     width step    Garg–Bahl 1978 L/C, for the network only (no length change), each part within its fit range;
+ *     cross, other  junctions with no model (four arms, or three not in a T): joined at the centre, reported.
  * Impossible requests become LayoutProblems naming pieces (or an InputError('impossible-layout') with `strict`).
  */
-import type { DesignDoc, DesignNode, DesignSegment, WidthSpec } from '../design/types.ts';
+import type { DesignDoc, DesignNode, DesignSegment, JunctionChoice, WidthSpec } from '../design/types.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import type { LineOptions, LineResult } from '../line/index.ts';
 import { lengthForDegrees } from '../line/index.ts';
@@ -25,8 +29,9 @@ import { warn, type Warning } from '../util/warnings.ts';
 import { openEndExtension, openEndCapacitance, OPEN_END_SOURCE, OPEN_END_CITATION } from '../discontinuity/kirschningJansenKoster1981OpenEnd.ts';
 import { miterCut, MITER_CITATION } from '../discontinuity/douvilleJames1978Miter.ts';
 import { viaGround, viaEquivalentLength, VIA_CITATION } from '../discontinuity/goldfarbPucel1991Via.ts';
-import { teeReferencePlanes, TEE_CITATION } from '../discontinuity/hammerstad1981TeeJunction.ts';
-import { widthStep } from '../discontinuity/gargBahl1978Step.ts';
+import { widthStep, STEP_CITATION } from '../discontinuity/gargBahl1978Step.ts';
+import { stepResidual } from '../discontinuity/junctionResidual.ts';
+import { sizeTee, noJunctionModel } from './junctions.ts';
 import { arcBend, ARC_BEND_SOURCE } from '../discontinuity/curvedBend.ts';
 import { klopfensteinProfile } from './klopfenstein1956Taper.ts';
 import { LineCache, figures } from './lineCache.ts';
@@ -41,6 +46,8 @@ export interface SizeOptions {
   strict?: boolean;
   /** Reuse a line cache across calls on the same substrate (faces re-size on every edit). */
   cache?: LineCache;
+  /** Junction choice, overriding the design's own (the CLI's --junctions). */
+  junctions?: JunctionChoice;
 }
 
 /** Largest turn a square or mitered corner may make (the miter fit's own limit), rad. */
@@ -71,6 +78,8 @@ interface Work {
   arcExtra: number;
   /** Straight run the ends need (arc tangents, miter intrusions), m. */
   straightNeed: number;
+  /** Σ of the static (f → 0, largest) tee plane shifts at its ends, which the network's line must keep, m. */
+  teeReserve: number;
   ok: boolean;
 }
 
@@ -80,6 +89,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   if (!Array.isArray(doc.nodes) || !Array.isArray(doc.segments)) throw new InputError('invalid-design', 'nodes', 'lists of nodes and segments', describe(doc.nodes));
   const subs = doc.substrate;
   if (!subs || typeof subs !== 'object') throw new InputError('invalid-design', 'substrate', 'a substrate (er, h, t, tanDelta, sigma, roughness)', describe(subs));
+  const junctions: JunctionChoice = opts.junctions ?? doc.junctions ?? 'modelled';
   const band = doc.frequency.band && doc.frequency.band.stop >= doc.frequency.band.start ? doc.frequency.band : { start: f0, stop: f0 };
   // A face passes its cache back on every edit; it is reused while the substrate's numbers are unchanged.
   const cache = opts.cache && opts.cache.fits(subs, opts.line) ? opts.cache : new LineCache(subs, opts.line);
@@ -152,7 +162,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
       line: null, compensations: [], warnings: [],
     };
     if (seg.label !== undefined) piece.label = seg.label;
-    const w: Work = { seg, piece, endA: null, endB: null, cut: 0, pads: 0, arcExtra: 0, straightNeed: 0, ok: true };
+    const w: Work = { seg, piece, endA: null, endB: null, cut: 0, pads: 0, arcExtra: 0, straightNeed: 0, teeReserve: 0, ok: true };
     works.push(w); workById.set(seg.id, w);
     const field = `segments[${i}]`;
     if (!nodeById.has(seg.a) || !nodeById.has(seg.b) || seg.a === seg.b) { w.ok = false; return; } // reported above
@@ -267,9 +277,23 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
         if (lineish && Math.abs(W1 - W2) > 1e-9 * Math.max(W1, W2)) {
           const wide = W1 > W2 ? { w: w1, e: e1! } : { w: w2, e: e2! };
           const nar = W1 > W2 ? { w: w2, e: e2! } : { w: w1, e: e1! };
-          const st = widthStep({ W1: wide.e.width, W2: nar.e.width, h, er, z1: wide.e.r.z0, z2: nar.e.r.z0, ee1: wide.e.r.epsEffStatic, ee2: nar.e.r.epsEffStatic });
-          sn.step = { ...st, wide: wide.w.seg.id, narrow: nar.w.seg.id, advisory: true };
-          sn.warnings.push(warn('advisory-model', `width step at ${n.id}: Cs ≈ ${(st.Cs * 1e15).toFixed(1)} fF, Ls ≈ ${(st.Ls * 1e12).toFixed(1)} pH (Garg–Bahl fits, shown for the network, not used to move the step)`, { source: 'garg-bahl-1978-step', subjects: [n.id], severity: 'info' }));
+          const st = widthStep({ W1: wide.e.width, W2: nar.e.width, h, er, z1: wide.e.r.z0Static, z2: nar.e.r.z0Static, ee1: wide.e.r.epsEffStatic, ee2: nar.e.r.epsEffStatic });
+          // The fits are for an in-line step; at a bend the corner dominates and no model is at hand.
+          const inLine = turn < Math.PI / 180;
+          const modelled = junctions === 'modelled' && inLine && (st.cValid || st.lValid);
+          sn.step = { ...st, wide: wide.w.seg.id, narrow: nar.w.seg.id, modelled };
+          pushWarnings(sn.warnings, st.warnings, n.id);
+          const parts = [st.lValid ? `L ${(st.Ls * 1e12).toFixed(1)} pH` : '', st.cValid ? `C ${(st.Cs * 1e15).toFixed(1)} fF` : ''].filter(Boolean).join(' and ');
+          const validity = !inLine ? `a ${deg(turn)}° bend with a width change: outside the in-line step fits, not modelled`
+            : st.cValid && st.lValid ? `W1/W2 = ${(wide.e.width / nar.e.width).toFixed(2)}, εr ${er}: inside both fits`
+            : `W1/W2 = ${(wide.e.width / nar.e.width).toFixed(2)}, εr ${er}: ${parts ? `only ${parts} inside ${st.lValid ? 'its' : 'its'} fit` : 'outside both fits'}; the rest is left out`;
+          const residual = stepResidual({ L1: st.lValid ? st.L1 : 0, L2: st.lValid ? st.L2 : 0, C: st.cValid ? st.Cs : 0, z1: wide.e.r.z0, z2: nar.e.r.z0, w: 2 * Math.PI * f0 });
+          for (const [x, role] of [[wide, 'wide'], [nar, 'narrow']] as const) {
+            comp(x.w, { model: 'width-step', source: STEP_CITATION, amount_m: 0, applied: modelled, node: n.id,
+              note: modelled ? `width step: ${parts} in the sweep (Garg–Bahl fits); the step is not moved` : `width step: not in the sweep (${!inLine ? 'at a bend' : junctions === 'ideal' ? 'ideal junctions chosen' : 'outside the fits'})`,
+              junction: { kind: 'step', role, modelled, inRange: inLine && st.cValid && st.lValid, validity, residual } });
+          }
+          if (!modelled && junctions === 'modelled') sn.warnings.push(warn('advisory-model', `step ${n.id}: not in the sweep (${validity})`, { source: 'garg-bahl-1978-step', subjects: [n.id], severity: 'info' }));
         }
         if (turn < 1e-6 || n.kind !== 'vertex') break;
         const W = Math.min(W1, W2);
@@ -321,26 +345,21 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
         break;
       }
       case 'junction': {
-        if (segs.length === 3 && segs.every(isLine)) {
-          // Main line = the most nearly opposite pair of arms; the third is the branch.
-          let best: [number, number] = [0, 1], bestDot = Infinity;
-          for (let i = 0; i < 3; i++) for (let j = i + 1; j < 3; j++) {
-            const d = dot(dirFrom(n.id, segs[i]!.seg)!, dirFrom(n.id, segs[j]!.seg)!);
-            if (d < bestDot) { bestDot = d; best = [i, j]; }
+        const arms = segs.filter(isLine);
+        if (segs.length === 3 && segs.every((w) => w.seg.kind === 'line')) {
+          const r = sizeTee(n.id, segs.map((w) => ({ id: w.seg.id, dir: dirFrom(n.id, w.seg)!, end: endOf(w, n.id)!.r })), { h, f0, junctions });
+          if (r.tee) sn.tee = r.tee;
+          pushWarnings(sn.warnings, r.warnings, n.id);
+          for (const a of r.arms) {
+            const w = workById.get(a.id)!;
+            comp(w, a.compensation);
+            if (a.compensation.applied) { w.cut += a.compensation.amount_m; w.teeReserve += a.reserve; }
           }
-          const bi = [0, 1, 2].find((k) => k !== best[0] && k !== best[1])!;
-          const m1 = segs[best[0]]!, m2 = segs[best[1]]!, br = segs[bi]!;
-          const em = endOf(m1, n.id)!, eb = endOf(br, n.id)!;
-          const planes = teeReferencePlanes({ z1: em.r.z0Static, z2: eb.r.z0Static, ee1: em.r.epsEffStatic, ee2: eb.r.epsEffStatic, h, f: f0 });
-          sn.tee = { main: [m1.seg.id, m2.seg.id], branch: br.seg.id, planes, advisory: true };
-          for (const w of [m1, m2]) comp(w, { model: 'tee-planes', source: TEE_CITATION, amount_m: planes.d1, applied: false, node: n.id,
-            note: `main-arm reference plane ${mm(planes.d1)} mm from the branch centreline (advisory: methods.md §6.3 is not verified against the paper, so the arm is measured from the junction centre)` });
-          comp(br, { model: 'tee-planes', source: TEE_CITATION, amount_m: planes.d2, applied: false, node: n.id,
-            note: `branch reference plane ${mm(planes.d2)} mm from the main-line centreline, transformer n² = ${planes.n2.toFixed(4)} (advisory, not applied)` });
-          if (Math.abs(bestDot + 1) > 1e-3) sn.warnings.push(warn('validity', `the arms of tee ${n.id} are not at right angles and in line; the tee model assumes a straight main line with a perpendicular branch`, { source: 'hammerstad-1981-tee', subjects: [n.id], severity: 'info' }));
-        } else if (segs.length === 4) {
-          sn.cross = { arms: segs.map((w) => w.seg.id) };
-          sn.warnings.push(warn('advisory-model', `no cross-junction model is applied at ${n.id}; its arms are measured from the junction centre`, { subjects: [n.id], severity: 'info' }));
+        } else if (arms.length >= 3 || segs.length === 4) {
+          const r = noJunctionModel(n.id, segs.length === 4 ? 'cross' : 'other', arms.map((w) => w.seg.id));
+          if (segs.length === 4) sn.cross = { arms: segs.map((w) => w.seg.id) };
+          sn.warnings.push(r.warning);
+          for (const w of arms) comp(w, { ...r.compensation });
         }
         break;
       }
@@ -381,9 +400,11 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     const beta = pieceBeta(p);
     p.deg = (p.length * beta * 180) / Math.PI;
     p.effectiveDeg = (p.nominalLength * beta * 180) / Math.PI;
-    if (!(p.length > 0)) {
+    if (!(p.length - w.teeReserve > 0)) {
+      // A modelled tee keeps its static plane shift of line inside the junction (teeReserve), so that much must remain.
       const list = p.compensations.filter((c) => c.applied && c.amount_m !== 0).map((c) => `${c.model} ${mm(c.amount_m)} mm at ${c.node}`).join(', ');
-      problem('too-short', `piece ${p.id} is ${mm(p.nominalLength)} mm long but its end corrections take ${mm(w.cut + w.pads)} mm (${list}); lengthen it (e.g. add 180° to a stub) or change its ends`, [p.id]);
+      const tee = w.teeReserve > 0 ? `, and ${mm(w.teeReserve)} mm stays inside the tee as its reference plane at low frequency` : '';
+      problem('too-short', `piece ${p.id} is ${mm(p.nominalLength)} mm long but its end corrections take ${mm(w.cut + w.pads + w.teeReserve)} mm (${list}${tee}); lengthen it (e.g. add 180° to a stub) or change its ends`, [p.id]);
     } else if (p.span - w.straightNeed < -1e-9) {
       problem('too-short', `piece ${p.id} spans ${mm(p.span)} mm but the bends at its ends need ${mm(w.straightNeed)} mm of straight run; lengthen it, use a smaller arc radius or a square bend`, [p.id]);
     }
@@ -404,7 +425,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     const p = problems[0]!;
     throw new InputError('impossible-layout', p.subjects[0] ? `segments.${p.subjects[0]}` : 'design', 'a layout that can be realised', p.message);
   }
-  return { name: doc.name, f0, band, pieces, nodes: sizedNodes, centrelines, anchor: placed, problems, warnings, doc };
+  return { name: doc.name, f0, junctions, band, pieces, nodes: sizedNodes, centrelines, anchor: placed, problems, warnings, doc };
 }
 
 /**

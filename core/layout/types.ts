@@ -9,21 +9,27 @@
  *   carry `sections` (piecewise-uniform approximation, a → b). Lumped parts carry `part` (value and footprint).
  *   S-parameter blocks carry `sparams` (the Touchstone text from the design).
  * - `nodes`: one per design node, with the discontinuity data a network needs at that node: an open end's
- *   capacitance, a via's L and R at f0 (and the via geometry, to recompute R across the band), a tee's advisory
- *   reference-plane data, a width step's advisory L/C, a port's reference impedance.
+ *   capacitance, a via's L and R at f0 (and the via geometry, to recompute R across the band), a tee's arms (their
+ *   static Z and εeff, for the reference planes and turns ratio at every frequency) and whether it is modelled, a
+ *   width step's L/C and which parts of it hold, a port's reference impedance.
+ * - `junctions`: the design's junction choice as sized ('modelled': published models in sizing and network;
+ *   'ideal': arms joined at the junction centre, for comparison).
  */
 import type { Vec2 } from '../geometry/types.ts';
-import type { BendStyle, SmdSize, ViaSpec } from '../design/types.ts';
+import type { BendStyle, JunctionChoice, SmdSize, ViaSpec } from '../design/types.ts';
 import type { Warning } from '../util/warnings.ts';
 import type { MiterCut } from '../discontinuity/douvilleJames1978Miter.ts';
-import type { TeePlanes } from '../discontinuity/hammerstad1981TeeJunction.ts';
+import type { TeeArm, TeeJunction } from '../discontinuity/hammerstad1981TeeJunction.ts';
 import type { StepModel } from '../discontinuity/gargBahl1978Step.ts';
 
 export type PieceKind = 'line' | 'taper' | 'lumped' | 'sparams';
 
 /** One correction to a piece's length, reported whether applied or only shown. */
 export interface Compensation {
-  /** What kind of correction: 'open-end', 'via', 'arc-bend', 'miter-bend', 'tee-planes', 'lumped-pad', 'launch-pad'. */
+  /**
+   * What kind of correction: 'open-end', 'via', 'arc-bend', 'miter-bend', 'tee-planes', 'width-step', 'cross',
+   * 'junction', 'lumped-pad', 'launch-pad'.
+   */
   model: string;
   /** Citation or 'common practice'. */
   source: string;
@@ -34,6 +40,26 @@ export interface Compensation {
   /** At which end node. */
   node: string;
   note: string;
+  /** For junctions (tees, steps, crosses): the model, its validity and what it leaves at f0. */
+  junction?: JunctionInfo;
+}
+
+/** How one junction is treated, as reported on each piece that meets it. */
+export interface JunctionInfo {
+  kind: 'tee' | 'step' | 'cross' | 'other';
+  /** This piece's place at the junction. */
+  role: 'main' | 'branch' | 'wide' | 'narrow' | 'arm';
+  /** The published model is in the sweep (and, for tees, in the sizing). False: ideal (joined at the centre). */
+  modelled: boolean;
+  /** Inside the model's validity (its fit ranges and our stated limits) at f0. */
+  inRange: boolean;
+  /** Validity in words. */
+  validity: string;
+  /**
+   * What the sized lengths do not take out, at f0: the extra transmission phase (degrees) and the reflection
+   * (|ΔS11| in dB against an ideal junction) — null where no model exists to estimate it (crosses).
+   */
+  residual: { phaseDeg: number; reflectionDb: number } | null;
 }
 
 /** Line figures at f0 (from the line model, core/line). */
@@ -124,9 +150,18 @@ export interface SizedNode {
     miter?: MiterCut;
     arc?: { radius: number; tangent: number; arcLength: number };
   };
-  /** Width step (advisory fit), when the pieces meeting at a vertex differ in width. Side 1 is the wide one. */
-  step?: StepModel & { wide: string; narrow: string; advisory: true };
-  tee?: { main: [string, string]; branch: string; planes: TeePlanes; advisory: true };
+  /**
+   * Width step, when the pieces meeting at a vertex differ in width. Side 1 is the wide one. `modelled`: its L/C go
+   * into the network (each part only where its fit holds: `cValid`, `lValid`); false at a bend (the fit is for an
+   * in-line step) or with ideal junctions.
+   */
+  step?: StepModel & { wide: string; narrow: string; modelled: boolean };
+  /**
+   * T-junction (three line pieces, two in line and a perpendicular branch). `arms` are the static Z0 and εeff the
+   * model takes (main arms in the order of `main`); `atF0` the model at f0; `modelled` whether the sizing moved the
+   * arms' reference planes and the network uses the model (else the arms join at the centre).
+   */
+  tee?: { main: [string, string]; branch: string; arms: { main: [TeeArm, TeeArm]; branch: TeeArm }; atF0: TeeJunction; modelled: boolean };
   cross?: { arms: string[] };
   open?: { dl: number; capacitance: number };
   via?: ViaSpec & { L: number; R: number; X: number; dlEquivalent: number };
@@ -143,6 +178,8 @@ export interface LayoutProblem {
 export interface SizedDesign {
   name: string;
   f0: number;
+  /** The junction choice the design was sized with. */
+  junctions: JunctionChoice;
   band: { start: number; stop: number };
   pieces: SizedPiece[];
   nodes: SizedNode[];

@@ -14,29 +14,34 @@
  *  - tapers: their piecewise-uniform sections in a chain;
  *  - 'sparams' parts: their Touchstone data, interpolated and stamped as an admittance matrix (sparamsPart.ts);
  *  - ports: their reference impedance at the port node.
- * Optional, off by default because their constants are not yet verified against the papers (methods.md §6.4 VERIFY,
- * shown, not applied): the Garg–Bahl width-step L/C (`advisory: ['step']`). Mitered and square bends add nothing
- * (methods.md §6.2: the path is measured through the corner; no closed form adopted); tee-junction plane shifts
- * (methods.md §6.3, VERIFY) are not modelled — a warning says so where a tee is present.
+ * Junctions (design setting `junctions`, default 'modelled'; 'ideal' joins every arm at the junction centre):
+ *  - tees (Hammerstad 1981, core/discontinuity/hammerstad1981TeeJunction.ts): each arm's line runs from its
+ *    reference plane, which moves with frequency (d1, d2 at every sweep frequency from the arms' static Z0 and
+ *    εeff), and the branch joins through the ideal transformer n(f); the junction susceptance is omitted. The
+ *    three arm ends and the transformer form one n-port (junctionStar.ts) that takes a short piece of each arm's
+ *    line; the layout already drew each arm's copper longer by its plane shift at f0;
+ *  - in-line width steps (Garg & Bahl 1978): L1 – Cs – L2 at the step, each part only where its fit holds.
+ * Crosses and junctions that are not a T have no model at hand: their arms join at the centre, a note says so.
+ * Mitered and square bends add nothing (methods.md §6.2: the path is measured through the corner; no closed form
+ * adopted).
  */
 import { InputError } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import { analyzeLine, lineConstants, type LineOptions } from '../line/index.ts';
 import { viaGround } from '../discontinuity/goldfarbPucel1991Via.ts';
+import { teeJunction, teeTurnsRatioSquared, TEE_SOURCE } from '../discontinuity/hammerstad1981TeeJunction.ts';
+import { starAdmittance } from './junctionStar.ts';
 import type { SizedDesign, SizedNode, SizedPiece } from '../layout/types.ts';
 import { GROUND, type LineModel, type NetElement, type NetPort, type Netlist } from './netlist.ts';
 import { sparamsAdmittance } from './sparamsPart.ts';
 
-export type AdvisoryModel = 'step';
-
 export interface FromSizedOptions {
   line?: LineOptions;
-  /** Advisory discontinuity models to include (default none). */
-  advisory?: AdvisoryModel[];
   /**
-   * The line model of a piece's copper of `width` (its own line, taper sections and pads); default: the line model
-   * on the design's substrate, memoised per width. The yield estimate (core/yield) passes tabulated models of a
-   * made board, whose pieces may sit on slightly different laminate.
+   * The line model of a piece's copper of `width` (its own line, taper sections, pads and its arm of a tee); default:
+   * the line model on the design's substrate, memoised per width. The yield estimate (core/yield) passes tabulated
+   * models of a made board, whose pieces may sit on slightly different laminate; checks that must feed an outside
+   * library the very same values pass their own.
    */
   lineModel?: (width: number, piece: SizedPiece) => LineModel;
 }
@@ -54,7 +59,6 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
       sized.problems.length > 1 ? `and ${sized.problems.length - 1} more problem(s)` : undefined);
   }
   const sub = sized.doc.substrate;
-  const advisory = new Set(opts.advisory ?? []);
   const warnings: Warning[] = [];
   const elements: NetElement[] = [];
   const nodes = new Map(sized.nodes.map((n) => [n.id, n]));
@@ -79,24 +83,27 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
     return m;
   };
 
-  // The network node a piece's end attaches to; a width step (advisory) moves the ends apart.
+  // The network node a piece's end attaches to; a width step or a tee moves the ends apart.
   const terminal = new Map<string, string>();
   const endNode = (piece: string, node: string) => terminal.get(`${piece}@${node}`) ?? node;
+  // Line taken off a piece's network length by the junction n-ports at its ends, m.
+  const trimmed = new Map<string, number>();
 
-  if (advisory.has('step')) {
-    for (const n of sized.nodes) {
-      if (!n.step) continue;
-      const w = `${n.id}~wide`, c = `${n.id}~step`, nn = `${n.id}~narrow`;
-      terminal.set(`${n.step.wide}@${n.id}`, w);
-      terminal.set(`${n.step.narrow}@${n.id}`, nn);
-      elements.push({ kind: 'inductor', id: `${n.id}:step-L1`, a: w, b: c, value: n.step.L1 });
-      elements.push({ kind: 'capacitor', id: `${n.id}:step-Cs`, a: c, b: GROUND, value: n.step.Cs });
-      elements.push({ kind: 'inductor', id: `${n.id}:step-L2`, a: c, b: nn, value: n.step.L2 });
-      // The step's nominal node still exists for anything else attached there (nothing, at a vertex): join it.
-      elements.push({ kind: 'line', id: `${n.id}:step-join`, a: n.id, b: c, length: 0, model: defaultModelFor(1e-3) });
-      warnings.push(warn('advisory-model', `width step at ${n.id}: Garg–Bahl L/C included (advisory model, constants not yet verified)`, { source: 'garg-bahl-1978-step', subjects: [n.id], severity: 'info' }));
-    }
+  for (const n of sized.nodes) {
+    if (!n.step || !n.step.modelled) continue;
+    const st = n.step;
+    const w = `${n.id}~wide`, c = `${n.id}~step`, nn = `${n.id}~narrow`;
+    terminal.set(`${st.wide}@${n.id}`, w);
+    terminal.set(`${st.narrow}@${n.id}`, nn);
+    elements.push({ kind: 'inductor', id: `${n.id}:step-L1`, a: w, b: c, value: st.lValid ? st.L1 : 0 });
+    if (st.cValid) elements.push({ kind: 'capacitor', id: `${n.id}:step-Cs`, a: c, b: GROUND, value: st.Cs });
+    elements.push({ kind: 'inductor', id: `${n.id}:step-L2`, a: c, b: nn, value: st.lValid ? st.L2 : 0 });
+    // The step's nominal node still exists for anything else attached there (nothing, at a vertex): join it.
+    elements.push({ kind: 'line', id: `${n.id}:step-join`, a: n.id, b: c, length: 0, model: defaultModelFor(1e-3) });
   }
+
+  const pieceModel = (p: SizedPiece): LineModel => (opts.lineModel ? opts.lineModel(p.width, p) : defaultModelFor(p.width));
+  teeElements(sized, pieces, pieceModel, terminal, trimmed, elements, warnings, sub.h);
 
   for (const p of sized.pieces) {
     const a = endNode(p.id, p.a), b = endNode(p.id, p.b);
@@ -105,7 +112,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
     switch (p.kind) {
       case 'line': {
         const [a1, b1] = padsAround(p, a, b, pads, elements, modelFor);
-        elements.push({ kind: 'line', id: p.id, a: a1, b: b1, length: p.length, model: modelFor(p.width) });
+        elements.push({ kind: 'line', id: p.id, a: a1, b: b1, length: Math.max(0, p.length - (trimmed.get(p.id) ?? 0)), model: modelFor(p.width) });
         break;
       }
       case 'taper': {
@@ -151,8 +158,9 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
         r: (f) => viaGround({ h, drill: v.drill, count: v.count, f, rho, ...(v.plating !== undefined ? { plating: v.plating } : {}) }).R,
       });
     }
-    if (n.cross) warnings.push(warn('advisory-model', `cross ${n.id}: no cross-junction model; arms are joined at the junction centre`, { subjects: [n.id], severity: 'info' }));
-    if (n.tee) warnings.push(warn('advisory-model', `tee ${n.id}: reference-plane shifts are not in the network (advisory model); arms are joined at the junction centre`, { source: 'hammerstad-1981-tee', subjects: [n.id], severity: 'info' }));
+    // What the sizing found no model for (crosses, junctions not in a T, steps at bends or outside their fits).
+    for (const w of n.warnings) if (w.code === 'advisory-model') warnings.push(w);
+    if (n.tee && !n.tee.modelled) warnings.push(warn('note', `tee ${n.id}: ideal junction (chosen for comparison); arms are joined at the junction centre`, { source: TEE_SOURCE, subjects: [n.id], severity: 'info' }));
   }
   if (ports.length === 0) throw new InputError('singular-network', 'nodes', 'at least one port node in the design', 'none', 'add a port where the network is fed');
   const input = Math.max(0, ports.findIndex((p) => p.node === sized.anchor));
@@ -217,4 +225,54 @@ interface PadContext {
   nodes: Map<string, SizedNode>;
   /** Width across the path of the widest part pad at a node (0 when none), m. */
   padAcross: (node: string) => number;
+}
+
+/**
+ * Each modelled tee as one n-port (junctionStar.ts) over its three arm ends. Arm k keeps a_k = s_k + m_k of its
+ * piece's line: s_k its largest (static, f → 0) plane shift, m_k a margin of min(W, a quarter of what the piece
+ * has left), so the n-port's arm line a_k − d_k(f) stays ≥ m_k > 0 at every frequency (d1 and d2 only shrink as f
+ * rises). The piece's own line element is shortened by a_k.
+ */
+function teeElements(
+  sized: SizedDesign, pieces: Map<string, SizedPiece>, pieceModel: (p: SizedPiece) => LineModel, terminal: Map<string, string>,
+  trimmed: Map<string, number>, elements: NetElement[], warnings: Warning[], h: number,
+): void {
+  const tees = sized.nodes.filter((n) => n.tee && n.tee.modelled);
+  const statics = new Map<string, number[]>();
+  const reserve = new Map<string, number>();
+  for (const n of tees) {
+    const t = n.tee!;
+    const z = teeJunction({ main: t.arms.main, branch: t.arms.branch, h, f: 0 });
+    const s = [Math.max(0, z.d1[0]), Math.max(0, z.d1[1]), Math.max(0, z.d2)];
+    statics.set(n.id, s);
+    [t.main[0], t.main[1], t.branch].forEach((id, k) => reserve.set(id, (reserve.get(id) ?? 0) + s[k]!));
+  }
+  for (const n of tees) {
+    const t = n.tee!;
+    const ids = [t.main[0], t.main[1], t.branch];
+    const s = statics.get(n.id)!;
+    const keep = ids.map((id, k) => {
+      const p = pieces.get(id)!;
+      const left = p.length - (reserve.get(id) ?? 0);
+      if (!(left > 0)) throw new InputError('impossible-layout', id, 'a piece longer than the reference-plane shifts of the tees at its ends', `${(p.length * 1e3).toFixed(3)} mm`, 'lengthen it or choose ideal junctions');
+      return s[k]! + Math.min(p.width, 0.25 * left);
+    });
+    const nodes = ids.map((id, k) => {
+      const inner = `${id}@${n.id}~tee`;
+      terminal.set(`${id}@${n.id}`, inner);
+      trimmed.set(id, (trimmed.get(id) ?? 0) + keep[k]!);
+      return inner;
+    });
+    const arms = ids.map((id) => ({ model: pieceModel(pieces.get(id)!) }));
+    const where = `nodes.${n.id}`;
+    elements.push({
+      kind: 'nport', id: `${n.id}:tee`, nodes,
+      y: (f) => {
+        const j = teeJunction({ main: t.arms.main, branch: t.arms.branch, h, f });
+        const n2 = teeTurnsRatioSquared(j, f, where);
+        return starAdmittance(arms, { lengths: [keep[0]! - j.d1[0], keep[1]! - j.d1[1], keep[2]! - j.d2], n: [1, 1, Math.sqrt(n2)] }, f);
+      },
+    });
+    warnings.push(warn('note', `tee ${n.id}: Hammerstad 1981 reference planes and branch transformer at every frequency; junction susceptance omitted`, { source: TEE_SOURCE, subjects: [n.id], severity: 'info' }));
+  }
 }

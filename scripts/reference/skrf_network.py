@@ -5,6 +5,7 @@ Input (JSON on stdin):
   {"freqs": [Hz...],
    "lines": [{"id", "a", "b", "length": m, "z0": [ohm per freq], "gamma": [[re, im] per freq]}],
    "resistors": [{"id", "a", "b", "value": ohm}],
+   "transformers": [{"id", "a", "b", "n": [per freq]}]   (optional; ideal, V_b = n V_a),
    "ports": [{"name", "node", "zRef": ohm}],
    "mode": "cascade" | "graph" | "grow", "repeat": N (optional, for timing)}
 "cascade": the lines form one chain from ports[0] to ports[1] and are joined with skrf's `**`.
@@ -13,6 +14,11 @@ joined with skrf.network.innerconnect ("graph": all side by side first; "grow": 
 skrf.network.connect, the usual way for large networks); scikit-rf inserts the impedance steps between pieces whose
 port impedances differ.
 Output: {"s": [[[[re, im] ...]]] (freq, i, j), "seconds": build+solve time of one run}.
+A line may give "lengths" (m, one per frequency) instead of "length": a line whose reference planes move with
+frequency (a tee's arms); it is built as a 1 m line of propagation constant gamma(f)*lengths(f), which is the same
+two-port. An ideal transformer (V_b = n V_a, I_b = -I_a / n) has, for equal real references, S11 = (1 - n^2)/(1 + n^2),
+S22 = -S11, S21 = S12 = 2n/(1 + n^2) (from its ABCD matrix [1/n, 0; 0, n], D. M. Pozar, Microwave Engineering,
+4th ed., Table 4.2).
 Lines use a real characteristic impedance (scikit-rf 0.15.4 labels a line with its media's port impedance, so
 the line's media gets z0 = Z0 = the given real value) and a complex gamma.
 Run: PATH="$(getconf PATH)" python3 scripts/reference/skrf_network.py < in.json
@@ -42,6 +48,10 @@ def build(spec):
     def line_net(ln):
         z0 = np.array(ln["z0"], dtype=float)
         gamma = np.array([complex(g[0], g[1]) for g in ln["gamma"]])
+        if "lengths" in ln:
+            gamma = gamma * np.array(ln["lengths"], dtype=float)
+            media = rf.media.DefinedGammaZ0(frequency=f, z0=z0, gamma=gamma, Z0=z0)
+            return media.line(1.0, "m", name=ln["id"])
         media = rf.media.DefinedGammaZ0(frequency=f, z0=z0, gamma=gamma, Z0=z0)
         return media.line(ln["length"], "m", name=ln["id"])
 
@@ -60,6 +70,13 @@ def build(spec):
     for r in spec.get("resistors", []):
         m50 = rf.media.DefinedGammaZ0(frequency=f, z0=50.0, Z0=50.0)
         nets.append((m50.resistor(r["value"], name=r["id"]), [r["a"], r["b"]]))
+    for t in spec.get("transformers", []):
+        n = np.array(t["n"], dtype=float)
+        sx = np.zeros((len(f), 2, 2), dtype=complex)
+        sx[:, 0, 0] = (1 - n ** 2) / (1 + n ** 2)
+        sx[:, 1, 1] = -(1 - n ** 2) / (1 + n ** 2)
+        sx[:, 0, 1] = sx[:, 1, 0] = 2 * n / (1 + n ** 2)
+        nets.append((rf.Network(frequency=f, s=sx, z0=50.0, name=t["id"]), [t["a"], t["b"]]))
     # Terminals per node, then one ideal junction per node (plus one terminal for a port there).
     degree = {}
     for _, nodes in nets:

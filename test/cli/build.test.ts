@@ -105,5 +105,25 @@ describe('stripwright build', () => {
     expect(r.stderr).toMatch(/--tolerance expects a number/);
     expect(cli(['build', join(EX, 'demo.json'), '--frobnicate']).code).toBe(2);
   });
+  it('reports every junction per piece (model, in the sweep, validity, residual) and takes --junctions ideal|modelled', () => {
+    const file = join(EX, 'branchline-10g4.json');
+    const r = cli(['build', file]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/Junctions \(modelled;/);
+    expect(r.stdout).toMatch(/shunt1\s+j1\s+tee \(Hammerstad\)\s+branch\s+0\.\d{3}\s+yes\s+0\.00°, -\d+\.\d dB/);
+    const j = JSON.parse(cli(['build', file, '--json']).stdout);
+    expect(j.junctions).toBe('modelled');
+    const tee = j.pieces.find((p: { id: string }) => p.id === 'shunt1').compensations.filter((c: { model: string }) => c.model === 'tee-planes');
+    expect(tee).toHaveLength(2);
+    for (const c of tee) expect(c).toMatchObject({ applied: true, junction: { kind: 'tee', role: 'branch', modelled: true, inRange: true } });
+    expect(j.nodes.find((n: { id: string }) => n.id === 'j1').tee).toMatchObject({ branch: 'shunt1', modelled: true });
+    const ideal = JSON.parse(cli(['build', file, '--json', '--junctions', 'ideal']).stdout);
+    expect(ideal.junctions).toBe('ideal');
+    const shunt = (x: typeof j) => x.pieces.find((p: { id: string }) => p.id === 'shunt1');
+    // Modelled: the shunt arm's copper runs past both junction centres by its plane shift.
+    expect(shunt(j).span_m - shunt(ideal).span_m).toBeCloseTo(-2 * tee[0].amount_m, 9);
+    const bad = cli(['build', file, '--junctions', 'sometimes']);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/--junctions must be modelled or ideal/);
+  });
 });
-

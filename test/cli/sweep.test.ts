@@ -17,6 +17,14 @@ const WILK = join(ROOT, 'assets', 'examples', 'wilkinson-2g45.json');
 const dir = mkdtempSync(join(tmpdir(), 'sw-sweep-'));
 
 describe('stripwright sweep', () => {
+  it('--junctions ideal sweeps with the arms joined at the junction centres, for comparison', () => {
+    const file = join(ROOT, 'assets', 'examples', 'open-stub-match.json');
+    const a = JSON.parse(cli(['sweep', file, '--points', '3', '--json']).stdout);
+    const b = JSON.parse(cli(['sweep', file, '--points', '3', '--json', '--junctions', 'ideal']).stdout);
+    expect(a.s.re[1][0][0]).not.toBe(b.s.re[1][0][0]);
+    expect(b.warnings.some((w: { message: string }) => /ideal junction/.test(w.message))).toBe(true);
+    expect(cli(['sweep', file, '--junctions', 'no']).code).toBe(2);
+  });
   it('prints a summary: worst figures over the band and the values at f0', () => {
     const r = cli(['sweep', WILK]);
     expect(r.code).toBe(0);
@@ -24,8 +32,8 @@ describe('stripwright sweep', () => {
     expect(r.stdout).toMatch(/Worst over the band/);
     expect(r.stdout).toMatch(/At 2\.45 GHz \(f0\)/);
     expect(r.stdout).toMatch(/o1\/o2/);
-    // What the model leaves out is said, not hidden (the tee model is advisory, methods.md §6.3).
-    expect(r.stdout).toMatch(/Notes\n  tee j: reference-plane shifts are not in the network/);
+    // What the model leaves out is said, not hidden: the split is Y-shaped, and no published model is at hand for it.
+    expect(r.stdout).toMatch(/Notes\n  junction j: arms not in a T .*no published model at hand/);
   });
   it('--json holds the frequencies, S as re/im and the figures, equal to the core solved in-process', () => {
     const r = cli(['sweep', WILK, '--from', '2.3GHz', '--to', '2.6GHz', '--points', '31', '--json']);

@@ -51,7 +51,8 @@ describe('compensations', () => {
     segments: [line('in', 'p', 't', wd(1.1122e-3), lenOf(0.01)), line('out', 't', 'q', wd(1.1122e-3), lenOf(0.01)), line('stub', 't', endNode.id, wd(1.1122e-3), degs(deg))],
   });
   it('open stub drawn Δl = 0.2174 mm short (KJK 1981, methods.md §6.1 checked example) and its far node moves in', () => {
-    const s = sizeDesign(stub(open('e', 0.01, 0.02)));
+    // Ideal junctions here, so the open end is the only correction on the stub (the tee's is tested below).
+    const s = sizeDesign(stub(open('e', 0.01, 0.02)), { junctions: 'ideal' });
     const p = s.pieces.find((x) => x.id === 'stub')!;
     const oe = p.compensations.find((c) => c.model === 'open-end')!;
     expect(oe.applied).toBe(true);
@@ -71,14 +72,63 @@ describe('compensations', () => {
     expect(Math.abs(c.amount_m - want) / want).toBeLessThan(2e-3);
     expect(s.nodes.find((n) => n.id === 'e')!.via!.L * 1e12).toBeCloseTo(65.1, 1);
   });
-  it('the tee planes are computed and shown, never applied (methods.md §6.3 VERIFY)', () => {
+  it('tee planes (Hammerstad 1981) lengthen each arm by its shift, so its electrical length counts from the plane; a symmetric split gets equal shifts', () => {
     const s = sizeDesign(stub(open('e', 0.01, 0.02)));
-    const tees = s.pieces.flatMap((p) => p.compensations.filter((c) => c.model === 'tee-planes'));
-    expect(tees).toHaveLength(3);
-    expect(tees.every((c) => !c.applied)).toBe(true);
+    expect(s.junctions).toBe('modelled');
+    const shift = (id: string) => s.pieces.find((p) => p.id === id)!.compensations.find((c) => c.model === 'tee-planes')!;
+    for (const id of ['in', 'out', 'stub']) {
+      expect(shift(id).applied).toBe(true);
+      expect(shift(id).junction).toMatchObject({ kind: 'tee', modelled: true, inRange: true });
+    }
     const t = s.nodes.find((n) => n.id === 't')!.tee!;
     expect(t.branch).toBe('stub');
-    expect(t.planes.d1 * 1e3).toBeCloseTo(0.124, 2); // methods.md §6.3 unchecked-form example at 2.45 GHz
+    expect(t.main).toEqual(['in', 'out']);
+    // Equal main arms: equal shifts (the paper's d1 for both), lengthening the copper (negative amount).
+    expect(shift('in').amount_m).toBe(shift('out').amount_m);
+    expect(-shift('in').amount_m).toBeCloseTo(t.atF0.d1[0], 15);
+    expect(-shift('stub').amount_m).toBeCloseTo(t.atF0.d2, 15);
+    // Fixed-length main arm: 10 mm plane to plane, so 10 mm + d1 of copper from the junction centre.
+    const inArm = s.pieces.find((p) => p.id === 'in')!;
+    expect(inArm.span).toBeCloseTo(0.01 + t.atF0.d1[0], 12);
+    // Stub: 90° from the branch plane, minus the open end, plus d2.
+    const stubP = s.pieces.find((p) => p.id === 'stub')!;
+    const dl = stubP.compensations.find((c) => c.model === 'open-end')!.amount_m;
+    expect(stubP.span).toBeCloseTo(stubP.nominalLength - dl + t.atF0.d2, 12);
+    expect(stubP.effectiveDeg).toBeCloseTo(90, 9);
+    // Where the planes lie (the model's geometry): the main planes just past the branch centreline, well inside the
+    // branch's parallel-plate width; the branch plane inside the main line's parallel-plate width, short of its edge.
+    expect(t.atF0.d1[0]).toBeGreaterThan(0);
+    expect(t.atF0.d1[0]).toBeLessThan(t.atF0.perArm[0].D2 / 2);
+    expect(t.atF0.d2).toBeGreaterThan(0);
+    expect(t.atF0.d2).toBeLessThan(t.atF0.perArm[0].D1 / 2);
+  });
+  it('ideal junctions: the same shifts reported, not applied, and the arms measured from the centre', () => {
+    const doc = { ...stub(open('e', 0.01, 0.02)), junctions: 'ideal' as const };
+    const s = sizeDesign(doc);
+    expect(s.junctions).toBe('ideal');
+    const tees = s.pieces.flatMap((p) => p.compensations.filter((c) => c.model === 'tee-planes'));
+    expect(tees).toHaveLength(3);
+    expect(tees.every((c) => !c.applied && c.junction!.modelled === false)).toBe(true);
+    // What ideal junctions leave: the ignored shift as phase, −β·d.
+    const inArm = s.pieces.find((p) => p.id === 'in')!;
+    const c = inArm.compensations.find((x) => x.model === 'tee-planes')!;
+    expect(c.junction!.residual!.phaseDeg).toBeCloseTo((c.amount_m * inArm.line!.beta * 180) / Math.PI, 12);
+    expect(inArm.span).toBeCloseTo(0.01, 12);
+    // The option overrides the design's own setting.
+    expect(sizeDesign(doc, { junctions: 'modelled' }).pieces.find((p) => p.id === 'in')!.span).toBeGreaterThan(0.01);
+  });
+  it('a Y-shaped split (arms not in a T) and a cross have no model: joined at the centre and reported as such', () => {
+    const y = design({
+      nodes: [port('p', 0, 0), junction('t', 0.01, 0), port('q', 0.02, 0.01), port('r', 0.02, -0.01)],
+      segments: [line('in', 'p', 't', wd(1.1122e-3), lenOf(0.01)), line('a', 't', 'q', wd(1.1122e-3), lenOf(0.01)), line('b', 't', 'r', wd(1.1122e-3), lenOf(0.01))],
+    });
+    const s = sizeDesign(y);
+    expect(s.nodes.find((n) => n.id === 't')!.tee).toBeUndefined();
+    for (const p of s.pieces) {
+      const c = p.compensations.find((x) => x.junction)!;
+      expect(c.junction).toMatchObject({ kind: 'other', modelled: false, inRange: false, residual: null });
+      expect(p.span).toBeCloseTo(0.01, 12);
+    }
   });
   it('mitered bends keep the path length through the corner point; arcs keep it via the centreline arc', () => {
     const mk = (bend: any) => design({
@@ -130,10 +180,11 @@ describe('impossible requests are errors that name the pieces', () => {
     expect(p.message).toMatch(/open-end/);
   });
   it('a loop whose fixed lengths cannot close names every piece of the loop; a drawn piece closes it', () => {
-    const mk = (closer: any) => design({
+    // Ideal junctions: the loop's sides are exactly their fixed lengths.
+    const mk = (closer: any) => ({ ...design({
       nodes: [port('p', -0.005, 0), junction('a', 0, 0), vertex('b', 0.01, 0, { style: 'square' }), vertex('c', 0.01, 0.01, { style: 'square' }), junction('d', 0, 0.01), port('q', -0.005, 0.01)],
       segments: [line('in', 'p', 'a', z(50), lenOf(0.005)), line('ab', 'a', 'b', z(50), lenOf(0.01)), line('bc', 'b', 'c', z(50), lenOf(0.01)), line('cd', 'c', 'd', z(50), lenOf(0.01)), line('da', 'd', 'a', z(50), closer), line('out', 'd', 'q', z(50), lenOf(0.005))],
-    });
+    }), junctions: 'ideal' as const });
     const bad = sizeDesign(mk(lenOf(0.012)));
     const lp = bad.problems.find((p) => p.code === 'loop-mismatch')!;
     expect(new Set(lp.subjects)).toEqual(new Set(['ab', 'bc', 'cd', 'da']));

@@ -86,6 +86,7 @@ describe('responseCacheKey', () => {
     expect(responseCacheKey({ ...doc, name: 'b', notes: 'x', view: { units: 'mil' } }, s)).toBe(k);
     expect(responseCacheKey({ ...doc, substrate: { ...doc.substrate, er: doc.substrate.er + 0.01 } }, s)).not.toBe(k);
     expect(responseCacheKey(doc, { ...s, points: 12 })).not.toBe(k);
-    expect(responseCacheKey(doc, s, { advisory: ['step'] })).not.toBe(k);
+    expect(responseCacheKey(doc, s, { line: { dispersion: 'hammerstad-jensen' } })).not.toBe(k);
+    expect(responseCacheKey({ ...doc, junctions: 'ideal' }, s)).not.toBe(k);
   });
 });
