@@ -167,7 +167,7 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
   }
   const doc = parsed.doc;
   const sized = sizeDesign(doc);
-  const net = netlistFromSized(sized, { advisory: s.advisory ?? [] });
+  const net = netlistFromSized(sized, { advisory: s.advisory ?? [], ...(sized.lineOptions ? { line: sized.lineOptions } : {}) });
   const settings: SweepSettings | Float64Array = s.freqs ?? settingsFor(doc.frequency.band, doc.frequency.f0, s);
   let lastShown = -1;
   const tty = Boolean((process.stderr as { isTTY?: boolean }).isTTY);
@@ -180,7 +180,7 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
     },
     yieldTo: () => new Promise<void>((r) => setImmediate(r)),
   });
-  const range = sweepRangeWarnings(sized, response.freqs[response.freqs.length - 1], { advisory: s.advisory ?? [] });
+  const range = sweepRangeWarnings(sized, response.freqs[response.freqs.length - 1], { advisory: s.advisory ?? [], ...(sized.lineOptions ? { line: sized.lineOptions } : {}) });
   return { name: doc.name, f0: doc.frequency.f0, response, input: net.input, warnings: [...parsed.warnings, ...sized.warnings, ...net.warnings, ...range], from: 'design' };
 }
 

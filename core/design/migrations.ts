@@ -7,6 +7,7 @@
  * - 1: the first slice of the app wrote only `{ format, version, name }`.
  * - 2: the full document of core/design/types.ts (substrate, frequency, process, nodes, segments, board, areas,
  *      phase groups).
+ * - 3: `asMade` (how lines are sized for what is made); files written before it keep plain microstrip sizing.
  */
 type Json = Record<string, unknown>;
 
@@ -36,6 +37,14 @@ export const MIGRATIONS: readonly Migration[] = [
         areas: doc.areas ?? [],
         phaseGroups: doc.phaseGroups ?? [],
       };
+    },
+  },
+  {
+    from: 2,
+    summary: 'added asMade: lines stay sized as plain microstrip (as before), side copper stitched; choose "as-made" sizing to size milled lines from their cross-section',
+    up(doc) {
+      // Keep what the file sized before: an older design's boards were cut from microstrip widths.
+      return { ...doc, version: 3, asMade: doc.asMade ?? { sizing: 'microstrip', sideCopper: 'stitched' } };
     },
   },
 ];

@@ -18,3 +18,5 @@ export { checkFabrication, cutWidth, referenceGroundShiftPct, untoolableCopper, 
 export type { Finding, FindingCode, CheckOptions } from './checks.ts';
 export { placeDesign } from './place.ts';
 export type { PlacedDesign } from './place.ts';
+export { asMadeTemplate, asMadeLineOptions } from './as-made.ts';
+export { fencePitchLimit, fenceFindings } from './fence-check.ts';
