@@ -204,7 +204,12 @@ export function solveSection(spec: SectionSpec, opts: SolveOptions = {}): Sectio
     const ca = richardson(mv.ca[n - 2]!, mv.ca[n - 1]!, order);
     const z0 = 1 / (C0 * Math.sqrt(c.value * ca.value));
     const epsEff = c.value / ca.value;
-    const error = { c: c.rel, cAir: ca.rel, z0: (c.rel + ca.rel) / 2, epsEff: c.rel + ca.rel };
+    // Z0 and εeff carry the Richardson estimate of their own level-to-level change (the errors of C and Ca come
+    // from the same grid and partly cancel in the ratio).
+    const z = (cc: number, aa: number) => 1 / (C0 * Math.sqrt(cc * aa));
+    const ez = richardson(z(mv.c[n - 2]!, mv.ca[n - 2]!), z(mv.c[n - 1]!, mv.ca[n - 1]!), order);
+    const ee = richardson(mv.c[n - 2]! / mv.ca[n - 2]!, mv.c[n - 1]! / mv.ca[n - 1]!, order);
+    const error = { c: c.rel, cAir: ca.rel, z0: ez.rel, epsEff: ee.rel };
     if (error.z0 > 0.005) warnings.push(warn('validity', `the ${mv.mode} mode's Z0 is uncertain by about ${(error.z0 * 100).toFixed(2)} % on this grid; ask for a finer grid`, { source: 'section-solver' }));
     return { mode: mv.mode, c: c.value, cAir: ca.value, l: 1 / (C0 * C0 * ca.value), z0, epsEff, error, dLdn: dLdn[k]!, levels: { c: mv.c, cAir: mv.ca } };
   });
