@@ -7,6 +7,7 @@ export * from './util/warnings.ts';
 export * from './units/index.ts';
 export * from './substrate/index.ts';
 export * from './line/index.ts';
+export * from './section/index.ts';
 export * from './discontinuity/index.ts';
 export * from './geometry/index.ts';
 export * from './design/index.ts';

@@ -4,6 +4,7 @@ import { exportCommand } from './export.ts';
 import { buildCommand } from './build.ts';
 import { sweepCommand } from './sweep.ts';
 import { yieldCommand } from './yield.ts';
+import { sectionCommand } from './section.ts';
 
 /** Every command of the CLI. Add a new command file and list it here. */
-export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand];
+export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand, sectionCommand];

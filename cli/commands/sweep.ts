@@ -170,7 +170,7 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
   }
   const doc = parsed.doc;
   const sized = sizeDesign(doc, s.junctions ? { junctions: s.junctions } : {});
-  const net = netlistFromSized(sized);
+  const net = netlistFromSized(sized, sized.lineOptions ? { line: sized.lineOptions } : {});
   const settings: SweepSettings | Float64Array = s.freqs ?? settingsFor(doc.frequency.band, doc.frequency.f0, s);
   let lastShown = -1;
   const tty = Boolean((process.stderr as { isTTY?: boolean }).isTTY);
@@ -183,7 +183,7 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
     },
     yieldTo: () => new Promise<void>((r) => setImmediate(r)),
   });
-  const range = sweepRangeWarnings(sized, response.freqs[response.freqs.length - 1]);
+  const range = sweepRangeWarnings(sized, response.freqs[response.freqs.length - 1], sized.lineOptions ? { line: sized.lineOptions } : {});
   return { name: doc.name, f0: doc.frequency.f0, response, input: net.input, warnings: [...parsed.warnings, ...sized.warnings, ...net.warnings, ...range], from: 'design' };
 }
 

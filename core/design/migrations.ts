@@ -11,6 +11,7 @@
  *      empty lists in an upgraded file.
  * - 4: `junctions`: tees and width steps sized and swept with their published models ('modelled') or joined at
  *      the centre ('ideal').
+ * - 5: `asMade` (how lines are sized for what is made); files written before it keep plain microstrip sizing.
  */
 type Json = Record<string, unknown>;
 
@@ -58,6 +59,14 @@ export const MIGRATIONS: readonly Migration[] = [
       // upgraded file asks for the published models, which size the arms so their electrical lengths are what the
       // file asks for.
       return { ...doc, version: 4, junctions: doc.junctions ?? 'modelled' };
+    },
+  },
+  {
+    from: 4,
+    summary: 'added asMade: lines stay sized as plain microstrip (as before), side copper stitched; choose "as-made" sizing to size milled lines from their cross-section',
+    up(doc) {
+      // Keep what the file sized before: an older design's boards were cut from microstrip widths.
+      return { ...doc, version: 5, asMade: doc.asMade ?? { sizing: 'microstrip', sideCopper: 'stitched' } };
     },
   },
 ];

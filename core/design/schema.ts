@@ -82,6 +82,17 @@ export const processSchema = v.variant('kind', [
   }),
 ], 'a process: kind "end-mill", "v-bit" or "etch"');
 
+/** How lines are sized for what is made (format 3): as the cross-section the process leaves, or as plain microstrip. */
+export const asMadeSchema = v.looseObject({
+  sizing: v.picklist(['as-made', 'microstrip'], 'a sizing "as-made" (the cross-section the process leaves) or "microstrip"'),
+  sideCopper: v.picklist(['stitched', 'floating'], 'side copper "stitched" (vias to the ground plane) or "floating"'),
+  cover: v.optional(v.looseObject({
+    er: num('a cover permittivity from 1 to 20', 1, 20),
+    thickness: num('a cover thickness in metres from 0 to 1 mm', 0, 1e-3),
+  }, 'a cover {er, thickness}')),
+  fencePitch: v.optional(num('a via-fence pitch in metres above 0 and up to 100 mm', 0, 0.1, { minExclusive: true })),
+}, 'an as-made setting {sizing, sideCopper, cover?, fencePitch?}');
+
 const bendSchema = v.variant('style', [
   v.looseObject({ style: v.literal('miter-optimal') }),
   v.looseObject({ style: v.literal('miter'), fraction: num('a miter fraction from 0 to 0.95', 0, 0.95) }),
@@ -188,6 +199,7 @@ export function designSchema(version: number) {
     substrate: substrateSchema,
     frequency: frequencySchema,
     process: processSchema,
+    asMade: v.optional(asMadeSchema),
     nodes: list(nodeSchema, 'nodes', L.nodes),
     segments: list(segmentSchema, 'segments', L.segments),
     board: v.nullable(v.looseObject({ outline: polygon('an outline') }, 'a board {outline} or null')),

@@ -24,6 +24,20 @@ export type FabProcess =
   | { kind: 'v-bit'; tipWidth: number; angleDeg: number; depth: number }
   | { kind: 'etch'; edgeBias: number; minFeature: number };
 
+/**
+ * How lines are sized for what is made (format 3). 'as-made': where the process (isolation milling) or ground copper
+ * with a set clearance puts copper beside the lines, they are sized from 2-D field solutions of that cross-section
+ * (core/section); 'microstrip': plain microstrip formulas. Absent = 'microstrip'. Side copper is 'stitched' to the
+ * ground plane by vias (the shop check gives the via-fence pitch) or 'floating'. `cover`: solder mask or conformal
+ * coat over the top (m); `fencePitch`: the via-fence pitch the maker will drill, m.
+ */
+export interface AsMade {
+  sizing: 'as-made' | 'microstrip';
+  sideCopper: 'stitched' | 'floating';
+  cover?: { er: number; thickness: number };
+  fencePitch?: number;
+}
+
 export type BendStyle =
   | { style: 'miter-optimal' }
   | { style: 'miter'; fraction: number }
@@ -82,6 +96,7 @@ export interface DesignDoc {
   substrate: SubstrateSpec;
   frequency: { f0: number; band: { start: number; stop: number } };
   process: FabProcess;
+  asMade?: AsMade;
   nodes: DesignNode[];
   segments: DesignSegment[];
   board: { outline: Vec2[] } | null;

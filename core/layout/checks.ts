@@ -24,11 +24,13 @@ import type { FabProcess } from '../design/types.ts';
 import { LineCache } from './lineCache.ts';
 import { designPaths, type PathReport } from './paths.ts';
 import { defaultGroundClearance } from './geometry.ts';
+import { fenceFindings } from './fence-check.ts';
+import { asMadeTemplate } from './as-made.ts';
 import type { SizedDesign, SizedPiece } from './types.ts';
 
 export type FindingCode =
   | 'layout' | 'min-width' | 'min-gap' | 'inside-corner' | 'depth-sensitivity' | 'ground-near' | 'off-board' | 'keep-out'
-  | 'overlap' | 'loss-budget' | 'lossy-laminate' | 'phase';
+  | 'overlap' | 'loss-budget' | 'lossy-laminate' | 'phase' | 'via-fence';
 
 export interface Finding {
   severity: 'error' | 'warning' | 'info';
@@ -357,7 +359,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
         fix: `keep ${mmS(5 * wBig)} mm if the board has room`,
       });
     }
-    if (c < 3 * h) {
+    if (c < 3 * h && !asMadeTemplate(doc)) { // lines sized as made already carry the side copper (as-made.ts)
       const ground = geometry.groundCopper;
       if (!ground.length || !geometry.copper.length) continue;
       // The copper lying within 3h of ground copper, found in one pass; then which pieces that copper belongs to.
@@ -386,6 +388,9 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
       });
     }
   }
+
+  // ---- side copper of lines sized as made: the via fence (fence-check.ts)
+  out.push(...fenceFindings(doc));
 
   // ---- copper off the board and in keep-outs
   if (geometry.outline) {

@@ -19,3 +19,5 @@ export { checkFabrication, problemFindings, cutWidth, referenceGroundShiftPct, u
 export type { Finding, FindingCode, CheckOptions } from './checks.ts';
 export { placeDesign } from './place.ts';
 export type { PlacedDesign } from './place.ts';
+export { asMadeTemplate, asMadeLineOptions } from './as-made.ts';
+export { fencePitchLimit, fenceFindings } from './fence-check.ts';

@@ -17,7 +17,7 @@ export class LineCache {
   }
 
   static keyOf(sub: SubstrateSpec, opts?: LineOptions): string {
-    return JSON.stringify([sub.er, sub.h, sub.t, sub.tanDelta, sub.sigma, sub.roughness, sub.dielectricModel ?? null, opts?.dispersion ?? null, opts?.conductorLoss ?? null]);
+    return JSON.stringify([sub.er, sub.h, sub.t, sub.tanDelta, sub.sigma, sub.roughness, sub.dielectricModel ?? null, opts?.dispersion ?? null, opts?.conductorLoss ?? null, opts?.crossSection?.key ?? null]);
   }
 
   /** True when this cache's results hold for `sub` with `opts` (same numbers, not necessarily the same object). */

@@ -35,6 +35,8 @@ import { sizeTee, noJunctionModel } from './junctions.ts';
 import { arcBend, ARC_BEND_SOURCE } from '../discontinuity/curvedBend.ts';
 import { klopfensteinProfile } from './klopfenstein1956Taper.ts';
 import { LineCache, figures } from './lineCache.ts';
+import { asMadeLineOptions } from './as-made.ts';
+import { plainShift } from './as-made-shift.ts';
 import { smdFootprint } from './footprints.ts';
 import { add, dot, len, mul, sub, unit, crossZ } from './copper.ts';
 import type { Compensation, LayoutProblem, SizedDesign, SizedNode, SizedPiece, TaperSection, SmdFootprint } from './types.ts';
@@ -91,8 +93,10 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   if (!subs || typeof subs !== 'object') throw new InputError('invalid-design', 'substrate', 'a substrate (er, h, t, tanDelta, sigma, roughness)', describe(subs));
   const junctions: JunctionChoice = opts.junctions ?? doc.junctions ?? 'modelled';
   const band = doc.frequency.band && doc.frequency.band.stop >= doc.frequency.band.start ? doc.frequency.band : { start: f0, stop: f0 };
+  // Lines sized as made (design asMade): the line options carry the cross-section tables (as-made.ts).
+  const lineOpts = asMadeLineOptions(doc, opts.line);
   // A face passes its cache back on every edit; it is reused while the substrate's numbers are unchanged.
-  const cache = opts.cache && opts.cache.fits(subs, opts.line) ? opts.cache : new LineCache(subs, opts.line);
+  const cache = opts.cache && opts.cache.fits(subs, lineOpts) ? opts.cache : new LineCache(subs, lineOpts);
   const problems: LayoutProblem[] = [];
   const warnings: Warning[] = [];
   const problem = (code: LayoutProblem['code'], message: string, subjects: string[]) => problems.push({ code, message, subjects });
@@ -174,6 +178,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     w.endB = { node: seg.b, width: rb.width, r: rb };
     piece.z0 = ra.z0; piece.width = ra.width;
     piece.line = figures(ra);
+    if (lineOpts?.crossSection) piece.asMade = plainShift(subs, ra, f0, opts.line, lineOpts.crossSection);
     if (seg.kind === 'taper') { piece.widthB = rb.width; piece.z0B = rb.z0; }
     pushWarnings(piece.warnings, ra.warnings, seg.id);
     if (rb !== ra) pushWarnings(piece.warnings, rb.warnings, seg.id);
@@ -425,7 +430,11 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     const p = problems[0]!;
     throw new InputError('impossible-layout', p.subjects[0] ? `segments.${p.subjects[0]}` : 'design', 'a layout that can be realised', p.message);
   }
-  return { name: doc.name, f0, junctions, band, pieces, nodes: sizedNodes, centrelines, anchor: placed, problems, warnings, doc };
+  const out: SizedDesign = { name: doc.name, f0, junctions, band, pieces, nodes: sizedNodes, centrelines, anchor: placed, problems, warnings, doc };
+  // Not enumerable: the options hold the cross-section tables (functions), and a sized design crosses postMessage
+  // and JSON as plain data; the network reads the property directly.
+  if (lineOpts) Object.defineProperty(out, 'lineOptions', { value: lineOpts, enumerable: false });
+  return out;
 }
 
 /**

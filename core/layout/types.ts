@@ -121,6 +121,8 @@ export interface SizedPiece {
   /** Electrical length the piece realises with its applied end corrections, degrees (the design's target). */
   effectiveDeg: number;
   line: LineFigures | null;
+  /** Sized from the as-made cross-section: the shift from plain microstrip (absent for plain microstrip sizing). */
+  asMade?: AsMadeShift;
   /** Taper: piecewise-uniform sections from a to b (≥ 20 per guided wavelength at the top of the band). */
   sections?: TaperSection[];
   /** Taper: copper widths at equally spaced points from a (first) to b (last), for the outline. */
@@ -191,4 +193,21 @@ export interface SizedDesign {
   warnings: Warning[];
   /** The design it came from (kept for geometry: areas, board, process). */
   doc: import('../design/types.ts').DesignDoc;
+  /** The line options the pieces were sized with (with the as-made cross-section tables, when any): pass them to
+   * the network (netlistFromSized(sized, { line: sized.lineOptions })) so the sweep uses the same lines. */
+  lineOptions?: import('../line/index.ts').LineOptions;
+}
+
+/** A line sized as made, beside what plain microstrip would give for the same copper width (at f0). */
+export interface AsMadeShift {
+  /** What the line was sized from, in words. */
+  label: string;
+  /** Plain microstrip Z0 and εeff of the same width at f0 (Ω; −). */
+  z0Plain: number;
+  epsEffPlain: number;
+  /** The as-made Z0 and εeff at f0. */
+  z0: number;
+  epsEff: number;
+  /** Estimated relative error of the field solution's Z0. */
+  z0Error: number;
 }

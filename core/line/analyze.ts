@@ -25,6 +25,7 @@ import { limits, thresholdLimits, thresholdsFor } from './mode-thresholds.ts';
 import { KJ1982_RANGE } from './kirschning-jansen-1982.ts';
 import { JK1983_RANGE } from './jansen-kirschning-1983.ts';
 import type { LineColumns, LineOptions, LineResult } from './types.ts';
+import { analyzeMadeLine } from './made-line.ts';
 
 /**
  * εr and tanδ at f for the substrate: the entered values, or the wideband Debye model when switched on (f = 0 →
@@ -164,6 +165,7 @@ function analyzeInto(sub: SubstrateSpec, a: { width: number; f: number }, disp: 
  * Throws InputError for invalid input; leaving a model's published range is a warning in the result.
  */
 export function analyzeLine(sub: SubstrateSpec, width: number, f: number, opts?: LineOptions): LineResult {
+  if (opts !== undefined && opts.crossSection !== undefined) return analyzeMadeLine(sub, width, f, opts.crossSection, opts);
   checkSubstrate(sub);
   checkWidth(width, sub.h);
   checkFrequency(f);
@@ -213,6 +215,7 @@ export function analyzeLines(sub: SubstrateSpec, widths: ArrayLike<number>, freq
   }
   const n = widths.length;
   const fAt = columnOf('freqs', freqs, n);
+  if (opts !== undefined && opts.crossSection !== undefined) return madeColumns(sub, widths, fAt, opts);
   for (let i = 0; i < n; i++) {
     try { checkWidth(widths[i], sub.h); checkFrequency(fAt(i)); } catch (e) { throw atEntry(e, i); }
   }
@@ -234,6 +237,25 @@ export function analyzeLines(sub: SubstrateSpec, widths: ArrayLike<number>, freq
       for (const warning of pending) cols.warnings.push({ index: i, warning });
       pending.length = 0;
     }
+  }
+  return cols;
+}
+
+/** analyzeLines for a line with a cross-section source: one analysis per entry (the source's tables are the cost). */
+function madeColumns(sub: SubstrateSpec, widths: ArrayLike<number>, fAt: (i: number) => number, opts: LineOptions): LineColumns {
+  const n = widths.length;
+  const col = () => new Float64Array(n);
+  const cols: LineColumns = {
+    width: Float64Array.from(widths), f: col(), z0: col(), z0Static: col(), epsEff: col(), epsEffStatic: col(), lambdaG: col(), vp: col(),
+    delayPerM: col(), alphaC: col(), alphaD: col(), skinDepth: col(), warnings: [],
+  };
+  for (let i = 0; i < n; i++) {
+    let x: LineResult;
+    try { x = analyzeLine(sub, widths[i]!, fAt(i), opts); } catch (e) { throw atEntry(e, i); }
+    cols.f[i] = x.f; cols.z0[i] = x.z0; cols.z0Static[i] = x.z0Static; cols.epsEff[i] = x.epsEff; cols.epsEffStatic[i] = x.epsEffStatic;
+    cols.lambdaG[i] = x.lambdaG; cols.vp[i] = x.vp; cols.delayPerM[i] = x.delayPerM; cols.alphaC[i] = x.alphaC; cols.alphaD[i] = x.alphaD;
+    cols.skinDepth[i] = x.skinDepth;
+    for (const warning of x.warnings) cols.warnings.push({ index: i, warning });
   }
   return cols;
 }

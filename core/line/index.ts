@@ -4,6 +4,7 @@
  */
 export type { LineOptions, LineResult, LineColumns, DispersionModel, ConductorLossModel } from './types.ts';
 export { DISPERSION_MODELS, CONDUCTOR_LOSS_MODELS } from './types.ts';
+export type { CrossSectionSource, CrossSectionStatics } from './cross-section.ts';
 export { analyzeLine, analyzeLines, dielectricAt } from './analyze.ts';
 export { synthesizeLine } from './synthesize.ts';
 export { lengthForDegrees, degreesForLength, groupDelayPerM } from './electrical-length.ts';

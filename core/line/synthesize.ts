@@ -13,6 +13,7 @@ import { hammerstad1975WidthRatio } from './closed-form-synthesis.ts';
 import { hjDeltaU1, hjDeltaUr } from './hammerstad-jensen-1980.ts';
 import { analyzeLine, dielectricAt } from './analyze.ts';
 import type { LineOptions, LineResult } from './types.ts';
+import { synthesizeMadeLine } from './made-line.ts';
 
 const X_LO = Math.log(U_MIN);
 const X_HI = Math.log(U_MAX);
@@ -25,6 +26,7 @@ const MAX_ITER = 100;
  * Example: synthesizeLine(glassEpoxy, 50, 0).width ≈ 1.5 mm for εr 4.4, h 0.79 mm.
  */
 export function synthesizeLine(sub: SubstrateSpec, z0: number, f: number, opts?: LineOptions): LineResult {
+  if (opts !== undefined && opts.crossSection !== undefined) return synthesizeMadeLine(sub, z0, f, opts.crossSection, opts);
   checkSubstrate(sub);
   checkFrequency(f);
   const disp = checkDispersion(opts);

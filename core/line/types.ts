@@ -1,6 +1,7 @@
 /** Options and results shared by every line model. SI units throughout. */
 import type { Warning } from '../util/warnings.ts';
 import type { ModeThresholds } from './mode-thresholds.ts';
+import type { CrossSectionSource } from './cross-section.ts';
 
 export type DispersionModel = 'kirschning-jansen' | 'hammerstad-jensen' | 'none';
 export type ConductorLossModel = 'wheeler-incremental' | 'current-distribution';
@@ -13,6 +14,11 @@ export interface LineOptions {
   dispersion?: DispersionModel;
   /** Conductor-loss model; default 'wheeler-incremental'. */
   conductorLoss?: ConductorLossModel;
+  /**
+   * The line as made (e.g. a 2-D field solution with side copper, core/section): its static values replace the
+   * microstrip formulas; dispersion and loss models above still apply (made-line.ts). Absent = plain microstrip.
+   */
+  crossSection?: CrossSectionSource;
 }
 
 export interface LineResult {

@@ -130,3 +130,19 @@ describe('v3 → v4 (junction models)', () => {
     expect(migrate({ format: 'stripwright-design', version: 3, name: 'x', junctions: 'ideal' }, 3).doc.junctions).toBe('ideal');
   });
 });
+
+describe('v4 → v5 (asMade)', () => {
+  it('an older file keeps plain microstrip sizing with stitched side copper, and keeps everything else', () => {
+    const text = readFileSync(join(FIX, 'v4', 'open-stub-with-junctions.json'), 'utf8');
+    const before = JSON.parse(text) as Record<string, unknown>;
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.doc.asMade).toEqual({ sizing: 'microstrip', sideCopper: 'stitched' });
+    expect(r.doc.segments).toEqual(before.segments);
+    expect(r.migrations).toEqual([4]);
+  });
+  it('a file that already says how it is sized keeps its choice', () => {
+    const up = MIGRATIONS.find((m) => m.from === 4)!.up;
+    expect(up({ version: 4, asMade: { sizing: 'as-made', sideCopper: 'floating' } }).asMade).toEqual({ sizing: 'as-made', sideCopper: 'floating' });
+  });
+});

@@ -6,7 +6,7 @@
 import type { DesignDoc } from '../../../core/design/types.ts';
 import type { BoardGeometry, DrillHit, Region } from '../../../core/geometry/types.ts';
 import { initPolygons } from '../../../core/geometry/index.ts';
-import { sizeDesign, LineCache, designPaths, boardGeometryOf, checkBoard, pieceOutlines, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
+import { sizeDesign, asMadeLineOptions, LineCache, designPaths, boardGeometryOf, checkBoard, pieceOutlines, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { Finding } from '../../../core/layout/checks.ts';
 import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
@@ -15,6 +15,7 @@ import { EXPORT_FILE_NAMES, toDxf, toSvg, toGerber, toExcellon, toMask, type Exp
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
+import { sectionJob, type SectionInput } from './section-job.ts';
 
 export interface LayoutInput { doc: DesignDoc; /** Also work out each path's phase sensitivity to εr, h and W (slower). */ sensitivities?: boolean }
 /**
@@ -50,8 +51,8 @@ function polygons(): Promise<void> {
 // One line cache per substrate and line-model choice: re-sizing on every keystroke then costs Map lookups.
 let cache: { key: string; cache: LineCache } | null = null;
 function lineCache(doc: DesignDoc): LineCache {
-  const key = JSON.stringify(doc.substrate);
-  if (!cache || cache.key !== key) cache = { key, cache: new LineCache(doc.substrate) };
+  const key = JSON.stringify([doc.substrate, doc.asMade ?? null, doc.asMade?.sizing === 'as-made' ? doc.process : null, doc.asMade?.sizing === 'as-made' ? doc.areas : null]);
+  if (!cache || cache.key !== key) cache = { key, cache: new LineCache(doc.substrate, asMadeLineOptions(doc)) };
   return cache.cache;
 }
 
@@ -62,6 +63,7 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
     case 'export': return exportJob(input as ExportInput);
     case 'check': return checkJob(input as LayoutInput);
     case 'response': return responseJob(input as ResponseInput, progress);
+    case 'section': return sectionJob(input as SectionInput);
     default: return exhaustive(kind, 'job');
   }
 }
@@ -165,7 +167,7 @@ export async function checkJob(input: LayoutInput): Promise<CheckOutput> {
 /** A sweep of the sized network over the band (and f0), chunked so progress reaches the editor. */
 export async function responseJob(input: ResponseInput, progress: (p: Progress) => void): Promise<ResponseOutput> {
   const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
-  const net = netlistFromSized(sized);
+  const net = netlistFromSized(sized, sized.lineOptions ? { line: sized.lineOptions } : {});
   const settings = bandSweep(input.doc.frequency.band, input.doc.frequency.f0, input.points ?? 201);
   const r: NetworkResponse = await sweepNetwork(net, settings, {
     onProgress: (done, total) => progress({ done, total, label: 'sweeping' }),
