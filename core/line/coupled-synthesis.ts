@@ -122,3 +122,15 @@ export function synthesizeCoupled(sub: SubstrateSpec, target: CoupledTarget, f: 
   }
   return analyzeCoupled(sub, sol.u * sub.h, sol.g * sub.h, f, opts);
 }
+
+/** What a coupled-pair question asks: a geometry to analyse, or a target to synthesise. */
+export type CoupledAsk = { width: number; spacing: number } | CoupledTarget;
+
+/**
+ * The one entry point the faces use for a coupled pair: analyses (W, s), or synthesises from (Z0e, Z0o) or from a
+ * coupling in dB and a system impedance, at f (Hz; 0 static).
+ */
+export function coupledLine(sub: SubstrateSpec, ask: CoupledAsk, f: number, opts?: CoupledOptions): CoupledResult {
+  if (ask !== null && typeof ask === 'object' && 'width' in ask) return analyzeCoupled(sub, ask.width, ask.spacing, f, opts);
+  return synthesizeCoupled(sub, ask, f, opts);
+}

@@ -23,6 +23,7 @@ export type { SubstratePreset } from '../substrate/index.ts';
 export type { CoupledOptions, CoupledResult, CoupledMode, CoupledTarget, CoupledDispersion } from './coupled-types.ts';
 export { COUPLED_DISPERSIONS } from './coupled-types.ts';
 export { analyzeCoupled, couplingFromModes, modesForCoupling, coupledInto, coupledNumbers, COUPLED_G_MIN, COUPLED_U_MIN } from './coupled.ts';
-export { synthesizeCoupled, couplingAtGap, targetModes } from './coupled-synthesis.ts';
+export { synthesizeCoupled, couplingAtGap, targetModes, coupledLine } from './coupled-synthesis.ts';
+export type { CoupledAsk } from './coupled-synthesis.ts';
 export { kjCoupledStatic, kjStatic, KJ1984_RANGE } from './kirschning-jansen-1984-coupled.ts';
 export { getsingerEpsEff } from './getsinger-1973-coupled-dispersion.ts';
