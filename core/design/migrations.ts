@@ -7,6 +7,7 @@
  * - 1: the first slice of the app wrote only `{ format, version, name }`.
  * - 2: the full document of core/design/types.ts (substrate, frequency, process, nodes, segments, board, areas,
  *      phase groups).
+ * - 3: segments may be coupled pairs (kind "coupled", four terminals a, b, c, d).
  */
 type Json = Record<string, unknown>;
 
@@ -36,6 +37,14 @@ export const MIGRATIONS: readonly Migration[] = [
         areas: doc.areas ?? [],
         phaseGroups: doc.phaseGroups ?? [],
       };
+    },
+  },
+  {
+    from: 2,
+    summary: 'the format now knows coupled pairs (segment kind "coupled" with four terminals); nothing in the file changed',
+    up(doc) {
+      // Purely additive: a version-2 file has no coupled pairs, so only the version moves.
+      return { ...doc, version: 3 };
     },
   },
 ];

@@ -86,13 +86,23 @@ export function coupledInto(sub: SubstrateSpec, width: number, spacing: number, 
 }
 
 /**
- * The frequency-independent part of an analysis, remembered for the last geometry (a sweep repeats it): static
- * mode values, and each mode's conductor loss over Rs (the single line's Wheeler loss at the same width and copper,
- * times the mode ratio of coupled-losses.ts and Z0single/Z0mode).
+ * The frequency-independent part of an analysis, remembered for the last few geometries (a sweep of a filter repeats
+ * each of its sections at every frequency): static mode values, and each mode's conductor loss over Rs (the single
+ * line's Wheeler loss at the same width and copper, times the mode ratio of coupled-losses.ts and Z0single/Z0mode).
  */
-const geo = { u: Number.NaN, g: Number.NaN, tn: Number.NaN, er: Number.NaN, z0E: 0.5, z0O: 0.5, eeE: 0.5, eeO: 0.5, kE: 0.5, kO: 0.5 };
+interface Geo { u: number; g: number; tn: number; er: number; z0E: number; z0O: number; eeE: number; eeO: number; kE: number; kO: number }
+const SLOTS = 16;
+const slots: Geo[] = Array.from({ length: SLOTS }, () => ({ u: Number.NaN, g: Number.NaN, tn: Number.NaN, er: Number.NaN, z0E: 0.5, z0O: 0.5, eeE: 0.5, eeO: 0.5, kE: 0.5, kO: 0.5 }));
+let nextSlot = 0;
+let geo: Geo = slots[0]!;
 function geometryTerms(u: number, g: number, tn: number, er: number, h: number, width: number): void {
   if (u === geo.u && g === geo.g && tn === geo.tn && er === geo.er) return;
+  for (let i = 0; i < SLOTS; i++) {
+    const s = slots[i]!;
+    if (u === s.u && g === s.g && tn === s.tn && er === s.er) { geo = s; return; }
+  }
+  geo = slots[nextSlot]!;
+  nextSlot = (nextSlot + 1) % SLOTS;
   kjCoupledStatic(u, g, er);
   const z0s0 = kjStatic.z0;
   geo.z0E = kjStatic.z0E; geo.z0O = kjStatic.z0O; geo.eeE = kjStatic.eeE; geo.eeO = kjStatic.eeO;

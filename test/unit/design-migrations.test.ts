@@ -57,15 +57,15 @@ describe('v1 → v2', () => {
     const r = parseDesign(readFileSync(join(FIX, 'v1', 'first-slice-demo.json'), 'utf8'));
     if (!r.ok) throw new Error('refused');
     expect(r.doc).toEqual({
-      format: 'stripwright-design', version: 2, name: 'Four-way patch row feed, 5.8 GHz',
+      format: 'stripwright-design', version: 3, name: 'Four-way patch row feed, 5.8 GHz',
       substrate: { preset: 'glass-epoxy', er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6 },
       frequency: { f0: 2.45e9, band: { start: 2.4e9, stop: 2.5e9 } },
       process: { kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 },
       nodes: [], segments: [], board: null, areas: [], phaseGroups: [],
     });
-    expect(r.migrations).toEqual([1]);
+    expect(r.migrations).toEqual([1, 2]);
     expect(r.warnings.map((w) => w.message)).toEqual([
-      'This file was written in format 1 and was upgraded to format 2 (1→2: added substrate (glass-epoxy FR-4 1.6 mm), frequency (2.45 GHz, 2.4–2.5 GHz), process: 30° V-bit, and an empty network). Saving writes format 2; keep the original if an older copy of the app still needs it.',
+      'This file was written in format 1 and was upgraded to format 3 (1→2: added substrate (glass-epoxy FR-4 1.6 mm), frequency (2.45 GHz, 2.4–2.5 GHz), process: 30° V-bit, and an empty network; 2→3: the format now knows coupled pairs (segment kind "coupled" with four terminals); nothing in the file changed). Saving writes format 3; keep the original if an older copy of the app still needs it.',
     ]);
   });
   it('keeps fields version 1 did not know', () => {
@@ -84,5 +84,15 @@ describe('v1 → v2', () => {
     const copy = structuredClone(v1);
     migrate(v1, 1);
     expect(v1).toEqual(copy);
+  });
+});
+
+describe('v2 → v3 (coupled pairs)', () => {
+  it('moves only the version: a version-2 file has no coupled pairs', () => {
+    const text = readFileSync(join(FIX, 'v2', 'open-stub-match.json'), 'utf8');
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toEqual([2]);
+    expect({ ...r.doc, version: 2 }).toEqual(JSON.parse(text));
   });
 });
