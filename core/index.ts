@@ -14,4 +14,5 @@ export * from './design/index.ts';
 export * from './layout/index.ts';
 export * from './network/index.ts';
 export * from './yield/index.ts';
+export * from './blocks/index.ts';
 export * from './export/index.ts';

@@ -13,11 +13,13 @@ import {
   type SubstrateSpec, type LineOptions, type LineResult, type DispersionModel, type ConductorLossModel, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+import { COUPLED_USAGE, coupledJson, coupledTable, solveCoupled } from './line-coupled.ts';
 
 const MAX_BATCH_ROWS = 200_000;
 
 const USAGE = `Usage: stripwright line [substrate] (--z0 OHMS | --width LEN) [--f FREQ] [--deg DEG | --length LEN] [--json]
        stripwright line [substrate] --batch FILE.csv [--out FILE.csv]
+       stripwright line [substrate] --coupled (--width LEN --spacing LEN | --coupling-db DB --z0 OHMS) [--f FREQ] [--json]
 
 Sizes a microstrip line for a target impedance (--z0) or analyses a given width (--width).
 Values take units: 1.6mm, 62mil, 35um, 1oz, 5.8GHz, 50ohm, 90deg.
@@ -50,7 +52,10 @@ Output:
   --out FILE.csv        write the batch results here instead of standard output
   --force               let --out replace an existing file
 
+${COUPLED_USAGE}
+
 Examples:
+  stripwright line --er 3.66 --h 0.508mm --coupled --coupling-db 10 --z0 50 --f 2.45GHz --json
   stripwright line --preset glass-epoxy --z0 50 --f 5.8GHz --deg 90
   stripwright line --er 3.66 --h 0.508mm --t 35um --tand 0.0037 --width 1.07mm --f 10GHz --json
   stripwright line --er 4.4 --h 0.8mm --batch lines.csv --out sized.csv`;
@@ -60,6 +65,7 @@ const OPTIONS = {
   tand: { type: 'string' }, sigma: { type: 'string' }, rough: { type: 'string' }, 'f-measure': { type: 'string' },
   z0: { type: 'string' }, width: { type: 'string' }, f: { type: 'string' }, deg: { type: 'string' }, length: { type: 'string' },
   dispersion: { type: 'string' }, 'conductor-loss': { type: 'string' },
+  coupled: { type: 'boolean' }, spacing: { type: 'string' }, 'coupling-db': { type: 'string' }, z0e: { type: 'string' }, z0o: { type: 'string' },
   json: { type: 'boolean' }, batch: { type: 'string' }, out: { type: 'string' }, force: { type: 'boolean' },
 } as const;
 
@@ -303,6 +309,10 @@ export const lineCommand: CliCommand = {
       return await runBatch(values.batch, c, values.out, values.force === true, io);
     }
     if (values.out !== undefined || values.force) throw new UsageError('--out and --force go with --batch');
+    if (values.coupled) return runCoupled(values, io);
+    if (values.spacing !== undefined || values['coupling-db'] !== undefined || values.z0e !== undefined || values.z0o !== undefined) {
+      throw new UsageError('--spacing, --coupling-db, --z0e and --z0o are for a coupled pair: add --coupled');
+    }
     try {
       const s = solve(c);
       io.out(values.json ? resultJson(toJson(s), 2) : table(s));
@@ -314,3 +324,19 @@ export const lineCommand: CliCommand = {
     }
   },
 };
+
+/** `--coupled`: one coupled pair through core coupledLine (cli/commands/line-coupled.ts). */
+function runCoupled(values: Record<string, string | boolean | undefined>, io: CliIo): number {
+  const str = (k: string) => (typeof values[k] === 'string' ? (values[k] as string) : undefined);
+  try {
+    const sub = substrateOf({ preset: str('preset'), er: str('er'), h: str('h'), t: str('t'), tand: str('tand'), sigma: str('sigma'), rough: str('rough'), 'f-measure': str('f-measure') });
+    if (str('deg') !== undefined || str('length') !== undefined || str('conductor-loss') !== undefined) throw new UsageError('--deg, --length and --conductor-loss are not for --coupled');
+    const r = solveCoupled(sub, { width: str('width'), spacing: str('spacing'), 'coupling-db': str('coupling-db'), z0: str('z0'), z0e: str('z0e'), z0o: str('z0o'), f: str('f'), dispersion: str('dispersion') });
+    io.out(values.json ? JSON.stringify(coupledJson(r), null, 2) : coupledTable(r, sub));
+    return 0;
+  } catch (e) {
+    if (e instanceof UsageError) throw e;
+    io.err(`stripwright line: ${errorText(e)}`);
+    return 1;
+  }
+}

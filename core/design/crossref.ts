@@ -44,12 +44,15 @@ export function crossCheck(doc: DesignDoc, opts: { complete?: boolean } = {}): C
   doc.nodes.forEach((n, i) => { if (!nodeIndex.has(n.id)) nodeIndex.set(n.id, i); });
   const degree = new Map<string, number>();
   doc.segments.forEach((s, i) => {
-    for (const end of ['a', 'b'] as const) {
-      const id = s[end];
+    for (const end of (s.kind === 'coupled' ? ['a', 'b', 'c', 'd'] : ['a', 'b']) as ('a' | 'b' | 'c' | 'd')[]) {
+      const id = (s as Record<string, unknown>)[end] as string;
       if (!nodeIndex.has(id)) errors.push(issue('invalid-design', `segments[${i}].${end}`, 'the id of a node in this design', `${JSON.stringify(id)}, which no node has`));
       else degree.set(id, (degree.get(id) ?? 0) + 1);
     }
     if (s.a === s.b) errors.push(issue('invalid-design', `segments[${i}].b`, 'a node other than its start a (a segment joins two nodes)', JSON.stringify(s.b)));
+    if (s.kind === 'coupled' && new Set([s.a, s.b, s.c, s.d]).size !== 4) {
+      errors.push(issue('invalid-design', `segments[${i}].c`, 'four different nodes a, b, c, d (a coupled pair has four terminals)', [s.a, s.b, s.c, s.d].map((x) => JSON.stringify(x)).join(', ')));
+    }
     const na = doc.nodes[nodeIndex.get(s.a) ?? -1], nb = doc.nodes[nodeIndex.get(s.b) ?? -1];
     if (na && nb && s.a !== s.b && na.at.x === nb.at.x && na.at.y === nb.at.y) {
       errors.push(issue('invalid-design', `segments[${i}]`, 'ends at two different places (the drawing gives each piece its direction)', `both ends at (${na.at.x}, ${na.at.y}) m`));

@@ -12,6 +12,7 @@
  * - 4: `junctions`: tees and width steps sized and swept with their published models ('modelled') or joined at
  *      the centre ('ideal').
  * - 5: `asMade` (how lines are sized for what is made); files written before it keep plain microstrip sizing.
+ * - 6: segments may be coupled pairs (kind "coupled", four terminals a, b, c, d).
  */
 type Json = Record<string, unknown>;
 
@@ -67,6 +68,14 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Keep what the file sized before: an older design's boards were cut from microstrip widths.
       return { ...doc, version: 5, asMade: doc.asMade ?? { sizing: 'microstrip', sideCopper: 'stitched' } };
+    },
+  },
+  {
+    from: 5,
+    summary: 'the format now knows coupled pairs (segment kind "coupled" with four terminals); nothing in the file changed',
+    up(doc) {
+      // Purely additive: an older file has no coupled pairs, so only the version moves.
+      return { ...doc, version: 6 };
     },
   },
 ];

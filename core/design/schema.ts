@@ -159,7 +159,18 @@ export const segmentSchema = v.variant('kind', [
     width: widthSchema,
     length: v.looseObject({ by: v.literal('length', 'by "length" (a measured block has a fixed length)'), length: LEN('a length', 10) }, 'a length {by: "length", length}'),
   }),
-], 'a segment: an object whose kind is "line", "taper", "lumped" or "sparams"');
+  v.looseObject({
+    ...segCommon, kind: v.literal('coupled'), c: idSchema, d: idSchema,
+    pair: v.variant('by', [
+      v.looseObject({ by: v.literal('geometry'), width: LEN('a strip width', 0.1), gap: LEN('a gap between the strips', 0.1) }),
+      v.looseObject({ by: v.literal('modes'), z0Even: Z0, z0Odd: Z0 }),
+    ], 'a pair: by "geometry" with width and gap in metres, or by "modes" with z0Even and z0Odd in ohms'),
+    length: v.variant('by', [
+      v.looseObject({ by: v.literal('degrees'), deg: num('an electrical length in degrees above 0 and at most 3600', 0, 3600, { minExclusive: true }) }),
+      v.looseObject({ by: v.literal('length'), length: LEN('a length', 10) }),
+    ], 'a length: by "degrees" or "length" (a coupled pair is not drawn to length)'),
+  }),
+], 'a segment: an object whose kind is "line", "taper", "lumped", "sparams" or "coupled"');
 
 const polygon = (what: string) => v.pipe(
   v.array(vec2Schema, `${what}: a list of points`),

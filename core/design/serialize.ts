@@ -27,8 +27,8 @@ const ORDER: Order = {
     },
     segments: {
       keys: [], items: {
-        keys: ['id', 'kind', 'label', 'a', 'b', 'part', 'value', 'size', 'name', 'profile', 'width', 'from', 'to', 'length', 'rippleDb', 'touchstone'],
-        children: { width: WIDTH, from: WIDTH, to: WIDTH, length: { keys: ['by', 'deg', 'length'] } },
+        keys: ['id', 'kind', 'label', 'a', 'b', 'c', 'd', 'part', 'value', 'size', 'name', 'profile', 'width', 'from', 'to', 'pair', 'length', 'rippleDb', 'touchstone'],
+        children: { width: WIDTH, from: WIDTH, to: WIDTH, length: { keys: ['by', 'deg', 'length'] }, pair: { keys: ['by', 'width', 'gap', 'z0Even', 'z0Odd'] } },
       },
     },
     areas: { keys: [], items: { keys: ['id', 'kind', 'clearance', 'polygon'], children: { polygon: POINTS } } },

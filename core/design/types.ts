@@ -67,9 +67,24 @@ export type SegmentSpec =
   | { kind: 'line'; width: WidthSpec; length: LengthSpec }
   | { kind: 'taper'; profile: 'linear' | 'klopfenstein'; from: WidthSpec; to: WidthSpec; length: LengthSpec; rippleDb?: number }
   | { kind: 'lumped'; part: 'resistor' | 'capacitor' | 'inductor'; value: number; size: SmdSize; /** line width at its pads */ width: WidthSpec }
-  | { kind: 'sparams'; /** Touchstone text kept in the design (1 or 2 ports) */ touchstone: string; name: string; width: WidthSpec; length: { by: 'length'; length: number } };
+  | { kind: 'sparams'; /** Touchstone text kept in the design (1 or 2 ports) */ touchstone: string; name: string; width: WidthSpec; length: { by: 'length'; length: number } }
+  | CoupledSpec;
+
+/**
+ * A coupled pair (format 3): two parallel strips of one width with an edge-to-edge gap. It has four terminals: the
+ * first strip runs a → b, the second c → d, with c beside a and d beside b (the drawing says on which side).
+ * `pair` gives the geometry, or the even- and odd-mode impedances to synthesise it from at f0. The length is the
+ * coupled run's, by electrical degrees at f0 (on the mean of the two modes' phase constants) or physically.
+ */
+export type PairSpec = { by: 'geometry'; width: number; gap: number } | { by: 'modes'; z0Even: number; z0Odd: number };
+export type CoupledSpec = { kind: 'coupled'; c: string; d: string; pair: PairSpec; length: { by: 'degrees'; deg: number } | { by: 'length'; length: number } };
 
 export type DesignSegment = { id: string; a: string; b: string; label?: string } & SegmentSpec;
+
+/** The terminals of a segment: [a, b], or [a, b, c, d] for a coupled pair. */
+export function segmentEnds(s: DesignSegment): string[] {
+  return s.kind === 'coupled' ? [s.a, s.b, s.c, s.d] : [s.a, s.b];
+}
 
 export interface Area { id: string; kind: 'keep-out' | 'ground-copper'; polygon: Vec2[]; /** clearance kept from the network, m */ clearance?: number }
 

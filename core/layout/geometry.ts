@@ -45,7 +45,7 @@ export function pieceOutlines(sized: SizedDesign): { outlines: PieceOutline[]; d
     const o = nodes.get(p.a === n.id ? p.b : p.a)!;
     return unit(sub(o.pos, n.pos));
   };
-  const isLine = (p: SizedPiece) => p.kind === 'line' || p.kind === 'taper';
+  const isLine = (p: SizedPiece) => p.kind === 'line' || p.kind === 'taper' || p.kind === 'coupled';
   const widthAt = (p: SizedPiece, node: string) => (p.kind === 'taper' && p.b === node ? p.widthB! : p.width);
 
   for (const p of sized.pieces) {

@@ -40,6 +40,7 @@ import { plainShift } from './as-made-shift.ts';
 import { smdFootprint } from './footprints.ts';
 import { add, dot, len, mul, sub, unit, crossZ } from './copper.ts';
 import type { Compensation, LayoutProblem, SizedDesign, SizedNode, SizedPiece, TaperSection, SmdFootprint } from './types.ts';
+import { pairDrawingProblem, pairLength, pairLinks, sizePair, splitPairs, SECOND_STRIP, type CoupledSegment, type PairData } from './coupledPair.ts';
 
 export interface SizeOptions {
   /** Line-model choices (dispersion, conductor loss); defaults as core/line. */
@@ -103,10 +104,13 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
 
   const nodeById = new Map<string, DesignNode>();
   for (const n of doc.nodes) nodeById.set(n.id, n);
+  // A coupled pair is sized and placed as its two strips (coupledPair.ts); `segIndex` maps back to the file.
+  const { segments, index: segIndex } = splitPairs(doc.segments);
+  const pairs = new Map<string, Omit<PairData, 'strip' | 'partner' | 'segment'>>();
   const adj = new Map<string, string[]>();
   for (const n of doc.nodes) adj.set(n.id, []);
   const segById = new Map<string, DesignSegment>();
-  for (const s of doc.segments) {
+  for (const s of segments) {
     segById.set(s.id, s);
     for (const end of [s.a, s.b]) {
       if (!nodeById.has(end)) { problem('bad-topology', `segment ${s.id} ends at node '${end}', which does not exist`, [s.id]); continue; }
@@ -158,9 +162,31 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     }
   };
 
+  // A pair's geometry and mode figures at f0 (once per design segment; its strips share them), and the single line of
+  // its strip width, which the end corrections (open ends, bends, pads) use.
+  const resolvePair = (seg: CoupledSegment, field: string): LineResult | null => {
+    const id = seg.id;
+    try {
+      const drawing = pairDrawingProblem(seg, (n) => nodeById.get(n));
+      if (drawing) { problem('bad-topology', drawing, [pairId(id)]); return null; }
+      let data = pairs.get(pairId(id));
+      if (!data) {
+        const r = sizePair(subs, seg, f0, field);
+        data = r.data;
+        pairs.set(pairId(id), data);
+        pushWarnings(warnings, r.warnings, pairId(id));
+      }
+      return cache.forWidth(data.width, f0);
+    } catch (e) {
+      if (e instanceof InputError) { problem('bad-value', `piece ${pairId(id)}: ${e.message}`, [pairId(id)]); return null; }
+      throw e;
+    }
+  };
+
   const works: Work[] = [];
   const workById = new Map<string, Work>();
-  doc.segments.forEach((seg, i) => {
+  segments.forEach((seg, k) => {
+    const i = segIndex[k]!;
     const piece: SizedPiece = {
       id: seg.id, kind: seg.kind, a: seg.a, b: seg.b, z0: NaN, width: NaN, nominalLength: 0, length: 0, span: 0, deg: 0, effectiveDeg: 0,
       line: null, compensations: [], warnings: [],
@@ -172,6 +198,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     if (!nodeById.has(seg.a) || !nodeById.has(seg.b) || seg.a === seg.b) { w.ok = false; return; } // reported above
     let ra: LineResult | null, rb: LineResult | null;
     if (seg.kind === 'taper') { ra = resolve(seg.from, `${field}.from`, seg.id); rb = resolve(seg.to, `${field}.to`, seg.id); }
+    else if (seg.kind === 'coupled') { ra = rb = resolvePair(seg, field); }
     else { ra = rb = resolve(seg.width, `${field}.width`, seg.id); }
     if (!ra || !rb) { w.ok = false; return; }
     w.endA = { node: seg.a, width: ra.width, r: ra };
@@ -180,6 +207,14 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     piece.line = figures(ra);
     if (lineOpts?.crossSection) piece.asMade = plainShift(subs, ra, f0, opts.line, lineOpts.crossSection);
     if (seg.kind === 'taper') { piece.widthB = rb.width; piece.z0B = rb.z0; }
+    if (seg.kind === 'coupled') {
+      const data = pairs.get(pairId(seg.id))!;
+      const strip: 1 | 2 = seg.id.endsWith(SECOND_STRIP) ? 2 : 1;
+      piece.pair = { ...data, segment: pairId(seg.id), partner: strip === 1 ? seg.id + SECOND_STRIP : pairId(seg.id), strip };
+      // The coupled run's phase is the modes' mean, not the single strip's (coupledPair.ts).
+      const beta = (data.betaEven + data.betaOdd) / 2;
+      piece.line = { ...piece.line, beta, lambdaG: (2 * Math.PI) / beta, epsEff: ((beta * 299_792_458) / (2 * Math.PI * f0)) ** 2 };
+    }
     pushWarnings(piece.warnings, ra.warnings, seg.id);
     if (rb !== ra) pushWarnings(piece.warnings, rb.warnings, seg.id);
   });
@@ -192,7 +227,9 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
     try {
       if (seg.kind === 'line') {
         const r = w.endA!.r;
-        piece.nominalLength = nominalLength(seg.length, r, seg, at, `segments[${i}].length`);
+        piece.nominalLength = nominalLength(seg.length, r, seg, at, `segments[${segIndex[i]}].length`);
+      } else if (seg.kind === 'coupled') {
+        piece.nominalLength = pairLength(seg, piece.line!.beta, `segments[${segIndex[i]}]`);
       } else if (seg.kind === 'taper') {
         sizeTaper(w, cache, f0, Math.max(band.stop, f0), at, i);
       } else if (seg.kind === 'lumped') {
@@ -213,7 +250,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   const sizedNodes: SizedNode[] = doc.nodes.map((n) => ({ id: n.id, kind: n.kind, at: n.at, pos: { x: NaN, y: NaN }, segments: adj.get(n.id)!.slice(), warnings: [] }));
   const nodeOut = new Map(sizedNodes.map((n) => [n.id, n]));
   const endOf = (w: Work, n: string): End | null => (w.seg.a === n ? w.endA : w.endB);
-  const isLine = (w: Work) => w.seg.kind === 'line' || w.seg.kind === 'taper';
+  const isLine = (w: Work) => w.seg.kind === 'line' || w.seg.kind === 'taper' || w.seg.kind === 'coupled';
 
   const comp = (w: Work, c: Compensation) => w.piece.compensations.push(c);
   for (const n of doc.nodes) {
@@ -416,7 +453,8 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   }
 
   // ---- placement
-  const placed = placeNodes(doc, workById, adj, nodeOut, dirFrom, problem, warnings);
+  const links = pairLinks(doc.segments, (id) => nodeById.get(id)?.at, (id) => { const d = pairs.get(id); return d ? d.width + d.gap : undefined; });
+  const placed = placeNodes(doc, workById, adj, nodeOut, dirFrom, problem, warnings, links);
 
   const pieces = works.map((w) => w.piece);
   // First in the list: a board too large explains the other problems it causes (loops that miss by metres).
@@ -542,6 +580,7 @@ function placeNodes(
   doc: DesignDoc, workById: Map<string, Work>, adj: Map<string, string[]>,
   nodeOut: Map<string, SizedNode>, dirFrom: (n: string, s: DesignSegment) => Vec2 | null,
   problem: (code: LayoutProblem['code'], message: string, subjects: string[]) => void, warnings: Warning[],
+  links: ReturnType<typeof pairLinks>,
 ): string | null {
   const anchorNode = doc.nodes.find((n) => n.kind === 'port') ?? doc.nodes[0];
   if (!anchorNode) return null;
@@ -560,7 +599,22 @@ function placeNodes(
         (isDrawn ? drawnQ : fixedQ).push([n, sid]);
       }
     };
+    // A placed end of a coupled strip places the end beside it on the other strip (the pair's pitch across).
+    const reported = new Set<string>();
+    const placeBeside = (n: string) => {
+      for (const l of links.get(n) ?? []) {
+        const target = add(nodeOut.get(n)!.pos, l.offset);
+        const on = nodeOut.get(l.to)!;
+        if (!parentSeg.has(l.to)) { on.pos = target; parentSeg.set(l.to, null); enqueue(l.to); placeBeside(l.to); continue; }
+        const miss = len(sub(on.pos, target));
+        if (miss > CLOSE_TOL && !reported.has(l.seg)) {
+          reported.add(l.seg);
+          problem('loop-mismatch', `the strips of pair ${l.seg} do not stay side by side: node ${l.to} is placed ${mm(miss)} mm from where the pair puts it beside ${n}; give both strips the same end corrections (e.g. open ends at opposite ends) or change the pieces around it`, [l.seg]);
+        }
+      }
+    };
     enqueue(start.id);
+    placeBeside(start.id);
     const done = new Set<string>();
     while (fi < fixedQ.length || di < drawnQ.length) {
       const [n, sid] = (fi < fixedQ.length ? fixedQ[fi++] : drawnQ[di++])!;
@@ -574,7 +628,7 @@ function placeNodes(
       const target = add(from, mul(d, w.piece.span));
       const on = nodeOut.get(o)!;
       if (!parentSeg.has(o)) {
-        on.pos = target; parentSeg.set(o, sid); enqueue(o);
+        on.pos = target; parentSeg.set(o, sid); enqueue(o); placeBeside(o);
         continue;
       }
       // Loop closure.
@@ -630,6 +684,9 @@ function loopThrough(a: string, b: string, parentSeg: Map<string, string | null>
   const ib = inB.get(pa.nodes[ia]!) ?? pb.segs.length;
   return [...pa.segs.slice(0, ia), ...pb.segs.slice(0, ib).reverse()];
 }
+
+/** The design segment id of a strip piece (the second strip's id carries a suffix). */
+function pairId(id: string): string { return id.endsWith(SECOND_STRIP) ? id.slice(0, -SECOND_STRIP.length) : id; }
 
 function pushWarnings(into: Warning[], from: Warning[], subject: string): void {
   for (const w of from) {

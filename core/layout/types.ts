@@ -22,7 +22,7 @@ import type { MiterCut } from '../discontinuity/douvilleJames1978Miter.ts';
 import type { TeeArm, TeeJunction } from '../discontinuity/hammerstad1981TeeJunction.ts';
 import type { StepModel } from '../discontinuity/gargBahl1978Step.ts';
 
-export type PieceKind = 'line' | 'taper' | 'lumped' | 'sparams';
+export type PieceKind = 'line' | 'taper' | 'lumped' | 'sparams' | 'coupled';
 
 /** One correction to a piece's length, reported whether applied or only shown. */
 export interface Compensation {
@@ -129,6 +129,12 @@ export interface SizedPiece {
   taperWidths?: number[];
   part?: { part: 'resistor' | 'capacitor' | 'inductor'; value: number; footprint: SmdFootprint };
   sparams?: { name: string; touchstone: string };
+  /**
+   * Coupled pair (kind 'coupled'): each of its two strips is a piece (the second's id ends in ':2'), placed and
+   * corrected at its ends like a line of `width`; `line.beta` is the modes' mean. The network models the pair once,
+   * as a four-port from the first strip's a, b and the second strip's a, b (its c, d in the design).
+   */
+  pair?: import('./coupledPair.ts').PairData;
   compensations: Compensation[];
   warnings: Warning[];
 }

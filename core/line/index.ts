@@ -20,3 +20,11 @@ export { currentDistributionAlphaC } from './current-distribution-loss.ts';
 export { U_MIN, U_MAX, F_MIN, F_MAX } from './inputs.ts';
 export { SUBSTRATE_PRESETS, findPreset, validateSubstrate } from '../substrate/index.ts';
 export type { SubstratePreset } from '../substrate/index.ts';
+// Coupled microstrip pairs (issue 17).
+export type { CoupledOptions, CoupledResult, CoupledMode, CoupledTarget, CoupledDispersion } from './coupled-types.ts';
+export { COUPLED_DISPERSIONS } from './coupled-types.ts';
+export { analyzeCoupled, couplingFromModes, modesForCoupling, coupledInto, coupledNumbers, COUPLED_G_MIN, COUPLED_U_MIN } from './coupled.ts';
+export { synthesizeCoupled, couplingAtGap, targetModes, coupledLine } from './coupled-synthesis.ts';
+export type { CoupledAsk } from './coupled-synthesis.ts';
+export { kjCoupledStatic, kjStatic, KJ1984_RANGE } from './kirschning-jansen-1984-coupled.ts';
+export { getsingerEpsEff } from './getsinger-1973-coupled-dispersion.ts';

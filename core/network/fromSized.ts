@@ -13,6 +13,8 @@
  *  - edge-launch pads: likewise a short line of the pad width between the port and its piece;
  *  - tapers: their piecewise-uniform sections in a chain;
  *  - 'sparams' parts: their Touchstone data, interpolated and stamped as an admittance matrix (sparamsPart.ts);
+ *  - coupled pairs: one four-port from the even and odd modes (coupledPair.ts; Kirschning–Jansen 1984 with
+ *    Getsinger 1973 dispersion and mode losses from core/line), its strips' launch pads as short lines;
  *  - ports: their reference impedance at the port node.
  * Junctions (design setting `junctions`, default 'modelled'; 'ideal' joins every arm at the junction centre):
  *  - tees (Hammerstad 1981, core/discontinuity/hammerstad1981TeeJunction.ts): each arm's line runs from its
@@ -27,7 +29,9 @@
  */
 import { InputError } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
-import { analyzeLine, lineConstants, type LineOptions } from '../line/index.ts';
+import { analyzeLine, lineConstants, coupledInto, coupledNumbers, type LineOptions } from '../line/index.ts';
+import type { SubstrateSpec } from '../substrate/types.ts';
+import { coupledPairY, modeConstants } from './coupledPair.ts';
 import { viaGround } from '../discontinuity/goldfarbPucel1991Via.ts';
 import { teeJunction, teeTurnsRatioSquared, TEE_SOURCE } from '../discontinuity/hammerstad1981TeeJunction.ts';
 import { starAdmittance } from './junctionStar.ts';
@@ -44,6 +48,9 @@ export interface FromSizedOptions {
    * library the very same values pass their own.
    */
   lineModel?: (width: number, piece: SizedPiece) => LineModel;
+  /** Drop conductor and dielectric loss from every line and coupled pair (a lossless copy, for checking a design
+   * against its ideal response). Lumped parts and vias keep theirs. */
+  lossless?: boolean;
 }
 
 export interface SizedNetlist extends Netlist {
@@ -75,7 +82,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
     if (!m) {
       let lastF = NaN, last: ReturnType<LineModel> | null = null;
       m = (f) => {
-        if (f !== lastF || !last) { last = lineConstants(sub, width, f, opts.line); lastF = f; }
+        if (f !== lastF || !last) { last = opts.lossless ? losslessConstants(sub, width, f, opts.line) : lineConstants(sub, width, f, opts.line); lastF = f; }
         return last;
       };
       models.set(width, m);
@@ -133,6 +140,19 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
         elements.push({ kind: part.part, id: p.id, a, b, value: part.value });
         break;
       }
+      case 'coupled': {
+        // The pair is one four-port, emitted with its first strip (coupledPair.ts); the second strip adds nothing.
+        const pair = p.pair;
+        if (!pair) throw new InputError('impossible-layout', p.id, 'a coupled strip with its pair data', 'none');
+        if (pair.strip !== 1) break;
+        const p2 = pieces.get(pair.partner);
+        if (!p2) throw new InputError('impossible-layout', p.id, `the second strip ${pair.partner} of the pair`, 'none');
+        const [a1, b1] = padsAround(p, a, b, pads, elements, modelFor);
+        const [c1, d1] = padsAround(p2, endNode(p2.id, p2.a), endNode(p2.id, p2.b), pads, elements, modelFor);
+        elements.push({ kind: 'nport', id: p.id, nodes: [a1, b1, c1, d1], y: pairModel(sub, pair.width, pair.gap, (p.length + p2.length) / 2, opts.line?.dispersion === 'none' ? 0 : 1, opts.lossless === true) });
+        if (Math.abs(p.length - p2.length) > 1e-9) warnings.push(warn('note', `pair ${p.id}: its strips are ${(p.length * 1e3).toFixed(3)} mm and ${(p2.length * 1e3).toFixed(3)} mm long after end corrections; the network uses their mean`, { subjects: [p.id], severity: 'info' }));
+        break;
+      }
       case 'sparams': {
         const sp = p.sparams;
         if (!sp) throw new InputError('impossible-layout', p.id, 'an S-parameter block with its data', 'none');
@@ -175,7 +195,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
 export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: FromSizedOptions = {}): Warning[] {
   const byWidth = new Map<number, string[]>();
   for (const p of sized.pieces) {
-    if (p.kind !== 'line' && p.kind !== 'taper') continue;
+    if (p.kind !== 'line' && p.kind !== 'taper' && p.kind !== 'coupled') continue;
     const widths = p.kind === 'taper' && p.sections ? p.sections.map((x) => x.width) : [p.width];
     for (const w of widths) { const l = byWidth.get(w) ?? []; if (!l.includes(p.id)) l.push(p.id); byWidth.set(w, l); }
   }
@@ -195,6 +215,22 @@ export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: From
     }
   }
   return [...out.values()].map((x) => ({ ...x, message: `${x.message} (top of the sweep, ${fStop / 1e9} GHz; pieces ${(x.subjects ?? []).slice(0, 6).join(', ')}${(x.subjects ?? []).length > 6 ? ', …' : ''})` }));
+}
+
+/** A coupled pair's four-port at each frequency: mode figures from core/line (coupledInto), then coupledPairY. */
+function pairModel(sub: SubstrateSpec, width: number, gap: number, length: number, disp: 0 | 1, lossless: boolean): (f: number) => Float64Array {
+  return (f) => {
+    coupledInto(sub, width, gap, f, disp);
+    const n = coupledNumbers;
+    const k = lossless ? 0 : 1;
+    return coupledPairY(modeConstants(n.z0E, n.eeE, k * n.acE, k * n.adE, f), modeConstants(n.z0O, n.eeO, k * n.acO, k * n.adO, f), length);
+  };
+}
+
+/** A line's constants without loss: real Zc = Z0(f), γ = jβ(f). */
+function losslessConstants(sub: SubstrateSpec, width: number, f: number, opts?: LineOptions): ReturnType<LineModel> {
+  const r = analyzeLine(sub, width, f, opts);
+  return { zc: { re: r.z0, im: 0 }, gamma: { re: 0, im: (2 * Math.PI) / r.lambdaG } };
 }
 
 function onlyTerminal(n: SizedNode, endNode: (piece: string, node: string) => string): string {

@@ -23,3 +23,4 @@ export { starAdmittance, type StarArm, type StarState } from './junctionStar.ts'
 export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';
 export { responseCacheKey } from './cacheKey.ts';
 export { evaluateTargets, evaluateTarget, targetFrequencies, targetText, limitText, type TargetEvaluation, type TargetResult } from './targets.ts';
+export { coupledPairY, modeConstants } from './coupledPair.ts';

@@ -146,3 +146,13 @@ describe('v4 → v5 (asMade)', () => {
     expect(up({ version: 4, asMade: { sizing: 'as-made', sideCopper: 'floating' } }).asMade).toEqual({ sizing: 'as-made', sideCopper: 'floating' });
   });
 });
+
+describe('v5 → v6 (coupled pairs)', () => {
+  it('moves only the version: an older file has no coupled pairs', () => {
+    const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toEqual([5]);
+    expect({ ...r.doc, version: 5 }).toEqual(JSON.parse(text));
+  });
+});

@@ -10,7 +10,7 @@ export interface SceneNode { id: string; at: Vec2; kind: SceneNodeKind; label?: 
 
 export interface SceneSegment {
   id: string;
-  kind: 'line' | 'taper' | 'lumped' | 'sparams';
+  kind: 'line' | 'taper' | 'lumped' | 'sparams' | 'coupled';
   /** Drawn end points (the sketch). */
   a: Vec2;
   b: Vec2;

@@ -1,0 +1,97 @@
+/**
+ * Block: edge-coupled (parallel-coupled half-wave resonator) band-pass filter.
+ *
+ * Design equations: S. B. Cohn, "Parallel-coupled transmission-line-resonator filters", IRE Trans. MTT, vol. 6,
+ * no. 2, pp. 223–231, April 1958, in the admittance-inverter form of G. L. Matthaei, L. Young and E. M. T. Jones,
+ * "Microwave Filters, Impedance-Matching Networks, and Coupling Structures", McGraw-Hill, 1964, §10.02 (also Pozar,
+ * Microwave Engineering, 4th ed., §8.8). Fractional bandwidth Δ, prototype g0 … g(N+1) (lowpassPrototype.ts):
+ *   Z0·J1 = √(πΔ/(2 g0 g1)),  Z0·Jk = πΔ/(2√(g(k−1) g_k)) (k = 2 … N),  Z0·J(N+1) = √(πΔ/(2 g_N g(N+1))),
+ *   Z0e = Z0·(1 + Z0J + (Z0J)²),  Z0o = Z0·(1 − Z0J + (Z0J)²).
+ * N + 1 coupled sections, each 90° at f0 on the mean of its modes' phase constants; each resonator (the second strip
+ * of one section and the first strip of the next) ends in open ends, which sizing shortens by their Kirschning–
+ * Jansen–Koster 1981 extension (the open-end effect compensated). Sections step down in a staircase; the ports sit on
+ * straight lines in line with the first and last strips. A gap narrower than the process can cut is refused with the
+ * tightest coupling it can make.
+ */
+import type { DesignDoc, DesignNode, DesignSegment } from '../design/types.ts';
+import { newDesign } from '../design/defaults.ts';
+import { couplingFromModes, synthesizeCoupled } from '../line/index.ts';
+import { InputError, describe } from '../util/errors.ts';
+import { prototypeValues, type PrototypeKind } from './lowpassPrototype.ts';
+import { drawAsPlaced, requireCuttableGap, type BlockBase } from './common.ts';
+
+export interface BandpassOptions extends BlockBase {
+  /** Filter order N (number of resonators), 1–9. */
+  order: number;
+  /** Fractional bandwidth Δ (0.1 = 10 %): the −3 dB band for maximally flat, the ripple band for equal ripple. */
+  bw: number;
+  /** Pass-band ripple, dB: gives an equal-ripple (Chebyshev) response; omit (or 0) for maximally flat. */
+  rippleDb?: number;
+}
+
+/** The design table of the filter: per coupled section, Z0·J and the mode impedances. */
+export function bandpassSections(order: number, bw: number, rippleDb: number | undefined, z0: number): { g: number[]; kind: PrototypeKind; sections: { j: number; z0Even: number; z0Odd: number }[] } {
+  if (typeof bw !== 'number' || !(bw > 0.005 && bw <= 0.4)) throw new InputError(typeof bw === 'number' && Number.isFinite(bw) ? 'out-of-range' : 'invalid-number', 'bw', 'a fractional bandwidth from 0.005 to 0.4 (0.1 = 10 %)', describe(bw), 'edge-coupled filters are practical up to about 20 % bandwidth');
+  if (!Number.isInteger(order) || order < 1 || order > 9) throw new InputError('out-of-range', 'order', 'a whole filter order from 1 to 9', describe(order));
+  const kind: PrototypeKind = rippleDb === undefined || rippleDb === 0 ? 'maximally-flat' : 'equal-ripple';
+  const g = prototypeValues(kind, order, rippleDb ?? 0.5);
+  const sections = [];
+  for (let k = 1; k <= order + 1; k++) {
+    const j = k === 1 ? Math.sqrt((Math.PI * bw) / (2 * g[0]! * g[1]!))
+      : k === order + 1 ? Math.sqrt((Math.PI * bw) / (2 * g[order]! * g[order + 1]!))
+        : (Math.PI * bw) / (2 * Math.sqrt(g[k - 1]! * g[k]!));
+    sections.push({ j, z0Even: z0 * (1 + j + j * j), z0Odd: z0 * (1 - j + j * j) });
+  }
+  return { g, kind, sections };
+}
+
+export function bandpassBlock(opts: BandpassOptions): DesignDoc {
+  const z0 = opts.z0 ?? 50;
+  const { g, kind, sections } = bandpassSections(opts.order, opts.bw, opts.rippleDb, z0);
+  const n = opts.order, f0 = opts.f0;
+  const doc = newDesign({
+    name: opts.name ?? `Order ${n} edge-coupled band-pass, ${(f0 / 1e9).toPrecision(4)} GHz, ${(opts.bw * 100).toPrecision(3)} %`,
+    f0, band: { start: f0 * (1 - 2 * opts.bw), stop: f0 * (1 + 2 * opts.bw) },
+    ...(opts.substrate ? { substrate: opts.substrate } : {}), ...(opts.process ? { process: opts.process } : {}),
+  });
+  const sub = doc.substrate;
+  const geo = sections.map((s, i) => {
+    const r = synthesizeCoupled(sub, { z0Even: s.z0Even, z0Odd: s.z0Odd }, f0);
+    const want = couplingFromModes(s.z0Even, s.z0Odd).db;
+    requireCuttableGap(r.spacing, sub, doc.process, Math.sqrt(s.z0Even * s.z0Odd), want, 'bw', `coupled section ${i + 1} of ${n + 1}`, 'ask for a narrower bandwidth or a lower order, use a finer tool, or a thinner substrate');
+    return r;
+  });
+  const feed = opts.feedLength ?? Math.max(2e-3, 3 * sub.h);
+  const L = 10e-3; // drawn only for directions; sizing places the block
+  const nodes: DesignNode[] = [{ id: 'in', kind: 'port', zRef: z0, heading: 0, label: 'input', at: { x: -feed, y: 0 } }];
+  const segments: DesignSegment[] = [];
+  let y = 0;
+  for (let k = 1; k <= n + 1; k++) {
+    const r = geo[k - 1]!;
+    const x0 = (k - 1) * L, pitch = r.width + r.spacing;
+    const a = k === 1 ? 'p1' : `r${k - 1}`, d = k === n + 1 ? `p2` : `r${k}`;
+    if (k === 1) nodes.push({ id: a, kind: 'vertex', bend: { style: 'square' }, at: { x: x0, y } });
+    nodes.push({ id: `o${k}b`, kind: 'open', label: `open end, section ${k}`, at: { x: x0 + L, y } });
+    nodes.push({ id: `o${k}c`, kind: 'open', label: `open end, section ${k}`, at: { x: x0, y: y - pitch } });
+    nodes.push({ id: d, kind: 'vertex', bend: { style: 'square' }, ...(k <= n ? { label: `resonator ${k}` } : {}), at: { x: x0 + L, y: y - pitch } });
+    segments.push({
+      id: `s${k}`, kind: 'coupled', a, b: `o${k}b`, c: `o${k}c`, d, label: `coupled section ${k}`,
+      pair: { by: 'geometry', width: r.width, gap: r.spacing }, length: { by: 'degrees', deg: 90 },
+    });
+    y -= pitch;
+  }
+  nodes.push({ id: 'out', kind: 'port', zRef: z0, heading: Math.PI, label: 'output', at: { x: (n + 1) * L + feed, y } });
+  segments.unshift({ id: 'feed-in', kind: 'line', a: 'in', b: 'p1', width: { by: 'z0', z0 }, length: { by: 'length', length: feed } });
+  segments.push({ id: 'feed-out', kind: 'line', a: 'p2', b: 'out', width: { by: 'z0', z0 }, length: { by: 'length', length: feed } });
+  doc.nodes = nodes;
+  doc.segments = segments;
+  const gs = g.map((x) => x.toFixed(4)).join(', ');
+  doc.notes = [
+    `Edge-coupled band-pass filter made by the band-pass block: order ${n}, centre ${(f0 / 1e9).toPrecision(5)} GHz, fractional bandwidth ${opts.bw}, ${kind === 'maximally-flat' ? 'maximally flat' : `equal ripple ${opts.rippleDb} dB`}, ${z0} Ω.`,
+    `Prototype g0…g${n + 1} = ${gs} (Matthaei, Young and Jones 1964, §4.05); inverters and mode impedances by Cohn 1958 / Matthaei, Young and Jones §10.02.`,
+    ...sections.map((s, i) => `Section ${i + 1}: Z0·J ${s.j.toFixed(4)}, Z0e ${s.z0Even.toFixed(2)} Ω, Z0o ${s.z0Odd.toFixed(2)} Ω → strips ${(geo[i]!.width * 1e3).toFixed(3)} mm, gap ${(geo[i]!.spacing * 1e3).toFixed(3)} mm.`),
+    'Each section is 90° at f0 on its modes\' mean phase constant; the open ends are shortened by their end extension.',
+  ].join('\n');
+  drawAsPlaced(doc);
+  return doc;
+}

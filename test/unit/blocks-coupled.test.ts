@@ -1,0 +1,117 @@
+/**
+ * Coupler and band-pass blocks (core/blocks) built, sized and swept as a user would, with losses and as a lossless
+ * copy. Outside checks, each named: prototype element values against the published tables (Matthaei, Young and
+ * Jones 1964, Tables 4.05-1 and 4.05-2(a); the same in Pozar, Microwave Engineering, 4th ed., Tables 8.3 and 8.4;
+ * quoted from memory to 4 digits); the coupler's coupling against its spec (Pozar §7.6); the filter's centre and
+ * bandwidth against its spec — the −3 dB band relative to peak transmission for maximally flat, the ripple band for
+ * equal ripple, and for a lossy equal-ripple filter the −3 dB band of the Chebyshev response, Δ·cosh(arccosh(1/ε)/N)
+ * with ε = √(10^(ripple/10) − 1) (Matthaei et al. §4.03).
+ */
+import { describe, expect, it } from 'vitest';
+import {
+  prototypeValues, couplerBlock, bandpassBlock, sizeDesign, netlistFromSized, solveNetwork, magnitudeDb, portIndex, validateDesign,
+  InputError, type SubstrateSpec,
+} from '../../core/index.ts';
+
+const LOW_LOSS: SubstrateSpec = { er: 3.66, h: 0.508e-3, t: 35e-6, tanDelta: 0.0037, sigma: 5.8e7, roughness: 0 };
+const FR4: SubstrateSpec = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6 };
+const FINE = { kind: 'etch', edgeBias: 0, minFeature: 0.05e-3 } as const;
+
+describe('low-pass prototype values from the closed forms', () => {
+  it('maximally flat N = 5: 0.6180, 1.6180, 2.0000, 1.6180, 0.6180, 1 (MYJ Table 4.05-1)', () => {
+    const g = prototypeValues('maximally-flat', 5);
+    [1, 0.618, 1.618, 2.0, 1.618, 0.618, 1].forEach((x, i) => expect(g[i]).toBeCloseTo(x, 3));
+  });
+  it('0.5 dB equal ripple N = 3: 1.5963, 1.0967, 1.5963, 1.0000; N = 4 ends in 1.9841 (MYJ Table 4.05-2(a))', () => {
+    const g = prototypeValues('equal-ripple', 3, 0.5);
+    [1, 1.5963, 1.0967, 1.5963, 1].forEach((x, i) => expect(g[i]).toBeCloseTo(x, 3));
+    expect(prototypeValues('equal-ripple', 4, 0.5)[5]).toBeCloseTo(1.9841, 3);
+  });
+});
+
+function sweep(doc: ReturnType<typeof couplerBlock>, freqs: number[], lossless = false) {
+  const sized = sizeDesign(doc);
+  expect(sized.problems).toEqual([]);
+  return solveNetwork(netlistFromSized(sized, { lossless }), freqs);
+}
+
+describe('coupler block', () => {
+  for (const [sub, name] of [[LOW_LOSS, 'low-loss 0.508 mm'], [FR4, 'glass-epoxy 1.6 mm']] as const) {
+    for (const db of [10, 15, 20]) {
+      it(`${db} dB at 2.45 GHz on ${name}: coupling at f0 within 0.3 dB of spec, directivity reported`, () => {
+        const doc = couplerBlock({ couplingDb: db, f0: 2.45e9, substrate: sub, process: FINE });
+        expect(validateDesign(doc, { complete: true }).ok).toBe(true);
+        const r = sweep(doc, [2.45e9]);
+        const p = (n: string) => portIndex(r, n);
+        const coupling = -magnitudeDb(r, p('coupled'), p('in'))[0]!;
+        const isolation = -magnitudeDb(r, p('isolated'), p('in'))[0]!;
+        const directivity = isolation - coupling;
+        expect(Math.abs(coupling - db)).toBeLessThan(0.3);
+        // Microstrip's unequal mode speeds limit the directivity; it is finite and positive (reported in the README).
+        expect(directivity).toBeGreaterThan(3);
+        expect(-magnitudeDb(r, p('in'), p('in'))[0]!).toBeGreaterThan(15);
+      });
+    }
+  }
+  it('refuses a coupling whose gap the process cannot cut, saying the tightest it can make', () => {
+    try {
+      couplerBlock({ couplingDb: 6, f0: 2.45e9, substrate: FR4, process: { kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 } });
+      expect.unreachable();
+    } catch (e) {
+      expect(e).toBeInstanceOf(InputError);
+      expect((e as InputError).field).toBe('couplingDb');
+      expect((e as InputError).expected).toMatch(/tightest coupling at 50\.0 Ω on this substrate is \d+\.\d\d dB/);
+    }
+  });
+});
+
+/** Band edges: the outermost crossings of `level` below the peak, interpolated. */
+function bandOf(s21: Float64Array, freqs: number[], drop: number) {
+  let pk = -Infinity, ipk = 0;
+  s21.forEach((v, i) => { if (v > pk) { pk = v; ipk = i; } });
+  const lvl = pk - drop;
+  let lo = 0, hi = s21.length - 1;
+  while (lo < ipk && s21[lo]! < lvl) lo++;
+  while (hi > ipk && s21[hi]! < lvl) hi--;
+  const x = (i: number, j: number) => freqs[i]! + ((lvl - s21[i]!) * (freqs[j]! - freqs[i]!)) / (s21[j]! - s21[i]!);
+  const fl = x(lo - 1, lo), fh = x(hi, hi + 1);
+  return { centre: (fl + fh) / 2, width: fh - fl, peak: pk };
+}
+
+describe('edge-coupled band-pass block', () => {
+  const cases = [
+    { sub: LOW_LOSS, order: 5, bw: 0.1, ripple: 0.5, f0: 2.45e9 },
+    { sub: LOW_LOSS, order: 3, bw: 0.1, ripple: 0, f0: 2.45e9 },
+    { sub: LOW_LOSS, order: 4, bw: 0.12, ripple: 0.1, f0: 5.8e9 },
+    { sub: FR4, order: 3, bw: 0.1, ripple: 0, f0: 2.45e9 },
+    { sub: FR4, order: 5, bw: 0.15, ripple: 0, f0: 5.8e9 },
+  ];
+  for (const c of cases) {
+    const kind = c.ripple ? `${c.ripple} dB ripple` : 'maximally flat';
+    it(`order ${c.order}, ${c.bw * 100} %, ${kind} at ${c.f0 / 1e9} GHz (εr ${c.sub.er}, h ${c.sub.h * 1e3} mm): centre and bandwidth within 2 % / 10 % with losses, 1 % / 5 % lossless`, () => {
+      const doc = bandpassBlock({ order: c.order, f0: c.f0, bw: c.bw, rippleDb: c.ripple, substrate: c.sub, process: FINE });
+      expect(validateDesign(doc, { complete: true }).ok).toBe(true);
+      expect(doc.segments.filter((s) => s.kind === 'coupled')).toHaveLength(c.order + 1);
+      const freqs = Array.from({ length: 3001 }, (_, i) => c.f0 * (1 - 3 * c.bw) + (i * c.f0 * 6 * c.bw) / 3000);
+      const eps = Math.sqrt(10 ** (c.ripple / 10) - 1);
+      const bw3 = c.ripple ? c.bw * Math.cosh(Math.acosh(1 / eps) / c.order) : c.bw;
+      const lossy = bandOf(magnitudeDb(sweep(doc, freqs), 1, 0), freqs, 3);
+      expect(Math.abs(lossy.centre / c.f0 - 1)).toBeLessThan(0.02);
+      expect(Math.abs(lossy.width / (bw3 * c.f0) - 1)).toBeLessThan(0.1);
+      const ideal = bandOf(magnitudeDb(sweep(doc, freqs, true), 1, 0), freqs, c.ripple ? c.ripple + 1e-3 : 3);
+      expect(ideal.peak).toBeGreaterThan(-1e-3);
+      expect(Math.abs(ideal.centre / c.f0 - 1)).toBeLessThan(0.01);
+      expect(Math.abs(ideal.width / (c.bw * c.f0) - 1)).toBeLessThan(0.05);
+    });
+  }
+  it('compensates the open ends: each resonator\'s open ends are shortened by their end extension', () => {
+    const sized = sizeDesign(bandpassBlock({ order: 3, f0: 2.45e9, bw: 0.1, substrate: LOW_LOSS, process: FINE }));
+    const s2 = sized.pieces.find((p) => p.id === 's2')!;
+    const open = s2.compensations.filter((c) => c.model === 'open-end' && c.applied);
+    expect(open).toHaveLength(1);
+    expect(s2.length).toBeCloseTo(s2.nominalLength - open[0]!.amount_m, 12);
+  });
+  it('refuses a bandwidth whose end gaps the process cannot cut, naming the section and the tightest coupling', () => {
+    expect(() => bandpassBlock({ order: 5, f0: 2.45e9, bw: 0.15, substrate: LOW_LOSS })).toThrow(/coupled section 1 of 6 needs .* dB.*tightest coupling|tightest coupling.*section 1/);
+  });
+});
