@@ -12,4 +12,5 @@ export * from './geometry/index.ts';
 export * from './design/index.ts';
 export * from './layout/index.ts';
 export * from './network/index.ts';
+export * from './toolpath/index.ts';
 export * from './export/index.ts';
