@@ -13,3 +13,4 @@ export * from './dxf-r12.ts';
 export * from './file-names.ts';
 export * from './gcode.ts';
 export * from './gcode-export.ts';
+export * from './milling-preview.ts';
