@@ -71,7 +71,7 @@ export function isolationTool(sized: SizedDesign): Tool {
  * Plans the whole job. Needs the polygon engine (`await initPolygons()`). Throws InputError for bad options or a
  * process that cannot mill; problems of the board (narrow gaps, joined islands, moves off the work area) are findings.
  */
-export function planMilling(sized: SizedDesign, g: BoardGeometry, given: Partial<MillingOptions> = {}): MillingPlan {
+export function planMilling(sized: SizedDesign, g: BoardGeometry, given: Partial<MillingOptions> = {}, opts: { analyse?: boolean } = {}): MillingPlan {
   const o = resolveMillingOptions(given);
   const tool = isolationTool(sized);
   const proc = sized.doc.process as Extract<SizedDesign['doc']['process'], { depth: number }>;
@@ -120,11 +120,17 @@ export function planMilling(sized: SizedDesign, g: BoardGeometry, given: Partial
     programs.push(buildProgram(mill, ops, holes, origin, o.spindleRpm, o, cutout));
   }
 
-  // The board as milled: copper minus what every tool sweeps at the copper surface.
+  // The board as milled: copper minus what every tool sweeps at the copper surface. `analyse: false` skips it (and
+  // the gap checks that need it) for callers that want the toolpaths alone, like the benchmark's first figure.
+  const seconds = programs.reduce((s, p) => s + p.seconds, 0);
+  if (opts.analyse === false) {
+    const none: MilledBoard = { copper: [], swept: [], islands: [], designIslands: [], pieces: [] };
+    return { options: o, origin, size, board, programs, milled: none, findings: millReadiness(programs, origin, o, through), seconds };
+  }
   const swept = unionRegions(programs.flatMap(programSwept));
   const milled = milledBoard(g, sized, board, swept, tool);
   const findings = [...gapFindings(sized, g, milled, tool), ...millReadiness(programs, origin, o, through)];
-  return { options: o, origin, size, board, programs, milled, findings, seconds: programs.reduce((s, p) => s + p.seconds, 0) };
+  return { options: o, origin, size, board, programs, milled, findings, seconds };
 }
 
 /** Narrow gaps (from the shop check, naming the pieces) and islands the cut joins, destroys or cuts through. */
