@@ -15,4 +15,5 @@ export * from './layout/index.ts';
 export * from './network/index.ts';
 export * from './yield/index.ts';
 export * from './blocks/index.ts';
+export * from './toolpath/index.ts';
 export * from './export/index.ts';

@@ -8,7 +8,7 @@ import { parseArgs } from 'node:util';
 import { existsSync, mkdirSync, statSync } from 'node:fs';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import {
-  EXPORT_FILE_NAMES, InputError, initPolygons, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
+  EXPORT_FILE_NAMES, InputError, initPolygons, exportGcode, MILLING_CAUTIONS, type MillingOptions, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
   sizeDesign, boardGeometryOf, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
@@ -16,7 +16,7 @@ import { DESIGN_TEXT, OutputError, readInputText, writeOutputFile } from '../fil
 import { explainErrno } from '../../electron/files/atomic-write.ts';
 import { VERSION } from '../version.ts';
 
-const FORMATS = ['dxf', 'svg', 'gerber', 'drill', 'mask', 'mask-pdf'] as const;
+const FORMATS = ['dxf', 'svg', 'gerber', 'drill', 'mask', 'mask-pdf', 'gcode'] as const;
 type Format = (typeof FORMATS)[number];
 
 const usage = `Usage: stripwright export FILE --format FORMAT[,FORMAT…] --out PATH [options]
@@ -31,6 +31,8 @@ Formats:
   drill    Excellon (METRIC): NAME-plated.drl and NAME-nonplated.drl (only those the board has)
   mask     1:1 photo mask / toner-transfer sheet (SVG page) with scale bar and registration marks
   mask-pdf the same sheet as a vector PDF (NAME-mask.pdf)
+  gcode    G-code for a milling machine, one file per tool (NAME-T1-isolation.nc, NAME-T2-drill-0.80mm.nc, …,
+           NAME-Tn-cutout.nc): isolation with the design's process tool, drilling, cutout with tabs
 
 Options:
   --out PATH              where to write: a file for one output, a folder (created if missing) for several
@@ -45,7 +47,32 @@ Options:
   --page a4|letter        mask page (default a4)
   --polarity positive|negative   mask polarity (default positive: copper black)
 
+G-code options (defaults suit small desktop routers; X0 Y0 = the board's lower-left corner, Z0 = top of the copper):
+  --units mm|inch         G21 (default) or G20
+  --passes N              isolation passes around each copper island (1–10, default 2)
+  --overlap X             overlap of further passes, fraction of the cut (0.1–0.9, default 0.4)
+  --direction climb|conventional   cutting direction with the spindle turning clockwise (default climb)
+  --clear                 also remove all copper that is not part of the design (slow with a fine tool)
+  --clear-overlap X       overlap of the clearing rings (0.5–0.9, default 0.5)
+  --feed SPEED            isolation feed, e.g. 200mm/min (default); --plunge-feed SPEED (default 50mm/min)
+  --spindle RPM           spindle speed (1000–60000, default 10000)
+  --safe-height LEN       start, end and tool-change height (default 5mm); --travel-height LEN between cuts (default 1mm)
+  --no-drill              no drill files; --drill-feed SPEED (default 60mm/min); --peck LEN (default 0.5mm, 0 = none)
+  --breakthrough LEN      how far drills and the cutout go below the board (default 0.3mm)
+  --max-drill LEN         largest drill on hand (default 3mm); larger holes are milled with the cutout tool
+  --no-cutout             no cutout; --cutout-tool LEN end mill diameter (default 1mm); --cutout-feed SPEED (default 120mm/min)
+  --step-down LEN         cutout depth per pass (default 0.4mm)
+  --tabs N                holding tabs (0–16, default 4); --tab-width LEN (default 2mm); --tab-height LEN (default 0.6mm,
+                          at most half the board unless given)
+  --tool-change           write T… M6 at the start of each file
+  --work-area W,H         the machine's travel, e.g. 300mm,180mm (default 200mm,150mm)
+  --board-at X,Y          where the board's corner sits in the work area (default 5mm,5mm)
+  --rapid SPEED           rapid speed for the time estimate (default 1000mm/min)
+  Cautions: glass-fibre dust (extraction, a suitable mask), eye and hearing protection, spindle guards; never leave the
+  machine running unattended; follow the machine's manual and local rules.
+
 Examples:
+  stripwright export stub.json --format gcode --passes 3 --work-area 300mm,180mm --out mill/
   stripwright export wilkinson.json --format mask --mirror --bias 0.035mm --out wilkinson-mask.svg
   stripwright export array.json --format gerber,drill,dxf --tool 0.2mm --out fab/`;
 
@@ -64,6 +91,7 @@ export const exportCommand: CliCommand = {
         format: { type: 'string' }, out: { type: 'string' }, force: { type: 'boolean' }, mirror: { type: 'boolean' },
         bias: { type: 'string' }, origin: { type: 'string' }, layers: { type: 'string' }, tool: { type: 'string' },
         style: { type: 'string' }, page: { type: 'string' }, polarity: { type: 'string' }, 'dxf-version': { type: 'string' },
+        ...MILL_FLAGS,
       },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to export' : `give one design FILE, got ${positionals.length}`);
@@ -110,6 +138,10 @@ export const exportCommand: CliCommand = {
         io.err(`stripwright export: note: ${layers !== undefined ? '--layers' : '--tool'} only changes dxf and svg output`);
       }
       const base = safeBase(file);
+      const milling = formats.includes('gcode') ? millingOptions(values as Record<string, string | boolean | undefined>) : null;
+      if (!milling && Object.keys(MILL_FLAGS).some((k) => (values as Record<string, unknown>)[k] !== undefined)) {
+        io.err('stripwright export: note: the G-code options only change --format gcode');
+      }
       const sw = { application: 'Stripwright', version: VERSION };
       const frame = { origin, mirror: values.mirror ?? false };
       const outputs: Output[] = [];
@@ -142,6 +174,19 @@ export const exportCommand: CliCommand = {
             outputs.push(f === 'mask' ? { name: EXPORT_FILE_NAMES.maskSvg(base), text: m.svg, what } : { name: EXPORT_FILE_NAMES.maskPdf(base), text: m.pdf, what });
             break;
           }
+          case 'gcode': {
+            // The same call the app's Outputs make; bias and --tool do not apply (the design's process is the tool).
+            const gc = exportGcode(parsed.doc, milling ?? {}, { base, application: 'Stripwright', version: VERSION });
+            for (const p of gc.plan.programs) {
+              const file = gc.files.find((x) => x.tool === p.tool.number)!;
+              outputs.push({ name: file.name, text: file.text, what: `G-code, tool ${p.tool.number}: ${p.tool.label}, about ${Math.ceil(p.seconds / 60)} min` });
+            }
+            for (const fnd of gc.plan.findings) io.err(`${fnd.severity === 'info' ? 'note' : fnd.severity}: ${fnd.message}`);
+            const worst = gc.plan.milled.pieces.reduce<(typeof gc.plan.milled.pieces)[number] | null>((a, b) => (!a || Math.abs(b.z0Shift) > Math.abs(a.z0Shift) ? b : a), null);
+            if (worst) io.err(`note: as milled, the largest Z0 shift is ${worst.z0Shift >= 0 ? '+' : ''}${worst.z0Shift.toFixed(2)} Ω on ${worst.id} (${(worst.topWidth * 1e3).toFixed(3)} mm at the top, ${(worst.footWidth * 1e3).toFixed(3)} mm at the foot)`);
+            io.err(`note: about ${Math.ceil(gc.plan.seconds / 60)} min of machining in ${gc.files.length} file(s), run in tool order. ${MILLING_CAUTIONS.join(' ')}`);
+            break;
+          }
         }
       }
       if (outputs.length === 0) { io.err('stripwright export: nothing to write'); return 1; }
@@ -159,7 +204,8 @@ export const exportCommand: CliCommand = {
       return 0;
     } catch (e) {
       if (e instanceof InputError) {
-        io.err(`stripwright export: ${e.message}`);
+        const flag = FLAG_OF_FIELD[e.field];
+        io.err(`stripwright export: ${flag ? `--${flag}: expected ${e.expected}, got ${e.got}${e.hint ? ` (${e.hint})` : ''}` : e.message}`);
         return 1;
       }
       if (e instanceof OutError || e instanceof OutputError) { io.err(`stripwright export: ${e.message}`); return 1; }
@@ -169,6 +215,51 @@ export const exportCommand: CliCommand = {
 };
 
 class OutError extends Error {}
+
+/** G-code flags: option name in MillingOptions → flag, and how to read it. */
+const MILL: Record<string, { field: keyof MillingOptions | 'workArea.width' | 'boardAt.x'; kind: 'length' | 'speed' | 'number' | 'flag' | 'pair' | 'text' }> = {
+  units: { field: 'units', kind: 'text' }, passes: { field: 'passes', kind: 'number' }, overlap: { field: 'overlap', kind: 'number' },
+  direction: { field: 'direction', kind: 'text' }, clear: { field: 'clear', kind: 'flag' }, 'clear-overlap': { field: 'clearOverlap', kind: 'number' },
+  feed: { field: 'feed', kind: 'speed' }, 'plunge-feed': { field: 'plungeFeed', kind: 'speed' }, spindle: { field: 'spindleRpm', kind: 'number' },
+  'safe-height': { field: 'safeHeight', kind: 'length' }, 'travel-height': { field: 'travelHeight', kind: 'length' },
+  'no-drill': { field: 'drill', kind: 'flag' }, 'drill-feed': { field: 'drillFeed', kind: 'speed' }, peck: { field: 'peckDepth', kind: 'length' },
+  breakthrough: { field: 'breakthrough', kind: 'length' }, 'max-drill': { field: 'maxDrill', kind: 'length' },
+  'no-cutout': { field: 'cutout', kind: 'flag' }, 'cutout-tool': { field: 'cutoutTool', kind: 'length' }, 'cutout-feed': { field: 'cutoutFeed', kind: 'speed' },
+  'step-down': { field: 'stepDown', kind: 'length' }, tabs: { field: 'tabs', kind: 'number' }, 'tab-width': { field: 'tabWidth', kind: 'length' },
+  'tab-height': { field: 'tabHeight', kind: 'length' }, 'tool-change': { field: 'toolChange', kind: 'flag' },
+  'work-area': { field: 'workArea.width', kind: 'pair' }, 'board-at': { field: 'boardAt.x', kind: 'pair' }, rapid: { field: 'rapidRate', kind: 'speed' },
+};
+const MILL_FLAGS = Object.fromEntries(Object.entries(MILL).map(([k, v]) => [k, { type: v.kind === 'flag' ? 'boolean' as const : 'string' as const }]));
+const FLAG_OF_FIELD: Record<string, string> = Object.fromEntries([
+  ...Object.entries(MILL).map(([k, v]) => [v.field, k]),
+  ['workArea.height', 'work-area'], ['boardAt.y', 'board-at'], ['workArea', 'work-area'],
+]);
+
+/** The G-code flags given, as MillingOptions (units parsed by core/units; ranges checked by the core). */
+function millingOptions(values: Record<string, string | boolean | undefined>): Partial<MillingOptions> {
+  const o: Record<string, unknown> = {};
+  for (const [flag, { field, kind }] of Object.entries(MILL)) {
+    const v = values[flag];
+    if (v === undefined) continue;
+    const text = String(v);
+    const num = () => { const n = Number(text); if (text.trim() === '' || !Number.isFinite(n)) throw new UsageError(`--${flag} takes a number, got '${text}'`); return n; };
+    switch (kind) {
+      case 'flag': o[field] = flag.startsWith('no-') ? !v : v; break;
+      case 'text': o[field] = text; break;
+      case 'number': o[field] = num(); break;
+      case 'length': o[field] = parseQuantity(text, 'length', `--${flag}`); break;
+      case 'speed': o[field] = parseQuantity(text, 'speed', `--${flag}`); break;
+      case 'pair': {
+        const parts = text.split(',');
+        if (parts.length !== 2) throw new UsageError(`--${flag} takes two lengths separated by a comma, e.g. 300mm,180mm; got '${text}'`);
+        const [a, b] = parts.map((x) => parseQuantity(x.trim(), 'length', `--${flag}`)) as [number, number];
+        if (flag === 'work-area') o.workArea = { width: a, height: b }; else o.boardAt = { x: a, y: b };
+        break;
+      }
+    }
+  }
+  return o as Partial<MillingOptions>;
+}
 
 /** The app's pipeline from a design to copper: size every piece, then build the board geometry (sizing problems first). */
 export function designToBoard(doc: DesignDoc): { geometry: ExportGeometry; warnings: Warning[] } {

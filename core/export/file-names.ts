@@ -12,4 +12,6 @@ export const EXPORT_FILE_NAMES = {
   drillNonPlated: (base: string) => `${base}-nonplated.drl`,
   maskSvg: (base: string) => `${base}-mask.svg`,
   maskPdf: (base: string) => `${base}-mask.pdf`,
+  /** One G-code file per tool, numbered in the order to run them. */
+  gcode: (base: string, tool: { number: number; slug: string }) => `${base}-T${tool.number}-${tool.slug}.nc`,
 } as const;

@@ -11,3 +11,6 @@ export * from './bias.ts';
 export * from './milling.ts';
 export * from './dxf-r12.ts';
 export * from './file-names.ts';
+export * from './gcode.ts';
+export * from './gcode-export.ts';
+export * from './milling-preview.ts';

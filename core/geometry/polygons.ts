@@ -370,3 +370,41 @@ export function offsetRegions(regions: Region[], delta: number, join: JoinStyle,
     } finally { s.delete(); }
   });
 }
+
+/**
+ * The area a round tool of radius `radius` sweeps along tool-centre polylines: each polyline grown by the radius with
+ * round ends and joins (Minkowski sum with a disc). `closed` paths are loops (the last point joins the first).
+ * Used by core/toolpath to find what a cut removes.
+ */
+export function sweptArea(paths: { points: Ring; closed: boolean }[], radius: number, opts: { arcTolerance?: number } = {}): Region[] {
+  if (!(Number.isFinite(radius) && radius > 0)) throw new InputError('out-of-range', 'radius', 'a tool radius in metres above 0', describe(radius));
+  const open = paths.filter((p) => !p.closed && p.points.length >= 1);
+  const loops = paths.filter((p) => p.closed && p.points.length >= 2);
+  if (!open.length && !loops.length) return [];
+  const arcTol = opts.arcTolerance ?? ARC_TOLERANCE_M;
+  return run((m) => {
+    const out = new m.PathsD();
+    try {
+      for (const [list, end] of [[open, m.EndType.Round], [loops, m.EndType.Joined]] as const) {
+        if (!list.length) continue;
+        const s = new m.PathsD();
+        try {
+          list.forEach((p, i) => {
+            p.points.forEach((q, j) => {
+              if (!Number.isFinite(q.x) || !Number.isFinite(q.y) || Math.abs(q.x) > MAX_COORD_M || Math.abs(q.y) > MAX_COORD_M) {
+                throw new InputError('invalid-number', `paths[${i}].points[${j}]`, `a point with finite x and y within ±${MAX_COORD_M} m`, describe(q));
+              }
+            });
+            // A single point (a plunge) is a zero-length path: give it a second point so the engine draws its disc.
+            const pts = p.points.length === 1 ? [p.points[0]!, p.points[0]!] : p.points;
+            const path = toPath(m, pts);
+            try { s.push_back(path); } finally { path.delete(); }
+          });
+          const grown = m.InflatePathsD(s, radius * MM, m.JoinType.Round, end, 2, PRECISION, arcTol * MM);
+          try { for (let i = 0, n = grown.size(); i < n; i++) { const g = grown.get(i); try { out.push_back(g); } finally { g.delete(); } } } finally { grown.delete(); }
+        } finally { s.delete(); }
+      }
+      return m.UnionSelfD(out, m.FillRule.NonZero, PRECISION);
+    } finally { out.delete(); }
+  });
+}

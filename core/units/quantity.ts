@@ -14,10 +14,10 @@ import { InputError, describe } from '../util/errors.ts';
 
 export type QuantityKind =
   | 'length' | 'frequency' | 'impedance' | 'angle' | 'db' | 'conductivity'
-  | 'ratio' | 'resistance' | 'capacitance' | 'inductance';
+  | 'ratio' | 'resistance' | 'capacitance' | 'inductance' | 'speed';
 
 export const QUANTITY_KINDS: readonly QuantityKind[] = [
-  'length', 'frequency', 'impedance', 'angle', 'db', 'conductivity', 'ratio', 'resistance', 'capacitance', 'inductance',
+  'length', 'frequency', 'impedance', 'angle', 'db', 'conductivity', 'ratio', 'resistance', 'capacitance', 'inductance', 'speed',
 ];
 
 /** 1 oz/ft² copper foil thickness used throughout the tool, m (common practice: 35 µm). */
@@ -100,6 +100,12 @@ const RULES: Record<QuantityKind, KindRule> = {
     bare: null,
     hint: 'an inductance with a unit: nH, µH (or uH), pH, e.g. 2.2nH',
   },
+  // Feed rates of a machine tool: the trade quotes them per minute (mm/min, in/min); SI inside is m/s.
+  speed: {
+    units: { 'm/s': 1, 'mm/s': 1e-3, 'mm/min': 1e-3 / 60, 'm/min': 1 / 60, 'in/min': 25.4e-3 / 60, ipm: 25.4e-3 / 60, 'in/s': 25.4e-3 },
+    bare: null,
+    hint: 'a feed rate with a unit: mm/min, mm/s, in/min (or ipm), m/s, e.g. 200mm/min',
+  },
 };
 
 const NUMBER_RE = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*)$/;
@@ -159,6 +165,7 @@ const DISPLAY: Record<QuantityKind, [string, number, number][]> = {
   ratio: [['', 1, 0]],
   capacitance: [['F', 1, 1], ['mF', 1e-3, 1e-3], ['µF', 1e-6, 1e-6], ['nF', 1e-9, 1e-9], ['pF', 1e-12, 1e-12], ['fF', 1e-15, 0]],
   inductance: [['H', 1, 1], ['mH', 1e-3, 1e-3], ['µH', 1e-6, 1e-6], ['nH', 1e-9, 1e-9], ['pH', 1e-12, 0]],
+  speed: [['mm/min', 1e-3 / 60, 0]],
 };
 
 /**

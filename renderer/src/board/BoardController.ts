@@ -53,6 +53,8 @@ export class BoardController {
   private readonly areaLayer: G;
   private areaKey = '';
   private readonly copperLayer: G;
+  private readonly milledLayer: G;
+  private milledDrawn: { regions: unknown; stale: boolean } = { regions: null, stale: false };
   private readonly lineLayer: G;
   private readonly nodeLayer: G;
   private readonly drillLayer: G;
@@ -85,6 +87,7 @@ export class BoardController {
     this.areaLayer = this.world.group().addClass('areas');
     this.outlineLayer = this.world.group().addClass('outline');
     this.copperLayer = this.world.group().addClass('copper');
+    this.milledLayer = this.world.group().addClass('milled');
     this.lineLayer = this.world.group().addClass('centrelines');
     this.drillLayer = this.world.group().addClass('drills');
     this.nodeLayer = this.world.group().addClass('nodes');
@@ -300,8 +303,20 @@ export class BoardController {
     }
   }
 
+  /** The board as milled over the design (copper left after the tools pass), when the scene carries it. */
+  private drawMilled(): void {
+    const m = this.scene.milled ?? [];
+    // The worker hands a new list with every plan, so the list itself tells whether to redraw.
+    const stale = !!this.scene.milledStale;
+    if (this.milledDrawn.regions === (this.scene.milled ?? null) && this.milledDrawn.stale === stale) return;
+    this.milledDrawn = { regions: this.scene.milled ?? null, stale };
+    this.milledLayer.clear();
+    if (m.length) this.milledLayer.path(regionsPath(m)).attr({ class: this.scene.milledStale ? 'milled-copper stale' : 'milled-copper', 'fill-rule': 'evenodd', 'data-testid': 'milled-overlay' });
+  }
+
   private drawOutline(): void {
     this.drawAreas();
+    this.drawMilled();
     this.outlineLayer.clear();
     if (this.scene.outline && this.scene.outline.length >= 3) {
       this.outlineLayer.polygon(polyPoints(this.scene.outline)).addClass('board-outline');

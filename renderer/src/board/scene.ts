@@ -34,6 +34,10 @@ export interface Scene {
   /** The ground copper is from an earlier revision (a check is on its way): drawn faded. */
   groundStale?: boolean;
   drills: { at: Vec2; diameter: number }[];
+  /** Copper left after milling (the milling plan of Outputs), drawn over the design while the view asks for it. */
+  milled?: Region[];
+  /** The milled copper is from an earlier revision: drawn faded. */
+  milledStale?: boolean;
 }
 
 export const EMPTY_SCENE: Scene = { nodes: [], segments: [], pieces: [], outline: null, areas: [], ground: [], drills: [] };

@@ -7,7 +7,7 @@ import { ComputeClient, type Progress } from '../worker/client.ts';
 import { runJob } from '../worker/jobs.ts';
 import type { EditorState } from './editor.svelte.ts';
 import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
-import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, ResponseInput, ResponseOutput } from '../worker/jobs.ts';
+import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput } from '../worker/jobs.ts';
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -65,6 +65,17 @@ export class Compute {
     const out = await this.client.run<ExportOutput>('export', { ...opts, doc: this.editor.doc });
     if (out.ok) return { ok: true, value: out.value };
     return { ok: false, error: 'error' in out ? out.error.message : 'a newer export replaced this one' };
+  }
+
+  /**
+   * The milling plan (preview, widths as milled, time) or, with `write`, the G-code files. The copper left after
+   * milling goes to the editor for the board overlay, tagged with the revision it belongs to.
+   */
+  async milling(opts: Omit<MillingInput, 'doc'>): Promise<{ ok: true; value: MillingOutput } | { ok: false; error: string }> {
+    const revision = this.editor.revision;
+    const out = await this.client.run<MillingOutput>('milling', { ...opts, doc: this.editor.doc });
+    if (out.ok) { this.editor.milled = { revision, regions: out.value.milled }; return { ok: true, value: out.value }; }
+    return { ok: false, error: 'error' in out ? out.error.message : 'a newer plan replaced this one' };
   }
 
   findings = $state.raw<CheckOutput['findings'] | null>(null);

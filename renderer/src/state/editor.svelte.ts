@@ -70,7 +70,14 @@ export class EditorState {
   gridStep = $derived(this.doc.view?.grid ?? (this.units === 'mil' ? 5 * UNIT_METRES.mil : 0.1e-3));
   /** Ground copper left after clearing, from the last shop check, with the revision it belongs to. */
   ground = $state.raw<{ revision: number; regions: Region[] } | null>(null);
-  scene = $derived<Scene>({ ...buildScene(this.doc, this.layout, this.layout?.placed ?? null, this.ground?.regions ?? []), groundStale: this.ground?.revision !== this.revision });
+  /** Copper left after milling, from the last milling plan (Outputs), with its revision; drawn when `showMilled`. */
+  milled = $state.raw<{ revision: number; regions: Region[] } | null>(null);
+  /** View toggle: the board as milled drawn over the design. */
+  showMilled = $state(false);
+  scene = $derived<Scene>({
+    ...buildScene(this.doc, this.layout, this.layout?.placed ?? null, this.ground?.regions ?? []), groundStale: this.ground?.revision !== this.revision,
+    ...(this.showMilled && this.milled ? { milled: this.milled.regions, milledStale: this.milled.revision !== this.revision } : {}),
+  });
   selectedSegment = $derived<DesignSegment | null>(this.single((id) => this.doc.segments.find((s) => s.id === id)));
   selectedNode = $derived<DesignNode | null>(this.single((id) => this.doc.nodes.find((n) => n.id === id)));
   selectedArea = $derived<Area | null>(this.single((id) => this.doc.areas.find((a) => a.id === id)));

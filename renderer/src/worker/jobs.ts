@@ -11,7 +11,8 @@ import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { Finding } from '../../../core/layout/checks.ts';
 import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
 import { InputError, exhaustive } from '../../../core/util/errors.ts';
-import { EXPORT_FILE_NAMES, toDxf, toSvg, toGerber, toExcellon, toMask, type ExportLayer } from '../../../core/export/index.ts';
+import { EXPORT_FILE_NAMES, toDxf, toSvg, toGerber, toExcellon, toMask, exportGcode, planDesignMilling, millingPreviewSvg, type ExportLayer } from '../../../core/export/index.ts';
+import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/toolpath/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
@@ -64,6 +65,7 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
     case 'check': return checkJob(input as LayoutInput);
     case 'response': return responseJob(input as ResponseInput, progress);
     case 'section': return sectionJob(input as SectionInput);
+    case 'milling': return millingJob(input as MillingInput);
     default: return exhaustive(kind, 'job');
   }
 }
@@ -102,7 +104,7 @@ export function errorText(err: unknown): string {
   return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : err instanceof Error ? err.message : String(err);
 }
 
-export type OutputKind = 'dxf' | 'svg' | 'gerber' | 'drill' | 'mask';
+export type OutputKind = 'dxf' | 'svg' | 'gerber' | 'drill' | 'mask' | 'gcode';
 
 export interface ExportInput {
   doc: DesignDoc;
@@ -113,6 +115,8 @@ export interface ExportInput {
   /** Base of the file names. */
   base: string;
   version: string;
+  /** Machining settings for 'gcode' (defaults for the rest). */
+  milling?: Partial<MillingOptions>;
 }
 
 export interface ExportOutput { preview: string; files: { name: string; data: string }[]; notes: string[] }
@@ -150,6 +154,13 @@ export async function exportJob(input: ExportInput): Promise<ExportOutput> {
         notes.push(...m.warnings.map((w) => w.message));
         break;
       }
+      case 'gcode': {
+        // The same core call as `stripwright export --format gcode`; it refuses (an error) when the plan has errors.
+        const gc = exportGcode(input.doc, input.milling ?? {}, { base: input.base, application: 'Stripwright', version: input.version });
+        files.push(...gc.files.map((f) => ({ name: f.name, data: f.text })));
+        notes.push(`G-code: ${gc.files.length} file(s), one per tool, about ${Math.ceil(gc.plan.seconds / 60)} min of machining; run them in tool order.`);
+        break;
+      }
       default: exhaustive(k, 'output');
     }
   }
@@ -180,4 +191,43 @@ export async function responseJob(input: ResponseInput, progress: (p: Progress) 
   }
   const sm = Array.from({ length: P }, (_, i) => { const s = smith(r, i); return { i, re: [...s.re], im: [...s.im] }; });
   return { freqs: [...r.freqs], ports: r.ports.map((p) => p.name), input: net.input, traces, smith: sm, warnings: [...net.warnings, ...r.warnings].map((w) => w.message) };
+}
+
+export interface MillingInput {
+  doc: DesignDoc;
+  options: Partial<MillingOptions>;
+  /** Also write the G-code files (refused, as an error, when the plan has errors). */
+  write: boolean;
+  base: string;
+  version: string;
+}
+
+/** The milling plan as the Outputs panel shows it, and the files when asked. */
+export interface MillingOutput {
+  preview: string;
+  /** Total estimated machining time, s, and per tool. */
+  seconds: number;
+  tools: { number: number; label: string; seconds: number; file: string }[];
+  pieces: MilledPiece[];
+  findings: MillFinding[];
+  /** Copper left after milling, for the board overlay. */
+  milled: Region[];
+  files: { name: string; data: string }[];
+}
+
+/** Plans the milling of the design (core planDesignMilling) or writes its G-code (core exportGcode, which refuses on errors). */
+export async function millingJob(input: MillingInput): Promise<MillingOutput> {
+  await polygons();
+  const info = { base: input.base, application: 'Stripwright', version: input.version };
+  const r = input.write ? exportGcode(input.doc, input.options, info) : { ...planDesignMilling(input.doc, input.options), files: [] };
+  const { plan, geometry } = r;
+  return {
+    preview: millingPreviewSvg(plan, geometry),
+    seconds: plan.seconds,
+    tools: plan.programs.map((p) => ({ number: p.tool.number, label: p.tool.label, seconds: p.seconds, file: EXPORT_FILE_NAMES.gcode(input.base, p.tool) })),
+    pieces: plan.milled.pieces,
+    findings: plan.findings,
+    milled: plan.milled.copper,
+    files: r.files.map((f) => ({ name: f.name, data: f.text })),
+  };
 }

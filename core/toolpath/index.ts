@@ -1,0 +1,12 @@
+/** Toolpaths for milling a board: isolation, clearing, drilling, cutout, ordering, the board as milled, readiness. */
+export type * from './types.ts';
+export * from './options.ts';
+export * from './isolation.ts';
+export * from './drilling.ts';
+export * from './cutout.ts';
+export * from './order.ts';
+export * from './program.ts';
+export * from './swept.ts';
+export * from './milled.ts';
+export * from './readiness.ts';
+export * from './plan.ts';
