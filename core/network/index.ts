@@ -21,3 +21,4 @@ export * from './lineTwoPort.ts';
 export { netlistFromSized, sweepRangeWarnings, type FromSizedOptions, type SizedNetlist, type AdvisoryModel } from './fromSized.ts';
 export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';
 export { responseCacheKey } from './cacheKey.ts';
+export * from './coupon/index.ts';
