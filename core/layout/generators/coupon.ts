@@ -23,6 +23,7 @@
 import type { DesignDoc, DesignNode, DesignSegment } from '../../design/types.ts';
 import type { Vec2 } from '../../geometry/types.ts';
 import { newDesign } from '../../design/defaults.ts';
+import { copySelection } from '../../design/clipboard.ts';
 import type { SubstrateSpec } from '../../substrate/types.ts';
 import { validateSubstrate } from '../../substrate/validate.ts';
 import { analyzeLine } from '../../line/analyze.ts';
@@ -198,4 +199,26 @@ export function laminateCoupon(opts: CouponOptions): { design: DesignDoc; plan: 
     'Test equipment: stay within the analyser\'s input power and DC limits, use ESD precautions and a torque wrench, keep connectors clean, and follow the instrument\'s manual and local rules.',
   ].join('\n');
   return { design, plan };
+}
+
+/**
+ * The coupon for an existing design (its laminate and band unless given), as what `selection.paste` takes: the
+ * clipboard text of the coupon's nodes and segments (its own board outline is left out: the design keeps its
+ * board) and an offset that puts it below everything already drawn. Running that one command adds it as one
+ * undo step in the app and in the CLI alike.
+ */
+export function couponForDesign(doc: DesignDoc, opts: Partial<CouponOptions> = {}): { clipboard: string; offset: Vec2; plan: CouponPlan; design: DesignDoc } {
+  const { design, plan } = laminateCoupon({ ...opts, substrate: opts.substrate ?? doc.substrate, band: opts.band ?? doc.frequency.band });
+  const pts: Vec2[] = [...doc.nodes.map((n) => n.at), ...(doc.board?.outline ?? []), ...doc.areas.flatMap((a) => a.polygon)];
+  const ring = design.board!.outline;
+  const cTop = Math.max(...ring.map((p) => p.y));
+  let offset: Vec2 = { x: 0, y: 0 };
+  if (pts.length > 0) {
+    const minY = Math.min(...pts.map((p) => p.y));
+    const midX = (Math.min(...pts.map((p) => p.x)) + Math.max(...pts.map((p) => p.x))) / 2;
+    // 10 mm of clear board between the design and the coupon (room to cut them apart; common practice).
+    offset = { x: Math.round(midX * 1e6) / 1e6, y: Math.round((minY - 10e-3 - cTop) * 1e6) / 1e6 };
+  }
+  const clipboard = copySelection(design, [...design.nodes.map((n) => n.id), ...design.segments.map((s) => s.id)]);
+  return { clipboard, offset, plan, design };
 }
