@@ -22,7 +22,7 @@ import { thresholdsFor } from '../../line/mode-thresholds.ts';
 import type { LineOptions } from '../../line/types.ts';
 import { analyzeLines } from '../../line/analyze.ts';
 import { C0 } from '../../units/constants.ts';
-import { cabs, type Complex } from '../complex.ts';
+import { cabs } from '../complex.ts';
 import { readTouchstone, type TouchstoneData } from '../touchstoneRead.ts';
 import { multilineGamma, sToT, type Mat2 } from './marks-1991-multiline.ts';
 import { effectivePermittivityFromGamma } from './janezic-jargon-1999.ts';
@@ -284,4 +284,3 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
   };
 }
 
-export type { Complex };

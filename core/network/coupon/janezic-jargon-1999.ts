@@ -2,13 +2,18 @@
  * Complex effective permittivity of a quasi-TEM line from its measured propagation constant.
  *
  * Source: M. D. Janezic and J. A. Jargon, "Complex permittivity determination from propagation constant
- * measurements", IEEE Microwave and Guided Wave Letters, vol. 9, no. 2, pp. 76–78, Feb. 1999. What is used here,
- * as recalled (the paper's equation numbers are not reproduced): for a quasi-TEM line with γ = α + jβ,
- *     ε_eff = ε'_eff − j ε''_eff = −(γ / k0)²,   k0 = ω/c0 = 2π f / c0,
- * i.e. ε'_eff = (β² − α²)/k0² and ε''_eff = 2αβ/k0². The substrate's εr and tanδ then follow by matching a line
- * model to ε_eff (their paper maps ε_eff to εr with a numerical model of the line and removes the conductor loss
- * computed separately; here the mapping is our own line model, core/line, fitted in laminate-fit.ts).
- * Valid where the line carries one quasi-TEM mode (below the surface-wave onset) and μr = 1.
+ * measurements", IEEE Microwave and Guided Wave Letters, vol. 9, no. 2, pp. 76–78, Feb. 1999 (doi
+ * 10.1109/75.755052). What the paper does (its abstract, checked): a transmission-line method that finds the complex
+ * permittivity from propagation constant measurements without a network-analyser calibration — the propagation
+ * constant comes from uncalibrated measurements of two sample lengths — shown in X-band rectangular waveguide and
+ * compared with transmission/reflection and cavity results. The relation used there, as recalled (equation numbers
+ * not reproduced): for a filled guide with cutoff wavenumber k_c and μr = 1,
+ *     ε_r = (k_c² − γ²) / k0²,   k0 = ω/c0 = 2π f / c0,   γ = α + jβ.
+ * A microstrip's quasi-TEM mode has k_c = 0, so here it becomes the complex effective permittivity
+ *     ε_eff = ε'_eff − j ε''_eff = −(γ / k0)²,   ε'_eff = (β² − α²)/k0²,   ε''_eff = 2αβ/k0².
+ * The step from ε_eff to the laminate's εr and tanδ is ours, not the paper's: the line model (core/line: filling
+ * factor, dispersion, conductor loss) fitted by least squares in laminate-fit.ts.
+ * Valid while the line carries one quasi-TEM mode (below the surface-wave onset) and μr = 1.
  * Units: γ in 1/m, f in Hz; ε values are relative (no unit).
  */
 import { C0 } from '../../units/constants.ts';
