@@ -270,6 +270,9 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
     const seen = new Set<string>();
     for (const w of cols.warnings) if (!seen.has(w.warning.message.replace(/[\d.]+/g, '#'))) { seen.add(w.warning.message.replace(/[\d.]+/g, '#')); warnings.push(w.warning); }
   } catch { /* the fit already ran through the same model */ }
+  if (!fit.uncertaintyKnown) {
+    warnings.push({ code: 'note', severity: 'warning', source: 'coupon-fit', message: 'The uncertainties could not be worked out (the fitted quantities cannot be told apart from these data); they are given as 0 and are not meaningful. Measure over a wider band or do not fit the roughness.' });
+  }
   const u = fit.uncertainty, ur = fit.fromResiduals, us = fit.fromSpread;
   const pick = (r: Record<string, number>) => ({ er: r.er!, tand: r.tanDelta!, ...(input.fitRoughness ? { roughness: r.roughness! } : {}) });
   const substrate: SubstrateSpec = dielectric === 'constant'

@@ -48,6 +48,9 @@ export interface FitResult {
   /** Weighted rms residual of the real and the loss part (relative ε units). */
   rms: { real: number; loss: number };
   iterations: number;
+  /** False when the normal matrix could not be inverted (the parameters are not separable from these data); the
+   * uncertainties are then 0 and must not be read as exact. */
+  uncertaintyKnown: boolean;
 }
 
 const LIMIT: Record<FitParameter, readonly [number, number]> = {
@@ -182,6 +185,7 @@ export function fitLaminate(pr: FitProblem): FitResult | null {
   const n = pr.freqs.length;
   const zero = () => Object.fromEntries(pr.fit.map((k) => [k, 0]));
   let fromResiduals = zero(), fromSpread = zero();
+  let uncertaintyKnown = false;
   let rmsReal = 0, rmsLoss = 0, wsum = 0;
   for (let k = 0; k < n; k++) { rmsReal += pr.weight[k]! * r[2 * k]! ** 2; rmsLoss += pr.weight[k]! * r[2 * k + 1]! ** 2; wsum += pr.weight[k]!; }
   const dofReal = Math.max(1, n - 1), dofLoss = Math.max(1, n - (np - 1));
@@ -201,11 +205,13 @@ export function fitLaminate(pr: FitProblem): FitResult | null {
       const us = sandwich((row) => pr.spread[row >> 1]! ** 2);
       fromResiduals = Object.fromEntries(pr.fit.map((k, i) => [k, ur[i]!]));
       fromSpread = Object.fromEntries(pr.fit.map((k, i) => [k, us[i]!]));
+      uncertaintyKnown = [...ur, ...us].every(Number.isFinite);
+      if (!uncertaintyKnown) { fromResiduals = zero(); fromSpread = zero(); }
     }
   }
   const uncertainty = Object.fromEntries(pr.fit.map((k) => [k, Math.hypot(fromResiduals[k]!, fromSpread[k]!)]));
   return {
     substrate: sub, uncertainty, fromResiduals, fromSpread, model: m,
-    rms: { real: Math.sqrt(rmsReal / wsum), loss: Math.sqrt(rmsLoss / wsum) }, iterations: Math.min(it, 60),
+    rms: { real: Math.sqrt(rmsReal / wsum), loss: Math.sqrt(rmsLoss / wsum) }, iterations: Math.min(it, 60), uncertaintyKnown,
   };
 }
