@@ -111,6 +111,24 @@ describe('extraction on lines made with our own model (self-consistency)', () =>
     expect(rr.uncertainty.roughness).toBeGreaterThan(0);
   });
 
+  it('the stated uncertainty matches the actual scatter: over 12 noisy coupons the error is about one uncertainty', () => {
+    // With an exact model the error comes from the noise alone; the rms of error/uncertainty should be near 1
+    // (the total, residuals and spread combined, is meant to be on the safe side of 1).
+    const L = [0.025, 0.042];
+    const freqs = FREQS.slice(0, 81);
+    const z: number[][] = [];
+    for (let seed = 1; seed <= 12; seed++) {
+      const texts = synthCoupon({ sub: FR, width: 2.9e-3, lengths: L, freqs, seed, noise: 1e-3 });
+      const r = extractLaminate(input(texts, L, { dielectric: 'constant' }));
+      z.push([(r.er - FR.er) / r.uncertainty.er, (r.tand - FR.tanDelta) / r.uncertainty.tand]);
+    }
+    for (const k of [0, 1]) {
+      const rms = Math.sqrt(z.reduce((s, v) => s + v[k]! ** 2, 0) / z.length);
+      expect(rms).toBeGreaterThan(0.25);
+      expect(rms).toBeLessThan(2);
+    }
+  });
+
   it('a poor first guess (εr 2.5 for a 4.3 laminate) still resolves the 2π multiple', () => {
     const L = [0.02, 0.032];
     const texts = synthCoupon({ sub: FR, width: 2.9e-3, lengths: L, freqs: FREQS, seed: 9, noise: 5e-4 });
