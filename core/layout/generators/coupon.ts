@@ -9,7 +9,7 @@
  * worst distance from a multiple of π is min(θ1, π − θ2), largest when θ1 = π − θ2, i.e.
  *     Δl = π / (β(f1) + β(f2))                 (β from the line model, dispersion included)
  * which keeps β·Δl symmetric about 90° and at least π/(1 + f2/f1) from 0° and 180° (for a constant εe). With the
- * usual 20° limit one pair covers up to f2/f1 ≈ 8; we stop at 30° (f2/f1 ≤ 5) and split wider bands into
+ * usual 20° limit (common practice for TRL lines) one pair covers up to f2/f1 ≈ 8; we stop at 30° (f2/f1 ≤ 5) and split wider bands into
  * geometric sub-bands, each with its own longer line sharing the shortest line as the common one (the multiline
  * arrangement). The shortest line is long enough (default 25 mm, at least 10·h) for the launches not to see each
  * other; all lines share its launches, so the error boxes cancel. An optional thru (the launches with the shortest

@@ -19,8 +19,8 @@
  * line that gives the smallest variance. Here V keeps only the magnitudes (real weights), a simplification of ours.
  *
  * Conditioning: a pair is useless where Δl is a multiple of half a guided wavelength (β·Δl = nπ), where both
- * eigenvalues meet. A frequency is kept only if some pair has β·Δl at least `minPhaseDeg` (default 20°, the margin
- * Marks' paper uses as the usual limit) away from every multiple of 180°.
+ * eigenvalues meet. A frequency is kept only if some pair has β·Δl at least `minPhaseDeg` (default 20°: the usual
+ * 20°–160° rule for a TRL line, common practice) away from every multiple of 180°.
  *
  * The 2π ambiguity of β·Δl is resolved with a first guess of γ (from the line model), which also tells which
  * eigenvalue is e^{−γΔl}.
