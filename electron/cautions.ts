@@ -12,4 +12,6 @@ export const CAUTIONS_TEXT = [
   'Milling glass-epoxy (FR-4) and ceramic-filled laminates makes fine glass and resin dust: extract it at the tool or cut wet, wear a suitable respirator and eye protection, clean up with a HEPA vacuum, never by blowing.',
   '',
   'Etchants (ferric or cupric chloride, persulfates, acid/peroxide) are corrosive and some give off toxic gas when mixed: wear gloves and eye protection, work ventilated, follow the supplier’s safety data sheet, never mix etchants, and dispose of spent etchant (it carries dissolved copper) as hazardous waste, never down the drain.',
+  '',
+  'Test equipment (a network analyser measuring a coupon): stay within its input power and DC limits, use ESD precautions, keep connectors clean and torqued, and follow the instrument’s manual.',
 ].join('\n');

@@ -5,6 +5,7 @@ import { buildCommand } from './build.ts';
 import { sweepCommand } from './sweep.ts';
 import { yieldCommand } from './yield.ts';
 import { sectionCommand } from './section.ts';
+import { couponCommand } from './coupon.ts';
 
 /** Every command of the CLI. Add a new command file and list it here. */
-export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand, sectionCommand];
+export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand, sectionCommand, couponCommand];

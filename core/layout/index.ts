@@ -10,6 +10,8 @@ export { smdFootprint } from './footprints.ts';
 export { klopfensteinProfile, grossbergPhi } from './klopfenstein1956Taper.ts';
 export { corporateFeed } from './generators/corporateFeed.ts';
 export type { CorporateFeedOptions } from './generators/corporateFeed.ts';
+export { laminateCoupon, planCoupon, couponForDesign } from './generators/coupon.ts';
+export type { CouponOptions, CouponPlan, CouponLinePlan } from './generators/coupon.ts';
 export { buildBoardGeometry, pieceOutlines, defaultGroundClearance, BOARD_MARGIN } from './geometry.ts';
 export type { PieceOutline } from './geometry.ts';
 export { tracePaths, designPaths, pathLength, DEFAULT_PHASE_TOLERANCE_DEG } from './paths.ts';

@@ -24,3 +24,4 @@ export { compareResponses, type ResponseDifference, type EntryDifference } from 
 export { responseCacheKey } from './cacheKey.ts';
 export { evaluateTargets, evaluateTarget, targetFrequencies, targetText, limitText, type TargetEvaluation, type TargetResult } from './targets.ts';
 export { coupledPairY, modeConstants } from './coupledPair.ts';
+export * from './coupon/index.ts';

@@ -9,7 +9,7 @@ import { DESIGN_COMMANDS, History, parseDesign, serializeDesign, newDesign, copy
 import type { Box, Region, Vec2 } from '../../../core/geometry/types.ts';
 import type { SubstrateSpec } from '../../../core/substrate/types.ts';
 import { InputError } from '../../../core/util/errors.ts';
-import { defaultGroundClearance, smdFootprint } from '../../../core/layout/index.ts';
+import { couponForDesign, defaultGroundClearance, smdFootprint, type CouponPlan } from '../../../core/layout/index.ts';
 import { sparamsAdmittance } from '../../../core/network/index.ts';
 import type { Scene } from '../board/scene.ts';
 import type { Preview } from '../board/BoardController.ts';
@@ -256,6 +256,28 @@ export class EditorState {
     if (this.edit('selection.paste', { clipboard: this.clipboard, offset: { x: step, y: -step } })) {
       this.selection = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)].filter((id) => !before.has(id)));
     }
+  }
+
+  /**
+   * Adds a laminate coupon (core couponForDesign: lines sized for this design's laminate and band) below the
+   * drawing, as one undo step, and selects it. Returns the plan, or the reason it was refused.
+   */
+  addCoupon(): CouponPlan | string {
+    let c: ReturnType<typeof couponForDesign>;
+    try { c = couponForDesign(this.doc); } catch (err) { return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : String(err); }
+    const before = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)]);
+    if (!this.edit('selection.paste', { clipboard: c.clipboard, offset: c.offset }, 'Add laminate coupon')) return this.status;
+    const added = [...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)].filter((id) => !before.has(id));
+    this.selectAndFrame(added);
+    this.status = `Laminate coupon added: ${c.plan.lines.length} lines`;
+    return c.plan;
+  }
+
+  /** Makes a measured laminate the design's substrate (εr and tanδ at fMeasure, wideband Debye), as one undo step. */
+  useMeasuredLaminate(er: number, tanDelta: number, fMeasure: number): boolean {
+    const ok = this.edit('design.setSubstrate', { substrate: { er, tanDelta, preset: null, dielectricModel: { kind: 'wideband-debye', fMeasure } } }, 'Use measured laminate');
+    if (ok) this.status = `Laminate set from the coupon: εr ${er.toPrecision(4)}, tanδ ${tanDelta.toPrecision(3)} at ${(fMeasure / 1e9).toPrecision(4)} GHz`;
+    return ok;
   }
 
   selectAll(): void { this.selection = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id), ...this.doc.areas.map((a) => a.id)]); }
