@@ -13,7 +13,7 @@ const XY: Order = { keys: ['x', 'y'] };
 const POINTS: Order = { keys: [], items: XY };
 const WIDTH: Order = { keys: ['by', 'z0', 'width'] };
 const ORDER: Order = {
-  keys: ['format', 'version', 'app', 'name', 'notes', 'substrate', 'frequency', 'process', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'targets', 'tolerances', 'junctions', 'view'],
+  keys: ['format', 'version', 'app', 'name', 'notes', 'substrate', 'frequency', 'process', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'targets', 'tolerances', 'junctions', 'asMade', 'view'],
   children: {
     substrate: { keys: ['preset', 'er', 'h', 't', 'tanDelta', 'sigma', 'roughness', 'dielectricModel'], children: { dielectricModel: { keys: ['kind', 'fMeasure'] } } },
     frequency: { keys: ['f0', 'band'], children: { band: { keys: ['start', 'stop'] } } },
