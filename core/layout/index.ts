@@ -14,7 +14,7 @@ export { laminateCoupon, planCoupon, couponForDesign } from './generators/coupon
 export type { CouponOptions, CouponPlan, CouponLinePlan } from './generators/coupon.ts';
 export { buildBoardGeometry, pieceOutlines, defaultGroundClearance, BOARD_MARGIN } from './geometry.ts';
 export type { PieceOutline } from './geometry.ts';
-export { tracePaths, designPaths, pathLength, DEFAULT_PHASE_TOLERANCE_DEG } from './paths.ts';
+export { tracePaths, designPaths, pathLength, phaseLength, DEFAULT_PHASE_TOLERANCE_DEG } from './paths.ts';
 export type { PathEntry, PathReport, PathOptions } from './paths.ts';
 export { boardGeometryOf, checkBoard } from './board.ts';
 export { checkFabrication, problemFindings, cutWidth, referenceGroundShiftPct, untoolableCopper, DEFAULT_LOSS_LIMIT_DB } from './checks.ts';

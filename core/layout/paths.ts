@@ -151,10 +151,18 @@ function teeShifts(p: SizedPiece): number {
   return d;
 }
 
+/**
+ * Copper length of a piece that counts toward a path's phase: its path copper less what modelled tees take into the
+ * junction. Every phase on a path (the ledger here, the yield estimate's made boards) counts it this one way.
+ */
+export function phaseLength(p: SizedPiece): number {
+  return pathLength(p) - teeShifts(p);
+}
+
 /** Electrical length of a piece's path copper, radians. */
 const piecePhase: PhaseFn = (p, f, cache, k) => {
   if (p.kind === 'lumped' || p.kind === 'sparams') return 0;
-  const L = pathLength(p) - teeShifts(p);
+  const L = phaseLength(p);
   if (p.sections && p.sections.length) {
     const scale = L / p.sections.reduce((s, x) => s + x.length, 0);
     let ph = 0;

@@ -11,7 +11,7 @@
 import { InputError, describe } from '../util/errors.ts';
 import type { SubstrateSpec, ToleranceQuantity } from '../design/types.ts';
 import { analyzeLines, type LineOptions } from '../line/index.ts';
-import { designPaths, pathLength, type PathReport } from '../layout/paths.ts';
+import { designPaths, phaseLength, type PathReport } from '../layout/paths.ts';
 import type { SizedDesign, SizedPiece } from '../layout/types.ts';
 import type { AbortLike } from '../network/sweep.ts';
 import { ToleranceDraws } from './draws.ts';
@@ -52,7 +52,7 @@ interface Leg { width: number; length: number }
 /** The copper legs of a piece on a path: (width, length) pairs as the ledger counts them. */
 function legs(p: SizedPiece): Leg[] {
   if (p.kind === 'lumped' || p.kind === 'sparams') return [];
-  const L = pathLength(p);
+  const L = phaseLength(p);
   if (p.sections && p.sections.length) {
     const scale = L / p.sections.reduce((s, x) => s + x.length, 0);
     return p.sections.map((s) => ({ width: s.width, length: s.length * scale }));
