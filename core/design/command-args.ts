@@ -8,6 +8,7 @@ import { InputError, describe } from '../util/errors.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import type { DesignDoc, DesignNode, DesignSegment } from './types.ts';
 import { pathText } from './issues.ts';
+import { schemaWords } from './schema-words.ts';
 import { idSchema, vec2Schema } from './schema.ts';
 
 export type Args = Record<string, unknown>;
@@ -22,10 +23,10 @@ export function checkWith<T>(schema: v.GenericSchema<unknown, T>, value: unknown
   const r = v.safeParse(schema, value);
   if (r.success) return r.output;
   const i = r.issues[0];
-  const keys = (i.path ?? []).map((p) => p.key as string | number);
-  const sub = keys.length ? pathText(keys) : '';
+  const w = schemaWords(schema, i);
+  const sub = w.keys.length ? pathText(w.keys) : '';
   const where = sub ? (sub.startsWith('[') ? field + sub : `${field}.${sub}`) : field;
-  throw new InputError(i.type === 'literal' || i.type === 'picklist' || i.type === 'variant' ? 'bad-choice' : 'invalid-design', where, i.message, i.input === undefined ? 'nothing' : describe(i.input));
+  throw new InputError(i.type === 'literal' || i.type === 'picklist' || i.type === 'variant' ? 'bad-choice' : 'invalid-design', where, w.expected, w.missing ? 'nothing' : describe(i.input));
 }
 
 export function argString(args: Args, key: string, what: string, opts: { optional?: boolean; max?: number } = {}): string | undefined {

@@ -11,7 +11,9 @@ export interface DesignIssue {
   path: string;
   expected: string;
   found: string;
-  /** The whole sentence to show. */
+  /** How to fix it, in words (also the end of `message`). */
+  fix?: string;
+  /** The whole sentence to show: `path: expected …, found …; fix`. */
   message: string;
   /** 1-based position in the text, for syntax problems. */
   line?: number;
@@ -20,7 +22,8 @@ export interface DesignIssue {
 
 export function issue(code: ErrorCode, path: string, expected: string, found: string, extra: Partial<DesignIssue> = {}): DesignIssue {
   const where = extra.line !== undefined ? ` (line ${extra.line}, column ${extra.column ?? 1})` : '';
-  return { code, path, expected, found, message: `${path}: expected ${expected}, found ${found}${where}`, ...extra };
+  const fix = extra.fix ? `; ${extra.fix}` : '';
+  return { code, path, expected, found, message: `${path}: expected ${expected}, found ${found}${where}${fix}`, ...extra };
 }
 
 /** Path text from valibot-style keys: ['segments', 3, 'width'] → `segments[3].width`. */

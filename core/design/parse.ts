@@ -37,43 +37,43 @@ export function parseDesign(text: string, opts: ValidateOptions = {}): ParseResu
 }
 
 function parseInner(text: string, opts: ValidateOptions): ParseResult {
-  if (typeof text !== 'string') return fail(issue('bad-file', 'file', 'the text of a design file', describe(text)));
+  if (typeof text !== 'string') return fail(issue('bad-file', 'file', 'the text of a design file', describe(text), { fix: 'open a design file' }));
   const warnings: Warning[] = [];
   // 1. Size, before any work proportional to it. text.length ≤ bytes ≤ 3·text.length for UTF-8.
   if (text.length > DESIGN_LIMITS.fileBytes || (text.length * 3 > DESIGN_LIMITS.fileBytes && utf8Length(text) > DESIGN_LIMITS.fileBytes)) {
-    return fail(issue('bad-file', 'file', `a design file of at most ${formatBytes(DESIGN_LIMITS.fileBytes)}`, formatBytes(utf8Length(text))));
+    return fail(issue('bad-file', 'file', `a design file of at most ${formatBytes(DESIGN_LIMITS.fileBytes)}`, formatBytes(utf8Length(text)), { fix: 'open the design file itself: this one is far larger than a design' }));
   }
   // 2. Decoding: a byte-order mark is harmless; NULs mean binary or UTF-16 read as UTF-8.
   if (text.charCodeAt(0) === 0xfeff) {
     text = text.slice(1);
     warnings.push({ code: 'note', severity: 'info', message: 'The file starts with a byte-order mark; it was ignored and is not written back.', source: 'design-file' });
   }
-  if (text.trim() === '') return fail(issue('bad-file', 'file', 'a Stripwright design (JSON text starting with {)', text.length === 0 ? 'an empty file' : 'only blank space'));
+  if (text.trim() === '') return fail(issue('bad-file', 'file', 'a Stripwright design (JSON text starting with {)', text.length === 0 ? 'an empty file' : 'only blank space', { fix: 'open the design file itself, or its backup copy' }));
   const nul = text.indexOf('\u0000');
   if (nul >= 0) {
     // UTF-16 read as UTF-8 puts a NUL beside every ASCII character near the start (after a mangled BOM).
     const utf16 = [0, 1, 2, 3].some((k) => text.charCodeAt(k) === 0);
-    return fail(issue('bad-file', 'file', 'UTF-8 text', utf16 ? 'UTF-16 text or binary data (NUL bytes); save the file as UTF-8' : 'binary data (NUL bytes): this is not a design file', { line: lineOf(text, nul), column: 1 }));
+    return fail(issue('bad-file', 'file', 'UTF-8 text', utf16 ? 'UTF-16 text or binary data (NUL bytes)' : 'binary data (NUL bytes): this is not a design file', { line: lineOf(text, nul), column: 1, fix: utf16 ? 'save the file as UTF-8' : 'open a design file' }));
   }
   // 3–5. Syntax, unsafe keys, depth and list sizes, with line and column.
   const scan = scanJson(text);
   if (scan) {
-    const e = issue('bad-file', 'file', scan.expected, scan.found, { line: scan.line, column: scan.column });
+    const e = issue('bad-file', 'file', scan.expected, scan.found, { line: scan.line, column: scan.column, fix: 'correct the text there, or open the backup copy' });
     if (scan.truncated) e.message = `file: ends early at line ${scan.line}, column ${scan.column} (expected ${scan.expected}); it looks cut short — nothing was loaded; open the backup copy or a recovery snapshot`;
     return fail(e);
   }
   const raw: unknown = JSON.parse(text);
   // 6. The envelope.
   if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
-    return fail(issue('bad-file', 'file', `a JSON object with "format": "${DESIGN_FORMAT}"`, describe(raw)));
+    return fail(issue('bad-file', 'file', `a JSON object with "format": "${DESIGN_FORMAT}"`, describe(raw), { fix: 'open a Stripwright design file' }));
   }
   const top = raw as Record<string, unknown>;
   if (top.format !== DESIGN_FORMAT) {
-    return fail(issue('bad-file', 'format', `"${DESIGN_FORMAT}" (this file is not a Stripwright design)`, top.format === undefined ? 'nothing (the field is missing)' : describe(top.format)));
+    return fail(issue('bad-file', 'format', `"${DESIGN_FORMAT}" (this file is not a Stripwright design)`, top.format === undefined ? 'nothing (the field is missing)' : describe(top.format), { fix: 'open a Stripwright design file' }));
   }
   const ver = top.version;
   if (typeof ver !== 'number' || !Number.isInteger(ver) || ver < 1) {
-    return fail(issue('bad-file', 'version', `a whole format number from 1 to ${DESIGN_VERSION}`, ver === undefined ? 'nothing (the field is missing)' : describe(ver)));
+    return fail(issue('bad-file', 'version', `a whole format number from 1 to ${DESIGN_VERSION}`, ver === undefined ? 'nothing (the field is missing)' : describe(ver), { fix: 'set "version" to the format the file was written in' }));
   }
   if (ver > DESIGN_VERSION) {
     const e = issue('unsupported-version', 'version', `format ${DESIGN_VERSION} or older`, String(ver));
@@ -83,7 +83,7 @@ function parseInner(text: string, opts: ValidateOptions): ParseResult {
   // List sizes, before the schema walks them.
   const counted: [string, number][] = [['nodes', DESIGN_LIMITS.nodes], ['segments', DESIGN_LIMITS.segments], ['areas', DESIGN_LIMITS.areas], ['phaseGroups', DESIGN_LIMITS.phaseGroups]];
   const big = counted.filter(([k, max]) => Array.isArray(top[k]) && (top[k] as unknown[]).length > max)
-    .map(([k, max]) => issue('bad-file', k, `at most ${max} ${k === 'phaseGroups' ? 'phase groups' : k}`, String((top[k] as unknown[]).length)));
+    .map(([k, max]) => issue('bad-file', k, `at most ${max} ${k === 'phaseGroups' ? 'phase groups' : k}`, String((top[k] as unknown[]).length), { fix: 'split the design into smaller ones' }));
   if (big.length) return fail(...big);
   // 7. Migration.
   let doc: Record<string, unknown> = top;

@@ -9,7 +9,8 @@ import { designSchema } from './schema.ts';
 import { crossCheck } from './crossref.ts';
 import { DESIGN_VERSION } from './migrations.ts';
 import { DESIGN_LIMITS } from './limits.ts';
-import { found, issue, pathText, type DesignIssue } from './issues.ts';
+import { issue, pathText, type DesignIssue } from './issues.ts';
+import { schemaWords } from './schema-words.ts';
 
 export type ValidateResult = { ok: true; doc: DesignDoc; warnings: Warning[] } | { ok: false; errors: DesignIssue[] };
 
@@ -38,10 +39,8 @@ export function validateDesign(doc: unknown, opts: ValidateOptions = {}): Valida
 }
 
 function toIssue(i: v.BaseIssue<unknown>): DesignIssue {
-  const keys = (i.path ?? []).map((p) => p.key as string | number);
-  // A missing field arrives with its parent's path plus the key and an undefined input.
-  const missing = i.input === undefined;
-  return issue('invalid-design', pathText(keys), i.message, missing ? 'nothing (the field is missing)' : found(i.input));
+  const w = schemaWords(SCHEMA, i);
+  return issue('invalid-design', pathText(w.keys), w.expected, w.found, { fix: w.fix });
 }
 
 /** Keeps the first DESIGN_LIMITS.issues problems and counts the rest in one closing line. */
