@@ -43,9 +43,17 @@ function path(o: Record<string, unknown>, key: string): string | Problem {
   return p;
 }
 
+/** A value as shown in a message: text quoted and cut, anything else by its kind (a BigInt or a cycle cannot be JSON). */
+function shown(v: unknown): string {
+  if (typeof v === 'string') return JSON.stringify(v.slice(0, 80));
+  if (v === null || v === undefined || typeof v === 'number' || typeof v === 'boolean') return String(v);
+  if (typeof v === 'bigint') return 'a big integer';
+  return Array.isArray(v) ? 'a list' : `${typeof v === 'object' ? 'an object' : `a ${typeof v}`}`;
+}
+
 function docId(o: Record<string, unknown>): string | Problem {
   const d = o.docId;
-  if (typeof d !== 'string' || !DOC_ID_RE.test(d)) return bad(`docId: expected 1–${LIMITS.docIdChars} letters, digits, '-' or '_', got ${JSON.stringify(d)?.slice(0, 80)}`);
+  if (typeof d !== 'string' || !DOC_ID_RE.test(d)) return bad(`docId: expected 1–${LIMITS.docIdChars} letters, digits, '-' or '_', got ${shown(d)}`);
   return d;
 }
 
@@ -159,7 +167,13 @@ export function guarded<C extends Channel>(channel: C, handler: Handler<C>): (ev
   return async (event, ...args) => {
     if (!isTrustedSender(event.senderFrame)) return fail('forbidden', `${channel}: refused a message that did not come from the Stripwright page.`);
     if (args.length > 1) return fail('bad-request', `${channel}: expected at most one argument, got ${args.length}.`);
-    const checked = VALIDATORS[channel](args[0]);
+    let checked: ReturnType<(typeof VALIDATORS)[C]>;
+    try {
+      checked = VALIDATORS[channel](args[0]) as ReturnType<(typeof VALIDATORS)[C]>;
+    } catch {
+      // A value no check foresaw (a getter that throws, an exotic object): refused, never an exception to the page.
+      return fail('bad-request', `${channel}: expected the request described in the bridge contract, got a value that could not be read.`);
+    }
     if ('problem' in checked) return fail(checked.tooLarge ? 'too-large' : 'bad-request', `${channel}: ${checked.problem}.`);
     try {
       return await handler(checked.value, event);

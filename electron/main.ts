@@ -12,7 +12,7 @@ import { DEFAULT_WINDOW, placeOnDisplays, readJson, validateWindowState, writeJs
 import { RecoveryStore } from './files/recovery-store.ts';
 import { registerBridge } from './ipc.ts';
 import { menuTemplate } from './menu.ts';
-import { APP_SCHEME } from './policy.ts';
+import { APP_SCHEME, devToolsAllowed } from './policy.ts';
 import { createBundleHandler } from './protocol.ts';
 import { Shell, type Dialogs } from './shell.ts';
 import { createMainWindow, hardenContents, windowStateOf } from './window.ts';
@@ -30,6 +30,8 @@ const PRELOAD = join(__dirname, 'preload.cjs');
 const ICON = join(__dirname, '..', 'assets', 'icon.png');
 const FILTERS = [{ name: 'Stripwright design', extensions: [...OPENABLE_EXTENSIONS] }];
 
+/** Developer tools only when run from source, never in a packaged app. */
+const DEVELOPMENT = devToolsAllowed(app.isPackaged);
 let win: BrowserWindow | null = null;
 let pageReady = false;
 const pendingOpens: string[] = [];
@@ -122,7 +124,7 @@ function start(): void {
       showRecoveryFolder: () => void electronShell.openPath(recovery.folder),
       showCautions: () => void messageBox({ type: 'warning', title: CAUTIONS_TITLE, message: CAUTIONS_TITLE, detail: CAUTIONS_TEXT, buttons: ['OK'] }),
       showAbout: () => void messageBox({ type: 'info', title: 'About Stripwright', message: `Stripwright ${app.getVersion()}`, detail: `Microstrip feed networks for boards made in-house.\nElectron ${process.versions.electron ?? '?'}, Chromium ${process.versions.chrome ?? '?'}.\nRecovery copies: ${recovery.folder}`, buttons: ['OK'] }),
-    }, recent.ok ? recent.value : [])));
+    }, recent.ok ? recent.value : [], process.platform, { development: DEVELOPMENT })));
   };
 
   // macOS hands files over with this event, also before 'ready'.
@@ -133,7 +135,7 @@ function start(): void {
     if (w) { if (w.isMinimized()) w.restore(); w.focus(); }
   });
   // Defence in depth: whatever contents are ever created get the same navigation and window rules.
-  app.on('web-contents-created', (_e, contents) => hardenContents(contents));
+  app.on('web-contents-created', (_e, contents) => hardenContents(contents, DEVELOPMENT));
   app.on('window-all-closed', () => app.quit());
 
   void app.whenReady().then(async () => {
@@ -156,7 +158,7 @@ function start(): void {
 
     const saved = await readJson(windowFile, validateWindowState, DEFAULT_WINDOW);
     const state = placeOnDisplays(saved, screen.getAllDisplays().map((d) => d.workArea));
-    win = createMainWindow({ preloadPath: PRELOAD, iconPath: ICON, state });
+    win = createMainWindow({ preloadPath: PRELOAD, iconPath: ICON, state, development: DEVELOPMENT });
     await refreshMenu();
 
     win.webContents.on('did-finish-load', () => {

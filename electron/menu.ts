@@ -19,7 +19,7 @@ export interface MenuActions {
 /** True when an accelerator has a modifier (a bare key like 'F' or '=' must never be taken from text fields). */
 const hasModifier = (a: string) => /(Cmd|Ctrl|CmdOrCtrl|Command|Control|Alt|Option|Super|Meta)\+/.test(a);
 
-export function menuTemplate(a: MenuActions, recent: RecentFile[], platform: string = process.platform): MenuItemConstructorOptions[] {
+export function menuTemplate(a: MenuActions, recent: RecentFile[], platform: string = process.platform, o: { development?: boolean } = {}): MenuItemConstructorOptions[] {
   const mac = platform === 'darwin';
   // The page's command registry owns the keys (it knows whether a text field has the focus), so the menu shows
   // them without registering them (Linux, Windows). macOS menus always own their key equivalents, so there bare keys
@@ -70,7 +70,8 @@ export function menuTemplate(a: MenuActions, recent: RecentFile[], platform: str
         cmd('&Fit Board', 'view.zoom-fit', 'F'),
         { type: 'separator' },
         { role: 'togglefullscreen' },
-        { role: 'toggleDevTools' },
+        // Developer tools only when run from source (policy.ts devToolsAllowed).
+        ...(o.development ? [{ role: 'toggleDevTools' as const }] : []),
       ],
     },
     {

@@ -38,16 +38,24 @@ export function permissionDecision(_permission: string): false {
 }
 
 /**
- * Which requests may leave the page (the webRequest filter): our own origin, blob: URLs created by our page, inline
- * data: images, and the devtools' own pages. Every http(s), ws, file or other scheme is cancelled, so no remote
- * content and no local file outside the bundle can load (items 1 and 18).
+ * Developer tools are for development only (a run from source, `npm start`): never in a packaged app, where they
+ * would give anyone at the keyboard a console with the page's bridge.
  */
-export function isAllowedRequest(url: string): boolean {
+export function devToolsAllowed(isPackaged: boolean): boolean {
+  return !isPackaged;
+}
+
+/**
+ * Which requests may leave the page (the webRequest filter): our own origin, blob: URLs created by our page, inline
+ * data: images, and — in development only — the devtools' own pages. Every http(s), ws, file or other scheme is
+ * cancelled, so no remote content and no local file outside the bundle can load (items 1 and 18).
+ */
+export function isAllowedRequest(url: string, o: { devTools?: boolean } = {}): boolean {
   const u = parse(url);
   if (!u) return false;
   if (u.protocol === 'data:') return true;
   if (u.protocol === 'blob:') return isAppUrl(url.slice('blob:'.length));
-  if (u.protocol === 'devtools:') return true;
+  if (u.protocol === 'devtools:') return o.devTools === true;
   return isAppUrl(url);
 }
 

@@ -6,8 +6,11 @@ import { BrowserWindow, type Session, type WebContents, type WebPreferences } fr
 import { APP_ENTRY, isAllowedNavigation, isAllowedRequest, permissionDecision } from './policy.ts';
 import type { WindowState } from './files/json-store.ts';
 
-/** Every security-relevant preference spelled out, even where it is Electron's default, so a change is visible. */
-export function secureWebPreferences(preloadPath: string): WebPreferences {
+/**
+ * Every security-relevant preference spelled out, even where it is Electron's default, so a change is visible.
+ * `development` (a run from source) is the only case with developer tools (policy.ts devToolsAllowed).
+ */
+export function secureWebPreferences(preloadPath: string, development = false): WebPreferences {
   return {
     preload: preloadPath,
     contextIsolation: true,            // item 3
@@ -22,21 +25,22 @@ export function secureWebPreferences(preloadPath: string): WebPreferences {
     webviewTag: false,                 // items 11–12: no <webview> at all
     navigateOnDragDrop: false,         // a file dropped on the window must not replace our page
     spellcheck: false,
-    devTools: true,
+    devTools: development,
   };
 }
 
 /** Item 5: deny every permission request and check; also refuse device (USB/HID/serial) access. */
-export function hardenSession(s: Session): void {
+export function hardenSession(s: Session, development = false): void {
   s.setPermissionRequestHandler((_wc, permission, callback) => callback(permissionDecision(permission)));
   s.setPermissionCheckHandler((_wc, permission) => permissionDecision(permission));
   s.setDevicePermissionHandler(() => false);
   // Items 1 and 18: nothing but our own origin loads; remote and file:// requests are cancelled.
-  s.webRequest.onBeforeRequest({ urls: ['<all_urls>'] }, (details, callback) => callback({ cancel: !isAllowedRequest(details.url) }));
+  s.webRequest.onBeforeRequest({ urls: ['<all_urls>'] }, (details, callback) => callback({ cancel: !isAllowedRequest(details.url, { devTools: development }) }));
 }
 
-/** Items 13, 14, 11: no navigation away, no new windows, no webviews. */
-export function hardenContents(wc: WebContents): void {
+/** Items 13, 14, 11: no navigation away, no new windows, no webviews; outside development, no developer tools. */
+export function hardenContents(wc: WebContents, development = false): void {
+  if (!development) wc.on('devtools-opened', () => wc.closeDevTools());
   wc.on('will-navigate', (event, url) => { if (!isAllowedNavigation(url)) event.preventDefault(); });
   wc.on('will-redirect', (event, url) => { if (!isAllowedNavigation(url)) event.preventDefault(); });
   wc.on('will-frame-navigate', (event) => { if (!isAllowedNavigation(event.url)) event.preventDefault(); });
@@ -44,7 +48,11 @@ export function hardenContents(wc: WebContents): void {
   wc.on('will-attach-webview', (event) => event.preventDefault());
 }
 
-export interface MainWindowOptions { preloadPath: string; iconPath?: string; state: WindowState }
+export interface MainWindowOptions {
+  preloadPath: string; iconPath?: string; state: WindowState;
+  /** A run from source (`!app.isPackaged`): developer tools allowed. Packaged: none. */
+  development?: boolean;
+}
 
 export function createMainWindow(o: MainWindowOptions): BrowserWindow {
   const win = new BrowserWindow({
@@ -57,10 +65,10 @@ export function createMainWindow(o: MainWindowOptions): BrowserWindow {
     title: 'Stripwright',
     backgroundColor: '#10202a',
     ...(o.iconPath ? { icon: o.iconPath } : {}),
-    webPreferences: secureWebPreferences(o.preloadPath),
+    webPreferences: secureWebPreferences(o.preloadPath, o.development ?? false),
   });
-  hardenSession(win.webContents.session);
-  hardenContents(win.webContents);
+  hardenSession(win.webContents.session, o.development ?? false);
+  hardenContents(win.webContents, o.development ?? false);
   if (o.state.maximized) win.maximize();
   win.once('ready-to-show', () => win.show());
   void win.loadURL(APP_ENTRY);

@@ -268,7 +268,7 @@ function parseOption(body: string, ln: number, bad: (line: number, e: string, g:
     else if (w === 'ri' || w === 'ma' || w === 'db') format = w;
     else if (w === 'r') {
       const v = Number(t[i + 1]);
-      if (t[i + 1] === undefined || !NUMBER.test(t[i + 1]) || !(v > 0)) throw bad(ln, 'a reference resistance > 0 after R', JSON.stringify(t[i + 1] ?? ''));
+      if (t[i + 1] === undefined || !NUMBER.test(t[i + 1]) || !(v > 0) || !Number.isFinite(v)) throw bad(ln, 'a finite reference resistance > 0 after R', JSON.stringify(t[i + 1] ?? ''));
       r = v; i++;
     } else throw bad(ln, 'an option line such as # GHz S RI R 50 (units Hz/kHz/MHz/GHz, S/Y/Z, RI/MA/DB, R ohms)', JSON.stringify(body));
   }

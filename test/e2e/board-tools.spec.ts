@@ -2,13 +2,10 @@
  * The board's tools and commands with mouse and keyboard, in Debian chromium under the app's CSP.
  * Facts checked: a quarter-wave stub ends in a via when shorted (trade practice: a shorted stub is grounded
  * through a via); a whole drag is one undo step (our requirement); mm ↔ mil display (1 mil = 25.4 µm).
- * Also writes the README screenshots (docs/screenshots/).
+ * Also takes the README screenshots (written into docs/screenshots/ only by `npm run screenshots`; see readme-shots.ts).
  */
 import { expect, test, type Page } from '@playwright/test';
-import { mkdirSync } from 'node:fs';
-
-const shots = 'docs/screenshots';
-mkdirSync(shots, { recursive: true });
+import { readmeShot } from './readme-shots.ts';
 
 const count = (page: Page, sel: string) => page.locator(sel).count();
 
@@ -36,14 +33,14 @@ test('the demo opens with true copper, and the overview screenshots', async ({ p
   await page.getByTestId('dock-response').click();
   await expect(page.getByTestId('response-plot')).toBeVisible({ timeout: 30_000 });
   await page.getByTestId('board-canvas').hover();
-  await page.screenshot({ path: `${shots}/editor-light.png` });
+  await readmeShot(page, 'editor-light.png');
   await page.getByTestId('dock-paths').click();
   await expect(page.getByTestId('path-ledger').locator('tbody tr')).toHaveCount(4);
   await page.getByTestId('theme').click();
   await expect(page.locator('html')).toHaveClass(/dark/);
   await page.mouse.move((await lineMid(page, 'qwl')).x, (await lineMid(page, 'qwl')).y);
   await expect(page.getByTestId('hover-readout')).toContainText('Z0');
-  await page.screenshot({ path: `${shots}/editor-dark-paths.png` });
+  await readmeShot(page, 'editor-dark-paths.png');
 });
 
 test('zoom with keys and wheel, fit, and switch to mil', async ({ page }) => {
@@ -149,7 +146,7 @@ test('the command finder runs any command by name', async ({ page }) => {
   await page.keyboard.press('Control+k');
   await expect(page.getByTestId('command-finder')).toBeVisible();
   await page.keyboard.type('theme');
-  await page.screenshot({ path: `${shots}/command-finder.png` });
+  await readmeShot(page, 'command-finder.png');
   await page.keyboard.press('Enter');
   await expect(page.getByTestId('command-finder')).toHaveCount(0);
   await expect(page.locator('html')).toHaveClass(/dark/);
@@ -183,7 +180,7 @@ test('the two-way divider example: response with isolation, and its screenshot',
   await page.getByTestId('dock-response').click();
   await expect(page.getByTestId('f0-S32')).toBeVisible({ timeout: 30_000 });
   await page.mouse.move(10, 300);
-  await page.screenshot({ path: `${shots}/divider-response.png` });
+  await readmeShot(page, 'divider-response.png');
 });
 
 test('the snap grid can be chosen in the status line and frames the selection with Shift+F', async ({ page }) => {

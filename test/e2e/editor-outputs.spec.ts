@@ -10,6 +10,7 @@
 import { expect, test } from '@playwright/test';
 import DxfParser from 'dxf-parser';
 import { readFileSync } from 'node:fs';
+import { readmeShot } from './readme-shots.ts';
 
 test('export DXF of the demo and read it back', async ({ page }) => {
   await page.goto('/');
@@ -18,7 +19,7 @@ test('export DXF of the demo and read it back', async ({ page }) => {
   await expect(page.getByTestId('outputs-panel')).toBeVisible();
   await expect(page.getByTestId('export-preview').locator('img')).toBeVisible({ timeout: 15_000 });
   await page.getByTestId('mirror').check();
-  await page.screenshot({ path: 'docs/screenshots/outputs.png' });
+  await readmeShot(page, 'outputs.png');
   const download = page.waitForEvent('download');
   await page.getByTestId('export-now').click();
   const file = await download;

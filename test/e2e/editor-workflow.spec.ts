@@ -6,7 +6,8 @@
  * 1980 and every microstrip model); the saved file reopens to the same design (the core's own serializer).
  */
 import { expect, test, type Page } from '@playwright/test';
-import { readFileSync, mkdirSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
+import { readmeShot } from './readme-shots.ts';
 
 async function canvas(page: Page) {
   const box = await page.getByTestId('board-canvas').boundingBox();
@@ -82,8 +83,7 @@ test('draw a two-way divider, size an arm, undo and redo, read the paths', async
   await page.getByTestId('dock-paths').click();
   const ledger = page.getByTestId('path-ledger');
   await expect(ledger.locator('tbody tr')).toHaveCount(2);
-  mkdirSync('docs/screenshots', { recursive: true });
-  await page.screenshot({ path: 'docs/screenshots/divider-sized.png' });
+  await readmeShot(page, 'divider-sized.png');
   expect(errors).toEqual([]);
 });
 

@@ -28,6 +28,8 @@ export class FakeWebContents extends FakeEmitter {
   sent: { channel: string; payload: unknown }[] = [];
   setWindowOpenHandler(h: Listener) { this.windowOpenHandler = h; }
   send(channel: string, payload: unknown) { this.sent.push({ channel, payload }); }
+  devToolsClosed = 0;
+  closeDevTools() { this.devToolsClosed++; }
 }
 
 export class FakeBrowserWindow extends FakeEmitter {

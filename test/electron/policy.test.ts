@@ -50,11 +50,12 @@ describe('permissions (checklist item 5)', () => {
 });
 
 describe('outgoing requests (checklist items 1 and 18)', () => {
-  it('lets through only our origin, our blobs, data: images and devtools', () => {
+  it('lets through only our origin, our blobs, data: images, and devtools in development only', () => {
     expect(isAllowedRequest(`${APP_ORIGIN}/assets/index-abc.js`)).toBe(true);
     expect(isAllowedRequest(`blob:${APP_ORIGIN}/0b1c-22`)).toBe(true);
     expect(isAllowedRequest('data:image/png;base64,AAAA')).toBe(true);
-    expect(isAllowedRequest('devtools://devtools/bundled/inspector.html')).toBe(true);
+    expect(isAllowedRequest('devtools://devtools/bundled/inspector.html', { devTools: true })).toBe(true);
+    expect(isAllowedRequest('devtools://devtools/bundled/inspector.html')).toBe(false);
   });
   for (const url of ['https://fonts.example.com/a.woff2', 'http://127.0.0.1:8080/', 'ws://localhost:1234', 'file:///etc/hosts', 'blob:https://evil.example/1', 'ftp://x/', 'chrome://settings'])
     it(`cancels ${url}`, () => expect(isAllowedRequest(url)).toBe(false));

@@ -32,6 +32,10 @@ describe('values that overflow are refused at read, with their line', () => {
     expect(e.code).toBe('bad-file');
     expect(e.message).toMatch(/x\.s1p:2/);
   });
+  it('a reference resistance that overflows (R 1e309) is refused on the option line (found by the fuzz suite)', () => {
+    const e = err(() => readTouchstone('# GHz S RI R 1e309\n1 0 0\n', { fileName: 'x.s1p' }));
+    expect(e.message).toMatch(/x\.s1p:1: expected a finite reference resistance/);
+  });
   it('a large but finite file reads with every value finite', () => {
     const d = readTouchstone('# GHz S DB R 50\n1 6000 0\n', { fileName: 'x.s1p' });
     for (const v of d.s) expect(Number.isFinite(v)).toBe(true);
