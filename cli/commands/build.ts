@@ -232,7 +232,8 @@ export const buildCommand: CliCommand = {
       const { findings } = checkBoard(sized, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
       const rep = buildReport(sized, paths, findings);
       rep.warnings.unshift(...parsed.warnings);
-      const targets = nominalTargets(sized);
+      // Targets need the network; a layout with problems has none (its errors are in the findings already).
+      const targets = sized.problems.length ? null : nominalTargets(sized);
       if (targets) rep.targets = targets;
       if (values.json) io.out(resultJson(rep, 2));
       else {

@@ -35,14 +35,21 @@ interface TableModel { key: string; sub: SubstrateSpec; width: number; table: Fl
 /** What a line element's model stands for: its table, its piece and its nominal width (for the derivative). */
 interface Tag { table: TableModel; piece: number; width: number; model: LineModel }
 
-type Value =
-  | { kind: 'line'; table: Float64Array; deriv: Float64Array | null; delta: number; length: number }
-  | { kind: 'g'; g: number }
-  | { kind: 'c'; c: number }
-  | { kind: 'l'; l: number }
-  | { kind: 'rl'; r: number | ((f: number) => number); l: number }
-  | { kind: 'y'; y: (f: number) => { re: number; im: number } }
-  | { kind: 'n'; y: (f: number) => Float64Array };
+const K_LINE = 0, K_G = 1, K_C = 2, K_L = 3, K_RL = 4, K_Y = 5, K_N = 6;
+
+/**
+ * A made board's element values in stamped order: a kind code each, and per kind — line: its table, derivative table,
+ * own width deviation and length (num); resistor: 1/R; capacitor: C; inductor: L; series R-L: L and R(f);
+ * admittance and n-port: their function.
+ */
+interface Columns {
+  kind: Int8Array;
+  table: (Float64Array | null)[];
+  deriv: (Float64Array | null)[];
+  delta: Float64Array;
+  num: Float64Array;
+  fn: (((f: number) => unknown) | null)[];
+}
 
 export class BatchSolver {
   private readonly cn: CompiledNetwork;
@@ -132,8 +139,8 @@ export class BatchSolver {
   private readonly pool: Float64Array[] = [];
 
   /**
-   * Tables of a board's (laminate, width) pairs: one batch analysis per laminate, frequency-major (every width at a
-   * point, then the next point), so the line model's per-frequency terms are computed once per point and per laminate.
+   * Tables of a board's (laminate, width) pairs: one batch analysis per laminate, width after width over the whole
+   * grid (the line model keeps its width terms while only the frequency changes; measured faster than the other order).
    */
   private tabulate(tables: TableModel[]): void {
     const F = this.freqs.length;
@@ -144,13 +151,13 @@ export class BatchSolver {
     for (const [sub, list] of bySub) {
       const K = list.length;
       const widths = new Float64Array(K * F), fs = new Float64Array(K * F);
-      for (let k = 0; k < F; k++) for (let j = 0; j < K; j++) { widths[k * K + j] = list[j]!.width; fs[k * K + j] = this.freqs[k]!; }
+      for (let j = 0; j < K; j++) for (let k = 0; k < F; k++) { widths[j * F + k] = list[j]!.width; fs[j * F + k] = this.freqs[k]!; }
       const c = analyzeLines(sub, widths, fs, this.line);
       list.forEach((t, j) => {
         const tab = (this.pool[slot] ??= new Float64Array(4 * F));
         slot++;
         for (let k = 0; k < F; k++) {
-          const i = k * K + j;
+          const i = j * F + k;
           lineConstantsFrom(c.z0[i]!, c.epsEff[i]!, c.alphaC[i]!, c.alphaD[i]!, this.freqs[k]!, out);
           tab[4 * k] = out.zc.re; tab[4 * k + 1] = out.zc.im; tab[4 * k + 2] = out.gamma.re; tab[4 * k + 3] = out.gamma.im;
         }
@@ -172,11 +179,14 @@ export class BatchSolver {
     return t;
   }
 
-  /** Element values of a made board, in stamped order. */
-  private values(net: SizedNetlist, tags: Map<LineModel, Tag>): Value[] {
+  /** Element values of a made board, in stamped order, as columns (one kind code and its numbers per element). */
+  private values(net: SizedNetlist, tags: Map<LineModel, Tag>): Columns {
     if (net.elements.length !== this.nominalWidth.length) throw new InputError('invalid-design', 'design', 'a made board with the nominal board\'s network', 'a different network');
     this.fallbackDelta.clear();
-    return Array.from(this.source, (i, idx) => {
+    const E = this.source.length;
+    const c: Columns = { kind: new Int8Array(E), table: new Array(E).fill(null), deriv: new Array(E).fill(null), delta: new Float64Array(E), num: new Float64Array(E), fn: new Array(E).fill(null) };
+    for (let idx = 0; idx < E; idx++) {
+      const i = this.source[idx]!;
       const el: NetElement = net.elements[i]!;
       const want = this.cn.stamped[idx]!.el.kind;
       if (el.kind !== want) throw new InputError('invalid-design', 'design', 'a made board with the nominal board\'s network', `${el.kind} where ${want} was`);
@@ -186,16 +196,18 @@ export class BatchSolver {
           const delta = this.pieceDw[tag.piece] ?? 0;
           const deriv = delta !== 0 ? this.derivative(this.nominalWidth[i]!) : null;
           this.fallbackDelta.set(tag, { deriv, delta });
-          return { kind: 'line', table: tag.table.table!, deriv, delta, length: el.length };
+          c.kind[idx] = K_LINE; c.table[idx] = tag.table.table!; c.deriv[idx] = deriv; c.delta[idx] = delta; c.num[idx] = el.length;
+          break;
         }
-        case 'resistor': return { kind: 'g', g: 1 / el.value };
-        case 'capacitor': return { kind: 'c', c: el.value };
-        case 'inductor': return { kind: 'l', l: el.value };
-        case 'series-rl': return { kind: 'rl', r: el.r, l: el.l };
-        case 'admittance': return { kind: 'y', y: el.y };
-        case 'nport': return { kind: 'n', y: el.y };
+        case 'resistor': c.kind[idx] = K_G; c.num[idx] = 1 / el.value; break;
+        case 'capacitor': c.kind[idx] = K_C; c.num[idx] = el.value; break;
+        case 'inductor': c.kind[idx] = K_L; c.num[idx] = el.value; break;
+        case 'series-rl': c.kind[idx] = K_RL; c.num[idx] = el.l; c.fn[idx] = typeof el.r === 'number' ? constant(el.r) : el.r; break;
+        case 'admittance': c.kind[idx] = K_Y; c.fn[idx] = el.y; break;
+        case 'nport': c.kind[idx] = K_N; c.fn[idx] = el.y; break;
       }
-    });
+    }
+    return c;
   }
 
   /**
@@ -221,49 +233,52 @@ export class BatchSolver {
   }
 
   /** mna.ts's evaluate + solveSparse at point k, on reused buffers; false where mna.ts would pivot instead. */
-  private solvePoint(vals: Value[], k: number, s: Float64Array): boolean {
+  private solvePoint(c: Columns, k: number, s: Float64Array): boolean {
     const cn = this.cn, sym = cn.symbolic, v = this.v, f = this.freqs[k]!;
     v.fill(0);
-    for (let idx = 0; idx < vals.length; idx++) {
-      const e = vals[idx]!, sl = cn.slots[idx]!;
+    const E = c.kind.length;
+    for (let idx = 0; idx < E; idx++) {
+      const kind = c.kind[idx]!, sl = cn.slots[idx]!;
       let y11r: number, y11i: number, y12r: number, y12i: number;
-      switch (e.kind) {
-        case 'line': {
-          const t = e.table, dd = e.deriv, x = e.delta;
-          let zcr = t[4 * k]!, zci = t[4 * k + 1]!, gr = t[4 * k + 2]!, gi = t[4 * k + 3]!;
-          if (dd) { zcr += x * dd[4 * k]!; zci += x * dd[4 * k + 1]!; gr += x * dd[4 * k + 2]!; gi += x * dd[4 * k + 3]!; }
-          if (!Number.isFinite(zcr) || !Number.isFinite(zci) || !Number.isFinite(gr) || !Number.isFinite(gi)) {
-            throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.zc`, 'a finite value from its model', `${zcr} + j${zci} at ${f} Hz`);
-          }
-          if (zcr === 0 && zci === 0) throw new InputError('out-of-range', `${cn.stamped[idx]!.el.id}.zc`, 'a non-zero characteristic impedance', '0');
-          const xr = gr * e.length, xi = gi * e.length;
-          const c = Math.cos(xi), sn = Math.sin(xi), shr = Math.sinh(xr), chr = Math.cosh(xr);
-          const coR = chr * c, coI = shr * sn, siR = shr * c, siI = chr * sn;
-          if (siR * siR + siI * siI < SINH_LIMIT * SINH_LIMIT) return false;
-          const zr = zcr * siR - zci * siI, zi = zcr * siI + zci * siR;
-          const d = zr * zr + zi * zi;
-          y12r = -zr / d; y12i = zi / d;
-          y11r = -(coR * y12r - coI * y12i); y11i = -(coR * y12i + coI * y12r);
-          break;
+      if (kind === K_LINE) {
+        const t = c.table[idx]!, dd = c.deriv[idx], x = c.delta[idx]!, len = c.num[idx]!;
+        let zcr = t[4 * k]!, zci = t[4 * k + 1]!, gr = t[4 * k + 2]!, gi = t[4 * k + 3]!;
+        if (dd) { zcr += x * dd[4 * k]!; zci += x * dd[4 * k + 1]!; gr += x * dd[4 * k + 2]!; gi += x * dd[4 * k + 3]!; }
+        if (!Number.isFinite(zcr) || !Number.isFinite(zci) || !Number.isFinite(gr) || !Number.isFinite(gi)) {
+          throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.zc`, 'a finite value from its model', `${zcr} + j${zci} at ${f} Hz`);
         }
-        case 'n': {
-          const y = e.y(f), m = Math.sqrt(sl.length);
-          if (y.length !== 2 * m * m) throw new InputError('invalid-design', `${cn.stamped[idx]!.el.id}.y`, `a ${m}×${m} admittance matrix`, `${y.length / 2} entries`);
-          for (const x of y) if (!Number.isFinite(x)) throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.y`, 'finite admittances', `a non-finite value at ${f} Hz`);
-          for (let t = 0; t < sl.length; t++) if (sl[t]! >= 0) { v[2 * sl[t]!] += y[2 * t]!; v[2 * sl[t]! + 1] += y[2 * t + 1]!; }
-          continue;
-        }
-        default: {
-          const y = admittance(e, f);
-          if (!Number.isFinite(y.re) || !Number.isFinite(y.im)) throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.admittance`, 'a finite value from its model', `${y.re} + j${y.im} at ${f} Hz`);
-          y11r = y.re; y11i = y.im; y12r = -y.re; y12i = -y.im;
-        }
+        if (zcr === 0 && zci === 0) throw new InputError('out-of-range', `${cn.stamped[idx]!.el.id}.zc`, 'a non-zero characteristic impedance', '0');
+        const xr = gr * len, xi = gi * len;
+        const co = Math.cos(xi), sn = Math.sin(xi), shr = Math.sinh(xr), chr = Math.cosh(xr);
+        const coR = chr * co, coI = shr * sn, siR = shr * co, siI = chr * sn;
+        if (siR * siR + siI * siI < SINH_LIMIT * SINH_LIMIT) return false;
+        const zr = zcr * siR - zci * siI, zi = zcr * siI + zci * siR;
+        const d = zr * zr + zi * zi;
+        y12r = -zr / d; y12i = zi / d;
+        y11r = -(coR * y12r - coI * y12i); y11i = -(coR * y12i + coI * y12r);
+      } else if (kind === K_N) {
+        const y = (c.fn[idx] as (f: number) => Float64Array)(f), m = Math.sqrt(sl.length);
+        if (y.length !== 2 * m * m) throw new InputError('invalid-design', `${cn.stamped[idx]!.el.id}.y`, `a ${m}×${m} admittance matrix`, `${y.length / 2} entries`);
+        for (const x of y) if (!Number.isFinite(x)) throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.y`, 'finite admittances', `a non-finite value at ${f} Hz`);
+        for (let t = 0; t < sl.length; t++) if (sl[t]! >= 0) { v[2 * sl[t]!] += y[2 * t]!; v[2 * sl[t]! + 1] += y[2 * t + 1]!; }
+        continue;
+      } else {
+        // Two-terminal admittances, written as mna.ts writes them (same operations, same order, the same signed zeros).
+        let re: number, im: number;
+        if (kind === K_G) { re = c.num[idx]!; im = 0; }
+        else if (kind === K_C) { re = 0; im = 2 * Math.PI * f * c.num[idx]!; }
+        else if (kind === K_L) { re = 0; im = -1 / (2 * Math.PI * f * c.num[idx]!); }
+        else if (kind === K_RL) { const y = cdiv({ re: 1, im: 0 }, { re: (c.fn[idx] as (f: number) => number)(f), im: 2 * Math.PI * f * c.num[idx]! }); re = y.re; im = y.im; }
+        else { const y = (c.fn[idx] as (f: number) => { re: number; im: number })(f); re = y.re; im = y.im; }
+        if (!Number.isFinite(re) || !Number.isFinite(im)) throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.admittance`, 'a finite value from its model', `${re} + j${im} at ${f} Hz`);
+        y11r = re; y11i = im; y12r = -re; y12i = -im;
       }
       // Slots aa, bb, ab, ba in this order, as solveSparse adds them.
-      if (sl[0]! >= 0) { v[2 * sl[0]!] += y11r; v[2 * sl[0]! + 1] += y11i; }
-      if (sl[1]! >= 0) { v[2 * sl[1]!] += y11r; v[2 * sl[1]! + 1] += y11i; }
-      if (sl[2]! >= 0) { v[2 * sl[2]!] += y12r; v[2 * sl[2]! + 1] += y12i; }
-      if (sl[3]! >= 0) { v[2 * sl[3]!] += y12r; v[2 * sl[3]! + 1] += y12i; }
+      const s0 = sl[0]!, s1 = sl[1]!, s2 = sl[2]!, s3 = sl[3]!;
+      if (s0 >= 0) { v[2 * s0] += y11r; v[2 * s0 + 1] += y11i; }
+      if (s1 >= 0) { v[2 * s1] += y11r; v[2 * s1 + 1] += y11i; }
+      if (s2 >= 0) { v[2 * s2] += y12r; v[2 * s2 + 1] += y12i; }
+      if (s3 >= 0) { v[2 * s3] += y12r; v[2 * s3 + 1] += y12i; }
     }
     for (const p of cn.ports) v[2 * sym.diag[sym.position[p.node]!]!] += 1 / p.zRef;
     const rowScale = this.rowScale;
@@ -292,13 +307,4 @@ export class BatchSolver {
   }
 }
 
-/** A two-terminal's admittance at f, written as mna.ts writes it (same operations, same order). */
-function admittance(e: Exclude<Value, { kind: 'line' } | { kind: 'n' }>, f: number): { re: number; im: number } {
-  switch (e.kind) {
-    case 'g': return { re: e.g, im: 0 };
-    case 'c': return { re: 0, im: 2 * Math.PI * f * e.c };
-    case 'l': return { re: 0, im: -1 / (2 * Math.PI * f * e.l) };
-    case 'rl': { const r = e.r; return cdiv({ re: 1, im: 0 }, { re: typeof r === 'number' ? r : r(f), im: 2 * Math.PI * f * e.l }); }
-    case 'y': return e.y(f);
-  }
-}
+function constant(r: number): (f: number) => number { return () => r; }

@@ -7,7 +7,7 @@ import { ComputeClient, type Progress } from '../worker/client.ts';
 import { runJob } from '../worker/jobs.ts';
 import type { EditorState } from './editor.svelte.ts';
 import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
-import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput } from '../worker/jobs.ts';
+import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput, YieldOutput } from '../worker/jobs.ts';
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -95,6 +95,33 @@ export class Compute {
       this.editor.flagged = new Set(out.value.findings.filter((f) => f.severity !== 'info').flatMap((f) => f.subjects));
     } else if ('error' in out) this.findingsError = out.error.message;
   }
+
+  // ---- yield: one run at a time, cancellable; the result belongs to the revision it was run on
+  yieldResult = $state.raw<YieldOutput | null>(null);
+  yieldRevision = $state<number | null>(null);
+  yieldError = $state<string | null>(null);
+  yieldProgress = $state.raw<Progress | null>(null);
+  private yieldStop: AbortController | null = null;
+
+  get yieldRunning(): boolean { return this.yieldProgress !== null; }
+
+  /** Make `samples` boards of the current design with `seed` and keep the result. */
+  async runYield(samples: number, seed: number): Promise<void> {
+    this.yieldStop?.abort();
+    const stop = new AbortController();
+    this.yieldStop = stop;
+    this.yieldError = null;
+    this.yieldProgress = { done: 0, total: samples, label: 'starting' };
+    const revision = this.editor.revision;
+    const out = await this.client.run<YieldOutput>('yield', { doc: this.editor.doc, samples, seed }, (p) => { if (this.yieldStop === stop) this.yieldProgress = p; }, stop.signal);
+    if (this.yieldStop !== stop) return; // a newer run took over
+    this.yieldStop = null;
+    this.yieldProgress = null;
+    if (out.ok) { this.yieldResult = out.value; this.yieldRevision = revision; }
+    else if ('error' in out) this.yieldError = out.error.field === 'cancelled' ? 'Stopped: the run was cancelled before it finished.' : out.error.message;
+  }
+
+  cancelYield(): void { this.yieldStop?.abort(); }
 
   destroy(): void { this.client.destroy(); }
 }

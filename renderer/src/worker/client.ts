@@ -10,7 +10,7 @@ export interface JobError { message: string; field?: string; expected?: string; 
 
 export type JobOutcome<T> = { ok: true; value: T; ms: number } | { ok: false; error: JobError } | { ok: false; superseded: true };
 
-type Runner = (kind: JobKind, input: unknown, progress: (p: Progress) => void) => Promise<unknown>;
+type Runner = (kind: JobKind, input: unknown, progress: (p: Progress) => void, signal?: AbortSignal) => Promise<unknown>;
 
 export class ComputeClient {
   private worker: Worker | null = null;
@@ -36,8 +36,10 @@ export class ComputeClient {
 
   get threaded(): boolean { return this.worker !== null; }
 
-  run<T>(kind: JobKind, input: unknown, progress?: (p: Progress) => void): Promise<JobOutcome<T>> {
+  run<T>(kind: JobKind, input: unknown, progress?: (p: Progress) => void, signal?: AbortSignal): Promise<JobOutcome<T>> {
     const id = this.next++;
+    // A cancelled job stops at its next pause and answers with an AbortError.
+    signal?.addEventListener('abort', () => { if (this.worker && this.pending.has(id)) this.worker.postMessage({ type: 'cancel', id }); }, { once: true });
     this.latest.set(kind, id);
     return new Promise<JobOutcome<T>>((resolve) => {
       const done = (o: JobOutcome<unknown>) => {
@@ -51,7 +53,7 @@ export class ComputeClient {
         return;
       }
       const t0 = performance.now();
-      this.inline(kind, input, (p) => progress?.(p)).then(
+      this.inline(kind, input, (p) => progress?.(p), signal).then(
         (value) => done({ ok: true, value, ms: performance.now() - t0 }),
         (err: unknown) => done({ ok: false, error: toJobError(err) }),
       );
@@ -80,6 +82,7 @@ export class ComputeClient {
 }
 
 export function toJobError(err: unknown): JobError {
+  if (err instanceof Error && err.name === 'AbortError') return { message: err.message, field: 'cancelled' };
   if (err && typeof err === 'object' && 'field' in err && 'expected' in err) {
     const e = err as { message: string; field: string; expected: string; got: string };
     return { message: e.message, field: e.field, expected: e.expected, got: e.got };

@@ -5,20 +5,28 @@
 import wasmUrl from 'clipper2-wasm/dist/es/clipper2z.wasm?url';
 import { initPolygons } from '../../../core/geometry/index.ts';
 import { runJob, setPolygonInit } from './jobs.ts';
-import type { JobRequest, WorkerMessage } from './protocol.ts';
+import type { CancelRequest, JobRequest, WorkerMessage } from './protocol.ts';
 import { toJobError } from './client.ts';
 
 setPolygonInit(() => initPolygons({ locateFile: () => wasmUrl }));
 
 const post = (m: WorkerMessage) => (self as unknown as { postMessage(m: WorkerMessage): void }).postMessage(m);
 
-self.onmessage = async (e: MessageEvent<JobRequest>) => {
+// Jobs that can be stopped (a yield run): the editor's cancel reaches them between chunks.
+const running = new Map<number, AbortController>();
+
+self.onmessage = async (e: MessageEvent<JobRequest | CancelRequest>) => {
+  if (e.data.type === 'cancel') { running.get(e.data.id)?.abort(); return; }
   const { id, kind, input } = e.data;
   const t0 = performance.now();
+  const ctl = new AbortController();
+  running.set(id, ctl);
   try {
-    const value = await runJob(kind, input, (p) => post({ type: 'progress', id, ...p }));
+    const value = await runJob(kind, input, (p) => post({ type: 'progress', id, ...p }), ctl.signal);
     post({ type: 'result', id, value, ms: performance.now() - t0 });
   } catch (err) {
     post({ type: 'error', id, ...toJobError(err) });
+  } finally {
+    running.delete(id);
   }
 };

@@ -11,6 +11,7 @@ import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { Finding } from '../../../core/layout/checks.ts';
 import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
 import { InputError, exhaustive } from '../../../core/util/errors.ts';
+import { runYield, type YieldResult } from '../../../core/yield/index.ts';
 import { EXPORT_FILE_NAMES, toDxf, toSvg, toGerber, toExcellon, toMask, exportGcode, planDesignMilling, millingPreviewSvg, type ExportLayer } from '../../../core/export/index.ts';
 import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/toolpath/index.ts';
 import type { JobKind } from './protocol.ts';
@@ -57,8 +58,9 @@ function lineCache(doc: DesignDoc): LineCache {
   return cache.cache;
 }
 
-export async function runJob(kind: JobKind, input: unknown, progress: (p: Progress) => void): Promise<unknown> {
+export async function runJob(kind: JobKind, input: unknown, progress: (p: Progress) => void, signal?: AbortSignal): Promise<unknown> {
   switch (kind) {
+    case 'yield': return yieldJob(input as YieldInput, progress, signal);
     case 'layout': return layoutJob(input as LayoutInput, progress);
     case 'geometry': return geometryJob(input as LayoutInput);
     case 'export': return exportJob(input as ExportInput);
@@ -230,4 +232,19 @@ export async function millingJob(input: MillingInput): Promise<MillingOutput> {
     milled: plan.milled.copper,
     files: r.files.map((f) => ({ name: f.name, data: f.text })),
   };
+}
+
+// ---- yield (core/yield): a seeded Monte Carlo of made boards against the design's targets ------------------------
+
+export interface YieldInput { doc: DesignDoc; samples: number; seed: number }
+/** The core's result without the per-board values (the histograms carry them), so it crosses to the page quickly. */
+export type YieldOutput = Omit<YieldResult, 'targets'> & { targets: Omit<YieldResult['targets'][number], 'values'>[] };
+
+export async function yieldJob(input: YieldInput, progress: (p: Progress) => void, signal?: AbortSignal): Promise<YieldOutput> {
+  const r = await runYield(input.doc, {
+    samples: input.samples, seed: input.seed, chunk: 8, ...(signal ? { signal } : {}),
+    onProgress: (done, total) => progress({ done, total, label: 'making boards' }),
+    yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
+  });
+  return { ...r, targets: r.targets.map(({ values: _v, ...t }) => t) };
 }

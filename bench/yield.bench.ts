@@ -1,0 +1,48 @@
+/**
+ * Yield benchmark (README Benchmarks, `npm run bench -- yield`), CPU time of this process on one core:
+ *  1. 1000 boards of the Wilkinson example (its own tolerances: board-wide εr, h, tanδ, t, etch bias; per-piece width
+ *     error and resistor) at 201 points, every board analysed in full and its four targets evaluated (ranking off;
+ *     then the default 100-board ranking on its own). Target: ≤ 1 s.
+ *  2. 10 000 boards of the generated 64-output corporate feed's 64 path phases with board-wide εr, h, t and tool width
+ *     exact (every width re-analysed per board); no per-piece tolerance (a per-piece width error would enter to first
+ *     order, path-phase.ts). Target: ≤ 1 s.
+ * A warm-up run precedes each measure (the engine compiles the hot loops on first use).
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { corporateFeed, sizeDesign, designPaths, parseDesign, runYield, pathPhaseMonteCarlo } from '../core/index.ts';
+
+function cpuMs(t0: NodeJS.CpuUsage): number { const c = process.cpuUsage(t0); return (c.user + c.system) / 1000; }
+
+export async function run(): Promise<void> {
+  const r = parseDesign(readFileSync(join(import.meta.dirname, '..', 'assets', 'examples', 'wilkinson-2g45.json'), 'utf8'));
+  if (!r.ok) throw new Error('the Wilkinson example does not load');
+  await runYield(r.doc, { samples: 100, seed: 1, rankingSamples: 0 });
+  let t = process.cpuUsage();
+  const y = await runYield(r.doc, { samples: 1000, seed: 1, rankingSamples: 0 });
+  const tMain = cpuMs(t);
+  t = process.cpuUsage();
+  await runYield(r.doc, { samples: 100, seed: 1, rankingSamples: 0 });
+  const t100 = cpuMs(t);
+  t = process.cpuUsage();
+  await runYield(r.doc, { samples: 100, seed: 1, rankingSamples: 100 });
+  const tRank = cpuMs(t) - t100;
+  console.log(`yield: Wilkinson, 1000 boards × ${y.freqs.length} points, ${y.targets.length} targets, ${y.tolerances.length} tolerances: ${tMain.toFixed(0)} ms CPU (target ≤ 1000 ms; ${(tMain / 1000).toFixed(2)} ms per board); overall yield ${(100 * y.overall.yield.p).toFixed(1)} %`);
+  console.log(`yield: its one-at-a-time ranking (${y.tolerances.length} tolerances × 100 boards): ${tRank.toFixed(0)} ms CPU`);
+
+  const doc = corporateFeed({ outputs: 64 });
+  doc.tolerances = [
+    { quantity: 'er', distribution: 'normal', spread: 0.1, scope: 'board' },
+    { quantity: 'h', distribution: 'normal', spread: 50e-6, scope: 'board' },
+    { quantity: 't', distribution: 'normal', spread: 3e-6, scope: 'board' },
+    { quantity: 'tool-width', distribution: 'uniform', spread: 20e-6, scope: 'board' },
+  ];
+  const sized = sizeDesign(doc);
+  const reports = designPaths(sized, { sensitivities: false });
+  await pathPhaseMonteCarlo(sized, { samples: 1000, seed: 1, reports });
+  t = process.cpuUsage();
+  const p = await pathPhaseMonteCarlo(sized, { samples: 10_000, seed: 1, reports });
+  const tPhase = cpuMs(t);
+  const g = p.groups[0]!;
+  console.log(`yield: 64-output feed, 10 000 boards × ${g.paths.length} path phases (board-wide εr, h, t, tool width, exact): ${tPhase.toFixed(0)} ms CPU (target ≤ 1000 ms); phase σ ${g.paths[0]!.stats.sd.toFixed(1)}° of ${g.paths[0]!.nominalDeg.toFixed(0)}°, balance within ±${g.toleranceDeg}° on ${(100 * g.balance.within.p).toFixed(1)} %`);
+}
