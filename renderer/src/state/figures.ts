@@ -16,7 +16,10 @@ export interface PieceFigures {
   eeff?: number;
   /** Physical length, m, after compensations. */
   length: number;
-  /** Electrical length at f0, degrees. */
+  /**
+   * Electrical length the piece realises at f0, degrees: with its end corrections, and from a modelled tee's reference
+   * planes (the sizing's effectiveDeg) — the number a degrees spec asks for.
+   */
   electricalDeg: number;
   /** Length corrections at the ends (open end, via, bends, pads), applied or advisory, from the sizing. */
   compensations: { model: string; source: string; amount: number; applied: boolean; node: string; note: string }[];

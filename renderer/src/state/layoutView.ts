@@ -28,7 +28,7 @@ export function figuresFrom(sized: SizedDesign): Map<string, PieceFigures> {
   const m = new Map<string, PieceFigures>();
   for (const p of sized.pieces) {
     m.set(p.id, {
-      id: p.id, width: p.width, widthEnd: p.widthB, z0: p.z0, eeff: p.line?.epsEff, length: p.length, electricalDeg: p.deg,
+      id: p.id, width: p.width, widthEnd: p.widthB, z0: p.z0, eeff: p.line?.epsEff, length: p.length, electricalDeg: p.effectiveDeg,
       compensations: p.compensations.filter((c) => !c.junction).map((c) => ({ model: c.model, source: c.source, amount: c.amount_m, applied: c.applied, node: c.node, note: c.note })),
       junctions: p.compensations.filter((c) => c.junction).map((c) => ({
         node: c.node, kind: c.junction!.kind, role: c.junction!.role, source: c.source, modelled: c.junction!.modelled, inRange: c.junction!.inRange,
