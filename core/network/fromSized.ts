@@ -29,7 +29,7 @@ import { InputError } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import { analyzeLine, lineConstants, type LineOptions } from '../line/index.ts';
 import { viaGround } from '../discontinuity/goldfarbPucel1991Via.ts';
-import { teeJunction, teeShiftsInto, teeTurnsRatioSquared, TEE_SOURCE } from '../discontinuity/hammerstad1981TeeJunction.ts';
+import { prepareTee, teeJunction, teeShiftsInto, teeTurnsRatioSquared, TEE_SOURCE } from '../discontinuity/hammerstad1981TeeJunction.ts';
 import { starAdmittance, starBuffers } from './junctionStar.ts';
 import type { SizedDesign, SizedNode, SizedPiece } from '../layout/types.ts';
 import { GROUND, type LineModel, type NetElement, type NetPort, type Netlist } from './netlist.ts';
@@ -262,12 +262,13 @@ function teeElements(
     const arms = ids.map((id) => ({ model: modelFor(pieces.get(id)!.width) }));
     const where = `nodes.${n.id}`;
     const planes = new Float64Array(4);
+    const prep = prepareTee(t.arms.main, t.arms.branch, h);
     const state = { lengths: [0, 0, 0], n: [1, 1, 1] };
     const buf = starBuffers(3);
     elements.push({
       kind: 'nport', id: `${n.id}:tee`, nodes,
       y: (f) => {
-        teeShiftsInto(t.arms.main, t.arms.branch, h, f, planes);
+        teeShiftsInto(prep, f, planes);
         state.lengths[0] = keep[0]! - planes[0]!; state.lengths[1] = keep[1]! - planes[1]!; state.lengths[2] = keep[2]! - planes[2]!;
         state.n[2] = Math.sqrt(teeTurnsRatioSquared(planes[3]!, f, where));
         return starAdmittance(arms, state, f, buf);
