@@ -99,11 +99,46 @@ export function teeJunction(p: { main: [TeeArm, TeeArm]; branch: TeeArm; h: numb
   return { d1: [a.d1, b.d1], d2: (a.d2 + b.d2) / 2, n2: (a.n2 + b.n2) / 2, F, perArm: [a, b], warnings };
 }
 
+/** The frequency-independent part of a tee (per main arm: D1, fp1, r and the ln/exp term of d2), for the network. */
+export interface TeePrepared { D2: number; D1: Float64Array; fp1: Float64Array; r: Float64Array; g: Float64Array }
+
+export function prepareTee(main: [TeeArm, TeeArm], branch: TeeArm, h: number): TeePrepared {
+  const p: TeePrepared = { D2: (ETA0 * h) / (Math.sqrt(branch.ee) * branch.z), D1: new Float64Array(2), fp1: new Float64Array(2), r: new Float64Array(2), g: new Float64Array(2) };
+  for (let k = 0; k < 2; k++) {
+    const m = main[k]!;
+    const r = m.z / branch.z;
+    p.D1[k] = (ETA0 * h) / (Math.sqrt(m.ee) * m.z);
+    p.fp1[k] = m.z / (2 * MU0 * h);
+    p.r[k] = r;
+    p.g[k] = 0.05 + 0.7 * Math.exp(-1.6 * r) - 0.17 * Math.log(r);
+  }
+  return p;
+}
+
+/**
+ * The same shifts and n² as `teeJunction`, without checks or warnings, written into `out` — for the network, which
+ * asks for them at every sweep frequency (inputs already checked by the sizing's `teeJunction` at f0).
+ * out = [d1 of main arm 0, d1 of main arm 1, d2, n²].
+ */
+export function teeShiftsInto(p: TeePrepared, f: number, out: Float64Array): void {
+  let d2Sum = 0, n2Sum = 0;
+  for (let k = 0; k < 2; k++) {
+    const r = p.r[k]!, D1 = p.D1[k]!, x = f / p.fp1[k]!;
+    const F = x * x;
+    out[k] = 0.055 * p.D2 * r * (1 - 2 * r * F);
+    const q = r * (p.g[k]! + 0.25 * r * F); // 0.5 − d2/D1
+    d2Sum += D1 * (0.5 - q);
+    n2Sum += 1 - Math.PI * F * ((r * r) / 12 + q * q);
+  }
+  out[2] = d2Sum / 2;
+  out[3] = n2Sum / 2;
+}
+
 /** n² at f for the network, refused (not clamped) where the model has no meaning left. */
-export function teeTurnsRatioSquared(t: TeeJunction, f: number, where: string): number {
-  if (!(t.n2 >= TEE_N2_MIN)) {
-    throw new InputError('out-of-range', where, `a frequency where the tee model holds (n² ≥ ${TEE_N2_MIN})`, `n² = ${t.n2.toFixed(3)} at ${(f / 1e9).toFixed(3)} GHz`,
+export function teeTurnsRatioSquared(n2: number, f: number, where: string): number {
+  if (!(n2 >= TEE_N2_MIN)) {
+    throw new InputError('out-of-range', where, `a frequency where the tee model holds (n² ≥ ${TEE_N2_MIN})`, `n² = ${n2.toFixed(3)} at ${(f / 1e9).toFixed(3)} GHz`,
       'sweep to a lower frequency, or choose ideal junctions for the design');
   }
-  return t.n2;
+  return n2;
 }

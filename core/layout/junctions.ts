@@ -83,8 +83,8 @@ export function sizeTee(node: string, arms: TeeArmInput[], o: { h: number; f0: n
 }
 
 /** A junction with no model at hand: reported on each arm, joined at its centre. */
-export function noJunctionModel(node: string, kind: 'cross' | 'other', armIds: string[]): { warning: Warning; compensation: Compensation } {
-  const what = kind === 'cross' ? 'a cross (four arms)' : 'arms not in a T (two in line, one square to them)';
+export function noJunctionModel(node: string, kind: 'cross' | 'other', armIds: string[], reason?: string): { warning: Warning; compensation: Compensation } {
+  const what = reason ?? (kind === 'cross' ? 'a cross (four arms)' : 'arms not in a T (two in line, one square to them)');
   const validity = `${what}: no published model at hand; arms joined at the centre`;
   return {
     warning: warn('advisory-model', `${kind === 'cross' ? 'cross' : 'junction'} ${node}: ${validity}, so its effect is not in the sweep`, { subjects: [node, ...armIds], severity: 'info' }),

@@ -398,7 +398,8 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
             if (a.compensation.applied) { w.cut += a.compensation.amount_m; w.teeReserve += a.reserve; }
           }
         } else if (arms.length >= 3 || segs.length === 4) {
-          const r = noJunctionModel(n.id, segs.length === 4 ? 'cross' : 'other', arms.map((w) => w.seg.id));
+          // A cross, or three line-like arms one of which is a taper (the tee model is for uniform lines).
+          const r = noJunctionModel(n.id, segs.length === 4 ? 'cross' : 'other', arms.map((w) => w.seg.id), segs.length === 4 ? undefined : 'a taper meets it (the tee model is for uniform lines)');
           if (segs.length === 4) sn.cross = { arms: segs.map((w) => w.seg.id) };
           sn.warnings.push(r.warning);
           for (const w of arms) comp(w, { ...r.compensation });

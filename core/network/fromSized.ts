@@ -33,8 +33,8 @@ import { analyzeLine, lineConstants, coupledInto, coupledNumbers, type LineOptio
 import type { SubstrateSpec } from '../substrate/types.ts';
 import { coupledPairY, modeConstants } from './coupledPair.ts';
 import { viaGround } from '../discontinuity/goldfarbPucel1991Via.ts';
-import { teeJunction, teeTurnsRatioSquared, TEE_SOURCE } from '../discontinuity/hammerstad1981TeeJunction.ts';
-import { starAdmittance } from './junctionStar.ts';
+import { prepareTee, teeJunction, teeShiftsInto, teeTurnsRatioSquared, TEE_SOURCE } from '../discontinuity/hammerstad1981TeeJunction.ts';
+import { starAdmittance, starBuffers } from './junctionStar.ts';
 import type { SizedDesign, SizedNode, SizedPiece } from '../layout/types.ts';
 import { GROUND, type LineModel, type NetElement, type NetPort, type Netlist } from './netlist.ts';
 import { sparamsAdmittance } from './sparamsPart.ts';
@@ -301,12 +301,17 @@ function teeElements(
     });
     const arms = ids.map((id) => ({ model: pieceModel(pieces.get(id)!) }));
     const where = `nodes.${n.id}`;
+    const planes = new Float64Array(4);
+    const prep = prepareTee(t.arms.main, t.arms.branch, h);
+    const state = { lengths: [0, 0, 0], n: [1, 1, 1] };
+    const buf = starBuffers(3);
     elements.push({
       kind: 'nport', id: `${n.id}:tee`, nodes,
       y: (f) => {
-        const j = teeJunction({ main: t.arms.main, branch: t.arms.branch, h, f });
-        const n2 = teeTurnsRatioSquared(j, f, where);
-        return starAdmittance(arms, { lengths: [keep[0]! - j.d1[0], keep[1]! - j.d1[1], keep[2]! - j.d2], n: [1, 1, Math.sqrt(n2)] }, f);
+        teeShiftsInto(prep, f, planes);
+        state.lengths[0] = keep[0]! - planes[0]!; state.lengths[1] = keep[1]! - planes[1]!; state.lengths[2] = keep[2]! - planes[2]!;
+        state.n[2] = Math.sqrt(teeTurnsRatioSquared(planes[3]!, f, where));
+        return starAdmittance(arms, state, f, buf);
       },
     });
     warnings.push(warn('note', `tee ${n.id}: Hammerstad 1981 reference planes and branch transformer at every frequency; junction susceptance omitted`, { source: TEE_SOURCE, subjects: [n.id], severity: 'info' }));

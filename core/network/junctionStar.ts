@@ -26,11 +26,22 @@ export interface StarArm {
 /** Per frequency: each arm's line length (m, > 0) and turns ratio n (1 for a direct arm), and Y_J (S, re/im). */
 export interface StarState { lengths: number[]; n: number[]; yJ?: [number, number] }
 
-/** The admittance matrix (m×m, row-major, interleaved re/im) of the star at frequency f. */
-export function starAdmittance(arms: StarArm[], state: StarState, f: number): Float64Array {
+/** Work space for `starAdmittance` with m arms, reused across frequencies. */
+export interface StarBuffers { aRe: Float64Array; aIm: Float64Array; bRe: Float64Array; bIm: Float64Array; dRe: Float64Array; dIm: Float64Array; uRe: Float64Array; uIm: Float64Array; y: Float64Array }
+
+export function starBuffers(m: number): StarBuffers {
+  const a = () => new Float64Array(m);
+  return { aRe: a(), aIm: a(), bRe: a(), bIm: a(), dRe: a(), dIm: a(), uRe: a(), uIm: a(), y: new Float64Array(2 * m * m) };
+}
+
+/**
+ * The admittance matrix (m×m, row-major, interleaved re/im) of the star at frequency f, written into `buf.y` and
+ * returned: it is valid until the next call with the same buffers (the solver uses an n-port's matrix only for the
+ * frequency it asked it for).
+ */
+export function starAdmittance(arms: StarArm[], state: StarState, f: number, buf: StarBuffers = starBuffers(arms.length)): Float64Array {
   const m = arms.length;
-  const aRe = new Float64Array(m), aIm = new Float64Array(m), bRe = new Float64Array(m), bIm = new Float64Array(m);
-  const dRe = new Float64Array(m), dIm = new Float64Array(m);
+  const { aRe, aIm, bRe, bIm, dRe, dIm, uRe, uIm } = buf;
   let sRe = state.yJ?.[0] ?? 0, sIm = state.yJ?.[1] ?? 0;
   for (let k = 0; k < m; k++) {
     const { zc, gamma } = arms[k]!.model(f);
@@ -47,10 +58,9 @@ export function starAdmittance(arms: StarArm[], state: StarState, f: number): Fl
     sIm += (aIm[k]! * bRe[k]! - aRe[k]! * bIm[k]!) / bm;
   }
   // u_k = 1/B_k
-  const uRe = new Float64Array(m), uIm = new Float64Array(m);
   for (let k = 0; k < m; k++) { const bm = bRe[k]! * bRe[k]! + bIm[k]! * bIm[k]!; uRe[k] = bRe[k]! / bm; uIm[k] = -bIm[k]! / bm; }
   const sm = sRe * sRe + sIm * sIm, isRe = sRe / sm, isIm = -sIm / sm; // 1/S
-  const y = new Float64Array(2 * m * m);
+  const y = buf.y;
   for (let k = 0; k < m; k++) {
     for (let j = 0; j < m; j++) {
       // −u_k u_j / S

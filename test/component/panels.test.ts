@@ -40,7 +40,11 @@ describe('piece sheet', () => {
     const w = mm(screen.getByTestId('fig-width').textContent!);
     expect(w).toBeGreaterThan(1.57 * 0.95);
     expect(w).toBeLessThan(1.6 * 1.05);
-    const l = mm(screen.getByTestId('fig-length').textContent!);
+    // The copper also runs into the tee at tl by its reference-plane shift (Hammerstad 1981): the quarter-wave is
+    // what lies beyond the plane.
+    const shift = ed.figuresOf('qwl')!.junctions.find((j) => j.kind === 'tee')!.shift!;
+    expect(shift).toBeGreaterThan(0);
+    const l = mm(screen.getByTestId('fig-length').textContent!) - shift * 1e3;
     expect(l).toBeGreaterThan(7.2 * 0.95);
     expect(l).toBeLessThan(7.2 * 1.05);
     expect(screen.getByTestId('fig-deg').textContent).toBe('90.0°');
@@ -244,6 +248,32 @@ describe('hover notes for nodes', () => {
     const note = notes.get('c1')!;
     expect(note).toMatch(/^bend 90\.0°, miter \d+ %/);
     expect(Math.abs(parseFloat(note.match(/miter (\d+) %/)![1]!) - M)).toBeLessThanOrEqual(1);
-    expect(notes.get('t0')).toBe('tee');
+    expect(notes.get('t0')).toMatch(/^tee, planes \d\.\d{3} mm \/ \d\.\d{3} mm \/ \d\.\d{3} mm, n² 0\.\d{3}$/);
+  });
+});
+
+describe('junctions on the piece sheet and in Stack & band (Hammerstad 1981 tee)', () => {
+  it('lists the tee at each end of a branch-line shunt arm as modelled; choosing ideal junctions is one undoable edit that shortens the arm', async () => {
+    const ed = editorOn('branchline-10g4');
+    await sized(ed);
+    ed.select(['shunt1']);
+    render(PieceSheet, { editor: ed });
+    const table = screen.getByTestId('junctions');
+    const rows = [...table.querySelectorAll('tbody tr')].map((r) => r.textContent!);
+    expect(rows).toHaveLength(2);
+    for (const r of rows) { expect(r).toMatch(/tee \(branch\)/); expect(r).toMatch(/modelled/); expect(r).toMatch(/dB/); }
+    const modelledLength = mm(screen.getByTestId('fig-length').textContent!);
+    render(StackPanel, { editor: ed });
+    const pick = screen.getByTestId('field-junctions') as HTMLSelectElement;
+    expect(pick.value).toBe('modelled');
+    await fireEvent.change(pick, { target: { value: 'ideal' } });
+    expect(ed.doc.junctions).toBe('ideal');
+    await sized(ed);
+    flushSync();
+    expect([...screen.getByTestId('junctions').querySelectorAll('tbody tr')].every((r) => /ideal/.test(r.textContent!))).toBe(true);
+    // Without the tee planes the shunt arm's copper is its 90° alone: shorter by the two branch shifts.
+    expect(mm(screen.getByTestId('fig-length').textContent!)).toBeLessThan(modelledLength);
+    ed.undo();
+    expect(ed.doc.junctions).toBe('modelled');
   });
 });

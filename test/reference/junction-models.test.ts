@@ -5,7 +5,7 @@
  * two-port algebra it stands for.
  */
 import { describe, expect, it } from 'vitest';
-import { teeReferencePlanes, teeJunction, widthStep, stepResidual } from '../../core/discontinuity/index.ts';
+import { teeReferencePlanes, teeJunction, widthStep, stepResidual, prepareTee, teeShiftsInto } from '../../core/discontinuity/index.ts';
 import { starAdmittance, idealLine, solveNetwork, type NetElement } from '../../core/network/index.ts';
 import { oracleStep, oracleTee } from './junction-oracle.ts';
 
@@ -65,6 +65,13 @@ describe('Hammerstad 1981 tee: against an independent transcription (parallel-pl
     expect(rel(t.d1[0], ra.d1)).toBeLessThan(1e-11);
     expect(rel(t.d1[1], rb.d1)).toBeLessThan(1e-11);
     expect(rel(t.d2, (ra.d2 + rb.d2) / 2)).toBeLessThan(1e-11);
+    // The network's per-frequency form (prepared once, no checks) gives the same numbers.
+    const out = new Float64Array(4);
+    for (const f of [0, 2.45e9, 10.368e9, 30e9]) {
+      const j = teeJunction({ main: [a, b], branch: br, h: 0.508e-3, f });
+      teeShiftsInto(prepareTee([a, b], br, 0.508e-3), f, out);
+      for (const [i, want] of [j.d1[0], j.d1[1], j.d2, j.n2].entries()) expect(Math.abs(out[i]! - want)).toBeLessThan(1e-15 + 1e-12 * Math.abs(want));
+    }
     const eq = teeJunction({ main: [b, b], branch: br, h: 0.508e-3, f: 10.368e9 });
     expect(eq.d1[0]).toBe(eq.d1[1]);
     expect(rel(eq.n2, rb.n2)).toBeLessThan(1e-11);

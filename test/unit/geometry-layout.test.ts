@@ -82,7 +82,7 @@ describe('copper of straight runs, bends and tees', () => {
     const s = sizeDesign(design({
       nodes: [port('a', -0.01, 0), junction('j', 0, 0), port('b', 0.01, 0), port('c', 0, 0.01)],
       segments: [line('m1', 'a', 'j', wd(Wm), lenOf(0.01)), line('m2', 'j', 'b', wd(Wm), lenOf(0.01)), line('br', 'j', 'c', wd(Wb), lenOf(0.01))],
-    }));
+    }), { junctions: 'ideal' }); // the copper of arms measured from the centre (tee plane shifts: layout-sizing.test.ts)
     const g = buildBoardGeometry(s);
     expect(g.copper).toHaveLength(1);
     const want = unionAreaOfRects([
@@ -98,7 +98,7 @@ describe('tees with a branch wider than the main line', () => {
     const s = sizeDesign(design({
       nodes: [port('a', -0.01, 0), junction('j', 0, 0), port('b', 0.01, 0), port('c', 0, -0.01)],
       segments: [line('m1', 'a', 'j', wd(Wm), lenOf(0.01)), line('m2', 'j', 'b', wd(Wm), lenOf(0.01)), line('br', 'j', 'c', wd(Wb), lenOf(0.01))],
-    }));
+    }), { junctions: 'ideal' }); // the copper of arms measured from the centre (tee plane shifts: layout-sizing.test.ts)
     const g = buildBoardGeometry(s);
     expect(g.copper).toHaveLength(1);
     // The junction square: Wb along the main line, Wm across, centred on the junction.

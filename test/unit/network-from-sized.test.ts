@@ -53,7 +53,7 @@ describe('netlistFromSized', () => {
     const via = net.elements.find((e) => e.id === 's:via');
     expect(via?.kind).toBe('series-rl');
     expect(net.ports.map((p) => [p.name, p.zRef])).toEqual([['p1', 50], ['p2', 50]]);
-    expect(net.warnings.some((w) => /cross j: no cross-junction model/.test(w.message))).toBe(true);
+    expect(net.warnings.some((w) => /cross j: a cross \(four arms\): no published model at hand/.test(w.message))).toBe(true);
     // Solvable across the band, reciprocal.
     const r = solveNetwork(net, sweepFrequencies({ start: 2e9, stop: 3e9, points: 5 }));
     for (let k = 0; k < 5; k++) {

@@ -5,7 +5,7 @@
  *
  * Every edit goes through the core's History (design commands, undo by diffs); a drag is one live step.
  */
-import { DESIGN_COMMANDS, History, parseDesign, serializeDesign, newDesign, copySelection, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess } from '../../../core/design/index.ts';
+import { DESIGN_COMMANDS, History, parseDesign, serializeDesign, newDesign, copySelection, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess, type JunctionChoice } from '../../../core/design/index.ts';
 import type { Box, Region, Vec2 } from '../../../core/geometry/types.ts';
 import type { SubstrateSpec } from '../../../core/substrate/types.ts';
 import { InputError } from '../../../core/util/errors.ts';
@@ -196,6 +196,7 @@ export class EditorState {
   setSubstrate(patch: Partial<SubstrateSpec>): void { this.edit('design.setSubstrate', { substrate: patch }); }
   setFrequency(patch: { f0?: number; band?: { start: number; stop: number } }): void { this.edit('design.setFrequency', patch); }
   setProcess(process: FabProcess): void { this.edit('design.setProcess', { process }); }
+  setJunctions(junctions: JunctionChoice): void { this.edit('design.setJunctions', { junctions }); }
   setUnits(units: LengthUnit): void { this.edit('view.set', { units }); }
   setGrid(grid: number): void { this.edit('view.set', { grid }); }
 

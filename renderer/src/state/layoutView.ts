@@ -28,8 +28,12 @@ export function figuresFrom(sized: SizedDesign): Map<string, PieceFigures> {
   const m = new Map<string, PieceFigures>();
   for (const p of sized.pieces) {
     m.set(p.id, {
-      id: p.id, width: p.width, widthEnd: p.widthB, z0: p.z0, eeff: p.line?.epsEff, length: p.length, electricalDeg: p.deg,
-      compensations: p.compensations.map((c) => ({ model: c.model, source: c.source, amount: c.amount_m, applied: c.applied, node: c.node, note: c.note })),
+      id: p.id, width: p.width, widthEnd: p.widthB, z0: p.z0, eeff: p.line?.epsEff, length: p.length, electricalDeg: p.effectiveDeg,
+      compensations: p.compensations.filter((c) => !c.junction).map((c) => ({ model: c.model, source: c.source, amount: c.amount_m, applied: c.applied, node: c.node, note: c.note })),
+      junctions: p.compensations.filter((c) => c.junction).map((c) => ({
+        node: c.node, kind: c.junction!.kind, role: c.junction!.role, source: c.source, modelled: c.junction!.modelled, inRange: c.junction!.inRange,
+        validity: c.junction!.validity, shift: c.model === 'tee-planes' ? -c.amount_m : null, residual: c.junction!.residual,
+      })),
       warnings: p.warnings,
     });
   }
@@ -46,8 +50,8 @@ export function nodeNotes(sized: SizedDesign): Map<string, string> {
       const deg = (n.bend.turn * 180) / Math.PI;
       const style = n.bend.style.style;
       t = `bend ${deg.toFixed(1)}°, ${style === 'miter-optimal' || style === 'miter' ? `miter ${((n.bend.miter?.fraction ?? 0) * 100).toFixed(0)} %` : style === 'arc' ? `arc r ${mm(n.bend.arc?.radius ?? 0)}` : 'square corner'}, w ${mm(n.bend.width)}`;
-    } else if (n.step) t = 'width step';
-    else if (n.tee) t = 'tee';
+    } else if (n.step) t = `width step, ${n.step.modelled ? 'in the sweep' : 'not modelled'}`;
+    else if (n.tee) t = n.tee.modelled ? `tee, planes ${mm(n.tee.atF0.d1[0])} / ${mm(n.tee.atF0.d1[1])} / ${mm(n.tee.atF0.d2)}, n² ${n.tee.atF0.n2.toFixed(3)}` : 'tee, ideal junction';
     else if (n.cross) t = 'cross';
     else if (n.open) t = `open end, Δl ${mm(n.open.dl)}`;
     else if (n.via) t = `via ${mm(n.via.drill)} drill, L ${(n.via.L * 1e9).toFixed(3)} nH`;
