@@ -13,11 +13,12 @@ const XY: Order = { keys: ['x', 'y'] };
 const POINTS: Order = { keys: [], items: XY };
 const WIDTH: Order = { keys: ['by', 'z0', 'width'] };
 const ORDER: Order = {
-  keys: ['format', 'version', 'app', 'name', 'notes', 'substrate', 'frequency', 'process', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'view'],
+  keys: ['format', 'version', 'app', 'name', 'notes', 'substrate', 'frequency', 'process', 'asMade', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'view'],
   children: {
     substrate: { keys: ['preset', 'er', 'h', 't', 'tanDelta', 'sigma', 'roughness', 'dielectricModel'], children: { dielectricModel: { keys: ['kind', 'fMeasure'] } } },
     frequency: { keys: ['f0', 'band'], children: { band: { keys: ['start', 'stop'] } } },
     process: { keys: ['kind', 'toolDiameter', 'tipWidth', 'angleDeg', 'depth', 'edgeBias', 'minFeature'] },
+    asMade: { keys: ['sizing', 'sideCopper', 'cover', 'fencePitch'], children: { cover: { keys: ['er', 'thickness'] } } },
     board: { keys: ['outline'], children: { outline: POINTS } },
     nodes: {
       keys: [], items: {
