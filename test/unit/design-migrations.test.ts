@@ -67,7 +67,7 @@ describe('v1 → v2', () => {
     });
     expect(r.doc.name).toBe('Four-way patch row feed, 5.8 GHz');
     expect(r.migrations?.[0]).toBe(1);
-    expect(r.warnings.map((w) => w.message)[0]).toContain('This file was written in format 1 and was upgraded to format ' + DESIGN_VERSION + ' (1→2: added substrate (glass-epoxy FR-4 1.6 mm), frequency (2.45 GHz, 2.4–2.5 GHz), process: 30° V-bit, and an empty network)');
+    expect(r.warnings.map((w) => w.message)[0]).toContain('This file was written in format 1 and was upgraded to format ' + DESIGN_VERSION + ' (1→2: added substrate (glass-epoxy FR-4 1.6 mm), frequency (2.45 GHz, 2.4–2.5 GHz), process: 30° V-bit, and an empty network');
   });
   it('keeps fields version 1 did not know', () => {
     const r = parseDesign(readFileSync(join(FIX, 'v1', 'unknown-fields.json'), 'utf8'));
