@@ -12,7 +12,7 @@ import * as v from 'valibot';
 import { InputError, describe } from '../util/errors.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import type { Area, DesignDoc, DesignNode, DesignSegment, FabProcess, JunctionChoice, NodeSpec, PhaseGroup, SegmentSpec } from './types.ts';
-import { areaSchema, frequencySchema, junctionChoiceSchema, nodeSchema, phaseGroupSchema, processSchema, segmentSchema, substrateSchema, vec2Schema } from './schema.ts';
+import { asMadeSchema, areaSchema, frequencySchema, junctionChoiceSchema, nodeSchema, phaseGroupSchema, processSchema, segmentSchema, substrateSchema, vec2Schema } from './schema.ts';
 import { DESIGN_LIMITS } from './limits.ts';
 import { crossCheck, DEGREE } from './crossref.ts';
 import {
@@ -323,6 +323,14 @@ const setJunctions: DesignCommand = {
   },
 };
 
+/** How lines are sized for what is made (design asMade: sizing, side copper, cover, via-fence pitch). */
+const setAsMade: DesignCommand = {
+  id: 'design.setAsMade', label: 'Change how lines are made',
+  run(doc, a) {
+    return { ...doc, asMade: checkWith(asMadeSchema, a.asMade, 'args.asMade') as NonNullable<DesignDoc['asMade']> };
+  },
+};
+
 const setInfo: DesignCommand = {
   id: 'design.setInfo', label: 'Rename',
   run(doc, a) {
@@ -467,7 +475,7 @@ const viewSet: DesignCommand = {
 /** Every command, by id. */
 export const DESIGN_COMMANDS: ReadonlyMap<string, DesignCommand> = new Map(
   [nodeAdd, nodeMove, nodeSetSpec, segmentAdd, segmentSetSpec, selectionDelete, selectionTranslate, selectionRotate, selectionMirror,
-    selectionPaste, setSubstrate, setFrequency, setProcess, setJunctions, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
+    selectionPaste, setSubstrate, setFrequency, setProcess, setJunctions, setAsMade, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
     phaseGroupSet, viewSet, setTargets, setTolerances].map((c) => [c.id, c]),
 );
 

@@ -18,6 +18,7 @@ const ORDER: Order = {
     substrate: { keys: ['preset', 'er', 'h', 't', 'tanDelta', 'sigma', 'roughness', 'dielectricModel'], children: { dielectricModel: { keys: ['kind', 'fMeasure'] } } },
     frequency: { keys: ['f0', 'band'], children: { band: { keys: ['start', 'stop'] } } },
     process: { keys: ['kind', 'toolDiameter', 'tipWidth', 'angleDeg', 'depth', 'edgeBias', 'minFeature'] },
+    asMade: { keys: ['sizing', 'sideCopper', 'cover', 'fencePitch'], children: { cover: { keys: ['er', 'thickness'] } } },
     board: { keys: ['outline'], children: { outline: POINTS } },
     nodes: {
       keys: [], items: {

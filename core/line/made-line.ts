@@ -31,7 +31,7 @@ export function analyzeMadeLine(sub: SubstrateSpec, width: number, f: number, sr
   delete plainOpts.crossSection;
   // The plain analysis checks every input and gives the mode thresholds, skin depth and dispersion-range warnings.
   const base = analyzeLine(sub, width, f, plainOpts);
-  if (!(width >= src.widthRange.min && width <= src.widthRange.max)) {
+  if (!(width >= src.widthRange.min * (1 - 1e-9) && width <= src.widthRange.max * (1 + 1e-9))) {
     throw new InputError('out-of-range', 'width', `a width from ${mmText(src.widthRange.min)} to ${mmText(src.widthRange.max)} mm, the range of the cross-section tables (${src.label})`, describe(width), 'widen the tables or choose another width');
   }
   const st = src.staticAt(width);
@@ -76,7 +76,7 @@ export function synthesizeMadeLine(sub: SubstrateSpec, z0: number, f: number, sr
   if (typeof z0 !== 'number' || !(z0 > 0 && z0 <= 1e4)) {
     throw new InputError(typeof z0 === 'number' && Number.isFinite(z0) ? 'out-of-range' : 'invalid-number', 'z0', 'a target impedance above 0 Ω and up to 10 kΩ', describe(z0));
   }
-  let a = Math.log(src.widthRange.min), b = Math.log(src.widthRange.max);
+  let a = Math.log(src.widthRange.min) + 1e-12, b = Math.log(src.widthRange.max) - 1e-12;
   const zAt = (x: number) => analyzeMadeLine(sub, Math.exp(x), f, src, opts).z0;
   const zHi = zAt(a), zLo = zAt(b);
   if (!(z0 <= zHi && z0 >= zLo)) {

@@ -27,7 +27,7 @@ export interface Grid {
 
 const OMEGA = 0.95;
 /** PCG stops at this residual relative to the right-hand side's (C changes by < 1e-5 relative below it). */
-const STOP_REL = 1e-7;
+const STOP_REL = 1e-6;
 
 /** Couplings and conductor map of the grid x × y for the shapes, with `material` (null = vacuum everywhere); with
  * `wallAtZero` the line x = 0 is held at 0 V (the odd mode's symmetry plane). */
@@ -111,7 +111,7 @@ export function factor(g: Grid): Factored {
 
 /**
  * Potentials with conductor c at volts[c], by PCG from `guess` (free nodes; conductor nodes are overwritten).
- * Returns the node potentials and the iterations spent. Stops at a residual 1e-7 of the right-hand side's.
+ * Returns the node potentials and the iterations spent. Stops at a residual 1e-6 of the right-hand side's.
  */
 export function solve(f: Factored, volts: ArrayLike<number>, guess?: Float64Array): { v: Float64Array; iterations: number } {
   const { g, fx, fy, diag, piv } = f;

@@ -1,6 +1,6 @@
 /**
  * Sizing tables of a laminate and process: the field solution at TABLE_POINTS widths (log-spaced over W/h
- * TABLE_U_MIN–TABLE_U_MAX), interpolated in ln W by natural cubic splines of ln Z0, εeff and ln ∂L/∂n, served to the
+ * TABLE_U_MIN–TABLE_U_MAX, and no narrower than 1.5 t), interpolated in ln W by natural cubic splines of ln Z0, εeff and ln ∂L/∂n, served to the
  * line layer as a CrossSectionSource (core/line/cross-section.ts). Built once per cross-section template and kept
  * in a small memo (the faces re-size on every edit; the worker builds a table on first use and reuses it).
  */
@@ -65,13 +65,14 @@ export function describeTemplate(t: SectionTemplate): string {
 /** Builds the table (TABLE_POINTS solves). */
 export function buildSectionTable(template: SectionTemplate): SectionTable {
   const h = template.h;
+  // Strips narrower than 1.5× their thickness are not lines anyone mills; they would only cost the finest grids.
+  const wMin = Math.max(TABLE_U_MIN * h, 1.5 * template.t), wMax = TABLE_U_MAX * h;
   const xs: number[] = [], lz: number[] = [], ee: number[] = [], ld: number[] = [];
   const points: SectionTable['points'] = [];
   const warnings: Warning[] = [];
   let worst = 0;
   for (let i = 0; i < TABLE_POINTS; i++) {
-    const u = TABLE_U_MIN * (TABLE_U_MAX / TABLE_U_MIN) ** (i / (TABLE_POINTS - 1));
-    const width = u * h;
+    const width = wMin * (wMax / wMin) ** (i / (TABLE_POINTS - 1));
     const r = solveSection({ ...template, width }, { loss: template.t > 0 });
     const m = r.modes[0]!;
     xs.push(Math.log(width)); lz.push(Math.log(m.z0)); ee.push(m.epsEff); ld.push(m.dLdn > 0 ? Math.log(m.dLdn) : 0);
@@ -85,12 +86,12 @@ export function buildSectionTable(template: SectionTemplate): SectionTable {
   if (worst > 0.005) warnings.push(warn('validity', `the cross-section tables are uncertain by up to ${(worst * 100).toFixed(2)} % in Z0`, { source: 'section-solver' }));
   return {
     key: keyOf(template), label, template, points,
-    widthRange: { min: TABLE_U_MIN * h, max: TABLE_U_MAX * h },
+    widthRange: { min: wMin, max: wMax },
     staticAt(width: number): CrossSectionStatics {
-      if (!(width >= TABLE_U_MIN * h * (1 - 1e-12) && width <= TABLE_U_MAX * h * (1 + 1e-12))) {
-        throw new InputError('out-of-range', 'width', `a width from ${TABLE_U_MIN}·h to ${TABLE_U_MAX}·h, the range of the cross-section tables`, `${width} m`);
+      if (!(width >= wMin * (1 - 1e-9) && width <= wMax * (1 + 1e-9))) {
+        throw new InputError('out-of-range', 'width', `a width from ${Number((wMin * 1e3).toPrecision(3))} mm to ${Number((wMax * 1e3).toPrecision(3))} mm, the range of the cross-section tables`, `${width} m`);
       }
-      const x = Math.log(width);
+      const x = Math.min(xs[xs.length - 1]!, Math.max(xs[0]!, Math.log(width)));
       return {
         z0: Math.exp(splineAt(xs, lz, mz, x)), epsEff: splineAt(xs, ee, me, x),
         dLdn: hasLoss ? Math.exp(splineAt(xs, ld, ml, x)) : 0, z0Error: worst, warnings,

@@ -38,7 +38,7 @@ import type { SectionMode, SectionModeName, SectionResult, SectionSpec, SolveOpt
 export const ORDER = 1.6;
 
 /** Grid parameters at fineness 1 (tuned in test/unit/section-convergence.test.ts and bench/section.bench.ts). */
-export const GRID = { edgeDivisor: 120, interfaceDivisor: 4, growth: 1.3, thicknessCells: 3 };
+export const GRID = { edgeDivisor: 120, edgeDivisorThick: 40, interfaceDivisor: 4, growth: 1.3, thicknessCells: 3 };
 
 interface Level { x: Float64Array; y: Float64Array }
 
@@ -71,7 +71,9 @@ function domain(spec: SectionSpec, s: Shapes): { X: number; Y: number } {
 
 /** The coarse grid of the cross-section (x from 0 when solved on its symmetric half). */
 function coarseGrid(spec: SectionSpec, s: Shapes, fineness: number, X: number, Y: number, sym: boolean): Level {
-  let edge = s.feature / (GRID.edgeDivisor * fineness);
+  // A thin sheet's edge is the stronger singularity (field ∝ r^−1/2): finer cells there than at thick copper's
+  // corners (r^−1/3), which also need a few cells across the thickness.
+  let edge = s.feature / ((spec.t > 0 ? GRID.edgeDivisorThick : GRID.edgeDivisor) * fineness);
   if (spec.t > 0) edge = Math.min(edge, spec.t / (GRID.thicknessCells * fineness));
   const iface = Math.min(spec.h, s.feature) / (GRID.interfaceDivisor * fineness);
   const growth = 1 + (GRID.growth - 1) / fineness;
@@ -164,6 +166,7 @@ export function solveSection(spec: SectionSpec, opts: SolveOptions = {}): Sectio
     : configs.map((c) => ({ mode: c.mode, c: [], ca: [] }));
   let potential: Float64Array | null = null;
   const vacuumK: number[][][] = [];
+  const vacuumSols: Float64Array[][] = [];
   configs.forEach((cfg, ci) => {
     let prevD: Float64Array[] = [], prevA: Float64Array[] = [];
     grids.forEach((lv, l) => {
@@ -180,6 +183,7 @@ export function solveSection(spec: SectionSpec, opts: SolveOptions = {}): Sectio
       }
       if (l === levels - 1) {
         vacuumK.push(a.K);
+        vacuumSols.push(a.sols);
         if (ci === 0 && opts.potential) {
           const w = pairNoSym ? [1, 1, ...(cfg.ids.length > 2 ? [0] : [])] : modal(d.K, cfg).weights;
           if (pairNoSym && cfg.ids.length > 2) { const fi = 2; w[fi] = -(d.K[fi]![0]! + d.K[fi]![1]!) / d.K[fi]![fi]!; }
@@ -195,7 +199,7 @@ export function solveSection(spec: SectionSpec, opts: SolveOptions = {}): Sectio
   const order = ORDER;
   const wantLoss = opts.loss ?? spec.t > 0;
   let dLdn = values.map(() => 0);
-  if (wantLoss && spec.t > 0) dLdn = wheelerDerivative(spec, shapes, grids[grids.length - 1]!, configs, vacuumK, X, pairNoSym);
+  if (wantLoss && spec.t > 0) dLdn = wheelerDerivative(spec, shapes, grids[grids.length - 1]!, configs, vacuumK, vacuumSols, X, pairNoSym);
   if (wantLoss && spec.t === 0) warnings.push(warn('validity', "Wheeler's incremental-inductance rule needs copper thickness above 0 (a thin sheet's edges have unbounded loss in it); no conductor loss is given.", { source: 'wheeler-1942', severity: 'info' }));
 
   const modes: SectionMode[] = values.map((mv, k) => {
@@ -230,7 +234,7 @@ export function solveSection(spec: SectionSpec, opts: SolveOptions = {}): Sectio
  * ∂L/∂n per mode, H/m per m, on the finest grid: the vacuum solve of the cross-section with every conductor surface
  * receded by δ, on the same grid with its conductor key lines moved along (so the difference is smooth in δ).
  */
-function wheelerDerivative(spec: SectionSpec, base: Shapes, lv: Level, configs: Config[], vacuumK: number[][][], X: number, pairNoSym: boolean): number[] {
+function wheelerDerivative(spec: SectionSpec, base: Shapes, lv: Level, configs: Config[], vacuumK: number[][][], vacuumSols: Float64Array[][], X: number, pairNoSym: boolean): number[] {
   const delta = Math.min(spec.t / 20, base.feature / 200);
   const rec = buildShapes(spec, delta, X);
   const lo = lv.x[0]!;
@@ -249,7 +253,7 @@ function wheelerDerivative(spec: SectionSpec, base: Shapes, lv: Level, configs: 
   const L = (c: number) => 1 / (C0 * C0 * c);
   const out: number[] = [];
   configs.forEach((cfg, ci) => {
-    const m = maxwell(x, y, rec, null, cfg, []);
+    const m = maxwell(x, y, rec, null, cfg, vacuumSols[ci]!); // the unreceded solution is a close start
     if (pairNoSym) {
       const p0 = pairFromMatrix(vacuumK[ci]!, cfg.ids), p1 = pairFromMatrix(m.K, cfg.ids);
       out.push((L(p1.even) - L(p0.even)) / delta, (L(p1.odd) - L(p0.odd)) / delta);

@@ -33,6 +33,7 @@ function everyCommand(d: DesignDoc): [string, Record<string, unknown>][] {
     ['design.setFrequency', { f0: 5.85e9 }],
     ['design.setProcess', { process: { kind: 'etch', edgeBias: 35e-6, minFeature: 0.2e-3 } }],
     ['design.setJunctions', { junctions: 'ideal' }],
+    ['design.setAsMade', { asMade: { sizing: 'as-made', sideCopper: 'floating', fencePitch: 2e-3 } }],
     ['design.setInfo', { name: 'Renamed', notes: null }],
     ['run.extend', { from: 't0', to: { x: 0, y: 0.03 } }],
     ['segment.split', { id: 'feed', at: { x: 0, y: 0.007 }, branchTo: { x: 0.01, y: 0.007 } }],

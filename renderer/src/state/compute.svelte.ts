@@ -8,6 +8,8 @@ import { runJob } from '../worker/jobs.ts';
 import type { EditorState } from './editor.svelte.ts';
 import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
 import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput, YieldOutput } from '../worker/jobs.ts';
+import type { SectionOutput } from '../worker/section-job.ts';
+import type { SectionSpec } from '../../../core/section/types.ts';
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -122,6 +124,13 @@ export class Compute {
   }
 
   cancelYield(): void { this.yieldStop?.abort(); }
+
+  /** The field solution of one cross-section, for the cross-section view (a newer request replaces an older one). */
+  async section(spec: SectionSpec): Promise<{ ok: true; value: SectionOutput } | { ok: false; error: string | null }> {
+    const out = await this.client.run<SectionOutput>('section', { spec });
+    if (out.ok) return { ok: true, value: out.value };
+    return { ok: false, error: 'error' in out ? out.error.message : null };
+  }
 
   destroy(): void { this.client.destroy(); }
 }

@@ -197,6 +197,7 @@ export class EditorState {
   setFrequency(patch: { f0?: number; band?: { start: number; stop: number } }): void { this.edit('design.setFrequency', patch); }
   setProcess(process: FabProcess): void { this.edit('design.setProcess', { process }); }
   setJunctions(junctions: JunctionChoice): void { this.edit('design.setJunctions', { junctions }); }
+  setAsMade(asMade: NonNullable<DesignDoc['asMade']>): void { this.edit('design.setAsMade', { asMade }); }
   setUnits(units: LengthUnit): void { this.edit('view.set', { units }); }
   setGrid(grid: number): void { this.edit('view.set', { grid }); }
 
