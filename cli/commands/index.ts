@@ -3,6 +3,7 @@ import { lineCommand } from './line.ts';
 import { exportCommand } from './export.ts';
 import { buildCommand } from './build.ts';
 import { sweepCommand } from './sweep.ts';
+import { blockCommand } from './block.ts';
 
 /** Every command of the CLI. Add a new command file and list it here. */
-export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand];
+export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, blockCommand];
