@@ -6,6 +6,7 @@ import { sweepCommand } from './sweep.ts';
 import { yieldCommand } from './yield.ts';
 import { sectionCommand } from './section.ts';
 import { couponCommand } from './coupon.ts';
+import { blockCommand } from './block.ts';
 
 /** Every command of the CLI. Add a new command file and list it here. */
-export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand, sectionCommand, couponCommand];
+export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand, sectionCommand, couponCommand, blockCommand];

@@ -70,7 +70,7 @@ const OPTIONS = {
 } as const;
 
 /** Inputs of one case, as text (from flags or a CSV row). */
-type CaseText = Partial<Record<'preset' | 'er' | 'h' | 't' | 'tand' | 'sigma' | 'rough' | 'f-measure' | 'z0' | 'width' | 'f' | 'deg' | 'length' | 'dispersion' | 'conductor-loss', string>>;
+export type CaseText = Partial<Record<'preset' | 'er' | 'h' | 't' | 'tand' | 'sigma' | 'rough' | 'f-measure' | 'z0' | 'width' | 'f' | 'deg' | 'length' | 'dispersion' | 'conductor-loss', string>>;
 const CASE_KEYS = ['preset', 'er', 'h', 't', 'tand', 'sigma', 'rough', 'f-measure', 'z0', 'width', 'f', 'deg', 'length', 'dispersion', 'conductor-loss'] as const;
 
 interface Solved { result: LineResult; sub: SubstrateSpec; opts: LineOptions; lengthM?: number; deg?: number }
@@ -90,7 +90,7 @@ function modelNames(s: Solved): string {
   return parts.join('; ');
 }
 
-function substrateOf(c: CaseText): SubstrateSpec {
+export function substrateOf(c: CaseText): SubstrateSpec {
   let base: SubstrateSpec | undefined;
   if (c.preset !== undefined) {
     const p = findPreset(c.preset);

@@ -9,13 +9,16 @@
  *   Z0e = Z0·(1 + Z0J + (Z0J)²),  Z0o = Z0·(1 − Z0J + (Z0J)²).
  * N + 1 coupled sections, each 90° at f0 on the mean of its modes' phase constants; each resonator (the second strip
  * of one section and the first strip of the next) ends in open ends, which sizing shortens by their Kirschning–
- * Jansen–Koster 1981 extension (the open-end effect compensated). Sections step down in a staircase; the ports sit on
- * straight lines in line with the first and last strips. A gap narrower than the process can cut is refused with the
+ * Jansen–Koster 1981 extension (the open-end effect compensated); the strips' ends are set back each by its own
+ * extension, so a section's strips overlap over 90° − 2βΔl, and its inverter is scaled by 1/sin of that (our
+ * first-order make-up for the shorter coupled run). Sections step down in a staircase; the port lines
+ * leave the first and last strips with a 90° optimal-miter bend, away from the strip beside them. A gap narrower than the process can cut is refused with the
  * tightest coupling it can make.
  */
 import type { DesignDoc, DesignNode, DesignSegment } from '../design/types.ts';
 import { newDesign } from '../design/defaults.ts';
-import { couplingFromModes, synthesizeCoupled } from '../line/index.ts';
+import { analyzeLine, couplingFromModes, synthesizeCoupled } from '../line/index.ts';
+import { openEndExtension } from '../discontinuity/kirschningJansenKoster1981OpenEnd.ts';
 import { InputError, describe } from '../util/errors.ts';
 import { prototypeValues, type PrototypeKind } from './lowpassPrototype.ts';
 import { drawAsPlaced, requireCuttableGap, type BlockBase } from './common.ts';
@@ -55,32 +58,46 @@ export function bandpassBlock(opts: BandpassOptions): DesignDoc {
     ...(opts.substrate ? { substrate: opts.substrate } : {}), ...(opts.process ? { process: opts.process } : {}),
   });
   const sub = doc.substrate;
-  const geo = sections.map((s, i) => {
-    const r = synthesizeCoupled(sub, { z0Even: s.z0Even, z0Odd: s.z0Odd }, f0);
-    const want = couplingFromModes(s.z0Even, s.z0Odd).db;
-    requireCuttableGap(r.spacing, sub, doc.process, Math.sqrt(s.z0Even * s.z0Odd), want, 'bw', `coupled section ${i + 1} of ${n + 1}`, 'ask for a narrower bandwidth or a lower order, use a finer tool, or a thinner substrate');
-    return r;
+  // Sizing sets each strip's open end back by its end extension Δl, so a section's strips overlap over 90° − 2βΔl,
+  // not 90°. A shorter coupled run couples less (about as sin θ of its electrical length θ), so the inverters are
+  // scaled by 1/sin θ and the sections synthesised again (our first-order compensation; two passes settle it).
+  let geo = sections.map((s) => synthesizeCoupled(sub, { z0Even: s.z0Even, z0Odd: s.z0Odd }, f0));
+  for (let pass = 0; pass < 2; pass++) {
+    geo = sections.map((s, i) => {
+      const r = geo[i]!;
+      const beta = (r.even.beta + r.odd.beta) / 2;
+      const single = analyzeLine(sub, r.width, 0);
+      const dl = openEndExtension({ u: r.width / sub.h, er: sub.er, eeStatic: single.epsEffStatic, h: sub.h }).dl;
+      const theta = Math.PI / 2 - 2 * beta * dl;
+      if (!(theta > Math.PI / 4)) throw new InputError('out-of-range', 'f0', 'a frequency at which the open ends take less than a quarter of a coupled section', `${(dl * 1e3).toFixed(3)} mm of end extension on a ${(((Math.PI / 2) / beta) * 1e3).toFixed(3)} mm section`, 'use a thinner substrate');
+      const j = s.j / Math.sin(theta);
+      return synthesizeCoupled(sub, { z0Even: z0 * (1 + j + j * j), z0Odd: z0 * (1 - j + j * j) }, f0);
+    });
+  }
+  geo.forEach((r, i) => {
+    requireCuttableGap(r.spacing, sub, doc.process, Math.sqrt(r.even.z0 * r.odd.z0), couplingFromModes(r.even.z0, r.odd.z0).db, 'bw',
+      `coupled section ${i + 1} of ${n + 1}`, 'ask for a narrower bandwidth or a lower order, use a finer tool, or a thinner substrate');
   });
   const feed = opts.feedLength ?? Math.max(2e-3, 3 * sub.h);
   const L = 10e-3; // drawn only for directions; sizing places the block
-  const nodes: DesignNode[] = [{ id: 'in', kind: 'port', zRef: z0, heading: 0, label: 'input', at: { x: -feed, y: 0 } }];
+  const nodes: DesignNode[] = [{ id: 'in', kind: 'port', zRef: z0, heading: -Math.PI / 2, label: 'input', at: { x: 0, y: feed } }];
   const segments: DesignSegment[] = [];
   let y = 0;
   for (let k = 1; k <= n + 1; k++) {
     const r = geo[k - 1]!;
     const x0 = (k - 1) * L, pitch = r.width + r.spacing;
     const a = k === 1 ? 'p1' : `r${k - 1}`, d = k === n + 1 ? `p2` : `r${k}`;
-    if (k === 1) nodes.push({ id: a, kind: 'vertex', bend: { style: 'square' }, at: { x: x0, y } });
+    if (k === 1) nodes.push({ id: a, kind: 'vertex', bend: { style: 'miter-optimal' }, at: { x: x0, y } });
     nodes.push({ id: `o${k}b`, kind: 'open', label: `open end, section ${k}`, at: { x: x0 + L, y } });
     nodes.push({ id: `o${k}c`, kind: 'open', label: `open end, section ${k}`, at: { x: x0, y: y - pitch } });
-    nodes.push({ id: d, kind: 'vertex', bend: { style: 'square' }, ...(k <= n ? { label: `resonator ${k}` } : {}), at: { x: x0 + L, y: y - pitch } });
+    nodes.push({ id: d, kind: 'vertex', bend: k <= n ? { style: 'square' } : { style: 'miter-optimal' }, ...(k <= n ? { label: `resonator ${k}` } : {}), at: { x: x0 + L, y: y - pitch } });
     segments.push({
       id: `s${k}`, kind: 'coupled', a, b: `o${k}b`, c: `o${k}c`, d, label: `coupled section ${k}`,
       pair: { by: 'geometry', width: r.width, gap: r.spacing }, length: { by: 'degrees', deg: 90 },
     });
     y -= pitch;
   }
-  nodes.push({ id: 'out', kind: 'port', zRef: z0, heading: Math.PI, label: 'output', at: { x: (n + 1) * L + feed, y } });
+  nodes.push({ id: 'out', kind: 'port', zRef: z0, heading: Math.PI / 2, label: 'output', at: { x: (n + 1) * L, y: y - feed } });
   segments.unshift({ id: 'feed-in', kind: 'line', a: 'in', b: 'p1', width: { by: 'z0', z0 }, length: { by: 'length', length: feed } });
   segments.push({ id: 'feed-out', kind: 'line', a: 'p2', b: 'out', width: { by: 'z0', z0 }, length: { by: 'length', length: feed } });
   doc.nodes = nodes;
@@ -89,7 +106,7 @@ export function bandpassBlock(opts: BandpassOptions): DesignDoc {
   doc.notes = [
     `Edge-coupled band-pass filter made by the band-pass block: order ${n}, centre ${(f0 / 1e9).toPrecision(5)} GHz, fractional bandwidth ${opts.bw}, ${kind === 'maximally-flat' ? 'maximally flat' : `equal ripple ${opts.rippleDb} dB`}, ${z0} Ω.`,
     `Prototype g0…g${n + 1} = ${gs} (Matthaei, Young and Jones 1964, §4.05); inverters and mode impedances by Cohn 1958 / Matthaei, Young and Jones §10.02.`,
-    ...sections.map((s, i) => `Section ${i + 1}: Z0·J ${s.j.toFixed(4)}, Z0e ${s.z0Even.toFixed(2)} Ω, Z0o ${s.z0Odd.toFixed(2)} Ω → strips ${(geo[i]!.width * 1e3).toFixed(3)} mm, gap ${(geo[i]!.spacing * 1e3).toFixed(3)} mm.`),
+    ...sections.map((s, i) => `Section ${i + 1}: Z0·J ${s.j.toFixed(4)} (Z0e ${s.z0Even.toFixed(2)} Ω, Z0o ${s.z0Odd.toFixed(2)} Ω); with the overlap lost to the open ends made up, Z0e ${geo[i]!.even.z0.toFixed(2)} Ω, Z0o ${geo[i]!.odd.z0.toFixed(2)} Ω → strips ${(geo[i]!.width * 1e3).toFixed(3)} mm, gap ${(geo[i]!.spacing * 1e3).toFixed(3)} mm.`),
     'Each section is 90° at f0 on its modes\' mean phase constant; the open ends are shortened by their end extension.',
   ].join('\n');
   drawAsPlaced(doc);

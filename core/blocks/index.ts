@@ -6,3 +6,23 @@ export { prototypeValues, type PrototypeKind } from './lowpassPrototype.ts';
 export { couplerBlock, type CouplerOptions } from './coupler.ts';
 export { bandpassBlock, bandpassSections, type BandpassOptions } from './bandpassEdgeCoupled.ts';
 export type { BlockBase } from './common.ts';
+
+import { couplerBlock, type CouplerOptions } from './coupler.ts';
+import { bandpassBlock, type BandpassOptions } from './bandpassEdgeCoupled.ts';
+import type { DesignDoc } from '../design/types.ts';
+import { InputError, describe } from '../util/errors.ts';
+
+/** A block asked for by name, as the faces (CLI `block`, the app's block form) pass it. */
+export type BlockSpec = ({ kind: 'coupler' } & CouplerOptions) | ({ kind: 'bandpass' } & BandpassOptions);
+export const BLOCK_KINDS = ['coupler', 'bandpass'] as const;
+
+/** The one entry point of the faces: the complete design of a block. Throws InputError naming the field at fault. */
+export function buildBlock(spec: BlockSpec): DesignDoc {
+  if (spec === null || typeof spec !== 'object') throw new InputError('bad-choice', 'block', `one of ${BLOCK_KINDS.join(', ')}`, describe(spec));
+  if (typeof spec.f0 !== 'number' || !(spec.f0 >= 1e6 && spec.f0 <= 300e9)) throw new InputError(typeof spec.f0 === 'number' && Number.isFinite(spec.f0) ? 'out-of-range' : 'invalid-number', 'f0', 'a centre frequency from 1 MHz to 300 GHz', describe(spec.f0));
+  switch (spec.kind) {
+    case 'coupler': return couplerBlock(spec);
+    case 'bandpass': return bandpassBlock(spec);
+    default: throw new InputError('bad-choice', 'block', `one of ${BLOCK_KINDS.join(', ')}`, describe((spec as { kind?: unknown }).kind));
+  }
+}

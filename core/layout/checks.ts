@@ -23,6 +23,7 @@ import { InputError, exhaustive } from '../util/errors.ts';
 import type { FabProcess } from '../design/types.ts';
 import { LineCache } from './lineCache.ts';
 import { designPaths, type PathReport } from './paths.ts';
+import { proximityHits } from './proximity.ts';
 import { defaultGroundClearance } from './geometry.ts';
 import { fenceFindings } from './fence-check.ts';
 import { asMadeTemplate } from './as-made.ts';
@@ -30,7 +31,7 @@ import type { SizedDesign, SizedPiece } from './types.ts';
 
 export type FindingCode =
   | 'layout' | 'min-width' | 'min-gap' | 'inside-corner' | 'depth-sensitivity' | 'ground-near' | 'off-board' | 'keep-out'
-  | 'overlap' | 'loss-budget' | 'lossy-laminate' | 'phase' | 'via-fence';
+  | 'overlap' | 'loss-budget' | 'lossy-laminate' | 'phase' | 'via-fence' | 'proximity';
 
 export interface Finding {
   severity: 'error' | 'warning' | 'info';
@@ -49,6 +50,8 @@ export interface CheckOptions {
   lossLimitDb?: number;
   /** Paths report to check (default: designPaths(sized)). */
   paths?: PathReport[];
+  /** Runs closer than this (edge to edge, m) get a coupling estimate (default 3·h; 0 switches it off). */
+  proximityLimit?: number;
 }
 
 export const DEFAULT_LOSS_LIMIT_DB = 1;
@@ -411,6 +414,9 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
   // ---- overlapping pieces (not sharing a node)
   out.push(...overlaps(sized, geometry));
 
+  // ---- runs side by side: estimated coupling at f0 (proximity.ts)
+  out.push(...proximityFindings(sized, opts.proximityLimit ?? 3 * h));
+
   // ---- loss and phase
   const limit = opts.lossLimitDb ?? DEFAULT_LOSS_LIMIT_DB;
   let paths: PathReport[] = [];
@@ -478,4 +484,15 @@ function overlaps(sized: SizedDesign, geometry: BoardGeometry): Finding[] {
     }
   }
   return out;
+}
+
+/** Proximity findings: each pair of runs closer than `limit`, with its estimated coupling; warning above −20 dB. */
+function proximityFindings(sized: SizedDesign, limit: number): Finding[] {
+  if (!(limit > 0)) return [];
+  const h = sized.doc.substrate.h;
+  return proximityHits(sized, limit).map((x) => ({
+    severity: x.couplingDb > -20 ? 'warning' as const : 'info' as const, code: 'proximity' as const, subjects: [x.a, x.b], at: x.at,
+    message: `${x.a} and ${x.b} run side by side for ${mmS(x.length)} mm, ${mmS(x.gap)} mm apart (${(x.gap / h).toFixed(2)} h, under the ${mmS(limit)} mm limit): about ${x.couplingDb.toFixed(1)} dB couples from one to the other at f0 (coupled-pair estimate)`,
+    fix: `move them further apart (the coupling falls quickly beyond 3h = ${mmS(3 * h)} mm) or shorten the side-by-side stretch, if this coupling matters here`,
+  }));
 }

@@ -35,6 +35,10 @@ export interface PairData {
   betaEven: number;
   betaOdd: number;
   couplingDb: number;
+  /** Copper this strip loses at its first end (a or c) and its far end (b or d) to applied end corrections (open
+   * ends, vias), m. Each strip keeps its own: the strips then overlap over nominal − max(near) − max(far), and the
+   * strip cut less at an end carries the difference as a plain line (the usual staggered ends of a coupled filter). */
+  cuts?: { near: number; far: number };
 }
 
 export type CoupledSegment = DesignSegment & CoupledSpec;
@@ -79,7 +83,10 @@ export function pairLength(seg: CoupledSegment, betaMean: number, field: string)
  * For placement: each terminal of a pair and the terminal beside it on the other strip, with the offset from one to
  * the other (the pitch W + gap, across the first strip's drawn direction, to the side the second strip is drawn on).
  */
-export function pairLinks(segments: DesignSegment[], nodeAt: (id: string) => Vec2 | undefined, pitchOf: (segId: string) => number | undefined): Map<string, { to: string; offset: Vec2; seg: string }[]> {
+export function pairLinks(
+  segments: DesignSegment[], nodeAt: (id: string) => Vec2 | undefined, pitchOf: (segId: string) => number | undefined,
+  cutAt: (pieceId: string, node: string) => number,
+): Map<string, { to: string; offset: Vec2; seg: string }[]> {
   const links = new Map<string, { to: string; offset: Vec2; seg: string }[]>();
   const add = (from: string, to: string, offset: Vec2, seg: string) => {
     const l = links.get(from) ?? [];
@@ -93,11 +100,16 @@ export function pairLinks(segments: DesignSegment[], nodeAt: (id: string) => Vec
     if (!A || !B || !C || pitch === undefined) continue;
     const dx = B.x - A.x, dy = B.y - A.y, L = Math.hypot(dx, dy);
     if (!(L > 0)) continue;
-    const nx = -dy / L, ny = dx / L; // left of a → b
+    const ux = dx / L, uy = dy / L;
+    const nx = -uy, ny = ux; // left of a → b
     const side = nx * (C.x - A.x) + ny * (C.y - A.y) >= 0 ? 1 : -1;
-    const off = { x: side * nx * pitch, y: side * ny * pitch };
-    add(s.a, s.c, off, s.id); add(s.c, s.a, { x: -off.x, y: -off.y }, s.id);
-    add(s.b, s.d, off, s.id); add(s.d, s.b, { x: -off.x, y: -off.y }, s.id);
+    // Each strip's copper ends where its own end corrections put it: a node sits at its strip's cut end.
+    const s2 = s.id + SECOND_STRIP;
+    const alongA = cutAt(s2, s.c) - cutAt(s.id, s.a), alongB = cutAt(s.id, s.b) - cutAt(s2, s.d);
+    const offA = { x: side * nx * pitch + ux * alongA, y: side * ny * pitch + uy * alongA };
+    const offB = { x: side * nx * pitch + ux * alongB, y: side * ny * pitch + uy * alongB };
+    add(s.a, s.c, offA, s.id); add(s.c, s.a, { x: -offA.x, y: -offA.y }, s.id);
+    add(s.b, s.d, offB, s.id); add(s.d, s.b, { x: -offB.x, y: -offB.y }, s.id);
   }
   return links;
 }

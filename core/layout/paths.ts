@@ -93,6 +93,16 @@ function adjacency(sized: SizedDesign): Map<string, Edge[]> {
     const w = p.kind === 'lumped' ? 1e3 : Math.max(p.span, 1e-9);
     adj.get(p.a)?.push({ piece: p, to: p.b, w });
     adj.get(p.b)?.push({ piece: p, to: p.a, w });
+    // A coupled pair also joins its strips by coupling (not by copper): a hop from each end of its first strip to the
+    // end beside it, with no line phase of its own (listed among the path's parts, like a lumped part).
+    const partner = p.pair && p.pair.strip === 1 ? sized.pieces.find((x) => x.id === p.pair!.partner) : undefined;
+    if (partner) {
+      const hop: SizedPiece = { ...p, id: `${p.id}~coupling`, kind: 'lumped', span: 0, length: 0, compensations: [] };
+      for (const [x, y] of [[p.a, partner.a], [p.b, partner.b]] as const) {
+        adj.get(x)?.push({ piece: hop, to: y, w: 1e3 });
+        adj.get(y)?.push({ piece: hop, to: x, w: 1e3 });
+      }
+    }
   }
   return adj;
 }

@@ -454,7 +454,17 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   }
 
   // ---- placement
-  const links = pairLinks(doc.segments, (id) => nodeById.get(id)?.at, (id) => { const d = pairs.get(id); return d ? d.width + d.gap : undefined; });
+  // Per strip end, the copper its applied end corrections removed (open ends, vias): the pair keeps its strips'
+  // cut ends apart along the run (coupledPair.ts).
+  const cutAt = (pieceId: string, node: string): number => {
+    const w = workById.get(pieceId);
+    if (!w) return 0;
+    let c = 0;
+    for (const x of w.piece.compensations) if (x.applied && x.node === node && (x.model === 'open-end' || x.model === 'via')) c += x.amount_m;
+    return c;
+  };
+  for (const w of works) if (w.piece.pair) w.piece.pair.cuts = { near: cutAt(w.seg.id, w.seg.a), far: cutAt(w.seg.id, w.seg.b) };
+  const links = pairLinks(doc.segments, (id) => nodeById.get(id)?.at, (id) => { const d = pairs.get(id); return d ? d.width + d.gap : undefined; }, cutAt);
   const placed = placeNodes(doc, workById, adj, nodeOut, dirFrom, problem, warnings, links);
 
   const pieces = works.map((w) => w.piece);

@@ -37,14 +37,18 @@ function gTerms(g: number): GTerms {
   const t = gSlots[gNext]!;
   gNext = 1 - gNext;
   const lnG = Math.log(g);
-  const g10 = Math.exp(10 * lnG);
+  const g2 = g * g, g5 = g2 * g2 * g, g10 = g5 * g5;
+  const r84 = 8.4 / g, r84s = r84 * r84 * r84; // (8.4/g)^3
+  const a34 = g / 3.4, a34s = a34 * a34, a34p5 = a34s * a34s * a34;
+  const a58 = g / 5.8, a58s = a58 * a58, a58p5 = a58s * a58s * a58;
+  const a15 = g / 0.15, a15s = a15 * a15;
   t.g = g;
   t.q2 = 1 + 0.7519 * g + 0.189 * Math.exp(2.31 * lnG);
-  t.q3 = 0.1975 + Math.pow(16.6 + Math.pow(8.4 / g, 6), -0.387) + Math.log(g10 / (1 + Math.pow(g / 3.4, 10))) / 241;
+  t.q3 = 0.1975 + Math.exp(-0.387 * Math.log(16.6 + r84s * r84s)) + Math.log(g10 / (1 + a34p5 * a34p5)) / 241;
   t.q5 = 1.794 + 1.14 * Math.log(1 + 0.638 / (g + 0.517 * Math.exp(2.43 * lnG)));
-  t.q6 = 0.2305 + Math.log(g10 / (1 + Math.pow(g / 5.8, 10))) / 281.3 + Math.log(1 + 0.598 * Math.exp(1.154 * lnG)) / 5.1;
-  const q7 = (10 + 190 * g * g) / (1 + 82.3 * g * g * g);
-  const q8 = Math.exp(-6.5 - 0.95 * lnG - Math.pow(g / 0.15, 5));
+  t.q6 = 0.2305 + Math.log(g10 / (1 + a58p5 * a58p5)) / 281.3 + Math.log(1 + 0.598 * Math.exp(1.154 * lnG)) / 5.1;
+  const q7 = (10 + 190 * g2) / (1 + 82.3 * g2 * g);
+  const q8 = Math.exp(-6.5 - 0.95 * lnG - a15s * a15s * a15);
   t.q9 = Math.log(q7) * (q8 + 1 / 16.5);
   t.eg = Math.exp(-g);
   return t;

@@ -147,10 +147,22 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
         if (pair.strip !== 1) break;
         const p2 = pieces.get(pair.partner);
         if (!p2) throw new InputError('impossible-layout', p.id, `the second strip ${pair.partner} of the pair`, 'none');
-        const [a1, b1] = padsAround(p, a, b, pads, elements, modelFor);
-        const [c1, d1] = padsAround(p2, endNode(p2.id, p2.a), endNode(p2.id, p2.b), pads, elements, modelFor);
-        elements.push({ kind: 'nport', id: p.id, nodes: [a1, b1, c1, d1], y: pairModel(sub, pair.width, pair.gap, (p.length + p2.length) / 2, opts.line?.dispersion === 'none' ? 0 : 1, opts.lossless === true) });
-        if (Math.abs(p.length - p2.length) > 1e-9) warnings.push(warn('note', `pair ${p.id}: its strips are ${(p.length * 1e3).toFixed(3)} mm and ${(p2.length * 1e3).toFixed(3)} mm long after end corrections; the network uses their mean`, { subjects: [p.id], severity: 'info' }));
+        let [a1, b1] = padsAround(p, a, b, pads, elements, modelFor);
+        let [c1, d1] = padsAround(p2, endNode(p2.id, p2.a), endNode(p2.id, p2.b), pads, elements, modelFor);
+        // The strips overlap where neither is cut; the strip cut less at an end runs on alone there as a plain line.
+        const c1s = pair.cuts ?? { near: 0, far: 0 }, c2s = p2.pair?.cuts ?? { near: 0, far: 0 };
+        const near = Math.max(c1s.near, c2s.near), far = Math.max(c1s.far, c2s.far);
+        const overlap = p.nominalLength - near - far;
+        if (!(overlap > 0)) throw new InputError('impossible-layout', p.id, 'a coupled pair whose strips still overlap after their end corrections', `${(overlap * 1e3).toFixed(3)} mm of overlap`);
+        const alone = (from: string, extra: number, tag: string): string => {
+          if (extra <= 1e-12) return from;
+          const inner = `${p.id}~${tag}`;
+          elements.push({ kind: 'line', id: `${p.id}:${tag}`, a: from, b: inner, length: extra, model: modelFor(pair.width) });
+          return inner;
+        };
+        a1 = alone(a1, near - c1s.near, 'alone-a'); b1 = alone(b1, far - c1s.far, 'alone-b');
+        c1 = alone(c1, near - c2s.near, 'alone-c'); d1 = alone(d1, far - c2s.far, 'alone-d');
+        elements.push({ kind: 'nport', id: p.id, nodes: [a1, b1, c1, d1], y: pairModel(sub, pair.width, pair.gap, overlap, opts.line?.dispersion === 'none' ? 0 : 1, opts.lossless === true) });
         break;
       }
       case 'sparams': {

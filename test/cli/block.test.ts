@@ -1,0 +1,43 @@
+/** `stripwright block`: writes a complete design that build and sweep take as is; refusals in words. */
+import { describe, expect, it } from 'vitest';
+import { mkdtempSync, readFileSync, existsSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { runCli } from '../../cli/main.ts';
+import { parseDesign } from '../../core/index.ts';
+
+async function run(args: string[], cwd: string) {
+  const out: string[] = []; const err: string[] = [];
+  const code = await runCli(args, { out: (t) => out.push(t), err: (t) => err.push(t), cwd });
+  return { code, stdout: out.join('\n'), stderr: err.join('\n') };
+}
+
+describe('stripwright block', () => {
+  it('coupler: writes a valid design with four ports that build accepts and sweep solves', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const r = await run(['block', 'coupler', '--coupling-db', '10', '--f0', '2.45GHz', '--er', '3.66', '--h', '0.508mm', '--tand', '0.0037', '--min-gap', '0.05mm', '--out', 'c.json'], dir);
+    expect(r.code).toBe(0);
+    const p = parseDesign(readFileSync(join(dir, 'c.json'), 'utf8'));
+    expect(p.ok).toBe(true);
+    if (p.ok) expect(p.doc.nodes.filter((n) => n.kind === 'port').map((n) => n.id).sort()).toEqual(['coupled', 'in', 'isolated', 'through']);
+    expect((await run(['build', 'c.json'], dir)).code).toBe(0);
+    const s = await run(['sweep', 'c.json', '--from', '2.45GHz', '--to', '2.45GHz', '--points', '1', '--json'], dir);
+    expect(s.code).toBe(0);
+  });
+  it('bandpass: order, bw in percent and ripple; the design builds', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const r = await run(['block', 'bandpass', '--order', '3', '--f0', '2.45GHz', '--bw', '10%', '--ripple-db', '0.5', '--er', '3.66', '--h', '0.508mm', '--min-gap', '0.03mm', '--out', 'f.json'], dir);
+    expect(r.code).toBe(0);
+    const p = parseDesign(readFileSync(join(dir, 'f.json'), 'utf8'));
+    expect(p.ok && p.doc.segments.filter((x) => x.kind === 'coupled').length).toBe(4);
+    expect((await run(['build', 'f.json'], dir)).code).toBe(0);
+  });
+  it('refuses a gap below the process minimum (exit 1, no file) and a bad command line (exit 2)', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const r = await run(['block', 'coupler', '--coupling-db', '6', '--f0', '2.45GHz', '--out', 'x.json'], dir);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/tightest coupling/);
+    expect(existsSync(join(dir, 'x.json'))).toBe(false);
+    expect((await run(['block', 'ladder', '--f0', '1GHz', '--out', 'y.json'], dir)).code).toBe(2);
+  });
+});

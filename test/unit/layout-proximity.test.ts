@@ -1,0 +1,65 @@
+/**
+ * Proximity in the shop check (core/layout/proximity.ts via checkFabrication). The estimate is the backward coupling
+ * of a matched coupled section (D. M. Pozar, Microwave Engineering, 4th ed., §7.6); here it is checked against the
+ * nodal solution of the same two runs drawn as one coupled pair, and the rule is run on every example design.
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync, readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import {
+  newDesign, sizeDesign, buildBoardGeometry, checkFabrication, initPolygons, parseDesign, netlistFromSized, solveNetwork, magnitudeDb, portIndex,
+  type DesignDoc, type DesignNode, type DesignSegment,
+} from '../../core/index.ts';
+
+beforeAll(async () => { await initPolygons(); });
+
+const SUB = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 0 };
+const W = 3e-3, L = 15e-3;
+
+/** Two straight 50 Ω-ish runs of width W, `gap` apart edge to edge, each between two ports: two separate paths. */
+function twoRuns(gap: number): DesignDoc {
+  const doc = newDesign({ name: 'two runs', substrate: SUB, f0: 2.45e9, process: { kind: 'etch', edgeBias: 0, minFeature: 0.1e-3 } });
+  const y2 = -(W + gap);
+  const port = (id: string, x: number, y: number, heading: number): DesignNode => ({ id, kind: 'port', zRef: 50, heading, at: { x, y } });
+  doc.nodes = [port('a1', 0, 0, 0), port('a2', L, 0, Math.PI), port('b1', 0, y2, 0), port('b2', L, y2, Math.PI)];
+  const seg = (id: string, a: string, b: string): DesignSegment => ({ id, kind: 'line', a, b, width: { by: 'width', width: W }, length: { by: 'length', length: L } });
+  doc.segments = [seg('run-a', 'a1', 'a2'), seg('run-b', 'b1', 'b2')];
+  return doc;
+}
+
+describe('proximity findings', () => {
+  it('names two runs closer than 3h, marks where, and estimates the coupling as a coupled pair solved by the network does (within 0.5 dB)', () => {
+    const gap = 0.8e-3;
+    const sized = sizeDesign(twoRuns(gap));
+    const f = checkFabrication(sized, buildBoardGeometry(sized)).filter((x) => x.code === 'proximity');
+    expect(f).toHaveLength(1);
+    expect(f[0]!.subjects.sort()).toEqual(['run-a', 'run-b']);
+    expect(f[0]!.at!.x).toBeCloseTo(L / 2, 6);
+    const est = Number(/about (-?\d+\.\d) dB/.exec(f[0]!.message)![1]);
+    // The same runs as one coupled pair (format 3), ports at its four ends, solved by the nodal solver.
+    const doc = twoRuns(gap);
+    doc.segments = [{ id: 'pair', kind: 'coupled', a: 'a1', b: 'a2', c: 'b1', d: 'b2', pair: { by: 'geometry', width: W, gap }, length: { by: 'length', length: L } }];
+    const r = solveNetwork(netlistFromSized(sizeDesign(doc)), [2.45e9]);
+    const s31 = magnitudeDb(r, portIndex(r, 'b1'), portIndex(r, 'a1'))[0]!;
+    expect(Math.abs(est - s31)).toBeLessThan(0.5);
+  });
+  it('is quiet beyond the limit, and the limit can be set', () => {
+    const sized = sizeDesign(twoRuns(6e-3)); // 3.75 h
+    const g = buildBoardGeometry(sized);
+    expect(checkFabrication(sized, g).filter((x) => x.code === 'proximity')).toEqual([]);
+    expect(checkFabrication(sized, g, { proximityLimit: 8e-3 }).filter((x) => x.code === 'proximity')).toHaveLength(1);
+  });
+  it('runs on every example design without error, naming only pieces that exist', () => {
+    const dir = join(import.meta.dirname, '..', '..', 'assets', 'examples');
+    for (const f of readdirSync(dir).filter((x) => x.endsWith('.json'))) {
+      const p = parseDesign(readFileSync(join(dir, f), 'utf8'));
+      if (!p.ok) throw new Error(f);
+      const sized = sizeDesign(p.doc);
+      const ids = new Set(sized.pieces.map((x) => x.id));
+      for (const x of checkFabrication(sized, buildBoardGeometry(sized), { proximityLimit: 6 * p.doc.substrate.h }).filter((y) => y.code === 'proximity')) {
+        expect(x.subjects.every((s) => ids.has(s))).toBe(true);
+        expect(x.message).toMatch(/dB couples/);
+      }
+    }
+  });
+});
