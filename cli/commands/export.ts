@@ -37,7 +37,7 @@ Options:
   --out PATH              where to write: a file for one output, a folder (created if missing) for several
   --force                 overwrite existing files (otherwise nothing is written when a target exists)
   --mirror                mirror left-right (all formats; usual for toner transfer and emulsion-down films)
-  --bias LEN              etch bias per copper edge, e.g. 0.035mm (+ grows copper, − shrinks); all formats
+  --bias LEN              etch bias per copper edge, e.g. 0.035mm (+ grows copper, − shrinks); all formats but gcode
   --origin board|design   (0,0) at the board's lower-left corner (default) or at the design origin
   --layers L[,L…]         layers for dxf/svg among: ${EXPORT_LAYERS.join(', ')}
   --tool LEN              milling tool diameter: adds isolation outlines offset by its radius (dxf/svg layer 'isolation')
@@ -81,7 +81,7 @@ interface Output { name: string; text: string; what: string }
 
 export const exportCommand: CliCommand = {
   name: 'export',
-  summary: 'Write DXF, SVG, Gerber X2, Excellon drill or a 1:1 photo mask for a design',
+  summary: 'Write DXF, SVG, Gerber X2, Excellon drill, a 1:1 photo mask or milling G-code for a design',
   usage,
   async run(argv: string[], io: CliIo): Promise<number> {
     const { values, positionals } = parseArgs({
@@ -143,6 +143,7 @@ export const exportCommand: CliCommand = {
       }
       const base = safeBase(file);
       const milling = formats.includes('gcode') ? millingOptions(values as Record<string, string | boolean | undefined>) : null;
+      if (milling && bias !== 0) io.err('stripwright export: note: --bias does not change the G-code (the mill cuts the drawn copper)');
       if (!milling && Object.keys(MILL_FLAGS).some((k) => (values as Record<string, unknown>)[k] !== undefined)) {
         io.err('stripwright export: note: the G-code options only change --format gcode');
       }
