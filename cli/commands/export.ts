@@ -8,7 +8,7 @@ import { parseArgs } from 'node:util';
 import { existsSync, mkdirSync, statSync } from 'node:fs';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import {
-  EXPORT_FILE_NAMES, InputError, initPolygons, exportGcode, MILLING_CAUTIONS, type MillingOptions, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
+  EXPORT_FILE_NAMES, InputError, initPolygons, exportGcode, planDesignMilling, MILLING_CAUTIONS, type MillingOptions, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
   sizeDesign, boardGeometryOf, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
@@ -38,7 +38,7 @@ Options:
   --out PATH              where to write: a file for one output, a folder (created if missing) for several
   --force                 overwrite existing files (otherwise nothing is written when a target exists)
   --mirror                mirror left-right (all formats; usual for toner transfer and emulsion-down films)
-  --bias LEN              etch bias per copper edge, e.g. 0.035mm (+ grows copper, − shrinks); all formats
+  --bias LEN              etch bias per copper edge, e.g. 0.035mm (+ grows copper, − shrinks); all formats but gcode
   --origin board|design   (0,0) at the board's lower-left corner (default) or at the design origin
   --layers L[,L…]         layers for dxf/svg among: ${EXPORT_LAYERS.join(', ')}
   --tool LEN              milling tool diameter: adds isolation outlines offset by its radius (dxf/svg layer 'isolation')
@@ -68,6 +68,8 @@ G-code options (defaults suit small desktop routers; X0 Y0 = the board's lower-l
   --work-area W,H         the machine's travel, e.g. 300mm,180mm (default 200mm,150mm)
   --board-at X,Y          where the board's corner sits in the work area (default 5mm,5mm)
   --rapid SPEED           rapid speed for the time estimate (default 1000mm/min)
+  --plan                  the mill-readiness check alone: print the tools, times, checks and widths as milled;
+                          write nothing (no --format or --out needed); exit 1 when the export would be refused
   Cautions: glass-fibre dust (extraction, a suitable mask), eye and hearing protection, spindle guards; never leave the
   machine running unattended; follow the machine's manual and local rules.
 
@@ -80,7 +82,7 @@ interface Output { name: string; text: string; what: string }
 
 export const exportCommand: CliCommand = {
   name: 'export',
-  summary: 'Write DXF, SVG, Gerber X2, Excellon drill or a 1:1 photo mask for a design',
+  summary: 'Write DXF, SVG, Gerber X2, Excellon drill, a 1:1 photo mask or milling G-code for a design',
   usage,
   async run(argv: string[], io: CliIo): Promise<number> {
     const { values, positionals } = parseArgs({
@@ -91,10 +93,11 @@ export const exportCommand: CliCommand = {
         format: { type: 'string' }, out: { type: 'string' }, force: { type: 'boolean' }, mirror: { type: 'boolean' },
         bias: { type: 'string' }, origin: { type: 'string' }, layers: { type: 'string' }, tool: { type: 'string' },
         style: { type: 'string' }, page: { type: 'string' }, polarity: { type: 'string' }, 'dxf-version': { type: 'string' },
-        ...MILL_FLAGS,
+        ...MILL_FLAGS, plan: { type: 'boolean' },
       },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to export' : `give one design FILE, got ${positionals.length}`);
+    if (values.plan) return planOnly(positionals[0], values as Record<string, string | boolean | undefined>, io);
     if (!values.format) throw new UsageError('give --format, e.g. --format gerber,drill');
     if (!values.out) throw new UsageError('give --out PATH (a file, or a folder when several files are written)');
     const formats = values.format.split(',').map((f) => f.trim().toLowerCase()).filter((f) => f !== '');
@@ -139,6 +142,7 @@ export const exportCommand: CliCommand = {
       }
       const base = safeBase(file);
       const milling = formats.includes('gcode') ? millingOptions(values as Record<string, string | boolean | undefined>) : null;
+      if (milling && bias !== 0) io.err('stripwright export: note: --bias does not change the G-code (the mill cuts the drawn copper)');
       if (!milling && Object.keys(MILL_FLAGS).some((k) => (values as Record<string, unknown>)[k] !== undefined)) {
         io.err('stripwright export: note: the G-code options only change --format gcode');
       }
@@ -183,7 +187,7 @@ export const exportCommand: CliCommand = {
             }
             for (const fnd of gc.plan.findings) io.err(`${fnd.severity === 'info' ? 'note' : fnd.severity}: ${fnd.message}`);
             const worst = gc.plan.milled.pieces.reduce<(typeof gc.plan.milled.pieces)[number] | null>((a, b) => (!a || Math.abs(b.z0Shift) > Math.abs(a.z0Shift) ? b : a), null);
-            if (worst) io.err(`note: as milled, the largest Z0 shift is ${worst.z0Shift >= 0 ? '+' : ''}${worst.z0Shift.toFixed(2)} Ω on ${worst.id} (${(worst.topWidth * 1e3).toFixed(3)} mm at the top, ${(worst.footWidth * 1e3).toFixed(3)} mm at the foot)`);
+            if (worst) io.err(`note: as milled, the largest Z0 shift is ${signed(worst.z0Shift)} Ω on ${worst.id} (${(worst.topWidth * 1e3).toFixed(3)} mm at the top, ${(worst.footWidth * 1e3).toFixed(3)} mm at the foot)`);
             io.err(`note: about ${Math.ceil(gc.plan.seconds / 60)} min of machining in ${gc.files.length} file(s), run in tool order. ${MILLING_CAUTIONS.join(' ')}`);
             break;
           }
@@ -215,6 +219,45 @@ export const exportCommand: CliCommand = {
 };
 
 class OutError extends Error {}
+
+/** A shift with its sign, to 0.01 (a shift that rounds to zero shows as +0.00, never −0.00). */
+function signed(x: number): string { const r = Math.round(x * 100) / 100; return `${r >= 0 ? '+' : '−'}${Math.abs(r).toFixed(2)}`; }
+
+/** `--plan`: the milling plan and its checks, printed; nothing written. Exit 1 when the export would be refused. */
+async function planOnly(given: string, values: Record<string, string | boolean | undefined>, io: CliIo): Promise<number> {
+  const file = resolve(io.cwd, given);
+  try {
+    const options = millingOptions(values);
+    let text: string;
+    try { text = readFileSync(file, 'utf8'); } catch (e) {
+      io.err(`stripwright export: cannot read ${given}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
+      return 1;
+    }
+    const parsed = parseDesign(text);
+    if (!parsed.ok) { io.err(`stripwright export: ${given} is not a valid design:`); for (const i of parsed.errors) io.err(`  ${i.message}`); return 1; }
+    await initPolygons();
+    const { plan } = planDesignMilling(parsed.doc, options);
+    const mm = (m: number) => (m * 1e3).toFixed(3);
+    io.out(`Milling plan for ${basename(file)}: board ${mm(plan.size.width)} × ${mm(plan.size.height)} mm, about ${Math.ceil(plan.seconds / 60)} min in ${plan.programs.length} file(s)`);
+    for (const p of plan.programs) io.out(`  T${p.tool.number}  ${p.tool.label}: ${p.operations.join(', ')}, ${mm(p.cutLength)} mm cutting, about ${Math.ceil(p.seconds / 60)} min`);
+    io.out('Widths as milled (top / foot of the copper) and Z0 at f0:');
+    for (const p of plan.milled.pieces) {
+      io.out(`  ${p.id.padEnd(12)} drawn ${mm(p.drawnWidth)} mm → ${mm(p.topWidth)} / ${mm(p.footWidth)} mm, Z0 ${p.z0Drawn.toFixed(2)} → ${p.z0Milled.toFixed(2)} Ω (${p.joined ? 'joined to other copper' : `${signed(p.z0Shift)} Ω`})`);
+    }
+    const errors = plan.findings.filter((f) => f.severity === 'error');
+    for (const f of plan.findings) io.out(`${f.severity === 'info' ? 'note' : f.severity}: ${f.message}${f.severity === 'error' ? ` (${f.fix})` : ''}`);
+    io.out(errors.length ? `Not ready: the export would be refused (${errors.length} error${errors.length === 1 ? '' : 's'}).` : 'Ready to mill: every check passed.');
+    io.err(MILLING_CAUTIONS.join(' '));
+    return errors.length ? 1 : 0;
+  } catch (e) {
+    if (e instanceof InputError) {
+      const flag = FLAG_OF_FIELD[e.field];
+      io.err(`stripwright export: ${flag ? `--${flag}: expected ${e.expected}, got ${e.got}${e.hint ? ` (${e.hint})` : ''}` : e.message}`);
+      return 1;
+    }
+    throw e;
+  }
+}
 
 /** G-code flags: option name in MillingOptions → flag, and how to read it. */
 const MILL: Record<string, { field: keyof MillingOptions | 'workArea.width' | 'boardAt.x'; kind: 'length' | 'speed' | 'number' | 'flag' | 'pair' | 'text' }> = {

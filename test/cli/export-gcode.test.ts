@@ -64,4 +64,16 @@ describe('stripwright export --format gcode', () => {
     expect(r.stderr).toMatch(/--work-area: .*outside the work area.*the job needs about/);
     expect(existsSync(join(dir, 'mill'))).toBe(false);
   });
+  it('--plan prints the mill-readiness check and the widths as milled, writes nothing, and exits 1 when it would refuse', () => {
+    const dir = workdir();
+    const ok = cli(['export', 'stub.json', '--plan'], dir);
+    expect(ok.code).toBe(0);
+    expect(ok.stdout).toMatch(/T1 {2}30 deg V-bit/);
+    expect(ok.stdout).toMatch(/stub +drawn \d\.\d{3} mm → \d\.\d{3} \/ \d\.\d{3} mm, Z0 \d+\.\d\d → \d+\.\d\d Ω/);
+    expect(ok.stdout).toMatch(/Ready to mill/);
+    const bad = cli(['export', 'stub.json', '--plan', '--work-area', '20mm,20mm'], dir);
+    expect(bad.code).toBe(1);
+    expect(bad.stdout).toMatch(/Not ready/);
+    expect(readdirSync(dir)).toEqual(['stub.json']);
+  });
 });

@@ -7,7 +7,9 @@ import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { exportGcode, initPolygons, parseDesign, PROCESS_DEFAULT, type DesignDoc } from '../../core/index.ts';
-import { checkExport } from './gcode-oracle-checks.ts';
+import { checkExport, fileFrame } from './gcode-oracle-checks.ts';
+
+const fileFrameOf = (ex: ReturnType<typeof exportGcode>) => fileFrame(ex.geometry);
 import { retrace } from '../../scripts/oracles/gcode-retrace.ts';
 
 const DIR = join(import.meta.dirname, '../../assets/examples');
@@ -80,5 +82,28 @@ describe('the checks catch broken files', () => {
     expect(t.arcs).toBe(2);
     expect(far).toBeCloseTo(25.4, 6);
     expect(Math.min(...t.moves.filter((m) => !m.rapid).map((m) => m.b.y))).toBeCloseTo(-25.4, 2); // clockwise from (1, 0) passes (0, −1)
+  });
+});
+
+describe('holes larger than the largest drill, milled with arcs', () => {
+  it('the 0.8 mm vias milled by a 0.5 mm end mill: G2 circles whose swept edge is the hole (read back by gcode-toolpath)', () => {
+    const doc = example('shorted-stub-match.json');
+    const ex = exportGcode(doc, { maxDrill: 0.6e-3, cutoutTool: 0.5e-3, toolChange: true }, { base: 'b', ...INFO });
+    expect(ex.files.map((f) => f.name)).toEqual(['b-T1-isolation.nc', 'b-T2-cutout.nc']);
+    const text = ex.files[1]!.text;
+    expect(text).toMatch(/^T2 M6$/m); // the optional tool change
+    const t = retrace(text);
+    expect(t.arcs).toBeGreaterThan(0);
+    const F = fileFrameOf(ex);
+    for (const d of F.drills) {
+      // Cutting moves within the hole's reach, at full depth: their farthest point from the centre plus the tool
+      // radius is the hole's radius (within the 1 µm coordinate rounding and the reader's 0.5 µm arc flattening).
+      const deep = t.moves.filter((m) => !m.rapid && m.b.z <= -(doc.substrate.h + doc.substrate.t) * 1e3 && Math.hypot(m.b.x - d.x, m.b.y - d.y) < d.d);
+      expect(deep.length).toBeGreaterThan(8);
+      const far = Math.max(...deep.map((m) => Math.hypot(m.b.x - d.x, m.b.y - d.y)));
+      const near = Math.min(...deep.map((m) => Math.hypot(m.b.x - d.x, m.b.y - d.y)));
+      expect(Math.abs(far + 0.25 - d.d / 2)).toBeLessThan(0.0015);
+      expect(Math.abs(near + 0.25 - d.d / 2)).toBeLessThan(0.0015);
+    }
   });
 });

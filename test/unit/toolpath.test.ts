@@ -7,7 +7,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
   InputError, initPolygons, resolveMillingOptions, MILLING_DEFAULTS, cutWidth, isolationPaths, ringArea, orderItems, tourLength,
-  drillMoves, cutoutMoves, exportGcode, planDesignMilling, estimate, PROCESS_DEFAULT, parseQuantity,
+  drillMoves, cutoutMoves, exportGcode, planDesignMilling, estimate, PROCESS_DEFAULT, parseQuantity, sweptArea, regionsArea,
   type FabProcess, type Region, type ToolProgram,
 } from '../../core/index.ts';
 import { twoStrips } from './toolpath-fixtures.ts';
@@ -43,6 +43,22 @@ describe('machining options', () => {
       }
     });
   }
+});
+
+describe('swept area (core/geometry sweptArea)', () => {
+  it('a straight cut sweeps a stadium, 2rL + πr²; a square loop of side a a band of 8ar + (π − 4)r² (plain geometry)', () => {
+    const r = 0.1e-3, L = 5e-3, a = 4e-3;
+    // Round ends and joins are polygons whose chords lie within 1 µm inside the arcs: each area may fall short of the
+    // formula by at most (arc length) × 1 µm, here 2πr × 1 µm, and never exceed it.
+    const short = 2 * Math.PI * r * 1e-6;
+    const within = (got: number, want: number) => { expect(got).toBeLessThanOrEqual(want + 1e-15); expect(got).toBeGreaterThan(want - short); };
+    const open1 = sweptArea([{ points: [{ x: 0, y: 0 }, { x: L, y: 0 }], closed: false }], r);
+    within(regionsArea(open1), 2 * r * L + Math.PI * r * r);
+    const loop = sweptArea([{ points: [{ x: 0, y: 0 }, { x: a, y: 0 }, { x: a, y: a }, { x: 0, y: a }], closed: true }], r);
+    expect(loop).toHaveLength(1);
+    expect(loop[0]!.holes).toHaveLength(1);
+    within(regionsArea(loop), 8 * a * r + (Math.PI - 4) * r * r);
+  });
 });
 
 describe('toolpaths from geometry', () => {

@@ -292,6 +292,7 @@ export class EditorState {
     this.selection = new Set();
     this.layout = null;
     this.ground = null;
+    this.milled = null;
     this.flagged = new Set();
     this.history.reset(doc);
     this.canUndo = false;
