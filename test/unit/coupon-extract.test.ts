@@ -87,7 +87,7 @@ describe('extraction on lines made with our own model (self-consistency)', () =>
     const dl = 0.02;
     for (const x of r.excluded) {
       if (x.f === 0) continue;
-      const bdl = (2 * Math.PI * x.f / C0) * Math.sqrt(r.points.find((p) => p.f === x.f)!.fitEpsEff) * dl;
+      const bdl = (2 * Math.PI * x.f / C0) * Math.sqrt(r.points.find((p) => p.f === x.f)!.fitEpsEff!) * dl;
       const off = Math.abs(bdl / Math.PI - Math.round(bdl / Math.PI)) * 180;
       expect(off).toBeLessThan(21);
     }
@@ -127,6 +127,22 @@ describe('extraction on lines made with our own model (self-consistency)', () =>
       expect(rms).toBeGreaterThan(0.25);
       expect(rms).toBeLessThan(2);
     }
+  });
+
+  it('a file that reaches past the higher-order-mode threshold: those points are left out with the reason, the rest used', () => {
+    // 1.52 mm, εr 4.3, 2.9 mm strip: the first transverse resonance c0/(√εr·(2W + 0.8h)) is about 20 GHz, and the
+    // line model refuses frequencies above twice the TE1 onset (about 54 GHz at the εr 4.4 guess): the file goes to 61.
+    const L = [0.02, 0.024];
+    const freqs = Array.from({ length: 121 }, (_, i) => 1e9 + i * 0.5e9);
+    const texts = synthCoupon({ sub: FR, width: 2.9e-3, lengths: L, freqs: freqs.filter((f) => f <= 20e9), seed: 2 });
+    // The synthetic lines exist only below the threshold; above it, copy the last point (a measured file has data there).
+    const extend = (text: string) => text + freqs.filter((f) => f > 20e9).map((f) => `${f / 1e9} ${text.trim().split('\n').pop()!.split(/\s+/).slice(1).join(' ')}`).join('\n') + '\n';
+    const r = extractLaminate(input(texts.map(extend), L, { dielectric: 'constant' }));
+    const high = r.excluded.filter((x) => /higher-order mode/.test(x.reason));
+    expect(high.length).toBeGreaterThan(0);
+    expect(high.every((x) => x.f > 15e9)).toBe(true);
+    expect(r.points.filter((p) => p.f > high[0]!.f).every((p) => !p.used && p.fitEpsEff === undefined)).toBe(true);
+    expect(Math.abs(r.er / FR.er - 1)).toBeLessThan(2e-3);
   });
 
   it('a poor first guess (εr 2.5 for a 4.3 laminate) still resolves the 2π multiple', () => {

@@ -74,9 +74,10 @@ export interface CouponPoint {
   epsEffLoss: number;
   alpha: number;
   beta: number;
-  /** The fitted model's ε'_eff and α (Np/m) at this frequency. */
-  fitEpsEff: number;
-  fitAlpha: number;
+  /** The fitted model's ε'_eff and α (Np/m) at this frequency; absent where the model does not apply (0 Hz, above
+   * the higher-order-mode threshold). */
+  fitEpsEff?: number;
+  fitAlpha?: number;
   /** Conditioning: the best line pair's β·Δl distance from n·180°, degrees (0–90). */
   phaseMarginDeg: number;
 }
@@ -199,6 +200,8 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
     t[k] = ts as Mat2[];
   }
 
+  const inModel: number[] = [];
+  for (let k = 0; k < F; k++) if (freqs[k]! > 0 && freqs[k]! <= fTop) inModel.push(k);
   const fitList: FitParameter[] = input.fitRoughness ? ['er', 'tanDelta', 'roughness'] : ['er', 'tanDelta'];
   let sub = start;
   let fMeasure = input.fMeasure;
@@ -208,9 +211,11 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
   let used: number[] = [];
   for (let round = 0; round < 4; round++) {
     // γ guesses from the line model with the current laminate.
-    const guess = modelEps(sub, width, freqs.map((f) => (f > 0 ? f : 1)), input.line);
+    // (only where the model applies: above 0 Hz and up to the higher-order-mode threshold).
+    const guess = modelEps(sub, width, inModel.map((k) => freqs[k]!), input.line);
     if (!guess) throw new InputError('out-of-range', 'erGuess', 'a first guess the line model accepts for this width and height', String(sub.er));
-    est = freqs.map((_, k) => (t[k] ? multilineGamma(t[k]!, lengths, { re: guess.alpha[k]!, im: guess.beta[k]! }, minPhaseDeg) : null));
+    est = freqs.map(() => null);
+    inModel.forEach((k, i) => { if (t[k]) est[k] = multilineGamma(t[k]!, lengths, { re: guess.alpha[i]!, im: guess.beta[i]! }, minPhaseDeg); });
     used = [];
     for (let k = 0; k < F; k++) if (est[k]) used.push(k);
     if (used.length < 3) {
@@ -245,7 +250,9 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
     sub = result.substrate;
   }
   const fit = result!;
-  const fitAll = modelEps(fit.substrate, width, freqs.map((f) => (f > 0 ? f : 1)), input.line)!;
+  const fitted = modelEps(fit.substrate, width, inModel.map((k) => freqs[k]!), input.line);
+  const fitAt = new Map<number, { eps: number; alpha: number }>();
+  if (fitted) inModel.forEach((k, i) => { const k0 = (2 * Math.PI * freqs[k]!) / C0; fitAt.set(k, { eps: (fitted.beta[i]! / k0) ** 2, alpha: fitted.alpha[i]! }); });
   const points: CouponPoint[] = [];
   const excluded: { f: number; reason: string }[] = [];
   for (let k = 0; k < F; k++) {
@@ -253,11 +260,11 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
     const reason = fixedReason[k] ?? (e ? undefined : `β·Δl within ${minPhaseDeg}° of a multiple of 180° for every line pair (ill-conditioned)`);
     if (reason) excluded.push({ f: freqs[k]!, reason });
     const eps = e ? effectivePermittivityFromGamma(e.gamma, freqs[k]!) : { real: 0, loss: 0 };
-    const k0 = (2 * Math.PI * Math.max(freqs[k]!, 1)) / C0;
+    const m = fitAt.get(k);
     points.push({
       f: freqs[k]!, used: !reason, ...(reason ? { reason } : {}),
       epsEff: eps.real, epsEffLoss: eps.loss, alpha: e ? e.gamma.re : 0, beta: e ? e.gamma.im : 0,
-      fitEpsEff: freqs[k]! > 0 ? (fitAll.beta[k]! / k0) ** 2 : 0, fitAlpha: freqs[k]! > 0 ? fitAll.alpha[k]! : 0,
+      ...(m ? { fitEpsEff: m.eps, fitAlpha: m.alpha } : {}),
       phaseMarginDeg: e ? e.phaseMarginDeg : 0,
     });
   }
