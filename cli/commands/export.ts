@@ -228,12 +228,10 @@ async function planOnly(given: string, values: Record<string, string | boolean |
   const file = resolve(io.cwd, given);
   try {
     const options = millingOptions(values);
-    let text: string;
-    try { text = readFileSync(file, 'utf8'); } catch (e) {
-      io.err(`stripwright export: cannot read ${given}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}`);
-      return 1;
-    }
-    const parsed = parseDesign(text);
+    // The one bounded text reader of every command (size limit, devices refused, UTF-8 checked, errors in words).
+    const read = await readInputText(file, given, DESIGN_TEXT, 'a design file (.json)');
+    if (!read.ok) { io.err(`stripwright export: ${read.message}`); return 1; }
+    const parsed = parseDesign(read.text);
     if (!parsed.ok) { io.err(`stripwright export: ${given} is not a valid design:`); for (const i of parsed.errors) io.err(`  ${i.message}`); return 1; }
     await initPolygons();
     const { plan } = planDesignMilling(parsed.doc, options);
