@@ -19,7 +19,7 @@ export default defineConfig({
         test: {
           name: 'core',
           root: '.',
-          include: ['test/unit/**/*.test.ts', 'test/reference/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/electron/**/*.test.ts'],
+          include: ['test/unit/**/*.test.ts', 'test/reference/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/electron/**/*.test.ts', 'test/fuzz/**/*.test.ts'],
           environment: 'node',
           testTimeout: 60_000,
         },
