@@ -10,14 +10,17 @@
 import { InputError, describe } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import { offsetRegions, unionRegions } from '../geometry/polygons.ts';
+import { PROCESS_LIMITS } from '../design/limits.ts';
 import type { ExportGeometry } from './layers.ts';
 
 export interface Isolated { geometry: ExportGeometry; warnings: Warning[] }
 
 /** Adds `isolation` (tool-centre outlines) to the geometry for a cutter of diameter `toolDiameter` metres. */
 export function withIsolation(g: ExportGeometry, toolDiameter: number): Isolated {
-  if (typeof toolDiameter !== 'number' || !Number.isFinite(toolDiameter) || toolDiameter <= 0 || toolDiameter > 6e-3) {
-    throw new InputError('out-of-range', 'toolDiameter', 'a cutter diameter above 0 and up to 6 mm', describe(toolDiameter),
+  // The same bound as the design's end-mill process (PROCESS_LIMITS: what end mills are).
+  const max = PROCESS_LIMITS.endMillDiameterMax;
+  if (typeof toolDiameter !== 'number' || !Number.isFinite(toolDiameter) || toolDiameter <= 0 || toolDiameter > max) {
+    throw new InputError('out-of-range', 'toolDiameter', `a cutter diameter above 0 and up to ${max * 1e3} mm`, describe(toolDiameter),
       'give the cut width at your depth, e.g. 0.2mm for a fine V-bit');
   }
   const warnings: Warning[] = [];

@@ -48,18 +48,20 @@ test('zoom with keys and wheel, fit, and switch to mil', async ({ page }) => {
   const scale = async () => parseFloat((await page.getByTestId('status').locator('..').innerText()).match(/([\d.]+) px\/mm/)![1]!);
   const s0 = await scale();
   await page.getByTestId('board-canvas').focus();
+  // The status line follows the view after the key is handled: poll it rather than read it once.
   await page.keyboard.press('=');
-  expect(await scale()).toBeGreaterThan(s0);
+  await expect.poll(scale).toBeGreaterThan(s0);
   await page.keyboard.press('-');
   await page.keyboard.press('-');
-  expect(await scale()).toBeLessThan(s0);
+  await expect.poll(scale).toBeLessThan(s0);
+  const zoomedOut = await scale();
   const box = (await page.getByTestId('board-canvas').boundingBox())!;
   await page.mouse.move(box.x + 300, box.y + 200);
   await page.mouse.wheel(0, -400);
-  const zoomed = await scale();
+  // The wheel is handled after mouse.wheel returns: wait for its zoom before pressing the next key.
+  await expect.poll(scale).not.toBe(zoomedOut);
   await page.keyboard.press('f');
-  expect(Math.abs((await scale()) - s0) / s0).toBeLessThan(0.05);
-  expect(zoomed).not.toBe(s0);
+  await expect.poll(async () => Math.abs((await scale()) - s0) / s0).toBeLessThan(0.05);
   await page.keyboard.press('u');
   await expect(page.locator('.ruler .unit-label').first()).toHaveText('mil');
   await expect(page.getByTestId('units')).toHaveText('mil');
@@ -193,9 +195,9 @@ test('the snap grid can be chosen in the status line and frames the selection wi
   const framed = await scale();
   await page.getByTestId('board-canvas').focus();
   await page.keyboard.press('f');
-  expect(await scale()).toBeLessThan(framed);
+  await expect.poll(scale).toBeLessThan(framed);
   await page.keyboard.press('Shift+F');
-  expect(await scale()).toBeCloseTo(framed, 1);
+  await expect.poll(scale).toBeCloseTo(framed, 1);
 });
 
 test('a part takes measured data from a Touchstone file chosen in the piece sheet, and the response follows', async ({ page }) => {

@@ -17,7 +17,7 @@ test('export DXF of the demo and read it back', async ({ page }) => {
   await page.locator('[data-piece]').first().waitFor();
   await page.keyboard.press('Control+e');
   await expect(page.getByTestId('outputs-panel')).toBeVisible();
-  await expect(page.getByTestId('export-preview').locator('img')).toBeVisible({ timeout: 15_000 });
+  await expect(page.getByTestId('export-preview').locator('img')).toBeVisible({ timeout: 30_000 });
   await page.getByTestId('mirror').check();
   await readmeShot(page, 'outputs.png');
   const download = page.waitForEvent('download');
@@ -35,11 +35,11 @@ test('fix a shop-check finding: the loss budget, with a low-loss laminate', asyn
   await page.goto('/');
   await page.getByTestId('dock-findings').click();
   const finding = page.getByTestId('finding-loss-budget').first();
-  await expect(finding).toBeVisible({ timeout: 15_000 });
+  await expect(finding).toBeVisible({ timeout: 30_000 });
   await finding.click(); // selects and frames the pieces of that path
   await expect(page.getByTestId('piece-sheet')).toContainText('items selected');
   await page.getByTestId('tab-stack').click();
   const tan = page.getByTestId('field-tan');
   await tan.fill('0.002');
-  await expect(page.getByTestId('finding-loss-budget')).toHaveCount(0, { timeout: 15_000 });
+  await expect(page.getByTestId('finding-loss-budget')).toHaveCount(0, { timeout: 30_000 });
 });

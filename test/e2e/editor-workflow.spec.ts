@@ -149,7 +149,9 @@ test('rename the design, ask for a phase match, and read the safety cautions', a
 test('work left unsaved is offered back after the page is closed', async ({ page }) => {
   await page.goto('/');
   await drawDivider(page);
-  await page.waitForTimeout(2600); // the recovery copy is written 2 s after the last edit
+  // The recovery copy is written 2 s after the last edit: wait until it is in the browser's storage (a fixed wait
+  // failed when the machine was busy and the timer ran late).
+  await expect.poll(() => page.evaluate(() => Object.keys(localStorage).filter((k) => k.startsWith('stripwright.recovery.v1.')).length), { timeout: 20_000 }).toBeGreaterThan(0);
   // Leaving with unsaved work makes the browser ask first; say yes.
   const asked: string[] = [];
   page.on('dialog', (d) => { asked.push(d.type()); void d.accept(); });

@@ -7,6 +7,8 @@ const ROOT = join(import.meta.dirname, '..', '..');
 // `npm start` on a machine where Electron cannot start (this one: the binary cannot be downloaded) must print the
 // fallback address and why, and serve the same renderer there. Where Electron does start, this test is skipped.
 test('npm start falls back to serving the renderer on 127.0.0.1 and the page loads', async ({ page }) => {
+  // The start script may build first on a fresh clone: give the test more than its own 90 s wait for the address.
+  test.setTimeout(150_000);
   const child = spawn('npm', ['start', '-s'], { cwd: ROOT, env: { ...process.env, PORT: '5291' }, detached: true });
   let out = '';
   child.stdout.on('data', (d: Buffer) => { out += d.toString(); });
