@@ -34,7 +34,7 @@ export class AtomicWriteError extends Error {
   override name = 'AtomicWriteError';
   constructor(readonly step: AtomicStep, readonly path: string, override readonly cause: NodeJS.ErrnoException) {
     super(step === 'check'
-      ? `${path} is read-only, so it was not replaced and is unchanged. Use Save As to keep your version under another name (or make the file writable first).`
+      ? `${path} is read-only, so it was not replaced and is unchanged. Save your version under another name (Save As in the app, another --out on the command line), or make the file writable first.`
       : `${describeStep(step)} ${path} failed: ${explainErrno(cause)}. ${step === 'sync-folder' ? 'The new version is in place but may not survive a power cut.' : 'The file on disk was not changed.'}`);
   }
   get errno(): string | undefined { return this.cause.code; }

@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, openSync, closeSync, ftruncateSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { chmodSync, existsSync, mkdirSync, mkdtempSync, openSync, closeSync, ftruncateSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -93,5 +93,16 @@ describe('no null, NaN or Infinity in output; a value that cannot be produced ex
     expect(s.stdout).not.toMatch(/null|NaN|Infinity/);
     const b = cli(['build', join(ROOT, 'assets', 'examples', 'wilkinson-2g45.json'), '--json'], dir);
     expect(b.stdout).not.toMatch(/null|NaN|Infinity/);
+  });
+});
+
+describe('outputs', () => {
+  it('--force does not replace a read-only output file: exit 1, words, the file unchanged', () => {
+    writeFileSync(join(dir, 'kept.s3p'), 'a measured file the user protected');
+    chmodSync(join(dir, 'kept.s3p'), 0o444);
+    const r = cli(['sweep', join(ROOT, 'assets', 'examples', 'wilkinson-2g45.json'), '--points', '3', '--out', 'kept.s3p', '--force'], dir);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/read-only, so it was not replaced/);
+    expect(readFileSync(join(dir, 'kept.s3p'), 'utf8')).toBe('a measured file the user protected');
   });
 });
