@@ -189,7 +189,9 @@ export function tracePaths(sized: SizedDesign, from: string, to: string[], opts:
   if (!nodes.has(from)) throw new InputError('bad-choice', 'from', `a node id of this design (ports: ${portsOf(sized).join(', ')})`, describe(from));
   for (const t of to) if (!nodes.has(t)) throw new InputError('bad-choice', 'to', `node ids of this design (ports: ${portsOf(sized).join(', ')})`, describe(t));
   const sub: SubstrateSpec = sized.doc.substrate;
-  const cache = new LineCache(sub, opts.line);
+  // The lines as sized (as made, when the design says so); the εr and h sensitivities below stay those of plain
+  // microstrip (the as-made tables are built for the nominal laminate only).
+  const cache = new LineCache(sub, opts.line ?? sized.lineOptions);
   const prev = shortest(adjacency(sized), from);
   const f0 = sized.f0;
   const freqs = [sized.band.start, f0, sized.band.stop];
