@@ -7,7 +7,7 @@
 import * as v from 'valibot';
 import { InputError, describe } from '../util/errors.ts';
 import type { Vec2 } from '../geometry/types.ts';
-import type { Area, DesignDoc, DesignNode, DesignSegment } from './types.ts';
+import { segmentEnds, type Area, type DesignDoc, type DesignNode, type DesignSegment } from './types.ts';
 import { areaSchema, nodeSchema, segmentSchema } from './schema.ts';
 import { DESIGN_LIMITS } from './limits.ts';
 import { scanJson } from './json-scan.ts';
@@ -27,8 +27,8 @@ export interface ClipboardContent {
 export function copySelection(doc: DesignDoc, ids: readonly string[]): string {
   const want = new Set(ids);
   const nodeIds = new Set(doc.nodes.filter((n) => want.has(n.id)).map((n) => n.id));
-  for (const s of doc.segments) if (want.has(s.id)) { nodeIds.add(s.a); nodeIds.add(s.b); }
-  const segments = doc.segments.filter((s) => want.has(s.id) || (nodeIds.has(s.a) && nodeIds.has(s.b)));
+  for (const s of doc.segments) if (want.has(s.id)) for (const n of segmentEnds(s)) nodeIds.add(n);
+  const segments = doc.segments.filter((s) => want.has(s.id) || segmentEnds(s).every((n) => nodeIds.has(n)));
   const content: ClipboardContent = {
     format: CLIPBOARD_FORMAT, version: 1,
     nodes: doc.nodes.filter((n) => nodeIds.has(n.id)),
@@ -63,11 +63,12 @@ export function pasteClipboard(doc: DesignDoc, text: string, offset: Vec2): { do
     return { ...n, id, at: snapVec({ x: n.at.x + offset.x, y: n.at.y + offset.y }) } as DesignNode;
   });
   const segments = clip.segments.map((s, i) => {
-    const a = map.get(s.a), b = map.get(s.b);
-    if (a === undefined || b === undefined) throw new InputError('invalid-design', `clipboard.segments[${i}]`, 'a segment whose two ends are copied with it', describe(a === undefined ? s.a : s.b));
+    const missing = segmentEnds(s).find((n) => !map.has(n));
+    if (missing !== undefined) throw new InputError('invalid-design', `clipboard.segments[${i}]`, 'a segment whose ends are copied with it', describe(missing));
     const id = freshId(taken, 's');
     map.set(s.id, id);
-    return { ...s, id, a, b } as DesignSegment;
+    // A coupled pair has four terminals (c, d besides a, b): all are remapped.
+    return (s.kind === 'coupled' ? { ...s, id, a: map.get(s.a)!, b: map.get(s.b)!, c: map.get(s.c)!, d: map.get(s.d)! } : { ...s, id, a: map.get(s.a)!, b: map.get(s.b)! }) as DesignSegment;
   });
   const areas = clip.areas.map((r) => {
     const id = freshId(taken, 'area');

@@ -11,7 +11,7 @@
 import * as v from 'valibot';
 import { InputError, describe } from '../util/errors.ts';
 import type { Vec2 } from '../geometry/types.ts';
-import type { Area, DesignDoc, DesignNode, DesignSegment, FabProcess, JunctionChoice, NodeSpec, PhaseGroup, SegmentSpec } from './types.ts';
+import { segmentEnds, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess, type JunctionChoice, type NodeSpec, type PhaseGroup, type SegmentSpec } from './types.ts';
 import { asMadeSchema, areaSchema, frequencySchema, junctionChoiceSchema, nodeSchema, phaseGroupSchema, processSchema, segmentSchema, substrateSchema, vec2Schema } from './schema.ts';
 import { DESIGN_LIMITS } from './limits.ts';
 import { crossCheck, DEGREE } from './crossref.ts';
@@ -89,7 +89,7 @@ function label(args: Args): { label?: string } {
 
 function degreeOf(doc: DesignDoc, id: string): number {
   let d = 0;
-  for (const s of doc.segments) { if (s.a === id) d++; if (s.b === id) d++; }
+  for (const s of doc.segments) for (const e of segmentEnds(s)) if (e === id) d++;
   return d;
 }
 
@@ -197,13 +197,13 @@ const selectionDelete: DesignCommand = {
   run(doc, a) {
     const sel = selection(doc, argIds(a, 'ids'));
     const goneSegs = new Set(sel.segments);
-    for (const s of doc.segments) if (sel.nodes.has(s.a) || sel.nodes.has(s.b)) goneSegs.add(s.id);
+    for (const s of doc.segments) if (segmentEnds(s).some((e) => sel.nodes.has(e))) goneSegs.add(s.id);
     const segments = doc.segments.filter((s) => !goneSegs.has(s.id));
     // Bends, tees and stub ends left with no segment at all mean nothing on their own; ports stay.
     const touched = new Set<string>();
-    for (const s of doc.segments) if (goneSegs.has(s.id)) { touched.add(s.a); touched.add(s.b); }
+    for (const s of doc.segments) if (goneSegs.has(s.id)) for (const e of segmentEnds(s)) touched.add(e);
     const used = new Set<string>();
-    for (const s of segments) { used.add(s.a); used.add(s.b); }
+    for (const s of segments) for (const e of segmentEnds(s)) used.add(e);
     const nodes = doc.nodes.filter((n) => !sel.nodes.has(n.id) && !(touched.has(n.id) && !used.has(n.id) && n.kind !== 'port'));
     const alive = new Set(nodes.map((n) => n.id));
     const phaseGroups: PhaseGroup[] = [];
@@ -222,7 +222,7 @@ const selectionDelete: DesignCommand = {
 function transformSelection(doc: DesignDoc, ids: string[], map: (p: Vec2) => Vec2, heading: (h: number) => number): DesignDoc {
   const sel = selection(doc, ids);
   const moving = new Set(sel.nodes);
-  for (const s of doc.segments) if (sel.segments.has(s.id)) { moving.add(s.a); moving.add(s.b); }
+  for (const s of doc.segments) if (sel.segments.has(s.id)) for (const e of segmentEnds(s)) moving.add(e);
   const nodes = doc.nodes.map((n) => {
     if (!moving.has(n.id)) return n;
     const moved = { ...n, at: snapVec(map(n.at)) } as DesignNode;

@@ -115,3 +115,16 @@ describe('edge-coupled band-pass block', () => {
     expect(() => bandpassBlock({ order: 5, f0: 2.45e9, bw: 0.15, substrate: LOW_LOSS })).toThrow(/tightest coupling at \d+\.\d Ω on this substrate is \d+\.\d\d dB, got coupled section 1 of 6 needs/);
   });
 });
+
+describe('a pair in the editor commands', () => {
+  it('deleting a node beside a pair takes the pair with it; copying the pair takes its four terminals', async () => {
+    const { runCommand } = await import('../../core/index.ts');
+    const { copySelection } = await import('../../core/design/clipboard.ts');
+    const doc = couplerBlock({ couplingDb: 15, f0: 2.45e9, substrate: FR4 });
+    const after = runCommand(doc, 'selection.delete', { ids: ['d'] });
+    expect(after.segments.some((s) => s.kind === 'coupled')).toBe(false);
+    expect(validateDesign(after).ok).toBe(true);
+    const clip = JSON.parse(copySelection(doc, ['pair']));
+    expect(clip.nodes.map((n: { id: string }) => n.id).sort()).toEqual(['a', 'b', 'c', 'd']);
+  });
+});

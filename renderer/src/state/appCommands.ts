@@ -13,6 +13,8 @@ export interface ShellHooks {
   openFinder(): void;
   showDock(tab: string): void;
   tell(title: string, message: string): void;
+  /** Opens the spec form of a block (coupled-line coupler, edge-coupled band-pass filter). */
+  openBlock?(kind: 'coupler' | 'bandpass'): void;
 }
 
 export function appCommands(ed: EditorState, files: FileActions, shell: ShellHooks): AppCommand[] {
@@ -55,6 +57,11 @@ export function appCommands(ed: EditorState, files: FileActions, shell: ShellHoo
     { id: 'help.cautions', group: 'Help', label: 'Safety cautions', run: () => shell.tell('Safety cautions', CAUTIONS) },
     { id: 'help.about', group: 'Help', label: 'About Stripwright', run: () => shell.tell('Stripwright', `Version ${APP_VERSION}. Sketch, size, check and export microstrip feed networks for boards made in-house.`) },
   ];
+  if (shell.openBlock) {
+    const open = shell.openBlock;
+    list.push({ id: 'block.coupler', group: 'Blocks', label: 'Place a coupled-line coupler…', run: () => open('coupler') });
+    list.push({ id: 'block.bandpass', group: 'Blocks', label: 'Place an edge-coupled band-pass filter…', run: () => open('bandpass') });
+  }
   for (const t of TOOLS) list.push({ id: `tool.${t.id}`, group: 'Draw', label: `Tool: ${t.label}`, keys: [t.key], run: () => ed.setTool(t.id) });
   for (const ex of EXAMPLES) list.push({ id: `example.${ex.id}`, group: 'File', label: `Open example: ${ex.title}`, run: () => files.openExample(ex.id) });
   return list;
