@@ -1,5 +1,6 @@
 /** Toolpaths for milling a board: isolation, clearing, drilling, cutout, ordering, the board as milled, readiness. */
-export type * from './types.ts';
+// Re-exported under milling names: 'Tool' and 'Move' alone would be too general for the core's one namespace.
+export type { Tool as MillTool, Move as MillMove, Vec3, OperationKind, ToolProgram, CutPath } from './types.ts';
 export * from './options.ts';
 export * from './isolation.ts';
 export * from './drilling.ts';

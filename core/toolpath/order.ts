@@ -19,7 +19,7 @@ export function nearestVertex(pts: Vec2[], from: Vec2): number {
 }
 
 /** A closed loop rotated to start at vertex `i`. */
-export function rotate<T>(pts: T[], i: number): T[] { return i === 0 ? pts : [...pts.slice(i), ...pts.slice(0, i)]; }
+export function rotateLoop<T>(pts: T[], i: number): T[] { return i === 0 ? pts : [...pts.slice(i), ...pts.slice(0, i)]; }
 
 /**
  * Order of `items` (each a set of candidate entry points; the item is left where it was entered) from `home`:

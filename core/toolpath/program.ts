@@ -4,7 +4,7 @@
  */
 import type { Vec2 } from '../geometry/types.ts';
 import type { MillingOptions } from './options.ts';
-import { nearestVertex, orderItems, rotate } from './order.ts';
+import { nearestVertex, orderItems, rotateLoop } from './order.ts';
 import type { CutPath, Move, OperationKind, Tool, ToolProgram, Vec3 } from './types.ts';
 
 /** A piece of work that starts and ends above the same point at the travel height. */
@@ -20,7 +20,7 @@ export function loopItem(path: CutPath, o: MillingOptions): WorkItem {
   return {
     entries: path.points,
     moves(i) {
-      const pts = rotate(path.points, i);
+      const pts = rotateLoop(path.points, i);
       const z = -path.depth;
       const m: Move[] = [{ kind: 'line', to: { ...pts[0]!, z }, feed: o.plungeFeed }];
       for (let k = 1; k < pts.length; k++) m.push({ kind: 'line', to: { ...pts[k]!, z }, feed: o.feed });
@@ -53,12 +53,12 @@ export function buildProgram(tool: Tool, operations: OperationKind[], items: Wor
   const start: Vec3 = { x: (first ?? home).x, y: (first ?? home).y, z: o.safeHeight };
   if (moves.length) moves.push({ kind: 'rapid', to: { ...(moves[moves.length - 1]!.to), z: o.safeHeight } });
   const p: ToolProgram = { tool, operations, spindleRpm, start, moves, seconds: 0, cutLength: 0, travelLength: 0 };
-  Object.assign(p, estimate(p, o.rapidRate));
+  Object.assign(p, estimateProgram(p, o.rapidRate));
   return p;
 }
 
 /** XY length of an arc from `a` to `b` about `c`, with its helix rise, m. */
-export function arcLength(a: Vec3, b: Vec3, c: Vec2, clockwise: boolean): number {
+export function arcMoveLength(a: Vec3, b: Vec3, c: Vec2, clockwise: boolean): number {
   const r = Math.hypot(a.x - c.x, a.y - c.y);
   let t = Math.atan2(b.y - c.y, b.x - c.x) - Math.atan2(a.y - c.y, a.x - c.x);
   if (clockwise) { while (t >= 0) t -= 2 * Math.PI; } else { while (t <= 0) t += 2 * Math.PI; }
@@ -69,12 +69,12 @@ export function arcLength(a: Vec3, b: Vec3, c: Vec2, clockwise: boolean): number
  * Run time: cutting length over each move's feed plus rapid length over the rapid rate (acceleration ignored, so
  * short zig-zags run somewhat longer than this; tool changes and spindle start are not counted).
  */
-export function estimate(p: ToolProgram, rapidRate: number): { seconds: number; cutLength: number; travelLength: number } {
+export function estimateProgram(p: ToolProgram, rapidRate: number): { seconds: number; cutLength: number; travelLength: number } {
   let at = p.start, seconds = 0, cut = 0, travel = 0;
   for (const m of p.moves) {
     if (m.kind === 'rapid') { const l = Math.hypot(m.to.x - at.x, m.to.y - at.y, m.to.z - at.z); travel += l; seconds += l / rapidRate; }
     else {
-      const l = m.kind === 'line' ? Math.hypot(m.to.x - at.x, m.to.y - at.y, m.to.z - at.z) : arcLength(at, m.to, m.centre, m.clockwise);
+      const l = m.kind === 'line' ? Math.hypot(m.to.x - at.x, m.to.y - at.y, m.to.z - at.z) : arcMoveLength(at, m.to, m.centre, m.clockwise);
       cut += l; seconds += l / m.feed;
     }
     at = m.to;

@@ -7,7 +7,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
   InputError, initPolygons, resolveMillingOptions, MILLING_DEFAULTS, cutWidth, isolationPaths, ringArea, orderItems, tourLength,
-  drillMoves, cutoutMoves, exportGcode, planDesignMilling, estimate, PROCESS_DEFAULT, parseQuantity, sweptArea, regionsArea,
+  drillMoves, cutoutMoves, exportGcode, planDesignMilling, estimateProgram, PROCESS_DEFAULT, parseQuantity, sweptArea, regionsArea,
   type FabProcess, type Region, type ToolProgram,
 } from '../../core/index.ts';
 import { twoStrips } from './toolpath-fixtures.ts';
@@ -133,7 +133,7 @@ describe('toolpaths from geometry', () => {
         { kind: 'arc', to: { x: 10e-3, y: 0, z: -0.1e-3 }, centre: { x: 5e-3, y: 0 }, clockwise: false, feed: o.feed },
       ],
     };
-    const e = estimate(p, o.rapidRate);
+    const e = estimateProgram(p, o.rapidRate);
     // 4 mm rapid at 1000 mm/min = 0.24 s; 1.1 mm plunge at 50 mm/min = 1.32 s; 10 mm + a 5 mm-radius full circle at 200 mm/min.
     expect(e.seconds).toBeCloseTo(0.24 + 1.32 + ((10 + 10 * Math.PI) / 200) * 60, 9);
   });
