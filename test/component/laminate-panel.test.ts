@@ -35,6 +35,12 @@ describe('Laminate tab', () => {
     ed.undo();
     expect(ed.doc.segments).toEqual(before.segments);
     expect(ed.doc.nodes).toEqual(before.nodes);
+    // With a thru: three lines, the thru labelled as such.
+    fireEvent.click(screen.getByTestId('coupon-thru'));
+    fireEvent.click(screen.getByTestId('coupon-add'));
+    flushSync();
+    expect(ed.doc.segments.length).toBe(before.segments.length + 3);
+    expect(ed.doc.segments.some((s) => s.label?.startsWith('coupon thru'))).toBe(true);
   });
 
   it('works out the laminate from two picked files and makes it the design\'s laminate in one undo step', async () => {

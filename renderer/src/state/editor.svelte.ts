@@ -264,9 +264,9 @@ export class EditorState {
    * Adds a laminate coupon (core couponForDesign: lines sized for this design's laminate and band) below the
    * drawing, as one undo step, and selects it. Returns the plan, or the reason it was refused.
    */
-  addCoupon(): CouponPlan | string {
+  addCoupon(opts: { thru?: boolean } = {}): CouponPlan | string {
     let c: ReturnType<typeof couponForDesign>;
-    try { c = couponForDesign(this.doc); } catch (err) { return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : String(err); }
+    try { c = couponForDesign(this.doc, { thru: opts.thru === true }); } catch (err) { return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : String(err); }
     const before = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)]);
     if (!this.edit('selection.paste', { clipboard: c.clipboard, offset: c.offset }, 'Add laminate coupon')) return this.status;
     const added = [...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)].filter((id) => !before.has(id));
