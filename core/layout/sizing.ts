@@ -497,7 +497,8 @@ function checkBoardSize(doc: DesignDoc, pieces: SizedPiece[], nodes: SizedNode[]
     minX = Math.min(minX, p.x - r); maxX = Math.max(maxX, p.x + r); minY = Math.min(minY, p.y - r); maxY = Math.max(maxY, p.y + r);
   };
   const wMax = Math.max(0, ...pieces.map((p) => (Number.isFinite(p.width) ? Math.max(p.width, p.widthB ?? 0) : 0)));
-  for (const n of nodes) { grow(n.at); grow(n.pos, wMax / 2); }
+  // A node no piece reaches makes no copper (it is reported as dangling); it does not size the board.
+  for (const n of nodes) if (n.segments.length) { grow(n.at); grow(n.pos, wMax / 2); }
   for (const p of doc.board?.outline ?? []) grow(p);
   const bigAreas: string[] = [];
   for (const a of doc.areas ?? []) {
