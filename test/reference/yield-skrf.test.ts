@@ -26,6 +26,9 @@ function transformer(): DesignDoc {
   if (!r.ok) throw new Error('refused');
   return {
     ...r.doc,
+    // The oracle rebuilds lines only: its width steps are plain joins, so ours are sized and swept ideal here too
+    // (the step models have their own scikit-rf check, test/reference/network-junctions-skrf.test.ts).
+    junctions: 'ideal',
     substrate: { ...r.doc.substrate, t: 0, roughness: 0, tanDelta: 0, sigma: 1e9 },
     tolerances: [
       { quantity: 'er', distribution: 'normal', spread: 0.15, scope: 'board' },
