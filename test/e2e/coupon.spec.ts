@@ -5,6 +5,7 @@
  * (εr 4.25, tanδ 0.017 behind them, t = 0; see its README) — the app uses the design's 35 µm copper, so εr is
  * checked loosely here; the close checks are the core's (test/reference/coupon-skrf.test.ts).
  */
+import { readmeShot } from './readme-shots.ts';
 import { expect, test } from '@playwright/test';
 import { join } from 'node:path';
 
@@ -46,7 +47,7 @@ test('measure the laminate from a coupon, apply it, undo', async ({ page }) => {
   expect(Math.abs(tand / 0.017 - 1)).toBeLessThan(0.3);
   await expect(page.getByTestId('coupon-plot-eps').locator('canvas')).toBeVisible();
   await expect(page.getByTestId('coupon-plot-alpha').locator('canvas')).toBeVisible();
-  await page.screenshot({ path: 'docs/screenshots/laminate.png' });
+  await readmeShot(page, 'laminate.png');
 
   // Make it the design's laminate: εr, tanδ and the frequency they hold at (wideband Debye).
   await page.getByTestId('coupon-apply').click();

@@ -6,8 +6,8 @@
  * further towards plain microstrip.
  * With STRIPWRIGHT_SCREENSHOTS=1 (npm run screenshots:section) it also writes docs/screenshots/cross-section.png.
  */
+import { readmeShot } from './readme-shots.ts';
 import { expect, test } from '@playwright/test';
-import { mkdirSync } from 'node:fs';
 
 const ohms = (t: string) => Number(t.replace(/[^\d.]/g, ''));
 
@@ -43,8 +43,7 @@ test('select a line, open its cross-section, change the gap, see Z0 change', asy
     await page.getByTestId('section-side-stitched').click();
     await gap.fill('0.3 mm');
     await expect.poll(async () => ohms(await z0.innerText()), { timeout: 30_000 }).toBeLessThan(wider);
-    mkdirSync('docs/screenshots', { recursive: true });
-    await page.screenshot({ path: 'docs/screenshots/cross-section.png' });
+    await readmeShot(page, 'cross-section.png');
   }
   expect(errors).toEqual([]);
 });

@@ -4,6 +4,7 @@
  * gcode-toolpath (npm) through scripts/oracles/gcode-retrace.ts. The demo is a V-bit board, so the isolation file
  * comes first and the cutout last; the polygon work runs in the compute worker under its own CSP.
  */
+import { readmeShot } from './readme-shots.ts';
 import { expect, test, type Download } from '@playwright/test';
 import { readFileSync } from 'node:fs';
 import { retrace } from '../../scripts/oracles/gcode-retrace.ts';
@@ -27,7 +28,7 @@ test('export G-code of the demo from Outputs and read it back', async ({ page })
   // The board as milled, drawn over the design.
   await page.getByTestId('show-milled').check();
   await expect(page.locator('[data-testid="milled-overlay"]')).toHaveCount(1, { timeout: 30_000 });
-  await page.screenshot({ path: 'docs/screenshots/outputs-gcode.png' });
+  await readmeShot(page, 'outputs-gcode.png');
 
   const downloads: Download[] = [];
   page.on('download', (d) => downloads.push(d));

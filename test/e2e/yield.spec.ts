@@ -3,11 +3,9 @@
  * boards in the compute worker, read the yield, its interval, the histograms and the envelope; stop a long run; edit
  * a tolerance in the table. The numbers themselves are checked against outside references in test/reference/yield-*.
  */
+import { readmeShot } from './readme-shots.ts';
 import { expect, test } from '@playwright/test';
-import { mkdirSync } from 'node:fs';
 
-const shots = 'docs/screenshots';
-mkdirSync(shots, { recursive: true });
 
 test.beforeEach(async ({ page }) => {
   await page.setViewportSize({ width: 1366, height: 768 });
@@ -35,7 +33,7 @@ test('make boards of the divider: yield, interval, histograms, envelope', async 
   await page.getByTestId('yield-env-1').click();
   await expect(page.getByTestId('yield-env-1')).toHaveClass(/on/);
   await page.mouse.move(10, 300);
-  await page.screenshot({ path: `${shots}/yield.png` });
+  await readmeShot(page, 'yield.png');
 });
 
 test('stop a long run, then edit a tolerance and see the result marked as out of date', async ({ page }) => {
