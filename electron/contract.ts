@@ -19,7 +19,7 @@ export const OPENABLE_EXTENSIONS = [DESIGN_EXTENSION, 'json'] as const;
 
 /** Limits the main process enforces on every request (bytes are UTF-16 code units for text). */
 export const LIMITS = {
-  /** A design file larger than this is refused before reading (reliability.md §3.1 step 1); the core's limit. */
+  /** A design file larger than this is refused before reading (the project's own rule; the core's limit). */
   designBytes: DESIGN_LIMITS.fileBytes,
   /** A Touchstone file for a measured block (the design keeps at most this many characters of it). */
   touchstoneBytes: DESIGN_LIMITS.touchstone,

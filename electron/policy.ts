@@ -1,7 +1,7 @@
 /**
  * The security decisions of the shell as pure functions, so each is unit-tested with tricky inputs
- * (reliability.md §1, the design it recommends: "one module of pure policy functions that the main process wires
- * up"). Items refer to the Electron security checklist, https://www.electronjs.org/docs/latest/tutorial/security.
+ * (project rule: one module of pure policy functions that the main process wires
+ * up). Items refer to the Electron security checklist, https://www.electronjs.org/docs/latest/tutorial/security.
  * URLs are always parsed with WHATWG URL, never compared with startsWith (item 13).
  */
 import { isAbsolute, join, normalize, relative, sep } from 'node:path';

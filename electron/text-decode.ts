@@ -1,6 +1,6 @@
 /**
  * Turning the bytes of a text file the app reads (a design, a Touchstone file) into text, with the checks of
- * reliability.md §3.1 steps 1–2 (size first, then UTF-8 with the BOM removed, refusing UTF-16, invalid UTF-8 and NUL bytes). Pure (TextDecoder only), so the
+ * the project's own loading rule, steps 1–2 (size first, then UTF-8 with the BOM removed, refusing UTF-16, invalid UTF-8 and NUL bytes). Pure (TextDecoder only), so the
  * main process and the browser fallback refuse the same files with the same words. Parsing and schema checks of
  * the design itself belong to core/design.
  */

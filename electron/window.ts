@@ -1,5 +1,5 @@
 /**
- * The one window factory and the hardening of its session and contents (reliability.md §1; checklist items refer
+ * The one window factory and the hardening of its session and contents (project hardening rules; checklist items refer
  * to https://www.electronjs.org/docs/latest/tutorial/security). Unit-tested against a stand-in 'electron' module.
  */
 import { BrowserWindow, type Session, type WebContents, type WebPreferences } from 'electron';

@@ -1,6 +1,6 @@
 /**
- * Kill test of the app's saving (reliability.md §5: "kill the process (SIGKILL) at random points during save,
- * data lost = 0"). Each round starts a child that saves a large design in a loop with the atomic save and a
+ * Kill test of the app's saving (the project's own rule: kill the process (SIGKILL) at random points during save,
+ * data lost = 0). Each round starts a child that saves a large design in a loop with the atomic save and a
  * recovery copy, kills it with SIGKILL at a random moment, cleans stray temporaries as the app does at start, and
  * checks what is on disk:
  *   corrupt — the design, its .bak or the recovery copy is not byte for byte one of the saved versions (each of which

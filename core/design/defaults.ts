@@ -1,7 +1,6 @@
 /**
  * A fresh design and the default values a migration fills in. The FR-4 numbers are the generic glass-epoxy values
- * used across the trade for first designs (εr 4.4, tanδ 0.02, 1.6 mm, 35 µm = 1 oz copper; common practice, see
- * practice.md need 4); annealed copper σ = 5.8e7 S/m; 1.5 µm rms roughness and the preset id follow the glass-epoxy entry of core/substrate/presets.ts. f0 = 2.45 GHz is the middle of the 2.4 GHz ISM
+ * used across the trade for first designs (εr 4.4, tanδ 0.02, 1.6 mm, 35 µm = 1 oz copper; common practice); annealed copper σ = 5.8e7 S/m; 1.5 µm rms roughness and the preset id follow the glass-epoxy entry of core/substrate/presets.ts. f0 = 2.45 GHz is the middle of the 2.4 GHz ISM
  * band (ITU Radio Regulations 5.150: 2400–2500 MHz), which is also the default band.
  */
 import type { DesignDoc, FabProcess, SubstrateSpec } from './types.ts';

@@ -1,5 +1,5 @@
 /**
- * Loading a design file from its text, in the order of reliability.md §3.1: size, decoding, syntax
+ * Loading a design file from its text, in the project's own order: size, decoding, syntax
  * (with line and column), unsafe keys and nesting, the envelope (format id, version), list sizes, migration,
  * schema, cross-record checks. Each step stops with its own clear problem list; nothing half-loaded is returned.
  * Never throws for any text: every failure is `{ ok: false, errors }`.

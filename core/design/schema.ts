@@ -1,6 +1,6 @@
 /**
  * The valibot schema of a current-version design file (DESIGN_VERSION). Every record is a loose object, so fields
- * this version does not know pass through untouched and are written back on save (reliability.md §3.2). Each
+ * this version does not know pass through untouched and are written back on save (the project's own rule). Each
  * check carries the words of what it expects; design/validate.ts turns valibot's issues into DesignIssues.
  *
  * Ranges are wide sanity bounds, not design rules: they catch unit mistakes (a height of 1.6 meaning mm, a

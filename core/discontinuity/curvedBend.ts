@@ -1,6 +1,6 @@
 /**
  * Curved (swept) bend treated as a line of its centreline arc length — common practice for centreline radius
- * R ≥ 3 W (methods.md §6.2c: not a published bound). Geometry only: turning by θ with radius R, the arc replaces
+ * R ≥ 3 W (project rule: not a published bound). Geometry only: turning by θ with radius R, the arc replaces
  * R tan(θ/2) of straight run on each side of the corner point (the tangent length) with an arc of length R θ.
  */
 import { InputError, requireRange } from '../util/errors.ts';

@@ -2,7 +2,7 @@
  * Optimal miter of a symmetric 90° microstrip bend.
  *
  * Source: R. J. P. Douville and D. S. James, "Experimental study of symmetric microstrip bends and their
- * compensation", IEEE Trans. MTT, vol. 26, no. 3, pp. 175–182, March 1978 (methods.md §6.2a).
+ * compensation", IEEE Trans. MTT, vol. 26, no. 3, pp. 175–182, March 1978.
  *   M = 52 + 65 exp(−1.35 W/h)  [percent],  M = x/d,  d = W √2 (the bend's diagonal)
  *   x = distance from the outer corner of the unmitered bend to the cut, along the diagonal
  *   the cut removes a right triangle whose legs along the two outer edges are x √2 = 2 M W.

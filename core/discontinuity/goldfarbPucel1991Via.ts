@@ -2,12 +2,12 @@
  * Inductance and resistance of a via hole to ground.
  *
  * Source: M. E. Goldfarb and R. A. Pucel, "Modeling via hole grounds in microstrip", IEEE Microwave and Guided Wave
- * Letters, vol. 1, no. 6, pp. 135–137, June 1991 (methods.md §6.5). A cylinder of radius r and length h:
+ * Letters, vol. 1, no. 6, pp. 135–137, June 1991. A cylinder of radius r and length h:
  *   L_via = (μ0/2π) [ h ln((h + √(r² + h²))/r) + 1.5 (r − √(r² + h²)) ]          [H]
  *   R_via = R_dc √(1 + f/f_δ),  R_dc = ρ h / (π (r² − (r − tp)²)),  f_δ = ρ/(π μ0 tp²)
  * (tp plating thickness; a solid via has R_dc = ρ h/(π r²)). Pad, anti-pad and ground-return spreading are not
  * included. N vias in parallel: L/N is a lower bound (mutual inductance raises it) — a warning says so.
- * Units: h, r, tp in m; ρ in Ω·m; f in Hz. Quasi-static; the validity range is not restated (methods.md: VERIFY).
+ * Units: h, r, tp in m; ρ in Ω·m; f in Hz. Quasi-static; the validity range is not restated (not checked against the paper here).
  */
 import { requireRange } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';

@@ -2,7 +2,7 @@
  * Open-end length extension of a microstrip line.
  *
  * Source: M. Kirschning, R. H. Jansen and N. H. L. Koster, "Accurate model for open end effect of microstrip
- * lines", Electronics Letters, vol. 17, no. 3, pp. 123–125, Feb. 1981 (methods.md §6.1). The paper's five factors
+ * lines", Electronics Letters, vol. 17, no. 3, pp. 123–125, Feb. 1981 (eqs. for ξ1…ξ5). The paper's five factors
  * ξ1…ξ5 are written x1…x5 here:
  *   x1 = 0.434907 (ee^0.81 + 0.26)/(ee^0.81 − 0.189) · (u^0.8544 + 0.236)/(u^0.8544 + 0.87)
  *   x2 = 1 + u^0.371/(2.358 er + 1)
@@ -11,8 +11,8 @@
  *   x5 = 1 − 0.218 exp(−7.5 u)
  *   Δl/h = x1 x3 x5 / x4,   C_oc = Δl √ee / (c0 Z0)
  * Inputs: u = W/h (dimensionless), er (relative permittivity), ee = STATIC effective permittivity at u; h in m.
- * Validity: 0.01 ≤ u ≤ 100, er ≤ 50 (as usually quoted; the paper's statement is marked VERIFY in methods.md, the
- * formula itself reproduces the methods.md checked example). Static (quasi-TEM) model.
+ * Validity: 0.01 ≤ u ≤ 100, er ≤ 50 (as usually quoted, from memory; the paper's own statement of the range is still to be checked, and the
+ * formula reproduces the project's checked example). Static (quasi-TEM) model.
  * Layout use: an open stub of electrical length θ is drawn Δl shorter than l(θ).
  */
 import { requireRange } from '../util/errors.ts';
@@ -49,7 +49,7 @@ export function openEndExtension(p: { u: number; er: number; eeStatic: number; h
   return { dl: dlOverH * h, dlOverH, warnings };
 }
 
-/** Equivalent end capacitance C_oc = Δl √ee / (c0 Z0), F (methods.md §6.1). */
+/** Equivalent end capacitance C_oc = Δl √ee / (c0 Z0), F (Kirschning, Jansen & Koster 1981). */
 export function openEndCapacitance(dl: number, eeStatic: number, z0: number): number {
   return (dl * Math.sqrt(eeStatic)) / (C0 * z0);
 }

@@ -1,7 +1,7 @@
 /**
  * Etch bias (artwork compensation): every copper edge moves outward by `bias` metres (inward when negative), so
  * that after the etchant undercuts the edge by about that much the finished copper lands on the design.
- * Undercut per side is of the order of the copper thickness for 35 µm copper (common practice; practice.md §23);
+ * Undercut per side is of the order of the copper thickness for 35 µm copper (common practice);
  * the right figure is the one measured on your own process, so the value is always the user's.
  *
  * Miter joins keep straight edges straight and square corners square: a 1 mm line biased by +35 µm is exactly

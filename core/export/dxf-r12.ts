@@ -1,6 +1,6 @@
 /**
  * DXF Release 12 (AC1009) text writer, for laser cutters, CNC controllers and older CAM importers that read only
- * the simple entities (formats.md §1.1: R12 with closed POLYLINE is the safest input for such machines).
+ * the simple entities (common practice: R12 with closed POLYLINE is the safest input for such machines; DXF reference, open format).
  * Written directly, without handles ($HANDLING 0 is the R12 default):
  * - HEADER: $ACADVER AC1009 and $EXTMIN/$EXTMAX; R12 has no $INSUNITS, so the unit is stated in 999 comments;
  * - TABLES: LTYPE CONTINUOUS and one LAYER entry per layer used (plus layer 0);

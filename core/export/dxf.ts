@@ -53,7 +53,7 @@ export function toDxf(geometry: ExportGeometry, options: DxfOptions = {}): strin
 
 /**
  * $HANDSEED must be the next free handle, above every handle in the file (DXF Reference, HEADER section:
- * "Next available handle"); dxf-writer 1.18.4 writes the last one used (toolchain.md §8), so a strict reader
+ * "Next available handle"); dxf-writer 1.18.4 writes the last one used (observed in the project's own testing), so a strict reader
  * could hand out a duplicate. Handles are group codes 5 and 105, hexadecimal.
  */
 export function fixHandseed(text: string): string {

@@ -2,7 +2,7 @@
  * Gerber RS-274X with X2 attributes: one file for the top copper, one for the bottom copper (the microstrip ground
  * plane) and one for the board profile.
  *
- * Follows Ucamco, "The Gerber Layer Format Specification" (revision 2022.02), as summarised in formats.md §3.1:
+ * Follows Ucamco, "The Gerber Layer Format Specification" (revision 2022.02):
  * - header before any coordinate: %FSLAX46Y46*% (leading zeros omitted, absolute, 4 integer and 6 decimal digits,
  *   so integers count nanometres of millimetres) and %MOMM*%, each once;
  * - X2 file attributes %TF.GenerationSoftware%, %TF.FileFunction% (Copper,L1,Top / Copper,L2,Bot / Profile,NP) and

@@ -19,7 +19,7 @@ import type { Region, Ring, Vec2 } from './types.ts';
 export const PRECISION = 5;
 /** The grid step in metres (10 nm). */
 export const GRID_M = 1e-3 * 10 ** -PRECISION;
-/** Chord error allowed when round joins are flattened, m (1 µm, practice.md need 21). */
+/** Chord error allowed when round joins are flattened, m (1 µm, common practice). */
 export const ARC_TOLERANCE_M = 1e-6;
 
 const MM = 1e3;

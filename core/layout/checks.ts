@@ -10,10 +10,10 @@
  *   leaves filleted (info; not for etching).
  * - Copper narrower than the cut (milling): fragile, lifts easily (common practice) → warning; etching: below the
  *   minimum feature → error.
- * - Ground copper closer than 3h to a line (methods.md §13 item 7): the microstrip model no longer holds there; the
- *   size of the Z0 change is given for the one case methods.md §9.4 computed, otherwise said to be not modelled.
+ * - Ground copper closer than 3h to a line (project rule): the microstrip model no longer holds there; the
+ *   size of the Z0 change is given for the one case the project computed with a 2-D field solver, otherwise said to be not modelled.
  * - Copper off the board or inside a keep-out → error. Non-adjacent pieces overlapping → error (impossible layout).
- * - Loss per path above a budget (default 1 dB, practice.md need 5); lossy laminate (tanδ ≥ 0.01) above 6 GHz → warning.
+ * - Loss per path above a budget (default 1 dB, common practice); lossy laminate (tanδ ≥ 0.01) above 6 GHz → warning.
  * - Paths out of their phase tolerance (from the paths report) → warning.
  * Layout problems from sizing are carried over as errors.
  */
@@ -69,7 +69,7 @@ export function cutWidth(p: FabProcess): number {
   }
 }
 
-/** Reference Z0 change from top-side ground copper at gap s on both sides (methods.md §9.4, 2-D solver, one case). */
+/** Reference Z0 change from top-side ground copper at gap s on both sides (the project's own 2-D field-solver reference, one case). */
 const GROUND_TABLE: [number, number][] = [[0.25, -22.8], [0.63, -9.8], [1, -5.0], [2, -1.3], [3, -0.48], [5, -0.12]];
 export function referenceGroundShiftPct(sOverH: number): number | null {
   if (sOverH < GROUND_TABLE[0]![0] || sOverH > GROUND_TABLE[GROUND_TABLE.length - 1]![0]) return null;
@@ -294,7 +294,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
   if (proc.kind === 'v-bit' && lines.length) {
     // Depth error changes every line's width by ∓2·tan(α/2)·Δdepth (plain V geometry); show it on the narrowest line.
     const narrow = lines.reduce((a, b) => (b.width < a.width ? b : a));
-    // ±0.05 mm: about what a clamped blank bows or varies in thickness (practice.md need 15).
+    // ±0.05 mm: about what a clamped blank bows or varies in thickness (common practice).
     const dDepth = 0.05e-3;
     const dW = 2 * Math.tan(((proc.angleDeg * Math.PI) / 180) / 2) * dDepth;
     try {
@@ -358,7 +358,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     if (c >= 3 * h && c < 5 * wBig) {
       out.push({
         severity: 'info', code: 'ground-near', subjects: [a.id],
-        message: `ground copper ${a.id} keeps ${mmS(c)} mm, less than 5 × the widest line (${mmS(5 * wBig)} mm): some makers size lines with a coplanar model below that (practice.md need 16); beyond 3h the microstrip model is used here`,
+        message: `ground copper ${a.id} keeps ${mmS(c)} mm, less than 5 × the widest line (${mmS(5 * wBig)} mm): some makers size lines with a coplanar model below that; beyond 3h the microstrip model is used here`,
         fix: `keep ${mmS(5 * wBig)} mm if the board has room`,
       });
     }
@@ -383,7 +383,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
       const ref = referenceGroundShiftPct(c / h);
       const moved = ref === null
         ? 'how far Z0 moves is not modelled for this gap'
-        : `for the one case computed in methods.md §9.4 (50 Ω on εr 3.66, h 0.508 mm, copper on both sides) this gap ratio lowers Z0 by about ${Math.abs(ref).toFixed(1)} %; for these lines it is not modelled`;
+        : `for the one case computed with a 2-D field solver (50 Ω on εr 3.66, h 0.508 mm, copper on both sides) this gap ratio lowers Z0 by about ${Math.abs(ref).toFixed(1)} %; for these lines it is not modelled`;
       out.push({
         severity: 'warning', code: 'ground-near', subjects: [a.id, ...near],
         message: `ground copper ${a.id} comes ${mmS(c)} mm (${(c / h).toFixed(2)} h) from ${listOf(near)}, closer than 3h = ${mmS(3 * h)} mm where the microstrip model holds; ${moved}`,
@@ -444,7 +444,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     }
   }
   if (lossy && sized.f0 > 6e9) {
-    out.push({ severity: 'warning', code: 'lossy-laminate', subjects: [], message: `tanδ ${doc.substrate.tanDelta} at ${(sized.f0 / 1e9).toFixed(2)} GHz: glass-epoxy boards lose quickly above about 6 GHz (practice.md need 5)`, fix: 'use a low-loss laminate for this frequency, or keep every path short' });
+    out.push({ severity: 'warning', code: 'lossy-laminate', subjects: [], message: `tanδ ${doc.substrate.tanDelta} at ${(sized.f0 / 1e9).toFixed(2)} GHz: glass-epoxy boards lose quickly above about 6 GHz`, fix: 'use a low-loss laminate for this frequency, or keep every path short' });
   }
   return out;
 }

@@ -6,7 +6,7 @@
 import type { Ring, Vec2 } from '../geometry/types.ts';
 import { ringArea } from '../geometry/polygons.ts';
 
-/** Largest distance between a flattened arc and the true arc, m (1 µm, practice.md need 21). */
+/** Largest distance between a flattened arc and the true arc, m (1 µm; project rule, well below common-practice etch tolerance). */
 export const CHORD_TOL = 1e-6;
 
 export const add = (a: Vec2, b: Vec2): Vec2 => ({ x: a.x + b.x, y: a.y + b.y });

@@ -5,10 +5,10 @@
  *
  * Conventions:
  * - A line's rectangle runs between its placed nodes; at an arc bend it stops at the tangent point, at a mitered
- *   bend it is clipped by the miter cut (so the union shows the exact Douville–James cut, methods.md §6.2).
+ *   bend it is clipped by the miter cut (so the union shows the exact Douville–James cut: R. J. P. Douville and D. S. James, IEEE Trans. MTT 26(3), 1978).
  * - Node copper is listed in BoardGeometry.pieces under the node's id (bends, junctions, vias, launch pads), so a
  *   face can hit-test it like a piece.
- * - Ground copper keeps `clearance` from the network (default max(h, 2·Wmax): practice.md need 16, common practice)
+ * - Ground copper keeps `clearance` from the network (default max(h, 2·Wmax): common practice)
  *   and gives way to keep-outs.
  * - Without a board outline, the clearance layer covers the copper extent plus BOARD_MARGIN.
  */
@@ -171,7 +171,7 @@ function boxOf(rings: Ring[]): Box {
   return { minX, minY, maxX, maxY };
 }
 
-/** Default clearance between the network and ground copper, m: max(h, 2·Wmax) (practice.md need 16). */
+/** Default clearance between the network and ground copper, m: max(h, 2·Wmax) (common practice). */
 export function defaultGroundClearance(sized: SizedDesign): number {
   const wmax = Math.max(0, ...sized.pieces.map((p) => Math.max(p.width || 0, p.widthB || 0)));
   return Math.max(sized.doc.substrate.h, 2 * wmax);

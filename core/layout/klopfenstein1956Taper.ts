@@ -2,7 +2,7 @@
  * Klopfenstein impedance taper (optimum Chebyshev-like taper for a given length).
  *
  * Source: R. W. Klopfenstein, "A transmission line taper of improved design", Proc. IRE, vol. 44, no. 1,
- * pp. 31–35, Jan. 1956 (methods.md §11.7):
+ * pp. 31–35, Jan. 1956:
  *   Γ0 = ½ ln(ZL/Z0),  A = arccosh(Γ0/Γm)
  *   ln Z(z) = ½ ln(Z0 ZL) + (Γ0/cosh A) A² φ(2z/L − 1, A),   0 ≤ z ≤ L
  *   φ(x, A) = ∫0^x I1(A √(1 − y²)) / (A √(1 − y²)) dy,  |x| ≤ 1

@@ -3,14 +3,14 @@
  * route; isolation parts such as a Wilkinson resistor are only crossed when no line route exists), with its
  * physical length along the centreline, electrical length at f0 and across the band, phase delay, loss at f0, the
  * bends and junctions it passes, and the phase difference to the group's first path against a tolerance
- * (practice.md need 7: default ±5°).
+ * (common practice: default ±5°).
  *
  * Electrical length: Σ β(f)·l over the pieces' line lengths, where each piece's pad copper (launch or part pads at
  * its ends) is counted at the piece's own β; a modelled tee's arms count from its reference planes (the shifts at
  * f0, the copper beyond them belongs to the junction), ideal junctions to their centre; lumped parts
  * and S-parameter blocks add no line length and are listed.
  *
- * Sensitivities (methods.md §10.1): S_x^φ = (x/φ)(∂φ/∂x) for x ∈ {εr, h, W} by central differences of the full line
+ * Sensitivities (the project's own definition): S_x^φ = (x/φ)(∂φ/∂x) for x ∈ {εr, h, W} by central differences of the full line
  * model (static + dispersion) with a relative step of 1e-3, physical lengths held (they are what is made); W scales
  * every width on the path together.
  */
@@ -270,7 +270,7 @@ export function tracePaths(sized: SizedDesign, from: string, to: string[], opts:
       warnings.push(warn('phase', `paths to ${e.to} and ${ref.to} differ by ${(physDiff * 1e3).toFixed(2)} mm (more than λg/8): they match at f0 only, by ${e.phaseDiffBandDeg[0].toFixed(1)}° / ${e.phaseDiffBandDeg[1].toFixed(1)}° at the band edges, and their difference follows εr`, { subjects: [e.to, ref.to], severity: 'info' }));
     }
     if (e.bends !== ref.bends) {
-      warnings.push(warn('phase', `paths to ${e.to} and ${ref.to} pass ${e.bends} and ${ref.bends} bends; equal bend counts let the bends' residual errors cancel (methods.md §6.2)`, { subjects: [e.to, ref.to], severity: 'info' }));
+      warnings.push(warn('phase', `paths to ${e.to} and ${ref.to} pass ${e.bends} and ${ref.bends} bends; equal bend counts let the bends' residual errors cancel`, { subjects: [e.to, ref.to], severity: 'info' }));
     }
   }
   return { from, group: opts.group ?? null, name: opts.name ?? `${from} → ${to.join(', ')}`, toleranceDeg: tol, matched, paths: entries, spreadDeg: hi - lo, warnings };

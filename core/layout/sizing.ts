@@ -1,14 +1,14 @@
 /**
  * Sizing: design document → sized pieces with compensations, node discontinuity data, and placed positions.
  *
- * Per piece (methods.md §1.4, §4, §6, §11):
+ * Per piece (models cited where each is used below):
  * - width from its Z0 by exact synthesis at f0 with dispersion (core/line synthesizeLine), or as given;
  * - nominal length from its electrical length at f0 (l = θ λg/360, own εe(f0)), a physical length, or the drawn
  *   distance (through corner points);
  * - compensations at each end, reported per piece, applied where the model is verified:
  *     open end      Kirschning–Jansen–Koster 1981 Δl, applied (the copper ends Δl short);
  *     via to ground Goldfarb–Pucel 1991 L as an equivalent length Δl = arctan(ωL/Z0)/β, applied;
- *     miter/square  path measured through the corner point (methods.md §6.2), amount 0;
+ *     miter/square  path measured through the corner point (common practice), amount 0;
  *     arc bend      straight copper shortened by R tan(θ/2) on each side, the arc's centreline counted instead, the
  *                   corner-to-corner span grown so the path keeps its electrical length;
  *     lumped pads   the line's own copper stops at the pad edge (the pad carries the rest of the path);
@@ -63,7 +63,7 @@ export const CLOSE_TOL = 1e-6;
  * here, during sizing, before any geometry is built.
  */
 export const BOARD_SIZE_LIMIT = 1;
-/** Klopfenstein default ripple when the design gives none: return loss 34 dB (|Γm| ≈ 0.02, methods.md §11.7 example). */
+/** Klopfenstein default ripple when the design gives none: return loss 34 dB (|Γm| ≈ 0.02; Klopfenstein 1956, Proc. IRE 44(1), worked example, from memory). */
 export const DEFAULT_TAPER_RIPPLE_DB = 34;
 
 interface End { node: string; width: number; r: LineResult }
@@ -377,7 +377,7 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
               comp(w, { model: style.style === 'square' ? 'square-bend' : 'miter-bend', source: style.style === 'square' ? 'common practice' : MITER_CITATION, amount_m: 0, applied: true, node: n.id,
                 note: style.style === 'square'
                   ? 'unmitered bend: path measured through the corner point; an unmitered bend adds excess capacitance (no model applied)'
-                  : `${(sn.bend.miter!.fraction * 100).toFixed(1)} % miter: path measured along the centreline through the corner point (methods.md §6.2); keep equal bend counts on matched paths` });
+                  : `${(sn.bend.miter!.fraction * 100).toFixed(1)} % miter: path measured along the centreline through the corner point; keep equal bend counts on matched paths` });
             }
           }
         } catch (err) {
@@ -575,7 +575,7 @@ function sizeTaper(w: Work, cache: LineCache, f0: number, fTop: number, at: (id:
   const spec = seg.length;
   if (spec.by === 'degrees') L = ((spec.deg * Math.PI) / 180) / meanBeta(secs);
   else L = nominalLength(spec, ra, seg, at, `${field}.length`);
-  // At least 20 sections per guided wavelength at the top of the band (methods.md §11.7).
+  // At least 20 sections per guided wavelength at the top of the band (common practice for sampling a continuous taper).
   const lgTop = Math.min(...[ra, rb].map((r) => cache.forWidth(r.width, fTop).lambdaG));
   const need = Math.ceil((20 * L) / lgTop);
   if (need > n) {

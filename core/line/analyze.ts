@@ -7,7 +7,7 @@
  * roughness factor; dielectric loss by the filling-factor form with εe(f). Optionally εr and tanδ carried to f with
  * the wideband Debye model (core/substrate/wideband-debye.ts).
  *
- * DC / thin metal (methods.md §3.6): the strip's DC resistance gives αdc = 1/(σ W t)/(2 Z0); the conductor loss
+ * DC / thin metal (the project's own rule): the strip's DC resistance gives αdc = 1/(σ W t)/(2 Z0); the conductor loss
  * reported is √(αskin² + αdc²), a heuristic blend that is continuous in f and t, adds about 1 % at t = 3δ and falls
  * as (δ/t)² above; below t = 3δ a thin-conductor warning flags the result as approximate.
  */

@@ -4,11 +4,11 @@
  * Hammerstad 1975: E. O. Hammerstad, "Equations for microstrip circuit design", Proc. 5th European Microwave
  * Conference, Hamburg, 1975, pp. 268–272 (the form reproduced in D. M. Pozar, Microwave Engineering, 4th ed., 2012,
  * §3.8). Two regimes split at W/h = 2. Known error against the HJ analysis: |ΔZ0| ≤ 0.26 % for εr 2.2–10.2,
- * Z0 20–150 Ω, t = 0 (methods.md §1.2).
+ * Z0 20–150 Ω, t = 0 (the project's own comparison).
  *
  * Wheeler 1977: H. A. Wheeler, "Transmission-line properties of a strip on a dielectric sheet on a plane", IEEE
  * Trans. MTT, vol. 25, no. 8, pp. 631–647, Aug. 1977, synthesis forms split at Z0 = 44 − 2εr Ω. Known error: within
- * 0.6 % in Z0 except next to the split for low εr (2.9 % at εr 2.2, 40 Ω) (methods.md §1.3).
+ * 0.6 % in Z0 except next to the split for low εr (2.9 % at εr 2.2, 40 Ω) (the project's own comparison).
  * Both ignore thickness and dispersion. Units: Z0 in Ω, result u = W/h.
  */
 

@@ -1,5 +1,5 @@
 /**
- * Electrical ↔ physical length at the result's frequency (methods.md §4):
+ * Electrical ↔ physical length at the result's frequency (Pozar, Microwave Engineering 4th ed., §2.1, §3.8, from memory):
  *   θ[deg] = 360·f·√εe(f)·l/c0 = 360·l/λg,   l = θ·λg/360.
  * Units: degrees and metres. Needs a result at f > 0 (there is no wavelength at DC).
  */
@@ -36,7 +36,7 @@ export function degreesForLength(r: LineResult, length: number): number {
 }
 
 /**
- * Group delay per metre, s/m (methods.md §4): τg = (1/c0)·d(f·√εe(f))/df = (√εe + f·(dεe/df)/(2√εe))/c0, with dεe/df
+ * Group delay per metre, s/m (derivative of the phase constant, Pozar 4th ed., §2.1, from memory): τg = (1/c0)·d(f·√εe(f))/df = (√εe + f·(dεe/df)/(2√εe))/c0, with dεe/df
  * by a central difference of the dispersion model (relative step 1e-4). Equals the phase delay without dispersion.
  * Needs f > 0; throws InputError for invalid input like analyzeLine.
  */

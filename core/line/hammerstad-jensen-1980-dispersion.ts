@@ -1,8 +1,8 @@
 /**
  * Simpler dispersion model (alternative to Kirschning–Jansen), selectable as dispersion: 'hammerstad-jensen'.
  *
- * Source: E. Hammerstad and Ø. Jensen, IEEE MTT-S Symposium Digest 1980, pp. 407–409, dispersion eqs. (as
- * methods.md §2.3):  fp = Z00/(2 μ0 h),  G = (π²/12)((εr − 1)/εe0)·√(2π Z00/η0),
+ * Source: E. Hammerstad and Ø. Jensen, IEEE MTT-S Symposium Digest 1980, pp. 407–409, dispersion eqs.
+ * (as transcribed here):  fp = Z00/(2 μ0 h),  G = (π²/12)((εr − 1)/εe0)·√(2π Z00/η0),
  *   εe(f) = εr − (εr − εe0)/(1 + G (f/fp)²),  Z0(f) = Z00·√(εe0/εe(f))·(εe(f) − 1)/(εe0 − 1).
  * Units: f and fp in Hz, h in m, impedances in Ω. No separate validity range is stated; meant for comparison.
  */

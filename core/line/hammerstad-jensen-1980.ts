@@ -8,7 +8,7 @@
  *
  * Validity and accuracy (as reported by the authors): Z01 better than 0.01 % for u ≤ 1 and 0.03 % for u ≤ 1000;
  * εe better than 0.2 % for εr ≤ 128 and 0.01 ≤ u ≤ 100. No bound is stated for the thickness correction; a 2-D
- * field-solver check agrees within 1 % for t/h ≤ 0.28 (methods.md §1.1, §9).
+ * field-solver check agrees within 1 % for t/h ≤ 0.28 (the project's own check).
  * Units: u, tn, εr dimensionless; impedances in Ω.
  */
 import { ETA0 } from '../units/constants.ts';

@@ -12,7 +12,7 @@ import { C0 } from '../units/constants.ts';
 
 /**
  * Quasi-TEM line models stop describing the line above the first surface-wave modes; past twice the TE1 onset
- * (methods.md §5) the dispersion fits also leave every range they were made for (the Z0(f) fit turns non-finite
+ * (common practice) the dispersion fits also leave every range they were made for (the Z0(f) fit turns non-finite
  * there for εr above its range), so such a frequency is refused instead of returning numbers that mean nothing.
  */
 const qt = { er: Number.NaN, h: Number.NaN, limit: 0.5 }; // the limit for the last substrate (εr, h)
@@ -25,7 +25,7 @@ export function checkQuasiTem(f: number, er: number, h: number): void {
   }
 }
 
-/** Accepted W/h range: the synthesis bracket (methods.md §1.4). */
+/** Accepted W/h range: the synthesis bracket (Hammerstad & Jensen 1980 synthesis range). */
 export const U_MIN = 1e-3;
 export const U_MAX = 1e3;
 /** Highest frequency accepted, Hz. */

@@ -3,8 +3,8 @@
  *
  * Source: R. H. Jansen and M. Kirschning, "Arguments and an accurate model for the power-current formulation of
  * microstrip characteristic impedance", Archiv für Elektronik und Übertragungstechnik (AEÜ), vol. 37, pp. 108–112,
- * 1983, R1…R17 (constants as in methods.md §2.2). R8 keeps the frequency term inside the exponential: every other
- * frequency term vanishes as fn → 0, and so must this one (methods.md §12.3 D3).
+ * 1983, R1…R17 (constants as in the paper). R8 keeps the frequency term inside the exponential: every other
+ * frequency term vanishes as fn → 0, and so must this one (the project's own consistency rule).
  * Inputs: u = W_eff/h, εr, εe0 static and εef at f (from kirschning-jansen-1982.ts), fn = f·h in GHz·mm,
  * z00 the static impedance in Ω. Validity (as usually quoted, range to be verified against the paper):
  * 0.1 ≤ u ≤ 10, 1 ≤ εr ≤ 18, fn ≤ 15 GHz·mm.

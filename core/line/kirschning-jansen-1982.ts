@@ -3,7 +3,7 @@
  *
  * Source: M. Kirschning and R. H. Jansen, "Accurate model for effective dielectric constant of microstrip with
  * validity up to millimetre-wave frequencies", Electronics Letters, vol. 18, no. 6, pp. 272–273, March 1982,
- * eqs. (1)–(2) with P1…P4 (constants as in methods.md §2.1).
+ * eqs. (1)–(2) with P1…P4 (constants as in the paper).
  *   P1 = 0.27488 + (0.6315 + 0.525/(1 + 0.0157 fn)^20) u − 0.065683 exp(−8.7513 u)
  *   P2 = 0.33622 (1 − exp(−0.03442 εr)),  P3 = 0.0363 exp(−4.6 u)(1 − exp(−(fn/38.7)^4.97))
  *   P4 = 1 + 2.751 (1 − exp(−(εr/15.916)^8)),  P = P1 P2 ((0.1844 + P3 P4) fn)^1.5763

@@ -1,5 +1,5 @@
 /**
- * Higher-order-mode and surface-wave thresholds of a microstrip on a grounded slab (methods.md §5).
+ * Higher-order-mode and surface-wave thresholds of a microstrip on a grounded slab.
  *
  *  - TE1 surface-wave onset of the grounded dielectric slab (textbook result, e.g. D. M. Pozar, Microwave
  *    Engineering, 4th ed., 2012, §3.6):  f_TE1 = c0/(4 h √(εr − 1)). The common rule of thumb for the highest
@@ -8,7 +8,7 @@
  *    Microwave Journal, vol. 13, pp. 63–69, May 1970:  f_TM0 = (c0/(2π h))·√(2/(εr − 1))·arctan(εr).
  *  - First transverse resonance of the strip: f_CT = c0/(√εr·(2W + 0.8h)), commonly credited to Vendelin 1970
  *    (attribution to be verified).
- * Policy (not published; methods.md §5 and §13): caution above warnAt = 0.5·min(f_TE1, f_CT), error above
+ * Policy (not published; the project's own rule): caution above warnAt = 0.5·min(f_TE1, f_CT), error above
  * errorAt = min(f_TE1, f_CT). Units: h, W in m; frequencies in Hz.
  */
 import { C0 } from '../units/constants.ts';

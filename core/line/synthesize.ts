@@ -1,6 +1,6 @@
 /**
  * Exact synthesis Z0 → W: safeguarded Newton/secant on x = ln(W/h) inverting the active analysis model
- * (methods.md §1.4), static or at f. The Hammerstad 1975 closed form is only the seed. Bracket
+ * (Hammerstad & Jensen 1980, IEEE MTT-S Digest, with Kirschning & Jansen 1982 for dispersion), static or at f. The Hammerstad 1975 closed form is only the seed. Bracket
  * x ∈ [ln 0.001, ln 1000] (Z0 falls monotonically with W); a step that leaves the bracket is replaced by bisection;
  * stops when |Z0(W) − target| < 1e-10·target. A target outside the bracket's impedances is an
  * InputError('unreachable-target') that gives the reachable range.

@@ -5,7 +5,7 @@
  * Sources: H. A. Wheeler, "Formulas for the skin effect", Proc. IRE, vol. 30, no. 9, pp. 412–424, Sept. 1942
  * (the rule); applied to microstrip by R. A. Pucel, D. J. Massé and C. P. Hartwig, "Losses in microstrip", IEEE
  * Trans. MTT, vol. 16, no. 6, pp. 342–350, June 1968 (correction p. 1064, Dec. 1968). Every conductor wall recedes by
- * dn: dW/dn = −2, dt/dn = −2, dh/dn = +2, so with Z0a(W, h, t) = Z01(u1) the air-line impedance (methods.md §3.2):
+ * dn: dW/dn = −2, dt/dn = −2, dh/dn = +2, so with Z0a(W, h, t) = Z01(u1) the air-line impedance (Hammerstad & Jensen 1980, with εr = 1):
  *     αc = Rs/(η0·Z0) · (∂Z0a/∂h − ∂Z0a/∂W − ∂Z0a/∂t)            [Np/m]
  * Z0a depends on W, h, t only through u = W/h and tn = t/h, so with A = ∂u1/∂u and B = ∂u1/∂tn (analytic):
  *     ∂Z0a/∂h − ∂Z0a/∂W − ∂Z0a/∂t = −(Z01'(u1)/h)·((1 + u)·A + (1 + tn)·B)

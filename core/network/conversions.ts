@@ -1,7 +1,7 @@
 /**
  * S, Z and Y matrices of one frequency for real port references, power-wave definition
- * (K. Kurokawa, "Power waves and the scattering matrix", IEEE Trans. MTT, vol. 13, no. 2, pp. 194–202, 1965;
- * methods.md §8.3). With R = diag(Zk) and G = R^½:
+ * (K. Kurokawa, "Power waves and the scattering matrix", IEEE Trans. MTT, vol. 13, no. 2, pp. 194–202, 1965).
+ * With R = diag(Zk) and G = R^½:
  *   S = G⁻¹ (Z − R)(Z + R)⁻¹ G,   Z = G (I + S)(I − S)⁻¹ G,   Y = G⁻¹ (I − S)(I + S)⁻¹ G⁻¹.
  * Matrices are n×n, row-major, interleaved re/im. For real references power waves equal travelling
  * (pseudo) waves; complex references are out of scope.

@@ -2,11 +2,11 @@
  * Sized design → netlist for the nodal solver.
  *
  * Each line piece is a lossy, dispersive line whose Zc(f) and γ(f) come from the line model at every frequency
- * (core/line `lineConstants`, methods.md §3.7), over the physical length the layout gives (compensations applied).
+ * (core/line `lineConstants`: Hammerstad & Jensen 1980 statics with Kirschning & Jansen 1982 dispersion), over the physical length the layout gives (compensations applied).
  * Around the pieces, what the layout applied is put back as circuit elements so the model stays whole:
- *  - open end (Kirschning, Jansen & Koster 1981, methods.md §6.1, applied by the layout as a Δl cut): the end
+ *  - open end (Kirschning, Jansen & Koster 1981, Electronics Letters 17(3), applied by the layout as a Δl cut): the end
  *    capacitance C_oc from node to ground;
- *  - via to ground (Goldfarb & Pucel 1991, methods.md §6.5): series R(f) + jωL to ground, R with its skin effect
+ *  - via to ground (Goldfarb & Pucel 1991, IEEE Microwave and Guided Wave Letters 1(6), from memory): series R(f) + jωL to ground, R with its skin effect
  *    recomputed at each frequency;
  *  - lumped parts: the ideal part between its pad centres, and each pad as a short line of the pad's width over the
  *    length the layout took off the adjoining line (common practice: a pad is a piece of wide line);
@@ -24,7 +24,7 @@
  *    line; the layout already drew each arm's copper longer by its plane shift at f0;
  *  - in-line width steps (Garg & Bahl 1978): L1 – Cs – L2 at the step, each part only where its fit holds.
  * Crosses and junctions that are not a T have no model at hand: their arms join at the centre, a note says so.
- * Mitered and square bends add nothing (methods.md §6.2: the path is measured through the corner; no closed form
+ * Mitered and square bends add nothing (project rule: the path is measured through the corner; no closed form
  * adopted).
  */
 import { InputError } from '../util/errors.ts';
@@ -201,7 +201,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
 
 /**
  * The line model's own warnings at the top of a sweep, once per copper width: validity ranges of the published
- * fits and the higher-order-mode / surface-wave thresholds (methods.md §5, §13.7), so a sweep that runs past where
+ * fits and the higher-order-mode / surface-wave thresholds (the validity ranges printed with Hammerstad & Jensen 1980 and Kirschning & Jansen 1982; the usual TE1/surface-wave cut-off estimates, Pozar, Microwave Engineering 4th ed., §3.8, from memory), so a sweep that runs past where
  * the quasi-TEM model holds says so. Warnings are deduplicated by message and name the pieces.
  */
 export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: FromSizedOptions = {}): Warning[] {

@@ -1,5 +1,5 @@
 /**
- * Two-port matrices of a uniform line of length l with constants Zc, γ (methods.md §8.1; D. M. Pozar,
+ * Two-port matrices of a uniform line of length l with constants Zc, γ (D. M. Pozar,
  * Microwave Engineering, 4th ed., §4.4, Table 4.1):
  *   ABCD = [cosh γl, Zc sinh γl; sinh γl / Zc, cosh γl]     (I2 leaving port 2)
  *   S (reference Z0): with Γ = (Zc − Z0)/(Zc + Z0), P = e^(−γl):

@@ -1,10 +1,10 @@
 /**
  * Modified nodal analysis of a netlist at one frequency, giving the full S-matrix of its ports
- * (methods.md §8.2, §8.3).
+ * (textbook MNA with two-port ABCD stamps; cf. D. M. Pozar, Microwave Engineering, 4th ed., 2012, §4.3–4.4, from memory).
  *
  * Stamps. Admittances y between a and b: Y[a,a] += y, Y[b,b] += y, Y[a,b] -= y, Y[b,a] -= y (ground rows and
  * columns are left out). A line is stamped as its Y two-port Y11 = Y22 = coth(γl)/Zc, Y12 = Y21 = −1/(Zc sinh γl)
- * (methods.md §8.1). Ports of reference Zk add 1/Zk to their node (Norton form of a source with series Zk).
+ * (standard nodal analysis). Ports of reference Zk add 1/Zk to their node (Norton form of a source with series Zk).
  *
  * Fast path: the pattern is symmetric and fixed, so a fill-reducing order and the symbolic factorisation are
  * computed once (ordering.ts) and each frequency is one sparse LU without pivoting.
@@ -14,7 +14,7 @@
  *  - a pivot of the fixed order is tiny relative to its row (e.g. an open quarter-wave stub at f0 has Y11 = 0).
  * Then the frequency is solved densely with scaled partial pivoting, and the ill-conditioned lines are stamped in
  * the ABCD form instead: two extra unknowns I1 (into end a) and I2 (out of end b) and two rows
- * V_a − A V_b − B I2 = 0, I1 − C V_b − D I2 = 0, which is never singular (methods.md §8.2).
+ * V_a − A V_b − B I2 = 0, I1 − C V_b − D I2 = 0, which is never singular (ABCD definition as in Pozar, Microwave Engineering, 4th ed., §4.4, from memory).
  * Only a network that is singular in itself (an ideal lossless resonance with no port to damp it) still fails,
  * with an InputError 'singular-network' naming the frequency and the node.
  *
@@ -324,7 +324,7 @@ function solveDense(cn: CompiledNetwork, ev: Evaluated, f: number, s: Float64Arr
       add(st.a, st.a, x[0], x[1]); add(st.b, st.b, x[2], x[3]); add(st.a, st.b, x[4], x[5]); add(st.b, st.a, x[6], x[7]);
       return;
     }
-    // ABCD stamp (methods.md §8.2): unknowns I1 = column p, I2 = column p + 1.
+    // ABCD stamp (Pozar, Microwave Engineering, 4th ed., §4.4, from memory): unknowns I1 = column p, I2 = column p + 1.
     const p = extra[idx];
     add(st.a, p, 1, 0); add(st.b, p + 1, -1, 0);
     add(p, st.a, 1, 0); add(p, st.b, -x[0], -x[1]); add(p, p + 1, -x[2], -x[3]);

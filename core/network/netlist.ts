@@ -9,7 +9,7 @@ import type { Complex } from './complex.ts';
 /** The reserved name of the ground (return) node. */
 export const GROUND = 'gnd';
 
-/** Characteristic impedance and propagation constant of a line at one frequency (methods.md §3.7). */
+/** Characteristic impedance and propagation constant of a line at one frequency (Pozar, Microwave Engineering, 4th ed., 2012, §2.1). */
 export interface LineConstants {
   /** Zc, Ω (complex for a lossy line). */
   zc: Complex;
@@ -24,11 +24,11 @@ export type LineModel = (f: number) => LineConstants;
 export type AdmittanceFn = (f: number) => Complex;
 
 export type NetElement =
-  /** Uniform line from node a to node b over ground (methods.md §8.1). Length 0 joins a and b (a wire). */
+  /** Uniform line from node a to node b over ground (Pozar, Microwave Engineering, 4th ed., 2012, §4.4, ABCD of a line). Length 0 joins a and b (a wire). */
   | { kind: 'line'; id: string; a: string; b: string; length: number; model: LineModel }
   /** Ideal lumped part between a and b (b may be GROUND). R = 0 or L = 0 is a wire; C = 0 is left open. */
   | { kind: 'resistor' | 'capacitor' | 'inductor'; id: string; a: string; b: string; value: number }
-  /** Series R + jωL, e.g. a via to ground (methods.md §6.5); `r` may depend on frequency (skin effect). */
+  /** Series R + jωL, e.g. a via to ground (Goldfarb & Pucel 1991, IEEE Microwave and Guided Wave Letters 1(6), from memory); `r` may depend on frequency (skin effect). */
   | { kind: 'series-rl'; id: string; a: string; b: string; r: number | ((f: number) => number); l: number }
   /** Any two-terminal admittance. */
   | { kind: 'admittance'; id: string; a: string; b: string; y: AdmittanceFn }

@@ -4,7 +4,7 @@
  *
  * Between data points S is interpolated linearly in real and imaginary parts (common practice for densely
  * sampled data; it keeps a passive part passive between points). Outside the data's band nothing is guessed:
- * the sweep fails with an InputError naming the part and its band. Y = G⁻¹ (I − S)(I + S)⁻¹ G⁻¹ (methods.md §8.3).
+ * the sweep fails with an InputError naming the part and its band. Y = G⁻¹ (I − S)(I + S)⁻¹ G⁻¹ (Pozar, Microwave Engineering, 4th ed., Table 4.2 (from memory)).
  */
 import { InputError } from '../util/errors.ts';
 import { sToY } from './conversions.ts';

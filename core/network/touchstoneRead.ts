@@ -1,7 +1,6 @@
 /**
  * Touchstone reader, versions 1.0/1.1 and 2.0. Sources: "Touchstone File Format Specification, Rev. 1.1",
- * EIA/IBIS Open Forum, 2002; "Touchstone File Format Specification, Version 2.0", IBIS Open Forum, 2009
- * (methods.md §8.4, formats.md §5.1).
+ * EIA/IBIS Open Forum, 2002; "Touchstone File Format Specification, Version 2.0", IBIS Open Forum, 2009.
  *
  * Handled: comments, the option line (defaults GHz S MA R 50; only the first counts), S, Y and Z data in RI, MA and
  * DB, 1 to N ports, v1 2-port order S11 S21 S12 S22, v2 [Number of Ports], [Two-Port Data Order] 12_21 | 21_12,

@@ -1,6 +1,6 @@
 /**
  * Touchstone version 1.1 writer (.sNp). Source: "Touchstone File Format Specification, Rev. 1.1", EIA/IBIS Open
- * Forum, 2002 (methods.md §8.4, formats.md §5): "!" comments, one option line "# <unit> S <format> R <ohms>",
+ * Forum, 2002: "!" comments, one option line "# <unit> S <format> R <ohms>",
  * one record per frequency; 1-port "f S11"; 2-port "f S11 S21 S12 S22" on one line (the historic order);
  * 3 or more ports one matrix row per line, at most four pairs per line, the frequency only at the start.
  * Numbers are written with the shortest text that reads back to the same double.

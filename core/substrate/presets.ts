@@ -1,6 +1,6 @@
 /**
  * Generic laminate presets: starting points by material family, never a maker's product. Every value is typical
- * for the family (sources: practice.md collected figures and common practice; values marked "from memory" are just
+ * for the family (sources: common practice; values marked "from memory" are just
  * that). The laminate's own data sheet wins: the user should always enter the εr, tanδ and thickness of the sheet
  * in hand, ideally the "design" εr quoted for microstrip at the working frequency.
  */

@@ -10,8 +10,8 @@
  * (step 1e-4·W) of the line model; board-wide changes (laminate, etch, tool) are analysed exactly. For 10 µm on a
  * 1.5 mm strip the neglected second-order term is about (δ/W)² ≈ 4e-5 of the constants.
  *
- * The per-point arithmetic is that of mna.ts's fast path, term for term and in the same order (the stamps of
- * methods.md §8.1, the fixed-order sparse LU of ordering.ts), so a board with no deviation gives the nominal sweep to
+ * The per-point arithmetic is that of mna.ts's fast path, term for term and in the same order (the modified nodal
+ * stamps of Ho, Ruehli & Brennan 1975, IEEE Trans. Circuits Syst. 22(6), from memory, the fixed-order sparse LU of ordering.ts), so a board with no deviation gives the nominal sweep to
  * the last bit (test/unit/yield.test.ts checks this). Where mna.ts would take its pivoting path (a line near a
  * multiple of a half wave, a tiny pivot) this solver hands that point to mna.ts's `solveAt` itself.
  */

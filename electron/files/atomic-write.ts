@@ -1,5 +1,5 @@
 /**
- * Atomic replacement of a file, keeping the previous version as a backup (reliability.md §2.2):
+ * Atomic replacement of a file, keeping the previous version as a backup (the project's own rule):
  *
  *   1. write the new bytes to a temporary file in the same folder (rename is atomic only within one file system),
  *      fsync it and close it;

@@ -1,6 +1,6 @@
 /**
- * The one reader of text files for every face with a file system (the desktop shell and the CLI), with the checks
- * of reliability.md §3.1 steps 1–2: refuse what is not a regular file (a folder, a device, a pipe) and a file over
+ * The one reader of text files for every face with a file system (the desktop shell and the CLI), with the project's own
+ * first two loading checks: refuse what is not a regular file (a folder, a device, a pipe) and a file over
  * its kind's size limit before reading it, read at most the limit (a file that grows while being read is refused
  * too), then decode (electron/text-decode.ts, shared with the browser). Answers a result object so the main process
  * can hand it to the renderer unchanged and the CLI can print its message.

@@ -1,6 +1,6 @@
 /**
  * Runs scripts/oracles/audit_dxf.py (ezdxf strict load + audit) on DXF text with Debian's own python3
- * (`PATH="$(getconf PATH)"`: a pyenv/venv python3 earlier on PATH cannot import Debian's ezdxf; formats.md §0).
+ * (`PATH="$(getconf PATH)"`: a pyenv/venv python3 earlier on PATH cannot import Debian's ezdxf).
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';

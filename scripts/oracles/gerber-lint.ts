@@ -1,8 +1,8 @@
 /**
  * Our own rule checker for Gerber RS-274X/X2 and Excellon drill files, written from the open specifications
- * (Ucamco, "The Gerber Layer Format Specification", rev. 2022.02, as summarised in formats.md §3.1:
+ * (Ucamco, "The Gerber Layer Format Specification", rev. 2022.02:
  * syntax, FS, MO, AD, G01–G03 and G75, LP, regions, attributes, deprecated commands; for drill files the Excellon header/body
- * layout summarised in formats.md §3.3). It shares no code with core/export, so a passing file means
+ * layout of the Excellon format). It shares no code with core/export, so a passing file means
  * a second reading of the rules agrees with the writer.
  *
  * Library use: `lintGerber(text)` / `lintExcellon(text)` return a list of problems (empty = clean).

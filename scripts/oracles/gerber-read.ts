@@ -1,7 +1,7 @@
 /**
  * Read-back of Gerber and Excellon files through third-party parsers (gerber-parser + gerber-plotter,
  * npm), and rendering through gerber-to-svg → @resvg/resvg-js → pngjs for an area measured in pixels.
- * See formats.md §3.2 for what each catches. Warnings the parser gives for X2 attributes it does not
+ * Each catches different faults (the project's own rule: two independent readers). Warnings the parser gives for X2 attributes it does not
  * implement ("... was not recognized and was ignored" for %TF/%TA/%TD) are separated from real warnings.
  */
 import gerberParser from 'gerber-parser';

@@ -1,7 +1,7 @@
 /**
  * Rasterises an SVG with @resvg/resvg-js at an exact pixel grid and measures dark pixels with pngjs:
  * total dark area and the dark bounding box, in millimetres. resvg honours width/height in mm (96 px per inch,
- * CSS Values and Units (absolute lengths)), so `pxPerMm` pixels span one millimetre of the drawing (formats.md §2.2 step 3).
+ * CSS Values and Units (absolute lengths)), so `pxPerMm` pixels span one millimetre of the drawing.
  */
 import { Resvg } from '@resvg/resvg-js';
 import { PNG } from 'pngjs';

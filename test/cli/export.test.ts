@@ -1,7 +1,7 @@
 /**
  * `stripwright export` end to end, run from source as a user would run it. The files it writes are checked with
  * the outside oracles (our Gerber/Excellon rule checker, gerber-parser/plotter, ezdxf), and the file handling against
- * reliability.md §2.2: nothing overwritten without --force, no temp files left behind.
+ * the project's own rule: nothing overwritten without --force, no temp files left behind.
  */
 import { describe, expect, it } from 'vitest';
 import { copyFileSync, existsSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';

@@ -55,7 +55,7 @@ describe('stripwright sweep', () => {
     expect(j.figures.pairs[0].isolationDb).toHaveLength(31);
     expect(j.worst.ports[0].name).toBe('in');
   });
-  it('--out writes Touchstone 1.1 that scikit-rf reads back to the same S as --json (formats.md §5.2)', () => {
+  it('--out writes Touchstone 1.1 that scikit-rf reads back to the same S as --json (Touchstone File Format Specification, IBIS Open Forum)', () => {
     const out = join(dir, 'wilk.s3p');
     const w = cli(['sweep', WILK, '--points', '11', '--out', out]);
     expect(w.code).toBe(0);

@@ -1,8 +1,8 @@
 /**
  * The editor's outputs job (the same code the worker runs) read back by outside parsers:
- *  - dxf-parser 1.1.2 in Node (formats.md §1.3): $INSUNITS 4 = millimetres (DXF reference, header variables),
+ *  - dxf-parser 1.1.2 in Node: $INSUNITS 4 = millimetres (DXF reference, header variables),
  *    closed LWPOLYLINEs on the copper layer, the board's size and the copper's extent in mm;
- *  - ezdxf via Debian python3 (formats.md §1.2): the file reads and audits with no errors.
+ *  - ezdxf via Debian python3: the file reads and audits with no errors.
  * Mirror: left–right mirroring maps x to (board width − x) (our export frame, core/export/frame.ts).
  */
 import { describe, expect, it } from 'vitest';
@@ -73,7 +73,7 @@ describe('outputs from the editor', () => {
     expect(out.files.find((f) => f.name === 'demo-copper-top.gbr')!.data.trim().endsWith('M02*')).toBe(true);
   });
 
-  it('the shop check trips the 1 dB loss budget on the FR-4 demo (practice.md S1: ≈1.5–2 dB per path) and says what to fix', async () => {
+  it('the shop check trips the 1 dB loss budget on the FR-4 demo (common practice: ≈1.5–2 dB per path) and says what to fix', async () => {
     const { findings } = await checkJob({ doc: demo() });
     expect(findings.map((f) => f.code)).toContain('loss-budget');
     for (const f of findings) {

@@ -1,7 +1,7 @@
 /**
  * Panels of the board editor in happy-dom, with the core doing the real sizing (run inline, as the worker would).
  * Outside references:
- *  - practice.md scenario S1 (our own [calc] estimates for 1.6 mm FR-4, εr 4.4, at 5.8 GHz): 50 Ω ≈ 3.0 mm wide,
+ *  - our own scenario S1 (our own [calc] estimates for 1.6 mm FR-4, εr 4.4, at 5.8 GHz): 50 Ω ≈ 3.0 mm wide,
  *    70.7 Ω ≈ 1.57–1.60 mm wide and ≈ 7.2 mm for a quarter-wave. Checked to ±5 % (they are estimates).
  *  - Units: 1 mil = 25.4 µm exactly (international inch, 1959).
  *  - The microstrip fact that Z0 rises as the strip narrows (Hammerstad & Jensen 1980, and every model since).
@@ -27,14 +27,14 @@ describe('piece sheet', () => {
   let ed: EditorState;
   beforeAll(async () => { ed = editorOn('demo'); await sized(ed); });
 
-  it('shows the sized 50 Ω feed near the width practice.md S1 estimates (≈3.0 mm, ±5 %)', async () => {
+  it('shows the sized 50 Ω feed near the width our scenario S1 estimates (≈3.0 mm, ±5 %)', async () => {
     ed.select(['feed']);
     render(PieceSheet, { editor: ed });
     expect(mm(screen.getByTestId('fig-width').textContent!)).toBeGreaterThan(2.85);
     expect(mm(screen.getByTestId('fig-width').textContent!)).toBeLessThan(3.15);
   });
 
-  it('shows the 70.7 Ω quarter-wave at ≈1.57–1.60 mm and ≈7.2 mm (practice.md S1, ±5 %), 90° at f0', () => {
+  it('shows the 70.7 Ω quarter-wave at ≈1.57–1.60 mm and ≈7.2 mm (our scenario S1, ±5 %), 90° at f0', () => {
     ed.select(['qwl']);
     render(PieceSheet, { editor: ed });
     const w = mm(screen.getByTestId('fig-width').textContent!);
@@ -226,7 +226,7 @@ describe('port launch pads', () => {
 });
 
 describe('phase sensitivity', () => {
-  it('for a line held at its physical length, φ ∝ √εeff, so the phase sensitivity to εr lies between 0 and ½ (methods.md §10.1)', async () => {
+  it('for a line held at its physical length, φ ∝ √εeff, so the phase sensitivity to εr lies between 0 and ½ (φ = β ℓ with β = 2π f √εeff / c; Pozar, Microwave Engineering, 4th ed.)', async () => {
     const ed = editorOn('demo');
     ed.showSensitivity = true;
     await sized(ed, { sensitivities: true });

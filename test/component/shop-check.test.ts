@@ -1,6 +1,6 @@
 /**
  * The shop check dock on the demo feed, checks run inline by the same job the worker runs.
- * Outside reference: practice.md scenario S1 expects each input-to-patch path of this FR-4 board to lose ≈1.5–2 dB
+ * Outside reference: our own scenario S1 (common practice estimate) expects each input-to-patch path of this FR-4 board to lose ≈1.5–2 dB
  * and so to trip the 1 dB loss budget; with a low-loss laminate (tanδ 0.002, a tenth) the dielectric part, which
  * scales with tanδ (Pozar, Microwave Engineering, 4th ed., eq. 3.198), drops and the warning goes.
  */

@@ -1,7 +1,7 @@
 /**
  * Outputs and the shop check in the browser, as a user drives them, read back with outside parsers.
- * - DXF: dxf-parser 1.1.2 (formats.md §1.3): $INSUNITS 4 = mm, closed LWPOLYLINEs on the COPPER layer.
- * - Shop check: the FR-4 demo loses ≈1.84 dB per path against a 1 dB budget (practice.md S1 expects ≈1.5–2 dB and
+ * - DXF: dxf-parser 1.1.2 (DXF reference, header variables): $INSUNITS 4 = mm, closed LWPOLYLINEs on the COPPER layer.
+ * - Shop check: the FR-4 demo loses ≈1.84 dB per path against a 1 dB budget (common practice expects ≈1.5–2 dB and
  *   the budget warning); the finding's own fix — a low-loss laminate, tanδ ≈ 0.001–0.004 — clears it, because
  *   dielectric loss scales with tanδ (Pozar, Microwave Engineering, 4th ed., §3.8, eq. 3.198).
  *

@@ -1,7 +1,7 @@
 /**
  * Exported SVG drawings and photo masks shown in Debian's Chromium come out at true size.
  * Scale rule: CSS Values and Units (absolute lengths) (1 in = 96 px = 25.4 mm), so a length in CSS px × 25.4 / 96 is mm.
- * Chromium lays out in 1/64 px (≈ 4 µm, formats.md §2.2), well inside the 0.01 mm asked for.
+ * Chromium lays out in 1/64 px (≈ 4 µm, from memory), well inside the 0.01 mm asked for.
  */
 import { expect, test } from '@playwright/test';
 import { toSvg } from '../../core/export/svg.ts';

@@ -1,6 +1,6 @@
-// Atomic save, backup and stray-temp clean-up (electron/files). The pattern checked is the one reliability.md §2.2
-// describes from the ext4 application notes and Pillai et al. (OSDI 2014): temp in the same folder, fsync, rename,
-// fsync the folder; faults are injected at each step as its §5 checklist asks ("original intact = all, orphan
+// Atomic save, backup and stray-temp clean-up (electron/files). The pattern checked is the one described in
+// the ext4 application notes and Pillai et al. (OSDI 2014): temp in the same folder, fsync, rename,
+// fsync the folder; faults are injected at each step as the project rule asks ("original intact = all, orphan
 // temp files after clean-up = 0").
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import * as fs from 'node:fs/promises';
@@ -96,7 +96,7 @@ describe('atomicWriteFile', () => {
     expect(readFileSync(`${p}.bak`, 'utf8')).toBe('old');
   });
 
-  // graceful-fs's rename retry on Windows (isaacs/node-graceful-fs PR #97, cited in reliability.md §2.2): a file held
+  // graceful-fs's rename retry on Windows (isaacs/node-graceful-fs PR #97): a file held
   // for a moment by an antivirus or indexer fails with EBUSY/EPERM; a bounded retry gets through.
   it('retries a briefly locked rename on Windows, and gives up after the bound with the original intact', async () => {
     const p = join(dir, 'w.stripwright');

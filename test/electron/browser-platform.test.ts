@@ -1,7 +1,7 @@
 // @vitest-environment happy-dom
 // The browser fallback of the Platform (renderer/src/platform/browser.ts) and the autosave schedule
-// (autosave.ts): recovery copies offered only from sessions that stopped (reliability.md §2.1: "a session marker
-// distinguishes crashed from another instance still running"), idle 2 s / at most every 30 s (§2.1's proposal),
+// (autosave.ts): recovery copies offered only from sessions that stopped (project rule: "a session marker
+// distinguishes crashed from another instance still running"), idle 2 s / at most every 30 s (the project's rule),
 // opening through <input type=file>, saving through <a download>.
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { createBrowserPlatform, HEARTBEAT_MS, SESSION_DEAD_MS } from '../../renderer/src/platform/browser.ts';

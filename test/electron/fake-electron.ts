@@ -1,5 +1,5 @@
 // A stand-in for the parts of the 'electron' module the shell's window code uses, recording every call, so the
-// factory and its hardening are tested without the Electron binary (toolchain.md §4: importing the real module
+// factory and its hardening are tested without the Electron binary (the project's own rule: importing the real module
 // tries to download it). Only what the code under test touches is modelled.
 type Listener = (...args: unknown[]) => unknown;
 

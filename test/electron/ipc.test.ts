@@ -1,6 +1,6 @@
 // Every bridge channel refuses a foreign origin and a missing frame (checklist item 17,
 // https://www.electronjs.org/docs/latest/tutorial/security#17-validate-the-sender-of-all-ipc-messages), every
-// argument is checked (reliability.md §5 "argument schemas reject bad payloads"), and errors come back as data.
+// argument is checked (project rule: argument schemas reject bad payloads), and errors come back as data.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';

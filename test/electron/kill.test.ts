@@ -1,5 +1,5 @@
 // The kill test of the issue: a child saving a large design in a loop, SIGKILLed at random moments, 100 rounds,
-// zero corrupt or lost designs (reliability.md §5 "data lost = 0"; §0 item 3 measured 4/60 corrupt for a plain
+// zero corrupt or lost designs (the project's own rule "data lost = 0"; our own measurement found 4/60 corrupt for a plain
 // writeFile and 0/60 for temp + fsync + rename). Figures are printed; speed is not asserted (bench rule).
 import { afterEach, describe, expect, it } from 'vitest';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';

@@ -1,4 +1,4 @@
-// electron/main.ts wired against a stand-in 'electron' (never the real one: toolchain.md §4): single instance
+// electron/main.ts wired against a stand-in 'electron' (never the real one: project rule): single instance
 // (app.requestSingleInstanceLock and 'second-instance', Electron app API), the privileged app:// scheme registered
 // before 'ready' (Electron protocol API: registerSchemesAsPrivileged must run before ready), one handler per
 // bridge channel, files from the command line, the OS and a second instance reaching the page, and the

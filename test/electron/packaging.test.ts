@@ -1,6 +1,6 @@
 // electron-builder.yml, read and validated by electron-builder's own loader and JSON schema (app-builder-lib 26,
 // the library behind the `npm run dist` step), and checked for the fuses the Electron fuses page
-// (https://www.electronjs.org/docs/latest/tutorial/fuses) and reliability.md §1 item 19 ask for.
+// (https://www.electronjs.org/docs/latest/tutorial/fuses) and the project's own hardening rule ask for.
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';

@@ -1,5 +1,5 @@
 // The shell's security decisions against the Electron security checklist
-// (https://www.electronjs.org/docs/latest/tutorial/security; item numbers as in reliability.md §1).
+// (https://www.electronjs.org/docs/latest/tutorial/security; item numbers as in that checklist).
 // The tricky-URL tables follow that checklist's advice to parse URLs rather than compare prefixes (item 13) and
 // the path-traversal forms of item 18.
 import { describe, expect, it } from 'vitest';

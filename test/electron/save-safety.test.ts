@@ -1,4 +1,4 @@
-// Saving never replaces what it should not and never leaves a stale recovery copy (reliability.md §2: "nothing the
+// Saving never replaces what it should not and never leaves a stale recovery copy (the project's own rule: "nothing the
 // user made is lost"): a read-only file is refused with a way out (Save As), a change on disk that kept the file's
 // time is still seen (content hash), and a save racing an autosave leaves no copy of saved work.
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';

@@ -1,6 +1,6 @@
 // Small stores and helpers of the shell: window placement and recent files (validated JSON in userData; a damaged
 // file reads as the default, never stops the start), recovery copies on disk, the menu template, text decoding
-// (reliability.md §3.1 steps 1–2 and §3.5's bad-input catalogue: empty, BOM, UTF-16, binary, NUL).
+// (common practice for bad input: empty, BOM, UTF-16, binary, NUL).
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';

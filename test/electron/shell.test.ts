@@ -1,7 +1,7 @@
 // The document services behind the bridge (electron/shell.ts) over a real temporary folder and scripted dialogs:
-// path grants, atomic save with one-deep .bak (the LibreOffice "always create backup copy" scheme cited in
-// reliability.md §2.1), changed-on-disk refusal (§2.3 "re-check the file's identity at save time"), recovery copies
-// offered only from earlier sessions (§2.1 common pattern), exports.
+// path grants, atomic save with one-deep .bak (the LibreOffice "always create backup copy" scheme; common practice),
+// changed-on-disk refusal (common practice: re-check the file's identity at save time), recovery copies
+// offered only from earlier sessions (common practice), exports.
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';

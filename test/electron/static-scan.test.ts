@@ -1,6 +1,6 @@
 // A static scan of the shell's sources for the settings the Electron security checklist forbids
 // (https://www.electronjs.org/docs/latest/tutorial/security, items 1, 2, 3, 4, 6, 8, 9, 10, 11, 15, 20;
-// reliability.md §1 "Static scan"), so a later edit cannot switch one back on unnoticed. The unit tests of the
+// the project's own "static scan" rule), so a later edit cannot switch one back on unnoticed. The unit tests of the
 // window factory check the values actually used; this catches a second window or a stray option anywhere.
 import { describe, expect, it } from 'vitest';
 import { readdirSync, readFileSync, statSync } from 'node:fs';

@@ -1,6 +1,6 @@
 // The window factory and its hardening, key by key against the Electron security checklist
-// (https://www.electronjs.org/docs/latest/tutorial/security, items as numbered in reliability.md §1),
-// with a stand-in 'electron' module (never the real one: toolchain.md §4).
+// (https://www.electronjs.org/docs/latest/tutorial/security, items as numbered there),
+// with a stand-in 'electron' module (never the real one: the project's own rule).
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { FakeBrowserWindow } from './fake-electron.ts';
 

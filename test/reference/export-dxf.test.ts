@@ -1,8 +1,8 @@
 /**
  * DXF export checked by two outside readers:
  * - ezdxf (Debian python3-ezdxf), strict loader + audit: zero errors and zero fixes (scripts/oracles/audit_dxf.py);
- * - dxf-parser (npm): every vertex read back within 1 µm of the geometry (practice.md §20: "exported dimensions
- *   within 1 µm of the model after re-import"), closed flags set, $INSUNITS = 4 (Autodesk DXF Reference: 4 = mm).
+ * - dxf-parser (npm): every vertex read back within 1 µm of the geometry (common practice: exported dimensions
+ *   within 1 µm of the model after re-import), closed flags set, $INSUNITS = 4 (Autodesk DXF Reference: 4 = mm).
  */
 import { describe, expect, it } from 'vitest';
 import DxfParser from 'dxf-parser';
@@ -34,7 +34,7 @@ describe('DXF export (ezdxf strict load + audit)', () => {
     const polys = report.entities.filter((e) => e.type === 'LWPOLYLINE');
     expect(polys.every((e) => e.closed)).toBe(true);
     const bend = polys.find((e) => e.layer === 'COPPER' && e.points!.length === 7)!;
-    // Closed without a repeated last vertex (formats.md §1.1 recommendation), vertices as designed.
+    // Closed without a repeated last vertex (DXF reference, open format: LWPOLYLINE closed flag (from memory)), vertices as designed.
     expect(bend.points!.map((p) => [p[0], p[1]])).toEqual(BEND_MM);
     const circles = report.entities.filter((e) => e.type === 'CIRCLE');
     expect(circles.map((c) => c.radius).sort()).toEqual([0.4, 0.4, 0.65, 1.6]);

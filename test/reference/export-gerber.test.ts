@@ -1,5 +1,5 @@
 /**
- * Gerber X2 and Excellon export, checked three ways (formats.md §3):
+ * Gerber X2 and Excellon export, checked three ways (against the Gerber Layer Format Specification, Ucamco, and the Excellon format):
  * (a) our own rule checker written from the open Gerber Layer Format Specification (scripts/oracles/gerber-lint.ts);
  * (b) read-back through gerber-parser + gerber-plotter (units, exact image extent, no warnings);
  * (c) rendering through gerber-to-svg → resvg → pngjs: dark area within 0.5 % of the geometry's copper area,
@@ -68,7 +68,7 @@ describe('Gerber read back with gerber-parser + gerber-plotter', () => {
     expect(r.units).toBe('mm');
     expect(r.box).toEqual([2, 2, 48, 38]); // ground copper 2…48 × 2…38 mm in the fixture
     expect(r.done).toBe(true);
-    expect(r.ignoredAttributes.length).toBeGreaterThan(0); // parser does not implement X2: formats.md §3.2
+    expect(r.ignoredAttributes.length).toBeGreaterThan(0); // parser does not implement X2 attributes (Gerber Layer Format Specification, Ucamco)
   });
   it('profile: the outline drawn with the 0.1 mm line: extent grows by half the line width', async () => {
     const r = await readBack(toGerber(boardFixture()).profile);

@@ -3,7 +3,7 @@
  * with test/fixtures/export/golden/ (regenerate with `npx tsx scripts/oracles/make-export-goldens.ts` and review
  * the diff). Each golden file is also run through the outside oracles, so what is frozen is a checked file:
  * ezdxf strict load + audit (DXF), our Gerber/Excellon rule checker and gerber-parser/plotter (Gerber, drill),
- * xmllint (SVG), poppler's pdfinfo (PDF), and the rendered copper area against the geometry within 0.5 % (formats.md §3.2).
+ * xmllint (SVG), poppler's pdfinfo (PDF), and the rendered copper area against the geometry within 0.5 % (the project's own rule).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync, readdirSync } from 'node:fs';
@@ -58,7 +58,7 @@ describe('export golden files', () => {
     }
   });
 
-  it('every plated hole of every source lands on top copper, reading both files back (formats.md §3.3 cross-check)', async () => {
+  it('every plated hole of every source lands on top copper, reading both files back (Gerber/Excellon cross-check)', async () => {
     for (const name of readdirSync(DIR).filter((n) => n.endsWith('-plated.drl'))) {
       const hits = lintExcellon(readFileSync(join(DIR, name), 'utf8')).facts.hits;
       expect(hits.length, name).toBeGreaterThan(0);

@@ -1,6 +1,6 @@
 /**
- * SVG board drawing and photo mask, checked by rasterising with resvg at an exact pixel grid (formats.md §2.2
- * step 3) and by xmllint for well-formedness. Scale rule: CSS Values and Units (absolute lengths), 1 in = 96 px = 25.4 mm, so a
+ * SVG board drawing and photo mask, checked by rasterising with resvg at an exact pixel grid (the project's own rule)
+ * and by xmllint for well-formedness. Scale rule: CSS Values and Units (absolute lengths), 1 in = 96 px = 25.4 mm, so a
  * file in mm with a matching viewBox renders at true size in any viewer.
  */
 import { beforeAll, describe, expect, it } from 'vitest';

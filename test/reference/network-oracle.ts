@@ -1,4 +1,4 @@
-/** Runs a scikit-rf oracle script of scripts/reference/ with Debian's own python3 (formats.md §5.2). */
+/** Runs a scikit-rf oracle script of scripts/reference/ with Debian's own python3. */
 import { execSync, spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 

@@ -2,7 +2,7 @@
  * The nodal solver against scikit-rf (Debian python3-scikit-rf 0.15.4, scripts/reference/skrf_network.py):
  * the same lines — the same real Z0 and complex γ at each frequency, invented for the test — joined by the
  * library's own cascade (`**`) and innerconnect with ideal junctions. Complex S must agree to 1e-9.
- * Touchstone files we write are read back by `skrf.Network` with identical values (formats.md §5.2), and files
+ * Touchstone files we write are read back by `skrf.Network` with identical values (Touchstone File Format Specification v2.0, IBIS Open Forum), and files
  * scikit-rf writes (`Network.write_touchstone`, scripts/reference/skrf_write.py) are read by us to its own values.
  */
 import { describe, expect, it } from 'vitest';
@@ -104,7 +104,7 @@ describe('agreement with scikit-rf 0.15.4 on glass-epoxy lines from the line mod
   });
 });
 
-describe('Touchstone written by us, read by scikit-rf 0.15.4 (formats.md §5.2)', () => {
+describe('Touchstone written by us, read by scikit-rf 0.15.4 (Touchstone spec v2.0)', () => {
   const dir = mkdtempSync(join(tmpdir(), 'sw-ts-'));
   const read = (file: string) => JSON.parse(python('skrf_read.py', '', [file])) as { nports: number; f: number[]; z0: number[]; s: number[][][][] };
   const q = temLengthForDegrees(90, 2.45e9);
@@ -133,7 +133,7 @@ describe('Touchstone written by us, read by scikit-rf 0.15.4 (formats.md §5.2)'
       }
     }
   }
-  it('a 3-port version 2.0 file with different references per port: scikit-rf reads the same S (formats.md §5.2)', () => {
+  it('a 3-port version 2.0 file with different references per port: scikit-rf reads the same S (Touchstone spec v2.0, [Reference] keyword)', () => {
     const net3: Netlist = { elements: [{ kind: 'line', id: 'a', a: 'i', b: 'x', length: q, model: idealLine(60) }, { kind: 'line', id: 'b', a: 'i', b: 'y', length: q * 0.8, model: idealLine(45) }], ports: [{ name: '1', node: 'i', zRef: 50 }, { name: '2', node: 'x', zRef: 75 }, { name: '3', node: 'y', zRef: 35 }] };
     const r = solveNetwork(net3, f);
     const file = join(dir, 'v2.s3p');

@@ -7,7 +7,7 @@
  * Sources: single-stub shunt tuning and the binomial multisection transformer, D. M. Pozar, Microwave Engineering,
  * 4th ed., Wiley 2012, §5.2 (eqs. 5.9–5.10) and §5.6 (eqs. 5.46–5.51); Wilkinson arm impedance √2·Z0 and resistor
  * 2·Z0, E. J. Wilkinson, IRE Trans. MTT-8, 1960; branch-line arms Z0/√2 and Z0, Pozar §7.5. Scenario numbers
- * (36.2 mm pitch, band 5.725–5.875 GHz, processes) from practice.md S1–S3.
+ * (36.2 mm pitch, band 5.725–5.875 GHz, processes) are the project's own example scenarios (common practice for a 5.8 GHz ISM-band array).
  */
 import { describe, expect, it } from 'vitest';
 import { execSync, spawnSync } from 'node:child_process';
@@ -83,7 +83,7 @@ describe('every example', () => {
   }
 });
 
-describe('demo: four-way corporate feed (practice.md S1)', () => {
+describe('demo: four-way corporate feed (project scenario S1)', () => {
   const d = load('demo.json');
   const outs = ['out1', 'out2', 'out3', 'out4'];
   it('substrate, band and process as in the scenario', () => {
@@ -119,7 +119,7 @@ describe('demo: four-way corporate feed (practice.md S1)', () => {
   });
 });
 
-describe('Wilkinson divider (practice.md S2; Wilkinson 1960)', () => {
+describe('Wilkinson divider (project scenario S2; Wilkinson 1960)', () => {
   const d = load('wilkinson-2g45.json');
   it('arms of √2·50 Ω totalling 90°, a 2·50 Ω resistor across the arm ends, arc bends, etch process', () => {
     for (const arm of ['a', 'b']) {
@@ -141,7 +141,7 @@ describe('Wilkinson divider (practice.md S2; Wilkinson 1960)', () => {
   });
 });
 
-describe('branch-line hybrid (practice.md S3; Pozar §7.5)', () => {
+describe('branch-line hybrid (project scenario S3; Pozar §7.5)', () => {
   const d = load('branchline-10g4.json');
   it('through arms Z0/√2 and shunt arms Z0, each 90°, on the ceramic-filled laminate, end-milled', () => {
     for (const id of ['thru1', 'thru2']) { expect(z0Of(seg(d, id))).toBeCloseTo(50 / Math.SQRT2, 2); expect(degOf(seg(d, id))).toBe(90); }

@@ -1,5 +1,5 @@
 /**
- * The design file: round trip, unknown fields, the bad-input catalogue of reliability.md §3.5 (each
+ * The design file: round trip, unknown fields, the project's bad-input catalogue (each
  * with its exact message), version refusal and size limits. The messages are our own wording, so they are checked
  * word for word: a face shows them as they are.
  */
@@ -93,7 +93,7 @@ describe('round trip', () => {
   });
 });
 
-describe('bad-input catalogue (reliability.md §3.5)', () => {
+describe('bad-input catalogue', () => {
   const TRUNC = '; it looks cut short — nothing was loaded; open the backup copy or a recovery snapshot';
   it('empty file, whitespace only, one byte', () => {
     expect(firstError('')).toBe('file: expected a Stripwright design (JSON text starting with {), found an empty file; open the design file itself, or its backup copy');

@@ -1,5 +1,5 @@
 /**
- * Property tests of the loader (reliability.md §3.4, fast-check): whatever the text, parseDesign returns a result,
+ * Property tests of the loader (the project's own rule, fast-check): whatever the text, parseDesign returns a result,
  * never throws and never falls into its internal-error net; what it accepts saves and loads back identically.
  * The seed is fixed so a failure replays; FC_SEED overrides it for a random run.
  */

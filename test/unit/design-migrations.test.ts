@@ -1,6 +1,5 @@
 /**
- * Migrations of the design file (reliability.md §3.3; the "every migration exercised" guard follows the practice
- * described in style.md rule 8). Fixtures under test/fixtures/design/vN/ are files as version N wrote
+ * Migrations of the design file (project rule: every migration is exercised by a test, common practice). Fixtures under test/fixtures/design/vN/ are files as version N wrote
  * them.
  */
 import { describe, expect, it } from 'vitest';

@@ -6,10 +6,10 @@ import {
 import { InputError } from '../../core/util/errors.ts';
 import { hjEe, hjZ0 } from './layout-oracle.ts';
 
-// Reference case of methods.md §6: 50 Ω on εr 3.66, h 0.508 mm, t = 0: W = 1.1122 mm, u = 2.1894.
+// Reference case (our own worked example): 50 Ω on εr 3.66, h 0.508 mm, t = 0: W = 1.1122 mm, u = 2.1894.
 const h = 0.508e-3, er = 3.66, u = 2.1894, W = u * h;
 
-describe('Kirschning–Jansen–Koster 1981 open end (methods.md §6.1 checked example)', () => {
+describe('Kirschning–Jansen–Koster 1981 open end (Kirschning, Jansen & Koster 1981, Electronics Letters 17(3), checked example)', () => {
   const ee = hjEe(u, er);
   it('Δl = 0.2174 mm = 0.4280 h', () => {
     const r = openEndExtension({ u, er, eeStatic: ee, h });
@@ -29,13 +29,13 @@ describe('Kirschning–Jansen–Koster 1981 open end (methods.md §6.1 checked e
   });
 });
 
-describe('Douville–James 1978 optimal miter (methods.md §6.2a example)', () => {
+describe('Douville–James 1978 optimal miter (Douville & James 1978, IEEE Trans. MTT 26(3), example)', () => {
   it('M = 55.38 %, x = 0.8711 mm, legs = 1.2319 mm at u = 2.1894', () => {
     expect(optimalMiterFraction(u) * 100).toBeCloseTo(55.38, 2);
     const c = miterCut({ W, h, er, turnRad: Math.PI / 2 });
     expect(c.x * 1e3).toBeCloseTo(0.8711, 3);
     expect(c.leg * 1e3).toBeCloseTo(1.2319, 3);
-    expect(c.leg).toBeCloseTo(2 * c.fraction * W, 12); // legs = 2 M W (methods.md §6.2a)
+    expect(c.leg).toBeCloseTo(2 * c.fraction * W, 12); // legs = 2 M W (Douville & James 1978)
     expect(c.warnings).toHaveLength(0);
   });
   it('warns below W/h = 0.25 and for turns other than 90°; a chosen fraction is used as given', () => {
@@ -54,7 +54,7 @@ describe('Douville–James 1978 optimal miter (methods.md §6.2a example)', () =
   });
 });
 
-describe('Goldfarb–Pucel 1991 via (methods.md §6.5 checked examples)', () => {
+describe('Goldfarb–Pucel 1991 via (Goldfarb & Pucel 1991, IEEE MGWL 1(6), checked examples)', () => {
   it('L = 65.1 pH (h 0.508, r 0.2 mm), 332 pH (h 1.52, r 0.3), 82.6 pH (h 0.508, r 0.15)', () => {
     expect(viaInductance(0.508e-3, 0.2e-3) * 1e12).toBeCloseTo(65.1, 1);
     expect(viaInductance(1.52e-3, 0.3e-3) * 1e12).toBeCloseTo(332, 0);
@@ -65,10 +65,10 @@ describe('Goldfarb–Pucel 1991 via (methods.md §6.5 checked examples)', () => 
     expect(viaResistance({ h: 0.508e-3, r: 0.2e-3, rho: 1.72e-8, f: 0, tp: 25e-6 }) * 1e3).toBeCloseTo(0.297, 3);
     expect(viaResistance({ h: 0.508e-3, r: 0.2e-3, rho: 1.72e-8, f: 5e9, tp: 25e-6 }) * 1e3).toBeCloseTo(7.95, 2);
   });
-  it('practice.md need 11: 0.8 mm drill through 1.6 mm is ≈0.30 nH, 4.6 Ω at 2.45 GHz, ≈5° of a 50 Ω stub', () => {
+  it('common practice check: 0.8 mm drill through 1.6 mm is ≈0.30 nH, 4.6 Ω at 2.45 GHz, ≈5° of a 50 Ω stub', () => {
     const g = viaGround({ h: 1.6e-3, drill: 0.8e-3, count: 1, f: 2.45e9, rho: 1.72e-8 });
     expect(g.L * 1e9).toBeCloseTo(0.30, 2);
-    // practice.md rounds to two figures ("0.30 nH: 4.6 Ω … 5°"), so compare at that precision.
+    // The expected figures are rounded to two figures ("0.30 nH: 4.6 Ω … 5°"), so compare at that precision.
     expect(Math.abs(g.X - 4.6)).toBeLessThan(0.1);
     const beta = 1; // per radian: Δl·β in radians
     expect(Math.abs(viaEquivalentLength(g.X, 50, beta) * 180 / Math.PI - 5)).toBeLessThan(0.5);
@@ -78,7 +78,7 @@ describe('Goldfarb–Pucel 1991 via (methods.md §6.5 checked examples)', () => 
   });
 });
 
-describe('Hammerstad 1981 T-junction planes (methods.md §6.3, unchecked-form example; advisory)', () => {
+describe('Hammerstad 1981 T-junction planes (Hammerstad, "Computer-aided design of microstrip couplers with accurate discontinuity models", IEEE MTT-S Digest 1981 (from memory); unchecked-form example; advisory)', () => {
   it('Z1 = Z2 = 50 Ω at 2.45 GHz: D = 2.264 mm, d1 = 0.124 mm, d2 = 0.697 mm, n² = 0.9985', () => {
     const ee = hjEe(u, er);
     const t = teeReferencePlanes({ z1: 50, z2: 50, ee1: ee, ee2: ee, h, f: 2.45e9 });
@@ -89,7 +89,7 @@ describe('Hammerstad 1981 T-junction planes (methods.md §6.3, unchecked-form ex
   });
 });
 
-describe('Garg–Bahl 1978 width step (methods.md §6.4 example)', () => {
+describe('Garg–Bahl 1978 width step (Garg & Bahl 1978, Int. J. Electronics 45(1), example)', () => {
   it('25 → 50 Ω (W1 2.9682, W2 1.1122 mm): Cs 20.2 fF, Ls 18.4 pH, L1 6.3 pH, L2 12.1 pH', () => {
     const W1 = 2.9682e-3, W2 = 1.1122e-3;
     const s = widthStep({ W1, W2, h, er, z1: 25, z2: 50, ee1: hjEe(W1 / h, er), ee2: hjEe(W2 / h, er) });

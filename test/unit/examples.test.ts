@@ -1,6 +1,6 @@
 /**
  * Every example design loads, sizes and passes its checks; key figures are pinned against numbers computed here
- * from the published formulas (test/unit/layout-oracle.ts transcribes methods.md §1.1, §2.1–2.2 and §6.1 again), not
+ * from the published formulas (test/unit/layout-oracle.ts transcribes Hammerstad & Jensen 1980, Kirschning & Jansen 1982 and Kirschning, Jansen & Koster 1981 again), not
  * from the project's own code paths.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -69,7 +69,7 @@ describe('pinned figures', () => {
     const p100 = expectLine(s, doc, 'arml', 100);
     expectLine(s, doc, 'qwl', 70.71, 90);
     expectLine(s, doc, 'feed', 50);
-    // practice.md S1 quotes ≈0.66–0.68 mm, ≈1.57–1.60 mm and ≈3.0 mm for these lines (planning estimates).
+    // Common practice planning estimates for these lines are ≈0.66–0.68 mm, ≈1.57–1.60 mm and ≈3.0 mm.
     expect(p100.width * 1e3).toBeGreaterThan(0.66); expect(p100.width * 1e3).toBeLessThan(0.70);
     const h = doc.substrate.h;
     for (const n of s.nodes.filter((x) => x.bend?.miter && Math.abs(x.bend.turn - Math.PI / 2) < 1e-6)) {
@@ -77,16 +77,16 @@ describe('pinned figures', () => {
       const M = (52 + 65 * Math.exp((-1.35 * W) / h)) / 100;
       expect(n.bend!.miter!.leg).toBeCloseTo(2 * M * W, 12);
     }
-    // practice.md S1: four outputs in phase with equal bend counts on all paths.
+    // Project rule: four outputs in phase with equal bend counts on all paths.
     const rep = designPaths(s)[0]!;
     expect(rep.paths).toHaveLength(4);
     expect(rep.spreadDeg).toBeLessThan(0.1);
     expect(new Set(rep.paths.map((p) => p.bends)).size).toBe(1);
-    // practice.md S1: miters ≈ 89 % for the 100 Ω lines.
+    // Common practice: miters ≈ 89 % for the 100 Ω lines.
     const m100 = s.nodes.find((n) => n.bend?.miter && Math.abs(n.bend.width - p100.width) < 1e-9)!;
     expect(Math.round(m100.bend!.miter!.fraction * 100)).toBe(89);
   });
-  it('branch-line hybrid (10.368 GHz): Z0/√2 series and Z0 shunt arms, λ/4 each (methods.md §11.3)', () => {
+  it('branch-line hybrid (10.368 GHz): Z0/√2 series and Z0 shunt arms, λ/4 each (Pozar, Microwave Engineering 4th ed., §7.5, from memory)', () => {
     const doc = load('branchline-10g4.json');
     const s = sizeDesign(doc);
     for (const id of ['thru1', 'thru2']) {
@@ -103,7 +103,7 @@ describe('pinned figures', () => {
       expectLine(s, doc, id, zFile, 90);
     }
   });
-  it('three-section binomial transformer 50 → 12.5 Ω: ln(Zn+1/Zn) = 2^−N C(N,n) ln(ZL/Z0) (methods.md §11.5), each λ/4', () => {
+  it('three-section binomial transformer 50 → 12.5 Ω: ln(Zn+1/Zn) = 2^−N C(N,n) ln(ZL/Z0) (Pozar, Microwave Engineering 4th ed., §5.6, from memory), each λ/4', () => {
     const doc = load('three-section-transformer.json');
     const s = sizeDesign(doc);
     let z = 50;
@@ -114,10 +114,10 @@ describe('pinned figures', () => {
       expectLine(s, doc, p.id, (doc.segments.find((x) => x.id === p.id) as { width: { z0: number } }).width.z0, 90);
     });
   });
-  it('open-stub match (100 Ω load): stub and line lengths from methods.md §11.4, stub drawn Δl (KJK 1981) short', () => {
+  it('open-stub match (100 Ω load): stub and line lengths from Pozar, Microwave Engineering 4th ed., §5.2, stub drawn Δl (KJK 1981) short', () => {
     const doc = load('open-stub-match.json');
     const s = sizeDesign(doc);
-    // Single shunt stub, RL = 100, XL = 0, Z0 = 50 (Pozar §5.2 as methods.md §11.4): second solution t = −√(RL((Z0−RL)²)/Z0)/(RL−Z0).
+    // Single shunt stub, RL = 100, XL = 0, Z0 = 50 (Pozar, Microwave Engineering 4th ed., §5.2): second solution t = −√(RL((Z0−RL)²)/Z0)/(RL−Z0).
     const RL = 100, Z0 = 50;
     const t = -Math.sqrt((RL * (Z0 - RL) ** 2) / Z0) / (RL - Z0);
     const d = (Math.PI + Math.atan(t)) / (2 * Math.PI);
@@ -134,7 +134,7 @@ describe('pinned figures', () => {
     expect(tee.applied && tee.amount_m < 0).toBe(true);
     expect(stub.nominalLength - stub.length).toBeCloseTo(dl + tee.amount_m, 12);
   });
-  it('shorted-stub match: via pair L/2 from Goldfarb–Pucel (methods.md §6.5) shortens the stub by arctan(ωL/Z0)/β', () => {
+  it('shorted-stub match: via pair L/2 from Goldfarb & Pucel 1991, IEEE Microwave Guided Wave Lett. 1(6) (from memory) shortens the stub by arctan(ωL/Z0)/β', () => {
     const doc = load('shorted-stub-match.json');
     const s = sizeDesign(doc);
     const v = s.nodes.find((n) => n.kind === 'short')!.via!;
@@ -146,7 +146,7 @@ describe('pinned figures', () => {
     const tee = stub.compensations.find((c) => c.model === 'tee-planes')!.amount_m; // lengthens: runs into the tee
     expect(stub.nominalLength - stub.length).toBeCloseTo(Math.atan(X / stub.line!.z0) / stub.line!.beta + tee, 12);
   });
-  it('Wilkinson (2.45 GHz): √2·Z0 arms of 90° in two parts, R = 2·Z0 (Wilkinson 1960, methods.md §11.2), outputs in phase', () => {
+  it('Wilkinson (2.45 GHz): √2·Z0 arms of 90° in two parts, R = 2·Z0 (Wilkinson 1960, IRE Trans. MTT 8(1), from memory), outputs in phase', () => {
     const doc = load('wilkinson-2g45.json');
     const s = sizeDesign(doc);
     expectLine(s, doc, 'arma1', 70.71);

@@ -3,7 +3,7 @@
  * Exact areas: a rectangle grown with miter joins by b is (w + 2b)(l + 2b); a convex polygon of area A and
  * perimeter P grown with round joins by r has area A + P·r + π·r² (J. Steiner, "Über parallele Flächen",
  * Monatsber. Preuß. Akad. Wiss. Berlin, 1840, pp. 114–118). Round joins are flattened to ≤ 1 µm chords, so the
- * computed area sits slightly below Steiner's value (formats.md/toolchain.md §9 measured the same deficit).
+ * computed area sits slightly below Steiner's value (our own measurement shows the same deficit).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { initPolygons, regionsArea } from '../../core/geometry/polygons.ts';

@@ -44,7 +44,7 @@ describe('copper of straight runs, bends and tees', () => {
     for (const p of g.copper[0]!.outer) expect(Math.abs(distToSegment(p, c0!, c1!) - W / 2)).toBeLessThan(1e-6);
     closeArea(regionAreaOracle(g.copper[0]!), W * 0.025, [g.copper[0]!.outer]);
   });
-  it('a 90° optimal miter cuts legs of 2·M·W along both outer edges (Douville–James, methods.md §6.2a)', () => {
+  it('a 90° optimal miter cuts legs of 2·M·W along both outer edges (Douville & James 1978, IEEE Trans. MTT 26(3))', () => {
     const W = 1.1122e-3, u = W / h;
     const M = (52 + 65 * Math.exp(-1.35 * u)) / 100;
     const s = sizeDesign(design({ nodes: [port('a', 0, 0), vertex('v', 0.01, 0), port('b', 0.01, 0.01)], segments: [line('l1', 'a', 'v', wd(W), lenOf(0.01)), line('l2', 'v', 'b', wd(W), lenOf(0.01))] }));
@@ -138,7 +138,7 @@ describe('property: random trees of tees give clean copper', () => {
   });
 });
 
-describe('Klopfenstein 1956 profile (methods.md §11.7 checked example, Grossberg series)', () => {
+describe('Klopfenstein 1956 profile (Klopfenstein 1956, Proc. IRE 44(1) (from memory); Grossberg series)', () => {
   it('50 → 100 Ω, Γm = 0.02: A = 3.5447 and Z at z/L = 0, 0.1, …, 1', () => {
     const p = klopfensteinProfile(50, 100, 0.02);
     expect(p.A).toBeCloseTo(3.5447, 4);

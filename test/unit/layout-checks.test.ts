@@ -25,7 +25,7 @@ describe('tool cut width', () => {
   it('V-bit: tip + 2·depth·tan(angle/2) (plain geometry): 30°, 0.1 mm tip, 0.05 mm deep → 0.12679 mm', () => {
     expect(cutWidth({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 }) * 1e3).toBeCloseTo(0.1 + 2 * 0.05 * Math.tan(Math.PI / 12), 9);
     expect(cutWidth(endMill(0.4e-3))).toBe(0.4e-3);
-    // practice.md need 15 [calc]: 60° at 0.1 mm deep → 0.215 mm; 90° at 0.1 mm → 0.30 mm (0.1 mm tips).
+    // Project rule (calculated): 60° at 0.1 mm deep → 0.215 mm; 90° at 0.1 mm → 0.30 mm (0.1 mm tips).
     expect(cutWidth({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 60, depth: 0.1e-3 }) * 1e3).toBeCloseTo(0.215, 3);
     expect(cutWidth({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 90, depth: 0.1e-3 }) * 1e3).toBeCloseTo(0.30, 3);
     // Etching: the artwork gap is the final gap minus twice the edge bias.
@@ -106,7 +106,7 @@ describe('board, keep-outs, ground copper', () => {
     const k = f.find((x) => x.code === 'keep-out')!;
     expect(k.subjects).toEqual(['k', 'l2']);
   });
-  it('ground copper closer than 3h warns, quoting the methods.md §9.4 reference shift (s/h = 1: −5.0 %)', () => {
+  it('ground copper closer than 3h warns, quoting the reference shift of the project’s coplanar-ground check (s/h = 1: −5.0 %)', () => {
     expect(referenceGroundShiftPct(1)).toBeCloseTo(-5.0, 9);
     expect(referenceGroundShiftPct(3)).toBeCloseTo(-0.48, 9);
     expect(referenceGroundShiftPct(0.1)).toBeNull();
@@ -119,7 +119,7 @@ describe('board, keep-outs, ground copper', () => {
     d.areas[0]!.clearance = 3.2 * d.substrate.h;
     const f2 = run(d).filter((x) => x.code === 'ground-near');
     expect(f2.some((x) => x.severity === 'warning')).toBe(false);
-    // Still under 5 W (5.5 mm): the coplanar-rule note of practice.md need 16, as information only.
+    // Still under 5 W (5.5 mm): the common-practice coplanar-rule note, as information only.
     expect(f2.map((x) => x.severity)).toEqual(['info']);
     d.areas[0]!.clearance = 6e-3;
     expect(run(d).some((x) => x.code === 'ground-near')).toBe(false);
@@ -127,7 +127,7 @@ describe('board, keep-outs, ground copper', () => {
 });
 
 describe('loss budget', () => {
-  it('a 300 mm 50 Ω line on glass-epoxy at 7 GHz exceeds 1 dB and the laminate is flagged above 6 GHz (practice.md need 5)', () => {
+  it('a 300 mm 50 Ω line on glass-epoxy at 7 GHz exceeds 1 dB and the laminate is flagged above 6 GHz (common practice)', () => {
     const fr4 = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 0 };
     const d = design({ substrate: fr4, f0: 7e9, nodes: [port('a', 0, 0), port('b', 0.3, 0)], segments: [line('long', 'a', 'b', wd(3e-3), lenOf(0.3))] });
     const f = run(d);

@@ -40,7 +40,7 @@ describe('corporate-feed generator', () => {
       expect(checkFabrication(s, g, { paths: [rep] }).filter((f) => f.severity === 'error')).toEqual([]);
     });
   }
-  it('each split is matched: two 2·Z0 arms in parallel give Z0, the λ/4 √2·Z0 section turns Z0 into 2·Z0 (Z1 = √(Z0·ZL), methods.md §11.1)', () => {
+  it('each split is matched: two 2·Z0 arms in parallel give Z0, the λ/4 √2·Z0 section turns Z0 into 2·Z0 (Z1 = √(Z0·ZL), Pozar, Microwave Engineering, 4th ed., §2.5)', () => {
     const doc = corporateFeed({ outputs: 8, z0: 50 });
     const z = (id: string) => (doc.segments.find((s) => s.id === id) as { width: { z0: number } }).width.z0;
     for (const j of doc.nodes.filter((x) => x.kind === 'junction')) {

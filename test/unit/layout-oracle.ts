@@ -1,6 +1,6 @@
 /**
- * A second, test-only transcription of the Hammerstad–Jensen 1980 static microstrip model at t = 0 (methods.md
- * §1.1; E. Hammerstad and Ø. Jensen, IEEE MTT-S IMS Digest 1980, pp. 407–409), used to feed published discontinuity
+ * A second, test-only transcription of the Hammerstad–Jensen 1980 static microstrip model at t = 0
+ * (E. Hammerstad and Ø. Jensen, IEEE MTT-S IMS Digest 1980, pp. 407–409), used to feed published discontinuity
  * formulas with εeff and Z0 without going through the project's own line code. Also a plain bisection synthesis.
  */
 const ETA0 = 376.730313668;
@@ -26,8 +26,8 @@ export function hjSynthU(z0: number, er: number): number {
 }
 
 /**
- * Thickness-corrected HJ static values (methods.md §1.1 paper form, tn = t/h) and the Kirschning–Jansen 1982 εe(f)
- * with the Jansen–Kirschning 1983 Z0(f) (methods.md §2.1–2.2, R8 with the frequency term inside the exponential),
+ * Thickness-corrected HJ static values (Hammerstad & Jensen 1980 paper form, tn = t/h) and the Kirschning–Jansen 1982 εe(f)
+ * with the Jansen–Kirschning 1983 Z0(f) (Kirschning & Jansen 1982, Electronics Letters 18(6), and Jansen & Kirschning 1983, Arch. Elektr. Übertr. 37 (from memory); R8 with the frequency term inside the exponential),
  * transcribed again for the tests. fn = f·h in GHz·mm.
  */
 export function oracleLine(W: number, h: number, t: number, er: number, f: number): { z0: number; ee: number; z0s: number; ees: number } {
@@ -77,7 +77,7 @@ export function oracleSynth(z0: number, h: number, t: number, er: number, f: num
 
 export const C0 = 299_792_458;
 
-/** KJK 1981 open-end Δl (methods.md §6.1), transcribed again for the tests. */
+/** KJK 1981 open-end Δl (Kirschning, Jansen & Koster 1981, Electronics Letters 17(3)), transcribed again for the tests. */
 export function oracleOpenEnd(u: number, er: number, ee: number, h: number): number {
   const x1 = 0.434907 * ((ee ** 0.81 + 0.26) / (ee ** 0.81 - 0.189)) * ((u ** 0.8544 + 0.236) / (u ** 0.8544 + 0.87));
   const x2 = 1 + u ** 0.371 / (2.358 * er + 1);

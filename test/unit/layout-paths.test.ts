@@ -5,7 +5,7 @@ import { InputError } from '../../core/util/errors.ts';
 import { design, port, vertex, junction, line, wd, z, lenOf, degs } from './layout-fixtures.ts';
 import { oracleLine, C0 } from './layout-oracle.ts';
 
-describe('phase of a line and its sensitivities (methods.md §10.1 checked table, 50 Ω lines at 5 GHz, 100 mm)', () => {
+describe('phase of a line and its sensitivities (table checked by hand, 50 Ω lines at 5 GHz, 100 mm)', () => {
   const rows = [
     { er: 4.4, h: 1.52e-3, t: 35e-6, W: 2.864e-3, phase: 1111, Ser: 0.470, Sh: -0.026, SW: 0.052 },
     { er: 3.66, h: 0.508e-3, t: 35e-6, W: 1.073e-3, phase: 1010, Ser: 0.443, Sh: -0.036, SW: 0.047 },
@@ -21,7 +21,7 @@ describe('phase of a line and its sensitivities (methods.md §10.1 checked table
       expect(e.sensitivity.er).toBeCloseTo(r.Ser, 2);
       expect(e.sensitivity.h).toBeCloseTo(r.Sh, 2);
       expect(e.sensitivity.W).toBeCloseTo(r.SW, 2);
-      // phase = 360 f √εe(f) l / c0 with εe(f) from the independent transcription (methods.md §10.1)
+      // phase = 360 f √εe(f) l / c0 with εe(f) from the independent transcription of Kirschning & Jansen 1982
       const ee = oracleLine(r.W, r.h, r.t, r.er, 5e9).ee;
       expect(e.degAtF0).toBeCloseTo((360 * 5e9 * Math.sqrt(ee) * 0.1) / C0, 3);
       expect(e.delay).toBeCloseTo((Math.sqrt(ee) * 0.1) / C0, 14);
@@ -56,7 +56,7 @@ describe('matched paths', () => {
     expect(r.paths.map((p) => [p.bends, p.junctions])).toEqual([[0, 1], [1, 1]]);
     expect(r.warnings.some((w) => /bends/.test(w.message))).toBe(true);
   });
-  it('a full wavelength of difference matches at f0 only and says so (practice.md need 8: more than λg/8)', () => {
+  it('a full wavelength of difference matches at f0 only and says so (common practice: more than λg/8)', () => {
     const r = tracePaths(sizeDesign(tee(360)), 'in', ['o1', 'o2']);
     expect(Math.abs(r.paths[1]!.phaseDiffDeg)).toBeLessThan(1e-6);
     expect(r.warnings.some((w) => /λg\/8/.test(w.message))).toBe(true);

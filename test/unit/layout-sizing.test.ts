@@ -7,19 +7,19 @@ import { oracleLine, oracleSynth, oracleOpenEnd, C0 } from './layout-oracle.ts';
 const h = RO_LIKE.h, er = RO_LIKE.er;
 
 describe('widths and lengths at f0', () => {
-  it('50 Ω at 10 GHz on εr 3.66 / 0.508 mm (t = 0): W = 1.1155 mm (methods.md §1.4 checked example, JK model)', () => {
+  it('50 Ω at 10 GHz on εr 3.66 / 0.508 mm (t = 0): W = 1.1155 mm (checked example worked by hand; Kirschning & Jansen 1982, Electronics Letters 18(6))', () => {
     const s = sizeDesign(design({ f0: 10e9, nodes: [port('a', 0, 0), port('b', 0.01, 0)], segments: [line('l', 'a', 'b', z(50), lenOf(0.01))] }));
     expect(s.problems).toEqual([]);
     expect(s.pieces[0]!.width * 1e3).toBeCloseTo(1.1155, 4);
     expect(s.pieces[0]!.z0).toBeCloseTo(50, 8);
   });
-  it('a 90° line is λg/4 = c0/(4 f √εe(f)) with εe(f) from KJ 1982 (methods.md §2 example: W 1.0734 mm, t 35 µm, 10 GHz, εe 2.86086)', () => {
+  it('a 90° line is λg/4 = c0/(4 f √εe(f)) with εe(f) from KJ 1982 (example worked by hand: W 1.0734 mm, t 35 µm, 10 GHz, εe 2.86086)', () => {
     const sub = { ...RO_LIKE, t: 35e-6 };
     const s = sizeDesign(design({ substrate: sub, f0: 10e9, nodes: [port('a', 0, 0), port('b', 0.01, 0)], segments: [line('l', 'a', 'b', wd(1.0734e-3), degs(90))] }));
     const expected = C0 / (4 * 10e9 * Math.sqrt(2.86086));
     expect(Math.abs(s.pieces[0]!.length - expected) / expected).toBeLessThan(2e-5);
     expect(s.pieces[0]!.deg).toBeCloseTo(90, 6);
-    expect(s.pieces[0]!.z0).toBeCloseTo(50.100, 2); // methods.md §2: JK Z0(f) = 50.100 Ω
+    expect(s.pieces[0]!.z0).toBeCloseTo(50.100, 2); // Z0(f) of Kirschning & Jansen 1982 = 50.100 Ω (worked by hand)
   });
   it('an independent transcription of HJ + KJ + JK (test/unit/layout-oracle.ts) gives the same widths for 35.36, 70.71 and 100 Ω at 5.8 GHz on 1.6 mm FR-4 with 35 µm copper', () => {
     const fr4 = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 0 };
@@ -36,7 +36,7 @@ describe('widths and lengths at f0', () => {
     const p = s.pieces[0]!;
     expect(s.nodes.find((n) => n.id === 'e')!.pos.x).toBeCloseTo(0.01, 12);
     expect(p.length).toBeCloseTo(0.01, 12);
-    expect(p.nominalLength - 0.01).toBeCloseTo(0.2174e-3, 7); // KJK Δl, methods.md §6.1
+    expect(p.nominalLength - 0.01).toBeCloseTo(0.2174e-3, 7); // Δl of Kirschning, Jansen & Koster 1981, Electronics Letters 17(3)
     expect(p.effectiveDeg).toBeGreaterThan(p.deg);
   });
   it('drawn length is the distance between the drawn nodes', () => {
@@ -50,7 +50,7 @@ describe('compensations', () => {
     nodes: [port('p', 0, 0), junction('t', 0.01, 0), port('q', 0.02, 0), endNode],
     segments: [line('in', 'p', 't', wd(1.1122e-3), lenOf(0.01)), line('out', 't', 'q', wd(1.1122e-3), lenOf(0.01)), line('stub', 't', endNode.id, wd(1.1122e-3), degs(deg))],
   });
-  it('open stub drawn Δl = 0.2174 mm short (KJK 1981, methods.md §6.1 checked example) and its far node moves in', () => {
+  it('open stub drawn Δl = 0.2174 mm short (Kirschning, Jansen & Koster 1981, Electronics Letters 17(3), example worked by hand) and its far node moves in', () => {
     // Ideal junctions here, so the open end is the only correction on the stub (the tee's is tested below).
     const s = sizeDesign(stub(open('e', 0.01, 0.02)), { junctions: 'ideal' });
     const p = s.pieces.find((x) => x.id === 'stub')!;
@@ -61,9 +61,9 @@ describe('compensations', () => {
     expect(p.effectiveDeg).toBeCloseTo(90, 6);
     const e = s.nodes.find((n) => n.id === 'e')!;
     expect(Math.hypot(e.pos.x - 0.01, e.pos.y) ).toBeCloseTo(p.length, 9);
-    expect(e.open!.capacitance * 1e15).toBeCloseTo(24.5, 1); // C_oc, methods.md §6.1
+    expect(e.open!.capacitance * 1e15).toBeCloseTo(24.5, 1); // C_oc from the KJK 1981 Δl
   });
-  it('shorted stub drawn shorter by arctan(ωL/Z0)/β with the via L of Goldfarb–Pucel (65.1 pH for h 0.508, r 0.2 mm, methods.md §6.5)', () => {
+  it('shorted stub drawn shorter by arctan(ωL/Z0)/β with the via L of Goldfarb–Pucel (65.1 pH for h 0.508, r 0.2 mm; Goldfarb & Pucel 1991, IEEE Microwave and Guided Wave Letters 1(6), from memory)', () => {
     const s = sizeDesign(stub({ id: 'e', kind: 'short', at: { x: 0.01, y: 0.02 }, via: { drill: 0.4e-3, pad: 0.8e-3, count: 1 } }));
     const p = s.pieces.find((x) => x.id === 'stub')!;
     const c = p.compensations.find((x) => x.model === 'via')!;
@@ -137,7 +137,7 @@ describe('compensations', () => {
     });
     const m = sizeDesign(mk({ style: 'miter-optimal' }));
     expect(m.pieces.map((p) => p.length)).toEqual([0.01, 0.01]);
-    expect(m.nodes.find((n) => n.id === 'v')!.bend!.miter!.fraction * 100).toBeCloseTo(55.38, 1); // methods.md §6.2a
+    expect(m.nodes.find((n) => n.id === 'v')!.bend!.miter!.fraction * 100).toBeCloseTo(55.38, 1); // optimal miter, Douville & James 1978, IEEE Trans. MTT 26(3)
     const R = 3e-3;
     const a = sizeDesign(mk({ style: 'arc', radius: R }));
     const [p1, p2] = a.pieces;
@@ -209,7 +209,7 @@ describe('impossible requests are errors that name the pieces', () => {
     expect(s.problems.some((p) => p.code === 'bad-topology' && p.subjects.includes('l') && /ghost/.test(p.message))).toBe(true);
     expect(s.problems.some((p) => p.subjects.includes('loop'))).toBe(true);
   });
-  it('square bends are flagged above 2 GHz on boards of 0.8 mm and more (practice.md need 12), not below', () => {
+  it('square bends are flagged above 2 GHz on boards of 0.8 mm and more (common practice), not below', () => {
     const mk = (f0: number) => sizeDesign(design({ f0, substrate: { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 0 },
       nodes: [port('a', 0, 0), vertex('v', 0.02, 0, { style: 'square' }), port('b', 0.02, 0.02)],
       segments: [line('l1', 'a', 'v', z(50), lenOf(0.02)), line('l2', 'v', 'b', z(50), lenOf(0.02))] })).nodes.find((n) => n.id === 'v')!.warnings;
@@ -244,7 +244,7 @@ describe('tapers', () => {
     const phase = p.sections!.reduce((a, x) => a + x.beta * x.length, 0);
     expect((phase * 180) / Math.PI).toBeCloseTo(180, 6);
     expect(p.effectiveDeg).toBeCloseTo(180, 6);
-    // ≥ 20 sections per guided wavelength at the top of the band (methods.md §11.7)
+    // ≥ 20 sections per guided wavelength at the top of the band (the project's own rule)
     expect(p.sections!.length).toBeGreaterThanOrEqual(Math.ceil((20 * L) / Math.min(...p.sections!.map((x) => (2 * Math.PI) / x.beta))) - 1);
   });
   it('a Klopfenstein taper whose ends are too close for the ripple asked is a bad-value problem naming it', () => {
@@ -273,7 +273,7 @@ describe('line cache reuse', () => {
 });
 
 describe('open-end extension agrees with a second transcription across widths', () => {
-  it('KJK Δl for u = 0.2 … 8 (layout-oracle transcription of methods.md §6.1)', () => {
+  it('KJK Δl for u = 0.2 … 8 (layout-oracle transcription of Kirschning, Jansen & Koster 1981)', () => {
     for (const W of [0.1e-3, 0.5e-3, 1.1122e-3, 2e-3, 4e-3]) {
       const s = sizeDesign(design({ nodes: [port('a', 0, 0), open('e', 0.02, 0)], segments: [line('s', 'a', 'e', wd(W), lenOf(0.02))] }));
       const ees = oracleLine(W, h, 0, er, 0).ees;

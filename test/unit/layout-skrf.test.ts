@@ -1,6 +1,6 @@
 /**
  * Path phase against Debian's scikit-rf 0.15.4 (`skrf.media.MLine`, run as an outside oracle with the system
- * python3). With t = 0 that version follows the papers for εe(f) (methods.md §12.2: within 4e-7), so the phase
+ * python3). With t = 0 that version follows the papers for εe(f) (Kirschning & Jansen 1982, Electronics Letters 18(6); the project measured agreement within 4e-7), so the phase
  * β·l of a line agrees with our paths report to a few parts per million. Skipped, with the reason, where Debian's
  * python3-scikit-rf is not installed.
  */

@@ -3,7 +3,7 @@
  * Checks against closed forms: a uniform line between two ports has
  *   S11 = Γ(1 − P²)/(1 − Γ²P²), S21 = P(1 − Γ²)/(1 − Γ²P²), Γ = (Zc − Z0)/(Zc + Z0), P = e^(−γl)
  * (D. M. Pozar, Microwave Engineering, 4th ed., §2.3–2.4 / Table 4.2 conversion, from memory), with Zc and γ from the
- * line model (methods.md §3.7).
+ * line model (Pozar, Microwave Engineering, 4th ed., §2.7 lossy lines, from memory).
  */
 import { describe, expect, it } from 'vitest';
 import { newDesign } from '../../core/design/index.ts';
@@ -140,7 +140,7 @@ describe('width steps in the network (Garg & Bahl 1978, each part only within it
   });
 });
 
-describe('sweepRangeWarnings (methods.md §5: caution above half the higher-order-mode threshold)', () => {
+describe('sweepRangeWarnings (common practice: caution above half the higher-order-mode threshold)', () => {
   it('is quiet inside the band and warns, naming the pieces, when the sweep runs past the caution frequency', async () => {
     const { analyzeLine } = await import('../../core/line/index.ts');
     const { sweepRangeWarnings } = await import('../../core/network/index.ts');

@@ -83,7 +83,7 @@ describe('3 dB branch-line hybrid (Reed & Wheeler 1956 even/odd analysis; Pozar 
   });
 });
 
-describe('cases a plain Y-stamp solver gets wrong (methods.md §8.1–8.2)', () => {
+describe('cases a plain Y-stamp solver gets wrong', () => {
   it('a lossless half-wave line is transparent between equal ports: S21 = −1, S11 = 0 (Pozar §2.4: Zin = ZL at λ/2)', () => {
     const r = solveNetwork({ elements: [line('h', 'a', 'b', 80, 180)], ports: [port('1', 'a'), port('2', 'b')] }, [f0]);
     expect(S(r, 0, 1, 0).re).toBeCloseTo(-1, 12);
@@ -161,7 +161,7 @@ describe('bad networks get clear errors', () => {
   });
 });
 
-describe('unequal Wilkinson, power ratio P3/P2 = K² = 2 (Parad & Moynihan 1965; Pozar §7.3; values in methods.md §11.2)', () => {
+describe('unequal Wilkinson, power ratio P3/P2 = K² = 2 (Parad & Moynihan 1965; Pozar §7.3)', () => {
   const K = Math.SQRT2, z0 = 50;
   const z03 = z0 * Math.sqrt((1 + K * K) / K ** 3), z02 = K * K * z03, R = z0 * (K + 1 / K);
   const r2 = z0 * K, r3 = z0 / K;
@@ -184,7 +184,7 @@ describe('unequal Wilkinson, power ratio P3/P2 = K² = 2 (Parad & Moynihan 1965;
   });
 });
 
-describe('multi-section transformers, 50 → 100 Ω (methods.md §11.5–11.6)', () => {
+describe('multi-section transformers, 50 → 100 Ω (Pozar, Microwave Engineering, 4th ed., §5.5–5.6, from memory)', () => {
   const chain = (zs: number[]): Netlist => ({
     elements: zs.map((z, i) => line(`s${i}`, `n${i}`, `n${i + 1}`, z, 90)),
     ports: [port('1', 'n0', 50), port('2', `n${zs.length}`, 100)],

@@ -10,7 +10,7 @@ import fc from 'fast-check';
 import { compileNetwork, solveAt, idealLine, type NetElement, type Netlist, type LineModel } from '../../core/network/index.ts';
 
 // Invented test constants. The small negative Im Zc must stay below α/β or the line would be active
-// (Zc ≈ Z0·(1 − j(αc − αd)/β), methods.md §3.7).
+// (Zc ≈ Z0·(1 − j(αc − αd)/β), Pozar, Microwave Engineering, 4th ed., §2.7, from memory).
 const lossyLine = (z: number, eeff: number, alpha: number): LineModel => {
   const k = (2 * Math.PI * Math.sqrt(eeff)) / 299_792_458;
   return (f) => ({ zc: { re: z, im: -z * 0.001 }, gamma: { re: alpha * Math.sqrt(f / 1e9), im: k * f } });

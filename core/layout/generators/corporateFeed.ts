@@ -3,7 +3,7 @@
  * Used by the benchmarks (layout, network, renderer) and as a starting point for array feeds. An invented design of
  * our own (no measured board behind it).
  *
- * Topology per split (the usual equal corporate split, methods.md §11.1 for the transformer):
+ * Topology per split (the usual equal corporate split, quarter-wave transformer Z = √(Z0 Z_L) per Pozar, Microwave Engineering, 4th ed., §5.4):
  *   junction ─ 2·Z0 run (drawn length, horizontal) ─ optimal-miter bend ─ √2·Z0 quarter-wave (vertical, 90° at f0)
  *   ─ next junction (or, at the last level, a Z0 run to the output port).
  * Two 2·Z0 arms in parallel present Z0 at the junction; each √2·Z0 quarter wave turns the next level's Z0 into 2·Z0.

@@ -1,5 +1,5 @@
 // Where the Electron binary is, or why it cannot be used: read node_modules/electron/path.txt ourselves, because
-// requiring 'electron' in Node tries to download the binary (toolchain.md §4). Same rule as scripts/start.ts.
+// requiring 'electron' in Node tries to download the binary (project rule: never fetch it). Same rule as scripts/start.ts.
 import { existsSync, readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
