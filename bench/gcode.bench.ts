@@ -12,7 +12,7 @@ import { sizeDesign } from '../core/layout/sizing.ts';
 import { buildBoardGeometry } from '../core/layout/geometry.ts';
 import { planMilling } from '../core/toolpath/plan.ts';
 import { toGcode } from '../core/export/gcode.ts';
-import { exportGcode } from '../core/export/gcode-export.ts';
+import { exportGcode } from '../core/pipeline/gcode.ts';
 
 const median = (xs: number[]) => { const s = xs.slice().sort((a, b) => a - b); return s[Math.floor(s.length / 2)]!; };
 const f1 = (x: number, w: number) => x.toFixed(1).padStart(w);

@@ -17,3 +17,4 @@ export * from './yield/index.ts';
 export * from './blocks/index.ts';
 export * from './toolpath/index.ts';
 export * from './export/index.ts';
+export * from './pipeline/index.ts';

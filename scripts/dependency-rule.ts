@@ -13,7 +13,7 @@ import { join, relative, resolve, dirname, sep } from 'node:path';
 export const CORE_ALLOWED_PACKAGES = ['valibot', 'clipper2-wasm', 'dxf-writer'];
 
 /** Core folders from the fundamentals up: a folder may import its own and lower ones only. */
-export const CORE_LAYERS = ['util', 'units', 'substrate', 'line', 'section', 'discontinuity', 'geometry', 'design', 'layout', 'network', 'yield', 'blocks', 'toolpath', 'export', 'api'];
+export const CORE_LAYERS = ['util', 'units', 'substrate', 'line', 'section', 'discontinuity', 'geometry', 'design', 'layout', 'network', 'yield', 'blocks', 'toolpath', 'export', 'pipeline', 'api'];
 
 const FORBIDDEN_IN_CORE_GLOBALS = /\b(document|window|localStorage|sessionStorage|navigator|require|process|__dirname|Buffer)\s*[.(\[]/;
 

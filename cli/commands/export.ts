@@ -1,38 +1,35 @@
 /**
  * `stripwright export FILE --format dxf|svg|gerber|drill|mask[,…] --out PATH`: writes fabrication files for a design.
- * The design goes through the same pipeline as the app (parse → size → copper geometry), then through the pure
- * exporters in core/export. File I/O lives here: every target is checked before anything is written (nothing is
- * overwritten without --force), and each file is written atomically by the CLI's one writer (cli/files.ts).
+ * The files come from the core's one pipeline (core/pipeline exportDesign), the same call the app's Outputs panel
+ * makes: a design `build` refuses is refused here too (exit 1, nothing written). File I/O lives here: every target
+ * is checked before anything is written (nothing is overwritten without --force), and each file is written
+ * atomically by the CLI's one writer (cli/files.ts).
  */
 import { parseArgs } from 'node:util';
 import { existsSync, mkdirSync, statSync } from 'node:fs';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import {
-  EXPORT_FILE_NAMES, InputError, initPolygons, exportGcode, planDesignMilling, MILLING_CAUTIONS, type MillingOptions, parseDesign, parseQuantity, toDxf, toDxfR12, toExcellon, toGerber, toMask, toSvg, withEtchBias, withIsolation,
-  sizeDesign, boardGeometryOf, checkLayers, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
+  InputError, initPolygons, MILLING_CAUTIONS, type MillingOptions, parseDesign, parseQuantity, EXPORT_LAYERS, type DesignDoc, type ExportGeometry, type Warning,
+  DesignPipeline, exportDesign, exportBase, EXPORT_FORMATS, FORMAT_INFO, type ExportFile,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, OutputError, readInputText, writeOutputFile } from '../files.ts';
 import { explainErrno } from '../../electron/files/atomic-write.ts';
 import { VERSION } from '../version.ts';
 
-const FORMATS = ['dxf', 'svg', 'gerber', 'drill', 'mask', 'mask-pdf', 'gcode'] as const;
-type Format = (typeof FORMATS)[number];
+const FORMATS = EXPORT_FORMATS;
+/** One pipeline per process: its stages are shared by --plan and the formats of one run. */
+const pipeline = new DesignPipeline();
+
+/** The formats part of the usage text, from the core's one table of formats. */
+const formatHelp = EXPORT_FORMATS.map((f) => FORMAT_INFO[f].help.map((l, i) => `  ${i === 0 ? f.padEnd(9) : ' '.repeat(9)}${l}`).join('\n')).join('\n');
 
 const usage = `Usage: stripwright export FILE --format FORMAT[,FORMAT…] --out PATH [options]
 
 Writes fabrication files for the design FILE (a Stripwright design, .json).
 
 Formats:
-  dxf      DXF drawing (mm): one closed polyline per outline and hole, a layer per kind, drills as circles
-  svg      SVG drawing at true size (width/height in mm), one group per layer
-  gerber   Gerber X2 (RS-274X, mm, 4.6): NAME-copper-top.gbr (copper as regions), NAME-copper-bottom.gbr
-           (the ground plane) and NAME-profile.gbr
-  drill    Excellon (METRIC): NAME-plated.drl and NAME-nonplated.drl (only those the board has)
-  mask     1:1 photo mask / toner-transfer sheet (SVG page) with scale bar and registration marks
-  mask-pdf the same sheet as a vector PDF (NAME-mask.pdf)
-  gcode    G-code for a milling machine, one file per tool (NAME-T1-isolation.nc, NAME-T2-drill-0.80mm.nc, …,
-           NAME-Tn-cutout.nc): isolation with the design's process tool, drilling, cutout with tabs
+${formatHelp}
 
 Options:
   --out PATH              where to write: a file for one output, a folder (created if missing) for several
@@ -41,7 +38,8 @@ Options:
   --bias LEN              etch bias per copper edge, e.g. 0.035mm (+ grows copper, − shrinks); all formats but gcode
   --origin board|design   (0,0) at the board's lower-left corner (default) or at the design origin
   --layers L[,L…]         layers for dxf/svg among: ${EXPORT_LAYERS.join(', ')}
-  --tool LEN              milling tool diameter: adds isolation outlines offset by its radius (dxf/svg layer 'isolation')
+  --tool LEN              isolation width override: adds isolation outlines offset by half of it (dxf/svg layer
+                          'isolation'); without it, the layer 'isolation' takes the cut of the design's process
   --style filled|outline  svg: filled copper (default) or outlines only
   --dxf-version 2007|r12  dxf: AC1021 (the 2007 DXF) with LWPOLYLINE and $INSUNITS (default), or R12 POLYLINE for cutters
   --page a4|letter        mask page (default a4)
@@ -78,7 +76,6 @@ Examples:
   stripwright export wilkinson.json --format mask --mirror --bias 0.035mm --out wilkinson-mask.svg
   stripwright export array.json --format gerber,drill,dxf --tool 0.2mm --out fab/`;
 
-interface Output { name: string; text: string; what: string }
 
 export const exportCommand: CliCommand = {
   name: 'export',
@@ -115,84 +112,31 @@ export const exportCommand: CliCommand = {
     const layers = values.layers?.split(',').map((l) => l.trim()).filter((l) => l !== '');
 
     const file = resolve(io.cwd, positionals[0]);
-    const warnings: Warning[] = [];
     try {
       const bias = values.bias !== undefined ? parseQuantity(values.bias, 'length', '--bias') : 0;
       const tool = values.tool !== undefined ? parseQuantity(values.tool, 'length', '--tool') : undefined;
       const read = await readInputText(file, positionals[0], DESIGN_TEXT, 'a design file (.json)');
       if (!read.ok) { io.err(`stripwright export: ${read.message}`); return 1; }
-      const text = read.text;
-      const parsed = parseDesign(text);
+      const parsed = parseDesign(read.text);
       if (!parsed.ok) {
         io.err(`stripwright export: ${positionals[0]} is not a valid design:`);
         for (const i of parsed.errors) io.err(`  ${i.message}`);
         return 1;
       }
-      warnings.push(...parsed.warnings);
-      await initPolygons();
-      const board = designToBoard(parsed.doc);
-      warnings.push(...board.warnings);
-      const raw: ExportGeometry = board.geometry;
-      let g: ExportGeometry = raw;
-      if (bias !== 0) { const b = withEtchBias(g, bias); g = b.geometry; warnings.push(...b.warnings); }
-      if (tool !== undefined) { const m = withIsolation(g, tool); g = m.geometry; warnings.push(...m.warnings); }
-      if (layers !== undefined) checkLayers(layers, g, '--layers');
-      if ((layers !== undefined || tool !== undefined) && !formats.some((f) => f === 'dxf' || f === 'svg')) {
-        io.err(`stripwright export: note: ${layers !== undefined ? '--layers' : '--tool'} only changes dxf and svg output`);
-      }
-      const base = safeBase(file);
       const milling = formats.includes('gcode') ? millingOptions(values as Record<string, string | boolean | undefined>) : null;
-      if (milling && bias !== 0) io.err('stripwright export: note: --bias does not change the G-code (the mill cuts the drawn copper)');
       if (!milling && Object.keys(MILL_FLAGS).some((k) => (values as Record<string, unknown>)[k] !== undefined)) {
         io.err('stripwright export: note: the G-code options only change --format gcode');
       }
-      const sw = { application: 'Stripwright', version: VERSION };
-      const frame = { origin, mirror: values.mirror ?? false };
-      const outputs: Output[] = [];
-      for (const f of new Set(formats as Format[])) {
-        switch (f) {
-          case 'dxf': outputs.push(dxfVersion === 'r12'
-            ? { name: EXPORT_FILE_NAMES.dxf(base), text: toDxfR12(g, { ...frame, layers }), what: 'DXF R12 drawing, mm' }
-            : { name: EXPORT_FILE_NAMES.dxf(base), text: toDxf(g, { ...frame, layers }), what: 'DXF drawing, mm' }); break;
-          case 'svg': outputs.push({ name: EXPORT_FILE_NAMES.svg(base), text: toSvg(g, { mirror: frame.mirror, layers, style }), what: 'SVG drawing, true size' }); break;
-          case 'gerber': {
-            const gb = toGerber(g, { ...frame, ...sw });
-            outputs.push({ name: EXPORT_FILE_NAMES.gerberCopperTop(base), text: gb.copper, what: 'Gerber X2, top copper' });
-            outputs.push({ name: EXPORT_FILE_NAMES.gerberCopperBottom(base), text: gb.bottom, what: 'Gerber X2, bottom copper (ground plane)' });
-            outputs.push({ name: EXPORT_FILE_NAMES.gerberProfile(base), text: gb.profile, what: 'Gerber X2, board profile' });
-            break;
-          }
-          case 'drill': {
-            const d = toExcellon(g, { ...frame, ...sw });
-            if (d.plated) outputs.push({ name: EXPORT_FILE_NAMES.drillPlated(base), text: d.plated, what: 'Excellon, plated holes' });
-            if (d.nonPlated) outputs.push({ name: EXPORT_FILE_NAMES.drillNonPlated(base), text: d.nonPlated, what: 'Excellon, non-plated holes' });
-            if (!d.plated && !d.nonPlated) io.err('stripwright export: the board has no drilled holes; no drill file written');
-            break;
-          }
-          case 'mask':
-          case 'mask-pdf': {
-            // The mask applies the bias itself so the sheet can state it; give it the unbiased copper. Its bias
-            // warnings are the ones already collected from withEtchBias above.
-            const m = toMask(raw, { page, polarity, mirror: frame.mirror, bias, title: basename(file) });
-            const what = `photo mask${f === 'mask-pdf' ? ' (PDF)' : ''}, ${polarity ?? 'positive'}${frame.mirror ? ', mirrored' : ''}, print at 100 %`;
-            outputs.push(f === 'mask' ? { name: EXPORT_FILE_NAMES.maskSvg(base), text: m.svg, what } : { name: EXPORT_FILE_NAMES.maskPdf(base), text: m.pdf, what });
-            break;
-          }
-          case 'gcode': {
-            // The same call the app's Outputs make; bias and --tool do not apply (the design's process is the tool).
-            const gc = exportGcode(parsed.doc, milling ?? {}, { base, application: 'Stripwright', version: VERSION });
-            for (const p of gc.plan.programs) {
-              const file = gc.files.find((x) => x.tool === p.tool.number)!;
-              outputs.push({ name: file.name, text: file.text, what: `G-code, tool ${p.tool.number}: ${p.tool.label}, about ${Math.ceil(p.seconds / 60)} min` });
-            }
-            for (const fnd of gc.plan.findings) io.err(`${fnd.severity === 'info' ? 'note' : fnd.severity}: ${fnd.message}`);
-            const worst = gc.plan.milled.pieces.reduce<(typeof gc.plan.milled.pieces)[number] | null>((a, b) => (!a || Math.abs(b.z0Shift) > Math.abs(a.z0Shift) ? b : a), null);
-            if (worst) io.err(`note: as milled, the largest Z0 shift is ${signed(worst.z0Shift)} Ω on ${worst.id} (${(worst.topWidth * 1e3).toFixed(3)} mm at the top, ${(worst.footWidth * 1e3).toFixed(3)} mm at the foot)`);
-            io.err(`note: about ${Math.ceil(gc.plan.seconds / 60)} min of machining in ${gc.files.length} file(s), run in tool order. ${MILLING_CAUTIONS.join(' ')}`);
-            break;
-          }
-        }
-      }
+      await initPolygons();
+      const result = refusing(positionals[0], () => exportDesign(pipeline, parsed.doc, {
+        formats, base: exportBase(basename(file, extname(file))), version: VERSION, mirror: values.mirror ?? false, bias,
+        ...(tool !== undefined ? { tool } : {}), ...(layers ? { layers } : {}), ...(origin ? { origin } : {}),
+        dxfVersion, ...(style ? { svgStyle: style } : {}), ...(page ? { maskPage: page } : {}), ...(polarity ? { maskPolarity: polarity } : {}),
+        milling: milling ?? {},
+      }));
+      for (const w of parsed.warnings) io.err(`${w.severity === 'error' ? 'error' : 'warning'}: ${w.message}`);
+      for (const m of result.messages) io.err(`${m.severity === 'info' ? 'note' : m.severity}: ${m.text}`);
+      const outputs: ExportFile[] = result.files;
       if (outputs.length === 0) { io.err('stripwright export: nothing to write'); return 1; }
       const targets = placeOutputs(resolve(io.cwd, values.out), values.out, outputs);
       const existing = targets.filter((t) => existsSync(t.path));
@@ -200,13 +144,13 @@ export const exportCommand: CliCommand = {
         io.err(`stripwright export: not overwriting ${existing.map((t) => t.path).join(', ')}; nothing was written (add --force to replace)`);
         return 1;
       }
-      for (const w of warnings) io.err(`${w.severity === 'error' ? 'error' : 'warning'}: ${w.message}`);
       for (const t of targets) {
         await writeOutputFile(t.path, t.text);
         io.out(`wrote ${t.path}  (${t.what}, ${formatSize(Buffer.byteLength(t.text))})`);
       }
       return 0;
     } catch (e) {
+      if (e instanceof Refused) { io.err(e.message); return 1; }
       if (e instanceof InputError) {
         const flag = FLAG_OF_FIELD[e.field];
         io.err(`stripwright export: ${flag ? `--${flag}: expected ${e.expected}, got ${e.got}${e.hint ? ` (${e.hint})` : ''}` : e.message}`);
@@ -219,6 +163,18 @@ export const exportCommand: CliCommand = {
 };
 
 class OutError extends Error {}
+/** A design the pipeline refuses (what `build` refuses): said in full, nothing written. */
+class Refused extends Error {}
+
+/** Runs the pipeline; its refusals of the design (not of an option) become one message that says why. */
+function refusing<T>(given: string, run: () => T): T {
+  try { return run(); } catch (e) {
+    if (e instanceof InputError && e.code === 'impossible-layout' && e.field !== 'workArea') {
+      throw new Refused(`stripwright export: ${given} cannot be exported as drawn; nothing was written.\n  ${e.field}: ${e.got}\n  fix: ${e.hint ?? e.expected}\n  (\`stripwright build ${given}\` lists every finding)`);
+    }
+    throw e;
+  }
+}
 
 /** A shift with its sign, to 0.01 (a shift that rounds to zero shows as +0.00, never −0.00). */
 function signed(x: number): string { const r = Math.round(x * 100) / 100; return `${r >= 0 ? '+' : '−'}${Math.abs(r).toFixed(2)}`; }
@@ -234,7 +190,7 @@ async function planOnly(given: string, values: Record<string, string | boolean |
     const parsed = parseDesign(read.text);
     if (!parsed.ok) { io.err(`stripwright export: ${given} is not a valid design:`); for (const i of parsed.errors) io.err(`  ${i.message}`); return 1; }
     await initPolygons();
-    const { plan } = planDesignMilling(parsed.doc, options);
+    const plan = refusing(given, () => pipeline.plan(parsed.doc, options));
     const mm = (m: number) => (m * 1e3).toFixed(3);
     io.out(`Milling plan for ${basename(file)}: board ${mm(plan.size.width)} × ${mm(plan.size.height)} mm, about ${Math.ceil(plan.seconds / 60)} min in ${plan.programs.length} file(s)`);
     for (const p of plan.programs) io.out(`  T${p.tool.number}  ${p.tool.label}: ${p.operations.join(', ')}, ${mm(p.cutLength)} mm cutting, about ${Math.ceil(p.seconds / 60)} min`);
@@ -248,6 +204,7 @@ async function planOnly(given: string, values: Record<string, string | boolean |
     io.err(MILLING_CAUTIONS.join(' '));
     return errors.length ? 1 : 0;
   } catch (e) {
+    if (e instanceof Refused) { io.err(e.message); return 1; }
     if (e instanceof InputError) {
       const flag = FLAG_OF_FIELD[e.field];
       io.err(`stripwright export: ${flag ? `--${flag}: expected ${e.expected}, got ${e.got}${e.hint ? ` (${e.hint})` : ''}` : e.message}`);
@@ -274,6 +231,9 @@ const MILL_FLAGS = Object.fromEntries(Object.entries(MILL).map(([k, v]) => [k, {
 const FLAG_OF_FIELD: Record<string, string> = Object.fromEntries([
   ...Object.entries(MILL).map(([k, v]) => [v.field, k]),
   ['workArea.height', 'work-area'], ['boardAt.y', 'board-at'], ['workArea', 'work-area'],
+  // The pipeline's request fields (core/pipeline/request.ts) → the flags that set them.
+  ['formats', 'format'], ['bias', 'bias'], ['tool', 'tool'], ['toolDiameter', 'tool'], ['layers', 'layers'], ['origin', 'origin'],
+  ['dxfVersion', 'dxf-version'], ['svgStyle', 'style'], ['maskPage', 'page'], ['maskPolarity', 'polarity'],
 ]);
 
 /** The G-code flags given, as MillingOptions (units parsed by core/units; ranges checked by the core). */
@@ -302,20 +262,13 @@ function millingOptions(values: Record<string, string | boolean | undefined>): P
   return o as Partial<MillingOptions>;
 }
 
-/** The app's pipeline from a design to copper: size every piece, then build the board geometry (sizing problems first). */
+/** The board geometry of a design from the core pipeline (refuses what `build` cannot size or place). */
 export function designToBoard(doc: DesignDoc): { geometry: ExportGeometry; warnings: Warning[] } {
-  const sized = sizeDesign(doc);
-  return { geometry: boardGeometryOf(sized), warnings: sized.warnings };
-}
-
-/** File name stem from the design file: its name without extension, limited to safe characters. */
-function safeBase(file: string): string {
-  const stem = basename(file, extname(file)).replace(/[^\w.-]+/g, '_').replace(/^[.]+/, '');
-  return stem || 'board';
+  return { geometry: pipeline.board(doc), warnings: pipeline.sized(doc).warnings };
 }
 
 /** One output and --out not a folder: that file; otherwise files by name inside the --out folder. */
-function placeOutputs(out: string, given: string, outputs: Output[]): { path: string; text: string; what: string }[] {
+function placeOutputs(out: string, given: string, outputs: ExportFile[]): { path: string; text: string; what: string }[] {
   const isDir = existsSync(out) && statSync(out).isDirectory();
   const wantsDir = isDir || /[\\/]$/.test(given) || outputs.length > 1;
   if (!wantsDir) {

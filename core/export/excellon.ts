@@ -46,6 +46,7 @@ function drillFile(hits: DrillHit[], plated: boolean, frame: Frame, sw: Software
   const lines = [
     'M48',
     `; ${app} ${ver} drill file - ${plated ? 'plated' : 'non-plated'} holes - units mm - origin ${frame.origin === 'board' ? 'board lower-left corner' : 'design origin'}${frame.mirror ? ' - MIRRORED' : ''}`,
+    ...(sw.designHash ? [`; design ${gerberSafe(sw.designHash)}`] : []),
     `; #@! TF.GenerationSoftware,${app},${app},${ver}`,
     `; #@! TF.FileFunction,${plated ? 'Plated,1,2,PTH' : 'NonPlated,1,2,NPTH'}`,
     '; #@! TF.FilePolarity,Positive',

@@ -1,7 +1,15 @@
 /**
  * The names of exported files, one table for every face (CLI, board editor), so a board exported from the app and
- * from the command line gives the same file set. `base` is the design's file stem.
+ * from the command line gives the same file set. `base` is a stem made by `exportBase` (the CLI from the design
+ * file's name, the app from the design's name).
  */
+
+/** The one rule for the stem of exported file names: letters, digits, '_', '.', '-'; anything else becomes '_'. */
+export function exportBase(name: string): string {
+  const stem = name.replace(/[^\w.-]+/g, '_').replace(/^[.]+/, '');
+  return stem || 'board';
+}
+
 export const EXPORT_FILE_NAMES = {
   dxf: (base: string) => `${base}.dxf`,
   svg: (base: string) => `${base}.svg`,

@@ -24,6 +24,11 @@ export interface SoftwareInfo {
   /** Written in .GenerationSoftware and file comments; defaults to Stripwright with version 'dev'. */
   application?: string;
   version?: string;
+  /**
+   * The design's content hash (core/pipeline revisionOf), written as a comment so a file can be traced to the design
+   * that made it. Never a timestamp: the same design and options give the same bytes.
+   */
+  designHash?: string;
 }
 
 export interface GerberOptions extends FrameOptions, SoftwareInfo {
@@ -61,6 +66,7 @@ function header(fileFunction: string, what: string, frame: Frame, sw: SoftwareIn
   const app = gerberSafe(sw.application ?? 'Stripwright'), ver = gerberSafe(sw.version ?? 'dev');
   return [
     `G04 ${app} ${ver} - ${what} - units mm - format 4.6 - origin ${frame.origin === 'board' ? 'board lower-left corner' : 'design origin'}${frame.mirror ? ' - MIRRORED' : ''}*`,
+    ...(sw.designHash ? [`G04 design ${gerberSafe(sw.designHash)}*`] : []),
     `%TF.GenerationSoftware,${app},${app},${ver}*%`,
     `%TF.FileFunction,${fileFunction}*%`,
     '%TF.FilePolarity,Positive*%',

@@ -12,5 +12,4 @@ export * from './milling.ts';
 export * from './dxf-r12.ts';
 export * from './file-names.ts';
 export * from './gcode.ts';
-export * from './gcode-export.ts';
 export * from './milling-preview.ts';

@@ -23,6 +23,8 @@ export interface SvgOptions {
   style?: 'filled' | 'outline';
   /** Empty space around the board, mm (default 2). */
   marginMm?: number;
+  /** Who made it from what, e.g. "design 1a2b3c4d:5k, Stripwright 0.9.0" (the pipeline's stamp; no timestamp). */
+  stamp?: string;
 }
 
 /** Paint order: areas first, then copper, then lines and holes on top. */
@@ -50,7 +52,7 @@ export function toSvg(geometry: ExportGeometry, options: SvgOptions = {}): strin
     '<?xml version="1.0" encoding="UTF-8"?>',
     `<svg xmlns="http://www.w3.org/2000/svg" xmlns:inkscape="http://www.inkscape.org/namespaces/inkscape" width="${fmtMm(W)}mm" height="${fmtMm(H)}mm" viewBox="0 0 ${fmtMm(W)} ${fmtMm(H)}">`,
     `<title>Stripwright board ${fmtMm(frame.width, 3)} × ${fmtMm(frame.height, 3)} mm</title>`,
-    `<desc>True size: 1 user unit = 1 mm. Board lower-left corner at (${fmtMm(margin)}, ${fmtMm(roundMm(H - margin))}) in SVG coordinates (y down). Mirrored: ${frame.mirror ? 'yes' : 'no'}.</desc>`,
+    `<desc>True size: 1 user unit = 1 mm. Board lower-left corner at (${fmtMm(margin)}, ${fmtMm(roundMm(H - margin))}) in SVG coordinates (y down). Mirrored: ${frame.mirror ? 'yes' : 'no'}.${options.stamp ? ` Made by ${escapeText(options.stamp)}.` : ''}</desc>`,
     ...body,
     '</svg>',
     '',
@@ -88,4 +90,9 @@ function layerGroup(g: ExportGeometry, frame: Frame, layer: ExportLayer, style: 
     for (const region of layerRegions(g, layer)) items.push(`<path d="${regionPath(frame, place, region)}"/>`);
   }
   return [open(attrs), ...items, '</g>'].join('\n');
+}
+
+/** Text safe inside an SVG element. */
+function escapeText(s: string): string {
+  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
 }

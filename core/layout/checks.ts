@@ -59,15 +59,9 @@ const MIN_AREA = 1e-12; // 1 µm², below which leftovers are numerical dust
 /** Most tiles the round-tool check works in (a 1 m board in 5 mm tiles); beyond it the tiling is refused. */
 const MAX_TILES = 40_000;
 
-/** Width of the cut the process makes (the narrowest gap it can open), m. */
-export function cutWidth(p: FabProcess): number {
-  switch (p.kind) {
-    case 'end-mill': return p.toolDiameter;
-    case 'v-bit': return p.tipWidth + 2 * p.depth * Math.tan(((p.angleDeg * Math.PI) / 180) / 2);
-    case 'etch': return p.minFeature + 2 * Math.max(0, p.edgeBias);
-    default: return exhaustive(p, 'process kind');
-  }
-}
+/** The process's cut width lives with the rest of what the process cuts (process-cut.ts). */
+export { cutWidth } from './process-cut.ts';
+import { cutWidth } from './process-cut.ts';
 
 /** Reference Z0 change from top-side ground copper at gap s on both sides (the project's own 2-D field-solver reference, one case). */
 const GROUND_TABLE: [number, number][] = [[0.25, -22.8], [0.63, -9.8], [1, -5.0], [2, -1.3], [3, -0.48], [5, -0.12]];

@@ -29,14 +29,14 @@ describe('milling from the editor', () => {
     expect(out.findings.filter((f) => f.severity === 'error')).toEqual([]);
   });
   it('writes G-code through the export job, with the options given', async () => {
-    const out = await exportJob({ doc: demo(), layers: ['copper'], mirror: false, kinds: ['gcode'], base: 'demo', version: 'test', milling: { units: 'inch', passes: 1 } });
+    const out = await exportJob({ doc: demo(), layers: ['copper'], mirror: false, formats: ['gcode'], base: 'demo', version: 'test', milling: { units: 'inch', passes: 1 } });
     expect(out.files.map((f) => f.name)).toEqual(['demo-T1-isolation.nc', 'demo-T2-cutout.nc']);
     const t = retrace(out.files[0]!.data);
     expect(t.units).toBe('G20');
     expect(out.notes.join(' ')).toMatch(/one per tool/);
   });
   it('a refused plan writes nothing and says why', async () => {
-    await expect(exportJob({ doc: demo(), layers: ['copper'], mirror: false, kinds: ['gcode'], base: 'demo', version: 'test', milling: { workArea: { width: 0.05, height: 0.05 } } }))
+    await expect(exportJob({ doc: demo(), layers: ['copper'], mirror: false, formats: ['gcode'], base: 'demo', version: 'test', milling: { workArea: { width: 0.05, height: 0.05 } } }))
       .rejects.toThrow(/outside the work area/);
   });
 });

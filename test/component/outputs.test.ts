@@ -28,8 +28,8 @@ describe('outputs from the editor', () => {
   it('writes a DXF in mm whose copper matches the board geometry, mirrored on request', async () => {
     const doc = demo();
     const g = await geometryJob({ doc });
-    const plain = await exportJob({ doc, layers: ['copper', 'outline'], mirror: false, kinds: ['dxf'], base: 'demo', version: 'test' });
-    const mirrored = await exportJob({ doc, layers: ['copper', 'outline'], mirror: true, kinds: ['dxf'], base: 'demo', version: 'test' });
+    const plain = await exportJob({ doc, layers: ['copper', 'outline'], mirror: false, formats: ['dxf'], base: 'demo', version: 'test' });
+    const mirrored = await exportJob({ doc, layers: ['copper', 'outline'], mirror: true, formats: ['dxf'], base: 'demo', version: 'test' });
     expect(plain.files.map((f) => f.name)).toEqual(['demo.dxf']);
     const read = (text: string) => new DxfParser().parseSync(text) as unknown as { header: Record<string, unknown>; entities: Ent[] };
     const a = read(plain.files[0]!.data), b = read(mirrored.files[0]!.data);
@@ -52,7 +52,7 @@ describe('outputs from the editor', () => {
   });
 
   it('the DXF passes ezdxf audit (Debian python3-ezdxf)', async () => {
-    const out = await exportJob({ doc: demo(), layers: ['copper', 'outline', 'drills'], mirror: false, kinds: ['dxf'], base: 'demo', version: 'test' });
+    const out = await exportJob({ doc: demo(), layers: ['copper', 'outline', 'drills'], mirror: false, formats: ['dxf'], base: 'demo', version: 'test' });
     const file = join(mkdtempSync(join(tmpdir(), 'sw-dxf-')), 'demo.dxf');
     writeFileSync(file, out.files[0]!.data);
     const py = 'import sys, ezdxf\nd = ezdxf.readfile(sys.argv[1])\na = d.audit()\nprint(len(a.errors), d.header.get("$INSUNITS"))';
@@ -61,7 +61,7 @@ describe('outputs from the editor', () => {
   });
 
   it('writes Gerber, drill and mask files with the names the shop expects', async () => {
-    const out = await exportJob({ doc: demo(), layers: ['copper'], mirror: false, kinds: ['gerber', 'drill', 'mask'], base: 'demo', version: 'test' });
+    const out = await exportJob({ doc: demo(), layers: ['copper'], mirror: false, formats: ['gerber', 'drill', 'mask'], base: 'demo', version: 'test' });
     const names = out.files.map((f) => f.name);
     expect(names).toContain('demo-copper-top.gbr');
     expect(names).toContain('demo-profile.gbr');

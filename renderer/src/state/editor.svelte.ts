@@ -83,7 +83,7 @@ export class EditorState {
   selectedArea = $derived<Area | null>(this.single((id) => this.doc.areas.find((a) => a.id === id)));
   fileName = $derived(this.file?.name ?? null);
   /** The ground clearance the layout uses when an area gives none (the core's rule). */
-  defaultClearance = $derived(this.layout ? defaultGroundClearance(this.layout.sized) : this.doc.substrate.h);
+  defaultClearance = $derived(this.layout ? defaultGroundClearance({ ...this.layout.sized, doc: this.doc }) : this.doc.substrate.h);
 
   constructor(doc?: DesignDoc) {
     this.history = new History(doc ?? newDesign(), { run: runWithComposites });

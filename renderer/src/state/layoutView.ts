@@ -8,9 +8,12 @@ import type { SizedDesign } from '../../../core/layout/types.ts';
 import type { PathReport } from '../../../core/layout/paths.ts';
 import type { PieceFigures } from './figures.ts';
 
+/** The sized design without its document (the editor holds the document; the worker does not send it back). */
+export type SizedView = Omit<SizedDesign, 'doc'>;
+
 export interface LayoutView {
   revision: number;
-  sized: SizedDesign;
+  sized: SizedView;
   /** Each piece's and node's own copper (before union) with its centreline. */
   outlines: (PieceOutline & { d?: string })[];
   drills: DrillHit[];
@@ -24,7 +27,7 @@ export interface LayoutView {
   ms: number;
 }
 
-export function figuresFrom(sized: SizedDesign): Map<string, PieceFigures> {
+export function figuresFrom(sized: SizedView): Map<string, PieceFigures> {
   const m = new Map<string, PieceFigures>();
   for (const p of sized.pieces) {
     m.set(p.id, {
@@ -41,7 +44,7 @@ export function figuresFrom(sized: SizedDesign): Map<string, PieceFigures> {
 }
 
 /** One line about a node for the hover readout: the bend, tee, end or via as the sizing made it. */
-export function nodeNotes(sized: SizedDesign): Map<string, string> {
+export function nodeNotes(sized: SizedView): Map<string, string> {
   const m = new Map<string, string>();
   const mm = (v: number) => `${(v * 1e3).toFixed(3)} mm`;
   for (const n of sized.nodes) {
@@ -61,6 +64,6 @@ export function nodeNotes(sized: SizedDesign): Map<string, string> {
   return m;
 }
 
-export function placedFrom(sized: SizedDesign): Map<string, { at: Vec2; pos: Vec2 }> {
+export function placedFrom(sized: SizedView): Map<string, { at: Vec2; pos: Vec2 }> {
   return new Map(sized.nodes.map((n) => [n.id, { at: n.at, pos: n.pos }]));
 }

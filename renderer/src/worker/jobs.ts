@@ -6,25 +6,29 @@
 import type { DesignDoc } from '../../../core/design/types.ts';
 import type { BoardGeometry, DrillHit, Region } from '../../../core/geometry/types.ts';
 import { initPolygons } from '../../../core/geometry/index.ts';
-import { sizeDesign, asMadeLineOptions, LineCache, designPaths, boardGeometryOf, checkBoard, pieceOutlines, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
+import { pieceOutlines, problemFindings, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { Finding } from '../../../core/layout/checks.ts';
-import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
+import { sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
 import { InputError, exhaustive } from '../../../core/util/errors.ts';
 import { runYield, type YieldResult } from '../../../core/yield/index.ts';
-import { EXPORT_FILE_NAMES, toDxf, toSvg, toGerber, toExcellon, toMask, exportGcode, planDesignMilling, millingPreviewSvg, type ExportLayer } from '../../../core/export/index.ts';
+import { EXPORT_FILE_NAMES, millingPreviewSvg } from '../../../core/export/index.ts';
+import { DesignPipeline, exportDesign, type ExportRequest } from '../../../core/pipeline/index.ts';
 import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/toolpath/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
 import { sectionJob, type SectionInput } from './section-job.ts';
 
+/** The sized design as it crosses to the page: without the document, which the editor already holds. */
+export type SizedView = Omit<SizedDesign, 'doc'>;
+
 export interface LayoutInput { doc: DesignDoc; /** Also work out each path's phase sensitivity to εr, h and W (slower). */ sensitivities?: boolean }
 /**
  * The live layout: sized pieces and each piece's own copper (no union, so it needs no polygon engine and stays
  * fast while dragging). The united board geometry is built only for outputs (geometryJob).
  */
-export interface LayoutOutput { sized: SizedDesign; outlines: (PieceOutline & { d: string })[]; drills: DrillHit[]; paths: PathReport[]; geometryError: string | null }
+export interface LayoutOutput { sized: SizedView; outlines: (PieceOutline & { d: string })[]; drills: DrillHit[]; paths: PathReport[]; geometryError: string | null }
 
 export interface ResponseInput { doc: DesignDoc; points?: number }
 /** Plot-ready series: for every (i, j) pair |S| in dB, phase in degrees and group delay in s; reflections for Smith. */
@@ -50,13 +54,11 @@ function polygons(): Promise<void> {
   return polygonsReady;
 }
 
-// One line cache per substrate and line-model choice: re-sizing on every keystroke then costs Map lookups.
-let cache: { key: string; cache: LineCache } | null = null;
-function lineCache(doc: DesignDoc): LineCache {
-  const key = JSON.stringify([doc.substrate, doc.asMade ?? null, doc.asMade?.sizing === 'as-made' ? doc.process : null, doc.asMade?.sizing === 'as-made' ? doc.areas : null]);
-  if (!cache || cache.key !== key) cache = { key, cache: new LineCache(doc.substrate, asMadeLineOptions(doc)) };
-  return cache.cache;
-}
+/**
+ * The worker's one pipeline (core/pipeline): every job of one design revision shares its sizing, board, paths,
+ * plan and network, whichever job asks first. Bounded, so a long session keeps only recent revisions.
+ */
+export const pipeline = new DesignPipeline({ capacity: 48 });
 
 export async function runJob(kind: JobKind, input: unknown, progress: (p: Progress) => void, signal?: AbortSignal): Promise<unknown> {
   switch (kind) {
@@ -74,7 +76,7 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
 
 export async function layoutJob(input: LayoutInput, progress: (p: Progress) => void): Promise<LayoutOutput> {
   progress({ done: 0, total: 2, label: 'sizing' });
-  const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
+  const sized = pipeline.sized(input.doc);
   progress({ done: 1, total: 2, label: 'copper' });
   let outlines: (PieceOutline & { d: string })[] = [];
   let drills: DrillHit[] = [];
@@ -89,98 +91,54 @@ export async function layoutJob(input: LayoutInput, progress: (p: Progress) => v
   }
   let paths: PathReport[] = [];
   if (!sized.problems.length) {
-    try { paths = designPaths(sized, { sensitivities: input.sensitivities === true }); } catch (err) { geometryError ??= errorText(err); }
+    try { paths = pipeline.paths(input.doc, { sensitivities: input.sensitivities === true }); } catch (err) { geometryError ??= errorText(err); }
   }
   progress({ done: 2, total: 2, label: 'done' });
-  return { sized, outlines, drills, paths, geometryError };
+  const { doc: _doc, ...view } = sized;
+  return { sized: view, outlines, drills, paths, geometryError };
 }
 
 /** The united board geometry for outputs (copper, ground, clearance, drills), from the polygon engine. */
 export async function geometryJob(input: LayoutInput): Promise<BoardGeometry> {
-  const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
-  if (!sized.problems.length) await polygons();
-  return boardGeometryOf(sized);
+  await polygons();
+  return pipeline.board(input.doc);
 }
 
 export function errorText(err: unknown): string {
   return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : err instanceof Error ? err.message : String(err);
 }
 
-export type OutputKind = 'dxf' | 'svg' | 'gerber' | 'drill' | 'mask' | 'gcode';
+/** The file formats of the core's one table (core/pipeline/formats.ts). */
+export type { ExportFormat as OutputKind } from '../../../core/pipeline/index.ts';
 
-export interface ExportInput {
-  doc: DesignDoc;
-  layers: ExportLayer[];
-  mirror: boolean;
-  /** Which files to write; none gives only the preview. */
-  kinds: OutputKind[];
-  /** Base of the file names. */
-  base: string;
-  version: string;
-  /** Machining settings for 'gcode' (defaults for the rest). */
-  milling?: Partial<MillingOptions>;
-}
+/** The design and the same request the CLI's export makes (formats and every option). */
+export type ExportInput = ExportRequest & { doc: DesignDoc };
 
 export interface ExportOutput { preview: string; files: { name: string; data: string }[]; notes: string[] }
 
-/** The preview (an SVG of the chosen layers, mirrored as asked) and the chosen files, from the core's exporters. */
+/** The preview (the SVG file of the chosen layers) and the chosen files, from the core's one export pipeline. */
 export async function exportJob(input: ExportInput): Promise<ExportOutput> {
-  const g = await geometryJob(input);
-  const sw = { application: 'Stripwright', version: input.version };
-  const preview = toSvg(g, { layers: input.layers, mirror: input.mirror });
-  const files: { name: string; data: string }[] = [];
-  const notes: string[] = [];
-  for (const k of input.kinds) {
-    switch (k) {
-      case 'dxf': files.push({ name: EXPORT_FILE_NAMES.dxf(input.base), data: toDxf(g, { layers: input.layers, mirror: input.mirror }) }); break;
-      case 'svg': files.push({ name: EXPORT_FILE_NAMES.svg(input.base), data: preview }); break;
-      case 'gerber': {
-        const gb = toGerber(g, { mirror: input.mirror, ...sw });
-        files.push(
-          { name: EXPORT_FILE_NAMES.gerberCopperTop(input.base), data: gb.copper },
-          { name: EXPORT_FILE_NAMES.gerberCopperBottom(input.base), data: gb.bottom },
-          { name: EXPORT_FILE_NAMES.gerberProfile(input.base), data: gb.profile },
-        );
-        break;
-      }
-      case 'drill': {
-        const ex = toExcellon(g, { mirror: input.mirror, ...sw });
-        if (ex.plated) files.push({ name: EXPORT_FILE_NAMES.drillPlated(input.base), data: ex.plated });
-        if (ex.nonPlated) files.push({ name: EXPORT_FILE_NAMES.drillNonPlated(input.base), data: ex.nonPlated });
-        if (!ex.plated && !ex.nonPlated) notes.push('No holes: no drill file written.');
-        break;
-      }
-      case 'mask': {
-        const m = toMask(g, { mirror: input.mirror, title: input.doc.name });
-        files.push({ name: EXPORT_FILE_NAMES.maskSvg(input.base), data: m.svg });
-        notes.push(...m.warnings.map((w) => w.message));
-        break;
-      }
-      case 'gcode': {
-        // The same core call as `stripwright export --format gcode`; it refuses (an error) when the plan has errors.
-        const gc = exportGcode(input.doc, input.milling ?? {}, { base: input.base, application: 'Stripwright', version: input.version });
-        files.push(...gc.files.map((f) => ({ name: f.name, data: f.text })));
-        notes.push(`G-code: ${gc.files.length} file(s), one per tool, about ${Math.ceil(gc.plan.seconds / 60)} min of machining; run them in tool order.`);
-        break;
-      }
-      default: exhaustive(k, 'output');
-    }
-  }
-  return { preview, files, notes };
+  await polygons();
+  const { doc, ...request } = input;
+  const r = exportDesign(pipeline, doc, request);
+  return {
+    preview: r.preview,
+    files: r.files.map((f) => ({ name: f.name, data: f.text })),
+    notes: r.messages.map((m) => `${m.severity === 'info' ? 'Note' : m.severity === 'warning' ? 'Warning' : 'Error'}: ${m.text}`),
+  };
 }
 
 /** Fabrication findings: the core's checks on the united copper (needs the polygon engine). */
 export async function checkJob(input: LayoutInput): Promise<CheckOutput> {
-  const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
-  if (!sized.problems.length) await polygons();
-  const { findings, geometry } = checkBoard(sized);
-  return { findings, ground: geometry?.groundCopper ?? [] };
+  const sized = pipeline.sized(input.doc);
+  if (sized.problems.length) return { findings: problemFindings(sized), ground: [] };
+  await polygons();
+  return { findings: pipeline.findings(input.doc), ground: pipeline.board(input.doc).groundCopper };
 }
 
 /** A sweep of the sized network over the band (and f0), chunked so progress reaches the editor. */
 export async function responseJob(input: ResponseInput, progress: (p: Progress) => void): Promise<ResponseOutput> {
-  const sized = sizeDesign(input.doc, { cache: lineCache(input.doc) });
-  const net = netlistFromSized(sized, sized.lineOptions ? { line: sized.lineOptions } : {});
+  const net = pipeline.netlist(input.doc);
   const settings = bandSweep(input.doc.frequency.band, input.doc.frequency.f0, input.points ?? 201);
   const r: NetworkResponse = await sweepNetwork(net, settings, {
     onProgress: (done, total) => progress({ done, total, label: 'sweeping' }),
@@ -220,9 +178,9 @@ export interface MillingOutput {
 /** Plans the milling of the design (core planDesignMilling) or writes its G-code (core exportGcode, which refuses on errors). */
 export async function millingJob(input: MillingInput): Promise<MillingOutput> {
   await polygons();
-  const info = { base: input.base, application: 'Stripwright', version: input.version };
-  const r = input.write ? exportGcode(input.doc, input.options, info) : { ...planDesignMilling(input.doc, input.options), files: [] };
-  const { plan, geometry } = r;
+  const plan = pipeline.plan(input.doc, input.options);
+  const geometry = pipeline.board(input.doc);
+  const files = input.write ? exportDesign(pipeline, input.doc, { formats: ['gcode'], base: input.base, version: input.version, milling: input.options }).files : [];
   return {
     preview: millingPreviewSvg(plan, geometry),
     seconds: plan.seconds,
@@ -230,7 +188,7 @@ export async function millingJob(input: MillingInput): Promise<MillingOutput> {
     pieces: plan.milled.pieces,
     findings: plan.findings,
     milled: plan.milled.copper,
-    files: r.files.map((f) => ({ name: f.name, data: f.text })),
+    files: files.map((f) => ({ name: f.name, data: f.text })),
   };
 }
 

@@ -1,0 +1,167 @@
+/**
+ * The one pipeline from a design to its files, shared by every face (the CLI's export and build, the app's compute
+ * worker):
+ *
+ *   design → complete (the design's own cross-check, complete: true) → sized (core/layout sizing)
+ *          → board geometry (copper, ground, clearance, drills; every sized piece placed or a refusal)
+ *          → prepared (etch bias; isolation outlines from the design's process, or a tool override)
+ *          → files (files.ts).
+ *
+ * Each stage is computed once per design revision (revision.ts: a content hash) and kept in a small bounded memo,
+ * so the app's layout, check, preview, export, milling and response jobs of one revision share one sizing and one
+ * board. Stages that refuse throw an InputError naming the pieces; the refusal is memoised too.
+ * Geometry stages need the polygon engine: `await initPolygons()` (core/geometry) once before calling them.
+ */
+import { crossCheck } from '../design/crossref.ts';
+import type { DesignDoc } from '../design/types.ts';
+import type { BoardGeometry } from '../geometry/types.ts';
+import { asMadeLineOptions } from '../layout/as-made.ts';
+import { checkFabrication, type Finding } from '../layout/checks.ts';
+import { buildBoardGeometry } from '../layout/geometry.ts';
+import { LineCache } from '../layout/lineCache.ts';
+import { designPaths, type PathReport } from '../layout/paths.ts';
+import { processCut } from '../layout/process-cut.ts';
+import { sizeDesign } from '../layout/sizing.ts';
+import type { SizedDesign } from '../layout/types.ts';
+import { netlistFromSized, type SizedNetlist } from '../network/fromSized.ts';
+import { planMilling, type MillingOptions, type MillingPlan } from '../toolpath/index.ts';
+import { InputError } from '../util/errors.ts';
+import type { Warning } from '../util/warnings.ts';
+import { withEtchBias } from '../export/bias.ts';
+import { withIsolation } from '../export/milling.ts';
+import type { ExportGeometry } from '../export/layers.ts';
+import { designHash } from '../network/sweep.ts';
+import { StageMemo } from './memo.ts';
+import { refuse } from './refusal.ts';
+import { revisionOf } from './revision.ts';
+
+/** The stages, by name (the memo's counters use these). */
+export type StageName = 'complete' | 'sized' | 'board' | 'paths' | 'findings' | 'prepared' | 'plan' | 'netlist';
+
+export interface PrepareOptions {
+  /** Etch bias per copper edge, m (0: none). */
+  bias?: number;
+  /** Isolation width override, m (the CLI's --tool); otherwise the design's process gives it. */
+  tool?: number;
+  /** Add the isolation outlines (asked for by the 'isolation' layer or by a tool override). */
+  isolation?: boolean;
+}
+
+export interface Prepared { geometry: ExportGeometry; warnings: Warning[]; /** Isolation width used, m, if any. */ isolationWidth?: number }
+
+export class DesignPipeline {
+  readonly memo: StageMemo;
+  private lines: { key: string; cache: LineCache } | null = null;
+
+  constructor(opts: { capacity?: number } = {}) { this.memo = new StageMemo(opts.capacity ?? 48); }
+
+  revision(doc: DesignDoc): string { return revisionOf(doc); }
+
+  /** How many times a stage really ran (for tests and the reuse benchmark). */
+  count(stage: StageName): number { return this.memo.count(stage); }
+
+  /** The design checked as a finished network (the cross-check with complete: true); refuses naming the nodes. */
+  complete(doc: DesignDoc): DesignDoc {
+    return this.memo.get('complete', this.revision(doc), () => {
+      const { errors } = crossCheck(doc, { complete: true });
+      if (errors.length) throw refuse(errors[0]!.path || 'design', 'a finished, consistent network', errors.map((e) => e.message), 'connect or delete the nodes named, then export again');
+      return doc;
+    });
+  }
+
+  /** Sized pieces and placed nodes; problems stay data here (the live layout shows them). */
+  sized(doc: DesignDoc): SizedDesign {
+    return this.memo.get('sized', this.revision(doc), () => sizeDesign(doc, { cache: this.lineCache(doc) }));
+  }
+
+  /** The sized design of a finished network with no sizing problems; refuses naming the pieces. */
+  sizedComplete(doc: DesignDoc): SizedDesign {
+    this.complete(doc);
+    const sized = this.sized(doc);
+    if (sized.problems.length) {
+      const first = sized.problems[0]!;
+      throw refuse(first.subjects[0] ?? 'design', 'a design that can be sized as drawn', sized.problems.map((p) => p.message), 'fix the pieces named here first; nothing is built or written until sizing has no problems');
+    }
+    return sized;
+  }
+
+  /** The united board geometry; every sized piece has copper or the board is refused, naming the pieces left out. */
+  board(doc: DesignDoc): BoardGeometry {
+    const sized = this.sizedComplete(doc);
+    return this.memo.get('board', this.revision(doc), () => {
+      const g = buildBoardGeometry(sized);
+      const drawn = new Set(g.pieces.map((p) => p.id));
+      const missing = sized.pieces.filter((p) => !drawn.has(p.id)).map((p) => `piece ${p.id} could not be placed (its ends are not placed apart)`);
+      if (missing.length) throw refuse(sized.pieces.find((p) => !drawn.has(p.id))!.id, 'copper for every sized piece', missing, 'check the pieces named: their nodes must be placed at two different points');
+      return g;
+    });
+  }
+
+  /** The paths and phase report of the sized design (sizing problems give none). */
+  paths(doc: DesignDoc, opts: { sensitivities?: boolean } = {}): PathReport[] {
+    const sens = opts.sensitivities === true;
+    return this.memo.get('paths', `${this.revision(doc)}|${sens}`, () => {
+      const sized = this.sized(doc);
+      return sized.problems.length ? [] : designPaths(sized, { sensitivities: sens });
+    });
+  }
+
+  /** The shop check on the board (what `stripwright build` reports). */
+  findings(doc: DesignDoc): Finding[] {
+    const board = this.board(doc);
+    return this.memo.get('findings', this.revision(doc), () => checkFabrication(this.sized(doc), board, { paths: this.paths(doc) }));
+  }
+
+  /** Refuses when the shop check has errors (exactly when `build` exits 1), naming them. */
+  buildable(doc: DesignDoc): void {
+    const errors = this.findings(doc).filter((f) => f.severity === 'error');
+    if (errors.length) throw refuse(errors[0]!.subjects[0] ?? 'design', 'a board the shop check passes (as `stripwright build` does)', errors.map((f) => `${f.message} (${f.fix})`), 'fix the findings named; `stripwright build` lists them all');
+  }
+
+  /** Board geometry with the etch bias and, when asked, the isolation outlines of the process's cut. */
+  prepared(doc: DesignDoc, opts: PrepareOptions = {}): Prepared {
+    const board = this.board(doc);
+    const bias = opts.bias ?? 0;
+    const width = opts.tool ?? (opts.isolation ? isolationWidthOf(doc) : undefined);
+    return this.memo.get('prepared', `${this.revision(doc)}|${bias}|${width ?? '-'}`, () => {
+      const warnings: Warning[] = [];
+      let g: ExportGeometry = board;
+      if (bias !== 0) { const b = withEtchBias(g, bias); g = b.geometry; warnings.push(...b.warnings); }
+      if (width !== undefined) { const m = withIsolation(g, width); g = m.geometry; warnings.push(...m.warnings); }
+      return { geometry: g, warnings, ...(width !== undefined ? { isolationWidth: width } : {}) };
+    });
+  }
+
+  /** The milling plan with the design's process tool; board problems are the plan's findings. */
+  plan(doc: DesignDoc, options: Partial<MillingOptions> = {}): MillingPlan {
+    const board = this.board(doc);
+    return this.memo.get('plan', `${this.revision(doc)}|${designHash(options)}`, () => planMilling(this.sized(doc), board, options));
+  }
+
+  /** The network of the sized design (for sweeps). */
+  netlist(doc: DesignDoc): SizedNetlist {
+    return this.memo.get('netlist', this.revision(doc), () => {
+      const sized = this.sized(doc);
+      return netlistFromSized(sized, sized.lineOptions ? { line: sized.lineOptions } : {});
+    });
+  }
+
+  /** One line cache per substrate and line-model choice, kept across revisions: re-sizing after an edit reuses it. */
+  private lineCache(doc: DesignDoc): LineCache {
+    const proc = doc.process;
+    const asMade = doc.asMade?.sizing === 'as-made';
+    const key = JSON.stringify([doc.substrate, doc.asMade ?? null, asMade ? proc : null, asMade ? doc.areas : null]);
+    if (!this.lines || this.lines.key !== key) this.lines = { key, cache: new LineCache(doc.substrate, asMadeLineOptions(doc)) };
+    return this.lines.cache;
+  }
+}
+
+/** The isolation width of the design's own process (end mill or V-bit); etching has none, which is refused. */
+export function isolationWidthOf(doc: DesignDoc): number {
+  const cut = processCut(doc.process);
+  if (!cut) {
+    throw new InputError('bad-choice', 'tool', 'a milling process (end mill or V-bit) or a tool width for the isolation outlines',
+      'an etched design', 'set the design\'s process to the tool you mill with, or give the width (CLI: --tool 0.2mm)');
+  }
+  return cut.isolationGap;
+}
