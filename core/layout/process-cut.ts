@@ -32,7 +32,7 @@ export interface ProcessCut {
   label: string;
 }
 
-/** The cut of a milling process (end mill or V-bit); null for etching, which has no tool. */
+/** The cut of a milling process: end mill or V-bit; null for etching, which has no tool. */
 export function processCut(p: FabProcess): ProcessCut | null {
   if (p.kind === 'etch') return null;
   const w = cutWidth(p);

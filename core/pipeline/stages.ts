@@ -156,11 +156,11 @@ export class DesignPipeline {
   }
 }
 
-/** The isolation width of the design's own process (end mill or V-bit); etching has none, which is refused. */
+/** The isolation width of the design's own process: end mill or V-bit; etching has none, which is refused. */
 export function isolationWidthOf(doc: DesignDoc): number {
   const cut = processCut(doc.process);
   if (!cut) {
-    throw new InputError('bad-choice', 'tool', 'a milling process (end mill or V-bit) or a tool width for the isolation outlines',
+    throw new InputError('bad-choice', 'tool', 'an end mill or V-bit as the process, or a tool width for the isolation outlines',
       'an etched design', 'set the design\'s process to the tool you mill with, or give the width (CLI: --tool 0.2mm)');
   }
   return cut.isolationGap;
