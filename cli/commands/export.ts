@@ -127,6 +127,9 @@ export const exportCommand: CliCommand = {
       if (!milling && Object.keys(MILL_FLAGS).some((k) => (values as Record<string, unknown>)[k] !== undefined)) {
         io.err('stripwright export: note: the G-code options only change --format gcode');
       }
+      if ((layers !== undefined || tool !== undefined) && !formats.some((f) => f === 'dxf' || f === 'svg')) {
+        io.err(`stripwright export: note: ${layers !== undefined ? '--layers' : '--tool'} only changes dxf and svg output`);
+      }
       await initPolygons();
       const result = refusing(positionals[0], () => exportDesign(pipeline, parsed.doc, {
         formats, base: exportBase(basename(file, extname(file))), version: VERSION, mirror: values.mirror ?? false, bias,

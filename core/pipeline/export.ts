@@ -43,9 +43,6 @@ export function exportDesign(pipeline: DesignPipeline, doc: DesignDoc, request: 
     mask: () => (mask ??= toMask(pipeline.board(doc), { page: req.maskPage, polarity: req.maskPolarity, mirror: req.mirror, bias: req.bias, title: `${doc.name} (${stamp})` })),
     plan: () => pipeline.plan(doc, req.milling),
   };
-  if ((req.layers !== undefined || req.tool !== undefined) && req.formats.length && !req.formats.some((f) => f === 'dxf' || f === 'svg')) {
-    say('info', `${req.layers !== undefined ? 'the layer choice' : 'the tool width'} only changes dxf and svg output`);
-  }
   const files: ExportFile[] = [];
   for (const f of req.formats) files.push(...FORMAT_INFO[f].write(ctx));
   for (const w of prepared.warnings) say(severityOf(w), w.message);

@@ -132,7 +132,7 @@ function gcodeFiles(c: WriteContext): ExportFile[] {
   for (const f of plan.findings) c.say(f.severity, f.message);
   const worst = plan.milled.pieces.reduce<(typeof plan.milled.pieces)[number] | null>((a, b) => (!a || Math.abs(b.z0Shift) > Math.abs(a.z0Shift) ? b : a), null);
   if (worst) c.say('info', `as milled, the largest Z0 shift is ${signed(worst.z0Shift)} Ω on ${worst.id} (${(worst.topWidth * 1e3).toFixed(3)} mm at the top, ${(worst.footWidth * 1e3).toFixed(3)} mm at the foot)`);
-  c.say('info', `about ${Math.ceil(plan.seconds / 60)} min of machining in ${files.length} file(s), run in tool order. ${MILLING_CAUTIONS.join(' ')}`);
+  c.say('info', `about ${Math.ceil(plan.seconds / 60)} min of machining in ${files.length} file(s), one per tool, run in tool order. ${MILLING_CAUTIONS.join(' ')}`);
   return files;
 }
 
