@@ -26,9 +26,18 @@ export interface ExportResult {
 }
 
 export function exportDesign(pipeline: DesignPipeline, doc: DesignDoc, request: ExportRequest): ExportResult {
+  return writeFiles(pipeline, doc, request, 'as-build');
+}
+
+/**
+ * The files of a request. `gate` 'as-build' (every face) refuses what `build` refuses; 'board-only' (exportGcode, for
+ * tests and benchmarks of synthetic boards with no ports to trace) needs only a board that can be built and leaves
+ * each writer's own refusals (the milling plan's errors).
+ */
+export function writeFiles(pipeline: DesignPipeline, doc: DesignDoc, request: ExportRequest, gate: 'as-build' | 'board-only'): ExportResult {
   const req = resolveExportRequest(request);
   // Files only from a design `build` accepts; the preview alone (no formats) needs only its board.
-  if (req.formats.length) pipeline.buildable(doc); else pipeline.board(doc);
+  if (req.formats.length && gate === 'as-build') pipeline.buildable(doc); else pipeline.board(doc);
   const isolation = req.tool !== undefined || (req.layers?.includes('isolation') ?? false);
   const prepared = pipeline.prepared(doc, { bias: req.bias, isolation, ...(req.tool !== undefined ? { tool: req.tool } : {}) });
   const layers = req.layers ? checkLayers(req.layers, prepared.geometry, 'layers') : undefined;

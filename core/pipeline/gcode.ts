@@ -1,7 +1,9 @@
 /**
  * G-code for a design through the one pipeline: complete → sized → board → milling plan → one `.nc` file per tool.
  * `exportGcode` and `planDesignMilling` are the short calls for callers that want G-code alone (tests, benchmarks);
- * the faces use exportDesign with the 'gcode' format or `DesignPipeline.plan`, which share the same stages.
+ * the faces use exportDesign with the 'gcode' format or `DesignPipeline.plan`, which share the same stages and
+ * writer. exportGcode refuses a board that cannot be built and a plan with errors, but does not trace the ports'
+ * paths as `build` does (synthetic test boards have ports that no path joins).
  * Needs the polygon engine (`await initPolygons()`).
  */
 import type { DesignDoc } from '../design/types.ts';
@@ -10,7 +12,7 @@ import type { SizedDesign } from '../layout/types.ts';
 import type { MillingOptions, MillingPlan } from '../toolpath/index.ts';
 import type { Warning } from '../util/warnings.ts';
 import { DesignPipeline } from './stages.ts';
-import { exportDesign } from './export.ts';
+import { writeFiles } from './export.ts';
 
 export interface DesignMilling { sized: SizedDesign; geometry: BoardGeometry; plan: MillingPlan; warnings: Warning[] }
 
@@ -34,7 +36,7 @@ export function planDesignMilling(doc: DesignDoc, options: Partial<MillingOption
  */
 export function exportGcode(doc: DesignDoc, options: Partial<MillingOptions>, info: { base: string; application?: string; version: string }, pipeline = shared): GcodeExport {
   const m = planDesignMilling(doc, options, pipeline);
-  const r = exportDesign(pipeline, doc, { formats: ['gcode'], base: info.base, version: info.version, milling: options });
+  const r = writeFiles(pipeline, doc, { formats: ['gcode'], base: info.base, version: info.version, milling: options }, 'board-only');
   const files = m.plan.programs.map((p, i) => ({ name: r.files[i]!.name, text: r.files[i]!.text, tool: p.tool.number, label: p.tool.label }));
   return { ...m, files };
 }
