@@ -22,6 +22,7 @@ import { evaluateTargets, targetFrequencies, targetText, type TargetEvaluation }
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
 import { resultJson } from '../json.ts';
+import { degreesOption, quantityOption } from '../numbers.ts';
 
 const usage = `Usage: stripwright build FILE [options]
 
@@ -30,8 +31,8 @@ between its ports (or its phase groups) and checks it against its fabrication pr
 
 Options:
   --json              print one JSON object instead of tables
-  --tolerance DEG     phase tolerance for matched paths, degrees (default: each phase group's own, else 5)
-  --loss-limit DB     loss budget per path, dB (default 1)
+  --tolerance DEG     phase tolerance for matched paths, e.g. 5 or 5deg (default: each phase group's own, else 5°)
+  --loss-limit DB     loss budget per path, e.g. 1 or 1dB (default 1 dB)
   --from PORT --to PORT[,PORT…]
                       report these paths (meant to match in phase) instead of the design's phase groups
   --junctions modelled|ideal
@@ -44,13 +45,6 @@ Exit status: 0 the design can be built as drawn; 1 it cannot (errors listed) or 
 Examples:
   stripwright build assets/examples/wilkinson-2g45.json
   stripwright build feed.json --json --tolerance 2`;
-
-function number(flag: string, v: string | undefined, min: number, max: number): number | undefined {
-  if (v === undefined) return undefined;
-  const x = Number(v);
-  if (!Number.isFinite(x) || x <= min || x > max) throw new UsageError(`--${flag} expects a number above ${min} and up to ${max}, got '${v}'`);
-  return x;
-}
 
 const mm = (m: number, d = 3) => (m * 1e3).toFixed(d);
 
@@ -206,8 +200,8 @@ export const buildCommand: CliCommand = {
       options: { json: { type: 'boolean' }, junctions: { type: 'string' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' } },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to build' : `give one design FILE, got ${positionals.length}`);
-    const tolerance = number('tolerance', values.tolerance, 0, 180);
-    const lossLimit = number('loss-limit', values['loss-limit'], 0, 1000);
+    const tolerance = degreesOption('tolerance', values.tolerance, { min: 0, max: 180, minExclusive: true });
+    const lossLimit = quantityOption('loss-limit', values['loss-limit'], 'db', { min: 0, max: 1000, minExclusive: true });
     const junctions = values.junctions?.toLowerCase();
     if (junctions !== undefined && junctions !== 'modelled' && junctions !== 'ideal') throw new UsageError(`--junctions must be modelled or ideal, not '${values.junctions}'`);
     if ((values.from === undefined) !== (values.to === undefined)) throw new UsageError('give --from and --to together, e.g. --from in --to out1,out2');

@@ -8,11 +8,12 @@ import { parseArgs } from 'node:util';
 import { existsSync } from 'node:fs';
 import { basename, resolve } from 'node:path';
 import {
-  InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
+  InputError, parseDesign, formatQuantity, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
   readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
   phaseBalance, isolation, portIndex, compareResponses, MAX_POINTS,
   type NetworkResponse, type TouchstoneData, type JunctionChoice, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
 } from '../../core/index.ts';
+import { countOption, quantityOption } from '../numbers.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { VERSION } from '../version.ts';
 import { resultJson } from '../json.ts';
@@ -64,13 +65,6 @@ function choice<T extends string>(flag: string, v: string | undefined, allowed: 
   return l as T;
 }
 
-function flagQuantity(flag: string, v: string | undefined, kind: 'frequency'): number | undefined {
-  if (v === undefined) return undefined;
-  try { return parseQuantity(v, kind, `--${flag}`); } catch (e) {
-    if (e instanceof InputError) throw new UsageError(`--${flag}: expected ${e.expected}, got ${e.got}`);
-    throw e;
-  }
-}
 
 interface Loaded { name: string; f0?: number; response: NetworkResponse; input: number; warnings: Warning[]; from: 'design' | 'touchstone' }
 
@@ -84,18 +78,10 @@ export const sweepCommand: CliCommand = {
     const format = choice<TouchstoneFormat>('format', values.format, ['ri', 'ma', 'db']);
     const tsVersion = choice<'1.1' | '2.0'>('touchstone', values.touchstone, ['1.1', '2.0']);
     const unit = choice<FrequencyUnit>('unit', values.unit, ['hz', 'khz', 'mhz', 'ghz']);
-    const from = flagQuantity('from', values.from, 'frequency');
-    const to = flagQuantity('to', values.to, 'frequency');
-    let zref: number | undefined;
-    if (values.zref !== undefined) {
-      zref = Number(values.zref.replace(/\s*(ohm|Ω)s?$/i, ''));
-      if (!(zref > 0) || !Number.isFinite(zref)) throw new UsageError(`--zref must be a resistance above 0 ohm, e.g. 50, not '${values.zref}'`);
-    }
-    let points: number | undefined;
-    if (values.points !== undefined) {
-      points = Number(values.points);
-      if (!Number.isInteger(points) || points < 1 || points > MAX_POINTS) throw new UsageError(`--points must be a whole number from 1 to ${MAX_POINTS}, not '${values.points}'`);
-    }
+    const from = quantityOption('from', values.from, 'frequency');
+    const to = quantityOption('to', values.to, 'frequency');
+    const zref = quantityOption('zref', values.zref, 'impedance', { min: 0, max: 1e6, minExclusive: true });
+    const points = countOption('points', values.points, 1, MAX_POINTS);
     const junctions = choice<JunctionChoice>('junctions', values.junctions, ['modelled', 'ideal']);
     if ((format || unit || tsVersion || zref !== undefined || values.force) && !values.out) throw new UsageError('--format, --unit, --touchstone, --zref and --force apply to the Touchstone file: add --out FILE.sNp');
 

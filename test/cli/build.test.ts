@@ -102,7 +102,7 @@ describe('stripwright build', () => {
     expect(cli(['build', 'a.json', 'b.json']).code).toBe(2);
     const r = cli(['build', join(EX, 'demo.json'), '--tolerance', 'lots']);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/--tolerance expects a number/);
+    expect(r.stderr).toMatch(/--tolerance: expected an angle/);
     expect(cli(['build', join(EX, 'demo.json'), '--frobnicate']).code).toBe(2);
   });
   it('reports every junction per piece (model, in the sweep, validity, residual) and takes --junctions ideal|modelled', () => {

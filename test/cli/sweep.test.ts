@@ -123,7 +123,7 @@ describe('stripwright sweep', () => {
     expect(cli(['sweep']).code).toBe(2);
     const pts = cli(['sweep', WILK, '--points', 'many']);
     expect(pts.code).toBe(2);
-    expect(pts.stderr).toMatch(/--points must be a whole number/);
+    expect(pts.stderr).toMatch(/--points expects a whole number/);
     expect(cli(['sweep', WILK, '--format', 'xy', '--out', 'x.s3p']).stderr).toMatch(/--format must be one of ri, ma, db/);
     expect(cli(['sweep', WILK, '--from', '3 apples']).code).toBe(2);
     expect(cli(['sweep', WILK, '--frobnicate']).code).toBe(2);
