@@ -31,7 +31,7 @@ describe('stripwright sweep', () => {
     expect(r.stdout).toMatch(/201 points, 2\.4 GHz – 2\.5 GHz/);
     expect(r.stdout).toMatch(/Worst over the band/);
     expect(r.stdout).toMatch(/At 2\.45 GHz \(f0\)/);
-    expect(r.stdout).toMatch(/o1\/o2/);
+    expect(r.stdout).toMatch(/output 1\/output 2/); // outputs by their labels
     // What the model leaves out is said, not hidden: the split is Y-shaped, and no published model is at hand for it.
     expect(r.stdout).toMatch(/Notes\n  junction j: arms not in a T .*no published model at hand/);
   });
