@@ -8,6 +8,7 @@ import { resolve } from 'node:path';
 import { buildBlock, serializeDesign, parseQuantity, InputError, type BlockSpec, type FabProcess } from '../../core/index.ts';
 import { writeOutputFile } from '../files.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+import { countOption } from '../numbers.ts';
 import { substrateOf } from './line.ts';
 
 const usage = `Usage: stripwright block coupler --coupling-db DB --f0 FREQ [substrate] [options] --out FILE.json
@@ -86,7 +87,7 @@ export const blockCommand: CliCommand = {
         spec = { kind, ...base, couplingDb: Math.abs(parseQuantity(values['coupling-db'], 'db', 'coupling-db')) };
       } else {
         if (values.order === undefined || values.bw === undefined) throw new UsageError('the band-pass filter needs --order and --bw');
-        const order = Number(values.order);
+        const order = countOption('order', values.order, 1, 99)!;
         spec = { kind, ...base, order, bw: fraction(values.bw), ...(values['ripple-db'] !== undefined ? { rippleDb: Math.abs(parseQuantity(values['ripple-db'], 'db', 'ripple-db')) } : {}) };
       }
       const doc = buildBlock(spec);

@@ -9,6 +9,7 @@ import { resolve } from 'node:path';
 import { InputError } from '../../core/util/errors.ts';
 import type { Warning } from '../../core/util/warnings.ts';
 import { parseDesign } from '../../core/design/parse.ts';
+import { namer } from '../../core/design/names.ts';
 import { initPolygons } from '../../core/geometry/polygons.ts';
 import { sizeDesign } from '../../core/layout/sizing.ts';
 import { designPaths, tracePaths, type PathReport } from '../../core/layout/paths.ts';
@@ -22,6 +23,7 @@ import { evaluateTargets, targetFrequencies, targetText, type TargetEvaluation }
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
 import { resultJson } from '../json.ts';
+import { degreesOption, quantityOption } from '../numbers.ts';
 
 const usage = `Usage: stripwright build FILE [options]
 
@@ -30,10 +32,11 @@ between its ports (or its phase groups) and checks it against its fabrication pr
 
 Options:
   --json              print one JSON object instead of tables
-  --tolerance DEG     phase tolerance for matched paths, degrees (default: each phase group's own, else 5)
-  --loss-limit DB     loss budget per path, dB (default 1)
+  --tolerance DEG     phase tolerance for matched paths, e.g. 5 or 5deg (default: each phase group's own, else 5°)
+  --loss-limit DB     loss budget per path, e.g. 1 or 1dB (default 1 dB)
   --from PORT --to PORT[,PORT…]
-                      report these paths (meant to match in phase) instead of the design's phase groups
+                      report these paths (meant to match in phase) instead of the design's phase groups;
+                      a port is named by its label or its id
   --junctions modelled|ideal
                       size tees and width steps with their published models, or as ideal junctions joined at
                       the centre, for comparison (default: the design's own setting, else modelled)
@@ -44,13 +47,6 @@ Exit status: 0 the design can be built as drawn; 1 it cannot (errors listed) or 
 Examples:
   stripwright build assets/examples/wilkinson-2g45.json
   stripwright build feed.json --json --tolerance 2`;
-
-function number(flag: string, v: string | undefined, min: number, max: number): number | undefined {
-  if (v === undefined) return undefined;
-  const x = Number(v);
-  if (!Number.isFinite(x) || x <= min || x > max) throw new UsageError(`--${flag} expects a number above ${min} and up to ${max}, got '${v}'`);
-  return x;
-}
 
 const mm = (m: number, d = 3) => (m * 1e3).toFixed(d);
 
@@ -118,20 +114,21 @@ function table(rows: string[][]): string[] {
   return rows.map((r) => r.map((c, i) => (i === r.length - 1 ? c : c.padEnd(w[i]!))).join('  ').trimEnd());
 }
 
-function text(rep: BuildReport): string[] {
+/** The report as tables; `name` gives what people call a record (its label, else its id: core's namer). */
+function text(rep: BuildReport, name: (id: string) => string = (id) => id): string[] {
   const out: string[] = [];
   out.push(`${rep.design} — sized at ${(rep.f0_hz / 1e9).toFixed(4)} GHz`, '');
   const rows: string[][] = [['piece', 'kind', 'Z0 Ω', 'W mm', 'L mm', 'deg', 'compensations (mm; * applied)']];
   for (const p of rep.pieces) {
     const comps = p.compensations.filter((c) => !c.junction && (c.amount_m !== 0 || !c.applied))
-      .map((c) => `${c.model}${c.applied ? '*' : ''} ${mm(c.amount_m)}@${c.node}`).join(', ');
+      .map((c) => `${c.model}${c.applied ? '*' : ''} ${mm(c.amount_m)}@${name(c.node)}`).join(', ');
     const part = p.kind === 'lumped' || p.kind === 'sparams';
-    rows.push([p.id, p.kind, p.z0_ohm === undefined || part ? '—' : p.z0_ohm.toFixed(2),
+    rows.push([name(p.id), p.kind, p.z0_ohm === undefined || part ? '—' : p.z0_ohm.toFixed(2),
       p.width_m === undefined ? '—' : p.width_b_m !== undefined ? `${mm(p.width_m)}→${mm(p.width_b_m)}` : mm(p.width_m),
       part ? `${mm(p.span_m)} span` : mm(p.length_m), part ? '—' : p.deg_at_f0.toFixed(1), comps]);
   }
   out.push(...table(rows));
-  out.push(...junctionTable(rep));
+  out.push(...junctionTable(rep, name));
   const corners = rep.nodes.filter((n) => n.bend || n.open_dl_m !== undefined || n.via);
   if (corners.length) {
     out.push('', 'Corners and ends:');
@@ -141,18 +138,18 @@ function text(rep: BuildReport): string[] {
         const b = n.bend;
         const d = b.miter_fraction !== undefined ? `miter ${(b.miter_fraction * 100).toFixed(1)} %, legs ${mm(b.miter_leg_m!)} mm`
           : b.arc_radius_m !== undefined ? `arc R ${mm(b.arc_radius_m)} mm, tangent ${mm(b.arc_tangent_m!)} mm` : 'square corner';
-        cr.push([n.id, `${b.turn_deg.toFixed(1)}° bend`, d]);
+        cr.push([name(n.id), `${b.turn_deg.toFixed(1)}° bend`, d]);
       }
-      if (n.open_dl_m !== undefined) cr.push([n.id, 'open end', `Δl ${mm(n.open_dl_m)} mm, C ${(n.open_c_f! * 1e15).toFixed(1)} fF`]);
-      if (n.via) cr.push([n.id, `${n.via.count} via(s) ⌀${mm(n.via.drill_m)} mm`, `L ${(n.via.l_h * 1e12).toFixed(1)} pH, X ${n.via.x_ohm.toFixed(2)} Ω at f0 ≙ ${mm(n.via.dl_m)} mm of line`]);
+      if (n.open_dl_m !== undefined) cr.push([name(n.id), 'open end', `Δl ${mm(n.open_dl_m)} mm, C ${(n.open_c_f! * 1e15).toFixed(1)} fF`]);
+      if (n.via) cr.push([name(n.id), `${n.via.count} via(s) ⌀${mm(n.via.drill_m)} mm`, `L ${(n.via.l_h * 1e12).toFixed(1)} pH, X ${n.via.x_ohm.toFixed(2)} Ω at f0 ≙ ${mm(n.via.dl_m)} mm of line`]);
     }
     out.push(...table(cr));
   }
   for (const r of rep.paths) {
-    out.push('', `Paths: ${r.name} (from ${r.from}${r.matched ? `, tolerance ±${r.toleranceDeg}°` : ''})`);
+    out.push('', `Paths: ${r.name} (from ${r.fromName}${r.matched ? `, tolerance ±${r.toleranceDeg}°` : ''})`);
     const pr: string[][] = [['to', 'length mm', 'deg @f0', 'Δ deg', 'Δ band', 'delay ps', 'loss dB', 'bends', 'tees', 'S_er', 'S_h', 'S_W', '']];
     for (const e of r.paths) {
-      pr.push([e.to, mm(e.physicalLength, 2), e.degAtF0.toFixed(1), e.phaseDiffDeg.toFixed(1), `${e.phaseDiffBandDeg[0].toFixed(1)}/${e.phaseDiffBandDeg[1].toFixed(1)}`,
+      pr.push([e.toName, mm(e.physicalLength, 2), e.degAtF0.toFixed(1), e.phaseDiffDeg.toFixed(1), `${e.phaseDiffBandDeg[0].toFixed(1)}/${e.phaseDiffBandDeg[1].toFixed(1)}`,
         (e.delay * 1e12).toFixed(1), e.lossDb.toFixed(2), String(e.bends), String(e.junctions),
         e.sensitivity.er.toFixed(3), e.sensitivity.h.toFixed(3), e.sensitivity.W.toFixed(3), !r.matched ? '' : e.withinTolerance ? 'ok' : 'OUT']);
     }
@@ -182,14 +179,14 @@ function text(rep: BuildReport): string[] {
 }
 
 /** Every junction as each piece meets it: model, whether it is in the sweep, validity and what it leaves at f0. */
-function junctionTable(rep: BuildReport): string[] {
+function junctionTable(rep: BuildReport, name: (id: string) => string): string[] {
   const rows: string[][] = [['piece', 'at', 'junction', 'role', 'shift mm', 'in sweep', 'residual at f0', 'validity']];
   for (const p of rep.pieces) {
     for (const c of p.compensations) {
       const j = c.junction;
       if (!j) continue;
       const res = j.residual ? `${j.residual.phaseDeg.toFixed(2)}°, ${j.residual.reflectionDb <= -399 ? '—' : `${j.residual.reflectionDb.toFixed(1)} dB`}` : 'not estimated';
-      rows.push([p.id, c.node, `${j.kind} (${c.source.split(',')[0]})`, j.role, c.model === 'tee-planes' ? mm(-c.amount_m) : '—', j.modelled ? 'yes' : 'no (ideal)', res, `${j.inRange ? '' : 'OUT: '}${j.validity}`]);
+      rows.push([name(p.id), name(c.node), `${j.kind} (${c.source.split(',')[0]})`, j.role, c.model === 'tee-planes' ? mm(-c.amount_m) : '—', j.modelled ? 'yes' : 'no (ideal)', res, `${j.inRange ? '' : 'OUT: '}${j.validity}`]);
     }
   }
   if (rows.length === 1) return [];
@@ -206,8 +203,8 @@ export const buildCommand: CliCommand = {
       options: { json: { type: 'boolean' }, junctions: { type: 'string' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' } },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to build' : `give one design FILE, got ${positionals.length}`);
-    const tolerance = number('tolerance', values.tolerance, 0, 180);
-    const lossLimit = number('loss-limit', values['loss-limit'], 0, 1000);
+    const tolerance = degreesOption('tolerance', values.tolerance, { min: 0, max: 180, minExclusive: true });
+    const lossLimit = quantityOption('loss-limit', values['loss-limit'], 'db', { min: 0, max: 1000, minExclusive: true });
     const junctions = values.junctions?.toLowerCase();
     if (junctions !== undefined && junctions !== 'modelled' && junctions !== 'ideal') throw new UsageError(`--junctions must be modelled or ideal, not '${values.junctions}'`);
     if ((values.from === undefined) !== (values.to === undefined)) throw new UsageError('give --from and --to together, e.g. --from in --to out1,out2');
@@ -237,7 +234,7 @@ export const buildCommand: CliCommand = {
       if (targets) rep.targets = targets;
       if (values.json) io.out(resultJson(rep, 2));
       else {
-        for (const l of text(rep)) io.out(l);
+        for (const l of text(rep, namer(parsed.doc))) io.out(l);
         if (!rep.ok) io.err(`stripwright build: ${name} cannot be built as drawn (see the errors above)`);
       }
       return rep.ok ? 0 : 1;
@@ -258,5 +255,9 @@ function nominalTargets(sized: SizedDesign): TargetEvaluation | null {
   if (!doc.targets?.length) return null;
   const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, 201), doc.targets);
   const ev = evaluateTargets(solveNetwork(netlistFromSized(sized), freqs), doc);
-  return { ...ev, results: ev.results.map((r, i) => ({ ...r, name: r.name === targetText(doc.targets[i]!) ? r.name : `${r.name} (${targetText(doc.targets[i]!)})` })) };
+  const name = namer(doc);
+  return { ...ev, results: ev.results.map((r, i) => {
+    const plain = targetText(doc.targets[i]!), shown = targetText(doc.targets[i]!, name);
+    return { ...r, name: r.name === plain ? shown : `${r.name} (${shown})` };
+  }) };
 }

@@ -13,6 +13,7 @@ import {
   DesignPipeline, exportDesign, exportBase, EXPORT_FORMATS, FORMAT_INFO, type ExportFile,
 } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+import { quantityOption } from '../numbers.ts';
 import { DESIGN_TEXT, OutputError, readInputText, writeOutputFile } from '../files.ts';
 import { explainErrno } from '../../electron/files/atomic-write.ts';
 import { VERSION } from '../version.ts';
@@ -246,7 +247,7 @@ function millingOptions(values: Record<string, string | boolean | undefined>): P
     const v = values[flag];
     if (v === undefined) continue;
     const text = String(v);
-    const num = () => { const n = Number(text); if (text.trim() === '' || !Number.isFinite(n)) throw new UsageError(`--${flag} takes a number, got '${text}'`); return n; };
+    const num = () => quantityOption(flag, text, 'ratio')!;
     switch (kind) {
       case 'flag': o[field] = flag.startsWith('no-') ? !v : v; break;
       case 'text': o[field] = text; break;

@@ -6,6 +6,7 @@
 import { parseArgs } from 'node:util';
 import { solveSection, parseQuantity, InputError, DEFAULT_COPPER_T, type SectionSpec, type SectionMode } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+import { degreesOption } from '../numbers.ts';
 
 const MU0 = 1.25663706212e-6;
 
@@ -67,14 +68,14 @@ export function specFromFlags(v: Values): SectionSpec {
   }
   if (v['trench-depth'] !== undefined) {
     spec.trench = { depth: parseQuantity(v['trench-depth'], 'length', 'trench-depth') };
-    if (v['trench-angle'] !== undefined) spec.trench.angleDeg = parseQuantity(v['trench-angle'], 'ratio', 'trench-angle');
+    if (v['trench-angle'] !== undefined) spec.trench.angleDeg = degreesOption('trench-angle', v['trench-angle'], { min: -360, max: 360 });
   }
   if (v.cover !== undefined) {
     const [er, th] = v.cover.split(',');
     if (er === undefined || th === undefined) throw new InputError('bad-unit', 'cover', 'ER,THICKNESS, e.g. 3.5,25um', JSON.stringify(v.cover));
     spec.cover = { er: parseQuantity(er, 'ratio', 'cover'), thickness: parseQuantity(th, 'length', 'cover') };
   }
-  if (v['etch-angle'] !== undefined) spec.etchAngleDeg = parseQuantity(v['etch-angle'], 'ratio', 'etch-angle');
+  if (v['etch-angle'] !== undefined) spec.etchAngleDeg = degreesOption('etch-angle', v['etch-angle'], { min: -360, max: 360 });
   if (v.lid !== undefined) spec.lid = parseQuantity(v.lid, 'length', 'lid');
   if (v.spacing !== undefined) spec.spacing = parseQuantity(v.spacing, 'length', 'spacing');
   return spec;

@@ -8,11 +8,12 @@ import { parseArgs } from 'node:util';
 import { existsSync } from 'node:fs';
 import { basename, resolve } from 'node:path';
 import {
-  InputError, parseDesign, parseQuantity, formatQuantity, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
+  InputError, parseDesign, formatQuantity, portLabel, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
   readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
   phaseBalance, isolation, portIndex, compareResponses, MAX_POINTS,
   type NetworkResponse, type TouchstoneData, type JunctionChoice, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
 } from '../../core/index.ts';
+import { countOption, quantityOption } from '../numbers.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { VERSION } from '../version.ts';
 import { resultJson } from '../json.ts';
@@ -36,7 +37,8 @@ Output (default: a summary table — worst figures over the band and the values 
   --zref OHMS              reference impedance of the Touchstone file (default: the ports' own, when all agree)
   --touchstone 1.1|2.0     file version (default 1.1; 2.0 keeps different port references, older readers may
                            ignore them)
-  --input PORT             port taken as the input for the figures (default: the layout's anchor port)
+  --input PORT             port taken as the input for the figures, by label, id or number (default: the
+                           layout's anchor port)
   --compare FILE.sNp       sweep at that file's frequencies and show how far the design is from it
                            (largest |ΔS|, Δ dB and Δ phase per S-parameter), e.g. a measured board
   --junctions modelled|ideal
@@ -64,13 +66,6 @@ function choice<T extends string>(flag: string, v: string | undefined, allowed: 
   return l as T;
 }
 
-function flagQuantity(flag: string, v: string | undefined, kind: 'frequency'): number | undefined {
-  if (v === undefined) return undefined;
-  try { return parseQuantity(v, kind, `--${flag}`); } catch (e) {
-    if (e instanceof InputError) throw new UsageError(`--${flag}: expected ${e.expected}, got ${e.got}`);
-    throw e;
-  }
-}
 
 interface Loaded { name: string; f0?: number; response: NetworkResponse; input: number; warnings: Warning[]; from: 'design' | 'touchstone' }
 
@@ -84,18 +79,10 @@ export const sweepCommand: CliCommand = {
     const format = choice<TouchstoneFormat>('format', values.format, ['ri', 'ma', 'db']);
     const tsVersion = choice<'1.1' | '2.0'>('touchstone', values.touchstone, ['1.1', '2.0']);
     const unit = choice<FrequencyUnit>('unit', values.unit, ['hz', 'khz', 'mhz', 'ghz']);
-    const from = flagQuantity('from', values.from, 'frequency');
-    const to = flagQuantity('to', values.to, 'frequency');
-    let zref: number | undefined;
-    if (values.zref !== undefined) {
-      zref = Number(values.zref.replace(/\s*(ohm|Ω)s?$/i, ''));
-      if (!(zref > 0) || !Number.isFinite(zref)) throw new UsageError(`--zref must be a resistance above 0 ohm, e.g. 50, not '${values.zref}'`);
-    }
-    let points: number | undefined;
-    if (values.points !== undefined) {
-      points = Number(values.points);
-      if (!Number.isInteger(points) || points < 1 || points > MAX_POINTS) throw new UsageError(`--points must be a whole number from 1 to ${MAX_POINTS}, not '${values.points}'`);
-    }
+    const from = quantityOption('from', values.from, 'frequency');
+    const to = quantityOption('to', values.to, 'frequency');
+    const zref = quantityOption('zref', values.zref, 'impedance', { min: 0, max: 1e6, minExclusive: true });
+    const points = countOption('points', values.points, 1, MAX_POINTS);
     const junctions = choice<JunctionChoice>('junctions', values.junctions, ['modelled', 'ideal']);
     if ((format || unit || tsVersion || zref !== undefined || values.force) && !values.out) throw new UsageError('--format, --unit, --touchstone, --zref and --force apply to the Touchstone file: add --out FILE.sNp');
 
@@ -258,10 +245,13 @@ const db = (x: number) => (x <= -399 ? '  < -300' : x >= 399 ? '   > 300' : x.to
 
 function table(l: Loaded, input: number): string {
   const r = l.response, F = r.freqs.length, P = r.ports.length;
+  // Ports are shown as people know them (their labels); the summary is keyed by port name (id).
+  const labels = new Map(r.ports.map((p) => [p.name, portLabel(p)]));
+  const L = (name: string) => labels.get(name) ?? name;
   const lines: string[] = [];
   const spacing = F > 2 && Math.abs((r.freqs[2] - r.freqs[1]) - (r.freqs[1] - r.freqs[0])) > 1e-6 * r.freqs[1] ? 'logarithmic' : 'linear';
   lines.push(`${l.from === 'design' ? 'Design' : 'Touchstone file'} "${l.name}": ${F} point${F > 1 ? 's' : ''}, ${fq(r.freqs[0])} – ${fq(r.freqs[F - 1])}${F > 2 ? ` (${spacing})` : ''}`);
-  const portText = r.ports.map((p, i) => `${p.name} (${p.zRef} Ω)${i === input ? ' input' : ''}`);
+  const portText = r.ports.map((p, i) => `${portLabel(p)}${p.label ? ` [${p.name}]` : ''} (${p.zRef} Ω${i === input ? ', the input' : ''})`);
   lines.push(`Ports: ${portText.length > 9 ? `${portText.slice(0, 8).join(', ')}, … and ${portText.length - 8} more` : portText.join(', ')}`);
   lines.push('S-parameters: power waves, real reference per port. Return loss and isolation are positive dB (larger is better).');
   const s = summarize(r, input);
@@ -269,29 +259,29 @@ function table(l: Loaded, input: number): string {
   lines.push('  port        return loss dB   at             VSWR');
   // Many ports: the input and the worst matched others.
   const portRows = s.ports.length > 17 ? [s.ports[input], ...s.ports.filter((_, i) => i !== input).sort((a, b) => a.returnLoss.value - b.returnLoss.value).slice(0, 15)] : s.ports;
-  for (const p of portRows) lines.push(`  ${p.name.padEnd(10)} ${db(p.returnLoss.value)}      ${fq(p.returnLoss.freq).padEnd(13)} ${p.vswr.value >= 1e11 ? '   (≥ |Γ| = 1)' : p.vswr.value.toFixed(3).padStart(8)}`);
+  for (const p of portRows) lines.push(`  ${L(p.name).padEnd(10)} ${db(p.returnLoss.value)}      ${fq(p.returnLoss.freq).padEnd(13)} ${p.vswr.value >= 1e11 ? '   (≥ |Γ| = 1)' : p.vswr.value.toFixed(3).padStart(8)}`);
   if (portRows.length < s.ports.length) lines.push(`  (the input and the ${portRows.length - 1} worst matched of ${s.ports.length - 1} other ports; use --json for all)`);
   if (s.paths.length) {
-    lines.push(`  path from ${r.ports[input].name}   insertion loss dB (best … worst)${F > 2 ? '   group delay ns (min … max)' : ''}`);
+    lines.push(`  path from ${portLabel(r.ports[input])}   insertion loss dB (best … worst)${F > 2 ? '   group delay ns (min … max)' : ''}`);
     for (const p of s.paths.slice(0, 16)) {
       const il = `${db(p.insertionLoss.best.value)} … ${db(p.insertionLoss.worst.value).trim()}`;
-      lines.push(`  → ${p.to.padEnd(10)} ${il.padEnd(18)}${F > 2 ? `      ${(p.groupDelay.min.value * 1e9).toFixed(4)} … ${(p.groupDelay.max.value * 1e9).toFixed(4)}` : ''}`);
+      lines.push(`  → ${L(p.to).padEnd(10)} ${il.padEnd(18)}${F > 2 ? `      ${(p.groupDelay.min.value * 1e9).toFixed(4)} … ${(p.groupDelay.max.value * 1e9).toFixed(4)}` : ''}`);
     }
     if (s.paths.length > 16) lines.push(`  … and ${s.paths.length - 16} more paths (use --json for all)`);
   }
   if (s.pairs.length) {
     const shown = s.pairs.length > 12 ? [...s.pairs].sort((a, b) => Math.abs(b.phaseBalance.value) - Math.abs(a.phaseBalance.value)).slice(0, 12) : s.pairs;
     lines.push('  outputs        isolation dB   amplitude balance dB   phase balance °');
-    for (const p of shown) lines.push(`  ${`${p.a}/${p.b}`.padEnd(14)} ${db(p.isolation.value)}       ${fix(p.amplitudeBalance.value, 3).padStart(8)}            ${fix(p.phaseBalance.value, 2).padStart(8)}`);
+    for (const p of shown) lines.push(`  ${`${L(p.a)}/${L(p.b)}`.padEnd(14)} ${db(p.isolation.value)}       ${fix(p.amplitudeBalance.value, 3).padStart(8)}            ${fix(p.phaseBalance.value, 2).padStart(8)}`);
     if (s.pairs.length > shown.length) lines.push(`  (the ${shown.length} pairs of largest phase imbalance of ${s.pairs.length}; use --json for all)`);
   }
   if (l.f0 !== undefined) {
     const k = r.freqs.reduce((b, f, i) => (Math.abs(f - l.f0!) < Math.abs(r.freqs[b] - l.f0!) ? i : b), 0);
     lines.push('', `At ${fq(r.freqs[k])}${r.freqs[k] !== l.f0 ? ` (nearest point to f0 = ${fq(l.f0)})` : ' (f0)'}`);
-    lines.push(`  port        |S| dB from ${r.ports[input].name.padEnd(8)} phase °    group delay ns`);
+    lines.push(`  port        |S| dB from ${portLabel(r.ports[input]).padEnd(8)} phase °    group delay ns`);
     for (let j = 0; j < Math.min(P, 17); j++) {
       const mag = magnitudeDb(r, j, input)[k], ph = phaseDeg(r, j, input)[k], gd = groupDelay(r, j, input)[k];
-      lines.push(`  ${r.ports[j].name.padEnd(10)} ${db(mag)}   ${(((ph + 180) % 360 + 360) % 360 - 180).toFixed(2).padStart(9)}   ${F > 1 ? (gd * 1e9).toFixed(4).padStart(10) : '         -'}`);
+      lines.push(`  ${portLabel(r.ports[j]).padEnd(10)} ${db(mag)}   ${(((ph + 180) % 360 + 360) % 360 - 180).toFixed(2).padStart(9)}   ${F > 1 ? (gd * 1e9).toFixed(4).padStart(10) : '         -'}`);
     }
     if (P > 17) lines.push(`  … and ${P - 17} more ports (use --json for all)`);
   }
@@ -330,7 +320,7 @@ function comparisonJson(r: NetworkResponse, d: ResponseDifference) {
 }
 
 function comparisonTable(r: NetworkResponse, d: ResponseDifference, file: string): string {
-  const lines = [`Compared with ${file} at its ${d.freqs.length} frequencies (ports in order: ${r.ports.map((p, i) => `${i + 1}=${p.name}`).join(', ')})`];
+  const lines = [`Compared with ${file} at its ${d.freqs.length} frequencies (ports in order: ${r.ports.map((p, i) => `${i + 1}=${portLabel(p)}`).join(', ')})`];
   lines.push('  S      largest |ΔS|  at             Δ dB     Δ phase °   (dB and phase only where both |S| > −30 dB)');
   const shown = d.entries.length > 16 ? [...d.entries].sort((a, b) => b.vector.value - a.vector.value).slice(0, 16) : d.entries;
   for (const e of shown) {

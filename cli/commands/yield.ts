@@ -9,6 +9,7 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { InputError, parseDesign, runYield, MAX_SAMPLES, type YieldResult } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
+import { countOption } from '../numbers.ts';
 
 const USAGE = `Usage: stripwright yield DESIGN [--samples N] [--seed S] [--points N] [--ranking N] [--json]
 
@@ -31,12 +32,7 @@ Examples:
   stripwright yield assets/examples/wilkinson-2g45.json --samples 1000 --seed 7
   stripwright yield feed.json --samples 200 --json`;
 
-function whole(flag: string, v: string | undefined, min: number, max: number, dflt: number): number {
-  if (v === undefined) return dflt;
-  const x = Number(v);
-  if (!Number.isInteger(x) || x < min || x > max) throw new UsageError(`--${flag} expects a whole number from ${min} to ${max}, got '${v}'`);
-  return x;
-}
+const whole = (flag: string, v: string | undefined, min: number, max: number, dflt: number): number => countOption(flag, v, min, max) ?? dflt;
 
 const pct = (p: number) => `${(100 * p).toFixed(1)} %`;
 const num = (x: number, d = 2) => x.toFixed(d);

@@ -13,7 +13,7 @@ export interface DesignIssue {
   found: string;
   /** How to fix it, in words (also the end of `message`). */
   fix?: string;
-  /** The whole sentence to show: `path: expected …, found …; fix`. */
+  /** The whole sentence to show: `path: expected …, found …, fix: …`. */
   message: string;
   /** 1-based position in the text, for syntax problems. */
   line?: number;
@@ -22,7 +22,7 @@ export interface DesignIssue {
 
 export function issue(code: ErrorCode, path: string, expected: string, found: string, extra: Partial<DesignIssue> = {}): DesignIssue {
   const where = extra.line !== undefined ? ` (line ${extra.line}, column ${extra.column ?? 1})` : '';
-  const fix = extra.fix ? `; ${extra.fix}` : '';
+  const fix = extra.fix ? `, fix: ${extra.fix}` : '';
   return { code, path, expected, found, message: `${path}: expected ${expected}, found ${found}${where}${fix}`, ...extra };
 }
 

@@ -1,7 +1,7 @@
 /**
  * Loading a design file from its text, in the project's own order: size, decoding, syntax
  * (with line and column), unsafe keys and nesting, the envelope (format id, version), list sizes, migration,
- * schema, cross-record checks. Each step stops with its own clear problem list; nothing half-loaded is returned.
+ * defaults for sections a hand-written file left out (fill-defaults.ts), schema, cross-record checks. Each step stops with its own clear problem list; nothing half-loaded is returned.
  * Never throws for any text: every failure is `{ ok: false, errors }`.
  */
 import type { Warning } from '../util/warnings.ts';
@@ -13,6 +13,7 @@ import { scanJson } from './json-scan.ts';
 import { DESIGN_VERSION, MIGRATIONS, migrate } from './migrations.ts';
 import { validateDesign, type ValidateOptions } from './validate.ts';
 import { issue, type DesignIssue } from './issues.ts';
+import { fillDefaults } from './fill-defaults.ts';
 
 export type ParseResult =
   | { ok: true; doc: DesignDoc; warnings: Warning[]; migratedFrom?: number; /** `from` of each migration run */ migrations?: number[] }
@@ -32,7 +33,7 @@ export function parseDesign(text: string, opts: ValidateOptions = {}): ParseResu
     return parseInner(text, opts);
   } catch (e) {
     // Defence in depth: a bug in a check must not escape as an exception the face cannot read.
-    return fail(issue('bad-file', 'file', 'a design file the app can read', `an internal error while reading it (${e instanceof Error ? e.message : String(e)}); the file was not changed`));
+    return fail(issue('bad-file', 'file', 'a design file the app can read', `an internal error while reading it (${e instanceof Error ? e.message : String(e)})`, { fix: 'the file was not changed; keep it and report the problem' }));
   }
 }
 
@@ -59,7 +60,7 @@ function parseInner(text: string, opts: ValidateOptions): ParseResult {
   const scan = scanJson(text);
   if (scan) {
     const e = issue('bad-file', 'file', scan.expected, scan.found, { line: scan.line, column: scan.column, fix: 'correct the text there, or open the backup copy' });
-    if (scan.truncated) e.message = `file: ends early at line ${scan.line}, column ${scan.column} (expected ${scan.expected}); it looks cut short — nothing was loaded; open the backup copy or a recovery snapshot`;
+    if (scan.truncated) e.message = `file: expected ${scan.expected}, found the end of the text at line ${scan.line}, column ${scan.column} (it looks cut short; nothing was loaded), fix: open the backup copy or a recovery snapshot`;
     return fail(e);
   }
   const raw: unknown = JSON.parse(text);
@@ -76,9 +77,7 @@ function parseInner(text: string, opts: ValidateOptions): ParseResult {
     return fail(issue('bad-file', 'version', `a whole format number from 1 to ${DESIGN_VERSION}`, ver === undefined ? 'nothing (the field is missing)' : describe(ver), { fix: 'set "version" to the format the file was written in' }));
   }
   if (ver > DESIGN_VERSION) {
-    const e = issue('unsupported-version', 'version', `format ${DESIGN_VERSION} or older`, String(ver));
-    e.message = `made by a newer Stripwright (format ${ver}); this version reads up to ${DESIGN_VERSION} — update the app`;
-    return fail(e);
+    return fail(issue('unsupported-version', 'version', `format ${DESIGN_VERSION} or older (the format this version reads)`, `${ver} (made by a newer Stripwright)`, { fix: 'update the app' }));
   }
   // List sizes, before the schema walks them.
   const counted: [string, number][] = [['nodes', DESIGN_LIMITS.nodes], ['segments', DESIGN_LIMITS.segments], ['areas', DESIGN_LIMITS.areas], ['phaseGroups', DESIGN_LIMITS.phaseGroups]];
@@ -95,7 +94,12 @@ function parseInner(text: string, opts: ValidateOptions): ParseResult {
     const what = MIGRATIONS.filter((x) => applied.includes(x.from)).map((x) => `${x.from}→${x.from + 1}: ${x.summary}`).join('; ');
     warnings.push({ code: 'note', severity: 'info', message: `This file was written in format ${ver} and was upgraded to format ${DESIGN_VERSION} (${what}). Saving writes format ${DESIGN_VERSION}; keep the original if an older copy of the app still needs it.`, source: 'design-migration' });
   }
-  // 8–9. Schema and cross-record checks.
+  // 8. Sections a hand-written file may leave out get their documented defaults; headings with a unit become radians.
+  const filled = fillDefaults(doc);
+  if (filled.errors.length) return fail(...filled.errors);
+  doc = filled.doc;
+  warnings.push(...filled.warnings);
+  // 9–10. Schema and cross-record checks.
   const r = validateDesign(doc, opts);
   if (!r.ok) return r;
   warnings.push(...r.warnings);

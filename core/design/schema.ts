@@ -112,7 +112,7 @@ const common = { id: idSchema, at: vec2Schema, label: v.optional(text(`a label o
 export const nodeSchema = v.variant('kind', [
   v.looseObject({
     ...common, kind: v.literal('port'), zRef: Z0,
-    heading: num('a heading in radians within ±2π (0 = +x, π/2 = +y)', -2 * Math.PI, 2 * Math.PI),
+    heading: num('a heading in radians within ±2π (0 = +x, π/2 = +y), or an angle with its unit such as "90 deg"', -2 * Math.PI, 2 * Math.PI),
     launch: v.optional(v.looseObject({
       padWidth: LEN('a pad width', 0.05), padLength: LEN('a pad length', 0.05),
       pinDrill: v.optional(LEN('a pin drill diameter', 0.01)),

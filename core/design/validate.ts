@@ -48,6 +48,6 @@ export function capIssues(list: DesignIssue[]): DesignIssue[] {
   if (list.length <= DESIGN_LIMITS.issues) return list;
   const more = list.length - DESIGN_LIMITS.issues;
   const kept = list.slice(0, DESIGN_LIMITS.issues);
-  kept.push({ code: 'invalid-design', path: 'file', expected: 'fewer problems', found: `${more} more`, message: `file: ${more} more problems not listed; fix the ones above first` });
+  kept.push({ code: 'invalid-design', path: 'file', expected: 'fewer problems', found: `${more} more`, fix: 'fix the ones above first', message: `file: expected fewer problems, found ${more} more not listed, fix: fix the ones above first` });
   return kept;
 }

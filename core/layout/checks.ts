@@ -28,6 +28,7 @@ import { defaultGroundClearance } from './geometry.ts';
 import { fenceFindings } from './fence-check.ts';
 import { asMadeTemplate } from './as-made.ts';
 import type { SizedDesign, SizedPiece } from './types.ts';
+import { namer } from '../design/names.ts';
 
 export type FindingCode =
   | 'layout' | 'min-width' | 'min-gap' | 'inside-corner' | 'depth-sensitivity' | 'ground-near' | 'off-board' | 'keep-out'
@@ -253,7 +254,7 @@ function distToSegment(p: Vec2, a: Vec2, b: Vec2): number {
 }
 const mmS = (m: number) => (m * 1e3).toFixed(3);
 /** A readable list: the first 12 names, then how many more. */
-const listOf = (names: string[]) => names.slice(0, 12).join(', ') + (names.length > 12 ? ` and ${names.length - 12} more` : '');
+const listNames = (names: string[]) => names.slice(0, 12).join(', ') + (names.length > 12 ? ` and ${names.length - 12} more` : '');
 const at = (p: Vec2) => `(${mmS(p.x)}, ${mmS(p.y)}) mm`;
 
 /**
@@ -262,6 +263,9 @@ const at = (p: Vec2) => `(${mmS(p.x)}, ${mmS(p.y)}) mm`;
 export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, opts: CheckOptions = {}): Finding[] {
   const out: Finding[] = [];
   const doc = sized.doc;
+  // Messages name pieces and ports as the user labelled them; `subjects` keep the ids for selecting them.
+  const name = namer(doc);
+  const listOf = (ids: string[]) => listNames(ids.map(name));
   const proc = doc.process;
   const h = doc.substrate.h;
   const lines = sized.pieces.filter((p) => (p.kind === 'line' || p.kind === 'taper') && Number.isFinite(p.width));
@@ -279,7 +283,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     if (w < minW) {
       out.push({
         severity: proc.kind === 'etch' ? 'error' : 'warning', code: 'min-width', subjects: [p.id],
-        message: `${p.id} is ${mmS(w)} mm wide, narrower than ${proc.kind === 'etch' ? 'the minimum feature' : 'one cut'} of ${procName}`,
+        message: `${name(p.id)} is ${mmS(w)} mm wide, narrower than ${proc.kind === 'etch' ? 'the minimum feature' : 'one cut'} of ${procName}`,
         fix: proc.kind === 'etch' ? 'use a thicker substrate (wider lines for the same Z0) or a finer process' : 'narrow copper lifts easily when milled (common practice): use a thicker substrate, lower Z0, or a finer tool',
         ...(pieceCentre(sized, p) ? { at: pieceCentre(sized, p)! } : {}),
       });
@@ -296,7 +300,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
       const zLo = cache.forWidth(Math.max(1e-6, narrow.width - dW), sized.f0).z0, zHi = cache.forWidth(narrow.width + dW, sized.f0).z0;
       out.push({
         severity: 'info', code: 'depth-sensitivity', subjects: [narrow.id],
-        message: `±${mmS(dDepth)} mm of cutting depth moves every edge by ${mmS(dW / 2)} mm: ${narrow.id} (${mmS(narrow.width)} mm, ${narrow.z0.toFixed(1)} Ω) then ranges ${zHi.toFixed(1)}–${zLo.toFixed(1)} Ω`,
+        message: `±${mmS(dDepth)} mm of cutting depth moves every edge by ${mmS(dW / 2)} mm: ${name(narrow.id)} (${mmS(narrow.width)} mm, ${narrow.z0.toFixed(1)} Ω) then ranges ${zHi.toFixed(1)}–${zLo.toFixed(1)} Ω`,
         fix: 'level the blank (probe or face it) and set the depth carefully; a narrower V angle is less sensitive',
       });
     } catch { /* width outside the model: nothing to add */ }
@@ -320,7 +324,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
         gapPairs.add(pairKey);
         out.push({
           severity: 'error', code: 'min-gap', subjects: [a.id, b.id], at: c,
-          message: `the gap between ${a.id} and ${b.id} near ${at(c)} is narrower than ${procName} can cut (${mmS(cut)} mm); the copper would stay and join them`,
+          message: `the gap between ${name(a.id)} and ${name(b.id)} near ${at(c)} is narrower than ${procName} can cut (${mmS(cut)} mm); the copper would stay and join them`,
           fix: `move them at least ${mmS(cut)} mm apart (better 3·W to limit coupling) or use a finer tool`,
         });
       } else if (proc.kind !== 'etch') {
@@ -331,7 +335,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     }
     if (corners.size) {
       const list = [...corners.entries()];
-      const names = list.slice(0, 12).map(([n]) => n).join(', ') + (list.length > 12 ? ` and ${list.length - 12} more` : '');
+      const names = list.slice(0, 12).map(([n]) => name(n)).join(', ') + (list.length > 12 ? ` and ${list.length - 12} more` : '');
       out.push({
         severity: 'info', code: 'inside-corner', subjects: list.map(([n]) => n), at: list[0]![1].at,
         message: `inside corners at ${names} keep fillets of radius ${mmS(r)} mm that ${procName} cannot cut`,
@@ -402,7 +406,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     if (regionsArea(hit) <= MIN_AREA) continue;
     const who = geometry.pieces.filter((o) => o.regions.length && regionsArea(intersectRegions(o.regions, [k])) > MIN_AREA).map((o) => o.id);
     const area = (doc.areas ?? []).find((a) => a.kind === 'keep-out' && a.polygon.length === k.outer.length);
-    out.push({ severity: 'error', code: 'keep-out', subjects: [...(area ? [area.id] : []), ...who], message: `copper of ${listOf(who)} lies inside keep-out ${area?.id ?? ''}`.trim(), fix: 'route these pieces around the keep-out or shrink it', at: centroid(hit[0]!) });
+    out.push({ severity: 'error', code: 'keep-out', subjects: [...(area ? [area.id] : []), ...who], message: `copper of ${listOf(who)} lies inside keep-out ${area ? name(area.id) : ''}`.trim(), fix: 'route these pieces around the keep-out or shrink it', at: centroid(hit[0]!) });
   }
 
   // ---- overlapping pieces (not sharing a node)
@@ -423,8 +427,8 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
       out.push({
         severity: 'warning', code: 'loss-budget', subjects: [...over.map((e) => e.to), ...worst.pieces],
         message: over.length === 1
-          ? `path ${rep.from} → ${worst.to} loses ${worst.lossDb.toFixed(2)} dB at f0 in its lines, above the ${limit} dB budget`
-          : `${over.length} paths from ${rep.from} (to ${listOf(over.map((e) => e.to))}) lose more than the ${limit} dB budget at f0; the worst, to ${worst.to}, loses ${worst.lossDb.toFixed(2)} dB`,
+          ? `path ${rep.fromName} → ${worst.toName} loses ${worst.lossDb.toFixed(2)} dB at f0 in its lines, above the ${limit} dB budget`
+          : `${over.length} paths from ${rep.fromName} (to ${listNames(over.map((e) => e.toName))}) lose more than the ${limit} dB budget at f0; the worst, to ${worst.toName}, loses ${worst.lossDb.toFixed(2)} dB`,
         fix: lossy ? `a low-loss laminate (tanδ ≈ 0.001–0.004) cuts the dielectric part, which dominates on this board (tanδ ${doc.substrate.tanDelta}); or shorten the paths` : 'shorten the paths or use wider (lower-loss) lines where the impedance allows',
       });
     }
@@ -463,6 +467,7 @@ function centrelineDistance(sized: SizedDesign, p: SizedPiece, q: Vec2): number 
 
 /** Pairs of pieces that do not share a node but whose copper overlaps; bucketed on a grid by bounding box. */
 function overlaps(sized: SizedDesign, geometry: BoardGeometry): Finding[] {
+  const name = namer(sized.doc);
   const owners = outlineOwners(sized, geometry);
   const { items, grid } = owners;
   const out: Finding[] = [];
@@ -473,7 +478,7 @@ function overlaps(sized: SizedDesign, geometry: BoardGeometry): Finding[] {
       if (owners.adjacent(A.id, B.id) || !boxesMeet(A.box, B.box)) continue;
       const hit = intersectRegions(A.regions, B.regions);
       if (regionsArea(hit) > MIN_AREA) {
-        out.push({ severity: 'error', code: 'overlap', subjects: [A.id, B.id], at: centroid(hit[0]!), message: `${A.id} and ${B.id} overlap although they are not connected there`, fix: 'change the lengths or the drawn directions so the pieces do not cross' });
+        out.push({ severity: 'error', code: 'overlap', subjects: [A.id, B.id], at: centroid(hit[0]!), message: `${name(A.id)} and ${name(B.id)} overlap although they are not connected there`, fix: 'change the lengths or the drawn directions so the pieces do not cross' });
       }
     }
   }
@@ -484,9 +489,10 @@ function overlaps(sized: SizedDesign, geometry: BoardGeometry): Finding[] {
 function proximityFindings(sized: SizedDesign, limit: number): Finding[] {
   if (!(limit > 0)) return [];
   const h = sized.doc.substrate.h;
+  const name = namer(sized.doc);
   return proximityHits(sized, limit).map((x) => ({
     severity: x.couplingDb > -20 ? 'warning' as const : 'info' as const, code: 'proximity' as const, subjects: [x.a, x.b], at: x.at,
-    message: `${x.a} and ${x.b} run side by side for ${mmS(x.length)} mm, ${mmS(x.gap)} mm apart (${(x.gap / h).toFixed(2)} h, under the ${mmS(limit)} mm limit): about ${x.couplingDb.toFixed(1)} dB couples from one to the other at f0 (coupled-pair estimate)`,
+    message: `${name(x.a)} and ${name(x.b)} run side by side for ${mmS(x.length)} mm, ${mmS(x.gap)} mm apart (${(x.gap / h).toFixed(2)} h, under the ${mmS(limit)} mm limit): about ${x.couplingDb.toFixed(1)} dB couples from one to the other at f0 (coupled-pair estimate)`,
     fix: `move them further apart (the coupling falls quickly beyond 3h = ${mmS(3 * h)} mm) or shorten the side-by-side stretch, if this coupling matters here`,
   }));
 }

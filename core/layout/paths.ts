@@ -20,11 +20,14 @@ import { InputError, describe } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import { LineCache } from './lineCache.ts';
 import type { SizedDesign, SizedPiece } from './types.ts';
+import { namer, nameOf, nodeByName, portNamesText } from '../design/names.ts';
 
 export const DEFAULT_PHASE_TOLERANCE_DEG = 5;
 
 export interface PathEntry {
   to: string;
+  /** The end port as people know it: its label, else its id (design/names.ts). */
+  toName: string;
   /** Pieces from `from` to `to`, in order. */
   pieces: string[];
   nodes: string[];
@@ -56,6 +59,8 @@ export interface PathEntry {
 
 export interface PathReport {
   from: string;
+  /** The start port as people know it: its label, else its id. */
+  fromName: string;
   group: string | null;
   name: string;
   toleranceDeg: number;
@@ -182,12 +187,20 @@ const piecePhase: PhaseFn = (p, f, cache, k) => {
   return ((2 * Math.PI) / cache.forWidth(p.width * k, f).lambdaG) * L;
 };
 
-export function tracePaths(sized: SizedDesign, from: string, to: string[], opts: PathOptions = {}): PathReport {
+/** Paths from `from` to each of `to`; both name nodes by id or by label (a label shared by two nodes needs the id). */
+export function tracePaths(sized: SizedDesign, fromRef: string, toRefs: string[], opts: PathOptions = {}): PathReport {
   const tol = opts.toleranceDeg ?? DEFAULT_PHASE_TOLERANCE_DEG;
   if (!(tol > 0) || !Number.isFinite(tol)) throw new InputError('out-of-range', 'toleranceDeg', 'a phase tolerance above 0°', describe(tol));
   const nodes = new Map(sized.nodes.map((n) => [n.id, n]));
-  if (!nodes.has(from)) throw new InputError('bad-choice', 'from', `a node id of this design (ports: ${portsOf(sized).join(', ')})`, describe(from));
-  for (const t of to) if (!nodes.has(t)) throw new InputError('bad-choice', 'to', `node ids of this design (ports: ${portsOf(sized).join(', ')})`, describe(t));
+  const known = (ref: string) => { const id = nodeByName(sized.doc, ref) ?? ref; return nodes.has(id) ? id : undefined; };
+  const from = known(fromRef);
+  if (from === undefined) throw new InputError('bad-choice', 'from', `a port of this design (${portNamesText(sized.doc)}; a label or an id)`, describe(fromRef));
+  const to = toRefs.map((t) => {
+    const id = known(t);
+    if (id === undefined) throw new InputError('bad-choice', 'to', `ports of this design (${portNamesText(sized.doc)}; labels or ids)`, describe(t));
+    return id;
+  });
+  const name = namer(sized.doc);
   const sub: SubstrateSpec = sized.doc.substrate;
   // The lines as sized (as made, when the design says so); the εr and h sensitivities below stay those of plain
   // microstrip (the as-made tables are built for the nominal laminate only).
@@ -205,7 +218,7 @@ export function tracePaths(sized: SizedDesign, from: string, to: string[], opts:
   } : null;
   for (const t of to) {
     if (!prev.has(t)) {
-      warnings.push(warn('phase', `no route from ${from} to ${t}: they are not connected`, { subjects: [from, t], severity: 'error' }));
+      warnings.push(warn('phase', `no route from ${name(from)} to ${name(t)}: they are not connected`, { subjects: [from, t], severity: 'error' }));
       continue;
     }
     const pieces: SizedPiece[] = [];
@@ -243,7 +256,7 @@ export function tracePaths(sized: SizedDesign, from: string, to: string[], opts:
       W: (phase(cache, 1 + dx) - phase(cache, 1 - dx)) / (2 * dx) / ((phi0 * Math.PI) / 180),
     } : { er: 0, h: 0, W: 0 };
     entries.push({
-      to: t, pieces: pieces.map((p) => p.id), nodes: route, physicalLength: phys, degAtF0: phi0, band, delay, lossDb: loss,
+      to: t, toName: name(t), pieces: pieces.map((p) => p.id), nodes: route, physicalLength: phys, degAtF0: phi0, band, delay, lossDb: loss,
       bends, junctions, parts, phaseDiffDeg: 0, phaseDiffBandDeg: [0, 0], targetDeg: opts.offsetsDeg?.[to.indexOf(t)] ?? 0, withinTolerance: true, sensitivity,
     });
   }
@@ -262,18 +275,18 @@ export function tracePaths(sized: SizedDesign, from: string, to: string[], opts:
     if (!e.withinTolerance) {
       const wanted = e.targetDeg - ref.targetDeg;
       const aim = wanted === 0 ? '' : ` (wanted ${wanted.toFixed(1)}°)`;
-      warnings.push(warn('phase', `path ${from} → ${e.to} is ${e.phaseDiffDeg.toFixed(1)}° from ${from} → ${ref.to} at f0${aim}, outside ±${tol}°; ${miss > 0 ? 'shorten' : 'lengthen'} it by ${Math.abs(miss).toFixed(1)}° or balance the two`, { subjects: [e.to, ref.to, ...e.pieces], severity: 'warning' }));
+      warnings.push(warn('phase', `path ${name(from)} → ${e.toName} is ${e.phaseDiffDeg.toFixed(1)}° from ${name(from)} → ${ref.toName} at f0${aim}, outside ±${tol}°; ${miss > 0 ? 'shorten' : 'lengthen'} it by ${Math.abs(miss).toFixed(1)}° or balance the two`, { subjects: [e.to, ref.to, ...e.pieces], severity: 'warning' }));
     }
     const physDiff = Math.abs(e.physicalLength - ref.physicalLength);
     const lg = pieceLambda(sized, e.pieces);
     if (lg > 0 && physDiff > lg / 8) {
-      warnings.push(warn('phase', `paths to ${e.to} and ${ref.to} differ by ${(physDiff * 1e3).toFixed(2)} mm (more than λg/8): they match at f0 only, by ${e.phaseDiffBandDeg[0].toFixed(1)}° / ${e.phaseDiffBandDeg[1].toFixed(1)}° at the band edges, and their difference follows εr`, { subjects: [e.to, ref.to], severity: 'info' }));
+      warnings.push(warn('phase', `paths to ${e.toName} and ${ref.toName} differ by ${(physDiff * 1e3).toFixed(2)} mm (more than λg/8): they match at f0 only, by ${e.phaseDiffBandDeg[0].toFixed(1)}° / ${e.phaseDiffBandDeg[1].toFixed(1)}° at the band edges, and their difference follows εr`, { subjects: [e.to, ref.to], severity: 'info' }));
     }
     if (e.bends !== ref.bends) {
-      warnings.push(warn('phase', `paths to ${e.to} and ${ref.to} pass ${e.bends} and ${ref.bends} bends; equal bend counts let the bends' residual errors cancel`, { subjects: [e.to, ref.to], severity: 'info' }));
+      warnings.push(warn('phase', `paths to ${e.toName} and ${ref.toName} pass ${e.bends} and ${ref.bends} bends; equal bend counts let the bends' residual errors cancel`, { subjects: [e.to, ref.to], severity: 'info' }));
     }
   }
-  return { from, group: opts.group ?? null, name: opts.name ?? `${from} → ${to.join(', ')}`, toleranceDeg: tol, matched, paths: entries, spreadDeg: hi - lo, warnings };
+  return { from, fromName: name(from), group: opts.group ?? null, name: opts.name ?? `${name(from)} → ${to.map(name).join(', ')}`, toleranceDeg: tol, matched, paths: entries, spreadDeg: hi - lo, warnings };
 }
 
 function pieceLambda(sized: SizedDesign, ids: string[]): number {
@@ -297,5 +310,5 @@ export function designPaths(sized: SizedDesign, opts: PathOptions = {}): PathRep
   const ports = portsOf(sized);
   const from = sized.anchor && ports.includes(sized.anchor) ? sized.anchor : ports[0];
   if (!from || ports.length < 2) return [];
-  return [tracePaths(sized, from, ports.filter((p) => p !== from), { matched: false, ...opts, name: `${from} → other ports (not a phase group)` })];
+  return [tracePaths(sized, from, ports.filter((p) => p !== from), { matched: false, ...opts, name: `${nameOf(sized.doc, from)} → other ports (not a phase group)` })];
 }

@@ -38,6 +38,7 @@ import { starAdmittance, starBuffers } from './junctionStar.ts';
 import type { SizedDesign, SizedNode, SizedPiece } from '../layout/types.ts';
 import { GROUND, type LineModel, type NetElement, type NetPort, type Netlist } from './netlist.ts';
 import { sparamsAdmittance } from './sparamsPart.ts';
+import { namer } from '../design/names.ts';
 
 export interface FromSizedOptions {
   line?: LineOptions;
@@ -177,8 +178,9 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
   }
 
   const ports: NetPort[] = [];
+  const name = namer(sized.doc);
   for (const n of sized.nodes) {
-    if (n.kind === 'port' && n.port) ports.push({ name: n.id, node: n.id, zRef: n.port.zRef });
+    if (n.kind === 'port' && n.port) ports.push({ name: n.id, node: n.id, zRef: n.port.zRef, ...(name(n.id) !== n.id ? { label: name(n.id) } : {}) });
     if (n.kind === 'open' && n.open && n.open.capacitance > 0) {
       elements.push({ kind: 'capacitor', id: `${n.id}:open-end`, a: onlyTerminal(n, endNode), b: GROUND, value: n.open.capacitance });
     }

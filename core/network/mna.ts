@@ -44,7 +44,7 @@ type Stamped =
 export interface CompiledNetwork {
   /** Node names by index (after merging wires; a merged node keeps the first name). */
   nodeNames: string[];
-  ports: { name: string; node: number; zRef: number }[];
+  ports: { name: string; node: number; zRef: number; label?: string }[];
   stamped: Stamped[];
   symbolic: Symbolic;
   /** For the fast path: slots per stamped element (aa, bb, ab, ba; −1 where a terminal is ground). */
@@ -173,7 +173,7 @@ export function compileNetwork(net: Netlist): CompiledNetwork {
     }
     return Int32Array.of(slotOr(s.a, s.a), slotOr(s.b, s.b), slotOr(s.a, s.b), slotOr(s.b, s.a));
   });
-  const ports = net.ports.map((p) => ({ name: p.name, node: num(p.node), zRef: p.zRef }));
+  const ports = net.ports.map((p) => ({ name: p.name, node: num(p.node), zRef: p.zRef, ...(p.label !== undefined ? { label: p.label } : {}) }));
   return { nodeNames, ports, stamped, symbolic, slots };
 }
 

@@ -39,7 +39,7 @@ export type NetElement =
   | { kind: 'nport'; id: string; nodes: string[]; y: (f: number) => Float64Array };
 
 /** A port: the node it drives and its real reference impedance (Ω, > 0). */
-export interface NetPort { name: string; node: string; zRef: number }
+export interface NetPort { name: string; node: string; zRef: number; /** What people call the port (its label), when it has one. */ label?: string }
 
 export interface Netlist {
   elements: NetElement[];

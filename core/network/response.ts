@@ -5,7 +5,13 @@ import { InputError } from '../util/errors.ts';
 import type { Warning } from '../util/warnings.ts';
 import type { Complex } from './complex.ts';
 
-export interface ResponsePort { name: string; zRef: number }
+/** A port of a response: `name` is its key (a design's node id, a Touchstone file's port number); `label` what people call it. */
+export interface ResponsePort { name: string; zRef: number; label?: string }
+
+/** The port as people know it: its label, else its name. */
+export function portLabel(p: { name: string; label?: string | undefined }): string {
+  return p.label ?? p.name;
+}
 
 export interface NetworkResponse {
   /** Frequencies, Hz, strictly increasing. */
@@ -28,15 +34,17 @@ export function matrixAt(r: NetworkResponse, k: number): Float64Array {
   return r.s.subarray(2 * k * P * P, 2 * (k + 1) * P * P);
 }
 
-/** Port index by name or 1-based number text ('1', 'in'); throws a clear InputError for an unknown port. */
+/** Port index by name, label or 1-based number text ('1', 'p1', 'input'); throws a clear InputError for an unknown port. */
 export function portIndex(r: { ports: ResponsePort[] }, ref: string | number, field = 'port'): number {
   if (typeof ref === 'number') {
     if (Number.isInteger(ref) && ref >= 0 && ref < r.ports.length) return ref;
   } else {
     const byName = r.ports.findIndex((p) => p.name === ref);
     if (byName >= 0) return byName;
+    const byLabel = r.ports.findIndex((p) => p.label !== undefined && p.label === ref.trim());
+    if (byLabel >= 0) return byLabel;
     const num = Number(ref);
     if (Number.isInteger(num) && num >= 1 && num <= r.ports.length) return num - 1;
   }
-  throw new InputError('bad-choice', field, `a port name (${r.ports.map((p) => p.name).join(', ')}) or number 1–${r.ports.length}`, String(ref));
+  throw new InputError('bad-choice', field, `a port label or id (${r.ports.map((p) => (p.label ? `${p.label} = ${p.name}` : p.name)).join(', ')}) or number 1–${r.ports.length}`, String(ref));
 }

@@ -70,7 +70,7 @@ export function solveNetwork(net: Netlist | CompiledNetwork, freqs: ArrayLike<nu
   checkIncreasing(fr);
   const acc = newAccumulator();
   for (let k = 0; k < F; k++) acc.note(fr[k], solveAt(cn, fr[k], s.subarray(2 * P * P * k, 2 * P * P * (k + 1))));
-  return { freqs: fr, ports: cn.ports.map((p) => ({ name: p.name, zRef: p.zRef })), s, warnings: acc.warnings() };
+  return { freqs: fr, ports: cn.ports.map((p) => ({ name: p.name, zRef: p.zRef, ...(p.label !== undefined ? { label: p.label } : {}) })), s, warnings: acc.warnings() };
 }
 
 /** Solves a sweep in chunks, reporting progress and stopping with an AbortError when the signal fires. */
@@ -89,7 +89,7 @@ export async function sweepNetwork(net: Netlist | CompiledNetwork, settings: Swe
     opts.onProgress?.(k1, F);
     if (k1 < F) await pause();
   }
-  return { freqs: fr, ports: cn.ports.map((p) => ({ name: p.name, zRef: p.zRef })), s, warnings: acc.warnings() };
+  return { freqs: fr, ports: cn.ports.map((p) => ({ name: p.name, zRef: p.zRef, ...(p.label !== undefined ? { label: p.label } : {}) })), s, warnings: acc.warnings() };
 }
 
 function abortError(signal: AbortLike): Error {

@@ -133,9 +133,9 @@ export function limitText(t: Target): string {
 }
 
 /** The words of a target, e.g. "return loss at in ≥ 15 dB, 2.4–2.5 GHz". */
-export function targetText(t: Target): string {
+export function targetText(t: Target, name: (id: string) => string = (id) => id): string {
   const what = FIGURE_WORDS[t.figure].name;
-  const who = t.group !== undefined ? ` of ${t.group}` : t.ports?.length === 1 ? ` at ${t.ports[0]}` : t.ports?.length === 2 ? ` ${t.ports[0]}→${t.ports[1]}` : '';
+  const who = t.group !== undefined ? ` of ${name(t.group)}` : t.ports?.length === 1 ? ` at ${name(t.ports[0]!)}` : t.ports?.length === 2 ? ` ${name(t.ports[0]!)}→${name(t.ports[1]!)}` : '';
   const ghz = (f: number) => `${+(f / 1e9).toPrecision(6)}`;
   const band = t.band.start === t.band.stop ? `at ${ghz(t.band.start)} GHz` : `${ghz(t.band.start)}–${ghz(t.band.stop)} GHz`;
   return `${what}${who} ${limitText(t)}, ${band}`;

@@ -60,7 +60,7 @@ export function writeTouchstone(r: NetworkResponse, opts: TouchstoneWriteOptions
   const lines: string[] = [];
   lines.push(`! ${clean(opts.app ?? 'stripwright')} - S-parameters, ${P} port${P > 1 ? 's' : ''}`);
   if (opts.design) lines.push(`! design: ${clean(opts.design)}`);
-  lines.push(`! ports: ${r.ports.map((p, i) => `${i + 1}=${clean(p.name)}`).join(' ')}`);
+  lines.push(`! ports: ${r.ports.map((p, i) => `${i + 1}=${clean(p.label ? `${p.label} (${p.name})` : p.name)}`).join(' ')}`);
   lines.push(fileRefs.every((z) => z === fileRefs[0])
     ? `! power-wave S-parameters, real reference ${num(zRef)} ohm on every port${renorm ? ` (renormalised from ${refs.join(', ')} ohm)` : ''}`
     : `! power-wave S-parameters, real references per port: ${fileRefs.map(num).join(', ')} ohm`);

@@ -62,11 +62,13 @@ const RULES: Record<QuantityKind, KindRule> = {
     bare: null,
     hint: 'a length with a unit: m, mm, µm (or um), mil, in, or oz for copper weight, e.g. 1.6mm',
   },
+  // A bare frequency is refused: "2.45" is far more often meant as GHz than as hertz, and taking it as 2.45 Hz
+  // without a word sized lines for DC. The refusal suggests the likely unit (see bareFrequencyGuess).
   frequency: {
     units: { Hz: 1, kHz: 1e3, MHz: 1e6, GHz: 1e9, THz: 1e12 },
-    bare: 1,
+    bare: null,
     caseless: true, // nobody means millihertz here: "mhz" is MHz
-    hint: 'a frequency: Hz, kHz, MHz or GHz, e.g. 5.8GHz (a bare number is hertz)',
+    hint: 'a frequency with a unit: Hz, kHz, MHz or GHz, e.g. 5.8GHz',
   },
   impedance: {
     units: withPrefixes(OHM, { m: 1e-3, k: 1e3, M: 1e6 }),
@@ -138,7 +140,7 @@ export function parseQuantity(text: string, kind: QuantityKind, field: string = 
   let factor: number | undefined;
   if (unit === '') {
     if (rule.bare === null && num !== 0) {
-      throw new InputError('bad-unit', field, rule.hint, describe(text), 'add a unit');
+      throw new InputError('bad-unit', field, rule.hint, describe(text), kind === 'frequency' ? `add a unit: did you mean ${bareFrequencyGuess(m[1]!, num)}?` : 'add a unit');
     }
     factor = rule.bare ?? 1;
   } else {
@@ -151,6 +153,15 @@ export function parseQuantity(text: string, kind: QuantityKind, field: string = 
   const v = num * factor;
   if (!Number.isFinite(v)) throw new InputError('bad-unit', field, rule.hint, describe(text), 'the value is too large');
   return v;
+}
+
+/**
+ * The unit a bare frequency was most likely meant in, for the refusal's "did you mean …?": microstrip work lies
+ * between about 1 MHz and 300 GHz, so a small number is GHz, a middling one MHz and a large one hertz.
+ */
+function bareFrequencyGuess(written: string, num: number): string {
+  const mag = Math.abs(num);
+  return `${written} ${mag <= 300 ? 'GHz' : mag < 1e6 ? 'MHz' : 'Hz'}`;
 }
 
 /** Display units per kind, largest first: [unit, factor to SI, smallest magnitude shown in it (SI)]. */

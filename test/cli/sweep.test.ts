@@ -31,7 +31,7 @@ describe('stripwright sweep', () => {
     expect(r.stdout).toMatch(/201 points, 2\.4 GHz – 2\.5 GHz/);
     expect(r.stdout).toMatch(/Worst over the band/);
     expect(r.stdout).toMatch(/At 2\.45 GHz \(f0\)/);
-    expect(r.stdout).toMatch(/o1\/o2/);
+    expect(r.stdout).toMatch(/output 1\/output 2/); // outputs by their labels
     // What the model leaves out is said, not hidden: the split is Y-shaped, and no published model is at hand for it.
     expect(r.stdout).toMatch(/Notes\n  junction j: arms not in a T .*no published model at hand/);
   });
@@ -123,7 +123,7 @@ describe('stripwright sweep', () => {
     expect(cli(['sweep']).code).toBe(2);
     const pts = cli(['sweep', WILK, '--points', 'many']);
     expect(pts.code).toBe(2);
-    expect(pts.stderr).toMatch(/--points must be a whole number/);
+    expect(pts.stderr).toMatch(/--points expects a whole number/);
     expect(cli(['sweep', WILK, '--format', 'xy', '--out', 'x.s3p']).stderr).toMatch(/--format must be one of ri, ma, db/);
     expect(cli(['sweep', WILK, '--from', '3 apples']).code).toBe(2);
     expect(cli(['sweep', WILK, '--frobnicate']).code).toBe(2);

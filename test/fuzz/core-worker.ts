@@ -34,7 +34,7 @@ function message(o: FuzzOutcome, text: string): void {
 }
 
 /** A loader refusal names the field, what was expected, what was found and the fix (three known sentences aside). */
-const ISSUE_SHAPE = /^[^\s:][^:]*: (expected .+, found .+; .+|ends early at .+|\d+ more problems not listed; .+)$|^made by a newer Stripwright .+ — update the app$/s;
+const ISSUE_SHAPE = /^[^\s:][^:]*: expected .+, found .+, fix: .+$/s;
 function refusal(o: FuzzOutcome, text: string): void {
   message(o, text);
   if (!ISSUE_SHAPE.test(text)) o.wording.push(`not worded as field, expected, found, fix: ${text.slice(0, 300)}`);

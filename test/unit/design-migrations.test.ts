@@ -77,7 +77,7 @@ describe('v1 → v2', () => {
   });
   it('a v1 file with a bad name is refused after migration, with the path', () => {
     const r = parseDesign('{"format": "stripwright-design", "version": 1, "name": 42}');
-    expect(r.ok ? [] : r.errors.map((e) => e.message)).toEqual(['name: expected a design name of at most 200 characters, found 42; give text in quotes']);
+    expect(r.ok ? [] : r.errors.map((e) => e.message)).toEqual(['name: expected a design name of at most 200 characters, found 42, fix: give text in quotes']);
   });
   it('does not change the input object (migrations are pure)', () => {
     const v1 = { format: 'stripwright-design', version: 1, name: 'pure' };

@@ -9,7 +9,7 @@ describe('parseQuantity', () => {
     ['0.062in', 'length', 0.062 * 25.4e-3], ['35um', 'length', 35e-6], ['35µm', 'length', 35e-6], ['35μm', 'length', 35e-6],
     ['1oz', 'length', OZ_COPPER_M], ['0.5oz', 'length', 17.5e-6], ['2 m', 'length', 2],
     ['5.8GHz', 'frequency', 5.8e9], ['5.8 ghz', 'frequency', 5.8e9], ['433MHz', 'frequency', 433e6], ['433mhz', 'frequency', 433e6],
-    ['2.4e9', 'frequency', 2.4e9], ['10kHz', 'frequency', 1e4],
+    ['2.4e9 Hz', 'frequency', 2.4e9], ['10kHz', 'frequency', 1e4],
     ['50', 'impedance', 50], ['50ohm', 'impedance', 50], ['50 Ω', 'impedance', 50], ['1kΩ', 'resistance', 1000], ['2mΩ', 'resistance', 2e-3],
     ['90', 'angle', Math.PI / 2], ['90deg', 'angle', Math.PI / 2], ['90°', 'angle', Math.PI / 2], ['1rad', 'angle', 1],
     ['3dB', 'db', 3], ['-0.5 dB', 'db', -0.5],

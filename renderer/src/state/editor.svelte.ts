@@ -11,6 +11,7 @@ import type { SubstrateSpec } from '../../../core/substrate/types.ts';
 import { InputError } from '../../../core/util/errors.ts';
 import { couponForDesign, defaultGroundClearance, smdFootprint, type CouponPlan } from '../../../core/layout/index.ts';
 import { sparamsAdmittance } from '../../../core/network/index.ts';
+import { namer } from '../../../core/index.ts';
 import type { Scene } from '../board/scene.ts';
 import type { Preview } from '../board/BoardController.ts';
 import { ToolMachine, type ToolId } from '../board/tools.ts';
@@ -177,7 +178,7 @@ export class EditorState {
 
   /** A phase group from one port to others (±5°, the usual default of the path report). */
   askPhaseMatch(from: string, to: string[]): void {
-    const name = (id: string) => this.doc.nodes.find((n) => n.id === id)?.label ?? id;
+    const name = namer(this.doc);
     this.edit('phaseGroup.set', { from, to, toleranceDeg: 5, name: `${name(from)} → ${to.map(name).join(', ')} in phase` }, 'Ask for phase match');
   }
 
