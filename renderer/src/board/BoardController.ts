@@ -419,7 +419,8 @@ export class BoardController {
     const v = this.view;
     const unit = this.options.unit;
     const { step, minor } = rulerSteps(unit, v.scale, 64);
-    const lenX = Math.max(v.width - RULER_PX, 0), lenY = Math.max(v.height - RULER_PX, 0);
+    // The rulers lie along the board's top and left edges (app.css), each as long as the board is.
+    const lenX = v.width, lenY = v.height;
     this.rulerX.clear().size(lenX, RULER_PX);
     this.rulerY.clear().size(RULER_PX, lenY);
     this.rulerCorner.clear().size(RULER_PX, RULER_PX);
@@ -427,13 +428,13 @@ export class BoardController {
     this.rulerY.rect(RULER_PX, lenY).addClass('ruler-bg');
     this.rulerCorner.rect(RULER_PX, RULER_PX).addClass('ruler-bg');
     this.rulerCorner.plain(unit).attr({ x: RULER_PX / 2, y: RULER_PX / 2 + 4, 'text-anchor': 'middle', 'data-testid': 'ruler-unit' }).addClass('unit-label');
-    const x0 = toBoard(v, { x: RULER_PX, y: 0 }).x, x1 = toBoard(v, { x: v.width, y: 0 }).x;
-    const y0 = toBoard(v, { x: 0, y: v.height }).y, y1 = toBoard(v, { x: 0, y: RULER_PX }).y;
+    const x0 = toBoard(v, { x: 0, y: 0 }).x, x1 = toBoard(v, { x: v.width, y: 0 }).x;
+    const y0 = toBoard(v, { x: 0, y: v.height }).y, y1 = toBoard(v, { x: 0, y: 0 }).y;
     // Tick positions are whole multiples of the minor step (k · minor), so each labelled one is exact in the unit.
     const per = Math.round(step / minor);
     const charPx = 6.2; // 10 px monospace (app.css .tick-label)
     for (let k = Math.ceil(x0 / minor); k * minor <= x1; k++) {
-      const sx = toScreen(v, { x: k * minor, y: 0 }).x - RULER_PX;
+      const sx = toScreen(v, { x: k * minor, y: 0 }).x;
       const major = k % per === 0;
       this.rulerX.line(sx, RULER_PX - (major ? 8 : 4), sx, RULER_PX).addClass('tick');
       if (!major) continue;
@@ -443,7 +444,7 @@ export class BoardController {
       this.rulerX.plain(text).attr({ x: sx, y: 11, 'text-anchor': 'middle', 'data-value': String((k * minor) / UNIT_METRES[unit]) }).addClass('tick-label');
     }
     for (let k = Math.ceil(y0 / minor); k * minor <= y1; k++) {
-      const sy = toScreen(v, { x: 0, y: k * minor }).y - RULER_PX;
+      const sy = toScreen(v, { x: 0, y: k * minor }).y;
       const major = k % per === 0;
       this.rulerY.line(RULER_PX - (major ? 8 : 4), sy, RULER_PX, sy).addClass('tick');
       if (!major) continue;

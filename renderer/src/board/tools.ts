@@ -71,6 +71,8 @@ export class ToolMachine {
   private tool: ToolId = 'pick';
   private g: Gesture = { kind: 'idle' };
   private pressScreen: Vec2 = { x: 0, y: 0 };
+  /** The last press ended a run (a double-click's second press then starts nothing). */
+  private endedByPress = false;
 
   constructor(private readonly host: ToolHost) {}
 
@@ -181,8 +183,11 @@ export class ToolMachine {
     const step = this.host.gridStep();
     if (g.kind === 'routing') return this.routing(g, e, step);
     if (e.type === 'move') { this.host.hover(e.hit?.id ?? null, e.at); this.host.preview({ ghost: snapToGrid(e.at, step) }); return; }
+    if (e.type !== 'down' || e.button !== 0) return;
     // The second press of a double-click that just ended a run must not start another one.
-    if (e.type !== 'down' || e.button !== 0 || e.clicks > 1) return;
+    const afterEnd = this.endedByPress;
+    this.endedByPress = false;
+    if (afterEnd && e.clicks > 1) return;
     const hit = e.hit;
     if (hit?.kind === 'node') {
       const n = this.host.nodeAt(hit.id);
@@ -235,9 +240,9 @@ export class ToolMachine {
       this.host.preview({ run: [...this.startPoints(g), next], ghost: next, measure: this.measure(anchor, next, land) });
     } else if (e.type === 'down' && e.button === 0) {
       const same = Math.hypot(next.x - anchor.x, next.y - anchor.y) < 1e-9;
-      if (same) { this.finish(); return; }
+      if (same) { this.finish(); this.endedByPress = true; return; }
       this.g = { ...g, points: [...g.points, next], ...(land ? { end: land.end } : {}) };
-      if (land) { this.finish(); return; }
+      if (land) { this.finish(); this.endedByPress = true; return; }
       this.host.preview({ run: [...this.startPoints(this.g as typeof g)], ghost: next });
     } else if (e.type === 'dblclick') {
       this.finish();
