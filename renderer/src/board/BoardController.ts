@@ -441,7 +441,7 @@ export class BoardController {
       const text = rulerLabel(k * minor, unit, step);
       const half = (text.length * charPx) / 2;
       if (sx - half < 1 || sx + half > lenX - 1) continue;
-      this.rulerX.plain(text).attr({ x: sx, y: 11, 'text-anchor': 'middle', 'data-value': String((k * minor) / UNIT_METRES[unit]) }).addClass('tick-label');
+      this.rulerX.plain(text).attr({ x: sx, y: 11, 'text-anchor': 'middle', 'data-value': String(Number(((k * minor) / UNIT_METRES[unit]).toPrecision(12))) }).addClass('tick-label');
     }
     for (let k = Math.ceil(y0 / minor); k * minor <= y1; k++) {
       const sy = toScreen(v, { x: 0, y: k * minor }).y;
@@ -452,7 +452,7 @@ export class BoardController {
       const half = (text.length * charPx) / 2;
       if (sy - half < 1 || sy + half > lenY - 1) continue;
       // Written along the ruler (turned a quarter), so long values fit its width.
-      this.rulerY.plain(text).attr({ x: 0, y: 0, 'text-anchor': 'middle', transform: `translate(11 ${sy}) rotate(-90)`, 'data-value': String((k * minor) / UNIT_METRES[unit]) }).addClass('tick-label');
+      this.rulerY.plain(text).attr({ x: 0, y: 0, 'text-anchor': 'middle', transform: `translate(11 ${sy}) rotate(-90)`, 'data-value': String(Number(((k * minor) / UNIT_METRES[unit]).toPrecision(12))) }).addClass('tick-label');
     }
   }
 
