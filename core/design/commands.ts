@@ -20,6 +20,7 @@ import {
 } from './command-args.ts';
 import { pasteClipboard } from './clipboard.ts';
 import { setTargets, setTolerances } from './commands-targets.ts';
+import { gestureCommands } from './gestures.ts';
 
 export interface DesignCommand {
   /** Stable id, e.g. 'node.move'; menus, shortcuts and scripts refer to it. */
@@ -192,26 +193,46 @@ function selection(doc: DesignDoc, ids: string[]) {
   return { nodes, segments, areas, groups };
 }
 
+/** A node left with fewer lines than its kind needs after a delete: a corner with one line becomes an open end, a tee with two a corner. */
+function settleKind(n: DesignNode, degree: number): DesignNode {
+  const keep = { id: n.id, at: n.at, ...(n.label ? { label: n.label } : {}) };
+  if (n.kind === 'vertex' && degree === 1) return buildNode(keep, { kind: 'open' }, 'nodes');
+  if (n.kind === 'junction' && degree === 2) return buildNode(keep, { kind: 'vertex' }, 'nodes');
+  return n;
+}
+
 const selectionDelete: DesignCommand = {
   id: 'selection.delete', label: 'Delete',
   run(doc, a) {
     const sel = selection(doc, argIds(a, 'ids'));
+    // A port whose line stays leaves an open end there, so the run can be routed on or made a port again.
+    const toOpen = new Set<string>();
+    for (const n of doc.nodes) {
+      if (n.kind !== 'port' || !sel.nodes.has(n.id)) continue;
+      const line = doc.segments.find((s) => segmentEnds(s).includes(n.id));
+      if (line && !sel.segments.has(line.id) && line.kind !== 'coupled') { toOpen.add(n.id); sel.nodes.delete(n.id); }
+    }
     const goneSegs = new Set(sel.segments);
     for (const s of doc.segments) if (segmentEnds(s).some((e) => sel.nodes.has(e))) goneSegs.add(s.id);
     const segments = doc.segments.filter((s) => !goneSegs.has(s.id));
     // Bends, tees and stub ends left with no segment at all mean nothing on their own; ports stay.
     const touched = new Set<string>();
     for (const s of doc.segments) if (goneSegs.has(s.id)) for (const e of segmentEnds(s)) touched.add(e);
-    const used = new Set<string>();
-    for (const s of segments) for (const e of segmentEnds(s)) used.add(e);
-    const nodes = doc.nodes.filter((n) => !sel.nodes.has(n.id) && !(touched.has(n.id) && !used.has(n.id) && n.kind !== 'port'));
-    const alive = new Set(nodes.map((n) => n.id));
+    const used = new Map<string, number>();
+    for (const s of segments) for (const e of segmentEnds(s)) used.set(e, (used.get(e) ?? 0) + 1);
+    const nodes = doc.nodes
+      .filter((n) => !sel.nodes.has(n.id) && !(touched.has(n.id) && !used.has(n.id) && n.kind !== 'port'))
+      .map((n) => (toOpen.has(n.id) ? buildNode({ id: n.id, at: n.at, ...(n.label ? { label: n.label } : {}) }, { kind: 'open' }, 'nodes') : touched.has(n.id) ? settleKind(n, used.get(n.id) ?? 0) : n));
+    const ports = new Set(nodes.filter((n) => n.kind === 'port').map((n) => n.id));
     const phaseGroups: PhaseGroup[] = [];
     for (const g of doc.phaseGroups) {
-      if (sel.groups.has(g.id) || !alive.has(g.from)) continue;
-      const to = g.to.filter((id) => alive.has(id));
-      if (to.length === 0) continue;
-      phaseGroups.push(to.length === g.to.length ? g : { ...g, to });
+      if (sel.groups.has(g.id) || !ports.has(g.from)) continue;
+      const keep = g.to.map((id, i) => [id, i] as const).filter(([id]) => ports.has(id));
+      if (keep.length === 0) continue;
+      if (keep.length === g.to.length) { phaseGroups.push(g); continue; }
+      const next: PhaseGroup = { ...g, to: keep.map(([id]) => id) };
+      if (g.offsetsDeg) next.offsetsDeg = keep.map(([, i]) => g.offsetsDeg![i]!);
+      phaseGroups.push(next);
     }
     const areas = doc.areas.filter((r) => !sel.areas.has(r.id));
     return settle(this.id, { ...doc, nodes, segments, areas, phaseGroups });
@@ -388,7 +409,9 @@ const segmentSplit: DesignCommand = {
     const at = argVec(a, 'at');
     const dx = pb.x - pa.x, dy = pb.y - pa.y;
     const t = ((at.x - pa.x) * dx + (at.y - pa.y) * dy) / (dx * dx + dy * dy);
-    if (!(t > 0.01 && t < 0.99)) throw new InputError('out-of-range', 'args.at', 'a point along the segment, away from its ends', `a point ${(t * 100).toFixed(1)} % of the way along`);
+    // Both halves keep at least 10 µm (a part's pads may sit close to a long line's end; nothing shorter can be made).
+    const len = Math.hypot(dx, dy);
+    if (!(t * len >= 1e-5 && (1 - t) * len >= 1e-5)) throw new InputError('out-of-range', 'args.at', 'a point along the segment, away from its ends', `a point ${(t * 100).toFixed(1)} % of the way along`);
     const p = snapVec({ x: pa.x + t * dx, y: pa.y + t * dy });
     const ids = allIds(doc);
     const midId = freshId(ids, 'n');
@@ -444,6 +467,11 @@ const boardSetOutline: DesignCommand = {
   },
 };
 
+/**
+ * Creates or changes a phase group: its input port (`from`), its members (`to`; the first is the reference the
+ * others are compared with), `toleranceDeg`, `name`. Offsets follow their ports when members are reordered, added
+ * (offset 0) or dropped; the input leaves the members when it is chosen as input.
+ */
 const phaseGroupSet: DesignCommand = {
   id: 'phaseGroup.set', label: 'Set phase group',
   run(doc, a) {
@@ -451,11 +479,30 @@ const phaseGroupSet: DesignCommand = {
     const id = a.id === undefined ? freshId(ids, 'pg') : argId(a, 'id');
     const index = doc.phaseGroups.findIndex((g) => g.id === id);
     if (index < 0 && a.id !== undefined && ids.has(id)) throw new InputError('invalid-design', 'args.id', 'the id of a phase group, or an id not used in the design', JSON.stringify(id));
-    const cur = index >= 0 ? doc.phaseGroups[index]! : { id, name: 'Phase group', toleranceDeg: 5 };
-    const next = { ...cur, ...Object.fromEntries(['name', 'from', 'to', 'toleranceDeg'].filter((k) => a[k] !== undefined).map((k) => [k, a[k]])) };
+    const cur: Record<string, unknown> = index >= 0 ? { ...doc.phaseGroups[index]! } : { id, name: 'Phase group', toleranceDeg: 5 };
+    const next = { ...cur, ...Object.fromEntries(['name', 'from', 'to', 'toleranceDeg', 'offsetsDeg'].filter((k) => a[k] !== undefined).map((k) => [k, a[k]])) };
+    if (a.offsetsDeg === null) delete next.offsetsDeg;
+    // The new input is no longer a member.
+    if (a.from !== undefined && Array.isArray(next.to)) next.to = (next.to as unknown[]).filter((t) => t !== a.from);
+    const oldOffsets = cur.offsetsDeg as number[] | undefined;
+    if (oldOffsets && a.offsetsDeg === undefined && Array.isArray(next.to)) {
+      const before = cur.to as string[];
+      next.offsetsDeg = (next.to as unknown[]).map((t) => { const k = before.indexOf(t as string); return k >= 0 ? oldOffsets[k] ?? 0 : 0; });
+    }
     const g = checkWith(phaseGroupSchema, next, 'args') as PhaseGroup;
     const phaseGroups = index >= 0 ? replaceAt(doc.phaseGroups, index, g) : [...doc.phaseGroups, g];
     return settle(this.id, { ...doc, phaseGroups });
+  },
+};
+
+const phaseGroupDelete: DesignCommand = {
+  id: 'phaseGroup.delete', label: 'Delete phase group',
+  run(doc, a) {
+    const id = argId(a, 'id');
+    if (!doc.phaseGroups.some((g) => g.id === id)) throw new InputError('bad-choice', 'args.id', 'the id of a phase group in the design', JSON.stringify(id));
+    // Requirements on that group's phase balance go with it (one undo step brings both back).
+    const targets = doc.targets.filter((t) => (t as { group?: string }).group !== id);
+    return settle(this.id, { ...doc, phaseGroups: doc.phaseGroups.filter((g) => g.id !== id), ...(targets.length !== doc.targets.length ? { targets } : {}) });
   },
 };
 
@@ -463,10 +510,8 @@ const viewSet: DesignCommand = {
   id: 'view.set', label: 'Change view',
   run(doc, a) {
     const next: Record<string, unknown> = { ...(doc.view ?? {}) };
-    if (a.units !== undefined) {
-      if (a.units !== 'mm' && a.units !== 'mil') throw new InputError('bad-choice', 'args.units', 'display units "mm" or "mil"', describe(a.units));
-      next.units = a.units;
-    }
+    // Display units are the app's own view setting (format 7), not part of the design.
+    if (a.units !== undefined) throw new InputError('invalid-design', 'args.units', 'only the snap grid (display units are an app setting, not kept in the design)', describe(a.units));
     if (a.grid !== undefined) next.grid = argNumber(a, 'grid', 'a grid step in metres above 0 and at most 0.1 m', 1e-7, 0.1);
     return { ...doc, view: next as DesignDoc['view'] };
   },
@@ -476,7 +521,7 @@ const viewSet: DesignCommand = {
 export const DESIGN_COMMANDS: ReadonlyMap<string, DesignCommand> = new Map(
   [nodeAdd, nodeMove, nodeSetSpec, segmentAdd, segmentSetSpec, selectionDelete, selectionTranslate, selectionRotate, selectionMirror,
     selectionPaste, setSubstrate, setFrequency, setProcess, setJunctions, setAsMade, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
-    phaseGroupSet, viewSet, setTargets, setTolerances].map((c) => [c.id, c]),
+    phaseGroupSet, phaseGroupDelete, viewSet, setTargets, setTolerances, ...gestureCommands((d, id, args) => runCommand(d, id, args))].map((c) => [c.id, c]),
 );
 
 /** Runs command `id` on `doc`; throws InputError on an unknown id or bad arguments. `doc` is never changed. */

@@ -13,6 +13,7 @@
  *      the centre ('ideal').
  * - 5: `asMade` (how lines are sized for what is made); files written before it keep plain microstrip sizing.
  * - 6: segments may be coupled pairs (kind "coupled", four terminals a, b, c, d).
+ * - 7: display units (mm or mil) are the app's view setting, no longer kept in the design (`view.units` dropped).
  */
 type Json = Record<string, unknown>;
 
@@ -76,6 +77,17 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Purely additive: an older file has no coupled pairs, so only the version moves.
       return { ...doc, version: 6 };
+    },
+  },
+  {
+    from: 6,
+    summary: 'display units (mm or mil) are now a setting of the app, not of the design: view.units was dropped (the snap grid stays)',
+    up(doc) {
+      // Switching units changed the file and the undo list; the unit is how one person looks at the board.
+      const view = doc.view;
+      if (!view || typeof view !== 'object' || Array.isArray(view) || !('units' in view)) return { ...doc, version: 7 };
+      const { units: _units, ...rest } = view as Json;
+      return { ...doc, version: 7, view: rest };
     },
   },
 ];

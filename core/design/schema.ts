@@ -220,8 +220,7 @@ export function designSchema(version: number) {
     tolerances: tolerancesSchema,
     junctions: v.optional(junctionChoiceSchema),
     view: v.optional(v.looseObject({
-      units: v.optional(v.picklist(['mm', 'mil'], 'display units "mm" or "mil"')),
       grid: v.optional(LEN('a grid step', 0.1)),
-    }, 'a view {units, grid}')),
+    }, 'a view {grid}')),
   }, 'a design object');
 }

@@ -123,8 +123,8 @@ export interface DesignDoc {
   tolerances: Tolerance[];
   /** Junction models (format 4); absent counts as 'modelled'. */
   junctions?: JunctionChoice;
-  /** Display preferences; never affect the physics. */
-  view?: { units?: 'mm' | 'mil'; grid?: number };
+  /** Drawing preferences kept with the design (the snap grid); never affect the physics. Display units are the app's (format 7). */
+  view?: { grid?: number };
   /** Fields this version does not know are kept here on load and written back on save. */
   [unknown: string]: unknown;
 }

@@ -424,11 +424,16 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     const over = rep.paths.filter((e) => e.lossDb > limit);
     if (over.length) {
       const worst = over.reduce((a, b) => (b.lossDb > a.lossDb ? b : a));
+      const least = over.reduce((a, b) => (b.lossDb < a.lossDb ? b : a));
+      // Every path over the budget is named and marked alike (its pieces are the finding's subjects).
+      const alike = worst.lossDb - least.lossDb < 0.005;
       out.push({
-        severity: 'warning', code: 'loss-budget', subjects: [...over.map((e) => e.to), ...worst.pieces],
+        severity: 'warning', code: 'loss-budget', subjects: [...new Set([...over.map((e) => e.to), ...over.flatMap((e) => e.pieces)])],
         message: over.length === 1
           ? `path ${rep.fromName} → ${worst.toName} loses ${worst.lossDb.toFixed(2)} dB at f0 in its lines, above the ${limit} dB budget`
-          : `${over.length} paths from ${rep.fromName} (to ${listNames(over.map((e) => e.toName))}) lose more than the ${limit} dB budget at f0; the worst, to ${worst.toName}, loses ${worst.lossDb.toFixed(2)} dB`,
+          : alike
+            ? `${over.length} paths from ${rep.fromName} (to ${listNames(over.map((e) => e.toName))}) each lose ${worst.lossDb.toFixed(2)} dB at f0 in their lines, above the ${limit} dB budget`
+            : `${over.length} paths from ${rep.fromName} (to ${listNames(over.map((e) => e.toName))}) lose ${least.lossDb.toFixed(2)}–${worst.lossDb.toFixed(2)} dB at f0 in their lines, above the ${limit} dB budget (most: ${worst.toName})`,
         fix: lossy ? `a low-loss laminate (tanδ ≈ 0.001–0.004) cuts the dielectric part, which dominates on this board (tanδ ${doc.substrate.tanDelta}); or shorten the paths` : 'shorten the paths or use wider (lower-loss) lines where the impedance allows',
       });
     }

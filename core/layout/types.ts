@@ -86,15 +86,8 @@ export interface TaperSection {
   lossDbPerM: number;
 }
 
-export interface SmdFootprint {
-  size: SmdSize;
-  /** Pad length along the part's axis, m. */
-  padAlong: number;
-  /** Pad width across the axis, m. */
-  padAcross: number;
-  /** Pad centre to pad centre, m. */
-  pitch: number;
-}
+import type { SmdFootprint } from '../design/footprints.ts';
+export type { SmdFootprint };
 
 export interface SizedPiece {
   id: string;

@@ -179,7 +179,7 @@ describe('the piece sheet against an outside oracle', () => {
     ed.edit('design.setFrequency', { f0: 100e6, band: { start: 90e6, stop: 110e6 } });
     ed.edit('node.add', { at: { x: 0, y: 0 }, spec: { kind: 'port' } });
     const port = ed.doc.nodes[0]!.id;
-    ed.edit('editor.route', { from: port, points: [{ x: 0.02, y: 0 }] });
+    ed.edit('run.route', { from: port, points: [{ x: 0.02, y: 0 }] });
     const seg = ed.doc.segments[0]!.id;
     ed.updateSegment(seg, { width: { by: 'width', width: 0.79e-3 } });
     await sized(ed);

@@ -15,7 +15,8 @@ function recorder() {
   const selected = new Set<string>();
   const host: ToolHost = {
     gridStep: () => 1e-3,
-    nodeAt: (id) => (id === 'p1' ? { at: { x: 0, y: 0 }, kind: 'port' } : id === 'v1' ? { at: { x: 0.01, y: 0 }, kind: 'vertex' } : null),
+    nodeAt: (id) => (id === 'p1' ? { at: { x: 0, y: 0 }, kind: 'port', degree: 0 } : id === 'p2' ? { at: { x: 0, y: 0.01 }, kind: 'port', degree: 1 } : id === 'v1' ? { at: { x: 0.01, y: 0 }, kind: 'vertex', degree: 2 } : null),
+    formatLength: (m) => `${(m * 1e3).toFixed(2)} mm`,
     segmentEnds: (id) => (id === 's1' ? { a: { x: 0, y: 0 }, b: { x: 0.02, y: 0 } } : null),
     isSelected: (id) => selected.has(id),
     select: (ids, mode) => { if (mode === 'replace') selected.clear(); ids.forEach((i) => selected.add(i)); calls.push(['select', ids, mode]); },
@@ -24,21 +25,21 @@ function recorder() {
     moveBy: (d) => calls.push(['moveBy', d]),
     endMove: (c) => calls.push(['endMove', c]),
     boxSelect: (b, a) => calls.push(['boxSelect', b, a]),
-    addRun: (from, pts) => calls.push(['addRun', from, pts]),
-    addTee: (seg, at, pts) => calls.push(['addTee', seg, at, pts]),
+    addRun: (from, pts, end) => calls.push(['addRun', from, pts, end]),
+    addTee: (seg, at, pts, end) => calls.push(['addTee', seg, at, pts, end]),
     addStub: (seg, at, side, end) => calls.push(['addStub', seg, at, side, end]),
     insert: (seg, at, kind) => calls.push(['insert', seg, at, kind]),
     addPort: (at) => calls.push(['addPort', at]),
     setOutline: (pts) => calls.push(['setOutline', pts]),
     addArea: (k, pts) => calls.push(['addArea', k, pts]),
-    preview: () => {},
+    preview: (p) => { if (p.measure) calls.push(['measure', p.measure.text]); },
     status: () => {},
   };
   return { host, calls, selected };
 }
 
 const ev = (type: BoardPointer['type'], at: Vec2, o: Partial<BoardPointer> = {}): BoardPointer => ({
-  type, at, screen: { x: at.x * 1e4, y: -at.y * 1e4 }, button: 0, shiftKey: false, altKey: false, ctrlKey: false, hit: null, tolerance: 1e-4, ...o,
+  type, at, screen: { x: at.x * 1e4, y: -at.y * 1e4 }, button: 0, shiftKey: false, altKey: false, ctrlKey: false, hit: null, tolerance: 1e-4, clicks: 1, ...o,
 });
 
 describe('drawing tools', () => {
@@ -75,15 +76,33 @@ describe('drawing tools', () => {
     expect(pts[0]!.y).toBe(0);
   });
 
-  it('a run cannot start in empty space or from a bend', () => {
+  it('a run cannot start in empty space or at a port that has its line; it may start at a corner', () => {
     const { host, calls } = recorder();
     const t = new ToolMachine(host);
     t.setTool('route');
     t.handle(ev('down', { x: 0.005, y: 0.005 }));
-    t.handle(ev('down', { x: 0.01, y: 0 }, { hit: { kind: 'node', id: 'v1' } }));
-    t.finish();
+    t.handle(ev('down', { x: 0, y: 0.01 }, { hit: { kind: 'node', id: 'p2' } }));
     expect(t.busy).toBe(false);
-    expect(calls.filter((c) => c[0] === 'addRun')).toHaveLength(0);
+    t.handle(ev('down', { x: 0.01, y: 0 }, { hit: { kind: 'node', id: 'v1' } }));
+    expect(t.busy).toBe(true);
+    t.handle(ev('down', { x: 0.01, y: 0.01 }));
+    t.finish();
+    expect(calls.filter((c) => c[0] === 'addRun').map((c) => c[1])).toEqual(['v1']);
+  });
+
+  it('shows the live length and angle of the piece being drawn, and a run ending on a line ends there with a tee', () => {
+    const { host, calls } = recorder();
+    const t = new ToolMachine(host);
+    t.setTool('route');
+    t.handle(ev('down', { x: 0, y: 0.01 }, { hit: { kind: 'node', id: 'p1' } }));
+    t.handle(ev('move', { x: 0, y: 0.015 }));
+    // 15 mm straight up from the port at the origin: 90° (0° = +x, counter-clockwise; plane geometry).
+    expect(calls.filter((c) => c[0] === 'measure').at(-1)).toEqual(['measure', '15.00 mm · 90.0°']);
+    t.handle(ev('down', { x: 0.012, y: 0.0003 }, { hit: { kind: 'segment', id: 's1' } }));
+    const run = calls.find((c) => c[0] === 'addRun')!;
+    expect(run[2]).toEqual([{ x: 0.012, y: 0 }]);
+    expect(run[3]).toEqual({ segment: 's1' });
+    expect(t.busy).toBe(false);
   });
 
   it('a press without movement selects; a drag moves the selection as one live step', () => {

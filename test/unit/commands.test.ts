@@ -146,15 +146,22 @@ describe('runs and tees', () => {
 });
 
 describe('selections', () => {
-  it('selection.delete removes nodes with their segments, drops bends left alone, and prunes phase groups', () => {
+  it('selection.delete: a deleted port leaves an open end on its line; ends left alone settle; phase groups are pruned', () => {
     const d = load('demo.json');
     const del = run(d, 'selection.delete', { ids: ['out1'] });
-    expect(del.nodes.some((n) => n.id === 'out1')).toBe(false);
-    expect(del.segments.some((s) => s.id === 'up1')).toBe(false);
+    // The port's line stays and ends open there, so it can be routed on or made a port again.
+    expect(del.nodes.find((n) => n.id === 'out1')).toMatchObject({ kind: 'open', at: d.nodes.find((n) => n.id === 'out1')!.at });
+    expect(del.segments.some((s) => s.id === 'up1')).toBe(true);
     expect(del.phaseGroups[0]!.to).toEqual(['out2', 'out3', 'out4']);
+    // A port with its line both selected goes with the line; the corner left with one line becomes an open end.
+    const both = run(d, 'selection.delete', { ids: ['out1', 'up1'] });
+    expect(both.nodes.some((n) => n.id === 'out1')).toBe(false);
+    expect(both.nodes.find((n) => n.id === 'c1')!.kind).toBe('open');
+    // A tee that loses a line becomes a corner.
+    expect(run(d, 'selection.delete', { ids: ['br1'] }).nodes.find((n) => n.id === 'tl')!.kind).toBe('vertex');
     const segOnly = run(small(), 'selection.delete', { ids: ['s2'] });
-    // n2 (an open end) had only s2: it goes; n1 (the bend) keeps s1 and stays, unfinished.
-    expect(segOnly.nodes.map((n) => n.id)).toEqual(['p', 'n1']);
+    // n2 (an open end) had only s2: it goes; n1 (the bend) keeps s1 and becomes an open end.
+    expect(segOnly.nodes.map((n) => [n.id, n.kind])).toEqual([['p', 'port'], ['n1', 'open']]);
     expect(refusal(() => runCommand(d, 'selection.delete', { ids: ['nope'] })).message).toBe('args.ids[0]: expected the id of a record in the design, got "nope"');
     expect(refusal(() => runCommand(d, 'selection.delete', { ids: [] })).message).toBe('args.ids: expected a non-empty list of record ids, got a list of 0');
   });
@@ -220,8 +227,9 @@ describe('design settings, board, areas, phase groups', () => {
     const i = run(d, 'design.setInfo', { name: 'Renamed', notes: 'n' });
     expect([i.name, i.notes]).toEqual(['Renamed', 'n']);
     expect('notes' in run(i, 'design.setInfo', { notes: null })).toBe(false);
-    expect(run(d, 'view.set', { units: 'mil', grid: 0.000254 }).view).toEqual({ units: 'mil', grid: 0.000254 });
-    expect(refusal(() => runCommand(d, 'view.set', { units: 'in' })).field).toBe('args.units');
+    expect(run(d, 'view.set', { grid: 0.000254 }).view).toEqual({ grid: 0.000254 });
+    // Display units are the app's view setting (format 7): the design refuses them.
+    expect(refusal(() => runCommand(d, 'view.set', { units: 'mil' })).field).toBe('args.units');
   });
   it('board.setOutline and area.add / area.set check the polygon', () => {
     const sq = [{ x: 0, y: 0 }, { x: 0.02, y: 0 }, { x: 0.02, y: 0.02 }, { x: 0, y: 0.02 }];

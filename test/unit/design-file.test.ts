@@ -140,11 +140,11 @@ describe('bad-input catalogue', () => {
     expect(v(', "version": "1"')).toBe(expected('"1"'));
   });
   it('a file from a newer app is refused, naming both versions', () => {
-    const r = parseDesign(`{"format": "stripwright-design", "version": 7, "name": "future"}`);
+    const r = parseDesign(`{"format": "stripwright-design", "version": 99, "name": "future"}`);
     expect(r.ok).toBe(false);
     if (!r.ok) {
       expect(r.errors[0]!.code).toBe('unsupported-version');
-      expect(r.errors[0]!.message).toBe(`version: expected format ${DESIGN_VERSION} or older (the format this version reads), found 7 (made by a newer Stripwright), fix: update the app`);
+      expect(r.errors[0]!.message).toBe(`version: expected format ${DESIGN_VERSION} or older (the format this version reads), found 99 (made by a newer Stripwright), fix: update the app`);
     }
     expect(firstError(withDoc((d) => { d.version = DESIGN_VERSION + 1; }))).toBe(`version: expected format ${DESIGN_VERSION} or older (the format this version reads), found ${DESIGN_VERSION + 1} (made by a newer Stripwright), fix: update the app`);
   });

@@ -31,6 +31,14 @@ describe('migration list', () => {
   });
 });
 
+/** A file as it reads after format 7, which moved display units out of the design (the only field it drops). */
+function withoutUnits(doc: Record<string, unknown>): Record<string, unknown> {
+  const view = doc.view as Record<string, unknown> | undefined;
+  if (!view || !('units' in view)) return doc;
+  const { units: _u, ...rest } = view;
+  return { ...doc, view: rest };
+}
+
 describe('fixtures of older versions', () => {
   it('there is at least one fixture per older version', () => {
     for (let v = 1; v < DESIGN_VERSION; v++) expect(fixtures.some((f) => f.version === v), `v${v}`).toBe(true);
@@ -95,7 +103,7 @@ describe('v2 → v3', () => {
     expect(r.migrations?.[0]).toBe(2);
     expect(r.doc.targets).toEqual([]);
     expect(r.doc.tolerances).toEqual([]);
-    const { version: _v, ...before } = JSON.parse(text) as Record<string, unknown>;
+    const { version: _v, ...before } = withoutUnits(JSON.parse(text) as Record<string, unknown>);
     const { version: _w, targets: _t, tolerances: _x, junctions: _j, asMade: _m, ...after } = r.doc;
     expect(after).toEqual(before);
   });
@@ -110,7 +118,7 @@ describe('v3 → v4 (junction models)', () => {
     expect(r.migrations).toContain(3);
     expect(r.doc.junctions).toBe('modelled');
     const { version: _v, junctions: _j, targets: _t, tolerances: _x, asMade: _m, ...rest } = r.doc;
-    const { version: _w, ...before } = JSON.parse(text) as Record<string, unknown>;
+    const { version: _w, ...before } = withoutUnits(JSON.parse(text) as Record<string, unknown>);
     expect(rest).toEqual(before);
     expect(r.warnings[0]!.message).toContain('3→4: junctions');
     // What the migration's note promises: arms grow by their tee plane shifts; "ideal" sizes as before.
@@ -151,7 +159,20 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([5]);
-    expect({ ...r.doc, version: 5 }).toEqual(JSON.parse(text));
+    expect(r.migrations).toEqual([5, 6]);
+    expect({ ...r.doc, version: 5 }).toEqual(withoutUnits(JSON.parse(text) as Record<string, unknown>));
+  });
+});
+
+describe('v6 → v7', () => {
+  it('drops the display units from the file (an app setting now) and keeps the snap grid and everything else', () => {
+    const text = readFileSync(join(FIX, 'v6', 'open-stub-with-units.json'), 'utf8');
+    const raw = JSON.parse(text) as { view: { units?: string; grid: number }; nodes: unknown[] };
+    expect(raw.view.units).toBe('mm');
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migratedFrom).toBe(6);
+    expect(r.doc.view).toEqual({ grid: raw.view.grid });
+    expect(r.doc.nodes).toEqual(raw.nodes);
   });
 });

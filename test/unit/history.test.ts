@@ -41,7 +41,12 @@ function everyCommand(d: DesignDoc): [string, Record<string, unknown>][] {
     ['area.set', { id: 'gnd', clearance: 3e-3 }],
     ['board.setOutline', { outline: null }],
     ['phaseGroup.set', { id: 'outputs', toleranceDeg: 3 }],
-    ['view.set', { units: 'mil' }],
+    ['view.set', { grid: 2.54e-4 }],
+    ['phaseGroup.delete', { id: 'outputs' }],
+    ['run.route', { from: 'c1', points: [{ x: -0.07, y: 0.0305 }, { x: -0.07, y: 0.02 }] }],
+    ['run.tee', { segment: 'feed', at: { x: 0, y: 0.007 }, points: [{ x: 0.01, y: 0.007 }] }],
+    ['run.stub', { segment: 'feed', at: { x: 0, y: 0.007 }, side: 1, end: 'short' }],
+    ['run.insert', { segment: 'feed', at: { x: 0, y: 0.007 }, kind: 'part' }],
     ['design.setTargets', { targets: [{ id: 'match', figure: 'return-loss', ports: ['in'], band: { start: 5.7e9, stop: 5.9e9 }, limit: { min: 12 } }] }],
     ['design.setTolerances', { tolerances: [{ quantity: 'er', distribution: 'normal', spread: 0.05, scope: 'board' }] }],
   ];
@@ -122,7 +127,7 @@ describe('History', () => {
     const h = new History(newDesign());
     const seen: number[] = [];
     const stop = h.subscribe((_d, rev) => seen.push(rev));
-    h.apply('view.set', { units: 'mm' }); h.undo(); h.redo();
+    h.apply('view.set', { grid: 1e-4 }); h.undo(); h.redo();
     stop();
     h.undo();
     expect(seen).toEqual([1, 2, 3]);

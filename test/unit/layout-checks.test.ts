@@ -138,4 +138,12 @@ describe('loss budget', () => {
     expect(f.some((x) => x.code === 'lossy-laminate')).toBe(true);
     expect(run(d, { lossLimitDb: 100 }).some((x) => x.code === 'loss-budget')).toBe(false);
   });
+  it('paths that lose alike are named and marked alike: the demo\'s four symmetric paths, each piece of each path', () => {
+    const r = parseDesign(readFileSync(join(import.meta.dirname, '..', '..', 'assets', 'examples', 'demo.json'), 'utf8'));
+    if (!r.ok) throw new Error('bad example');
+    const loss = run(r.doc, { lossLimitDb: 0.1 }).find((x) => x.code === 'loss-budget')!;
+    // The demo is drawn symmetric about x = 0 (its notes), so the four paths lose the same.
+    expect(loss.message).toMatch(/^4 paths from in \(to out1, out2, out3, out4\) each lose [\d.]+ dB/);
+    for (const id of ['up1', 'up2', 'up3', 'up4', 'br1', 'br2', 'br3', 'br4', 'feed']) expect(loss.subjects, id).toContain(id);
+  });
 });

@@ -83,7 +83,7 @@ describe('responseCacheKey', () => {
     const doc = newDesign({ name: 'a' });
     const s = { start: 1e9, stop: 2e9, points: 11 };
     const k = responseCacheKey(doc, s);
-    expect(responseCacheKey({ ...doc, name: 'b', notes: 'x', view: { units: 'mil' } }, s)).toBe(k);
+    expect(responseCacheKey({ ...doc, name: 'b', notes: 'x', view: { grid: 2.54e-4 } }, s)).toBe(k);
     expect(responseCacheKey({ ...doc, substrate: { ...doc.substrate, er: doc.substrate.er + 0.01 } }, s)).not.toBe(k);
     expect(responseCacheKey(doc, { ...s, points: 12 })).not.toBe(k);
     expect(responseCacheKey(doc, s, { line: { dispersion: 'hammerstad-jensen' } })).not.toBe(k);

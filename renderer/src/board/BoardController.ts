@@ -9,7 +9,7 @@ import type { Box, Region, Vec2 } from '../../../core/geometry/types.ts';
 import type { Marks, Scene, ScenePiece } from './scene.ts';
 import { EMPTY_SCENE } from './scene.ts';
 import { type View, fitBox, panBy, toBoard, toScreen, zoomAt } from './viewport.ts';
-import { gridLines, rulerLabel, type LengthUnit } from './grid.ts';
+import { gridLines, rulerLabel, rulerSteps, UNIT_METRES, type LengthUnit } from './grid.ts';
 import { hitTest, type Hit } from './hit.ts';
 import { regionsPath } from './paths.ts';
 
@@ -26,6 +26,8 @@ export interface BoardPointer {
   hit: Hit;
   /** Pick radius in metres at the current zoom. */
   tolerance: number;
+  /** Press count of this click (2 for the second press of a double-click). */
+  clicks: number;
 }
 
 export interface BoardCallbacks {
@@ -35,7 +37,7 @@ export interface BoardCallbacks {
 
 export interface BoardOptions { unit: LengthUnit; snapStep: number }
 
-export interface Preview { run?: Vec2[]; box?: Box; ghost?: Vec2 | null }
+export interface Preview { run?: Vec2[]; box?: Box; ghost?: Vec2 | null; /** Live length and angle of the piece being drawn, shown beside its end. */ measure?: { at: Vec2; text: string } }
 
 const PICK_PX = 6;
 const RULER_PX = 22;
@@ -58,11 +60,14 @@ export class BoardController {
   private readonly lineLayer: G;
   private readonly nodeLayer: G;
   private readonly drillLayer: G;
+  private readonly partLayer: G;
+  private partKey = '';
   private readonly overlay: G;
   private readonly labelLayer: G;
   private labelKey = '';
   private readonly rulerX: Svg;
   private readonly rulerY: Svg;
+  private readonly rulerCorner: Svg;
   private view: View;
   private scene: Scene = EMPTY_SCENE;
   private marks: Marks = { selected: new Set(), flagged: new Set(), hovered: null };
@@ -90,11 +95,13 @@ export class BoardController {
     this.milledLayer = this.world.group().addClass('milled');
     this.lineLayer = this.world.group().addClass('centrelines');
     this.drillLayer = this.world.group().addClass('drills');
+    this.partLayer = this.world.group().addClass('parts');
     this.nodeLayer = this.world.group().addClass('nodes');
     this.labelLayer = this.root.group().addClass('labels');
     this.overlay = this.root.group().addClass('overlay');
     this.rulerX = SVG().addTo(host).addClass('ruler ruler-x');
     this.rulerY = SVG().addTo(host).addClass('ruler ruler-y');
+    this.rulerCorner = SVG().addTo(host).addClass('ruler ruler-corner');
 
     const el = this.root.node as unknown as SVGSVGElement;
     const on = <K extends keyof SVGSVGElementEventMap>(type: K, fn: (e: SVGSVGElementEventMap[K]) => void, opts?: AddEventListenerOptions) => {
@@ -108,6 +115,8 @@ export class BoardController {
     on('dblclick', (e) => this.pointer('dblclick', e));
     on('wheel', (e) => this.wheel(e), { passive: false });
     on('contextmenu', (e) => e.preventDefault());
+    // A double-click that ends a run must not select text (the second press's default action selects a word).
+    on('mousedown', (e) => { if (e.detail > 1) e.preventDefault(); });
     const key = (e: KeyboardEvent) => { if (e.code === 'Space' && e.target === el) { this.spaceDown = e.type === 'keydown'; if (this.spaceDown) e.preventDefault(); } };
     el.addEventListener('keydown', key); el.addEventListener('keyup', key);
     this.cleanup.push(() => { el.removeEventListener('keydown', key); el.removeEventListener('keyup', key); });
@@ -163,6 +172,7 @@ export class BoardController {
     this.scene = scene;
     this.drawPieces();
     this.drawLines();
+    this.drawParts();
     this.drawNodes();
     this.drawOutline();
     this.drawLabels();
@@ -174,6 +184,7 @@ export class BoardController {
       el.attr('class', this.pieceClass(id));
     }
     this.drawLines();
+    this.drawParts();
     this.drawNodes();
     this.drawAreas();
   }
@@ -192,6 +203,12 @@ export class BoardController {
       const s = toScreen(this.view, p.ghost);
       this.overlay.circle(9).center(s.x, s.y).addClass('ghost');
     }
+    if (p.measure) {
+      const s = toScreen(this.view, p.measure.at);
+      const x = Math.min(Math.max(s.x + 12, 4), this.view.width - 160);
+      const y = Math.min(Math.max(s.y - 12, 14), this.view.height - 6);
+      this.overlay.plain(p.measure.text).attr({ x, y, 'data-testid': 'route-measure' }).addClass('measure');
+    }
   }
 
   destroy(): void {
@@ -200,6 +217,7 @@ export class BoardController {
     this.root.remove();
     this.rulerX.remove();
     this.rulerY.remove();
+    this.rulerCorner.remove();
     this.host.classList.remove('board-host');
   }
 
@@ -256,6 +274,23 @@ export class BoardController {
       this.keyed(this.lineEls, s.id, `${c}|${points.join(' ')}`, () => this.lineLayer.polyline(points).attr({ class: c, 'data-seg': s.id }), seen);
     }
     for (const [id, { el }] of this.lineEls) if (!seen.has(id)) { el.remove(); this.lineEls.delete(id); }
+  }
+
+  /** Lumped parts: a body between the pads, turned along the line (world space, mm). */
+  private drawParts(): void {
+    const parts = this.scene.segments.filter((s) => s.part);
+    const key = parts.map((s) => `${s.id}:${s.a.x},${s.a.y},${s.b.x},${s.b.y}:${s.part!.size}:${this.marks.selected.has(s.id) ? 1 : 0}`).join(';');
+    if (key === this.partKey) return;
+    this.partKey = key;
+    this.partLayer.clear();
+    for (const s of parts) {
+      const p = s.part!;
+      const mid = { x: mm((s.a.x + s.b.x) / 2), y: mm((s.a.y + s.b.y) / 2) };
+      const ang = (Math.atan2(s.b.y - s.a.y, s.b.x - s.a.x) * 180) / Math.PI;
+      const L = mm(p.body.along), W = mm(p.body.across);
+      this.partLayer.rect(L, W).move(mid.x - L / 2, mid.y - W / 2)
+        .attr({ transform: `rotate(${ang} ${mid.x} ${mid.y})`, 'data-part': s.id, class: this.marks.selected.has(s.id) ? 'part-body selected' : 'part-body' });
+    }
   }
 
   private drawNodes(): void {
@@ -337,7 +372,9 @@ export class BoardController {
   private drawLabels(): void {
     const v = this.view;
     const ports = this.scene.nodes.filter((n) => n.kind === 'port');
-    const key = `${v.cx},${v.cy},${v.scale},${v.width},${v.height}|` + ports.map((n) => `${n.id}:${n.label ?? ''}:${n.at.x},${n.at.y}`).join(';');
+    const parts = this.scene.segments.filter((s) => s.part);
+    const key = `${v.cx},${v.cy},${v.scale},${v.width},${v.height}|` + ports.map((n) => `${n.id}:${n.label ?? ''}:${n.at.x},${n.at.y}`).join(';')
+      + '|' + parts.map((s) => `${s.id}:${s.part!.value}:${s.a.x},${s.a.y},${s.b.x},${s.b.y}`).join(';');
     if (key === this.labelKey) return;
     this.labelKey = key;
     this.labelLayer.clear();
@@ -345,6 +382,15 @@ export class BoardController {
       const sp = toScreen(v, n.at);
       if (sp.x < -50 || sp.y < -20 || sp.x > v.width + 50 || sp.y > v.height + 20) continue;
       this.labelLayer.plain(n.label ?? n.id).attr({ x: sp.x + 9, y: sp.y - 8, 'data-label': n.id }).addClass('port-label');
+    }
+    // Each part's value beside its body, offset across the line so it never covers the copper.
+    for (const s of parts) {
+      const a = toScreen(v, s.a), b = toScreen(v, s.b);
+      const mx = (a.x + b.x) / 2, my = (a.y + b.y) / 2;
+      const len = Math.hypot(b.x - a.x, b.y - a.y) || 1;
+      const nx = -(b.y - a.y) / len, ny = (b.x - a.x) / len;
+      const off = 10 + (mm(s.part!.body.across) * v.scale) / 2000;
+      this.labelLayer.plain(`${s.part!.value}`).attr({ x: mx + nx * off, y: my + ny * off + 4, 'text-anchor': Math.abs(nx) > 0.5 ? (nx > 0 ? 'start' : 'end') : 'middle', 'data-part-value': s.id }).addClass('part-value');
     }
   }
 
@@ -361,31 +407,53 @@ export class BoardController {
       const sy = toScreen(v, { x: 0, y }).y;
       this.gridLayer.line(0, sy, v.width, sy).addClass(Math.abs(Math.round(y / major) * major - y) < g.step * 1e-6 ? 'major' : 'minor');
     }
-    this.drawRulers(g.step);
+    this.drawRulers();
   }
 
-  private drawRulers(gridStep: number): void {
+  /**
+   * Rulers along the top and left: labelled ticks on a 1-2-5 step of the display unit (so in mil they fall on whole
+   * mil values, not on the millimetre grid), minor ticks between, and the unit in the corner where both rulers meet.
+   * A label that would not fit whole inside its ruler is left out rather than clipped.
+   */
+  private drawRulers(): void {
     const v = this.view;
     const unit = this.options.unit;
-    // Label spacing of at least 60 px, in whole grid steps.
-    const every = Math.max(1, Math.ceil(60 / (gridStep * v.scale)));
-    const step = gridStep * every;
-    this.rulerX.clear().size(v.width, RULER_PX);
-    this.rulerY.clear().size(RULER_PX, v.height);
-    this.rulerX.rect(v.width, RULER_PX).addClass('ruler-bg');
-    this.rulerY.rect(RULER_PX, v.height).addClass('ruler-bg');
-    const b = { x0: toBoard(v, { x: 0, y: 0 }).x, x1: toBoard(v, { x: v.width, y: 0 }).x, y0: toBoard(v, { x: 0, y: v.height }).y, y1: toBoard(v, { x: 0, y: 0 }).y };
-    for (let i = Math.ceil(b.x0 / step); i * step <= b.x1; i++) {
-      const sx = toScreen(v, { x: i * step, y: 0 }).x;
-      this.rulerX.line(sx, RULER_PX - 7, sx, RULER_PX).addClass('tick');
-      this.rulerX.plain(rulerLabel(i * step, unit, step)).attr({ x: sx + 3, y: 11 }).addClass('tick-label');
+    const { step, minor } = rulerSteps(unit, v.scale, 64);
+    // The rulers lie along the board's top and left edges (app.css), each as long as the board is.
+    const lenX = v.width, lenY = v.height;
+    this.rulerX.clear().size(lenX, RULER_PX);
+    this.rulerY.clear().size(RULER_PX, lenY);
+    this.rulerCorner.clear().size(RULER_PX, RULER_PX);
+    this.rulerX.rect(lenX, RULER_PX).addClass('ruler-bg');
+    this.rulerY.rect(RULER_PX, lenY).addClass('ruler-bg');
+    this.rulerCorner.rect(RULER_PX, RULER_PX).addClass('ruler-bg');
+    this.rulerCorner.plain(unit).attr({ x: RULER_PX / 2, y: RULER_PX / 2 + 4, 'text-anchor': 'middle', 'data-testid': 'ruler-unit' }).addClass('unit-label');
+    const x0 = toBoard(v, { x: 0, y: 0 }).x, x1 = toBoard(v, { x: v.width, y: 0 }).x;
+    const y0 = toBoard(v, { x: 0, y: v.height }).y, y1 = toBoard(v, { x: 0, y: 0 }).y;
+    // Tick positions are whole multiples of the minor step (k · minor), so each labelled one is exact in the unit.
+    const per = Math.round(step / minor);
+    const charPx = 6.2; // 10 px monospace (app.css .tick-label)
+    for (let k = Math.ceil(x0 / minor); k * minor <= x1; k++) {
+      const sx = toScreen(v, { x: k * minor, y: 0 }).x;
+      const major = k % per === 0;
+      this.rulerX.line(sx, RULER_PX - (major ? 8 : 4), sx, RULER_PX).addClass('tick');
+      if (!major) continue;
+      const text = rulerLabel(k * minor, unit, step);
+      const half = (text.length * charPx) / 2;
+      if (sx - half < 1 || sx + half > lenX - 1) continue;
+      this.rulerX.plain(text).attr({ x: sx, y: 11, 'text-anchor': 'middle', 'data-value': String(Number(((k * minor) / UNIT_METRES[unit]).toPrecision(12))) }).addClass('tick-label');
     }
-    for (let i = Math.ceil(b.y0 / step); i * step <= b.y1; i++) {
-      const sy = toScreen(v, { x: 0, y: i * step }).y;
-      this.rulerY.line(RULER_PX - 7, sy, RULER_PX, sy).addClass('tick');
-      this.rulerY.plain(rulerLabel(i * step, unit, step)).attr({ x: 2, y: sy - 3 }).addClass('tick-label');
+    for (let k = Math.ceil(y0 / minor); k * minor <= y1; k++) {
+      const sy = toScreen(v, { x: 0, y: k * minor }).y;
+      const major = k % per === 0;
+      this.rulerY.line(RULER_PX - (major ? 8 : 4), sy, RULER_PX, sy).addClass('tick');
+      if (!major) continue;
+      const text = rulerLabel(k * minor, unit, step);
+      const half = (text.length * charPx) / 2;
+      if (sy - half < 1 || sy + half > lenY - 1) continue;
+      // Written along the ruler (turned a quarter), so long values fit its width.
+      this.rulerY.plain(text).attr({ x: 0, y: 0, 'text-anchor': 'middle', transform: `translate(11 ${sy}) rotate(-90)`, 'data-value': String(Number(((k * minor) / UNIT_METRES[unit]).toPrecision(12))) }).addClass('tick-label');
     }
-    this.rulerX.plain(unit).attr({ x: v.width - 26, y: 20 }).addClass('unit-label');
   }
 
   // ---- input --------------------------------------------------------------------------------------------------
@@ -406,9 +474,21 @@ export class BoardController {
     this.applyView();
   }
 
+  /** The last press, to count the presses of a double-click (pointer events do not count them). */
+  private lastPress: { t: number; x: number; y: number; n: number } = { t: -1e9, x: 0, y: 0, n: 0 };
+
+  private pressCount(type: BoardPointer['type'], e: PointerEvent | MouseEvent, screen: Vec2): number {
+    if (type !== 'down') return 1;
+    const p = this.lastPress;
+    const again = e.timeStamp - p.t < 500 && Math.hypot(screen.x - p.x, screen.y - p.y) < 5;
+    this.lastPress = { t: e.timeStamp, x: screen.x, y: screen.y, n: again ? p.n + 1 : 1 };
+    return this.lastPress.n;
+  }
+
   private pointer(type: BoardPointer['type'], e: PointerEvent | MouseEvent): void {
     const r = this.element.getBoundingClientRect();
     const screen = { x: e.clientX - r.left, y: e.clientY - r.top };
+    const clicks = this.pressCount(type, e, screen);
     const id = 'pointerId' in e ? e.pointerId : 1;
     // Middle button, or left button with Space held, pans the view.
     if (type === 'down' && (e.button === 1 || (e.button === 0 && this.spaceDown))) {
@@ -432,7 +512,7 @@ export class BoardController {
     const tolerance = PICK_PX / this.view.scale;
     this.callbacks.onPointer({
       type, at, screen, button: e.button, shiftKey: e.shiftKey, altKey: e.altKey, ctrlKey: e.ctrlKey || e.metaKey,
-      hit: hitTest(this.scene, at, tolerance), tolerance,
+      hit: hitTest(this.scene, at, tolerance), tolerance, clicks,
     });
   }
 }

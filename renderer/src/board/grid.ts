@@ -40,6 +40,25 @@ export function gridLines(v: View, snapStep: number, unit: LengthUnit, minPx = 8
   return { step, xs, ys };
 }
 
+/**
+ * Ruler steps in the display unit: the labelled step is the smallest 1-2-5 multiple of a power of ten (in mm or
+ * mil) at least `minPx` apart on screen; minor ticks divide it in 5 (steps of 1 and 5) or 4 (steps of 2). Both are
+ * returned in metres.
+ */
+export function rulerSteps(unit: LengthUnit, scale: number, minPx: number): { step: number; minor: number } {
+  const u = UNIT_METRES[unit];
+  const want = minPx / (scale * u); // the smallest step in the unit that is far enough apart
+  let decade = Math.pow(10, Math.floor(Math.log10(Math.max(want, 1e-9))));
+  for (let guard = 0; guard < 40; guard++) {
+    for (const m of [1, 2, 5]) {
+      const st = m * decade;
+      if (st >= want * (1 - 1e-9)) return { step: st * u, minor: (st / (m === 2 ? 4 : 5)) * u };
+    }
+    decade *= 10;
+  }
+  return { step: decade * u, minor: (decade / 5) * u };
+}
+
 /** Ruler label of a board coordinate in the chosen unit, without trailing zeros. */
 export function rulerLabel(value: number, unit: LengthUnit, step: number): string {
   const inUnit = value / UNIT_METRES[unit];

@@ -3,7 +3,7 @@
  */
 import type { Box, Vec2 } from '../../../core/geometry/types.ts';
 import type { Scene } from './scene.ts';
-import { distToSegment } from './snap.ts';
+import { distToSegment, projectOnSegment } from './snap.ts';
 
 export type Hit = { kind: 'node'; id: string } | { kind: 'segment'; id: string } | { kind: 'area'; id: string } | null;
 
@@ -14,6 +14,12 @@ export type Hit = { kind: 'node'; id: string } | { kind: 'segment'; id: string }
 export function hitTest(scene: Scene, p: Vec2, tolerance: number): Hit {
   let best: Hit = null;
   let bestD = Infinity;
+  // A part's body is short (a chip between two pads): over its middle it wins over the nodes at its ends.
+  for (const s of scene.segments) {
+    if (!s.part) continue;
+    const proj = projectOnSegment(p, s.a, s.b);
+    if (proj.t > 0.2 && proj.t < 0.8 && distToSegment(p, s.a, s.b) <= Math.max(tolerance, s.part.body.across / 2)) return { kind: 'segment', id: s.id };
+  }
   for (const n of scene.nodes) {
     const d = Math.hypot(n.at.x - p.x, n.at.y - p.y);
     if (d <= tolerance * 1.5 && d < bestD) { best = { kind: 'node', id: n.id }; bestD = d; }

@@ -18,6 +18,8 @@ export interface SceneSegment {
   centreline?: Vec2[];
   /** Copper width at the ends, m, when sized (for hit-testing and labels). */
   width?: number;
+  /** A lumped part: its body (m, along and across the line) and its value as text, drawn on the board. */
+  part?: { name: string; value: string; size: string; body: { along: number; across: number } };
 }
 
 export interface ScenePiece { id: string; regions: Region[]; /** SVG path text of the regions in mm, when prepared by the worker. */ d?: string }

@@ -12,11 +12,11 @@ export type ToolId = 'pick' | 'route' | 'tee' | 'stub-open' | 'stub-short' | 'st
 
 export const TOOLS: { id: ToolId; label: string; key: string; hint: string }[] = [
   { id: 'pick', label: 'Pick', key: 'V', hint: 'Click to select, drag to move, drag on empty board to select a box' },
-  { id: 'route', label: 'Route', key: 'R', hint: 'Click a port or open end, then click each corner; double-click or Enter ends, Esc drops' },
-  { id: 'tee', label: 'Tee', key: 'T', hint: 'Click a run to branch it, then click the corners of the branch' },
+  { id: 'route', label: 'Route', key: 'R', hint: 'Click a port, an open end, a corner or a line, then each corner; end on a line to join it with a tee; double-click or Enter ends, Esc drops' },
+  { id: 'tee', label: 'Tee', key: 'T', hint: 'Click a line or a corner to branch it, then click the corners of the branch' },
   { id: 'stub-open', label: 'Open stub', key: 'O', hint: 'Click a run where the open stub hangs; the side follows the cursor' },
   { id: 'stub-short', label: 'Shorted stub', key: 'S', hint: 'Click a run where the shorted stub hangs; it ends in a via' },
-  { id: 'step', label: 'Width step', key: 'W', hint: 'Click a run to split it into two widths' },
+  { id: 'step', label: 'Width step', key: 'W', hint: 'Click a run where its width changes: the side from the click to the nearer end takes the new width' },
   { id: 'taper', label: 'Taper', key: 'A', hint: 'Click a run to insert a taper' },
   { id: 'part', label: 'Part', key: 'L', hint: 'Click a run to insert a lumped part (resistor, capacitor, inductor)' },
   { id: 'port', label: 'Port', key: 'P', hint: 'Click to place a port' },
@@ -27,10 +27,15 @@ export const TOOLS: { id: ToolId; label: string; key: string; hint: string }[] =
 
 export type InsertKind = 'step' | 'taper' | 'part';
 
+/** Where a run ends when it is not left open: on a line (a tee is made there) or on a node. */
+export type RunEnd = { segment: string } | { node: string } | null;
+
 /** What the tools need from the editor. */
 export interface ToolHost {
   gridStep(): number;
-  nodeAt(id: string): { at: Vec2; kind: string } | null;
+  nodeAt(id: string): { at: Vec2; kind: string; degree: number } | null;
+  /** A length in the display unit, for the live readout while drawing. */
+  formatLength(m: number): string;
   segmentEnds(id: string): { a: Vec2; b: Vec2 } | null;
   isSelected(id: string): boolean;
   select(ids: string[], mode: 'replace' | 'toggle' | 'add'): void;
@@ -40,8 +45,8 @@ export interface ToolHost {
   moveBy(delta: Vec2): void;
   endMove(commit: boolean): void;
   boxSelect(box: Box, additive: boolean): void;
-  addRun(from: string, points: Vec2[]): void;
-  addTee(segment: string, at: Vec2, points: Vec2[]): void;
+  addRun(from: string, points: Vec2[], end: RunEnd): void;
+  addTee(segment: string, at: Vec2, points: Vec2[], end: RunEnd): void;
   addStub(segment: string, at: Vec2, side: 1 | -1, end: 'open' | 'short'): void;
   insert(segment: string, at: Vec2, kind: InsertKind): void;
   addPort(at: Vec2): void;
@@ -56,7 +61,7 @@ type Gesture =
   | { kind: 'press'; at: Vec2; hitId: string | null; additive: boolean }
   | { kind: 'moving'; last: Vec2; origin: Vec2 }
   | { kind: 'boxing'; from: Vec2; to: Vec2; additive: boolean }
-  | { kind: 'routing'; from: string; tee: { segment: string; at: Vec2 } | null; points: Vec2[] }
+  | { kind: 'routing'; from: string; tee: { segment: string; at: Vec2 } | null; points: Vec2[]; end?: RunEnd }
   | { kind: 'outlining'; points: Vec2[] };
 
 /** Pixels the pointer must travel before a press becomes a drag. */
@@ -66,6 +71,8 @@ export class ToolMachine {
   private tool: ToolId = 'pick';
   private g: Gesture = { kind: 'idle' };
   private pressScreen: Vec2 = { x: 0, y: 0 };
+  /** The last press ended a run (a double-click's second press then starts nothing). */
+  private endedByPress = false;
 
   constructor(private readonly host: ToolHost) {}
 
@@ -91,8 +98,8 @@ export class ToolMachine {
     if (g.kind === 'routing') {
       const pts = dedupe(g.points);
       if (pts.length > 0) {
-        if (g.tee) this.host.addTee(g.tee.segment, g.tee.at, pts);
-        else this.host.addRun(g.from, pts);
+        if (g.tee) this.host.addTee(g.tee.segment, g.tee.at, pts, g.end ?? null);
+        else this.host.addRun(g.from, pts, g.end ?? null);
       }
     } else if (g.kind === 'outlining') {
       const pts = dedupe(g.points);
@@ -174,35 +181,26 @@ export class ToolMachine {
   private route(e: BoardPointer): void {
     const g = this.g;
     const step = this.host.gridStep();
-    if (g.kind === 'routing') {
-      const anchor = this.anchorOf(g);
-      if (!anchor) { this.cancel(); return; }
-      const next = snapHeading(anchor, e.at, headingRuleFor(e), step);
-      if (e.type === 'move') {
-        this.host.preview({ run: [...this.startPoints(g), next], ghost: next });
-      } else if (e.type === 'down' && e.button === 0) {
-        const same = Math.hypot(next.x - anchor.x, next.y - anchor.y) < 1e-9;
-        if (same) { this.finish(); return; }
-        this.g = { ...g, points: [...g.points, next] };
-        this.host.preview({ run: [...this.startPoints(this.g as typeof g)], ghost: next });
-      } else if (e.type === 'dblclick') {
-        this.finish();
-      }
-      return;
-    }
+    if (g.kind === 'routing') return this.routing(g, e, step);
     if (e.type === 'move') { this.host.hover(e.hit?.id ?? null, e.at); this.host.preview({ ghost: snapToGrid(e.at, step) }); return; }
     if (e.type !== 'down' || e.button !== 0) return;
+    // The second press of a double-click that just ended a run must not start another one.
+    const afterEnd = this.endedByPress;
+    this.endedByPress = false;
+    if (afterEnd && e.clicks > 1) return;
     const hit = e.hit;
-    if (this.tool === 'route') {
-      if (hit?.kind === 'node') {
-        const n = this.host.nodeAt(hit.id);
-        if (n && (n.kind === 'port' || n.kind === 'open')) {
-          this.g = { kind: 'routing', from: hit.id, tee: null, points: [] };
-          this.host.status('Click each corner; double-click, right-click or Enter ends the run, Esc drops it');
-          return;
-        }
+    if (hit?.kind === 'node') {
+      const n = this.host.nodeAt(hit.id);
+      if (!n) return;
+      const full = (n.kind === 'port' && n.degree >= 1) || (n.kind === 'junction' && n.degree >= 4);
+      if (full) {
+        this.host.status(n.kind === 'port' ? 'A port takes one line: start from the open end or a corner of its run, or from the line itself' : 'This tee already has four lines');
+        return;
       }
-      this.host.status('A run starts at a port or an open end: click one of those (or use Tee to branch a run)');
+      this.g = { kind: 'routing', from: hit.id, tee: null, points: [] };
+      // The start's hover tip must not follow the pointer while drawing.
+      this.host.hover(null, e.at);
+      this.host.status('Click each corner; end on a line to join it with a tee; double-click, right-click or Enter ends the run, Esc drops it');
       return;
     }
     if (hit?.kind === 'segment') {
@@ -210,10 +208,54 @@ export class ToolMachine {
       if (!ends) return;
       const at = snapOnto(ends, e.at, step);
       this.g = { kind: 'routing', from: hit.id, tee: { segment: hit.id, at }, points: [] };
+      this.host.hover(null, e.at);
       this.host.status('Click the corners of the branch; double-click, right-click or Enter ends it');
       return;
     }
-    this.host.status('A tee goes on a run: click a line');
+    this.host.status(this.tool === 'route' ? 'A run starts at a port, an open end, a corner or a line: click one of those' : 'A tee goes on a line or a corner: click one');
+  }
+
+  /** Where the pointer would end the run on existing copper: a line (a tee there) or a node, else null. */
+  private landing(g: Extract<Gesture, { kind: 'routing' }>, e: BoardPointer, step: number): { at: Vec2; end: RunEnd } | null {
+    const hit = e.hit;
+    if (hit?.kind === 'node' && hit.id !== g.from) {
+      const n = this.host.nodeAt(hit.id);
+      return n ? { at: n.at, end: { node: hit.id } } : null;
+    }
+    if (hit?.kind === 'segment' && hit.id !== g.tee?.segment) {
+      const ends = this.host.segmentEnds(hit.id);
+      return ends ? { at: snapOnto(ends, e.at, step), end: { segment: hit.id } } : null;
+    }
+    return null;
+  }
+
+  private routing(g: Extract<Gesture, { kind: 'routing' }>, e: BoardPointer, step: number): void {
+    const anchor = this.anchorOf(g);
+    if (!anchor) { this.cancel(); return; }
+    const land = this.landing(g, e, step);
+    const next = land?.at ?? snapHeading(anchor, e.at, headingRuleFor(e), step);
+    if (e.type === 'move') {
+      // Pointer coordinates keep following the pointer; no hover tip while drawing.
+      this.host.hover(null, e.at);
+      this.host.preview({ run: [...this.startPoints(g), next], ghost: next, measure: this.measure(anchor, next, land) });
+    } else if (e.type === 'down' && e.button === 0) {
+      const same = Math.hypot(next.x - anchor.x, next.y - anchor.y) < 1e-9;
+      if (same) { this.finish(); this.endedByPress = true; return; }
+      this.g = { ...g, points: [...g.points, next], ...(land ? { end: land.end } : {}) };
+      if (land) { this.finish(); this.endedByPress = true; return; }
+      this.host.preview({ run: [...this.startPoints(this.g as typeof g)], ghost: next });
+    } else if (e.type === 'dblclick') {
+      this.finish();
+    }
+  }
+
+  /** The live readout of the piece being drawn: its length in the display unit and its direction (0° = +x, counter-clockwise). */
+  private measure(from: Vec2, to: Vec2, land: { end: RunEnd } | null): { at: Vec2; text: string } {
+    const len = Math.hypot(to.x - from.x, to.y - from.y);
+    let deg = (Math.atan2(to.y - from.y, to.x - from.x) * 180) / Math.PI;
+    if (deg < 0) deg += 360;
+    const joins = land?.end && 'segment' in land.end ? ' · tee here' : land?.end ? ' · join' : '';
+    return { at: to, text: `${this.host.formatLength(len)} · ${deg.toFixed(1)}°${joins}` };
   }
 
   private startPoints(g: Extract<Gesture, { kind: 'routing' }>): Vec2[] {

@@ -19,7 +19,6 @@ import { createToolHost } from './toolHost.ts';
 import { boxOf } from '../board/viewport.ts';
 import { UNIT_METRES, type LengthUnit } from '../board/grid.ts';
 import { buildScene, scenePoints } from './scene.ts';
-import { runWithComposites, COMPOSITE_LABELS } from './composite.ts';
 import type { PieceFigures } from './figures.ts';
 import type { LayoutView } from './layoutView.ts';
 import { applyTheme, initialTheme, type Theme } from './theme.ts';
@@ -66,7 +65,8 @@ export class EditorState {
   /** The design as it was last opened or saved: undoing back to it is not an unsaved change. */
   private savedDoc: DesignDoc | null = null;
   dirty = $derived(this.revision !== this.savedRevision && !sameRecords(this.doc, this.savedDoc));
-  units = $derived<LengthUnit>(this.doc.view?.units ?? 'mm');
+  /** Display units: a view setting of the app (kept in local storage), never part of the design or its undo list. */
+  units = $state<LengthUnit>(initialUnits());
   /** Snap step: the design's own, else 0.1 mm or 5 mil (common practice for hand-drawn RF boards). */
   gridStep = $derived(this.doc.view?.grid ?? (this.units === 'mil' ? 5 * UNIT_METRES.mil : 0.1e-3));
   /** Ground copper left after clearing, from the last shop check, with the revision it belongs to. */
@@ -87,7 +87,7 @@ export class EditorState {
   defaultClearance = $derived(this.layout ? defaultGroundClearance({ ...this.layout.sized, doc: this.doc }) : this.doc.substrate.h);
 
   constructor(doc?: DesignDoc) {
-    this.history = new History(doc ?? newDesign(), { run: runWithComposites });
+    this.history = new History(doc ?? newDesign());
     this.doc = this.history.doc;
     this.history.subscribe((d, rev) => {
       this.doc = d;
@@ -117,11 +117,11 @@ export class EditorState {
     try {
       if (this.field) {
         // Typing in a field: every keystroke shows at once, and the whole entry becomes one undo step.
-        if (!this.history.isLive) this.history.beginLive(label ?? COMPOSITE_LABELS[id] ?? DESIGN_COMMANDS.get(id)?.label ?? id);
+        if (!this.history.isLive) this.history.beginLive(label ?? DESIGN_COMMANDS.get(id)?.label ?? id);
         this.history.apply(id, args);
         this.field.changed = true;
       } else {
-        this.history.apply(id, args, label ?? COMPOSITE_LABELS[id]);
+        this.history.apply(id, args, label);
         this.history.mark();
       }
       this.canUndo = this.history.canUndo;
@@ -199,7 +199,10 @@ export class EditorState {
   setProcess(process: FabProcess): void { this.edit('design.setProcess', { process }); }
   setJunctions(junctions: JunctionChoice): void { this.edit('design.setJunctions', { junctions }); }
   setAsMade(asMade: NonNullable<DesignDoc['asMade']>): void { this.edit('design.setAsMade', { asMade }); }
-  setUnits(units: LengthUnit): void { this.edit('view.set', { units }); }
+  setUnits(units: LengthUnit): void {
+    this.units = units;
+    try { globalThis.localStorage?.setItem(UNITS_KEY, units); } catch { /* storage may be off: the setting then lasts this session */ }
+  }
   setGrid(grid: number): void { this.edit('view.set', { grid }); }
 
   deleteSelection(): void {
@@ -367,6 +370,9 @@ export class EditorState {
 
   layoutFailed(message: string): void { this.layoutError = message; }
 
+  /** A node's label, or its id where it has none. */
+  nodeName(id: string): string { return this.doc.nodes.find((n) => n.id === id)?.label ?? id; }
+
   figuresOf(id: string): PieceFigures | null { return this.layout?.figures.get(id) ?? null; }
 
   /** Sized copper width of the line that meets node `id`, if known. */
@@ -387,6 +393,12 @@ export class EditorState {
 }
 
 export const APP_VERSION = '0.1.0';
+
+const UNITS_KEY = 'stripwright.units';
+
+function initialUnits(): LengthUnit {
+  try { return globalThis.localStorage?.getItem(UNITS_KEY) === 'mil' ? 'mil' : 'mm'; } catch { return 'mm'; }
+}
 
 function makeDocId(): string {
   return globalThis.crypto?.randomUUID?.().slice(0, 18) ?? `doc-${Date.now().toString(36)}`;

@@ -65,7 +65,7 @@ export class FileActions {
     if (!text) { this.editor.status = `No example “${id}”; the examples are ${EXAMPLES.map((e) => e.id).join(', ')}.`; return; }
     if (!(await this.mayDiscard('open an example'))) return;
     const err = this.editor.loadText(text, null);
-    if (err) this.editor.status = `The example could not be read: ${err}`;
+    this.editor.status = err ? `The example could not be read: ${err}` : `Opened the example “${EXAMPLES.find((e) => e.id === id)?.title ?? id}” (not saved yet: Save as keeps your copy)`;
   }
 
   async open(): Promise<void> {

@@ -2,7 +2,9 @@
  * The board scene from the design (the sketch) and the core's geometry (true copper and centrelines), plus the
  * lookups the tools need. View data only: no physics is computed here.
  */
-import type { DesignDoc, DesignNode } from '../../../core/design/types.ts';
+import type { DesignDoc, DesignNode, DesignSegment } from '../../../core/design/types.ts';
+import { smdFootprint } from '../../../core/layout/index.ts';
+import { formatQuantity, type QuantityKind } from '../../../core/units/index.ts';
 import type { DrillHit, Region, Vec2 } from '../../../core/geometry/types.ts';
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
 
@@ -28,7 +30,7 @@ export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed:
     // A stale centreline of a piece whose end moved is dropped: the sketch line shows until the new layout arrives.
     const off = moved(a) || moved(b);
     if (off) { stale.add(s.id); stale.add(a.id); stale.add(b.id); }
-    segments.push({ id: s.id, kind: s.kind, a: at(a), b: at(b), centreline: off ? undefined : piece?.centreline });
+    segments.push({ id: s.id, kind: s.kind, a: at(a), b: at(b), centreline: off ? undefined : piece?.centreline, ...(s.kind === 'lumped' ? { part: partOf(s) } : {}) });
   }
   return {
     nodes: doc.nodes.map((n) => ({ id: n.id, at: at(n), kind: n.kind, label: n.label, heading: n.kind === 'port' ? n.heading : undefined })),
@@ -39,6 +41,15 @@ export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed:
     ground,
     drills: (geometry?.drills ?? []).map((d) => ({ at: d.at, diameter: d.diameter })),
   };
+}
+
+const PART_KIND: Record<string, QuantityKind> = { resistor: 'resistance', capacitor: 'capacitance', inductor: 'inductance' };
+
+/** What the board draws for a lumped part: a body between its pads (the chip's size code) and its value. */
+export function partOf(s: DesignSegment & { kind: 'lumped' }): NonNullable<SceneSegment['part']> {
+  const fp = smdFootprint(s.size);
+  const value = formatQuantity(s.value, PART_KIND[s.part]!, { digits: 3 });
+  return { name: s.part, value, size: s.size, body: { along: Math.max(fp.pitch - fp.padAlong, fp.pitch * 0.4), across: fp.padAcross * 0.8 } };
 }
 
 /** Everything that has a position, for zoom to fit. */

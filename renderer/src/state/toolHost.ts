@@ -5,7 +5,8 @@
  */
 import type { Vec2 } from '../../../core/geometry/types.ts';
 import { InputError } from '../../../core/util/errors.ts';
-import type { ToolHost, InsertKind } from '../board/tools.ts';
+import type { ToolHost, InsertKind, RunEnd } from '../board/tools.ts';
+import { formatQuantity } from '../../../core/units/index.ts';
 import { boxSelect } from '../board/hit.ts';
 import type { EditorState } from './editor.svelte.ts';
 
@@ -16,12 +17,21 @@ export function createToolHost(ed: EditorState): ToolHost {
     return n && p ? { x: p.at.x - p.pos.x, y: p.at.y - p.pos.y } : { x: 0, y: 0 };
   };
   const shift = (pts: Vec2[], o: Vec2) => pts.map((p) => ({ x: p.x + o.x, y: p.y + o.y }));
+  const segOffset = (id: string): Vec2 => { const seg = ed.doc.segments.find((x) => x.id === id); return seg ? offsetOf(seg.a) : { x: 0, y: 0 }; };
+  // Points carried into the drawn frame by the start's offset; a last point on a line by that line's own offset.
+  const place = (pts: Vec2[], o: Vec2, end: RunEnd): Vec2[] => {
+    const out = shift(pts, o);
+    if (end && 'segment' in end && pts.length) out[out.length - 1] = shift([pts[pts.length - 1]!], segOffset(end.segment))[0]!;
+    return out;
+  };
   return {
     gridStep: () => ed.gridStep,
     nodeAt: (id) => {
       const n = ed.scene.nodes.find((x) => x.id === id);
-      return n ? { at: n.at, kind: n.kind } : null;
+      const degree = ed.doc.segments.filter((s) => s.a === id || s.b === id).length;
+      return n ? { at: n.at, kind: n.kind, degree } : null;
     },
+    formatLength: (m) => formatQuantity(m, 'length', { unit: ed.units === 'mil' ? 'mil' : 'mm', digits: 4 }),
     segmentEnds: (id) => {
       const s = ed.scene.segments.find((x) => x.id === id);
       if (!s) return null;
@@ -43,28 +53,35 @@ export function createToolHost(ed: EditorState): ToolHost {
       ed.canRedo = ed.history.canRedo;
     },
     boxSelect: (box, additive) => ed.select(boxSelect(ed.scene, box), additive ? 'add' : 'replace'),
-    addRun: (from, points) => {
-      const before = new Set(ed.doc.segments.map((s) => s.id));
-      if (ed.edit('editor.route', { from, points: shift(points, offsetOf(from)) })) {
-        const made = ed.doc.segments.filter((s) => !before.has(s.id)).map((s) => s.id);
+    addRun: (from, points, end) => {
+      const before = new Set(ed.doc.segments.map((x) => x.id));
+      const o = offsetOf(from);
+      if (ed.edit('run.route', { from, points: place(points, o, end), ...(end ? { onto: end } : {}) })) {
+        const made = ed.doc.segments.filter((x) => !before.has(x.id)).map((x) => x.id);
         ed.selection = new Set(made.slice(-1));
-        ed.status = `Routed ${made.length} line${made.length === 1 ? '' : 's'}`;
+        ed.status = `Routed ${made.length} line${made.length === 1 ? '' : 's'}${end && 'segment' in end ? ', joined to the line with a tee' : end ? ', joined' : ''}`;
       }
     },
-    addTee: (segment, at, points) => {
-      const seg = ed.doc.segments.find((s) => s.id === segment);
-      const o = seg ? offsetOf(seg.a) : { x: 0, y: 0 };
-      ed.edit('editor.tee', { segment, at: shift([at], o)[0], points: shift(points, o) });
+    addTee: (segment, at, points, end) => {
+      const o = segOffset(segment);
+      ed.edit('run.tee', { segment, at: shift([at], o)[0], points: place(points, o, end), ...(end ? { onto: end } : {}) });
     },
     addStub: (segment, at, side, end) => {
-      const seg = ed.doc.segments.find((s) => s.id === segment);
-      const o = seg ? offsetOf(seg.a) : { x: 0, y: 0 };
-      ed.edit('editor.stub', { segment, at: shift([at], o)[0], side, end });
+      ed.edit('run.stub', { segment, at: shift([at], segOffset(segment))[0], side, end });
     },
     insert: (segment, at, kind: InsertKind) => {
-      const seg = ed.doc.segments.find((s) => s.id === segment);
-      const o = seg ? offsetOf(seg.a) : { x: 0, y: 0 };
-      ed.edit('editor.insert', { segment, at: shift([at], o)[0], kind });
+      const before = new Map(ed.doc.segments.map((x) => [x.id, x]));
+      if (!ed.edit('run.insert', { segment, at: shift([at], segOffset(segment))[0], kind })) return;
+      if (kind === 'step') {
+        // Say which side took the new width, and select it so the sheet shows it.
+        const was = JSON.stringify((before.get(segment) as { width?: unknown } | undefined)?.width);
+        const changed = ed.doc.segments.find((x) => x.kind === 'line' && (x.id === segment || !before.has(x.id)) && JSON.stringify(x.width) !== was);
+        if (changed) {
+          ed.selection = new Set([changed.id]);
+          const w = changed.kind === 'line' && changed.width.by === 'z0' ? `${changed.width.z0} Ω` : 'the new width';
+          ed.status = `Width step: ${changed.label ?? changed.id} (from ${ed.nodeName(changed.a)} to ${ed.nodeName(changed.b)}) is now ${w}; the other side keeps its width`;
+        }
+      }
     },
     addPort: (at) => ed.edit('node.add', { at, spec: { kind: 'port' } }),
     setOutline: (points) => ed.edit('board.setOutline', { outline: points }),
