@@ -26,3 +26,4 @@ export { evaluateTargets, evaluateTarget, targetFrequencies, targetText, limitTe
 export { coupledPairY, modeConstants } from './coupledPair.ts';
 export * from './coupon/index.ts';
 export * from './equalize/index.ts';
+export * from './tune/index.ts';

@@ -106,7 +106,7 @@ function runDeg(s: SizedDesign, a: string, b: string): number {
   return tracePaths(s, a, [b], { sensitivities: false, matched: false }).paths[0]?.degAtF0 ?? 0;
 }
 
-interface Plan { piece: SizedPiece; seg: DesignSegment; shape: MeanderShape; side: 1 | -1; shareDeg: number; extra: number; from: Vec2; to: Vec2; shift: Vec2 }
+interface Plan { piece: SizedPiece; seg: DesignSegment; shape: MeanderShape; side: 1 | -1; lead: number; shareDeg: number; extra: number; from: Vec2; to: Vec2; shift: Vec2 }
 
 export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeResult {
   const g = findGroup(doc, opts.group);
@@ -179,18 +179,26 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     return { from: line[0]!, to: line[1]!, shift: { x: na.at.x - line[0]!.x, y: na.at.y - line[0]!.y } };
   }
 
-  function fitShape(piece: SizedPiece, extra: number, only?: { side: 1 | -1; bumps?: number }): Omit<Plan, 'shareDeg' | 'extra'> | null {
+  function fitShape(piece: SizedPiece, extra: number, only?: { side: 1 | -1; bumps?: number; lead?: number }): Omit<Plan, 'shareDeg' | 'extra'> | null {
     const { from, to, shift } = ends(piece);
     const W = piece.width, L = Math.hypot(to.x - from.x, to.y - from.y);
-    const pitch = gap + W, hMin = 2 * W, leadMin = gap + 2 * W;
+    // Two strip widths of straight line before the first corner keep the corners' copper apart (our rule); the
+    // room check keeps the legs clear of the neighbours at the run's ends.
+    const pitch = gap + W, hMin = 2 * W, leadMin = 2 * W;
     const ctx = roomContext(s0, piece.id, gap);
     const seg = segById.get(piece.id)!;
     const sides: (1 | -1)[] = only ? [only.side] : [1, -1];
     const tryShape = (shape: MeanderShape): Omit<Plan, 'shareDeg' | 'extra'> | null => {
-      if (meanderSpan(shape) + 2 * leadMin > L) return null;
-      for (const side of sides) {
-        const path = [from, ...meanderCorners({ a: from, b: to, side, shape }), to];
-        if (!roomProblem(ctx, path, W, gap)) return { piece, seg, shape, side, from, to, shift };
+      const free = L - meanderSpan(shape);
+      if (free < 2 * leadMin) return null;
+      // Centred first, then as far toward either end as the corners allow.
+      const leads = only?.lead !== undefined ? [only.lead] : [free / 2, leadMin, free - leadMin, free / 4, (3 * free) / 4];
+      for (const lead of leads) {
+        if (lead < leadMin - 1e-12 || free - lead < leadMin - 1e-12) continue;
+        for (const side of sides) {
+          const path = [from, ...meanderCorners({ a: from, b: to, side, shape, lead }), to];
+          if (!roomProblem(ctx, path, W, gap)) return { piece, seg, shape, side, lead, from, to, shift };
+        }
       }
       return null;
     };
@@ -206,7 +214,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     }
     if (extra < 4 * hMin && style === 'auto') {
       // Longer ramps keep the dogleg low; shorter ones keep it away from the run's neighbours.
-      const most = (L - 2 * leadMin - pitch) / 2;
+      const most = (L - 2 * leadMin - pitch) / 2 - 1e-9;
       for (const reach of [most, most / 2, most / 4, 2 * hMin]) {
         if (!(reach >= hMin) || reach > most) continue;
         const hit = tryShape({ kind: 'dogleg', reach, height: doglegHeight(extra, reach), top: pitch });
@@ -223,7 +231,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     const mm = beta > 0 ? ((deg * Math.PI) / 180 / beta) * 1e3 : 0;
     const onPath = path.pieces.filter((id) => !opts.pieces || opts.pieces.includes(id));
     const room = onPath.map((id) => capacity(id)).reduce((a, b) => Math.max(a, b), 0) * 1e3;
-    const why = onPath.map((id) => reason.get(id) ? `${id}: ${reason.get(id)}` : '').filter(Boolean).slice(0, 4).join('; ');
+    const why = onPath.map((id) => reason.get(id) ? `${id}: ${reason.get(id)}` : '').filter(Boolean).slice(-4).join('; ');
     throw new InputError('impossible-layout', 'group',
       `room for meanders on the paths of ${g.name}`,
       `path ${g.from} → ${worst} needs ${deg.toFixed(1)}° (${mm.toFixed(2)} mm of line) more; the most one of its runs takes is ${room.toFixed(2)} mm, so ${Math.max(0, mm - room).toFixed(2)} mm is missing${why ? ` (${why})` : ''}`,
@@ -303,7 +311,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
 
 function meanderIds(doc: DesignDoc, p: Plan): { nodes: string[]; segments: string[] } {
   const taken = new Set<string>([...doc.nodes.map((n) => n.id), ...doc.segments.map((x) => x.id), ...doc.areas.map((a) => a.id), ...doc.phaseGroups.map((x) => x.id)]);
-  const count = meanderCorners({ a: p.from, b: p.to, side: p.side, shape: p.shape }).length;
+  const count = meanderCorners({ a: p.from, b: p.to, side: p.side, shape: p.shape, lead: p.lead }).length;
   const fresh = (prefix: string): string => { let k = 1; while (taken.has(`${prefix}${k}`)) k++; taken.add(`${prefix}${k}`); return `${prefix}${k}`; };
   const nodes = Array.from({ length: count }, () => fresh(`${p.seg.id}-m`));
   const segments = [p.seg.id, ...Array.from({ length: count }, () => fresh(`${p.seg.id}-s`))];
@@ -322,7 +330,7 @@ function withMeanders(doc: DesignDoc, plans: readonly Plan[]): DesignDoc {
   for (const seg of doc.segments) {
     const p = byId.get(seg.id);
     if (!p || seg.kind !== 'line') { segments.push(seg); continue; }
-    const corners = meanderCorners({ a: p.from, b: p.to, side: p.side, shape: p.shape });
+    const corners = meanderCorners({ a: p.from, b: p.to, side: p.side, shape: p.shape, lead: p.lead });
     const ids = meanderIds(working, p);
     ids.nodes.forEach((id, i) => {
       const c = corners[i]!;

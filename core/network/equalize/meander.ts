@@ -24,6 +24,8 @@ export interface MeanderPlacement {
   /** +1: to the left of a → b; −1: to the right. */
   side: 1 | -1;
   shape: MeanderShape;
+  /** Straight run kept before the meander, from a, m (default: the meander centred on the run). */
+  lead?: number;
 }
 
 /** Along-the-run length the shape takes, m. */
@@ -43,14 +45,14 @@ export function doglegHeight(extra: number, reach: number): number {
 }
 
 /**
- * The corner points of the meander from a to b, ends excluded, centred on the run. Every point lies on the run or
+ * The corner points of the meander from a to b, ends excluded, `lead` from a (default centred on the run). Every point lies on the run or
  * at the shape's height beside it.
  */
 export function meanderCorners(m: MeanderPlacement): Vec2[] {
   const dx = m.b.x - m.a.x, dy = m.b.y - m.a.y, L = Math.hypot(dx, dy);
   const ux = dx / L, uy = dy / L;
   const nx = -uy * m.side, ny = ux * m.side;
-  const lead = (L - meanderSpan(m.shape)) / 2;
+  const lead = m.lead ?? (L - meanderSpan(m.shape)) / 2;
   const at = (s: number, h: number): Vec2 => ({ x: m.a.x + ux * s + nx * h, y: m.a.y + uy * s + ny * h });
   const out: Vec2[] = [];
   const sh = m.shape;
@@ -65,7 +67,3 @@ export function meanderCorners(m: MeanderPlacement): Vec2[] {
   return out;
 }
 
-/** Lead-in left at each end of the run, m. */
-export function meanderLead(m: MeanderPlacement): number {
-  return (Math.hypot(m.b.x - m.a.x, m.b.y - m.a.y) - meanderSpan(m.shape)) / 2;
-}
