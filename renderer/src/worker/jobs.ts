@@ -18,6 +18,7 @@ import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
 import { sectionJob, type SectionInput } from './section-job.ts';
+import { equalizeJob, tuneJob, type EqualizeInput, type TuneInput } from './equalize-job.ts';
 
 export interface LayoutInput { doc: DesignDoc; /** Also work out each path's phase sensitivity to εr, h and W (slower). */ sensitivities?: boolean }
 /**
@@ -68,6 +69,8 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
     case 'response': return responseJob(input as ResponseInput, progress);
     case 'section': return sectionJob(input as SectionInput);
     case 'milling': return millingJob(input as MillingInput);
+    case 'equalize': return equalizeJob(input as EqualizeInput);
+    case 'tune': return tuneJob(input as TuneInput, progress, signal);
     default: return exhaustive(kind, 'job');
   }
 }
