@@ -12,7 +12,7 @@
  * place: a meander starts and ends where its run did, leaving in the run's direction.
  */
 import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup } from '../../design/types.ts';
-import { sizeDesign, tracePaths, type PathReport, type SizedDesign, type SizedPiece } from '../../layout/index.ts';
+import { sizeDesign, tracePaths, BOARD_SIZE_LIMIT, type PathReport, type SizedDesign, type SizedPiece } from '../../layout/index.ts';
 import type { Vec2 } from '../../geometry/types.ts';
 import { InputError } from '../../util/errors.ts';
 import { warn, type Warning } from '../../util/warnings.ts';
@@ -227,7 +227,9 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
   function refuse(unmet: Map<string, number>): never {
     const [worst, deg] = [...unmet].sort((a, b) => b[1] - a[1])[0]!;
     const path = before.paths.find((p) => p.to === worst)!;
-    const beta = path.pieces.map((id) => pieceById.get(id)?.line?.beta ?? 0).find((b) => b > 0) ?? 0;
+    // Millimetres of the line a meander would be made of (an eligible run of the path), else of its first line.
+    const betaOf = (id: string) => pieceById.get(id)?.line?.beta ?? 0;
+    const beta = path.pieces.filter((id) => eligible(id)).map(betaOf).find((b) => b > 0) ?? path.pieces.map(betaOf).find((b) => b > 0) ?? 0;
     const mm = beta > 0 ? ((deg * Math.PI) / 180 / beta) * 1e3 : 0;
     const onPath = path.pieces.filter((id) => !opts.pieces || opts.pieces.includes(id));
     const room = onPath.map((id) => capacity(id)).reduce((a, b) => Math.max(a, b), 0) * 1e3;
@@ -244,7 +246,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     const piece = pieceById.get(id)!;
     let best = 0;
     for (let k = 1; k <= (style === 'trombone' ? 1 : maxBumps); k++) {
-      let lo = 2 * piece.width, hi = 0.5;
+      let lo = 2 * piece.width, hi = BOARD_SIZE_LIMIT;
       if (!fitShape(piece, 2 * k * lo, { side: 1, bumps: k }) && !fitShape(piece, 2 * k * lo, { side: -1, bumps: k })) continue;
       for (let i = 0; i < 30; i++) {
         const mid = (lo + hi) / 2;
