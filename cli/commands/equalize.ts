@@ -10,7 +10,7 @@ import { InputError, parseDesign, serializeDesign, equalizeGroup, type MeanderSt
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { writeOutputFile } from '../files.ts';
 
-const USAGE = `Usage: stripwright equalize DESIGN --group ID|NAME [--pieces A,B,...] [--style auto|serpentine|trombone] [--gap MM] [--no-coupling] --out FILE
+const USAGE = `Usage: stripwright equalize DESIGN --group ID|NAME [--pieces A,B,...] [--style auto|serpentine|trombone] [--gap MM | --coupling-limit DB] [--no-coupling] --out FILE
 
 Lengthens the shorter paths of a phase group of DESIGN with meanders until all have the same electrical length at
 f0 (or the offsets the group asks for), and writes the result to FILE. Meanders go on straight runs drawn to length
@@ -23,6 +23,8 @@ Options:
   --pieces A,B      segment ids that may carry meanders (default: the tool chooses)
   --style S         auto (default: fewest bumps that fit), serpentine (2 or more bumps) or trombone (one U)
   --gap MM          least edge gap between legs and to other copper, mm (default 3h)
+  --coupling-limit DB  instead of --gap: the most coupling neighbouring legs may have, dB (e.g. -30); the gap is
+                    the least (at least 3h) that keeps it there
   --no-coupling     do not count the legs' coupling (for comparison)
   --out FILE        where to write the equalized design
 
@@ -41,7 +43,7 @@ export const equalizeCommand: CliCommand = {
   async run(argv: string[], io: CliIo): Promise<number> {
     const { values, positionals } = parseArgs({
       args: argv, allowPositionals: true, strict: true,
-      options: { group: { type: 'string' }, pieces: { type: 'string' }, style: { type: 'string' }, gap: { type: 'string' }, 'no-coupling': { type: 'boolean' }, out: { type: 'string' } },
+      options: { group: { type: 'string' }, pieces: { type: 'string' }, style: { type: 'string' }, gap: { type: 'string' }, 'coupling-limit': { type: 'string' }, 'no-coupling': { type: 'boolean' }, out: { type: 'string' } },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the DESIGN file' : `give one DESIGN file, got ${positionals.length}`);
     if (!values.group) throw new UsageError('give the phase group with --group ID|NAME');
@@ -53,6 +55,12 @@ export const equalizeCommand: CliCommand = {
       const mm = Number(values.gap);
       if (!Number.isFinite(mm) || mm <= 0 || mm > 100) throw new UsageError(`--gap expects a gap in mm above 0 and at most 100, got '${values.gap}'`);
       gap = mm * 1e-3;
+    }
+    let couplingLimitDb: number | undefined;
+    if (values['coupling-limit'] !== undefined) {
+      if (gap !== undefined) throw new UsageError('give --gap or --coupling-limit, not both');
+      couplingLimitDb = Number(values['coupling-limit']);
+      if (!Number.isFinite(couplingLimitDb) || couplingLimitDb >= 0) throw new UsageError(`--coupling-limit expects a coupling below 0 dB, e.g. -30, got '${values['coupling-limit']}'`);
     }
     const name = positionals[0]!;
     let src: string;
@@ -68,7 +76,7 @@ export const equalizeCommand: CliCommand = {
     }
     try {
       const r = equalizeGroup(parsed.doc, {
-        group: values.group, style, ...(gap !== undefined ? { gap } : {}), ...(values['no-coupling'] ? { coupling: false } : {}),
+        group: values.group, style, ...(gap !== undefined ? { gap } : {}), ...(couplingLimitDb !== undefined ? { couplingLimitDb } : {}), ...(values['no-coupling'] ? { coupling: false } : {}),
         ...(values.pieces ? { pieces: values.pieces.split(',').map((x) => x.trim()).filter(Boolean) } : {}),
       });
       await writeOutputFile(resolve(io.cwd, values.out), serializeDesign(r.doc));

@@ -9,7 +9,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import {
   parseDesign, sizeDesign, tracePaths, equalizeGroup, corporateFeed, netlistFromSized, solveNetwork, sweepFrequencies,
-  checkBoard, History, InputError, serializeDesign, type DesignDoc,
+  checkBoard, History, InputError, serializeDesign, analyzeCoupled, type DesignDoc,
 } from '../../core/index.ts';
 import { initPolygons } from '../../core/geometry/polygons.ts';
 
@@ -106,6 +106,24 @@ describe('equalize a phase group', () => {
   });
   it('names the groups when the group is unknown', () => {
     expect(() => equalizeGroup(doc, { group: 'nope' })).toThrow(/outputs \(Patch feeds in phase\)/);
+  });
+});
+
+describe('legs spaced by a coupling limit', () => {
+  it('a −40 dB limit widens the gap past 3h, and the legs of the meander keep it (Kirschning–Jansen 1984 modes)', () => {
+    const feed = corporateFeed({ outputs: 4, f0: 5.8e9, pitch: 30e-3, substrate: { h: 0.5e-3 } });
+    const long: DesignDoc = { ...feed, segments: feed.segments.map((s) => (s.id === 'run0' && s.kind === 'line' ? { ...s, length: { by: 'length' as const, length: 14e-3 } } : s)) };
+    const plain = equalizeGroup(long, { group: 'outputs', style: 'trombone' });
+    const limited = equalizeGroup(long, { group: 'outputs', style: 'trombone', couplingLimitDb: -40 });
+    const gapOf = (m: (typeof plain.meanders)[number]) => (m.shape.kind === 'serpentine' ? m.shape.pitch : 0) - sizeDesign(long).pieces.find((p) => p.id === m.piece)!.width;
+    for (const m of plain.meanders) expect(gapOf(m)).toBeCloseTo(3 * 0.5e-3, 9);
+    for (const m of limited.meanders) {
+      const w = sizeDesign(long).pieces.find((p) => p.id === m.piece)!.width;
+      expect(gapOf(m)).toBeGreaterThan(3 * 0.5e-3);
+      expect(analyzeCoupled(long.substrate, w, gapOf(m) * 0.999, long.frequency.f0).couplingDb).toBeLessThan(40 + 0.2);
+      expect(analyzeCoupled(long.substrate, w, gapOf(m), long.frequency.f0).couplingDb).toBeGreaterThanOrEqual(40 - 1e-6);
+    }
+    expect(limited.spreadDeg).toBeLessThanOrEqual(0.5);
   });
 });
 

@@ -90,6 +90,15 @@ describe('tuning a detuned branch-line coupler back (Pozar §7.5)', () => {
   }, 120_000);
 });
 
+describe('cancelling a tune', () => {
+  it('stops with an AbortError when the signal fires', async () => {
+    const d = load('open-stub-match.json');
+    const ctl = new AbortController();
+    ctl.abort(Object.assign(new Error('stopped'), { name: 'AbortError' }));
+    await expect(tuneDesign(d, { variables: [{ segments: ['stub'], quantity: 'degrees', min: 20, max: 70 }], signal: ctl.signal, points: 11 })).rejects.toThrow('stopped');
+  });
+});
+
 describe('the simplex search (Nelder & Mead 1965)', () => {
   it('finds the minimum of a smooth bowl in the box, and the same point for the same seed', async () => {
     const bowl = (x: number[]) => (x[0]! - 0.3) ** 2 + 2 * (x[1]! - 0.7) ** 2 + (x[2]! - 0.5) ** 2;

@@ -15,6 +15,7 @@ import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup } from '../../des
 import { sizeDesign, tracePaths, BOARD_SIZE_LIMIT, type PathReport, type SizedDesign, type SizedPiece } from '../../layout/index.ts';
 import type { Vec2 } from '../../geometry/types.ts';
 import { InputError } from '../../util/errors.ts';
+import { analyzeCoupled } from '../../line/index.ts';
 import { warn, type Warning } from '../../util/warnings.ts';
 import { allocate, type Branch } from './allocate.ts';
 import { doglegHeight, meanderCorners, meanderExtra, meanderSpan, type MeanderShape } from './meander.ts';
@@ -32,6 +33,11 @@ export interface EqualizeOptions {
   style?: MeanderStyle;
   /** Least edge gap between legs and to other copper, m (default 3h: coupling kept low, common practice). */
   gap?: number;
+  /**
+   * Instead of a gap: the most coupling two neighbouring legs may have, dB (e.g. −30): the gap is the least that keeps
+   * the pair's coupling factor (Kirschning–Jansen 1984 modes at f0) at or below it, and never below 3h unless `gap` says so.
+   */
+  couplingLimitDb?: number;
   /** Count the legs' coupling in the meander's electrical length (default true). */
   coupling?: boolean;
   /** Most bumps in one serpentine (default 12). */
@@ -117,7 +123,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     throw new InputError('impossible-layout', 'group', `every port of the group joined to ${g.from}`, `no route to ${missing.join(', ')}`);
   }
   const h = doc.substrate.h;
-  const gap = opts.gap ?? 3 * h;
+  const gap = opts.gap ?? (opts.couplingLimitDb !== undefined ? gapForCoupling(doc, s0, opts.couplingLimitDb) : 3 * h);
   if (!(gap > 0) || !Number.isFinite(gap) || gap > 0.1) throw new InputError('out-of-range', 'gap', 'an edge gap above 0 and at most 100 mm', String(gap));
   const style = opts.style ?? 'auto';
   const maxBumps = opts.maxBumps ?? 12;
@@ -309,6 +315,21 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     spreadDeg: spread(1, 'electricalDeg'), ledgerSpreadDeg: spread(1, 'ledgerDeg'),
     bandSpreadDeg: [spread(0, 'electricalDeg'), spread(2, 'electricalDeg')], warnings,
   };
+}
+
+/** The least edge gap (at least 3h) at which the narrowest line of the design couples no more than `limitDb`, m. */
+function gapForCoupling(doc: DesignDoc, s: SizedDesign, limitDb: number): number {
+  if (!(limitDb < 0) || !Number.isFinite(limitDb)) throw new InputError('out-of-range', 'couplingLimitDb', 'a coupling limit below 0 dB, e.g. −30', String(limitDb));
+  const h = doc.substrate.h;
+  const widths = s.pieces.filter((p) => p.kind === 'line' && Number.isFinite(p.width)).map((p) => p.width);
+  if (!widths.length) return 3 * h;
+  const w = Math.max(...widths); // wider strips couple more at one gap
+  const couples = (gap: number) => -analyzeCoupled(doc.substrate, w, gap, s.f0).couplingDb; // dB, negative
+  let lo = 3 * h, hi = 100 * h;
+  if (couples(lo) <= limitDb) return lo;
+  if (couples(hi) > limitDb) throw new InputError('out-of-range', 'couplingLimitDb', `a limit the lines reach within 100 substrate heights (${couples(hi).toFixed(1)} dB there)`, `${limitDb} dB`);
+  for (let i = 0; i < 40; i++) { const mid = (lo + hi) / 2; if (couples(mid) > limitDb) lo = mid; else hi = mid; }
+  return hi;
 }
 
 function meanderIds(doc: DesignDoc, p: Plan): { nodes: string[]; segments: string[] } {
