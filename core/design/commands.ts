@@ -21,6 +21,7 @@ import {
 import { pasteClipboard } from './clipboard.ts';
 import { setTargets, setTolerances } from './commands-targets.ts';
 import { gestureCommands } from './gestures.ts';
+import { applyEqualize, applyTune } from './commands-network.ts';
 
 export interface DesignCommand {
   /** Stable id, e.g. 'node.move'; menus, shortcuts and scripts refer to it. */
@@ -521,7 +522,7 @@ const viewSet: DesignCommand = {
 export const DESIGN_COMMANDS: ReadonlyMap<string, DesignCommand> = new Map(
   [nodeAdd, nodeMove, nodeSetSpec, segmentAdd, segmentSetSpec, selectionDelete, selectionTranslate, selectionRotate, selectionMirror,
     selectionPaste, setSubstrate, setFrequency, setProcess, setJunctions, setAsMade, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
-    phaseGroupSet, phaseGroupDelete, viewSet, setTargets, setTolerances, ...gestureCommands((d, id, args) => runCommand(d, id, args))].map((c) => [c.id, c]),
+    phaseGroupSet, phaseGroupDelete, viewSet, setTargets, setTolerances, applyEqualize, applyTune, ...gestureCommands((d, id, args) => runCommand(d, id, args))].map((c) => [c.id, c]),
 );
 
 /** Runs command `id` on `doc`; throws InputError on an unknown id or bad arguments. `doc` is never changed. */

@@ -17,3 +17,4 @@ export { copySelection, pasteClipboard, CLIPBOARD_FORMAT, type ClipboardContent 
 export { diffDesigns, applyDiff, invertDiff, isEmptyDiff, jsonEqual, type DesignDiff, type RecordChanges } from './diff.ts';
 export { History, type HistoryOptions, type HistoryStep } from './history.ts';
 export { namer, nameOf, nodeByName, portNamesText, sParameterName } from './names.ts';
+export { targetSchema, targetsSchema } from './targets-schema.ts';

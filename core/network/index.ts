@@ -25,3 +25,5 @@ export { responseCacheKey } from './cacheKey.ts';
 export { evaluateTargets, evaluateTarget, targetFrequencies, targetText, limitText, type TargetEvaluation, type TargetResult } from './targets.ts';
 export { coupledPairY, modeConstants } from './coupledPair.ts';
 export * from './coupon/index.ts';
+export * from './equalize/index.ts';
+export * from './tune/index.ts';

@@ -4,6 +4,7 @@
  * newest revision, so fast typing or a drag never piles up stale work and the canvas never waits for it.
  */
 import { ComputeClient, type Progress } from '../worker/client.ts';
+import type { JobKind } from '../worker/protocol.ts';
 import { runJob } from '../worker/jobs.ts';
 import type { EditorState } from './editor.svelte.ts';
 import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
@@ -26,6 +27,8 @@ export class Compute {
   }
 
   get threaded(): boolean { return this.client.threaded; }
+  /** Runs any worker job (the equalize button and the tune panel use it). */
+  run<T>(kind: JobKind, input: unknown, progress?: (p: Progress) => void, signal?: AbortSignal) { return this.client.run<T>(kind, input, progress, signal); }
 
   /** Ask for the layout of the current revision. */
   request(): void {

@@ -19,6 +19,7 @@ import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
 import { sectionJob, type SectionInput } from './section-job.ts';
+import { equalizeJob, tuneJob, type EqualizeInput, type TuneInput } from './equalize-job.ts';
 
 /** The sized design as it crosses to the page: without the document, which the editor already holds. */
 export type SizedView = Omit<SizedDesign, 'doc'>;
@@ -70,6 +71,8 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
     case 'response': return responseJob(input as ResponseInput, progress);
     case 'section': return sectionJob(input as SectionInput);
     case 'milling': return millingJob(input as MillingInput);
+    case 'equalize': return equalizeJob(input as EqualizeInput);
+    case 'tune': return tuneJob(input as TuneInput, progress, signal);
     default: return exhaustive(kind, 'job');
   }
 }

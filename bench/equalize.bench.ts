@@ -1,0 +1,53 @@
+/**
+ * Equalize and tune benchmark (README Benchmarks, `npm run bench -- equalize`), CPU time of this process:
+ *  1. Equalizing the generated 64-output corporate feed (5.8 GHz, 0.5 mm glass-epoxy, 15 mm pitch) whose output run
+ *     run5 is 3 mm long: six meanders on the sibling branches, sized and measured until they match. Target: < 1 s.
+ *  2. Tuning the Wilkinson example detuned (arm impedance +12 %, arm legs +8 % in degrees, resistor 130 Ω) back to
+ *     its four targets: 4 variables (arm impedance, the two legs' degrees, the resistor), 201 points. Target: < 2 s.
+ * A warm-up run precedes each measure (the engine compiles the hot loops on first use).
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { corporateFeed, equalizeGroup, parseDesign, tuneDesign, type DesignDoc } from '../core/index.ts';
+
+function cpuMs(t0: NodeJS.CpuUsage): number { const c = process.cpuUsage(t0); return (c.user + c.system) / 1000; }
+
+function longFeed(): DesignDoc {
+  const feed = corporateFeed({ outputs: 64, f0: 5.8e9, pitch: 15e-3, substrate: { h: 0.5e-3 } });
+  return { ...feed, segments: feed.segments.map((s) => (s.id === 'run5' && s.kind === 'line' ? { ...s, length: { by: 'length' as const, length: 11e-3 } } : s)) };
+}
+
+function detunedWilkinson(): DesignDoc {
+  const r = parseDesign(readFileSync(join(import.meta.dirname, '..', 'assets', 'examples', 'wilkinson-2g45.json'), 'utf8'));
+  if (!r.ok) throw new Error('the Wilkinson example does not load');
+  return {
+    ...r.doc,
+    segments: r.doc.segments.map((s) => {
+      if (s.kind === 'lumped') return { ...s, value: 130 };
+      if (s.kind !== 'line' || !s.id.startsWith('arm') || s.width.by !== 'z0' || s.length.by !== 'degrees') return s;
+      return { ...s, width: { by: 'z0' as const, z0: s.width.z0 * 1.12 }, length: { by: 'degrees' as const, deg: s.length.deg * 1.08 } };
+    }),
+  };
+}
+
+export async function run(): Promise<void> {
+  const feed = longFeed();
+  equalizeGroup(feed, { group: 'outputs' });
+  let t = process.cpuUsage();
+  const e = equalizeGroup(feed, { group: 'outputs' });
+  const tEq = cpuMs(t);
+  console.log(`equalize: 64-output feed, one run 3 mm long: ${e.meanders.length} meanders, spread at f0 ${e.spreadDeg.toFixed(3)}° (ledger ${e.ledgerSpreadDeg.toFixed(3)}°): ${tEq.toFixed(0)} ms CPU (target < 1000 ms)`);
+
+  const w = detunedWilkinson();
+  const variables = [
+    { segments: ['arma1', 'arma2', 'armb1', 'armb2'], quantity: 'z0' as const, min: 55, max: 90 },
+    { segments: ['arma1', 'armb1'], quantity: 'degrees' as const, min: 30, max: 70 },
+    { segments: ['arma2', 'armb2'], quantity: 'degrees' as const, min: 25, max: 65 },
+    { segments: ['r1'], quantity: 'value' as const, min: 60, max: 160 },
+  ];
+  await tuneDesign(w, { variables, seed: 1, points: 201 });
+  t = process.cpuUsage();
+  const r = await tuneDesign(w, { variables, seed: 1, points: 201 });
+  const tTune = cpuMs(t);
+  console.log(`tune: Wilkinson, 4 variables, 201 points: ${r.evaluations} evaluations (${r.stopped}), targets met ${r.before.results.filter((x) => x.pass).length} → ${r.after.results.filter((x) => x.pass).length} of ${r.after.results.length}: ${tTune.toFixed(0)} ms CPU (target < 2000 ms)`);
+}

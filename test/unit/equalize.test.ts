@@ -1,0 +1,166 @@
+/**
+ * Equalizing a phase group with meanders (core/network/equalize). The checks are outside the tool's own report:
+ * the ledger of the result is traced afresh (core/layout paths.ts), the response is solved afresh (nodal solve) and
+ * the shop check runs on the result's copper. Designs: the demo feed with one quarter-wave drawn long (our own
+ * detuning), and the generated 64-way corporate feed with one output run 3 mm long.
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import {
+  parseDesign, sizeDesign, tracePaths, equalizeGroup, corporateFeed, netlistFromSized, solveNetwork, sweepFrequencies,
+  checkBoard, History, InputError, serializeDesign, analyzeCoupled, type DesignDoc,
+} from '../../core/index.ts';
+import { initPolygons } from '../../core/geometry/polygons.ts';
+
+const EX = join(import.meta.dirname, '..', '..', 'assets', 'examples');
+const load = (name: string): DesignDoc => {
+  const r = parseDesign(readFileSync(join(EX, name), 'utf8'));
+  if (!r.ok) throw new Error(`${name} refused`);
+  return r.doc;
+};
+
+/** The demo with its left riser 2 mm longer than drawn (the left half moves up): out1 and out2 lag out3 and out4. */
+function unevenDemo(): DesignDoc {
+  const d = load('demo.json');
+  return { ...d, segments: d.segments.map((s) => (s.id === 'risel' && s.kind === 'line' ? { ...s, length: { by: 'length' as const, length: 10e-3 } } : s)) };
+}
+
+/** Largest minus smallest ∠S(out, in) across the band, after taking out the first output's phase, degrees. */
+function sweepPhaseSpread(doc: DesignDoc, from: string, to: string[]): number {
+  const sized = sizeDesign(doc);
+  const r = solveNetwork(netlistFromSized(sized, { line: sized.lineOptions }), sweepFrequencies({ start: doc.frequency.band.start, stop: doc.frequency.band.stop, points: 21 }));
+  const P = r.ports.length, i = r.ports.findIndex((p) => p.name === from);
+  let worst = 0;
+  for (let k = 0; k < r.freqs.length; k++) {
+    const ph = to.map((t) => { const j = r.ports.findIndex((p) => p.name === t); const x = 2 * ((k * P + j) * P + i); return Math.atan2(r.s[x + 1]!, r.s[x]!) * 180 / Math.PI; });
+    const rel = ph.map((p) => ((p - ph[0]! + 540) % 360) - 180);
+    worst = Math.max(worst, Math.max(...rel) - Math.min(...rel));
+  }
+  return worst;
+}
+
+beforeAll(async () => { await initPolygons(); });
+
+describe('equalize a phase group', () => {
+  const doc = unevenDemo();
+  const res = equalizeGroup(doc, { group: 'outputs' });
+
+  it('starts far apart (the detuning is real)', () => {
+    const before = tracePaths(sizeDesign(doc), 'in', ['out1', 'out2', 'out3', 'out4'], { sensitivities: false });
+    expect(before.spreadDeg).toBeGreaterThan(20);
+  });
+  it('lengthens one branch only, the sibling of the long one (a tree: as few pieces as will do)', () => {
+    expect(res.meanders.map((m) => m.piece)).toEqual(['armr']);
+    expect(res.meanders[0]!.addedDeg).toBeGreaterThan(20);
+  });
+  it('ledger spread at f0 ≤ 0.5° on the result, traced afresh (issue 18 acceptance)', () => {
+    const after = tracePaths(sizeDesign(res.doc), 'in', ['out1', 'out2', 'out3', 'out4'], { sensitivities: false });
+    expect(after.spreadDeg).toBeLessThanOrEqual(0.5);
+    // Across the band too (equal lengths of equal lines match at every frequency).
+    for (const p of after.paths) for (const d of p.phaseDiffBandDeg) expect(Math.abs(d)).toBeLessThanOrEqual(0.5);
+  });
+  it('the sweep\'s S21 phase spread is ≤ 1° across the band (nodal solve of the result)', () => {
+    expect(sweepPhaseSpread(doc, 'in', ['out1', 'out2', 'out3', 'out4'])).toBeGreaterThan(15);
+    expect(sweepPhaseSpread(res.doc, 'in', ['out1', 'out2', 'out3', 'out4'])).toBeLessThanOrEqual(1);
+  });
+  it('the shop check of the result is clean (no errors or warnings it did not have before)', () => {
+    const sev = (d: DesignDoc) => checkBoard(sizeDesign(d)).findings.filter((f) => f.severity !== 'info');
+    const before = new Set(sev(doc).map((f) => f.code));
+    const after = sev(res.doc);
+    expect(after.filter((f) => f.severity === 'error')).toEqual([]);
+    expect(after.filter((f) => !before.has(f.code))).toEqual([]);
+  });
+  it('ports and pieces not chosen do not move', () => {
+    const s0 = sizeDesign(doc), s1 = sizeDesign(res.doc);
+    for (const n of s0.nodes) {
+      const m = s1.nodes.find((x) => x.id === n.id)!;
+      expect(Math.hypot(m.pos.x - n.pos.x, m.pos.y - n.pos.y)).toBeLessThan(1e-9);
+    }
+    for (const s of doc.segments) if (s.id !== res.meanders[0]!.piece) expect(res.doc.segments).toContainEqual(s);
+  });
+  it('every meander corner is a mitered vertex, compensated in sizing (Douville & James 1978 miters)', () => {
+    const s1 = sizeDesign(res.doc);
+    const corners = s1.nodes.filter((n) => res.meanders[0]!.nodes.includes(n.id));
+    expect(corners.length).toBeGreaterThan(0);
+    for (const c of corners) expect(c.bend?.style.style).toBe('miter-optimal');
+    const comp = s1.pieces.filter((p) => res.meanders[0]!.segments.includes(p.id)).flatMap((p) => p.compensations.filter((c) => c.model === 'miter-bend' && c.applied));
+    expect(comp.length).toBeGreaterThan(0);
+  });
+  it('is one undo step in the history', () => {
+    const h = new History(doc);
+    h.apply('network.equalize', { nodes: res.doc.nodes, segments: res.doc.segments });
+    h.mark();
+    expect(serializeDesign(h.doc)).toBe(serializeDesign(res.doc));
+    expect(h.undo()).toBe(true);
+    expect(serializeDesign(h.doc)).toBe(serializeDesign(doc));
+  });
+  it('refuses when the chosen pieces have no room, saying how much is missing', () => {
+    try {
+      equalizeGroup(doc, { group: 'outputs', pieces: ['riser'] });
+      expect.unreachable();
+    } catch (e) {
+      expect(e).toBeInstanceOf(InputError);
+      expect((e as InputError).got).toMatch(/needs [\d.]+° .* so [\d.]+ mm is missing/);
+    }
+  });
+  it('names the groups when the group is unknown', () => {
+    expect(() => equalizeGroup(doc, { group: 'nope' })).toThrow(/outputs \(Patch feeds in phase\)/);
+  });
+});
+
+describe('legs spaced by a coupling limit', () => {
+  it('a −40 dB limit widens the gap past 3h, and the legs of the meander keep it (Kirschning–Jansen 1984 modes)', () => {
+    const feed = corporateFeed({ outputs: 4, f0: 5.8e9, pitch: 30e-3, substrate: { h: 0.5e-3 } });
+    const long: DesignDoc = { ...feed, segments: feed.segments.map((s) => (s.id === 'run0' && s.kind === 'line' ? { ...s, length: { by: 'length' as const, length: 14e-3 } } : s)) };
+    const plain = equalizeGroup(long, { group: 'outputs', style: 'trombone' });
+    const limited = equalizeGroup(long, { group: 'outputs', style: 'trombone', couplingLimitDb: -40 });
+    const gapOf = (m: (typeof plain.meanders)[number]) => (m.shape.kind === 'serpentine' ? m.shape.pitch : 0) - sizeDesign(long).pieces.find((p) => p.id === m.piece)!.width;
+    for (const m of plain.meanders) expect(gapOf(m)).toBeCloseTo(3 * 0.5e-3, 9);
+    for (const m of limited.meanders) {
+      const w = sizeDesign(long).pieces.find((p) => p.id === m.piece)!.width;
+      expect(gapOf(m)).toBeGreaterThan(3 * 0.5e-3);
+      expect(analyzeCoupled(long.substrate, w, gapOf(m) * 0.999, long.frequency.f0).couplingDb).toBeLessThan(40 + 0.2);
+      expect(analyzeCoupled(long.substrate, w, gapOf(m), long.frequency.f0).couplingDb).toBeGreaterThanOrEqual(40 - 1e-6);
+    }
+    expect(limited.spreadDeg).toBeLessThanOrEqual(0.5);
+  });
+});
+
+describe('equalize the 64-way feed with one long output run', () => {
+  const feed = corporateFeed({ outputs: 64, f0: 5.8e9, pitch: 15e-3, substrate: { h: 0.5e-3 } });
+  const long: DesignDoc = { ...feed, segments: feed.segments.map((s) => (s.id === 'run5' && s.kind === 'line' ? { ...s, length: { by: 'length' as const, length: 11e-3 } } : s)) };
+  const res = equalizeGroup(long, { group: 'outputs' });
+  it('puts one meander on the sibling branch at each of the six levels', () => {
+    expect(res.meanders).toHaveLength(6);
+  });
+  it('ledger spread ≤ 0.5° at f0, traced afresh', () => {
+    const g = long.phaseGroups[0]!;
+    const spread = tracePaths(sizeDesign(res.doc), g.from, g.to, { sensitivities: false }).spreadDeg;
+    const coupling = Math.max(...res.meanders.map((m) => Math.abs(m.couplingDeg[1])));
+    // The ledger models single lines; the meanders' own coupling (counted by equalize) is what it cannot see.
+    expect(spread).toBeLessThanOrEqual(0.5 + coupling);
+    expect(res.spreadDeg).toBeLessThanOrEqual(0.5);
+  });
+});
+
+describe('equalize a group with offsets (a progressive phase for a tilted beam)', () => {
+  const d = load('demo.json');
+  const offsets = [0, 30, 60, 90];
+  const doc: DesignDoc = { ...d, phaseGroups: d.phaseGroups.map((g) => ({ ...g, offsetsDeg: offsets })) };
+  const res = equalizeGroup(doc, { group: 'outputs' });
+  it('each path ends its offset behind the first at f0, within 0.5°, on the ledger traced afresh', () => {
+    const g = doc.phaseGroups[0]!;
+    const after = tracePaths(sizeDesign(res.doc), g.from, g.to, { sensitivities: false });
+    const level = after.paths.map((p, i) => p.degAtF0 - offsets[i]!);
+    const coupling = res.meanders.reduce((s, m) => s + Math.abs(m.couplingDeg[1]), 0);
+    expect(Math.max(...level) - Math.min(...level)).toBeLessThanOrEqual(0.5 + coupling);
+    expect(res.spreadDeg).toBeLessThanOrEqual(0.5);
+  });
+  it('reports the band-edge error the length offsets imply (they match at f0 only)', () => {
+    // A 90° offset made of line is 90°·f/f0 at f: at the band edges the error is about 90°·|f − f0|/f0 (dispersion aside).
+    const f0 = doc.frequency.f0, edge = (doc.frequency.band.stop - f0) / f0;
+    expect(res.bandSpreadDeg[1]).toBeGreaterThan(0.5 * 90 * edge);
+    expect(res.bandSpreadDeg[1]).toBeLessThan(2 * 90 * edge + 0.5);
+  });
+});
