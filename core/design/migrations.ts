@@ -13,6 +13,7 @@
  *      the centre ('ideal').
  * - 5: `asMade` (how lines are sized for what is made); files written before it keep plain microstrip sizing.
  * - 6: segments may be coupled pairs (kind "coupled", four terminals a, b, c, d).
+ * - 7: `blocks`: blocks placed from a spec keep it (kind, spec, place, members), so they can be re-generated.
  */
 type Json = Record<string, unknown>;
 
@@ -76,6 +77,14 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Purely additive: an older file has no coupled pairs, so only the version moves.
       return { ...doc, version: 6 };
+    },
+  },
+  {
+    from: 6,
+    summary: 'the format now knows placed blocks (blocks made from a spec keep it, so they can be re-generated); nothing in the file changed',
+    up(doc) {
+      // Purely additive: an older file placed no blocks (the list is optional), so every piece stays plain.
+      return { ...doc, version: 7 };
     },
   },
 ];
