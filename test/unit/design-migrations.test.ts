@@ -151,14 +151,14 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations[0]).toBe(5);
+    expect(r.migrations?.[0]).toBe(5);
     expect({ ...r.doc, version: 5 }).toEqual(JSON.parse(text));
   });
   it('6 → 7 moves only the version: an older file placed no blocks (the list is optional)', () => {
     const text = readFileSync(join(FIX, 'v6', 'open-stub-match.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations[0]).toBe(6);
+    expect(r.migrations?.[0]).toBe(6);
     expect(r.doc.blocks).toBeUndefined();
     expect({ ...r.doc, version: 6 }).toEqual(JSON.parse(text));
   });
