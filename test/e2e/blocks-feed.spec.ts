@@ -71,8 +71,8 @@ test('a placed block re-opens from the piece sheet; a hand edit inside it is lis
   await page.getByTestId('piece-list').getByText('b1.feed', { exact: true }).first().click();
   await page.getByTestId('tab-sheet').click();
   await expect(page.getByTestId('piece-block')).toContainText('b1');
-  await page.getByTestId('field-z0').locator('input').fill('55');
-  await page.getByTestId('field-z0').locator('input').press('Enter');
+  await page.getByTestId('field-z0').fill('55');
+  await page.getByTestId('field-z0').press('Enter');
   await page.getByTestId('edit-block-spec').click();
   await page.getByTestId('block-ratio-db').fill('3 dB');
   await page.getByTestId('block-place').click();
