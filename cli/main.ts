@@ -36,7 +36,7 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
   if (first.startsWith('-')) { io.err(`stripwright: unknown option '${first}'; options come after a command.`); io.err(overview()); return 2; }
   const cmd: CliCommand | undefined = COMMANDS.find((c) => c.name === first);
   if (!cmd) { io.err(`stripwright: unknown command '${first}'.`); io.err(overview()); return 2; }
-  if (rest.includes('--help') || rest.includes('-h')) { io.out(cmd.usage); return 0; }
+  if (rest.includes('--help') || rest.includes('-h')) { io.out(cmd.usageFor?.(rest) ?? cmd.usage); return 0; }
   try {
     return await cmd.run(rest, io);
   } catch (err) {

@@ -16,6 +16,8 @@ export interface CliCommand {
   summary: string;
   /** Full usage text, shown by `stripwright help NAME` and after a usage error. */
   usage: string;
+  /** Usage for these arguments, when it depends on them (e.g. `block KIND --help`). */
+  usageFor?(argv: string[]): string;
   run(argv: string[], io: CliIo): Promise<number>;
 }
 

@@ -5,13 +5,14 @@
 import { parseArgs } from 'node:util';
 import { statSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { buildBlock, serializeDesign, parseQuantity, InputError, type BlockSpec, type FabProcess } from '../../core/index.ts';
+import { BLOCKS, buildBlock, serializeDesign, parseQuantity, InputError, type BlockSpec, type FabProcess } from '../../core/index.ts';
 import { writeOutputFile } from '../files.ts';
+import { blockList, kindUsage, registryUsage, runRegistered } from './block-registry.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { countOption } from '../numbers.ts';
 import { substrateOf } from './line.ts';
 
-const usage = `Usage: stripwright block coupler --coupling-db DB --f0 FREQ [substrate] [options] --out FILE.json
+export const legacyUsage = `Usage: stripwright block coupler --coupling-db DB --f0 FREQ [substrate] [options] --out FILE.json
        stripwright block bandpass --order N --f0 FREQ --bw FRACTION [--ripple-db DB] [substrate] [options] --out FILE.json
 
 Writes a complete design (ports, lines, coupled sections, open ends) sized for the substrate and checked against the
@@ -56,9 +57,22 @@ function fraction(text: string): number {
 
 export const blockCommand: CliCommand = {
   name: 'block',
-  summary: 'Write the design of a coupled-line coupler or an edge-coupled band-pass filter',
-  usage,
+  summary: 'Write the design of a block made from a spec (feed, divider, hybrid, transformer, stub match, filter, launch, coupler)',
+  usage: registryUsage(),
+  usageFor(argv) {
+    const kind = argv.find((a) => !a.startsWith('-'));
+    return kind && BLOCKS.some((b) => b.kind === kind) ? kindUsage(kind) : registryUsage();
+  },
   async run(argv: string[], io: CliIo): Promise<number> {
+    const kind = argv.find((a) => !a.startsWith('-'));
+    if (kind === 'list') { io.out(blockList()); return 0; }
+    if (kind !== undefined && kind !== 'coupler' && kind !== 'bandpass') return runRegistered(kind, argv.filter((a) => a !== kind), io);
+    return legacyRun(argv, io);
+  },
+};
+
+async function legacyRun(argv: string[], io: CliIo): Promise<number> {
+  {
     const { values, positionals } = parseArgs({ args: argv, options: OPTIONS, strict: true, allowPositionals: true });
     const kind = positionals[0];
     if (positionals.length !== 1 || (kind !== 'coupler' && kind !== 'bandpass')) throw new UsageError('name one block: coupler or bandpass');
@@ -100,5 +114,5 @@ export const blockCommand: CliCommand = {
       io.err(`stripwright block: ${(e as Error).message}`);
       return 1;
     }
-  },
-};
+  }
+}

@@ -1,11 +1,18 @@
 /**
- * Blocks: pure generator functions that make a complete, sized-ready design from a small spec (a later block registry
- * can wrap them). Each names its design equations in its own file.
+ * Blocks: the registry of parametric blocks (registry.ts) made from a small spec, and the older direct generators
+ * (coupler, band-pass). Each block names its design equations in its own file.
  */
 export { prototypeValues, type PrototypeKind } from './lowpassPrototype.ts';
 export { couplerBlock, type CouplerOptions } from './coupler.ts';
 export { bandpassBlock, bandpassSections, type BandpassOptions } from './bandpassEdgeCoupled.ts';
 export type { BlockBase } from './common.ts';
+export { BLOCKS, blockDef } from './registry.ts';
+export { readSpec, optionName, rangeText, defaultText, displayScale, parseComplex, UNIT_WORDS, type ParamDef, type ParamValue } from './params.ts';
+export type { BlockDef, BlockContext, BlockPieces } from './context.ts';
+export { generateBlock, makeBlockDesign, blockPlacement, placeBlock, handEdits, respecPlacement, freshBlockId, contextOf, fingerprint, type BlockPlacement } from './placed.ts';
+export { transformerSections, chebyshevT } from './kinds/transformer.ts';
+export { wilkinsonValues, branchlineValues } from './kinds/splitters.ts';
+export { singleStubSolutions, doubleStubSolutions, throughLine, stubDegrees, loadFromTouchstone, type StubSolution } from './kinds/stubMatch.ts';
 
 import { couplerBlock, type CouplerOptions } from './coupler.ts';
 import { bandpassBlock, type BandpassOptions } from './bandpassEdgeCoupled.ts';
@@ -16,7 +23,7 @@ import { InputError, describe } from '../util/errors.ts';
 export type BlockSpec = ({ kind: 'coupler' } & CouplerOptions) | ({ kind: 'bandpass' } & BandpassOptions);
 export const BLOCK_KINDS = ['coupler', 'bandpass'] as const;
 
-/** The one entry point of the faces: the complete design of a block. Throws InputError naming the field at fault. */
+/** The complete design of a coupler or band-pass block. Throws InputError naming the field at fault. */
 export function buildBlock(spec: BlockSpec): DesignDoc {
   if (spec === null || typeof spec !== 'object') throw new InputError('bad-choice', 'block', `one of ${BLOCK_KINDS.join(', ')}`, describe(spec));
   if (typeof spec.f0 !== 'number' || !(spec.f0 >= 1e6 && spec.f0 <= 300e9)) throw new InputError(typeof spec.f0 === 'number' && Number.isFinite(spec.f0) ? 'out-of-range' : 'invalid-number', 'f0', 'a centre frequency from 1 MHz to 300 GHz', describe(spec.f0));

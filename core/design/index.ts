@@ -18,3 +18,4 @@ export { diffDesigns, applyDiff, invertDiff, isEmptyDiff, jsonEqual, type Design
 export { History, type HistoryOptions, type HistoryStep } from './history.ts';
 export { namer, nameOf, nodeByName, portNamesText, sParameterName } from './names.ts';
 export { targetSchema, targetsSchema } from './targets-schema.ts';
+export { withBlock, type BlockRecords } from './commands-blocks.ts';

@@ -14,6 +14,7 @@
  * - 5: `asMade` (how lines are sized for what is made); files written before it keep plain microstrip sizing.
  * - 6: segments may be coupled pairs (kind "coupled", four terminals a, b, c, d).
  * - 7: display units (mm or mil) are the app's view setting, no longer kept in the design (`view.units` dropped).
+ * - 8: `blocks`: blocks placed from a spec keep it (kind, spec, place, members), so they can be re-generated.
  */
 type Json = Record<string, unknown>;
 
@@ -88,6 +89,14 @@ export const MIGRATIONS: readonly Migration[] = [
       if (!view || typeof view !== 'object' || Array.isArray(view) || !('units' in view)) return { ...doc, version: 7 };
       const { units: _units, ...rest } = view as Json;
       return { ...doc, version: 7, view: rest };
+    },
+  },
+  {
+    from: 7,
+    summary: 'the format now knows placed blocks (blocks made from a spec keep it, so they can be re-generated); nothing in the file changed',
+    up(doc) {
+      // Purely additive: an older file placed no blocks (the list is optional), so every piece stays plain.
+      return { ...doc, version: 8 };
     },
   },
 ];

@@ -200,6 +200,20 @@ const list = <T extends v.GenericSchema>(item: T, what: string, max: number) =>
 /** How junctions are treated (format 4): published models, or ideal for comparison. */
 export const junctionChoiceSchema = v.picklist(['modelled', 'ideal'], 'junctions "modelled" (published tee and step models) or "ideal" (arms joined at the centre)');
 
+/** A placed block (format 7): kind, spec as checked by its block, placement, members and their fingerprints. */
+export const placedBlockSchema = v.looseObject({
+  id: idSchema,
+  kind: v.pipe(v.string('a block kind'), v.regex(/^[a-z][a-z-]{0,31}$/, 'a block kind such as "corporate"')),
+  spec: v.record(v.pipe(v.string(), v.maxLength(64)), v.union([
+    v.number('a number'), v.string('text'), v.boolean('true or false'),
+    v.pipe(v.array(v.number('a number')), v.maxLength(4096)),
+    v.looseObject({ re: v.number('a number'), im: v.number('a number') }, 'a complex value {re, im}'),
+  ], 'a block parameter value'), 'the block\'s parameters by name'),
+  at: vec2Schema,
+  members: v.pipe(v.array(idSchema, 'a list of record ids'), v.maxLength(L.nodes + L.segments, 'at most as many ids as the design holds')),
+  made: v.record(idSchema, v.pipe(v.string('a fingerprint'), v.maxLength(16)), 'a fingerprint per member'),
+}, 'a placed block {id, kind, spec, at, members, made}');
+
 export function designSchema(version: number) {
   return v.looseObject({
     format: v.literal(DESIGN_FORMAT, `"${DESIGN_FORMAT}"`),
@@ -219,6 +233,7 @@ export function designSchema(version: number) {
     targets: targetsSchema,
     tolerances: tolerancesSchema,
     junctions: v.optional(junctionChoiceSchema),
+    blocks: v.optional(list(placedBlockSchema, 'placed blocks', L.phaseGroups)),
     view: v.optional(v.looseObject({
       grid: v.optional(LEN('a grid step', 0.1)),
     }, 'a view {grid}')),

@@ -101,6 +101,23 @@ export interface PhaseGroup { id: string; name: string; from: string; to: string
  */
 export type JunctionChoice = 'modelled' | 'ideal';
 
+/** A value of a block parameter as stored: SI numbers, choices, lists, a complex impedance or text. */
+export type BlockParamValue = number | string | boolean | number[] | { re: number; im: number };
+
+/**
+ * A block placed from a spec (format 7, core/blocks): its kind, the checked spec, where its first port was placed,
+ * the ids of the records it made (`members`) and a fingerprint of each as made (`made`), so hand edits inside it
+ * can be listed before it is re-generated.
+ */
+export interface PlacedBlock {
+  id: string;
+  kind: string;
+  spec: Record<string, BlockParamValue>;
+  at: Vec2;
+  members: string[];
+  made: Record<string, string>;
+}
+
 export interface DesignDoc {
   format: typeof DESIGN_FORMAT;
   version: number;
@@ -123,6 +140,8 @@ export interface DesignDoc {
   tolerances: Tolerance[];
   /** Junction models (format 4); absent counts as 'modelled'. */
   junctions?: JunctionChoice;
+  /** Blocks placed from a spec (format 8): each keeps its spec so it can be re-opened and re-generated. */
+  blocks?: PlacedBlock[];
   /** Drawing preferences kept with the design (the snap grid); never affect the physics. Display units are the app's (format 7). */
   view?: { grid?: number };
   /** Fields this version does not know are kept here on load and written back on save. */

@@ -159,7 +159,7 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([5, 6]);
+    expect(r.migrations).toEqual([5, 6, 7]);
     expect({ ...r.doc, version: 5 }).toEqual(withoutUnits(JSON.parse(text) as Record<string, unknown>));
   });
 });
@@ -174,5 +174,16 @@ describe('v6 → v7', () => {
     expect(r.migratedFrom).toBe(6);
     expect(r.doc.view).toEqual({ grid: raw.view.grid });
     expect(r.doc.nodes).toEqual(raw.nodes);
+  });
+});
+
+describe('v7 → v8 (placed blocks)', () => {
+  it('7 → 8 moves only the version: an older file placed no blocks (the list is optional)', () => {
+    const text = readFileSync(join(FIX, 'v7', 'open-stub-match.json'), 'utf8');
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations?.[0]).toBe(7);
+    expect(r.doc.blocks).toBeUndefined();
+    expect({ ...r.doc, version: 7 }).toEqual(JSON.parse(text));
   });
 });

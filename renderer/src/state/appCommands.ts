@@ -1,6 +1,7 @@
 /**
  * Every app command with its shortcut, for the keyboard, the menus and the command finder.
  */
+import { BLOCKS } from '../../../core/index.ts';
 import type { AppCommand } from './appCommand.ts';
 import type { EditorState } from './editor.svelte.ts';
 import type { FileActions } from './files.ts';
@@ -15,6 +16,8 @@ export interface ShellHooks {
   tell(title: string, message: string): void;
   /** Opens the spec form of a block (coupled-line coupler, edge-coupled band-pass filter). */
   openBlock?(kind: 'coupler' | 'bandpass'): void;
+  /** Opens the block picker on a kind of the registry (or a placed block's spec, with its id). */
+  pickBlock?(kind: string, editId?: string): void;
 }
 
 export function appCommands(ed: EditorState, files: FileActions, shell: ShellHooks): AppCommand[] {
@@ -57,6 +60,11 @@ export function appCommands(ed: EditorState, files: FileActions, shell: ShellHoo
     { id: 'help.cautions', group: 'Help', label: 'Safety cautions', run: () => shell.tell('Safety cautions', CAUTIONS) },
     { id: 'help.about', group: 'Help', label: 'About Stripwright', run: () => shell.tell('Stripwright', `Version ${APP_VERSION}. Sketch, size, check and export microstrip feed networks for boards made in-house.`) },
   ];
+  if (shell.pickBlock) {
+    const pick = shell.pickBlock;
+    list.push({ id: 'block.pick', group: 'Blocks', label: 'Place a block from a spec…', run: () => pick('corporate') });
+    for (const b of BLOCKS) list.push({ id: `block.${b.kind}`, group: 'Blocks', label: `Place a block: ${b.title.toLowerCase()} (${b.kind})…`, run: () => pick(b.kind) });
+  }
   if (shell.openBlock) {
     const open = shell.openBlock;
     list.push({ id: 'block.coupler', group: 'Blocks', label: 'Place a coupled-line coupler…', run: () => open('coupler') });

@@ -33,3 +33,68 @@ export function placeBlock(ed: EditorState, ask: BlockAsk): string | null {
   ed.status = `Placed: ${block.name}`;
   return null;
 }
+
+// ---- blocks of the registry (core/blocks/registry.ts), placed with their spec (block.put) -------------------------
+
+import { BLOCKS, blockPlacement, contextOf, generateBlock, respecPlacement, sizeDesign, netlistFromSized, solveNetwork, type BlockPlacement, type PlacedBlock } from '../../../core/index.ts';
+
+/** The placed block a record (node or segment id) belongs to, if any. */
+export function blockOf(ed: EditorState, id: string | null): PlacedBlock | null {
+  if (!id) return null;
+  return (ed.doc.blocks ?? []).find((b) => b.members.includes(id)) ?? null;
+}
+
+/** Where a new block goes: at the pointer when it is over the board, else 10 mm right of the drawing. */
+export function placementPoint(ed: EditorState): { x: number; y: number } {
+  if (ed.hoverAt) return { ...ed.hoverAt };
+  const xs = ed.doc.nodes.map((n) => n.at.x), ys = ed.doc.nodes.map((n) => n.at.y);
+  return xs.length ? { x: Math.max(...xs) + 10e-3, y: Math.max(...ys) } : { x: 0, y: 0 };
+}
+
+/** A preview of a block for the form: its placed nodes and pieces, and its ports' transmissions from the first port at f0. */
+export interface BlockPreview { name: string; notes: string[]; pieces: { points: { x: number; y: number }[]; width: number }[]; levels: { port: string; db: number; deg: number }[]; match: number }
+
+export function previewBlock(ed: EditorState, kind: string, raw: Record<string, unknown>): BlockPreview {
+  const { pieces } = generateBlock(kind, raw, contextOf(ed.doc));
+  const doc = { ...ed.doc, nodes: pieces.nodes, segments: pieces.segments, phaseGroups: [], targets: [], blocks: [] };
+  const sized = sizeDesign(doc);
+  const shapes = sized.pieces.filter((p) => sized.centrelines[p.id]).map((p) => ({ points: sized.centrelines[p.id]!, width: Number.isFinite(p.width) ? p.width : 0.5e-3 }));
+  const r = solveNetwork(netlistFromSized(sized), new Float64Array([doc.frequency.f0]));
+  const P = r.ports.length;
+  const at = (i: number, j: number) => { const t = 2 * (i * P + j); return { re: r.s[t]!, im: r.s[t + 1]! }; };
+  const db = (c: { re: number; im: number }) => 20 * Math.log10(Math.max(1e-20, Math.hypot(c.re, c.im)));
+  const levels = r.ports.slice(1).map((p, k) => { const c = at(k + 1, 0); return { port: p.name, db: db(c), deg: (Math.atan2(c.im, c.re) * 180) / Math.PI }; });
+  return { name: pieces.name, notes: pieces.notes, pieces: shapes, levels, match: db(at(0, 0)) };
+}
+
+function put(ed: EditorState, pl: BlockPlacement, label: string): boolean {
+  return ed.edit('block.put', { record: pl.record, nodes: pl.nodes, segments: pl.segments, phaseGroups: pl.phaseGroups, targets: pl.targets }, label);
+}
+
+/** Places a block of the registry at `at`; returns null, or the reason it was not placed (in the user's words). */
+export function placeRegistered(ed: EditorState, kind: string, raw: Record<string, unknown>, at = placementPoint(ed)): string | null {
+  let pl: BlockPlacement;
+  try { pl = blockPlacement(ed.doc, kind, raw, at); } catch (e) { if (e instanceof InputError) return words(e); throw e; }
+  const title = BLOCKS.find((b) => b.kind === kind)?.title ?? kind;
+  if (!put(ed, pl, `Place ${title.toLowerCase()}`)) return ed.status;
+  ed.selectAndFrame(pl.record.members);
+  ed.status = `Placed: ${pl.name}`;
+  return null;
+}
+
+/**
+ * Re-generates placed block `id` from a new spec. With hand edits inside it, `keep` decides: 'regenerate' replaces
+ * them, 'detach' keeps the pieces as they are and forgets the block; without `keep` the edits are returned to ask.
+ */
+export function respecBlock(ed: EditorState, id: string, raw: Record<string, unknown>, keep?: 'regenerate' | 'detach'): string | null | { handEdits: string[] } {
+  let r;
+  try { r = respecPlacement(ed.doc, id, raw); } catch (e) { if (e instanceof InputError) return words(e); throw e; }
+  if (r.handEdits.length && !keep) return { handEdits: r.handEdits };
+  if (keep === 'detach') { ed.edit('block.detach', { id }, 'Detach block'); return null; }
+  if (!put(ed, r.placement, 'Change block spec')) return ed.status;
+  ed.selectAndFrame(r.placement.record.members);
+  ed.status = `Re-made: ${r.placement.name}`;
+  return null;
+}
+
+export function words(e: InputError): string { return `${e.field}: expected ${e.expected}, got ${e.got}${e.hint ? ` (${e.hint})` : ''}`; }

@@ -1,0 +1,119 @@
+/**
+ * What every block generator is given (the laminate, process, design frequency and junction choice of the design it
+ * is made for) and what it returns (pieces with local ids, its phase groups and targets), plus the small drawing
+ * helper they share. Positions drawn here only need the right directions and rough lengths: the design is redrawn
+ * where sizing places it (drawAsPlaced), so the sketch and the board agree.
+ */
+import type { DesignNode, DesignSegment, FabProcess, JunctionChoice, PhaseGroup, SubstrateSpec, Target } from '../design/types.ts';
+import type { Vec2 } from '../geometry/types.ts';
+import { synthesizeLine } from '../line/index.ts';
+import { cutWidth } from '../layout/checks.ts';
+import { InputError } from '../util/errors.ts';
+import type { ParamDef, ParamValue } from './params.ts';
+
+export interface BlockContext {
+  substrate: SubstrateSpec;
+  process: FabProcess;
+  /** Design frequency, Hz. */
+  f0: number;
+  junctions: JunctionChoice;
+}
+
+export interface BlockPieces {
+  /** A name for the design or the placed block. */
+  name: string;
+  nodes: DesignNode[];
+  segments: DesignSegment[];
+  phaseGroups: PhaseGroup[];
+  targets: Target[];
+  /** Design equations and values, one line each, naming the published source. */
+  notes: string[];
+  /** The band the block is meant to be looked at over, Hz. */
+  band: { start: number; stop: number };
+}
+
+export type Spec = Record<string, ParamValue>;
+
+export interface BlockDef {
+  kind: string;
+  title: string;
+  /** One line: what it makes. */
+  summary: string;
+  /** The published design equations it follows. */
+  source: string;
+  params: readonly ParamDef[];
+  generate(spec: Spec, ctx: BlockContext): BlockPieces;
+}
+
+/** The port impedance every block asks for. */
+export const Z0_PARAM: ParamDef = { name: 'z0', type: 'number', unit: 'impedance', min: 10, max: 200, default: 50, meaning: 'System impedance of the ports' };
+/** Length of the port lines. */
+export const FEED_PARAM: ParamDef = { name: 'feed', type: 'number', unit: 'length', min: 0.5e-3, max: 100e-3, default: 5e-3, meaning: 'Length of each port line' };
+
+/** Narrowest copper the process makes, m (etching: its minimum feature; milling: one cut, below which copper lifts). */
+export function narrowestWidth(p: FabProcess): number { return p.kind === 'etch' ? p.minFeature : cutWidth(p); }
+
+/**
+ * Width of a Z line at f0, refused when the process cannot make it: the message names the highest impedance it can
+ * make on this laminate (the nearest it can do).
+ */
+export function widthFor(ctx: BlockContext, z: number, field: string, what: string): number {
+  const r = synthesizeLine(ctx.substrate, z, ctx.f0);
+  const minW = narrowestWidth(ctx.process);
+  if (r.width >= minW) return r.width;
+  let zMax = z;
+  try {
+    // Bisection on the analysis is not needed: the synthesis is monotone, so step down until the width is makeable.
+    for (let k = 0; k < 400 && synthesizeLine(ctx.substrate, zMax, ctx.f0).width < minW; k++) zMax *= 0.99;
+  } catch { /* keep the last value */ }
+  throw new InputError('out-of-range', field, `impedances the process can make (its narrowest copper is ${(minW * 1e3).toFixed(3)} mm, about ${zMax.toFixed(1)} Ω on this laminate)`,
+    `${what} needs ${z.toFixed(1)} Ω, ${(r.width * 1e3).toFixed(3)} mm wide`, 'ask for a smaller ratio or impedance, use a thicker laminate, or a finer process');
+}
+
+/** Guided wavelength of a Z line at f, m. */
+export function lambdaG(ctx: BlockContext, z: number, f = ctx.f0): number { return synthesizeLine(ctx.substrate, z, f).lambdaG; }
+
+/** Collects nodes and segments with local ids, drawn at rough positions. */
+export class Sketch {
+  nodes: DesignNode[] = [];
+  segments: DesignSegment[] = [];
+  port(id: string, at: Vec2, zRef: number, heading: number, label: string, launch?: { padWidth: number; padLength: number }): string {
+    this.nodes.push({ id, kind: 'port', zRef, heading, label, at, ...(launch ? { launch } : {}) });
+    return id;
+  }
+  vertex(id: string, at: Vec2, style: 'miter-optimal' | 'square' = 'miter-optimal'): string {
+    this.nodes.push({ id, kind: 'vertex', bend: { style }, at });
+    return id;
+  }
+  junction(id: string, at: Vec2): string { this.nodes.push({ id, kind: 'junction', at }); return id; }
+  open(id: string, at: Vec2, label?: string): string { this.nodes.push({ id, kind: 'open', at, ...(label ? { label } : {}) }); return id; }
+  short(id: string, at: Vec2, label?: string): string {
+    // A 0.8 mm drill in a 1.4 mm pad: a common hand-drilled via (common practice).
+    this.nodes.push({ id, kind: 'short', via: { drill: 0.8e-3, pad: 1.4e-3, count: 1 }, at, ...(label ? { label } : {}) });
+    return id;
+  }
+  line(id: string, a: string, b: string, z: number, length: { deg: number } | { length: number } | 'drawn', label?: string): void {
+    this.segments.push({
+      id, kind: 'line', a, b, width: { by: 'z0', z0: round6(z) },
+      length: length === 'drawn' ? { by: 'drawn' } : 'deg' in length ? { by: 'degrees', deg: round9(length.deg) } : { by: 'length', length: round9(length.length) },
+      ...(label ? { label } : {}),
+    });
+  }
+  at(id: string): Vec2 { return this.nodes.find((n) => n.id === id)!.at; }
+}
+
+export function round6(x: number): number { return Math.round(x * 1e6) / 1e6; }
+export function round9(x: number): number { return Math.round(x * 1e9) / 1e9; }
+export const deg = (rad: number): number => (rad * 180) / Math.PI;
+export const ghz = (f: number): string => `${+(f / 1e9).toPrecision(5)} GHz`;
+export const ohm = (z: number): string => `${z.toFixed(2)} Ω`;
+
+/**
+ * The smallest resistor footprint whose pad pitch leaves the two arm ends meeting it apart (half their widths plus
+ * 0.5 mm); 0603 at least, a size still soldered by hand (common practice). Pitches as in core/layout/footprints.ts.
+ */
+export function resistorFor(w1: number, w2: number): { size: '0603' | '0805' | '1206'; pitch: number } {
+  const need = (w1 + w2) / 2 + 0.5e-3;
+  for (const f of [{ size: '0603', pitch: 1.6e-3 }, { size: '0805', pitch: 2.0e-3 }] as const) if (f.pitch >= need) return f;
+  return { size: '1206', pitch: 3.1e-3 };
+}

@@ -1,0 +1,192 @@
+/**
+ * Block `corporate`: an N-way feed (2–64 outputs, any count) made of two-way splits, tees or Wilkinson dividers,
+ * with equal or tapered output amplitudes, the outputs at a pitch facing a heading, every path matched in phase.
+ *
+ * Design equations (D. M. Pozar, Microwave Engineering, 4th ed., 2012):
+ * - a lossless tee splits power as the admittances of its arms (§7.2): arms Za = Zj·Ptot/Pa and Zb = Zj·Ptot/Pb in
+ *   parallel present Zj; each arm is brought to the next junction's level by a quarter-wave transformer
+ *   Zq = √(Z_arm·Z_next) (§5.4). The junction level Zj is chosen so the higher-impedance arm is 2·Z0 (the
+ *   equal-split arms of the textbook feed), and the input reaches the first junction through a quarter wave
+ *   √(Z0·Zj) when Zj ≠ Z0;
+ * - a Wilkinson split (Wilkinson 1960; unequal form Pozar §7.3, eqs. 7.37–7.39) with its resistor, its outputs
+ *   brought back to Z0 by quarter waves.
+ * The N outputs split as ⌈n/2⌉ and ⌊n/2⌋ at every level, so any count is reached with the fewest levels.
+ * Phase matched by construction: the feed is sized once with the project's path report (core/layout/paths.ts, the
+ * same junction and bend models the sweep uses), and each output's port line is lengthened by exactly the phase its
+ * path lacks against the longest one; a symmetric tree needs nothing, and its outputs stay on one row.
+ */
+import type { DesignDoc } from '../../design/types.ts';
+import { newDesign } from '../../design/defaults.ts';
+import { sizeDesign } from '../../layout/sizing.ts';
+import { tracePaths } from '../../layout/paths.ts';
+import { InputError } from '../../util/errors.ts';
+import { C0 } from '../../units/index.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec } from '../context.ts';
+import { fitSpans, levelTargets, placeAsSized, type SpanFit } from '../drawn.ts';
+import { wilkinsonValues } from './splitters.ts';
+
+interface Tree { leaves: number[]; power: number; left?: Tree; right?: Tree }
+
+function buildTree(leaves: number[], power: number[]): Tree {
+  const p = leaves.reduce((s, i) => s + power[i]!, 0);
+  if (leaves.length === 1) return { leaves, power: p };
+  const k = Math.ceil(leaves.length / 2);
+  return { leaves, power: p, left: buildTree(leaves.slice(0, k), power), right: buildTree(leaves.slice(k), power) };
+}
+
+export const corporateBlock: BlockDef = {
+  kind: 'corporate',
+  title: 'Corporate feed',
+  summary: 'N-way phase-matched feed of two-way splits (tees or Wilkinson), equal or tapered amplitudes',
+  source: 'Pozar, Microwave Engineering, 4th ed., 2012, §5.4, §7.2 and §7.3; Wilkinson, IRE Trans. MTT-8, 1960',
+  params: [
+    { name: 'outputs', type: 'integer', min: 2, max: 64, default: 4, meaning: 'Number of outputs' },
+    { name: 'split', type: 'choice', choices: ['tee', 'wilkinson'], default: 'tee', meaning: 'Two-way split: lossless tee or Wilkinson divider with resistor' },
+    { name: 'amplitudesDb', type: 'list', unit: 'db', max: 64, optional: true, meaning: 'Relative output levels, dB, one per output (empty = all equal)' },
+    { name: 'pitch', type: 'number', unit: 'length', min: 2e-3, max: 500e-3, optional: true, meaning: 'Distance between neighbouring outputs (default half a free-space wavelength at f0)' },
+    { name: 'heading', type: 'number', unit: 'none', min: -180, max: 180, default: -90, meaning: 'Direction the outputs face, degrees from +x' },
+    Z0_PARAM,
+    FEED_PARAM,
+  ],
+  generate(spec: Spec, ctx: BlockContext) {
+    const n = spec.outputs as number, z0 = spec.z0 as number, feed = spec.feed as number;
+    const wilk = spec.split === 'wilkinson';
+    const dbs = (spec.amplitudesDb as number[] | undefined) ?? [];
+    if (dbs.length && dbs.length !== n) throw new InputError('out-of-range', 'corporate.amplitudesDb', `one level per output (${n} values)`, `${dbs.length} values`, 'give a level for every output, or none for equal amplitudes');
+    if (dbs.some((d) => d < -30 || d > 30)) throw new InputError('out-of-range', 'corporate.amplitudesDb', 'levels from −30 dB to 30 dB', dbs.join(', '));
+    const power = Array.from({ length: n }, (_, i) => Math.pow(10, (dbs[i] ?? 0) / 10));
+    const pitch = (spec.pitch as number | undefined) ?? C0 / ctx.f0 / 2;
+    const tree = buildTree(Array.from({ length: n }, (_, i) => i), power);
+    const sk = new Sketch();
+    const parts: SpanFit[] = [];
+    const outputs: string[] = [];
+    const notes: string[] = [];
+    const xOf = (i: number) => (i - (n - 1) / 2) * pitch;
+    const centre = (t: Tree): number => (t.left ? (centre(t.left) + centre(t.right!)) / 2 : xOf(t.leaves[0]!));
+    let seq = 0;
+    /** Junction level Zj of a split: the higher arm is 2·Z0 (tee); a Wilkinson split works at Z0. */
+    const level = (t: Tree): number => (!t.left || wilk ? z0 : (2 * z0 * Math.min(t.left.power, t.right!.power)) / t.power);
+    const drop = (z: number) => lambdaG(ctx, z) / 4;
+    /** Grows the split of `t` below node `jid` at (x, y); returns nothing: leaves become ports. */
+    const grow = (t: Tree, jid: string, x: number, y: number): void => {
+      if (!t.left) return;
+      const zj = level(t);
+      const kids = [t.left, t.right!];
+      if (!wilk) {
+        kids.forEach((c) => {
+          const k = seq++;
+          const zArm = (zj * t.power) / c.power;
+          widthFor(ctx, zArm, 'corporate.amplitudesDb', `the split arm toward outputs ${c.leaves.map((i) => i + 1).join(', ')}`);
+          const xc = centre(c);
+          const v = sk.vertex(`v${k}`, { x: xc, y });
+          sk.line(`arm${k}`, jid, v, zArm, 'drawn');
+          descend(c, v, xc, y, zArm, k);
+        });
+        return;
+      }
+      // Wilkinson split pointing down: arms leave at ±45°, turn and meet the resistor's pads (resistorFor).
+      const v = wilkinsonValues(z0, 10 * Math.log10(t.left.power / t.right!.power));
+      const fp = resistorFor(widthFor(ctx, v.z2, 'corporate.amplitudesDb', 'a Wilkinson arm'), widthFor(ctx, v.z3, 'corporate.amplitudesDb', 'a Wilkinson arm'));
+      const span = fp.pitch;
+      const ends = kids.map((c, side) => {
+        const k = seq++;
+        const z = side === 0 ? v.z2 : v.z3;
+        widthFor(ctx, z, 'corporate.amplitudesDb', `a Wilkinson arm toward outputs ${c.leaves.map((i) => i + 1).join(', ')}`);
+        const L = drop(z), l1 = (L + span / Math.SQRT2) / 2, l2 = L - l1, d = Math.SQRT1_2, s = side === 0 ? -1 : 1;
+        const a = sk.vertex(`w${k}`, { x: x + s * l1 * d, y: y - l1 * d });
+        const e = sk.vertex(`e${k}`, { x: x + s * (l1 - l2) * d, y: y - (l1 + l2) * d });
+        sk.line(`wa${k}`, jid, a, z, { deg: (90 * l1) / L });
+        sk.line(`wb${k}`, a, e, z, { deg: (90 * l2) / L });
+        const xc = centre(c), ye = sk.at(e).y;
+        const turn = sk.vertex(`h${k}`, { x: xc, y: ye });
+        sk.line(`run${k}`, e, turn, z0, 'drawn');
+        descend(c, turn, xc, ye, side === 0 ? v.t2 : v.t3, k);
+        return e;
+      });
+      const k0 = seq - 2, k1 = seq - 1;
+      parts.push({ part: { id: `r${seq}`, kind: 'lumped', part: 'resistor', value: Math.round(v.r * 100) / 100, size: fp.size, width: { by: 'width', width: 0.8e-3 }, a: ends[0]!, b: ends[1]!, label: 'isolation resistor' }, arms: [[`wa${k0}`, `wb${k0}`], [`wa${k1}`, `wb${k1}`]], span });
+      notes.push(`Split toward outputs ${t.leaves.map((i) => i + 1).join('–')}: Wilkinson arms ${ohm(v.z2)} / ${ohm(v.z3)}, resistor ${ohm(v.r)}, output quarter waves ${ohm(v.t2)} / ${ohm(v.t3)}.`);
+    };
+    /** From the corner above child `c`: its quarter wave down to the next junction (or the output). */
+    const descend = (c: Tree, from: string, x: number, y: number, zAbove: number, k: number): void => {
+      const zNext = c.left ? level(c) : z0;
+      const zq = wilk ? zAbove : Math.sqrt(zAbove * zNext);
+      widthFor(ctx, zq, 'corporate.amplitudesDb', `a quarter-wave transformer toward outputs ${c.leaves.map((i) => i + 1).join(', ')}`);
+      const y2 = y - drop(zq);
+      if (c.left) {
+        const j = sk.junction(`j${k}`, { x, y: y2 });
+        sk.line(`q${k}`, from, j, zq, { deg: 90 }, 'quarter-wave transformer');
+        grow(c, j, x, y2);
+        return;
+      }
+      const t = sk.vertex(`t${k}`, { x, y: y2 }, 'square');
+      sk.line(`q${k}`, from, t, zq, { deg: 90 }, 'quarter-wave transformer');
+      const o = `out${c.leaves[0]! + 1}`;
+      sk.port(o, { x, y: y2 - feed }, z0, Math.PI / 2, `output ${c.leaves[0]! + 1}`);
+      sk.line(`run-${o}`, t, o, z0, { length: feed }, `output ${c.leaves[0]! + 1} line`);
+      outputs.push(o);
+    };
+    const zRoot = level(tree);
+    sk.port('in', { x: 0, y: 2 * feed }, z0, -Math.PI / 2, 'input');
+    if (Math.abs(zRoot - z0) > 1e-9) {
+      sk.vertex('k0', { x: 0, y: feed }, 'square');
+      sk.line('feed', 'in', 'k0', z0, { length: feed });
+      sk.junction('j', { x: 0, y: 0 });
+      sk.line('qin', 'k0', 'j', Math.sqrt(z0 * zRoot), { deg: 90 }, 'input quarter-wave transformer');
+    } else {
+      sk.junction('j', { x: 0, y: 0 });
+      sk.line('feed', 'in', 'j', z0, { length: 2 * feed });
+    }
+    grow(tree, 'j', 0, 0);
+    outputs.sort((a, b) => Number(a.slice(3)) - Number(b.slice(3)));
+    const f0 = ctx.f0;
+    const doc: DesignDoc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process });
+    doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
+    if (parts.length) fitSpans(doc, 'corporate', parts); else placeAsSized(doc, 'corporate');
+    // Phase matching: lengthen each output line by what its path lacks (path report at f0, the sweep's models).
+    const report = tracePaths(sizeDesign(doc), 'in', outputs, { sensitivities: false });
+    const most = Math.max(...report.paths.map((p) => p.degAtF0));
+    let longest = 0;
+    for (const p of report.paths) {
+      const lack = most - p.degAtF0;
+      if (lack < 1e-6) continue;
+      const seg = doc.segments.find((s) => s.id === `run-${p.to}`)!;
+      if (seg.kind !== 'line') continue;
+      const feedDeg = (360 * feed) / lambdaG(ctx, z0);
+      seg.length = { by: 'degrees', deg: Math.round((feedDeg + lack) * 1e9) / 1e9 };
+      longest = Math.max(longest, (lack / 360) * lambdaG(ctx, z0));
+    }
+    placeAsSized(doc, 'corporate');
+    rotate(doc, ((spec.heading as number) + 90) * (Math.PI / 180));
+    const total = power.reduce((s, p) => s + p, 0);
+    const levels = power.map((p) => 10 * Math.log10(p / total));
+    notes.unshift(
+      `${corporateBlock.title} (${corporateBlock.source}): ${n} outputs at ${(pitch * 1e3).toFixed(2)} mm pitch, ${wilk ? 'Wilkinson' : 'tee'} splits, ${ghz(f0)}, ${z0} Ω.`,
+      `Output levels (ideal): ${levels.map((l) => l.toFixed(2)).join(', ')} dB.`,
+      longest > 0 ? `Paths matched by lengthening output lines (longest addition ${(longest * 1e3).toFixed(2)} mm), so those outputs sit that much lower than the row.` : 'The tree is symmetric: every path is alike and the outputs stay on one row.',
+    );
+    return {
+      name: `${n}-way corporate feed, ${ghz(f0)}`,
+      nodes: doc.nodes, segments: doc.segments,
+      phaseGroups: [{ id: 'outputs', name: 'outputs in phase', from: 'in', to: outputs, toleranceDeg: 5 }],
+      targets: [
+        { id: 'phase', name: 'outputs in phase', figure: 'phase-spread', group: 'outputs', band: { start: f0, stop: f0 }, limit: { max: 5 } },
+        { id: 'match', name: 'input matched', figure: 'return-loss', ports: ['in'], band: { start: f0 * 0.98, stop: f0 * 1.02 }, limit: { min: 15 } },
+        ...levelTargets(doc, 'in', outputs, outputs.map((o) => levels[Number(o.slice(3)) - 1]!), { start: f0, stop: f0 }),
+      ],
+      notes,
+      band: { start: f0 * 0.8, stop: f0 * 1.2 },
+    };
+  },
+};
+
+/** Turns the whole drawing about the input by `a` radians (port headings too). */
+function rotate(doc: DesignDoc, a: number): void {
+  if (Math.abs(a) < 1e-12) return;
+  const c = Math.cos(a), s = Math.sin(a);
+  for (const n of doc.nodes) {
+    const { x, y } = n.at;
+    n.at = { x: Math.round((c * x - s * y) * 1e9) / 1e9, y: Math.round((s * x + c * y) * 1e9) / 1e9 };
+    if (n.kind === 'port') n.heading = Math.atan2(Math.sin(n.heading + a), Math.cos(n.heading + a));
+  }
+}

@@ -1,0 +1,140 @@
+/**
+ * Blocks as design data: making a whole design from a block (`makeBlockDesign`, the CLI's --out), adding a block
+ * to a design (`blockPlacement`: the pieces and the record the `block.put` command stores), changing a placed
+ * block's spec (`respecPlacement`: lists the hand edits inside it first) and detaching it (`block.detach`).
+ * The record (`PlacedBlock`, design format 7) keeps the kind, the spec as given, where it was placed and the ids it
+ * made, so the block can be re-opened and re-generated.
+ */
+import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target } from '../design/types.ts';
+import { newDesign } from '../design/defaults.ts';
+import { withBlock } from '../design/commands-blocks.ts';
+import type { Vec2 } from '../geometry/types.ts';
+import { InputError } from '../util/errors.ts';
+import { blockDef } from './registry.ts';
+import { readSpec, type ParamValue } from './params.ts';
+import type { BlockContext, BlockPieces } from './context.ts';
+import { placeAsSized } from './drawn.ts';
+
+/** The design's own laminate, process, f0 and junctions, as a block context. */
+export function contextOf(doc: DesignDoc): BlockContext {
+  return { substrate: doc.substrate, process: doc.process, f0: doc.frequency.f0, junctions: doc.junctions ?? 'modelled' };
+}
+
+/** Checks the spec (text with units or SI numbers) and generates the block's pieces, placed where sizing puts them. */
+export function generateBlock(kind: string, raw: Record<string, unknown>, ctx: BlockContext): { spec: Record<string, ParamValue>; pieces: BlockPieces } {
+  const def = blockDef(kind);
+  const spec = readSpec(kind, def.params, raw);
+  const pieces = def.generate(spec, ctx);
+  // Every block is laid out once on its own, so a spec sizing cannot realise is refused here, naming the problem.
+  const probe = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process });
+  probe.junctions = ctx.junctions; probe.nodes = pieces.nodes; probe.segments = pieces.segments;
+  placeAsSized(probe, kind);
+  return { spec, pieces };
+}
+
+/** Extent of the drawn nodes. */
+function extent(nodes: { at: Vec2 }[]): { x0: number; y0: number; x1: number; y1: number } {
+  const xs = nodes.map((n) => n.at.x), ys = nodes.map((n) => n.at.y);
+  return { x0: Math.min(...xs), y0: Math.min(...ys), x1: Math.max(...xs), y1: Math.max(...ys) };
+}
+
+/**
+ * A complete design of one block: laminate, band, ports, board edge (a 5 mm margin, common practice for hand-cut
+ * boards), phase groups and targets. `build`, `sweep` and `export` take it as is.
+ */
+export function makeBlockDesign(kind: string, raw: Record<string, unknown>, base: { f0: number; substrate?: DesignDoc['substrate']; process?: DesignDoc['process']; name?: string; junctions?: DesignDoc['junctions'] }): DesignDoc {
+  const doc = newDesign({ f0: base.f0, ...(base.substrate ? { substrate: base.substrate } : {}), ...(base.process ? { process: base.process } : {}) });
+  doc.junctions = base.junctions ?? 'modelled';
+  return placeBlock(doc, kind, raw, { x: 0, y: 0 }, { asWhole: true, ...(base.name ? { name: base.name } : {}) });
+}
+
+/** The records a placement adds: pieces under ids prefixed by the block id, and the block record. */
+export interface BlockPlacement {
+  record: PlacedBlock;
+  nodes: DesignNode[];
+  segments: DesignSegment[];
+  phaseGroups: PhaseGroup[];
+  targets: Target[];
+  name: string;
+  notes: string[];
+}
+
+/** A fresh block id (`b1`, `b2`, …) not used by any record of the design. */
+export function freshBlockId(doc: DesignDoc): string {
+  const used = new Set([...doc.nodes.map((n) => n.id), ...doc.segments.map((s) => s.id), ...(doc.blocks ?? []).map((b) => b.id), ...doc.phaseGroups.map((g) => g.id), ...doc.targets.map((t) => t.id)]);
+  for (let k = 1; ; k++) if (![...used].some((u) => u === `b${k}` || u.startsWith(`b${k}.`))) return `b${k}`;
+}
+
+/**
+ * The pieces of a block for `doc`, made with its laminate, process and f0, prefixed `id.` and moved so the block's
+ * first port sits at `at`. Pure: the caller adds them with the `block.put` command (one undo step).
+ */
+export function blockPlacement(doc: DesignDoc, kind: string, raw: Record<string, unknown>, at: Vec2, id = freshBlockId(doc)): BlockPlacement {
+  const { spec, pieces } = generateBlock(kind, raw, contextOf(doc));
+  const anchor = pieces.nodes.find((n) => n.kind === 'port') ?? pieces.nodes[0]!;
+  const dx = at.x - anchor.at.x, dy = at.y - anchor.at.y;
+  const p = (s: string) => `${id}.${s}`;
+  const nodes = pieces.nodes.map((n) => ({ ...n, id: p(n.id), at: { x: nm(n.at.x + dx), y: nm(n.at.y + dy) } }));
+  const segments = pieces.segments.map((s) => (s.kind === 'coupled' ? { ...s, id: p(s.id), a: p(s.a), b: p(s.b), c: p(s.c), d: p(s.d) } : { ...s, id: p(s.id), a: p(s.a), b: p(s.b) }));
+  const phaseGroups = pieces.phaseGroups.map((g) => ({ ...g, id: p(g.id), from: p(g.from), to: g.to.map(p) }));
+  const targets = pieces.targets.map((t) => ({ ...t, id: p(t.id), ...(t.ports ? { ports: t.ports.map(p) } : {}), ...(t.group ? { group: p(t.group) } : {}) }));
+  const record: PlacedBlock = {
+    id, kind, spec: spec as PlacedBlock['spec'], at: { x: nm(at.x), y: nm(at.y) },
+    members: [...nodes.map((n) => n.id), ...segments.map((s) => s.id)],
+    made: Object.fromEntries([...nodes, ...segments].map((r) => [r.id, fingerprint(r)])),
+  };
+  return { record, nodes, segments, phaseGroups, targets, name: pieces.name, notes: pieces.notes };
+}
+
+/** Adds a block to a copy of `doc` (`asWhole`: the design is the block: its name, notes, band and board edge follow it). */
+export function placeBlock(doc: DesignDoc, kind: string, raw: Record<string, unknown>, at: Vec2, opts: { asWhole?: boolean; name?: string } = {}): DesignDoc {
+  const pl = blockPlacement(doc, kind, raw, at);
+  let next = withBlock(doc, pl);
+  if (opts.asWhole) {
+    const e = extent(pl.nodes), m = 5e-3;
+    const band = generateBlock(kind, raw, contextOf(doc)).pieces.band;
+    next = {
+      ...next, name: opts.name ?? pl.name, notes: [...pl.notes, 'Safety: transmitting into a made board needs the usual RF-exposure care and a licence where your local rules ask for one; milling glass-epoxy makes fine dust (extraction and a mask, common practice).'].join('\n'),
+      frequency: { f0: doc.frequency.f0, band },
+      board: { outline: [{ x: nm(e.x0 - m), y: nm(e.y0 - m) }, { x: nm(e.x1 + m), y: nm(e.y0 - m) }, { x: nm(e.x1 + m), y: nm(e.y1 + m) }, { x: nm(e.x0 - m), y: nm(e.y1 + m) }] },
+    };
+  }
+  return next;
+}
+
+/** What changed by hand inside a placed block since it was made: ids edited, removed or added to its members. */
+export function handEdits(doc: DesignDoc, id: string): string[] {
+  const rec = (doc.blocks ?? []).find((b) => b.id === id);
+  if (!rec) throw new InputError('bad-choice', 'block', `a placed block of this design (${(doc.blocks ?? []).map((b) => b.id).join(', ') || 'none'})`, id);
+  const before = new Map<string, string>(Object.entries(rec.made));
+  const now = new Map<string, string>([...doc.nodes, ...doc.segments].filter((r) => before.has(r.id) || r.id.startsWith(`${id}.`)).map((r) => [r.id, fingerprint(r)]));
+  const out: string[] = [];
+  for (const [k, v] of before) {
+    if (!now.has(k)) out.push(`${k} removed`);
+    else if (now.get(k) !== v) out.push(`${k} changed`);
+  }
+  for (const k of now.keys()) if (!before.has(k)) out.push(`${k} added`);
+  return out;
+}
+
+/**
+ * Re-generates placed block `id` with a new spec (same place). Returns the placement for `block.put` and the hand
+ * edits it would overwrite; the face shows them and lets the user keep the block (re-generate) or detach it.
+ */
+export function respecPlacement(doc: DesignDoc, id: string, raw: Record<string, unknown>): { placement: BlockPlacement; handEdits: string[] } {
+  const edits = handEdits(doc, id);
+  const rec = doc.blocks!.find((b) => b.id === id)!;
+  return { placement: blockPlacement(doc, rec.kind, raw, rec.at, id), handEdits: edits };
+}
+
+/**
+ * A short fingerprint of a record (FNV-1a, 32 bits, over its JSON with sorted keys), kept per member so a later
+ * hand edit can be found without storing the pieces twice.
+ */
+export function fingerprint(r: unknown): string {
+  const text = JSON.stringify(r, (_k, v: unknown) => (v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v as Record<string, unknown>).sort(([a], [b]) => a.localeCompare(b))) : v));
+  let h = 0x811c9dc5;
+  for (let i = 0; i < text.length; i++) { h ^= text.charCodeAt(i); h = Math.imul(h, 0x01000193) >>> 0; }
+  return h.toString(16).padStart(8, '0');
+}
+const nm = (x: number) => Math.round(x * 1e9) / 1e9;

@@ -1,0 +1,63 @@
+/**
+ * Commands for blocks placed from a spec (format 7; the pieces themselves are made by core/blocks, above this
+ * layer, and handed in as data): `block.put` adds a block's records, or replaces those of the placed block with the
+ * same id (a re-generated spec); `block.detach` forgets the block record and keeps its pieces as plain pieces.
+ * Both are checked with the file's own schemas and the cross-record check, so undo replays them like any edit.
+ */
+import * as v from 'valibot';
+import { InputError } from '../util/errors.ts';
+import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target } from './types.ts';
+import { nodeSchema, segmentSchema, phaseGroupSchema, placedBlockSchema } from './schema.ts';
+import { targetsSchema } from './targets-schema.ts';
+import { checkWith, type Args } from './command-args.ts';
+import { crossCheck } from './crossref.ts';
+
+interface Command { id: string; label: string; run(doc: DesignDoc, args: Args): DesignDoc }
+
+function settled(id: string, doc: DesignDoc): DesignDoc {
+  const e = crossCheck(doc).errors[0];
+  if (e) throw new InputError('invalid-design', e.path, e.expected, `${e.found} after ${id}`, 'the edit was not made');
+  return doc;
+}
+
+export interface BlockRecords { record: PlacedBlock; nodes: DesignNode[]; segments: DesignSegment[]; phaseGroups: PhaseGroup[]; targets: Target[] }
+
+/** The design with the block's records added, replacing those of a placed block of the same id (its members, and its groups and targets, whose ids start with `id.`). */
+export function withBlock(doc: DesignDoc, pl: BlockRecords): DesignDoc {
+  const id = pl.record.id;
+  const old = (doc.blocks ?? []).find((b) => b.id === id);
+  const gone = new Set(old ? old.members : []);
+  const mine = (x: string) => old !== undefined && x.startsWith(`${id}.`);
+  return {
+    ...doc,
+    nodes: [...doc.nodes.filter((n) => !gone.has(n.id)), ...pl.nodes],
+    segments: [...doc.segments.filter((s) => !gone.has(s.id)), ...pl.segments],
+    phaseGroups: [...doc.phaseGroups.filter((g) => !mine(g.id)), ...pl.phaseGroups],
+    targets: [...doc.targets.filter((t) => !mine(t.id)), ...pl.targets],
+    blocks: [...(doc.blocks ?? []).filter((b) => b.id !== id), pl.record],
+  };
+}
+
+export const blockPut: Command = {
+  id: 'block.put', label: 'Place block',
+  run(doc, a) {
+    const rec: BlockRecords = {
+      record: checkWith(placedBlockSchema, a.record, 'args.record') as PlacedBlock,
+      nodes: checkWith(v.array(nodeSchema), a.nodes, 'args.nodes') as DesignNode[],
+      segments: checkWith(v.array(segmentSchema), a.segments, 'args.segments') as DesignSegment[],
+      phaseGroups: checkWith(v.array(phaseGroupSchema), a.phaseGroups ?? [], 'args.phaseGroups') as PhaseGroup[],
+      targets: checkWith(targetsSchema, a.targets ?? [], 'args.targets') as Target[],
+    };
+    return settled(this.id, withBlock(doc, rec));
+  },
+};
+
+export const blockDetach: Command = {
+  id: 'block.detach', label: 'Detach block',
+  run(doc, a) {
+    const id = a.id;
+    const blocks = doc.blocks ?? [];
+    if (typeof id !== 'string' || !blocks.some((b) => b.id === id)) throw new InputError('bad-choice', 'args.id', `a placed block of this design (${blocks.map((b) => b.id).join(', ') || 'none'})`, JSON.stringify(id));
+    return { ...doc, blocks: blocks.filter((b) => b.id !== id) };
+  },
+};
