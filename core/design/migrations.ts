@@ -13,6 +13,7 @@
  *      the centre ('ideal').
  * - 5: `asMade` (how lines are sized for what is made); files written before it keep plain microstrip sizing.
  * - 6: segments may be coupled pairs (kind "coupled", four terminals a, b, c, d).
+ * - 7: `sweep`: a design may keep its own sweep settings (start, stop, points, spacing).
  */
 type Json = Record<string, unknown>;
 
@@ -76,6 +77,14 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Purely additive: an older file has no coupled pairs, so only the version moves.
       return { ...doc, version: 6 };
+    },
+  },
+  {
+    from: 6,
+    summary: 'designs may keep their own sweep settings (start, stop, points, linear or log); this file has none, so it is swept over its band as before',
+    up(doc) {
+      // Purely additive: without `sweep` every face sweeps the band widened to f0 at 201 points, as version 6 did.
+      return { ...doc, version: 7 };
     },
   },
 ];

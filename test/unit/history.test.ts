@@ -43,6 +43,7 @@ function everyCommand(d: DesignDoc): [string, Record<string, unknown>][] {
     ['phaseGroup.set', { id: 'outputs', toleranceDeg: 3 }],
     ['view.set', { units: 'mil' }],
     ['design.setTargets', { targets: [{ id: 'match', figure: 'return-loss', ports: ['in'], band: { start: 5.7e9, stop: 5.9e9 }, limit: { min: 12 } }] }],
+    ['design.setSweep', { sweep: { start: 5e9, stop: 6.5e9, points: 401, spacing: 'linear' } }],
     ['design.setTolerances', { tolerances: [{ quantity: 'er', distribution: 'normal', spread: 0.05, scope: 'board' }] }],
   ];
 }
