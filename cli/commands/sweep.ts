@@ -10,8 +10,8 @@ import { basename, resolve } from 'node:path';
 import {
   InputError, parseDesign, formatQuantity, portLabel, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
   readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
-  phaseBalance, isolation, portIndex, compareResponses, MAX_POINTS,
-  type NetworkResponse, type TouchstoneData, type JunctionChoice, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
+  phaseBalance, isolation, portIndex, compareResponses, MAX_POINTS, designSweepSettings,
+  type NetworkResponse, type DesignDoc, type TouchstoneData, type JunctionChoice, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
 } from '../../core/index.ts';
 import { countOption, quantityOption } from '../numbers.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
@@ -25,7 +25,7 @@ Computes the S-parameters of a design (FILE.json) across frequency: every piece 
 with open ends, vias, part pads and S-parameter parts, solved by nodal analysis. A Touchstone file
 (FILE.s1p, .s2p, …) is read and summarised instead, e.g. to look at a measured board.
 
-Sweep (default: the design's band, 201 linear points, widened to include f0):
+Sweep (default: the design's own sweep settings, else its band, 201 linear points, widened to include f0):
   --from FREQ, --to FREQ   band edges, e.g. 2.3GHz, 2500MHz
   --points N               number of frequencies (1 to ${MAX_POINTS})
   --log                    logarithmic spacing
@@ -141,11 +141,14 @@ export const sweepCommand: CliCommand = {
 
 interface SweepFlags { from?: number; to?: number; points?: number; log?: boolean; junctions?: JunctionChoice | undefined; freqs?: Float64Array }
 
-function settingsFor(band: { start: number; stop: number }, f0: number | undefined, s: SweepFlags): SweepSettings {
+function settingsFor(doc: Pick<DesignDoc, 'frequency' | 'sweep'>, s: SweepFlags): SweepSettings {
+  // Without flags: the design's own sweep settings (or its band), the same frequencies the app sweeps.
+  if (s.from === undefined && s.to === undefined && s.points === undefined && s.log === undefined) return designSweepSettings(doc);
+  const band = doc.sweep ?? doc.frequency.band, f0 = doc.sweep ? undefined : doc.frequency.f0;
   let start = s.from ?? band.start, stop = s.to ?? band.stop;
   if (s.from === undefined && s.to === undefined && f0 !== undefined) { start = Math.min(start, f0); stop = Math.max(stop, f0); }
   if (stop < start) throw new UsageError(`--to (${formatQuantity(stop, 'frequency')}) must not be below --from (${formatQuantity(start, 'frequency')})`);
-  return { start, stop, points: s.points ?? (start === stop ? 1 : 201), log: s.log ?? false };
+  return { start, stop, points: s.points ?? (start === stop ? 1 : doc.sweep?.points ?? 201), log: s.log ?? doc.sweep?.spacing === 'log' };
 }
 
 async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo): Promise<Loaded | null> {
@@ -158,7 +161,7 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
   const doc = parsed.doc;
   const sized = sizeDesign(doc, s.junctions ? { junctions: s.junctions } : {});
   const net = netlistFromSized(sized, sized.lineOptions ? { line: sized.lineOptions } : {});
-  const settings: SweepSettings | Float64Array = s.freqs ?? settingsFor(doc.frequency.band, doc.frequency.f0, s);
+  const settings: SweepSettings | Float64Array = s.freqs ?? settingsFor(doc, s);
   let lastShown = -1;
   const tty = Boolean((process.stderr as { isTTY?: boolean }).isTTY);
   const response = await sweepNetwork(net, settings, {

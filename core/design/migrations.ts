@@ -15,6 +15,7 @@
  * - 6: segments may be coupled pairs (kind "coupled", four terminals a, b, c, d).
  * - 7: display units (mm or mil) are the app's view setting, no longer kept in the design (`view.units` dropped).
  * - 8: `blocks`: blocks placed from a spec keep it (kind, spec, place, members), so they can be re-generated.
+ * - 9: `sweep`: a design may keep its own sweep settings (start, stop, points, spacing).
  */
 type Json = Record<string, unknown>;
 
@@ -97,6 +98,14 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Purely additive: an older file placed no blocks (the list is optional), so every piece stays plain.
       return { ...doc, version: 8 };
+    },
+  },
+  {
+    from: 8,
+    summary: 'designs may keep their own sweep settings (start, stop, points, linear or log); this file has none, so it is swept over its band as before',
+    up(doc) {
+      // Purely additive: without `sweep` every face sweeps the band widened to f0 at 201 points, as before.
+      return { ...doc, version: 9 };
     },
   },
 ];

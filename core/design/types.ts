@@ -12,9 +12,11 @@
 import type { Vec2 } from '../geometry/types.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import type { Target, Tolerance } from './targets.ts';
+import type { SweepSpec } from './sweep-settings.ts';
 
 export type { SubstrateSpec };
 export type * from './targets.ts';
+export type { SweepSpec } from './sweep-settings.ts';
 
 export const DESIGN_FORMAT = 'stripwright-design';
 
@@ -142,6 +144,8 @@ export interface DesignDoc {
   junctions?: JunctionChoice;
   /** Blocks placed from a spec (format 8): each keeps its spec so it can be re-opened and re-generated. */
   blocks?: PlacedBlock[];
+  /** The design's own sweep (format 9; core/design/sweep-settings.ts); absent = the band widened to f0, 201 points. */
+  sweep?: SweepSpec;
   /** Drawing preferences kept with the design (the snap grid); never affect the physics. Display units are the app's (format 7). */
   view?: { grid?: number };
   /** Fields this version does not know are kept here on load and written back on save. */

@@ -8,7 +8,8 @@ import type { FromSizedOptions } from './fromSized.ts';
 import { SweepCache, designHash, type SweepSettings } from './sweep.ts';
 
 export function responseCacheKey(doc: DesignDoc, settings: SweepSettings, opts: FromSizedOptions = {}): string {
-  const { name: _name, notes: _notes, view: _view, app: _app, ...physics } = doc;
-  void _name; void _notes; void _view; void _app;
+  // The design's own sweep settings are left out too: the settings themselves are part of the key.
+  const { name: _name, notes: _notes, view: _view, app: _app, sweep: _sweep, ...physics } = doc;
+  void _name; void _notes; void _view; void _app; void _sweep;
   return SweepCache.key(designHash(physics), settings, designHash(opts));
 }

@@ -22,6 +22,8 @@ export { netlistFromSized, sweepRangeWarnings, type FromSizedOptions, type Sized
 export { starAdmittance, type StarArm, type StarState } from './junctionStar.ts';
 export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';
 export { responseCacheKey } from './cacheKey.ts';
+export { designSweepSettings, DEFAULT_SWEEP_POINTS } from './designSweep.ts';
+export { figureTable, MAX_ISOLATION_ROWS, type FigureTable, type FigureRow, type FigureKind } from './figureTable.ts';
 export { evaluateTargets, evaluateTarget, targetFrequencies, targetText, limitText, type TargetEvaluation, type TargetResult } from './targets.ts';
 export { coupledPairY, modeConstants } from './coupledPair.ts';
 export * from './coupon/index.ts';

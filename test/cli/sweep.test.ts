@@ -17,6 +17,20 @@ const WILK = join(ROOT, 'assets', 'examples', 'wilkinson-2g45.json');
 const dir = mkdtempSync(join(tmpdir(), 'sw-sweep-'));
 
 describe('stripwright sweep', () => {
+  it('sweeps at the design\'s own settings (format 7), the frequencies the app uses; flags still win', () => {
+    const doc = JSON.parse(readFileSync(WILK, 'utf8'));
+    doc.sweep = { start: 2e9, stop: 3e9, points: 5, spacing: 'log' };
+    const file = join(dir, 'wilk-own-sweep.json');
+    writeFileSync(file, JSON.stringify(doc));
+    const a = JSON.parse(cli(['sweep', file, '--json']).stdout);
+    // Logarithmic: 2, 2·1.5^(1/4), …, 3 GHz (equal ratios).
+    expect(a.frequencies.length).toBe(5);
+    expect(a.frequencies[0]).toBe(2e9);
+    expect(a.frequencies[2]).toBeCloseTo(Math.sqrt(6) * 1e9, 0);
+    const b = JSON.parse(cli(['sweep', file, '--json', '--points', '3']).stdout);
+    expect(b.frequencies).toHaveLength(3);
+    expect(b.frequencies[1]).toBeCloseTo(Math.sqrt(6) * 1e9, 0);
+  });
   it('--junctions ideal sweeps with the arms joined at the junction centres, for comparison', () => {
     const file = join(ROOT, 'assets', 'examples', 'open-stub-match.json');
     const a = JSON.parse(cli(['sweep', file, '--points', '3', '--json']).stdout);

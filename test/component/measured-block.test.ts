@@ -9,6 +9,7 @@ import { describe, expect, it, vi } from 'vitest';
 import { render, fireEvent, screen, waitFor } from '@testing-library/svelte';
 import { flushSync } from 'svelte';
 import { responseJob } from '../../renderer/src/worker/jobs.ts';
+import { designSweepSettings } from '../../core/network/index.ts';
 import { sizeDesign } from '../../core/layout/index.ts';
 import { netlistFromSized } from '../../core/network/index.ts';
 import { editorOn, sized } from './harness.ts';
@@ -54,9 +55,9 @@ describe('measured block from a Touchstone file', () => {
 
   it('the design with the block sweeps like the one with the part, apart from the pads the part keeps', async () => {
     const ed = wilkinson();
-    const lumped = await responseJob({ doc: ed.doc, points: 21 }, () => {});
+    const lumped = await responseJob({ doc: ed.doc, settings: { ...designSweepSettings(ed.doc), points: 21 } }, () => {});
     expect(ed.useMeasuredData('r1', 'r100.s2p', SERIES_100_OHM)).toBeNull();
-    const measured = await responseJob({ doc: ed.doc, points: 21 }, () => {});
+    const measured = await responseJob({ doc: ed.doc, settings: { ...designSweepSettings(ed.doc), points: 21 } }, () => {});
     // A part's pads shorten the lines that meet it; a measured block's reference planes are its ends, so the arms
     // differ by the pad length and the responses by a few thousandths, not more.
     for (const t of lumped.traces) {

@@ -159,7 +159,7 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([5, 6, 7]);
+    expect(r.migrations).toEqual([5, 6, 7, 8]);
     expect({ ...r.doc, version: 5 }).toEqual(withoutUnits(JSON.parse(text) as Record<string, unknown>));
   });
 });
@@ -185,5 +185,16 @@ describe('v7 → v8 (placed blocks)', () => {
     expect(r.migrations?.[0]).toBe(7);
     expect(r.doc.blocks).toBeUndefined();
     expect({ ...r.doc, version: 7 }).toEqual(JSON.parse(text));
+  });
+});
+
+describe('v8 → v9 (a design\'s own sweep settings)', () => {
+  it('moves only the version: an older file has no settings and keeps being swept over its band', () => {
+    const text = readFileSync(join(FIX, 'v8', 'open-stub-no-sweep.json'), 'utf8');
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toEqual([8]);
+    expect({ ...r.doc, version: 8 }).toEqual(JSON.parse(text));
+    expect(r.doc.sweep).toBeUndefined();
   });
 });

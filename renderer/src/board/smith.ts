@@ -2,8 +2,9 @@
  * The Smith chart grid and traces, as data then drawn with svg.js. Geometry of the chart (P. H. Smith, 1939):
  * the circle of constant normalised resistance r has centre (r/(1+r), 0) and radius 1/(1+r); the arc of constant
  * normalised reactance x has centre (1, 1/x) and radius 1/|x|, both in the reflection-coefficient plane.
+ * Each circle is labelled: r where it meets the real axis (Γ = (r − 1)/(r + 1)), x where its arc meets the rim.
  */
-import { SVG, type Svg } from '@svgdotjs/svg.js';
+import { SVG, type G, type Svg } from '@svgdotjs/svg.js';
 
 export const R_CIRCLES = [0, 0.2, 0.5, 1, 2, 5];
 export const X_ARCS = [0.2, 0.5, 1, 2, 5];
@@ -24,10 +25,20 @@ export function gammaOf(r: number, x: number): { re: number; im: number } {
 
 export interface SmithTrace { name: string; re: number[]; im: number[]; cls: string }
 
+export interface SmithDrawing {
+  svg: Svg;
+  /** Layer for marker dots and the hover dot, in Γ coordinates (y up). */
+  marks: G;
+  /** Γ under a client point. */
+  toGamma(clientX: number, clientY: number): { re: number; im: number };
+}
+
+const VIEW = 1.22;
+
 /** Draws the chart into `host` (replacing what was there). Γ-plane y up; the svg's y is flipped in the transform. */
-export function drawSmith(host: HTMLElement, traces: SmithTrace[], marker: number | null): Svg {
+export function drawSmith(host: HTMLElement, traces: SmithTrace[]): SmithDrawing {
   host.replaceChildren();
-  const svg = SVG().addTo(host).viewbox(-1.08, -1.08, 2.16, 2.16).addClass('smith');
+  const svg = SVG().addTo(host).viewbox(-VIEW, -VIEW, 2 * VIEW, 2 * VIEW).addClass('smith');
   const clipId = `sm-clip-${Math.random().toString(36).slice(2, 8)}`;
   const clip = svg.clip().id(clipId);
   clip.circle(2).center(0, 0);
@@ -37,10 +48,28 @@ export function drawSmith(host: HTMLElement, traces: SmithTrace[], marker: numbe
   for (const r of R_CIRCLES) { const c = resistanceCircle(r); grid.circle(2 * c.radius).center(c.cx, c.cy).addClass('sm-grid'); }
   for (const x of X_ARCS) for (const s of [1, -1]) { const c = reactanceArc(s * x); grid.circle(2 * c.radius).center(c.cx, c.cy).addClass('sm-grid'); }
   grid.line(-1, 0, 1, 0).addClass('sm-grid');
+  // Labels in an unflipped group (text must not be mirrored): y is negated by hand.
+  const labels = svg.group().addClass('sm-labels');
+  for (const r of R_CIRCLES.slice(1)) {
+    const re = (r - 1) / (r + 1);
+    labels.text(String(r)).attr({ x: re + 0.015, y: -0.03, 'text-anchor': 'start' }).addClass('sm-label');
+  }
+  for (const x of X_ARCS) for (const s of [1, -1]) {
+    const p = gammaOf(0, s * x), k = 1.08;
+    labels.text(`${s > 0 ? '+' : '−'}j${x}`).attr({ x: p.re * k, y: -p.im * k + 0.03, 'text-anchor': p.re > 0.1 ? 'start' : p.re < -0.1 ? 'end' : 'middle' }).addClass('sm-label');
+  }
   for (const t of traces) {
     if (t.re.length < 2) continue;
     g.polyline(t.re.map((re, k) => [re, t.im[k]!] as [number, number])).addClass(`sm-trace ${t.cls}`).attr('data-trace', t.name);
-    if (marker !== null && marker < t.re.length) g.circle(0.04).center(t.re[marker]!, t.im[marker]!).addClass(`sm-marker ${t.cls}`);
   }
-  return svg;
+  const marks = g.group();
+  const node = svg.node;
+  return {
+    svg, marks,
+    toGamma(cx, cy) {
+      const b = node.getBoundingClientRect();
+      const s = Math.min(b.width, b.height), ox = b.left + (b.width - s) / 2, oy = b.top + (b.height - s) / 2;
+      return { re: -VIEW + ((cx - ox) / s) * 2 * VIEW, im: VIEW - ((cy - oy) / s) * 2 * VIEW };
+    },
+  };
 }

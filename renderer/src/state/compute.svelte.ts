@@ -11,6 +11,7 @@ import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutVie
 import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput, YieldOutput } from '../worker/jobs.ts';
 import type { SectionOutput } from '../worker/section-job.ts';
 import type { SectionSpec } from '../../../core/section/types.ts';
+import type { OverlayTrace } from './response-view.ts';
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -20,6 +21,12 @@ export class Compute {
   response = $state.raw<ResponseOutput | null>(null);
   responseError = $state<string | null>(null);
   responseProgress = $state.raw<Progress | null>(null);
+  /** The revision the shown response was swept from, and whether the last sweep was cancelled. */
+  responseRevision = $state<number | null>(null);
+  responseCancelled = $state(false);
+  /** Extra traces other parts of the app draw on the response plots (state/response-view.ts). */
+  overlays = $state.raw<OverlayTrace[]>([]);
+  private sweepStop: AbortController | null = null;
   lastLayoutMs = $state(0);
 
   constructor(private readonly editor: EditorState, makeWorker: (() => Worker) | null = defaultWorker()) {
@@ -55,15 +62,33 @@ export class Compute {
     if (this.queued) { this.queued = false; void this.layout(); }
   }
 
-  /** Sweep the band (or the given settings) and keep the response for the plots. */
-  async sweep(input: Omit<ResponseInput, 'doc'>): Promise<void> {
+  /**
+   * Sweep the design at its own settings (or `input.settings`) and keep the response for the plots. A newer sweep
+   * cancels the one it supersedes (its worker job stops at its next chunk), so edits never queue stale sweeps.
+   */
+  async sweep(input: Omit<ResponseInput, 'doc'> = {}): Promise<void> {
+    this.sweepStop?.abort();
+    const stop = new AbortController();
+    this.sweepStop = stop;
     this.responseError = null;
+    this.responseCancelled = false;
     this.responseProgress = { done: 0, total: 1, label: 'starting' };
-    const out = await this.client.run<ResponseOutput>('response', { ...input, doc: this.editor.doc }, (p) => { this.responseProgress = p; });
+    const revision = this.editor.revision;
+    const out = await this.client.run<ResponseOutput>('response', { ...input, doc: this.editor.doc }, (p) => { if (this.sweepStop === stop) this.responseProgress = p; }, stop.signal);
+    if (this.sweepStop !== stop) return; // a newer sweep took over
+    this.sweepStop = null;
     this.responseProgress = null;
-    if (out.ok) this.response = out.value;
-    else if ('error' in out) this.responseError = out.error.message;
+    if (out.ok) { this.response = out.value; this.responseRevision = revision; }
+    else if ('error' in out) {
+      if (out.error.field === 'cancelled') this.responseCancelled = true;
+      else this.responseError = out.error.message;
+    }
   }
+
+  /** Stop the running sweep; the last finished response stays on screen. */
+  cancelSweep(): void { this.sweepStop?.abort(); }
+
+  get sweeping(): boolean { return this.responseProgress !== null; }
 
   /** Export preview and files of the current design (runs the polygon engine in the worker). */
   async exportFiles(opts: Omit<ExportInput, 'doc'>): Promise<{ ok: true; value: ExportOutput } | { ok: false; error: string }> {

@@ -9,7 +9,8 @@ import { initPolygons } from '../../../core/geometry/index.ts';
 import { pieceOutlines, problemFindings, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { Finding } from '../../../core/layout/checks.ts';
-import { sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
+import { sweepNetwork, magnitudeDb, phaseDeg, groupDelay, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/network/index.ts';
+import { portLabel } from '../state/response-view.ts';
 import { InputError, exhaustive } from '../../../core/util/errors.ts';
 import { runYield, type YieldResult } from '../../../core/yield/index.ts';
 import { EXPORT_FILE_NAMES, millingPreviewSvg } from '../../../core/export/index.ts';
@@ -31,7 +32,8 @@ export interface LayoutInput { doc: DesignDoc; /** Also work out each path's pha
  */
 export interface LayoutOutput { sized: SizedView; outlines: (PieceOutline & { d: string })[]; drills: DrillHit[]; paths: PathReport[]; geometryError: string | null }
 
-export interface ResponseInput { doc: DesignDoc; points?: number }
+/** The design, and settings that override its own (absent: core designSweepSettings). */
+export interface ResponseInput { doc: DesignDoc; settings?: SweepSettings }
 /** Plot-ready series: for every (i, j) pair |S| in dB, phase in degrees and group delay in s; reflections for Smith. */
 export interface ResponseOutput {
   freqs: number[];
@@ -40,6 +42,16 @@ export interface ResponseOutput {
   traces: { i: number; j: number; db: number[]; phase: number[]; delay: number[] }[];
   smith: { i: number; re: number[]; im: number[] }[];
   warnings: string[];
+  /** Each port's label in the design (its node id where it has none), its reference impedance (Ω). */
+  labels: string[];
+  zRef: number[];
+  /** The settings swept (targets' band edges are added to their frequencies) and whether the cache answered. */
+  settings: SweepSettings;
+  cached: boolean;
+  figures: FigureTable;
+  /** The design's targets on this sweep (core evaluateTargets, as `build`), null without targets or on an error. */
+  targets: TargetEvaluation | null;
+  targetError: string | null;
 }
 
 export interface CheckOutput { findings: Finding[]; /** Ground copper left after clearing around the network. */ ground: Region[] }
@@ -68,7 +80,7 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
     case 'geometry': return geometryJob(input as LayoutInput);
     case 'export': return exportJob(input as ExportInput);
     case 'check': return checkJob(input as LayoutInput);
-    case 'response': return responseJob(input as ResponseInput, progress);
+    case 'response': return responseJob(input as ResponseInput, progress, signal);
     case 'section': return sectionJob(input as SectionInput);
     case 'milling': return millingJob(input as MillingInput);
     case 'equalize': return equalizeJob(input as EqualizeInput);
@@ -139,21 +151,54 @@ export async function checkJob(input: LayoutInput): Promise<CheckOutput> {
   return { findings: pipeline.findings(input.doc), ground: pipeline.board(input.doc).groundCopper };
 }
 
-/** A sweep of the sized network over the band (and f0), chunked so progress reaches the editor. */
-export async function responseJob(input: ResponseInput, progress: (p: Progress) => void): Promise<ResponseOutput> {
-  const net = pipeline.netlist(input.doc);
-  const settings = bandSweep(input.doc.frequency.band, input.doc.frequency.f0, input.points ?? 201);
-  const r: NetworkResponse = await sweepNetwork(net, settings, {
-    onProgress: (done, total) => progress({ done, total, label: 'sweeping' }),
-    yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
+/** Recent sweeps by design physics and settings (core SweepCache): a repeated sweep, or undo back, costs nothing. */
+const sweepCache = new SweepCache(8);
+/** The netlist's input port and notes of each cached sweep (the cache keeps only the response). */
+const sweepMeta = new Map<string, { input: number; warnings: string[] }>();
+
+/**
+ * A sweep of the sized network at the design's own settings (core designSweepSettings, the frequencies the CLI
+ * uses) plus every target band edge, chunked so progress reaches the editor and a cancel stops it between chunks;
+ * then the plot series, the derived figures and the targets' pass/fail from the core. The netlist comes from the
+ * revision's one pipeline (sized once, shared with layout, check and export).
+ */
+export async function responseJob(input: ResponseInput, progress: (p: Progress) => void, signal?: AbortSignal): Promise<ResponseOutput> {
+  const doc = input.doc;
+  const settings = input.settings ?? designSweepSettings(doc);
+  const key = responseCacheKey(doc, settings);
+  let cached = true;
+  const r: NetworkResponse = await sweepCache.getOrSweep(key, async () => {
+    cached = false;
+    const net = pipeline.netlist(doc);
+    sweepMeta.set(key, { input: net.input, warnings: net.warnings.map((w) => w.message) });
+    if (sweepMeta.size > 32) sweepMeta.delete(sweepMeta.keys().next().value as string);
+    return sweepNetwork(net, targetFrequencies(settings, doc.targets ?? []), {
+      chunk: 64, ...(signal ? { signal } : {}),
+      onProgress: (done, total) => progress({ done, total, label: 'sweeping' }),
+      yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
+    });
   });
+  const meta = sweepMeta.get(key) ?? { input: 0, warnings: [] };
+  const inputPort = meta.input;
   const P = r.ports.length;
+  const ids = r.ports.map((p) => p.name);
   const traces: ResponseOutput['traces'] = [];
   for (let i = 0; i < P; i++) for (let j = 0; j < P; j++) {
+    // Large networks: the input's row and column (what the panel offers); S itself stays in the cache.
+    if (P > 4 && i !== inputPort && j !== inputPort) continue;
     traces.push({ i, j, db: [...magnitudeDb(r, i, j)], phase: [...phaseDeg(r, i, j)], delay: [...groupDelay(r, i, j)] });
   }
   const sm = Array.from({ length: P }, (_, i) => { const s = smith(r, i); return { i, re: [...s.re], im: [...s.im] }; });
-  return { freqs: [...r.freqs], ports: r.ports.map((p) => p.name), input: net.input, traces, smith: sm, warnings: [...net.warnings, ...r.warnings].map((w) => w.message) };
+  let targets: TargetEvaluation | null = null, targetError: string | null = null;
+  if (doc.targets?.length) {
+    try { targets = evaluateTargets(r, doc); } catch (err) { targetError = errorText(err); }
+  }
+  return {
+    freqs: [...r.freqs], ports: ids, labels: ids.map((id) => portLabel(doc, id)), zRef: r.ports.map((p) => p.zRef), input: inputPort,
+    settings, cached, traces, smith: sm,
+    figures: figureTable(r, doc, inputPort), targets, targetError,
+    warnings: [...meta.warnings, ...r.warnings.map((w) => w.message)],
+  };
 }
 
 export interface MillingInput {
