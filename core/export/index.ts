@@ -14,3 +14,4 @@ export * from './file-names.ts';
 export * from './gcode.ts';
 export * from './gcode-export.ts';
 export * from './milling-preview.ts';
+export * from './report/index.ts';
