@@ -7,6 +7,7 @@ import { yieldCommand } from './yield.ts';
 import { sectionCommand } from './section.ts';
 import { couponCommand } from './coupon.ts';
 import { blockCommand } from './block.ts';
+import { reportCommand } from './report.ts';
 
 /** Every command of the CLI. Add a new command file and list it here. */
-export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand, sectionCommand, couponCommand, blockCommand];
+export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand, sectionCommand, couponCommand, blockCommand, reportCommand];

@@ -202,7 +202,7 @@ function responsePages(flow: Flow, r: NetworkResponse, input: number, doc: Desig
       const s = smith(r, i);
       return { label: `S${i + 1}${i + 1} at ${portName(r.ports[i]!.name)}`, re: s.re, im: s.im, colour: TRACE_COLOURS[i]! };
     });
-    return [text(x, y + 3, 8, 'Smith chart (reflection at each port, normalised to its reference)', 'start', GREY), ...smithChart(x + w / 2 - 25, y + 36, 30, traces)];
+    return [text(x, y + 3, 8, 'Smith chart: reflection Γ at each port, normalised to its reference', 'start', GREY), ...smithChart(x + w / 2 - 25, y + 36, 30, traces)];
   });
   void PAGE;
 }
