@@ -20,6 +20,7 @@ import {
 } from './command-args.ts';
 import { pasteClipboard } from './clipboard.ts';
 import { setTargets, setTolerances } from './commands-targets.ts';
+import { setMeasured } from './measured.ts';
 
 export interface DesignCommand {
   /** Stable id, e.g. 'node.move'; menus, shortcuts and scripts refer to it. */
@@ -476,7 +477,7 @@ const viewSet: DesignCommand = {
 export const DESIGN_COMMANDS: ReadonlyMap<string, DesignCommand> = new Map(
   [nodeAdd, nodeMove, nodeSetSpec, segmentAdd, segmentSetSpec, selectionDelete, selectionTranslate, selectionRotate, selectionMirror,
     selectionPaste, setSubstrate, setFrequency, setProcess, setJunctions, setAsMade, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
-    phaseGroupSet, viewSet, setTargets, setTolerances].map((c) => [c.id, c]),
+    phaseGroupSet, viewSet, setTargets, setTolerances, setMeasured].map((c) => [c.id, c]),
 );
 
 /** Runs command `id` on `doc`; throws InputError on an unknown id or bad arguments. `doc` is never changed. */

@@ -78,6 +78,14 @@ export const MIGRATIONS: readonly Migration[] = [
       return { ...doc, version: 6 };
     },
   },
+  {
+    from: 6,
+    summary: 'added measured: Touchstone files of the whole board kept with the design, each with its port map (empty in an upgraded file)',
+    up(doc) {
+      // Literal value on purpose (see the first migration): an older file had no measured data.
+      return { ...doc, version: 7, measured: doc.measured ?? [] };
+    },
+  },
 ];
 
 /** The format version this app writes and reads up to. */

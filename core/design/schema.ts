@@ -10,6 +10,7 @@ import * as v from 'valibot';
 import { DESIGN_FORMAT } from './types.ts';
 import { DESIGN_LIMITS as L, PROCESS_LIMITS } from './limits.ts';
 import { targetsSchema, tolerancesSchema } from './targets-schema.ts';
+import { measuredListSchema } from './measured.ts';
 
 /** A finite number in [min, max] (either end exclusive on request), all failures described by `what`. */
 function num(what: string, min: number, max: number, opts: { minExclusive?: boolean; maxExclusive?: boolean } = {}) {
@@ -219,6 +220,7 @@ export function designSchema(version: number) {
     targets: targetsSchema,
     tolerances: tolerancesSchema,
     junctions: v.optional(junctionChoiceSchema),
+    measured: v.optional(measuredListSchema),
     view: v.optional(v.looseObject({
       units: v.optional(v.picklist(['mm', 'mil'], 'display units "mm" or "mil"')),
       grid: v.optional(LEN('a grid step', 0.1)),

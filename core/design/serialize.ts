@@ -13,7 +13,7 @@ const XY: Order = { keys: ['x', 'y'] };
 const POINTS: Order = { keys: [], items: XY };
 const WIDTH: Order = { keys: ['by', 'z0', 'width'] };
 const ORDER: Order = {
-  keys: ['format', 'version', 'app', 'name', 'notes', 'substrate', 'frequency', 'process', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'targets', 'tolerances', 'junctions', 'asMade', 'view'],
+  keys: ['format', 'version', 'app', 'name', 'notes', 'substrate', 'frequency', 'process', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'targets', 'tolerances', 'junctions', 'asMade', 'measured', 'view'],
   children: {
     substrate: { keys: ['preset', 'er', 'h', 't', 'tanDelta', 'sigma', 'roughness', 'dielectricModel'], children: { dielectricModel: { keys: ['kind', 'fMeasure'] } } },
     frequency: { keys: ['f0', 'band'], children: { band: { keys: ['start', 'stop'] } } },
@@ -36,6 +36,7 @@ const ORDER: Order = {
     phaseGroups: { keys: [], items: { keys: ['id', 'name', 'from', 'to', 'toleranceDeg'] } },
     targets: { keys: [], items: { keys: ['id', 'name', 'figure', 'ports', 'group', 'band', 'limit'], children: { band: { keys: ['start', 'stop'] }, limit: { keys: ['min', 'max'] } } } },
     tolerances: { keys: [], items: { keys: ['quantity', 'distribution', 'spread', 'scope'] } },
+    measured: { keys: [], items: { keys: ['id', 'name', 'ports', 'touchstone'] } },
     view: { keys: ['units', 'grid'] },
   },
 };

@@ -15,6 +15,7 @@ import type { Target, Tolerance } from './targets.ts';
 
 export type { SubstrateSpec };
 export type * from './targets.ts';
+export type { MeasuredFile } from './measured.ts';
 
 export const DESIGN_FORMAT = 'stripwright-design';
 
@@ -123,6 +124,8 @@ export interface DesignDoc {
   tolerances: Tolerance[];
   /** Junction models (format 4); absent counts as 'modelled'. */
   junctions?: JunctionChoice;
+  /** Measured Touchstone files of the whole board with their port maps (format 7; core/design/measured.ts). */
+  measured?: import('./measured.ts').MeasuredFile[];
   /** Display preferences; never affect the physics. */
   view?: { units?: 'mm' | 'mil'; grid?: number };
   /** Fields this version does not know are kept here on load and written back on save. */

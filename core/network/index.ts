@@ -21,6 +21,7 @@ export * from './lineTwoPort.ts';
 export { netlistFromSized, sweepRangeWarnings, type FromSizedOptions, type SizedNetlist } from './fromSized.ts';
 export { starAdmittance, type StarArm, type StarState } from './junctionStar.ts';
 export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';
+export { guessPortMap, measuredPortCount, measuredForDesign, compareMeasured } from './measured.ts';
 export { responseCacheKey } from './cacheKey.ts';
 export { evaluateTargets, evaluateTarget, targetFrequencies, targetText, limitText, type TargetEvaluation, type TargetResult } from './targets.ts';
 export { coupledPairY, modeConstants } from './coupledPair.ts';

@@ -96,7 +96,7 @@ describe('v2 → v3', () => {
     expect(r.doc.targets).toEqual([]);
     expect(r.doc.tolerances).toEqual([]);
     const { version: _v, ...before } = JSON.parse(text) as Record<string, unknown>;
-    const { version: _w, targets: _t, tolerances: _x, junctions: _j, asMade: _m, ...after } = r.doc;
+    const { version: _w, targets: _t, tolerances: _x, junctions: _j, asMade: _m, measured: _me, ...after } = r.doc;
     expect(after).toEqual(before);
   });
 });
@@ -109,7 +109,7 @@ describe('v3 → v4 (junction models)', () => {
     if (!r.ok) throw new Error('refused');
     expect(r.migrations).toContain(3);
     expect(r.doc.junctions).toBe('modelled');
-    const { version: _v, junctions: _j, targets: _t, tolerances: _x, asMade: _m, ...rest } = r.doc;
+    const { version: _v, junctions: _j, targets: _t, tolerances: _x, asMade: _m, measured: _me, ...rest } = r.doc;
     const { version: _w, ...before } = JSON.parse(text) as Record<string, unknown>;
     expect(rest).toEqual(before);
     expect(r.warnings[0]!.message).toContain('3→4: junctions');
@@ -151,7 +151,31 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([5]);
-    expect({ ...r.doc, version: 5 }).toEqual(JSON.parse(text));
+    expect(r.migrations?.[0]).toBe(5);
+    const { measured: _later, ...doc } = r.doc;
+    expect({ ...doc, version: 5 }).toEqual(JSON.parse(text));
+  });
+});
+
+describe('v6 → v7 (measured data)', () => {
+  it('adds an empty list of measured files and changes nothing else', () => {
+    const text = readFileSync(join(FIX, 'v6', 'wilkinson-2g45.json'), 'utf8');
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toContain(6);
+    expect(r.doc.measured).toEqual([]);
+    const { measured: _m, ...doc } = r.doc;
+    expect({ ...doc, version: 6 }).toEqual(JSON.parse(text));
+  });
+  it('keeps measured files through save and load, and refuses a malformed one with its field named', () => {
+    const r = parseDesign(readFileSync(join(FIX, 'v6', 'wilkinson-2g45.json'), 'utf8'));
+    if (!r.ok) throw new Error('refused');
+    const m = { id: 'm1', name: 'board 3.s3p', ports: ['in', 'o1', 'o2'], touchstone: '# GHz S RI R 50\n2.45 0 0 0.7 0 0.7 0 0.7 0 0 0 0 0 0.7 0 0 0 0 0\n' };
+    const again = parseDesign(serializeDesign({ ...r.doc, measured: [m] }));
+    if (!again.ok) throw new Error(again.errors.map((e) => e.message).join('; '));
+    expect(again.doc.measured).toEqual([m]);
+    const bad = parseDesign(serializeDesign({ ...r.doc, measured: [{ ...m, ports: ['no spaces'] }] }));
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.errors[0]!.path).toMatch(/measured/);
   });
 });

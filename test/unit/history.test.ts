@@ -44,6 +44,7 @@ function everyCommand(d: DesignDoc): [string, Record<string, unknown>][] {
     ['view.set', { units: 'mil' }],
     ['design.setTargets', { targets: [{ id: 'match', figure: 'return-loss', ports: ['in'], band: { start: 5.7e9, stop: 5.9e9 }, limit: { min: 12 } }] }],
     ['design.setTolerances', { tolerances: [{ quantity: 'er', distribution: 'normal', spread: 0.05, scope: 'board' }] }],
+    ['design.setMeasured', { measured: [{ id: 'm1', name: 'board.s1p', touchstone: '# GHz S RI R 50\n1 0.1 0\n', ports: ['in'] }] }],
   ];
 }
 
