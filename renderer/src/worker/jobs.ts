@@ -18,6 +18,7 @@ import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
 import { sectionJob, type SectionInput } from './section-job.ts';
+import { compareJob, touchstoneFile, reportFile, type CompareInput } from './measured-job.ts';
 
 export interface LayoutInput { doc: DesignDoc; /** Also work out each path's phase sensitivity to εr, h and W (slower). */ sensitivities?: boolean }
 /**
@@ -68,6 +69,7 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
     case 'response': return responseJob(input as ResponseInput, progress);
     case 'section': return sectionJob(input as SectionInput);
     case 'milling': return millingJob(input as MillingInput);
+    case 'compare': return compareJob(input as CompareInput, progress);
     default: return exhaustive(kind, 'job');
   }
 }
@@ -106,7 +108,7 @@ export function errorText(err: unknown): string {
   return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : err instanceof Error ? err.message : String(err);
 }
 
-export type OutputKind = 'dxf' | 'svg' | 'gerber' | 'drill' | 'mask' | 'gcode';
+export type OutputKind = 'dxf' | 'svg' | 'gerber' | 'drill' | 'mask' | 'gcode' | 'touchstone' | 'report';
 
 export interface ExportInput {
   doc: DesignDoc;
@@ -117,11 +119,13 @@ export interface ExportInput {
   /** Base of the file names. */
   base: string;
   version: string;
+  /** The design's file name, for the Touchstone header (as the CLI writes it). */
+  fileName?: string;
   /** Machining settings for 'gcode' (defaults for the rest). */
   milling?: Partial<MillingOptions>;
 }
 
-export interface ExportOutput { preview: string; files: { name: string; data: string }[]; notes: string[] }
+export interface ExportOutput { preview: string; files: { name: string; data: string }[]; notes: string[]; /** Binary files (the design report). */ binary?: { name: string; data: Uint8Array }[] }
 
 /** The preview (an SVG of the chosen layers, mirrored as asked) and the chosen files, from the core's exporters. */
 export async function exportJob(input: ExportInput): Promise<ExportOutput> {
@@ -129,6 +133,7 @@ export async function exportJob(input: ExportInput): Promise<ExportOutput> {
   const sw = { application: 'Stripwright', version: input.version };
   const preview = toSvg(g, { layers: input.layers, mirror: input.mirror });
   const files: { name: string; data: string }[] = [];
+  const binary: { name: string; data: Uint8Array }[] = [];
   const notes: string[] = [];
   for (const k of input.kinds) {
     switch (k) {
@@ -163,10 +168,12 @@ export async function exportJob(input: ExportInput): Promise<ExportOutput> {
         notes.push(`G-code: ${gc.files.length} file(s), one per tool, about ${Math.ceil(gc.plan.seconds / 60)} min of machining; run them in tool order.`);
         break;
       }
+      case 'touchstone': files.push(await touchstoneFile(input.doc, input.fileName ?? `${input.base}.json`, `stripwright ${input.version}`)); break;
+      case 'report': binary.push(await reportFile(input.doc, input.base, `stripwright ${input.version}`)); break;
       default: exhaustive(k, 'output');
     }
   }
-  return { preview, files, notes };
+  return { preview, files, notes, ...(binary.length ? { binary } : {}) };
 }
 
 /** Fabrication findings: the core's checks on the united copper (needs the polygon engine). */
