@@ -12,7 +12,7 @@ export class OutputError extends Error {
   override name = 'OutputError';
 }
 
-export async function writeOutputFile(path: string, text: string): Promise<void> {
+export async function writeOutputFile(path: string, text: string | Uint8Array): Promise<void> {
   try {
     await atomicWriteFile(path, text);
   } catch (e) {

@@ -10,7 +10,7 @@ import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative, resolve, dirname, sep } from 'node:path';
 
 /** Pure, DOM-free packages core/ may use. */
-export const CORE_ALLOWED_PACKAGES = ['valibot', 'clipper2-wasm', 'dxf-writer'];
+export const CORE_ALLOWED_PACKAGES = ['valibot', 'clipper2-wasm', 'dxf-writer', 'pdf-lib', '@pdf-lib/fontkit'];
 
 /** Core folders from the fundamentals up: a folder may import its own and lower ones only. */
 export const CORE_LAYERS = ['util', 'units', 'substrate', 'line', 'section', 'discontinuity', 'geometry', 'design', 'layout', 'network', 'yield', 'blocks', 'toolpath', 'export', 'pipeline', 'api'];

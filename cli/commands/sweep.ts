@@ -10,7 +10,7 @@ import { basename, resolve } from 'node:path';
 import {
   InputError, parseDesign, formatQuantity, portLabel, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
   readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
-  phaseBalance, isolation, portIndex, compareResponses, MAX_POINTS, designSweepSettings,
+  phaseBalance, isolation, portIndex, compareResponses, compareMeasured, guessPortMap, MAX_POINTS, designSweepSettings, type MeasuredFile,
   type NetworkResponse, type DesignDoc, type TouchstoneData, type JunctionChoice, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
 } from '../../core/index.ts';
 import { countOption, quantityOption } from '../numbers.ts';
@@ -67,7 +67,7 @@ function choice<T extends string>(flag: string, v: string | undefined, allowed: 
 }
 
 
-interface Loaded { name: string; f0?: number; response: NetworkResponse; input: number; warnings: Warning[]; from: 'design' | 'touchstone' }
+interface Loaded { doc?: DesignDoc; name: string; f0?: number; response: NetworkResponse; input: number; warnings: Warning[]; from: 'design' | 'touchstone' }
 
 export const sweepCommand: CliCommand = {
   name: 'sweep',
@@ -88,12 +88,14 @@ export const sweepCommand: CliCommand = {
 
     const file = resolve(io.cwd, positionals[0]);
     let measured: TouchstoneData | undefined;
+    let measuredText = '';
     if (values.compare !== undefined) {
       if (/\.s\d+p$/i.test(file)) throw new UsageError('--compare goes with a design file; to compare two Touchstone files, sweep the design against each');
       if (values.points !== undefined || values.log) throw new UsageError('--compare sweeps at the frequencies of the compared file; leave out --points and --log');
       const cf = resolve(io.cwd, values.compare);
       const ctext = await readInput(cf, values.compare, io);
       if (ctext === null) return 1;
+      measuredText = ctext;
       try { measured = loadTouchstone(ctext, cf, { from, to }).response as TouchstoneData; } catch (e) {
         if (e instanceof InputError) { io.err(`stripwright sweep: ${e.message}`); return 1; }
         throw e;
@@ -127,7 +129,8 @@ export const sweepCommand: CliCommand = {
         if (!values.json) io.out(`wrote ${out}  (Touchstone ${tsVersion ?? '1.1'}, ${r.ports.length} port(s), ${r.freqs.length} frequencies)`);
       }
       for (const w of [...loaded.warnings, ...r.warnings]) if (w.severity !== 'info') io.err(`warning: ${w.message}`);
-      const diff = measured ? compareResponses(r, measured) : undefined;
+      // The app's comparison: the design's saved port map for this file name when it has one, else ports in order.
+      const diff = measured ? compareMeasured(r, measuredRecord(loaded.doc, basename(values.compare!), measuredText, measured.ports.length, r), { from, to }).diff : undefined;
       if (values.json) io.out(resultJson({ ...toJson(loaded, input), ...(diff ? { comparison: { file: basename(values.compare!), ...comparisonJson(r, diff) } } : {}) }));
       else if (!values.out || diff) io.out([values.out ? '' : table(loaded, input), diff ? comparisonTable(r, diff, basename(values.compare!)) : '', values.out ? '' : notes([...loaded.warnings, ...r.warnings])].filter(Boolean).join('\n\n'));
       return 0;
@@ -174,7 +177,7 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
     yieldTo: () => new Promise<void>((r) => setImmediate(r)),
   });
   const range = sweepRangeWarnings(sized, response.freqs[response.freqs.length - 1], sized.lineOptions ? { line: sized.lineOptions } : {});
-  return { name: doc.name, f0: doc.frequency.f0, response, input: net.input, warnings: [...parsed.warnings, ...sized.warnings, ...net.warnings, ...range], from: 'design' };
+  return { doc, name: doc.name, f0: doc.frequency.f0, response, input: net.input, warnings: [...parsed.warnings, ...sized.warnings, ...net.warnings, ...range], from: 'design' };
 }
 
 function loadTouchstone(text: string, file: string, s: SweepFlags): Loaded {
@@ -331,6 +334,12 @@ function comparisonTable(r: NetworkResponse, d: ResponseDifference, file: string
   }
   if (shown.length < d.entries.length) lines.push(`  (the ${shown.length} largest of ${d.entries.length}; use --json for all)`);
   return lines.join('\n');
+}
+
+/** The compared file as the design keeps it: its saved port map when the design holds a file of that name. */
+function measuredRecord(doc: DesignDoc | undefined, name: string, touchstone: string, ports: number, r: NetworkResponse): MeasuredFile {
+  const saved = doc?.measured?.find((m) => m.name === name);
+  return { id: 'compare', name, touchstone, ports: saved?.ports ?? guessPortMap(ports, r.ports.map((p) => p.name)) };
 }
 
 /** Reads an input file (a design, or a Touchstone file by its .sNp extension) through the one text reader, or reports why not and returns null. */

@@ -4,6 +4,7 @@
  */
 export * from './types.ts';
 export { DESIGN_LIMITS, PROCESS_LIMITS } from './limits.ts';
+export { MAX_MEASURED, measuredListSchema } from './measured.ts';
 export type { DesignIssue } from './issues.ts';
 export { DESIGN_VERSION, MIGRATIONS, migrate, type Migration } from './migrations.ts';
 export { newDesign, FR4_DEFAULT, PROCESS_DEFAULT, FREQUENCY_DEFAULT, type NewDesignOptions } from './defaults.ts';

@@ -16,6 +16,7 @@
  * - 7: display units (mm or mil) are the app's view setting, no longer kept in the design (`view.units` dropped).
  * - 8: `blocks`: blocks placed from a spec keep it (kind, spec, place, members), so they can be re-generated.
  * - 9: `sweep`: a design may keep its own sweep settings (start, stop, points, spacing).
+ * - 10: `measured`: Touchstone files of the whole board kept with the design, each with its port map.
  */
 type Json = Record<string, unknown>;
 
@@ -106,6 +107,14 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Purely additive: without `sweep` every face sweeps the band widened to f0 at 201 points, as before.
       return { ...doc, version: 9 };
+    },
+  },
+  {
+    from: 9,
+    summary: 'the format now keeps measured Touchstone files of the whole board, each with its port map; this file has none',
+    up(doc) {
+      // Purely additive: an older file had no measured data (the list is optional).
+      return { ...doc, version: 10 };
     },
   },
 ];

@@ -11,6 +11,7 @@ import { DESIGN_FORMAT } from './types.ts';
 import { DESIGN_LIMITS as L, PROCESS_LIMITS } from './limits.ts';
 import { targetsSchema, tolerancesSchema } from './targets-schema.ts';
 import { sweepSpecSchema } from './sweep-settings.ts';
+import { measuredListSchema } from './measured.ts';
 
 /** A finite number in [min, max] (either end exclusive on request), all failures described by `what`. */
 function num(what: string, min: number, max: number, opts: { minExclusive?: boolean; maxExclusive?: boolean } = {}) {
@@ -236,6 +237,7 @@ export function designSchema(version: number) {
     junctions: v.optional(junctionChoiceSchema),
     blocks: v.optional(list(placedBlockSchema, 'placed blocks', L.phaseGroups)),
     sweep: v.optional(sweepSpecSchema),
+    measured: v.optional(measuredListSchema),
     view: v.optional(v.looseObject({
       grid: v.optional(LEN('a grid step', 0.1)),
     }, 'a view {grid}')),

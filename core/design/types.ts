@@ -17,6 +17,7 @@ import type { SweepSpec } from './sweep-settings.ts';
 export type { SubstrateSpec };
 export type * from './targets.ts';
 export type { SweepSpec } from './sweep-settings.ts';
+export type { MeasuredFile } from './measured.ts';
 
 export const DESIGN_FORMAT = 'stripwright-design';
 
@@ -146,6 +147,8 @@ export interface DesignDoc {
   blocks?: PlacedBlock[];
   /** The design's own sweep (format 9; core/design/sweep-settings.ts); absent = the band widened to f0, 201 points. */
   sweep?: SweepSpec;
+  /** Measured Touchstone files of the whole board with their port maps (format 10; core/design/measured.ts). */
+  measured?: import('./measured.ts').MeasuredFile[];
   /** Drawing preferences kept with the design (the snap grid); never affect the physics. Display units are the app's (format 7). */
   view?: { grid?: number };
   /** Fields this version does not know are kept here on load and written back on save. */

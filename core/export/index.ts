@@ -13,3 +13,4 @@ export * from './dxf-r12.ts';
 export * from './file-names.ts';
 export * from './gcode.ts';
 export * from './milling-preview.ts';
+export * from './report/index.ts';

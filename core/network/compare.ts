@@ -18,6 +18,10 @@ export interface EntryDifference {
   db: { value: number; freq: number };
   /** max |∠S_a − ∠S_b| (wrapped) and where. */
   deg: { value: number; freq: number };
+  /** Per frequency of `b`: |S_a| − |S_b| in dB (signed, every point; the floor applies only to the maxima above). */
+  dbSeries: Float64Array;
+  /** Per frequency of `b`: |S_a − S_b|. */
+  vectorSeries: Float64Array;
 }
 
 export interface ResponseDifference {
@@ -37,7 +41,7 @@ export function compareResponses(a: NetworkResponse, b: NetworkResponse, opts: {
   }
   const floor = Math.pow(10, (opts.floorDb ?? -30) / 20);
   const entries: EntryDifference[] = [];
-  for (let i = 0; i < P; i++) for (let j = 0; j < P; j++) entries.push({ i, j, vector: { value: 0, freq: b.freqs[0] }, db: { value: 0, freq: b.freqs[0] }, deg: { value: 0, freq: b.freqs[0] } });
+  for (let i = 0; i < P; i++) for (let j = 0; j < P; j++) entries.push({ i, j, vector: { value: 0, freq: b.freqs[0] }, db: { value: 0, freq: b.freqs[0] }, deg: { value: 0, freq: b.freqs[0] }, dbSeries: new Float64Array(b.freqs.length), vectorSeries: new Float64Array(b.freqs.length) });
   for (let k = 0; k < b.freqs.length; k++) {
     const f = b.freqs[k];
     const sa = interpolateS(a, f, 'compare', 'the first response');
@@ -48,6 +52,9 @@ export function compareResponses(a: NetworkResponse, b: NetworkResponse, opts: {
       const v = Math.hypot(ar - br, ai - bi);
       if (v > e.vector.value) e.vector = { value: v, freq: f };
       const ma = Math.hypot(ar, ai), mb = Math.hypot(br, bi);
+      e.vectorSeries[k] = v;
+      // dB floors at −400 like the figures (figures.ts), so a perfect null gives no Infinity.
+      e.dbSeries[k] = 20 * Math.log10(Math.max(ma, 1e-20)) - 20 * Math.log10(Math.max(mb, 1e-20));
       if (ma > floor && mb > floor) {
         const d = Math.abs(20 * Math.log10(ma / mb));
         if (d > e.db.value) e.db = { value: d, freq: f };

@@ -21,6 +21,7 @@ export * from './lineTwoPort.ts';
 export { netlistFromSized, sweepRangeWarnings, type FromSizedOptions, type SizedNetlist } from './fromSized.ts';
 export { starAdmittance, type StarArm, type StarState } from './junctionStar.ts';
 export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';
+export { guessPortMap, measuredPortCount, measuredForDesign, compareMeasured } from './measured.ts';
 export { responseCacheKey } from './cacheKey.ts';
 export { designSweepSettings, DEFAULT_SWEEP_POINTS } from './designSweep.ts';
 export { figureTable, MAX_ISOLATION_ROWS, type FigureTable, type FigureRow, type FigureKind } from './figureTable.ts';

@@ -159,7 +159,7 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([5, 6, 7, 8]);
+    expect(r.migrations).toEqual([5, 6, 7, 8, 9]);
     expect({ ...r.doc, version: 5 }).toEqual(withoutUnits(JSON.parse(text) as Record<string, unknown>));
   });
 });
@@ -193,8 +193,30 @@ describe('v8 → v9 (a design\'s own sweep settings)', () => {
     const text = readFileSync(join(FIX, 'v8', 'open-stub-no-sweep.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([8]);
+    expect(r.migrations).toEqual([8, 9]);
     expect({ ...r.doc, version: 8 }).toEqual(JSON.parse(text));
     expect(r.doc.sweep).toBeUndefined();
+  });
+});
+
+describe('v9 → v10 (measured data)', () => {
+  it('moves only the version: an older file has no measured files (the list is optional)', () => {
+    const text = readFileSync(join(FIX, 'v9', 'wilkinson-2g45.json'), 'utf8');
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toEqual([9]);
+    expect(r.doc.measured).toBeUndefined();
+    expect({ ...r.doc, version: 9 }).toEqual(JSON.parse(text));
+  });
+  it('keeps measured files through save and load, and refuses a malformed one with its field named', () => {
+    const r = parseDesign(readFileSync(join(FIX, 'v9', 'wilkinson-2g45.json'), 'utf8'));
+    if (!r.ok) throw new Error('refused');
+    const m = { id: 'm1', name: 'board 3.s3p', ports: ['in', 'o1', 'o2'], touchstone: '# GHz S RI R 50\n2.45 0 0 0.7 0 0.7 0 0.7 0 0 0 0 0 0.7 0 0 0 0 0\n' };
+    const again = parseDesign(serializeDesign({ ...r.doc, measured: [m] }));
+    if (!again.ok) throw new Error(again.errors.map((e) => e.message).join('; '));
+    expect(again.doc.measured).toEqual([m]);
+    const bad = parseDesign(serializeDesign({ ...r.doc, measured: [{ ...m, ports: ['no spaces'] }] }));
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.errors[0]!.path).toMatch(/measured/);
   });
 });

@@ -55,6 +55,7 @@ function everyCommand(d: DesignDoc): [string, Record<string, unknown>][] {
     ['block.put', { ...wilkinsonHere(d) }],
     // Detach needs a placed block: it runs on the demo with one placed (startOf below).
     ['block.detach', { id: 'b1' }],
+    ['design.setMeasured', { measured: [{ id: 'm1', name: 'board.s1p', touchstone: '# GHz S RI R 50\n1 0.1 0\n', ports: ['in'] }] }],
   ];
 }
 

@@ -53,6 +53,8 @@ export function appCommands(ed: EditorState, files: FileActions, shell: ShellHoo
     { id: 'view.paths', group: 'Board', label: 'Show the path ledger', keys: ['Alt+1'], run: () => shell.showDock('paths') },
     { id: 'view.findings', group: 'Board', label: 'Show the shop check', keys: ['Alt+2'], run: () => shell.showDock('findings') },
     { id: 'view.response', group: 'Board', label: 'Show the response', keys: ['Alt+3'], run: () => shell.showDock('response') },
+    { id: 'view.measured', group: 'Board', label: 'Measured data beside the simulation (Touchstone overlay)', run: () => shell.showDock('measured') },
+    { id: 'file.report', group: 'File', label: 'Design report (PDF): choose it in Outputs and export', run: () => shell.showDock('outputs') },
     { id: 'board.coupon', group: 'Board', label: 'Add a laminate coupon to the board', run: () => { const r = ed.addCoupon(); if (typeof r === 'string') shell.tell('Laminate coupon', r); } },
     { id: 'view.laminate', group: 'Board', label: 'Laminate from a coupon: open its tab', run: () => shell.showDock('laminate') },
     { id: 'file.recover', group: 'File', label: 'Recover unsaved work from an earlier session', run: () => files.offerRecovery(true) },

@@ -3,6 +3,8 @@
  * puts the results on the editor. Requests made while a job runs coalesce: at most one job waits, always for the
  * newest revision, so fast typing or a drag never piles up stale work and the canvas never waits for it.
  */
+import type { MeasuredFile } from '../../../core/design/types.ts';
+import type { CompareOutput } from '../worker/measured-job.ts';
 import { ComputeClient, type Progress } from '../worker/client.ts';
 import type { JobKind } from '../worker/protocol.ts';
 import { runJob } from '../worker/jobs.ts';
@@ -89,6 +91,12 @@ export class Compute {
   cancelSweep(): void { this.sweepStop?.abort(); }
 
   get sweeping(): boolean { return this.responseProgress !== null; }
+  /** The design against a measured file of the board (swept at the file's frequencies; core compareMeasured). */
+  async compare(measured: MeasuredFile): Promise<{ ok: true; value: CompareOutput } | { ok: false; error: string }> {
+    const out = await this.client.run<CompareOutput>('compare', { doc: this.editor.doc, measured: $state.snapshot(measured) });
+    if (out.ok) return { ok: true, value: out.value };
+    return { ok: false, error: 'error' in out ? out.error.message : 'a newer comparison replaced this one' };
+  }
 
   /** Export preview and files of the current design (runs the polygon engine in the worker). */
   async exportFiles(opts: Omit<ExportInput, 'doc'>): Promise<{ ok: true; value: ExportOutput } | { ok: false; error: string }> {

@@ -4,11 +4,14 @@
  */
 import wasmUrl from 'clipper2-wasm/dist/es/clipper2z.wasm?url';
 import { initPolygons } from '../../../core/geometry/index.ts';
+import fontUrl from 'dejavu-fonts-ttf/ttf/DejaVuSans.ttf?url';
 import { runJob, setPolygonInit } from './jobs.ts';
+import { setReportFont } from './measured-job.ts';
 import type { CancelRequest, JobRequest, WorkerMessage } from './protocol.ts';
 import { toJobError } from './client.ts';
 
 setPolygonInit(() => initPolygons({ locateFile: () => wasmUrl }));
+setReportFont(async () => new Uint8Array(await (await fetch(fontUrl)).arrayBuffer()));
 
 const post = (m: WorkerMessage) => (self as unknown as { postMessage(m: WorkerMessage): void }).postMessage(m);
 

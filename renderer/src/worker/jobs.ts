@@ -21,6 +21,7 @@ import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
 import { sectionJob, type SectionInput } from './section-job.ts';
 import { equalizeJob, tuneJob, type EqualizeInput, type TuneInput } from './equalize-job.ts';
+import { compareJob, touchstoneFile, reportFile, type CompareInput } from './measured-job.ts';
 
 /** The sized design as it crosses to the page: without the document, which the editor already holds. */
 export type SizedView = Omit<SizedDesign, 'doc'>;
@@ -85,6 +86,7 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
     case 'milling': return millingJob(input as MillingInput);
     case 'equalize': return equalizeJob(input as EqualizeInput);
     case 'tune': return tuneJob(input as TuneInput, progress, signal);
+    case 'compare': return compareJob(input as CompareInput, progress);
     default: return exhaustive(kind, 'job');
   }
 }
@@ -123,23 +125,33 @@ export function errorText(err: unknown): string {
   return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : err instanceof Error ? err.message : String(err);
 }
 
-/** The file formats of the core's one table (core/pipeline/formats.ts). */
-export type { ExportFormat as OutputKind } from '../../../core/pipeline/index.ts';
+/** The file formats of the core's one table (core/pipeline/formats.ts), and the app's two response files. */
+import type { ExportFormat } from '../../../core/pipeline/index.ts';
+/** Files of the response and the report, written by the same core functions as `sweep --touchstone` and `report`. */
+export type AppOutput = 'touchstone' | 'report';
+export type OutputKind = ExportFormat | AppOutput;
 
-/** The design and the same request the CLI's export makes (formats and every option). */
-export type ExportInput = ExportRequest & { doc: DesignDoc };
+/** The design and the same request the CLI's export makes (formats and every option), plus the response files. */
+export type ExportInput = ExportRequest & { doc: DesignDoc; extras?: AppOutput[]; /** The design's file name (Touchstone header). */ fileName?: string };
 
-export interface ExportOutput { preview: string; files: { name: string; data: string }[]; notes: string[] }
+export interface ExportOutput { preview: string; files: { name: string; data: string }[]; notes: string[]; /** Binary files (the design report). */ binary?: { name: string; data: Uint8Array }[] }
 
 /** The preview (the SVG file of the chosen layers) and the chosen files, from the core's one export pipeline. */
 export async function exportJob(input: ExportInput): Promise<ExportOutput> {
   await polygons();
-  const { doc, ...request } = input;
+  const { doc, extras = [], fileName, ...request } = input;
   const r = exportDesign(pipeline, doc, request);
+  const binary: { name: string; data: Uint8Array }[] = [];
+  const files = r.files.map((f) => ({ name: f.name, data: f.text }));
+  for (const k of extras) {
+    if (k === 'touchstone') files.push(await touchstoneFile(doc, fileName ?? `${request.base}.json`, `stripwright ${request.version}`));
+    else binary.push(await reportFile(doc, request.base, `stripwright ${request.version}`));
+  }
   return {
     preview: r.preview,
-    files: r.files.map((f) => ({ name: f.name, data: f.text })),
+    files,
     notes: r.messages.map((m) => `${m.severity === 'info' ? 'Note' : m.severity === 'warning' ? 'Warning' : 'Error'}: ${m.text}`),
+    ...(binary.length ? { binary } : {}),
   };
 }
 
