@@ -12,7 +12,7 @@
  * The feeds are sized to fit the 1 m board limit (pitch scaled, 24 GHz on a 0.127 mm laminate for the large ones).
  * Other jobs sharing the cores inflate wall times; the fastest runs are the least disturbed.
  */
-import { corporateFeed, type DesignDoc } from '../core/index.ts';
+import { corporateFeed, designSweepSettings, type DesignDoc } from '../core/index.ts';
 import { initPolygons } from '../core/geometry/polygons.ts';
 import { DesignPipeline, exportDesign } from '../core/pipeline/index.ts';
 import { layoutJob, responseJob, pipeline as workerPipeline } from '../renderer/src/worker/jobs.ts';
@@ -36,16 +36,16 @@ async function editFrame(): Promise<void> {
   const bend = doc.nodes.find((n) => n.kind === 'vertex')!.id;
   const moves = 12;
   await layoutJob({ doc }, none); // warm the line cache and the JIT, as an open editor is
-  await responseJob({ doc, points: 21 }, none);
+  await responseJob({ doc, settings: { ...designSweepSettings(doc), points: 21 } }, none);
   const copper: number[] = [], coarse: number[] = [], full: number[] = [];
   for (let k = 1; k <= moves; k++) {
     const d = moved(doc, bend, k);
     const t0 = performance.now();
     await layoutJob({ doc: d }, none);
     const t1 = performance.now();
-    await responseJob({ doc: d, points: 21 }, none);
+    await responseJob({ doc: d, settings: { ...designSweepSettings(d), points: 21 } }, none);
     const t2 = performance.now();
-    await responseJob({ doc: d, points: 201 }, none);
+    await responseJob({ doc: d, settings: { ...designSweepSettings(d), points: 201 } }, none);
     const t3 = performance.now();
     copper.push(t1 - t0); coarse.push(t2 - t1); full.push(t3 - t2);
   }

@@ -8,6 +8,7 @@ import { join } from 'node:path';
 import { layoutJob, geometryJob, checkJob, exportJob, millingJob, responseJob, pipeline, setPolygonInit } from '../../renderer/src/worker/jobs.ts';
 import { initPolygons } from '../../core/geometry/index.ts';
 import { parseDesign } from '../../core/design/index.ts';
+import { designSweepSettings } from '../../core/network/index.ts';
 import { exampleText } from '../../renderer/src/state/examples.ts';
 
 const wasm = join(process.cwd(), 'node_modules/clipper2-wasm/dist/es/clipper2z.wasm');
@@ -26,7 +27,7 @@ describe('one pipeline per revision in the worker', () => {
     await exportJob({ doc: demo(), formats: [], base: 'demo', version: 't', layers: ['copper'] });
     await exportJob({ doc: demo(), formats: ['dxf', 'gerber', 'mask-pdf'], base: 'demo', version: 't' });
     await millingJob({ doc: demo(), options: {}, write: false, base: 'demo', version: 't' });
-    await responseJob({ doc: demo(), points: 11 }, none);
+    await responseJob({ doc: demo(), settings: { ...designSweepSettings(demo()), points: 11 } }, none);
     expect(pipeline.count('sized')).toBe(1);
     expect(pipeline.count('board')).toBe(1);
     expect(pipeline.count('netlist')).toBe(1);
