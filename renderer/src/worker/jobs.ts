@@ -13,7 +13,7 @@ import { sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type
 import { InputError, exhaustive } from '../../../core/util/errors.ts';
 import { runYield, type YieldResult } from '../../../core/yield/index.ts';
 import { EXPORT_FILE_NAMES, millingPreviewSvg } from '../../../core/export/index.ts';
-import { DesignPipeline, exportDesign, type ExportRequest } from '../../../core/pipeline/index.ts';
+import { DesignPipeline, exportDesign, type ExportRequest } from '../../../core/index.ts';
 import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/toolpath/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
@@ -109,7 +109,7 @@ export function errorText(err: unknown): string {
 }
 
 /** The file formats of the core's one table (core/pipeline/formats.ts). */
-export type { ExportFormat as OutputKind } from '../../../core/pipeline/index.ts';
+export type { ExportFormat as OutputKind } from '../../../core/index.ts';
 
 /** The design and the same request the CLI's export makes (formats and every option). */
 export type ExportInput = ExportRequest & { doc: DesignDoc };
