@@ -14,6 +14,8 @@ import { LAYER_INFO, checkLayers, layerRegions, type ExportGeometry, type Export
 
 export interface DxfR12Options extends FrameOptions {
   layers?: readonly string[];
+  /** Who made it from what (the pipeline's stamp, written as a comment; no timestamp). */
+  stamp?: string;
 }
 
 export function toDxfR12(geometry: ExportGeometry, options: DxfR12Options = {}): string {
@@ -23,6 +25,7 @@ export function toDxfR12(geometry: ExportGeometry, options: DxfR12Options = {}):
   const tag = (code: number, value: string | number) => { t.push(String(code), typeof value === 'number' ? fmtMm(value) : value); };
   tag(999, 'Stripwright DXF R12 export. Units: millimetres.');
   tag(999, `Origin: ${frame.origin === 'board' ? 'lower-left corner of the board' : 'design origin'}. Mirrored: ${frame.mirror ? 'yes (left-right)' : 'no'}.`);
+  if (options.stamp) tag(999, `Made by ${options.stamp.replace(/[\r\n]+/g, ' ')}.`);
   tag(0, 'SECTION'); tag(2, 'HEADER');
   tag(9, '$ACADVER'); tag(1, 'AC1009');
   tag(9, '$EXTMIN'); tag(10, frame.box.minX); tag(20, frame.box.minY); tag(30, 0);

@@ -61,6 +61,8 @@ describe('export: the CLI and the app give the same bytes', () => {
         const gerber = Object.entries(fromCli).find(([n]) => n.endsWith('-copper-top.gbr'))![1];
         expect(gerber).toMatch(new RegExp(`G04 design [0-9a-f]{8}:[0-9a-z]+\\*`));
         expect(gerber).toContain(VERSION);
+        const dxf = Object.entries(fromCli).find(([n]) => n.endsWith('.dxf'))![1];
+        expect(dxf).toMatch(new RegExp(`999\nMade by design [0-9a-f]{8}:[0-9a-z]+, Stripwright ${VERSION.replace(/\./g, '\\.')}`));
         for (const t of Object.values(fromCli)) expect(t).not.toMatch(/20\d\d-\d\d-\d\d|\d\d:\d\d:\d\d/);
       }
     });

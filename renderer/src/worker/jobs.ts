@@ -14,7 +14,7 @@ import { portLabel } from '../state/response-view.ts';
 import { InputError, exhaustive } from '../../../core/util/errors.ts';
 import { runYield, type YieldResult } from '../../../core/yield/index.ts';
 import { EXPORT_FILE_NAMES, millingPreviewSvg } from '../../../core/export/index.ts';
-import { DesignPipeline, exportDesign, type ExportRequest } from '../../../core/pipeline/index.ts';
+import { DesignPipeline, exportDesign, type ExportRequest } from '../../../core/index.ts';
 import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/toolpath/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
@@ -126,7 +126,7 @@ export function errorText(err: unknown): string {
 }
 
 /** The file formats of the core's one table (core/pipeline/formats.ts), and the app's two response files. */
-import type { ExportFormat } from '../../../core/pipeline/index.ts';
+import type { ExportFormat } from '../../../core/index.ts';
 /** Files of the response and the report, written by the same core functions as `sweep --touchstone` and `report`. */
 export type AppOutput = 'touchstone' | 'report';
 export type OutputKind = ExportFormat | AppOutput;
