@@ -10,7 +10,7 @@ import { sizeDesign, asMadeLineOptions, LineCache, designPaths, boardGeometryOf,
 import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { Finding } from '../../../core/layout/checks.ts';
 import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
-import { InputError, exhaustive } from '../../../core/util/errors.ts';
+import { InputError, errorWords, exhaustive } from '../../../core/util/errors.ts';
 import { runYield, type YieldResult } from '../../../core/yield/index.ts';
 import { EXPORT_FILE_NAMES, toDxf, toSvg, toGerber, toExcellon, toMask, exportGcode, planDesignMilling, millingPreviewSvg, type ExportLayer } from '../../../core/export/index.ts';
 import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/toolpath/index.ts';
@@ -103,7 +103,7 @@ export async function geometryJob(input: LayoutInput): Promise<BoardGeometry> {
 }
 
 export function errorText(err: unknown): string {
-  return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : err instanceof Error ? err.message : String(err);
+  return err instanceof InputError ? errorWords(err) : err instanceof Error ? err.message : String(err);
 }
 
 export type OutputKind = 'dxf' | 'svg' | 'gerber' | 'drill' | 'mask' | 'gcode';
