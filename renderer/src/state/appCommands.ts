@@ -51,6 +51,7 @@ export function appCommands(ed: EditorState, files: FileActions, shell: ShellHoo
     { id: 'view.findings', group: 'Board', label: 'Show the shop check', keys: ['Alt+2'], run: () => shell.showDock('findings') },
     { id: 'view.response', group: 'Board', label: 'Show the response', keys: ['Alt+3'], run: () => shell.showDock('response') },
     { id: 'board.coupon', group: 'Board', label: 'Add a laminate coupon to the board', run: () => { const r = ed.addCoupon(); if (typeof r === 'string') shell.tell('Laminate coupon', r); } },
+    { id: 'view.notes', group: 'Board', label: 'Show the design\'s notes (what it is for, targets, scenario)', run: () => shell.showDock('notes') },
     { id: 'view.laminate', group: 'Board', label: 'Laminate from a coupon: open its tab', run: () => shell.showDock('laminate') },
     { id: 'file.recover', group: 'File', label: 'Recover unsaved work from an earlier session', run: () => files.offerRecovery(true) },
     { id: 'edit.rename', group: 'Edit', label: 'Rename the design', run: () => (document.querySelector('[data-testid="design-name"]') as HTMLElement | null)?.click() },

@@ -60,12 +60,16 @@ export class FileActions {
     this.editor.status = 'New design: place a port (P), then Route (R) from it.';
   }
 
+  /** Called once an example is open (the App shows its notes). */
+  onExampleOpened: (() => void) | null = null;
+
   async openExample(id: string): Promise<void> {
     const text = exampleText(id);
     if (!text) { this.editor.status = `No example “${id}”; the examples are ${EXAMPLES.map((e) => e.id).join(', ')}.`; return; }
     if (!(await this.mayDiscard('open an example'))) return;
     const err = this.editor.loadText(text, null);
-    if (err) this.editor.status = `The example could not be read: ${err}`;
+    if (err) { this.editor.status = `The example could not be read: ${err}`; return; }
+    this.onExampleOpened?.();
   }
 
   async open(): Promise<void> {
