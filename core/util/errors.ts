@@ -65,3 +65,26 @@ export function describe(value: unknown): string {
 export function exhaustive(x: never, what: string): never {
   throw new InputError('bad-choice', what, 'one of the known choices', describe(x));
 }
+
+/** Field names people know, for the last key of an internal path (`args.spec.width.z0` → "Z0"). */
+const FIELD_WORDS: Record<string, string> = {
+  z0: 'Z0', zRef: 'reference impedance', deg: 'electrical length', toleranceDeg: 'phase tolerance', er: 'εr', h: 'height',
+  t: 'copper thickness', tanDelta: 'tan δ', sigma: 'conductivity', f0: 'f0', fMeasure: 'measurement frequency',
+  tipWidth: 'tip width', angleDeg: 'angle', toolDiameter: 'tool diameter', edgeBias: 'edge bias', minFeature: 'smallest feature',
+  padWidth: 'pad width', padLength: 'pad length', pinDrill: 'pin drill', offsetsDeg: 'phase offsets', rippleDb: 'ripple',
+};
+
+/**
+ * The field of an error as people know it: the last key of an internal path, in words ("args.spec.length.length"
+ * → "length", "nodes[3].zRef" → "reference impedance", "args.spec.width.z0" → "Z0").
+ */
+export function fieldWords(field: string): string {
+  const keys = field.replace(/\[[^\]]*\]/g, '').split('.').filter((k) => k && k !== 'args' && k !== 'spec');
+  const last = keys[keys.length - 1] ?? field;
+  return FIELD_WORDS[last] ?? last.replace(/([a-z])([A-Z])/g, (_, a: string, b: string) => `${a} ${b.toLowerCase()}`);
+}
+
+/** An InputError as one sentence in the user's words: "length: expected …, found …, fix: …" (no internal paths). */
+export function errorWords(e: InputError): string {
+  return `${fieldWords(e.field)}: expected ${e.expected}, found ${e.got}${e.hint ? `, fix: ${e.hint}` : ''}`;
+}

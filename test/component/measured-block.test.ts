@@ -99,6 +99,7 @@ describe('measured block from a Touchstone file', () => {
     const field = screen.getByTestId('field-block-length') as HTMLInputElement;
     await fireEvent.focus(field);
     await fireEvent.input(field, { target: { value: '2.5 mm' } });
+    await fireEvent.keyDown(field, { key: 'Enter' }); // an entry is committed with Enter
     const seg = ed.doc.segments.find((s) => s.id === 'r1')!;
     expect(seg.kind === 'sparams' && seg.length.length).toBeCloseTo(2.5e-3, 12);
     vi.restoreAllMocks();

@@ -57,6 +57,7 @@ describe('piece sheet', () => {
     const field = screen.getByTestId('field-z0') as HTMLInputElement;
     await fireEvent.focus(field);
     await fireEvent.input(field, { target: { value: '75 ohm' } });
+    await fireEvent.keyDown(field, { key: 'Enter' }); // an entry is committed with Enter
     const seg = ed.doc.segments.find((s) => s.id === 'feed')!;
     expect(seg.kind === 'line' && seg.width.by === 'z0' && seg.width.z0).toBe(75);
     await sized(ed);
@@ -73,6 +74,7 @@ describe('piece sheet', () => {
     const field = screen.getByTestId('field-z0') as HTMLInputElement;
     await fireEvent.focus(field);
     await fireEvent.input(field, { target: { value: '50 furlongs' } });
+    await fireEvent.keyDown(field, { key: 'Enter' }); // an entry is committed with Enter
     expect(screen.getByTestId('field-z0-error').textContent).toMatch(/expected .*impedance/);
     expect(ed.revision).toBe(rev);
   });
@@ -84,6 +86,7 @@ describe('piece sheet', () => {
     const field = screen.getByTestId('field-length') as HTMLInputElement;
     await fireEvent.focus(field);
     await fireEvent.input(field, { target: { value: '400 mil' } });
+    await fireEvent.keyDown(field, { key: 'Enter' }); // an entry is committed with Enter
     const seg = ed.doc.segments.find((s) => s.id === 'feed')!;
     expect(seg.kind === 'line' && seg.length.by === 'length' && seg.length.length).toBeCloseTo(400 * 25.4e-6, 12);
   });
@@ -121,6 +124,7 @@ describe('stack panel', () => {
     const h = screen.getByTestId('field-h') as HTMLInputElement;
     await fireEvent.focus(h);
     await fireEvent.input(h, { target: { value: '31 mil' } });
+    await fireEvent.keyDown(h, { key: 'Enter' }); // an entry is committed with Enter
     expect(ed.doc.substrate.h).toBeCloseTo(31 * 25.4e-6, 12);
     ed.undo();
     expect(ed.doc.substrate.h).toBe(1.6e-3);
@@ -275,5 +279,50 @@ describe('junctions on the piece sheet and in Stack & band (Hammerstad 1981 tee)
     expect(mm(screen.getByTestId('fig-length').textContent!)).toBeLessThan(modelledLength);
     ed.undo();
     expect(ed.doc.junctions).toBe('modelled');
+  });
+});
+
+describe('typing a quantity (issue 14, fault 9)', () => {
+  it('"13 mm" typed key by key passes no half-typed value to the design and shows no error until Enter', async () => {
+    const ed = editorOn('demo');
+    ed.select(['feed']);
+    render(PieceSheet, { editor: ed });
+    await fireEvent.click(screen.getByTestId('length-by-length'));
+    const field = screen.getByTestId('field-length') as HTMLInputElement;
+    const rev = ed.revision;
+    await fireEvent.focus(field);
+    for (const typed of ['1', '13', '13 ', '13 m', '13 mm']) {
+      await fireEvent.input(field, { target: { value: typed } });
+      expect(screen.queryByTestId('field-length-error')).toBeNull();
+      expect(ed.revision).toBe(rev);
+      expect(ed.status).not.toMatch(/Not done/);
+    }
+    await fireEvent.keyDown(field, { key: 'Enter' });
+    const seg = ed.doc.segments.find((s) => s.id === 'feed')!;
+    expect(seg.kind === 'line' && seg.length.by === 'length' && seg.length.length).toBeCloseTo(13e-3, 12);
+  });
+  it('a bare number takes the unit the field shows; a refusal is worded for the user, without internal paths', async () => {
+    const ed = editorOn('demo');
+    ed.select(['feed']);
+    render(PieceSheet, { editor: ed });
+    await fireEvent.click(screen.getByTestId('length-by-length'));
+    const field = screen.getByTestId('field-length') as HTMLInputElement;
+    expect(field.value).toMatch(/ mm$/);
+    await fireEvent.focus(field);
+    await fireEvent.input(field, { target: { value: '21' } });
+    await fireEvent.keyDown(field, { key: 'Enter' });
+    const seg = ed.doc.segments.find((s) => s.id === 'feed')!;
+    expect(seg.kind === 'line' && seg.length.by === 'length' && seg.length.length).toBeCloseTo(21e-3, 12);
+    await fireEvent.focus(field);
+    await fireEvent.input(field, { target: { value: '21 parsecs' } });
+    await fireEvent.keyDown(field, { key: 'Enter' });
+    const err = screen.getByTestId('field-length-error').textContent!;
+    expect(err).toMatch(/^expected a length with a unit.*, found "21 parsecs", fix: 'parsecs' is not a unit of length$/);
+    expect(err).not.toMatch(/args|spec\./);
+    // A value the design refuses (a line 13 m long) is reported in the status line by field name, not by path.
+    await fireEvent.input(field, { target: { value: '13 m' } });
+    await fireEvent.keyDown(field, { key: 'Enter' });
+    expect(ed.status).toMatch(/^Not done: length: expected .+, found 13/);
+    expect(ed.status).not.toMatch(/args|spec\./);
   });
 });

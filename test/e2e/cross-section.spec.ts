@@ -31,6 +31,7 @@ test('select a line, open its cross-section, change the gap, see Z0 change', asy
   const gap = page.getByTestId('section-gap');
   await gap.click();
   await gap.fill('1.5 mm');
+  await gap.press('Enter');
   await expect.poll(async () => ohms(await z0.innerText()), { timeout: 30_000 }).toBeGreaterThan(before * 1.01);
   const wider = ohms(await z0.innerText());
 
@@ -42,6 +43,7 @@ test('select a line, open its cross-section, change the gap, see Z0 change', asy
   if (process.env.STRIPWRIGHT_SCREENSHOTS === '1') {
     await page.getByTestId('section-side-stitched').click();
     await gap.fill('0.3 mm');
+    await gap.press('Enter');
     await expect.poll(async () => ohms(await z0.innerText()), { timeout: 30_000 }).toBeLessThan(wider);
     await readmeShot(page, 'cross-section.png');
   }

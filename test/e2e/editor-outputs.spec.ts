@@ -41,5 +41,6 @@ test('fix a shop-check finding: the loss budget, with a low-loss laminate', asyn
   await page.getByTestId('tab-stack').click();
   const tan = page.getByTestId('field-tan');
   await tan.fill('0.002');
+  await tan.press('Enter');
   await expect(page.getByTestId('finding-loss-budget')).toHaveCount(0, { timeout: 30_000 });
 });

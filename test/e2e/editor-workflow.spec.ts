@@ -55,17 +55,21 @@ test('draw a two-way divider, size an arm, undo and redo, read the paths', async
   const width50 = await page.getByTestId('fig-width').innerText();
   await page.getByTestId('length-by-degrees').click();
   await page.getByTestId('field-deg').fill('90');
+  await page.getByTestId('field-deg').press('Enter');
   await expect(page.getByTestId('fig-deg')).toHaveText('90.0°');
   const length90 = await page.getByTestId('fig-length').innerText();
   await page.getByTestId('field-z0').fill('70.7 ohm');
-  await expect(page.getByTestId('fig-z0')).toContainText('70.7');
   await page.getByTestId('field-z0').press('Enter');
+  await expect(page.getByTestId('fig-z0')).toContainText('70.7');
   const width707 = await page.getByTestId('fig-width').innerText();
   expect(parseFloat(width707)).toBeLessThan(parseFloat(width50));
-  // A bad entry shows its error beside the field and changes nothing; Esc puts the field back as it was.
+  // Nothing typed reaches the design before Enter; a bad entry shows its error beside the field and changes
+  // nothing; Esc puts the field back as it was.
   await page.getByTestId('field-z0').fill('75');
-  await expect(page.getByTestId('fig-z0')).toContainText('75');
+  await expect(page.getByTestId('fig-z0')).toContainText('70.7');
   await page.getByTestId('field-z0').fill('seventy');
+  await expect(page.getByTestId('field-z0-error')).toHaveCount(0);
+  await page.getByTestId('field-z0').press('Enter');
   await expect(page.getByTestId('field-z0-error')).toContainText('expected');
   await page.getByTestId('field-z0').press('Escape');
   await expect(page.getByTestId('fig-width')).toHaveText(width707);
@@ -138,6 +142,7 @@ test('rename the design, ask for a phase match, and read the safety cautions', a
   await page.getByTestId('ask-phase-match').click();
   await expect(page.getByTestId('path-ledger').getByText('out of tolerance')).toHaveCount(1);
   await page.getByTestId('field-phase-tol').fill('180 deg');
+  await page.getByTestId('field-phase-tol').press('Enter');
   await expect(page.getByTestId('path-ledger').getByText('out of tolerance')).toHaveCount(0);
   await page.keyboard.press('Control+k');
   await page.keyboard.type('safety');

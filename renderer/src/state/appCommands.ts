@@ -56,6 +56,7 @@ export function appCommands(ed: EditorState, files: FileActions, shell: ShellHoo
     { id: 'view.measured', group: 'Board', label: 'Measured data beside the simulation (Touchstone overlay)', run: () => shell.showDock('measured') },
     { id: 'file.report', group: 'File', label: 'Design report (PDF): choose it in Outputs and export', run: () => shell.showDock('outputs') },
     { id: 'board.coupon', group: 'Board', label: 'Add a laminate coupon to the board', run: () => { const r = ed.addCoupon(); if (typeof r === 'string') shell.tell('Laminate coupon', r); } },
+    { id: 'view.notes', group: 'Board', label: 'Show the design\'s notes (what it is for, targets, scenario)', run: () => shell.showDock('notes') },
     { id: 'view.laminate', group: 'Board', label: 'Laminate from a coupon: open its tab', run: () => shell.showDock('laminate') },
     { id: 'file.recover', group: 'File', label: 'Recover unsaved work from an earlier session', run: () => files.offerRecovery(true) },
     { id: 'edit.rename', group: 'Edit', label: 'Rename the design', run: () => (document.querySelector('[data-testid="design-name"]') as HTMLElement | null)?.click() },

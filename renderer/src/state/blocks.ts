@@ -2,7 +2,7 @@
  * Placing a block (core/blocks, through core buildBlock) into the open design: the block is made for the design's
  * substrate, process and f0, then pasted beside what is already drawn as one undo step.
  */
-import { buildBlock, InputError, type BlockSpec } from '../../../core/index.ts';
+import { buildBlock, InputError, errorWords, type BlockSpec } from '../../../core/index.ts';
 import type { EditorState } from './editor.svelte.ts';
 
 export type BlockKind = BlockSpec['kind'];
@@ -17,7 +17,7 @@ export function placeBlock(ed: EditorState, ask: BlockAsk): string | null {
   try {
     block = buildBlock({ ...ask, f0: doc.frequency.f0, substrate: doc.substrate, process: doc.process });
   } catch (e) {
-    if (e instanceof InputError) return `${e.field}: expected ${e.expected}, got ${e.got}${e.hint ? ` (${e.hint})` : ''}`;
+    if (e instanceof InputError) return errorWords(e);
     throw e;
   }
   // Beside the drawing: 5 mm right of its rightmost node, top edges level.

@@ -11,7 +11,7 @@ import type { SubstrateSpec } from '../../../core/substrate/types.ts';
 import { InputError } from '../../../core/util/errors.ts';
 import { couponForDesign, defaultGroundClearance, smdFootprint, type CouponPlan } from '../../../core/layout/index.ts';
 import { sparamsAdmittance } from '../../../core/network/index.ts';
-import { namer } from '../../../core/index.ts';
+import { errorWords, namer } from '../../../core/index.ts';
 import type { Scene } from '../board/scene.ts';
 import type { Preview } from '../board/BoardController.ts';
 import { ToolMachine, type ToolId } from '../board/tools.ts';
@@ -127,7 +127,7 @@ export class EditorState {
       this.canUndo = this.history.canUndo;
       return true;
     } catch (err) {
-      this.status = err instanceof InputError ? `Not done: ${err.field} — expected ${err.expected}, got ${err.got}` : `Not done: ${String(err)}`;
+      this.status = err instanceof InputError ? `Not done: ${errorWords(err)}` : `Not done: ${String(err)}`;
       return false;
     }
   }
@@ -270,7 +270,7 @@ export class EditorState {
    */
   addCoupon(opts: { thru?: boolean } = {}): CouponPlan | string {
     let c: ReturnType<typeof couponForDesign>;
-    try { c = couponForDesign(this.doc, { thru: opts.thru === true }); } catch (err) { return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : String(err); }
+    try { c = couponForDesign(this.doc, { thru: opts.thru === true }); } catch (err) { return err instanceof InputError ? errorWords(err) : String(err); }
     const before = new Set([...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)]);
     if (!this.edit('selection.paste', { clipboard: c.clipboard, offset: c.offset }, 'Add laminate coupon')) return this.status;
     const added = [...this.doc.nodes.map((n) => n.id), ...this.doc.segments.map((s) => s.id)].filter((id) => !before.has(id));

@@ -60,12 +60,17 @@ export class FileActions {
     this.editor.status = 'New design: place a port (P), then Route (R) from it.';
   }
 
+  /** Called once an example is open (the App shows its notes). */
+  onExampleOpened: (() => void) | null = null;
+
   async openExample(id: string): Promise<void> {
     const text = exampleText(id);
     if (!text) { this.editor.status = `No example “${id}”; the examples are ${EXAMPLES.map((e) => e.id).join(', ')}.`; return; }
     if (!(await this.mayDiscard('open an example'))) return;
     const err = this.editor.loadText(text, null);
-    this.editor.status = err ? `The example could not be read: ${err}` : `Opened the example “${EXAMPLES.find((e) => e.id === id)?.title ?? id}” (not saved yet: Save as keeps your copy)`;
+    if (err) { this.editor.status = `The example could not be read: ${err}`; return; }
+    this.editor.status = `Opened the example “${EXAMPLES.find((e) => e.id === id)?.title ?? id}” (not saved yet: Save as keeps your copy)`;
+    this.onExampleOpened?.();
   }
 
   async open(): Promise<void> {

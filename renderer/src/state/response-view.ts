@@ -6,6 +6,7 @@
  * frequencies (no common grid is needed), listed in the legend and read at every marker like a swept trace.
  */
 import type { DesignDoc } from '../../../core/design/types.ts';
+import { nameOf } from '../../../core/index.ts';
 
 export type ResponseView = 'db' | 'phase' | 'delay';
 
@@ -27,8 +28,7 @@ export interface OverlayTrace {
   style: TraceStyle;
 }
 
-/** A port's name for people: its label in the design where it has one, else its node id. */
+/** A port's name for people, the same as every face gives it (core nameOf: its label, else its node id). */
 export function portLabel(doc: Pick<DesignDoc, 'nodes'>, id: string): string {
-  const n = doc.nodes.find((x) => x.id === id);
-  return n?.label?.trim() ? n.label.trim() : id;
+  return nameOf(doc, id);
 }

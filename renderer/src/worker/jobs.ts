@@ -11,7 +11,7 @@ import type { PieceOutline } from '../../../core/layout/geometry.ts';
 import type { Finding } from '../../../core/layout/checks.ts';
 import { sweepNetwork, magnitudeDb, phaseDeg, groupDelay, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/network/index.ts';
 import { portLabel } from '../state/response-view.ts';
-import { InputError, exhaustive } from '../../../core/util/errors.ts';
+import { InputError, errorWords, exhaustive } from '../../../core/util/errors.ts';
 import { runYield, type YieldResult } from '../../../core/yield/index.ts';
 import { EXPORT_FILE_NAMES, millingPreviewSvg } from '../../../core/export/index.ts';
 import { DesignPipeline, exportDesign, type ExportRequest } from '../../../core/index.ts';
@@ -122,7 +122,7 @@ export async function geometryJob(input: LayoutInput): Promise<BoardGeometry> {
 }
 
 export function errorText(err: unknown): string {
-  return err instanceof InputError ? `${err.field}: expected ${err.expected}, got ${err.got}` : err instanceof Error ? err.message : String(err);
+  return err instanceof InputError ? errorWords(err) : err instanceof Error ? err.message : String(err);
 }
 
 /** The file formats of the core's one table (core/pipeline/formats.ts), and the app's two response files. */
