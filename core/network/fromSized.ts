@@ -197,7 +197,10 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
     if (n.tee && !n.tee.modelled) warnings.push(warn('note', `tee ${n.id}: ideal junction (chosen for comparison); arms are joined at the junction centre`, { source: TEE_SOURCE, subjects: [n.id], severity: 'info' }));
   }
   if (ports.length === 0) throw new InputError('singular-network', 'nodes', 'at least one port node in the design', 'none', 'add a port where the network is fed');
-  const input = Math.max(0, ports.findIndex((p) => p.node === sized.anchor));
+  // The input is the one the user chose for the first phase group (path ledger), else the anchor port.
+  const chosen = sized.doc.phaseGroups?.[0]?.from;
+  const byGroup = chosen === undefined ? -1 : ports.findIndex((p) => p.node === chosen);
+  const input = byGroup >= 0 ? byGroup : Math.max(0, ports.findIndex((p) => p.node === sized.anchor));
   return { elements, ports, input, warnings };
 }
 

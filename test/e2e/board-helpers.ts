@@ -28,9 +28,11 @@ export async function readRulers(page: Page): Promise<Ruler> {
   return { toScreen: (x, y) => ({ x: xs[0]!.pos + (x - xs[0]!.value) * kx, y: ys[0]!.pos + (y - ys[0]!.value) * ky }) };
 }
 
+/** The centre of a drawn mark; marks are redrawn when the layout lands, so wait until one is there. */
 export async function centreOf(loc: Locator): Promise<{ x: number; y: number }> {
-  const b = await loc.boundingBox();
-  if (!b) throw new Error('not drawn');
+  let box: Awaited<ReturnType<Locator['boundingBox']>> = null;
+  await expect.poll(async () => { box = await loc.boundingBox().catch(() => null); return box !== null; }, { timeout: 10_000 }).toBe(true);
+  const b = box!;
   return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
 }
 

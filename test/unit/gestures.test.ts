@@ -117,3 +117,14 @@ describe('run.insert', () => {
     expect(err.field).toBe('args.at');
   });
 });
+
+describe('the input port the user chose', () => {
+  it('the network takes the first phase group\'s input as its input (the ledger\'s choice), else the anchor port', async () => {
+    const { netlistFromSized } = await import('../../core/index.ts');
+    const demo = load('demo.json');
+    const netIn = (d: DesignDoc) => { const n = netlistFromSized(sizeDesign(d)); return n.ports[n.input]!.node; };
+    expect(netIn(demo)).toBe('in');
+    expect(netIn(runCommand(demo, 'phaseGroup.set', { id: 'outputs', from: 'out2', to: ['in', 'out1', 'out3', 'out4'] }))).toBe('out2');
+    expect(netIn(runCommand(demo, 'phaseGroup.delete', { id: 'outputs' }))).toBe('in');
+  });
+});
