@@ -58,16 +58,15 @@ export function narrowestWidth(p: FabProcess): number { return p.kind === 'etch'
  * make on this laminate (the nearest it can do).
  */
 export function widthFor(ctx: BlockContext, z: number, field: string, what: string): number {
-  const r = synthesizeLine(ctx.substrate, z, ctx.f0);
+  const widthOf = (zz: number): number => { try { return synthesizeLine(ctx.substrate, zz, ctx.f0).width; } catch { return 0; } };
+  const w = widthOf(z);
   const minW = narrowestWidth(ctx.process);
-  if (r.width >= minW) return r.width;
+  if (w >= minW) return w;
+  // The synthesis is monotone in Z: step down until the width is makeable, to name the nearest the process can do.
   let zMax = z;
-  try {
-    // Bisection on the analysis is not needed: the synthesis is monotone, so step down until the width is makeable.
-    for (let k = 0; k < 400 && synthesizeLine(ctx.substrate, zMax, ctx.f0).width < minW; k++) zMax *= 0.99;
-  } catch { /* keep the last value */ }
+  for (let k = 0; k < 600 && widthOf(zMax) < minW; k++) zMax *= 0.99;
   throw new InputError('out-of-range', field, `impedances the process can make (its narrowest copper is ${(minW * 1e3).toFixed(3)} mm, about ${zMax.toFixed(1)} Ω on this laminate)`,
-    `${what} needs ${z.toFixed(1)} Ω, ${(r.width * 1e3).toFixed(3)} mm wide`, 'ask for a smaller ratio or impedance, use a thicker laminate, or a finer process');
+    `${what} needs ${z.toFixed(1)} Ω${w > 0 ? `, ${(w * 1e3).toFixed(3)} mm wide` : ', narrower than the line model reaches'}`, 'ask for a smaller ratio or impedance, use a thicker laminate, or a finer process');
 }
 
 /** Guided wavelength of a Z line at f, m. */

@@ -5,6 +5,8 @@
  */
 import type { DesignDoc, DesignSegment, Target } from '../design/types.ts';
 import { tracePaths } from '../layout/paths.ts';
+import { netlistFromSized } from '../network/fromSized.ts';
+import { solveNetwork } from '../network/sweep.ts';
 import { sizeDesign } from '../layout/sizing.ts';
 import { InputError } from '../util/errors.ts';
 
@@ -43,6 +45,29 @@ export interface SpanFit { part: DesignSegment; arms: [[string, string], [string
  * different subtrees do not disturb each other.
  */
 export function fitSpans(doc: DesignDoc, kind: string, fits: SpanFit[]): void {
+  fitOnce(doc, kind, fits);
+  // The arms' copper stops at the resistor pads, which shortens them electrically (sizing's 'lumped-pad'
+  // compensation): give each arm's second leg those degrees back, then fit the spans again.
+  const sized = sizeDesign(doc);
+  const extra = new Map<string, number>();
+  for (const f of fits) for (const [, l2] of f.arms) {
+    const p = sized.pieces.find((x) => x.id === l2);
+    const pad = p ? p.compensations.filter((c) => c.model === 'lumped-pad' && c.applied).reduce((a, c) => a + c.amount_m, 0) : 0;
+    if (p && pad > 0 && p.nominalLength > 0) extra.set(l2, (pad * p.effectiveDeg) / p.nominalLength);
+  }
+  if (!extra.size) return;
+  const partIds = new Set(fits.map((f) => f.part.id));
+  const ends = new Set(fits.flatMap((f) => [f.part.a, f.part.b]));
+  doc.segments = doc.segments.filter((x) => !partIds.has(x.id));
+  doc.nodes = doc.nodes.map((n) => (ends.has(n.id) && n.kind === 'junction' ? { id: n.id, kind: 'vertex', bend: { style: 'miter-optimal' }, at: n.at, ...(n.label ? { label: n.label } : {}) } : n));
+  for (const x of doc.segments) {
+    const e = extra.get(x.id);
+    if (e !== undefined && x.kind === 'line' && x.length.by === 'degrees') x.length = { by: 'degrees', deg: x.length.deg + e };
+  }
+  fitOnce(doc, kind, fits);
+}
+
+function fitOnce(doc: DesignDoc, kind: string, fits: SpanFit[]): void {
   const seg = (id: string) => doc.segments.find((s) => s.id === id)!;
   const move = (f: SpanFit, by: number) => {
     for (const [l1, l2] of f.arms) {
@@ -86,4 +111,60 @@ export function levelTargets(doc: DesignDoc, from: string, outs: string[], ideal
     const want = idealDb[i]! - loss;
     return { id: `level-${o}`, name: `${o} level (ideal less ${loss.toFixed(2)} dB of line loss)`, figure: 'transmission', ports: [from, o], band, limit: { min: +(want - 0.3).toFixed(2), max: +(want + 0.2).toFixed(2) } };
   });
+}
+
+/**
+ * Lengthens the port line of every path but the longest by the phase it lacks at f0 (the path report of
+ * core/layout/paths.ts, with the junction and bend models the sweep uses), so the paths match by construction.
+ * `lineOf(port)` names the port line; it must be a line given by length or degrees. Returns the largest addition, m.
+ */
+export function matchPaths(doc: DesignDoc, kind: string, from: string, outs: string[], lineOf: (port: string) => string): number {
+  let most = 0;
+  for (let pass = 0; pass < 2; pass++) {
+    const sized = sizeDesign(doc);
+    const report = tracePaths(sized, from, outs, { sensitivities: false });
+    const top = Math.max(...report.paths.map((p) => p.degAtF0));
+    for (const p of report.paths) {
+      const lack = top - p.degAtF0;
+      if (lack < 1e-9) continue;
+      const seg = doc.segments.find((x) => x.id === lineOf(p.to));
+      const piece = sized.pieces.find((x) => x.id === lineOf(p.to));
+      if (!seg || !piece || seg.kind !== 'line' || seg.length.by === 'drawn' || !(piece.nominalLength > 0)) continue;
+      const degPerM = piece.effectiveDeg / piece.nominalLength;
+      const now = seg.length.by === 'degrees' ? seg.length.deg : seg.length.length * degPerM;
+      seg.length = { by: 'degrees', deg: Math.round((now + lack) * 1e9) / 1e9 };
+      most = Math.max(most, lack / degPerM);
+    }
+    placeAsSized(doc, kind);
+  }
+  return most;
+}
+
+/**
+ * Like matchPaths, but with the swept transmission phases at f0 (lossless copy, the sweep's own junction models),
+ * for blocks whose paths meet junctions the path report cannot see into (the arm ends of an unequal Wilkinson).
+ */
+export function matchPhases(doc: DesignDoc, kind: string, from: string, outs: string[], lineOf: (port: string) => string): void {
+  for (let pass = 0; pass < 3; pass++) {
+    const sized = sizeDesign(doc);
+    const r = solveNetwork(netlistFromSized(sized, { lossless: true }), new Float64Array([doc.frequency.f0]));
+    const P = r.ports.length, j = r.ports.findIndex((p) => p.name === from);
+    const ph = outs.map((o) => { const i = r.ports.findIndex((p) => p.name === o), t = 2 * (i * P + j); return (Math.atan2(r.s[t + 1]!, r.s[t]!) * 180) / Math.PI; });
+    const wrap = (d: number) => ((((d + 180) % 360) + 360) % 360) - 180;
+    // The most delayed output (smallest phase) sets the reference; the others lengthen by what they lead.
+    const ref = ph.reduce((a, b) => (wrap(b - a) < 0 ? b : a));
+    let moved = false;
+    outs.forEach((o, k) => {
+      const lead = wrap(ph[k]! - ref);
+      if (lead < 1e-4) return;
+      const seg = doc.segments.find((x) => x.id === lineOf(o));
+      const piece = sized.pieces.find((x) => x.id === lineOf(o));
+      if (!seg || !piece || seg.kind !== 'line' || seg.length.by === 'drawn' || !(piece.nominalLength > 0)) return;
+      const now = seg.length.by === 'degrees' ? seg.length.deg : (seg.length.length * piece.effectiveDeg) / piece.nominalLength;
+      seg.length = { by: 'degrees', deg: Math.round((now + lead) * 1e9) / 1e9 };
+      moved = true;
+    });
+    placeAsSized(doc, kind);
+    if (!moved) break;
+  }
 }

@@ -14,6 +14,7 @@ import { blockDef } from './registry.ts';
 import { readSpec, type ParamValue } from './params.ts';
 import type { BlockContext, BlockPieces } from './context.ts';
 import { placeAsSized } from './drawn.ts';
+import { sizeDesign } from '../layout/sizing.ts';
 
 /** The design's own laminate, process, f0 and junctions, as a block context. */
 export function contextOf(doc: DesignDoc): BlockContext {
@@ -91,7 +92,9 @@ export function placeBlock(doc: DesignDoc, kind: string, raw: Record<string, unk
   const pl = blockPlacement(doc, kind, raw, at);
   let next = withBlock(doc, pl);
   if (opts.asWhole) {
-    const e = extent(pl.nodes), m = 5e-3;
+    // 5 mm beyond the copper (common practice for hand-cut boards): the nodes' extent plus the widest piece.
+    const widest = Math.max(0, ...sizeDesign(next).pieces.map((x) => (Number.isFinite(x.width) ? x.width : 0)), ...pl.nodes.map((n) => (n.kind === 'port' && n.launch ? n.launch.padWidth : 0)));
+    const e = extent(pl.nodes), m = 5e-3 + widest;
     const band = generateBlock(kind, raw, contextOf(doc)).pieces.band;
     next = {
       ...next, name: opts.name ?? pl.name, notes: [...pl.notes, 'Safety: transmitting into a made board needs the usual RF-exposure care and a licence where your local rules ask for one; milling glass-epoxy makes fine dust (extraction and a mask, common practice).'].join('\n'),

@@ -11,18 +11,16 @@
  * - a Wilkinson split (Wilkinson 1960; unequal form Pozar §7.3, eqs. 7.37–7.39) with its resistor, its outputs
  *   brought back to Z0 by quarter waves.
  * The N outputs split as ⌈n/2⌉ and ⌊n/2⌋ at every level, so any count is reached with the fewest levels.
- * Phase matched by construction: the feed is sized once with the project's path report (core/layout/paths.ts, the
- * same junction and bend models the sweep uses), and each output's port line is lengthened by exactly the phase its
- * path lacks against the longest one; a symmetric tree needs nothing, and its outputs stay on one row.
+ * Phase matched by construction: the feed is sized and swept once at f0 (lossless, with the junction and bend
+ * models the sweep uses), and each output's port line is lengthened by exactly the phase its output leads the most
+ * delayed one; a symmetric tree needs nothing, and its outputs stay on one row.
  */
 import type { DesignDoc } from '../../design/types.ts';
 import { newDesign } from '../../design/defaults.ts';
-import { sizeDesign } from '../../layout/sizing.ts';
-import { tracePaths } from '../../layout/paths.ts';
 import { InputError } from '../../util/errors.ts';
 import { C0 } from '../../units/index.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec } from '../context.ts';
-import { fitSpans, levelTargets, placeAsSized, type SpanFit } from '../drawn.ts';
+import { fitSpans, levelTargets, matchPhases, placeAsSized, type SpanFit } from '../drawn.ts';
 import { wilkinsonValues } from './splitters.ts';
 
 interface Tree { leaves: number[]; power: number; left?: Tree; right?: Tree }
@@ -88,8 +86,10 @@ export const corporateBlock: BlockDef = {
       const v = wilkinsonValues(z0, 10 * Math.log10(t.left.power / t.right!.power));
       const fp = resistorFor(widthFor(ctx, v.z2, 'corporate.amplitudesDb', 'a Wilkinson arm'), widthFor(ctx, v.z3, 'corporate.amplitudesDb', 'a Wilkinson arm'));
       const span = fp.pitch;
+      const ks: number[] = [];
       const ends = kids.map((c, side) => {
         const k = seq++;
+        ks.push(k);
         const z = side === 0 ? v.z2 : v.z3;
         widthFor(ctx, z, 'corporate.amplitudesDb', `a Wilkinson arm toward outputs ${c.leaves.map((i) => i + 1).join(', ')}`);
         const L = drop(z), l1 = (L + span / Math.SQRT2) / 2, l2 = L - l1, d = Math.SQRT1_2, s = side === 0 ? -1 : 1;
@@ -97,14 +97,17 @@ export const corporateBlock: BlockDef = {
         const e = sk.vertex(`e${k}`, { x: x + s * (l1 - l2) * d, y: y - (l1 + l2) * d });
         sk.line(`wa${k}`, jid, a, z, { deg: (90 * l1) / L });
         sk.line(`wb${k}`, a, e, z, { deg: (90 * l2) / L });
-        const xc = centre(c), ye = sk.at(e).y;
+        // Down from the arm end first (a 45° turn), then across to the child and down again.
+        const xc = centre(c), ye = sk.at(e).y - 2 * span, xe = sk.at(e).x;
+        const low = sk.vertex(`d${k}`, { x: xe, y: ye });
+        sk.line(`dn${k}`, e, low, z0, { length: 2 * span });
         const turn = sk.vertex(`h${k}`, { x: xc, y: ye });
-        sk.line(`run${k}`, e, turn, z0, 'drawn');
+        sk.line(`run${k}`, low, turn, z0, 'drawn');
         descend(c, turn, xc, ye, side === 0 ? v.t2 : v.t3, k);
         return e;
       });
-      const k0 = seq - 2, k1 = seq - 1;
-      parts.push({ part: { id: `r${seq}`, kind: 'lumped', part: 'resistor', value: Math.round(v.r * 100) / 100, size: fp.size, width: { by: 'width', width: 0.8e-3 }, a: ends[0]!, b: ends[1]!, label: 'isolation resistor' }, arms: [[`wa${k0}`, `wb${k0}`], [`wa${k1}`, `wb${k1}`]], span });
+      const [k0, k1] = ks as [number, number];
+      parts.push({ part: { id: `r${k0}`, kind: 'lumped', part: 'resistor', value: Math.round(v.r * 100) / 100, size: fp.size, width: { by: 'width', width: 0.8e-3 }, a: ends[0]!, b: ends[1]!, label: 'isolation resistor' }, arms: [[`wa${k0}`, `wb${k0}`], [`wa${k1}`, `wb${k1}`]], span });
       notes.push(`Split toward outputs ${t.leaves.map((i) => i + 1).join('–')}: Wilkinson arms ${ohm(v.z2)} / ${ohm(v.z3)}, resistor ${ohm(v.r)}, output quarter waves ${ohm(v.t2)} / ${ohm(v.t3)}.`);
     };
     /** From the corner above child `c`: its quarter wave down to the next junction (or the output). */
@@ -143,19 +146,11 @@ export const corporateBlock: BlockDef = {
     const doc: DesignDoc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process });
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     if (parts.length) fitSpans(doc, 'corporate', parts); else placeAsSized(doc, 'corporate');
-    // Phase matching: lengthen each output line by what its path lacks (path report at f0, the sweep's models).
-    const report = tracePaths(sizeDesign(doc), 'in', outputs, { sensitivities: false });
-    const most = Math.max(...report.paths.map((p) => p.degAtF0));
-    let longest = 0;
-    for (const p of report.paths) {
-      const lack = most - p.degAtF0;
-      if (lack < 1e-6) continue;
-      const seg = doc.segments.find((s) => s.id === `run-${p.to}`)!;
-      if (seg.kind !== 'line') continue;
-      const feedDeg = (360 * feed) / lambdaG(ctx, z0);
-      seg.length = { by: 'degrees', deg: Math.round((feedDeg + lack) * 1e9) / 1e9 };
-      longest = Math.max(longest, (lack / 360) * lambdaG(ctx, z0));
-    }
+    // Phase matching: each output line is lengthened by the phase its output leads the most delayed one, read from
+    // the lossless sweep at f0 with the junction models (matchPhases).
+    const before = new Map(doc.nodes.filter((x) => x.kind === 'port').map((x) => [x.id, x.at.y]));
+    matchPhases(doc, 'corporate', 'in', outputs, (o) => `run-${o}`);
+    const longest = Math.max(0, ...doc.nodes.filter((x) => x.kind === 'port' && x.id !== 'in').map((x) => Math.abs(x.at.y - before.get(x.id)!)));
     placeAsSized(doc, 'corporate');
     rotate(doc, ((spec.heading as number) + 90) * (Math.PI / 180));
     const total = power.reduce((s, p) => s + p, 0);

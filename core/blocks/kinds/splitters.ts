@@ -13,8 +13,9 @@
  */
 import type { DesignSegment, PhaseGroup, Target } from '../../design/types.ts';
 import { newDesign } from '../../design/defaults.ts';
+import { sizeDesign } from '../../layout/sizing.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec } from '../context.ts';
-import { fitSpans, levelTargets, placeAsSized } from '../drawn.ts';
+import { fitSpans, levelTargets, matchPhases, placeAsSized } from '../drawn.ts';
 
 export function wilkinsonValues(z0: number, ratioDb: number): { k: number; z2: number; z3: number; r: number; t2: number; t3: number } {
   const k2 = Math.pow(10, -ratioDb / 10); // K² = P3/P2: ratioDb = 10·log10(P2/P3)
@@ -75,6 +76,8 @@ export const wilkinsonBlock: BlockDef = {
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     const resistor: DesignSegment = { id: 'r1', kind: 'lumped', part: 'resistor', value: Math.round(v.r * 100) / 100, size: fp.size, width: { by: 'width', width: Math.min(w2, w3) }, a: 'j1', b: 'j2', label: 'isolation resistor' };
     fitSpans(doc, 'wilkinson', [{ part: resistor, arms: [['arm11', 'arm12'], ['arm21', 'arm22']], span }]);
+    // Unequal arms meet their junctions differently: the output lines make up the phase one path lacks.
+    matchPhases(doc, 'wilkinson', 'in', ['o1', 'o2'], (o) => `out${o.slice(1)}b`);
     const p1 = 1 / (1 + v.k * v.k), p2 = 1 - p1;
     const groups: PhaseGroup[] = [{ id: 'outputs', name: 'outputs in phase', from: 'in', to: ['o1', 'o2'], toleranceDeg: 2 }];
     return {
@@ -126,6 +129,15 @@ export const branchlineBlock: BlockDef = {
     const thr = 20 * Math.log10(v.through), cpl = 20 * Math.log10(v.coupled);
     const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process });
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
+    // The shunt arms are the tees' branches: each joins through the tee model's transformer (Hammerstad 1981), which
+    // makes a line of Z look like Z/n²; the arms are therefore made n²·Z (two passes settle n², which depends on them).
+    let n2 = 1;
+    for (let pass = 0; pass < 2 && ctx.junctions === 'modelled'; pass++) {
+      const tees = sizeDesign(doc).nodes.filter((n) => n.tee?.modelled).map((n) => n.tee!.atF0.n2);
+      if (!tees.length) break;
+      n2 = tees.reduce((a, b) => a + b, 0) / tees.length;
+      for (const x of doc.segments) if (x.kind === 'line' && x.id.startsWith('shunt')) x.width = { by: 'z0', z0: Math.round(v.shunt * n2 * 1e4) / 1e4 };
+    }
     placeAsSized(doc, 'branchline');
     return {
       name: `Branch-line hybrid ${ratio === 0 ? '3 dB' : `${ratio} dB split`}, ${ghz(f0)}`,
@@ -139,7 +151,7 @@ export const branchlineBlock: BlockDef = {
       ],
       notes: [
         `${branchlineBlock.title} (${branchlineBlock.source}) at ${ghz(f0)}, ${z0} Ω: through/coupled ${ratio} dB (|S21| ${v.through.toFixed(4)}, |S31| ${v.coupled.toFixed(4)}).`,
-        `Series arms ${ohm(v.series)}, shunt arms ${ohm(v.shunt)}, each 90° at f0 from the tees' reference planes; opposite arms are alike, so the ring closes.`,
+        `Series arms ${ohm(v.series)}, shunt arms ${ohm(v.shunt)} (made ${ohm(v.shunt * n2)}: the tee model's branch transformer n² = ${n2.toFixed(4)} at f0), each 90° at f0 from the tees' reference planes; opposite arms are alike, so the ring closes.`,
       ],
       band: band(f0, 0.3),
     };
