@@ -83,7 +83,6 @@ test('markers: click to place, drag along the trace, step with the keys, delta, 
   const d = (await dot.boundingBox())!;
   await page.mouse.move(d.x + d.width / 2, d.y + d.height / 2);
   await expect(page.getByTestId('smith-readout')).toContainText(/Γ .* Z .* Ω, VSWR \d/);
-  await page.mouse.move(s.x + 5, s.y - 40);
   await readmeShot(page, 'response-markers.png');
   // Delete removes the active marker.
   await page.getByTestId('response-plot-surface').focus();

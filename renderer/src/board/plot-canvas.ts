@@ -66,7 +66,7 @@ export function drawBase(ctx: CanvasRenderingContext2D, fr: PlotFrame, series: P
   // The design band, shaded, with its edges dashed.
   const b0 = Math.max(fr.left, px(fr, marks.band.lo)), b1 = Math.min(fr.right, px(fr, marks.band.hi));
   if (b1 > b0) { ctx.fillStyle = ink.band; ctx.fillRect(b0, fr.top, b1 - b0, fr.bottom - fr.top); }
-  const xt = niceTicks(fr.xr.lo / 1e9, fr.xr.hi / 1e9, Math.max(3, Math.floor((fr.right - fr.left) / 90)));
+  const xt = niceTicks(fr.xr.lo / 1e9, fr.xr.hi / 1e9, Math.max(3, Math.floor((fr.right - fr.left) / 70)));
   const yt = fr.wrap ? [-180, -135, -90, -45, 0, 45, 90, 135, 180] : niceTicks(fr.yr.lo, fr.yr.hi, Math.max(3, Math.floor((fr.bottom - fr.top) / 34)));
   const xd = tickDecimals(xt), yd = fr.wrap ? 0 : tickDecimals(yt);
   ctx.strokeStyle = ink.grid;
