@@ -1,5 +1,5 @@
 /**
- * Commands for blocks placed from a spec (format 7; the pieces themselves are made by core/blocks, above this
+ * Commands for blocks placed from a spec (format 8; the pieces themselves are made by core/blocks, above this
  * layer, and handed in as data): `block.put` adds a block's records, or replaces those of the placed block with the
  * same id (a re-generated spec); `block.detach` forgets the block record and keeps its pieces as plain pieces.
  * Both are checked with the file's own schemas and the cross-record check, so undo replays them like any edit.

@@ -1,5 +1,5 @@
 /**
- * `design.setSweep`: sets the design's own sweep settings (format 7), or removes them with `sweep: null` so the band
+ * `design.setSweep`: sets the design's own sweep settings (format 9), or removes them with `sweep: null` so the band
  * is swept by default again. Checked with the file's own schema, so no edit can write what the loader would refuse;
  * undo records the field before and after.
  */

@@ -1,5 +1,5 @@
 /**
- * Measured data kept with a design (format 7): Touchstone files of the whole board, each with the map from the
+ * Measured data kept with a design (format 10): Touchstone files of the whole board, each with the map from the
  * file's ports to the design's ports. The whole file text is kept in the design, so the data survive without the
  * original file (the file's name is kept for the reader); `ports[k]` is the design port node measured at port k + 1
  * of the file, '' for a file port that was not connected to the design. The map is guessed in order when a file is

@@ -202,7 +202,7 @@ const list = <T extends v.GenericSchema>(item: T, what: string, max: number) =>
 /** How junctions are treated (format 4): published models, or ideal for comparison. */
 export const junctionChoiceSchema = v.picklist(['modelled', 'ideal'], 'junctions "modelled" (published tee and step models) or "ideal" (arms joined at the centre)');
 
-/** A placed block (format 7): kind, spec as checked by its block, placement, members and their fingerprints. */
+/** A placed block (format 8): kind, spec as checked by its block, placement, members and their fingerprints. */
 export const placedBlockSchema = v.looseObject({
   id: idSchema,
   kind: v.pipe(v.string('a block kind'), v.regex(/^[a-z][a-z-]{0,31}$/, 'a block kind such as "corporate"')),

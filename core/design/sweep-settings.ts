@@ -1,5 +1,5 @@
 /**
- * A design's own sweep settings (format 7): the frequencies the app and `stripwright sweep` compute its response at.
+ * A design's own sweep settings (format 9): the frequencies the app and `stripwright sweep` compute its response at.
  * Absent means the design band, widened to include f0, at 201 linear points (what every face did before).
  * SI units: Hz. The schema lives here too so the format change stays in one place.
  */

@@ -108,7 +108,7 @@ export type JunctionChoice = 'modelled' | 'ideal';
 export type BlockParamValue = number | string | boolean | number[] | { re: number; im: number };
 
 /**
- * A block placed from a spec (format 7, core/blocks): its kind, the checked spec, where its first port was placed,
+ * A block placed from a spec (format 8, core/blocks): its kind, the checked spec, where its first port was placed,
  * the ids of the records it made (`members`) and a fingerprint of each as made (`made`), so hand edits inside it
  * can be listed before it is re-generated.
  */

@@ -37,13 +37,17 @@ export async function compareJob(input: CompareInput, progress: (p: Progress) =>
   };
 }
 
-/** The design's Touchstone file as `stripwright sweep FILE --out NAME.sNp` writes it (band widened to f0, 201 points, 1.1, RI, GHz). */
+/**
+ * The design's Touchstone file as `stripwright sweep FILE --out NAME.sNp` writes it (band widened to f0, 201 points, RI,
+ * GHz): version 1.1 when every port has the same reference, else 2.0, which keeps each port's own (`--touchstone 2.0`).
+ */
 export async function touchstoneFile(doc: DesignDoc, fileName: string, app: string): Promise<{ name: string; data: string }> {
   const sized = sizeDesign(doc);
   const net = netlistFromSized(sized, sized.lineOptions ? { line: sized.lineOptions } : {});
   const r = await sweepNetwork(net, bandSweep(doc.frequency.band, doc.frequency.f0, 201), { yieldTo });
   const base = fileName.replace(/\.json$/i, '');
-  return { name: `${base}.s${r.ports.length}p`, data: writeTouchstone(r, { app, design: doc.name, comments: [`from ${fileName}`] }) };
+  const mixed = r.ports.some((p) => p.zRef !== r.ports[0]!.zRef);
+  return { name: `${base}.s${r.ports.length}p`, data: writeTouchstone(r, { app, design: doc.name, comments: [`from ${fileName}`], ...(mixed ? { version: '2.0' as const } : {}) }) };
 }
 
 /** Where the report font comes from: the worker fetches Vite's asset URL; tests pass bytes. */
