@@ -2,7 +2,7 @@
  * Blocks as design data: making a whole design from a block (`makeBlockDesign`, the CLI's --out), adding a block
  * to a design (`blockPlacement`: the pieces and the record the `block.put` command stores), changing a placed
  * block's spec (`respecPlacement`: lists the hand edits inside it first) and detaching it (`block.detach`).
- * The record (`PlacedBlock`, design format 7) keeps the kind, the spec as given, where it was placed and the ids it
+ * The record (`PlacedBlock`, design format 8) keeps the kind, the spec as given, where it was placed and the ids it
  * made, so the block can be re-opened and re-generated.
  */
 import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target } from '../design/types.ts';

@@ -1,5 +1,5 @@
 /**
- * The sweep a design asks for: its own settings (format 7, `doc.sweep`) or, without them, the band widened to include
+ * The sweep a design asks for: its own settings (format 9, `doc.sweep`) or, without them, the band widened to include
  * f0 at 201 linear points. The one answer for every face (the app's response panel and `stripwright sweep`), so the
  * two compute the same frequencies.
  */

@@ -1,7 +1,7 @@
 /**
- * A design's own sweep settings (format 7): the schema, the migration from 6, the `design.setSweep` command with
+ * A design's own sweep settings (format 9): the schema, the migration from 8, the `design.setSweep` command with
  * undo, and the one function every face asks for its frequencies. The default sweep is the project's own rule (the
- * band widened to f0, 201 linear points, as every face did before format 7).
+ * band widened to f0, 201 linear points, as every face did before format 9).
  */
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
