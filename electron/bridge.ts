@@ -2,7 +2,7 @@
  * Builds the object the preload exposes, from two primitives (invoke a channel, listen to a push channel), so its
  * shape and its filtering are unit-tested without Electron. Pure: only the contract.
  */
-import { CHANNELS, ipcName, MENU_COMMANDS, PUSH_CHANNELS, type BridgeCalls, type Channel, type MenuCommandId, type OpenedDesign, type StripwrightBridge } from './contract.ts';
+import { CHANNELS, ipcName, MENU_COMMANDS, PUSH_CHANNELS, type BridgeCalls, type Channel, type MenuCommandId, type OpenedDesign, type StripwrightBridge } from '../bridge/contract.ts';
 
 export interface BridgeTransport {
   invoke(ipcChannel: string, arg?: unknown): Promise<unknown>;

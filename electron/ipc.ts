@@ -4,7 +4,7 @@
  * is thrown across the bridge: a bug in a handler becomes `{ ok: false, error: { code: 'io', ... } }`.
  */
 import type { IpcMain, IpcMainInvokeEvent } from 'electron';
-import { CHANNELS, fail, ipcName, LIMITS, ok, type BridgeResult, type Channel, type ExportFile, type RequestOf, type ResponseOf } from './contract.ts';
+import { CHANNELS, fail, ipcName, LIMITS, ok, type BridgeResult, type Channel, type ExportFile, type RequestOf, type ResponseOf } from '../bridge/contract.ts';
 import { DOC_ID_RE } from './files/recovery-store.ts';
 import { isTrustedSender, plainFileNameProblem } from './policy.ts';
 import type { Shell } from './shell.ts';

@@ -16,3 +16,4 @@ export { snap as snapToGrid } from './command-args.ts';
 export { copySelection, pasteClipboard, CLIPBOARD_FORMAT, type ClipboardContent } from './clipboard.ts';
 export { diffDesigns, applyDiff, invertDiff, isEmptyDiff, jsonEqual, type DesignDiff, type RecordChanges } from './diff.ts';
 export { History, type HistoryOptions, type HistoryStep } from './history.ts';
+export { TARGET_FIGURES, FIGURE_PORTS, TOLERANCE_QUANTITIES, TOLERANCE_WORDS, FIGURE_WORDS } from './targets.ts';

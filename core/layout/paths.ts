@@ -176,10 +176,10 @@ const piecePhase: PhaseFn = (p, f, cache, k) => {
   if (p.sections && p.sections.length) {
     const scale = L / p.sections.reduce((s, x) => s + x.length, 0);
     let ph = 0;
-    for (const s of p.sections) ph += ((2 * Math.PI) / cache.forWidth(s.width * k, f).lambdaG) * s.length * scale;
+    for (const s of p.sections) ph += cache.modeAt(s.width * k, f).beta * s.length * scale;
     return ph;
   }
-  return ((2 * Math.PI) / cache.forWidth(p.width * k, f).lambdaG) * L;
+  return cache.modeAt(p.width * k, f).beta * L;
 };
 
 export function tracePaths(sized: SizedDesign, from: string, to: string[], opts: PathOptions = {}): PathReport {
@@ -226,7 +226,7 @@ export function tracePaths(sized: SizedDesign, from: string, to: string[], opts:
       const L = pathLength(p);
       if (p.sections && p.sections.length) {
         const scale = L / p.sections.reduce((s, x) => s + x.length, 0);
-        for (const s of p.sections) { loss += s.lossDbPerM * s.length * scale; delay += cache.forWidth(s.width, f0).delayPerM * s.length * scale; }
+        for (const s of p.sections) { loss += s.lossDbPerM * s.length * scale; delay += cache.modeAt(s.width, f0).delayPerM * s.length * scale; }
       } else if (p.line) { loss += p.line.lossDbPerM * L; delay += p.line.delayPerM * L; }
     }
     let bends = 0, junctions = 0;

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { CHANNELS, ipcName, LIMITS, type Channel } from '../../electron/contract.ts';
+import { CHANNELS, ipcName, LIMITS, type Channel } from '../../bridge/contract.ts';
 import { RecoveryStore } from '../../electron/files/recovery-store.ts';
 import { registerBridge } from '../../electron/ipc.ts';
 import { Shell } from '../../electron/shell.ts';

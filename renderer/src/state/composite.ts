@@ -3,9 +3,9 @@
  * here from the core's registry so that each gesture is one command to History, hence one undo step, and fails
  * as a whole (a bad step leaves the design untouched).
  */
-import { runCommand, type DesignDoc } from '../../../core/design/index.ts';
-import type { Vec2 } from '../../../core/geometry/types.ts';
-import { InputError } from '../../../core/util/errors.ts';
+import { runCommand, type DesignDoc } from '../../../core/index.ts';
+import type { Vec2 } from '../../../core/index.ts';
+import { InputError } from '../../../core/index.ts';
 
 type Args = Record<string, unknown>;
 

@@ -9,7 +9,7 @@ import type { EditorState } from './editor.svelte.ts';
 import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
 import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput, YieldOutput } from '../worker/jobs.ts';
 import type { SectionOutput } from '../worker/section-job.ts';
-import type { SectionSpec } from '../../../core/section/types.ts';
+import type { SectionSpec } from '../../../core/index.ts';
 
 export class Compute {
   private readonly client: ComputeClient;

@@ -3,7 +3,7 @@
  * board stays responsive on big designs. The work itself is in jobs.ts (the same code runs inline in tests).
  */
 import wasmUrl from 'clipper2-wasm/dist/es/clipper2z.wasm?url';
-import { initPolygons } from '../../../core/geometry/index.ts';
+import { initPolygons } from '../../../core/index.ts';
 import { runJob, setPolygonInit } from './jobs.ts';
 import type { CancelRequest, JobRequest, WorkerMessage } from './protocol.ts';
 import { toJobError } from './client.ts';

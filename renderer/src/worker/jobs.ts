@@ -3,17 +3,17 @@
  * layout (sizing, copper geometry, paths and phase, fabrication checks) and response (a sweep of the sized
  * network). All physics and geometry come from the core; this file only sequences the calls and reports progress.
  */
-import type { DesignDoc } from '../../../core/design/types.ts';
-import type { BoardGeometry, DrillHit, Region } from '../../../core/geometry/types.ts';
-import { initPolygons } from '../../../core/geometry/index.ts';
-import { sizeDesign, asMadeLineOptions, LineCache, designPaths, boardGeometryOf, checkBoard, pieceOutlines, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
-import type { PieceOutline } from '../../../core/layout/geometry.ts';
-import type { Finding } from '../../../core/layout/checks.ts';
-import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/network/index.ts';
-import { InputError, exhaustive } from '../../../core/util/errors.ts';
-import { runYield, type YieldResult } from '../../../core/yield/index.ts';
-import { EXPORT_FILE_NAMES, toDxf, toSvg, toGerber, toExcellon, toMask, exportGcode, planDesignMilling, millingPreviewSvg, type ExportLayer } from '../../../core/export/index.ts';
-import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/toolpath/index.ts';
+import type { DesignDoc } from '../../../core/index.ts';
+import type { BoardGeometry, DrillHit, Region } from '../../../core/index.ts';
+import { initPolygons } from '../../../core/index.ts';
+import { sizeDesign, asMadeLineOptions, LineCache, designPaths, boardGeometryOf, checkBoard, pieceOutlines, type SizedDesign, type PathReport } from '../../../core/index.ts';
+import type { PieceOutline } from '../../../core/index.ts';
+import type { Finding } from '../../../core/index.ts';
+import { netlistFromSized, sweepNetwork, bandSweep, magnitudeDb, phaseDeg, groupDelay, smith, type NetworkResponse } from '../../../core/index.ts';
+import { InputError, exhaustive } from '../../../core/index.ts';
+import { runYield, type YieldResult } from '../../../core/index.ts';
+import { EXPORT_FILE_NAMES, toDxf, toSvg, toGerber, toExcellon, toMask, exportGcode, planDesignMilling, millingPreviewSvg, type ExportLayer } from '../../../core/index.ts';
+import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';
