@@ -206,7 +206,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
 
 /**
  * The line model's own warnings at the top of a sweep, once per copper width: validity ranges of the published
- * fits and the higher-order-mode / surface-wave thresholds (the validity ranges printed with Hammerstad & Jensen 1980 and Kirschning & Jansen 1982; the usual TE1/surface-wave cut-off estimates, Pozar, Microwave Engineering 4th ed., §3.8, from memory), so a sweep that runs past where
+ * fits and the higher-order-mode / surface-wave thresholds (the validity ranges printed with Hammerstad & Jensen 1980 and Kirschning & Jansen 1982; the usual TE1/surface-wave cut-off estimates, Pozar, Microwave Engineering 4th ed., §3.6 (surface waves on a grounded dielectric sheet), from memory), so a sweep that runs past where
  * the quasi-TEM model holds says so. Warnings are deduplicated by message and name the pieces.
  */
 export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: FromSizedOptions = {}): Warning[] {

@@ -1,6 +1,6 @@
 /**
  * Two-port matrices of a uniform line of length l with constants Zc, γ (D. M. Pozar,
- * Microwave Engineering, 4th ed., §4.4, Table 4.1):
+ * Microwave Engineering, 4th ed., Wiley, 2012, §4.4, Table 4.1):
  *   ABCD = [cosh γl, Zc sinh γl; sinh γl / Zc, cosh γl]     (I2 leaving port 2)
  *   S (reference Z0): with Γ = (Zc − Z0)/(Zc + Z0), P = e^(−γl):
  *   S11 = S22 = Γ(1 − P²)/(1 − Γ²P²),  S21 = S12 = P(1 − Γ²)/(1 − Γ²P²).

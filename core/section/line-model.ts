@@ -2,7 +2,8 @@
  * The 2-D solver behind the line-model interface (core/line/line-model.ts): a cross-section template (laminate plus
  * side copper, trench, cover) and a strip width in, the single mode out. The static Z0, εeff and ∂L/∂n come from the
  * solver's sizing tables (line-source.ts, finite differences on a graded grid); dispersion and loss are the single
- * line's models applied on top (core/line/made-line.ts states that approximation).
+ * line's models applied on top — Kirschning & Jansen 1982 εeff(f), Jansen & Kirschning 1983 Z0(f), Wheeler 1942
+ * conductor loss — an approximation core/line/made-line.ts states.
  */
 import { microstripFamily, SINGLE_MODE, type CrossSectionDescription, type LineModelFamily, type SingleMode } from '../line/line-model.ts';
 import type { LineOptions } from '../line/types.ts';
