@@ -33,11 +33,24 @@ function shown(x: unknown): string {
 const typeName = (x: unknown) => (x === null ? 'null' : typeof x);
 const lengthOf = (x: unknown) => (typeof x === 'string' || x instanceof Uint8Array || Array.isArray(x) ? x.length : 0);
 
+/**
+ * An object with these fields checked (other keys dropped). A missing field is worded by the field's own schema
+ * (as if it were given as undefined), so the library's own wording never reaches the page.
+ */
+function fields<E extends v.ObjectEntries>(entries: E) {
+  return v.object(entries, (issue) => {
+    const key = issue.path?.[issue.path.length - 1]?.key;
+    const field = typeof key === 'string' ? entries[key] : undefined;
+    const r = field ? v.safeParse(field, undefined) : null;
+    return r && !r.success ? r.issues[0].message : 'expected an object with the fields of the bridge contract';
+  });
+}
+
 /** A plain object (no prototype tricks, no array) with exactly these fields checked; other keys are dropped. */
 function record<E extends v.ObjectEntries>(entries: E) {
   return v.pipe(
     v.custom<Record<string, unknown>>(isPlainObject, (i) => `expected an object, got ${Array.isArray(i.input) ? 'an array' : typeName(i.input)}`),
-    v.object(entries),
+    fields(entries),
   );
 }
 
@@ -66,7 +79,7 @@ const docId = v.pipe(
 
 const exportFile = v.pipe(
   v.custom<Record<string, unknown>>(isPlainObject, 'expected { name, data }'),
-  v.object({
+  fields({
     name: v.custom<string>((n) => plainFileNameProblem(n, LIMITS.fileNameChars) === null, (i) => plainFileNameProblem(i.input, LIMITS.fileNameChars) ?? 'expected a plain file name'),
     data: v.pipe(
       v.union([v.string(), v.instance(Uint8Array)], (i) => `expected text or bytes (Uint8Array), got ${typeName(i.input)}`),
