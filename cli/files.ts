@@ -5,7 +5,7 @@
  */
 import { AtomicWriteError, atomicWriteFile } from '../electron/files/atomic-write.ts';
 import { readTextFile } from '../electron/files/read-design.ts';
-import { DESIGN_TEXT, type TextFileKind } from '../electron/text-decode.ts';
+import { DESIGN_TEXT, type TextFileKind } from '../bridge/text-decode.ts';
 
 /** A write that failed, with a message that names the file and the reason. */
 export class OutputError extends Error {

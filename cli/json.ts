@@ -4,7 +4,7 @@
  * group) is left out, and a number that is not finite means the command could not produce that value, so it fails
  * (exit 1) naming the field instead of printing something that looks like a result.
  */
-import { InputError } from '../core/util/errors.ts';
+import { InputError } from '../core/index.ts';
 
 /** The first path in `value` holding a non-finite number or a null list item, or null when there is none. */
 export function firstNonFinite(value: unknown, path = '$'): string | null {

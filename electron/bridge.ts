@@ -1,21 +1,19 @@
 /**
  * Builds the object the preload exposes, from two primitives (invoke a channel, listen to a push channel), so its
- * shape and its filtering are unit-tested without Electron. Pure: only the contract.
+ * shape and its filtering are unit-tested without Electron. Pure: the contract and the push payloads' schemas
+ * (push-schemas.ts).
  */
-import { CHANNELS, ipcName, MENU_COMMANDS, PUSH_CHANNELS, type BridgeCalls, type Channel, type MenuCommandId, type OpenedDesign, type StripwrightBridge } from './contract.ts';
+import * as v from 'valibot';
+import { menuCommandSchema, openedDesignSchema } from './push-schemas.ts';
+import { CHANNELS, ipcName, PUSH_CHANNELS, type BridgeCalls, type Channel, type MenuCommandId, type OpenedDesign, type StripwrightBridge } from '../bridge/contract.ts';
 
 export interface BridgeTransport {
   invoke(ipcChannel: string, arg?: unknown): Promise<unknown>;
   on(ipcChannel: string, listener: (payload: unknown) => void): () => void;
 }
 
-const isMenuCommand = (v: unknown): v is MenuCommandId => typeof v === 'string' && (MENU_COMMANDS as readonly string[]).includes(v);
-
-function isOpenedDesign(v: unknown): v is OpenedDesign {
-  if (!v || typeof v !== 'object') return false;
-  const o = v as Record<string, unknown>;
-  return typeof o.path === 'string' && typeof o.name === 'string' && typeof o.text === 'string' && typeof o.modifiedMs === 'number';
-}
+const isMenuCommand = (x: unknown): x is MenuCommandId => v.is(menuCommandSchema, x);
+const isOpenedDesign = (x: unknown): x is OpenedDesign => v.is(openedDesignSchema, x);
 
 export function buildBridge(t: BridgeTransport): StripwrightBridge {
   const calls = {} as Record<Channel, (arg?: unknown) => Promise<unknown>>;

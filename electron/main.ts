@@ -7,7 +7,7 @@
 import { app, BrowserWindow, dialog, ipcMain, Menu, protocol, screen, shell as electronShell, type IpcMainInvokeEvent } from 'electron';
 import { randomUUID } from 'node:crypto';
 import { join, resolve } from 'node:path';
-import { DESIGN_EXTENSION, OPENABLE_EXTENSIONS, PUSH_CHANNELS, TOUCHSTONE_EXTENSIONS, windowTitle, type MenuCommandId, type OpenedDesign } from './contract.ts';
+import { DESIGN_EXTENSION, OPENABLE_EXTENSIONS, PUSH_CHANNELS, TOUCHSTONE_EXTENSIONS, windowTitle, type MenuCommandId, type OpenedDesign } from '../bridge/contract.ts';
 import { DEFAULT_WINDOW, placeOnDisplays, readJson, validateWindowState, writeJson } from './files/json-store.ts';
 import { RecoveryStore } from './files/recovery-store.ts';
 import { registerBridge } from './ipc.ts';

@@ -4,7 +4,7 @@
  * Electron's roles so they work in text fields. Tested without Electron.
  */
 import type { MenuItemConstructorOptions } from 'electron';
-import type { MenuCommandId, RecentFile } from './contract.ts';
+import type { MenuCommandId, RecentFile } from '../bridge/contract.ts';
 
 export interface MenuActions {
   command(id: MenuCommandId): void;

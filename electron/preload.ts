@@ -1,5 +1,5 @@
 /**
- * The preload bridge: the only surface the page sees, as `window.stripwright` (electron/contract.ts
+ * The preload bridge: the only surface the page sees, as `window.stripwright` (bridge/contract.ts
  * StripwrightBridge). One function per channel and three subscriptions; the raw ipcRenderer never reaches the page
  * and callbacks receive data only, never the IPC event (checklist item 20). Sandboxed: imports nothing but
  * 'electron' and the pure contract (bundled into one CommonJS file by scripts/build-electron.mjs).

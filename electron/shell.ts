@@ -12,7 +12,7 @@ import { fileURLToPath } from 'node:url';
 import {
   DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, type AppInfo, type BridgeResult, type ExportedFiles, type ExportFile,
   type OpenedData, type OpenedDesign, type RecentFile, type RecoveredDesign, type RecoveryEntry, type SavedDesign,
-} from './contract.ts';
+} from '../bridge/contract.ts';
 import { atomicWriteFile, AtomicWriteError, explainErrno } from './files/atomic-write.ts';
 import { readJson, touchRecent, validateRecent, writeJson } from './files/json-store.ts';
 import { readDesignFile, readTouchstoneFile, sha256Hex } from './files/read-design.ts';

@@ -9,9 +9,22 @@ import type { Vec2 } from '../geometry/types.ts';
 import type { DesignDoc, DesignNode, DesignSegment } from './types.ts';
 import { pathText } from './issues.ts';
 import { schemaWords } from './schema-words.ts';
-import { idSchema, vec2Schema } from './schema.ts';
+import { idSchema, nodeSchema, segmentSchema, vec2Schema } from './schema.ts';
 
 export type Args = Record<string, unknown>;
+
+/** The fields a record's spec may hold: those of every variant of the record's schema, less the ones all records of
+ * the kind share (ids, ends, position, label). Derived from the one schema, so a new field needs no second list. */
+function specKeys(schema: { options: readonly { entries: Record<string, unknown> }[] }, shared: readonly string[]): ReadonlySet<string> {
+  const keys = new Set<string>();
+  for (const o of schema.options) for (const k of Object.keys(o.entries)) if (!shared.includes(k)) keys.add(k);
+  return keys;
+}
+
+/** Fields of a node's spec (kind and its kind's fields); a kind change drops the old kind's. */
+export const NODE_SPEC_KEYS = specKeys(nodeSchema, ['id', 'at', 'label']);
+/** Fields of a segment's spec (kind and its kind's fields, the coupled pair's c, d and pair included). */
+export const SEGMENT_SPEC_KEYS = specKeys(segmentSchema, ['id', 'a', 'b', 'label']);
 
 export function argsObject(cmd: string, args: unknown): Args {
   if (args === null || typeof args !== 'object' || Array.isArray(args)) throw new InputError('invalid-design', `${cmd} args`, 'an object of named arguments', describe(args));

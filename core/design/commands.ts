@@ -17,7 +17,7 @@ import { asMadeSchema, areaSchema, frequencySchema, junctionChoiceSchema, nodeSc
 import { DESIGN_LIMITS } from './limits.ts';
 import { crossCheck, DEGREE } from './crossref.ts';
 import {
-  allIds, argId, argIds, argNumber, argString, argVec, argsObject, checkWith, findNode, findSegment, freshId, snapVec, wrapAngle, type Args,
+  allIds, NODE_SPEC_KEYS, SEGMENT_SPEC_KEYS, argId, argIds, argNumber, argString, argVec, argsObject, checkWith, findNode, findSegment, freshId, snapVec, wrapAngle, type Args,
 } from './command-args.ts';
 import { pasteClipboard } from './clipboard.ts';
 import { setTargets, setTolerances } from './commands-targets.ts';
@@ -49,8 +49,6 @@ export function defaultNodeSpec(kind: DesignNode['kind']): NodeSpec {
 /** A 50 Ω line sized from its drawn length: what a new run starts as. */
 export const DEFAULT_SEGMENT_SPEC: SegmentSpec = { kind: 'line', width: { by: 'z0', z0: 50 }, length: { by: 'drawn' } };
 
-const NODE_SPEC_KEYS = new Set(['kind', 'zRef', 'heading', 'launch', 'bend', 'via']);
-const SEGMENT_SPEC_KEYS = new Set(['kind', 'width', 'length', 'profile', 'from', 'to', 'rippleDb', 'part', 'value', 'size', 'touchstone', 'name']);
 
 function specArg(args: Args, key: string): Record<string, unknown> | undefined {
   const s = args[key];

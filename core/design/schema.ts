@@ -95,14 +95,14 @@ export const asMadeSchema = v.looseObject({
   fencePitch: v.optional(num('a via-fence pitch in metres above 0 and up to 100 mm', 0, 0.1, { minExclusive: true })),
 }, 'an as-made setting {sizing, sideCopper, cover?, fencePitch?}');
 
-const bendSchema = v.variant('style', [
+export const bendSchema = v.variant('style', [
   v.looseObject({ style: v.literal('miter-optimal') }),
   v.looseObject({ style: v.literal('miter'), fraction: num('a miter fraction from 0 to 0.95', 0, 0.95) }),
   v.looseObject({ style: v.literal('arc'), radius: LEN('a bend radius', 1) }),
   v.looseObject({ style: v.literal('square') }),
 ], 'a bend: style "miter-optimal", "miter", "arc" or "square"');
 
-const viaSchema = v.looseObject({
+export const viaSchema = v.looseObject({
   drill: LEN('a drill diameter', 0.01),
   pad: LEN('a pad diameter', 0.02),
   count: int('a via count, a whole number from 1 to 64', 1, 64),

@@ -181,10 +181,10 @@ const piecePhase: PhaseFn = (p, f, cache, k) => {
   if (p.sections && p.sections.length) {
     const scale = L / p.sections.reduce((s, x) => s + x.length, 0);
     let ph = 0;
-    for (const s of p.sections) ph += ((2 * Math.PI) / cache.forWidth(s.width * k, f).lambdaG) * s.length * scale;
+    for (const s of p.sections) ph += cache.modeAt(s.width * k, f).beta * s.length * scale;
     return ph;
   }
-  return ((2 * Math.PI) / cache.forWidth(p.width * k, f).lambdaG) * L;
+  return cache.modeAt(p.width * k, f).beta * L;
 };
 
 /** Paths from `from` to each of `to`; both name nodes by id or by label (a label shared by two nodes needs the id). */
@@ -239,7 +239,7 @@ export function tracePaths(sized: SizedDesign, fromRef: string, toRefs: string[]
       const L = pathLength(p);
       if (p.sections && p.sections.length) {
         const scale = L / p.sections.reduce((s, x) => s + x.length, 0);
-        for (const s of p.sections) { loss += s.lossDbPerM * s.length * scale; delay += cache.forWidth(s.width, f0).delayPerM * s.length * scale; }
+        for (const s of p.sections) { loss += s.lossDbPerM * s.length * scale; delay += cache.modeAt(s.width, f0).delayPerM * s.length * scale; }
       } else if (p.line) { loss += p.line.lossDbPerM * L; delay += p.line.delayPerM * L; }
     }
     let bends = 0, junctions = 0;

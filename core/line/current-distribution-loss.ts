@@ -5,7 +5,7 @@
  * Source: attributed to E. Hammerstad and Ø. Jensen, IEEE MTT-S Symposium Digest 1980, pp. 407–409, in the form used
  * by scikit-rf's MLine (the exact printed form is still to be checked against the paper):
  *     Ki = exp(−1.2·(Z0/η0)^0.7),   αc = Rs·Ki·Kr/(Z0·W)        [Np/m]
- * Conventions here (those of the public check table, checks/line-reference.csv): Z0 = Z0(f), W = physical width.
+ * Conventions here (those of the scikit-rf table test/fixtures/line/line-reference.csv): Z0 = Z0(f), W = physical width.
  * Typically 25–45 % above Wheeler's rule for 1 ≤ W/h ≤ 5 (the project's own comparison). Units: Rs Ω, Z0 Ω, W m.
  */
 import { ETA0 } from '../units/constants.ts';

@@ -36,7 +36,7 @@ export function degreesForLength(r: LineResult, length: number): number {
 }
 
 /**
- * Group delay per metre, s/m (derivative of the phase constant, Pozar 4th ed., §2.1, from memory): τg = (1/c0)·d(f·√εe(f))/df = (√εe + f·(dεe/df)/(2√εe))/c0, with dεe/df
+ * Group delay per metre, s/m (derivative of the phase constant: group velocity, Pozar 4th ed., §3.9 "Wave velocities and dispersion", from memory): τg = (1/c0)·d(f·√εe(f))/df = (√εe + f·(dεe/df)/(2√εe))/c0, with dεe/df
  * by a central difference of the dispersion model (relative step 1e-4). Equals the phase delay without dispersion.
  * Needs f > 0; throws InputError for invalid input like analyzeLine.
  */

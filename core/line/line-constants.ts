@@ -1,5 +1,5 @@
 /**
- * Complex characteristic impedance and propagation constant for the network solver (telegrapher's equations, Pozar, Microwave Engineering, 4th ed., §2.1, from memory), from the
+ * Complex characteristic impedance and propagation constant for the network solver (telegrapher's equations, Pozar, Microwave Engineering, 4th ed., 2012, §2.1, from memory), from the
  * per-unit-length constants of the analysed line:
  *   L' = Z0·√εe/c0,  C' = √εe/(Z0·c0),  R' = 2·Z0·αc,  G' = 2·αd/Z0  (Z0 = Z0(f), εe = εe(f))
  *   γ = √((R' + jωL')(G' + jωC')),   Zc = √((R' + jωL')/(G' + jωC'))

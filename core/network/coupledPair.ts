@@ -14,6 +14,7 @@
  */
 import type { Complex } from './complex.ts';
 import { C0 } from '../units/constants.ts';
+import type { CoupledModeName, ModalFigures } from '../line/line-model.ts';
 
 /** Zc and γ of one mode from its Z0 (Ω), εe, αc and αd (Np/m) at f (Hz): R' = 2Z0αc, L' = Z0√εe/c0, G' = 2αd/Z0, C' = √εe/(Z0 c0). */
 export function modeConstants(z0: number, epsEff: number, alphaC: number, alphaD: number, f: number): { zc: Complex; gamma: Complex } {
@@ -73,4 +74,14 @@ export function coupledPairY(even: { zc: Complex; gamma: Complex }, odd: { zc: C
     out[2 * (i * 4 + j)] = re[k]!; out[2 * (i * 4 + j) + 1] = im[k]!;
   }
   return out;
+}
+
+/**
+ * The pair's 4×4 admittance matrix from its even and odd modes as the line-model interface gives them
+ * (core/line/line-model.ts); `lossless` drops both modes' attenuation.
+ */
+export function coupledPairYOfModes(modal: ModalFigures<CoupledModeName>, length: number, lossless: boolean): Float64Array {
+  const e = modal.modes.even, o = modal.modes.odd, f = modal.f;
+  const k = lossless ? 0 : 1;
+  return coupledPairY(modeConstants(e.z0, e.epsEff, k * e.alphaC, k * e.alphaD, f), modeConstants(o.z0, o.epsEff, k * o.alphaC, k * o.alphaD, f), length);
 }

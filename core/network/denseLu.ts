@@ -1,5 +1,6 @@
 /**
- * Dense complex LU with partial (row) pivoting on an interleaved row-major Float64Array (entry (i, j) at
+ * Dense complex LU with partial (row) pivoting (Gaussian elimination with partial pivoting as in G. H. Golub and
+ * C. F. Van Loan, Matrix Computations, 4th ed., 2013, §3.4) on an interleaved row-major Float64Array (entry (i, j) at
  * 2*(i*n + j)). Used for small matrices (port-sized conversions) and as the robust fall-back of the nodal solve.
  */
 export interface DenseLu {

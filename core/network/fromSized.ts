@@ -29,9 +29,10 @@
  */
 import { InputError } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
-import { analyzeLine, lineConstants, coupledInto, coupledNumbers, type LineOptions } from '../line/index.ts';
+import { lineModels, microstripMode, type CoupledModeName, type LineOptions, type ModalFigures } from '../line/index.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { coupledPairY, modeConstants } from './coupledPair.ts';
+import { coupledPairYOfModes } from './coupledPair.ts';
+import { lineConstantsOfMode, losslessConstantsOfMode } from './lineTwoPort.ts';
 import { viaGround } from '../discontinuity/goldfarbPucel1991Via.ts';
 import { prepareTee, teeJunction, teeShiftsInto, teeTurnsRatioSquared, TEE_SOURCE } from '../discontinuity/hammerstad1981TeeJunction.ts';
 import { starAdmittance, starBuffers } from './junctionStar.ts';
@@ -83,7 +84,11 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
     if (!m) {
       let lastF = NaN, last: ReturnType<LineModel> | null = null;
       m = (f) => {
-        if (f !== lastF || !last) { last = opts.lossless ? losslessConstants(sub, width, f, opts.line) : lineConstants(sub, width, f, opts.line); lastF = f; }
+        if (f !== lastF || !last) {
+          const mode = microstripMode(sub, width, f, opts.line);
+          last = opts.lossless ? losslessConstantsOfMode(mode) : lineConstantsOfMode(mode, f);
+          lastF = f;
+        }
         return last;
       };
       models.set(width, m);
@@ -206,7 +211,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
 
 /**
  * The line model's own warnings at the top of a sweep, once per copper width: validity ranges of the published
- * fits and the higher-order-mode / surface-wave thresholds (the validity ranges printed with Hammerstad & Jensen 1980 and Kirschning & Jansen 1982; the usual TE1/surface-wave cut-off estimates, Pozar, Microwave Engineering 4th ed., §3.8, from memory), so a sweep that runs past where
+ * fits and the higher-order-mode / surface-wave thresholds (the validity ranges printed with Hammerstad & Jensen 1980 and Kirschning & Jansen 1982; the usual TE1/surface-wave cut-off estimates, Pozar, Microwave Engineering 4th ed., §3.6 (surface waves on a grounded dielectric sheet), from memory), so a sweep that runs past where
  * the quasi-TEM model holds says so. Warnings are deduplicated by message and name the pieces.
  */
 export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: FromSizedOptions = {}): Warning[] {
@@ -219,7 +224,7 @@ export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: From
   const out = new Map<string, Warning>();
   for (const [w, ids] of byWidth) {
     let ws: Warning[];
-    try { ws = analyzeLine(sized.doc.substrate, w, fStop, opts.line).warnings; } catch (e) {
+    try { ws = lineModels.evaluate({ kind: 'microstrip', substrate: sized.doc.substrate, width: w, options: opts.line }, fStop).warnings; } catch (e) {
       if (e instanceof InputError) {
         ws = [{ code: 'higher-order-mode', severity: 'error', message: `at ${fStop / 1e9} GHz the line model refuses width ${(w * 1e3).toFixed(3)} mm: ${e.message}` }];
       } else throw e;
@@ -234,20 +239,10 @@ export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: From
   return [...out.values()].map((x) => ({ ...x, message: `${x.message} (top of the sweep, ${fStop / 1e9} GHz; pieces ${(x.subjects ?? []).slice(0, 6).join(', ')}${(x.subjects ?? []).length > 6 ? ', …' : ''})` }));
 }
 
-/** A coupled pair's four-port at each frequency: mode figures from core/line (coupledInto), then coupledPairY. */
+/** A coupled pair's four-port at each frequency: even and odd modes from the line-model interface, then coupledPairY. */
 function pairModel(sub: SubstrateSpec, width: number, gap: number, length: number, disp: 0 | 1, lossless: boolean): (f: number) => Float64Array {
-  return (f) => {
-    coupledInto(sub, width, gap, f, disp);
-    const n = coupledNumbers;
-    const k = lossless ? 0 : 1;
-    return coupledPairY(modeConstants(n.z0E, n.eeE, k * n.acE, k * n.adE, f), modeConstants(n.z0O, n.eeO, k * n.acO, k * n.adO, f), length);
-  };
-}
-
-/** A line's constants without loss: real Zc = Z0(f), γ = jβ(f). */
-function losslessConstants(sub: SubstrateSpec, width: number, f: number, opts?: LineOptions): ReturnType<LineModel> {
-  const r = analyzeLine(sub, width, f, opts);
-  return { zc: { re: r.z0, im: 0 }, gamma: { re: 0, im: (2 * Math.PI) / r.lambdaG } };
+  const section = { kind: 'coupled-microstrip', substrate: sub, width, gap, options: { dispersion: disp === 1 ? 'getsinger' : 'none' } } as const;
+  return (f) => coupledPairYOfModes(lineModels.evaluate(section, f) as ModalFigures<CoupledModeName>, length, lossless);
 }
 
 function onlyTerminal(n: SizedNode, endNode: (piece: string, node: string) => string): string {

@@ -3,7 +3,8 @@
  *
  * The nodal matrix of a drawn network has a symmetric pattern (every element couples its nodes both ways), so
  * one symbolic step serves every frequency. Minimum degree (eliminate the node with the fewest neighbours,
- * then join its neighbours) removes a tree or a feed from its leaves inward with no fill at all; loops and
+ * then join its neighbours: scheme 2 of W. F. Tinney and J. W. Walker, "Direct solutions of sparse network
+ * equations by optimally ordered triangular factorization", Proc. IEEE 55(11), 1967, pp. 1801–1809) removes a tree or a feed from its leaves inward with no fill at all; loops and
  * bridged resistors add only their own small cliques. Plain O(n²) selection: networks here have hundreds of
  * nodes, not millions.
  */

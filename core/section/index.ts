@@ -12,3 +12,5 @@ export { equipotentials } from './contours.ts';
 export type { Polyline } from './contours.ts';
 export { sectionOutline } from './outline.ts';
 export type { SectionOutline } from './outline.ts';
+export { solvedSectionFamily } from './line-model.ts';
+export type { SolvedSection } from './line-model.ts';

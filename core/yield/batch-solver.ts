@@ -17,7 +17,7 @@
  */
 import { InputError } from '../util/errors.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { analyzeLines, lineConstantsFrom, type LineOptions } from '../line/index.ts';
+import { microstripColumns, lineConstantsFrom, type LineOptions } from '../line/index.ts';
 import type { SizedDesign, SizedPiece } from '../layout/types.ts';
 import { compileNetwork, solveAt, type CompiledNetwork } from '../network/mna.ts';
 import { sparseFactor, sparseSolveMany } from '../network/ordering.ts';
@@ -152,7 +152,7 @@ export class BatchSolver {
       const K = list.length;
       const widths = new Float64Array(K * F), fs = new Float64Array(K * F);
       for (let j = 0; j < K; j++) for (let k = 0; k < F; k++) { widths[j * F + k] = list[j]!.width; fs[j * F + k] = this.freqs[k]!; }
-      const c = analyzeLines(sub, widths, fs, this.line);
+      const c = microstripColumns(sub, widths, fs, this.line);
       list.forEach((t, j) => {
         const tab = (this.pool[slot] ??= new Float64Array(4 * F));
         slot++;
@@ -170,7 +170,7 @@ export class BatchSolver {
   private tableOf(sub: SubstrateSpec, width: number): Float64Array {
     const F = this.freqs.length;
     const out: LineConstants = { zc: { re: 0, im: 0 }, gamma: { re: 0, im: 0 } };
-    const c = analyzeLines(sub, new Float64Array(F).fill(width), this.freqs, this.line);
+    const c = microstripColumns(sub, new Float64Array(F).fill(width), this.freqs, this.line);
     const t = new Float64Array(4 * F);
     for (let k = 0; k < F; k++) {
       lineConstantsFrom(c.z0[k]!, c.epsEff[k]!, c.alphaC[k]!, c.alphaD[k]!, this.freqs[k]!, out);

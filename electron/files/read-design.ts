@@ -2,15 +2,15 @@
  * The one reader of text files for every face with a file system (the desktop shell and the CLI), with the project's own
  * first two loading checks: refuse what is not a regular file (a folder, a device, a pipe) and a file over
  * its kind's size limit before reading it, read at most the limit (a file that grows while being read is refused
- * too), then decode (electron/text-decode.ts, shared with the browser). Answers a result object so the main process
+ * too), then decode (bridge/text-decode.ts, shared with the browser). Answers a result object so the main process
  * can hand it to the renderer unchanged and the CLI can print its message.
  */
 import { constants } from 'node:fs';
 import { open, type FileHandle } from 'node:fs/promises';
 import { createHash } from 'node:crypto';
 import { basename } from 'node:path';
-import { fail, ok, type BridgeResult, type OpenedData, type OpenedDesign } from '../contract.ts';
-import { checkTextSize, decodeTextBytes, DESIGN_TEXT, TOUCHSTONE_TEXT, type TextFileKind } from '../text-decode.ts';
+import { fail, ok, type BridgeResult, type OpenedData, type OpenedDesign } from '../../bridge/contract.ts';
+import { checkTextSize, decodeTextBytes, DESIGN_TEXT, TOUCHSTONE_TEXT, type TextFileKind } from '../../bridge/text-decode.ts';
 
 export async function readDesignFile(path: string): Promise<BridgeResult<OpenedDesign & { sha256: string }>> {
   return readTextFile(path, DESIGN_TEXT, 'a .stripwright or .json design file');

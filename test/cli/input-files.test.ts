@@ -2,7 +2,7 @@
  * What every command does with an input that is not an ordinary text file: a device, a named pipe, a folder, a
  * file far over the limit (sparse, so the test is cheap), invalid UTF-8, a path through a file. Each is refused
  * before reading, in words (never a bare errno code), with exit 1 — and invalid UTF-8 with the very words the app
- * uses (electron/text-decode.ts). Values that overflow give exit 1 and no `null` in JSON.
+ * uses (bridge/text-decode.ts). Values that overflow give exit 1 and no `null` in JSON.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
@@ -10,7 +10,7 @@ import { chmodSync, existsSync, mkdirSync, mkdtempSync, openSync, closeSync, ftr
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { decodeTextBytes, DESIGN_TEXT } from '../../electron/text-decode.ts';
+import { decodeTextBytes, DESIGN_TEXT } from '../../bridge/text-decode.ts';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const TSX = pathToFileURL(join(ROOT, 'node_modules', 'tsx', 'dist', 'esm', 'index.mjs')).href;

@@ -177,7 +177,7 @@ describe('typing in a field', () => {
 });
 
 describe('the piece sheet against an outside oracle', () => {
-  it('shows the Z0 scikit-rf computes for the same line (shared/checks/line-reference.csv, row er 2.2, h 0.79 mm, W 0.79 mm, t 17.5 µm, 100 MHz: 93.436 Ω)', async () => {
+  it('shows the Z0 scikit-rf computes for the same line (test/fixtures/line/line-reference.csv, row er 2.2, h 0.79 mm, W 0.79 mm, t 17.5 µm, 100 MHz: 93.436 Ω)', async () => {
     const ed = new EditorState();
     ed.edit('design.setSubstrate', { substrate: { er: 2.2, h: 0.79e-3, t: 17.5e-6, tanDelta: 0.0009, sigma: 1 / 1.72e-8, roughness: 0 } });
     ed.edit('design.setFrequency', { f0: 100e6, band: { start: 90e6, stop: 110e6 } });

@@ -3,7 +3,7 @@
  * - DXF: dxf-parser 1.1.2 (DXF reference, header variables): $INSUNITS 4 = mm, closed LWPOLYLINEs on the COPPER layer.
  * - Shop check: the FR-4 demo loses ≈1.84 dB per path against a 1 dB budget (common practice expects ≈1.5–2 dB and
  *   the budget warning); the finding's own fix — a low-loss laminate, tanδ ≈ 0.001–0.004 — clears it, because
- *   dielectric loss scales with tanδ (Pozar, Microwave Engineering, 4th ed., §3.8, eq. 3.198).
+ *   dielectric loss scales with tanδ (Pozar, Microwave Engineering, 4th ed., §3.8, eq. (3.198), from memory).
  *
  * Both run the polygon engine in the compute worker, under the worker's own CSP (electron/csp.ts policyFor).
  */

@@ -1,7 +1,7 @@
 // The preload surface (checklist item 20: expose named functions only, never ipcRenderer; callbacks get data, not
 // the IPC event), built from a recorded transport, and the real preload.ts run against a stand-in 'electron'.
 import { describe, expect, it, vi } from 'vitest';
-import { CHANNELS, ipcName, PUSH_CHANNELS } from '../../electron/contract.ts';
+import { CHANNELS, ipcName, PUSH_CHANNELS } from '../../bridge/contract.ts';
 import { buildBridge } from '../../electron/bridge.ts';
 
 const exposed: { key: string; api: unknown }[] = [];

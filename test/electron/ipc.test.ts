@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { CHANNELS, ipcName, LIMITS, type Channel } from '../../electron/contract.ts';
+import { CHANNELS, ipcName, LIMITS, type Channel } from '../../bridge/contract.ts';
 import { RecoveryStore } from '../../electron/files/recovery-store.ts';
 import { registerBridge } from '../../electron/ipc.ts';
 import { Shell } from '../../electron/shell.ts';
@@ -66,6 +66,8 @@ describe('argument checks', () => {
     ['recent:list', [1, 2], /at most one argument/],
     ['design:open-path', [], /expected an object/],
     ['design:open-path', [{ path: 42 }], /path: expected text/],
+    ['design:open-path', [{}], /^design:open-path: path: expected text, got undefined\.$/],
+    ['export:files', [{ title: 't', files: [{ data: 'x' }] }], /files\[0\]\.name: expected a file name \(text\), got undefined/],
     ['design:open-path', [{ path: '' }], /expected a file path/],
     ['design:open-path', [{ path: '/x\u0000y' }], /expected a file path/],
     ['design:open-path', [{ path: 'p'.repeat(5000) }], /at most 4096/],

@@ -7,7 +7,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { CHANNELS, ipcName, PUSH_CHANNELS } from '../../electron/contract.ts';
+import { CHANNELS, ipcName, PUSH_CHANNELS } from '../../bridge/contract.ts';
 import { CONTENT_SECURITY_POLICY } from '../../electron/csp.ts';
 import { FakeBrowserWindow, makeFakeMain } from './fake-electron.ts';
 

@@ -7,7 +7,7 @@ import { createRequire } from 'node:module';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { PNG } from 'pngjs';
-import { DESIGN_EXTENSION } from '../../electron/contract.ts';
+import { DESIGN_EXTENSION } from '../../bridge/contract.ts';
 
 const ROOT = resolve(fileURLToPath(new URL('../..', import.meta.url)));
 const require = createRequire(join(ROOT, 'package.json'));

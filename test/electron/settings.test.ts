@@ -5,11 +5,11 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { MENU_COMMANDS, LIMITS } from '../../electron/contract.ts';
+import { MENU_COMMANDS, LIMITS } from '../../bridge/contract.ts';
 import { DEFAULT_WINDOW, placeOnDisplays, readJson, touchRecent, validateRecent, validateWindowState, writeJson } from '../../electron/files/json-store.ts';
 import { RecoveryStore } from '../../electron/files/recovery-store.ts';
 import { menuTemplate } from '../../electron/menu.ts';
-import { decodeTextBytes, DESIGN_TEXT } from '../../electron/text-decode.ts';
+import { decodeTextBytes, DESIGN_TEXT } from '../../bridge/text-decode.ts';
 
 let dir: string;
 beforeEach(() => { dir = mkdtempSync(join(tmpdir(), 'sw-settings-')); });
@@ -138,7 +138,7 @@ describe('menu', () => {
 
 describe('window title', () => {
   it('adds the app name once and a dot while unsaved', async () => {
-    const { windowTitle } = await import('../../electron/contract.ts');
+    const { windowTitle } = await import('../../bridge/contract.ts');
     expect(windowTitle('Feed', false)).toBe('Feed — Stripwright');
     expect(windowTitle('Feed — Stripwright', true)).toBe('• Feed — Stripwright');
     expect(windowTitle('', false)).toBe('Untitled — Stripwright');

@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { RecoveryStore } from '../../electron/files/recovery-store.ts';
 import { tempNameFor } from '../../electron/files/temp-files.ts';
 import { Shell, type Dialogs } from '../../electron/shell.ts';
-import { LIMITS } from '../../electron/contract.ts';
+import { LIMITS } from '../../bridge/contract.ts';
 
 let dir: string;
 let answers: { open?: string | null; data?: string | null; save?: string | null; folder?: string | null; replace?: boolean; exportPath?: string | null };

@@ -137,7 +137,7 @@ function touchstoneOne(inp: { name: string; text: string }): Outcome {
 // Bridge: every channel's argument checks and sender check, through registerBridge with a real Shell in a temp folder.
 
 async function bridgeSuite(seed: number, start: number, count: number): Promise<void> {
-  const { CHANNELS, ipcName } = await import('../../electron/contract.ts');
+  const { CHANNELS, ipcName } = await import('../../bridge/contract.ts');
   const { RecoveryStore } = await import('../../electron/files/recovery-store.ts');
   const { registerBridge } = await import('../../electron/ipc.ts');
   const { Shell } = await import('../../electron/shell.ts');

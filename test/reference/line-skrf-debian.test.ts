@@ -2,7 +2,7 @@
  * Source: Debian's python3-scikit-rf (0.15.4), run live by scripts/reference/skrf_line.py on an 840-point grid
  * (εr 2.2–10.2, W/h 0.1–10, h 0.254–1.52 mm, f 0.1–24 GHz). That release follows the published Hammerstad–Jensen
  * 1980 static equations and the Kirschning–Jansen 1982 εe(f) exactly when t = 0; its thickness term, its Z0(f) and
- * its conductor loss deviate from the papers (shared methods reference §12.3), so only t = 0 and the static Z0 and
+ * its conductor loss deviate from the papers (the project's own comparison of that release's source with the papers), so only t = 0 and the static Z0 and
  * εe, εe(f) and the dielectric loss (published form with the static εe) are compared. Tolerance 1e-6 relative
  * (agreement found there: ≤ 4e-7).
  */

@@ -28,7 +28,7 @@ const rows = lines.map((l) => {
 });
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 
-describe('line model vs scikit-rf main (checks/line-reference.csv)', () => {
+describe('line model vs scikit-rf main (test/fixtures/line/line-reference.csv)', () => {
   it('has the 30 cases', () => { expect(rows.length).toBe(30); });
   for (const [i, r] of rows.entries()) {
     const name = `row ${i + 2}: εr ${r.er}, h ${r.h * 1e3} mm, W ${r.w * 1e3} mm, t ${r.t * 1e6} µm, ${r.f / 1e9} GHz`;

@@ -1,7 +1,7 @@
 /**
  * The published line models against worked examples. Each value is the published equation evaluated by an
- * independent implementation (the shared methods reference, marked "checked" there), quoted to 4–5 digits, so
- * the tolerances follow the quoted digits.
+ * independent implementation outside this code base (values from memory of that evaluation, each beside its
+ * check), quoted to 4–5 digits, so the tolerances follow the quoted digits.
  */
 import { describe, expect, it } from 'vitest';
 import {

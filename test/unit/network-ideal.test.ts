@@ -84,7 +84,7 @@ describe('3 dB branch-line hybrid (Reed & Wheeler 1956 even/odd analysis; Pozar 
 });
 
 describe('cases a plain Y-stamp solver gets wrong', () => {
-  it('a lossless half-wave line is transparent between equal ports: S21 = −1, S11 = 0 (Pozar §2.4: Zin = ZL at λ/2)', () => {
+  it('a lossless half-wave line is transparent between equal ports: S21 = −1, S11 = 0 (Pozar §2.3: Zin = ZL at λ/2)', () => {
     const r = solveNetwork({ elements: [line('h', 'a', 'b', 80, 180)], ports: [port('1', 'a'), port('2', 'b')] }, [f0]);
     expect(S(r, 0, 1, 0).re).toBeCloseTo(-1, 12);
     expect(Math.hypot(S(r, 0, 0, 0).re, S(r, 0, 0, 0).im)).toBeLessThan(1e-12);
@@ -93,7 +93,7 @@ describe('cases a plain Y-stamp solver gets wrong', () => {
     const r = solveNetwork({ elements: [line('w', 'a', 'b', 30, 360)], ports: [port('1', 'a'), port('2', 'b')] }, [f0]);
     expect(S(r, 0, 1, 0).re).toBeCloseTo(1, 12);
   });
-  it('an open quarter-wave stub shorts its node at f0: S11 = −1, S21 = 0 (Pozar §2.4: Zin = −jZ0·cot βl)', () => {
+  it('an open quarter-wave stub shorts its node at f0: S11 = −1, S21 = 0 (Pozar §2.3: Zin = −jZ0·cot βl)', () => {
     const r = solveNetwork({ elements: [line('t', 'a', 'b', 50, 90), line('s', 'a', 'x', 50, 90)], ports: [port('1', 'a'), port('2', 'b')] }, [f0]);
     expect(S(r, 0, 0, 0).re).toBeCloseTo(-1, 12);
     expect(Math.hypot(S(r, 0, 1, 0).re, S(r, 0, 1, 0).im)).toBeLessThan(1e-12);

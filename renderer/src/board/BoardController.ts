@@ -5,7 +5,7 @@
  * when their geometry object changes, so a drag redraws just what moved.
  */
 import { SVG, type Svg, type G, type Path, type Element as SvgElement } from '@svgdotjs/svg.js';
-import type { Box, Region, Vec2 } from '../../../core/geometry/types.ts';
+import type { Box, Region, Vec2 } from '../../../core/index.ts';
 import type { Marks, Scene, ScenePiece } from './scene.ts';
 import { EMPTY_SCENE } from './scene.ts';
 import { type View, fitBox, panBy, toBoard, toScreen, zoomAt } from './viewport.ts';

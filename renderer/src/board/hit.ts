@@ -1,7 +1,7 @@
 /**
  * Hit-testing against the scene in board space (never DOM measurements, so it is the same in tests and the app).
  */
-import type { Box, Vec2 } from '../../../core/geometry/types.ts';
+import type { Box, Vec2 } from '../../../core/index.ts';
 import type { Scene } from './scene.ts';
 import { distToSegment, projectOnSegment } from './snap.ts';
 

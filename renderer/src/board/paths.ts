@@ -2,7 +2,7 @@
  * SVG path text of copper regions in board millimetres (the board's world layer is drawn in mm). Pure, so the
  * worker can prepare it off the main thread.
  */
-import type { Region, Vec2 } from '../../../core/geometry/types.ts';
+import type { Region, Vec2 } from '../../../core/index.ts';
 
 const mm = (v: number) => v * 1000;
 

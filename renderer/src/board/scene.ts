@@ -2,7 +2,7 @@
  * What the board draws, as plain data: built by the editor state from the design and the core's geometry, drawn
  * by the board controller. Board coordinates in metres, y up.
  */
-import type { Region, Vec2 } from '../../../core/geometry/types.ts';
+import type { Region, Vec2 } from '../../../core/index.ts';
 
 export type SceneNodeKind = 'port' | 'vertex' | 'junction' | 'open' | 'short';
 

@@ -2,7 +2,7 @@
  * Snapping while drawing: to the grid, and the heading of a new run to 45° or 90° steps.
  * Pure functions over board coordinates (metres).
  */
-import type { Vec2 } from '../../../core/geometry/types.ts';
+import type { Vec2 } from '../../../core/index.ts';
 
 /** Heading rule for a run being drawn: 45° steps, 90° steps, or any angle. */
 export type HeadingRule = 'deg45' | 'deg90' | 'free';

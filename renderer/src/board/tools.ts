@@ -3,7 +3,7 @@
  * design file: it asks its host (the editor state) to select, move, and commit edits, and tells the host what to
  * show as a preview. Every committed edit is one call to the host, so it is one undo step.
  */
-import type { Box, Vec2 } from '../../../core/geometry/types.ts';
+import type { Box, Vec2 } from '../../../core/index.ts';
 import type { BoardPointer, Preview } from './BoardController.ts';
 import { headingRuleFor, projectOnSegment, snapHeading, snapToGrid } from './snap.ts';
 

@@ -3,7 +3,7 @@
  * Board space: metres, y up (core convention). Screen space: CSS pixels, y down, origin at the top-left of the board
  * element. The view is a centre (board point shown in the middle) and a scale (pixels per metre).
  */
-import type { Box, Vec2 } from '../../../core/geometry/types.ts';
+import type { Box, Vec2 } from '../../../core/index.ts';
 
 export interface View { cx: number; cy: number; scale: number; width: number; height: number }
 

@@ -4,7 +4,7 @@
  * and reading a swept trace at a marker's frequency. Markers read between swept points by straight-line
  * interpolation of the swept values; the traces themselves are drawn only through swept points.
  */
-import { wrap180 } from '../../../core/network/figures.ts';
+import { wrap180 } from '../../../core/index.ts';
 
 /** Tick values for an axis from lo to hi: steps of 1, 2 or 5 × 10^n, at most about `count` of them. */
 export function niceTicks(lo: number, hi: number, count = 6): number[] {

@@ -6,8 +6,8 @@
  * HEARTBEAT_MS. checkRecovery() offers the copies of sessions whose heartbeat stopped (the tab was closed or
  * crashed), never those of another tab that is still open.
  */
-import { DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, TOUCHSTONE_EXTENSIONS, windowTitle, type BridgeResult, type OpenedDesign, type RecoveryEntry } from '../../../electron/contract.ts';
-import { checkTextSize, decodeTextBytes, DESIGN_TEXT, TOUCHSTONE_TEXT, type TextFileKind } from '../../../electron/text-decode.ts';
+import { DESIGN_EXTENSION, fail, LIMITS, ok, OPENABLE_EXTENSIONS, TOUCHSTONE_EXTENSIONS, windowTitle, type BridgeResult, type OpenedDesign, type RecoveryEntry } from '../../../bridge/contract.ts';
+import { checkTextSize, decodeTextBytes, DESIGN_TEXT, TOUCHSTONE_TEXT, type TextFileKind } from '../../../bridge/text-decode.ts';
 import type { Platform } from './types.ts';
 
 const PREFIX = 'stripwright.recovery.v1.';

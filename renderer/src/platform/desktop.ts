@@ -1,5 +1,5 @@
-/** The Platform inside the Electron shell: each method is one call of the preload bridge (electron/contract.ts). */
-import type { BridgeResult, StripwrightBridge } from '../../../electron/contract.ts';
+/** The Platform inside the Electron shell: each method is one call of the preload bridge (bridge/contract.ts). */
+import type { BridgeResult, StripwrightBridge } from '../../../bridge/contract.ts';
 import type { Platform } from './types.ts';
 
 /** A bridge call that rejects (the main process crashed mid-call, say) still comes back as a result object. */

@@ -4,7 +4,7 @@
  *   const r = await getPlatform().openDesign();
  *   if (!r.ok) showError(r.error.message); else if (r.value) load(r.value.text);
  */
-import type { StripwrightBridge } from '../../../electron/contract.ts';
+import type { StripwrightBridge } from '../../../bridge/contract.ts';
 import { createBrowserPlatform } from './browser.ts';
 import { createDesktopPlatform } from './desktop.ts';
 import type { Platform } from './types.ts';

@@ -8,13 +8,13 @@
 import type {
   AutosaveSnapshot, BridgeResult, ExportedFiles, ExportFile, MenuCommandId, OpenedData, OpenedDesign, RecentFile,
   RecoveredDesign, RecoveryEntry, SavedDesign,
-} from '../../../electron/contract.ts';
+} from '../../../bridge/contract.ts';
 
 export type {
   AutosaveSnapshot, BridgeError, BridgeErrorCode, BridgeResult, ExportedFiles, ExportFile, MenuCommandId, OpenedData, OpenedDesign,
   RecentFile, RecoveredDesign, RecoveryEntry, SavedDesign,
-} from '../../../electron/contract.ts';
-export { DESIGN_EXTENSION, MENU_COMMANDS, OPENABLE_EXTENSIONS, LIMITS } from '../../../electron/contract.ts';
+} from '../../../bridge/contract.ts';
+export { DESIGN_EXTENSION, MENU_COMMANDS, OPENABLE_EXTENSIONS, LIMITS } from '../../../bridge/contract.ts';
 
 export interface SaveRequest {
   /** Stable id of the open document (the same one given to autosave); its recovery copy is dropped once saved. */

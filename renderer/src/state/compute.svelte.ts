@@ -3,7 +3,7 @@
  * puts the results on the editor. Requests made while a job runs coalesce: at most one job waits, always for the
  * newest revision, so fast typing or a drag never piles up stale work and the canvas never waits for it.
  */
-import type { MeasuredFile } from '../../../core/design/types.ts';
+import type { MeasuredFile } from '../../../core/index.ts';
 import type { CompareOutput } from '../worker/measured-job.ts';
 import { ComputeClient, type Progress } from '../worker/client.ts';
 import type { JobKind } from '../worker/protocol.ts';
@@ -12,7 +12,7 @@ import type { EditorState } from './editor.svelte.ts';
 import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
 import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput, YieldOutput } from '../worker/jobs.ts';
 import type { SectionOutput } from '../worker/section-job.ts';
-import type { SectionSpec } from '../../../core/section/types.ts';
+import type { SectionSpec } from '../../../core/index.ts';
 import type { OverlayTrace } from './response-view.ts';
 
 export class Compute {

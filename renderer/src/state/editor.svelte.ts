@@ -5,12 +5,12 @@
  *
  * Every edit goes through the core's History (design commands, undo by diffs); a drag is one live step.
  */
-import { DESIGN_COMMANDS, History, parseDesign, serializeDesign, newDesign, copySelection, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess, type JunctionChoice } from '../../../core/design/index.ts';
-import type { Box, Region, Vec2 } from '../../../core/geometry/types.ts';
-import type { SubstrateSpec } from '../../../core/substrate/types.ts';
-import { InputError } from '../../../core/util/errors.ts';
-import { couponForDesign, defaultGroundClearance, smdFootprint, type CouponPlan } from '../../../core/layout/index.ts';
-import { sparamsAdmittance } from '../../../core/network/index.ts';
+import { DESIGN_COMMANDS, History, parseDesign, serializeDesign, newDesign, copySelection, type Area, type DesignDoc, type DesignNode, type DesignSegment, type FabProcess, type JunctionChoice } from '../../../core/index.ts';
+import type { Box, Region, Vec2 } from '../../../core/index.ts';
+import type { SubstrateSpec } from '../../../core/index.ts';
+import { InputError } from '../../../core/index.ts';
+import { couponForDesign, defaultGroundClearance, smdFootprint, type CouponPlan } from '../../../core/index.ts';
+import { sparamsAdmittance } from '../../../core/index.ts';
 import { errorWords, namer } from '../../../core/index.ts';
 import type { Scene } from '../board/scene.ts';
 import type { Preview } from '../board/BoardController.ts';

@@ -2,7 +2,7 @@
  * The sized figures of one piece as the panels show them (the layout's numbers, renamed for display).
  * Filled from the core's sizing result in state/layoutView.ts; nothing here is computed by the renderer.
  */
-import type { Warning } from '../../../core/util/warnings.ts';
+import type { Warning } from '../../../core/index.ts';
 
 export interface PieceFigures {
   id: string;

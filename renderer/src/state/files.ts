@@ -4,7 +4,7 @@
  * changes, and unsaved work is copied to the recovery store while editing.
  */
 import { createAutosaver, type Autosaver, type Platform } from '../platform/index.ts';
-import { newDesign } from '../../../core/design/index.ts';
+import { newDesign } from '../../../core/index.ts';
 import type { EditorState } from './editor.svelte.ts';
 import { exampleText, EXAMPLES } from './examples.ts';
 

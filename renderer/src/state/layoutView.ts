@@ -2,10 +2,10 @@
  * What the panels and the board show of the layout: the core's sized design and geometry, plus lookups by id.
  * Built from the compute worker's result (layoutJob in worker/jobs.ts); nothing here computes physics.
  */
-import type { DrillHit, Vec2 } from '../../../core/geometry/types.ts';
-import type { PieceOutline } from '../../../core/layout/geometry.ts';
-import type { SizedDesign } from '../../../core/layout/types.ts';
-import type { PathReport } from '../../../core/layout/paths.ts';
+import type { DrillHit, Vec2 } from '../../../core/index.ts';
+import type { PieceOutline } from '../../../core/index.ts';
+import type { SizedDesign } from '../../../core/index.ts';
+import type { PathReport } from '../../../core/index.ts';
 import type { PieceFigures } from './figures.ts';
 
 /** The sized design without its document (the editor holds the document; the worker does not send it back). */

@@ -5,7 +5,7 @@
  * `compute.overlays` to a list of `OverlayTrace`s. Each is drawn on the plot whose view it names, over its own
  * frequencies (no common grid is needed), listed in the legend and read at every marker like a swept trace.
  */
-import type { DesignDoc } from '../../../core/design/types.ts';
+import type { DesignDoc } from '../../../core/index.ts';
 import { nameOf } from '../../../core/index.ts';
 
 export type ResponseView = 'db' | 'phase' | 'delay';

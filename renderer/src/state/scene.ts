@@ -2,11 +2,11 @@
  * The board scene from the design (the sketch) and the core's geometry (true copper and centrelines), plus the
  * lookups the tools need. View data only: no physics is computed here.
  */
-import type { DesignDoc, DesignNode, DesignSegment } from '../../../core/design/types.ts';
-import { smdFootprint } from '../../../core/layout/index.ts';
-import { formatQuantity, type QuantityKind } from '../../../core/units/index.ts';
-import type { DrillHit, Region, Vec2 } from '../../../core/geometry/types.ts';
-import type { PieceOutline } from '../../../core/layout/geometry.ts';
+import type { DesignDoc, DesignNode, DesignSegment } from '../../../core/index.ts';
+import { smdFootprint } from '../../../core/index.ts';
+import { formatQuantity, type QuantityKind } from '../../../core/index.ts';
+import type { DrillHit, Region, Vec2 } from '../../../core/index.ts';
+import type { PieceOutline } from '../../../core/index.ts';
 
 export interface SceneCopper { outlines: (PieceOutline & { d?: string })[]; drills: DrillHit[] }
 import type { Scene, SceneSegment } from '../board/scene.ts';

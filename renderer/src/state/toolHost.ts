@@ -3,10 +3,10 @@
  * nodes where the layout placed them while the design keeps the drawn positions, so a point clicked relative to a
  * placed node is carried into the drawn frame by that node's offset.
  */
-import type { Vec2 } from '../../../core/geometry/types.ts';
-import { InputError } from '../../../core/util/errors.ts';
+import type { Vec2 } from '../../../core/index.ts';
+import { InputError } from '../../../core/index.ts';
 import type { ToolHost, InsertKind, RunEnd } from '../board/tools.ts';
-import { formatQuantity } from '../../../core/units/index.ts';
+import { formatQuantity } from '../../../core/index.ts';
 import { boxSelect } from '../board/hit.ts';
 import type { EditorState } from './editor.svelte.ts';
 

@@ -3,7 +3,7 @@
  * board stays responsive on big designs. The work itself is in jobs.ts (the same code runs inline in tests).
  */
 import wasmUrl from 'clipper2-wasm/dist/es/clipper2z.wasm?url';
-import { initPolygons } from '../../../core/geometry/index.ts';
+import { initPolygons } from '../../../core/index.ts';
 import fontUrl from 'dejavu-fonts-ttf/ttf/DejaVuSans.ttf?url';
 import { runJob, setPolygonInit } from './jobs.ts';
 import { setReportFont } from './measured-job.ts';

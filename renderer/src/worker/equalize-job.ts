@@ -3,8 +3,8 @@
  * (the same functions as `stripwright equalize` and `stripwright tune`). Each returns the new nodes and segments
  * (the editor applies them as one undo step) and what the panels show.
  */
-import type { DesignDoc, DesignNode, DesignSegment } from '../../../core/design/types.ts';
-import { equalizeGroup, tuneDesign, type TuneVariable, type TunedVariable, type TargetEvaluation } from '../../../core/network/index.ts';
+import type { DesignDoc, DesignNode, DesignSegment } from '../../../core/index.ts';
+import { equalizeGroup, tuneDesign, type TuneVariable, type TunedVariable, type TargetEvaluation } from '../../../core/index.ts';
 import type { Progress } from './client.ts';
 
 export interface EqualizeInput { doc: DesignDoc; group: string }

@@ -3,19 +3,19 @@
  * layout (sizing, copper geometry, paths and phase, fabrication checks) and response (a sweep of the sized
  * network). All physics and geometry come from the core; this file only sequences the calls and reports progress.
  */
-import type { DesignDoc } from '../../../core/design/types.ts';
-import type { BoardGeometry, DrillHit, Region } from '../../../core/geometry/types.ts';
-import { initPolygons } from '../../../core/geometry/index.ts';
-import { pieceOutlines, problemFindings, type SizedDesign, type PathReport } from '../../../core/layout/index.ts';
-import type { PieceOutline } from '../../../core/layout/geometry.ts';
-import type { Finding } from '../../../core/layout/checks.ts';
-import { sweepNetwork, magnitudeDb, phaseDeg, groupDelay, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/network/index.ts';
+import type { DesignDoc } from '../../../core/index.ts';
+import type { BoardGeometry, DrillHit, Region } from '../../../core/index.ts';
+import { initPolygons } from '../../../core/index.ts';
+import { pieceOutlines, problemFindings, type SizedDesign, type PathReport } from '../../../core/index.ts';
+import type { PieceOutline } from '../../../core/index.ts';
+import type { Finding } from '../../../core/index.ts';
+import { sweepNetwork, magnitudeDb, phaseDeg, groupDelay, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/index.ts';
 import { portLabel } from '../state/response-view.ts';
-import { InputError, errorWords, exhaustive } from '../../../core/util/errors.ts';
-import { runYield, type YieldResult } from '../../../core/yield/index.ts';
-import { EXPORT_FILE_NAMES, millingPreviewSvg } from '../../../core/export/index.ts';
+import { InputError, errorWords, exhaustive } from '../../../core/index.ts';
+import { runYield, type YieldResult } from '../../../core/index.ts';
+import { EXPORT_FILE_NAMES, millingPreviewSvg } from '../../../core/index.ts';
 import { DesignPipeline, exportDesign, type ExportRequest } from '../../../core/index.ts';
-import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/toolpath/index.ts';
+import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { regionsPath } from '../board/paths.ts';

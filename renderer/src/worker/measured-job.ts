@@ -4,10 +4,10 @@
  * Touchstone file of the design (the same bytes as `stripwright sweep --out` for the same file name), and the design
  * report (the core's designReport, as `stripwright report`).
  */
-import type { DesignDoc, MeasuredFile } from '../../../core/design/types.ts';
-import { sizeDesign } from '../../../core/layout/index.ts';
-import { netlistFromSized, sweepNetwork, bandSweep, readTouchstone, compareMeasured, writeTouchstone, magnitudeDb } from '../../../core/network/index.ts';
-import { designReport } from '../../../core/export/index.ts';
+import type { DesignDoc, MeasuredFile } from '../../../core/index.ts';
+import { sizeDesign } from '../../../core/index.ts';
+import { netlistFromSized, sweepNetwork, bandSweep, readTouchstone, compareMeasured, writeTouchstone, magnitudeDb } from '../../../core/index.ts';
+import { designReport } from '../../../core/index.ts';
 import type { Progress } from './client.ts';
 
 export interface CompareInput { doc: DesignDoc; measured: MeasuredFile }

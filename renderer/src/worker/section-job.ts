@@ -2,7 +2,7 @@
  * The cross-section view's job: one field solution of the selected line as made (core/section), its outline and
  * equipotential lines, as plain data for the renderer's SVG. All physics in the core; this file only packs it.
  */
-import { solveSection, sectionOutline, equipotentials, type SectionSpec, type SectionMode, type SectionOutline, type Polyline } from '../../../core/section/index.ts';
+import { solveSection, sectionOutline, equipotentials, type SectionSpec, type SectionMode, type SectionOutline, type Polyline } from '../../../core/index.ts';
 
 export interface SectionInput { spec: SectionSpec }
 export interface SectionOutput {

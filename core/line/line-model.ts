@@ -1,0 +1,171 @@
+/**
+ * The line-model interface: a cross-section description in; for each propagation mode of that cross-section
+ * (one for a single strip, even and odd for a symmetric coupled pair) Z0(f), εeff(f), β(f) and α(f) out, with the
+ * validity of the result as warnings. Everything that turns copper into a line (the network, paths and phase, the
+ * yield estimate, sizing) asks through here, so another cross-section (a field solution, a stripline, a coplanar
+ * line) plugs in by adding one `LineModelFamily` and nothing else.
+ *
+ * The two families here wrap the existing models without changing a bit of their numbers:
+ *  - 'microstrip': Hammerstad & Jensen 1980 statics with thickness, Kirschning & Jansen 1982 εeff(f) and Jansen &
+ *    Kirschning 1983 Z0(f) (or the options' alternatives), Wheeler incremental-inductance conductor loss and the
+ *    filling-factor dielectric loss (analyze.ts); a CrossSectionSource in the options replaces the statics
+ *    (made-line.ts, e.g. the 2-D solver's tables);
+ *  - 'coupled-microstrip': Kirschning & Jansen 1984 even/odd statics with Getsinger 1973 dispersion per mode and the
+ *    mode losses of coupled-losses.ts (coupled.ts).
+ * The 2-D solver's adapter lives above this layer (core/section/line-model.ts).
+ */
+import type { SubstrateSpec } from '../substrate/types.ts';
+import { InputError, describe } from '../util/errors.ts';
+import type { Warning } from '../util/warnings.ts';
+import { analyzeLine, analyzeLines } from './analyze.ts';
+import { analyzeCoupled } from './coupled.ts';
+import type { CoupledOptions } from './coupled-types.ts';
+import type { LineColumns, LineOptions, LineResult } from './types.ts';
+
+/** One mode's figures at one frequency. SI units. */
+export interface ModeFigures {
+  /** Characteristic impedance at f, and quasi-static, Ω. */
+  z0: number;
+  z0Static: number;
+  /** Effective permittivity at f, and quasi-static. */
+  epsEff: number;
+  epsEffStatic: number;
+  /** Phase constant, rad/m (0 at f = 0). */
+  beta: number;
+  /** Guided wavelength, m (0 at f = 0). */
+  lambdaG: number;
+  /** Phase delay, s/m. */
+  delayPerM: number;
+  /** Conductor and dielectric attenuation, Np/m. */
+  alphaC: number;
+  alphaD: number;
+}
+
+/** The figures of every mode of a cross-section at f, with the validity of the result. */
+export interface ModalFigures<M extends string = string> {
+  f: number;
+  modes: Readonly<Record<M, ModeFigures>>;
+  /** Validity-range, higher-order-mode and thin-metal warnings, as data. */
+  warnings: Warning[];
+  /** False when a warning has severity 'error' (the quasi-TEM result does not hold there). */
+  valid: boolean;
+}
+
+/** What every cross-section description carries: the name of its family. */
+export interface CrossSectionDescription { readonly kind: string }
+
+/** A single microstrip line of `width` m on `substrate`. */
+export interface MicrostripSection extends CrossSectionDescription {
+  readonly kind: 'microstrip';
+  readonly substrate: SubstrateSpec;
+  readonly width: number;
+  readonly options?: LineOptions;
+}
+
+/** A symmetric pair of microstrip lines, each `width` m wide, `gap` m apart edge to edge. */
+export interface CoupledMicrostripSection extends CrossSectionDescription {
+  readonly kind: 'coupled-microstrip';
+  readonly substrate: SubstrateSpec;
+  readonly width: number;
+  readonly gap: number;
+  readonly options?: CoupledOptions;
+}
+
+/** A model family: which cross-sections it takes, which modes it gives, and the evaluation. */
+export interface LineModelFamily<S extends CrossSectionDescription = CrossSectionDescription, M extends string = string> {
+  readonly kind: S['kind'];
+  readonly modes: readonly M[];
+  /** The published source(s) of the model, in words (for docs and the piece sheet). */
+  readonly source: string;
+  /** The modes at f (Hz, 0 = static). Throws InputError for bad input; leaving a model's range is a warning. */
+  evaluate(section: S, f: number): ModalFigures<M>;
+}
+
+export const SINGLE_MODE = 'single' as const;
+export type SingleMode = typeof SINGLE_MODE;
+export type CoupledModeName = 'even' | 'odd';
+
+function isValid(warnings: Warning[]): boolean {
+  for (const w of warnings) if (w.severity === 'error') return false;
+  return true;
+}
+
+/** A single-line analysis as one mode (β = 2π/λg, the same division every consumer made before). */
+export function modeOfLine(r: LineResult): ModeFigures {
+  return {
+    z0: r.z0, z0Static: r.z0Static, epsEff: r.epsEff, epsEffStatic: r.epsEffStatic,
+    beta: r.lambdaG > 0 ? (2 * Math.PI) / r.lambdaG : 0, lambdaG: r.lambdaG, delayPerM: r.delayPerM,
+    alphaC: r.alphaC, alphaD: r.alphaD,
+  };
+}
+
+export const microstripFamily: LineModelFamily<MicrostripSection, SingleMode> = {
+  kind: 'microstrip',
+  modes: [SINGLE_MODE],
+  source: 'Hammerstad & Jensen 1980 (static, thickness); Kirschning & Jansen 1982 εeff(f); Jansen & Kirschning 1983 Z0(f); Wheeler 1942 conductor loss',
+  evaluate(s, f) {
+    const r = analyzeLine(s.substrate, s.width, f, s.options);
+    return { f, modes: { single: modeOfLine(r) }, warnings: r.warnings, valid: isValid(r.warnings) };
+  },
+};
+
+export const coupledMicrostripFamily: LineModelFamily<CoupledMicrostripSection, CoupledModeName> = {
+  kind: 'coupled-microstrip',
+  modes: ['even', 'odd'],
+  source: 'Kirschning & Jansen 1984 (even/odd statics); Getsinger 1973 dispersion per mode',
+  evaluate(s, f) {
+    const r = analyzeCoupled(s.substrate, s.width, s.gap, f, s.options);
+    const m = (x: typeof r.even): ModeFigures => ({
+      z0: x.z0, z0Static: x.z0Static, epsEff: x.epsEff, epsEffStatic: x.epsEffStatic, beta: x.beta, lambdaG: x.lambdaG,
+      delayPerM: 1 / x.vp, alphaC: x.alphaC, alphaD: x.alphaD,
+    });
+    return { f, modes: { even: m(r.even), odd: m(r.odd) }, warnings: r.warnings, valid: isValid(r.warnings) };
+  },
+};
+
+/**
+ * A set of families, looked up by the description's `kind`. Immutable: `with` gives a new set, so a plug-in (a
+ * test's fake, the 2-D solver's adapter) never changes what other callers see.
+ */
+export class LineModels {
+  private readonly byKind: ReadonlyMap<string, LineModelFamily>;
+  constructor(families: readonly LineModelFamily[]) {
+    this.byKind = new Map(families.map((f) => [f.kind, f]));
+  }
+
+  /** This set plus `family` (replacing one of the same kind). */
+  with<S extends CrossSectionDescription, M extends string>(family: LineModelFamily<S, M>): LineModels {
+    const next = new Map(this.byKind);
+    next.set(family.kind, family as unknown as LineModelFamily);
+    return new LineModels([...next.values()]);
+  }
+
+  kinds(): string[] { return [...this.byKind.keys()]; }
+
+  familyOf(section: CrossSectionDescription): LineModelFamily {
+    const fam = this.byKind.get(section?.kind);
+    if (!fam) throw new InputError('bad-choice', 'crossSection.kind', `one of ${this.kinds().join(', ')}`, describe(section?.kind));
+    return fam;
+  }
+
+  /** The modes of `section` at f. */
+  evaluate<S extends CrossSectionDescription>(section: S, f: number): ModalFigures {
+    return this.familyOf(section).evaluate(section, f);
+  }
+}
+
+/** The families the core knows: microstrip and coupled microstrip. */
+export const lineModels = new LineModels([microstripFamily, coupledMicrostripFamily]);
+
+/** The one mode of a single microstrip line at f (what sizing, paths and the network ask of a piece's copper). */
+export function microstripMode(substrate: SubstrateSpec, width: number, f: number, options?: LineOptions): ModeFigures {
+  return microstripFamily.evaluate({ kind: 'microstrip', substrate, width, options }, f).modes.single;
+}
+
+/**
+ * Many single lines on one substrate at once (the yield estimate's tables): the batch form of the microstrip
+ * family, the same numbers as `evaluate` to the last bit (analyze.ts shares one analysis between both).
+ */
+export function microstripColumns(substrate: SubstrateSpec, widths: ArrayLike<number>, freqs: ArrayLike<number> | number, options?: LineOptions): LineColumns {
+  return analyzeLines(substrate, widths, freqs, options);
+}
