@@ -52,7 +52,7 @@ describe('stripwright build with targets', () => {
     const r = cli(['build', join(EX, 'wilkinson-2g45.json')]);
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/Targets \(the board as drawn, nominal laminate\):/);
-    expect(r.stdout).toMatch(/PASS {2}outputs isolated \(isolation o1→o2 ≥ 20 dB, 2\.4–2\.5 GHz\): worst 37\.\d\d dB/);
+    expect(r.stdout).toMatch(/PASS {2}outputs isolated \(isolation output 1→output 2 ≥ 20 dB, 2\.4–2\.5 GHz\): worst 37\.\d\d dB/);
   });
   it('a target the board misses is a FAIL line, and --json carries the evaluation', () => {
     const dir = mkdtempSync(join(tmpdir(), 'sw-build-t-'));

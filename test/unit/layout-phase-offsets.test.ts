@@ -35,7 +35,7 @@ describe('phase groups with wanted offsets', () => {
     const [report] = designPaths(sizeDesign({ ...doc, phaseGroups: [inPhase] }));
     expect(report!.paths[1]!.withinTolerance).toBe(false);
     const w = report!.warnings.find((x) => x.code === 'phase' && x.severity === 'warning');
-    expect(w?.message).toMatch(/p1 → p3 is 90\.0° from p1 → p2 at f0, outside ±2°; shorten it by 90\.0°/);
+    expect(w?.message).toMatch(/input → coupled is 90\.0° from input → through at f0, outside ±2°; shorten it by 90\.0°/);
   });
 
   it('a wrong wanted offset is flagged with the wanted value in the message', () => {

@@ -34,6 +34,12 @@ describe('parseQuantity', () => {
       expect(err.hint).toMatch(/add a unit/);
     }
   });
+  it('refuses a bare frequency, suggesting the unit it was most likely meant in (issue 14, fault 12)', () => {
+    expect(() => parseQuantity('2.45', 'frequency', 'f')).toThrow(/did you mean 2\.45 GHz\?/);
+    expect(() => parseQuantity('433', 'frequency', 'f')).toThrow(/did you mean 433 MHz\?/);
+    expect(() => parseQuantity('2.4e9', 'frequency', 'f')).toThrow(/did you mean 2\.4e9 Hz\?/);
+    expect(parseQuantity('0', 'frequency')).toBe(0);
+  });
   it('refuses a unit of another kind, a comma decimal, text and an overflowing value', () => {
     for (const [t, k] of [['5GHz', 'length'], ['1,6mm', 'length'], ['abc', 'frequency'], ['1e400', 'frequency'], ['', 'ratio'], ['12 furlongs', 'length']] as const) {
       expect(() => parseQuantity(t, k)).toThrow(InputError);
