@@ -105,6 +105,16 @@ describe('drawing tools', () => {
     expect(t.busy).toBe(false);
   });
 
+  it('a click on a port that already has its line does not end the run there (the run is kept)', () => {
+    const { host, calls } = recorder();
+    const t = new ToolMachine(host);
+    t.setTool('route');
+    t.handle(ev('down', { x: 0, y: 0 }, { hit: { kind: 'node', id: 'p1' } }));
+    t.handle(ev('down', { x: 0, y: 0.01 }, { hit: { kind: 'node', id: 'p2' } }));
+    expect(t.busy).toBe(true);
+    expect(calls.filter((c) => c[0] === 'addRun')).toHaveLength(0);
+  });
+
   it('a press without movement selects; a drag moves the selection as one live step', () => {
     const { host, calls } = recorder();
     const t = new ToolMachine(host);

@@ -192,8 +192,7 @@ export class ToolMachine {
     if (hit?.kind === 'node') {
       const n = this.host.nodeAt(hit.id);
       if (!n) return;
-      const full = (n.kind === 'port' && n.degree >= 1) || (n.kind === 'junction' && n.degree >= 4);
-      if (full) {
+      if (this.isFull(hit.id)) {
         this.host.status(n.kind === 'port' ? 'A port takes one line: start from the open end or a corner of its run, or from the line itself' : 'This tee already has four lines');
         return;
       }
@@ -234,6 +233,11 @@ export class ToolMachine {
     if (!anchor) { this.cancel(); return; }
     const land = this.landing(g, e, step);
     const next = land?.at ?? snapHeading(anchor, e.at, headingRuleFor(e), step);
+    if (e.type === 'down' && e.button === 0 && land && 'node' in (land.end ?? {}) && this.isFull((land.end as { node: string }).node)) {
+      // Ending on a node with no room would refuse the whole run: keep drawing and say why.
+      this.host.status('That node has no room for another line: end on a line, an open end or a corner, or press Enter to end here');
+      return;
+    }
     if (e.type === 'move') {
       // Pointer coordinates keep following the pointer; no hover tip while drawing.
       this.host.hover(null, e.at);
@@ -247,6 +251,11 @@ export class ToolMachine {
     } else if (e.type === 'dblclick') {
       this.finish();
     }
+  }
+
+  private isFull(id: string): boolean {
+    const n = this.host.nodeAt(id);
+    return !!n && ((n.kind === 'port' && n.degree >= 1) || (n.kind === 'junction' && n.degree >= 4));
   }
 
   /** The live readout of the piece being drawn: its length in the display unit and its direction (0° = +x, counter-clockwise). */
