@@ -41,3 +41,36 @@ describe('stripwright block', () => {
     expect((await run(['block', 'ladder', '--f0', '1GHz', '--out', 'y.json'], dir)).code).toBe(2);
   });
 });
+
+describe('stripwright block (registry)', () => {
+  it('list names every block; KIND --help lists its parameters with unit, range and default', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const l = await run(['block', 'list'], dir);
+    expect(l.code).toBe(0);
+    for (const k of ['corporate', 'wilkinson', 'branchline', 'ratrace', 'transformer', 'taper', 'stub-match', 'lowpass', 'bandstop', 'launch']) expect(l.stdout).toContain(k);
+    const h = await run(['block', 'transformer', '--help'], dir);
+    expect(h.stdout).toMatch(/--sections VALUE\s+Number of quarter-wave sections \(1 to 8; default 3\)/);
+    expect(h.stdout).toContain('Pozar');
+  });
+  it('--out writes a complete design that build accepts; --into … --at adds a block to a copy', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const r = await run(['block', 'corporate', '--outputs', '3', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--out', 'feed.json'], dir);
+    expect(r.code).toBe(0);
+    expect((await run(['build', 'feed.json'], dir)).code).toBe(0);
+    const i = await run(['block', 'stub-match', '--load', '30-20j', '--into', 'feed.json', '--at', '120mm,0mm', '--out', 'both.json'], dir);
+    expect(i.code).toBe(0);
+    const p = parseDesign(readFileSync(join(dir, 'both.json'), 'utf8'));
+    if (!p.ok) throw new Error('refused');
+    expect(p.doc.blocks?.map((b) => b.kind)).toEqual(['corporate', 'stub-match']);
+    expect(p.doc.nodes.find((n) => n.id === 'b2.src')!.at).toEqual({ x: 0.12, y: 0 });
+  });
+  it('a bad value is refused naming the field, what was expected and the fix (exit 1, no file)', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const r = await run(['block', 'corporate', '--outputs', '65', '--f0', '2.45GHz', '--out', 'x.json'], dir);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/corporate\.outputs: expected a whole number from 2 to 64, got "65"/);
+    expect(existsSync(join(dir, 'x.json'))).toBe(false);
+    const u = await run(['block', 'wilkinson', '--ratio', '3', '--f0', '2.45GHz', '--out', 'x.json'], dir);
+    expect(u.code).toBe(2);
+  });
+});

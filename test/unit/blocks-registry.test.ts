@@ -133,6 +133,19 @@ describe('branch-line (Pozar §7.5), lossless, at f0', () => {
   }
 });
 
+describe('rat-race (Pozar §7.8), lossless, at f0', () => {
+  it('Σ feeds both outputs −3 dB in phase, Δ feeds them 180° apart (within 1°), Σ–Δ isolated and both matched below −25 dB', () => {
+    const r = sweep(make('ratrace'), [F0]);
+    const s1 = s(r, 0, 'b1.o1', 'b1.s'), s2 = s(r, 0, 'b1.o2', 'b1.s'), d1 = s(r, 0, 'b1.o1', 'b1.d'), d2 = s(r, 0, 'b1.o2', 'b1.d');
+    for (const x of [s1, s2, d1, d2]) expect(Math.abs(x.db + 3.0103)).toBeLessThan(0.1);
+    expect(Math.abs(wrap(s1.deg - s2.deg))).toBeLessThan(1);
+    expect(Math.abs(Math.abs(wrap(d1.deg - d2.deg)) - 180)).toBeLessThan(1);
+    expect(s(r, 0, 'b1.d', 'b1.s').db).toBeLessThan(-25);
+    expect(s(r, 0, 'b1.s', 'b1.s').db).toBeLessThan(-25);
+    expect(s(r, 0, 'b1.d', 'b1.d').db).toBeLessThan(-25);
+  });
+});
+
 describe('corporate feed, lossless, at f0', () => {
   for (const [n, split, amps] of [[4, 'tee', ''], [3, 'tee', ''], [5, 'tee', '0,-1,-3,-1,0'], [4, 'wilkinson', '']] as const) {
     it(`${n} outputs, ${split} splits${amps ? `, levels ${amps} dB` : ''}: each level within 0.1 dB of the ideal share, all in phase within 1°, matched below −25 dB`, () => {

@@ -191,8 +191,21 @@ export const ratraceBlock: BlockDef = {
     // From j3: 90° to j2 and 90° to j4 (in phase: the sum port); from j1: 90° to j2, 270° to j4 (opposite: difference).
     port('d', 'j1', -1, 0, 'difference (Δ)'); port('o1', 'j2', 0, 1, 'output 1'); port('s', 'j3', 0, 1, 'sum (Σ)'); port('o2', 'j4', 1, 0, 'output 2');
     const f0 = ctx.f0;
+    // The top side carries two tees whose reference planes lengthen its copper; the drawn bottom side must span the
+    // same width, so it is electrically longer than 180° by that much. The two vertical pieces next to it give the
+    // excess back (half each), so the path from j4 to j1 stays 270° and the ring stays symmetric (and closed).
+    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process });
+    doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
+    let excess = 0;
+    for (let pass = 0; pass < 2; pass++) {
+      placeAsSized(doc, 'ratrace');
+      const bottom = sizeDesign(doc).pieces.find((x) => x.id === 'r4b')!;
+      excess = bottom.deg - 180;
+      for (const x of doc.segments) if ((x.id === 'r4a' || x.id === 'r4c') && x.kind === 'line' && x.length.by === 'degrees') x.length = { by: 'degrees', deg: Math.round((45 - excess / 2) * 1e9) / 1e9 };
+    }
+    placeAsSized(doc, 'ratrace');
     return {
-      name: `Rat-race hybrid, ${ghz(f0)}`, nodes: sk.nodes, segments: sk.segments,
+      name: `Rat-race hybrid, ${ghz(f0)}`, nodes: doc.nodes, segments: doc.segments,
       phaseGroups: [
         { id: 'sum', name: 'sum port feeds the outputs in phase', from: 's', to: ['o1', 'o2'], toleranceDeg: 2 },
         { id: 'difference', name: 'difference port feeds them 180° apart', from: 'd', to: ['o1', 'o2'], toleranceDeg: 2, offsetsDeg: [0, 180] },
