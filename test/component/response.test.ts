@@ -46,3 +46,29 @@ describe('response dock on the two-way divider example', () => {
     compute.destroy();
   });
 });
+
+describe('sweeps superseded and cancelled', () => {
+  it('a newer sweep cancels the one it supersedes: the older never reaches the screen', async () => {
+    const ed = editorOn('wilkinson-2g45');
+    const compute = new Compute(ed, null);
+    const base = { start: 1e9, stop: 4e9, log: false };
+    const long = compute.sweep({ settings: { ...base, points: 100_001 } });
+    const short = compute.sweep({ settings: { ...base, points: 21 } });
+    await Promise.all([long, short]);
+    expect(compute.response!.settings.points).toBe(21);
+    expect(compute.responseCancelled).toBe(false);
+    expect(compute.responseProgress).toBeNull();
+    compute.destroy();
+  });
+  it('cancel stops a sweep by hand and keeps the last finished response', async () => {
+    const ed = editorOn('wilkinson-2g45');
+    const compute = new Compute(ed, null);
+    await compute.sweep({ settings: { start: 2e9, stop: 3e9, points: 11, log: false } });
+    const done = compute.sweep({ settings: { start: 1e9, stop: 4e9, points: 100_001, log: false } });
+    compute.cancelSweep();
+    await done;
+    expect(compute.responseCancelled).toBe(true);
+    expect(compute.response!.settings.points).toBe(11);
+    compute.destroy();
+  });
+});
