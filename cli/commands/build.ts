@@ -17,7 +17,8 @@ import { checkBoard } from '../../core/layout/board.ts';
 import type { JunctionInfo, SizedDesign } from '../../core/layout/types.ts';
 import type { JunctionChoice } from '../../core/design/types.ts';
 import { netlistFromSized } from '../../core/network/fromSized.ts';
-import { bandSweep, solveNetwork } from '../../core/network/sweep.ts';
+import { solveNetwork } from '../../core/network/sweep.ts';
+import { designSweepSettings } from '../../core/network/designSweep.ts';
 import { evaluateTargets, targetFrequencies, targetText, type TargetEvaluation } from '../../core/network/targets.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
@@ -252,11 +253,11 @@ export const buildCommand: CliCommand = {
   },
 };
 
-/** The design's targets evaluated on its nominal sweep (band, 201 points, every target band edge added). */
+/** The design's targets evaluated on its nominal sweep (its own sweep settings, else the band at 201 points; every target band edge added), as the app does. */
 function nominalTargets(sized: SizedDesign): TargetEvaluation | null {
   const doc = sized.doc;
   if (!doc.targets?.length) return null;
-  const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, 201), doc.targets);
+  const freqs = targetFrequencies(designSweepSettings(doc), doc.targets);
   const ev = evaluateTargets(solveNetwork(netlistFromSized(sized), freqs), doc);
   return { ...ev, results: ev.results.map((r, i) => ({ ...r, name: r.name === targetText(doc.targets[i]!) ? r.name : `${r.name} (${targetText(doc.targets[i]!)})` })) };
 }

@@ -72,3 +72,20 @@ describe('sweeps superseded and cancelled', () => {
     compute.destroy();
   });
 });
+
+describe('targets in the app are judged as `stripwright build` judges them', () => {
+  it('every example carries targets, and the panel\'s pass/fail and worst values equal the core evaluation at build\'s frequencies', async () => {
+    const { EXAMPLES } = await import('../../renderer/src/state/examples.ts');
+    const { responseJob } = await import('../../renderer/src/worker/jobs.ts');
+    const { sizeDesign } = await import('../../core/layout/index.ts');
+    const { netlistFromSized, solveNetwork, targetFrequencies, evaluateTargets, designSweepSettings } = await import('../../core/network/index.ts');
+    for (const ex of EXAMPLES) {
+      const ed = editorOn(ex.id);
+      expect(ed.doc.targets.length, ex.id).toBeGreaterThan(0);
+      const app = await responseJob({ doc: ed.doc }, () => {});
+      const sized = sizeDesign(ed.doc);
+      const build = evaluateTargets(solveNetwork(netlistFromSized(sized), targetFrequencies(designSweepSettings(ed.doc), ed.doc.targets)), ed.doc);
+      expect(app.targets!.results.map((t) => [t.id, t.pass, t.worst.value, t.worst.freq]), ex.id).toEqual(build.results.map((t) => [t.id, t.pass, t.worst.value, t.worst.freq]));
+    }
+  });
+});
