@@ -6,20 +6,8 @@
  */
 import { parseArgs } from 'node:util';
 import { resolve } from 'node:path';
-import { InputError } from '../../core/index.ts';
-import type { Warning } from '../../core/index.ts';
-import { parseDesign } from '../../core/index.ts';
-import { namer } from '../../core/index.ts';
-import { initPolygons } from '../../core/index.ts';
-import { sizeDesign } from '../../core/index.ts';
-import { designPaths, tracePaths, type PathReport } from '../../core/index.ts';
-import type { Finding } from '../../core/index.ts';
-import { checkBoard } from '../../core/index.ts';
-import type { JunctionInfo, SizedDesign } from '../../core/index.ts';
-import type { JunctionChoice } from '../../core/index.ts';
-import { netlistFromSized } from '../../core/index.ts';
-import { bandSweep, solveNetwork } from '../../core/index.ts';
-import { evaluateTargets, targetFrequencies, targetText, type TargetEvaluation } from '../../core/index.ts';
+import { InputError, parseDesign, namer, initPolygons, sizeDesign, designPaths, tracePaths, checkBoard, netlistFromSized, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText } from '../../core/index.ts';
+import type { Warning, PathReport, Finding, JunctionInfo, SizedDesign, JunctionChoice, TargetEvaluation } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
 import { resultJson } from '../json.ts';
@@ -249,11 +237,11 @@ export const buildCommand: CliCommand = {
   },
 };
 
-/** The design's targets evaluated on its nominal sweep (band, 201 points, every target band edge added). */
+/** The design's targets evaluated on its nominal sweep (its own sweep settings, else the band at 201 points; every target band edge added), as the app does. */
 function nominalTargets(sized: SizedDesign): TargetEvaluation | null {
   const doc = sized.doc;
   if (!doc.targets?.length) return null;
-  const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, 201), doc.targets);
+  const freqs = targetFrequencies(designSweepSettings(doc), doc.targets);
   const ev = evaluateTargets(solveNetwork(netlistFromSized(sized), freqs), doc);
   const name = namer(doc);
   return { ...ev, results: ev.results.map((r, i) => {

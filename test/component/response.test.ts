@@ -46,3 +46,46 @@ describe('response dock on the two-way divider example', () => {
     compute.destroy();
   });
 });
+
+describe('sweeps superseded and cancelled', () => {
+  it('a newer sweep cancels the one it supersedes: the older never reaches the screen', async () => {
+    const ed = editorOn('wilkinson-2g45');
+    const compute = new Compute(ed, null);
+    const base = { start: 1e9, stop: 4e9, log: false };
+    const long = compute.sweep({ settings: { ...base, points: 100_001 } });
+    const short = compute.sweep({ settings: { ...base, points: 21 } });
+    await Promise.all([long, short]);
+    expect(compute.response!.settings.points).toBe(21);
+    expect(compute.responseCancelled).toBe(false);
+    expect(compute.responseProgress).toBeNull();
+    compute.destroy();
+  });
+  it('cancel stops a sweep by hand and keeps the last finished response', async () => {
+    const ed = editorOn('wilkinson-2g45');
+    const compute = new Compute(ed, null);
+    await compute.sweep({ settings: { start: 2e9, stop: 3e9, points: 11, log: false } });
+    const done = compute.sweep({ settings: { start: 1e9, stop: 4e9, points: 100_001, log: false } });
+    compute.cancelSweep();
+    await done;
+    expect(compute.responseCancelled).toBe(true);
+    expect(compute.response!.settings.points).toBe(11);
+    compute.destroy();
+  });
+});
+
+describe('targets in the app are judged as `stripwright build` judges them', () => {
+  it('every example carries targets, and the panel\'s pass/fail and worst values equal the core evaluation at build\'s frequencies', async () => {
+    const { EXAMPLES } = await import('../../renderer/src/state/examples.ts');
+    const { responseJob } = await import('../../renderer/src/worker/jobs.ts');
+    const { sizeDesign } = await import('../../core/layout/index.ts');
+    const { netlistFromSized, solveNetwork, targetFrequencies, evaluateTargets, designSweepSettings } = await import('../../core/network/index.ts');
+    for (const ex of EXAMPLES) {
+      const ed = editorOn(ex.id);
+      expect(ed.doc.targets.length, ex.id).toBeGreaterThan(0);
+      const app = await responseJob({ doc: ed.doc }, () => {});
+      const sized = sizeDesign(ed.doc);
+      const build = evaluateTargets(solveNetwork(netlistFromSized(sized), targetFrequencies(designSweepSettings(ed.doc), ed.doc.targets)), ed.doc);
+      expect(app.targets!.results.map((t) => [t.id, t.pass, t.worst.value, t.worst.freq]), ex.id).toEqual(build.results.map((t) => [t.id, t.pass, t.worst.value, t.worst.freq]));
+    }
+  });
+});
