@@ -21,7 +21,7 @@ export async function run(): Promise<void> {
     return { wall: performance.now() - t0, cpu: (c.user + c.system) / 1000, bytes: r.pdf.length, pages: r.pages };
   };
   const first = await once();
-  const later = [];
+  const later: (typeof first)[] = [];
   for (let i = 0; i < 5; i++) later.push(await once());
   const med = (k: 'wall' | 'cpu') => later.map((x) => x[k]).sort((a, b) => a - b)[2]!;
   console.log(`demo report: ${first.pages} pages, ${(first.bytes / 1024).toFixed(0)} kB`);

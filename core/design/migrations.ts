@@ -80,10 +80,10 @@ export const MIGRATIONS: readonly Migration[] = [
   },
   {
     from: 6,
-    summary: 'added measured: Touchstone files of the whole board kept with the design, each with its port map (empty in an upgraded file)',
+    summary: 'the format now keeps measured Touchstone files of the whole board with their port maps (optional field "measured"); nothing in the file changed',
     up(doc) {
-      // Literal value on purpose (see the first migration): an older file had no measured data.
-      return { ...doc, version: 7, measured: doc.measured ?? [] };
+      // Purely additive: an older file had no measured data, and an absent list means none.
+      return { ...doc, version: 7 };
     },
   },
 ];
