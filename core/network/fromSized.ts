@@ -206,7 +206,10 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
   const chosen = sized.doc.phaseGroups?.[0]?.from;
   const byGroup = chosen === undefined ? -1 : ports.findIndex((p) => p.node === chosen);
   const input = byGroup >= 0 ? byGroup : Math.max(0, ports.findIndex((p) => p.node === sized.anchor));
-  return { elements, ports, input, warnings };
+  // S-parameters number from the input (port 1), then the other ports in the order they were drawn: choosing another
+  // input in the path ledger renumbers them, so S21 always reads "from the input to the first output".
+  const numbered = [ports[input]!, ...ports.filter((_, k) => k !== input)];
+  return { elements, ports: numbered, input: 0, warnings };
 }
 
 /**

@@ -127,4 +127,13 @@ describe('the input port the user chose', () => {
     expect(netIn(runCommand(demo, 'phaseGroup.set', { id: 'outputs', from: 'out2', to: ['in', 'out1', 'out3', 'out4'] }))).toBe('out2');
     expect(netIn(runCommand(demo, 'phaseGroup.delete', { id: 'outputs' }))).toBe('in');
   });
+  it('S-parameters number from the chosen input: it becomes port 1, the others keep their drawn order', async () => {
+    const { netlistFromSized } = await import('../../core/index.ts');
+    const demo = load('demo.json');
+    const order = (d: DesignDoc) => netlistFromSized(sizeDesign(d)).ports.map((p) => p.node);
+    expect(order(demo)).toEqual(['in', 'out1', 'out2', 'out3', 'out4']);
+    const moved = runCommand(demo, 'phaseGroup.set', { id: 'outputs', from: 'out2', to: ['in', 'out1', 'out3', 'out4'] });
+    expect(order(moved)).toEqual(['out2', 'in', 'out1', 'out3', 'out4']);
+    expect(netlistFromSized(sizeDesign(moved)).input).toBe(0);
+  });
 });

@@ -11,7 +11,7 @@ import type { SubstrateSpec } from '../../../core/index.ts';
 import { InputError } from '../../../core/index.ts';
 import { couponForDesign, defaultGroundClearance, smdFootprint, type CouponPlan } from '../../../core/index.ts';
 import { sparamsAdmittance } from '../../../core/index.ts';
-import { errorWords, namer } from '../../../core/index.ts';
+import { errorWords, namer, nameOf } from '../../../core/index.ts';
 import type { Scene } from '../board/scene.ts';
 import type { Preview } from '../board/BoardController.ts';
 import { ToolMachine, type ToolId } from '../board/tools.ts';
@@ -371,7 +371,8 @@ export class EditorState {
   layoutFailed(message: string): void { this.layoutError = message; }
 
   /** A node's label, or its id where it has none. */
-  nodeName(id: string): string { return this.doc.nodes.find((n) => n.id === id)?.label ?? id; }
+  /** A record's name for people, the same in every face (core namer: its label, else its id). */
+  nodeName(id: string): string { return nameOf(this.doc, id); }
 
   figuresOf(id: string): PieceFigures | null { return this.layout?.figures.get(id) ?? null; }
 

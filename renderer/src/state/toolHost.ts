@@ -79,7 +79,7 @@ export function createToolHost(ed: EditorState): ToolHost {
         if (changed) {
           ed.selection = new Set([changed.id]);
           const w = changed.kind === 'line' && changed.width.by === 'z0' ? `${changed.width.z0} Ω` : 'the new width';
-          ed.status = `Width step: ${changed.label ?? changed.id} (from ${ed.nodeName(changed.a)} to ${ed.nodeName(changed.b)}) is now ${w}; the other side keeps its width`;
+          ed.status = `Width step: ${ed.nodeName(changed.id)} (from ${ed.nodeName(changed.a)} to ${ed.nodeName(changed.b)}) is now ${w}; the other side keeps its width`;
         }
       }
     },
