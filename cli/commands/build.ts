@@ -11,13 +11,11 @@ import type { Warning } from '../../core/util/warnings.ts';
 import { parseDesign } from '../../core/design/parse.ts';
 import { namer } from '../../core/design/names.ts';
 import { initPolygons } from '../../core/geometry/polygons.ts';
-import { sizeDesign } from '../../core/layout/sizing.ts';
-import { designPaths, tracePaths, type PathReport } from '../../core/layout/paths.ts';
+import type { PathReport } from '../../core/layout/paths.ts';
 import type { Finding } from '../../core/layout/checks.ts';
-import { checkBoard } from '../../core/layout/board.ts';
+import { DesignPipeline } from '../../core/index.ts';
 import type { JunctionInfo, SizedDesign } from '../../core/layout/types.ts';
 import type { JunctionChoice } from '../../core/design/types.ts';
-import { netlistFromSized } from '../../core/network/fromSized.ts';
 import { bandSweep, solveNetwork } from '../../core/network/sweep.ts';
 import { evaluateTargets, targetFrequencies, targetText, type TargetEvaluation } from '../../core/network/targets.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
@@ -47,6 +45,9 @@ Exit status: 0 the design can be built as drawn; 1 it cannot (errors listed) or 
 Examples:
   stripwright build assets/examples/wilkinson-2g45.json
   stripwright build feed.json --json --tolerance 2`;
+
+/** One pipeline per process, as export keeps one: the stages of a design are sized once. */
+const pipeline = new DesignPipeline();
 
 const mm = (m: number, d = 3) => (m * 1e3).toFixed(d);
 
@@ -222,11 +223,11 @@ export const buildCommand: CliCommand = {
     }
     try {
       await initPolygons();
-      const sized = sizeDesign(parsed.doc, junctions ? { junctions } : {});
-      const popts = tolerance !== undefined ? { toleranceDeg: tolerance } : {};
-      // Sizing problems first (as the app does): with any, they are the findings, and no copper or paths are built.
-      const paths = sized.problems.length ? [] : values.from !== undefined && toList ? [tracePaths(sized, values.from, toList, popts)] : designPaths(sized, popts);
-      const { findings } = checkBoard(sized, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
+      // The core pipeline's stages, the same export uses: build and export cannot disagree on a design.
+      const { sized, paths, findings } = pipeline.check(parsed.doc, {
+        ...(junctions ? { junctions } : {}), ...(tolerance !== undefined ? { toleranceDeg: tolerance } : {}),
+        ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}), ...(values.from !== undefined && toList ? { from: values.from, to: toList } : {}),
+      });
       const rep = buildReport(sized, paths, findings);
       rep.warnings.unshift(...parsed.warnings);
       // Targets need the network; a layout with problems has none (its errors are in the findings already).
@@ -254,7 +255,7 @@ function nominalTargets(sized: SizedDesign): TargetEvaluation | null {
   const doc = sized.doc;
   if (!doc.targets?.length) return null;
   const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, 201), doc.targets);
-  const ev = evaluateTargets(solveNetwork(netlistFromSized(sized), freqs), doc);
+  const ev = evaluateTargets(solveNetwork(pipeline.netlist(doc), freqs), doc);
   const name = namer(doc);
   return { ...ev, results: ev.results.map((r, i) => {
     const plain = targetText(doc.targets[i]!), shown = targetText(doc.targets[i]!, name);
