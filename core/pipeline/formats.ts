@@ -59,8 +59,8 @@ export const FORMAT_INFO: Record<ExportFormat, FormatInfo> = {
     help: ['DXF drawing (mm): one closed polyline per outline and hole, a layer per kind, drills as circles',
       '(--dxf-version 2007, the default, or r12 for older cutters)'],
     write: (c) => [c.req.dxfVersion === 'r12'
-      ? { name: EXPORT_FILE_NAMES.dxf(c.req.base), text: toDxfR12(c.geometry, { ...frame(c), ...(c.layers ? { layers: c.layers } : {}) }), what: 'DXF R12 drawing, mm' }
-      : { name: EXPORT_FILE_NAMES.dxf(c.req.base), text: toDxf(c.geometry, { ...frame(c), ...(c.layers ? { layers: c.layers } : {}) }), what: 'DXF drawing, mm' }],
+      ? { name: EXPORT_FILE_NAMES.dxf(c.req.base), text: toDxfR12(c.geometry, { ...frame(c), stamp: c.stamp, ...(c.layers ? { layers: c.layers } : {}) }), what: 'DXF R12 drawing, mm' }
+      : { name: EXPORT_FILE_NAMES.dxf(c.req.base), text: toDxf(c.geometry, { ...frame(c), stamp: c.stamp, ...(c.layers ? { layers: c.layers } : {}) }), what: 'DXF drawing, mm' }],
   },
   svg: {
     label: 'SVG (1:1)',
