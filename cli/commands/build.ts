@@ -6,7 +6,7 @@
  */
 import { parseArgs } from 'node:util';
 import { resolve } from 'node:path';
-import { InputError, parseDesign, namer, initPolygons, sizeDesign, designPaths, tracePaths, checkBoard, netlistFromSized, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText } from '../../core/index.ts';
+import { InputError, parseDesign, namer, initPolygons, DesignPipeline, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText } from '../../core/index.ts';
 import type { Warning, PathReport, Finding, JunctionInfo, SizedDesign, JunctionChoice, TargetEvaluation } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
@@ -35,6 +35,9 @@ Exit status: 0 the design can be built as drawn; 1 it cannot (errors listed) or 
 Examples:
   stripwright build assets/examples/wilkinson-2g45.json
   stripwright build feed.json --json --tolerance 2`;
+
+/** One pipeline per process, as export keeps one: the stages of a design are sized once. */
+const pipeline = new DesignPipeline();
 
 const mm = (m: number, d = 3) => (m * 1e3).toFixed(d);
 
@@ -210,11 +213,11 @@ export const buildCommand: CliCommand = {
     }
     try {
       await initPolygons();
-      const sized = sizeDesign(parsed.doc, junctions ? { junctions } : {});
-      const popts = tolerance !== undefined ? { toleranceDeg: tolerance } : {};
-      // Sizing problems first (as the app does): with any, they are the findings, and no copper or paths are built.
-      const paths = sized.problems.length ? [] : values.from !== undefined && toList ? [tracePaths(sized, values.from, toList, popts)] : designPaths(sized, popts);
-      const { findings } = checkBoard(sized, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
+      // The core pipeline's stages, the same export uses: build and export cannot disagree on a design.
+      const { sized, paths, findings } = pipeline.check(parsed.doc, {
+        ...(junctions ? { junctions } : {}), ...(tolerance !== undefined ? { toleranceDeg: tolerance } : {}),
+        ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}), ...(values.from !== undefined && toList ? { from: values.from, to: toList } : {}),
+      });
       const rep = buildReport(sized, paths, findings);
       rep.warnings.unshift(...parsed.warnings);
       // Targets need the network; a layout with problems has none (its errors are in the findings already).
@@ -242,7 +245,7 @@ function nominalTargets(sized: SizedDesign): TargetEvaluation | null {
   const doc = sized.doc;
   if (!doc.targets?.length) return null;
   const freqs = targetFrequencies(designSweepSettings(doc), doc.targets);
-  const ev = evaluateTargets(solveNetwork(netlistFromSized(sized), freqs), doc);
+  const ev = evaluateTargets(solveNetwork(pipeline.netlist(doc), freqs), doc);
   const name = namer(doc);
   return { ...ev, results: ev.results.map((r, i) => {
     const plain = targetText(doc.targets[i]!), shown = targetText(doc.targets[i]!, name);

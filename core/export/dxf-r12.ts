@@ -10,11 +10,12 @@
  * 62 colour, 6 linetype, 70 flags, 66 entities-follow flag.
  */
 import { fmtMm, makeFrame, roundMm, toMm, type FrameOptions, type PointMm } from './frame.ts';
+import { dxfCommentText } from './dxf.ts';
 import { LAYER_INFO, checkLayers, layerRegions, type ExportGeometry, type ExportLayer } from './layers.ts';
 
 export interface DxfR12Options extends FrameOptions {
   layers?: readonly string[];
-  /** Who made it from what (the pipeline's stamp, written as a comment; no timestamp). */
+  /** The pipeline's stamp (design hash, application and version; never a timestamp), as a 999 comment. */
   stamp?: string;
 }
 
@@ -25,7 +26,7 @@ export function toDxfR12(geometry: ExportGeometry, options: DxfR12Options = {}):
   const tag = (code: number, value: string | number) => { t.push(String(code), typeof value === 'number' ? fmtMm(value) : value); };
   tag(999, 'Stripwright DXF R12 export. Units: millimetres.');
   tag(999, `Origin: ${frame.origin === 'board' ? 'lower-left corner of the board' : 'design origin'}. Mirrored: ${frame.mirror ? 'yes (left-right)' : 'no'}.`);
-  if (options.stamp) tag(999, `Made by ${options.stamp.replace(/[\r\n]+/g, ' ')}.`);
+  if (options.stamp) tag(999, `Made by ${dxfCommentText(options.stamp)}.`);
   tag(0, 'SECTION'); tag(2, 'HEADER');
   tag(9, '$ACADVER'); tag(1, 'AC1009');
   tag(9, '$EXTMIN'); tag(10, frame.box.minX); tag(20, frame.box.minY); tag(30, 0);

@@ -21,9 +21,12 @@ import { LAYER_INFO, checkLayers, layerRegions, type ExportGeometry, type Export
 export interface DxfOptions extends FrameOptions {
   /** Layers to write; default copper, ground, outline, clearance, drills (+ keepouts, isolation when present). */
   layers?: readonly string[];
-  /** Who made it from what, e.g. "design 1a2b3c4d:5k, Stripwright 0.9.0", as a comment (the pipeline's stamp; no timestamp). */
+  /** Who made it from what, e.g. "design 1a2b3c4d:5k, Stripwright 0.9.0" (the pipeline's stamp; never a timestamp). */
   stamp?: string;
 }
+
+/** A 999 comment holds one line of text (DXF group codes are line pairs): line breaks become spaces. */
+export const dxfCommentText = (text: string): string => text.replace(/[\r\n]+/g, ' ');
 
 export function toDxf(geometry: ExportGeometry, options: DxfOptions = {}): string {
   const frame = makeFrame(geometry, options);
@@ -49,7 +52,7 @@ export function toDxf(geometry: ExportGeometry, options: DxfOptions = {}): strin
     '999', 'Stripwright DXF export. Units: millimetres.',
     '999', `Origin: ${frame.origin === 'board' ? 'lower-left corner of the board' : 'design origin'}. Mirrored: ${frame.mirror ? 'yes (left-right)' : 'no'}.`,
     '999', `Layers: ${layers.map((l: ExportLayer) => LAYER_INFO[l].dxf).join(', ')}.`,
-    ...(options.stamp ? ['999', `Made by ${options.stamp.replace(/[\r\n]+/g, ' ')}.`] : []),
+    ...(options.stamp ? ['999', `Made by ${dxfCommentText(options.stamp)}.`] : []),
   ].join('\n');
   return `${comment}\n${fixHandseed(d.toDxfString())}`;
 }

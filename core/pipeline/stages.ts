@@ -13,13 +13,13 @@
  * Geometry stages need the polygon engine: `await initPolygons()` (core/geometry) once before calling them.
  */
 import { crossCheck } from '../design/crossref.ts';
-import type { DesignDoc } from '../design/types.ts';
+import type { DesignDoc, JunctionChoice } from '../design/types.ts';
 import type { BoardGeometry } from '../geometry/types.ts';
 import { asMadeLineOptions } from '../layout/as-made.ts';
-import { checkFabrication, type Finding } from '../layout/checks.ts';
+import { checkFabrication, problemFindings, type Finding } from '../layout/checks.ts';
 import { buildBoardGeometry } from '../layout/geometry.ts';
 import { LineCache } from '../layout/lineCache.ts';
-import { designPaths, type PathReport } from '../layout/paths.ts';
+import { designPaths, tracePaths, type PathReport } from '../layout/paths.ts';
 import { processCut } from '../layout/process-cut.ts';
 import { sizeDesign } from '../layout/sizing.ts';
 import type { SizedDesign } from '../layout/types.ts';
@@ -36,7 +36,7 @@ import { refuse } from './refusal.ts';
 import { revisionOf } from './revision.ts';
 
 /** The stages, by name (the memo's counters use these). */
-export type StageName = 'complete' | 'sized' | 'board' | 'paths' | 'findings' | 'prepared' | 'plan' | 'netlist';
+export type StageName = 'complete' | 'sized' | 'board' | 'paths' | 'findings' | 'checked' | 'prepared' | 'plan' | 'netlist';
 
 export interface PrepareOptions {
   /** Etch bias per copper edge, m (0: none). */
@@ -46,6 +46,22 @@ export interface PrepareOptions {
   /** Add the isolation outlines (asked for by the 'isolation' layer or by a tool override). */
   isolation?: boolean;
 }
+
+/** What `stripwright build` asks of the shop check (its options; none changes the design's own sizing but junctions). */
+export interface CheckRequest {
+  /** Junction choice overriding the design's own: sized as the design with that choice (its own revision). */
+  junctions?: JunctionChoice;
+  /** Phase tolerance of matched paths, degrees (default: each phase group's own, else the paths' default). */
+  toleranceDeg?: number;
+  /** Path loss budget, dB (default: the shop check's). */
+  lossLimitDb?: number;
+  /** These paths (meant to match in phase) instead of the design's phase groups: a port and ports, labels or ids. */
+  from?: string;
+  to?: readonly string[];
+}
+
+/** The shop check of one request: the sized design it ran on, its paths and its findings. */
+export interface Checked { sized: SizedDesign; paths: PathReport[]; findings: Finding[] }
 
 export interface Prepared { geometry: ExportGeometry; warnings: Warning[]; /** Isolation width used, m, if any. */ isolationWidth?: number }
 
@@ -116,6 +132,25 @@ export class DesignPipeline {
   buildable(doc: DesignDoc): void {
     const errors = this.findings(doc).filter((f) => f.severity === 'error');
     if (errors.length) throw refuse(errors[0]!.subjects[0] ?? 'design', 'a board the shop check passes (as `stripwright build` does)', errors.map((f) => `${f.message} (${f.fix})`), 'fix the findings named; `stripwright build` lists them all');
+  }
+
+  /**
+   * The shop check as `stripwright build` reports it, from the same stages as export: a design with sizing problems
+   * gets them as its findings (no copper, no paths); otherwise the board (refused as export refuses it: an unfinished
+   * network or pieces not placed), the paths with their sensitivities and the fabrication findings.
+   */
+  check(doc: DesignDoc, req: CheckRequest = {}): Checked {
+    const d = req.junctions !== undefined && req.junctions !== (doc.junctions ?? 'modelled') ? { ...doc, junctions: req.junctions } : doc;
+    const sized = this.sized(d);
+    if (sized.problems.length) return { sized, paths: [], findings: problemFindings(sized) };
+    const board = this.board(d);
+    const key = designHash([req.toleranceDeg ?? null, req.lossLimitDb ?? null, req.from ?? null, req.to ?? null]);
+    return this.memo.get('checked', `${this.revision(d)}|${key}`, () => {
+      const popts = { sensitivities: true, ...(req.toleranceDeg !== undefined ? { toleranceDeg: req.toleranceDeg } : {}) };
+      const paths = req.from !== undefined && req.to ? [tracePaths(sized, req.from, [...req.to], popts)] : designPaths(sized, popts);
+      const findings = checkFabrication(sized, board, { paths, ...(req.lossLimitDb !== undefined ? { lossLimitDb: req.lossLimitDb } : {}) });
+      return { sized, paths, findings };
+    });
   }
 
   /** Board geometry with the etch bias and, when asked, the isolation outlines of the process's cut. */

@@ -8,8 +8,9 @@
 import { describe, expect, it, vi } from 'vitest';
 import { render, screen, waitFor } from '@testing-library/svelte';
 import { editorOn } from './harness.ts';
-import { Compute } from '../../renderer/src/state/compute.svelte.ts';
-import { layoutJob } from '../../renderer/src/worker/jobs.ts';
+import { COARSE_POINTS, Compute } from '../../renderer/src/state/compute.svelte.ts';
+import { layoutJob, responseJob } from '../../renderer/src/worker/jobs.ts';
+import { designSweepSettings } from '../../core/index.ts';
 import ResponsePanel from '../../renderer/src/components/ResponsePanel.svelte';
 
 vi.mock('uplot', () => ({ default: class { destroy() {} } }));
@@ -88,4 +89,31 @@ describe('targets in the app are judged as `stripwright build` judges them', () 
       expect(app.targets!.results.map((t) => [t.id, t.pass, t.worst.value, t.worst.freq]), ex.id).toEqual(build.results.map((t) => [t.id, t.pass, t.worst.value, t.worst.freq]));
     }
   });
+describe('response: a coarse pass first, then the full sweep', () => {
+  it('shows a 21-point response before the full sweep at the design settings replaces it', async () => {
+    const ed = editorOn('wilkinson-2g45');
+    const compute = new Compute(ed, null);
+    const shown: { points: number; coarse: boolean }[] = [];
+    const set = Object.getOwnPropertyDescriptor(Object.getPrototypeOf(compute), 'response')!.set!;
+    Object.defineProperty(compute, 'response', {
+      configurable: true,
+      get: () => Object.getOwnPropertyDescriptor(Object.getPrototypeOf(compute), 'response')!.get!.call(compute),
+      set: (v) => { set.call(compute, v); if (v) shown.push({ points: v.settings.points, coarse: compute.responseCoarse }); },
+    });
+    const full = designSweepSettings(ed.doc);
+    expect(full.points).toBeGreaterThan(COARSE_POINTS);
+    await compute.sweep();
+    expect(shown).toEqual([{ points: COARSE_POINTS, coarse: true }, { points: full.points, coarse: false }]);
+    expect(compute.response!.settings.points).toBe(full.points);
+    expect(compute.responseCoarse).toBe(false);
+    // The coarse pass spans the same band: its first and last frequencies are the full sweep's.
+    const coarse = await responseJob({ doc: ed.doc, settings: { ...full, points: COARSE_POINTS } }, () => {});
+    expect(coarse.freqs[0]).toBe(compute.response!.freqs[0]);
+    expect(coarse.freqs.at(-1)).toBe(compute.response!.freqs.at(-1));
+    // A sweep asked at the coarse size or below has no separate first pass.
+    shown.length = 0;
+    await compute.sweep({ settings: { ...full, points: 11 } });
+    expect(shown.map((s) => s.points)).toEqual([11]);
+    compute.destroy();
+  }, 120_000);
 });

@@ -104,3 +104,30 @@ describe('the isolation width comes from the process', () => {
     expect(exportDesign(p, doc, { formats: ['svg'], base: 'w', version: 't', layers: ['copper', 'isolation'], tool: 0.2e-3 }).files[0]!.text).toContain('isolation-path');
   });
 });
+
+describe('DesignPipeline.check (what `stripwright build` reports)', () => {
+  it('shares the sizing and board with export, and sizes a --junctions override as its own revision', () => {
+    const p = new DesignPipeline();
+    const doc = load('branchline-10g4.json');
+    const own = p.check(doc);
+    expect(p.count('sized')).toBe(1);
+    expect(p.count('board')).toBe(1);
+    // The same findings export's gate reads: build and export judge one board.
+    expect(own.findings.map((f) => f.code)).toEqual(p.findings(doc).map((f) => f.code));
+    p.check(doc);
+    expect(p.count('checked')).toBe(1);
+    expect(p.count('sized')).toBe(1);
+    const ideal = p.check(doc, { junctions: 'ideal' });
+    expect(ideal.sized.junctions).toBe('ideal');
+    expect(own.sized.junctions).toBe('modelled');
+    expect(p.count('sized')).toBe(2);
+    // Ideal junctions join at the centre: the shunt arm's span differs from the modelled one (tee reference planes).
+    const span = (c: typeof own) => c.sized.pieces.find((x) => x.id === 'shunt1')!.span;
+    expect(span(ideal)).not.toBeCloseTo(span(own), 6);
+    // Paths carry their sensitivities (build prints them), and a tolerance is a separate request of the same board.
+    expect(own.paths.length).toBeGreaterThan(0);
+    p.check(doc, { toleranceDeg: 2 });
+    expect(p.count('checked')).toBe(3);
+    expect(p.count('board')).toBe(2);
+  });
+});

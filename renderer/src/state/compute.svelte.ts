@@ -8,12 +8,16 @@ import type { CompareOutput } from '../worker/measured-job.ts';
 import { ComputeClient, type Progress } from '../worker/client.ts';
 import type { JobKind } from '../worker/protocol.ts';
 import { runJob } from '../worker/jobs.ts';
+import { designSweepSettings } from '../../../core/index.ts';
 import type { EditorState } from './editor.svelte.ts';
 import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
 import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput, YieldOutput } from '../worker/jobs.ts';
 import type { SectionOutput } from '../worker/section-job.ts';
 import type { SectionSpec } from '../../../core/index.ts';
 import type { OverlayTrace } from './response-view.ts';
+
+/** Points of the quick first pass of a response (enough for the shape of a band; the full sweep follows). */
+export const COARSE_POINTS = 21;
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -26,6 +30,8 @@ export class Compute {
   /** The revision the shown response was swept from, and whether the last sweep was cancelled. */
   responseRevision = $state<number | null>(null);
   responseCancelled = $state(false);
+  /** The shown response is the quick first pass (COARSE_POINTS) while the full sweep still runs. */
+  responseCoarse = $state(false);
   /** Extra traces other parts of the app draw on the response plots (state/response-view.ts). */
   overlays = $state.raw<OverlayTrace[]>([]);
   private sweepStop: AbortController | null = null;
@@ -76,10 +82,21 @@ export class Compute {
     this.responseCancelled = false;
     this.responseProgress = { done: 0, total: 1, label: 'starting' };
     const revision = this.editor.revision;
-    const out = await this.client.run<ResponseOutput>('response', { ...input, doc: this.editor.doc }, (p) => { if (this.sweepStop === stop) this.responseProgress = p; }, stop.signal);
+    const doc = this.editor.doc;
+    const settings = input.settings ?? designSweepSettings(doc);
+    const onProgress = (p: Progress) => { if (this.sweepStop === stop) this.responseProgress = p; };
+    // A coarse pass first, so the plots follow an edit at once; the full sweep replaces it when it is done.
+    if (settings.points > COARSE_POINTS) {
+      const coarse = await this.client.run<ResponseOutput>('response', { ...input, doc, settings: { ...settings, points: COARSE_POINTS } }, onProgress, stop.signal);
+      if (this.sweepStop !== stop) return;
+      if (coarse.ok) { this.responseCoarse = true; this.response = coarse.value; this.responseRevision = revision; }
+      // A failed coarse pass says nothing the full sweep will not say again: go on to it.
+    }
+    const out = await this.client.run<ResponseOutput>('response', { ...input, doc, settings }, onProgress, stop.signal);
     if (this.sweepStop !== stop) return; // a newer sweep took over
     this.sweepStop = null;
     this.responseProgress = null;
+    this.responseCoarse = false;
     if (out.ok) { this.response = out.value; this.responseRevision = revision; }
     else if ('error' in out) {
       if (out.error.field === 'cancelled') this.responseCancelled = true;
