@@ -15,6 +15,7 @@ import { sizeDesign } from '../../core/layout/sizing.ts';
 import { designPaths, tracePaths, type PathReport } from '../../core/layout/paths.ts';
 import type { Finding } from '../../core/layout/checks.ts';
 import { checkBoard } from '../../core/layout/board.ts';
+import { proximityLimitFrom } from '../../core/index.ts';
 import type { JunctionInfo, SizedDesign } from '../../core/layout/types.ts';
 import type { JunctionChoice } from '../../core/design/types.ts';
 import { netlistFromSized } from '../../core/network/fromSized.ts';
@@ -34,6 +35,7 @@ Options:
   --json              print one JSON object instead of tables
   --tolerance DEG     phase tolerance for matched paths, e.g. 5 or 5deg (default: each phase group's own, else 5°)
   --loss-limit DB     loss budget per path, e.g. 1 or 1dB (default 1 dB)
+  --proximity-limit L runs closer than this get a coupling estimate: 2.5h (substrate heights) or 1mm (default 3h; 0 = off)
   --from PORT --to PORT[,PORT…]
                       report these paths (meant to match in phase) instead of the design's phase groups;
                       a port is named by its label or its id
@@ -200,7 +202,7 @@ export const buildCommand: CliCommand = {
   async run(argv: string[], io: CliIo): Promise<number> {
     const { values, positionals } = parseArgs({
       args: argv, allowPositionals: true, strict: true,
-      options: { json: { type: 'boolean' }, junctions: { type: 'string' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' } },
+      options: { json: { type: 'boolean' }, junctions: { type: 'string' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' }, 'proximity-limit': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' } },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to build' : `give one design FILE, got ${positionals.length}`);
     const tolerance = degreesOption('tolerance', values.tolerance, { min: 0, max: 180, minExclusive: true });
@@ -226,7 +228,8 @@ export const buildCommand: CliCommand = {
       const popts = tolerance !== undefined ? { toleranceDeg: tolerance } : {};
       // Sizing problems first (as the app does): with any, they are the findings, and no copper or paths are built.
       const paths = sized.problems.length ? [] : values.from !== undefined && toList ? [tracePaths(sized, values.from, toList, popts)] : designPaths(sized, popts);
-      const { findings } = checkBoard(sized, { paths, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
+      const near = values['proximity-limit'] === undefined ? {} : { proximityLimit: proximityLimitFrom(values['proximity-limit'], parsed.doc.substrate.h, '--proximity-limit') };
+      const { findings } = checkBoard(sized, { paths, ...near, ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}) });
       const rep = buildReport(sized, paths, findings);
       rep.warnings.unshift(...parsed.warnings);
       // Targets need the network; a layout with problems has none (its errors are in the findings already).
