@@ -6,7 +6,7 @@
  */
 import { parseArgs } from 'node:util';
 import { resolve } from 'node:path';
-import { InputError, parseDesign, namer, initPolygons, DesignPipeline, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText } from '../../core/index.ts';
+import { InputError, parseDesign, namer, initPolygons, DesignPipeline, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText, proximityLimitFrom } from '../../core/index.ts';
 import type { Warning, PathReport, Finding, JunctionInfo, SizedDesign, JunctionChoice, TargetEvaluation } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
@@ -22,6 +22,7 @@ Options:
   --json              print one JSON object instead of tables
   --tolerance DEG     phase tolerance for matched paths, e.g. 5 or 5deg (default: each phase group's own, else 5°)
   --loss-limit DB     loss budget per path, e.g. 1 or 1dB (default 1 dB)
+  --proximity-limit L runs closer than this get a coupling estimate: 2.5h (substrate heights) or 1mm (default 3h; 0 = off)
   --from PORT --to PORT[,PORT…]
                       report these paths (meant to match in phase) instead of the design's phase groups;
                       a port is named by its label or its id
@@ -191,7 +192,7 @@ export const buildCommand: CliCommand = {
   async run(argv: string[], io: CliIo): Promise<number> {
     const { values, positionals } = parseArgs({
       args: argv, allowPositionals: true, strict: true,
-      options: { json: { type: 'boolean' }, junctions: { type: 'string' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' } },
+      options: { json: { type: 'boolean' }, junctions: { type: 'string' }, tolerance: { type: 'string' }, 'loss-limit': { type: 'string' }, 'proximity-limit': { type: 'string' }, from: { type: 'string' }, to: { type: 'string' } },
     });
     if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'give the design FILE to build' : `give one design FILE, got ${positionals.length}`);
     const tolerance = degreesOption('tolerance', values.tolerance, { min: 0, max: 180, minExclusive: true });
@@ -214,8 +215,9 @@ export const buildCommand: CliCommand = {
     try {
       await initPolygons();
       // The core pipeline's stages, the same export uses: build and export cannot disagree on a design.
+      const near = values['proximity-limit'] === undefined ? {} : { proximityLimit: proximityLimitFrom(values['proximity-limit'], parsed.doc.substrate.h, '--proximity-limit') };
       const { sized, paths, findings } = pipeline.check(parsed.doc, {
-        ...(junctions ? { junctions } : {}), ...(tolerance !== undefined ? { toleranceDeg: tolerance } : {}),
+        ...(junctions ? { junctions } : {}), ...(tolerance !== undefined ? { toleranceDeg: tolerance } : {}), ...near,
         ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}), ...(values.from !== undefined && toList ? { from: values.from, to: toList } : {}),
       });
       const rep = buildReport(sized, paths, findings);

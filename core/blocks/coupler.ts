@@ -12,6 +12,11 @@ import type { DesignDoc, DesignNode, DesignSegment } from '../design/types.ts';
 import { newDesign } from '../design/defaults.ts';
 import { modesForCoupling, synthesizeCoupled } from '../line/index.ts';
 import { InputError, describe } from '../util/errors.ts';
+import { sizeDesign } from '../layout/sizing.ts';
+import { netlistFromSized } from '../network/fromSized.ts';
+import { solveNetwork } from '../network/sweep.ts';
+import { magnitudeDb } from '../network/figures.ts';
+import { portIndex } from '../network/response.ts';
 import { drawAsPlaced, requireCuttableGap, type BlockBase } from './common.ts';
 
 export interface CouplerOptions extends BlockBase {
@@ -61,5 +66,18 @@ export function couplerBlock(opts: CouplerOptions): DesignDoc {
     'Microstrip\'s even and odd modes travel at different speeds, so the isolation (directivity) is finite; the response shows it.',
   ].join('\n');
   drawAsPlaced(doc);
+  const fig = couplerFiguresAtF0(doc);
+  if (fig) doc.notes += `\nSwept at f0 with losses (the core's own sizing and solver): coupling ${fig.couplingDb.toFixed(2)} dB, isolation ${fig.isolationDb.toFixed(2)} dB, directivity ${fig.directivityDb.toFixed(2)} dB. Not compensated: the unequal mode speeds set the directivity (no end capacitors or wiggled edges are added).`;
   return doc;
+}
+
+/** Coupling, isolation and directivity (dB, positive) of a coupler design at its f0, with losses, from the core's own sweep. */
+export function couplerFiguresAtF0(doc: DesignDoc): { couplingDb: number; isolationDb: number; directivityDb: number } | undefined {
+  const sized = sizeDesign(doc);
+  if (sized.problems.length) return undefined;
+  const r = solveNetwork(netlistFromSized(sized), [doc.frequency.f0]);
+  const p = (name: string) => portIndex(r, name);
+  const couplingDb = -magnitudeDb(r, p('coupled'), p('in'))[0]!;
+  const isolationDb = -magnitudeDb(r, p('isolated'), p('in'))[0]!;
+  return { couplingDb, isolationDb, directivityDb: isolationDb - couplingDb };
 }

@@ -21,6 +21,8 @@ export { processCut } from './process-cut.ts';
 export type { ProcessCut } from './process-cut.ts';
 export { checkFabrication, problemFindings, cutWidth, referenceGroundShiftPct, untoolableCopper, DEFAULT_LOSS_LIMIT_DB } from './checks.ts';
 export type { Finding, FindingCode, CheckOptions } from './checks.ts';
+export { proximityHits, proximityLimitFrom, DEFAULT_PROXIMITY_LIMIT_H } from './proximity.ts';
+export type { ProximityHit } from './proximity.ts';
 export { placeDesign } from './place.ts';
 export type { PlacedDesign } from './place.ts';
 export { asMadeTemplate, asMadeLineOptions } from './as-made.ts';

@@ -12,7 +12,8 @@
  */
 import type { Vec2 } from '../geometry/types.ts';
 import { analyzeCoupled, COUPLED_G_MIN } from '../line/index.ts';
-import { InputError } from '../util/errors.ts';
+import { InputError, describe } from '../util/errors.ts';
+import { parseQuantity } from '../units/quantity.ts';
 import type { SizedDesign, SizedPiece } from './types.ts';
 
 export interface ProximityHit {
@@ -88,4 +89,20 @@ function sideBySide(p0: Vec2, p1: Vec2, q0: Vec2, q1: Vec2): { distance: number;
   const tm = (lo + hi) / 2;
   const side = (qm.x - p0.x) * -uy + (qm.y - p0.y) * ux;
   return { distance, overlap: hi - lo, mid: { x: p0.x + ux * tm - uy * side / 2, y: p0.y + uy * tm + ux * side / 2 } };
+}
+
+/** The default proximity limit: three substrate heights (common practice, see the module comment). */
+export const DEFAULT_PROXIMITY_LIMIT_H = 3;
+
+/**
+ * The user's proximity limit, as typed in any face, to metres: a multiple of the substrate height ("2.5h") or a
+ * length with its unit ("1mm", "40mil"); "0" switches the check off. One parser for the app and the CLI.
+ */
+export function proximityLimitFrom(text: string, h: number, field = 'proximityLimit'): number {
+  const expected = 'a multiple of the substrate height such as 3h, or a length such as 1mm (0 switches the check off)';
+  const m = /^\s*([+]?(?:\d+(?:\.\d*)?|\.\d+))\s*h\s*$/i.exec(typeof text === 'string' ? text : '');
+  const limit = m ? Number(m[1]) * h : parseQuantity(text, 'length', field);
+  if (!(Number.isFinite(limit) && limit >= 0)) throw new InputError('out-of-range', field, expected, describe(text));
+  if (limit > 50 * h) throw new InputError('out-of-range', field, `${expected}, at most 50h (${(50 * h * 1e3).toFixed(1)} mm here)`, describe(text), 'beyond a few heights runs barely couple; use a smaller limit');
+  return limit;
 }

@@ -58,6 +58,8 @@ export interface CheckRequest {
   /** These paths (meant to match in phase) instead of the design's phase groups: a port and ports, labels or ids. */
   from?: string;
   to?: readonly string[];
+  /** Runs of different paths closer than this are checked for coupling, m (default 3 h; 0 turns the check off). */
+  proximityLimit?: number;
 }
 
 /** The shop check of one request: the sized design it ran on, its paths and its findings. */
@@ -144,11 +146,13 @@ export class DesignPipeline {
     const sized = this.sized(d);
     if (sized.problems.length) return { sized, paths: [], findings: problemFindings(sized) };
     const board = this.board(d);
-    const key = designHash([req.toleranceDeg ?? null, req.lossLimitDb ?? null, req.from ?? null, req.to ?? null]);
+    const key = designHash([req.toleranceDeg ?? null, req.lossLimitDb ?? null, req.from ?? null, req.to ?? null, req.proximityLimit ?? null]);
     return this.memo.get('checked', `${this.revision(d)}|${key}`, () => {
       const popts = { sensitivities: true, ...(req.toleranceDeg !== undefined ? { toleranceDeg: req.toleranceDeg } : {}) };
       const paths = req.from !== undefined && req.to ? [tracePaths(sized, req.from, [...req.to], popts)] : designPaths(sized, popts);
-      const findings = checkFabrication(sized, board, { paths, ...(req.lossLimitDb !== undefined ? { lossLimitDb: req.lossLimitDb } : {}) });
+      const findings = checkFabrication(sized, board, {
+        paths, ...(req.lossLimitDb !== undefined ? { lossLimitDb: req.lossLimitDb } : {}), ...(req.proximityLimit !== undefined ? { proximityLimit: req.proximityLimit } : {}),
+      });
       return { sized, paths, findings };
     });
   }

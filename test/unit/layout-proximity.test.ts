@@ -63,3 +63,26 @@ describe('proximity findings', () => {
     }
   });
 });
+
+describe('the user\'s proximity limit (one parser for app and CLI)', () => {
+  it('reads heights and lengths, refuses nonsense in the user\'s words', async () => {
+    const { proximityLimitFrom, InputError } = await import('../../core/index.ts');
+    expect(proximityLimitFrom('2.5h', 1.6e-3)).toBeCloseTo(4e-3, 12);
+    expect(proximityLimitFrom('1mm', 1.6e-3)).toBeCloseTo(1e-3, 12);
+    expect(proximityLimitFrom('0', 1.6e-3)).toBe(0);
+    expect(() => proximityLimitFrom('-1h', 1.6e-3)).toThrow(InputError);
+    expect(() => proximityLimitFrom('3 furlongs', 1.6e-3)).toThrow(InputError);
+    expect(() => proximityLimitFrom('100h', 1.6e-3)).toThrow(/at most 50h/);
+  });
+  it('a gap of 0.8 mm is flagged with the default 3h (4.8 mm) and with 1h, not with 0.3h or 0', async () => {
+    const { proximityLimitFrom } = await import('../../core/index.ts');
+    const sized = sizeDesign(twoRuns(0.8e-3));
+    const count = (text?: string) => checkFabrication(sized, buildBoardGeometry(sized), text === undefined ? {} : { proximityLimit: proximityLimitFrom(text, SUB.h) })
+      .filter((x) => x.code === 'proximity').length;
+    expect(count()).toBe(1);
+    expect(count('1h')).toBe(1);
+    expect(count('0.3h')).toBe(0);
+    expect(count('0.5mm')).toBe(0);
+    expect(count('0')).toBe(0);
+  });
+});
