@@ -24,7 +24,7 @@ import { setTargets, setTolerances } from './commands-targets.ts';
 import { gestureCommands } from './gestures.ts';
 import { applyEqualize, applyTune } from './commands-network.ts';
 import { setSweep } from './commands-sweep.ts';
-import { setMeasured } from './measured.ts';
+import { setMeasured } from './commands-measured.ts';
 
 export interface DesignCommand {
   /** Stable id, e.g. 'node.move'; menus, shortcuts and scripts refer to it. */

@@ -8,8 +8,6 @@
  */
 import * as v from 'valibot';
 import { DESIGN_LIMITS as L } from './limits.ts';
-import { checkWith, type Args } from './command-args.ts';
-import type { DesignDoc } from './types.ts';
 
 export interface MeasuredFile {
   id: string;
@@ -35,12 +33,3 @@ export const measuredFileSchema = v.looseObject({
 }, 'a measured file {id, name, touchstone, ports}');
 
 export const measuredListSchema = v.pipe(v.array(measuredFileSchema, 'a list of measured files'), v.maxLength(MAX_MEASURED, `at most ${MAX_MEASURED} measured files`));
-
-/** Replaces the design's measured files as a whole list (load, remove, port-map edits); one undo step. */
-export const setMeasured = {
-  id: 'design.setMeasured', label: 'Change measured data',
-  run(doc: DesignDoc, a: Args): DesignDoc {
-    const measured = checkWith(measuredListSchema, a.measured, 'args.measured') as MeasuredFile[];
-    return { ...doc, measured };
-  },
-};
