@@ -89,6 +89,8 @@ describe('targets in the app are judged as `stripwright build` judges them', () 
       expect(app.targets!.results.map((t) => [t.id, t.pass, t.worst.value, t.worst.freq]), ex.id).toEqual(build.results.map((t) => [t.id, t.pass, t.worst.value, t.worst.freq]));
     }
   });
+});
+
 describe('response: a coarse pass first, then the full sweep', () => {
   it('shows a 21-point response before the full sweep at the design settings replaces it', async () => {
     const ed = editorOn('wilkinson-2g45');

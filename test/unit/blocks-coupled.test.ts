@@ -50,7 +50,7 @@ describe('coupler block', () => {
         // Microstrip's unequal mode speeds limit the directivity; it is finite and positive (reported in the README).
         expect(directivity).toBeGreaterThan(3);
         // The block reports the same directivity in its notes (to the 0.01 dB it prints).
-        const noted = Number(/directivity (-?\d+\.\d\d) dB/.exec(doc.notes)![1]);
+        const noted = Number(/directivity (-?\d+\.\d\d) dB/.exec(doc.notes ?? '')![1]);
         expect(Math.abs(noted - directivity)).toBeLessThan(0.006);
         expect(-magnitudeDb(r, p('in'), p('in'))[0]!).toBeGreaterThan(15);
       });
