@@ -9,8 +9,7 @@
  * paces frames at its own rate, so this is context, not the figure of merit).
  *   npm run bench -- frame        (builds the renderer first)
  */
-import { chromium } from 'playwright-core';
-import { execSync, spawn } from 'node:child_process';
+import { median, pct, withBuiltApp } from './built-app.ts';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -20,28 +19,12 @@ import { serializeDesign } from '../core/design/index.ts';
 const OUTPUTS = 64;
 const MOVES = 120;
 
-function median(xs: number[]): number { const s = [...xs].sort((a, b) => a - b); return s.length ? s[Math.floor(s.length / 2)]! : NaN; }
-function pct(xs: number[], p: number): number { const s = [...xs].sort((a, b) => a - b); return s[Math.min(s.length - 1, Math.floor(s.length * p))]!; }
-
 export async function run(): Promise<void> {
-  execSync('npx vite build', { stdio: 'ignore' });
-  const port = 4500 + Math.floor(Math.random() * 400);
-  const server = spawn(process.execPath, ['--import', 'tsx', 'scripts/serve.ts', '--port', String(port)], { stdio: 'ignore' });
-  const exe = process.env.CHROMIUM_PATH ?? execSync('command -v chromium', { shell: '/bin/sh' }).toString().trim();
-  const browser = await chromium.launch({ executablePath: exe, args: ['--no-sandbox', '--disable-gpu', '--no-first-run'] });
-  try {
-    // Wait for the server to answer (tsx start-up takes a moment on a busy machine).
-    for (let i = 0; i < 100; i++) {
-      const up = await fetch(`http://127.0.0.1:${port}/`).then((r) => r.ok, () => false);
-      if (up) break;
-      await new Promise((r) => setTimeout(r, 200));
-    }
+  await withBuiltApp(async (page) => {
     // A pitch that keeps the 64-output row inside the 1 m board limit (sizing refuses larger boards).
     const doc = corporateFeed({ outputs: OUTPUTS, pitch: 12e-3 });
     const file = join(mkdtempSync(join(tmpdir(), 'sw-bench-')), 'feed64.json');
     writeFileSync(file, serializeDesign(doc));
-    const page = await browser.newPage({ viewport: { width: 1366, height: 768 } });
-    await page.goto(`http://127.0.0.1:${port}/`);
     await page.getByTestId('menu-file').click();
     const chooser = page.waitForEvent('filechooser');
     await page.getByTestId('menu-file.open').click();
@@ -100,8 +83,5 @@ export async function run(): Promise<void> {
     console.log(`drag of bend ${vertex}, ${MOVES} moves: main-thread work per frame median ${median(work).toFixed(2)} ms, p90 ${pct(work, 0.9).toFixed(2)} ms, max ${Math.max(...work).toFixed(2)} ms (target < 16 ms)`);
     console.log(`worker (off the main thread): ${workerMs} for one revision (sizing, per-piece copper, paths)`);
     console.log(`animation-frame interval during a real-input drag: median ${median(frames).toFixed(2)} ms, p90 ${pct(frames, 0.9).toFixed(2)} ms over ${frames.length} frames`);
-  } finally {
-    await browser.close();
-    server.kill();
-  }
+  });
 }

@@ -8,27 +8,12 @@
  * canvas drawing, plus a forced style/layout. Printing figures, never a pass/fail test.
  *   npm run bench -- marker        (builds the renderer first)
  */
-import { chromium } from 'playwright-core';
-import { execSync, spawn } from 'node:child_process';
+import { median, pct, withBuiltApp } from './built-app.ts';
 
 const MOVES = 120;
-function median(xs: number[]): number { const s = [...xs].sort((a, b) => a - b); return s.length ? s[Math.floor(s.length / 2)]! : NaN; }
-function pct(xs: number[], p: number): number { const s = [...xs].sort((a, b) => a - b); return s[Math.min(s.length - 1, Math.floor(s.length * p))]!; }
 
 export async function run(): Promise<void> {
-  execSync('npx vite build', { stdio: 'ignore' });
-  const port = 4500 + Math.floor(Math.random() * 400);
-  const server = spawn(process.execPath, ['--import', 'tsx', 'scripts/serve.ts', '--port', String(port)], { stdio: 'ignore' });
-  const exe = process.env.CHROMIUM_PATH ?? execSync('command -v chromium', { shell: '/bin/sh' }).toString().trim();
-  const browser = await chromium.launch({ executablePath: exe, args: ['--no-sandbox', '--disable-gpu', '--no-first-run'] });
-  try {
-    for (let i = 0; i < 100; i++) {
-      const up = await fetch(`http://127.0.0.1:${port}/`).then((r) => r.ok, () => false);
-      if (up) break;
-      await new Promise((r) => setTimeout(r, 200));
-    }
-    const page = await browser.newPage({ viewport: { width: 1366, height: 768 } });
-    await page.goto(`http://127.0.0.1:${port}/`);
+  await withBuiltApp(async (page) => {
     await page.getByTestId('dock-response').click();
     await page.getByTestId('sweep-settings').click();
     await page.getByTestId('sweep-start').fill('5.5');
@@ -64,8 +49,5 @@ export async function run(): Promise<void> {
     })(${MOVES})`)) as number[];
     console.log(`design: demo four-way feed; ${points}; ${traces} traces in the legend`);
     console.log(`marker drag, ${MOVES} moves: main-thread work per move median ${median(work).toFixed(2)} ms, p90 ${pct(work, 0.9).toFixed(2)} ms, max ${Math.max(...work).toFixed(2)} ms (target < 16.7 ms, one 60 Hz frame)`);
-  } finally {
-    await browser.close();
-    server.kill();
-  }
+  });
 }

@@ -18,6 +18,7 @@
 import type { Vec2 } from '../geometry/types.ts';
 import type { BendStyle, JunctionChoice, SmdSize, ViaSpec } from '../design/types.ts';
 import type { Warning } from '../util/warnings.ts';
+import type { GuidedWave } from '../line/coupled-types.ts';
 import type { MiterCut } from '../discontinuity/douvilleJames1978Miter.ts';
 import type { TeeArm, TeeJunction } from '../discontinuity/hammerstad1981TeeJunction.ts';
 import type { StepModel } from '../discontinuity/gargBahl1978Step.ts';
@@ -63,14 +64,7 @@ export interface JunctionInfo {
 }
 
 /** Line figures at f0 (from the line model, core/line). */
-export interface LineFigures {
-  z0: number;
-  z0Static: number;
-  epsEff: number;
-  epsEffStatic: number;
-  /** Phase constant at f0, rad/m. */
-  beta: number;
-  lambdaG: number;
+export interface LineFigures extends GuidedWave {
   /** Total attenuation at f0, dB/m. */
   lossDbPerM: number;
   delayPerM: number;

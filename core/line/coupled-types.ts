@@ -10,18 +10,26 @@ export interface CoupledOptions {
   dispersion?: CoupledDispersion;
 }
 
-/** One propagation mode of the pair (even: both strips at the same potential; odd: opposite). */
-export interface CoupledMode {
-  /** Characteristic impedance of one strip in this mode at f, Ω (the dispersion model keeps it static). */
+/**
+ * What every guided quasi-TEM wave has, whatever carries it (a single strip, one mode of a pair, a solved section):
+ * its impedance and effective permittivity at f and static, its phase constant and guided wavelength. SI units. The
+ * line layer's mode figures, the coupled modes and the sized pieces' figures all extend it.
+ */
+export interface GuidedWave {
+  /** Characteristic impedance at f, and quasi-static, Ω. */
   z0: number;
   z0Static: number;
-  /** Effective permittivity at f, and static. */
+  /** Effective permittivity at f, and quasi-static. */
   epsEff: number;
   epsEffStatic: number;
   /** Phase constant at f, rad/m (0 at f = 0). */
   beta: number;
   /** Guided wavelength at f, m (0 at f = 0). */
   lambdaG: number;
+}
+
+/** One propagation mode of the pair (even: both strips at the same potential; odd: opposite); its z0 is one strip's (the dispersion model keeps it static). */
+export interface CoupledMode extends GuidedWave {
   /** Phase velocity, m/s. */
   vp: number;
   /** Conductor and dielectric attenuation, Np/m (roughness and the DC blend included). */

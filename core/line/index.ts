@@ -21,7 +21,7 @@ export { U_MIN, U_MAX, F_MIN, F_MAX } from './inputs.ts';
 export { SUBSTRATE_PRESETS, findPreset, validateSubstrate } from '../substrate/index.ts';
 export type { SubstratePreset } from '../substrate/index.ts';
 // Coupled microstrip pairs (issue 17).
-export type { CoupledOptions, CoupledResult, CoupledMode, CoupledTarget, CoupledDispersion } from './coupled-types.ts';
+export type { CoupledOptions, CoupledResult, CoupledMode, GuidedWave, CoupledTarget, CoupledDispersion } from './coupled-types.ts';
 export { COUPLED_DISPERSIONS } from './coupled-types.ts';
 export { analyzeCoupled, couplingFromModes, modesForCoupling, coupledInto, coupledNumbers, COUPLED_G_MIN, COUPLED_U_MIN } from './coupled.ts';
 export { synthesizeCoupled, couplingAtGap, targetModes, coupledLine } from './coupled-synthesis.ts';

@@ -19,21 +19,11 @@ import { InputError, describe } from '../util/errors.ts';
 import type { Warning } from '../util/warnings.ts';
 import { analyzeLine, analyzeLines } from './analyze.ts';
 import { analyzeCoupled } from './coupled.ts';
-import type { CoupledOptions } from './coupled-types.ts';
+import type { CoupledOptions, GuidedWave } from './coupled-types.ts';
 import type { LineColumns, LineOptions, LineResult } from './types.ts';
 
 /** One mode's figures at one frequency. SI units. */
-export interface ModeFigures {
-  /** Characteristic impedance at f, and quasi-static, Ω. */
-  z0: number;
-  z0Static: number;
-  /** Effective permittivity at f, and quasi-static. */
-  epsEff: number;
-  epsEffStatic: number;
-  /** Phase constant, rad/m (0 at f = 0). */
-  beta: number;
-  /** Guided wavelength, m (0 at f = 0). */
-  lambdaG: number;
+export interface ModeFigures extends GuidedWave {
   /** Phase delay, s/m. */
   delayPerM: number;
   /** Conductor and dielectric attenuation, Np/m. */
