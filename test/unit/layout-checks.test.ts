@@ -143,7 +143,8 @@ describe('loss budget', () => {
     if (!r.ok) throw new Error('bad example');
     const loss = run(r.doc, { lossLimitDb: 0.1 }).find((x) => x.code === 'loss-budget')!;
     // The demo is drawn symmetric about x = 0 (its notes), so the four paths lose the same.
-    expect(loss.message).toMatch(/^4 paths from in \(to out1, out2, out3, out4\) each lose [\d.]+ dB/);
+    // Named by their labels, as every face names ports (core/design/names.ts).
+    expect(loss.message).toMatch(/^4 paths from input \(to patch 1, patch 2, patch 3, patch 4\) each lose [\d.]+ dB/);
     for (const id of ['up1', 'up2', 'up3', 'up4', 'br1', 'br2', 'br3', 'br4', 'feed']) expect(loss.subjects, id).toContain(id);
   });
 });
