@@ -69,7 +69,11 @@ describe('sweeps superseded and cancelled', () => {
     compute.cancelSweep();
     await done;
     expect(compute.responseCancelled).toBe(true);
-    expect(compute.response!.settings.points).toBe(11);
+    // The cancelled sweep's 21-point first pass had finished (it runs before the full sweep looks at the signal), so
+    // it is the last finished response of this design and stays; it is no longer shown as a first pass.
+    expect(compute.response!.settings.points).toBe(COARSE_POINTS);
+    expect(compute.responseCoarse).toBe(false);
+    expect(compute.response!.settings.start).toBe(1e9);
     compute.destroy();
   });
 });

@@ -11,12 +11,12 @@ import { designSweepSettings, sweepFrequencies, bandSweep, responseCacheKey } fr
 import { InputError } from '../../core/util/errors.ts';
 
 const ROOT = join(import.meta.dirname, '..', '..');
-const v6 = readFileSync(join(ROOT, 'test', 'fixtures', 'design', 'v6', 'open-stub-no-sweep.json'), 'utf8');
+const v8 = readFileSync(join(ROOT, 'test', 'fixtures', 'design', 'v8', 'open-stub-no-sweep.json'), 'utf8');
 const wilk = () => { const r = parseDesign(readFileSync(join(ROOT, 'assets', 'examples', 'wilkinson-2g45.json'), 'utf8')); if (!r.ok) throw new Error('example'); return r.doc; };
 
 describe('sweep settings in the design file', () => {
-  it('a version 6 file opens without settings and is swept over its band widened to f0 at 201 points', () => {
-    const r = parseDesign(v6);
+  it('a version 8 file (before sweep settings) opens without settings and is swept over its band widened to f0 at 201 points', () => {
+    const r = parseDesign(v8);
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.doc.version).toBe(DESIGN_VERSION);
