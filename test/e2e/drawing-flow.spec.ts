@@ -158,7 +158,7 @@ test('6 · the loss finding names every path that loses alike, and marks each of
   await page.getByTestId('dock-findings').click();
   const finding = page.getByTestId('finding-loss-budget').first();
   await expect(finding).toBeVisible({ timeout: 30_000 });
-  await expect(finding).toContainText('4 paths from in (to out1, out2, out3, out4) each lose');
+  await expect(finding).toContainText('4 paths from input (to patch 1, patch 2, patch 3, patch 4) each lose');
   for (const id of ['up1', 'up2', 'up3', 'up4']) await expect(lineMark(page, id)).toHaveClass(/flagged/);
 });
 

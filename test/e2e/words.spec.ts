@@ -73,9 +73,9 @@ test('ports are named by their labels in the response chips, the path ledger and
   await expect(page.getByTestId('path-ledger')).toContainText('output 1');
   await expect(page.getByTestId('path-ledger')).not.toContainText(/\bo1\b/);
   await page.getByTestId('dock-response').click();
-  await expect(page.getByTestId('pick-S21')).toHaveText('S21 (output 1 ← input)', { timeout: 30_000 });
-  await expect(page.getByTestId('pick-S11')).toHaveText('S11 (input)');
-  await expect(page.getByTestId('f0-S21')).toHaveAttribute('title', 'S21 (output 1 ← input)');
+  await expect(page.getByTestId('pick-S21')).toHaveText('S21 input → output 1', { timeout: 30_000 });
+  await expect(page.getByTestId('pick-S11')).toHaveText('S11 at input');
+  await expect(page.getByTestId('f0-S21')).toHaveAttribute('title', /^input → output 1: /);
 });
 
 test('an example opens with its notes on show; the notes give the project\'s own figures', async ({ page }) => {

@@ -19,6 +19,9 @@ import type { OverlayTrace } from './response-view.ts';
 /** Points of the quick first pass of a response (enough for the shape of a band; the full sweep follows). */
 export const COARSE_POINTS = 21;
 
+/** What an export job answers when a newer one (the live preview, say) took its place in the worker. */
+export const EXPORT_SUPERSEDED = 'a newer export replaced this one';
+
 export class Compute {
   private readonly client: ComputeClient;
   private running = false;
@@ -119,7 +122,7 @@ export class Compute {
   async exportFiles(opts: Omit<ExportInput, 'doc'>): Promise<{ ok: true; value: ExportOutput } | { ok: false; error: string }> {
     const out = await this.client.run<ExportOutput>('export', { ...opts, doc: this.editor.doc });
     if (out.ok) return { ok: true, value: out.value };
-    return { ok: false, error: 'error' in out ? out.error.message : 'a newer export replaced this one' };
+    return { ok: false, error: 'error' in out ? out.error.message : EXPORT_SUPERSEDED };
   }
 
   /**
