@@ -19,9 +19,6 @@ import type { OverlayTrace } from './response-view.ts';
 /** Points of the quick first pass of a response (enough for the shape of a band; the full sweep follows). */
 export const COARSE_POINTS = 21;
 
-/** What an export job answers when a newer one (the live preview, say) took its place in the worker. */
-export const EXPORT_SUPERSEDED = 'a newer export replaced this one';
-
 export class Compute {
   private readonly client: ComputeClient;
   private running = false;
@@ -119,10 +116,12 @@ export class Compute {
   }
 
   /** Export preview and files of the current design (runs the polygon engine in the worker). */
-  async exportFiles(opts: Omit<ExportInput, 'doc'>): Promise<{ ok: true; value: ExportOutput } | { ok: false; error: string }> {
-    const out = await this.client.run<ExportOutput>('export', { ...opts, doc: this.editor.doc });
+  async exportFiles(opts: Omit<ExportInput, 'doc'>): Promise<{ ok: true; value: ExportOutput } | { ok: false; error: string } | { ok: false; superseded: true }> {
+    // Writes run in a lane of their own: a live preview started meanwhile supersedes only older previews.
+    const lane = opts.formats?.length || opts.extras?.length ? 'export:write' : 'export:preview';
+    const out = await this.client.run<ExportOutput>('export', { ...opts, doc: this.editor.doc }, undefined, undefined, lane);
     if (out.ok) return { ok: true, value: out.value };
-    return { ok: false, error: 'error' in out ? out.error.message : EXPORT_SUPERSEDED };
+    return 'error' in out ? { ok: false, error: out.error.message } : { ok: false, superseded: true };
   }
 
   /**

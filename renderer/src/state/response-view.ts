@@ -6,7 +6,6 @@
  * frequencies (no common grid is needed), listed in the legend and read at every marker like a swept trace.
  */
 import type { DesignDoc } from '../../../core/index.ts';
-import { nameOf } from '../../../core/index.ts';
 
 export type ResponseView = 'db' | 'phase' | 'delay';
 
@@ -28,7 +27,3 @@ export interface OverlayTrace {
   style: TraceStyle;
 }
 
-/** A port's name for people, the same as every face gives it (core nameOf: its label, else its node id). */
-export function portLabel(doc: Pick<DesignDoc, 'nodes'>, id: string): string {
-  return nameOf(doc, id);
-}

@@ -15,7 +15,8 @@ type Runner = (kind: JobKind, input: unknown, progress: (p: Progress) => void, s
 export class ComputeClient {
   private worker: Worker | null = null;
   private next = 1;
-  private latest = new Map<JobKind, number>();
+  /** The newest job id per lane (a lane is the job kind unless the caller names one). */
+  private latest = new Map<string, number>();
   private pending = new Map<number, { resolve: (o: JobOutcome<unknown>) => void; progress?: (p: Progress) => void }>();
 
   /**
@@ -36,15 +37,19 @@ export class ComputeClient {
 
   get threaded(): boolean { return this.worker !== null; }
 
-  run<T>(kind: JobKind, input: unknown, progress?: (p: Progress) => void, signal?: AbortSignal): Promise<JobOutcome<T>> {
+  /**
+   * Runs a job. A newer job in the same `lane` (by default its kind) makes an older one's result stale; callers with
+   * two independent streams of one kind (the Outputs preview and a write) give them lanes of their own.
+   */
+  run<T>(kind: JobKind, input: unknown, progress?: (p: Progress) => void, signal?: AbortSignal, lane: string = kind): Promise<JobOutcome<T>> {
     const id = this.next++;
     // A cancelled job stops at its next pause and answers with an AbortError.
     signal?.addEventListener('abort', () => { if (this.worker && this.pending.has(id)) this.worker.postMessage({ type: 'cancel', id }); }, { once: true });
-    this.latest.set(kind, id);
+    this.latest.set(lane, id);
     return new Promise<JobOutcome<T>>((resolve) => {
       const done = (o: JobOutcome<unknown>) => {
-        // A newer job of the same kind makes this one stale.
-        if (o.ok && this.latest.get(kind) !== id) resolve({ ok: false, superseded: true });
+        // A newer job in the same lane makes this one stale.
+        if (o.ok && this.latest.get(lane) !== id) resolve({ ok: false, superseded: true });
         else resolve(o as JobOutcome<T>);
       };
       if (this.worker) {

@@ -5,12 +5,11 @@
  */
 import type { DesignDoc } from '../../../core/index.ts';
 import type { BoardGeometry, DrillHit, Region } from '../../../core/index.ts';
-import { initPolygons } from '../../../core/index.ts';
+import { initPolygons, namer } from '../../../core/index.ts';
 import { pieceOutlines, problemFindings, type SizedDesign, type PathReport } from '../../../core/index.ts';
 import type { PieceOutline } from '../../../core/index.ts';
 import type { Finding } from '../../../core/index.ts';
 import { sweepNetwork, magnitudeDb, phaseDeg, groupDelay, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/index.ts';
-import { portLabel } from '../state/response-view.ts';
 import { InputError, errorWords, exhaustive } from '../../../core/index.ts';
 import { runYield, type YieldResult } from '../../../core/index.ts';
 import { EXPORT_FILE_NAMES, millingPreviewSvg } from '../../../core/index.ts';
@@ -206,7 +205,7 @@ export async function responseJob(input: ResponseInput, progress: (p: Progress) 
     try { targets = evaluateTargets(r, doc); } catch (err) { targetError = errorText(err); }
   }
   return {
-    freqs: [...r.freqs], ports: ids, labels: ids.map((id) => portLabel(doc, id)), zRef: r.ports.map((p) => p.zRef), input: inputPort,
+    freqs: [...r.freqs], ports: ids, labels: ids.map(namer(doc)), zRef: r.ports.map((p) => p.zRef), input: inputPort,
     settings, cached, traces, smith: sm,
     figures: figureTable(r, doc, inputPort), targets, targetError,
     warnings: [...meta.warnings, ...r.warnings.map((w) => w.message)],
