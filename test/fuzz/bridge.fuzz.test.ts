@@ -5,21 +5,11 @@
  * The figures are printed and written to reports/fuzz-bridge.json for the README's reliability section.
  */
 import { describe, expect, it } from 'vitest';
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { formatFigures, runSuite } from './io-watchdog.ts';
+import { runSuite } from './io-watchdog.ts';
+import { ioFuzzSuite } from './io-suite.ts';
 
 describe('fuzz: bridge', () => {
-  it('2500 bad inputs: no crash, no hang, nothing non-finite, our own words', async () => {
-    const f = await runSuite('bridge', 2500, 22022);
-    console.log(formatFigures(f));
-    mkdirSync(join(import.meta.dirname, '..', '..', 'reports'), { recursive: true });
-    writeFileSync(join(import.meta.dirname, '..', '..', 'reports', 'fuzz-bridge.json'), JSON.stringify(f, null, 2));
-    expect(f.inputs).toBe(2500);
-    expect(f.examples).toEqual([]);
-    expect({ crashes: f.crashes, hangs: f.hangs, nonFinite: f.nonFinite, libraryWording: f.libraryWording }).toEqual({ crashes: 0, hangs: 0, nonFinite: 0, libraryWording: 0 });
-    expect(f.refused).toBeGreaterThan(2500 / 4); // the inputs really are bad: most are refused
-  }, 300_000);
+  ioFuzzSuite('bridge', 2500, 22022);
   it('the watchdog itself: a runaway input is stopped and counted as a hang, a dead process as a crash, and the run goes on', async () => {
     const f = await runSuite('watchdog-self-test', 5, 0, 2_000);
     expect({ inputs: f.inputs, accepted: f.accepted, hangs: f.hangs, crashes: f.crashes }).toEqual({ inputs: 5, accepted: 3, hangs: 1, crashes: 1 });

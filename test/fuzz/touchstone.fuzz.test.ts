@@ -4,20 +4,9 @@
  * any crash, any input the watchdog had to stop, a non-finite (or null) result, or a message not in our own words.
  * The figures are printed and written to reports/fuzz-touchstone.json for the README's reliability section.
  */
-import { describe, expect, it } from 'vitest';
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { formatFigures, runSuite } from './io-watchdog.ts';
+import { describe } from 'vitest';
+import { ioFuzzSuite } from './io-suite.ts';
 
 describe('fuzz: touchstone', () => {
-  it('3000 bad inputs: no crash, no hang, nothing non-finite, our own words', async () => {
-    const f = await runSuite('touchstone', 3000, 20261205);
-    console.log(formatFigures(f));
-    mkdirSync(join(import.meta.dirname, '..', '..', 'reports'), { recursive: true });
-    writeFileSync(join(import.meta.dirname, '..', '..', 'reports', 'fuzz-touchstone.json'), JSON.stringify(f, null, 2));
-    expect(f.inputs).toBe(3000);
-    expect(f.examples).toEqual([]);
-    expect({ crashes: f.crashes, hangs: f.hangs, nonFinite: f.nonFinite, libraryWording: f.libraryWording }).toEqual({ crashes: 0, hangs: 0, nonFinite: 0, libraryWording: 0 });
-    expect(f.refused).toBeGreaterThan(3000 / 4); // the inputs really are bad: most are refused
-  }, 300_000);
+  ioFuzzSuite('touchstone', 3000, 20261205);
 });
