@@ -7,7 +7,8 @@
  * - on the Measured tab, with a file loaded, every label is readable: its text contrast against the background it
  *   is painted on is at least 4.5:1, the WCAG 2.1 minimum for normal text (W3C, Web Content Accessibility Guidelines
  *   2.1, success criterion 1.4.3), with the contrast ratio and relative luminance as WCAG 2.1 defines them; the
- *   measured traces are dashed and their legend says "measured".
+ *   measured traces are dashed, their legend says "measured" and which traces coincide, and the plots are at least
+ *   240 px tall.
  */
 import { readmeShot } from './readme-shots.ts';
 import { expect, test, type Locator, type Page } from '@playwright/test';
@@ -108,13 +109,20 @@ for (const theme of THEMES) {
     await page.getByTestId('measured-load').click();
     await (await chooser).setFiles(FILE);
     await expect(page.getByTestId('compare-table')).toBeVisible({ timeout: 30_000 });
-    const legend = page.getByTestId('measured-overlay').locator('.u-legend');
-    await expect(legend).toContainText('S21 measured');
-    await expect(legend).toContainText('S21 simulated');
-    // The measured swatches are dashed, the simulated ones solid.
-    const swatch = (name: string) => legend.locator('.u-series', { hasText: name }).first().locator('.u-marker');
-    expect(await swatch('S21 measured').evaluate((e) => getComputedStyle(e).borderTopStyle)).toBe('dashed');
-    expect(await swatch('S21 simulated').evaluate((e) => getComputedStyle(e).borderTopStyle)).toBe('solid');
+    // One legend for both plots names each S-parameter's ports by label, with a solid simulated and a dashed
+    // measured swatch (the same pattern the plot strokes with).
+    await expect(page.getByTestId('measured-legend-S21')).toContainText('input → patch 1');
+    await expect(page.getByTestId('legend-S21 measured')).toContainText('measured');
+    await expect(page.getByTestId('legend-S21 simulated')).toContainText('simulated');
+    expect(await page.getByTestId('legend-S21 measured').locator('line').getAttribute('stroke-dasharray')).toMatch(/^\d+ \d+$/);
+    expect(await page.getByTestId('legend-S21 simulated').locator('line').getAttribute('stroke-dasharray')).toBe('');
+    // The fixture's outputs 2 to 4 are all 0.9× the design (test/fixtures/measured/README.md), so their measured traces
+    // lie on one another, and the legend says so.
+    await expect(page.getByTestId('legend-S51 measured')).toContainText(/= S\d1 measured/);
+    // Every legend entry is inside the panel, not cut off below it.
+    const panel = await box(page.getByTestId('measured-panel'));
+    for (const e of await page.getByTestId('measured-legend').locator('.lg').all()) expectInside(await box(e), panel, `legend ${await e.textContent()}`);
+    expect((await box(page.getByTestId('measured-overlay'))).height).toBeGreaterThanOrEqual(240);
     // Port map and table name the design's ports by their labels.
     await expect(page.getByTestId('port-map-1').locator('option:checked')).toHaveText('input');
     await expect(page.getByTestId('compare-row-S21')).toContainText('patch 1←input');
