@@ -71,7 +71,8 @@ async function textContrasts(root: Locator): Promise<{ text: string; fg: string;
       if (!own) continue;
       const r = e.getBoundingClientRect(), cs = getComputedStyle(e);
       if (r.width === 0 || r.height === 0 || cs.visibility === 'hidden' || cs.display === 'none') continue;
-      const bg = background(e), fg = over(parse(cs.color), bg);
+      // SVG text (the Smith chart's circle labels) is painted with its fill, HTML text with its colour.
+      const bg = background(e), fg = over(parse(e instanceof SVGElement ? cs.fill : cs.color), bg);
       const a = lum(fg), b = lum(bg);
       out.push({ text: own.slice(0, 40), fg: cs.color, bg: `rgb(${bg.slice(0, 3).map(Math.round).join(', ')})`, ratio: (Math.max(a, b) + 0.05) / (Math.min(a, b) + 0.05) });
     }
@@ -99,6 +100,11 @@ for (const theme of THEMES) {
     await expect(page.getByTestId('legend-S51')).toContainText('input → patch 4');
     await expect(page.getByTestId('pick-S11')).toContainText('at input');
     await expect(page.getByTestId('same-S31')).toContainText('S21');
+    // The panel's words are readable in this theme too (WCAG 2.1 contrast, as for the measured tab below).
+    const words = await textContrasts(page.getByTestId('response-panel'));
+    expect(words.length).toBeGreaterThan(20);
+    const low = words.filter((c) => c.ratio < 4.5);
+    expect(low, `text below 4.5:1 in the ${theme} theme`).toEqual([]);
     await readmeShot(page, `response-${theme}.png`);
   });
 
@@ -126,7 +132,9 @@ for (const theme of THEMES) {
     // Port map and table name the design's ports by their labels.
     await expect(page.getByTestId('port-map-1').locator('option:checked')).toHaveText('input');
     await expect(page.getByTestId('compare-row-S21')).toContainText('patch 1←input');
-    const low = (await textContrasts(page.getByTestId('measured-panel'))).filter((c) => c.ratio < 4.5);
+    const words = await textContrasts(page.getByTestId('measured-panel'));
+    expect(words.length).toBeGreaterThan(20);
+    const low = words.filter((c) => c.ratio < 4.5);
     expect(low, `text below 4.5:1 in the ${theme} theme`).toEqual([]);
     await readmeShot(page, `measured-${theme}.png`);
   });
