@@ -8,7 +8,7 @@
  * report from Outputs and read the report back with poppler's pdftotext and pdfinfo (Debian poppler-utils); and the
  * report as one command from the command finder, page for page and word for word what `stripwright report` writes.
  */
-import { readmeShot } from './readme-shots.ts';
+import { readmeShot, readmeShotPath } from './readme-shots.ts';
 import { expect, test } from '@playwright/test';
 import { spawnSync } from 'node:child_process';
 import { copyFileSync, mkdtempSync, readFileSync } from 'node:fs';
@@ -147,4 +147,7 @@ test('the design report is one command: the command finder writes the PDF at onc
   expect(app).toContain('Design report: Four-way patch row feed');
   for (const h of ['Pieces (at f0)', 'Path ledger', 'Shop check', 'Models used', 'Not modelled', 'Cautions']) expect(app).toContain(h);
   expect(app).toBe(ref);
+  // The first page, rendered by poppler's pdftoppm, for the README.
+  const shot = spawnSync('pdftoppm', ['-png', '-r', '60', '-f', '1', '-l', '1', '-singlefile', file, readmeShotPath('report-page1.png').replace(/\.png$/, '')], { encoding: 'utf8' });
+  expect(shot.status, shot.stderr).toBe(0);
 });

@@ -105,7 +105,7 @@ for (const theme of THEMES) {
     expect(words.length).toBeGreaterThan(20);
     const low = words.filter((c) => c.ratio < 4.5);
     expect(low, `text below 4.5:1 in the ${theme} theme`).toEqual([]);
-    await readmeShot(page, `response-${theme}.png`);
+    await readmeShot(page, `response-demo-${theme}.png`);
   });
 
   test(`measured tab at 1366×768, ${theme}: readable labels, dashed measured traces named "measured"`, async ({ page }) => {
