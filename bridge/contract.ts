@@ -156,7 +156,7 @@ export const ipcName = (c: Channel): string => `stripwright:${c}`;
  * item and a keyboard shortcut run one command.
  */
 export const MENU_COMMANDS = [
-  'file.new', 'file.open', 'file.save', 'file.save-as', 'file.export', 'file.recover',
+  'file.new', 'file.open', 'file.save', 'file.save-as', 'file.export', 'file.report', 'file.recover',
   'edit.undo', 'edit.redo', 'edit.delete', 'edit.select-all',
   'view.zoom-in', 'view.zoom-out', 'view.zoom-fit',
 ] as const;

@@ -44,6 +44,7 @@ export function menuTemplate(a: MenuActions, recent: RecentFile[], platform: str
         cmd('&Save', 'file.save', 'CmdOrCtrl+S'),
         cmd('Save &As…', 'file.save-as', 'CmdOrCtrl+Shift+S'),
         cmd('&Export…', 'file.export', 'CmdOrCtrl+E'),
+        cmd('Design Re&port (PDF)…', 'file.report'),
         { type: 'separator' },
         cmd('Restore Unsaved Work…', 'file.recover'),
         { label: 'Show Recovery Folder', click: () => a.showRecoveryFolder() },

@@ -5,9 +5,10 @@
  * test/fixtures/measured is 0.9× in the transmissions from the input, 0.7× to patch 2: 20·log10 0.9 = −0.915 dB,
  * 20·log10 0.7 = −3.098 dB), undo and redo a map
  * change with the keys, then write the Touchstone file (what `stripwright sweep --out` writes) and the design
- * report from Outputs and read the report back with poppler's pdftotext and pdfinfo (Debian poppler-utils).
+ * report from Outputs and read the report back with poppler's pdftotext and pdfinfo (Debian poppler-utils); and the
+ * report as one command from the command finder, page for page and word for word what `stripwright report` writes.
  */
-import { readmeShot } from './readme-shots.ts';
+import { readmeShot, readmeShotPath } from './readme-shots.ts';
 import { expect, test } from '@playwright/test';
 import { spawnSync } from 'node:child_process';
 import { copyFileSync, mkdtempSync, readFileSync } from 'node:fs';
@@ -114,4 +115,39 @@ test('write the Touchstone file and the design report from Outputs', async ({ pa
   expect(text).toContain('Design report: Four-way patch row feed');
   for (const h of ['Pieces (at f0)', 'Path ledger', 'Shop check', 'Models used', 'Not modelled', 'Cautions']) expect(text).toContain(h);
   expect(text).toContain('Ω');
+});
+
+test('the design report is one command: the command finder writes the PDF at once, as `stripwright report` does', async ({ page }) => {
+  test.setTimeout(180_000); // the CLI run from source for the comparison takes a while on a busy machine
+  const dir = mkdtempSync(join(tmpdir(), 'sw-e2e-report-cmd-'));
+  await page.goto('/');
+  await page.locator('[data-piece]').first().waitFor();
+  await page.getByTestId('dock-paths').click();
+  // Ctrl+K, a few letters, Enter: the file comes as a download (a save dialog on the desktop), no panel opens.
+  const download = page.waitForEvent('download');
+  await page.keyboard.press('Control+k');
+  await page.keyboard.type('design report');
+  await page.keyboard.press('Enter');
+  const pdf = await download;
+  expect(pdf.suggestedFilename()).toMatch(/-report\.pdf$/);
+  await expect(page.getByTestId('outputs-panel')).toHaveCount(0);
+  await expect(page.getByText(/Wrote .*-report\.pdf/)).toBeVisible();
+  const file = join(dir, pdf.suggestedFilename());
+  await pdf.saveAs(file);
+
+  // The CLI on the same design (the demo the app opened): the same pages and the same words, read back with
+  // poppler's pdfinfo and pdftotext (Debian poppler-utils).
+  const cli = spawnSync(process.execPath, ['--import', 'tsx', join(ROOT, 'cli', 'main.ts'), 'report', join(ROOT, 'assets', 'examples', 'demo.json'), '--out', join(dir, 'cli.pdf')], { cwd: ROOT, encoding: 'utf8' });
+  expect(cli.status, cli.stderr).toBe(0);
+  const pages = (f: string) => Number(/Pages:\s+(\d+)/.exec(spawnSync('pdfinfo', [f], { encoding: 'utf8' }).stdout)?.[1]);
+  expect(pages(file)).toBeGreaterThanOrEqual(2);
+  expect(pages(file)).toBe(pages(join(dir, 'cli.pdf')));
+  const text = (f: string) => spawnSync('pdftotext', ['-layout', f, '-'], { encoding: 'utf8' }).stdout;
+  const app = text(file), ref = text(join(dir, 'cli.pdf'));
+  expect(app).toContain('Design report: Four-way patch row feed');
+  for (const h of ['Pieces (at f0)', 'Path ledger', 'Shop check', 'Models used', 'Not modelled', 'Cautions']) expect(app).toContain(h);
+  expect(app).toBe(ref);
+  // The first page, rendered by poppler's pdftoppm, for the README.
+  const shot = spawnSync('pdftoppm', ['-png', '-r', '60', '-f', '1', '-l', '1', '-singlefile', file, readmeShotPath('report-page1.png').replace(/\.png$/, '')], { encoding: 'utf8' });
+  expect(shot.status, shot.stderr).toBe(0);
 });

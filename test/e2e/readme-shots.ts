@@ -15,3 +15,10 @@ export async function readmeShot(page: Page, name: string): Promise<void> {
   mkdirSync(dir, { recursive: true });
   await page.screenshot({ path: join(dir, name) });
 }
+
+/** Where a README picture made by other means (a report page rendered by poppler) goes, by the same rule. */
+export function readmeShotPath(name: string): string {
+  const dir = folder();
+  mkdirSync(dir, { recursive: true });
+  return join(dir, name);
+}

@@ -18,6 +18,8 @@ export interface ShellHooks {
   openBlock?(kind: 'coupler' | 'bandpass'): void;
   /** Opens the block picker on a kind of the registry (or a placed block's spec, with its id). */
   pickBlock?(kind: string, editId?: string): void;
+  /** Writes the design report (PDF) at once through the platform (state/report.ts); without it, Outputs opens. */
+  writeReport?(): void;
 }
 
 export function appCommands(ed: EditorState, files: FileActions, shell: ShellHooks): AppCommand[] {
@@ -54,7 +56,7 @@ export function appCommands(ed: EditorState, files: FileActions, shell: ShellHoo
     { id: 'view.findings', group: 'Board', label: 'Show the shop check', keys: ['Alt+2'], run: () => shell.showDock('findings') },
     { id: 'view.response', group: 'Board', label: 'Show the response', keys: ['Alt+3'], run: () => shell.showDock('response') },
     { id: 'view.measured', group: 'Board', label: 'Measured data beside the simulation (Touchstone overlay)', run: () => shell.showDock('measured') },
-    { id: 'file.report', group: 'File', label: 'Design report (PDF): choose it in Outputs and export', run: () => shell.showDock('outputs') },
+    { id: 'file.report', group: 'File', label: 'Write the design report (PDF)…', run: () => (shell.writeReport ? shell.writeReport() : shell.showDock('outputs')) },
     { id: 'board.coupon', group: 'Board', label: 'Add a laminate coupon to the board', run: () => { const r = ed.addCoupon(); if (typeof r === 'string') shell.tell('Laminate coupon', r); } },
     { id: 'view.notes', group: 'Board', label: 'Show the design\'s notes (what it is for, targets, scenario)', run: () => shell.showDock('notes') },
     { id: 'view.laminate', group: 'Board', label: 'Laminate from a coupon: open its tab', run: () => shell.showDock('laminate') },
