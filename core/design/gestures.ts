@@ -15,13 +15,14 @@ import type { Vec2 } from '../geometry/types.ts';
 import { segmentEnds, type DesignDoc, type DesignSegment, type SmdSize, type WidthSpec } from './types.ts';
 import { DESIGN_LIMITS } from './limits.ts';
 import { DEGREE } from './crossref.ts';
-import { argId, argVec, findNode, findSegment, type Args } from './command-args.ts';
+import { argId, argVec, findNode, findSegment, type Args, type DesignCommand } from './command-args.ts';
 import { smdFootprint } from './footprints.ts';
 
 /** What a gesture needs from the registry: run a basic command (commands.ts passes its own runner). */
 export type RunBasic = (doc: DesignDoc, id: string, args: Args) => DesignDoc;
 
-export interface GestureCommand { id: string; label: string; run(doc: DesignDoc, args: Args): DesignDoc }
+/** A gesture is a design command like any other. */
+export type GestureCommand = DesignCommand;
 
 /** Default reach of a stub drawn on the board before sizing gives it its length, m (the drawing only gives its direction). */
 export const STUB_REACH = 5e-3;
