@@ -43,4 +43,8 @@ export const TOUCHSTONE_INPUT: TextFileKind = {
 export const CSV_INPUT: TextFileKind = {
   noun: 'a batch CSV file', content: 'CSV text with a header row', plain: 'plain CSV text', maxBytes: 20 * MIB,
 };
+/** A command list for `edit` (design commands as JSON data). */
+export const COMMANDS_INPUT: TextFileKind = {
+  noun: 'a command list', content: 'the JSON text of design commands', plain: 'plain JSON text', maxBytes: 20 * MIB,
+};
 export { DESIGN_TEXT };

@@ -10,6 +10,7 @@ import { blockCommand } from './block.ts';
 import { equalizeCommand } from './equalize.ts';
 import { tuneCommand } from './tune.ts';
 import { reportCommand } from './report.ts';
+import { editCommand } from './edit.ts';
 
 /** Every command of the CLI. Add a new command file and list it here. */
-export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand, sectionCommand, couponCommand, blockCommand, equalizeCommand, tuneCommand, reportCommand];
+export const COMMANDS: CliCommand[] = [lineCommand, exportCommand, buildCommand, sweepCommand, yieldCommand, sectionCommand, couponCommand, blockCommand, equalizeCommand, tuneCommand, reportCommand, editCommand];

@@ -13,6 +13,15 @@ import { idSchema, nodeSchema, segmentSchema, vec2Schema } from './schema.ts';
 
 export type Args = Record<string, unknown>;
 
+/** A design command: data in (`args`), a new design out; every command file's entries have this one shape. */
+export interface DesignCommand {
+  /** Stable id, e.g. 'node.move'; menus, shortcuts and scripts refer to it. */
+  id: string;
+  /** Short label for menus and the undo list. */
+  label: string;
+  run(doc: DesignDoc, args: Args): DesignDoc;
+}
+
 /** The fields a record's spec may hold: those of every variant of the record's schema, less the ones all records of
  * the kind share (ids, ends, position, label). Derived from the one schema, so a new field needs no second list. */
 function specKeys(schema: { options: readonly { entries: Record<string, unknown> }[] }, shared: readonly string[]): ReadonlySet<string> {

@@ -9,10 +9,10 @@ import { InputError } from '../util/errors.ts';
 import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target } from './types.ts';
 import { nodeSchema, segmentSchema, phaseGroupSchema, placedBlockSchema } from './schema.ts';
 import { targetsSchema } from './targets-schema.ts';
-import { checkWith, type Args } from './command-args.ts';
+import { checkWith, type Args, type DesignCommand } from './command-args.ts';
 import { crossCheck } from './crossref.ts';
 
-interface Command { id: string; label: string; run(doc: DesignDoc, args: Args): DesignDoc }
+type Command = DesignCommand;
 
 function settled(id: string, doc: DesignDoc): DesignDoc {
   const e = crossCheck(doc).errors[0];

@@ -8,11 +8,11 @@ import * as v from 'valibot';
 import { InputError } from '../util/errors.ts';
 import type { DesignDoc, DesignNode, DesignSegment } from './types.ts';
 import { nodeSchema, segmentSchema } from './schema.ts';
-import { checkWith, type Args } from './command-args.ts';
+import { checkWith, type Args, type DesignCommand } from './command-args.ts';
 import { crossCheck } from './crossref.ts';
 import { DESIGN_LIMITS } from './limits.ts';
 
-interface Command { id: string; label: string; run(doc: DesignDoc, args: Args): DesignDoc }
+type Command = DesignCommand;
 
 function settled(id: string, doc: DesignDoc): DesignDoc {
   if (doc.nodes.length > DESIGN_LIMITS.nodes) throw new InputError('out-of-range', 'args.nodes', `at most ${DESIGN_LIMITS.nodes} nodes`, String(doc.nodes.length));

@@ -5,9 +5,9 @@
  */
 import type { DesignDoc } from './types.ts';
 import { sweepSpecSchema, type SweepSpec } from './sweep-settings.ts';
-import { checkWith, type Args } from './command-args.ts';
+import { checkWith, type Args, type DesignCommand } from './command-args.ts';
 
-interface Command { id: string; label: string; run(doc: DesignDoc, args: Args): DesignDoc }
+type Command = DesignCommand;
 
 export const setSweep: Command = {
   id: 'design.setSweep', label: 'Change sweep settings',

@@ -6,10 +6,10 @@
 import { InputError } from '../util/errors.ts';
 import type { DesignDoc, Target, Tolerance } from './types.ts';
 import { targetsSchema, tolerancesSchema } from './targets-schema.ts';
-import { checkWith, type Args } from './command-args.ts';
+import { checkWith, type Args, type DesignCommand } from './command-args.ts';
 import { crossCheck } from './crossref.ts';
 
-interface Command { id: string; label: string; run(doc: DesignDoc, args: Args): DesignDoc }
+type Command = DesignCommand;
 
 function settled(id: string, doc: DesignDoc): DesignDoc {
   const e = crossCheck(doc).errors[0];

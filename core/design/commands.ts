@@ -17,7 +17,7 @@ import { asMadeSchema, areaSchema, frequencySchema, junctionChoiceSchema, nodeSc
 import { DESIGN_LIMITS } from './limits.ts';
 import { crossCheck, DEGREE } from './crossref.ts';
 import {
-  allIds, NODE_SPEC_KEYS, SEGMENT_SPEC_KEYS, argId, argIds, argNumber, argString, argVec, argsObject, checkWith, findNode, findSegment, freshId, snapVec, wrapAngle, type Args,
+  allIds, NODE_SPEC_KEYS, SEGMENT_SPEC_KEYS, argId, argIds, argNumber, argString, argVec, argsObject, checkWith, findNode, findSegment, freshId, snapVec, wrapAngle, type Args, type DesignCommand,
 } from './command-args.ts';
 import { pasteClipboard } from './clipboard.ts';
 import { setTargets, setTolerances } from './commands-targets.ts';
@@ -26,13 +26,7 @@ import { applyEqualize, applyTune } from './commands-network.ts';
 import { setSweep } from './commands-sweep.ts';
 import { setMeasured } from './commands-measured.ts';
 
-export interface DesignCommand {
-  /** Stable id, e.g. 'node.move'; menus, shortcuts and scripts refer to it. */
-  id: string;
-  /** Short label for menus and the undo list. */
-  label: string;
-  run(doc: DesignDoc, args: Args): DesignDoc;
-}
+export type { DesignCommand } from './command-args.ts';
 
 /** Kind-specific defaults when a node is placed or changes kind. 50 Ω is the usual reference (common practice). */
 export function defaultNodeSpec(kind: DesignNode['kind']): NodeSpec {

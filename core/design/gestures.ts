@@ -15,13 +15,15 @@ import type { Vec2 } from '../geometry/types.ts';
 import { segmentEnds, type DesignDoc, type DesignSegment, type SmdSize, type WidthSpec } from './types.ts';
 import { DESIGN_LIMITS } from './limits.ts';
 import { DEGREE } from './crossref.ts';
-import { argId, argVec, findNode, findSegment, type Args } from './command-args.ts';
+import { argId, argVec, checkWith, findNode, findSegment, type Args, type DesignCommand } from './command-args.ts';
+import { vec2Schema } from './schema.ts';
 import { smdFootprint } from './footprints.ts';
 
 /** What a gesture needs from the registry: run a basic command (commands.ts passes its own runner). */
 export type RunBasic = (doc: DesignDoc, id: string, args: Args) => DesignDoc;
 
-export interface GestureCommand { id: string; label: string; run(doc: DesignDoc, args: Args): DesignDoc }
+/** A gesture is a design command like any other. */
+export type GestureCommand = DesignCommand;
 
 /** Default reach of a stub drawn on the board before sizing gives it its length, m (the drawing only gives its direction). */
 export const STUB_REACH = 5e-3;
@@ -45,7 +47,8 @@ function argPoints(a: Args, key: string): Vec2[] {
   if (!Array.isArray(pts) || pts.length === 0 || pts.length > DESIGN_LIMITS.polygonPoints) {
     throw new InputError('invalid-design', `args.${key}`, `a list of 1 to ${DESIGN_LIMITS.polygonPoints} points {x, y} in metres`, describe(pts));
   }
-  return pts.map((_, i) => argVec(pts as unknown as Args, String(i))).map((p) => p);
+  // Each point named by its place in the list (args.points[2].x), as the user wrote it.
+  return pts.map((p, i) => { const v = checkWith(vec2Schema, p, `args.${key}[${i}]`); return { x: v.x, y: v.y }; });
 }
 
 /** The width a new line leaving `node` takes: the width of a line already there, else 50 Ω. */

@@ -17,6 +17,7 @@ export { snap as snapToGrid } from './command-args.ts';
 export { copySelection, pasteClipboard, CLIPBOARD_FORMAT, type ClipboardContent } from './clipboard.ts';
 export { diffDesigns, applyDiff, invertDiff, isEmptyDiff, jsonEqual, type DesignDiff, type RecordChanges } from './diff.ts';
 export { History, type HistoryOptions, type HistoryStep } from './history.ts';
+export { applyCommandList, parseCommandList, readCommandList, summarizeChanges, MAX_COMMANDS, type CommandEntry, type BatchResult, type ChangeSummary } from './command-list.ts';
 export { namer, nameOf, nodeByName, portNamesText, sParameterName } from './names.ts';
 export { targetSchema, targetsSchema } from './targets-schema.ts';
 export { withBlock, type BlockRecords } from './commands-blocks.ts';

@@ -7,17 +7,14 @@
  * whose ports were renamed still opens with its data.
  */
 import * as v from 'valibot';
+import type { Out } from './infer.ts';
 import { DESIGN_LIMITS as L } from './limits.ts';
 
-export interface MeasuredFile {
-  id: string;
-  /** The file's name when it was loaded, e.g. 'board-3.s5p'. */
-  name: string;
-  /** The whole Touchstone text (1.x or 2.0). */
-  touchstone: string;
-  /** Design port node id at each port of the file, in file order; '' = not connected. */
-  ports: string[];
-}
+/**
+ * One measured file: `id`, `name` (the file's name when it was loaded, e.g. 'board-3.s5p'), `touchstone` (the whole
+ * text, 1.x or 2.0) and `ports` (the design port node id at each port of the file, in file order; '' = not connected).
+ */
+export type MeasuredFile = Out<typeof measuredFileSchema>;
 
 /** At most this many measured files per design (each up to DESIGN_LIMITS.touchstone characters). */
 export const MAX_MEASURED = 8;

@@ -4,19 +4,13 @@
  * SI units: Hz. The schema lives here too so the format change stays in one place.
  */
 import * as v from 'valibot';
-
-export interface SweepSpec {
-  /** Hz, 1 MHz … 300 GHz. */
-  start: number;
-  /** Hz, above start. */
-  stop: number;
-  /** Number of frequencies, 2 … 100 001. */
-  points: number;
-  spacing: 'linear' | 'log';
-}
+import type { Out } from './infer.ts';
 
 /** The most points a design may ask for (the network sweep's own limit). */
 export const SWEEP_MAX_POINTS = 100_001;
+
+/** `start` and `stop` in Hz (1 MHz … 300 GHz, stop above start), `points` 2 … 100 001, `spacing` linear or log. */
+export type SweepSpec = Out<typeof sweepSpecSchema>;
 
 const FREQ = 'a frequency in hertz from 1 MHz to 300 GHz (2.45 GHz is 2450000000)';
 const freq = v.pipe(v.number(FREQ), v.finite(FREQ), v.minValue(1e6, FREQ), v.maxValue(300e9, FREQ));

@@ -3,7 +3,11 @@
  * from the drawing. One target schema serves the response panel's pass/fail, `build`, tuning goals and the yield
  * masks, so a requirement is written once. SI units: Hz for bands, dB and degrees for limits (the unit each figure
  * is read in), metres for lengths; εr and tanδ have no unit; part tolerances are fractions (0.01 = 1 %).
+ * The figure and quantity lists live here (the schemas' picklists read them); the record types are inferred from
+ * the schemas in targets-schema.ts.
  */
+import type { Out } from './infer.ts';
+import type { targetSchema, toleranceSchema } from './targets-schema.ts';
 
 /**
  * What a target measures over its band (power-wave S-parameters, dB = 20·log10|S|):
@@ -31,22 +35,15 @@ export const FIGURE_PORTS: Readonly<Record<TargetFigure, number>> = {
   'amplitude-balance': 0, 'phase-balance': 0, 'phase-spread': 0,
 };
 
-/** A limit: the figure must stay at or above `min` and at or below `max` (either or both) at every point of the band. */
-export interface TargetLimit { min?: number; max?: number }
+/**
+ * A requirement on the response: `id`, an optional short `name` for lists and plots, the `figure`, `ports` (port
+ * node ids, as FIGURE_PORTS says; absent for group figures) or `group` (a phase group's id, group figures only),
+ * `band` in Hz (start = stop asks for one frequency) and `limit`.
+ */
+export type Target = Out<typeof targetSchema>;
 
-export interface Target {
-  id: string;
-  /** A short name for lists and plots. */
-  name?: string;
-  figure: TargetFigure;
-  /** Port node ids, as FIGURE_PORTS says (absent for group figures). */
-  ports?: string[];
-  /** A phase group's id (group figures only). */
-  group?: string;
-  /** Hz; start = stop asks for one frequency. */
-  band: { start: number; stop: number };
-  limit: TargetLimit;
-}
+/** A limit: the figure must stay at or above `min` and at or below `max` (either or both) at every point of the band. */
+export type TargetLimit = Target['limit'];
 
 /**
  * What may vary between the drawing and a made board:
@@ -67,15 +64,12 @@ export const TOLERANCE_QUANTITIES: readonly ToleranceQuantity[] = [
   'er', 'h', 'tanDelta', 't', 'etch-bias', 'tool-width', 'mill-depth', 'width', 'resistor', 'capacitor', 'inductor',
 ];
 
-export interface Tolerance {
-  quantity: ToleranceQuantity;
-  /** 'normal': δ ~ N(0, spread²); 'uniform': δ uniform in [−spread, +spread]. */
-  distribution: 'normal' | 'uniform';
-  /** σ (normal) or the half-width (uniform), in the quantity's unit (m, none, or a fraction for parts). */
-  spread: number;
-  /** 'board': one draw shared by the whole board; 'piece': an independent draw for every piece (or part). */
-  scope: 'board' | 'piece';
-}
+/**
+ * One tolerance: its `quantity`; `distribution` 'normal' (δ ~ N(0, spread²)) or 'uniform' (δ uniform in
+ * [−spread, +spread]); `spread`, σ or the half-width in the quantity's unit (m, none, or a fraction for parts);
+ * `scope` 'board' (one draw shared by the whole board) or 'piece' (an independent draw for every piece or part).
+ */
+export type Tolerance = Out<typeof toleranceSchema>;
 
 /** Words for each quantity, for tables and messages. */
 export const TOLERANCE_WORDS: Readonly<Record<ToleranceQuantity, { name: string; unit: 'm' | '' | 'fraction' }>> = {

@@ -9,15 +9,11 @@
  * `short` node. The drawn positions give directions and, for `drawn` lengths, the length; sizing replaces the
  * drawn length wherever the spec fixes it, and the layout places pieces from the anchor port outward.
  */
-import type * as v from 'valibot';
 import type { SubstrateSpec } from '../substrate/types.ts';
-import type { Target, Tolerance } from './targets.ts';
-import type { Vec2 } from '../geometry/types.ts';
-import type { SweepSpec } from './sweep-settings.ts';
-import type { MeasuredFile } from './measured.ts';
+import type { OmitEach, Out } from './infer.ts';
 import type {
   areaSchema, asMadeSchema, bendSchema, designSchema, junctionChoiceSchema, lengthSchema, nodeSchema, phaseGroupSchema,
-  processSchema, segmentSchema, viaSchema, widthSchema,
+  placedBlockSchema, processSchema, segmentSchema, viaSchema, widthSchema,
 } from './schema.ts';
 
 export type { SubstrateSpec };
@@ -27,17 +23,8 @@ export type { MeasuredFile } from './measured.ts';
 
 export const DESIGN_FORMAT = 'stripwright-design';
 
-/**
- * The record types are inferred from the one schema (schema.ts) with valibot's InferOutput, so the file format, its
- * checks and these types cannot drift apart. `Known` drops the index signature the loose objects add (unknown fields
- * are kept at run time, but code names only the fields it knows).
- */
-type Known<T> = T extends readonly (infer U)[] ? Known<U>[]
-  : T extends object ? { [K in keyof T as string extends K ? never : number extends K ? never : K]: Known<T[K]> }
-  : T;
-/** Omit over each member of a union (a plain Omit would merge the kinds). */
-type OmitEach<T, K extends PropertyKey> = T extends unknown ? Omit<T, K> : never;
-type Out<S extends v.GenericSchema> = Known<v.InferOutput<S>>;
+// The record types are inferred from the one schema (schema.ts) through infer.ts (`Out`: valibot's InferOutput less
+// the loose objects' index signature), so the file format, its checks and these types cannot drift apart.
 
 /** How the board is made; drives the fabrication checks and export offsets. */
 export type FabProcess = Out<typeof processSchema>;
@@ -99,41 +86,25 @@ export type PhaseGroup = Out<typeof phaseGroupSchema>;
  */
 export type JunctionChoice = Out<typeof junctionChoiceSchema>;
 
-/** A value of a block parameter as stored: SI numbers, choices, lists, a complex impedance or text. */
-export type BlockParamValue = number | string | boolean | number[] | { re: number; im: number };
-
 /**
  * A block placed from a spec (format 8, core/blocks): its kind, the checked spec, where its first port was placed,
  * the ids of the records it made (`members`) and a fingerprint of each as made (`made`), so hand edits inside it
  * can be listed before it is re-generated.
  */
-export interface PlacedBlock {
-  id: string;
-  kind: string;
-  spec: Record<string, BlockParamValue>;
-  at: Vec2;
-  members: string[];
-  made: Record<string, string>;
-}
+export type PlacedBlock = Out<typeof placedBlockSchema>;
+
+/** A value of a block parameter as stored: SI numbers, choices, lists, a complex impedance or text. */
+export type BlockParamValue = PlacedBlock['spec'][string];
 
 /**
- * The whole document. `substrate`, `targets` and `tolerances` keep the types of their own modules (the substrate
- * type carries model fields the file does not check; targets have their own schema in targets-schema.ts), and so do
- * placed blocks (format 8), sweep settings (format 9) and measured files (format 10). Fields this version does not
- * know are kept on load and written back on save.
+ * The whole document, inferred from the schema like its records: targets and tolerances (format 3,
+ * core/design/targets.ts), placed blocks (format 8), sweep settings (format 9, core/design/sweep-settings.ts) and
+ * measured files (format 10, core/design/measured.ts) included. `substrate` keeps the type of its own module (it
+ * carries model fields the file does not check). Fields this version does not know are kept on load and written
+ * back on save.
  */
-export type DesignDoc = Omit<Out<ReturnType<typeof designSchema>>, 'substrate' | 'targets' | 'tolerances' | 'format' | 'blocks' | 'sweep' | 'measured'> & {
+export type DesignDoc = Omit<Out<ReturnType<typeof designSchema>>, 'substrate' | 'format'> & {
   format: typeof DESIGN_FORMAT;
   substrate: SubstrateSpec;
-  /** Requirements on the response (format 3; core/design/targets.ts). */
-  targets: Target[];
-  /** How the made board may differ from the drawing (format 3; core/design/targets.ts). */
-  tolerances: Tolerance[];
-  /** Blocks placed from a spec (format 8): each keeps its spec so it can be re-opened and re-generated. */
-  blocks?: PlacedBlock[];
-  /** The design's own sweep (format 9; core/design/sweep-settings.ts); absent = the band widened to f0, 201 points. */
-  sweep?: SweepSpec;
-  /** Measured Touchstone files of the whole board with their port maps (format 10; core/design/measured.ts). */
-  measured?: MeasuredFile[];
   [unknown: string]: unknown;
 };

@@ -22,6 +22,7 @@ import { differenceRegions, intersectRegions, offsetRegions, regionsArea, unionR
 import { InputError, exhaustive } from '../util/errors.ts';
 import type { FabProcess } from '../design/types.ts';
 import { LineCache } from './lineCache.ts';
+import { lineModels } from '../line/index.ts';
 import { designPaths, type PathReport } from './paths.ts';
 import { proximityHits } from './proximity.ts';
 import { defaultGroundClearance } from './geometry.ts';
@@ -296,7 +297,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
     const dDepth = 0.05e-3;
     const dW = 2 * Math.tan(((proc.angleDeg * Math.PI) / 180) / 2) * dDepth;
     try {
-      const cache = new LineCache(doc.substrate);
+      const cache = new LineCache(doc.substrate, undefined, (sized.lineModels ?? lineModels).strip());
       const zLo = cache.forWidth(Math.max(1e-6, narrow.width - dW), sized.f0).z0, zHi = cache.forWidth(narrow.width + dW, sized.f0).z0;
       out.push({
         severity: 'info', code: 'depth-sensitivity', subjects: [narrow.id],

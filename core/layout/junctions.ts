@@ -8,7 +8,7 @@
  */
 import type { JunctionChoice } from '../design/types.ts';
 import type { Vec2 } from '../geometry/types.ts';
-import type { LineResult } from '../line/index.ts';
+import type { LineAt } from '../line/index.ts';
 import { teeJunction, TEE_CITATION, TEE_F_LIMIT, TEE_SOURCE, type TeeArm } from '../discontinuity/hammerstad1981TeeJunction.ts';
 import { shiftResidual, transformerResidual } from '../discontinuity/junctionResidual.ts';
 import { warn, type Warning } from '../util/warnings.ts';
@@ -18,7 +18,7 @@ import type { Compensation, SizedNode } from './types.ts';
 /** Largest departure from a perfect T that still counts as one, rad. */
 export const TEE_ANGLE_TOL = (10 * Math.PI) / 180;
 
-export interface TeeArmInput { id: string; dir: Vec2; end: LineResult }
+export interface TeeArmInput { id: string; dir: Vec2; end: LineAt }
 
 export interface SizedTee {
   tee: SizedNode['tee'] | null;

@@ -15,7 +15,7 @@
  * every width on the path together.
  */
 import type { SubstrateSpec } from '../substrate/types.ts';
-import type { LineOptions } from '../line/index.ts';
+import { lineModels, type LineModels, type LineOptions } from '../line/index.ts';
 import { InputError, describe } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import { LineCache } from './lineCache.ts';
@@ -75,6 +75,9 @@ export interface PathReport {
 export interface PathOptions {
   toleranceDeg?: number;
   line?: LineOptions;
+  /** The line models the pieces' phase is asked of; default those the design was sized with (the core's set unless
+   * sizing was given others). */
+  models?: LineModels;
   /** Skip the sensitivity analysis (4 extra line evaluations per width). */
   sensitivities?: boolean;
   group?: string | null;
@@ -204,7 +207,8 @@ export function tracePaths(sized: SizedDesign, fromRef: string, toRefs: string[]
   const sub: SubstrateSpec = sized.doc.substrate;
   // The lines as sized (as made, when the design says so); the εr and h sensitivities below stay those of plain
   // microstrip (the as-made tables are built for the nominal laminate only).
-  const cache = new LineCache(sub, opts.line ?? sized.lineOptions);
+  const family = (opts.models ?? sized.lineModels ?? lineModels).strip();
+  const cache = new LineCache(sub, opts.line ?? sized.lineOptions, family);
   const prev = shortest(adjacency(sized), from);
   const f0 = sized.f0;
   const freqs = [sized.band.start, f0, sized.band.stop];
@@ -213,8 +217,8 @@ export function tracePaths(sized: SizedDesign, fromRef: string, toRefs: string[]
   const sens = opts.sensitivities !== false;
   const dx = 1e-3;
   const perturbed = sens ? {
-    erUp: new LineCache({ ...sub, er: sub.er * (1 + dx) }, opts.line), erDn: new LineCache({ ...sub, er: sub.er * (1 - dx) }, opts.line),
-    hUp: new LineCache({ ...sub, h: sub.h * (1 + dx) }, opts.line), hDn: new LineCache({ ...sub, h: sub.h * (1 - dx) }, opts.line),
+    erUp: new LineCache({ ...sub, er: sub.er * (1 + dx) }, opts.line, family), erDn: new LineCache({ ...sub, er: sub.er * (1 - dx) }, opts.line, family),
+    hUp: new LineCache({ ...sub, h: sub.h * (1 + dx) }, opts.line, family), hDn: new LineCache({ ...sub, h: sub.h * (1 - dx) }, opts.line, family),
   } : null;
   for (const t of to) {
     if (!prev.has(t)) {

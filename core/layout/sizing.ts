@@ -2,7 +2,8 @@
  * Sizing: design document → sized pieces with compensations, node discontinuity data, and placed positions.
  *
  * Per piece (models cited where each is used below):
- * - width from its Z0 by exact synthesis at f0 with dispersion (core/line synthesizeLine), or as given;
+ * - width from its Z0 at f0 with dispersion (the line-model interface's strip family: exact synthesis for
+ *   microstrip, core/line synthesizeLine), or as given;
  * - nominal length from its electrical length at f0 (l = θ λg/360, own εe(f0)), a physical length, or the drawn
  *   distance (through corner points);
  * - compensations at each end, reported per piece, applied where the model is verified:
@@ -71,6 +72,8 @@ export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign 
   // Not enumerable: the options hold the cross-section tables (functions), and a sized design crosses postMessage
   // and JSON as plain data; the network reads the property directly.
   if (ctx.lineOpts) Object.defineProperty(out, 'lineOptions', { value: ctx.lineOpts, enumerable: false });
+  // Likewise the line models, when a caller planted its own: paths and the network then ask the same ones.
+  if (opts.models) Object.defineProperty(out, 'lineModels', { value: opts.models, enumerable: false });
   return out;
 }
 

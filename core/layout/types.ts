@@ -189,6 +189,9 @@ export interface SizedDesign {
   /** The line options the pieces were sized with (with the as-made cross-section tables, when any): pass them to
    * the network (netlistFromSized(sized, { line: sized.lineOptions })) so the sweep uses the same lines. */
   lineOptions?: import('../line/index.ts').LineOptions;
+  /** Non-enumerable, set when sizing was given its own line models (SizeOptions.models): paths and the network
+   * default to them, so one plant reaches every stage. */
+  lineModels?: import('../line/index.ts').LineModels;
 }
 
 /** A line sized as made, beside what plain microstrip would give for the same copper width (at f0). */

@@ -9,7 +9,10 @@ import type { SubstrateSpec } from '../substrate/types.ts';
 import { analyzeLine } from './analyze.ts';
 import type { LineOptions, LineResult } from './types.ts';
 
-function needWave(r: LineResult): number {
+/** What an electrical length needs of a line: its frequency and guided wavelength (a LineResult or a LineAt). */
+type Wave = Pick<LineResult, 'f' | 'lambdaG'>;
+
+function needWave(r: Wave): number {
   if (!(r.f > 0 && r.lambdaG > 0)) {
     throw new InputError('out-of-range', 'f', 'a line result at a frequency above 0 Hz (electrical length needs a wavelength)', String(r.f),
       'analyse or size the line at the design frequency');
@@ -18,7 +21,7 @@ function needWave(r: LineResult): number {
 }
 
 /** Physical length (m) of `deg` electrical degrees. */
-export function lengthForDegrees(r: LineResult, deg: number): number {
+export function lengthForDegrees(r: Wave, deg: number): number {
   const lg = needWave(r);
   if (typeof deg !== 'number' || !(deg >= 0 && deg <= 1e6)) {
     throw new InputError('out-of-range', 'deg', 'an electrical length from 0 to 1e6 degrees', describe(deg));
@@ -27,7 +30,7 @@ export function lengthForDegrees(r: LineResult, deg: number): number {
 }
 
 /** Electrical length (degrees) of `length` metres. */
-export function degreesForLength(r: LineResult, length: number): number {
+export function degreesForLength(r: Wave, length: number): number {
   const lg = needWave(r);
   if (typeof length !== 'number' || !(length >= 0 && length <= 100)) {
     throw new InputError('out-of-range', 'length', 'a length from 0 to 100 m', describe(length));

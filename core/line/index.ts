@@ -29,5 +29,5 @@ export type { CoupledAsk } from './coupled-synthesis.ts';
 export { kjCoupledStatic, kjStatic, KJ1984_RANGE } from './kirschning-jansen-1984-coupled.ts';
 export { getsingerEpsEff } from './getsinger-1973-coupled-dispersion.ts';
 // The line-model interface (issue 12): cross-section description in, figures per mode out.
-export type { ModeFigures, ModalFigures, CrossSectionDescription, MicrostripSection, CoupledMicrostripSection, LineModelFamily, SingleMode, CoupledModeName } from './line-model.ts';
-export { LineModels, lineModels, microstripFamily, coupledMicrostripFamily, microstripMode, microstripColumns, modeOfLine, SINGLE_MODE } from './line-model.ts';
+export type { ModeFigures, ModalFigures, CrossSectionDescription, MicrostripSection, CoupledMicrostripSection, LineModelFamily, SingleMode, CoupledModeName, LineAt, StripLineFamily } from './line-model.ts';
+export { LineModels, lineModels, microstripFamily, coupledMicrostripFamily, microstripMode, microstripColumns, modeOfLine, stripAt, SINGLE_MODE } from './line-model.ts';

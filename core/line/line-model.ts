@@ -19,6 +19,7 @@ import { InputError, describe } from '../util/errors.ts';
 import type { Warning } from '../util/warnings.ts';
 import { analyzeLine, analyzeLines } from './analyze.ts';
 import { analyzeCoupled } from './coupled.ts';
+import { synthesizeLine } from './synthesize.ts';
 import type { CoupledOptions, GuidedWave } from './coupled-types.ts';
 import type { LineColumns, LineOptions, LineResult } from './types.ts';
 
@@ -71,6 +72,25 @@ export interface LineModelFamily<S extends CrossSectionDescription = CrossSectio
   evaluate(section: S, f: number): ModalFigures<M>;
 }
 
+/** A single line's one mode at f as sizing, paths and the network read it, with its width and the warnings. */
+export interface LineAt extends ModeFigures {
+  /** Strip width, m. */
+  width: number;
+  /** Frequency, Hz. */
+  f: number;
+  warnings: Warning[];
+}
+
+/**
+ * A family of single strips over the laminate that can also choose a width for an impedance: what sizing (a width
+ * from Z0), paths and phase, and the network ask of a piece's copper. The design's strips are asked for as kind
+ * 'microstrip'; a plug-in of that kind (`LineModels.with`) changes every one of them at once.
+ */
+export interface StripLineFamily extends LineModelFamily<MicrostripSection, SingleMode> {
+  /** The width, m, whose Z0 at f (Hz) is `z0` Ω on `substrate`; InputError('unreachable-target') when no width gives it. */
+  widthFor(substrate: SubstrateSpec, z0: number, f: number, options?: LineOptions): number;
+}
+
 export const SINGLE_MODE = 'single' as const;
 export type SingleMode = typeof SINGLE_MODE;
 export type CoupledModeName = 'even' | 'odd';
@@ -89,7 +109,7 @@ export function modeOfLine(r: LineResult): ModeFigures {
   };
 }
 
-export const microstripFamily: LineModelFamily<MicrostripSection, SingleMode> = {
+export const microstripFamily: StripLineFamily = {
   kind: 'microstrip',
   modes: [SINGLE_MODE],
   source: 'Hammerstad & Jensen 1980 (static, thickness); Kirschning & Jansen 1982 εeff(f); Jansen & Kirschning 1983 Z0(f); Wheeler 1942 conductor loss',
@@ -97,6 +117,8 @@ export const microstripFamily: LineModelFamily<MicrostripSection, SingleMode> = 
     const r = analyzeLine(s.substrate, s.width, f, s.options);
     return { f, modes: { single: modeOfLine(r) }, warnings: r.warnings, valid: isValid(r.warnings) };
   },
+  // Exact synthesis of the same analysis (synthesize.ts), so the width's own evaluation gives back z0.
+  widthFor(substrate, z0, f, options) { return synthesizeLine(substrate, z0, f, options).width; },
 };
 
 export const coupledMicrostripFamily: LineModelFamily<CoupledMicrostripSection, CoupledModeName> = {
@@ -138,6 +160,16 @@ export class LineModels {
     return fam;
   }
 
+  /**
+   * The family the design's strips are sized and solved with (kind 'microstrip'). Refuses a plug-in of that kind
+   * that cannot choose a width for an impedance, since sizing needs it.
+   */
+  strip(): StripLineFamily {
+    const fam = this.familyOf({ kind: 'microstrip' }) as Partial<StripLineFamily> & LineModelFamily;
+    if (typeof fam.widthFor !== 'function') throw new InputError('bad-choice', 'lineModels.microstrip', 'a strip family with widthFor (sizing chooses widths for impedances)', 'a family without it');
+    return fam as StripLineFamily;
+  }
+
   /** The modes of `section` at f. */
   evaluate<S extends CrossSectionDescription>(section: S, f: number): ModalFigures {
     return this.familyOf(section).evaluate(section, f);
@@ -150,6 +182,16 @@ export const lineModels = new LineModels([microstripFamily, coupledMicrostripFam
 /** The one mode of a single microstrip line at f (what sizing, paths and the network ask of a piece's copper). */
 export function microstripMode(substrate: SubstrateSpec, width: number, f: number, options?: LineOptions): ModeFigures {
   return microstripFamily.evaluate({ kind: 'microstrip', substrate, width, options }, f).modes.single;
+}
+
+/** A strip of `width` on `substrate` at f through `family`: its one mode with the width, f and the warnings. */
+export function stripAt(family: StripLineFamily, substrate: SubstrateSpec, width: number, f: number, options?: LineOptions): LineAt {
+  const r = family.evaluate({ kind: 'microstrip', substrate, width, options }, f);
+  const m = r.modes.single;
+  return {
+    z0: m.z0, z0Static: m.z0Static, epsEff: m.epsEff, epsEffStatic: m.epsEffStatic, beta: m.beta, lambdaG: m.lambdaG,
+    delayPerM: m.delayPerM, alphaC: m.alphaC, alphaD: m.alphaD, width, f, warnings: r.warnings,
+  };
 }
 
 /**

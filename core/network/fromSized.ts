@@ -2,7 +2,8 @@
  * Sized design → netlist for the nodal solver.
  *
  * Each line piece is a lossy, dispersive line whose Zc(f) and γ(f) come from the line model at every frequency
- * (core/line `lineConstants`: Hammerstad & Jensen 1980 statics with Kirschning & Jansen 1982 dispersion), over the physical length the layout gives (compensations applied).
+ * (the line-model interface's strip family, core/line/line-model.ts; by default microstrip: Hammerstad & Jensen 1980
+ * statics with Kirschning & Jansen 1982 dispersion), over the physical length the layout gives (compensations applied).
  * Around the pieces, what the layout applied is put back as circuit elements so the model stays whole:
  *  - open end (Kirschning, Jansen & Koster 1981, Electronics Letters 17(3), applied by the layout as a Δl cut): the end
  *    capacitance C_oc from node to ground;
@@ -29,7 +30,7 @@
  */
 import { InputError } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
-import { lineModels, microstripMode, type CoupledModeName, type LineOptions, type ModalFigures } from '../line/index.ts';
+import { lineModels as coreLineModels, type CoupledModeName, type LineModels, type LineOptions, type ModalFigures } from '../line/index.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import { coupledPairYOfModes } from './coupledPair.ts';
 import { lineConstantsOfMode, losslessConstantsOfMode } from './lineTwoPort.ts';
@@ -50,6 +51,11 @@ export interface FromSizedOptions {
    * library the very same values pass their own.
    */
   lineModel?: (width: number, piece: SizedPiece) => LineModel;
+  /**
+   * The line models of the line-model interface (core/line/line-model.ts) the pieces' lines and coupled pairs are
+   * asked of; default those the design was sized with (`sized.lineModels`), else the core's set.
+   */
+  models?: LineModels;
   /** Drop conductor and dielectric loss from every line and coupled pair (a lossless copy, for checking a design
    * against its ideal response). Lumped parts and vias keep theirs. */
   lossless?: boolean;
@@ -68,6 +74,8 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
       sized.problems.length > 1 ? `and ${sized.problems.length - 1} more problem(s)` : undefined);
   }
   const sub = sized.doc.substrate;
+  const lineSet = modelsOf(sized, opts);
+  const strip = lineSet.strip();
   const warnings: Warning[] = [];
   const elements: NetElement[] = [];
   const nodes = new Map(sized.nodes.map((n) => [n.id, n]));
@@ -85,7 +93,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
       let lastF = NaN, last: ReturnType<LineModel> | null = null;
       m = (f) => {
         if (f !== lastF || !last) {
-          const mode = microstripMode(sub, width, f, opts.line);
+          const mode = strip.evaluate({ kind: 'microstrip', substrate: sub, width, options: opts.line }, f).modes.single;
           last = opts.lossless ? losslessConstantsOfMode(mode) : lineConstantsOfMode(mode, f);
           lastF = f;
         }
@@ -168,7 +176,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
         };
         a1 = alone(a1, near - c1s.near, 'alone-a'); b1 = alone(b1, far - c1s.far, 'alone-b');
         c1 = alone(c1, near - c2s.near, 'alone-c'); d1 = alone(d1, far - c2s.far, 'alone-d');
-        elements.push({ kind: 'nport', id: p.id, nodes: [a1, b1, c1, d1], y: pairModel(sub, pair.width, pair.gap, overlap, opts.line?.dispersion === 'none' ? 0 : 1, opts.lossless === true) });
+        elements.push({ kind: 'nport', id: p.id, nodes: [a1, b1, c1, d1], y: pairModel(lineSet, sub, pair.width, pair.gap, overlap, opts.line?.dispersion === 'none' ? 0 : 1, opts.lossless === true) });
         break;
       }
       case 'sparams': {
@@ -225,9 +233,10 @@ export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: From
     for (const w of widths) { const l = byWidth.get(w) ?? []; if (!l.includes(p.id)) l.push(p.id); byWidth.set(w, l); }
   }
   const out = new Map<string, Warning>();
+  const models = modelsOf(sized, opts);
   for (const [w, ids] of byWidth) {
     let ws: Warning[];
-    try { ws = lineModels.evaluate({ kind: 'microstrip', substrate: sized.doc.substrate, width: w, options: opts.line }, fStop).warnings; } catch (e) {
+    try { ws = models.strip().evaluate({ kind: 'microstrip', substrate: sized.doc.substrate, width: w, options: opts.line }, fStop).warnings; } catch (e) {
       if (e instanceof InputError) {
         ws = [{ code: 'higher-order-mode', severity: 'error', message: `at ${fStop / 1e9} GHz the line model refuses width ${(w * 1e3).toFixed(3)} mm: ${e.message}` }];
       } else throw e;
@@ -243,9 +252,14 @@ export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: From
 }
 
 /** A coupled pair's four-port at each frequency: even and odd modes from the line-model interface, then coupledPairY. */
-function pairModel(sub: SubstrateSpec, width: number, gap: number, length: number, disp: 0 | 1, lossless: boolean): (f: number) => Float64Array {
+function pairModel(models: LineModels, sub: SubstrateSpec, width: number, gap: number, length: number, disp: 0 | 1, lossless: boolean): (f: number) => Float64Array {
   const section = { kind: 'coupled-microstrip', substrate: sub, width, gap, options: { dispersion: disp === 1 ? 'getsinger' : 'none' } } as const;
-  return (f) => coupledPairYOfModes(lineModels.evaluate(section, f) as ModalFigures<CoupledModeName>, length, lossless);
+  return (f) => coupledPairYOfModes(models.evaluate(section, f) as ModalFigures<CoupledModeName>, length, lossless);
+}
+
+/** The line models a netlist asks: the caller's, else those the design was sized with, else the core's. */
+function modelsOf(sized: SizedDesign, opts: FromSizedOptions): LineModels {
+  return opts.models ?? sized.lineModels ?? coreLineModels;
 }
 
 function onlyTerminal(n: SizedNode, endNode: (piece: string, node: string) => string): string {

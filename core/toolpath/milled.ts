@@ -15,6 +15,7 @@
 import { intersectRegions, pointInRegion, regionArea, regionsArea, differenceRegions } from '../geometry/polygons.ts';
 import type { BoardGeometry, Region, Vec2 } from '../geometry/types.ts';
 import { LineCache } from '../layout/lineCache.ts';
+import { lineModels } from '../line/index.ts';
 import type { SizedDesign } from '../layout/types.ts';
 import type { Tool } from './types.ts';
 
@@ -153,7 +154,7 @@ export function milledBoard(g: BoardGeometry, sized: SizedDesign, blank: Region,
     return { subjects: owners[i]!, area: regionArea(d), keptArea: kept, milledIslands: count };
   });
   const pieces: MilledPiece[] = [];
-  const cache = new LineCache(sized.doc.substrate);
+  const cache = new LineCache(sized.doc.substrate, undefined, (sized.lineModels ?? lineModels).strip());
   const t = sized.doc.substrate.t;
   const flank = isolationTool.kind === 'v-bit' ? 2 * t * Math.tan(((isolationTool.angleDeg ?? 0) * Math.PI) / 360) : 0;
   const byId = new Map(g.pieces.map((o) => [o.id, o]));

@@ -1,91 +1,84 @@
 /**
- * One source for the design file: the record types are inferred from the valibot schema (core/design/types.ts from
- * schema.ts), and the command field lists are derived from it (command-args.ts). The type checks here fail
- * `npm run typecheck` (which covers test/) if an inferred type stops matching the shape the code was written
- * against, kept below as it was hand-written before (project's own types, frozen); the run-time checks cover the
- * derived field lists.
+ * The design types are the one schema's (core/design/schema.ts and the schemas beside it), not a second hand-kept
+ * copy: for each record, the fields the type names are exactly the schema's entries, and what the schema accepts is
+ * the type (valibot's InferOutput, the loose objects' unknown fields aside). The `expectTypeOf` lines are checked by
+ * the type-check (`npm run typecheck` covers test/); the key lists are also compared at run time. The project's own
+ * rule (one source for the file format), so no outside source applies.
  */
-import { describe, expect, it } from 'vitest';
+import { describe, expect, expectTypeOf, it } from 'vitest';
+import type * as v from 'valibot';
 import type {
-  AsMade, Area, BendStyle, CoupledSpec, DesignDoc, DesignNode, DesignSegment, FabProcess, JunctionChoice, LengthSpec, NodeSpec,
-  PairSpec, PhaseGroup, SegmentSpec, SmdSize, ViaSpec, Vec2, WidthSpec,
-} from '../../core/index.ts';
+  Area, AsMade, BlockParamValue, DesignDoc, DesignNode, DesignSegment, FabProcess, MeasuredFile, PhaseGroup, PlacedBlock,
+  SweepSpec, Target, TargetLimit, Tolerance,
+} from '../../core/design/types.ts';
+import {
+  areaSchema, asMadeSchema, designSchema, nodeSchema, phaseGroupSchema, placedBlockSchema, processSchema, segmentSchema,
+} from '../../core/design/schema.ts';
+import { targetSchema, toleranceSchema } from '../../core/design/targets-schema.ts';
+import { sweepSpecSchema } from '../../core/design/sweep-settings.ts';
+import { measuredFileSchema } from '../../core/design/measured.ts';
 import { NODE_SPEC_KEYS, SEGMENT_SPEC_KEYS } from '../../core/design/command-args.ts';
-import { runCommand, newDesign } from '../../core/index.ts';
+import { DESIGN_VERSION } from '../../core/design/migrations.ts';
 
-/** A and B accept exactly the same values (each assignable to the other). */
-type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+/** Keys a type names, of every member of a union (keyof a union gives only the shared ones), less an index signature. */
+type Named<T> = T extends unknown ? keyof { [K in keyof T as string extends K ? never : number extends K ? never : K]: 0 } & string : never;
+/** Entry keys of an object schema, of every option of a variant, or of the object inside a pipe. */
+type EntryKeys<S> = S extends { options: readonly (infer O)[] } ? EntryKeys<O>
+  : S extends { entries: infer E } ? keyof E & string
+  : S extends { pipe: readonly [infer First, ...unknown[]] } ? EntryKeys<First>
+  : never;
 
-namespace Frozen {
-  export type FabProcess =
-    | { kind: 'end-mill'; toolDiameter: number; depth: number }
-    | { kind: 'v-bit'; tipWidth: number; angleDeg: number; depth: number }
-    | { kind: 'etch'; edgeBias: number; minFeature: number };
-  export interface AsMade { sizing: 'as-made' | 'microstrip'; sideCopper: 'stitched' | 'floating'; cover?: { er: number; thickness: number }; fencePitch?: number }
-  export type BendStyle = { style: 'miter-optimal' } | { style: 'miter'; fraction: number } | { style: 'arc'; radius: number } | { style: 'square' };
-  export interface ViaSpec { drill: number; pad: number; count: number; plating?: number }
-  export type NodeSpec =
-    | { kind: 'port'; zRef: number; heading: number; launch?: { padWidth: number; padLength: number; pinDrill?: number } }
-    | { kind: 'vertex'; bend: BendStyle }
-    | { kind: 'junction' }
-    | { kind: 'open' }
-    | { kind: 'short'; via: ViaSpec };
-  export type DesignNode = { id: string; at: Vec2; label?: string } & NodeSpec;
-  export type WidthSpec = { by: 'z0'; z0: number } | { by: 'width'; width: number };
-  export type LengthSpec = { by: 'degrees'; deg: number } | { by: 'length'; length: number } | { by: 'drawn' };
-  export type SmdSize = '0402' | '0603' | '0805' | '1206';
-  export type PairSpec = { by: 'geometry'; width: number; gap: number } | { by: 'modes'; z0Even: number; z0Odd: number };
-  export type CoupledSpec = { kind: 'coupled'; c: string; d: string; pair: PairSpec; length: { by: 'degrees'; deg: number } | { by: 'length'; length: number } };
-  export type SegmentSpec =
-    | { kind: 'line'; width: WidthSpec; length: LengthSpec }
-    | { kind: 'taper'; profile: 'linear' | 'klopfenstein'; from: WidthSpec; to: WidthSpec; length: LengthSpec; rippleDb?: number }
-    | { kind: 'lumped'; part: 'resistor' | 'capacitor' | 'inductor'; value: number; size: SmdSize; width: WidthSpec }
-    | { kind: 'sparams'; touchstone: string; name: string; width: WidthSpec; length: { by: 'length'; length: number } }
-    | CoupledSpec;
-  export type DesignSegment = { id: string; a: string; b: string; label?: string } & SegmentSpec;
-  export interface Area { id: string; kind: 'keep-out' | 'ground-copper'; polygon: Vec2[]; clearance?: number }
-  export interface PhaseGroup { id: string; name: string; from: string; to: string[]; toleranceDeg: number; offsetsDeg?: number[] }
-  export type JunctionChoice = 'modelled' | 'ideal';
+/** Runtime twin of EntryKeys. */
+function entryKeys(schema: unknown): string[] {
+  const s = schema as { options?: unknown[]; entries?: Record<string, unknown>; pipe?: unknown[] };
+  if (s.options) return [...new Set(s.options.flatMap(entryKeys))].sort();
+  if (s.entries) return Object.keys(s.entries).sort();
+  if (s.pipe) return entryKeys(s.pipe[0]);
+  return [];
 }
 
-const sameTypes: true[] = [
-  true as Same<FabProcess, Frozen.FabProcess>,
-  true as Same<AsMade, Frozen.AsMade>,
-  true as Same<BendStyle, Frozen.BendStyle>,
-  true as Same<ViaSpec, Frozen.ViaSpec>,
-  true as Same<NodeSpec, Frozen.NodeSpec>,
-  true as Same<DesignNode, Frozen.DesignNode>,
-  true as Same<WidthSpec, Frozen.WidthSpec>,
-  true as Same<LengthSpec, Frozen.LengthSpec>,
-  true as Same<SmdSize, Frozen.SmdSize>,
-  true as Same<PairSpec, Frozen.PairSpec>,
-  true as Same<CoupledSpec, Frozen.CoupledSpec>,
-  true as Same<SegmentSpec, Frozen.SegmentSpec>,
-  true as Same<DesignSegment, Frozen.DesignSegment>,
-  true as Same<Area, Frozen.Area>,
-  true as Same<PhaseGroup, Frozen.PhaseGroup>,
-  true as Same<JunctionChoice, Frozen.JunctionChoice>,
-  true as Same<DesignDoc['nodes'][number], Frozen.DesignNode>,
-  true as Same<DesignDoc['process'], Frozen.FabProcess>,
-];
+describe('design types are inferred from the one schema', () => {
+  it('each record type names exactly the fields of its schema (checked by the type-check)', () => {
+    expectTypeOf<Named<Target>>().toEqualTypeOf<EntryKeys<typeof targetSchema>>();
+    expectTypeOf<Named<Tolerance>>().toEqualTypeOf<EntryKeys<typeof toleranceSchema>>();
+    expectTypeOf<Named<SweepSpec>>().toEqualTypeOf<EntryKeys<typeof sweepSpecSchema>>();
+    expectTypeOf<Named<MeasuredFile>>().toEqualTypeOf<EntryKeys<typeof measuredFileSchema>>();
+    expectTypeOf<Named<PlacedBlock>>().toEqualTypeOf<EntryKeys<typeof placedBlockSchema>>();
+    expectTypeOf<Named<DesignNode>>().toEqualTypeOf<EntryKeys<typeof nodeSchema>>();
+    expectTypeOf<Named<DesignSegment>>().toEqualTypeOf<EntryKeys<typeof segmentSchema>>();
+    expectTypeOf<Named<FabProcess>>().toEqualTypeOf<EntryKeys<typeof processSchema>>();
+    expectTypeOf<Named<AsMade>>().toEqualTypeOf<EntryKeys<typeof asMadeSchema>>();
+    expectTypeOf<Named<Area>>().toEqualTypeOf<EntryKeys<typeof areaSchema>>();
+    expectTypeOf<Named<PhaseGroup>>().toEqualTypeOf<EntryKeys<typeof phaseGroupSchema>>();
+    expectTypeOf<Named<DesignDoc>>().toEqualTypeOf<EntryKeys<ReturnType<typeof designSchema>>>();
+  });
 
-describe('design types and field lists from the one schema', () => {
-  it('the inferred record types equal the shapes the code was written against (checked by the type-check)', () => {
-    expect(sameTypes.every((x) => x === true)).toBe(true);
+  it('what each schema accepts is the type, and the type is what the schema gives (both ways)', () => {
+    expectTypeOf<v.InferOutput<typeof targetSchema>>().toExtend<Target>();
+    expectTypeOf<Target>().toExtend<v.InferOutput<typeof targetSchema>>();
+    expectTypeOf<v.InferOutput<typeof toleranceSchema>>().toExtend<Tolerance>();
+    expectTypeOf<Tolerance>().toExtend<v.InferOutput<typeof toleranceSchema>>();
+    expectTypeOf<v.InferOutput<typeof sweepSpecSchema>>().toExtend<SweepSpec>();
+    expectTypeOf<SweepSpec>().toExtend<v.InferOutput<typeof sweepSpecSchema>>();
+    expectTypeOf<v.InferOutput<typeof measuredFileSchema>>().toExtend<MeasuredFile>();
+    expectTypeOf<v.InferOutput<typeof placedBlockSchema>>().toExtend<PlacedBlock>();
+    expectTypeOf<TargetLimit>().toEqualTypeOf<Target['limit']>();
+    expectTypeOf<Tolerance['distribution']>().toEqualTypeOf<'normal' | 'uniform'>();
+    expectTypeOf<BlockParamValue>().toEqualTypeOf<string | number | boolean | number[] | { re: number; im: number }>();
+    expectTypeOf<DesignDoc['targets']>().toEqualTypeOf<Target[]>();
+    expectTypeOf<DesignDoc['tolerances']>().toEqualTypeOf<Tolerance[]>();
   });
-  it('the spec field lists hold every kind-specific field of the schema, and none that every record has', () => {
-    expect([...NODE_SPEC_KEYS].sort()).toEqual(['bend', 'heading', 'kind', 'launch', 'via', 'zRef']);
-    for (const k of ['kind', 'width', 'length', 'profile', 'from', 'to', 'rippleDb', 'part', 'value', 'size', 'touchstone', 'name', 'c', 'd', 'pair']) {
-      expect(SEGMENT_SPEC_KEYS.has(k)).toBe(true);
-    }
-    for (const k of ['id', 'a', 'b', 'at', 'label']) { expect(SEGMENT_SPEC_KEYS.has(k)).toBe(false); expect(NODE_SPEC_KEYS.has(k)).toBe(false); }
-  });
-  it('changing a node kind drops the old kind\'s fields (the derived list at work)', () => {
-    let doc = newDesign();
-    doc = runCommand(doc, 'node.add', { id: 'p', at: { x: 0, y: 0 }, spec: { kind: 'port', zRef: 50, heading: 0 } });
-    doc = runCommand(doc, 'node.setSpec', { id: 'p', spec: { kind: 'vertex', bend: { style: 'square' } } });
-    const n = doc.nodes.find((x) => x.id === 'p')! as Record<string, unknown>;
-    expect(n.kind).toBe('vertex');
-    expect('zRef' in n || 'heading' in n).toBe(false);
+
+  it('at run time, the schemas hold the fields the types name and the command field lists come from them', () => {
+    const target: Record<keyof Target, true> = { id: true, name: true, figure: true, ports: true, group: true, band: true, limit: true };
+    expect(entryKeys(targetSchema)).toEqual(Object.keys(target).sort());
+    const tol: Record<keyof Tolerance, true> = { quantity: true, distribution: true, spread: true, scope: true };
+    expect(entryKeys(toleranceSchema)).toEqual(Object.keys(tol).sort());
+    const sweep: Record<keyof SweepSpec, true> = { start: true, stop: true, points: true, spacing: true };
+    expect(entryKeys(sweepSpecSchema)).toEqual(Object.keys(sweep).sort());
+    expect(entryKeys(designSchema(DESIGN_VERSION))).toContain('measured');
+    // The commands' spec fields are the schema's entries less the shared ones (command-args.ts derives them).
+    expect([...NODE_SPEC_KEYS].sort()).toEqual(entryKeys(nodeSchema).filter((k) => !['id', 'at', 'label'].includes(k)));
+    expect([...SEGMENT_SPEC_KEYS].sort()).toEqual(entryKeys(segmentSchema).filter((k) => !['id', 'a', 'b', 'label'].includes(k)));
   });
 });

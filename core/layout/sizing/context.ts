@@ -4,7 +4,7 @@
  */
 import type { DesignDoc, DesignNode, DesignSegment, JunctionChoice } from '../../design/types.ts';
 import type { Vec2 } from '../../geometry/types.ts';
-import type { LineOptions, LineResult } from '../../line/index.ts';
+import { lineModels as coreLineModels, type LineModels, type LineOptions, type LineAt } from '../../line/index.ts';
 import { InputError, describe } from '../../util/errors.ts';
 import type { Warning } from '../../util/warnings.ts';
 import { LineCache } from '../lineCache.ts';
@@ -22,9 +22,14 @@ export interface SizeOptions {
   cache?: LineCache;
   /** Junction choice, overriding the design's own (the CLI's --junctions). */
   junctions?: JunctionChoice;
+  /**
+   * The line models to size with (the line-model interface, core/line/line-model.ts); default the core's own set.
+   * Its 'microstrip' family gives every strip's width and line; the sized design keeps it for paths and the network.
+   */
+  models?: LineModels;
 }
 
-export interface End { node: string; width: number; r: LineResult }
+export interface End { node: string; width: number; r: LineAt }
 
 /** One piece while it is sized: the piece being filled in, its two ends and the sums its end handlers add. */
 export interface Work {
@@ -56,6 +61,8 @@ export interface SizingContext {
   junctions: JunctionChoice;
   subs: DesignDoc['substrate'];
   lineOpts: LineOptions | undefined;
+  /** The line models every strip is asked of (SizeOptions.models or the core's). */
+  models: LineModels;
   cache: LineCache;
   problems: LayoutProblem[];
   warnings: Warning[];
@@ -80,14 +87,16 @@ export function sizingContext(doc: DesignDoc, opts: SizeOptions): SizingContext 
   // Lines sized as made (design asMade): the line options carry the cross-section tables (as-made.ts).
   const lineOpts = asMadeLineOptions(doc, opts.line);
   // A face passes its cache back on every edit; it is reused while the substrate's numbers are unchanged.
-  const cache = opts.cache && opts.cache.fits(subs, lineOpts) ? opts.cache : new LineCache(subs, lineOpts);
+  const models = opts.models ?? coreLineModels;
+  const family = models.strip();
+  const cache = opts.cache && opts.cache.fits(subs, lineOpts, family) ? opts.cache : new LineCache(subs, lineOpts, family);
   const problems: LayoutProblem[] = [];
   const nodeById = new Map<string, DesignNode>();
   for (const n of doc.nodes) nodeById.set(n.id, n);
   // A coupled pair is sized and placed as its two strips (coupledPair.ts); `segIndex` maps back to the file.
   const { segments, index } = splitPairs(doc.segments);
   return {
-    doc, opts, f0, band, junctions: opts.junctions ?? doc.junctions ?? 'modelled', subs, lineOpts, cache, problems, warnings: [],
+    doc, opts, f0, band, junctions: opts.junctions ?? doc.junctions ?? 'modelled', subs, lineOpts, models, cache, problems, warnings: [],
     problem: (code, message, subjects) => { problems.push({ code, message, subjects }); },
     nodeById, segments, segIndex: index, pairs: new Map(),
   };

@@ -5,10 +5,10 @@
  */
 import type { DesignSegment } from '../../design/types.ts';
 import type { Vec2 } from '../../geometry/types.ts';
-import type { LineResult } from '../../line/index.ts';
+import type { LineAt } from '../../line/index.ts';
 import { lengthForDegrees } from '../../line/index.ts';
 import { InputError, describe } from '../../util/errors.ts';
-import type { LineCache } from '../lineCache.ts';
+import { lossDbPerM, type LineCache } from '../lineCache.ts';
 import { klopfensteinProfile } from '../klopfenstein1956Taper.ts';
 import { smdFootprint } from '../footprints.ts';
 import { len, sub } from '../copper.ts';
@@ -46,7 +46,7 @@ export function sizeLengths(ctx: SizingContext, works: Work[]): void {
 }
 
 /** Length from degrees at f0 (the line's own λg), a given length, or the drawn distance between the nodes. */
-export function nominalLength(spec: { by: string; deg?: number; length?: number }, r: LineResult, seg: DesignSegment, atNode: (id: string) => Vec2, field: string): number {
+export function nominalLength(spec: { by: string; deg?: number; length?: number }, r: LineAt, seg: DesignSegment, atNode: (id: string) => Vec2, field: string): number {
   switch (spec.by) {
     case 'degrees': return lengthForDegrees(r, spec.deg as number);
     case 'length': {
@@ -77,14 +77,14 @@ export function sizeTaper(w: Work, cache: LineCache, f0: number, fTop: number, a
     n = Math.min(need, 400); secs = build(n);
     if (spec.by === 'degrees') L = ((spec.deg * Math.PI) / 180) / meanBeta(secs);
   }
-  const sections: TaperSection[] = secs.map((s) => ({ width: s.width, length: L / n, z0: s.r.z0, beta: (2 * Math.PI) / s.r.lambdaG, lossDbPerM: s.r.alphaCdBPerM + s.r.alphaDdBPerM }));
+  const sections: TaperSection[] = secs.map((s) => ({ width: s.width, length: L / n, z0: s.r.z0, beta: (2 * Math.PI) / s.r.lambdaG, lossDbPerM: lossDbPerM(s.r) }));
   w.piece.sections = sections;
   w.piece.taperWidths = Array.from({ length: n + 1 }, (_, k) => widthAt(k / n));
   w.piece.nominalLength = L;
 }
 
 /** Width at a fraction along a taper: linear in width, or synthesised from the Klopfenstein impedance profile. */
-function taperWidth(seg: Extract<DesignSegment, { kind: 'taper' }>, ra: LineResult, rb: LineResult, cache: LineCache, f0: number, field: string): (frac: number) => number {
+function taperWidth(seg: Extract<DesignSegment, { kind: 'taper' }>, ra: LineAt, rb: LineAt, cache: LineCache, f0: number, field: string): (frac: number) => number {
   if (seg.profile === 'linear') return (frac) => ra.width + (rb.width - ra.width) * frac;
   if (seg.profile !== 'klopfenstein') throw new InputError('bad-choice', `${field}.profile`, "'linear' or 'klopfenstein'", describe((seg as { profile?: unknown }).profile));
   const gm = 10 ** (-Math.abs(seg.rippleDb ?? DEFAULT_TAPER_RIPPLE_DB) / 20);

@@ -1,10 +1,10 @@
 /**
  * Sizing step 2, widths: each piece's line at f0 — from its Z0 by exact synthesis with dispersion (core/line
- * synthesizeLine through the line cache), or as given; a coupled pair's strips from the pair's geometry or modes
+ * the strip family's widthFor through the line cache: exact synthesis for microstrip), or as given; a coupled pair's strips from the pair's geometry or modes
  * (coupledPair.ts). A width that cannot be had becomes a 'bad-value' problem naming the piece.
  */
 import type { DesignSegment, WidthSpec } from '../../design/types.ts';
-import type { LineResult } from '../../line/index.ts';
+import type { LineAt } from '../../line/index.ts';
 import { InputError, describe } from '../../util/errors.ts';
 import { figures } from '../lineCache.ts';
 import { plainShift } from '../as-made-shift.ts';
@@ -13,7 +13,7 @@ import type { SizedPiece } from '../types.ts';
 import { pairId, pushWarnings, type SizingContext, type Work } from './context.ts';
 
 /** The line of a width spec at f0, or null (and a problem) when it cannot be had. */
-export function resolveWidth(ctx: SizingContext, spec: WidthSpec, field: string, segId: string): LineResult | null {
+export function resolveWidth(ctx: SizingContext, spec: WidthSpec, field: string, segId: string): LineAt | null {
   try {
     if (!spec || typeof spec !== 'object') throw new InputError('invalid-design', field, "a width given by 'z0' or 'width'", describe(spec));
     if (spec.by === 'z0') return ctx.cache.forZ0(spec.z0, ctx.f0);
@@ -29,7 +29,7 @@ export function resolveWidth(ctx: SizingContext, spec: WidthSpec, field: string,
  * A pair's geometry and mode figures at f0 (once per design segment; its strips share them), and the single line of
  * its strip width, which the end corrections (open ends, bends, pads) use.
  */
-export function resolvePair(ctx: SizingContext, seg: CoupledSegment, field: string): LineResult | null {
+export function resolvePair(ctx: SizingContext, seg: CoupledSegment, field: string): LineAt | null {
   const id = pairId(seg.id);
   try {
     const drawing = pairDrawingProblem(seg, (n) => ctx.nodeById.get(n));
@@ -71,7 +71,7 @@ export function sizeWidths(ctx: SizingContext): Work[] {
 /** One piece's width: its line at each end (a taper has two), figures, as-made shift and pair data. */
 export function sizeWidth(ctx: SizingContext, w: Work, field: string): void {
   const { seg, piece } = w;
-  let ra: LineResult | null, rb: LineResult | null;
+  let ra: LineAt | null, rb: LineAt | null;
   if (seg.kind === 'taper') { ra = resolveWidth(ctx, seg.from, `${field}.from`, seg.id); rb = resolveWidth(ctx, seg.to, `${field}.to`, seg.id); }
   else if (seg.kind === 'coupled') { ra = rb = resolvePair(ctx, seg, field); }
   else { ra = rb = resolveWidth(ctx, seg.width, `${field}.width`, seg.id); }
@@ -80,7 +80,7 @@ export function sizeWidth(ctx: SizingContext, w: Work, field: string): void {
   w.endB = { node: seg.b, width: rb.width, r: rb };
   piece.z0 = ra.z0; piece.width = ra.width;
   piece.line = figures(ra);
-  if (ctx.lineOpts?.crossSection) piece.asMade = plainShift(ctx.subs, ra, ctx.f0, ctx.opts.line, ctx.lineOpts.crossSection);
+  if (ctx.lineOpts?.crossSection) piece.asMade = plainShift(ctx.cache.family, ctx.subs, ra, ctx.f0, ctx.opts.line, ctx.lineOpts.crossSection);
   if (seg.kind === 'taper') { piece.widthB = rb.width; piece.z0B = rb.z0; }
   if (seg.kind === 'coupled') {
     const data = ctx.pairs.get(pairId(seg.id))!;
