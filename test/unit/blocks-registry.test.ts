@@ -205,7 +205,7 @@ describe('stub match (Pozar §5.2–5.3)', () => {
 
 describe('low-pass band edges (Matthaei, Young and Jones 1964 §4.03–4.05)', () => {
   const edge = (doc: DesignDoc, level: number, fc: number) => {
-    const fs = Array.from({ length: 161 }, (_, k) => fc * (0.6 + (0.8 * k) / 160));
+    const fs = Array.from({ length: 241 }, (_, k) => fc * (0.2 + (1.2 * k) / 240));
     const r = sweep(doc, fs);
     const il = fs.map((_, k) => -s(r, k, 'b1.load', 'b1.src').db);
     const k = il.findIndex((x) => x > level);
@@ -216,12 +216,18 @@ describe('low-pass band edges (Matthaei, Young and Jones 1964 §4.03–4.05)', (
       const fc = 2e9;
       expect(Math.abs(edge(make('lowpass', { form, response: 'maxflat', order: '5', cutoff: '2 GHz' }), 3.0103, fc) / fc - 1)).toBeLessThan(tol);
     });
-    // The open-stub form's equal-ripple edge is 16 % low (its stubs are Richards' λ/8 stubs without Kuroda's unit
-    // elements): only the stepped form is held to this edge.
-    if (form === 'stubs') continue;
     it(`${form}, 0.5 dB equal ripple N = 5: the ripple edge within ${tol * 100} % of the cut-off`, () => {
       const fc = 2e9;
       expect(Math.abs(edge(make('lowpass', { form, response: 'chebyshev', order: '5', rippleDb: '0.5', cutoff: '2 GHz' }), 0.5 + 0.05, fc) / fc - 1)).toBeLessThan(tol);
+    });
+  }
+  // The equal-ripple prototype's ripple band ends at ω' = 1 (Matthaei, Young and Jones 1964, §4.03), which Richards'
+  // transform puts where the stubs are λ/8 (Pozar §8.4): the open-stub form's ripple edge is the cut-off, and the
+  // ripple inside the band stays at the prototype's (lossless copy; 0.05 dB allowed for the sweep's junction models).
+  for (const [ripple, order] of [['0.1', '3'], ['1', '3'], ['0.2', '5'], ['1', '5'], ['0.5', '7']] as const) {
+    it(`stubs, ${ripple} dB equal ripple N = ${order}: the ripple-band edge within 5 % of the cut-off, no higher ripple inside it`, () => {
+      const fc = 2e9;
+      expect(Math.abs(edge(make('lowpass', { form: 'stubs', response: 'chebyshev', order, rippleDb: ripple, cutoff: '2 GHz' }), Number(ripple) + 0.05, fc) / fc - 1)).toBeLessThan(0.05);
     });
   }
 });

@@ -6,13 +6,16 @@
  * - stepped impedance: D. M. Pozar, Microwave Engineering, 4th ed., 2012, §8.6 (eq. 8.82): a series inductor g_k is
  *   a high-impedance line of βℓ = g_k·R0/Zh, a shunt capacitor g_k a low-impedance line of βℓ = g_k·Zl/R0, at the
  *   cut-off frequency; the prototype starts with a shunt capacitor;
- * - open-stub form: the same series high-impedance lines, each shunt capacitor an open stub of Richards' form
- *   (Pozar §8.4, eq. 8.67): λ/8 long at the cut-off with Z = R0/g_k (its susceptance tan(πf/4fc)·g_k/R0 is g_k·ωc/R0… at fc);
+ * - open-stub form: series high-impedance lines and open stubs of Richards' form (Pozar §8.4, eq. 8.67), λ/8 long
+ *   at the cut-off, every piece equal to its prototype element at the cut-off (stubPlan);
  * - band-stop: Pozar §8.5 (eq. 8.79): N open stubs a quarter wave long at f0 with Z0n = 4·Z0/(π·g_n·Δ), joined by
  *   quarter-wave Z0 lines; Δ the fractional bandwidth.
  */
 import { InputError } from '../../util/errors.ts';
 import { synthesizeLine } from '../../line/index.ts';
+import { newDesign } from '../../design/defaults.ts';
+import { sizeDesign } from '../../layout/sizing.ts';
+import { teeJunction } from '../../discontinuity/hammerstad1981TeeJunction.ts';
 import { prototypeValues } from '../lowpassPrototype.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec } from '../context.ts';
 
@@ -22,6 +25,34 @@ const RIPPLE = { name: 'rippleDb', type: 'number', unit: 'db', min: 0.01, max: 3
 
 function gValues(spec: Spec): number[] {
   return prototypeValues(spec.response === 'maxflat' ? 'maximally-flat' : 'equal-ripple', spec.order as number, (spec.rippleDb as number | undefined) ?? 0.5);
+}
+
+/**
+ * The open-stub form, sized so that at the cut-off every piece equals its prototype element exactly. A series line
+ * of Zh and electrical length θ is a π of series reactance Zh·sin θ with a shunt susceptance tan(θ/2)/Zh at each
+ * end (from the line's ABCD matrix, Pozar §4.4, Table 4.1), so the inductor g_k is the line with
+ * sin θ = g_k·R0/Zh, and each stub supplies the capacitor's g_k/R0 less the line ends beside it. The stubs are
+ * Richards' λ/8 open stubs at the cut-off (Pozar §8.4, eq. 8.67: tan 45° = 1, so a stub of admittance B is one of
+ * impedance 1/B). Sizing each series line as a lumped inductor (βℓ = g·R0/Zh) instead leaves the ends' shunt
+ * capacitance on the stubs, whose tan-law susceptance then overshoots the ripple in the band (the ripple edge came
+ * about 16 % low for 0.5 dB, order 5).
+ * `teeN2[k]` is the tee model's branch turns ratio n² at stub k (Hammerstad 1981, as the sweep uses it): the tee
+ * shows a stub of Z as Z/n², so the stub is made n²·Z.
+ */
+export function stubPlan(g: number[], n: number, z0: number, zh: number, teeN2: number[] = []): { lineRad: number[]; stubZ: number[] } {
+  const lineRad: number[] = [], stubZ: number[] = [];
+  for (let k = 2; k <= n; k += 2) {
+    const sin = (g[k]! * z0) / zh;
+    if (!(sin < 1)) throw new InputError('out-of-range', 'lowpass.zHigh', `an inductor line impedance above g${k}·R0 = ${(g[k]! * z0).toFixed(1)} Ω`, `${zh} Ω`, 'raise zHigh (a narrower line) or choose a smaller ripple');
+    lineRad[k] = Math.asin(sin);
+  }
+  for (let k = 1; k <= n; k += 2) {
+    const ends = [k - 1, k + 1].filter((i) => i >= 2 && i <= n).reduce((sum, i) => sum + Math.tan(lineRad[i]! / 2) / zh, 0);
+    const b = g[k]! / z0 - ends;
+    if (!(b > 0)) throw new InputError('out-of-range', 'lowpass.zHigh', `inductor lines whose ends leave stub g${k} a positive susceptance`, `${zh} Ω`, 'raise zHigh (shorter, narrower inductor lines)');
+    stubZ[k] = (teeN2[k] ?? 1) / b;
+  }
+  return { lineRad, stubZ };
 }
 
 /** A row of pieces from `src` to `load` (ports at z0), every piece given by its physical length at the block's own frequency. */
@@ -46,44 +77,61 @@ export const lowpassBlock: BlockDef = {
     const g = gValues(spec), n = spec.order as number;
     const sub = ctx.substrate;
     const lenAt = (z: number, rad: number) => (synthesizeLine(sub, z, fc).lambdaG * rad) / (2 * Math.PI);
-    const sk = new Sketch();
-    sk.port('src', { x: -feed, y: 0 }, z0, 0, 'input');
-    let x = 0, prev = 'src', first = true;
-    const rows: string[] = [];
-    for (let k = 1; k <= n; k++) {
-      const shunt = k % 2 === 1; // starts with a shunt capacitor
-      if (!shunt || !stubs) {
-        const z = shunt ? zl : zh;
-        const rad = shunt ? (g[k]! * zl) / z0 : (g[k]! * z0) / zh;
-        if (shunt) widthFor(ctx, zl, 'lowpass.zLow', 'the capacitor lines');
-        const L = lenAt(z, rad);
-        const a = first ? sk.vertex('k0', { x, y: 0 }, 'square') : prev;
-        if (first) { sk.line('in', 'src', a, z0, { length: feed }); first = false; }
-        x += L;
-        const b = sk.vertex(`k${k}`, { x, y: 0 }, 'square');
-        sk.line(`e${k}`, a, b, z, { length: L }, `${shunt ? 'capacitor' : 'inductor'} g${k}`);
-        rows.push(`g${k} = ${g[k]!.toFixed(4)} → ${ohm(z)}, ${((rad * 180) / Math.PI).toFixed(2)}° at the cut-off`);
-        prev = b;
-      } else {
-        const zs = z0 / g[k]!;
-        widthFor(ctx, zs, 'lowpass.form', `stub g${k}`);
-        const j = sk.junction(`t${k}`, { x, y: 0 });
-        if (first) { sk.line('in', 'src', j, z0, { length: feed }); first = false; }
-        else {
-          // The previous piece ended at a vertex; re-use it as the tee.
-          const seg = sk.segments[sk.segments.length - 1]!;
-          seg.b = j; sk.nodes = sk.nodes.filter((nd) => nd.id !== prev);
+    const draw = (plan: ReturnType<typeof stubPlan> | null): { sk: Sketch; rows: string[] } => {
+      const sk = new Sketch();
+      sk.port('src', { x: -feed, y: 0 }, z0, 0, 'input');
+      let x = 0, prev = 'src', first = true;
+      const rows: string[] = [];
+      for (let k = 1; k <= n; k++) {
+        const shunt = k % 2 === 1; // starts with a shunt capacitor
+        if (!shunt || !plan) {
+          const z = shunt ? zl : zh;
+          const rad = plan ? plan.lineRad[k]! : shunt ? (g[k]! * zl) / z0 : (g[k]! * z0) / zh;
+          if (shunt) widthFor(ctx, zl, 'lowpass.zLow', 'the capacitor lines');
+          const L = lenAt(z, rad);
+          const a = first ? sk.vertex('k0', { x, y: 0 }, 'square') : prev;
+          if (first) { sk.line('in', 'src', a, z0, { length: feed }); first = false; }
+          x += L;
+          const b = sk.vertex(`k${k}`, { x, y: 0 }, 'square');
+          sk.line(`e${k}`, a, b, z, { length: L }, `${shunt ? 'capacitor' : 'inductor'} g${k}`);
+          rows.push(`g${k} = ${g[k]!.toFixed(4)} → ${ohm(z)}, ${((rad * 180) / Math.PI).toFixed(2)}° at the cut-off`);
+          prev = b;
+        } else {
+          const zs = plan.stubZ[k]!;
+          widthFor(ctx, zs, 'lowpass.form', `stub g${k}`);
+          const j = sk.junction(`t${k}`, { x, y: 0 });
+          if (first) { sk.line('in', 'src', j, z0, { length: feed }); first = false; }
+          else {
+            // The previous piece ended at a vertex; re-use it as the tee.
+            const seg = sk.segments[sk.segments.length - 1]!;
+            seg.b = j; sk.nodes = sk.nodes.filter((nd) => nd.id !== prev);
+          }
+          const L = lenAt(zs, Math.PI / 4);
+          sk.open(`s${k}-end`, { x, y: -L }, 'stub end');
+          sk.line(`s${k}`, j, `s${k}-end`, zs, { length: L }, `capacitor g${k} (open stub)`);
+          rows.push(`g${k} = ${g[k]!.toFixed(4)} → open stub ${ohm(zs)}, λ/8 at the cut-off`);
+          prev = j;
         }
-        const L = lenAt(zs, Math.PI / 4);
-        sk.open(`s${k}-end`, { x, y: -L }, 'stub end');
-        sk.line(`s${k}`, j, `s${k}-end`, zs, { length: L }, `capacitor g${k} (open stub)`);
-        rows.push(`g${k} = ${g[k]!.toFixed(4)} → open stub ${ohm(zs)}, λ/8 at the cut-off`);
-        prev = j;
       }
+      x += feed;
+      sk.port('load', { x, y: 0 }, z0, Math.PI, 'output');
+      sk.line('out', prev, 'load', z0, { length: feed });
+      return { sk, rows };
+    };
+    let drawn = draw(stubs ? stubPlan(g, n, z0, zh) : null);
+    // The stubs meet the row at tees whose model (the sweep's) scales a branch by n²: two passes settle n² at the
+    // cut-off, which depends on the stub widths.
+    for (let pass = 0; pass < 2 && stubs && ctx.junctions === 'modelled'; pass++) {
+      const probe = newDesign({ f0: ctx.f0, substrate: sub, process: ctx.process });
+      probe.nodes = drawn.sk.nodes; probe.segments = drawn.sk.segments;
+      const n2: number[] = [];
+      for (const nd of sizeDesign(probe).nodes) {
+        const k = /^t(\d+)$/.exec(nd.id)?.[1];
+        if (k && nd.tee) n2[Number(k)] = teeJunction({ ...nd.tee.arms, h: sub.h, f: fc }).n2;
+      }
+      drawn = draw(stubPlan(g, n, z0, zh, n2));
     }
-    x += feed;
-    sk.port('load', { x, y: 0 }, z0, Math.PI, 'output');
-    sk.line('out', prev, 'load', z0, { length: feed });
+    const { sk, rows } = drawn;
     const f0 = ctx.f0, ripple = spec.response === 'chebyshev' ? spec.rippleDb as number : 3.0103;
     return {
       name: `Order ${n} ${stubs ? 'open-stub' : 'stepped-impedance'} low-pass, cut-off ${ghz(fc)}`,
