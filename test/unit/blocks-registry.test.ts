@@ -147,7 +147,10 @@ describe('rat-race (Pozar §7.8), lossless, at f0', () => {
 });
 
 describe('corporate feed, lossless, at f0', () => {
-  for (const [n, split, amps] of [[4, 'tee', ''], [3, 'tee', ''], [5, 'tee', '0,-1,-3,-1,0'], [4, 'wilkinson', '']] as const) {
+  // Steep tapers (levels of our own choosing): an 8-output −10 dB edge taper and a 4-output Taylor-like one; their
+  // low-impedance tees are where the tee model's branch transformer matters (corporate.ts, teeLevels).
+  for (const [n, split, amps] of [[4, 'tee', ''], [3, 'tee', ''], [5, 'tee', '0,-1,-3,-1,0'], [4, 'wilkinson', ''],
+    [8, 'tee', '-10,-6,-2.5,0,0,-2.5,-6,-10'], [4, 'tee', '-4.5,0,0,-4.5'], [6, 'wilkinson', '-3,-1,0,0,-1,-3'], [3, 'wilkinson', '']] as const) {
     it(`${n} outputs, ${split} splits${amps ? `, levels ${amps} dB` : ''}: each level within 0.1 dB of the ideal share, all in phase within 1°, matched below −25 dB`, () => {
       const doc = make('corporate', { outputs: `${n}`, split, ...(amps ? { amplitudesDb: amps } : {}) });
       const r = sweep(doc, [F0]);
