@@ -21,6 +21,7 @@ import { sizeDesign } from '../../layout/sizing.ts';
 import { InputError } from '../../util/errors.ts';
 import { C0 } from '../../units/index.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec } from '../context.ts';
+import { FOOTPRINT_PARAM } from '../fold.ts';
 import { fitSpans, levelTargets, matchPhases, placeAsSized, type SpanFit } from '../drawn.ts';
 import { wilkinsonValues } from './splitters.ts';
 
@@ -45,7 +46,7 @@ export const corporateBlock: BlockDef = {
     { name: 'pitch', type: 'number', unit: 'length', min: 2e-3, max: 500e-3, optional: true, meaning: 'Distance between neighbouring outputs (default half a free-space wavelength at f0)' },
     { name: 'heading', type: 'number', unit: 'none', min: -180, max: 180, default: -90, meaning: 'Direction the outputs face, degrees from +x' },
     Z0_PARAM,
-    FEED_PARAM,
+    FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext) {
     const n = spec.outputs as number, z0 = spec.z0 as number, feed = spec.feed as number;

@@ -18,6 +18,7 @@ import { sizeDesign } from '../../layout/sizing.ts';
 import { teeJunction } from '../../discontinuity/hammerstad1981TeeJunction.ts';
 import { prototypeValues } from '../lowpassPrototype.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec } from '../context.ts';
+import { FOOTPRINT_PARAM } from '../fold.ts';
 
 const RESPONSE = { name: 'response', type: 'choice', choices: ['maxflat', 'chebyshev'], default: 'chebyshev', meaning: 'Maximally flat (−3 dB at the edge) or equal ripple' } as const;
 const ORDER = { name: 'order', type: 'integer', min: 1, max: 10, default: 5, meaning: 'Filter order (number of reactive elements)' } as const;
@@ -67,7 +68,7 @@ export const lowpassBlock: BlockDef = {
     { name: 'cutoff', type: 'number', unit: 'frequency', min: 10e6, max: 100e9, optional: true, meaning: 'Cut-off frequency (default f0): −3 dB (maxflat) or the ripple edge' },
     { name: 'zHigh', type: 'number', unit: 'impedance', min: 50, max: 200, default: 110, meaning: 'Impedance of the inductor lines' },
     { name: 'zLow', type: 'number', unit: 'impedance', min: 5, max: 50, default: 20, meaning: 'Impedance of the capacitor lines (stepped form)' },
-    Z0_PARAM, FEED_PARAM,
+    Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext) {
     const z0 = spec.z0 as number, feed = spec.feed as number, fc = (spec.cutoff as number | undefined) ?? ctx.f0;
@@ -156,7 +157,7 @@ export const bandstopBlock: BlockDef = {
   params: [
     { ...RESPONSE, default: 'maxflat' }, { ...ORDER, default: 3, max: 7 }, RIPPLE,
     { name: 'bw', type: 'number', unit: 'ratio', min: 0.05, max: 0.8, default: 0.5, meaning: 'Fractional stop bandwidth (0.3 = 30 %)' },
-    Z0_PARAM, FEED_PARAM,
+    Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec, ctx) {
     const z0 = spec.z0 as number, feed = spec.feed as number, bw = spec.bw as number, f0 = ctx.f0;
@@ -197,7 +198,7 @@ export const launchBlock: BlockDef = {
     { name: 'padWidth', type: 'number', unit: 'length', min: 0.3e-3, max: 10e-3, default: 1.5e-3, meaning: 'Width of the connector pad' },
     { name: 'padLength', type: 'number', unit: 'length', min: 0.3e-3, max: 20e-3, default: 3e-3, meaning: 'Length of the connector pad' },
     { name: 'taperLength', type: 'number', unit: 'length', min: 0.5e-3, max: 50e-3, default: 3e-3, meaning: 'Length of the taper from the pad to the line' },
-    Z0_PARAM, FEED_PARAM,
+    Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec, ctx) {
     const z0 = spec.z0 as number, feed = spec.feed as number, pw = spec.padWidth as number, pl = spec.padLength as number, tl = spec.taperLength as number;
