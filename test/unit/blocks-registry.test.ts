@@ -17,7 +17,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   BLOCKS, makeBlockDesign, readSpec, transformerSections, singleStubSolutions, doubleStubSolutions, throughLine, placeBlock, handEdits,
-  respecPlacement, sizeDesign, netlistFromSized, solveNetwork, validateDesign, newDesign, InputError, type DesignDoc, type NetworkResponse, type SubstrateSpec,
+  respecPlacement, sizeDesign, tracePaths, netlistFromSized, solveNetwork, validateDesign, newDesign, InputError, type DesignDoc, type NetworkResponse, type SubstrateSpec,
 } from '../../core/index.ts';
 
 const FR4: SubstrateSpec = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6 };
@@ -231,6 +231,51 @@ describe('low-pass band edges (Matthaei, Young and Jones 1964 §4.03–4.05)', (
     it(`stubs, ${ripple} dB equal ripple N = ${order}: the ripple-band edge within 5 % of the cut-off, no higher ripple inside it`, () => {
       const fc = 2e9;
       expect(Math.abs(edge(make('lowpass', { form: 'stubs', response: 'chebyshev', order, rippleDb: ripple, cutoff: '2 GHz' }), Number(ripple) + 0.05, fc) / fc - 1)).toBeLessThan(0.05);
+    });
+  }
+});
+
+describe('band-stop edges (Matthaei, Young and Jones 1964 §4.03; Pozar §8.5)', () => {
+  // A maximally flat prototype is 3.01 dB down at ω' = 1, which the band-stop mapping puts at f0·(1 ∓ Δ/2)
+  // (Pozar §8.5, the band-stop transformation of §8.3 with fractional bandwidth Δ). Lossless copy; 5 % of each edge.
+  for (const [order, bw] of [['3', 0.5], ['2', 0.6], ['3', 0.7]] as const) {
+    it(`maximally flat N = ${order}, Δ = ${bw * 100} %: both −3 dB edges within 5 %, and a deep stop at f0`, () => {
+      const doc = make('bandstop', { response: 'maxflat', order, bw: String(bw) });
+      const fs = Array.from({ length: 281 }, (_, k) => F0 * (0.3 + (1.4 * k) / 280));
+      const r = sweep(doc, fs);
+      const il = fs.map((_, k) => -s(r, k, 'b1.load', 'b1.src').db);
+      const lo = fs.findIndex((_, k) => il[k]! > 3.0103), hi = fs.findIndex((f, k) => f > F0 && il[k]! < 3.0103);
+      expect(lo).toBeGreaterThan(0);
+      expect(hi).toBeGreaterThan(0);
+      expect(Math.abs(fs[lo]! / (F0 * (1 - bw / 2)) - 1)).toBeLessThan(0.05);
+      expect(Math.abs(fs[hi]! / (F0 * (1 + bw / 2)) - 1)).toBeLessThan(0.05);
+      expect(-s(sweep(doc, [F0]), 0, 'b1.load', 'b1.src').db).toBeGreaterThan(40);
+    });
+  }
+});
+
+const TAPER8 = '-10,-6,-2.5,0,0,-2.5,-6,-10';
+/** Ideal level of output i of a taper given in dB: its share of the total power. */
+const share = (dbs: string, i: number) => { const p = dbs.split(',').map((x) => 10 ** (Number(x) / 10)); return 10 * Math.log10(p[i]! / p.reduce((a, b) => a + b, 0)); };
+
+describe('with losses, at f0: each transmission within 0.1 dB of the ideal less its path\'s line loss', () => {
+  // The loss of each path is the path report's (core/layout/paths.ts), from the same line model as the sweep; the
+  // ideal levels are the splits' (Pozar §7.2–7.3, §5.6).
+  for (const [kind, raw, from, outs, ideal] of [
+    ['corporate', {}, 'in', ['out1', 'out2', 'out3', 'out4'], [-6.0206, -6.0206, -6.0206, -6.0206]],
+    ['corporate', { outputs: '8', amplitudesDb: TAPER8 }, 'in', ['out1', 'out4'], [share(TAPER8, 0), share(TAPER8, 3)]],
+    ['wilkinson', { ratioDb: '3' }, 'in', ['o1', 'o2'], [10 * Math.log10(1 / (1 + 10 ** -0.3)), 10 * Math.log10(10 ** -0.3 / (1 + 10 ** -0.3))]],
+    ['transformer', {}, 'src', ['load'], [0]],
+  ] as const) {
+    it(`${kind} ${JSON.stringify(raw)}`, () => {
+      const doc = make(kind, raw);
+      const rep = tracePaths(sizeDesign(doc), `b1.${from}`, outs.map((o) => `b1.${o}`), { sensitivities: false });
+      const r = sweep(doc, [F0], false);
+      outs.forEach((o, i) => {
+        const loss = rep.paths.find((p) => p.to === `b1.${o}`)!.lossDb;
+        expect(loss).toBeGreaterThan(0);
+        expect(Math.abs(s(r, 0, `b1.${o}`, `b1.${from}`).db - (ideal[i]! - loss)), o).toBeLessThan(0.1);
+      });
     });
   }
 });

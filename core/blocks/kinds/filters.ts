@@ -9,13 +9,16 @@
  * - open-stub form: series high-impedance lines and open stubs of Richards' form (Pozar §8.4, eq. 8.67), λ/8 long
  *   at the cut-off, every piece equal to its prototype element at the cut-off (stubPlan);
  * - band-stop: Pozar §8.5 (eq. 8.79): N open stubs a quarter wave long at f0 with Z0n = 4·Z0/(π·g_n·Δ), joined by
- *   quarter-wave Z0 lines; Δ the fractional bandwidth.
+ *   quarter-wave Z0 lines; Δ the fractional bandwidth. That form holds for narrow bands; the design Δ is rescaled
+ *   against the block's own lossless sweep so the edges fall where asked (stopBandwidth).
  */
 import { InputError } from '../../util/errors.ts';
 import { synthesizeLine } from '../../line/index.ts';
 import { newDesign } from '../../design/defaults.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
 import { teeJunction } from '../../discontinuity/hammerstad1981TeeJunction.ts';
+import { netlistFromSized } from '../../network/fromSized.ts';
+import { solveNetwork } from '../../network/sweep.ts';
 import { prototypeValues } from '../lowpassPrototype.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
@@ -149,6 +152,37 @@ export const lowpassBlock: BlockDef = {
   },
 };
 
+/**
+ * Fractional width of the band where a lossless sweep (the sweep's junction models) of the drawn filter loses more
+ * than `levelDb`, about its f0: from the lower edge (below f0) to the upper one (above it); NaN when one is not found.
+ */
+function stopBandwidth(sk: Sketch, ctx: BlockContext, levelDb: number): number {
+  const doc = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process });
+  doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
+  const sized = sizeDesign(doc);
+  if (sized.problems.length) return NaN;
+  const net = netlistFromSized(sized, { lossless: true });
+  const loss = (f: number): number => {
+    const r = solveNetwork(net, new Float64Array([f]));
+    const P = r.ports.length, i = r.ports.findIndex((p) => p.name === 'load'), j = r.ports.findIndex((p) => p.name === 'src');
+    const t = 2 * (i * P + j);
+    return -20 * Math.log10(Math.hypot(r.s[t]!, r.s[t + 1]!));
+  };
+  // Scan from below f0 up to it for the first frequency past the level, and from f0 up for the last one; bisect each.
+  const f0 = ctx.f0;
+  /** First frequency from `from` up to `to` where the filter is (`inside`) or is not in its stop band, bisected. */
+  const edge = (from: number, to: number, inside: boolean): number => {
+    const hit = (f: number) => (loss(f) > levelDb) === inside;
+    const fs = Array.from({ length: 41 }, (_, k) => from + ((to - from) * k) / 40);
+    const k = fs.findIndex(hit);
+    if (k <= 0) return NaN;
+    let a = fs[k - 1]!, b = fs[k]!;
+    for (let it = 0; it < 30; it++) { const m = (a + b) / 2; if (hit(m)) b = m; else a = m; }
+    return (a + b) / 2;
+  };
+  return (edge(f0 * 1.02, f0 * 1.9, false) - edge(f0 * 0.1, f0, true)) / f0;
+}
+
 export const bandstopBlock: BlockDef = {
   kind: 'bandstop',
   title: 'Band-stop filter',
@@ -162,24 +196,43 @@ export const bandstopBlock: BlockDef = {
   generate(spec, ctx) {
     const z0 = spec.z0 as number, feed = spec.feed as number, bw = spec.bw as number, f0 = ctx.f0;
     const g = gValues(spec), n = spec.order as number;
-    const sk = new Sketch();
-    sk.port('src', { x: -feed, y: 0 }, z0, 0, 'input');
     const q = lambdaG(ctx, z0) / 4;
-    const rows: string[] = [];
-    let prev = 'src';
-    for (let k = 1; k <= n; k++) {
-      const zs = (4 * z0) / (Math.PI * g[k]! * bw);
-      widthFor(ctx, zs, 'bandstop.bw', `stub ${k}`);
-      const x = (k - 1) * q;
-      const j = sk.junction(`t${k}`, { x, y: 0 });
-      sk.line(k === 1 ? 'in' : `l${k - 1}`, prev, j, z0, k === 1 ? { length: feed } : { deg: 90 }, k === 1 ? undefined : 'quarter-wave line');
-      sk.open(`s${k}-end`, { x, y: -lambdaG(ctx, zs) / 4 }, 'stub end');
-      sk.line(`s${k}`, j, `s${k}-end`, zs, { deg: 90 }, `stub ${k}`);
-      rows.push(`stub ${k}: g${k} = ${g[k]!.toFixed(4)} → ${ohm(zs)}, 90° at f0`);
-      prev = j;
+    /** The filter designed for fractional bandwidth `d` (Pozar eq. 8.79 with Δ = d). */
+    const draw = (d: number): { sk: Sketch; rows: string[] } => {
+      const sk = new Sketch();
+      sk.port('src', { x: -feed, y: 0 }, z0, 0, 'input');
+      const rows: string[] = [];
+      let prev = 'src';
+      for (let k = 1; k <= n; k++) {
+        const zs = (4 * z0) / (Math.PI * g[k]! * d);
+        widthFor(ctx, zs, 'bandstop.bw', `stub ${k}`);
+        const x = (k - 1) * q;
+        const j = sk.junction(`t${k}`, { x, y: 0 });
+        sk.line(k === 1 ? 'in' : `l${k - 1}`, prev, j, z0, k === 1 ? { length: feed } : { deg: 90 }, k === 1 ? undefined : 'quarter-wave line');
+        sk.open(`s${k}-end`, { x, y: -lambdaG(ctx, zs) / 4 }, 'stub end');
+        sk.line(`s${k}`, j, `s${k}-end`, zs, { deg: 90 }, `stub ${k}`);
+        rows.push(`stub ${k}: g${k} = ${g[k]!.toFixed(4)} → ${ohm(zs)}, 90° at f0`);
+        prev = j;
+      }
+      sk.port('load', { x: (n - 1) * q + feed, y: 0 }, z0, Math.PI, 'output');
+      sk.line('out', prev, 'load', z0, { length: feed });
+      return { sk, rows };
+    };
+    // Eq. 8.79 is the narrow-band form: the quarter-wave lines are inverters only at f0, so a wide band comes out
+    // narrow (a 50 % maximally flat order 3 measured 35 %). The band is symmetric about f0 (every piece is a quarter
+    // wave there), so one number corrects it: the design bandwidth is rescaled until the lossless sweep (with the
+    // junction models) puts the edge where asked; the edge is −3.01 dB (maximally flat) or the ripple level.
+    // (0.05 dB above an equal ripple, so the ripple inside the pass bands is not taken for the edge.)
+    const level = spec.response === 'chebyshev' ? (spec.rippleDb as number) + 0.05 : 3.0103;
+    let d = bw, drawn = draw(d), measured = NaN;
+    for (let it = 0; it < 6; it++) {
+      measured = stopBandwidth(drawn.sk, ctx, level);
+      if (!Number.isFinite(measured) || Math.abs(measured / bw - 1) < 0.005) break;
+      d *= bw / measured;
+      drawn = draw(d);
     }
-    sk.port('load', { x: (n - 1) * q + feed, y: 0 }, z0, Math.PI, 'output');
-    sk.line('out', prev, 'load', z0, { length: feed });
+    const { sk, rows } = drawn;
+    rows.push(`Designed with Δ = ${(d * 100).toFixed(1)} % so the ${level.toFixed(2)} dB edges fall ${(bw * 100).toFixed(1)} % apart (lossless sweep${Number.isFinite(measured) ? `: ${(measured * 100).toFixed(1)} %` : ''}).`);
     return {
       name: `Order ${n} band-stop, ${ghz(f0)}, ${(bw * 100).toFixed(0)} %`, nodes: sk.nodes, segments: sk.segments, phaseGroups: [],
       targets: [{ id: 'stop', name: 'stop band', figure: 'insertion-loss', ports: ['src', 'load'], band: { start: f0, stop: f0 }, limit: { min: 20 } }],
