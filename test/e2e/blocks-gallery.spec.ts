@@ -10,6 +10,12 @@ import { readmeShot } from './readme-shots.ts';
 
 /** Fields a block has no default for (our own example load). */
 const FILL: Record<string, Record<string, string>> = { 'stub-match': { load: '30-20j' } };
+/** The band each response is shown over (start, stop), wide enough to see the block's pass and stop bands. */
+const BAND: Record<string, [string, string]> = {
+  corporate: ['2 GHz', '2.9 GHz'], wilkinson: ['1.8 GHz', '3.1 GHz'], branchline: ['1.8 GHz', '3.1 GHz'], ratrace: ['1.8 GHz', '3.1 GHz'],
+  transformer: ['1 GHz', '3.9 GHz'], taper: ['0.5 GHz', '6 GHz'], 'stub-match': ['1.8 GHz', '3.1 GHz'], lowpass: ['0.1 GHz', '5 GHz'],
+  bandstop: ['0.5 GHz', '4.4 GHz'], launch: ['1 GHz', '3.9 GHz'],
+};
 const KINDS = ['corporate', 'wilkinson', 'branchline', 'ratrace', 'transformer', 'taper', 'stub-match', 'lowpass', 'bandstop', 'launch'];
 
 test('each block places from the picker and shows its copper and its response', async ({ page }) => {
@@ -36,6 +42,23 @@ test('each block places from the picker and shows its copper and its response', 
     await page.keyboard.press('Escape');
     await page.keyboard.press('Alt+3');
     await expect(page.getByTestId('f0-S11')).toBeVisible({ timeout: 60_000 });
+    const [start, stop] = BAND[kind]!;
+    await page.getByTestId('sweep-settings').click();
+    await page.getByTestId('sweep-start').fill(start);
+    await page.getByTestId('sweep-stop').fill(stop);
+    await page.getByTestId('sweep-points').fill('201');
+    await page.getByTestId('sweep-points').press('Enter');
+    await expect(page.getByTestId('sweep-form')).toHaveCount(0);
+    // The full sweep over the new band, not its coarse first pass, then a moment for the plot to draw it.
+    const range = `${Number.parseFloat(start).toFixed(4)}–${Number.parseFloat(stop).toFixed(4)} GHz`;
+    await expect(page.getByTestId('sweep-summary')).toContainText(range, { timeout: 60_000 });
+    await expect(page.getByTestId('sweep-summary')).toContainText('201 points', { timeout: 60_000 });
+    await expect(page.getByTestId('sweep-summary')).not.toContainText('first pass', { timeout: 60_000 });
+    await page.mouse.move(1, 760);
+    await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
+    await page.waitForTimeout(1000);
+    // The worker's timing in the status bar differs run to run: hidden, so the images are the same every time.
+    await page.getByTestId('layout-ms').evaluate((e) => { (e as HTMLElement).style.visibility = 'hidden'; });
     await readmeShot(page, `block-${kind}.png`);
   }
 });
