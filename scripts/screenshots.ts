@@ -6,7 +6,7 @@
  */
 import { spawnSync } from 'node:child_process';
 
-const SPECS = ['test/e2e/board-tools.spec.ts', 'test/e2e/blocks-feed.spec.ts', 'test/e2e/measured-report.spec.ts', 'test/e2e/editor-workflow.spec.ts', 'test/e2e/editor-outputs.spec.ts', 'test/e2e/coupon.spec.ts', 'test/e2e/cross-section.spec.ts', 'test/e2e/outputs-gcode.spec.ts', 'test/e2e/yield.spec.ts', 'test/e2e/response.spec.ts', 'test/e2e/response-themes.spec.ts'];
+const SPECS = ['test/e2e/board-tools.spec.ts', 'test/e2e/blocks-feed.spec.ts', 'test/e2e/blocks-gallery.spec.ts', 'test/e2e/measured-report.spec.ts', 'test/e2e/editor-workflow.spec.ts', 'test/e2e/editor-outputs.spec.ts', 'test/e2e/coupon.spec.ts', 'test/e2e/cross-section.spec.ts', 'test/e2e/outputs-gcode.spec.ts', 'test/e2e/yield.spec.ts', 'test/e2e/response.spec.ts', 'test/e2e/response-themes.spec.ts'];
 
 function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = process.env): void {
   const r = spawnSync(cmd, args, { stdio: 'inherit', env, shell: process.platform === 'win32' });

@@ -14,6 +14,7 @@ import { blockDef } from './registry.ts';
 import { readSpec, type ParamValue } from './params.ts';
 import type { BlockContext, BlockPieces } from './context.ts';
 import { placeAsSized } from './drawn.ts';
+import { fitFootprint, footprintOf } from './fold.ts';
 import { sizeDesign } from '../layout/sizing.ts';
 
 /** The design's own laminate, process, f0 and junctions, as a block context. */
@@ -30,6 +31,10 @@ export function generateBlock(kind: string, raw: Record<string, unknown>, ctx: B
   const probe = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process });
   probe.junctions = ctx.junctions; probe.nodes = pieces.nodes; probe.segments = pieces.segments;
   placeAsSized(probe, kind);
+  // An optional footprint: the block is turned or folded to fit it, or refused naming the footprint it needs.
+  const fp = footprintOf(spec, kind);
+  const note = fp ? fitFootprint(probe, kind, fp) : null;
+  if (note) return { spec, pieces: { ...pieces, nodes: probe.nodes, segments: probe.segments, notes: [...pieces.notes, note] } };
   return { spec, pieces };
 }
 

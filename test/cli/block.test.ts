@@ -73,4 +73,16 @@ describe('stripwright block (registry)', () => {
     const u = await run(['block', 'wilkinson', '--ratio', '3', '--f0', '2.45GHz', '--out', 'x.json'], dir);
     expect(u.code).toBe(2);
   });
+  it('--footprint folds a long row to fit, and refuses a block with branches that cannot, naming the footprint it needs', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const r = await run(['block', 'transformer', '--z1', '50', '--z2', '100', '--footprint', '30mm,40mm', '--f0', '2.45GHz', '--out', 't.json'], dir);
+    expect(r.code).toBe(0);
+    const p = parseDesign(readFileSync(join(dir, 't.json'), 'utf8'));
+    expect(p.ok && p.doc.nodes.some((n) => n.id.includes('.turn'))).toBe(true);
+    expect((await run(['build', 't.json'], dir)).code).toBe(0);
+    const no = await run(['block', 'corporate', '--outputs', '4', '--footprint', '20mm,20mm', '--f0', '2.45GHz', '--out', 'c.json'], dir);
+    expect(no.code).toBe(1);
+    expect(no.stderr).toMatch(/footprint of at least/);
+    expect(existsSync(join(dir, 'c.json'))).toBe(false);
+  });
 });

@@ -17,7 +17,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   BLOCKS, makeBlockDesign, readSpec, transformerSections, singleStubSolutions, doubleStubSolutions, throughLine, placeBlock, handEdits,
-  respecPlacement, sizeDesign, netlistFromSized, solveNetwork, validateDesign, newDesign, InputError, type DesignDoc, type NetworkResponse, type SubstrateSpec,
+  respecPlacement, sizeDesign, tracePaths, netlistFromSized, solveNetwork, validateDesign, newDesign, InputError, type DesignDoc, type NetworkResponse, type SubstrateSpec,
 } from '../../core/index.ts';
 
 const FR4: SubstrateSpec = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6 };
@@ -147,7 +147,10 @@ describe('rat-race (Pozar §7.8), lossless, at f0', () => {
 });
 
 describe('corporate feed, lossless, at f0', () => {
-  for (const [n, split, amps] of [[4, 'tee', ''], [3, 'tee', ''], [5, 'tee', '0,-1,-3,-1,0'], [4, 'wilkinson', '']] as const) {
+  // Steep tapers (levels of our own choosing): an 8-output −10 dB edge taper and a 4-output Taylor-like one; their
+  // low-impedance tees are where the tee model's branch transformer matters (corporate.ts, teeLevels).
+  for (const [n, split, amps] of [[4, 'tee', ''], [3, 'tee', ''], [5, 'tee', '0,-1,-3,-1,0'], [4, 'wilkinson', ''],
+    [8, 'tee', '-10,-6,-2.5,0,0,-2.5,-6,-10'], [4, 'tee', '-4.5,0,0,-4.5'], [6, 'wilkinson', '-3,-1,0,0,-1,-3'], [3, 'wilkinson', '']] as const) {
     it(`${n} outputs, ${split} splits${amps ? `, levels ${amps} dB` : ''}: each level within 0.1 dB of the ideal share, all in phase within 1°, matched below −25 dB`, () => {
       const doc = make('corporate', { outputs: `${n}`, split, ...(amps ? { amplitudesDb: amps } : {}) });
       const r = sweep(doc, [F0]);
@@ -205,7 +208,7 @@ describe('stub match (Pozar §5.2–5.3)', () => {
 
 describe('low-pass band edges (Matthaei, Young and Jones 1964 §4.03–4.05)', () => {
   const edge = (doc: DesignDoc, level: number, fc: number) => {
-    const fs = Array.from({ length: 161 }, (_, k) => fc * (0.6 + (0.8 * k) / 160));
+    const fs = Array.from({ length: 241 }, (_, k) => fc * (0.2 + (1.2 * k) / 240));
     const r = sweep(doc, fs);
     const il = fs.map((_, k) => -s(r, k, 'b1.load', 'b1.src').db);
     const k = il.findIndex((x) => x > level);
@@ -216,12 +219,63 @@ describe('low-pass band edges (Matthaei, Young and Jones 1964 §4.03–4.05)', (
       const fc = 2e9;
       expect(Math.abs(edge(make('lowpass', { form, response: 'maxflat', order: '5', cutoff: '2 GHz' }), 3.0103, fc) / fc - 1)).toBeLessThan(tol);
     });
-    // The open-stub form's equal-ripple edge is 16 % low (its stubs are Richards' λ/8 stubs without Kuroda's unit
-    // elements): only the stepped form is held to this edge.
-    if (form === 'stubs') continue;
     it(`${form}, 0.5 dB equal ripple N = 5: the ripple edge within ${tol * 100} % of the cut-off`, () => {
       const fc = 2e9;
       expect(Math.abs(edge(make('lowpass', { form, response: 'chebyshev', order: '5', rippleDb: '0.5', cutoff: '2 GHz' }), 0.5 + 0.05, fc) / fc - 1)).toBeLessThan(tol);
+    });
+  }
+  // The equal-ripple prototype's ripple band ends at ω' = 1 (Matthaei, Young and Jones 1964, §4.03), which Richards'
+  // transform puts where the stubs are λ/8 (Pozar §8.4): the open-stub form's ripple edge is the cut-off, and the
+  // ripple inside the band stays at the prototype's (lossless copy; 0.05 dB allowed for the sweep's junction models).
+  for (const [ripple, order] of [['0.1', '3'], ['1', '3'], ['0.2', '5'], ['1', '5'], ['0.5', '7']] as const) {
+    it(`stubs, ${ripple} dB equal ripple N = ${order}: the ripple-band edge within 5 % of the cut-off, no higher ripple inside it`, () => {
+      const fc = 2e9;
+      expect(Math.abs(edge(make('lowpass', { form: 'stubs', response: 'chebyshev', order, rippleDb: ripple, cutoff: '2 GHz' }), Number(ripple) + 0.05, fc) / fc - 1)).toBeLessThan(0.05);
+    });
+  }
+});
+
+describe('band-stop edges (Matthaei, Young and Jones 1964 §4.03; Pozar §8.5)', () => {
+  // A maximally flat prototype is 3.01 dB down at ω' = 1, which the band-stop mapping puts at f0·(1 ∓ Δ/2)
+  // (Pozar §8.5, the band-stop transformation of §8.3 with fractional bandwidth Δ). Lossless copy; 5 % of each edge.
+  for (const [order, bw] of [['3', 0.5], ['2', 0.6], ['3', 0.7]] as const) {
+    it(`maximally flat N = ${order}, Δ = ${bw * 100} %: both −3 dB edges within 5 %, and a deep stop at f0`, () => {
+      const doc = make('bandstop', { response: 'maxflat', order, bw: String(bw) });
+      const fs = Array.from({ length: 281 }, (_, k) => F0 * (0.3 + (1.4 * k) / 280));
+      const r = sweep(doc, fs);
+      const il = fs.map((_, k) => -s(r, k, 'b1.load', 'b1.src').db);
+      const lo = fs.findIndex((_, k) => il[k]! > 3.0103), hi = fs.findIndex((f, k) => f > F0 && il[k]! < 3.0103);
+      expect(lo).toBeGreaterThan(0);
+      expect(hi).toBeGreaterThan(0);
+      expect(Math.abs(fs[lo]! / (F0 * (1 - bw / 2)) - 1)).toBeLessThan(0.05);
+      expect(Math.abs(fs[hi]! / (F0 * (1 + bw / 2)) - 1)).toBeLessThan(0.05);
+      expect(-s(sweep(doc, [F0]), 0, 'b1.load', 'b1.src').db).toBeGreaterThan(40);
+    });
+  }
+});
+
+const TAPER8 = '-10,-6,-2.5,0,0,-2.5,-6,-10';
+/** Ideal level of output i of a taper given in dB: its share of the total power. */
+const share = (dbs: string, i: number) => { const p = dbs.split(',').map((x) => 10 ** (Number(x) / 10)); return 10 * Math.log10(p[i]! / p.reduce((a, b) => a + b, 0)); };
+
+describe('with losses, at f0: each transmission within 0.1 dB of the ideal less its path\'s line loss', () => {
+  // The loss of each path is the path report's (core/layout/paths.ts), from the same line model as the sweep; the
+  // ideal levels are the splits' (Pozar §7.2–7.3, §5.6).
+  for (const [kind, raw, from, outs, ideal] of [
+    ['corporate', {}, 'in', ['out1', 'out2', 'out3', 'out4'], [-6.0206, -6.0206, -6.0206, -6.0206]],
+    ['corporate', { outputs: '8', amplitudesDb: TAPER8 }, 'in', ['out1', 'out4'], [share(TAPER8, 0), share(TAPER8, 3)]],
+    ['wilkinson', { ratioDb: '3' }, 'in', ['o1', 'o2'], [10 * Math.log10(1 / (1 + 10 ** -0.3)), 10 * Math.log10(10 ** -0.3 / (1 + 10 ** -0.3))]],
+    ['transformer', {}, 'src', ['load'], [0]],
+  ] as const) {
+    it(`${kind} ${JSON.stringify(raw)}`, () => {
+      const doc = make(kind, raw);
+      const rep = tracePaths(sizeDesign(doc), `b1.${from}`, outs.map((o) => `b1.${o}`), { sensitivities: false });
+      const r = sweep(doc, [F0], false);
+      outs.forEach((o, i) => {
+        const loss = rep.paths.find((p) => p.to === `b1.${o}`)!.lossDb;
+        expect(loss).toBeGreaterThan(0);
+        expect(Math.abs(s(r, 0, `b1.${o}`, `b1.${from}`).db - (ideal[i]! - loss)), o).toBeLessThan(0.1);
+      });
     });
   }
 });

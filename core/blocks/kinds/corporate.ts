@@ -17,9 +17,11 @@
  */
 import type { DesignDoc } from '../../design/types.ts';
 import { newDesign } from '../../design/defaults.ts';
+import { sizeDesign } from '../../layout/sizing.ts';
 import { InputError } from '../../util/errors.ts';
 import { C0 } from '../../units/index.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec } from '../context.ts';
+import { FOOTPRINT_PARAM } from '../fold.ts';
 import { fitSpans, levelTargets, matchPhases, placeAsSized, type SpanFit } from '../drawn.ts';
 import { wilkinsonValues } from './splitters.ts';
 
@@ -44,7 +46,7 @@ export const corporateBlock: BlockDef = {
     { name: 'pitch', type: 'number', unit: 'length', min: 2e-3, max: 500e-3, optional: true, meaning: 'Distance between neighbouring outputs (default half a free-space wavelength at f0)' },
     { name: 'heading', type: 'number', unit: 'none', min: -180, max: 180, default: -90, meaning: 'Direction the outputs face, degrees from +x' },
     Z0_PARAM,
-    FEED_PARAM,
+    FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext) {
     const n = spec.outputs as number, z0 = spec.z0 as number, feed = spec.feed as number;
@@ -62,6 +64,8 @@ export const corporateBlock: BlockDef = {
     const xOf = (i: number) => (i - (n - 1) / 2) * pitch;
     const centre = (t: Tree): number => (t.left ? (centre(t.left) + centre(t.right!)) / 2 : xOf(t.leaves[0]!));
     let seq = 0;
+    /** Quarter waves that feed a tee: the impedances they join and the tee below them (the n² pass reads it). */
+    const feedsTee = new Map<string, { zAbove: number; zj: number; tee: string }>();
     /** Junction level Zj of a split: the higher arm is 2·Z0 (tee); a Wilkinson split works at Z0. */
     const level = (t: Tree): number => (!t.left || wilk ? z0 : (2 * z0 * Math.min(t.left.power, t.right!.power)) / t.power);
     const drop = (z: number) => lambdaG(ctx, z) / 4;
@@ -99,10 +103,14 @@ export const corporateBlock: BlockDef = {
         sk.line(`wb${k}`, a, e, z, { deg: (90 * l2) / L });
         // Down from the arm end first (a 45° turn), then across to the child and down again.
         const xc = centre(c), ye = sk.at(e).y - 2 * span, xe = sk.at(e).x;
+        // The arm end sits at R2 = Z0·K or R3 = Z0/K (Pozar §7.3): the run to the child's quarter wave stays at that
+        // level, so its drawn length does not mismatch the split (a Z0 run there left an unequal split at −21 dB match).
+        const zEnd = side === 0 ? z0 * v.k : z0 / v.k;
+        widthFor(ctx, zEnd, 'corporate.amplitudesDb', `the run from a Wilkinson arm toward outputs ${c.leaves.map((i) => i + 1).join(', ')}`);
         const low = sk.vertex(`d${k}`, { x: xe, y: ye });
-        sk.line(`dn${k}`, e, low, z0, { length: 2 * span });
+        sk.line(`dn${k}`, e, low, zEnd, { length: 2 * span });
         const turn = sk.vertex(`h${k}`, { x: xc, y: ye });
-        sk.line(`run${k}`, low, turn, z0, 'drawn');
+        sk.line(`run${k}`, low, turn, zEnd, 'drawn');
         descend(c, turn, xc, ye, side === 0 ? v.t2 : v.t3, k);
         return e;
       });
@@ -118,6 +126,7 @@ export const corporateBlock: BlockDef = {
       const y2 = y - drop(zq);
       if (c.left) {
         const j = sk.junction(`j${k}`, { x, y: y2 });
+        if (!wilk) feedsTee.set(`q${k}`, { zAbove, zj: zNext, tee: j });
         sk.line(`q${k}`, from, j, zq, { deg: 90 }, 'quarter-wave transformer');
         grow(c, j, x, y2);
         return;
@@ -136,6 +145,7 @@ export const corporateBlock: BlockDef = {
       sk.line('feed', 'in', 'k0', z0, { length: feed });
       sk.junction('j', { x: 0, y: 0 });
       sk.line('qin', 'k0', 'j', Math.sqrt(z0 * zRoot), { deg: 90 }, 'input quarter-wave transformer');
+      feedsTee.set('qin', { zAbove: z0, zj: zRoot, tee: 'j' });
     } else {
       sk.junction('j', { x: 0, y: 0 });
       sk.line('feed', 'in', 'j', z0, { length: 2 * feed });
@@ -146,6 +156,7 @@ export const corporateBlock: BlockDef = {
     const doc: DesignDoc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process });
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     if (parts.length) fitSpans(doc, 'corporate', parts); else placeAsSized(doc, 'corporate');
+    if (ctx.junctions === 'modelled') teeLevels(doc, feedsTee);
     // Phase matching: each output line is lengthened by the phase its output leads the most delayed one, read from
     // the lossless sweep at f0 with the junction models (matchPhases).
     const before = new Map(doc.nodes.filter((x) => x.kind === 'port').map((x) => [x.id, x.at.y]));
@@ -174,6 +185,28 @@ export const corporateBlock: BlockDef = {
     };
   },
 };
+
+/**
+ * Each split's input is the branch of a tee (its arms leave sideways), and the tee model the sweep uses (Hammerstad
+ * 1981) joins the branch through a transformer that shows the junction's Zj as n²·Zj. The quarter wave above the
+ * tee therefore matches to n²·Zj (Pozar §5.4: Zq = √(Z_above·n²·Zj)); left at √(Z_above·Zj) it mismatches each
+ * arm, whose drawn length then moves the split (0.15 dB on an 8-output −10 dB edge taper). n² depends on the widths,
+ * so two passes settle it.
+ */
+function teeLevels(doc: DesignDoc, feedsTee: Map<string, { zAbove: number; zj: number; tee: string }>): void {
+  for (let pass = 0; pass < 2; pass++) {
+    const n2 = new Map(sizeDesign(doc).nodes.filter((x) => x.tee?.modelled).map((x) => [x.id, x.tee!.atF0.n2]));
+    let moved = false;
+    for (const seg of doc.segments) {
+      const q = feedsTee.get(seg.id), k = q && n2.get(q.tee);
+      if (!q || k === undefined || seg.kind !== 'line') continue;
+      seg.width = { by: 'z0', z0: Math.round(Math.sqrt(q.zAbove * q.zj * k) * 1e6) / 1e6 };
+      moved = true;
+    }
+    if (!moved) return;
+    placeAsSized(doc, 'corporate');
+  }
+}
 
 /** Turns the whole drawing about the input by `a` radians (port headings too). */
 function rotate(doc: DesignDoc, a: number): void {

@@ -15,6 +15,7 @@ import type { DesignSegment } from '../../design/types.ts';
 import { readTouchstone } from '../../network/touchstoneRead.ts';
 import { InputError } from '../../util/errors.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, type BlockContext, type BlockDef, type Spec } from '../context.ts';
+import { FOOTPRINT_PARAM } from '../fold.ts';
 
 export interface Complex2 { re: number; im: number }
 export interface StubSolution {
@@ -108,7 +109,7 @@ export const stubMatchBlock: BlockDef = {
     { name: 'spacingDeg', type: 'number', unit: 'none', min: 10, max: 170, default: 45, meaning: 'Double stub: spacing of the stubs, degrees', when: (s) => s.stubs === 'double' },
     { name: 'loadDeg', type: 'number', unit: 'none', min: 0, max: 180, default: 20, meaning: 'Double stub: line from the first stub to the load, degrees', when: (s) => s.stubs === 'double' },
     Z0_PARAM,
-    FEED_PARAM,
+    FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext) {
     const z0 = spec.z0 as number, feed = spec.feed as number, end = spec.end as 'open' | 'short', f0 = ctx.f0;

@@ -13,6 +13,7 @@
  */
 import { InputError } from '../../util/errors.ts';
 import { FEED_PARAM, Sketch, widthFor, lambdaG, ghz, ohm, type BlockDef, type BlockContext, type BlockPieces, type Spec } from '../context.ts';
+import { FOOTPRINT_PARAM } from '../fold.ts';
 
 function binom(n: number, k: number): number { let r = 1; for (let i = 1; i <= k; i++) r = (r * (n - k + i)) / i; return r; }
 
@@ -91,7 +92,7 @@ export const transformerBlock: BlockDef = {
     { name: 'response', type: 'choice', choices: ['maxflat', 'chebyshev'], default: 'maxflat', meaning: 'Maximally flat (binomial) or equal ripple (Chebyshev)' },
     { name: 'sections', type: 'integer', min: 1, max: 8, default: 3, meaning: 'Number of quarter-wave sections' },
     { name: 'ripple', type: 'number', unit: 'none', min: 0.001, max: 0.3, default: 0.05, meaning: 'Largest |Γ| in the band (sets the Chebyshev ripple and the band reported)' },
-    FEED_PARAM,
+    FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext): BlockPieces {
     const z1 = spec.z1 as number, z2 = spec.z2 as number, n = spec.sections as number, gm = spec.ripple as number;
