@@ -14,6 +14,7 @@ import type { SubstrateSpec } from '../substrate/types.ts';
 import type { Target, Tolerance } from './targets.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import type { SweepSpec } from './sweep-settings.ts';
+import type { ProximityLimitSetting } from './proximity-limit.ts';
 import type { MeasuredFile } from './measured.ts';
 import type {
   areaSchema, asMadeSchema, bendSchema, designSchema, junctionChoiceSchema, lengthSchema, nodeSchema, phaseGroupSchema,
@@ -23,6 +24,7 @@ import type {
 export type { SubstrateSpec };
 export type * from './targets.ts';
 export type { SweepSpec } from './sweep-settings.ts';
+export type { ProximityLimitSetting } from './proximity-limit.ts';
 export type { MeasuredFile } from './measured.ts';
 
 export const DESIGN_FORMAT = 'stripwright-design';
@@ -122,7 +124,7 @@ export interface PlacedBlock {
  * placed blocks (format 8), sweep settings (format 9) and measured files (format 10). Fields this version does not
  * know are kept on load and written back on save.
  */
-export type DesignDoc = Omit<Out<ReturnType<typeof designSchema>>, 'substrate' | 'targets' | 'tolerances' | 'format' | 'blocks' | 'sweep' | 'measured'> & {
+export type DesignDoc = Omit<Out<ReturnType<typeof designSchema>>, 'substrate' | 'targets' | 'tolerances' | 'format' | 'blocks' | 'sweep' | 'measured' | 'proximityLimit'> & {
   format: typeof DESIGN_FORMAT;
   substrate: SubstrateSpec;
   /** Requirements on the response (format 3; core/design/targets.ts). */
@@ -135,5 +137,7 @@ export type DesignDoc = Omit<Out<ReturnType<typeof designSchema>>, 'substrate' |
   sweep?: SweepSpec;
   /** Measured Touchstone files of the whole board with their port maps (format 10; core/design/measured.ts). */
   measured?: MeasuredFile[];
+  /** The shop check's proximity limit (format 11; core/design/proximity-limit.ts); absent = three substrate heights. */
+  proximityLimit?: ProximityLimitSetting;
   [unknown: string]: unknown;
 };
