@@ -128,7 +128,7 @@ describe('edge-coupled band-pass block', () => {
     const lossy = bandOf(magnitudeDb(sweep(doc, freqs), 1, 0), freqs, 3);
     expect(Math.abs(lossy.centre / c.f0 - 1)).toBeLessThan(0.02);
     expect(lossy.width / (c.bw * c.f0)).toBeGreaterThan(0.85);
-    const said = /with losses −3 dB band −(\d+\.\d\d) %[^;]*\.$/m.exec(doc.notes);
+    const said = /with losses −3 dB band −(\d+\.\d\d) %[^;]*\.$/m.exec(doc.notes ?? "");
     expect(said).not.toBeNull();
     expect(Math.abs(Number(said![1]) / 100 - (1 - lossy.width / (c.bw * c.f0)))).toBeLessThan(0.01);
   });
