@@ -6,7 +6,7 @@
  */
 import { parseArgs } from 'node:util';
 import { resolve } from 'node:path';
-import { InputError, parseDesign, namer, initPolygons, DesignPipeline, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText, proximityLimitFrom } from '../../core/index.ts';
+import { InputError, parseDesign, namer, initPolygons, DesignPipeline, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText, proximityLimitFor } from '../../core/index.ts';
 import type { Warning, PathReport, Finding, JunctionInfo, SizedDesign, JunctionChoice, TargetEvaluation } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
@@ -22,7 +22,7 @@ Options:
   --json              print one JSON object instead of tables
   --tolerance DEG     phase tolerance for matched paths, e.g. 5 or 5deg (default: each phase group's own, else 5°)
   --loss-limit DB     loss budget per path, e.g. 1 or 1dB (default 1 dB)
-  --proximity-limit L runs closer than this get a coupling estimate: 2.5h (substrate heights) or 1mm (default 3h; 0 = off)
+  --proximity-limit L runs closer than this get a coupling estimate: 2.5h (substrate heights) or 1mm (overrides the design's own limit, default 3h; 0 = off)
   --from PORT --to PORT[,PORT…]
                       report these paths (meant to match in phase) instead of the design's phase groups;
                       a port is named by its label or its id
@@ -215,7 +215,8 @@ export const buildCommand: CliCommand = {
     try {
       await initPolygons();
       // The core pipeline's stages, the same export uses: build and export cannot disagree on a design.
-      const near = values['proximity-limit'] === undefined ? {} : { proximityLimit: proximityLimitFrom(values['proximity-limit'], parsed.doc.substrate.h, '--proximity-limit') };
+      // The design's own proximity limit, unless --proximity-limit overrides it (one core reader for both).
+      const near = { proximityLimit: proximityLimitFor(parsed.doc, values['proximity-limit'], '--proximity-limit') };
       const { sized, paths, findings } = pipeline.check(parsed.doc, {
         ...(junctions ? { junctions } : {}), ...(tolerance !== undefined ? { toleranceDeg: tolerance } : {}), ...near,
         ...(lossLimit !== undefined ? { lossLimitDb: lossLimit } : {}), ...(values.from !== undefined && toList ? { from: values.from, to: toList } : {}),

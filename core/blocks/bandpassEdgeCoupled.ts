@@ -63,44 +63,127 @@ function inverterTable(order: number, bw: number, rippleDb: number | undefined, 
  * (sizing and the network solver, the same path the user's response takes). The closed-form design is only
  * first-order accurate: the inverters are frequency-dependent, the two modes run at different speeds and the end
  * effects are approximate, so the swept band comes out off centre and narrow by a few per cent (more for narrow,
- * high-order filters). The loop corrects two design knobs by their measured ratios (secant-free fixed point):
+ * high-order filters). The loop corrects the design knobs by their measured ratios:
  *   1. lossless copy: the design centre f0d ← f0d·f0/fc and the design bandwidth Δd ← Δd·Δ/Δmeasured, where the band is
  *      the ripple band for equal ripple and the −3 dB band for maximally flat (three passes settle it to < 0.5 %);
- *   2. losses round the pass band and narrow its −3 dB band (most on lossy glass-epoxy); Δd is widened towards the
- *      lossy −3 dB target, but never so far that the lossless band exceeds the spec by more than 4 % (the lossless
- *      band stays the design's promise; what is left is reported in the notes).
+ *   2. losses round the pass band and narrow its −3 dB band relative to peak transmission (most on lossy
+ *      glass-epoxy). For equal ripple the design may ripple less than asked (flatterFor): a flatter response keeps
+ *      its band at the asked ripple and has a wider −3 dB band; the design ripple is chosen from the measured
+ *      narrowing, then refined once by a secant on the measured lossy band, the lossless band settled again each time;
+ *   3. what is still short is made up by widening Δd, but never so far that the lossless band exceeds the spec by
+ *      more than 4 % (the lossless band stays the design's promise; what is left is reported in the notes).
  * The design centre is carried as each section's length in degrees at the user's f0 (90°·f0/f0d).
  */
 export function bandpassBlock(opts: BandpassOptions): DesignDoc {
   const z0 = opts.z0 ?? 50;
   bandpassSections(opts.order, opts.bw, opts.rippleDb, z0); // range checks in the user's words
   const f0 = opts.f0, bw = opts.bw, n = opts.order;
-  let design = { f0: f0, bw };
-  let doc = bandpassDraft(opts, design.f0, design.bw);
-  const eps = Math.sqrt(10 ** ((opts.rippleDb ?? 0) / 10) - 1);
-  const lossyTarget = opts.rippleDb ? bw * Math.cosh(Math.acosh(1 / eps) / n) : bw;
+  const ripple = opts.rippleDb || undefined;
+  const lossyTarget = ripple ? bw * chebyshevWidth(ripple, 3, n) : bw;
   const log: string[] = [];
-  for (let pass = 0; pass < 6; pass++) {
-    const ideal = sweptBand(doc, f0, bw, true, opts.rippleDb ? opts.rippleDb + 1e-3 : 3);
-    if (!ideal) break;
-    const lossless = pass < 3;
-    let next = { f0: design.f0 * (f0 / ideal.centre), bw: design.bw * (bw / ideal.bw) };
-    let lossy: SweptBand | undefined;
-    if (!lossless) {
-      lossy = sweptBand(doc, f0, bw, false, 3);
-      if (!lossy) break;
-      // Between the spec and 4 % over it for the lossless band, the factor that brings the lossy band nearest its target.
-      const widen = Math.min(Math.max(lossyTarget / lossy.bw, bw / ideal.bw), (1.04 * bw) / ideal.bw);
-      next = { f0: next.f0, bw: design.bw * widen };
+  const level = ripple ? ripple + 1e-3 : 3;
+  const note = (ideal: SweptBand, lossy?: SweptBand) => log.push(`lossless centre ${fmtPct(ideal.centre / f0 - 1)}, band ${fmtPct(ideal.bw / bw - 1)}${lossy ? `; with losses −3 dB band ${fmtPct(lossy.bw / lossyTarget - 1)} of ${(lossyTarget * 100).toFixed(2)} %` : ''}`);
+
+  /** Lossless passes: centre and band back on the spec. */
+  const settle = (start: DesignKnobs, passes: number): Draft => {
+    let knobs = start, doc = bandpassDraft(opts, knobs);
+    for (let pass = 0; pass < passes; pass++) {
+      const ideal = sweptBand(doc, f0, bw, true, level);
+      if (!ideal) break;
+      note(ideal);
+      const next = { ...knobs, f0: knobs.f0 * (f0 / ideal.centre), bw: knobs.bw * (bw / ideal.bw) };
+      if (!(next.bw > 0.002 && next.bw < 0.6 && Math.abs(next.f0 / f0 - 1) < 0.2)) break; // far off: keep the last draft
+      knobs = next;
+      doc = bandpassDraft(opts, knobs);
     }
-    log.push(`pass ${pass + 1}: lossless centre ${fmtPct(ideal.centre / f0 - 1)}, band ${fmtPct(ideal.bw / bw - 1)}${lossy ? `; with losses −3 dB band ${fmtPct(lossy.bw / lossyTarget - 1)} of ${(lossyTarget * 100).toFixed(2)} %` : ''}`);
-    if (Math.abs(next.f0 / design.f0 - 1) < 2e-4 && Math.abs(next.bw / design.bw - 1) < 2e-3 && !lossless) break;
-    if (!(next.bw > 0.002 && next.bw < 0.6 && Math.abs(next.f0 / f0 - 1) < 0.2)) break; // far off: keep the last draft
-    design = next;
-    doc = bandpassDraft(opts, design.f0, design.bw);
+    const ideal = sweptBand(doc, f0, bw, true, level);
+    return { knobs, doc, ...(ideal ? { ideal, lossy: sweptBand(doc, f0, bw, false, 3) } : {}) };
+  };
+  // A draft whose lossless band is off its promise is never preferred, however its lossy band reads.
+  const kept = (d: Draft) => !!d.ideal && Math.abs(d.ideal.bw / bw - 1) < 0.045 && Math.abs(d.ideal.centre / f0 - 1) < 0.008;
+  const miss = (d: Draft) => (d.lossy && kept(d) ? Math.abs(d.lossy.bw / lossyTarget - 1) : Infinity);
+
+  let best = settle({ f0, bw, ripple }, 3);
+  if (ripple && best.ideal && best.lossy && best.lossy.bw < 0.99 * lossyTarget) {
+    // The design ripple: a first guess from the measured narrowing, then one secant step in log ripple.
+    const first = best;
+    const guess = flatterFor(best.knobs, ripple, best.ideal, best.lossy, { bw, ripple, lossyTarget, n });
+    const tried = settle(guess, 3);
+    if (miss(tried) < miss(best)) best = tried;
+    if (tried.lossy && first.lossy && guess.ripple! < ripple - 1e-4 && miss(tried) > 0.02) {
+      const x0 = Math.log(ripple), x1 = Math.log(guess.ripple!);
+      const y0 = first.lossy.bw / lossyTarget - 1, y1 = tried.lossy.bw / lossyTarget - 1;
+      if (y1 !== y0) {
+        const rd = Math.min(ripple, Math.max(0.01, Math.exp(x1 - (y1 * (x1 - x0)) / (y1 - y0))));
+        const again = settle(rescaleRipple(tried.knobs, rd, ripple, n), 3);
+        if (miss(again) < miss(best)) best = again;
+      }
+    }
   }
-  doc.notes += `\nCorrected against the core's own sweep (design centre ${(design.f0 / 1e9).toPrecision(5)} GHz, design bandwidth ${(design.bw * 100).toFixed(2)} %): ${log.join('; ')}.`;
+  // Widen towards the lossy target, the lossless band kept between the spec and 4 % over it.
+  for (let pass = 0; pass < 3 && best.ideal && best.lossy; pass++) {
+    note(best.ideal, best.lossy);
+    if (best.lossy.bw >= 0.995 * lossyTarget && Math.abs(best.ideal.bw / bw - 1) < 0.01) break;
+    const widen = Math.min(Math.max(lossyTarget / (best.lossy.bw * (bw / best.ideal.bw)), 1), 1.04);
+    const knobs = { ...best.knobs, f0: best.knobs.f0 * (f0 / best.ideal.centre), bw: best.knobs.bw * (bw / best.ideal.bw) * widen };
+    const doc = bandpassDraft(opts, knobs);
+    const ideal = sweptBand(doc, f0, bw, true, level);
+    if (!ideal) break;
+    const next: Draft = { knobs, doc, ideal, lossy: sweptBand(doc, f0, bw, false, 3) };
+    if (!kept(next) && kept(best)) break;
+    best = next;
+  }
+  const { doc, knobs: design } = best;
+  const flatter = ripple && design.ripple && design.ripple < ripple - 1e-3
+    ? `, design ripple ${design.ripple.toFixed(3)} dB (a flatter prototype than the asked ${ripple} dB, so that losses leave the −3 dB band; the band at the asked ripple is kept, but the lossless copy's ripple inside it is the made filter's, not the prototype's)` : '';
+  doc.notes += `\nCorrected against the core's own sweep (design centre ${(design.f0 / 1e9).toPrecision(5)} GHz, design bandwidth ${(design.bw * 100).toFixed(2)} %${flatter}): ${log.map((l, i) => `pass ${i + 1}: ${l}`).join('; ')}.`;
   return doc;
+}
+
+interface Draft { knobs: DesignKnobs; doc: DesignDoc; ideal?: SweptBand; lossy?: SweptBand | undefined }
+
+/** The knobs with the design ripple moved to rd, the design band rescaled so the band at the asked ripple stays. */
+function rescaleRipple(k: DesignKnobs, rd: number, ripple: number, n: number): DesignKnobs {
+  return { ...k, ripple: rd, bw: k.bw * (chebyshevWidth(k.ripple ?? ripple, ripple, n) / chebyshevWidth(rd, ripple, n)) };
+}
+
+/** What the correction loop moves: the design centre, the design bandwidth and (equal ripple) the design ripple. */
+interface DesignKnobs { f0: number; bw: number; ripple: number | undefined }
+
+/**
+ * Width of an equal-ripple (Chebyshev) response of ripple `rippleDb`, order n, at `levelDb` of loss, relative to its
+ * ripple band: |S21|² = 1/(1 + ε²T_n²(x)) (Matthaei, Young and Jones 1964, §4.03), so the level is met where
+ * T_n(x) = ε_L/ε, x = cosh(arccosh(ε_L/ε)/n) beyond the ripple band (cos(arccos(·)/n) inside it).
+ */
+function chebyshevWidth(rippleDb: number, levelDb: number, n: number): number {
+  const e = Math.sqrt(10 ** (rippleDb / 10) - 1), eL = Math.sqrt(10 ** (levelDb / 10) - 1);
+  const t = eL / e;
+  return t >= 1 ? Math.cosh(Math.acosh(t) / n) : Math.cos(Math.acos(t) / n);
+}
+
+/** The −3 dB band of an equal-ripple response of ripple rd over its band at the asked ripple. */
+function widthRatio(rd: number, ripple: number, n: number): number {
+  return chebyshevWidth(rd, 3, n) / chebyshevWidth(rd, ripple, n);
+}
+
+/**
+ * Losses narrow the −3 dB band of a filter relative to its peak (the band edges lose more than the centre). For
+ * equal ripple the design may ripple less than asked: a flatter response has a wider −3 dB band for the same band at
+ * the asked ripple (chebyshevWidth), which makes up the narrowing without widening the lossless ripple band. Our own
+ * way of using the prototype family: the ripple that, with the narrowing measured on this pass, brings the lossy band
+ * to its target, between 0.01 dB (the prototype table's floor) and the asked ripple; the design bandwidth is rescaled
+ * so the band at the asked ripple stays where it was.
+ */
+function flatterFor(next: DesignKnobs, rippleNow: number, ideal: SweptBand, lossy: SweptBand, spec: { bw: number; ripple: number; lossyTarget: number; n: number }): DesignKnobs {
+  const { ripple, n } = spec;
+  const ratio = (rd: number) => widthRatio(rd, ripple, n);
+  const shrink = lossy.bw / (ideal.bw * ratio(rippleNow)); // lossy −3 dB band over the lossless one
+  const want = spec.lossyTarget / (spec.bw * shrink);
+  let lo = 0.01, hi = ripple;
+  if (ratio(lo) <= want) hi = lo; // as flat as the table goes
+  else if (ratio(hi) >= want) lo = hi; // the asked ripple is already enough
+  for (let i = 0; i < 40 && hi - lo > 1e-5; i++) { const m = (lo + hi) / 2; if (ratio(m) > want) lo = m; else hi = m; }
+  return rescaleRipple({ ...next, ripple: rippleNow }, (lo + hi) / 2, ripple, n);
 }
 
 interface SweptBand { centre: number; bw: number }
@@ -128,9 +211,10 @@ function sweptBand(doc: DesignDoc, f0: number, bw: number, lossless: boolean, dr
 const fmtPct = (x: number) => `${x >= 0 ? '+' : '−'}${Math.abs(x * 100).toFixed(2)} %`;
 
 /** One draft of the filter for a design centre f0d and design bandwidth bwd (the user's f0 and bw name it). */
-function bandpassDraft(opts: BandpassOptions, f0d: number, bwd: number): DesignDoc {
+function bandpassDraft(opts: BandpassOptions, knobs: DesignKnobs): DesignDoc {
   const z0 = opts.z0 ?? 50;
-  const { g, kind, sections } = inverterTable(opts.order, bwd, opts.rippleDb, z0);
+  const f0d = knobs.f0;
+  const { g, kind, sections } = inverterTable(opts.order, knobs.bw, knobs.ripple, z0);
   const n = opts.order, f0 = opts.f0;
   const doc = newDesign({
     name: opts.name ?? `Order ${n} edge-coupled band-pass, ${(f0 / 1e9).toPrecision(4)} GHz, ${(opts.bw * 100).toPrecision(3)} %`,

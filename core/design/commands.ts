@@ -25,6 +25,7 @@ import { gestureCommands } from './gestures.ts';
 import { applyEqualize, applyTune } from './commands-network.ts';
 import { setSweep } from './commands-sweep.ts';
 import { setMeasured } from './commands-measured.ts';
+import { setProximityLimit } from './commands-proximity.ts';
 
 export type { DesignCommand } from './command-args.ts';
 
@@ -517,7 +518,7 @@ const viewSet: DesignCommand = {
 export const DESIGN_COMMANDS: ReadonlyMap<string, DesignCommand> = new Map(
   [nodeAdd, nodeMove, nodeSetSpec, segmentAdd, segmentSetSpec, selectionDelete, selectionTranslate, selectionRotate, selectionMirror,
     selectionPaste, setSubstrate, setFrequency, setProcess, setJunctions, setAsMade, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
-    phaseGroupSet, phaseGroupDelete, viewSet, setTargets, setTolerances, setSweep, setMeasured, applyEqualize, applyTune, blockPut, blockDetach, ...gestureCommands((d, id, args) => runCommand(d, id, args))].map((c) => [c.id, c]),
+    phaseGroupSet, phaseGroupDelete, viewSet, setTargets, setTolerances, setSweep, setMeasured, setProximityLimit, applyEqualize, applyTune, blockPut, blockDetach, ...gestureCommands((d, id, args) => runCommand(d, id, args))].map((c) => [c.id, c]),
 );
 
 /** Runs command `id` on `doc`; throws InputError on an unknown id or bad arguments. `doc` is never changed. */

@@ -22,3 +22,4 @@ export { namer, nameOf, nodeByName, portNamesText, sParameterName } from './name
 export { targetSchema, targetsSchema } from './targets-schema.ts';
 export { withBlock, type BlockRecords } from './commands-blocks.ts';
 export { TARGET_FIGURES, FIGURE_PORTS, TOLERANCE_QUANTITIES, TOLERANCE_WORDS, FIGURE_WORDS } from './targets.ts';
+export { proximityLimitSchema, proximityLimitSettingFrom, proximityLimitMetres, proximityLimitFor, proximityLimitText, DEFAULT_PROXIMITY_LIMIT, PROXIMITY_MAX_HEIGHTS } from './proximity-limit.ts';

@@ -17,6 +17,7 @@
  * - 8: `blocks`: blocks placed from a spec keep it (kind, spec, place, members), so they can be re-generated.
  * - 9: `sweep`: a design may keep its own sweep settings (start, stop, points, spacing).
  * - 10: `measured`: Touchstone files of the whole board kept with the design, each with its port map.
+ * - 11: `proximityLimit`: the shop check's limit for runs side by side (a multiple of h or a length); absent = 3 h.
  */
 type Json = Record<string, unknown>;
 
@@ -115,6 +116,14 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Purely additive: an older file had no measured data (the list is optional).
       return { ...doc, version: 10 };
+    },
+  },
+  {
+    from: 10,
+    summary: 'designs may keep their own proximity limit for the shop check (runs closer than it get a coupling estimate); this file has none, so it is checked at three substrate heights as before',
+    up(doc) {
+      // Purely additive: without `proximityLimit` the check uses 3 h, as it did (core/design/proximity-limit.ts).
+      return { ...doc, version: 11 };
     },
   },
 ];

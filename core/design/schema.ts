@@ -12,6 +12,7 @@ import { DESIGN_LIMITS as L, PROCESS_LIMITS } from './limits.ts';
 import { targetsSchema, tolerancesSchema } from './targets-schema.ts';
 import { sweepSpecSchema } from './sweep-settings.ts';
 import { measuredListSchema } from './measured.ts';
+import { proximityLimitSchema } from './proximity-limit.ts';
 
 /** A finite number in [min, max] (either end exclusive on request), all failures described by `what`. */
 function num(what: string, min: number, max: number, opts: { minExclusive?: boolean; maxExclusive?: boolean } = {}) {
@@ -238,6 +239,7 @@ export function designSchema(version: number) {
     blocks: v.optional(list(placedBlockSchema, 'placed blocks', L.phaseGroups)),
     sweep: v.optional(sweepSpecSchema),
     measured: v.optional(measuredListSchema),
+    proximityLimit: v.optional(proximityLimitSchema),
     view: v.optional(v.looseObject({
       grid: v.optional(LEN('a grid step', 0.1)),
     }, 'a view {grid}')),

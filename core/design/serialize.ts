@@ -13,7 +13,7 @@ const XY: Order = { keys: ['x', 'y'] };
 const POINTS: Order = { keys: [], items: XY };
 const WIDTH: Order = { keys: ['by', 'z0', 'width'] };
 const ORDER: Order = {
-  keys: ['format', 'version', 'app', 'name', 'notes', 'substrate', 'frequency', 'process', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'targets', 'tolerances', 'junctions', 'asMade', 'blocks', 'sweep', 'measured', 'view'],
+  keys: ['format', 'version', 'app', 'name', 'notes', 'substrate', 'frequency', 'process', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'targets', 'tolerances', 'junctions', 'asMade', 'blocks', 'sweep', 'measured', 'proximityLimit', 'view'],
   children: {
     substrate: { keys: ['preset', 'er', 'h', 't', 'tanDelta', 'sigma', 'roughness', 'dielectricModel'], children: { dielectricModel: { keys: ['kind', 'fMeasure'] } } },
     frequency: { keys: ['f0', 'band'], children: { band: { keys: ['start', 'stop'] } } },
@@ -39,6 +39,7 @@ const ORDER: Order = {
     blocks: { keys: [], items: { keys: ['id', 'kind', 'at', 'spec', 'members', 'made'], children: { at: XY } } },
     sweep: { keys: ['start', 'stop', 'points', 'spacing'] },
     measured: { keys: [], items: { keys: ['id', 'name', 'ports', 'touchstone'] } },
+    proximityLimit: { keys: ['by', 'heights', 'length'] },
     view: { keys: ['units', 'grid'] },
   },
 };

@@ -19,6 +19,7 @@ import type {
 export type { SubstrateSpec };
 export type * from './targets.ts';
 export type { SweepSpec } from './sweep-settings.ts';
+export type { ProximityLimitSetting } from './proximity-limit.ts';
 export type { MeasuredFile } from './measured.ts';
 
 export const DESIGN_FORMAT = 'stripwright-design';

@@ -25,6 +25,7 @@ import { LineCache } from './lineCache.ts';
 import { lineModels } from '../line/index.ts';
 import { designPaths, type PathReport } from './paths.ts';
 import { proximityHits } from './proximity.ts';
+import { proximityLimitFor } from '../design/proximity-limit.ts';
 import { defaultGroundClearance } from './geometry.ts';
 import { fenceFindings } from './fence-check.ts';
 import { asMadeTemplate } from './as-made.ts';
@@ -52,7 +53,7 @@ export interface CheckOptions {
   lossLimitDb?: number;
   /** Paths report to check (default: designPaths(sized)). */
   paths?: PathReport[];
-  /** Runs closer than this (edge to edge, m) get a coupling estimate (default 3·h; 0 switches it off). */
+  /** Runs closer than this (edge to edge, m) get a coupling estimate (default: the design's own limit, else 3·h; 0 switches it off). */
   proximityLimit?: number;
 }
 
@@ -414,7 +415,7 @@ export function checkFabrication(sized: SizedDesign, geometry: BoardGeometry, op
   out.push(...overlaps(sized, geometry));
 
   // ---- runs side by side: estimated coupling at f0 (proximity.ts)
-  out.push(...proximityFindings(sized, opts.proximityLimit ?? 3 * h));
+  out.push(...proximityFindings(sized, opts.proximityLimit ?? proximityLimitFor(sized.doc)));
 
   // ---- loss and phase
   const limit = opts.lossLimitDb ?? DEFAULT_LOSS_LIMIT_DB;

@@ -12,8 +12,8 @@
  */
 import type { Vec2 } from '../geometry/types.ts';
 import { analyzeCoupled, COUPLED_G_MIN } from '../line/index.ts';
-import { InputError, describe } from '../util/errors.ts';
-import { parseQuantity } from '../units/quantity.ts';
+import { InputError } from '../util/errors.ts';
+import { DEFAULT_PROXIMITY_LIMIT, proximityLimitFor } from '../design/proximity-limit.ts';
 import type { SizedDesign, SizedPiece } from './types.ts';
 
 export interface ProximityHit {
@@ -55,7 +55,8 @@ export function proximityHits(sized: SizedDesign, limit: number): ProximityHit[]
       if (!hit) continue;
       const wA = Math.min(pa.width, pa.widthB ?? pa.width), wB = Math.min(pb.width, pb.widthB ?? pb.width);
       const gap = hit.distance - (wA + wB) / 2;
-      if (!(gap > 0) || gap >= limit || hit.overlap <= 0) continue;
+      // A stretch shorter than the narrower strip is two corners passing, not runs side by side.
+      if (!(gap > 0) || gap >= limit || !(hit.overlap >= Math.min(wA, wB))) continue;
       const w = (wA + wB) / 2;
       if (gap < COUPLED_G_MIN * sub.h) continue; // so close the copper check reports it as a gap the tool cannot cut
       let c: number, beta: number;
@@ -91,18 +92,14 @@ function sideBySide(p0: Vec2, p1: Vec2, q0: Vec2, q1: Vec2): { distance: number;
   return { distance, overlap: hi - lo, mid: { x: p0.x + ux * tm - uy * side / 2, y: p0.y + uy * tm + ux * side / 2 } };
 }
 
-/** The default proximity limit: three substrate heights (common practice, see the module comment). */
-export const DEFAULT_PROXIMITY_LIMIT_H = 3;
+/** The default proximity limit in substrate heights (core/design/proximity-limit.ts keeps the setting). */
+export const DEFAULT_PROXIMITY_LIMIT_H = DEFAULT_PROXIMITY_LIMIT.by === 'heights' ? DEFAULT_PROXIMITY_LIMIT.heights : 3;
 
 /**
  * The user's proximity limit, as typed in any face, to metres: a multiple of the substrate height ("2.5h") or a
- * length with its unit ("1mm", "40mil"); "0" switches the check off. One parser for the app and the CLI.
+ * length with its unit ("1mm", "40mil"); "0" switches the check off. The design setting's own parser
+ * (proximityLimitFor), so the app's field and the CLI read text alike.
  */
 export function proximityLimitFrom(text: string, h: number, field = 'proximityLimit'): number {
-  const expected = 'a multiple of the substrate height such as 3h, or a length such as 1mm (0 switches the check off)';
-  const m = /^\s*([+]?(?:\d+(?:\.\d*)?|\.\d+))\s*h\s*$/i.exec(typeof text === 'string' ? text : '');
-  const limit = m ? Number(m[1]) * h : parseQuantity(text, 'length', field);
-  if (!(Number.isFinite(limit) && limit >= 0)) throw new InputError('out-of-range', field, expected, describe(text));
-  if (limit > 50 * h) throw new InputError('out-of-range', field, `${expected}, at most 50h (${(50 * h * 1e3).toFixed(1)} mm here)`, describe(text), 'beyond a few heights runs barely couple; use a smaller limit');
-  return limit;
+  return proximityLimitFor({ substrate: { h } }, text, field);
 }

@@ -146,4 +146,17 @@ describe('build --proximity-limit', () => {
     expect(bad.code).not.toBe(0);
     expect(bad.stderr).toMatch(/proximity-limit/);
   });
+  it('reads the design\'s own limit (format 11) without the option; the option overrides it', async () => {
+    const { newDesign, serializeDesign } = await import('../../core/index.ts');
+    const doc = newDesign({ name: 'two runs', substrate: { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 0 }, f0: 2.45e9, process: { kind: 'etch', edgeBias: 0, minFeature: 0.1e-3 } });
+    const port = (id: string, x: number, y: number, heading: number) => ({ id, kind: 'port' as const, zRef: 50, heading, at: { x, y } });
+    doc.nodes = [port('a1', 0, 0, 0), port('a2', 0.015, 0, Math.PI), port('b1', 0, -3.8e-3, 0), port('b2', 0.015, -3.8e-3, Math.PI)];
+    const seg = (id: string, a: string, b: string) => ({ id, kind: 'line' as const, a, b, width: { by: 'width' as const, width: 3e-3 }, length: { by: 'length' as const, length: 0.015 } });
+    doc.segments = [seg('run-a', 'a1', 'a2'), seg('run-b', 'b1', 'b2')];
+    const file = join(mkdtempSync(join(tmpdir(), 'sw-near-')), 'near.json');
+    writeFileSync(file, serializeDesign({ ...doc, proximityLimit: { by: 'heights', heights: 0.3 } }));
+    const near = (extra: string[]) => JSON.parse(cli(['build', file, '--json', ...extra]).stdout).findings.filter((f: { code: string }) => f.code === 'proximity').length;
+    expect(near([])).toBe(0);
+    expect(near(['--proximity-limit', '3h'])).toBe(1);
+  }, 120_000);
 });

@@ -35,4 +35,41 @@ describe('shop check dock', () => {
     await waitFor(() => expect(screen.queryAllByTestId('finding-loss-budget').length).toBe(0), { timeout: 20_000 });
     compute.destroy();
   });
+  it('the proximity limit is a design setting: typing 7h brings the two shunt arms\' finding (named, marked), undo takes it away in one step', async () => {
+    // The branch-line example's shunt arms lie about 6.2 substrate heights apart (edge to edge), so the default
+    // limit of 3 h (common practice) passes them and 7 h catches them. The coupling figure itself is checked in
+    // test/unit/layout-proximity.test.ts against Pozar's coupled-section formula.
+    const ed = editorOn('branchline-10g4');
+    const compute = new Compute(ed, null);
+    render(ShopCheck, { editor: ed, compute });
+    void compute.check();
+    await waitFor(() => expect(compute.findings).not.toBeNull(), { timeout: 20_000 });
+    expect(screen.queryAllByTestId('finding-proximity')).toHaveLength(0);
+    const field = screen.getByTestId('proximity-limit') as HTMLInputElement;
+    expect(field.value).toBe('3h');
+    const steps = ed.history.undoLabels.length;
+    await fireEvent.input(field, { target: { value: '7h' } });
+    await fireEvent.change(field);
+    expect(ed.doc.proximityLimit).toEqual({ by: 'heights', heights: 7 });
+    expect(ed.history.undoLabels.length).toBe(steps + 1);
+    expect(screen.getByTestId('proximity-limit-metres').textContent).toMatch(/3\.56 mm/); // 7 × 0.508 mm
+    void compute.check();
+    await waitFor(() => expect(screen.queryAllByTestId('finding-proximity').length).toBeGreaterThan(0), { timeout: 20_000 });
+    const f = compute.findings!.find((x) => x.code === 'proximity' && x.subjects.includes('shunt1'))!;
+    expect([...f.subjects].sort()).toEqual(['shunt1', 'shunt2']);
+    expect(f.message).toMatch(/shunt arm \(shunt\d\) and shunt arm \(shunt\d\)/);
+    expect(f.subjects.every((id) => ed.near.has(id))).toBe(true);
+    // A slip is refused in the user's words and changes nothing.
+    await fireEvent.input(field, { target: { value: '3 furlongs' } });
+    await fireEvent.change(field);
+    expect(screen.getByTestId('proximity-limit-error').textContent).toMatch(/proximity limit: expected a multiple of the substrate height/);
+    expect(ed.doc.proximityLimit).toEqual({ by: 'heights', heights: 7 });
+    ed.undo();
+    expect(ed.doc.proximityLimit).toBeUndefined();
+    await waitFor(() => expect((screen.getByTestId('proximity-limit') as HTMLInputElement).value).toBe('3h'));
+    void compute.check();
+    await waitFor(() => expect(screen.queryAllByTestId('finding-proximity')).toHaveLength(0), { timeout: 20_000 });
+    expect(ed.near.size).toBe(0);
+    compute.destroy();
+  });
 });

@@ -93,6 +93,11 @@ describe('edge-coupled band-pass block', () => {
     { sub: FR4, order: 3, bw: 0.05, ripple: 0, f0: 2.45e9 },
     { sub: FR4, order: 3, bw: 0.15, ripple: 0.1, f0: 2.45e9 },
     { sub: LOW_LOSS, order: 5, bw: 0.15, ripple: 0, f0: 2.45e9 },
+    // Orders 3–5 on both laminates, maximally flat and equal ripple, at 10 % (the task's matrix), and 5 % equal-ripple
+    // cases on glass-epoxy where losses narrow the −3 dB band most (the design then ripples less than asked):
+    ...[3, 4, 5].flatMap((order) => [FR4, LOW_LOSS].flatMap((sub) => [0, 0.1, 0.5].map((ripple) => ({ sub, order, bw: 0.1, ripple, f0: 2.45e9 })))),
+    { sub: FR4, order: 4, bw: 0.05, ripple: 0.5, f0: 2.45e9 },
+    { sub: FR4, order: 5, bw: 0.05, ripple: 0.1, f0: 2.45e9 },
   ];
   for (const c of cases) {
     const kind = c.ripple ? `${c.ripple} dB ripple` : 'maximally flat';
@@ -112,9 +117,24 @@ describe('edge-coupled band-pass block', () => {
       expect(Math.abs(ideal.width / (c.bw * c.f0) - 1)).toBeLessThan(0.05);
     });
   }
-  it('heavy loss (order 5, 5 % on glass-epoxy): the lossless band stays within 5 % and the lossy −3 dB band is not narrower than the uncorrected design gave', () => {
-    // Losses round the pass band; the design widens towards the lossy −3 dB target only while the lossless band stays
-    // within 4 % of spec (the remainder is written in the notes). Before the loop this case swept 27 % narrow.
+  it('heavy loss, maximally flat (order 5, 5 % on glass-epoxy, ≈ 10 dB mid-band loss): the lossless band stays within 5 %, the lossy −3 dB band is at most 15 % narrow and the notes say by how much', () => {
+    // A maximally flat design cannot ripple less; it widens only while the lossless band stays within 4 % of spec.
+    // What remains (about 13 % here) is reported, not hidden: the limit the README states.
+    const c = { order: 5, bw: 0.05, f0: 2.45e9 };
+    const doc = bandpassBlock({ order: c.order, f0: c.f0, bw: c.bw, substrate: FR4, process: FINE });
+    const freqs = Array.from({ length: 3001 }, (_, i) => c.f0 * (1 - 3 * c.bw) + (i * c.f0 * 6 * c.bw) / 3000);
+    const ideal = bandOf(magnitudeDb(sweep(doc, freqs, true), 1, 0), freqs, 3);
+    expect(Math.abs(ideal.width / (c.bw * c.f0) - 1)).toBeLessThan(0.05);
+    const lossy = bandOf(magnitudeDb(sweep(doc, freqs), 1, 0), freqs, 3);
+    expect(Math.abs(lossy.centre / c.f0 - 1)).toBeLessThan(0.02);
+    expect(lossy.width / (c.bw * c.f0)).toBeGreaterThan(0.85);
+    const said = /with losses −3 dB band −(\d+\.\d\d) %[^;]*\.$/m.exec(doc.notes ?? "");
+    expect(said).not.toBeNull();
+    expect(Math.abs(Number(said![1]) / 100 - (1 - lossy.width / (c.bw * c.f0)))).toBeLessThan(0.01);
+  });
+  it('heavy loss, equal ripple (order 5, 5 %, 0.1 dB on glass-epoxy): the design prototype ripples less than asked so the lossy band is within 10 %', () => {
+    // Losses round the pass band; a flatter design keeps its band at the asked ripple and widens its −3 dB band.
+    // Before the loop this case swept 27 % narrow, with the loop alone 15 %.
     const c = { order: 5, bw: 0.05, ripple: 0.1, f0: 2.45e9 };
     const doc = bandpassBlock({ order: c.order, f0: c.f0, bw: c.bw, rippleDb: c.ripple, substrate: FR4, process: FINE });
     const freqs = Array.from({ length: 3001 }, (_, i) => c.f0 * (1 - 3 * c.bw) + (i * c.f0 * 6 * c.bw) / 3000);
@@ -124,8 +144,8 @@ describe('edge-coupled band-pass block', () => {
     const eps = Math.sqrt(10 ** (c.ripple / 10) - 1);
     const lossy = bandOf(magnitudeDb(sweep(doc, freqs), 1, 0), freqs, 3);
     expect(Math.abs(lossy.centre / c.f0 - 1)).toBeLessThan(0.02);
-    expect(lossy.width / (c.bw * Math.cosh(Math.acosh(1 / eps) / c.order) * c.f0)).toBeGreaterThan(0.8);
-    expect(doc.notes).toMatch(/Corrected against the core's own sweep .*with losses −3 dB band −\d+\.\d\d %/);
+    expect(Math.abs(lossy.width / (c.bw * Math.cosh(Math.acosh(1 / eps) / c.order) * c.f0) - 1)).toBeLessThan(0.1);
+    expect(doc.notes).toMatch(/design ripple 0\.\d{3} dB \(a flatter prototype than the asked 0\.1 dB/);
   });
   it('compensates the open ends: each resonator\'s open ends are shortened by their end extension', () => {
     const sized = sizeDesign(bandpassBlock({ order: 3, f0: 2.45e9, bw: 0.1, substrate: LOW_LOSS, process: FINE }));

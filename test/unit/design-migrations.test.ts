@@ -159,7 +159,7 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([5, 6, 7, 8, 9]);
+    expect(r.migrations).toEqual([5, 6, 7, 8, 9, 10]);
     expect({ ...r.doc, version: 5 }).toEqual(withoutUnits(JSON.parse(text) as Record<string, unknown>));
   });
 });
@@ -193,7 +193,7 @@ describe('v8 → v9 (a design\'s own sweep settings)', () => {
     const text = readFileSync(join(FIX, 'v8', 'open-stub-no-sweep.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([8, 9]);
+    expect(r.migrations).toEqual([8, 9, 10]);
     expect({ ...r.doc, version: 8 }).toEqual(JSON.parse(text));
     expect(r.doc.sweep).toBeUndefined();
   });
@@ -204,7 +204,7 @@ describe('v9 → v10 (measured data)', () => {
     const text = readFileSync(join(FIX, 'v9', 'wilkinson-2g45.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([9]);
+    expect(r.migrations).toEqual([9, 10]);
     expect(r.doc.measured).toBeUndefined();
     expect({ ...r.doc, version: 9 }).toEqual(JSON.parse(text));
   });
@@ -218,5 +218,30 @@ describe('v9 → v10 (measured data)', () => {
     const bad = parseDesign(serializeDesign({ ...r.doc, measured: [{ ...m, ports: ['no spaces'] }] }));
     expect(bad.ok).toBe(false);
     if (!bad.ok) expect(bad.errors[0]!.path).toMatch(/measured/);
+  });
+});
+
+describe('v10 → v11 (a design\'s own proximity limit)', () => {
+  it('moves only the version: an older file has no limit and is checked at three substrate heights as before', async () => {
+    const { proximityLimitFor } = await import('../../core/index.ts');
+    const text = readFileSync(join(FIX, 'v10', 'branchline-10g4.json'), 'utf8');
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toEqual([10]);
+    expect(r.doc.proximityLimit).toBeUndefined();
+    expect({ ...r.doc, version: 10 }).toEqual(JSON.parse(text));
+    expect(proximityLimitFor(r.doc)).toBeCloseTo(3 * r.doc.substrate.h, 15);
+  });
+  it('keeps a limit through save and load, and refuses a malformed one with its field named', () => {
+    const r = parseDesign(readFileSync(join(FIX, 'v10', 'branchline-10g4.json'), 'utf8'));
+    if (!r.ok) throw new Error('refused');
+    for (const limit of [{ by: 'heights', heights: 7 }, { by: 'length', length: 1.5e-3 }] as const) {
+      const again = parseDesign(serializeDesign({ ...r.doc, proximityLimit: limit }));
+      if (!again.ok) throw new Error(again.errors.map((e) => e.message).join('; '));
+      expect(again.doc.proximityLimit).toEqual(limit);
+    }
+    const bad = parseDesign(serializeDesign({ ...r.doc, proximityLimit: { by: 'heights', heights: -1 } }));
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.errors[0]!.path).toMatch(/proximityLimit/);
   });
 });

@@ -49,6 +49,7 @@ function everyCommand(d: DesignDoc): [string, Record<string, unknown>][] {
     ['run.insert', { segment: 'feed', at: { x: 0, y: 0.007 }, kind: 'part' }],
     ['design.setTargets', { targets: [{ id: 'match', figure: 'return-loss', ports: ['in'], band: { start: 5.7e9, stop: 5.9e9 }, limit: { min: 12 } }] }],
     ['design.setSweep', { sweep: { start: 5e9, stop: 6.5e9, points: 401, spacing: 'linear' } }],
+    ['design.setProximityLimit', { limit: { by: 'heights', heights: 5 } }],
     ['design.setTolerances', { tolerances: [{ quantity: 'er', distribution: 'normal', spread: 0.05, scope: 'board' }] }],
     ['network.equalize', { nodes: [...d.nodes, { id: 'm1', kind: 'vertex', bend: { style: 'miter-optimal' }, at: { x: -0.0543, y: 0.04 } }], segments: d.segments.map((s) => (s.id === 'up1' ? { ...s, b: 'm1' } : s)).concat([{ id: 'up1-s1', a: 'm1', b: 'out1', kind: 'line', width: { by: 'z0', z0: 100 }, length: { by: 'drawn' } }]) }],
     ['network.tune', { nodes: d.nodes, segments: d.segments.map((s) => (s.id === 'qwl' && s.kind === 'line' ? { ...s, length: { by: 'degrees', deg: 91 } } : s)) }],

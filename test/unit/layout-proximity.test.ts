@@ -51,16 +51,38 @@ describe('proximity findings', () => {
   });
   it('runs on every example design without error, naming only pieces that exist', () => {
     const dir = join(import.meta.dirname, '..', '..', 'assets', 'examples');
+    const seen: string[] = [];
     for (const f of readdirSync(dir).filter((x) => x.endsWith('.json'))) {
       const p = parseDesign(readFileSync(join(dir, f), 'utf8'));
       if (!p.ok) throw new Error(f);
       const sized = sizeDesign(p.doc);
       const ids = new Set(sized.pieces.map((x) => x.id));
-      for (const x of checkFabrication(sized, buildBoardGeometry(sized), { proximityLimit: 6 * p.doc.substrate.h }).filter((y) => y.code === 'proximity')) {
+      const found = checkFabrication(sized, buildBoardGeometry(sized), { proximityLimit: 10 * p.doc.substrate.h }).filter((y) => y.code === 'proximity');
+      seen.push(...found.map((x) => `${f}:${[...x.subjects].sort().join('/')}`));
+      for (const x of found) {
         expect(x.subjects.every((s) => ids.has(s))).toBe(true);
         expect(x.message).toMatch(/dB couples/);
       }
     }
+    // Runs of the examples that lie 6–10 h apart (measured on their drawings): the neighbour search must find them,
+    // and corners that merely pass each other (the Wilkinson's arm ends beside its outputs) are not runs side by side.
+    expect(seen).toEqual(expect.arrayContaining(['branchline-10g4.json:shunt1/shunt2', 'branchline-10g4.json:thru1/thru2', 'demo.json:arml/br2']));
+    expect(seen.filter((x) => /wilkinson-2g45\.json:(arma1\/outa1|armb1\/outb1)$/.test(x))).toEqual([]);
+  });
+  it('reads the design\'s own limit (format 11) when no override is given; an override wins, 0 switches it off', async () => {
+    const { proximityLimitFor, proximityLimitSettingFrom, proximityLimitText } = await import('../../core/index.ts');
+    const doc = twoRuns(6e-3); // 3.75 h: outside the default 3 h
+    const near = (d: DesignDoc, opts: { proximityLimit?: number } = {}) => { const s = sizeDesign(d); return checkFabrication(s, buildBoardGeometry(s), opts).filter((x) => x.code === 'proximity').length; };
+    expect(near(doc)).toBe(0);
+    const wide = { ...doc, proximityLimit: proximityLimitSettingFrom('4h') };
+    expect(near(wide)).toBe(1);
+    expect(near({ ...doc, proximityLimit: proximityLimitSettingFrom('6.5 mm') })).toBe(1);
+    expect(near(wide, { proximityLimit: proximityLimitFor(wide, '3h') })).toBe(0);
+    expect(near({ ...wide, proximityLimit: proximityLimitSettingFrom('0') })).toBe(0);
+    expect(proximityLimitFor(wide)).toBeCloseTo(4 * SUB.h, 15);
+    expect(proximityLimitFor(wide, '1mm')).toBeCloseTo(1e-3, 15);
+    // The text a face shows reads back to the same setting.
+    for (const t of ['3h', '2.5h', '1.2 mm', '40 mil', '0']) expect(proximityLimitSettingFrom(proximityLimitText(proximityLimitSettingFrom(t), /mil/.test(t) ? 'mil' : 'mm'))).toEqual(proximityLimitSettingFrom(t));
   });
 });
 

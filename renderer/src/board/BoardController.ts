@@ -227,6 +227,7 @@ export class BoardController {
     const c = ['piece'];
     if (this.marks.selected.has(id)) c.push('selected');
     if (this.marks.flagged.has(id)) c.push('flagged');
+    if (this.marks.near?.has(id)) c.push('near');
     if (this.marks.hovered === id) c.push('hovered');
     return c.join(' ');
   }
@@ -267,6 +268,7 @@ export class BoardController {
       const cls = ['cl', `cl-${s.kind}`];
       if (this.marks.selected.has(s.id)) cls.push('selected');
       if (this.marks.flagged.has(s.id)) cls.push('flagged');
+      if (this.marks.near?.has(s.id)) cls.push('near');
       if (this.marks.hovered === s.id) cls.push('hovered');
       if (!s.centreline) cls.push('unsized');
       const points = polyPoints(pts);

@@ -45,4 +45,8 @@ export interface Scene {
 export const EMPTY_SCENE: Scene = { nodes: [], segments: [], pieces: [], outline: null, areas: [], ground: [], drills: [] };
 
 /** Selected and marked ids, drawn as overlays. */
-export interface Marks { selected: ReadonlySet<string>; flagged: ReadonlySet<string>; hovered: string | null }
+export interface Marks {
+  selected: ReadonlySet<string>; flagged: ReadonlySet<string>; hovered: string | null;
+  /** Runs the shop check found side by side closer than the proximity limit (drawn with a dashed warning edge). */
+  near?: ReadonlySet<string>;
+}

@@ -150,6 +150,7 @@ export class Compute {
       this.editor.ground = { revision, regions: out.value.ground };
       this.findingsError = null;
       this.editor.flagged = new Set(out.value.findings.filter((f) => f.severity !== 'info').flatMap((f) => f.subjects));
+      this.editor.near = new Set(out.value.findings.filter((f) => f.code === 'proximity').flatMap((f) => f.subjects));
     } else if ('error' in out) this.findingsError = out.error.message;
   }
 

@@ -53,6 +53,8 @@ export class EditorState {
   layoutError = $state<string | null>(null);
   /** Ids flagged by the fabrication findings (outlined in red). */
   flagged = $state.raw<ReadonlySet<string>>(new Set());
+  /** Runs the shop check found side by side closer than the design's proximity limit (dashed warning edge). */
+  near = $state.raw<ReadonlySet<string>>(new Set());
   canUndo = $state(false);
   canRedo = $state(false);
   /** Labels of the next undo and redo steps, for the buttons' tooltips. */
@@ -298,6 +300,7 @@ export class EditorState {
     this.ground = null;
     this.milled = null;
     this.flagged = new Set();
+    this.near = new Set();
     this.history.reset(doc);
     this.canUndo = false;
     this.canRedo = false;
