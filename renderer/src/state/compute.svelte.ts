@@ -19,9 +19,9 @@ import type { OverlayTrace } from './response-view.ts';
 /** Points of the quick first pass of a response (enough for the shape of a band; the full sweep follows). */
 export const COARSE_POINTS = 21;
 /**
- * A live sweep whose design last took longer than this (ms) for its full sweep is stopped when a newer revision
- * arrives (the newest edit must not wait seconds behind a stale one); a quicker one finishes, so a drag keeps
- * showing responses instead of cancelling each one before it ends.
+ * A live full sweep whose design last took longer than this (ms) is stopped when a newer revision arrives (the
+ * newest edit must not wait seconds behind a stale one; its coarse pass still shows the drag); a quicker one
+ * finishes, so a drag keeps showing full responses instead of cancelling each one before it ends.
  */
 export const LIVE_SWEEP_BUDGET_MS = 400;
 
@@ -127,10 +127,12 @@ export class Compute {
    */
   follow(): void {
     if (!this.following) { void this.followLoop(); return; }
-    if (this.lastFullMs > LIVE_SWEEP_BUDGET_MS) this.livePass?.abort();
+    // Only a full pass is stopped: the coarse pass is short, and drawing it keeps the plots moving during a drag.
+    if (this.livePassFull && this.lastFullMs > LIVE_SWEEP_BUDGET_MS) this.livePass?.abort();
   }
 
   private livePass: AbortController | null = null;
+  private livePassFull = false;
 
   private async followLoop(): Promise<void> {
     this.sweepStop?.abort();
@@ -152,6 +154,7 @@ export class Compute {
         for (const s of passes) {
           const pass = new AbortController();
           this.livePass = pass;
+          this.livePassFull = s === settings;
           const out = await this.sweeper.run<ResponseOutput>('response', { doc, settings: s }, onProgress, pass.signal);
           if (this.sweepStop !== stop) return; // an explicit sweep took over
           if (out.ok) {
