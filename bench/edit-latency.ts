@@ -33,7 +33,7 @@ export interface EditLatency {
   tail: string;
 }
 
-interface PageRecord { moves: { t0: number; rev: number }[]; events: { kind: 'copper' | 'response'; rev: number; points: number; t: number }[]; t1: number }
+interface PageRecord { moves: { t0: number; rev: number }[]; events: { kind: 'copper' | 'response'; rev: number; points: number; t: number }[]; t1: number; panel: string }
 
 const loadAvg = () => { try { return readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' '); } catch { return 'unknown'; } };
 
@@ -103,7 +103,8 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
     const end = performance.now() + 60000;
     while (performance.now() < end && !events.some((e) => e.kind === 'response' && e.points >= fullPoints && e.rev >= last)) await new Promise((ok) => setTimeout(ok, 20));
     seen.disconnect();
-    return { moves: log, events, t1: performance.now() };
+    const words = (id) => document.querySelector('[data-testid="' + id + '"]')?.textContent?.trim() ?? '';
+    return { moves: log, events, t1: performance.now(), panel: [words('sweep-summary'), words('response-error'), words('sweep-cancelled')].filter(Boolean).join(' / ') };
   })(${JSON.stringify(vertex)}, ${moves}, ${fullPoints})`)) as PageRecord;
   const cpu1 = await cpuSeconds(page);
   if (profiler) console.log(await profiler());
@@ -132,7 +133,8 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
   if (out.missing.copper || out.missing.full) {
     const t00 = rec.moves[0]?.t0 ?? 0;
     out.tail = [...rec.moves.slice(-3).map((m) => `move rev ${m.rev} at ${(m.t0 - t00).toFixed(0)} ms`),
-      ...rec.events.slice(-6).map((e) => `${e.kind} rev ${e.rev}${e.points ? `:${e.points}` : ''} at ${(e.t - t00).toFixed(0)} ms`)].join('; ');
+      ...rec.events.slice(-6).map((e) => `${e.kind} rev ${e.rev}${e.points ? `:${e.points}` : ''} at ${(e.t - t00).toFixed(0)} ms`),
+      `response panel: ${rec.panel}`].join('; ');
   }
   return out;
 }
