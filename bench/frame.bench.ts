@@ -87,7 +87,10 @@ export async function run(): Promise<void> {
     await page.waitForTimeout(800);
     const workerMs = await page.getByTestId('layout-ms').innerText().catch(() => 'layout ? ms');
 
-    // 3. The whole edit, pointer move → copper and response on screen (the Response tab open).
+    // 3. The whole edit, pointer move → copper and response on screen (the Response tab open). Section 2's drag is
+    // undone first: dragged on from there, the bend would fold back past what a miter can make, and sizing refuses it.
+    await page.keyboard.press('Control+z');
+    await page.waitForTimeout(400);
     const edit = await editToScreen(page, vertex);
 
     console.log(`design: ${OUTPUTS}-output corporate feed, ${doc.nodes.length} nodes, ${doc.segments.length} segments; board shows ${counts.pieces} copper pieces, ${counts.lines} centrelines, ${counts.nodes} node marks`);
