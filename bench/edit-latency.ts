@@ -117,7 +117,8 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
     moves: rec.moves.length, copper: [], first: [], full: [], missing: { copper: 0, first: 0, full: 0 }, fullPoints,
     draws: { coarse: rec.events.filter((e) => e.kind === 'response' && e.points < fullPoints).length, full: rec.events.filter((e) => e.kind === 'response' && e.points >= fullPoints).length },
     wallMs: rec.t1 - (rec.moves[0]?.t0 ?? rec.t1),
-    mainCpuMs: cpu0.thread !== null && cpu1.thread !== null ? (cpu1.thread - cpu0.thread) * 1000 : null,
+    // Headless chromium may report ThreadTime as 0 throughout: then it says nothing, and is printed as n/a.
+    mainCpuMs: cpu0.thread !== null && cpu1.thread !== null && cpu1.thread > cpu0.thread ? (cpu1.thread - cpu0.thread) * 1000 : null,
     processCpuMs: cpu0.process !== null && cpu1.process !== null ? (cpu1.process - cpu0.process) * 1000 : null,
     load: { before: load0, after: load1 },
     tail: '',
