@@ -11,7 +11,8 @@ export function pct(xs: number[], p: number): number { const s = [...xs].sort((a
 
 /** Builds the renderer, serves it, opens `fn` a page on it and closes browser and server after. */
 export async function withBuiltApp(fn: (page: Page, url: string) => Promise<void>): Promise<void> {
-  execSync('npx vite build', { stdio: 'ignore' });
+  // A profile needs the functions' own names: FRAME_BENCH_PROFILE builds without minifying.
+  execSync(process.env.FRAME_BENCH_PROFILE ? 'npx vite build --minify false' : 'npx vite build', { stdio: 'ignore' });
   const port = 4500 + Math.floor(Math.random() * 400);
   const url = `http://127.0.0.1:${port}/`;
   const server = spawn(process.execPath, ['--import', 'tsx', 'scripts/serve.ts', '--port', String(port)], { stdio: 'ignore' });

@@ -7,9 +7,10 @@
  * sizing and copper of each revision run in the worker meanwhile and are counted separately (worker job time).
  * Also printed: the interval between animation frames during a drag driven by real input events (headless chromium
  * paces frames at its own rate, so this is context, not the figure of merit).
- *   npm run bench -- frame        (builds the renderer first)
+ *   npm run bench -- frame        (builds the renderer first; FRAME_BENCH_ONLY=edit for section 3 alone)
  */
 import { median, pct, withBuiltApp } from './built-app.ts';
+import { editToScreen, type EditLatency } from './edit-latency.ts';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -34,6 +35,13 @@ export async function run(): Promise<void> {
     await page.waitForTimeout(500);
     const vertex = doc.nodes.find((n) => n.kind === 'vertex')!.id;
     const counts = (await page.evaluate(`({ pieces: document.querySelectorAll('[data-piece]').length, nodes: document.querySelectorAll('[data-node]').length, lines: document.querySelectorAll('[data-seg]').length })`)) as { pieces: number; nodes: number; lines: number };
+
+    // FRAME_BENCH_ONLY=edit measures the whole edit alone (section 3).
+    if (process.env.FRAME_BENCH_ONLY === 'edit') {
+      console.log(`design: ${OUTPUTS}-output corporate feed, ${doc.nodes.length} nodes, ${doc.segments.length} segments; board shows ${counts.pieces} copper pieces`);
+      printEdit(await editToScreen(page, vertex));
+      return;
+    }
 
     // 1. Main-thread work per move, measured in the page.
     // In-page code is a string: tsx would otherwise wrap functions in helpers the page does not have.
@@ -79,9 +87,28 @@ export async function run(): Promise<void> {
     await page.waitForTimeout(800);
     const workerMs = await page.getByTestId('layout-ms').innerText().catch(() => 'layout ? ms');
 
+    // 3. The whole edit, pointer move → copper and response on screen (the Response tab open). Section 2's drag is
+    // undone first: dragged on from there, the bend would fold back past what a miter can make, and sizing refuses it.
+    await page.keyboard.press('Control+z');
+    await page.waitForTimeout(400);
+    const edit = await editToScreen(page, vertex);
+
     console.log(`design: ${OUTPUTS}-output corporate feed, ${doc.nodes.length} nodes, ${doc.segments.length} segments; board shows ${counts.pieces} copper pieces, ${counts.lines} centrelines, ${counts.nodes} node marks`);
     console.log(`drag of bend ${vertex}, ${MOVES} moves: main-thread work per frame median ${median(work).toFixed(2)} ms, p90 ${pct(work, 0.9).toFixed(2)} ms, max ${Math.max(...work).toFixed(2)} ms (target < 16 ms)`);
     console.log(`worker (off the main thread): ${workerMs} for one revision (sizing, per-piece copper, paths)`);
     console.log(`animation-frame interval during a real-input drag: median ${median(frames).toFixed(2)} ms, p90 ${pct(frames, 0.9).toFixed(2)} ms over ${frames.length} frames`);
+    printEdit(edit);
   });
+}
+
+function printEdit(e: EditLatency): void {
+  const row = (xs: number[]) => (xs.length ? `median ${median(xs).toFixed(1)} ms, p90 ${pct(xs, 0.9).toFixed(1)} ms` : 'never');
+  const miss = (n: number) => (n ? ` (${n} of ${e.moves} moves never shown)` : '');
+  console.log(`edit to screen, ${e.moves} pointer moves one per animation frame with the Response tab open (${e.draws.coarse} coarse and ${e.draws.full} full response draws):`);
+  console.log(`  pointer move → copper redrawn:            ${row(e.copper)} (target < 16.7 ms)${miss(e.missing.copper)}`);
+  console.log(`  pointer move → first response drawn:      ${row(e.first)}${miss(e.missing.first)}`);
+  console.log(`  pointer move → ${e.fullPoints}-point response drawn:  ${row(e.full)} (target < 150 ms)${miss(e.missing.full)}`);
+  const cpu = (ms: number | null) => (ms === null ? 'n/a' : `${ms.toFixed(0)} ms`);
+  if (e.tail) console.log(`  last moves and screen updates: ${e.tail}`);
+  console.log(`  over ${e.wallMs.toFixed(0)} ms of wall time: CPU main thread ${cpu(e.mainCpuMs)}, renderer process with its workers ${cpu(e.processCpuMs)}; load average ${e.load.before} before, ${e.load.after} after (2 cores shared with other jobs: wall times above include waiting for a core)`);
 }

@@ -26,7 +26,7 @@ import { InputError } from '../util/errors.ts';
 import { cdiv, cmul, type Complex } from './complex.ts';
 import { denseLuFactor, denseLuSolve } from './denseLu.ts';
 import { GROUND, type NetElement, type Netlist } from './netlist.ts';
-import { sparseFactor, sparseSolveMany, symbolicFactor, type Symbolic } from './ordering.ts';
+import { forwardColumns, sparseFactor, sparseSolveMany, symbolicFactor, type Symbolic } from './ordering.ts';
 
 /** Below this |sinh γl| a line is stamped in ABCD form (the Y stamp loses about 4 digits there). */
 const SINH_LIMIT = 1e-4;
@@ -49,6 +49,10 @@ export interface CompiledNetwork {
   symbolic: Symbolic;
   /** For the fast path: slots per stamped element (aa, bb, ab, ba; −1 where a terminal is ground). */
   slots: Int32Array[];
+  /** For the fast path: the port excitations' columns each row can hold in forward substitution (forwardColumns). */
+  portColumns: Int32Array;
+  /** For the fast path: the right-hand sides, reused at every frequency (solveAt is synchronous). */
+  scratch: Float64Array;
 }
 
 function requirePositive(field: string, v: number, what: string): void {
@@ -174,7 +178,8 @@ export function compileNetwork(net: Netlist): CompiledNetwork {
     return Int32Array.of(slotOr(s.a, s.a), slotOr(s.b, s.b), slotOr(s.a, s.b), slotOr(s.b, s.a));
   });
   const ports = net.ports.map((p) => ({ name: p.name, node: num(p.node), zRef: p.zRef, ...(p.label !== undefined ? { label: p.label } : {}) }));
-  return { nodeNames, ports, stamped, symbolic, slots };
+  const portColumns = forwardColumns(symbolic, ports.map((p) => symbolic.position[p.node]));
+  return { nodeNames, ports, stamped, symbolic, slots, portColumns, scratch: new Float64Array(2 * n * ports.length) };
 }
 
 /** Element values at one frequency, shared by both paths. */
@@ -291,9 +296,10 @@ function solveSparse(cn: CompiledNetwork, ev: Evaluated, s: Float64Array): numbe
   if (!(minRatio >= PIVOT_LIMIT)) return minRatio;
   const P = cn.ports.length;
   // All port excitations at once: column j is port j driven with E_j = 2√Z_j (injected current E_j/Z_j).
-  const X = new Float64Array(2 * sym.n * P);
+  const X = cn.scratch;
+  X.fill(0);
   for (let j = 0; j < P; j++) X[2 * (sym.position[cn.ports[j].node] * P + j)] += 2 / Math.sqrt(cn.ports[j].zRef);
-  sparseSolveMany(sym, v, X, P);
+  sparseSolveMany(sym, v, X, P, cn.portColumns);
   for (let i = 0; i < P; i++) {
     const row = 2 * sym.position[cn.ports[i].node] * P, g = 1 / Math.sqrt(cn.ports[i].zRef);
     for (let j = 0; j < P; j++) {

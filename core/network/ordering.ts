@@ -128,20 +128,51 @@ export function sparseFactor(s: Symbolic, v: Float64Array, rowScale: Float64Arra
 }
 
 /**
+ * Which right-hand-side columns can be non-zero in each row during forward substitution, when column j starts
+ * non-zero only in row `rows[j]` (elimination coordinates): `[lo, hi)` per row at 2k, 2k + 1 (lo ≥ hi: none).
+ * A row's columns reach every later row it updates, so the ranges follow the elimination tree from the leaves up.
+ * Outside its range a row holds exact zeros, which the forward step would only subtract as zeros; skipping them
+ * changes no bit of the result. A port at a leaf of a feed touches only its path to the root, not every row.
+ */
+export function forwardColumns(s: Symbolic, rows: ArrayLike<number>): Int32Array {
+  const { n, upStart, upper } = s;
+  const r = new Int32Array(2 * n);
+  for (let k = 0; k < n; k++) { r[2 * k] = rows.length; r[2 * k + 1] = 0; }
+  for (let j = 0; j < rows.length; j++) {
+    const k = rows[j];
+    if (j < r[2 * k]) r[2 * k] = j;
+    if (j + 1 > r[2 * k + 1]) r[2 * k + 1] = j + 1;
+  }
+  for (let k = 0; k < n; k++) {
+    const lo = r[2 * k], hi = r[2 * k + 1];
+    if (lo >= hi) continue;
+    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
+      const u = upper[t];
+      if (lo < r[2 * u]) r[2 * u] = lo;
+      if (hi > r[2 * u + 1]) r[2 * u + 1] = hi;
+    }
+  }
+  return r;
+}
+
+/**
  * Solves with the factors from sparseFactor for `m` right-hand sides at once: `X` (2·n·m, row k holds the m values
  * of unknown k in elimination coordinates) holds B on entry and the solution on exit. Forward substitution with the
  * unit-lower L, then back substitution with U; the inner loops run over contiguous columns, several times faster
- * than one right-hand side at a time for the many port excitations of a feed.
+ * than one right-hand side at a time for the many port excitations of a feed. `cols` (forwardColumns of where B
+ * is non-zero) limits the forward step to the columns each row can hold; the result is the same to the bit.
  */
-export function sparseSolveMany(s: Symbolic, v: Float64Array, X: Float64Array, m: number): void {
+export function sparseSolveMany(s: Symbolic, v: Float64Array, X: Float64Array, m: number, cols?: Int32Array): void {
   const { n, diag, upStart, upper, lowSlot, upSlot } = s;
   const w = 2 * m;
   for (let k = 0; k < n; k++) {
     const bk = k * w;
+    const c0 = cols ? 2 * cols[2 * k] : 0, c1 = cols ? 2 * cols[2 * k + 1] : w;
+    if (c0 >= c1) continue;
     for (let t = upStart[k]; t < upStart[k + 1]; t++) {
       const bi = upper[t] * w, p = 2 * lowSlot[t];
       const lr = v[p], li = v[p + 1];
-      for (let c = 0; c < w; c += 2) {
+      for (let c = c0; c < c1; c += 2) {
         const xr = X[bk + c], xi = X[bk + c + 1];
         X[bi + c] -= lr * xr - li * xi;
         X[bi + c + 1] -= lr * xi + li * xr;

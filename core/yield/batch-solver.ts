@@ -294,7 +294,7 @@ export class BatchSolver {
     const P = cn.ports.length, X = this.X;
     X.fill(0);
     for (let j = 0; j < P; j++) X[2 * (sym.position[cn.ports[j]!.node]! * P + j)] += 2 / Math.sqrt(cn.ports[j]!.zRef);
-    sparseSolveMany(sym, v, X, P);
+    sparseSolveMany(sym, v, X, P, cn.portColumns);
     for (let i = 0; i < P; i++) {
       const row = 2 * sym.position[cn.ports[i]!.node]! * P, g = 1 / Math.sqrt(cn.ports[i]!.zRef);
       for (let j = 0; j < P; j++) {

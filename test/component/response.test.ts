@@ -8,7 +8,7 @@
 import { describe, expect, it, vi } from 'vitest';
 import { render, screen, waitFor } from '@testing-library/svelte';
 import { editorOn } from './harness.ts';
-import { COARSE_POINTS, Compute } from '../../renderer/src/state/compute.svelte.ts';
+import { COARSE_POINTS, Compute, LIVE_SWEEP_BUDGET_MS } from '../../renderer/src/state/compute.svelte.ts';
 import { layoutJob, responseJob } from '../../renderer/src/worker/jobs.ts';
 import { designSweepSettings } from '../../core/index.ts';
 import ResponsePanel from '../../renderer/src/components/ResponsePanel.svelte';
@@ -122,4 +122,68 @@ describe('response: a coarse pass first, then the full sweep', () => {
     expect(shown.map((s) => s.points)).toEqual([11]);
     compute.destroy();
   }, 120_000);
+});
+
+describe('the response follows edits (Compute.follow)', () => {
+  it('edits made while a live sweep runs wait; the newest revision gets its full response, and its numbers are sweep()\'s', async () => {
+    const ed = editorOn('demo');
+    const compute = new Compute(ed, null);
+    const shown: { revision: number | null; points: number }[] = [];
+    const set = Object.getOwnPropertyDescriptor(Object.getPrototypeOf(compute), 'response')!.set!;
+    Object.defineProperty(compute, 'response', {
+      configurable: true,
+      get: () => Object.getOwnPropertyDescriptor(Object.getPrototypeOf(compute), 'response')!.get!.call(compute),
+      set: (v) => { set.call(compute, v); if (v) shown.push({ revision: compute.responseRevision, points: v.settings.points }); },
+    });
+    const vertex = ed.doc.nodes.find((n) => n.kind === 'vertex')!;
+    compute.follow();
+    // Three more edits while the first live sweep runs: they coalesce into one sweep of the newest.
+    for (let k = 1; k <= 3; k++) {
+      expect(ed.edit('node.move', { id: vertex.id, at: { x: vertex.at.x + k * 1e-4, y: vertex.at.y } })).toBe(true);
+      compute.follow();
+    }
+    const last = ed.revision;
+    await vi.waitFor(() => expect(compute.sweeping).toBe(false), { timeout: 60_000, interval: 20 });
+    const full = designSweepSettings(ed.doc).points;
+    expect(compute.responseError).toBeNull();
+    expect(compute.responseRevision).toBe(last);
+    expect(compute.responseCoarse).toBe(false);
+    expect(compute.response!.settings.points).toBe(full);
+    // Every revision shown comes coarse first, then full; the revisions between the first and the newest are skipped.
+    const revisions = [...new Set(shown.map((s) => s.revision))];
+    expect(revisions.length).toBeLessThanOrEqual(2);
+    expect(revisions.at(-1)).toBe(last);
+    expect(shown.filter((s) => s.revision === last).map((s) => s.points)).toEqual([COARSE_POINTS, full]);
+    // The same numbers as an explicit sweep of the same design.
+    const again = await responseJob({ doc: ed.doc }, () => {});
+    expect(compute.response!.traces[1]!.db).toEqual(again.traces[1]!.db);
+    compute.destroy();
+  }, 120_000);
+});
+
+describe('a long live sweep gives way to the newest edit', () => {
+  it('over LIVE_SWEEP_BUDGET_MS, a newer revision stops the stale full sweep; the newest gets its full response', async () => {
+    const ed = editorOn('demo');
+    expect(ed.edit('design.setSweep', { sweep: { start: 1e9, stop: 4e9, points: 20_001, spacing: 'linear' } })).toBe(true);
+    const compute = new Compute(ed, null);
+    (compute as unknown as { lastFullMs: number }).lastFullMs = LIVE_SWEEP_BUDGET_MS + 1; // as if the last full sweep had been long
+    const shown: { revision: number | null; points: number }[] = [];
+    const set = Object.getOwnPropertyDescriptor(Object.getPrototypeOf(compute), 'response')!.set!;
+    Object.defineProperty(compute, 'response', {
+      configurable: true,
+      get: () => Object.getOwnPropertyDescriptor(Object.getPrototypeOf(compute), 'response')!.get!.call(compute),
+      set: (v) => { set.call(compute, v); if (v) shown.push({ revision: compute.responseRevision, points: v.settings.points }); },
+    });
+    const first = ed.revision;
+    compute.follow();
+    await vi.waitFor(() => expect(compute.responseCoarse).toBe(true), { timeout: 60_000, interval: 5 });
+    // The full 20 001-point sweep of the first revision is running now; an edit stops it.
+    const vertex = ed.doc.nodes.find((n) => n.kind === 'vertex')!;
+    expect(ed.edit('node.move', { id: vertex.id, at: { x: vertex.at.x + 1e-4, y: vertex.at.y } })).toBe(true);
+    compute.follow();
+    await vi.waitFor(() => expect(compute.sweeping).toBe(false), { timeout: 120_000, interval: 50 });
+    expect(shown).toEqual([{ revision: first, points: COARSE_POINTS }, { revision: ed.revision, points: COARSE_POINTS }, { revision: ed.revision, points: 20_001 }]);
+    expect(compute.responseCancelled).toBe(false);
+    compute.destroy();
+  }, 180_000);
 });

@@ -178,6 +178,15 @@ export class BoardController {
     this.drawLabels();
   }
 
+  /**
+   * Says on the drawing which design revision its centrelines show and which its copper comes from
+   * (`data-revision`, `data-copper-revision`): two attributes, so tests and the frame benchmark can tell when an edit
+   * reached the screen without timing anything inside the app.
+   */
+  stamp(revision: number, copperRevision: number | null): void {
+    this.root.attr({ 'data-revision': revision, 'data-copper-revision': copperRevision ?? -1 });
+  }
+
   setMarks(m: Marks): void {
     this.marks = m;
     for (const [id, { el }] of this.pieceEls) {
@@ -308,9 +317,10 @@ export class BoardController {
       const c = cls.join(' ');
       this.keyed(this.nodeEls, n.id, `${c}|${x}|${y}|${r}`, () => {
         let el: SvgElement;
-        if (n.kind === 'port') el = this.nodeLayer.rect(2.4 * r, 2.4 * r).center(x, y);
+        // Positions as attributes: svg.js's center() asks the browser for a bounding box (a layout) per mark.
+        if (n.kind === 'port') el = this.nodeLayer.rect(2.4 * r, 2.4 * r).attr({ x: x - 1.2 * r, y: y - 1.2 * r });
         else if (n.kind === 'short') el = this.nodeLayer.polygon([[x, y + 1.4 * r], [x + 1.4 * r, y], [x, y - 1.4 * r], [x - 1.4 * r, y]]);
-        else el = this.nodeLayer.circle(2 * r * (n.kind === 'vertex' ? 0.7 : 1)).center(x, y);
+        else el = this.nodeLayer.circle(2 * r * (n.kind === 'vertex' ? 0.7 : 1)).attr({ cx: x, cy: y });
         return el.attr({ class: c, 'data-node': n.id });
       }, seen);
     }
@@ -354,11 +364,15 @@ export class BoardController {
   private drawOutline(): void {
     this.drawAreas();
     this.drawMilled();
+    // The outline changes rarely; redraw it only then, not on every scene of a drag.
+    if (this.outlineDrawn === this.scene.outline) return;
+    this.outlineDrawn = this.scene.outline;
     this.outlineLayer.clear();
     if (this.scene.outline && this.scene.outline.length >= 3) {
       this.outlineLayer.polygon(polyPoints(this.scene.outline)).addClass('board-outline');
     }
   }
+  private outlineDrawn: Scene['outline'] | undefined = undefined;
 
   private applyView(): void {
     const v = this.view;

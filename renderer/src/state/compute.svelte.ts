@@ -18,6 +18,12 @@ import type { OverlayTrace } from './response-view.ts';
 
 /** Points of the quick first pass of a response (enough for the shape of a band; the full sweep follows). */
 export const COARSE_POINTS = 21;
+/**
+ * A live full sweep whose design last took longer than this (ms) is stopped when a newer revision arrives (the
+ * newest edit must not wait seconds behind a stale one; its coarse pass still shows the drag); a quicker one
+ * finishes, so a drag keeps showing full responses instead of cancelling each one before it ends.
+ */
+export const LIVE_SWEEP_BUDGET_MS = 400;
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -37,8 +43,15 @@ export class Compute {
   private sweepStop: AbortController | null = null;
   lastLayoutMs = $state(0);
 
+  /** Sweeps run in a worker of their own, so the copper of each edit never waits behind a sweep. */
+  private readonly sweeper: ComputeClient;
+  /** The live sweep loop is running (follow), and how long the design's last full sweep took (ms). */
+  private following = false;
+  private lastFullMs = 0;
+
   constructor(private readonly editor: EditorState, makeWorker: (() => Worker) | null = defaultWorker()) {
     this.client = new ComputeClient(makeWorker, runJob);
+    this.sweeper = new ComputeClient(makeWorker, runJob);
   }
 
   get threaded(): boolean { return this.client.threaded; }
@@ -75,6 +88,7 @@ export class Compute {
    * cancels the one it supersedes (its worker job stops at its next chunk), so edits never queue stale sweeps.
    */
   async sweep(input: Omit<ResponseInput, 'doc'> = {}): Promise<void> {
+    this.following = false;
     this.sweepStop?.abort();
     const stop = new AbortController();
     this.sweepStop = stop;
@@ -87,12 +101,12 @@ export class Compute {
     const onProgress = (p: Progress) => { if (this.sweepStop === stop) this.responseProgress = p; };
     // A coarse pass first, so the plots follow an edit at once; the full sweep replaces it when it is done.
     if (settings.points > COARSE_POINTS) {
-      const coarse = await this.client.run<ResponseOutput>('response', { ...input, doc, settings: { ...settings, points: COARSE_POINTS } }, onProgress, stop.signal);
+      const coarse = await this.sweeper.run<ResponseOutput>('response', { ...input, doc, settings: { ...settings, points: COARSE_POINTS } }, onProgress, stop.signal);
       if (this.sweepStop !== stop) return;
       if (coarse.ok) { this.responseCoarse = true; this.response = coarse.value; this.responseRevision = revision; }
       // A failed coarse pass says nothing the full sweep will not say again: go on to it.
     }
-    const out = await this.client.run<ResponseOutput>('response', { ...input, doc, settings }, onProgress, stop.signal);
+    const out = await this.sweeper.run<ResponseOutput>('response', { ...input, doc, settings }, onProgress, stop.signal);
     if (this.sweepStop !== stop) return; // a newer sweep took over
     this.sweepStop = null;
     this.responseProgress = null;
@@ -101,6 +115,72 @@ export class Compute {
     else if ('error' in out) {
       if (out.error.field === 'cancelled') this.responseCancelled = true;
       else this.responseError = out.error.message;
+    }
+  }
+
+  /**
+   * Keeps the response up with the design while it is edited (the Response panel calls this on every revision).
+   * One live sweep at a time, each a coarse pass then the full sweep of the newest revision; revisions made
+   * meanwhile wait, and only the newest of them is swept next. A drag therefore shows a fresh response every
+   * sweep's time, and the last position's full response as soon as the sweep before it ends. A design whose full
+   * sweep is long (LIVE_SWEEP_BUDGET_MS) has its stale sweep stopped instead. Numbers are those of `sweep()`.
+   */
+  follow(): void {
+    if (!this.following) { void this.followLoop(); return; }
+    // Only a full pass is stopped: the coarse pass is short, and drawing it keeps the plots moving during a drag.
+    if (this.livePassFull && this.lastFullMs > LIVE_SWEEP_BUDGET_MS) this.livePass?.abort();
+  }
+
+  private livePass: AbortController | null = null;
+  private livePassFull = false;
+
+  private async followLoop(): Promise<void> {
+    this.sweepStop?.abort();
+    this.following = true;
+    const stop = new AbortController();
+    this.sweepStop = stop;
+    this.responseCancelled = false;
+    const onProgress = (p: Progress) => { if (this.sweepStop === stop) this.responseProgress = p; };
+    // Cancel (or an explicit sweep) stops the loop; a newer revision stops only a long pass (follow).
+    const cancel = () => this.livePass?.abort();
+    stop.signal.addEventListener('abort', cancel);
+    try {
+      for (;;) {
+        const revision = this.editor.revision;
+        const doc = this.editor.doc;
+        const settings = designSweepSettings(doc);
+        this.responseProgress = { done: 0, total: 1, label: 'starting' };
+        const passes = settings.points > COARSE_POINTS ? [{ ...settings, points: COARSE_POINTS }, settings] : [settings];
+        for (const s of passes) {
+          const pass = new AbortController();
+          this.livePass = pass;
+          this.livePassFull = s === settings;
+          const out = await this.sweeper.run<ResponseOutput>('response', { doc, settings: s }, onProgress, pass.signal);
+          if (this.sweepStop !== stop) return; // an explicit sweep took over
+          if (out.ok) {
+            this.responseCoarse = s !== settings;
+            this.responseRevision = revision;
+            this.response = out.value;
+            this.responseError = null;
+            if (s === settings) this.lastFullMs = out.ms;
+            continue;
+          }
+          if (!('error' in out)) break;
+          if (out.error.field !== 'cancelled') { this.responseError = out.error.message; break; }
+          if (stop.signal.aborted) { this.responseCancelled = true; return; }
+          break; // a long pass of a stale revision, stopped for the newest one
+        }
+        if (this.editor.revision === revision) return;
+      }
+    } finally {
+      stop.signal.removeEventListener('abort', cancel);
+      this.livePass = null;
+      if (this.sweepStop === stop) {
+        this.sweepStop = null;
+        this.responseProgress = null;
+        this.responseCoarse = false;
+        this.following = false;
+      }
     }
   }
 
@@ -188,7 +268,7 @@ export class Compute {
     return { ok: false, error: 'error' in out ? out.error.message : null };
   }
 
-  destroy(): void { this.client.destroy(); }
+  destroy(): void { this.client.destroy(); this.sweeper.destroy(); }
 }
 
 function defaultWorker(): (() => Worker) | null {

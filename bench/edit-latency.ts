@@ -1,0 +1,166 @@
+/**
+ * The whole edit as a person sees it, for the frame benchmark: per pointer move while dragging a bend, the time until
+ * the board shows copper of that revision (or a newer one) and until the response plot shows a response of it — the
+ * first one drawn (the quick coarse pass when there is one) and the full sweep. The app says what it drew through
+ * two attributes (`data-copper-revision` on the board drawing, `data-drawn` = "revision:points" on the response
+ * plot); a MutationObserver in the page notes when each changes, so nothing inside the app is timed or patched.
+ *
+ * Moves are paced one per animation frame, as a browser delivers pointer moves. CPU time comes from the page's own
+ * counters (Chrome DevTools Protocol Performance.getMetrics: ThreadTime for the main thread, ProcessTime for the
+ * whole renderer process, compute workers included), so a busy machine can be told from slow code.
+ * Not a bench itself (no `.bench.ts`): frame.bench.ts calls it.
+ */
+import type { Page } from 'playwright-core';
+import { readFileSync } from 'node:fs';
+
+export interface EditLatency {
+  moves: number;
+  /** Per move, ms from the pointer event to the copper / first response / full response of its revision on screen. */
+  copper: number[];
+  first: number[];
+  full: number[];
+  /** Moves whose revision never reached the screen before the drag settled (superseded by a newer one is fine). */
+  missing: { copper: number; first: number; full: number };
+  fullPoints: number;
+  /** Coarse and full response draws seen during the drag. */
+  draws: { coarse: number; full: number };
+  wallMs: number;
+  /** CPU time over the drag, ms (null when this chromium does not report it). */
+  mainCpuMs: number | null;
+  processCpuMs: number | null;
+  load: { before: string; after: string };
+  /** The last moves and screen updates, when some move never reached the screen (to see why). */
+  tail: string;
+}
+
+interface PageRecord { moves: { t0: number; rev: number }[]; events: { kind: 'copper' | 'response'; rev: number; points: number; t: number }[]; t1: number; panel: string }
+
+const loadAvg = () => { try { return readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' '); } catch { return 'unknown'; } };
+
+async function cpuSeconds(page: Page): Promise<{ thread: number | null; process: number | null; close: () => Promise<void> }> {
+  const cdp = await page.context().newCDPSession(page);
+  await cdp.send('Performance.enable');
+  const { metrics } = (await cdp.send('Performance.getMetrics')) as { metrics: { name: string; value: number }[] };
+  const get = (n: string) => metrics.find((m) => m.name === n)?.value ?? null;
+  return { thread: get('ThreadTime'), process: get('ProcessTime'), close: () => cdp.detach() };
+}
+
+/** Opens the Response tab, waits for the full response of the design as it stands, then drags the bend `vertex`. */
+export async function editToScreen(page: Page, vertex: string, moves = 60, fullPoints = 201): Promise<EditLatency> {
+  await page.getByTestId('dock-response').click();
+  // Polled from here: waitForFunction evaluates its text with eval, which the app's CSP forbids.
+  const settled = `(() => {
+    const rev = document.querySelector('[data-testid="board-canvas"]')?.getAttribute('data-revision');
+    return document.querySelector('[data-testid="response-plot"]')?.getAttribute('data-drawn') === rev + ':' + ${fullPoints};
+  })()`;
+  for (let i = 0; i < 600 && !(await page.evaluate(settled)); i++) await page.waitForTimeout(200);
+  await page.waitForTimeout(300);
+  const load0 = loadAvg();
+  const cpu0 = await cpuSeconds(page);
+  const profiler = process.env.FRAME_BENCH_PROFILE ? await startProfile(page) : null;
+  // In-page code is a string: tsx would otherwise wrap functions in helpers the page does not have.
+  const rec = (await page.evaluate(`(async (id, moves, fullPoints) => {
+    const svg = document.querySelector('[data-testid="board-canvas"]');
+    const panel = document.querySelector('[data-testid="response-panel"]');
+    const events = [];
+    let lastCopper = svg.getAttribute('data-copper-revision');
+    let lastDrawn = document.querySelector('[data-testid="response-plot"]')?.getAttribute('data-drawn') ?? null;
+    const seen = new MutationObserver((list) => {
+      const t = performance.now();
+      for (const m of list) {
+        if (m.attributeName === 'data-copper-revision') {
+          const v = svg.getAttribute('data-copper-revision');
+          if (v !== lastCopper) { lastCopper = v; events.push({ kind: 'copper', rev: Number(v), points: 0, t }); }
+        } else if (m.attributeName === 'data-drawn') {
+          // A redraw of the same response (a window or theme change) is not a new response on screen.
+          const v = m.target.getAttribute('data-drawn');
+          if (v === lastDrawn) continue;
+          lastDrawn = v;
+          const [rev, points] = v.split(':').map(Number);
+          events.push({ kind: 'response', rev, points, t });
+        }
+      }
+    });
+    seen.observe(svg, { attributes: true, attributeFilter: ['data-copper-revision'] });
+    seen.observe(panel, { attributes: true, subtree: true, attributeFilter: ['data-drawn'] });
+    const el = document.querySelector('[data-node="' + id + '"]');
+    const r = el.getBoundingClientRect();
+    const x0 = r.left + r.width / 2, y0 = r.top + r.height / 2;
+    const ev = (type, x, y) => new PointerEvent(type, { clientX: x, clientY: y, button: 0, buttons: 1, bubbles: true, pointerId: 1, isPrimary: true });
+    const frame = () => new Promise((ok) => requestAnimationFrame(() => ok(null)));
+    svg.dispatchEvent(ev('pointerdown', x0, y0));
+    await frame();
+    const log = [];
+    for (let k = 1; k <= moves; k++) {
+      const t0 = performance.now();
+      svg.dispatchEvent(ev('pointermove', x0 + k * 2, y0 + (k % 3)));
+      await frame();
+      log.push({ t0, rev: Number(svg.getAttribute('data-revision')) });
+    }
+    svg.dispatchEvent(ev('pointerup', x0 + moves * 2, y0 + (moves % 3)));
+    // Settle: the last move's full response on screen (or give up after 60 s and count the misses).
+    const last = log[log.length - 1].rev;
+    const end = performance.now() + 60000;
+    while (performance.now() < end && !events.some((e) => e.kind === 'response' && e.points >= fullPoints && e.rev >= last)) await new Promise((ok) => setTimeout(ok, 20));
+    seen.disconnect();
+    const words = (id) => document.querySelector('[data-testid="' + id + '"]')?.textContent?.trim() ?? '';
+    return { moves: log, events, t1: performance.now(), panel: [words('sweep-summary'), words('response-error'), words('sweep-cancelled')].filter(Boolean).join(' / ') };
+  })(${JSON.stringify(vertex)}, ${moves}, ${fullPoints})`)) as PageRecord;
+  const cpu1 = await cpuSeconds(page);
+  if (profiler) console.log(await profiler());
+  await cpu0.close(); await cpu1.close();
+  const load1 = loadAvg();
+
+  const after = (t0: number, rev: number, ok: (e: PageRecord['events'][number]) => boolean) =>
+    rec.events.find((e) => e.t >= t0 && e.rev >= rev && ok(e));
+  const out: EditLatency = {
+    moves: rec.moves.length, copper: [], first: [], full: [], missing: { copper: 0, first: 0, full: 0 }, fullPoints,
+    draws: { coarse: rec.events.filter((e) => e.kind === 'response' && e.points < fullPoints).length, full: rec.events.filter((e) => e.kind === 'response' && e.points >= fullPoints).length },
+    wallMs: rec.t1 - (rec.moves[0]?.t0 ?? rec.t1),
+    // Headless chromium may report ThreadTime as 0 throughout: then it says nothing, and is printed as n/a.
+    mainCpuMs: cpu0.thread !== null && cpu1.thread !== null && cpu1.thread > cpu0.thread ? (cpu1.thread - cpu0.thread) * 1000 : null,
+    processCpuMs: cpu0.process !== null && cpu1.process !== null ? (cpu1.process - cpu0.process) * 1000 : null,
+    load: { before: load0, after: load1 },
+    tail: '',
+  };
+  for (const m of rec.moves) {
+    const c = after(m.t0, m.rev, (e) => e.kind === 'copper');
+    const f = after(m.t0, m.rev, (e) => e.kind === 'response');
+    const g = after(m.t0, m.rev, (e) => e.kind === 'response' && e.points >= fullPoints);
+    if (c) out.copper.push(c.t - m.t0); else out.missing.copper++;
+    if (f) out.first.push(f.t - m.t0); else out.missing.first++;
+    if (g) out.full.push(g.t - m.t0); else out.missing.full++;
+  }
+  if (out.missing.copper || out.missing.full) {
+    const t00 = rec.moves[0]?.t0 ?? 0;
+    out.tail = [...rec.moves.slice(-3).map((m) => `move rev ${m.rev} at ${(m.t0 - t00).toFixed(0)} ms`),
+      ...rec.events.slice(-6).map((e) => `${e.kind} rev ${e.rev}${e.points ? `:${e.points}` : ''} at ${(e.t - t00).toFixed(0)} ms`),
+      `response panel: ${rec.panel}`].join('; ');
+  }
+  return out;
+}
+
+/**
+ * FRAME_BENCH_PROFILE=1: the page's main-thread CPU profile over the drag (CDP Profiler), as the functions with the
+ * most self time — where a slow move spends its time.
+ */
+async function startProfile(page: Page): Promise<() => Promise<string>> {
+  const cdp = await page.context().newCDPSession(page);
+  await cdp.send('Profiler.enable');
+  await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
+  await cdp.send('Profiler.start');
+  return async () => {
+    const { profile } = (await cdp.send('Profiler.stop')) as { profile: { nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number } }[]; samples: number[]; timeDeltas: number[] } };
+    await cdp.detach();
+    const byId = new Map(profile.nodes.map((n) => [n.id, n]));
+    const self = new Map<string, number>();
+    profile.samples.forEach((id, i) => {
+      const f = byId.get(id)!.callFrame;
+      const key = `${f.functionName || '(anonymous)'} ${f.url.split('/').pop() ?? ''}:${f.lineNumber}`;
+      self.set(key, (self.get(key) ?? 0) + (profile.timeDeltas[i] ?? 0) / 1000);
+    });
+    const total = [...self.values()].reduce((a, b) => a + b, 0);
+    return `main-thread profile over the drag (self time, ${total.toFixed(0)} ms sampled):\n` +
+      [...self].sort((a, b) => b[1] - a[1]).slice(0, 25).map(([k, ms]) => `  ${ms.toFixed(1).padStart(8)} ms  ${k}`).join('\n');
+  };
+}
