@@ -7,6 +7,7 @@
  */
 import { C0 } from '../units/constants.ts';
 import { InputError } from '../util/errors.ts';
+import { hypot } from '../util/hypot.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import { analyzeLine } from './analyze.ts';
 import type { LineOptions } from './types.ts';
@@ -16,7 +17,7 @@ export interface Complex { re: number; im: number }
 /** Principal square root (re ≥ 0), written into `to` (no record per call: sweeps and the yield estimate call this
  * hundreds of thousands of times). */
 function csqrtInto(re: number, im: number, to: Complex): void {
-  const m = Math.hypot(re, im);
+  const m = hypot(re, im);
   const r = Math.sqrt((m + re) / 2);
   const i = Math.sqrt(Math.max(0, (m - re) / 2));
   to.re = r; to.im = im < 0 ? -i : i;

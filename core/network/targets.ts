@@ -7,6 +7,7 @@
  * figures.ts).
  */
 import { InputError } from '../util/errors.ts';
+import { hypot } from '../util/hypot.ts';
 import type { DesignDoc, Target, TargetFigure } from '../design/types.ts';
 import { FIGURE_WORDS } from '../design/targets.ts';
 import type { NetworkResponse } from './response.ts';
@@ -57,7 +58,7 @@ function port(r: NetworkResponse, id: string, field: string): number {
 
 function sMag(r: NetworkResponse, k: number, i: number, j: number): number {
   const P = r.ports.length, t = 2 * ((k * P + i) * P + j);
-  return Math.hypot(r.s[t]!, r.s[t + 1]!);
+  return hypot(r.s[t]!, r.s[t + 1]!);
 }
 
 function sDeg(r: NetworkResponse, k: number, i: number, j: number): number {

@@ -17,7 +17,7 @@
  */
 import { InputError } from '../util/errors.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { microstripColumns, lineConstantsFrom, type LineOptions } from '../line/index.ts';
+import { microstripColumns, lineConstantsFrom, type LineColumns, type LineOptions } from '../line/index.ts';
 import type { SizedDesign, SizedPiece } from '../layout/types.ts';
 import { compileNetwork, solveAt, type CompiledNetwork } from '../network/mna.ts';
 import { netlistFromSized, type SizedNetlist } from '../network/fromSized.ts';
@@ -123,6 +123,9 @@ export class BatchSolver {
     return d;
   }
 
+  /** Inputs and columns of the batch line analysis, per number of widths analysed together. */
+  private readonly batches = new Map<number, { widths: Float64Array; fs: Float64Array; cols: LineColumns | null }>();
+
   /** Reused tables, one per (laminate, width) slot of the board being solved. */
   private readonly pool: Float64Array[] = [];
 
@@ -138,9 +141,18 @@ export class BatchSolver {
     for (const t of tables) { const l = bySub.get(t.sub) ?? []; l.push(t); bySub.set(t.sub, l); }
     for (const [sub, list] of bySub) {
       const K = list.length;
-      const widths = new Float64Array(K * F), fs = new Float64Array(K * F);
-      for (let j = 0; j < K; j++) for (let k = 0; k < F; k++) { widths[j * F + k] = list[j]!.width; fs[j * F + k] = this.freqs[k]!; }
-      const c = microstripColumns(sub, widths, fs, this.line);
+      // The batch's inputs and columns are kept per size and refilled board after board (no new arrays to collect).
+      let b = this.batches.get(K);
+      if (!b) {
+        const fs = new Float64Array(K * F);
+        for (let j = 0; j < K; j++) fs.set(this.freqs, j * F);
+        b = { widths: new Float64Array(K * F), fs, cols: null };
+        this.batches.set(K, b);
+      }
+      const widths = b.widths;
+      for (let j = 0; j < K; j++) widths.fill(list[j]!.width, j * F, (j + 1) * F);
+      const c = microstripColumns(sub, widths, b.fs, this.line, b.cols ?? undefined);
+      b.cols = c;
       list.forEach((t, j) => {
         const tab = (this.pool[slot] ??= new Float64Array(4 * F));
         slot++;
@@ -168,11 +180,14 @@ export class BatchSolver {
   }
 
   /** Element values of a made board, in stamped order, as columns (one kind code and its numbers per element). */
+  private cols: Columns | null = null;
+
   private values(net: SizedNetlist, tags: Map<LineModel, Tag>): Columns {
     if (net.elements.length !== this.nominalWidth.length) throw new InputError('invalid-design', 'design', 'a made board with the nominal board\'s network', 'a different network');
     this.fallbackDelta.clear();
     const E = this.source.length;
-    const c: Columns = { kind: new Int8Array(E), table: new Array(E).fill(null), deriv: new Array(E).fill(null), delta: new Float64Array(E), num: new Float64Array(E), fn: new Array(E).fill(null) };
+    // One record refilled for every board: each element keeps its kind, so every field it reads is written again.
+    const c = (this.cols ??= { kind: new Int8Array(E), table: new Array(E).fill(null), deriv: new Array(E).fill(null), delta: new Float64Array(E), num: new Float64Array(E), fn: new Array(E).fill(null) });
     for (let idx = 0; idx < E; idx++) {
       const i = this.source[idx]!;
       const el: NetElement = net.elements[i]!;

@@ -19,6 +19,7 @@
  * Random numbers: xoshiro128** seeded by SplitMix64, normals by inversion (AS 241); see prng.ts and normal.ts.
  */
 import { InputError, describe } from '../util/errors.ts';
+import { hypot } from '../util/hypot.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import type { DesignDoc, Target, Tolerance, ToleranceQuantity } from '../design/types.ts';
 import type { LineOptions } from '../line/index.ts';
@@ -224,7 +225,7 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
       const mn = envMin[e]!, mx = envMax[e]!, sm = envSum[e]!;
       for (let k = 0; k < F; k++) {
         const t = 2 * ((k * P + i) * P + j);
-        const d = toDb(Math.hypot(st.s[t]!, st.s[t + 1]!));
+        const d = toDb(hypot(st.s[t]!, st.s[t + 1]!));
         if (d < mn[k]!) mn[k] = d;
         if (d > mx[k]!) mx[k] = d;
         sm[k] += d;
@@ -277,7 +278,7 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
     overall: { passes: allPass, yield: wilson(allPass, N) },
     envelopes: pairs.map(([i, j], e) => ({
       i, j, label: `S(${portNames[i]},${portNames[j]})`,
-      nominal: Array.from({ length: F }, (_, k) => { const t = 2 * ((k * P + i) * P + j); return toDb(Math.hypot(nominal.s[t]!, nominal.s[t + 1]!)); }),
+      nominal: Array.from({ length: F }, (_, k) => { const t = 2 * ((k * P + i) * P + j); return toDb(hypot(nominal.s[t]!, nominal.s[t + 1]!)); }),
       min: [...envMin[e]!], mean: [...envSum[e]!].map((x) => x / N), max: [...envMax[e]!],
     })),
     ranking: { method: 'one-at-a-time variance of each target\'s worst value (shares of the summed variances, interactions left out)', samples: rankingN, entries },
