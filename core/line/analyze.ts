@@ -206,7 +206,7 @@ function columnOf(name: string, v: ArrayLike<number> | number, n: number): (i: n
  * Throws InputError naming the first bad entry (e.g. `widths[17]`); nothing is returned then.
  * Example: analyzeLines(glassEpoxy, [1.5e-3, 3e-3], 2.45e9).z0 → Float64Array [≈ 50, ≈ 33].
  */
-export function analyzeLines(sub: SubstrateSpec, widths: ArrayLike<number>, freqs: ArrayLike<number> | number, opts?: LineOptions): LineColumns {
+export function analyzeLines(sub: SubstrateSpec, widths: ArrayLike<number>, freqs: ArrayLike<number> | number, opts?: LineOptions, into?: LineColumns): LineColumns {
   checkSubstrate(sub);
   const disp = checkDispersion(opts);
   const lossModel = checkConductorLoss(opts);
@@ -219,12 +219,16 @@ export function analyzeLines(sub: SubstrateSpec, widths: ArrayLike<number>, freq
   for (let i = 0; i < n; i++) {
     try { checkWidth(widths[i], sub.h); checkFrequency(fAt(i)); } catch (e) { throw atEntry(e, i); }
   }
-  const cols: LineColumns = {
-    width: Float64Array.from(widths), f: new Float64Array(n), z0: new Float64Array(n), z0Static: new Float64Array(n),
+  // `into` (columns of the same length from an earlier call) is refilled instead of allocating twelve new arrays: a
+  // loop that analyses many boards (the yield estimate) would otherwise spend its time collecting them.
+  const cols: LineColumns = into !== undefined && into.width.length === n ? into : {
+    width: new Float64Array(n), f: new Float64Array(n), z0: new Float64Array(n), z0Static: new Float64Array(n),
     epsEff: new Float64Array(n), epsEffStatic: new Float64Array(n), lambdaG: new Float64Array(n), vp: new Float64Array(n),
     delayPerM: new Float64Array(n), alphaC: new Float64Array(n), alphaD: new Float64Array(n), skinDepth: new Float64Array(n),
     warnings: [],
   };
+  cols.width.set(widths);
+  cols.warnings.length = 0;
   const pending: Warning[] = [];
   for (let i = 0; i < n; i++) {
     const f = fAt(i);

@@ -7,18 +7,20 @@
  */
 import { C0 } from '../units/constants.ts';
 import { InputError } from '../util/errors.ts';
+import { hypot } from '../util/hypot.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import { analyzeLine } from './analyze.ts';
 import type { LineOptions } from './types.ts';
 
 export interface Complex { re: number; im: number }
 
-/** Principal square root (re ≥ 0). */
-function csqrt(re: number, im: number): Complex {
-  const m = Math.hypot(re, im);
+/** Principal square root (re ≥ 0), written into `to` (no record per call: sweeps and the yield estimate call this
+ * hundreds of thousands of times). */
+function csqrtInto(re: number, im: number, to: Complex): void {
+  const m = hypot(re, im);
   const r = Math.sqrt((m + re) / 2);
   const i = Math.sqrt(Math.max(0, (m - re) / 2));
-  return { re: r, im: im < 0 ? -i : i };
+  to.re = r; to.im = im < 0 ? -i : i;
 }
 
 export function lineConstants(sub: SubstrateSpec, width: number, f: number, opts?: LineOptions): { zc: Complex; gamma: Complex } {
@@ -42,8 +44,7 @@ export function lineConstantsFrom(z0: number, epsEff: number, alphaC: number, al
   const R = 2 * z0 * alphaC; const G = (2 * alphaD) / z0;
   // Z = R + jωL, Y = G + jωC
   const zr = R; const zi = w * L; const yr = G; const yi = w * C;
-  const gamma = csqrt(zr * yr - zi * yi, zr * yi + zi * yr);
+  csqrtInto(zr * yr - zi * yi, zr * yi + zi * yr, out.gamma);
   const d = yr * yr + yi * yi;
-  const zc = csqrt((zr * yr + zi * yi) / d, (zi * yr - zr * yi) / d);
-  out.zc.re = zc.re; out.zc.im = zc.im; out.gamma.re = gamma.re; out.gamma.im = gamma.im;
+  csqrtInto((zr * yr + zi * yi) / d, (zi * yr - zr * yi) / d, out.zc);
 }

@@ -196,8 +196,9 @@ export function stripAt(family: StripLineFamily, substrate: SubstrateSpec, width
 
 /**
  * Many single lines on one substrate at once (the yield estimate's tables): the batch form of the microstrip
- * family, the same numbers as `evaluate` to the last bit (analyze.ts shares one analysis between both).
+ * family, the same numbers as `evaluate` to the last bit (analyze.ts shares one analysis between both). `into`:
+ * columns of the same length from an earlier call, refilled instead of new ones.
  */
-export function microstripColumns(substrate: SubstrateSpec, widths: ArrayLike<number>, freqs: ArrayLike<number> | number, options?: LineOptions): LineColumns {
-  return analyzeLines(substrate, widths, freqs, options);
+export function microstripColumns(substrate: SubstrateSpec, widths: ArrayLike<number>, freqs: ArrayLike<number> | number, options?: LineOptions, into?: LineColumns): LineColumns {
+  return analyzeLines(substrate, widths, freqs, options, into);
 }

@@ -25,7 +25,7 @@ export { guessPortMap, measuredPortCount, measuredForDesign, compareMeasured } f
 export { responseCacheKey } from './cacheKey.ts';
 export { designSweepSettings, DEFAULT_SWEEP_POINTS } from './designSweep.ts';
 export { figureTable, MAX_ISOLATION_ROWS, type FigureTable, type FigureRow, type FigureKind } from './figureTable.ts';
-export { evaluateTargets, evaluateTarget, targetFrequencies, targetText, limitText, type TargetEvaluation, type TargetResult } from './targets.ts';
+export { evaluateTargets, evaluateTarget, prepareTargets, targetFrequencies, targetText, limitText, type TargetEvaluation, type TargetResult } from './targets.ts';
 export { coupledPairY, modeConstants } from './coupledPair.ts';
 export * from './coupon/index.ts';
 export * from './equalize/index.ts';

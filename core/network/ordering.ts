@@ -96,12 +96,24 @@ export function symbolicFactor(n: number, adjacency: Iterable<number>[]): Symbol
   };
 }
 
+/** Where the last sparseFactorInPlace met its smallest pivot ratio (a field of one record: no allocation per call). */
+const lastFactor = { at: -1 };
+
 /**
  * Numeric LU (no pivoting) of the values `v` (2 * nnz, interleaved) on the symbolic pattern, in place.
  * Returns the smallest |pivot| relative to its row's largest original entry, and where it happened, so the
  * caller can fall back to a pivoting solve when the order met a (near-)zero pivot.
  */
 export function sparseFactor(s: Symbolic, v: Float64Array, rowScale: Float64Array): { minRatio: number; at: number } {
+  const minRatio = sparseFactorInPlace(s, v, rowScale);
+  return { minRatio, at: lastFactor.at };
+}
+
+/**
+ * sparseFactor returning only the smallest pivot ratio (its place in `lastFactor`): the form for loops that factor
+ * many matrices (the yield estimate solves hundreds of thousands), where a result object per call is garbage.
+ */
+export function sparseFactorInPlace(s: Symbolic, v: Float64Array, rowScale: Float64Array): number {
   const { n, diag, upStart, lowSlot, opStart, ops } = s;
   let minRatio = Infinity, at = -1;
   for (let k = 0; k < n; k++) {
@@ -110,7 +122,7 @@ export function sparseFactor(s: Symbolic, v: Float64Array, rowScale: Float64Arra
     const m2 = pr * pr + pi * pi;
     const ratio = Math.sqrt(m2) / (rowScale[k] || 1);
     if (ratio < minRatio) { minRatio = ratio; at = k; }
-    if (m2 === 0) return { minRatio: 0, at: k };
+    if (m2 === 0) { lastFactor.at = k; return 0; }
     const ir = pr / m2, ii = -pi / m2;
     for (let t = upStart[k]; t < upStart[k + 1]; t++) {
       const p = 2 * lowSlot[t];
@@ -124,7 +136,8 @@ export function sparseFactor(s: Symbolic, v: Float64Array, rowScale: Float64Arra
       v[q + 1] -= lr * ui + li * ur;
     }
   }
-  return { minRatio, at };
+  lastFactor.at = at;
+  return minRatio;
 }
 
 /**

@@ -7,6 +7,7 @@
  * figures.ts).
  */
 import { InputError } from '../util/errors.ts';
+import { hypot } from '../util/hypot.ts';
 import type { DesignDoc, Target, TargetFigure } from '../design/types.ts';
 import { FIGURE_WORDS } from '../design/targets.ts';
 import type { NetworkResponse } from './response.ts';
@@ -57,7 +58,7 @@ function port(r: NetworkResponse, id: string, field: string): number {
 
 function sMag(r: NetworkResponse, k: number, i: number, j: number): number {
   const P = r.ports.length, t = 2 * ((k * P + i) * P + j);
-  return Math.hypot(r.s[t]!, r.s[t + 1]!);
+  return hypot(r.s[t]!, r.s[t + 1]!);
 }
 
 function sDeg(r: NetworkResponse, k: number, i: number, j: number): number {
@@ -147,27 +148,47 @@ export function targetText(t: Target, name: (id: string) => string = (id) => id)
  * response lacks. Nothing NaN or infinite is returned: |S| = 0 reads as the −400 dB floor of figures.ts.
  */
 export function evaluateTargets(r: NetworkResponse, doc: Pick<DesignDoc, 'targets' | 'phaseGroups'>): TargetEvaluation {
-  const results = doc.targets.map((t, i) => evaluateTarget(r, t, doc, `targets[${i}]`));
+  const results = doc.targets.map((t, i) => prepareTarget(r, t, doc, `targets[${i}]`)());
   return { pass: results.every((x) => x.pass), results };
 }
 
+/**
+ * evaluateTargets in two steps, for many responses on one grid (the yield estimate solves every made board into one
+ * buffer): the figures, bands and words are set up once for `r`'s ports and frequencies, and each call of the returned
+ * function reads `r.s` as it is then. Same checks, same arithmetic and same results as evaluateTargets.
+ */
+export function prepareTargets(r: NetworkResponse, doc: Pick<DesignDoc, 'targets' | 'phaseGroups'>): () => TargetEvaluation {
+  const each = doc.targets.map((t, i) => prepareTarget(r, t, doc, `targets[${i}]`));
+  return () => {
+    const results = each.map((run) => run());
+    return { pass: results.every((x) => x.pass), results };
+  };
+}
+
 export function evaluateTarget(r: NetworkResponse, t: Target, doc: Pick<DesignDoc, 'phaseGroups'>, at = 'target'): TargetResult {
+  return prepareTarget(r, t, doc, at)();
+}
+
+function prepareTarget(r: NetworkResponse, t: Target, doc: Pick<DesignDoc, 'phaseGroups'>, at: string): () => TargetResult {
   const fig = figureAt(r, t, doc, at);
   const lo = t.band.start * (1 - EDGE), hi = t.band.stop * (1 + EDGE);
-  let worstM = Infinity, worstV = 0, worstF = 0, points = 0;
-  for (let k = 0; k < r.freqs.length; k++) {
-    const f = r.freqs[k]!;
-    if (f < lo || f > hi) continue;
-    points++;
-    const v = fig(k), m = margin(t, v);
-    if (m < worstM) { worstM = m; worstV = v; worstF = f; }
-  }
-  if (points === 0) {
-    throw new InputError('out-of-range', `${at}.band`, `a band that holds at least one sweep point (${(r.freqs[0]! / 1e9).toPrecision(6)}–${(r.freqs[r.freqs.length - 1]! / 1e9).toPrecision(6)} GHz)`,
-      `${t.band.start}–${t.band.stop} Hz`, 'sweep over the target band (targetFrequencies adds every band edge)');
-  }
-  return {
-    id: t.id, name: t.name ?? targetText(t), figure: t.figure, unit: FIGURE_WORDS[t.figure].unit, limitText: limitText(t),
-    pass: worstM >= 0, worst: { value: worstV, freq: worstF }, margin: worstM, points,
+  const name = t.name ?? targetText(t), unit = FIGURE_WORDS[t.figure].unit, text = limitText(t);
+  return () => {
+    let worstM = Infinity, worstV = 0, worstF = 0, points = 0;
+    for (let k = 0; k < r.freqs.length; k++) {
+      const f = r.freqs[k]!;
+      if (f < lo || f > hi) continue;
+      points++;
+      const v = fig(k), m = margin(t, v);
+      if (m < worstM) { worstM = m; worstV = v; worstF = f; }
+    }
+    if (points === 0) {
+      throw new InputError('out-of-range', `${at}.band`, `a band that holds at least one sweep point (${(r.freqs[0]! / 1e9).toPrecision(6)}–${(r.freqs[r.freqs.length - 1]! / 1e9).toPrecision(6)} GHz)`,
+        `${t.band.start}–${t.band.stop} Hz`, 'sweep over the target band (targetFrequencies adds every band edge)');
+    }
+    return {
+      id: t.id, name, figure: t.figure, unit, limitText: text,
+      pass: worstM >= 0, worst: { value: worstV, freq: worstF }, margin: worstM, points,
+    };
   };
 }

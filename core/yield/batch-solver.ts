@@ -17,48 +17,29 @@
  */
 import { InputError } from '../util/errors.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { microstripColumns, lineConstantsFrom, type LineOptions } from '../line/index.ts';
+import { microstripColumns, lineConstantsFrom, type LineColumns, type LineOptions } from '../line/index.ts';
 import type { SizedDesign, SizedPiece } from '../layout/types.ts';
 import { compileNetwork, solveAt, type CompiledNetwork } from '../network/mna.ts';
-import { sparseFactor, sparseSolveMany } from '../network/ordering.ts';
-import { cdiv } from '../network/complex.ts';
 import { netlistFromSized, type SizedNetlist } from '../network/fromSized.ts';
 import type { LineConstants, LineModel, NetElement } from '../network/netlist.ts';
 import type { SampleLaminate } from './made-board.ts';
-
-const SINH_LIMIT = 1e-4;
-const PIVOT_LIMIT = 1e-8;
+import { K_C, K_G, K_L, K_LINE, K_N, K_RL, K_Y, type Columns } from './board-columns.ts';
+import { PointSolver } from './point-solve.ts';
 
 /** Constants of one (laminate, width) at every grid point: zc re, im, γ re, im at 4k … 4k + 3. */
-interface TableModel { key: string; sub: SubstrateSpec; width: number; table: Float64Array | null }
+interface TableModel { sub: SubstrateSpec; width: number; table: Float64Array | null }
 
 /** What a line element's model stands for: its table, its piece and its nominal width (for the derivative). */
 interface Tag { table: TableModel; piece: number; width: number; model: LineModel }
-
-const K_LINE = 0, K_G = 1, K_C = 2, K_L = 3, K_RL = 4, K_Y = 5, K_N = 6;
-
-/**
- * A made board's element values in stamped order: a kind code each, and per kind — line: its table, derivative table,
- * own width deviation and length (num); resistor: 1/R; capacitor: C; inductor: L; series R-L: L and R(f);
- * admittance and n-port: their function.
- */
-interface Columns {
-  kind: Int8Array;
-  table: (Float64Array | null)[];
-  deriv: (Float64Array | null)[];
-  delta: Float64Array;
-  num: Float64Array;
-  fn: (((f: number) => unknown) | null)[];
-}
 
 export class BatchSolver {
   private readonly cn: CompiledNetwork;
   /** Index into the netlist's elements of each stamped element. */
   private readonly source: Int32Array;
   private readonly fIndex: Map<number, number>;
-  private readonly v: Float64Array;
-  private readonly rowScale: Float64Array;
-  private readonly X: Float64Array;
+  private readonly points: PointSolver;
+  /** Piece id → index (a made board keeps the nominal pieces, in order). */
+  private readonly pieceIndex: Map<string, number>;
   readonly ports: { name: string; zRef: number }[];
   readonly input: number;
 
@@ -69,34 +50,38 @@ export class BatchSolver {
   /** Each piece's own width deviation for the board being solved (first order). */
   private pieceDw: Float64Array;
 
-  constructor(nominal: SizedDesign, readonly freqs: Float64Array, private readonly line?: LineOptions) {
+  /**
+   * `columns`: the ports whose excitation is solved (default all). S entries of the other columns are left as they
+   * are in the caller's buffer, except at a point that needed the pivoting solve (all of S is written there).
+   */
+  constructor(nominal: SizedDesign, readonly freqs: Float64Array, private readonly line?: LineOptions, columns?: readonly number[]) {
     const lam: SampleLaminate = { list: [nominal.doc.substrate], ofPiece: new Int32Array(nominal.pieces.length) };
     this.nominalSub = nominal.doc.substrate;
     this.pieceDw = new Float64Array(nominal.pieces.length);
+    this.pieceIndex = new Map(nominal.pieces.map((p, i) => [p.id, i]));
     const { net, tags } = this.netlist(nominal, lam);
     this.nominalWidth = Float64Array.from(net.elements, (e) => (e.kind === 'line' && tags.has(e.model) ? tags.get(e.model)!.width : NaN));
     this.cn = compileNetwork(net);
     const where = new Map(net.elements.map((e, i) => [e, i]));
     this.source = Int32Array.from(this.cn.stamped, (s) => where.get(s.el)!);
     this.fIndex = new Map(Array.from(freqs, (f, k) => [f, k]));
-    const sym = this.cn.symbolic;
-    this.v = new Float64Array(2 * sym.nnz);
-    this.rowScale = new Float64Array(sym.n);
-    this.X = new Float64Array(2 * sym.n * this.cn.ports.length);
+    this.points = new PointSolver(this.cn, freqs, columns);
     this.ports = this.cn.ports.map((p) => ({ name: p.name, zRef: p.zRef }));
     this.input = net.input;
   }
 
   /** The netlist of a made board with tabulated line models (one table per laminate and width). */
-  private netlist(made: SizedDesign, lam: SampleLaminate): { net: SizedNetlist; tables: Map<string, TableModel>; tags: Map<LineModel, Tag> } {
-    const tables = new Map<string, TableModel>();
+  private netlist(made: SizedDesign, lam: SampleLaminate): { net: SizedNetlist; tables: TableModel[]; tags: Map<LineModel, Tag> } {
+    const tables = new Map<number, Map<number, TableModel>>();
     const tags = new Map<LineModel, Tag>();
-    const index = new Map(made.pieces.map((p, i) => [p.id, i]));
+    const index = this.pieceIndex;
     const lineModel = (width: number, piece: SizedPiece): LineModel => {
       const pi = index.get(piece.id)!, s = lam.ofPiece[pi]!;
-      const key = `${s}|${width}`;
-      let table = tables.get(key);
-      if (!table) { table = { key, sub: lam.list[s]!, width, table: null }; tables.set(key, table); }
+      // Keyed by laminate index, then width (numbers: no text made of a width per element and board).
+      let ofSub = tables.get(s);
+      if (!ofSub) { ofSub = new Map(); tables.set(s, ofSub); }
+      let table = ofSub.get(width);
+      if (!table) { table = { sub: lam.list[s]!, width, table: null }; ofSub.set(width, table); }
       // Each element gets its own model (it carries the element's piece); mna.ts calls it only on a fallback point.
       const scratch: LineConstants = { zc: { re: 0, im: 0 }, gamma: { re: 0, im: 0 } };
       const tag: Tag = { table, piece: pi, width, model: () => scratch };
@@ -110,7 +95,10 @@ export class BatchSolver {
       tags.set(tag.model, tag);
       return tag.model;
     };
-    return { net: netlistFromSized(made, { lineModel, ...(this.line ? { line: this.line } : {}) }), tables, tags };
+    const net = netlistFromSized(made, { lineModel, ...(this.line ? { line: this.line } : {}) });
+    const list: TableModel[] = [];
+    for (const ofSub of tables.values()) for (const t of ofSub.values()) list.push(t);
+    return { net, tables: list, tags };
   }
 
   /** Tag → the element's nominal width is resolved per solve (see `values`); this serves the fallback points. */
@@ -135,6 +123,9 @@ export class BatchSolver {
     return d;
   }
 
+  /** Inputs and columns of the batch line analysis, per number of widths analysed together. */
+  private readonly batches = new Map<number, { widths: Float64Array; fs: Float64Array; cols: LineColumns | null }>();
+
   /** Reused tables, one per (laminate, width) slot of the board being solved. */
   private readonly pool: Float64Array[] = [];
 
@@ -150,9 +141,18 @@ export class BatchSolver {
     for (const t of tables) { const l = bySub.get(t.sub) ?? []; l.push(t); bySub.set(t.sub, l); }
     for (const [sub, list] of bySub) {
       const K = list.length;
-      const widths = new Float64Array(K * F), fs = new Float64Array(K * F);
-      for (let j = 0; j < K; j++) for (let k = 0; k < F; k++) { widths[j * F + k] = list[j]!.width; fs[j * F + k] = this.freqs[k]!; }
-      const c = microstripColumns(sub, widths, fs, this.line);
+      // The batch's inputs and columns are kept per size and refilled board after board (no new arrays to collect).
+      let b = this.batches.get(K);
+      if (!b) {
+        const fs = new Float64Array(K * F);
+        for (let j = 0; j < K; j++) fs.set(this.freqs, j * F);
+        b = { widths: new Float64Array(K * F), fs, cols: null };
+        this.batches.set(K, b);
+      }
+      const widths = b.widths;
+      for (let j = 0; j < K; j++) widths.fill(list[j]!.width, j * F, (j + 1) * F);
+      const c = microstripColumns(sub, widths, b.fs, this.line, b.cols ?? undefined);
+      b.cols = c;
       list.forEach((t, j) => {
         const tab = (this.pool[slot] ??= new Float64Array(4 * F));
         slot++;
@@ -180,11 +180,14 @@ export class BatchSolver {
   }
 
   /** Element values of a made board, in stamped order, as columns (one kind code and its numbers per element). */
+  private cols: Columns | null = null;
+
   private values(net: SizedNetlist, tags: Map<LineModel, Tag>): Columns {
     if (net.elements.length !== this.nominalWidth.length) throw new InputError('invalid-design', 'design', 'a made board with the nominal board\'s network', 'a different network');
     this.fallbackDelta.clear();
     const E = this.source.length;
-    const c: Columns = { kind: new Int8Array(E), table: new Array(E).fill(null), deriv: new Array(E).fill(null), delta: new Float64Array(E), num: new Float64Array(E), fn: new Array(E).fill(null) };
+    // One record refilled for every board: each element keeps its kind, so every field it reads is written again.
+    const c = (this.cols ??= { kind: new Int8Array(E), table: new Array(E).fill(null), deriv: new Array(E).fill(null), delta: new Float64Array(E), num: new Float64Array(E), fn: new Array(E).fill(null) });
     for (let idx = 0; idx < E; idx++) {
       const i = this.source[idx]!;
       const el: NetElement = net.elements[i]!;
@@ -216,94 +219,19 @@ export class BatchSolver {
    */
   solve(made: SizedDesign, lam: SampleLaminate, pieceDw: Float64Array, out: Float64Array): number {
     const { net, tables, tags } = this.netlist(made, lam);
-    this.tabulate([...tables.values()]);
+    this.tabulate(tables);
     this.pieceDw = pieceDw;
     const vals = this.values(net, tags);
-    const P = this.cn.ports.length, F = this.freqs.length;
+    const P = this.cn.ports.length, F = this.freqs.length, PP = 2 * P * P;
     let fallback: CompiledNetwork | null = null, robust = 0;
     for (let k = 0; k < F; k++) {
-      const s = out.subarray(2 * P * P * k, 2 * P * P * (k + 1));
-      if (!this.solvePoint(vals, k, s)) {
+      if (!this.points.solve(vals, k, out, PP * k)) {
         fallback ??= compileNetwork(net);
-        solveAt(fallback, this.freqs[k]!, s);
+        solveAt(fallback, this.freqs[k]!, out.subarray(PP * k, PP * (k + 1)));
         robust++;
       }
     }
     return robust;
-  }
-
-  /** mna.ts's evaluate + solveSparse at point k, on reused buffers; false where mna.ts would pivot instead. */
-  private solvePoint(c: Columns, k: number, s: Float64Array): boolean {
-    const cn = this.cn, sym = cn.symbolic, v = this.v, f = this.freqs[k]!;
-    v.fill(0);
-    const E = c.kind.length;
-    for (let idx = 0; idx < E; idx++) {
-      const kind = c.kind[idx]!, sl = cn.slots[idx]!;
-      let y11r: number, y11i: number, y12r: number, y12i: number;
-      if (kind === K_LINE) {
-        const t = c.table[idx]!, dd = c.deriv[idx], x = c.delta[idx]!, len = c.num[idx]!;
-        let zcr = t[4 * k]!, zci = t[4 * k + 1]!, gr = t[4 * k + 2]!, gi = t[4 * k + 3]!;
-        if (dd) { zcr += x * dd[4 * k]!; zci += x * dd[4 * k + 1]!; gr += x * dd[4 * k + 2]!; gi += x * dd[4 * k + 3]!; }
-        if (!Number.isFinite(zcr) || !Number.isFinite(zci) || !Number.isFinite(gr) || !Number.isFinite(gi)) {
-          throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.zc`, 'a finite value from its model', `${zcr} + j${zci} at ${f} Hz`);
-        }
-        if (zcr === 0 && zci === 0) throw new InputError('out-of-range', `${cn.stamped[idx]!.el.id}.zc`, 'a non-zero characteristic impedance', '0');
-        const xr = gr * len, xi = gi * len;
-        const co = Math.cos(xi), sn = Math.sin(xi), shr = Math.sinh(xr), chr = Math.cosh(xr);
-        const coR = chr * co, coI = shr * sn, siR = shr * co, siI = chr * sn;
-        if (siR * siR + siI * siI < SINH_LIMIT * SINH_LIMIT) return false;
-        const zr = zcr * siR - zci * siI, zi = zcr * siI + zci * siR;
-        const d = zr * zr + zi * zi;
-        y12r = -zr / d; y12i = zi / d;
-        y11r = -(coR * y12r - coI * y12i); y11i = -(coR * y12i + coI * y12r);
-      } else if (kind === K_N) {
-        const y = (c.fn[idx] as (f: number) => Float64Array)(f), m = Math.sqrt(sl.length);
-        if (y.length !== 2 * m * m) throw new InputError('invalid-design', `${cn.stamped[idx]!.el.id}.y`, `a ${m}×${m} admittance matrix`, `${y.length / 2} entries`);
-        for (const x of y) if (!Number.isFinite(x)) throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.y`, 'finite admittances', `a non-finite value at ${f} Hz`);
-        for (let t = 0; t < sl.length; t++) if (sl[t]! >= 0) { v[2 * sl[t]!] += y[2 * t]!; v[2 * sl[t]! + 1] += y[2 * t + 1]!; }
-        continue;
-      } else {
-        // Two-terminal admittances, written as mna.ts writes them (same operations, same order, the same signed zeros).
-        let re: number, im: number;
-        if (kind === K_G) { re = c.num[idx]!; im = 0; }
-        else if (kind === K_C) { re = 0; im = 2 * Math.PI * f * c.num[idx]!; }
-        else if (kind === K_L) { re = 0; im = -1 / (2 * Math.PI * f * c.num[idx]!); }
-        else if (kind === K_RL) { const y = cdiv({ re: 1, im: 0 }, { re: (c.fn[idx] as (f: number) => number)(f), im: 2 * Math.PI * f * c.num[idx]! }); re = y.re; im = y.im; }
-        else { const y = (c.fn[idx] as (f: number) => { re: number; im: number })(f); re = y.re; im = y.im; }
-        if (!Number.isFinite(re) || !Number.isFinite(im)) throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.admittance`, 'a finite value from its model', `${re} + j${im} at ${f} Hz`);
-        y11r = re; y11i = im; y12r = -re; y12i = -im;
-      }
-      // Slots aa, bb, ab, ba in this order, as solveSparse adds them.
-      const s0 = sl[0]!, s1 = sl[1]!, s2 = sl[2]!, s3 = sl[3]!;
-      if (s0 >= 0) { v[2 * s0] += y11r; v[2 * s0 + 1] += y11i; }
-      if (s1 >= 0) { v[2 * s1] += y11r; v[2 * s1 + 1] += y11i; }
-      if (s2 >= 0) { v[2 * s2] += y12r; v[2 * s2 + 1] += y12i; }
-      if (s3 >= 0) { v[2 * s3] += y12r; v[2 * s3 + 1] += y12i; }
-    }
-    for (const p of cn.ports) v[2 * sym.diag[sym.position[p.node]!]!] += 1 / p.zRef;
-    const rowScale = this.rowScale;
-    rowScale.fill(0);
-    const rows = sym.rowOfSlot;
-    for (let t = 0; t < sym.nnz; t++) {
-      const a = v[2 * t]!, b = v[2 * t + 1]!, m = a * a + b * b, r = rows[t]!;
-      if (m > rowScale[r]!) rowScale[r] = m;
-    }
-    for (let r = 0; r < sym.n; r++) rowScale[r] = Math.sqrt(rowScale[r]!);
-    const { minRatio } = sparseFactor(sym, v, rowScale);
-    if (!(minRatio >= PIVOT_LIMIT)) return false;
-    const P = cn.ports.length, X = this.X;
-    X.fill(0);
-    for (let j = 0; j < P; j++) X[2 * (sym.position[cn.ports[j]!.node]! * P + j)] += 2 / Math.sqrt(cn.ports[j]!.zRef);
-    sparseSolveMany(sym, v, X, P, cn.portColumns);
-    for (let i = 0; i < P; i++) {
-      const row = 2 * sym.position[cn.ports[i]!.node]! * P, g = 1 / Math.sqrt(cn.ports[i]!.zRef);
-      for (let j = 0; j < P; j++) {
-        const t = 2 * (i * P + j);
-        s[t] = X[row + 2 * j]! * g - (i === j ? 1 : 0);
-        s[t + 1] = X[row + 2 * j + 1]! * g;
-      }
-    }
-    return true;
   }
 }
 

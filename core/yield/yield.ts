@@ -19,6 +19,7 @@
  * Random numbers: xoshiro128** seeded by SplitMix64, normals by inversion (AS 241); see prng.ts and normal.ts.
  */
 import { InputError, describe } from '../util/errors.ts';
+import { hypot } from '../util/hypot.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import type { DesignDoc, Target, Tolerance, ToleranceQuantity } from '../design/types.ts';
 import type { LineOptions } from '../line/index.ts';
@@ -28,7 +29,7 @@ import { netlistFromSized } from '../network/fromSized.ts';
 import { solveNetwork, bandSweep, type AbortLike } from '../network/sweep.ts';
 import type { NetworkResponse } from '../network/response.ts';
 import { toDb } from '../network/figures.ts';
-import { evaluateTargets, targetFrequencies, targetText, type TargetResult } from '../network/targets.ts';
+import { evaluateTargets, prepareTargets, targetFrequencies, targetText, type TargetEvaluation, type TargetResult } from '../network/targets.ts';
 import { ToleranceDraws } from './draws.ts';
 import { MadeBoard, applicableTolerances } from './made-board.ts';
 import { BatchSolver } from './batch-solver.ts';
@@ -136,14 +137,33 @@ function envelopePairs(targets: readonly Target[], doc: DesignDoc, ports: string
   return out.slice(0, 12);
 }
 
-interface RunState { solver: BatchSolver; sized: SizedDesign; s: Float64Array; freqs: Float64Array; ports: { name: string; zRef: number }[] }
+/**
+ * The ports whose excitation the targets and the envelopes read (S_ij is read from column j): only those are solved
+ * for every board. The figures' port order is that of core/network/targets.ts: return loss S_pp, insertion loss and
+ * transmission S_ba, isolation S_ab, group figures S_o,from.
+ */
+function columnsRead(targets: readonly Target[], doc: DesignDoc, ports: string[], pairs: [number, number][]): number[] {
+  const cols = new Set<number>(pairs.map(([, j]) => j));
+  const add = (id: string | undefined) => { const k = id === undefined ? -1 : ports.indexOf(id); if (k >= 0) cols.add(k); };
+  for (const t of targets) {
+    const p = t.ports ?? [];
+    switch (t.figure) {
+      case 'return-loss': case 'insertion-loss': case 'transmission': case 'transmission-phase': add(p[0]); break;
+      case 'isolation': add(p[1]); break;
+      case 'amplitude-balance': case 'phase-balance': case 'phase-spread': add(doc.phaseGroups.find((x) => x.id === t.group)?.from); break;
+    }
+  }
+  return [...cols].sort((a, b) => a - b);
+}
 
-/** One made board: its S over the grid (in state.s) and each target's worst value; null when the draws cannot be made. */
-function evaluateBoard(st: RunState, board: MadeBoard, only: number | null, doc: DesignDoc): { results: TargetResult[]; robust: number } {
+/** The solver, the one S buffer every board is solved into, and the targets set up once on that buffer. */
+interface RunState { solver: BatchSolver; s: Float64Array; targets: () => TargetEvaluation }
+
+/** One made board: its S over the grid (in state.s) and each target's worst value. */
+function evaluateBoard(st: RunState, board: MadeBoard, only: number | null): { results: TargetResult[]; robust: number } {
   const { made, laminate, pieceDw } = board.make(only);
   const robust = st.solver.solve(made, laminate, pieceDw, st.s);
-  const r: NetworkResponse = { freqs: st.freqs, ports: st.ports, s: st.s, warnings: [] };
-  return { results: evaluateTargets(r, doc).results, robust };
+  return { results: st.targets().results, robust };
 }
 
 export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<YieldResult> {
@@ -157,9 +177,13 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
   const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, opts.points ?? 201), targets);
   const nominal = solveNetwork(nominalNet, freqs);
   const nominalEval = evaluateTargets(nominal, doc);
-  const solver = new BatchSolver(sized, freqs, opts.line);
+  const portIds = nominalNet.ports.map((p) => p.name);
+  const pairs = envelopePairs(targets, doc, portIds, nominalNet.input);
+  const solver = new BatchSolver(sized, freqs, opts.line, columnsRead(targets, doc, portIds, pairs));
   const P = solver.ports.length, F = freqs.length, N = opts.samples;
-  const st: RunState = { solver, sized, s: new Float64Array(2 * P * P * F), freqs, ports: solver.ports };
+  const s = new Float64Array(2 * P * P * F);
+  const response: NetworkResponse = { freqs, ports: solver.ports, s, warnings: [] };
+  const st: RunState = { solver, s, targets: prepareTargets(response, doc) };
   const { tolerances, ignored } = applicableTolerances(sized);
   const warnings: Warning[] = [...nominalNet.warnings.filter((w) => w.severity !== 'info')];
   for (const x of ignored) warnings.push(warn('note', `tolerance ${x.quantity} is not used: ${x.why}`, { severity: 'info', source: 'yield' }));
@@ -185,7 +209,6 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
   const values = targets.map(() => new Float64Array(N));
   const passes = new Int32Array(T);
   let allPass = 0, robust = 0;
-  const pairs = envelopePairs(targets, doc, solver.ports.map((p) => p.name), solver.input);
   const envMin = pairs.map(() => new Float64Array(F).fill(Infinity));
   const envMax = pairs.map(() => new Float64Array(F).fill(-Infinity));
   const envSum = pairs.map(() => new Float64Array(F));
@@ -193,7 +216,7 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
   const board = new MadeBoard(sized, draws);
   for (let n = 0; n < N; n++) {
     draws.next();
-    const ev = evaluateBoard(st, board, null, doc);
+    const ev = evaluateBoard(st, board, null);
     robust += ev.robust;
     let ok = true;
     ev.results.forEach((r, t) => { values[t]![n] = r.worst.value; if (r.pass) passes[t]!++; else ok = false; });
@@ -202,7 +225,7 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
       const mn = envMin[e]!, mx = envMax[e]!, sm = envSum[e]!;
       for (let k = 0; k < F; k++) {
         const t = 2 * ((k * P + i) * P + j);
-        const d = toDb(Math.hypot(st.s[t]!, st.s[t + 1]!));
+        const d = toDb(hypot(st.s[t]!, st.s[t + 1]!));
         if (d < mn[k]!) mn[k] = d;
         if (d > mx[k]!) mx[k] = d;
         sm[k] += d;
@@ -221,7 +244,7 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
     const vals = targets.map(() => new Float64Array(rankingN));
     for (let n = 0; n < rankingN; n++) {
       d1.next();
-      const ev = evaluateBoard(st, b1, k, doc);
+      const ev = evaluateBoard(st, b1, k);
       ev.results.forEach((r, t) => { vals[t]![n] = r.worst.value; });
       await step();
     }
@@ -255,7 +278,7 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
     overall: { passes: allPass, yield: wilson(allPass, N) },
     envelopes: pairs.map(([i, j], e) => ({
       i, j, label: `S(${portNames[i]},${portNames[j]})`,
-      nominal: Array.from({ length: F }, (_, k) => { const t = 2 * ((k * P + i) * P + j); return toDb(Math.hypot(nominal.s[t]!, nominal.s[t + 1]!)); }),
+      nominal: Array.from({ length: F }, (_, k) => { const t = 2 * ((k * P + i) * P + j); return toDb(hypot(nominal.s[t]!, nominal.s[t + 1]!)); }),
       min: [...envMin[e]!], mean: [...envSum[e]!].map((x) => x / N), max: [...envMax[e]!],
     })),
     ranking: { method: 'one-at-a-time variance of each target\'s worst value (shares of the summed variances, interactions left out)', samples: rankingN, entries },
