@@ -7,8 +7,9 @@
  * start); on each chosen branch one straight drawn run is replaced by a meander (meander.ts) that fits the room
  * (room.ts: board outline, keep-outs, other copper, legs at least `gap` apart). The meander's corners are vertices
  * with optimal miters, so sizing compensates every bend (Douville & James 1978, core/discontinuity). Its realised
- * phase is then measured on the re-sized design and the height corrected (a few rounds, slope one), with the legs'
- * coupling (coupling.ts, coupled-line model) counted in its electrical length. Ports and all other pieces keep their
+ * phase is then measured on the re-sized design by the ledger itself and the height corrected (a few rounds, slope
+ * one); the ledger counts the legs' coupling (core/layout folds.ts, coupled-line model), as the sweep does, so the
+ * three agree. Ports and all other pieces keep their
  * place: a meander starts and ends where its run did, leaving in the run's direction.
  */
 import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup } from '../../design/types.ts';
@@ -49,7 +50,7 @@ export interface MeanderReport {
   piece: string;
   shape: MeanderShape;
   side: 1 | -1;
-  /** Electrical length added at f0, degrees (ledger phase plus coupling). */
+  /** Electrical length added at f0, degrees (as the ledger measures it, the legs' coupling included). */
   addedDeg: number;
   /** Centreline length added through the corner points, m. */
   extraLength: number;
@@ -61,9 +62,9 @@ export interface MeanderReport {
 
 export interface EqualizedPath {
   to: string;
-  /** Ledger phase (single-line model) at band start, f0, stop, degrees. */
+  /** Ledger phase at band start, f0, stop, degrees (the meanders' coupling included, core/layout folds.ts). */
   ledgerDeg: [number, number, number];
-  /** Ledger phase plus the coupling shares of the meanders on the path, degrees. */
+  /** The same electrical length (kept for readers of earlier reports: the ledger now counts the coupling itself). */
   electricalDeg: [number, number, number];
   /** Wanted offset to the first path, degrees. */
   offsetDeg: number;
@@ -277,7 +278,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     let worst = 0;
     for (const p of list) {
       const realised = runDeg(s1, p.piece.a, p.piece.b) - baseDeg.get(p.piece.id)!;
-      const err = p.shareDeg - couplingOf(p, s0.f0) - realised;
+      const err = p.shareDeg - realised;
       worst = Math.max(worst, Math.abs(err));
       if (Math.abs(err) < 1e-3) continue;
       p.extra += ((err * Math.PI) / 180) / (p.piece.line?.beta ?? 1);
@@ -293,13 +294,11 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
   const meanders: MeanderReport[] = list.map((p) => {
     const c = f.map((fk) => couplingOf(p, fk)) as [number, number, number];
     const ids = meanderIds(doc, p);
-    return { piece: p.piece.id, shape: p.shape, side: p.side, addedDeg: runDeg(s1, p.piece.a, p.piece.b) - baseDeg.get(p.piece.id)! + c[1], extraLength: meanderExtra(p.shape), couplingDeg: c, nodes: ids.nodes, segments: ids.segments };
+    return { piece: p.piece.id, shape: p.shape, side: p.side, addedDeg: runDeg(s1, p.piece.a, p.piece.b) - baseDeg.get(p.piece.id)!, extraLength: meanderExtra(p.shape), couplingDeg: c, nodes: ids.nodes, segments: ids.segments };
   });
   const paths: EqualizedPath[] = after.paths.map((e, i) => {
     const ledger = [e.band[0]!.deg, e.band[1]!.deg, e.band[2]!.deg] as [number, number, number];
-    const extra = [0, 0, 0];
-    for (const m of meanders) if (e.pieces.includes(m.piece)) for (let k = 0; k < 3; k++) extra[k] += m.couplingDeg[k]!;
-    return { to: e.to, ledgerDeg: ledger, electricalDeg: ledger.map((x, k) => x + extra[k]!) as [number, number, number], offsetDeg: offsets[i]! };
+    return { to: e.to, ledgerDeg: ledger, electricalDeg: [...ledger], offsetDeg: offsets[i]! };
   });
   const spread = (k: number, key: 'ledgerDeg' | 'electricalDeg') => {
     const v = paths.map((p) => p[key][k]! - p.offsetDeg);
@@ -308,7 +307,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
   const warnings: Warning[] = [];
   if (!list.length) warnings.push(warn('phase', `the paths of ${g.name} already match within ${SMALL_DEG}°: nothing to lengthen`, { subjects: [g.id], severity: 'info' }));
   for (const m of meanders) {
-    if (Math.abs(m.couplingDeg[1]) > 0.05) warnings.push(warn('phase', `meander on ${m.piece}: its legs' coupling adds ${m.couplingDeg[1].toFixed(2)}° (counted); the ledger and the sweep model single lines and show ${(-m.couplingDeg[1]).toFixed(2)}° less`, { subjects: [m.piece], severity: 'info' }));
+    if (Math.abs(m.couplingDeg[1]) > 0.05) warnings.push(warn('phase', `meander on ${m.piece}: its legs' coupling adds ${m.couplingDeg[1].toFixed(2)}° at f0 (counted by the ledger and the sweep)`, { subjects: [m.piece], severity: 'info' }));
   }
   return {
     doc: out, group: g, meanders, before, after, paths,
