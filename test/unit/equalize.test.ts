@@ -186,3 +186,45 @@ describe('equalize a group with offsets (a progressive phase for a tilted beam)'
     expect(res.bandSpreadDeg[1]).toBeLessThan(2 * 90 * edge + 0.5);
   });
 });
+
+describe('equalize on the examples, each with one output lead drawn longer (our own detuning)', () => {
+  /** The example with one path's last piece (its port lead; default the last path's) `extra` m longer than sized. */
+  const detuned = (name: string, extra: number, path = -1): DesignDoc => {
+    const d = load(name);
+    const g = d.phaseGroups[0]!;
+    const s = sizeDesign(d);
+    const id = tracePaths(s, g.from, g.to, { sensitivities: false }).paths.at(path)!.pieces.at(-1)!;
+    const nominal = s.pieces.find((p) => p.id === id)!.nominalLength;
+    return { ...d, segments: d.segments.map((x) => (x.id === id && x.kind === 'line' ? { ...x, length: { by: 'length' as const, length: nominal + extra } } : x)) };
+  };
+  /** Findings (errors and warnings) of the result whose kind the detuned design did not have. */
+  const newFindings = (before: DesignDoc, after: DesignDoc) => {
+    const sev = (d: DesignDoc) => checkBoard(sizeDesign(d)).findings.filter((f) => f.severity !== 'info');
+    const had = new Set(sev(before).map((f) => `${f.severity}:${f.code}`));
+    return sev(after).filter((f) => !had.has(`${f.severity}:${f.code}`));
+  };
+  it('demo (equal phase): ledger ≤ 0.5° at f0, sweep ≤ 1° across the band, shop check clean', () => {
+    const doc = detuned('demo.json', 1e-3);
+    const g = doc.phaseGroups[0]!;
+    const res = equalizeGroup(doc, { group: g.id });
+    expect(res.meanders.length).toBeGreaterThan(0);
+    expect(tracePaths(sizeDesign(res.doc), g.from, g.to, { sensitivities: false }).spreadDeg).toBeLessThanOrEqual(0.5);
+    expect(sweepPhaseSpread(doc, g.from, g.to)).toBeGreaterThan(5);
+    expect(sweepPhaseSpread(res.doc, g.from, g.to)).toBeLessThanOrEqual(1);
+    expect(newFindings(doc, res.doc)).toEqual([]);
+    expect(checkBoard(sizeDesign(res.doc)).findings.filter((f) => f.severity === 'error')).toEqual([]);
+  });
+  it('branch-line (a 0°/90° group): each path its offset behind the first within 0.5° on the ledger, nothing new in the shop check', () => {
+    // The coupled path's lead 6 mm longer: it then runs off the board (an error of the detuned design, kept, not added).
+    const doc = detuned('branchline-10g4.json', 6e-3);
+    const g = doc.phaseGroups[0]!;
+    const res = equalizeGroup(doc, { group: g.id });
+    const after = tracePaths(sizeDesign(res.doc), g.from, g.to, { sensitivities: false });
+    const level = after.paths.map((p, i) => p.degAtF0 - (g.offsetsDeg?.[i] ?? 0));
+    expect(Math.max(...level) - Math.min(...level)).toBeLessThanOrEqual(0.5);
+    expect(newFindings(doc, res.doc)).toEqual([]);
+  });
+  it('Wilkinson: refuses a lengthening smaller than the smallest meander its wide output runs can take, saying so', () => {
+    expect(() => equalizeGroup(detuned('wilkinson-2g45.json', 6e-3), { group: 'outputs' })).toThrow(/less than the smallest meander that fits its runs/);
+  });
+});
