@@ -20,4 +20,5 @@ export { History, type HistoryOptions, type HistoryStep } from './history.ts';
 export { namer, nameOf, nodeByName, portNamesText, sParameterName } from './names.ts';
 export { targetSchema, targetsSchema } from './targets-schema.ts';
 export { withBlock, type BlockRecords } from './commands-blocks.ts';
-export { TARGET_FIGURES, FIGURE_PORTS, TOLERANCE_QUANTITIES, TOLERANCE_WORDS, FIGURE_WORDS } from './targets.ts';
+export { TARGET_FIGURES, FIGURE_PORTS, TOLERANCE_QUANTITIES, TOLERANCE_WORDS, FIGURE_WORDS, FIGURE_UNIT_SUFFIX } from './targets.ts';
+export type { FigureUnit } from './targets.ts';
