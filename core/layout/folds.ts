@@ -23,7 +23,8 @@
  * centrelines less a strip width taken by the two corners.
  */
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { analyzeCoupled, COUPLED_G_MIN } from '../line/index.ts';
+import { analyzeCoupled, COUPLED_G_MIN, COUPLED_U_MIN } from '../line/index.ts';
+import { COUPLED_U_MAX } from '../line/coupled.ts';
 import { C0 } from '../units/constants.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import type { SizedDesign, SizedPiece } from './types.ts';
@@ -120,6 +121,8 @@ function findFolds(sized: SizedDesign): Fold[] {
     const ca = straight(A), cb = straight(B);
     if (!A || !B || !ca || !cb || A.id === B.id) continue;
     if (Math.abs(A.width - j.width) > 1e-9 * j.width || Math.abs(B.width - j.width) > 1e-9 * j.width) continue;
+    // Only strips the coupled-line model takes (it refuses W/h outside its limits; such a fold is left as single lines).
+    if (!(j.width >= COUPLED_U_MIN * h && j.width <= COUPLED_U_MAX * h)) continue;
     const [aTop, aBase] = ordered(A, ca, j.a), [bTop, bBase] = ordered(B, cb, j.b);
     const ax = aTop.x - aBase.x, ay = aTop.y - aBase.y, la = Math.hypot(ax, ay);
     const bx = bTop.x - bBase.x, by = bTop.y - bBase.y, lb = Math.hypot(bx, by);
