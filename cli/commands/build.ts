@@ -6,7 +6,7 @@
  */
 import { parseArgs } from 'node:util';
 import { resolve } from 'node:path';
-import { InputError, parseDesign, namer, initPolygons, DesignPipeline, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText, proximityLimitFor } from '../../core/index.ts';
+import { InputError, parseDesign, namer, initPolygons, DesignPipeline, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText, proximityLimitFor, FIGURE_UNIT_SUFFIX } from '../../core/index.ts';
 import type { Warning, PathReport, Finding, JunctionInfo, SizedDesign, JunctionChoice, TargetEvaluation } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
@@ -151,7 +151,7 @@ function text(rep: BuildReport, name: (id: string) => string = (id) => id): stri
   if (rep.targets) {
     out.push('', 'Targets (the board as drawn, nominal laminate):');
     for (const t of rep.targets.results) {
-      const u = t.unit === 'dB' ? ' dB' : '°';
+      const u = FIGURE_UNIT_SUFFIX[t.unit];
       out.push(`  ${t.pass ? 'PASS' : 'FAIL'}  ${t.name}: worst ${t.worst.value.toFixed(2)}${u} at ${(t.worst.freq / 1e9).toFixed(4)} GHz (limit ${t.limitText}, margin ${t.margin.toFixed(2)}${u})`);
     }
   }

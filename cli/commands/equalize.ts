@@ -80,7 +80,7 @@ export const equalizeCommand: CliCommand = {
         ...(values.pieces ? { pieces: values.pieces.split(',').map((x) => x.trim()).filter(Boolean) } : {}),
       });
       await writeOutputFile(resolve(io.cwd, values.out), serializeDesign(r.doc));
-      io.out(`${r.group.name}: ${r.meanders.length} meander(s); spread at f0 ${r.spreadDeg.toFixed(2)}° (ledger ${r.ledgerSpreadDeg.toFixed(2)}°), at the band edges ${r.bandSpreadDeg[0].toFixed(2)}° / ${r.bandSpreadDeg[1].toFixed(2)}°${r.group.offsetsDeg ? ' (the band-edge error the length offsets imply)' : ''}`);
+      io.out(`${r.group.name}: ${r.meanders.length} meander(s); spread at f0 ${r.spreadDeg.toFixed(2)}° on the ledger (the legs' coupling counted), at the band edges ${r.bandSpreadDeg[0].toFixed(2)}° / ${r.bandSpreadDeg[1].toFixed(2)}°${r.group.offsetsDeg ? ' (the band-edge error the length offsets imply)' : ''}`);
       for (const m of r.meanders) {
         const shape = m.shape.kind === 'serpentine' ? `${m.shape.bumps === 1 ? 'trombone' : `serpentine of ${m.shape.bumps} bumps`}, legs ${(m.shape.height * 1e3).toFixed(2)} mm` : `dogleg ${(m.shape.height * 1e3).toFixed(2)} mm high`;
         io.out(`  ${m.piece}: +${m.addedDeg.toFixed(2)}° (${(m.extraLength * 1e3).toFixed(2)} mm), ${shape}; legs' coupling ${m.couplingDeg[1].toFixed(2)}°`);

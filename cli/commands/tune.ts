@@ -1,17 +1,18 @@
 /**
- * `stripwright tune DESIGN [--goals TARGETS.json] [--vary SEG[+SEG]:QUANTITY:MIN:MAX ...] [--seed N] --out FILE`:
- * varies lengths, widths or impedances of pieces within their ranges until the goals are met as well as they can
- * be (core/network/tune `tuneDesign`, the function behind the app's tuning), and writes the tuned design.
+ * `stripwright tune DESIGN [--goals TARGETS.json] [--vary SEG[+SEG]:QUANTITY:MIN:MAX | BLOCK@PARAM:MIN:MAX ...] [--seed N] --out FILE`:
+ * varies lengths, widths or impedances of pieces, or parameters of placed blocks, within their ranges until the goals
+ * are met as well as they can be (core/blocks `tuneWithBlocks`, the function behind the app's tuning), and writes the
+ * tuned design.
  */
 import { parseArgs } from 'node:util';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import * as v from 'valibot';
-import { InputError, parseDesign, serializeDesign, tuneDesign, defaultVariables, targetSchema, type TuneGoal, type TuneVariable, type TuneQuantity, type Target } from '../../core/index.ts';
+import { InputError, parseDesign, serializeDesign, tuneWithBlocks, defaultVariables, targetSchema, type TuneGoal, type TuneVariable, type TuneQuantity, type Target } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { writeOutputFile } from '../files.ts';
 
-const USAGE = `Usage: stripwright tune DESIGN [--goals TARGETS.json] [--vary SEG[+SEG]:QUANTITY:MIN:MAX ...] [--seed N] [--points N] --out FILE
+const USAGE = `Usage: stripwright tune DESIGN [--goals TARGETS.json] [--vary SEG[+SEG]:QUANTITY:MIN:MAX | BLOCK@PARAM:MIN:MAX ...] [--seed N] [--points N] --out FILE
 
 Varies quantities of DESIGN's pieces within their ranges until its goals are met as well as they can be (a seeded
 simplex search over the band sweep), prints a before/after table, and writes the tuned design to FILE. The same
@@ -21,7 +22,10 @@ Options:
   --goals FILE   a JSON list of targets (the design file's target records), each with an optional "weight"
                  (default 1); default: the design's own targets
   --vary V       a variable: segment ids joined by +, a quantity (degrees, length (m), z0 (Ω), width (m) or
-                 value (a part's Ω, F or H)) and its range, e.g. arma1+armb1:degrees:60:120; repeat for more.
+                 value (a part's Ω, F or H)) and its range, e.g. arma1+armb1:degrees:60:120; or a number
+                 parameter of a placed block in SI units (the block is re-generated at every step), e.g.
+                 b1@ratioDb:-3:3 or b1@z0:45:55 (the parameter as \`stripwright block KIND --help\` names it,
+                 with or without dashes); repeat for more.
                  Default: every line set in degrees varies its degrees ±30 % and its impedance ±20 %
   --seed N       seed of the search, 0 to 4294967295 (default 1)
   --points N     sweep points across the band (default 201)
@@ -35,6 +39,15 @@ Example:
 const QUANTITIES: TuneQuantity[] = ['degrees', 'length', 'z0', 'width', 'value'];
 
 function parseVary(text: string): TuneVariable {
+  if (text.includes('@')) {
+    const m = /^([^@:]+)@([A-Za-z-]+):([^:]+):([^:]+)$/.exec(text);
+    if (!m) throw new UsageError(`--vary expects BLOCK@PARAM:MIN:MAX for a block parameter, got '${text}'`);
+    const min = Number(m[3]), max = Number(m[4]);
+    if (!Number.isFinite(min) || !Number.isFinite(max) || !(max > min)) throw new UsageError(`--vary range must be MIN < MAX, got '${m[3]}:${m[4]}'`);
+    // The option spelling (ratio-db) names the same parameter as the spec key (ratioDb).
+    const param = m[2]!.replace(/-([a-z])/g, (_, c: string) => c.toUpperCase());
+    return { block: m[1]!, param, min, max };
+  }
   const parts = text.split(':');
   if (parts.length !== 4) throw new UsageError(`--vary expects SEG[+SEG]:QUANTITY:MIN:MAX, got '${text}'`);
   const [segs, q, lo, hi] = parts as [string, string, string, string];
@@ -61,7 +74,7 @@ const fmt = (x: number) => (Math.abs(x) >= 1e-2 && Math.abs(x) < 1e5 ? x.toFixed
 
 export const tuneCommand: CliCommand = {
   name: 'tune',
-  summary: 'Vary lengths and widths of pieces until the design meets its goals (seeded search)',
+  summary: 'Vary lengths and widths of pieces, or block parameters, until the design meets its goals (seeded search)',
   usage: USAGE,
   async run(argv: string[], io: CliIo): Promise<number> {
     const { values, positionals } = parseArgs({
@@ -98,7 +111,7 @@ export const tuneCommand: CliCommand = {
         goals = readGoals(g, values.goals);
       }
       const variables = vary.length ? vary : defaultVariables(parsed.doc);
-      const r = await tuneDesign(parsed.doc, { variables, seed, points, ...(goals ? { goals } : {}) });
+      const r = await tuneWithBlocks(parsed.doc, { variables, seed, points, ...(goals ? { goals } : {}) });
       await writeOutputFile(resolve(io.cwd, values.out), serializeDesign(r.doc));
       io.out(`seed ${r.seed}: ${r.evaluations} evaluations (${r.stopped}); cost ${fmt(r.costBefore)} → ${fmt(r.costAfter)}`);
       io.out('variable'.padEnd(32) + 'before'.padStart(12) + 'after'.padStart(12));

@@ -7,7 +7,7 @@
 import { parseArgs } from 'node:util';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { InputError, parseDesign, runYield, MAX_SAMPLES, type YieldResult } from '../../core/index.ts';
+import { InputError, parseDesign, runYield, MAX_SAMPLES, FIGURE_UNIT_SUFFIX, type YieldResult } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { countOption } from '../numbers.ts';
 
@@ -43,7 +43,7 @@ function text(r: YieldResult): string[] {
   out.push(`Overall yield: ${pct(r.overall.yield.p)}  (95 % interval ${pct(r.overall.yield.lo)} – ${pct(r.overall.yield.hi)}, ${r.overall.passes} of ${r.samples} boards meet every target)`, '');
   out.push('Targets:');
   for (const t of r.targets) {
-    const u = t.unit === 'dB' ? ' dB' : '°';
+    const u = FIGURE_UNIT_SUFFIX[t.unit];
     out.push(`  ${t.name} — ${t.text}`);
     out.push(`    yield ${pct(t.yield.p)} (${pct(t.yield.lo)} – ${pct(t.yield.hi)}); nominal ${num(t.nominal.worst.value)}${u} (${t.nominal.pass ? 'meets' : 'MISSES'} it); made boards: mean ${num(t.stats.mean)}${u}, σ ${num(t.stats.sd, 3)}${u}, 5–95 % ${num(t.stats.p05)} … ${num(t.stats.p95)}${u}`);
   }

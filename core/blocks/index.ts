@@ -33,3 +33,4 @@ export function buildBlock(spec: BlockSpec): DesignDoc {
     default: throw new InputError('bad-choice', 'block', `one of ${BLOCK_KINDS.join(', ')}`, describe((spec as { kind?: unknown }).kind));
   }
 }
+export { tuneWithBlocks, regenerateBlock, blockVariables } from './tune-blocks.ts';

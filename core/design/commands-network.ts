@@ -6,8 +6,9 @@
  */
 import * as v from 'valibot';
 import { InputError } from '../util/errors.ts';
-import type { DesignDoc, DesignNode, DesignSegment } from './types.ts';
-import { nodeSchema, segmentSchema } from './schema.ts';
+import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target } from './types.ts';
+import { nodeSchema, segmentSchema, phaseGroupSchema, placedBlockSchema } from './schema.ts';
+import { targetsSchema } from './targets-schema.ts';
 import { checkWith, type Args, type DesignCommand } from './command-args.ts';
 import { crossCheck } from './crossref.ts';
 import { DESIGN_LIMITS } from './limits.ts';
@@ -37,7 +38,12 @@ function networkCommand(id: string, label: string): Command {
     run(doc, a) {
       const nodes = checkWith(v.array(nodeSchema, 'a list of nodes'), a.nodes, 'args.nodes') as DesignNode[];
       const segments = checkWith(v.array(segmentSchema, 'a list of segments'), a.segments, 'args.segments') as DesignSegment[];
-      return settled(id, { ...doc, nodes: keepSame(doc.nodes, nodes), segments: keepSame(doc.segments, segments) });
+      const next: DesignDoc = { ...doc, nodes: keepSame(doc.nodes, nodes), segments: keepSame(doc.segments, segments) };
+      // Tuning a placed block's parameters re-generates it: its record, groups and targets come along (whole lists).
+      if (a.blocks !== undefined) next.blocks = keepSame(doc.blocks ?? [], checkWith(v.array(placedBlockSchema, 'a list of placed blocks'), a.blocks, 'args.blocks') as PlacedBlock[]);
+      if (a.phaseGroups !== undefined) next.phaseGroups = keepSame(doc.phaseGroups, checkWith(v.array(phaseGroupSchema, 'a list of phase groups'), a.phaseGroups, 'args.phaseGroups') as PhaseGroup[]);
+      if (a.targets !== undefined) next.targets = keepSame(doc.targets, checkWith(targetsSchema, a.targets, 'args.targets') as Target[]);
+      return settled(id, next);
     },
   };
 }

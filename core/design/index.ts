@@ -21,5 +21,6 @@ export { applyCommandList, parseCommandList, readCommandList, summarizeChanges, 
 export { namer, nameOf, nodeByName, portNamesText, sParameterName } from './names.ts';
 export { targetSchema, targetsSchema } from './targets-schema.ts';
 export { withBlock, type BlockRecords } from './commands-blocks.ts';
-export { TARGET_FIGURES, FIGURE_PORTS, TOLERANCE_QUANTITIES, TOLERANCE_WORDS, FIGURE_WORDS } from './targets.ts';
+export { TARGET_FIGURES, FIGURE_PORTS, TOLERANCE_QUANTITIES, TOLERANCE_WORDS, FIGURE_WORDS, FIGURE_UNIT_SUFFIX } from './targets.ts';
+export type { FigureUnit } from './targets.ts';
 export { proximityLimitSchema, proximityLimitSettingFrom, proximityLimitMetres, proximityLimitFor, proximityLimitText, DEFAULT_PROXIMITY_LIMIT, PROXIMITY_MAX_HEIGHTS } from './proximity-limit.ts';

@@ -1,7 +1,7 @@
 /**
  * Targets and tolerances of a design (format 3): what the response must meet, and how far the made board may stray
  * from the drawing. One target schema serves the response panel's pass/fail, `build`, tuning goals and the yield
- * masks, so a requirement is written once. SI units: Hz for bands, dB and degrees for limits (the unit each figure
+ * masks, so a requirement is written once. SI units: Hz for bands, dB, degrees and ns for limits (the unit each figure
  * is read in), metres for lengths; εr and tanδ have no unit; part tolerances are fractions (0.01 = 1 %).
  * The figure and quantity lists live here (the schemas' picklists read them); the record types are inferred from
  * the schemas in targets-schema.ts.
@@ -19,20 +19,23 @@ import type { targetSchema, toleranceSchema } from './targets-schema.ts';
  * - 'amplitude-balance': largest minus smallest |S_out,from| dB among the outputs of phase group `group`;
  * - 'phase-balance': the largest |∠S_k − ∠S_first + (offset_k − offset_first)| among the group's outputs, degrees
  *   (a group's offset is extra electrical length, so it lowers ∠S by that much);
- * - 'phase-spread': largest minus smallest of (∠S_k + offset_k) among the group's outputs, degrees.
+ * - 'phase-spread': largest minus smallest of (∠S_k + offset_k) among the group's outputs, degrees;
+ * - 'group-delay-flatness': how far the group delay of S_to,from (τg = −dφ/dω) rises above its least value in the
+ *   band, ns, `ports` = [from, to]; its worst value is the band's peak-to-peak variation (limit it with `max`).
  */
 export type TargetFigure =
   | 'return-loss' | 'insertion-loss' | 'transmission' | 'transmission-phase' | 'isolation'
-  | 'amplitude-balance' | 'phase-balance' | 'phase-spread';
+  | 'amplitude-balance' | 'phase-balance' | 'phase-spread' | 'group-delay-flatness';
 
 export const TARGET_FIGURES: readonly TargetFigure[] = [
   'return-loss', 'insertion-loss', 'transmission', 'transmission-phase', 'isolation', 'amplitude-balance', 'phase-balance', 'phase-spread',
+  'group-delay-flatness',
 ];
 
 /** Figures that take `ports` (how many) and those that take a phase `group`. */
 export const FIGURE_PORTS: Readonly<Record<TargetFigure, number>> = {
   'return-loss': 1, 'insertion-loss': 2, transmission: 2, 'transmission-phase': 2, isolation: 2,
-  'amplitude-balance': 0, 'phase-balance': 0, 'phase-spread': 0,
+  'amplitude-balance': 0, 'phase-balance': 0, 'phase-spread': 0, 'group-delay-flatness': 2,
 };
 
 /**
@@ -86,7 +89,13 @@ export const TOLERANCE_WORDS: Readonly<Record<ToleranceQuantity, { name: string;
   inductor: { name: 'inductor value', unit: 'fraction' },
 };
 
-export const FIGURE_WORDS: Readonly<Record<TargetFigure, { name: string; unit: 'dB' | '°' }>> = {
+/** The unit a target's figure and limit are read in. */
+export type FigureUnit = 'dB' | '°' | 'ns';
+
+/** How a value in that unit is written after its number ("15 dB", "2°", "0.1 ns"). */
+export const FIGURE_UNIT_SUFFIX: Readonly<Record<FigureUnit, string>> = { dB: ' dB', '°': '°', ns: ' ns' };
+
+export const FIGURE_WORDS: Readonly<Record<TargetFigure, { name: string; unit: FigureUnit }>> = {
   'return-loss': { name: 'return loss', unit: 'dB' },
   'insertion-loss': { name: 'insertion loss', unit: 'dB' },
   transmission: { name: 'transmission', unit: 'dB' },
@@ -95,4 +104,5 @@ export const FIGURE_WORDS: Readonly<Record<TargetFigure, { name: string; unit: '
   'amplitude-balance': { name: 'amplitude balance', unit: 'dB' },
   'phase-balance': { name: 'phase balance', unit: '°' },
   'phase-spread': { name: 'phase spread', unit: '°' },
+  'group-delay-flatness': { name: 'group-delay flatness', unit: 'ns' },
 };

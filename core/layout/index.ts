@@ -27,3 +27,5 @@ export { placeDesign } from './place.ts';
 export type { PlacedDesign } from './place.ts';
 export { asMadeTemplate, asMadeLineOptions } from './as-made.ts';
 export { fencePitchLimit, fenceFindings } from './fence-check.ts';
+export { foldsOf, foldShareRad, foldsOnPathRad, foldLegs, FOLD_GAP_MAX_H } from './folds.ts';
+export type { Fold, FoldShape } from './folds.ts';

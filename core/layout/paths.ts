@@ -8,7 +8,8 @@
  * Electrical length: Σ β(f)·l over the pieces' line lengths, where each piece's pad copper (launch or part pads at
  * its ends) is counted at the piece's own β; a modelled tee's arms count from its reference planes (the shifts at
  * f0, the copper beyond them belongs to the junction), ideal junctions to their centre; lumped parts
- * and S-parameter blocks add no line length and are listed.
+ * and S-parameter blocks add no line length and are listed. A line folded back beside itself (a meander's legs) adds
+ * the share its coupling gives (folds.ts: coupled-pair modes; the sweep adds the same); the sensitivities leave it out.
  *
  * Sensitivities (the project's own definition): S_x^φ = (x/φ)(∂φ/∂x) for x ∈ {εr, h, W} by central differences of the full line
  * model (static + dispersion) with a relative step of 1e-3, physical lengths held (they are what is made); W scales
@@ -21,6 +22,7 @@ import { warn, type Warning } from '../util/warnings.ts';
 import { LineCache } from './lineCache.ts';
 import type { SizedDesign, SizedPiece } from './types.ts';
 import { namer, nameOf, nodeByName, portNamesText } from '../design/names.ts';
+import { foldsOnPathRad } from './folds.ts';
 
 export const DEFAULT_PHASE_TOLERANCE_DEG = 5;
 
@@ -246,6 +248,9 @@ export function tracePaths(sized: SizedDesign, fromRef: string, toRefs: string[]
         for (const s of p.sections) { loss += s.lossDbPerM * s.length * scale; delay += cache.modeAt(s.width, f0).delayPerM * s.length * scale; }
       } else if (p.line) { loss += p.line.lossDbPerM * L; delay += p.line.delayPerM * L; }
     }
+    // A meander's legs couple: the folds lying on the path add their share (folds.ts, shared with the sweep and equalize).
+    const onPath = new Set(pieces.map((p) => p.id));
+    band.forEach((b) => { b.deg += (foldsOnPathRad(sized, onPath, b.f) * 180) / Math.PI; });
     let bends = 0, junctions = 0;
     for (const id of route.slice(1, -1)) {
       const n = nodes.get(id)!;

@@ -25,6 +25,10 @@
  *    line; the layout already drew each arm's copper longer by its plane shift at f0;
  *  - in-line width steps (Garg & Bahl 1978): L1 – Cs – L2 at the step, each part only where its fit holds.
  * Crosses and junctions that are not a T have no model at hand: their arms join at the centre, a note says so.
+ * A line folded back beside itself (a meander's legs, core/layout folds.ts): each leg's phase constant carries half of
+ * the fold's coupling share at every frequency, the same share the ledger and equalize count (first order: the
+ * coupling's phase; the small change of the legs' impedance it brings is not modelled). A caller's own `lineModel`
+ * (the yield estimate's tabulated made boards) is used as given, without the share.
  * Mitered and square bends add nothing (project rule: the path is measured through the corner; no closed form
  * adopted).
  */
@@ -38,6 +42,7 @@ import { viaGround } from '../discontinuity/goldfarbPucel1991Via.ts';
 import { prepareTee, teeJunction, teeShiftsInto, teeTurnsRatioSquared, TEE_SOURCE } from '../discontinuity/hammerstad1981TeeJunction.ts';
 import { starAdmittance, starBuffers } from './junctionStar.ts';
 import type { SizedDesign, SizedNode, SizedPiece } from '../layout/types.ts';
+import { foldLegs, foldShareRad, type Fold } from '../layout/folds.ts';
 import { GROUND, type LineModel, type NetElement, type NetPort, type Netlist } from './netlist.ts';
 import { sparamsAdmittance } from './sparamsPart.ts';
 import { namer } from '../design/names.ts';
@@ -126,6 +131,7 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
   const pieceModel = (p: SizedPiece): LineModel => (opts.lineModel ? opts.lineModel(p.width, p) : defaultModelFor(p.width));
   teeElements(sized, pieces, pieceModel, terminal, trimmed, elements, warnings, sub.h);
 
+  const legs = foldLegs(sized);
   for (const p of sized.pieces) {
     const a = endNode(p.id, p.a), b = endNode(p.id, p.b);
     const custom = opts.lineModel;
@@ -133,7 +139,9 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
     switch (p.kind) {
       case 'line': {
         const [a1, b1] = padsAround(p, a, b, pads, elements, modelFor);
-        elements.push({ kind: 'line', id: p.id, a: a1, b: b1, length: Math.max(0, p.length - (trimmed.get(p.id) ?? 0)), model: modelFor(p.width) });
+        const length = Math.max(0, p.length - (trimmed.get(p.id) ?? 0));
+        const folds = legs.get(p.id);
+        elements.push({ kind: 'line', id: p.id, a: a1, b: b1, length, model: folds && length > 0 && !custom ? withFoldShare(modelFor(p.width), sub, folds, length) : modelFor(p.width) });
         break;
       }
       case 'taper': {
@@ -218,6 +226,16 @@ export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}
   // input in the path ledger renumbers them, so S21 always reads "from the input to the first output".
   const numbered = [ports[input]!, ...ports.filter((_, k) => k !== input)];
   return { elements, ports: numbered, input: 0, warnings };
+}
+
+/** A leg's line model with half of each of its folds' coupling share added to β over the leg's length. */
+function withFoldShare(base: LineModel, sub: SubstrateSpec, folds: readonly Fold[], length: number): LineModel {
+  return (f) => {
+    const c = base(f);
+    let extra = 0;
+    for (const fold of folds) extra += foldShareRad(sub, fold, f) / 2;
+    return { zc: c.zc, gamma: { re: c.gamma.re, im: c.gamma.im + extra / length } };
+  };
 }
 
 /**

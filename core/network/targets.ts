@@ -4,21 +4,21 @@
  * figure is computed at each sweep point inside its band, the point with the least margin to the limit is the worst,
  * and the target passes when that margin is not negative. Definitions of the figures are the usual ones of the trade
  * (D. M. Pozar, Microwave Engineering, 4th ed., §4.3: return loss, insertion loss; balance and isolation as in
- * figures.ts).
+ * figures.ts; group delay τg = −dφ/dω by central differences on the sweep's points, as figures.ts computes it).
  */
 import { InputError } from '../util/errors.ts';
 import { hypot } from '../util/hypot.ts';
 import type { DesignDoc, Target, TargetFigure } from '../design/types.ts';
-import { FIGURE_WORDS } from '../design/targets.ts';
+import { FIGURE_UNIT_SUFFIX, FIGURE_WORDS, type FigureUnit } from '../design/targets.ts';
 import type { NetworkResponse } from './response.ts';
 import { sweepFrequencies, type SweepSettings } from './sweep.ts';
-import { toDb, wrap180 } from './figures.ts';
+import { groupDelay, toDb, wrap180 } from './figures.ts';
 
 export interface TargetResult {
   id: string;
   name: string;
   figure: TargetFigure;
-  unit: 'dB' | '°';
+  unit: FigureUnit;
   /** The limit in words, e.g. "≥ 15 dB" or "≤ 2°". */
   limitText: string;
   pass: boolean;
@@ -84,6 +84,15 @@ function figureAt(r: NetworkResponse, t: Target, doc: Pick<DesignDoc, 'phaseGrou
       const a = port(r, ports[0] ?? '', `${at}.ports[0]`), b = port(r, ports[1] ?? '', `${at}.ports[1]`);
       return (k) => -toDb(sMag(r, k, a, b));
     }
+    case 'group-delay-flatness': {
+      // Each point's rise above the least group delay in the band, ns: the worst point reads the peak-to-peak.
+      const a = port(r, ports[0] ?? '', `${at}.ports[0]`), b = port(r, ports[1] ?? '', `${at}.ports[1]`);
+      const tau = groupDelay(r, b, a);
+      const lo = t.band.start * (1 - EDGE), hi = t.band.stop * (1 + EDGE);
+      let least = Infinity;
+      for (let k = 0; k < r.freqs.length; k++) if (r.freqs[k]! >= lo && r.freqs[k]! <= hi && tau[k]! < least) least = tau[k]!;
+      return (k) => (tau[k]! - least) * 1e9;
+    }
     case 'amplitude-balance': case 'phase-balance': case 'phase-spread': {
       const g = doc.phaseGroups.find((x) => x.id === t.group);
       if (!g) throw new InputError('bad-choice', `${at}.group`, 'the id of a phase group of this design', JSON.stringify(t.group));
@@ -127,7 +136,7 @@ function margin(t: Target, v: number): number {
 }
 
 export function limitText(t: Target): string {
-  const u = FIGURE_WORDS[t.figure].unit === 'dB' ? ' dB' : '°';
+  const u = FIGURE_UNIT_SUFFIX[FIGURE_WORDS[t.figure].unit];
   const { min, max } = t.limit;
   if (min !== undefined && max !== undefined) return `${min} … ${max}${u}`;
   return min !== undefined ? `≥ ${min}${u}` : `≤ ${max}${u}`;

@@ -22,6 +22,7 @@ import { InputError, describe } from '../util/errors.ts';
 import { hypot } from '../util/hypot.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import type { DesignDoc, Target, Tolerance, ToleranceQuantity } from '../design/types.ts';
+import type { FigureUnit } from '../design/targets.ts';
 import type { LineOptions } from '../line/index.ts';
 import { sizeDesign } from '../layout/sizing.ts';
 import type { SizedDesign } from '../layout/types.ts';
@@ -60,7 +61,7 @@ export interface TargetYield {
   id: string;
   name: string;
   text: string;
-  unit: 'dB' | '°';
+  unit: FigureUnit;
   limit: { min?: number; max?: number };
   nominal: TargetResult;
   passes: number;

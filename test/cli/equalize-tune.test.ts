@@ -9,7 +9,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { cli } from './cli-basics.test.ts';
-import { equalizeGroup, parseDesign, serializeDesign, type DesignDoc } from '../../core/index.ts';
+import { equalizeGroup, parseDesign, serializeDesign, makeBlockDesign, tuneWithBlocks, type DesignDoc, type Target } from '../../core/index.ts';
 
 const EX = join(import.meta.dirname, '..', '..', 'assets', 'examples');
 const dir = mkdtempSync(join(tmpdir(), 'sw-eq-'));
@@ -61,5 +61,24 @@ describe('stripwright tune', () => {
     const r = cli(['tune', join(EX, 'open-stub-match.json'), '--vary', 'nope:degrees:1:2', '--out', join(dir, 'x.json')]);
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/ids of segments/);
+  });
+});
+
+describe('stripwright tune with a block parameter', () => {
+  const doc = makeBlockDesign('wilkinson', { ratioDb: 0 }, { f0: 2.45e9 });
+  const g = doc.phaseGroups[0]!;
+  const goal: Target = { id: 'split', figure: 'transmission', ports: [g.from, g.to[0]!], band: { start: 2.45e9, stop: 2.45e9 }, limit: { min: -4.1, max: -3.9 } };
+  const variables = [{ block: 'b1', param: 'ratioDb', min: -4, max: 4 }];
+  it('the CLI takes BLOCK@PARAM:MIN:MAX (the option spelling too) and writes what the core gives', async () => {
+    const src = join(dir, 'w.json'), goals = join(dir, 'goals.json'), out = join(dir, 'out.json');
+    writeFileSync(src, serializeDesign(doc));
+    writeFileSync(goals, JSON.stringify([goal]));
+    const r = cli(['tune', src, '--goals', goals, '--vary', 'b1@ratio-db:-4:4', '--seed', '1', '--out', out]);
+    expect(r.code, r.stderr).toBe(0);
+    expect(r.stdout).toMatch(/b1 ratioDb/);
+    const core = await tuneWithBlocks(doc, { variables, goals: [{ target: goal, weight: 1 }], seed: 1 });
+    const back = parseDesign(readFileSync(out, 'utf8'));
+    expect(back.ok).toBe(true);
+    expect(readFileSync(out, 'utf8')).toBe(serializeDesign(core.doc));
   });
 });

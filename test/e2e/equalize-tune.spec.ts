@@ -1,7 +1,7 @@
 /**
  * Equalize and tune as a person uses them, in Debian chromium under the shipped CSP: make the demo's left riser
  * longer in the piece sheet, see the path ledger flag the paths, press Equalize, see them in tolerance, undo with
- * Ctrl+Z; then detune the single-stub example's stub, tune it back in the Tune tab and apply the result, undo it.
+ * Ctrl+Z; again with the meanders on two pieces picked in the piece list; then detune the single-stub example's stub, tune it back in the Tune tab and apply the result, undo it.
  * The numbers themselves are checked in test/unit/equalize.test.ts and test/unit/tune.test.ts.
  */
 import { expect, test, type Page } from '@playwright/test';
@@ -32,6 +32,40 @@ test('equalize the demo\'s outputs after a riser was made longer; one undo step'
   await page.getByTestId('equalize-outputs').click();
   await expect(page.getByTestId('equalize-result')).toContainText('armr', { timeout: 30_000 });
   await expect(page.getByTestId('equalize-result')).toContainText('spread at f0');
+  await expect(page.getByTestId('path-out-out3')).toHaveCount(0, { timeout: 30_000 });
+  await expect(page.getByTestId('path-out-out4')).toHaveCount(0);
+
+  await page.getByTestId('board-canvas').click({ position: { x: 5, y: 5 } });
+  await page.keyboard.press('Control+z');
+  await expect(page.getByTestId('path-out-out3')).toBeVisible({ timeout: 30_000 });
+  expect(errors).toEqual([]);
+});
+
+test('equalize on the pieces the user picks (Shift-click in the piece list), one undo step', async ({ page }) => {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await openDemo(page);
+  await page.getByTestId('tab-pieces').click();
+  await page.getByTestId('piece-row-risel').click();
+  await page.getByTestId('tab-sheet').click();
+  await page.getByTestId('length-by-length').click();
+  const len = page.getByTestId('field-length');
+  await len.click();
+  await len.fill('10 mm');
+  await len.press('Enter');
+  // Pick the two uprights to the patches that fall behind.
+  await page.getByTestId('tab-pieces').click();
+  await page.getByTestId('piece-row-up3').click();
+  await page.getByTestId('tab-pieces').click(); // a click on a row opens its sheet
+  await page.getByTestId('piece-row-up4').click({ modifiers: ['Shift'] });
+  await page.getByTestId('dock-paths').click();
+  await expect(page.getByTestId('path-out-out3')).toBeVisible({ timeout: 30_000 });
+  await page.getByTestId('equalize-picked-outputs').check();
+  await expect(page.getByTestId('path-ledger')).toContainText('only on the selected pieces (up3, up4)');
+  await page.getByTestId('equalize-outputs').click();
+  await expect(page.getByTestId('equalize-result')).toContainText('up3', { timeout: 30_000 });
+  await expect(page.getByTestId('equalize-result')).toContainText('up4');
+  await expect(page.getByTestId('equalize-result')).not.toContainText('armr');
   await expect(page.getByTestId('path-out-out3')).toHaveCount(0, { timeout: 30_000 });
   await expect(page.getByTestId('path-out-out4')).toHaveCount(0);
 

@@ -112,15 +112,20 @@ describe('equalize a phase group', () => {
 describe('legs spaced by a coupling limit', () => {
   it('a −40 dB limit widens the gap past 3h, and the legs of the meander keep it (Kirschning–Jansen 1984 modes)', () => {
     const feed = corporateFeed({ outputs: 4, f0: 5.8e9, pitch: 30e-3, substrate: { h: 0.5e-3 } });
-    const long: DesignDoc = { ...feed, segments: feed.segments.map((s) => (s.id === 'run0' && s.kind === 'line' ? { ...s, length: { by: 'length' as const, length: 14e-3 } } : s)) };
+    const long: DesignDoc = { ...feed, segments: feed.segments.map((s) => (s.id === 'run1' && s.kind === 'line' ? { ...s, length: { by: 'length' as const, length: 14e-3 } } : s)) };
     const plain = equalizeGroup(long, { group: 'outputs', style: 'trombone' });
     const limited = equalizeGroup(long, { group: 'outputs', style: 'trombone', couplingLimitDb: -40 });
     const gapOf = (m: (typeof plain.meanders)[number]) => (m.shape.kind === 'serpentine' ? m.shape.pitch : 0) - sizeDesign(long).pieces.find((p) => p.id === m.piece)!.width;
+    expect(plain.meanders.length).toBeGreaterThan(0);
+    expect(limited.meanders.length).toBeGreaterThan(0);
     for (const m of plain.meanders) expect(gapOf(m)).toBeCloseTo(3 * 0.5e-3, 9);
+    // The gap is set for the design's widest line (wider strips couple more at one gap), so every leg keeps the limit.
+    const widest = Math.max(...sizeDesign(long).pieces.filter((p) => p.kind === 'line').map((p) => p.width));
     for (const m of limited.meanders) {
       const w = sizeDesign(long).pieces.find((p) => p.id === m.piece)!.width;
       expect(gapOf(m)).toBeGreaterThan(3 * 0.5e-3);
-      expect(analyzeCoupled(long.substrate, w, gapOf(m) * 0.999, long.frequency.f0).couplingDb).toBeLessThan(40 + 0.2);
+      expect(analyzeCoupled(long.substrate, widest, gapOf(m) * 0.999, long.frequency.f0).couplingDb).toBeLessThan(40 + 0.2);
+      expect(analyzeCoupled(long.substrate, widest, gapOf(m), long.frequency.f0).couplingDb).toBeGreaterThanOrEqual(40 - 1e-6);
       expect(analyzeCoupled(long.substrate, w, gapOf(m), long.frequency.f0).couplingDb).toBeGreaterThanOrEqual(40 - 1e-6);
     }
     expect(limited.spreadDeg).toBeLessThanOrEqual(0.5);
@@ -134,13 +139,31 @@ describe('equalize the 64-way feed with one long output run', () => {
   it('puts one meander on the sibling branch at each of the six levels', () => {
     expect(res.meanders).toHaveLength(6);
   });
-  it('ledger spread ≤ 0.5° at f0, traced afresh', () => {
+  it('ledger spread ≤ 0.5° at f0, traced afresh (the ledger counts the legs\' coupling as equalize does)', () => {
     const g = long.phaseGroups[0]!;
     const spread = tracePaths(sizeDesign(res.doc), g.from, g.to, { sensitivities: false }).spreadDeg;
-    const coupling = Math.max(...res.meanders.map((m) => Math.abs(m.couplingDeg[1])));
-    // The ledger models single lines; the meanders' own coupling (counted by equalize) is what it cannot see.
-    expect(spread).toBeLessThanOrEqual(0.5 + coupling);
+    // The meanders do couple (so the check has something to see), and the ledger still shows the paths equal.
+    expect(Math.max(...res.meanders.map((m) => Math.abs(m.couplingDeg[1])))).toBeGreaterThan(0.05);
+    expect(spread).toBeLessThanOrEqual(0.5);
     expect(res.spreadDeg).toBeLessThanOrEqual(0.5);
+  });
+  it('the sweep\'s S21 phase spread is ≤ 1° across the band with one run 1 mm long (nodal solve of the result)', () => {
+    // 1 mm (about 13° at f0) rather than 3 mm: a meander on a 100 Ω arm between a tee and a quarter-wave transformer
+    // also moves the phase of what those two reflect off f0 (and the lossy laminate's complex Zc at f0), which no
+    // length-only ledger sees; with 3 mm that is 1.6° at the band's top edge (reported by the benchmark), with 1 mm 0.4°.
+    const one: DesignDoc = { ...feed, segments: feed.segments.map((s) => (s.id === 'run5' && s.kind === 'line' ? { ...s, length: { by: 'length' as const, length: 9e-3 } } : s)) };
+    const g = one.phaseGroups[0]!;
+    const eq = equalizeGroup(one, { group: 'outputs' });
+    expect(sweepPhaseSpread(one, g.from, g.to)).toBeGreaterThan(10);
+    expect(tracePaths(sizeDesign(eq.doc), g.from, g.to, { sensitivities: false }).spreadDeg).toBeLessThanOrEqual(0.5);
+    expect(sweepPhaseSpread(eq.doc, g.from, g.to)).toBeLessThanOrEqual(1);
+  });
+  it('the shop check of the result is clean (no errors or warnings it did not have before)', async () => {
+    const sev = (d: DesignDoc) => checkBoard(sizeDesign(d)).findings.filter((f) => f.severity !== 'info');
+    const before = new Set(sev(long).map((f) => f.code));
+    const after = sev(res.doc);
+    expect(after.filter((f) => f.severity === 'error')).toEqual([]);
+    expect(after.filter((f) => !before.has(f.code))).toEqual([]);
   });
 });
 
@@ -153,8 +176,7 @@ describe('equalize a group with offsets (a progressive phase for a tilted beam)'
     const g = doc.phaseGroups[0]!;
     const after = tracePaths(sizeDesign(res.doc), g.from, g.to, { sensitivities: false });
     const level = after.paths.map((p, i) => p.degAtF0 - offsets[i]!);
-    const coupling = res.meanders.reduce((s, m) => s + Math.abs(m.couplingDeg[1]), 0);
-    expect(Math.max(...level) - Math.min(...level)).toBeLessThanOrEqual(0.5 + coupling);
+    expect(Math.max(...level) - Math.min(...level)).toBeLessThanOrEqual(0.5);
     expect(res.spreadDeg).toBeLessThanOrEqual(0.5);
   });
   it('reports the band-edge error the length offsets imply (they match at f0 only)', () => {
@@ -162,5 +184,47 @@ describe('equalize a group with offsets (a progressive phase for a tilted beam)'
     const f0 = doc.frequency.f0, edge = (doc.frequency.band.stop - f0) / f0;
     expect(res.bandSpreadDeg[1]).toBeGreaterThan(0.5 * 90 * edge);
     expect(res.bandSpreadDeg[1]).toBeLessThan(2 * 90 * edge + 0.5);
+  });
+});
+
+describe('equalize on the examples, each with one output lead drawn longer (our own detuning)', () => {
+  /** The example with one path's last piece (its port lead; default the last path's) `extra` m longer than sized. */
+  const detuned = (name: string, extra: number, path = -1): DesignDoc => {
+    const d = load(name);
+    const g = d.phaseGroups[0]!;
+    const s = sizeDesign(d);
+    const id = tracePaths(s, g.from, g.to, { sensitivities: false }).paths.at(path)!.pieces.at(-1)!;
+    const nominal = s.pieces.find((p) => p.id === id)!.nominalLength;
+    return { ...d, segments: d.segments.map((x) => (x.id === id && x.kind === 'line' ? { ...x, length: { by: 'length' as const, length: nominal + extra } } : x)) };
+  };
+  /** Findings (errors and warnings) of the result whose kind the detuned design did not have. */
+  const newFindings = (before: DesignDoc, after: DesignDoc) => {
+    const sev = (d: DesignDoc) => checkBoard(sizeDesign(d)).findings.filter((f) => f.severity !== 'info');
+    const had = new Set(sev(before).map((f) => `${f.severity}:${f.code}`));
+    return sev(after).filter((f) => !had.has(`${f.severity}:${f.code}`));
+  };
+  it('demo (equal phase): ledger ≤ 0.5° at f0, sweep ≤ 1° across the band, shop check clean', () => {
+    const doc = detuned('demo.json', 1e-3);
+    const g = doc.phaseGroups[0]!;
+    const res = equalizeGroup(doc, { group: g.id });
+    expect(res.meanders.length).toBeGreaterThan(0);
+    expect(tracePaths(sizeDesign(res.doc), g.from, g.to, { sensitivities: false }).spreadDeg).toBeLessThanOrEqual(0.5);
+    expect(sweepPhaseSpread(doc, g.from, g.to)).toBeGreaterThan(5);
+    expect(sweepPhaseSpread(res.doc, g.from, g.to)).toBeLessThanOrEqual(1);
+    expect(newFindings(doc, res.doc)).toEqual([]);
+    expect(checkBoard(sizeDesign(res.doc)).findings.filter((f) => f.severity === 'error')).toEqual([]);
+  });
+  it('branch-line (a 0°/90° group): each path its offset behind the first within 0.5° on the ledger, nothing new in the shop check', () => {
+    // The coupled path's lead 6 mm longer: it then runs off the board (an error of the detuned design, kept, not added).
+    const doc = detuned('branchline-10g4.json', 6e-3);
+    const g = doc.phaseGroups[0]!;
+    const res = equalizeGroup(doc, { group: g.id });
+    const after = tracePaths(sizeDesign(res.doc), g.from, g.to, { sensitivities: false });
+    const level = after.paths.map((p, i) => p.degAtF0 - (g.offsetsDeg?.[i] ?? 0));
+    expect(Math.max(...level) - Math.min(...level)).toBeLessThanOrEqual(0.5);
+    expect(newFindings(doc, res.doc)).toEqual([]);
+  });
+  it('Wilkinson: refuses a lengthening smaller than the smallest meander its wide output runs can take, saying so', () => {
+    expect(() => equalizeGroup(detuned('wilkinson-2g45.json', 6e-3), { group: 'outputs' })).toThrow(/less than the smallest meander that fits its runs/);
   });
 });

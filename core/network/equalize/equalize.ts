@@ -7,12 +7,13 @@
  * start); on each chosen branch one straight drawn run is replaced by a meander (meander.ts) that fits the room
  * (room.ts: board outline, keep-outs, other copper, legs at least `gap` apart). The meander's corners are vertices
  * with optimal miters, so sizing compensates every bend (Douville & James 1978, core/discontinuity). Its realised
- * phase is then measured on the re-sized design and the height corrected (a few rounds, slope one), with the legs'
- * coupling (coupling.ts, coupled-line model) counted in its electrical length. Ports and all other pieces keep their
+ * phase is then measured on the re-sized design by the ledger itself and the height corrected (a few rounds, slope
+ * one); the ledger counts the legs' coupling (core/layout folds.ts, coupled-line model), as the sweep does, so the
+ * three agree. Ports and all other pieces keep their
  * place: a meander starts and ends where its run did, leaving in the run's direction.
  */
 import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup } from '../../design/types.ts';
-import { sizeDesign, tracePaths, BOARD_SIZE_LIMIT, type PathReport, type SizedDesign, type SizedPiece } from '../../layout/index.ts';
+import { sizeDesign, tracePaths, foldsOf, foldShareRad, BOARD_SIZE_LIMIT, type PathReport, type SizedDesign, type SizedPiece } from '../../layout/index.ts';
 import type { Vec2 } from '../../geometry/types.ts';
 import { InputError } from '../../util/errors.ts';
 import { analyzeCoupled } from '../../line/index.ts';
@@ -49,7 +50,7 @@ export interface MeanderReport {
   piece: string;
   shape: MeanderShape;
   side: 1 | -1;
-  /** Electrical length added at f0, degrees (ledger phase plus coupling). */
+  /** Electrical length added at f0, degrees (as the ledger measures it, the legs' coupling included). */
   addedDeg: number;
   /** Centreline length added through the corner points, m. */
   extraLength: number;
@@ -61,9 +62,9 @@ export interface MeanderReport {
 
 export interface EqualizedPath {
   to: string;
-  /** Ledger phase (single-line model) at band start, f0, stop, degrees. */
+  /** Ledger phase at band start, f0, stop, degrees (the meanders' coupling included, core/layout folds.ts). */
   ledgerDeg: [number, number, number];
-  /** Ledger phase plus the coupling shares of the meanders on the path, degrees. */
+  /** The same electrical length (kept for readers of earlier reports: the ledger now counts the coupling itself). */
   electricalDeg: [number, number, number];
   /** Wanted offset to the first path, degrees. */
   offsetDeg: number;
@@ -107,9 +108,21 @@ function trace(s: SizedDesign, g: PhaseGroup): PathReport {
   return tracePaths(s, g.from, g.to, { sensitivities: false, toleranceDeg: g.toleranceDeg, group: g.id, name: g.name, ...(g.offsetsDeg ? { offsetsDeg: g.offsetsDeg } : {}) });
 }
 
-/** Electrical length of one piece's route (its two nodes), degrees at f0. */
-function runDeg(s: SizedDesign, a: string, b: string): number {
-  return tracePaths(s, a, [b], { sensitivities: false, matched: false }).paths[0]?.degAtF0 ?? 0;
+/**
+ * Electrical length of one run (the route between a piece's two nodes; `ids` its pieces now), degrees at f0, with the
+ * share of every fold it makes with the copper just beyond its ends (a meander's first leg running back beside the
+ * piece before it): the group's paths count those folds too (core/layout folds.ts), the run's own route does not.
+ */
+function runDeg(s: SizedDesign, a: string, b: string, ids: readonly string[]): number {
+  const own = tracePaths(s, a, [b], { sensitivities: false, matched: false }).paths[0]?.degAtF0 ?? 0;
+  const mine = new Set(ids);
+  let edge = 0;
+  for (const fold of foldsOf(s)) {
+    const parts = [fold.legs[0], fold.legs[1], fold.joinPiece];
+    const inside = parts.filter((id) => mine.has(id)).length;
+    if (inside > 0 && inside < 3) edge += foldShareRad(s.doc.substrate, fold, s.f0);
+  }
+  return own + (edge * 180) / Math.PI;
 }
 
 interface Plan { piece: SizedPiece; seg: DesignSegment; shape: MeanderShape; side: 1 | -1; lead: number; shareDeg: number; extra: number; from: Vec2; to: Vec2; shift: Vec2 }
@@ -240,6 +253,13 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     const onPath = path.pieces.filter((id) => !opts.pieces || opts.pieces.includes(id));
     const room = onPath.map((id) => capacity(id)).reduce((a, b) => Math.max(a, b), 0) * 1e3;
     const why = onPath.map((id) => reason.get(id) ? `${id}: ${reason.get(id)}` : '').filter(Boolean).slice(-4).join('; ');
+    if (room >= mm) {
+      // Room enough for more, but not for this little: the corners need legs of two strip widths or long ramps.
+      throw new InputError('impossible-layout', 'group',
+        `room for meanders on the paths of ${g.name}`,
+        `path ${g.from} → ${worst} needs ${deg.toFixed(1)}° (${mm.toFixed(2)} mm of line) more, less than the smallest meander that fits its runs (legs of at least two strip widths; up to ${room.toFixed(2)} mm fit)${why ? ` (${why})` : ''}`,
+        'choose a longer or narrower run on that path, or lengthen the group\'s long path so the others need more');
+    }
     throw new InputError('impossible-layout', 'group',
       `room for meanders on the paths of ${g.name}`,
       `path ${g.from} → ${worst} needs ${deg.toFixed(1)}° (${mm.toFixed(2)} mm of line) more; the most one of its runs takes is ${room.toFixed(2)} mm, so ${Math.max(0, mm - room).toFixed(2)} mm is missing${why ? ` (${why})` : ''}`,
@@ -267,7 +287,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
   const list = [...plans.values()];
   const f = [s0.band.start, s0.f0, s0.band.stop];
   const sub = doc.substrate;
-  const baseDeg = new Map(list.map((p) => [p.piece.id, runDeg(s0, p.piece.a, p.piece.b)]));
+  const baseDeg = new Map(list.map((p) => [p.piece.id, runDeg(s0, p.piece.a, p.piece.b, [p.piece.id])]));
   let out = doc;
   let s1 = s0;
   const couplingOf = (p: Plan, fk: number) => (withCoupling ? meanderCouplingDeg(sub, p.piece.width, p.shape, fk) : 0);
@@ -276,8 +296,8 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     s1 = sized(out);
     let worst = 0;
     for (const p of list) {
-      const realised = runDeg(s1, p.piece.a, p.piece.b) - baseDeg.get(p.piece.id)!;
-      const err = p.shareDeg - couplingOf(p, s0.f0) - realised;
+      const realised = runDeg(s1, p.piece.a, p.piece.b, meanderIds(doc, p).segments) - baseDeg.get(p.piece.id)!;
+      const err = p.shareDeg - realised;
       worst = Math.max(worst, Math.abs(err));
       if (Math.abs(err) < 1e-3) continue;
       p.extra += ((err * Math.PI) / 180) / (p.piece.line?.beta ?? 1);
@@ -293,13 +313,11 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
   const meanders: MeanderReport[] = list.map((p) => {
     const c = f.map((fk) => couplingOf(p, fk)) as [number, number, number];
     const ids = meanderIds(doc, p);
-    return { piece: p.piece.id, shape: p.shape, side: p.side, addedDeg: runDeg(s1, p.piece.a, p.piece.b) - baseDeg.get(p.piece.id)! + c[1], extraLength: meanderExtra(p.shape), couplingDeg: c, nodes: ids.nodes, segments: ids.segments };
+    return { piece: p.piece.id, shape: p.shape, side: p.side, addedDeg: runDeg(s1, p.piece.a, p.piece.b, ids.segments) - baseDeg.get(p.piece.id)!, extraLength: meanderExtra(p.shape), couplingDeg: c, nodes: ids.nodes, segments: ids.segments };
   });
   const paths: EqualizedPath[] = after.paths.map((e, i) => {
     const ledger = [e.band[0]!.deg, e.band[1]!.deg, e.band[2]!.deg] as [number, number, number];
-    const extra = [0, 0, 0];
-    for (const m of meanders) if (e.pieces.includes(m.piece)) for (let k = 0; k < 3; k++) extra[k] += m.couplingDeg[k]!;
-    return { to: e.to, ledgerDeg: ledger, electricalDeg: ledger.map((x, k) => x + extra[k]!) as [number, number, number], offsetDeg: offsets[i]! };
+    return { to: e.to, ledgerDeg: ledger, electricalDeg: [...ledger], offsetDeg: offsets[i]! };
   });
   const spread = (k: number, key: 'ledgerDeg' | 'electricalDeg') => {
     const v = paths.map((p) => p[key][k]! - p.offsetDeg);
@@ -308,7 +326,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
   const warnings: Warning[] = [];
   if (!list.length) warnings.push(warn('phase', `the paths of ${g.name} already match within ${SMALL_DEG}°: nothing to lengthen`, { subjects: [g.id], severity: 'info' }));
   for (const m of meanders) {
-    if (Math.abs(m.couplingDeg[1]) > 0.05) warnings.push(warn('phase', `meander on ${m.piece}: its legs' coupling adds ${m.couplingDeg[1].toFixed(2)}° (counted); the ledger and the sweep model single lines and show ${(-m.couplingDeg[1]).toFixed(2)}° less`, { subjects: [m.piece], severity: 'info' }));
+    if (Math.abs(m.couplingDeg[1]) > 0.05) warnings.push(warn('phase', `meander on ${m.piece}: its legs' coupling adds ${m.couplingDeg[1].toFixed(2)}° at f0 (counted by the ledger and the sweep)`, { subjects: [m.piece], severity: 'info' }));
   }
   return {
     doc: out, group: g, meanders, before, after, paths,

@@ -5,7 +5,9 @@
  *
  * Each evaluation sizes the varied design (core/layout, the line cache kept across evaluations), builds its
  * network and solves it at the goals' frequencies (the fast sweep: netlistFromSized + solveNetwork), then scores
- * the goals with evaluateTarget (core/network/targets.ts, the same figures as everywhere). The cost of a goal is
+ * the goals with evaluateTarget (core/network/targets.ts, the same figures as everywhere). A placed block's numeric
+ * parameters are variables too: each step re-generates the block from its spec (`regenerateBlock`, the block
+ * registry's, passed by core/blocks `tuneWithBlocks`). The cost of a goal is
  * w·(shortfall² + 0.01·(headroom short of one unit)), in the goal's unit (dB or degrees): a goal that fails costs its
  * squared miss, and a small reward for margin up to one unit keeps the search moving once the limits are met.
  * While searching, the response is solved on 21 points across the band plus every goal band's edge; the before
@@ -22,13 +24,31 @@ import { minimiseInBox } from './nelder-mead.ts';
 /** What a variable sets on its pieces: line length in degrees at f0 or metres, strip impedance or width, a part's value. */
 export type TuneQuantity = 'degrees' | 'length' | 'z0' | 'width' | 'value';
 
-export interface TuneVariable {
-  /** Segment ids that take the same value (e.g. both arms of a divider). */
+/** A quantity of pieces: the segments take the same value (e.g. both arms of a divider). */
+export interface PieceVariable {
   segments: string[];
   quantity: TuneQuantity;
   min: number;
   max: number;
 }
+
+/**
+ * A numeric parameter of a placed block (design format 8), in the parameter's SI unit: each step re-generates the
+ * block from its spec with the new value (through the block registry, `regenerateBlock`), as re-opening it would.
+ */
+export interface BlockVariable {
+  block: string;
+  param: string;
+  min: number;
+  max: number;
+}
+
+export type TuneVariable = PieceVariable | BlockVariable;
+
+export const isBlockVariable = (v: TuneVariable): v is BlockVariable => 'block' in v;
+
+/** A placed block re-generated with a new spec (core/blocks supplies it: the registry lives above this layer). */
+export type BlockRegenerator = (doc: DesignDoc, block: string, spec: Record<string, number | string | boolean | number[] | { re: number; im: number }>) => DesignDoc;
 
 export interface TuneGoal { target: Target; weight: number }
 
@@ -45,9 +65,19 @@ export interface TuneOptions {
   onProgress?: (fraction: number, bestCost: number) => void;
   /** Awaited between iterations so a worker can receive "cancel". */
   yieldTo?: () => Promise<void>;
+  /** Re-generates a placed block (needed for block variables; core/blocks `tuneWithBlocks` passes the registry's). */
+  regenerateBlock?: BlockRegenerator;
 }
 
-export interface TunedVariable { name: string; quantity: TuneQuantity; segments: string[]; before: number; after: number; min: number; max: number }
+export interface TunedVariable {
+  name: string;
+  /** A piece quantity, or 'block' for a block parameter (then `block` and `param` say which). */
+  quantity: TuneQuantity | 'block';
+  segments: string[];
+  block?: string;
+  param?: string;
+  before: number; after: number; min: number; max: number;
+}
 
 export interface TuneResult {
   doc: DesignDoc;
@@ -91,17 +121,36 @@ function setValue(seg: DesignSegment, q: TuneQuantity, v: number): DesignSegment
   return { ...seg, width: { by: 'width', width: v } };
 }
 
-/** The design with the variables set to `values` (new segment records only where a value is set). */
-export function withValues(doc: DesignDoc, vars: readonly TuneVariable[], values: readonly number[]): DesignDoc {
+/** A block variable's value now: the number in the placed block's spec. */
+export function blockValue(doc: DesignDoc, v: BlockVariable, field: string): number {
+  const rec = (doc.blocks ?? []).find((b) => b.id === v.block);
+  if (!rec) throw new InputError('bad-choice', field, `a placed block of this design (${(doc.blocks ?? []).map((b) => b.id).join(', ') || 'none'})`, JSON.stringify(v.block));
+  const x = rec.spec[v.param];
+  if (typeof x !== 'number') throw new InputError('bad-choice', field, `a number parameter of block ${v.block} (${Object.entries(rec.spec).filter(([, y]) => typeof y === 'number').map(([k]) => k).join(', ') || 'none'})`, JSON.stringify(v.param));
+  return x;
+}
+
+/**
+ * The design with the variables set to `values`: blocks re-generated first (one call per block with all its new
+ * values), then new segment records only where a value is set.
+ */
+export function withValues(doc: DesignDoc, vars: readonly TuneVariable[], values: readonly number[], regenerate?: BlockRegenerator): DesignDoc {
+  const specs = new Map<string, Record<string, number>>();
+  vars.forEach((v, i) => { if (isBlockVariable(v)) specs.set(v.block, { ...specs.get(v.block), [v.param]: values[i]! }); });
+  for (const [id, change] of specs) {
+    if (!regenerate) throw new InputError('bad-choice', 'variables', 'piece variables (block parameters need the block registry: tuneWithBlocks)', `block ${id}`);
+    const rec = (doc.blocks ?? []).find((b) => b.id === id)!;
+    doc = regenerate(doc, id, { ...rec.spec, ...change });
+  }
   const idx = new Map<string, number[]>();
-  vars.forEach((v, i) => { for (const s of v.segments) { const l = idx.get(s); if (l) l.push(i); else idx.set(s, [i]); } });
+  vars.forEach((v, i) => { if (isBlockVariable(v)) return; for (const s of v.segments) { const l = idx.get(s); if (l) l.push(i); else idx.set(s, [i]); } });
   return {
     ...doc,
     segments: doc.segments.map((s) => {
       const which = idx.get(s.id);
       if (!which) return s;
       let out = s;
-      for (const i of which) out = setValue(out, vars[i]!.quantity, values[i]!);
+      for (const i of which) out = setValue(out, (vars[i] as PieceVariable).quantity, values[i]!);
       return out;
     }),
   };
@@ -112,6 +161,11 @@ function checkVariables(doc: DesignDoc, vars: readonly TuneVariable[]): void {
   if (vars.length > 32) throw new InputError('out-of-range', 'variables', 'at most 32 variables', String(vars.length));
   vars.forEach((v, i) => {
     const at = `variables[${i}]`;
+    if (isBlockVariable(v)) {
+      blockValue(doc, v, `${at}.param`);
+      if (!(Number.isFinite(v.min) && Number.isFinite(v.max) && v.max > v.min)) throw new InputError('out-of-range', `${at}.min`, 'a range with min < max', `${v.min} … ${v.max}`);
+      return;
+    }
     if (!(UNITS[v.quantity] !== undefined)) throw new InputError('bad-choice', `${at}.quantity`, 'one of degrees, length, z0, width, value', JSON.stringify(v.quantity));
     if (!v.segments.length) throw new InputError('out-of-range', `${at}.segments`, 'at least one segment id', 'none');
     for (const s of v.segments) if (!doc.segments.some((x) => x.id === s)) throw new InputError('bad-choice', `${at}.segments`, 'ids of segments of this design', JSON.stringify(s));
@@ -134,10 +188,12 @@ export async function tuneDesign(doc: DesignDoc, opts: TuneOptions): Promise<Tun
   const seed = opts.seed ?? 1;
   const cache = new LineCache(doc.substrate);
   const sized0 = sizeDesign(doc, { cache });
+  const nowValue = (v: TuneVariable, field: string): number => (isBlockVariable(v) ? blockValue(doc, v, field) : currentValue(doc.segments.find((s) => s.id === v.segments[0])!, v.quantity, sized0, field));
   const start = vars.map((v, i) => {
-    const now = currentValue(doc.segments.find((s) => s.id === v.segments[0])!, v.quantity, sized0, `variables[${i}].segments`);
+    const now = nowValue(v, `variables[${i}].${isBlockVariable(v) ? 'param' : 'segments'}`);
     return Math.min(1, Math.max(0, (now - v.min) / (v.max - v.min)));
   });
+  const regen = opts.regenerateBlock;
   const band = doc.frequency.band;
   const points = opts.points ?? 201;
   sweepFrequencies({ start: band.start, stop: band.stop, points });
@@ -173,7 +229,13 @@ export async function tuneDesign(doc: DesignDoc, opts: TuneOptions): Promise<Tun
   freqs = coarse;
   const costBefore = costOf(doc);
   const maxEvaluations = opts.maxEvaluations ?? Math.max(300, 150 * vars.length);
-  const res = await minimiseInBox((x) => costOf(withValues(doc, vars, value(x))), start, {
+  const costAt = (x: readonly number[]): number => {
+    let d: DesignDoc;
+    // A block spec its generator refuses (a value sizing cannot realise) is a bad point, not an error.
+    try { d = withValues(doc, vars, value(x), regen); } catch (e) { if (e instanceof InputError) return 1e9; throw e; }
+    return costOf(d);
+  };
+  const res = await minimiseInBox(costAt, start, {
     maxEvaluations, costTolerance: 1e-9, sizeTolerance: 1e-6, seed,
     onIteration: async (best, n) => {
       opts.onProgress?.(Math.min(1, n / maxEvaluations), best);
@@ -187,13 +249,15 @@ export async function tuneDesign(doc: DesignDoc, opts: TuneOptions): Promise<Tun
   }
   // Keep the start when the search found nothing better.
   const better = res.cost < costBefore;
-  const finalValues = better ? value(res.x) : value(start).map((v, i) => currentValue(doc.segments.find((s) => s.id === vars[i]!.segments[0])!, vars[i]!.quantity, sized0, 'variables'));
-  const out = better ? withValues(doc, vars, finalValues) : doc;
+  const finalValues = better ? value(res.x) : vars.map((v) => nowValue(v, 'variables'));
+  const out = better ? withValues(doc, vars, finalValues, regen) : doc;
   return {
     doc: out, layoutProblems: sizeDesign(out, { cache }).problems.map((p) => p.message),
     variables: vars.map((v, i) => ({
-      name: `${v.segments.join('+')} ${v.quantity}`, quantity: v.quantity, segments: v.segments,
-      before: currentValue(doc.segments.find((s) => s.id === v.segments[0])!, v.quantity, sized0, 'variables'), after: finalValues[i]!, min: v.min, max: v.max,
+      ...(isBlockVariable(v)
+        ? { name: `${v.block} ${v.param}`, quantity: 'block' as const, segments: [], block: v.block, param: v.param }
+        : { name: `${v.segments.join('+')} ${v.quantity}`, quantity: v.quantity, segments: v.segments }),
+      before: nowValue(v, 'variables'), after: finalValues[i]!, min: v.min, max: v.max,
     })),
     before, after: better ? evaluateDoc(out) : before, costBefore, costAfter: better ? res.cost : costBefore,
     evaluations: res.evaluations, stopped: res.stopped, seed,

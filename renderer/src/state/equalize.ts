@@ -1,6 +1,6 @@
 /**
- * The path ledger's Equalize button: runs `equalizeGroup` in the compute worker and applies the result as one undo
- * step (the design command 'network.equalize'), or shows why it could not (no room: how much is missing).
+ * The path ledger's Equalize button: runs `equalizeGroup` in the compute worker (on the pieces the user picked, or
+ * those the tool chooses) and applies the result as one undo step (the design command 'network.equalize'), or shows why it could not (no room: how much is missing).
  */
 import type { EditorState } from './editor.svelte.ts';
 import type { Compute } from './compute.svelte.ts';
@@ -8,9 +8,10 @@ import type { EqualizeOutput } from '../worker/equalize-job.ts';
 
 export interface EqualizeView { group: string; busy: boolean; failed: boolean; lines: string[] }
 
-export async function equalizeInLedger(editor: EditorState, compute: Compute, group: string, show: (v: EqualizeView) => void): Promise<void> {
+/** `pieces`: the segments the user picked to carry the meanders (default: the tool chooses). */
+export async function equalizeInLedger(editor: EditorState, compute: Compute, group: string, show: (v: EqualizeView) => void, pieces?: string[]): Promise<void> {
   show({ group, busy: true, failed: false, lines: ['Equalizing…'] });
-  const out = await compute.run<EqualizeOutput>('equalize', { doc: editor.doc, group });
+  const out = await compute.run<EqualizeOutput>('equalize', { doc: editor.doc, group, ...(pieces ? { pieces: [...pieces] } : {}) });
   if (out.ok) {
     if (out.value.lines.length > 1 || out.value.nodes.length !== editor.doc.nodes.length) {
       editor.edit('network.equalize', { nodes: out.value.nodes, segments: out.value.segments }, 'Equalize phase group');

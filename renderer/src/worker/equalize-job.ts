@@ -4,10 +4,10 @@
  * (the editor applies them as one undo step) and what the panels show.
  */
 import type { DesignDoc, DesignNode, DesignSegment } from '../../../core/index.ts';
-import { equalizeGroup, tuneDesign, type TuneVariable, type TunedVariable, type TargetEvaluation } from '../../../core/index.ts';
+import { equalizeGroup, tuneWithBlocks, type TuneVariable, type TunedVariable, type TargetEvaluation, type PlacedBlock, type PhaseGroup, type Target } from '../../../core/index.ts';
 import type { Progress } from './client.ts';
 
-export interface EqualizeInput { doc: DesignDoc; group: string }
+export interface EqualizeInput { doc: DesignDoc; group: string; pieces?: string[] }
 export interface EqualizeOutput {
   nodes: DesignNode[];
   segments: DesignSegment[];
@@ -18,7 +18,7 @@ export interface EqualizeOutput {
 }
 
 export function equalizeJob(input: EqualizeInput): EqualizeOutput {
-  const r = equalizeGroup(input.doc, { group: input.group });
+  const r = equalizeGroup(input.doc, { group: input.group, ...(input.pieces ? { pieces: input.pieces } : {}) });
   const lines = r.meanders.map((m) => {
     const shape = m.shape.kind === 'serpentine' ? (m.shape.bumps === 1 ? 'trombone' : `serpentine, ${m.shape.bumps} bumps`) : 'dogleg';
     return `${m.piece}: +${m.addedDeg.toFixed(2)}° (${(m.extraLength * 1e3).toFixed(2)} mm, ${shape}; legs' coupling ${m.couplingDeg[1].toFixed(2)}°)`;
@@ -37,13 +37,18 @@ export interface TuneOutput {
   after: TargetEvaluation;
   evaluations: number;
   layoutProblems: string[];
+  /** When a block was tuned: the re-generated block records, groups and targets (whole lists, for the one undo step). */
+  blocks?: PlacedBlock[];
+  phaseGroups?: PhaseGroup[];
+  targets?: Target[];
 }
 
 export async function tuneJob(input: TuneInput, progress: (p: Progress) => void, signal?: AbortSignal): Promise<TuneOutput> {
-  const r = await tuneDesign(input.doc, {
+  const r = await tuneWithBlocks(input.doc, {
     variables: input.variables, seed: input.seed, ...(signal ? { signal } : {}),
     onProgress: (f) => progress({ done: Math.round(f * 1000), total: 1000, label: 'tuning' }),
     yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
   });
-  return { nodes: r.doc.nodes, segments: r.doc.segments, variables: r.variables, before: r.before, after: r.after, evaluations: r.evaluations, layoutProblems: r.layoutProblems };
+  const blocks = input.variables.some((v) => 'block' in v) ? { blocks: r.doc.blocks ?? [], phaseGroups: r.doc.phaseGroups, targets: r.doc.targets } : {};
+  return { nodes: r.doc.nodes, segments: r.doc.segments, variables: r.variables, before: r.before, after: r.after, evaluations: r.evaluations, layoutProblems: r.layoutProblems, ...blocks };
 }
