@@ -18,7 +18,7 @@ import { sizeDesign } from '../layout/sizing.ts';
 
 /** The design's own laminate, process, f0 and junctions, as a block context. */
 export function contextOf(doc: DesignDoc): BlockContext {
-  return { substrate: doc.substrate, process: doc.process, f0: doc.frequency.f0, junctions: doc.junctions ?? 'modelled' };
+  return { substrate: doc.substrate, process: doc.process, f0: doc.frequency.f0, junctions: doc.junctions ?? 'modelled', ...(doc.asMade ? { asMade: doc.asMade } : {}) };
 }
 
 /** Checks the spec (text with units or SI numbers) and generates the block's pieces, placed where sizing puts them. */
@@ -29,6 +29,7 @@ export function generateBlock(kind: string, raw: Record<string, unknown>, ctx: B
   // Every block is laid out once on its own, so a spec sizing cannot realise is refused here, naming the problem.
   const probe = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process });
   probe.junctions = ctx.junctions; probe.nodes = pieces.nodes; probe.segments = pieces.segments;
+  if (ctx.asMade) probe.asMade = ctx.asMade; // drawn as the host sizes it
   placeAsSized(probe, kind);
   return { spec, pieces };
 }

@@ -17,6 +17,8 @@
  * - 8: `blocks`: blocks placed from a spec keep it (kind, spec, place, members), so they can be re-generated.
  * - 9: `sweep`: a design may keep its own sweep settings (start, stop, points, spacing).
  * - 10: `measured`: Touchstone files of the whole board kept with the design, each with its port map.
+ * - 11: a design without `asMade` is sized as made when it is milled (end mill or V-bit); older files get their
+ *       plain-microstrip sizing written in, so they keep meaning what they meant.
  */
 type Json = Record<string, unknown>;
 
@@ -115,6 +117,15 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Purely additive: an older file had no measured data (the list is optional).
       return { ...doc, version: 10 };
+    },
+  },
+  {
+    from: 10,
+    summary: 'milled designs are now sized as made by default; this file keeps the sizing it had (its choice is now written in: asMade.sizing "microstrip" unless it said otherwise)',
+    up(doc) {
+      // Literal value on purpose (see the first migration). Before format 11 a missing asMade meant plain microstrip
+      // sizing; boards may have been cut from those widths, so the file says so explicitly from now on.
+      return { ...doc, version: 11, asMade: doc.asMade ?? { sizing: 'microstrip', sideCopper: 'stitched' } };
     },
   },
 ];
