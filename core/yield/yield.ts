@@ -157,12 +157,16 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
   const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, opts.points ?? 201), targets);
   const nominal = solveNetwork(nominalNet, freqs);
   const nominalEval = evaluateTargets(nominal, doc);
-  const solver = new BatchSolver(sized, freqs, opts.line);
+  // Made boards use the lines the sizing used (a design sized as made carries its cross-section tables).
+  const solver = new BatchSolver(sized, freqs, opts.line ?? sized.lineOptions);
   const P = solver.ports.length, F = freqs.length, N = opts.samples;
   const st: RunState = { solver, sized, s: new Float64Array(2 * P * P * F), freqs, ports: solver.ports };
   const { tolerances, ignored } = applicableTolerances(sized);
   const warnings: Warning[] = [...nominalNet.warnings.filter((w) => w.severity !== 'info')];
   for (const x of ignored) warnings.push(warn('note', `tolerance ${x.quantity} is not used: ${x.why}`, { severity: 'info', source: 'yield' }));
+  if (!opts.line && sized.lineOptions?.crossSection) {
+    warnings.push(warn('validity', 'the lines are sized as made from field-solution tables of the nominal laminate: on made boards their widths vary, but laminate εr and thickness tolerances do not move their static Z0 and εeff, so the spread they cause is understated', { severity: 'info', source: 'yield' }));
+  }
 
   const rankingN = Math.min(N, opts.rankingSamples ?? 100);
   const ranked = rankingN > 0 ? tolerances.filter((t) => t.spread > 0) : [];
@@ -274,7 +278,7 @@ export function madeBoardResponses(doc: DesignDoc, opts: { samples: number; seed
   checkOptions({ samples: opts.samples, seed: opts.seed });
   const sized = sizeDesign(doc, opts.line ? { line: opts.line } : {});
   const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, opts.points ?? 201), doc.targets ?? []);
-  const solver = new BatchSolver(sized, freqs, opts.line);
+  const solver = new BatchSolver(sized, freqs, opts.line ?? sized.lineOptions);
   const { tolerances } = applicableTolerances(sized);
   const draws = new ToleranceDraws(tolerances, sized.pieces.length, opts.seed);
   const board = new MadeBoard(sized, draws);
