@@ -117,7 +117,7 @@ describe('pinned figures', () => {
     for (const id of ['thru1', 'thru2']) {
       const zFile = (doc.segments.find((x) => x.id === id) as { width: { z0: number } }).width.z0;
       expect(zFile).toBeCloseTo(50 / Math.SQRT2, 2); // the file rounds Z0/√2 = 35.355 Ω to 35.36
-      expectLine(s, doc, id, zFile, 94); // the file's arms are 94° at f0 (its notes say why)
+      expectLine(s, doc, id, zFile, 90);
     }
     // The shunt arms join two tees as branches: through the tee model's transformer at both ends they act as Z/n²,
     // so the file sizes them at 50·n² (Hammerstad 1981 branch transformer, n² at f0 from the sized tee).
@@ -125,7 +125,7 @@ describe('pinned figures', () => {
     for (const id of ['shunt1', 'shunt2']) {
       const zFile = (doc.segments.find((x) => x.id === id) as { width: { z0: number } }).width.z0;
       expect(Math.abs(zFile - 50 * n2)).toBeLessThan(0.1);
-      expectLine(s, doc, id, zFile, 94);
+      expectLine(s, doc, id, zFile, 90);
     }
   });
   it('three-section binomial transformer 50 → 12.5 Ω: ln(Zn+1/Zn) = 2^−N C(N,n) ln(ZL/Z0) (Pozar, Microwave Engineering 4th ed., §5.6, from memory), each λ/4', () => {
