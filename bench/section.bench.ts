@@ -1,12 +1,12 @@
 /**
  * Cross-section solver benchmark (`npm run bench -- section`). Targets (issue 16): one cross-section to 0.2 %
- * estimated error in ≤ 30 ms on one core; a sizing table (about 30 solves) in ≤ 1 s.
+ * estimated error in ≤ 30 ms on one core; a sizing table (TABLE_POINTS solves, interpolated) in ≤ 1 s.
  * Times are CPU time of this process (process.cpuUsage, user + system), so other jobs sharing the cores do not
  * inflate them; the solver is single-threaded. Each figure is the fastest of several runs after a warm-up.
  * Prints, per case and grid fineness: unknowns of the finer grid, PCG iterations, the estimated error of Z0, the
  * CPU time, and whether the case meets "0.2 % in 30 ms".
  */
-import { buildSectionTable, solveSection, type SectionSpec } from '../core/section/index.ts';
+import { buildSectionTable, solveSection, TABLE_POINTS, type SectionSpec } from '../core/section/index.ts';
 
 const cpuMs = (f: () => void): number => { const c = process.cpuUsage(); f(); const d = process.cpuUsage(c); return (d.user + d.system) / 1000; };
 
@@ -16,6 +16,7 @@ const CASES: [string, SectionSpec][] = [
   ['milled: 30° V-bit, floating side copper', { er: 4.4, h: 1.6e-3, width: 2.6e-3, t: 35e-6, etchAngleDeg: 75, side: { gap: 0.11e-3, width: Infinity, connection: 'floating' }, trench: { depth: 15e-6, angleDeg: 30 } }],
   ['coupled pair, cover 25 µm', { er: 3.66, h: 0.508e-3, width: 1.1e-3, t: 35e-6, spacing: 0.3e-3, cover: { er: 3.5, thickness: 25e-6 } }],
   ['thin-sheet microstrip W/h = 1 (t = 0)', { er: 4.4, h: 1e-3, width: 1e-3, t: 0 }],
+  ['new design: default V-bit on FR-4, stitched', { er: 4.4, h: 1.6e-3, width: 0.66e-3, t: 35e-6, etchAngleDeg: 75, side: { gap: 0.108e-3, width: Infinity, connection: 'stitched' }, trench: { depth: 15e-6, angleDeg: 30 } }],
 ];
 
 export async function run(): Promise<void> {
@@ -32,8 +33,8 @@ export async function run(): Promise<void> {
         `${(err * 100).toFixed(3)} %`.padStart(12), best.toFixed(1).padStart(8), ok ? ' yes' : ' no');
     }
   }
-  console.log('\nsizing tables (30 widths, W/h 0.05–20, with the Wheeler loss solve):');
-  for (const [name, spec] of CASES.slice(0, 3)) {
+  console.log(`\nsizing tables (${TABLE_POINTS} widths, W/h 0.05–20, with the Wheeler loss solve):`);
+  for (const [name, spec] of [...CASES.slice(0, 3), CASES[5]!]) {
     const { width: _w, ...template } = spec;
     let table = buildSectionTable(template);
     const ms = cpuMs(() => { table = buildSectionTable(template); });

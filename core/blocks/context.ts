@@ -4,7 +4,7 @@
  * helper they share. Positions drawn here only need the right directions and rough lengths: the design is redrawn
  * where sizing places it (drawAsPlaced), so the sketch and the board agree.
  */
-import type { DesignNode, DesignSegment, FabProcess, JunctionChoice, PhaseGroup, SubstrateSpec, Target } from '../design/types.ts';
+import type { AsMade, DesignNode, DesignSegment, FabProcess, JunctionChoice, PhaseGroup, SubstrateSpec, Target } from '../design/types.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import { synthesizeLine } from '../line/index.ts';
 import { cutWidth } from '../layout/checks.ts';
@@ -17,6 +17,8 @@ export interface BlockContext {
   /** Design frequency, Hz. */
   f0: number;
   junctions: JunctionChoice;
+  /** How the host design sizes its lines (absent: the default for the process, core/design/as-made-default.ts). */
+  asMade?: AsMade;
 }
 
 export interface BlockPieces {

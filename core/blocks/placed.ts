@@ -7,6 +7,7 @@
  */
 import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target } from '../design/types.ts';
 import { newDesign } from '../design/defaults.ts';
+import { asMadeOf } from '../design/as-made-default.ts';
 import { withBlock } from '../design/commands-blocks.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import { InputError } from '../util/errors.ts';
@@ -19,7 +20,7 @@ import { sizeDesign } from '../layout/sizing.ts';
 
 /** The design's own laminate, process, f0 and junctions, as a block context. */
 export function contextOf(doc: DesignDoc): BlockContext {
-  return { substrate: doc.substrate, process: doc.process, f0: doc.frequency.f0, junctions: doc.junctions ?? 'modelled' };
+  return { substrate: doc.substrate, process: doc.process, f0: doc.frequency.f0, junctions: doc.junctions ?? 'modelled', asMade: asMadeOf(doc) };
 }
 
 /** Checks the spec (text with units or SI numbers) and generates the block's pieces, placed where sizing puts them. */
@@ -28,7 +29,7 @@ export function generateBlock(kind: string, raw: Record<string, unknown>, ctx: B
   const spec = readSpec(kind, def.params, raw);
   const pieces = def.generate(spec, ctx);
   // Every block is laid out once on its own, so a spec sizing cannot realise is refused here, naming the problem.
-  const probe = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process });
+  const probe = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
   probe.junctions = ctx.junctions; probe.nodes = pieces.nodes; probe.segments = pieces.segments;
   placeAsSized(probe, kind);
   // An optional footprint: the block is turned or folded to fit it, or refused naming the footprint it needs.
@@ -48,8 +49,8 @@ function extent(nodes: { at: Vec2 }[]): { x0: number; y0: number; x1: number; y1
  * A complete design of one block: laminate, band, ports, board edge (a 5 mm margin, common practice for hand-cut
  * boards), phase groups and targets. `build`, `sweep` and `export` take it as is.
  */
-export function makeBlockDesign(kind: string, raw: Record<string, unknown>, base: { f0: number; substrate?: DesignDoc['substrate']; process?: DesignDoc['process']; name?: string; junctions?: DesignDoc['junctions'] }): DesignDoc {
-  const doc = newDesign({ f0: base.f0, ...(base.substrate ? { substrate: base.substrate } : {}), ...(base.process ? { process: base.process } : {}) });
+export function makeBlockDesign(kind: string, raw: Record<string, unknown>, base: { f0: number; substrate?: DesignDoc['substrate']; process?: DesignDoc['process']; name?: string; junctions?: DesignDoc['junctions']; asMade?: DesignDoc['asMade'] }): DesignDoc {
+  const doc = newDesign({ f0: base.f0, ...(base.substrate ? { substrate: base.substrate } : {}), ...(base.process ? { process: base.process } : {}), ...(base.asMade ? { asMade: base.asMade } : {}) });
   doc.junctions = base.junctions ?? 'modelled';
   return placeBlock(doc, kind, raw, { x: 0, y: 0 }, { asWhole: true, ...(base.name ? { name: base.name } : {}) });
 }

@@ -3,7 +3,7 @@
  * used across the trade for first designs (εr 4.4, tanδ 0.02, 1.6 mm, 35 µm = 1 oz copper; common practice); annealed copper σ = 5.8e7 S/m; 1.5 µm rms roughness and the preset id follow the glass-epoxy entry of core/substrate/presets.ts. f0 = 2.45 GHz is the middle of the 2.4 GHz ISM
  * band (ITU Radio Regulations 5.150: 2400–2500 MHz), which is also the default band.
  */
-import type { DesignDoc, FabProcess, SubstrateSpec } from './types.ts';
+import type { AsMade, DesignDoc, FabProcess, SubstrateSpec } from './types.ts';
 import { DESIGN_FORMAT } from './types.ts';
 import { DESIGN_VERSION } from './migrations.ts';
 
@@ -23,6 +23,8 @@ export interface NewDesignOptions {
   f0?: number;
   band?: { start: number; stop: number };
   process?: FabProcess;
+  /** How lines are sized; absent: the default for the way it is made (a milled design is sized as made). */
+  asMade?: AsMade;
 }
 
 /**
@@ -50,6 +52,7 @@ export function newDesign(opts: NewDesignOptions = {}): DesignDoc {
     tolerances: [],
   };
   if (opts.notes !== undefined) doc.notes = opts.notes;
+  if (opts.asMade) doc.asMade = structuredCopy(opts.asMade);
   return doc;
 }
 

@@ -7,6 +7,7 @@ export { DESIGN_LIMITS, PROCESS_LIMITS } from './limits.ts';
 export { MAX_MEASURED, measuredListSchema } from './measured.ts';
 export type { DesignIssue } from './issues.ts';
 export { DESIGN_VERSION, MIGRATIONS, migrate, type Migration } from './migrations.ts';
+export { asMadeOf, isMilled } from './as-made-default.ts';
 export { newDesign, FR4_DEFAULT, PROCESS_DEFAULT, FREQUENCY_DEFAULT, type NewDesignOptions } from './defaults.ts';
 export { validateDesign, type ValidateResult, type ValidateOptions } from './validate.ts';
 export { parseDesign, type ParseResult } from './parse.ts';

@@ -18,6 +18,8 @@
  * - 9: `sweep`: a design may keep its own sweep settings (start, stop, points, spacing).
  * - 10: `measured`: Touchstone files of the whole board kept with the design, each with its port map.
  * - 11: `proximityLimit`: the shop check's limit for runs side by side (a multiple of h or a length); absent = 3 h.
+ * - 12: a design without `asMade` is sized as made when it is milled (end mill or V-bit); older files get their
+ *       plain-microstrip sizing written in, so they keep meaning what they meant.
  */
 type Json = Record<string, unknown>;
 
@@ -124,6 +126,15 @@ export const MIGRATIONS: readonly Migration[] = [
     up(doc) {
       // Purely additive: without `proximityLimit` the check uses 3 h, as it did (core/design/proximity-limit.ts).
       return { ...doc, version: 11 };
+    },
+  },
+  {
+    from: 11,
+    summary: 'milled designs are now sized as made by default; this file keeps the sizing it had (its choice is now written in: asMade.sizing "microstrip" unless it said otherwise)',
+    up(doc) {
+      // Literal value on purpose (see the first migration). Before format 12 a missing asMade meant plain microstrip
+      // sizing; boards may have been cut from those widths, so the file says so explicitly from now on.
+      return { ...doc, version: 12, asMade: doc.asMade ?? { sizing: 'microstrip', sideCopper: 'stitched' } };
     },
   },
 ];

@@ -9,15 +9,17 @@
  * - Etching: side copper only where ground-copper areas are given a clearance; then every line is sized with side
  *   copper at the smallest such clearance (the design is sized as one cross-section: lines far from the ground
  *   copper are sized a little low in Z0 — the piece sheet shows the shift from plain microstrip for each).
- * Applies only with asMade.sizing = 'as-made'; absent or 'microstrip' keeps plain microstrip.
+ * Applies with asMade.sizing = 'as-made', which is the default of a milled design without its own setting
+ * (core/design/as-made-default.ts); 'microstrip' keeps plain microstrip.
  */
 import type { DesignDoc } from '../design/types.ts';
+import { asMadeOf } from '../design/as-made-default.ts';
 import type { LineOptions } from '../line/index.ts';
 import { sectionTable, type SectionTemplate } from '../section/index.ts';
 
 export function asMadeTemplate(doc: DesignDoc): SectionTemplate | null {
-  const m = doc.asMade;
-  if (!m || m.sizing !== 'as-made') return null;
+  const m = asMadeOf(doc);
+  if (m.sizing !== 'as-made') return null;
   const sub = doc.substrate;
   const p = doc.process;
   const base: SectionTemplate = { er: sub.er, h: sub.h, t: sub.t };
@@ -46,7 +48,7 @@ export function asMadeTemplate(doc: DesignDoc): SectionTemplate | null {
   }
 }
 
-/** Line options that size from the design's as-made cross-section (the table is built on first use, ~30 solves). */
+/** Line options that size from the design's as-made cross-section (the table is built on first use, TABLE_POINTS solves). */
 export function asMadeLineOptions(doc: DesignDoc, line?: LineOptions): LineOptions | undefined {
   if (line?.crossSection) return line;
   const t = asMadeTemplate(doc);

@@ -48,6 +48,7 @@ import { sparamsAdmittance } from './sparamsPart.ts';
 import { namer } from '../design/names.ts';
 
 export interface FromSizedOptions {
+  /** Line options; default: those the sizing used (`sized.lineOptions`, the as-made cross-section tables). */
   line?: LineOptions;
   /**
    * The line model of a piece's copper of `width` (its own line, taper sections, pads and its arm of a tee); default:
@@ -72,7 +73,9 @@ export interface SizedNetlist extends Netlist {
   warnings: Warning[];
 }
 
-export function netlistFromSized(sized: SizedDesign, opts: FromSizedOptions = {}): SizedNetlist {
+export function netlistFromSized(sized: SizedDesign, given: FromSizedOptions = {}): SizedNetlist {
+  // The sweep uses the lines the sizing used (a design sized as made carries its cross-section tables).
+  const opts: FromSizedOptions = given.line || !sized.lineOptions ? given : { ...given, line: sized.lineOptions };
   if (sized.problems.length) {
     const p = sized.problems[0];
     throw new InputError('impossible-layout', p.subjects[0] ?? 'design', 'a design whose every piece can be sized', p.message,

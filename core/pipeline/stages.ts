@@ -14,6 +14,7 @@
  */
 import { crossCheck } from '../design/crossref.ts';
 import type { DesignDoc, JunctionChoice } from '../design/types.ts';
+import { asMadeOf } from '../design/as-made-default.ts';
 import type { BoardGeometry } from '../geometry/types.ts';
 import { asMadeLineOptions } from '../layout/as-made.ts';
 import { checkFabrication, problemFindings, type Finding } from '../layout/checks.ts';
@@ -188,8 +189,9 @@ export class DesignPipeline {
   /** One line cache per substrate and line-model choice, kept across revisions: re-sizing after an edit reuses it. */
   private lineCache(doc: DesignDoc): LineCache {
     const proc = doc.process;
-    const asMade = doc.asMade?.sizing === 'as-made';
-    const key = JSON.stringify([doc.substrate, doc.asMade ?? null, asMade ? proc : null, asMade ? doc.areas : null]);
+    const made = asMadeOf(doc);
+    const asMade = made.sizing === 'as-made';
+    const key = JSON.stringify([doc.substrate, made, asMade ? proc : null, asMade ? doc.areas : null]);
     if (!this.lines || this.lines.key !== key) this.lines = { key, cache: new LineCache(doc.substrate, asMadeLineOptions(doc)) };
     return this.lines.cache;
   }

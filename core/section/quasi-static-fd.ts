@@ -27,7 +27,7 @@ import { checkSection } from './check-spec.ts';
 import { buildShapes, FLOATING, STRIP_1, STRIP_2, type Shapes } from './shapes.ts';
 import { materialOf, type Material } from './materials.ts';
 import { bisect, gradedAxis, mapAxis, type Key } from './grid.ts';
-import { assemble, charges, factor, prolong, solve } from './laplace.ts';
+import { assemble, energy, factor, prolong, solve } from './laplace.ts';
 import type { SectionMode, SectionModeName, SectionResult, SectionSpec, SolveOptions } from './types.ts';
 
 /**
@@ -99,11 +99,10 @@ function maxwell(x: Float64Array, y: Float64Array, shapes: Shapes, material: Mat
     const { v, iterations: it } = solve(f, volts, guesses[a]);
     iterations += it;
     sols.push(v);
-    const q = charges(g, v, 4);
-    ids.forEach((jd, b) => { K[b]![a] = q[jd]! * EPS0; });
   });
-  for (let a = 0; a < ids.length; a++) for (let b = a + 1; b < ids.length; b++) {
-    const m = (K[a]![b]! + K[b]![a]!) / 2; K[a]![b] = m; K[b]![a] = m;
+  // The energy form, not the charge sum: second-order in the iteration error (laplace.ts energy), symmetric as is.
+  for (let a = 0; a < ids.length; a++) for (let b = a; b < ids.length; b++) {
+    const k = energy(g, sols[a]!, sols[b]!) * EPS0; K[a]![b] = k; K[b]![a] = k;
   }
   return { K, sols, iterations };
 }

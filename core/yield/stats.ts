@@ -22,7 +22,9 @@ export function wilson(k: number, n: number, z = Z95): Proportion {
   const den = 1 + z2 / n;
   const mid = (p + z2 / (2 * n)) / den;
   const half = (z * Math.sqrt((p * (1 - p)) / n + z2 / (4 * n * n))) / den;
-  return { p, lo: Math.max(0, mid - half), hi: Math.min(1, mid + half) };
+  // At k = 0 or k = n the interval ends exactly at the observed proportion (mid − half = 0, mid + half = 1 in exact
+  // arithmetic; rounding must not put p outside its own interval).
+  return { p, lo: k <= 0 ? 0 : Math.max(0, mid - half), hi: k >= n ? 1 : Math.min(1, mid + half) };
 }
 
 export interface Histogram {

@@ -178,9 +178,10 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
   const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, opts.points ?? 201), targets);
   const nominal = solveNetwork(nominalNet, freqs);
   const nominalEval = evaluateTargets(nominal, doc);
+  // Made boards use the lines the sizing used (a design sized as made carries its cross-section tables).
   const portIds = nominalNet.ports.map((p) => p.name);
   const pairs = envelopePairs(targets, doc, portIds, nominalNet.input);
-  const solver = new BatchSolver(sized, freqs, opts.line, columnsRead(targets, doc, portIds, pairs));
+  const solver = new BatchSolver(sized, freqs, opts.line ?? sized.lineOptions, columnsRead(targets, doc, portIds, pairs));
   const P = solver.ports.length, F = freqs.length, N = opts.samples;
   const s = new Float64Array(2 * P * P * F);
   const response: NetworkResponse = { freqs, ports: solver.ports, s, warnings: [] };
@@ -188,6 +189,9 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
   const { tolerances, ignored } = applicableTolerances(sized);
   const warnings: Warning[] = [...nominalNet.warnings.filter((w) => w.severity !== 'info')];
   for (const x of ignored) warnings.push(warn('note', `tolerance ${x.quantity} is not used: ${x.why}`, { severity: 'info', source: 'yield' }));
+  if (!opts.line && sized.lineOptions?.crossSection) {
+    warnings.push(warn('validity', 'the lines are sized as made from field-solution tables of the nominal laminate: on made boards their widths vary, but laminate εr and thickness tolerances do not move their static Z0 and εeff, so the spread they cause is understated', { severity: 'info', source: 'yield' }));
+  }
 
   const rankingN = Math.min(N, opts.rankingSamples ?? 100);
   const ranked = rankingN > 0 ? tolerances.filter((t) => t.spread > 0) : [];
@@ -298,7 +302,7 @@ export function madeBoardResponses(doc: DesignDoc, opts: { samples: number; seed
   checkOptions({ samples: opts.samples, seed: opts.seed });
   const sized = sizeDesign(doc, opts.line ? { line: opts.line } : {});
   const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, opts.points ?? 201), doc.targets ?? []);
-  const solver = new BatchSolver(sized, freqs, opts.line);
+  const solver = new BatchSolver(sized, freqs, opts.line ?? sized.lineOptions);
   const { tolerances } = applicableTolerances(sized);
   const draws = new ToleranceDraws(tolerances, sized.pieces.length, opts.seed);
   const board = new MadeBoard(sized, draws);

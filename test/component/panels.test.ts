@@ -181,6 +181,7 @@ describe('the piece sheet against an outside oracle', () => {
     const ed = new EditorState();
     ed.edit('design.setSubstrate', { substrate: { er: 2.2, h: 0.79e-3, t: 17.5e-6, tanDelta: 0.0009, sigma: 1 / 1.72e-8, roughness: 0 } });
     ed.edit('design.setFrequency', { f0: 100e6, band: { start: 90e6, stop: 110e6 } });
+    ed.setAsMade({ sizing: 'microstrip', sideCopper: 'stitched' }); // the reference is plain microstrip (a new milled design is sized as made)
     ed.edit('node.add', { at: { x: 0, y: 0 }, spec: { kind: 'port' } });
     const port = ed.doc.nodes[0]!.id;
     ed.edit('run.route', { from: port, points: [{ x: 0.02, y: 0 }] });

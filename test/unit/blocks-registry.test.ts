@@ -17,7 +17,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   BLOCKS, makeBlockDesign, readSpec, transformerSections, singleStubSolutions, doubleStubSolutions, throughLine, placeBlock, handEdits,
-  respecPlacement, sizeDesign, tracePaths, netlistFromSized, solveNetwork, validateDesign, newDesign, InputError, type DesignDoc, type NetworkResponse, type SubstrateSpec,
+  respecPlacement, sizeDesign, tracePaths, netlistFromSized, solveNetwork, validateDesign, newDesign, InputError, asMadeOf, type DesignDoc, type NetworkResponse, type SubstrateSpec,
 } from '../../core/index.ts';
 
 const FR4: SubstrateSpec = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6 };
@@ -34,7 +34,10 @@ function s(r: NetworkResponse, k: number, to: string, from: string): { db: numbe
   return { db: 20 * Math.log10(Math.hypot(r.s[t]!, r.s[t + 1]!)), deg: (Math.atan2(r.s[t + 1]!, r.s[t]!) * 180) / Math.PI };
 }
 const wrap = (d: number) => ((((d + 180) % 360) + 360) % 360) - 180;
-const make = (kind: string, raw: Record<string, unknown> = {}) => makeBlockDesign(kind, raw, { f0: F0, substrate: FR4 });
+// Plain microstrip: these checks are of the blocks' microstrip design equations (a milled design is otherwise sized as
+// made, and one V-bit pass on 1.6 mm FR-4 cannot make lines above about 88 Ω).
+const MICROSTRIP = { sizing: 'microstrip', sideCopper: 'stitched' } as const;
+const make = (kind: string, raw: Record<string, unknown> = {}) => makeBlockDesign(kind, raw, { f0: F0, substrate: FR4, asMade: MICROSTRIP });
 
 describe('the registry', () => {
   it('every block declares each parameter with a meaning and a valid default, and makes a complete, valid design', () => {
@@ -280,9 +283,25 @@ describe('with losses, at f0: each transmission within 0.1 dB of the ideal less 
   }
 });
 
+describe('blocks with a milling process are sized as made by default', () => {
+  it('an equal Wilkinson on the default V-bit: the made design says nothing, is sized as made, every line shows its shift', () => {
+    const d = makeBlockDesign('wilkinson', { ratioDb: '0' }, { f0: F0, substrate: FR4 });
+    expect(d.asMade).toBeUndefined();
+    expect(asMadeOf(d).sizing).toBe('as-made');
+    const s = sizeDesign(d);
+    expect(s.problems).toEqual([]);
+    const lines = s.pieces.filter((p) => p.kind === 'line');
+    expect(lines.length).toBeGreaterThan(0);
+    for (const p of lines) expect(p.asMade?.label).toMatch(/side copper/);
+  }, 120_000);
+  it('a split whose arms cannot be had beside a V-bit cut is refused, naming the range the cross-section reaches', () => {
+    expect(() => makeBlockDesign('wilkinson', { ratioDb: '3' }, { f0: F0, substrate: FR4 })).toThrow(/range of the cross-section tables/);
+  }, 120_000);
+});
+
 describe('a placed block is design data', () => {
   it('placed into a design it keeps its spec; a hand edit is listed before re-making; the spec re-makes it in place', () => {
-    const base = newDesign({ f0: F0, substrate: FR4 });
+    const base = newDesign({ f0: F0, substrate: FR4, asMade: MICROSTRIP });
     const doc = placeBlock(base, 'wilkinson', { ratioDb: '0' }, { x: 0.02, y: 0.01 });
     expect(doc.blocks).toHaveLength(1);
     expect(handEdits(doc, 'b1')).toEqual([]);

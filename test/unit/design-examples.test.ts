@@ -149,6 +149,8 @@ describe('branch-line hybrid (project scenario S3; Pozar §7.5)', () => {
     // both ends (n² ≈ 0.962 at f0, Hammerstad 1981) they act as 50 Ω — the notes say so.
     for (const id of ['shunt1', 'shunt2']) { expect(z0Of(seg(d, id))).toBe(48.1); expect(degOf(seg(d, id))).toBe(90); }
     expect(d.notes).toMatch(/48\.1 Ω \(50·n²\)/);
+    expect(d.notes).toMatch(/best isolation falls about 3 % above f0/);
+    expect(d.asMade?.sizing).toBe('as-made');
     expect(d.frequency.f0).toBe(10.368e9);
     expect(d.substrate).toMatchObject({ er: 3.66, h: 0.508e-3, tanDelta: 0.0037 });
     expect(d.process.kind).toBe('end-mill');

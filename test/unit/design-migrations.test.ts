@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { DESIGN_VERSION, MIGRATIONS, migrate, parseDesign, serializeDesign, validateDesign } from '../../core/index.ts';
+import { DESIGN_VERSION, MIGRATIONS, asMadeOf, migrate, newDesign, parseDesign, serializeDesign, validateDesign } from '../../core/index.ts';
 
 const FIX = join(import.meta.dirname, '..', 'fixtures', 'design');
 const fixtures = readdirSync(FIX).filter((d) => /^v\d+$/.test(d))
@@ -227,7 +227,7 @@ describe('v10 → v11 (a design\'s own proximity limit)', () => {
     const text = readFileSync(join(FIX, 'v10', 'branchline-10g4.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([10]);
+    expect(r.migrations).toEqual([10, 11]); // then v11 → v12, which keeps its asMade
     expect(r.doc.proximityLimit).toBeUndefined();
     expect({ ...r.doc, version: 10 }).toEqual(JSON.parse(text));
     expect(proximityLimitFor(r.doc)).toBeCloseTo(3 * r.doc.substrate.h, 15);
@@ -243,5 +243,39 @@ describe('v10 → v11 (a design\'s own proximity limit)', () => {
     const bad = parseDesign(serializeDesign({ ...r.doc, proximityLimit: { by: 'heights', heights: -1 } }));
     expect(bad.ok).toBe(false);
     if (!bad.ok) expect(bad.errors[0]!.path).toMatch(/proximityLimit/);
+  });
+});
+
+describe('v11 → v12 (milled designs sized as made by default)', () => {
+  const text = readFileSync(join(FIX, 'v10', 'milled-without-as-made.json'), 'utf8');
+  it('writes the old meaning into a file that left asMade out: plain microstrip, stitched (nothing changes silently)', () => {
+    const r = parseDesign(text);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toEqual([10, 11]);
+    expect(r.doc.process.kind).toBe('v-bit');
+    expect(r.doc.asMade).toEqual({ sizing: 'microstrip', sideCopper: 'stitched' });
+    expect(asMadeOf(r.doc).sizing).toBe('microstrip');
+    const { asMade: _a, ...rest } = r.doc;
+    expect({ ...rest, version: 10 }).toEqual(JSON.parse(text));
+    expect(r.warnings.map((w) => w.message).join(' ')).toMatch(/sized as made by default/);
+  });
+  it('a format-11 file (proximity limit known, before the as-made default) without asMade gets the same: one step, microstrip written in', () => {
+    const r = parseDesign(readFileSync(join(FIX, 'v11', 'milled-without-as-made.json'), 'utf8'));
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toEqual([11]);
+    expect(r.doc.asMade).toEqual({ sizing: 'microstrip', sideCopper: 'stitched' });
+  });
+  it('keeps a choice the file made', () => {
+    const doc = JSON.parse(text);
+    const r = parseDesign(JSON.stringify({ ...doc, asMade: { sizing: 'as-made', sideCopper: 'floating' } }));
+    expect(r.ok && r.doc.asMade).toEqual({ sizing: 'as-made', sideCopper: 'floating' });
+  });
+  it('a current file without asMade is sized as made when milled (end mill, V-bit) and as microstrip when etched', () => {
+    const base = { ...JSON.parse(text), version: DESIGN_VERSION };
+    const sizing = (process: unknown) => { const r = parseDesign(JSON.stringify({ ...base, process })); if (!r.ok) throw new Error('refused'); return asMadeOf(r.doc).sizing; };
+    expect(sizing({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 })).toBe('as-made');
+    expect(sizing({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3 })).toBe('as-made');
+    expect(sizing({ kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 })).toBe('microstrip');
+    expect(asMadeOf(newDesign()).sizing).toBe('as-made'); // the default process is a V-bit
   });
 });

@@ -25,6 +25,8 @@ const load = (f: string): DesignDoc => {
   return r.doc;
 };
 const piece = (s: SizedDesign, id: string) => s.pieces.find((p) => p.id === id)!;
+/** The example sized as plain microstrip: the pinned figures check the microstrip sizing against the oracle. */
+const plain = (d: DesignDoc): DesignDoc => ({ ...d, asMade: { sizing: 'microstrip', sideCopper: 'stitched' } });
 
 beforeAll(async () => { await initPolygons(); });
 
@@ -62,6 +64,29 @@ function expectLine(s: SizedDesign, doc: DesignDoc, id: string, z0: number, deg?
   return p;
 }
 
+describe('milled examples are sized as made (design asMade "as-made")', () => {
+  for (const f of ['branchline-10g4.json', 'open-stub-match.json', 'shorted-stub-match.json', 'three-section-transformer.json']) {
+    it(`${f}: every line carries its shift from plain microstrip; its Z0 is the solver's, not microstrip's`, () => {
+      const doc = load(f);
+      expect(doc.asMade?.sizing).toBe('as-made');
+      expect(['end-mill', 'v-bit']).toContain(doc.process.kind);
+      const s = sizeDesign(doc), m = sizeDesign(plain(doc));
+      const lines = s.pieces.filter((p) => p.kind === 'line' && doc.segments.find((x) => x.id === p.id && x.kind === 'line' && x.width.by === 'z0'));
+      expect(lines.length).toBeGreaterThan(0);
+      for (const p of lines) {
+        const shift = p.asMade!;
+        expect(shift.label).toMatch(/side copper/);
+        // The as-made width gives the asked Z0 on the cross-section (its table), and plain microstrip of that width
+        // is higher: side copper adds capacitance (a grounded coplanar line is lower in Z0 than microstrip; common practice).
+        expect(shift.z0).toBeCloseTo(p.z0, 6);
+        expect(shift.z0Plain).toBeGreaterThan(shift.z0);
+        // Sized as made, the copper is narrower than the plain microstrip width of the same Z0.
+        expect(p.width).toBeLessThan(piece(m, p.id).width);
+      }
+    });
+  }
+});
+
 describe('pinned figures', () => {
   it('demo (4-way 5.8 GHz feed on 1.6 mm glass-epoxy): 100/70.71/50 Ω widths, λ/4 transformer, miter legs 2·M·W (Douville–James)', () => {
     const doc = load('demo.json');
@@ -87,7 +112,7 @@ describe('pinned figures', () => {
     expect(Math.round(m100.bend!.miter!.fraction * 100)).toBe(89);
   });
   it('branch-line hybrid (10.368 GHz): Z0/√2 series and Z0 shunt arms, λ/4 each (Pozar, Microwave Engineering 4th ed., §7.5, from memory)', () => {
-    const doc = load('branchline-10g4.json');
+    const doc = plain(load('branchline-10g4.json'));
     const s = sizeDesign(doc);
     for (const id of ['thru1', 'thru2']) {
       const zFile = (doc.segments.find((x) => x.id === id) as { width: { z0: number } }).width.z0;
@@ -104,7 +129,7 @@ describe('pinned figures', () => {
     }
   });
   it('three-section binomial transformer 50 → 12.5 Ω: ln(Zn+1/Zn) = 2^−N C(N,n) ln(ZL/Z0) (Pozar, Microwave Engineering 4th ed., §5.6, from memory), each λ/4', () => {
-    const doc = load('three-section-transformer.json');
+    const doc = plain(load('three-section-transformer.json'));
     const s = sizeDesign(doc);
     let z = 50;
     [1, 3, 3].forEach((c, i) => {
@@ -115,7 +140,7 @@ describe('pinned figures', () => {
     });
   });
   it('open-stub match (100 Ω load): stub and line lengths from Pozar, Microwave Engineering 4th ed., §5.2, stub drawn Δl (KJK 1981) short', () => {
-    const doc = load('open-stub-match.json');
+    const doc = plain(load('open-stub-match.json'));
     const s = sizeDesign(doc);
     // Single shunt stub, RL = 100, XL = 0, Z0 = 50 (Pozar, Microwave Engineering 4th ed., §5.2): second solution t = −√(RL((Z0−RL)²)/Z0)/(RL−Z0).
     const RL = 100, Z0 = 50;

@@ -10,6 +10,8 @@ export function design(parts: { nodes: DesignNode[]; segments: DesignSegment[]; 
   d.substrate = parts.substrate ?? RO_LIKE;
   d.nodes = parts.nodes;
   d.segments = parts.segments;
+  // These fixtures test the sizing steps on plain microstrip (a milled design is otherwise sized as made).
+  d.asMade = { sizing: 'microstrip', sideCopper: 'stitched' };
   return d;
 }
 

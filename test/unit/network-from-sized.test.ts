@@ -14,7 +14,8 @@ import { netlistFromSized, solveNetwork, lineS, sAt, sweepFrequencies, writeTouc
 import { InputError } from '../../core/util/errors.ts';
 
 function twoPortLine(extra: Partial<DesignDoc> = {}): DesignDoc {
-  const doc = newDesign({ name: 'one line', f0: 2.45e9 });
+  // Plain microstrip (the closed-form line two-port below is microstrip's; a milled design is otherwise sized as made).
+  const doc = newDesign({ name: 'one line', f0: 2.45e9, asMade: { sizing: 'microstrip', sideCopper: 'stitched' } });
   doc.nodes = [
     { id: 'p1', kind: 'port', zRef: 50, heading: 0, at: { x: 0, y: 0 } },
     { id: 'p2', kind: 'port', zRef: 50, heading: Math.PI, at: { x: 0.03, y: 0 } },

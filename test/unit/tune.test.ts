@@ -57,7 +57,9 @@ describe('tuning a detuned single-stub match back (Pozar §5.2)', () => {
 });
 
 describe('tuning a detuned branch-line coupler back (Pozar §7.5)', () => {
-  const ideal = load('branchline-10g4.json');
+  // Sized as plain microstrip, as when this check was written (the example is sized as made, where the same detuning
+  // moves the split less than the 0.25 dB this check starts from).
+  const ideal: DesignDoc = { ...load('branchline-10g4.json'), asMade: { sizing: 'microstrip', sideCopper: 'stitched' } };
   const f0 = ideal.frequency.f0;
   it('comes back within 0.2 dB of the untuned ideal at f0 on both outputs', async () => {
     const detuned = setSeg(ideal, (s) => {

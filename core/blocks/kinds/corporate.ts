@@ -153,7 +153,7 @@ export const corporateBlock: BlockDef = {
     grow(tree, 'j', 0, 0);
     outputs.sort((a, b) => Number(a.slice(3)) - Number(b.slice(3)));
     const f0 = ctx.f0;
-    const doc: DesignDoc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process });
+    const doc: DesignDoc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     if (parts.length) fitSpans(doc, 'corporate', parts); else placeAsSized(doc, 'corporate');
     if (ctx.junctions === 'modelled') teeLevels(doc, feedsTee);

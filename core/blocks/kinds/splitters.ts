@@ -72,7 +72,7 @@ export const wilkinsonBlock: BlockDef = {
     };
     arm(1, v.z2, '1'); arm(-1, v.z3, '2');
     const f0 = ctx.f0;
-    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process });
+    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     const resistor: DesignSegment = { id: 'r1', kind: 'lumped', part: 'resistor', value: Math.round(v.r * 100) / 100, size: fp.size, width: { by: 'width', width: Math.min(w2, w3) }, a: 'j1', b: 'j2', label: 'isolation resistor' };
     fitSpans(doc, 'wilkinson', [{ part: resistor, arms: [['arm11', 'arm12'], ['arm21', 'arm22']], span }]);
@@ -127,7 +127,7 @@ export const branchlineBlock: BlockDef = {
     });
     const f0 = ctx.f0;
     const thr = 20 * Math.log10(v.through), cpl = 20 * Math.log10(v.coupled);
-    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process });
+    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     // The shunt arms are the tees' branches: each joins through the tee model's transformer (Hammerstad 1981), which
     // makes a line of Z look like Z/n²; the arms are therefore made n²·Z (two passes settle n², which depends on them).
@@ -194,7 +194,7 @@ export const ratraceBlock: BlockDef = {
     // The top side carries two tees whose reference planes lengthen its copper; the drawn bottom side must span the
     // same width, so it is electrically longer than 180° by that much. The two vertical pieces next to it give the
     // excess back (half each), so the path from j4 to j1 stays 270° and the ring stays symmetric (and closed).
-    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process });
+    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     let excess = 0;
     for (let pass = 0; pass < 2; pass++) {

@@ -8,6 +8,7 @@
  * engine must have been initialised (`await initPolygons()`) for the board and the shop check.
  */
 import type { DesignDoc } from '../../design/types.ts';
+import { asMadeOf } from '../../design/as-made-default.ts';
 import { formatQuantity } from '../../units/index.ts';
 import { sizeDesign, designPaths, checkBoard, type SizedDesign, type PathReport } from '../../layout/index.ts';
 import type { Finding } from '../../layout/checks.ts';
@@ -140,7 +141,7 @@ function laminateRows(doc: DesignDoc): string[][] {
   if (p.kind === 'end-mill') rows.push(['tool diameter', mm(p.toolDiameter)], ['depth', mm(p.depth)]);
   else if (p.kind === 'v-bit') rows.push(['tip width', mm(p.tipWidth)], ['angle', `${p.angleDeg}°`], ['depth', mm(p.depth)]);
   else rows.push(['edge bias', mm(p.edgeBias)], ['smallest feature', mm(p.minFeature)]);
-  rows.push(['junctions', doc.junctions ?? 'modelled'], ['sizing', doc.asMade?.sizing ?? 'microstrip']);
+  rows.push(['junctions', doc.junctions ?? 'modelled'], ['sizing', asMadeOf(doc).sizing]);
   return rows;
 }
 

@@ -36,7 +36,9 @@ export function corporateFeed(opts: CorporateFeedOptions): DesignDoc {
   const z0 = opts.z0 ?? 50;
   const feed = opts.feedLength ?? 8e-3;
   const bend: BendStyle = opts.bend ?? { style: 'miter-optimal' };
-  const doc = newDesign({ name: `${n}-way corporate feed`, ...opts });
+  // Plain microstrip unless asked: its 100 Ω branches cannot be had beside one isolation cut on usual laminates (a V-bit
+  // pass on 1.6 mm FR-4 reaches about 88 Ω), so such a feed is milled with the rest of the copper cleared.
+  const doc = newDesign({ name: `${n}-way corporate feed`, asMade: { sizing: 'microstrip', sideCopper: 'stitched' }, ...opts });
   const nodes: DesignNode[] = [];
   const segments: DesignSegment[] = [];
   // Drawn drop of one level: only the direction matters for quarter-wave pieces (sizing fixes their length).

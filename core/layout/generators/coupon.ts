@@ -170,7 +170,8 @@ export function laminateCoupon(opts: CouponOptions): { design: DesignDoc; plan: 
     throw new InputError('out-of-range', 'pitch', `a pitch of at least the width plus 4·h (${mm(plan.width + 4 * opts.substrate.h)}) so neighbouring lines do not couple`, mm(pitch));
   }
   const fc = Math.sqrt(opts.band.start * opts.band.stop);
-  const design = newDesign({ name: 'Laminate coupon', substrate: opts.substrate, f0: fc, band: { ...opts.band } });
+  // Plain microstrip: the laminate fit (core/network/coupon) models the coupon's lines as microstrip.
+  const design = newDesign({ name: 'Laminate coupon', substrate: opts.substrate, f0: fc, band: { ...opts.band }, asMade: { sizing: 'microstrip', sideCopper: 'stitched' } });
   // Shortest on top (the thru first if there is one), longest at the bottom.
   const order = [...plan.lines].sort((p, q) => p.length - q.length);
   const nodes: DesignNode[] = [];
