@@ -159,7 +159,7 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([5, 6, 7, 8, 9, 10]);
+    expect(r.migrations).toEqual([5, 6, 7, 8, 9, 10, 11]);
     expect({ ...r.doc, version: 5 }).toEqual(withoutUnits(JSON.parse(text) as Record<string, unknown>));
   });
 });
@@ -193,7 +193,7 @@ describe('v8 → v9 (a design\'s own sweep settings)', () => {
     const text = readFileSync(join(FIX, 'v8', 'open-stub-no-sweep.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([8, 9, 10]);
+    expect(r.migrations).toEqual([8, 9, 10, 11]);
     expect({ ...r.doc, version: 8 }).toEqual(JSON.parse(text));
     expect(r.doc.sweep).toBeUndefined();
   });
@@ -204,7 +204,7 @@ describe('v9 → v10 (measured data)', () => {
     const text = readFileSync(join(FIX, 'v9', 'wilkinson-2g45.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([9, 10]);
+    expect(r.migrations).toEqual([9, 10, 11]);
     expect(r.doc.measured).toBeUndefined();
     expect({ ...r.doc, version: 9 }).toEqual(JSON.parse(text));
   });
