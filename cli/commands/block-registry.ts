@@ -20,7 +20,7 @@ import { legacyUsage } from './block.ts';
 const COMMON = {
   f0: { type: 'string' }, preset: { type: 'string' }, er: { type: 'string' }, h: { type: 'string' }, t: { type: 'string' },
   tand: { type: 'string' }, sigma: { type: 'string' }, rough: { type: 'string' }, 'min-gap': { type: 'string' },
-  'end-mill': { type: 'string' }, junctions: { type: 'string' }, name: { type: 'string' }, into: { type: 'string' },
+  'end-mill': { type: 'string' }, junctions: { type: 'string' }, sizing: { type: 'string' }, name: { type: 'string' }, into: { type: 'string' },
   at: { type: 'string' }, out: { type: 'string' }, force: { type: 'boolean' }, help: { type: 'boolean' },
 } as const;
 
@@ -47,6 +47,8 @@ export function kindUsage(kind: string): string {
     '  --preset NAME | --er N --h LEN [--t LEN] [--tand N] [--sigma S] [--rough LEN]   laminate, as for \'line\'',
     '  --min-gap LEN | --end-mill LEN   the process (default: the new-design 30° V-bit)',
     '  --junctions modelled|ideal      junction models in sizing and the sweep (default modelled)',
+    '  --sizing microstrip|as-made     size the lines as plain microstrip (the default; copper cleared beside the',
+    '                            lines) or as milled (side copper at the cut, from field solutions)',
     '  --name TEXT               design name',
     '  --into DESIGN.json --at X,Y     add the block to a copy of DESIGN (X,Y with units, e.g. 40mm,0mm)',
     '  --out FILE.json           where to write (required); --force replaces an existing file'].join('\n');
@@ -97,7 +99,8 @@ export async function runRegistered(kind: string, argv: string[], io: CliIo): Pr
       const process: FabProcess | undefined = typeof v['min-gap'] === 'string' ? { kind: 'etch', edgeBias: 0, minFeature: parseQuantity(v['min-gap'], 'length', 'min-gap') }
         : typeof v['end-mill'] === 'string' ? { kind: 'end-mill', toolDiameter: parseQuantity(v['end-mill'], 'length', 'end-mill'), depth: 0.1e-3 } : undefined;
       const junctions = v.junctions === undefined ? undefined : v.junctions === 'ideal' || v.junctions === 'modelled' ? v.junctions : (() => { throw new InputError('bad-choice', 'junctions', 'modelled or ideal', String(v.junctions)); })();
-      doc = makeBlockDesign(kind, raw, { f0: parseQuantity(String(v.f0), 'frequency', 'f0'), substrate, ...(process ? { process } : {}), ...(junctions ? { junctions } : {}), ...(typeof v.name === 'string' ? { name: v.name } : {}) });
+      const sizing = v.sizing === undefined ? undefined : v.sizing === 'as-made' || v.sizing === 'microstrip' ? v.sizing : (() => { throw new InputError('bad-choice', 'sizing', 'as-made or microstrip', String(v.sizing), 'use --sizing microstrip when the copper beside the lines is cleared'); })();
+      doc = makeBlockDesign(kind, raw, { f0: parseQuantity(String(v.f0), 'frequency', 'f0'), substrate, ...(process ? { process } : {}), ...(junctions ? { junctions } : {}), ...(sizing ? { asMade: { sizing, sideCopper: 'stitched' as const } } : {}), ...(typeof v.name === 'string' ? { name: v.name } : {}) });
     }
     await writeOutputFile(target, serializeDesign(doc));
     const placed = doc.blocks![doc.blocks!.length - 1]!;

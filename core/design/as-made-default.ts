@@ -1,9 +1,11 @@
 /**
- * How a design's lines are sized when its file does not say (format 12): isolation milling (end mill or V-bit)
- * leaves the rest of the top copper standing beside every line, so a milled design is sized as the cross-section it
- * will be ('as-made'); an etched design is sized as plain microstrip. Side copper is stitched unless the file says
- * otherwise. Files written before format 12 got their choice written in by the 11 → 12 migration, so they keep
- * meaning what they meant.
+ * How a design's lines are sized when its file does not say: as plain microstrip, side copper stitched. Sizing as
+ * made ('as-made': the cross-section isolation milling leaves, with the top copper standing beside every line) is
+ * chosen per design (the Stack panel, `asMade` in the file; the examples that are milled choose it). It is not yet
+ * the default for milled designs: the default 30° V-bit's 0.11 mm cut leaves side copper so close that lines above
+ * about 88 Ω on 1.6 mm glass-epoxy cannot be made, and the 100 Ω arms of the tee-split blocks need them. From format 12
+ * every file says which it uses (the 11 → 12 migration writes the choice into older files), so the default can change
+ * later without changing what a saved file means. One place reads the setting: here.
  */
 import type { AsMade, DesignDoc, FabProcess } from './types.ts';
 
@@ -12,7 +14,7 @@ export function isMilled(fab: FabProcess): boolean {
   return fab.kind === 'end-mill' || fab.kind === 'v-bit';
 }
 
-/** The design's as-made setting: its own, or the default for the way it is made. */
+/** The design's as-made setting: its own, or plain microstrip with stitched side copper. */
 export function asMadeOf(doc: Pick<DesignDoc, 'asMade' | 'process'>): AsMade {
-  return doc.asMade ?? { sizing: isMilled(doc.process) ? 'as-made' : 'microstrip', sideCopper: 'stitched' };
+  return doc.asMade ?? { sizing: 'microstrip', sideCopper: 'stitched' };
 }

@@ -18,8 +18,8 @@
  * - 9: `sweep`: a design may keep its own sweep settings (start, stop, points, spacing).
  * - 10: `measured`: Touchstone files of the whole board kept with the design, each with its port map.
  * - 11: `proximityLimit`: the shop check's limit for runs side by side (a multiple of h or a length); absent = 3 h.
- * - 12: a design without `asMade` is sized as made when it is milled (end mill or V-bit); older files get their
- *       plain-microstrip sizing written in, so they keep meaning what they meant.
+ * - 12: every file says how its lines are sized (`asMade`): older files without it get plain-microstrip sizing
+ *       written in (what absence meant), so a later change of the default cannot change them.
  */
 type Json = Record<string, unknown>;
 
@@ -130,10 +130,10 @@ export const MIGRATIONS: readonly Migration[] = [
   },
   {
     from: 11,
-    summary: 'milled designs are now sized as made by default; this file keeps the sizing it had (its choice is now written in: asMade.sizing "microstrip" unless it said otherwise)',
+    summary: 'every design now says how its lines are sized (plain microstrip or as made); this file said nothing, which meant plain microstrip, so that choice is written in',
     up(doc) {
-      // Literal value on purpose (see the first migration). Before format 12 a missing asMade meant plain microstrip
-      // sizing; boards may have been cut from those widths, so the file says so explicitly from now on.
+      // Literal value on purpose (see the first migration). A missing asMade meant plain microstrip sizing; boards may
+      // have been cut from those widths, so the file says so explicitly from now on.
       return { ...doc, version: 12, asMade: doc.asMade ?? { sizing: 'microstrip', sideCopper: 'stitched' } };
     },
   },

@@ -75,7 +75,7 @@ describe('stripwright block (registry)', () => {
   });
   it('--footprint folds a long row to fit, and refuses a block with branches that cannot, naming the footprint it needs', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
-    const r = await run(['block', 'transformer', '--z1', '50', '--z2', '100', '--footprint', '30mm,40mm', '--f0', '2.45GHz', '--out', 't.json'], dir);
+    const r = await run(['block', 'transformer', '--z1', '50', '--z2', '100', '--footprint', '30mm,40mm', '--sizing', 'microstrip', '--f0', '2.45GHz', '--out', 't.json'], dir);
     expect(r.code).toBe(0);
     const p = parseDesign(readFileSync(join(dir, 't.json'), 'utf8'));
     expect(p.ok && p.doc.nodes.some((n) => n.id.includes('.turn'))).toBe(true);

@@ -1,5 +1,5 @@
 /**
- * The piece sheet of a milled design sized as made (format 12's default): it shows the line's Z0 and εeff as made and
+ * The piece sheet of a milled design sized as made (chosen in its file): it shows the line's Z0 and εeff as made and
  * the same copper as plain microstrip, with the shift in per cent. Outside fact checked: copper beside a line (a
  * grounded coplanar line) lowers Z0 against microstrip of the same width — Ghione & Naldi 1984's conformal-mapping
  * formulas and every field solution agree on the direction; the numbers themselves come from the sizing run inline.
@@ -42,10 +42,10 @@ describe('piece sheet of a line sized as made', () => {
     render(StackPanel, { editor: ed });
     expect((screen.getByTestId('field-sizing') as HTMLSelectElement).value).toBe('microstrip');
   });
-  it('a new design (milled with the default V-bit, no setting of its own) shows "as made" in Stack & band', () => {
+  it('a new design (milled with the default V-bit, no setting of its own) shows plain microstrip in Stack & band', () => {
     const ed = new EditorState();
     expect(ed.doc.asMade).toBeUndefined();
     render(StackPanel, { editor: ed });
-    expect((screen.getByTestId('field-sizing') as HTMLSelectElement).value).toBe('as-made');
+    expect((screen.getByTestId('field-sizing') as HTMLSelectElement).value).toBe('microstrip');
   });
 });

@@ -283,10 +283,10 @@ describe('with losses, at f0: each transmission within 0.1 dB of the ideal less 
   }
 });
 
-describe('blocks with a milling process are sized as made by default', () => {
-  it('an equal Wilkinson on the default V-bit: the made design says nothing, is sized as made, every line shows its shift', () => {
-    const d = makeBlockDesign('wilkinson', { ratioDb: '0' }, { f0: F0, substrate: FR4 });
-    expect(d.asMade).toBeUndefined();
+const AS_MADE = { sizing: 'as-made', sideCopper: 'stitched' } as const;
+describe('blocks in a design sized as made', () => {
+  it('an equal Wilkinson on the default V-bit: sized as made, every line shows its shift', () => {
+    const d = makeBlockDesign('wilkinson', { ratioDb: '0' }, { f0: F0, substrate: FR4, asMade: AS_MADE });
     expect(asMadeOf(d).sizing).toBe('as-made');
     const s = sizeDesign(d);
     expect(s.problems).toEqual([]);
@@ -295,7 +295,7 @@ describe('blocks with a milling process are sized as made by default', () => {
     for (const p of lines) expect(p.asMade?.label).toMatch(/side copper/);
   }, 120_000);
   it('a split whose arms cannot be had beside a V-bit cut is refused, naming the range the cross-section reaches', () => {
-    expect(() => makeBlockDesign('wilkinson', { ratioDb: '3' }, { f0: F0, substrate: FR4 })).toThrow(/range of the cross-section tables/);
+    expect(() => makeBlockDesign('wilkinson', { ratioDb: '3' }, { f0: F0, substrate: FR4, asMade: AS_MADE })).toThrow(/range of the cross-section tables/);
   }, 120_000);
 });
 

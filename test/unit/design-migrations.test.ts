@@ -246,7 +246,7 @@ describe('v10 → v11 (a design\'s own proximity limit)', () => {
   });
 });
 
-describe('v11 → v12 (milled designs sized as made by default)', () => {
+describe('v11 → v12 (every file says how its lines are sized)', () => {
   const text = readFileSync(join(FIX, 'v10', 'milled-without-as-made.json'), 'utf8');
   it('writes the old meaning into a file that left asMade out: plain microstrip, stitched (nothing changes silently)', () => {
     const r = parseDesign(text);
@@ -257,7 +257,7 @@ describe('v11 → v12 (milled designs sized as made by default)', () => {
     expect(asMadeOf(r.doc).sizing).toBe('microstrip');
     const { asMade: _a, ...rest } = r.doc;
     expect({ ...rest, version: 10 }).toEqual(JSON.parse(text));
-    expect(r.warnings.map((w) => w.message).join(' ')).toMatch(/sized as made by default/);
+    expect(r.warnings.map((w) => w.message).join(' ')).toMatch(/says how its lines are sized/);
   });
   it('a format-11 file (proximity limit known, before the as-made default) without asMade gets the same: one step, microstrip written in', () => {
     const r = parseDesign(readFileSync(join(FIX, 'v11', 'milled-without-as-made.json'), 'utf8'));
@@ -270,12 +270,12 @@ describe('v11 → v12 (milled designs sized as made by default)', () => {
     const r = parseDesign(JSON.stringify({ ...doc, asMade: { sizing: 'as-made', sideCopper: 'floating' } }));
     expect(r.ok && r.doc.asMade).toEqual({ sizing: 'as-made', sideCopper: 'floating' });
   });
-  it('a current file without asMade is sized as made when milled (end mill, V-bit) and as microstrip when etched', () => {
+  it('a current file without asMade is sized as plain microstrip whatever its process (as made is chosen per design)', () => {
     const base = { ...JSON.parse(text), version: DESIGN_VERSION };
     const sizing = (process: unknown) => { const r = parseDesign(JSON.stringify({ ...base, process })); if (!r.ok) throw new Error('refused'); return asMadeOf(r.doc).sizing; };
-    expect(sizing({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 })).toBe('as-made');
-    expect(sizing({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3 })).toBe('as-made');
+    expect(sizing({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 })).toBe('microstrip');
+    expect(sizing({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3 })).toBe('microstrip');
     expect(sizing({ kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 })).toBe('microstrip');
-    expect(asMadeOf(newDesign()).sizing).toBe('as-made'); // the default process is a V-bit
+    expect(asMadeOf(newDesign()).sizing).toBe('microstrip');
   });
 });

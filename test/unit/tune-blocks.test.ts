@@ -7,7 +7,8 @@
 import { describe, expect, it } from 'vitest';
 import { makeBlockDesign, tuneWithBlocks, blockVariables, History, serializeDesign, InputError, type DesignDoc, type Target } from '../../core/index.ts';
 
-const doc = makeBlockDesign('wilkinson', { ratioDb: 0 }, { f0: 2.45e9 });
+// Plain microstrip sizing, so the result can be read against the textbook power-split relation.
+const doc = makeBlockDesign('wilkinson', { ratioDb: 0 }, { f0: 2.45e9, asMade: { sizing: 'microstrip', sideCopper: 'stitched' } });
 const g = doc.phaseGroups[0]!;
 const goal: Target = { id: 'split', figure: 'transmission', ports: [g.from, g.to[0]!], band: { start: 2.45e9, stop: 2.45e9 }, limit: { min: -4.1, max: -3.9 } };
 const variables = [{ block: 'b1', param: 'ratioDb', min: -4, max: 4 }];

@@ -126,7 +126,7 @@ export const lowpassBlock: BlockDef = {
     // The stubs meet the row at tees whose model (the sweep's) scales a branch by n²: two passes settle n² at the
     // cut-off, which depends on the stub widths.
     for (let pass = 0; pass < 2 && stubs && ctx.junctions === 'modelled'; pass++) {
-      const probe = newDesign({ f0: ctx.f0, substrate: sub, process: ctx.process });
+      const probe = newDesign({ f0: ctx.f0, substrate: sub, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
       probe.nodes = drawn.sk.nodes; probe.segments = drawn.sk.segments;
       const n2: number[] = [];
       for (const nd of sizeDesign(probe).nodes) {
@@ -157,7 +157,7 @@ export const lowpassBlock: BlockDef = {
  * than `levelDb`, about its f0: from the lower edge (below f0) to the upper one (above it); NaN when one is not found.
  */
 function stopBandwidth(sk: Sketch, ctx: BlockContext, levelDb: number): number {
-  const doc = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process });
+  const doc = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
   doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
   const sized = sizeDesign(doc);
   if (sized.problems.length) return NaN;
