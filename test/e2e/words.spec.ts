@@ -96,7 +96,7 @@ test('an example opens with its notes on show; the notes give the project\'s own
   // Opening an example from the menu shows its notes at once.
   await openExample(page, 'three-section-transformer');
   await expect(page.getByTestId('design-notes')).toContainText('binomial');
-  await expect(page.getByTestId('design-notes')).toContainText('from 1.76 to 3.09 GHz');
+  await expect(page.getByTestId('design-notes')).toContainText('from 1.77 to 3.09 GHz');
   // The user can add to the notes; one undo step takes it back.
   await page.getByTestId('notes-edit').click();
   await page.getByTestId('notes-text').press('End');
