@@ -24,6 +24,13 @@ const COMMON = {
   at: { type: 'string' }, out: { type: 'string' }, force: { type: 'boolean' }, help: { type: 'boolean' },
 } as const;
 
+/** An option that is absent or one of a few words; anything else is refused naming the choices. */
+function optionalChoice<T extends string>(value: unknown, field: string, choices: readonly [T, T], hint?: string): T | undefined {
+  if (value === undefined) return undefined;
+  if (choices.includes(value as T)) return value as T;
+  throw new InputError('bad-choice', field, `${choices[0]} or ${choices[1]}`, String(value), hint);
+}
+
 export function blockList(): string {
   const w = Math.max(...BLOCKS.map((b) => b.kind.length));
   return ['Blocks (stripwright block KIND --help for the options of one):', ...BLOCKS.map((b) => `  ${b.kind.padEnd(w)}  ${b.summary}`),
@@ -98,8 +105,8 @@ export async function runRegistered(kind: string, argv: string[], io: CliIo): Pr
       const substrate = substrateOf({ preset: v.preset as string | undefined ?? (v.er === undefined && v.h === undefined ? 'glass-epoxy' : undefined), er: v.er as string | undefined, h: v.h as string | undefined, t: v.t as string | undefined, tand: v.tand as string | undefined, sigma: v.sigma as string | undefined, rough: v.rough as string | undefined });
       const process: FabProcess | undefined = typeof v['min-gap'] === 'string' ? { kind: 'etch', edgeBias: 0, minFeature: parseQuantity(v['min-gap'], 'length', 'min-gap') }
         : typeof v['end-mill'] === 'string' ? { kind: 'end-mill', toolDiameter: parseQuantity(v['end-mill'], 'length', 'end-mill'), depth: 0.1e-3 } : undefined;
-      const junctions = v.junctions === undefined ? undefined : v.junctions === 'ideal' || v.junctions === 'modelled' ? v.junctions : (() => { throw new InputError('bad-choice', 'junctions', 'modelled or ideal', String(v.junctions)); })();
-      const sizing = v.sizing === undefined ? undefined : v.sizing === 'as-made' || v.sizing === 'microstrip' ? v.sizing : (() => { throw new InputError('bad-choice', 'sizing', 'as-made or microstrip', String(v.sizing), 'use --sizing microstrip when the copper beside the lines is cleared'); })();
+      const junctions = optionalChoice(v.junctions, 'junctions', ['modelled', 'ideal'] as const);
+      const sizing = optionalChoice(v.sizing, 'sizing', ['as-made', 'microstrip'] as const, 'use --sizing microstrip when the copper beside the lines is cleared');
       doc = makeBlockDesign(kind, raw, { f0: parseQuantity(String(v.f0), 'frequency', 'f0'), substrate, ...(process ? { process } : {}), ...(junctions ? { junctions } : {}), ...(sizing ? { asMade: { sizing, sideCopper: 'stitched' as const } } : {}), ...(typeof v.name === 'string' ? { name: v.name } : {}) });
     }
     await writeOutputFile(target, serializeDesign(doc));

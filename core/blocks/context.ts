@@ -4,8 +4,9 @@
  * helper they share. Positions drawn here only need the right directions and rough lengths: the design is redrawn
  * where sizing places it (drawAsPlaced), so the sketch and the board agree.
  */
-import type { AsMade, DesignNode, DesignSegment, FabProcess, JunctionChoice, PhaseGroup, SubstrateSpec, Target } from '../design/types.ts';
+import type { AsMade, DesignDoc, DesignNode, DesignSegment, FabProcess, JunctionChoice, PhaseGroup, SubstrateSpec, Target } from '../design/types.ts';
 import type { Vec2 } from '../geometry/types.ts';
+import { newDesign } from '../design/defaults.ts';
 import { synthesizeLine } from '../line/index.ts';
 import { cutWidth } from '../layout/checks.ts';
 import { InputError } from '../util/errors.ts';
@@ -53,6 +54,14 @@ export const Z0_PARAM: ParamDef = { name: 'z0', type: 'number', unit: 'impedance
 export const FEED_PARAM: ParamDef = { name: 'feed', type: 'number', unit: 'length', min: 0.5e-3, max: 100e-3, default: 5e-3, meaning: 'Length of each port line' };
 
 /** Narrowest copper the process makes, m (etching: its minimum feature; milling: one cut, below which copper lifts). */
+/**
+ * A design on the block's laminate, band, process and line sizing, for laying out, probing or sweeping the block on
+ * its own: every such design sees what the host design will, so a correction measured on it holds when placed.
+ */
+export function contextDesign(ctx: BlockContext, substrate: SubstrateSpec = ctx.substrate): DesignDoc {
+  return newDesign({ f0: ctx.f0, substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
+}
+
 export function narrowestWidth(p: FabProcess): number { return p.kind === 'etch' ? p.minFeature : cutWidth(p); }
 
 /**

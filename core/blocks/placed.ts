@@ -13,7 +13,7 @@ import type { Vec2 } from '../geometry/types.ts';
 import { InputError } from '../util/errors.ts';
 import { blockDef } from './registry.ts';
 import { readSpec, type ParamValue } from './params.ts';
-import type { BlockContext, BlockPieces } from './context.ts';
+import { contextDesign, type BlockContext, type BlockPieces } from './context.ts';
 import { placeAsSized } from './drawn.ts';
 import { fitFootprint, footprintOf } from './fold.ts';
 import { sizeDesign } from '../layout/sizing.ts';
@@ -29,7 +29,7 @@ export function generateBlock(kind: string, raw: Record<string, unknown>, ctx: B
   const spec = readSpec(kind, def.params, raw);
   const pieces = def.generate(spec, ctx);
   // Every block is laid out once on its own, so a spec sizing cannot realise is refused here, naming the problem.
-  const probe = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
+  const probe = contextDesign(ctx);
   probe.junctions = ctx.junctions; probe.nodes = pieces.nodes; probe.segments = pieces.segments;
   placeAsSized(probe, kind);
   // An optional footprint: the block is turned or folded to fit it, or refused naming the footprint it needs.

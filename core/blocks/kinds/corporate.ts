@@ -16,11 +16,10 @@
  * delayed one; a symmetric tree needs nothing, and its outputs stay on one row.
  */
 import type { DesignDoc } from '../../design/types.ts';
-import { newDesign } from '../../design/defaults.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
 import { InputError } from '../../util/errors.ts';
 import { C0 } from '../../units/index.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec } from '../context.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec, contextDesign } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 import { fitSpans, levelTargets, matchPhases, placeAsSized, type SpanFit } from '../drawn.ts';
 import { wilkinsonValues } from './splitters.ts';
@@ -153,7 +152,7 @@ export const corporateBlock: BlockDef = {
     grow(tree, 'j', 0, 0);
     outputs.sort((a, b) => Number(a.slice(3)) - Number(b.slice(3)));
     const f0 = ctx.f0;
-    const doc: DesignDoc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
+    const doc: DesignDoc = contextDesign(ctx);
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     if (parts.length) fitSpans(doc, 'corporate', parts); else placeAsSized(doc, 'corporate');
     if (ctx.junctions === 'modelled') teeLevels(doc, feedsTee);

@@ -14,13 +14,12 @@
  */
 import { InputError } from '../../util/errors.ts';
 import { synthesizeLine } from '../../line/index.ts';
-import { newDesign } from '../../design/defaults.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
 import { teeJunction } from '../../discontinuity/hammerstad1981TeeJunction.ts';
 import { netlistFromSized } from '../../network/fromSized.ts';
 import { solveNetwork } from '../../network/sweep.ts';
 import { prototypeValues } from '../lowpassPrototype.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec } from '../context.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec, contextDesign } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 
 const RESPONSE = { name: 'response', type: 'choice', choices: ['maxflat', 'chebyshev'], default: 'chebyshev', meaning: 'Maximally flat (−3 dB at the edge) or equal ripple' } as const;
@@ -126,7 +125,7 @@ export const lowpassBlock: BlockDef = {
     // The stubs meet the row at tees whose model (the sweep's) scales a branch by n²: two passes settle n² at the
     // cut-off, which depends on the stub widths.
     for (let pass = 0; pass < 2 && stubs && ctx.junctions === 'modelled'; pass++) {
-      const probe = newDesign({ f0: ctx.f0, substrate: sub, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
+      const probe = contextDesign(ctx, sub);
       probe.nodes = drawn.sk.nodes; probe.segments = drawn.sk.segments;
       const n2: number[] = [];
       for (const nd of sizeDesign(probe).nodes) {
@@ -157,7 +156,7 @@ export const lowpassBlock: BlockDef = {
  * than `levelDb`, about its f0: from the lower edge (below f0) to the upper one (above it); NaN when one is not found.
  */
 function stopBandwidth(sk: Sketch, ctx: BlockContext, levelDb: number): number {
-  const doc = newDesign({ f0: ctx.f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
+  const doc = contextDesign(ctx);
   doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
   const sized = sizeDesign(doc);
   if (sized.problems.length) return NaN;

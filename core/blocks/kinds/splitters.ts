@@ -12,9 +12,8 @@
  * - Rat-race: Pozar §7.8: a ring of √2·Z0, 1.5 λ round, ports 90°, 90°, 90° apart (and 270° back).
  */
 import type { DesignSegment, PhaseGroup, Target } from '../../design/types.ts';
-import { newDesign } from '../../design/defaults.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec } from '../context.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
 import { fitSpans, levelTargets, matchPhases, placeAsSized } from '../drawn.ts';
 
 export function wilkinsonValues(z0: number, ratioDb: number): { k: number; z2: number; z3: number; r: number; t2: number; t3: number } {
@@ -72,7 +71,7 @@ export const wilkinsonBlock: BlockDef = {
     };
     arm(1, v.z2, '1'); arm(-1, v.z3, '2');
     const f0 = ctx.f0;
-    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
+    const doc = contextDesign(ctx);
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     const resistor: DesignSegment = { id: 'r1', kind: 'lumped', part: 'resistor', value: Math.round(v.r * 100) / 100, size: fp.size, width: { by: 'width', width: Math.min(w2, w3) }, a: 'j1', b: 'j2', label: 'isolation resistor' };
     fitSpans(doc, 'wilkinson', [{ part: resistor, arms: [['arm11', 'arm12'], ['arm21', 'arm22']], span }]);
@@ -127,7 +126,7 @@ export const branchlineBlock: BlockDef = {
     });
     const f0 = ctx.f0;
     const thr = 20 * Math.log10(v.through), cpl = 20 * Math.log10(v.coupled);
-    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
+    const doc = contextDesign(ctx);
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     // The shunt arms are the tees' branches: each joins through the tee model's transformer (Hammerstad 1981), which
     // makes a line of Z look like Z/n²; the arms are therefore made n²·Z (two passes settle n², which depends on them).
@@ -194,7 +193,7 @@ export const ratraceBlock: BlockDef = {
     // The top side carries two tees whose reference planes lengthen its copper; the drawn bottom side must span the
     // same width, so it is electrically longer than 180° by that much. The two vertical pieces next to it give the
     // excess back (half each), so the path from j4 to j1 stays 270° and the ring stays symmetric (and closed).
-    const doc = newDesign({ f0, substrate: ctx.substrate, process: ctx.process, ...(ctx.asMade ? { asMade: ctx.asMade } : {}) });
+    const doc = contextDesign(ctx);
     doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
     let excess = 0;
     for (let pass = 0; pass < 2; pass++) {
