@@ -9,7 +9,7 @@ import { parseArgs } from 'node:util';
 import { statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import {
-  BLOCKS, blockDef, defaultText, makeBlockDesign, optionName, parseDesign, parseQuantity, placeBlock, rangeText, serializeDesign,
+  BLOCKS, bandChangeWords, blockDef, defaultText, makeBlockDesign, optionName, parseDesign, parseQuantity, placeBlock, rangeText, serializeDesign,
   InputError, UNIT_WORDS, type FabProcess, type ParamDef,
 } from '../../core/index.ts';
 import { DESIGN_TEXT, TOUCHSTONE_INPUT, readInputText, writeOutputFile } from '../files.ts';
@@ -92,7 +92,7 @@ export async function runRegistered(kind: string, argv: string[], io: CliIo): Pr
         raw[p.name] = read.text;
       } else raw[p.name] = given;
     }
-    let doc;
+    let doc, band: string | null = null;
     if (typeof v.into === 'string') {
       const read = await readInputText(resolve(io.cwd, v.into), v.into, DESIGN_TEXT, 'a design file (.json)');
       if (!read.ok) { io.err(`stripwright block: ${read.message}`); return 1; }
@@ -101,6 +101,7 @@ export async function runRegistered(kind: string, argv: string[], io: CliIo): Pr
       const [x, y] = String(v.at).split(',');
       if (x === undefined || y === undefined) throw new UsageError('give --at as X,Y, e.g. 40mm,0mm');
       doc = placeBlock(parsed.doc, kind, raw, { x: parseQuantity(x, 'length', 'at.x'), y: parseQuantity(y, 'length', 'at.y') });
+      band = bandChangeWords(parsed.doc, doc);
     } else {
       const substrate = substrateOf({ preset: v.preset as string | undefined ?? (v.er === undefined && v.h === undefined ? 'glass-epoxy' : undefined), er: v.er as string | undefined, h: v.h as string | undefined, t: v.t as string | undefined, tand: v.tand as string | undefined, sigma: v.sigma as string | undefined, rough: v.rough as string | undefined });
       const process: FabProcess | undefined = typeof v['min-gap'] === 'string' ? { kind: 'etch', edgeBias: 0, minFeature: parseQuantity(v['min-gap'], 'length', 'min-gap') }
@@ -111,7 +112,7 @@ export async function runRegistered(kind: string, argv: string[], io: CliIo): Pr
     }
     await writeOutputFile(target, serializeDesign(doc));
     const placed = doc.blocks![doc.blocks!.length - 1]!;
-    io.out(`${typeof v.into === 'string' ? `${def.title} added as ${placed.id} to a copy of ${v.into}` : doc.name}\n${typeof v.into === 'string' ? '' : `${doc.notes ?? ''}\n`}written to ${v.out}; next: stripwright build ${v.out}`);
+    io.out(`${typeof v.into === 'string' ? `${def.title} added as ${placed.id} to a copy of ${v.into}` : doc.name}\n${typeof v.into === 'string' ? (band ? `${band[0]!.toUpperCase()}${band.slice(1)}.\n` : '') : `${doc.notes ?? ''}\n`}written to ${v.out}; next: stripwright build ${v.out}`);
     return 0;
   } catch (e) {
     if (e instanceof UsageError) throw e;

@@ -5,7 +5,7 @@
  * The record (`PlacedBlock`, design format 8) keeps the kind, the spec as given, where it was placed and the ids it
  * made, so the block can be re-opened and re-generated.
  */
-import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target } from '../design/types.ts';
+import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target, Tolerance } from '../design/types.ts';
 import { newDesign } from '../design/defaults.ts';
 import { asMadeOf } from '../design/as-made-default.ts';
 import { withBlock } from '../design/commands-blocks.ts';
@@ -17,6 +17,7 @@ import { contextDesign, type BlockContext, type BlockPieces } from './context.ts
 import { placeAsSized } from './drawn.ts';
 import { fitFootprint, footprintOf } from './fold.ts';
 import { sizeDesign } from '../layout/sizing.ts';
+import { DEFAULT_TOLERANCES_NOTE, defaultTolerances } from './tolerance-defaults.ts';
 
 /** The design's own laminate, process, f0 and junctions, as a block context. */
 export function contextOf(doc: DesignDoc): BlockContext {
@@ -64,6 +65,11 @@ export interface BlockPlacement {
   targets: Target[];
   name: string;
   notes: string[];
+  /** The block's own band, Hz: placing it widens the design's band (and sweep settings) to cover it. */
+  band: { start: number; stop: number };
+  /** Default tolerances, given only when the design is empty and has none (tolerance-defaults.ts), with their reasons. */
+  tolerances?: Tolerance[];
+  toleranceReasons?: string[];
 }
 
 /** A fresh block id (`b1`, `b2`, …) not used by any record of the design. */
@@ -90,7 +96,24 @@ export function blockPlacement(doc: DesignDoc, kind: string, raw: Record<string,
     members: [...nodes.map((n) => n.id), ...segments.map((s) => s.id)],
     made: Object.fromEntries([...nodes, ...segments].map((r) => [r.id, fingerprint(r)])),
   };
-  return { record, nodes, segments, phaseGroups, targets, name: pieces.name, notes: pieces.notes };
+  // An empty design with no tolerances gets the defaults for its laminate and process, so its yield has a spread.
+  const empty = !doc.nodes.length && !doc.segments.length && !(doc.tolerances ?? []).length;
+  const tol = empty ? defaultTolerances(doc.substrate, doc.process, { resistors: segments.some((s) => s.kind === 'lumped' && s.part === 'resistor') }) : null;
+  return {
+    record, nodes, segments, phaseGroups, targets, name: pieces.name, notes: pieces.notes, band: pieces.band,
+    ...(tol && tol.tolerances.length ? { tolerances: tol.tolerances, toleranceReasons: tol.reasons } : {}),
+  };
+}
+
+/** One line for the faces: how placing widened the design's band or sweep settings (null when it did not). */
+export function bandChangeWords(before: DesignDoc, after: DesignDoc): string | null {
+  const ghz = (f: number) => `${+(f / 1e9).toFixed(4)} GHz`;
+  const span = (b: { start: number; stop: number }) => `${ghz(b.start)}–${ghz(b.stop)}`;
+  const out: string[] = [];
+  const b0 = before.frequency.band, b1 = after.frequency.band;
+  if (b0.start !== b1.start || b0.stop !== b1.stop) out.push(`design band widened from ${span(b0)} to ${span(b1)}`);
+  if (before.sweep && after.sweep && (before.sweep.start !== after.sweep.start || before.sweep.stop !== after.sweep.stop)) out.push(`sweep settings widened from ${span(before.sweep)} to ${span(after.sweep)}`);
+  return out.length ? `${out.join('; ')}, to cover the block's band` : null;
 }
 
 /** Adds a block to a copy of `doc` (`asWhole`: the design is the block: its name, notes, band and board edge follow it). */
@@ -101,9 +124,9 @@ export function placeBlock(doc: DesignDoc, kind: string, raw: Record<string, unk
     // 5 mm beyond the copper (common practice for hand-cut boards): the nodes' extent plus the widest piece.
     const widest = Math.max(0, ...sizeDesign(next).pieces.map((x) => (Number.isFinite(x.width) ? x.width : 0)), ...pl.nodes.map((n) => (n.kind === 'port' && n.launch ? n.launch.padWidth : 0)));
     const e = extent(pl.nodes), m = 5e-3 + widest;
-    const band = generateBlock(kind, raw, contextOf(doc)).pieces.band;
+    const band = pl.band;
     next = {
-      ...next, name: opts.name ?? pl.name, notes: [...pl.notes, 'Safety: transmitting into a made board needs the usual RF-exposure care and a licence where your local rules ask for one; milling glass-epoxy makes fine dust (extraction and a mask, common practice).'].join('\n'),
+      ...next, name: opts.name ?? pl.name, notes: [...pl.notes, ...(pl.toleranceReasons ? [DEFAULT_TOLERANCES_NOTE, ...pl.toleranceReasons.map((r) => `- ${r}`)] : []), 'Safety: transmitting into a made board needs the usual RF-exposure care and a licence where your local rules ask for one; milling glass-epoxy makes fine dust (extraction and a mask, common practice).'].join('\n'),
       frequency: { f0: doc.frequency.f0, band },
       board: { outline: [{ x: nm(e.x0 - m), y: nm(e.y0 - m) }, { x: nm(e.x1 + m), y: nm(e.y0 - m) }, { x: nm(e.x1 + m), y: nm(e.y1 + m) }, { x: nm(e.x0 - m), y: nm(e.y1 + m) }] },
     };

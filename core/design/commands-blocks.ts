@@ -6,9 +6,9 @@
  */
 import * as v from 'valibot';
 import { InputError } from '../util/errors.ts';
-import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target } from './types.ts';
-import { nodeSchema, segmentSchema, phaseGroupSchema, placedBlockSchema } from './schema.ts';
-import { targetsSchema } from './targets-schema.ts';
+import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target, Tolerance } from './types.ts';
+import { nodeSchema, segmentSchema, phaseGroupSchema, placedBlockSchema, frequencySchema } from './schema.ts';
+import { targetsSchema, tolerancesSchema } from './targets-schema.ts';
 import { checkWith, type Args, type DesignCommand } from './command-args.ts';
 import { crossCheck } from './crossref.ts';
 
@@ -20,7 +20,26 @@ function settled(id: string, doc: DesignDoc): DesignDoc {
   return doc;
 }
 
-export interface BlockRecords { record: PlacedBlock; nodes: DesignNode[]; segments: DesignSegment[]; phaseGroups: PhaseGroup[]; targets: Target[] }
+export interface BlockRecords {
+  record: PlacedBlock; nodes: DesignNode[]; segments: DesignSegment[]; phaseGroups: PhaseGroup[]; targets: Target[];
+  /** The band the block is looked at over, Hz: the design's band (and its own sweep settings) widen to cover it. */
+  band?: { start: number; stop: number };
+  /** Tolerances for a design that has none yet (a block placed into an empty design). */
+  tolerances?: Tolerance[];
+}
+
+/**
+ * The design with its band, and its own sweep settings if it has them, widened to cover `band` (never narrowed: what
+ * the user had stays inside). The sweep keeps its points and spacing.
+ */
+export function coverBand(doc: DesignDoc, band: { start: number; stop: number }): DesignDoc {
+  const b = doc.frequency.band;
+  const start = Math.min(b.start, band.start), stop = Math.max(b.stop, band.stop);
+  const next: DesignDoc = start === b.start && stop === b.stop ? doc : { ...doc, frequency: { ...doc.frequency, band: { start, stop } } };
+  const sw = doc.sweep;
+  if (!sw || (sw.start <= band.start && sw.stop >= band.stop)) return next;
+  return { ...next, sweep: { ...sw, start: Math.min(sw.start, band.start), stop: Math.max(sw.stop, band.stop) } };
+}
 
 /** The design with the block's records added, replacing those of a placed block of the same id (its members, and its groups and targets, whose ids start with `id.`). */
 export function withBlock(doc: DesignDoc, pl: BlockRecords): DesignDoc {
@@ -28,8 +47,10 @@ export function withBlock(doc: DesignDoc, pl: BlockRecords): DesignDoc {
   const old = (doc.blocks ?? []).find((b) => b.id === id);
   const gone = new Set(old ? old.members : []);
   const mine = (x: string) => old !== undefined && x.startsWith(`${id}.`);
+  const host = pl.band ? coverBand(doc, pl.band) : doc;
   return {
-    ...doc,
+    ...host,
+    ...(pl.tolerances && !(doc.tolerances ?? []).length ? { tolerances: pl.tolerances } : {}),
     nodes: [...doc.nodes.filter((n) => !gone.has(n.id)), ...pl.nodes],
     segments: [...doc.segments.filter((s) => !gone.has(s.id)), ...pl.segments],
     phaseGroups: [...doc.phaseGroups.filter((g) => !mine(g.id)), ...pl.phaseGroups],
@@ -47,6 +68,8 @@ export const blockPut: Command = {
       segments: checkWith(v.array(segmentSchema), a.segments, 'args.segments') as DesignSegment[],
       phaseGroups: checkWith(v.array(phaseGroupSchema), a.phaseGroups ?? [], 'args.phaseGroups') as PhaseGroup[],
       targets: checkWith(targetsSchema, a.targets ?? [], 'args.targets') as Target[],
+      ...(a.band !== undefined ? { band: checkWith(frequencySchema.entries.band, a.band, 'args.band') as { start: number; stop: number } } : {}),
+      ...(a.tolerances !== undefined ? { tolerances: checkWith(tolerancesSchema, a.tolerances, 'args.tolerances') as Tolerance[] } : {}),
     };
     return settled(this.id, withBlock(doc, rec));
   },

@@ -85,4 +85,28 @@ describe('stripwright block (registry)', () => {
     expect(no.stderr).toMatch(/footprint of at least/);
     expect(existsSync(join(dir, 'c.json'))).toBe(false);
   });
+  it('a block design carries default tolerances, so `stripwright yield` on it shows a spread (common practice defaults, core/blocks/tolerance-defaults.ts)', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    expect((await run(['block', 'wilkinson', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--sizing', 'microstrip', '--out', 'w.json'], dir)).code).toBe(0);
+    const y = await run(['yield', 'w.json', '--samples', '20', '--seed', '5', '--ranking', '0', '--points', '11', '--json'], dir);
+    expect(y.code, y.stderr).toBe(0);
+    const r = JSON.parse(y.stdout) as { tolerances: unknown[]; targets: { stats: { sd: number } }[] };
+    expect(r.tolerances.length).toBeGreaterThan(3);
+    expect(Math.max(...r.targets.map((t) => t.stats.sd))).toBeGreaterThan(0);
+  }, 60_000);
+  it('--into widens the host design\'s band to cover the block\'s and says so; a block inside the band changes nothing', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    expect((await run(['block', 'wilkinson', '--f0', '2.45GHz', '--sizing', 'microstrip', '--out', 'w.json'], dir)).code).toBe(0);
+    const host = parseDesign(readFileSync(join(dir, 'w.json'), 'utf8'));
+    if (!host.ok) throw new Error('refused');
+    const i = await run(['block', 'lowpass', '--cutoff', '2GHz', '--into', 'w.json', '--at', '0mm,40mm', '--out', 'both.json'], dir);
+    expect(i.code, i.stderr).toBe(0);
+    expect(i.stdout).toMatch(/Design band widened from [\d.]+ GHz–[\d.]+ GHz to [\d.]+ GHz–[\d.]+ GHz, to cover the block's band/);
+    const p = parseDesign(readFileSync(join(dir, 'both.json'), 'utf8'));
+    if (!p.ok) throw new Error('refused');
+    expect(p.doc.frequency.band.start).toBeLessThan(host.doc.frequency.band.start);
+    expect(p.doc.frequency.band.stop).toBeGreaterThanOrEqual(host.doc.frequency.band.stop);
+    const same = await run(['block', 'wilkinson', '--into', 'w.json', '--at', '0mm,60mm', '--out', 'two.json'], dir);
+    expect(same.stdout).not.toMatch(/widened/);
+  });
 });

@@ -36,7 +36,7 @@ export function placeBlock(ed: EditorState, ask: BlockAsk): string | null {
 
 // ---- blocks of the registry (core/blocks/registry.ts), placed with their spec (block.put) -------------------------
 
-import { BLOCKS, blockPlacement, contextOf, generateBlock, respecPlacement, sizeDesign, netlistFromSized, solveNetwork, type BlockPlacement, type PlacedBlock } from '../../../core/index.ts';
+import { BLOCKS, bandChangeWords, blockPlacement, contextOf, generateBlock, respecPlacement, sizeDesign, netlistFromSized, solveNetwork, type BlockPlacement, type PlacedBlock } from '../../../core/index.ts';
 
 /** The placed block a record (node or segment id) belongs to, if any. */
 export function blockOf(ed: EditorState, id: string | null): PlacedBlock | null {
@@ -68,7 +68,9 @@ export function previewBlock(ed: EditorState, kind: string, raw: Record<string, 
 }
 
 function put(ed: EditorState, pl: BlockPlacement, label: string): boolean {
-  return ed.edit('block.put', { record: pl.record, nodes: pl.nodes, segments: pl.segments, phaseGroups: pl.phaseGroups, targets: pl.targets }, label);
+  // One step: the pieces, the design band widened to the block's (never narrowed), and for an empty design the
+  // default tolerances of its laminate and process.
+  return ed.edit('block.put', { record: pl.record, nodes: pl.nodes, segments: pl.segments, phaseGroups: pl.phaseGroups, targets: pl.targets, band: pl.band, ...(pl.tolerances ? { tolerances: pl.tolerances } : {}) }, label);
 }
 
 /** Places a block of the registry at `at`; returns null, or the reason it was not placed (in the user's words). */
@@ -76,9 +78,11 @@ export function placeRegistered(ed: EditorState, kind: string, raw: Record<strin
   let pl: BlockPlacement;
   try { pl = blockPlacement(ed.doc, kind, raw, at); } catch (e) { if (e instanceof InputError) return words(e); throw e; }
   const title = BLOCKS.find((b) => b.kind === kind)?.title ?? kind;
+  const before = ed.doc;
   if (!put(ed, pl, `Place ${title.toLowerCase()}`)) return ed.status;
   ed.selectAndFrame(pl.record.members);
-  ed.status = `Placed: ${pl.name}`;
+  const band = bandChangeWords(before, ed.doc);
+  ed.status = `Placed: ${pl.name}${band ? `; ${band}` : ''}${pl.tolerances ? '; default tolerances added (yield panel)' : ''}`;
   return null;
 }
 
