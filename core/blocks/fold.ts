@@ -4,7 +4,8 @@
  * transformer, the stepped low-pass and the launch are) is folded into a serpentine whose turns are pairs of
  * mitered bends, each bend inside one line, so sizing compensates it (core/layout's bend model, as the meanders of
  * equalize use) and every piece keeps its electrical length (its degrees, or its length, shared between its parts).
- * Anything else that does not fit is refused, naming the footprint it needs.
+ * Anything else that does not fit is refused, naming the footprint it needs and why it was not folded (branchedWhy:
+ * outputs a pitch apart on a row, or lines too short for a U-turn to gain what is missing).
  *
  * Runs of the serpentine keep an edge-to-edge gap of at least the shop check's proximity limit (3h by default,
  * core/layout/proximity.ts: the distance beyond which the single-line model is taken to hold, common practice), so
@@ -60,9 +61,7 @@ export function fitFootprint(doc: DesignDoc, kind: string, fp: Footprint): strin
   if (fits({ w: size.h, h: size.w }, fp)) { turnQuarter(doc); return `Turned a quarter turn to fit the ${mm(fp.w)} × ${mm(fp.h)} footprint.`; }
   const chain = chainOf(doc);
   const need = `a footprint of at least ${mm(size.w)} × ${mm(size.h)} (its copper as laid out)`;
-  if (!chain) {
-    throw new InputError('out-of-range', `${kind}.footprint`, need, `${mm(fp.w)} × ${mm(fp.h)}`, 'give a larger footprint (only a row of lines folds: this block has branches), or leave it empty');
-  }
+  if (!chain) throw new InputError('out-of-range', `${kind}.footprint`, need, `${mm(fp.w)} × ${mm(fp.h)}`, branchedWhy(doc, size, fp));
   // Fold along the footprint's longer side; the runs are shortened until the copper (pads, bends) fits.
   const wide = fp.w >= fp.h;
   const along = wide ? fp.w : fp.h, across = wide ? fp.h : fp.w;
@@ -86,6 +85,43 @@ export function fitFootprint(doc: DesignDoc, kind: string, fp: Footprint): strin
   throw new InputError('out-of-range', `${kind}.footprint`,
     `${need}${best ? `, or folded ${mm(wide ? fp.w : fp.h)} ${wide ? 'wide' : 'high'}, about ${mm(wide ? best.h : best.w)} ${wide ? 'high' : 'wide'}` : ''}`,
     `${mm(fp.w)} × ${mm(fp.h)}`, 'give a larger footprint (the folded rows keep a gap of 3 substrate heights apart), or leave it empty');
+}
+
+/**
+ * Why a block with branches (tees, a ring, stubs) is not folded to fit, in numbers, with what would fit instead.
+ * Only a row from port to port folds: a U-turn inside a line between junctions would have to keep every path through
+ * them matched and keep 3h from the lines of the other paths, which this fold does not attempt. What the refusal can
+ * say exactly: outputs on a row are set apart by the spec's pitch (no fold brings them closer), and a single U-turn
+ * (two mitered bends a row pitch apart) saves at most half of what a line is longer than that pitch.
+ */
+function branchedWhy(doc: DesignDoc, size: { w: number; h: number }, fp: Footprint): string {
+  const long = Math.max(fp.w, fp.h), short = Math.min(fp.w, fp.h);
+  const ports = doc.nodes.filter((n) => n.kind === 'port');
+  const outs = ports.slice(1);
+  const sized = sizeDesign(doc);
+  const wMax = Math.max(0, ...sized.pieces.map((p) => (Number.isFinite(p.width) ? p.width : 0)));
+  // Outputs spread along one line (a feed's row): their spread is the spec's, whatever is folded.
+  if (outs.length >= 2) {
+    const xs = outs.map((n) => n.at.x), ys = outs.map((n) => n.at.y);
+    const alongX = Math.max(...xs) - Math.min(...xs) >= Math.max(...ys) - Math.min(...ys);
+    const spread = alongX ? Math.max(...xs) - Math.min(...xs) : Math.max(...ys) - Math.min(...ys);
+    const rowLen = alongX ? size.w : size.h, depth = alongX ? size.h : size.w;
+    if (spread + wMax > long + 1e-9) {
+      const fit = Math.floor(((long - (rowLen - spread)) / (outs.length - 1)) * 1e4) / 10;
+      const deep = depth > short + 1e-9 ? `; its depth, ${mm(depth)}, is set by the quarter-wave levels between its splits and does not fit ${mm(short)} either` : '';
+      return `its ${outs.length} outputs are ${mm(spread)} apart end to end on their row, set by the pitch; folding lines cannot bring them closer${deep}` +
+        (fit > 0 && !deep ? `: a pitch of at most ${fit.toFixed(1)} mm fits ${mm(long)}` : '') + '; give a larger footprint or leave it empty';
+    }
+  }
+  const uTurn = wMax + DEFAULT_PROXIMITY_LIMIT_H * doc.substrate.h * 1.05;
+  const longest = sized.pieces.filter((p) => p.kind === 'line').reduce<{ id: string; length: number; width: number } | null>((a, p) => (!a || p.length > a.length ? { id: p.id, length: p.length, width: p.width } : a), null);
+  const over = Math.max(0, Math.min(Math.max(size.w - fp.w, size.h - fp.h), Math.max(size.h - fp.w, size.w - fp.h)));
+  const saves = longest ? Math.max(0, (longest.length - uTurn) / 2 - longest.width - 0.5e-3) : 0;
+  const base = 'it branches (junctions join three lines, or a ring closes), and only a row of lines from port to port folds here';
+  if (longest && saves < over) {
+    return `${base}; even so, its longest line (${longest.id}, ${mm(longest.length)}) folded once (two mitered bends ${mm(uTurn)} apart: 3 substrate heights between runs) would save at most ${mm(saves)} of the ${mm(over)} it is too large; give a larger footprint or leave it empty`;
+  }
+  return `${base}: a U-turn between its junctions would have to keep every path through them matched and clear of the others' lines, which is not done; give a larger footprint or leave it empty`;
 }
 
 interface Chain {

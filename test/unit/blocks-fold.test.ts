@@ -72,6 +72,23 @@ describe('a block folded to fit its footprint', () => {
     expect((err as InputError).field).toBe('corporate.footprint');
     expect((err as InputError).expected).toMatch(/at least \d+\.\d mm × \d+\.\d mm/);
   });
+  it('a feed whose row of outputs is wider than the footprint is refused saying the pitch sets it, and the pitch it names does fit', () => {
+    let err: unknown;
+    try { make('corporate', { outputs: '4', footprint: '150mm,80mm' }); } catch (e) { err = e; }
+    expect(err).toBeInstanceOf(InputError);
+    const hint = (err as InputError).hint ?? '';
+    expect(hint).toMatch(/4 outputs are \d+\.\d mm apart end to end on their row, set by the pitch; folding lines cannot bring them closer/);
+    const pitch = /a pitch of at most (\d+\.\d) mm/.exec(hint)?.[1];
+    expect(pitch).toBeDefined();
+    const doc = make('corporate', { outputs: '4', pitch: `${pitch}mm`, footprint: '150mm,80mm' });
+    expect(doc.blocks?.[0]?.kind).toBe('corporate');
+  });
+  it('a branched block whose lines are too short to gain from a fold is refused with the numbers: its longest line, what one U-turn saves, how much too large it is', () => {
+    let err: unknown;
+    try { make('stub-match', { load: '30-20j', footprint: '10mm,10mm' }); } catch (e) { err = e; }
+    expect(err).toBeInstanceOf(InputError);
+    expect((err as InputError).hint).toMatch(/only a row of lines from port to port folds here; even so, its longest line \(\S+, \d+\.\d mm\) folded once \(two mitered bends \d+\.\d mm apart: 3 substrate heights between runs\) would save at most \d+\.\d mm of the \d+\.\d mm it is too large/);
+  });
   it('a footprint that is not two lengths is refused in words', () => {
     expect(() => make('transformer', { footprint: '30mm' })).toThrow(/width,height/);
   });
