@@ -29,7 +29,11 @@ export default defineConfig({
     launchOptions: {
       executablePath: chromiumPath(),
       args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
-        '--disable-component-update', '--disable-sync'],
+        '--disable-component-update', '--disable-sync',
+        // The same pixels every run (README images): one colour profile, unhinted grey-scale text, whole-tile
+        // raster and no CPU-specific drawing paths.
+        '--force-color-profile=srgb', '--font-render-hinting=none', '--disable-lcd-text', '--disable-partial-raster',
+        '--disable-skia-runtime-opts'],
     },
   },
   projects: [

@@ -6,7 +6,24 @@
  * references in test/unit/blocks-registry.test.ts and test/reference/blocks-skrf.test.ts.
  */
 import { expect, test } from '@playwright/test';
-import { readmeShot } from './readme-shots.ts';
+import { writeFileSync } from 'node:fs';
+import type { Page } from '@playwright/test';
+import { readmeShotPath } from './readme-shots.ts';
+
+/**
+ * The page once it has stopped changing: screenshots are taken until two in a row are the same (at most 20), so an
+ * image never catches a frame half drawn. Animations are stopped and the caret hidden.
+ */
+async function stableShot(page: Page, name: string): Promise<void> {
+  let last = await page.screenshot({ animations: 'disabled', caret: 'hide' });
+  for (let k = 0; k < 20; k++) {
+    await page.waitForTimeout(250);
+    const next = await page.screenshot({ animations: 'disabled', caret: 'hide' });
+    if (next.equals(last)) break;
+    last = next;
+  }
+  writeFileSync(readmeShotPath(name), last);
+}
 
 /** Fields a block has no default for (our own example load). */
 const FILL: Record<string, Record<string, string>> = { 'stub-match': { load: '30-20j' } };
@@ -54,11 +71,14 @@ test('each block places from the picker and shows its copper and its response', 
     await expect(page.getByTestId('sweep-summary')).toContainText(range, { timeout: 60_000 });
     await expect(page.getByTestId('sweep-summary')).toContainText('201 points', { timeout: 60_000 });
     await expect(page.getByTestId('sweep-summary')).not.toContainText('first pass', { timeout: 60_000 });
+    // The response of the design's last revision, swept in full (not a coarse pass, not an older revision's).
+    await expect(page.getByTestId('sweep-summary')).toHaveAttribute('data-final', 'yes', { timeout: 60_000 });
     await page.mouse.move(1, 760);
     await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
-    await page.waitForTimeout(1000);
-    // The worker's timing in the status bar differs run to run: hidden, so the images are the same every time.
-    await page.getByTestId('layout-ms').evaluate((e) => { (e as HTMLElement).style.visibility = 'hidden'; });
-    await readmeShot(page, `block-${kind}.png`);
+    await page.evaluate(() => new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done))));
+    // The worker's timing in the status bar differs run to run: removed, so the images are the same every time.
+    // Taken out of the flow, not only hidden: its width (two or three digits) moved the status text's cut-off.
+    await page.getByTestId('layout-ms').evaluate((e) => { (e as HTMLElement).style.display = 'none'; });
+    await stableShot(page, `block-${kind}.png`);
   }
 });

@@ -81,8 +81,9 @@ export function placeRegistered(ed: EditorState, kind: string, raw: Record<strin
   const before = ed.doc;
   if (!put(ed, pl, `Place ${title.toLowerCase()}`)) return ed.status;
   ed.selectAndFrame(pl.record.members);
-  const band = bandChangeWords(before, ed.doc);
-  ed.status = `Placed: ${pl.name}${band ? `; ${band}` : ''}${pl.tolerances ? '; default tolerances added (yield panel)' : ''}`;
+  const b = ed.doc.frequency.band, widened = bandChangeWords(before, ed.doc) !== null;
+  const ghz = (f: number) => `${+(f / 1e9).toFixed(4)}`;
+  ed.status = `Placed: ${pl.name}${widened ? `; band now ${ghz(b.start)}–${ghz(b.stop)} GHz` : ''}${pl.tolerances ? '; default tolerances added' : ''}`;
   return null;
 }
 
