@@ -5,11 +5,12 @@
  * Both are checked with the file's own schemas and the cross-record check, so undo replays them like any edit.
  */
 import * as v from 'valibot';
-import { InputError } from '../util/errors.ts';
+import { InputError, describe } from '../util/errors.ts';
 import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup, PlacedBlock, Target, Tolerance } from './types.ts';
-import { nodeSchema, segmentSchema, phaseGroupSchema, placedBlockSchema, frequencySchema } from './schema.ts';
+import { nodeSchema, segmentSchema, phaseGroupSchema, placedBlockSchema, frequencySchema, vec2Schema } from './schema.ts';
 import { targetsSchema, tolerancesSchema } from './targets-schema.ts';
 import { checkWith, type Args, type DesignCommand } from './command-args.ts';
+import { pasteClipboard } from './clipboard.ts';
 import { crossCheck } from './crossref.ts';
 
 type Command = DesignCommand;
@@ -82,5 +83,26 @@ export const blockDetach: Command = {
     const blocks = doc.blocks ?? [];
     if (typeof id !== 'string' || !blocks.some((b) => b.id === id)) throw new InputError('bad-choice', 'args.id', `a placed block of this design (${blocks.map((b) => b.id).join(', ') || 'none'})`, JSON.stringify(id));
     return { ...doc, blocks: blocks.filter((b) => b.id !== id) };
+  },
+};
+
+/**
+ * `block.paste`: the coupled-line blocks (coupler, band-pass: core/blocks' direct generators, pasted as plain pieces)
+ * in one step with what a placed block brings: the design band widened to the block's, and for a design with no
+ * pieces and no tolerances the block's default tolerances.
+ */
+export const blockPaste: Command = {
+  id: 'block.paste', label: 'Place block',
+  run(doc, a) {
+    const clip = typeof a.clipboard === 'string' ? a.clipboard : '';
+    if (!clip) throw new InputError('invalid-design', 'args.clipboard', 'the block\'s pieces as clipboard text', describe(a.clipboard));
+    const offset = checkWith(vec2Schema, a.offset ?? { x: 0, y: 0 }, 'args.offset');
+    const band = a.band === undefined ? null : checkWith(frequencySchema.entries.band, a.band, 'args.band') as { start: number; stop: number };
+    const tolerances = a.tolerances === undefined ? null : checkWith(tolerancesSchema, a.tolerances, 'args.tolerances') as Tolerance[];
+    const empty = !doc.nodes.length && !doc.segments.length && !(doc.tolerances ?? []).length;
+    let next = pasteClipboard(doc, clip, offset).doc;
+    if (band) next = coverBand(next, band);
+    if (tolerances && empty) next = { ...next, tolerances };
+    return settled(this.id, next);
   },
 };

@@ -8,7 +8,7 @@
  * let doc = newDesign();
  * doc = runCommand(doc, 'node.add', { at: { x: 0, y: 0 }, spec: { kind: 'port' } });
  */
-import { blockPut, blockDetach } from './commands-blocks.ts';
+import { blockPut, blockDetach, blockPaste } from './commands-blocks.ts';
 import * as v from 'valibot';
 import { InputError, describe } from '../util/errors.ts';
 import type { Vec2 } from '../geometry/types.ts';
@@ -518,7 +518,7 @@ const viewSet: DesignCommand = {
 export const DESIGN_COMMANDS: ReadonlyMap<string, DesignCommand> = new Map(
   [nodeAdd, nodeMove, nodeSetSpec, segmentAdd, segmentSetSpec, selectionDelete, selectionTranslate, selectionRotate, selectionMirror,
     selectionPaste, setSubstrate, setFrequency, setProcess, setJunctions, setAsMade, setInfo, runExtend, segmentSplit, areaAdd, areaSet, boardSetOutline,
-    phaseGroupSet, phaseGroupDelete, viewSet, setTargets, setTolerances, setSweep, setMeasured, setProximityLimit, applyEqualize, applyTune, blockPut, blockDetach, ...gestureCommands((d, id, args) => runCommand(d, id, args))].map((c) => [c.id, c]),
+    phaseGroupSet, phaseGroupDelete, viewSet, setTargets, setTolerances, setSweep, setMeasured, setProximityLimit, applyEqualize, applyTune, blockPut, blockDetach, blockPaste, ...gestureCommands((d, id, args) => runCommand(d, id, args))].map((c) => [c.id, c]),
 );
 
 /** Runs command `id` on `doc`; throws InputError on an unknown id or bad arguments. `doc` is never changed. */

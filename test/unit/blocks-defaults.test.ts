@@ -86,3 +86,18 @@ describe('placing a block widens the design band to cover the block\'s', () => {
     expect(() => runCommand(doc, 'block.put', { record: pl.record, nodes: pl.nodes, segments: pl.segments, band: { start: -1, stop: 2e9 } })).toThrow(/args\.band/);
   });
 });
+
+describe('block.paste (the coupled-line blocks placed as plain pieces)', () => {
+  it('widens the band and, into an empty design, brings the block\'s tolerances, in one step', async () => {
+    const { buildBlock, copySelection } = await import('../../core/index.ts');
+    const block = buildBlock({ kind: 'bandpass', order: 3, bw: 0.1, f0: 5.8e9, substrate: FR4, process: { kind: 'etch', edgeBias: 0, minFeature: 0.05e-3 } });
+    expect(block.tolerances.length).toBeGreaterThan(3);
+    const clipboard = copySelection(block, [...block.nodes.map((n) => n.id), ...block.segments.map((s) => s.id)]);
+    const empty = newDesign({ f0: F0, substrate: FR4 });
+    const next = runCommand(empty, 'block.paste', { clipboard, band: block.frequency.band, tolerances: block.tolerances });
+    expect(next.frequency.band.stop).toBe(Math.max(empty.frequency.band.stop, block.frequency.band.stop));
+    expect(next.tolerances).toEqual(block.tolerances);
+    const again = runCommand(next, 'block.paste', { clipboard, offset: { x: 0, y: 0.03 }, band: block.frequency.band, tolerances: [] });
+    expect(again.tolerances).toEqual(block.tolerances);
+  });
+});

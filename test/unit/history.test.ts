@@ -56,6 +56,8 @@ function everyCommand(d: DesignDoc): [string, Record<string, unknown>][] {
     ['block.put', { ...wilkinsonHere(d) }],
     // Detach needs a placed block: it runs on the demo with one placed (startOf below).
     ['block.detach', { id: 'b1' }],
+    // A coupled-line block pasted with its band (wider than the demo's) and tolerances the demo does not take (it has pieces).
+    ['block.paste', { clipboard: copySelection(d, ['up1']), offset: { x: 0, y: 0.03 }, band: { start: 1e9, stop: 9e9 }, tolerances: [{ quantity: 'h', distribution: 'normal', spread: 5e-5, scope: 'board' }] }],
     ['design.setMeasured', { measured: [{ id: 'm1', name: 'board.s1p', touchstone: '# GHz S RI R 50\n1 0.1 0\n', ports: ['in'] }] }],
   ];
 }
@@ -63,7 +65,7 @@ function everyCommand(d: DesignDoc): [string, Record<string, unknown>][] {
 /** A transformer block placed beside the demo's drawing (core/blocks), as the block.put command takes it. */
 function wilkinsonHere(d: DesignDoc) {
   const pl = blockPlacement(d, 'transformer', {}, { x: 0.1, y: 0 });
-  return { record: pl.record, nodes: pl.nodes, segments: pl.segments, phaseGroups: pl.phaseGroups, targets: pl.targets };
+  return { record: pl.record, nodes: pl.nodes, segments: pl.segments, phaseGroups: pl.phaseGroups, targets: pl.targets, band: pl.band };
 }
 /** The design each command's undo check starts from. */
 function startOf(id: string, demo: DesignDoc): DesignDoc { return id === 'block.detach' ? withBlock(demo, wilkinsonHere(demo)) : demo; }

@@ -26,7 +26,8 @@ export function placeBlock(ed: EditorState, ask: BlockAsk): string | null {
   const offset = doc.nodes.length ? { x: Math.max(...xs) + 5e-3 - bx, y: Math.max(...doc.nodes.map((n) => n.at.y)) - Math.max(...ys) } : { x: 0, y: 0 };
   const clipboard = JSON.stringify({ format: 'stripwright-clipboard', version: 1, nodes: block.nodes, segments: block.segments, areas: [] });
   const before = new Set([...doc.nodes.map((n) => n.id), ...doc.segments.map((s) => s.id)]);
-  const ok = ed.edit('selection.paste', { clipboard, offset }, ask.kind === 'coupler' ? 'Place coupler' : 'Place band-pass filter');
+  // One step with the block's band (widening the design's) and, for an empty design, its default tolerances.
+  const ok = ed.edit('block.paste', { clipboard, offset, band: block.frequency.band, tolerances: block.tolerances }, ask.kind === 'coupler' ? 'Place coupler' : 'Place band-pass filter');
   if (!ok) return ed.status;
   const added = [...ed.doc.nodes.map((n) => n.id), ...ed.doc.segments.map((s) => s.id)].filter((id) => !before.has(id));
   ed.selectAndFrame(added);
