@@ -43,6 +43,13 @@ const PICK_PX = 6;
 const RULER_PX = 22;
 const mm = (v: number) => v * 1000;
 
+/** Sets a class only when it differs (an unchanged write still makes the browser restyle the element). */
+function setClass(el: SvgElement, c: string): void {
+  if (el.node.getAttribute('class') !== c) el.node.setAttribute('class', c);
+}
+
+function remember<K extends object, V>(m: WeakMap<K, V>, k: K, v: V): V { m.set(k, v); return v; }
+
 function polyPoints(pts: Vec2[]): [number, number][] {
   return pts.map((p) => [mm(p.x), mm(p.y)]);
 }
@@ -75,6 +82,8 @@ export class BoardController {
   private pieceEls = new Map<string, { el: Path; src: ScenePiece; d: string }>();
   private lineEls = new Map<string, { el: SvgElement; key: string }>();
   private nodeEls = new Map<string, { el: SvgElement; key: string }>();
+  private readonly clPoints = new WeakMap<Vec2[], [number, number][]>();
+  private readonly clText = new WeakMap<Vec2[], string>();
   private portLabelEls = new Map<string, { el: SvgElement; text: string; x: string; y: string }>();
   private partValueEls: SvgElement[] = [];
   private drillKey = '';
@@ -289,11 +298,12 @@ export class BoardController {
       if (this.marks.near?.has(s.id)) cls.push('near');
       if (this.marks.hovered === s.id) cls.push('hovered');
       if (!s.centreline) cls.push('unsized');
-      const points = polyPoints(pts);
+      // A centreline the layout did not change is the same array as before: its text is kept, not made again.
+      const points = s.centreline ? (this.clPoints.get(s.centreline) ?? remember(this.clPoints, s.centreline, polyPoints(pts))) : polyPoints(pts);
       const c = cls.join(' ');
-      const text = points.join(' ');
+      const text = s.centreline ? (this.clText.get(s.centreline) ?? remember(this.clText, s.centreline, points.join(' '))) : points.join(' ');
       this.keyed(this.lineEls, s.id, `${c}|${text}`, () => this.lineLayer.polyline(points).attr({ class: c, 'data-seg': s.id }), seen,
-        (el) => { el.node.setAttribute('points', text); el.node.setAttribute('class', c); return true; });
+        (el) => { el.node.setAttribute('points', text); setClass(el, c); return true; });
     }
     for (const [id, { el }] of this.lineEls) if (!seen.has(id)) { el.remove(); this.lineEls.delete(id); }
   }
@@ -331,7 +341,7 @@ export class BoardController {
       const rr = String(r * (n.kind === 'vertex' ? 0.7 : 1));
       const update = (el: SvgElement): boolean => {
         if (!round || el.node.nodeName !== 'circle' || el.node.getAttribute('r') !== rr) return false;
-        el.node.setAttribute('cx', String(x)); el.node.setAttribute('cy', String(y)); el.node.setAttribute('class', c);
+        el.node.setAttribute('cx', String(x)); el.node.setAttribute('cy', String(y)); setClass(el, c);
         return true;
       };
       this.keyed(this.nodeEls, n.id, `${c}|${x}|${y}|${r}`, () => {

@@ -26,6 +26,8 @@ export const COARSE_POINTS = 21;
  * finishes, so a drag keeps showing full responses instead of cancelling each one before it ends.
  */
 export const LIVE_SWEEP_BUDGET_MS = 400;
+/** A design whose last full sweep took at most this (ms) is swept live without the coarse pass first. */
+export const DIRECT_FULL_MS = 100;
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -153,6 +155,18 @@ export class Compute {
     if (this.livePassFull && this.lastFullMs > LIVE_SWEEP_BUDGET_MS) this.livePass?.abort();
   }
 
+  /**
+   * The figure table is on screen: live passes work it out too. Otherwise they leave it out (a quarter of a pass of
+   * the 64-output feed), and showing the table asks for it (showFigures).
+   */
+  private figuresShown = false;
+
+  /** The Response panel shows (or hides) the figure table; a shown table of a response without figures is worked out (the sweep itself comes from the worker's cache). */
+  showFigures(on: boolean): void {
+    this.figuresShown = on;
+    if (on && this.response && this.response.figures === null) this.follow();
+  }
+
   private livePass: AbortController | null = null;
   private livePassFull = false;
 
@@ -166,18 +180,21 @@ export class Compute {
     // Cancel (or an explicit sweep) stops the loop; a newer revision stops only a long pass (follow).
     const cancel = () => this.livePass?.abort();
     stop.signal.addEventListener('abort', cancel);
+    let retried = false;
     try {
       for (;;) {
         const revision = this.editor.revision;
         const doc = this.editor.doc;
         const settings = designSweepSettings(doc);
         this.responseProgress = { done: 0, total: 1, label: 'starting' };
-        const passes = settings.points > COARSE_POINTS ? [{ ...settings, points: COARSE_POINTS }, settings] : [settings];
+        // A coarse pass first only where the full one is slow: a quick full pass is shown sooner alone.
+        const coarseFirst = settings.points > COARSE_POINTS && !(this.lastFullMs > 0 && this.lastFullMs <= DIRECT_FULL_MS);
+        const passes = coarseFirst ? [{ ...settings, points: COARSE_POINTS }, settings] : [settings];
         for (const s of passes) {
           const pass = new AbortController();
           this.livePass = pass;
           this.livePassFull = s === settings;
-          const out = await this.respond({ doc, settings: s }, onProgress, pass.signal);
+          const out = await this.respond({ doc, settings: s, figures: this.figuresShown }, onProgress, pass.signal);
           if (this.sweepStop !== stop) return; // an explicit sweep took over
           if (out.ok) {
             this.responseCoarse = s !== settings;
@@ -192,7 +209,11 @@ export class Compute {
           if (stop.signal.aborted) { this.responseCancelled = true; return; }
           break; // a long pass of a stale revision, stopped for the newest one
         }
-        if (this.editor.revision === revision) return;
+        if (this.editor.revision === revision) {
+          // The table was asked for while a pass without it ran: once more, from the worker's cached sweep.
+          if (!retried && this.figuresShown && this.response?.figures === null) { retried = true; continue; }
+          return;
+        }
       }
     } finally {
       stop.signal.removeEventListener('abort', cancel);

@@ -36,7 +36,11 @@ export interface LayoutInput { doc: DesignDoc; /** Also work out each path's pha
 export interface LayoutOutput { sized: SizedView; outlines: (PieceOutline & { d: string })[]; drills: DrillHit[]; paths: PathReport[]; geometryError: string | null }
 
 /** The design, and settings that override its own (absent: core designSweepSettings). */
-export interface ResponseInput { doc: DesignDoc; settings?: SweepSettings }
+export interface ResponseInput {
+  doc: DesignDoc; settings?: SweepSettings;
+  /** false: leave out the derived figure table (a live pass while the table is not on screen; it costs a quarter of a pass). */
+  figures?: boolean;
+}
 /** Plot-ready series: for every (i, j) pair |S| in dB, phase in degrees and group delay in s; reflections for Smith. */
 export interface ResponseOutput {
   freqs: number[];
@@ -51,7 +55,8 @@ export interface ResponseOutput {
   /** The settings swept (targets' band edges are added to their frequencies) and whether the cache answered. */
   settings: SweepSettings;
   cached: boolean;
-  figures: FigureTable;
+  /** The derived figures (core figureTable); null when the request left them out. */
+  figures: FigureTable | null;
   /** The design's targets on this sweep (core evaluateTargets, as `build`), null without targets or on an error. */
   targets: TargetEvaluation | null;
   targetError: string | null;
@@ -230,7 +235,7 @@ export async function responseJob(input: ResponseInput, progress: (p: Progress) 
   return {
     freqs: [...r.freqs], ports: ids, labels: ids.map(namer(doc)), zRef: r.ports.map((p) => p.zRef), input: inputPort,
     settings, cached, traces, smith: sm,
-    figures: figureTable(r, doc, inputPort), targets, targetError,
+    figures: input.figures === false ? null : figureTable(r, doc, inputPort), targets, targetError,
     warnings: [...meta.warnings, ...r.warnings.map((w) => w.message)],
   };
 }
