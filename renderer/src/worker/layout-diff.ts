@@ -23,14 +23,17 @@ export function sameData(a: unknown, b: unknown): boolean {
     return true;
   }
   if (Array.isArray(b)) return false;
-  const ka = Object.keys(a), kb = Object.keys(b);
-  if (ka.length !== kb.length) return false;
+  // for…in rather than Object.keys: no key arrays made (this runs over a whole sized design per drag move).
   const ob = b as Record<string, unknown>, oa = a as Record<string, unknown>;
-  for (const k of ka) {
-    if (!(k in ob)) return false;
-    if (!sameData(oa[k], ob[k])) return false;
+  let n = 0;
+  for (const k in oa) {
+    n++;
+    const x = oa[k], y = ob[k];
+    if (x !== y && !sameData(x, y)) return false;
+    if (y === undefined && !(k in ob)) return false;
   }
-  return true;
+  for (const _k in ob) n--;
+  return n === 0;
 }
 
 const isPlain = (x: unknown): x is Record<string, unknown> => typeof x === 'object' && x !== null && !Array.isArray(x);
