@@ -33,7 +33,8 @@ export function packResponse(r: ResponseOutput): ResponsePost {
 export function unpackResponse(p: ResponsePost): ResponseOutput {
   const n = p.head.freqs.length;
   let at = 0;
-  const next = () => { const k = at; at += n; return () => Array.from(p.series.subarray(k, k + n)); };
+  // A plain loop: Array.from over a typed array walks it through the iterator protocol, ten times slower.
+  const next = () => { const k = at; at += n; return () => { const out = new Array<number>(n); for (let i = 0; i < n; i++) out[i] = p.series[k + i]!; return out; }; };
   const traces = p.traces.map(({ i, j }) => {
     const db = next(), phase = next(), delay = next();
     return lazy({ i, j }, { db, phase, delay }) as ResponseOutput['traces'][number];
