@@ -150,17 +150,32 @@ async function startProfile(page: Page): Promise<() => Promise<string>> {
   await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
   await cdp.send('Profiler.start');
   return async () => {
-    const { profile } = (await cdp.send('Profiler.stop')) as { profile: { nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number } }[]; samples: number[]; timeDeltas: number[] } };
+    const { profile } = (await cdp.send('Profiler.stop')) as { profile: { nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number }; children?: number[] }[]; samples: number[]; timeDeltas: number[] } };
     await cdp.detach();
     const byId = new Map(profile.nodes.map((n) => [n.id, n]));
+    const parent = new Map<number, number>();
+    for (const n of profile.nodes) for (const c of n.children ?? []) parent.set(c, n.id);
+    const name = (id: number | undefined) => {
+      const f = id === undefined ? null : byId.get(id)?.callFrame;
+      return f ? `${f.functionName || '(anonymous)'} ${f.url.split('/').pop() ?? ''}:${f.lineNumber}` : '(root)';
+    };
     const self = new Map<string, number>();
+    // Built-in functions (setAttribute, getBBox, ...) say little alone: their callers say who asked.
+    const callers = new Map<string, Map<string, number>>();
     profile.samples.forEach((id, i) => {
-      const f = byId.get(id)!.callFrame;
-      const key = `${f.functionName || '(anonymous)'} ${f.url.split('/').pop() ?? ''}:${f.lineNumber}`;
-      self.set(key, (self.get(key) ?? 0) + (profile.timeDeltas[i] ?? 0) / 1000);
+      const key = name(id);
+      const ms = (profile.timeDeltas[i] ?? 0) / 1000;
+      self.set(key, (self.get(key) ?? 0) + ms);
+      const by = callers.get(key) ?? new Map<string, number>();
+      callers.set(key, by);
+      const up = name(parent.get(id));
+      by.set(up, (by.get(up) ?? 0) + ms);
     });
     const total = [...self.values()].reduce((a, b) => a + b, 0);
-    return `main-thread profile over the drag (self time, ${total.toFixed(0)} ms sampled):\n` +
-      [...self].sort((a, b) => b[1] - a[1]).slice(0, 25).map(([k, ms]) => `  ${ms.toFixed(1).padStart(8)} ms  ${k}`).join('\n');
+    return `main-thread profile over the drag (self time, ${total.toFixed(0)} ms sampled; after a built-in, its callers):\n` +
+      [...self].sort((a, b) => b[1] - a[1]).slice(0, 25).map(([k, ms]) => {
+        const up = k.includes(':-1') && !k.startsWith('(') ? `  ← ${[...callers.get(k)!].sort((a, b) => b[1] - a[1]).slice(0, 3).map(([c, t]) => `${c} ${t.toFixed(0)} ms`).join(', ')}` : '';
+        return `  ${ms.toFixed(1).padStart(8)} ms  ${k}${up}`;
+      }).join('\n');
   };
 }

@@ -4,7 +4,9 @@
  *     its copper (the worker's layout job: sizing + each piece's outline) and to its 201-point response (the response
  *     job), plus a coarse 21-point response that could be drawn first. Median and p90 over the moves. Targets: copper
  *     under one 60 Hz frame (16.7 ms), the 201-point response under 150 ms. These run the worker's own job functions
- *     in Node (no browser: frame.bench.ts times the page's side of a drag).
+ *     in Node with their transport as the app has it (the layout as changes, the response packed, each cloned by v8
+ *     serialize as postMessage clones it, live passes without the figure table; no browser: frame.bench.ts times
+ *     the page's side of a drag).
  *  2. Growth of sizing + board geometry from 256 to 1024 outputs (fresh pipeline per run, line cache shared as a face
  *     shares it): the exponent of time against pieces (1.0 = linear; target ≤ 1.1).
  *  3. Reuse: every job the app runs for one revision (layout, check, preview, export of DXF + Gerber + drill,
@@ -16,7 +18,10 @@ import { readFileSync } from 'node:fs';
 import { corporateFeed, designSweepSettings, type DesignDoc } from '../core/index.ts';
 import { initPolygons } from '../core/geometry/polygons.ts';
 import { DesignPipeline, exportDesign } from '../core/pipeline/index.ts';
-import { layoutJob, responseJob, pipeline as workerPipeline } from '../renderer/src/worker/jobs.ts';
+import { layoutPostJob, responseJob, pipeline as workerPipeline } from '../renderer/src/worker/jobs.ts';
+import { LayoutReceiver, type LayoutPost } from '../renderer/src/worker/layout-post.ts';
+import { packResponse } from '../renderer/src/worker/response-post.ts';
+import { deserialize, serialize } from 'node:v8';
 
 /** CPU time of this process, ms (user + system): unlike wall time, other jobs on the machine barely change it. */
 const cpuMs = () => { const u = process.cpuUsage(); return (u.user + u.system) / 1000; };
@@ -38,18 +43,21 @@ async function editFrame(): Promise<void> {
   const doc = feed64();
   const bend = doc.nodes.find((n) => n.kind === 'vertex')!.id;
   const moves = 12;
-  await layoutJob({ doc }, none); // warm the line cache and the JIT, as an open editor is
+  const page = new LayoutReceiver();
+  page.decode(await layoutPostJob({ doc, base: page.token }, none)); // warm the line cache and the JIT, as an open editor is
   await responseJob({ doc, settings: { ...designSweepSettings(doc), points: 21 } }, none);
   const wall = { copper: [] as number[], coarse: [] as number[], full: [] as number[] };
   const cpu = { copper: [] as number[], coarse: [] as number[], full: [] as number[] };
   for (let k = 1; k <= moves; k++) {
     const d = moved(doc, bend, k);
     const t0 = performance.now(), c0 = cpuMs();
-    await layoutJob({ doc: d }, none);
+    // As the page gets them: the layout as changes against the last one, cloned as postMessage clones (v8
+    // serialize), decoded; the response's series packed in one block and cloned the same way.
+    page.decode(deserialize(serialize(await layoutPostJob({ doc: d, base: page.token }, none))) as LayoutPost);
     const t1 = performance.now(), c1 = cpuMs();
-    await responseJob({ doc: d, settings: { ...designSweepSettings(d), points: 21 } }, none);
+    deserialize(serialize(packResponse(await responseJob({ doc: d, settings: { ...designSweepSettings(d), points: 21 }, figures: false }, none))));
     const t2 = performance.now(), c2 = cpuMs();
-    await responseJob({ doc: d, settings: { ...designSweepSettings(d), points: 201 } }, none);
+    deserialize(serialize(packResponse(await responseJob({ doc: d, settings: { ...designSweepSettings(d), points: 201 }, figures: false }, none))));
     const t3 = performance.now(), c3 = cpuMs();
     wall.copper.push(t1 - t0); wall.coarse.push(t2 - t1); wall.full.push(t3 - t2);
     cpu.copper.push(c1 - c0); cpu.coarse.push(c2 - c1); cpu.full.push(c3 - c2);

@@ -8,7 +8,7 @@
 import { describe, expect, it, vi } from 'vitest';
 import { render, screen, waitFor } from '@testing-library/svelte';
 import { editorOn } from './harness.ts';
-import { COARSE_POINTS, Compute, LIVE_SWEEP_BUDGET_MS } from '../../renderer/src/state/compute.svelte.ts';
+import { COARSE_POINTS, Compute, DIRECT_FULL_MS, LIVE_SWEEP_BUDGET_MS } from '../../renderer/src/state/compute.svelte.ts';
 import { layoutJob, responseJob } from '../../renderer/src/worker/jobs.ts';
 import { designSweepSettings } from '../../core/index.ts';
 import ResponsePanel from '../../renderer/src/components/ResponsePanel.svelte';
@@ -153,7 +153,8 @@ describe('the response follows edits (Compute.follow)', () => {
     const revisions = [...new Set(shown.map((s) => s.revision))];
     expect(revisions.length).toBeLessThanOrEqual(2);
     expect(revisions.at(-1)).toBe(last);
-    expect(shown.filter((s) => s.revision === last).map((s) => s.points)).toEqual([COARSE_POINTS, full]);
+    // Its coarse pass is left out when the full sweep before it was quick (DIRECT_FULL_MS; the machine decides).
+    expect([[COARSE_POINTS, full], [full]]).toContainEqual(shown.filter((s) => s.revision === last).map((s) => s.points));
     // The same numbers as an explicit sweep of the same design.
     const again = await responseJob({ doc: ed.doc }, () => {});
     expect(compute.response!.traces[1]!.db).toEqual(again.traces[1]!.db);
@@ -186,4 +187,48 @@ describe('a long live sweep gives way to the newest edit', () => {
     expect(compute.responseCancelled).toBe(false);
     compute.destroy();
   }, 180_000);
+});
+
+describe('live passes: a coarse pass only where it helps, the figure table only where it is shown', () => {
+  function recording(compute: Compute) {
+    const shown: { points: number; figures: boolean }[] = [];
+    const set = Object.getOwnPropertyDescriptor(Object.getPrototypeOf(compute), 'response')!.set!;
+    Object.defineProperty(compute, 'response', {
+      configurable: true,
+      get: () => Object.getOwnPropertyDescriptor(Object.getPrototypeOf(compute), 'response')!.get!.call(compute),
+      set: (v) => { set.call(compute, v); if (v) shown.push({ points: v.settings.points, figures: v.figures !== null }); },
+    });
+    return shown;
+  }
+  it('after a full sweep within DIRECT_FULL_MS the next revision is swept full at once; an unknown or slow one gets the coarse pass first', async () => {
+    const ed = editorOn('wilkinson-2g45');
+    const full = designSweepSettings(ed.doc).points;
+    for (const [last, want] of [[0, [COARSE_POINTS, full]], [DIRECT_FULL_MS + 1, [COARSE_POINTS, full]], [DIRECT_FULL_MS, [full]]] as const) {
+      const compute = new Compute(ed, null);
+      const shown = recording(compute);
+      (compute as unknown as { lastFullMs: number }).lastFullMs = last;
+      compute.follow();
+      await vi.waitFor(() => expect(compute.sweeping).toBe(false), { timeout: 60_000, interval: 20 });
+      expect(shown.map((x) => x.points), `last full sweep ${last} ms`).toEqual(want);
+      compute.destroy();
+    }
+  }, 120_000);
+  it('live passes leave the figures out until the table is shown; then the same response comes with them, equal to an explicit sweep\'s', async () => {
+    const ed = editorOn('wilkinson-2g45');
+    const compute = new Compute(ed, null);
+    const shown = recording(compute);
+    compute.follow();
+    await vi.waitFor(() => expect(compute.sweeping).toBe(false), { timeout: 60_000, interval: 20 });
+    expect(shown.every((x) => !x.figures)).toBe(true);
+    compute.showFigures(true);
+    await vi.waitFor(() => expect(compute.response?.figures).not.toBeNull(), { timeout: 60_000, interval: 20 });
+    await vi.waitFor(() => expect(compute.sweeping).toBe(false), { timeout: 60_000, interval: 20 });
+    const explicit = await responseJob({ doc: ed.doc }, () => {});
+    expect(compute.response!.figures).toEqual(explicit.figures);
+    // Only the table differs between a pass with and without it.
+    const without = await responseJob({ doc: ed.doc, figures: false }, () => {});
+    expect(without.figures).toBeNull();
+    expect({ ...without, figures: explicit.figures, cached: explicit.cached }).toEqual(explicit);
+    compute.destroy();
+  }, 120_000);
 });

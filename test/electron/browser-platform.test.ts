@@ -5,7 +5,7 @@
 // opening through <input type=file>, saving through <a download>.
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { createBrowserPlatform, HEARTBEAT_MS, SESSION_DEAD_MS } from '../../renderer/src/platform/browser.ts';
-import { createAutosaver, IDLE_MS, MAX_MS } from '../../renderer/src/platform/autosave.ts';
+import { createAutosaver, HOLD_POLL_MS, IDLE_MS, MAX_MS } from '../../renderer/src/platform/autosave.ts';
 import { createDesktopPlatform } from '../../renderer/src/platform/desktop.ts';
 import { getPlatform, setPlatformForTesting } from '../../renderer/src/platform/index.ts';
 import type { Platform } from '../../renderer/src/platform/types.ts';
@@ -145,6 +145,26 @@ describe('autosave schedule', () => {
     const gaps = r.writes.slice(1).map((w, i) => w - r.writes[i]!);
     expect(r.writes.length).toBeGreaterThanOrEqual(3);
     expect(Math.max(r.writes[0]!, ...gaps)).toBeLessThanOrEqual(MAX_MS);
+  });
+  it('a copy that falls due during a drag waits for the drag to end, then is written within HOLD_POLL_MS', async () => {
+    vi.useFakeTimers({ now: 0 });
+    const r = recorder();
+    let dragging = true;
+    const snaps: number[] = [];
+    const a = createAutosaver({ platform: r.platform, snapshot: () => { snaps.push(Date.now()); return { docId: 'd', name: 'n', path: null, text: DESIGN }; }, holdWhile: () => dragging });
+    for (let t = 0; t < 3 * MAX_MS; t += 50) { a.changed(); await vi.advanceTimersByTimeAsync(50); }
+    // Nothing serialised mid-drag, however long it lasts.
+    expect(snaps).toEqual([]);
+    expect(r.writes).toEqual([]);
+    dragging = false;
+    await vi.advanceTimersByTimeAsync(HOLD_POLL_MS);
+    expect(r.writes).toEqual([3 * MAX_MS + HOLD_POLL_MS]);
+    // A flush (the shell closing) is never held.
+    dragging = true;
+    r.flush();
+    await vi.advanceTimersByTimeAsync(0);
+    expect(r.writes.length).toBe(2);
+    a.stop();
   });
   it('writes nothing when the snapshot says nothing is unsaved, and stops after saved()', async () => {
     vi.useFakeTimers({ now: 0 });

@@ -43,6 +43,13 @@ const PICK_PX = 6;
 const RULER_PX = 22;
 const mm = (v: number) => v * 1000;
 
+/** Sets a class only when it differs (an unchanged write still makes the browser restyle the element). */
+function setClass(el: SvgElement, c: string): void {
+  if (el.node.getAttribute('class') !== c) el.node.setAttribute('class', c);
+}
+
+function remember<K extends object, V>(m: WeakMap<K, V>, k: K, v: V): V { m.set(k, v); return v; }
+
 function polyPoints(pts: Vec2[]): [number, number][] {
   return pts.map((p) => [mm(p.x), mm(p.y)]);
 }
@@ -75,6 +82,10 @@ export class BoardController {
   private pieceEls = new Map<string, { el: Path; src: ScenePiece; d: string }>();
   private lineEls = new Map<string, { el: SvgElement; key: string }>();
   private nodeEls = new Map<string, { el: SvgElement; key: string }>();
+  private readonly clPoints = new WeakMap<Vec2[], [number, number][]>();
+  private readonly clText = new WeakMap<Vec2[], string>();
+  private portLabelEls = new Map<string, { el: SvgElement; text: string; x: string; y: string }>();
+  private partValueEls: SvgElement[] = [];
   private drillKey = '';
   private panning: { x: number; y: number; id: number } | null = null;
   private spaceDown = false;
@@ -250,22 +261,29 @@ export class BoardController {
       // The worker sends each piece's path text ready-made, so comparing is all the main thread does.
       const d = p.d ?? regionsPath(p.regions);
       if (have) {
-        // A new layout result brings new objects for every piece; touch the DOM only where the copper moved.
-        if (have.d !== d) { have.el.plot(d); have.d = d; }
+        // Touch the DOM only where the copper moved. The path text goes straight to the attribute: svg.js's plot()
+        // would parse it into segments and print it again, for every moved piece of a drag.
+        if (have.d !== d) { have.el.node.setAttribute('d', d); have.d = d; }
         have.src = p;
         continue;
       }
-      const el = this.copperLayer.path(d).attr({ class: this.pieceClass(p.id), 'fill-rule': 'evenodd', 'data-piece': p.id });
+      const el = this.copperLayer.path().attr({ class: this.pieceClass(p.id), 'fill-rule': 'evenodd', 'data-piece': p.id });
+      el.node.setAttribute('d', d);
       this.pieceEls.set(p.id, { el, src: p, d });
     }
     for (const [id, { el }] of this.pieceEls) if (!seen.has(id)) { el.remove(); this.pieceEls.delete(id); }
   }
 
-  /** Keeps one element per id, updating attributes only when its key (shape and class) changed. */
-  private keyed(map: Map<string, { el: SvgElement; key: string }>, id: string, key: string, make: () => SvgElement, seen: Set<string>): void {
+  /**
+   * Keeps one element per id, touching it only when its key (shape and class) changed: then `update` sets its
+   * attributes in place (a drag moves half the marks of a feed on every layout; making them anew costs frames), or,
+   * without `update` or when it says it cannot (another shape), the element is made again.
+   */
+  private keyed(map: Map<string, { el: SvgElement; key: string }>, id: string, key: string, make: () => SvgElement, seen: Set<string>, update?: (el: SvgElement) => boolean): void {
     seen.add(id);
     const have = map.get(id);
     if (have && have.key === key) return;
+    if (have && update?.(have.el)) { have.key = key; return; }
     have?.el.remove();
     map.set(id, { el: make(), key });
   }
@@ -280,9 +298,12 @@ export class BoardController {
       if (this.marks.near?.has(s.id)) cls.push('near');
       if (this.marks.hovered === s.id) cls.push('hovered');
       if (!s.centreline) cls.push('unsized');
-      const points = polyPoints(pts);
+      // A centreline the layout did not change is the same array as before: its text is kept, not made again.
+      const points = s.centreline ? (this.clPoints.get(s.centreline) ?? remember(this.clPoints, s.centreline, polyPoints(pts))) : polyPoints(pts);
       const c = cls.join(' ');
-      this.keyed(this.lineEls, s.id, `${c}|${points.join(' ')}`, () => this.lineLayer.polyline(points).attr({ class: c, 'data-seg': s.id }), seen);
+      const text = s.centreline ? (this.clText.get(s.centreline) ?? remember(this.clText, s.centreline, points.join(' '))) : points.join(' ');
+      this.keyed(this.lineEls, s.id, `${c}|${text}`, () => this.lineLayer.polyline(points).attr({ class: c, 'data-seg': s.id }), seen,
+        (el) => { el.node.setAttribute('points', text); setClass(el, c); return true; });
     }
     for (const [id, { el }] of this.lineEls) if (!seen.has(id)) { el.remove(); this.lineEls.delete(id); }
   }
@@ -315,6 +336,14 @@ export class BoardController {
       if (this.marks.hovered === n.id) cls.push('hovered');
       const x = mm(n.at.x), y = mm(n.at.y);
       const c = cls.join(' ');
+      // A moved circle mark (bends, tees, ends: most of a drag) takes its new centre in place.
+      const round = n.kind !== 'port' && n.kind !== 'short';
+      const rr = String(r * (n.kind === 'vertex' ? 0.7 : 1));
+      const update = (el: SvgElement): boolean => {
+        if (!round || el.node.nodeName !== 'circle' || el.node.getAttribute('r') !== rr) return false;
+        el.node.setAttribute('cx', String(x)); el.node.setAttribute('cy', String(y)); setClass(el, c);
+        return true;
+      };
       this.keyed(this.nodeEls, n.id, `${c}|${x}|${y}|${r}`, () => {
         let el: SvgElement;
         // Positions as attributes: svg.js's center() asks the browser for a bounding box (a layout) per mark.
@@ -322,7 +351,7 @@ export class BoardController {
         else if (n.kind === 'short') el = this.nodeLayer.polygon([[x, y + 1.4 * r], [x + 1.4 * r, y], [x, y - 1.4 * r], [x - 1.4 * r, y]]);
         else el = this.nodeLayer.circle(2 * r * (n.kind === 'vertex' ? 0.7 : 1)).attr({ cx: x, cy: y });
         return el.attr({ class: c, 'data-node': n.id });
-      }, seen);
+      }, seen, update);
     }
     for (const [id, { el }] of this.nodeEls) if (!seen.has(id)) { el.remove(); this.nodeEls.delete(id); }
     const drillKey = this.scene.drills.map((d) => `${d.at.x},${d.at.y},${d.diameter}`).join(';');
@@ -393,12 +422,26 @@ export class BoardController {
       + '|' + parts.map((s) => `${s.id}:${s.part!.value}:${s.a.x},${s.a.y},${s.b.x},${s.b.y}`).join(';');
     if (key === this.labelKey) return;
     this.labelKey = key;
-    this.labelLayer.clear();
+    // Port labels are kept per port and moved in place (a drag moves many ports of a feed); part values are few.
+    for (const el of this.partValueEls) el.remove();
+    this.partValueEls = [];
+    const seen = new Set<string>();
     for (const n of ports) {
       const sp = toScreen(v, n.at);
       if (sp.x < -50 || sp.y < -20 || sp.x > v.width + 50 || sp.y > v.height + 20) continue;
-      this.labelLayer.plain(n.label ?? n.id).attr({ x: sp.x + 9, y: sp.y - 8, 'data-label': n.id }).addClass('port-label');
+      const text = n.label ?? n.id;
+      const x = String(sp.x + 9), y = String(sp.y - 8);
+      seen.add(n.id);
+      const have = this.portLabelEls.get(n.id);
+      if (have && have.text === text) {
+        if (have.x !== x || have.y !== y) { have.el.node.setAttribute('x', x); have.el.node.setAttribute('y', y); have.x = x; have.y = y; }
+        continue;
+      }
+      have?.el.remove();
+      const el = this.labelLayer.plain(text).attr({ x: sp.x + 9, y: sp.y - 8, 'data-label': n.id }).addClass('port-label');
+      this.portLabelEls.set(n.id, { el, text, x: el.node.getAttribute('x') ?? x, y: el.node.getAttribute('y') ?? y });
     }
+    for (const [id, { el }] of this.portLabelEls) if (!seen.has(id)) { el.remove(); this.portLabelEls.delete(id); }
     // Each part's value beside its body, offset across the line so it never covers the copper.
     for (const s of parts) {
       const a = toScreen(v, s.a), b = toScreen(v, s.b);
@@ -406,7 +449,7 @@ export class BoardController {
       const len = Math.hypot(b.x - a.x, b.y - a.y) || 1;
       const nx = -(b.y - a.y) / len, ny = (b.x - a.x) / len;
       const off = 10 + (mm(s.part!.body.across) * v.scale) / 2000;
-      this.labelLayer.plain(`${s.part!.value}`).attr({ x: mx + nx * off, y: my + ny * off + 4, 'text-anchor': Math.abs(nx) > 0.5 ? (nx > 0 ? 'start' : 'end') : 'middle', 'data-part-value': s.id }).addClass('part-value');
+      this.partValueEls.push(this.labelLayer.plain(`${s.part!.value}`).attr({ x: mx + nx * off, y: my + ny * off + 4, 'text-anchor': Math.abs(nx) > 0.5 ? (nx > 0 ? 'start' : 'end') : 'middle', 'data-part-value': s.id }).addClass('part-value'));
     }
   }
 

@@ -13,6 +13,8 @@ import type { AutosaveSnapshot, BridgeError, Platform } from './types.ts';
 export const IDLE_MS = 2_000;
 /** 8 s plus up to 2 s to write the copy: at most 10 s of editing lost (test/electron/autosave-bound.test.ts). */
 export const MAX_MS = 8_000;
+/** How often a copy held back by a drag in progress asks again whether the drag has ended. */
+export const HOLD_POLL_MS = 100;
 
 export interface AutosaverOptions {
   platform: Platform;
@@ -23,6 +25,12 @@ export interface AutosaverOptions {
   /** Told about each failed write (show it: the user should save by hand). Cleared by the next success. */
   onError?: (error: BridgeError) => void;
   onSaved?: (savedAt: number) => void;
+  /**
+   * While true (a drag in progress), a copy that falls due waits, asked again every HOLD_POLL_MS: serialising a large
+   * design mid-drag costs the pointer frames. It is written as soon as this turns false (the drag's end), so the
+   * bound above holds from then on; a flush the shell asks for (closing) is never held.
+   */
+  holdWhile?: () => boolean;
 }
 
 export interface Autosaver {
@@ -53,8 +61,17 @@ export function createAutosaver(o: AutosaverOptions): Autosaver {
     idleTimer = maxTimer = null;
   };
 
+  let holdTimer: ReturnType<typeof setTimeout> | null = null;
+  /** A copy that fell due: written now, unless a drag holds it back. */
+  const due = (): void => {
+    if (holdTimer) { clearTimeout(holdTimer); holdTimer = null; }
+    if (o.holdWhile?.()) { clear(); holdTimer = setTimeout(due, HOLD_POLL_MS); return; }
+    void write();
+  };
+
   const write = async (): Promise<void> => {
     clear();
+    if (holdTimer) { clearTimeout(holdTimer); holdTimer = null; }
     // One write at a time; an edit during a write asks for one more afterwards.
     if (writing) { again = true; return writing; }
     const snap = o.snapshot();
@@ -72,12 +89,14 @@ export function createAutosaver(o: AutosaverOptions): Autosaver {
   return {
     changed() {
       if (idleTimer) clearTimeout(idleTimer);
-      idleTimer = setTimeout(() => void write(), idleMs);
-      maxTimer ??= setTimeout(() => void write(), maxMs);
+      // A copy already held back by a drag stays due: the drag's end writes it.
+      if (holdTimer) return;
+      idleTimer = setTimeout(due, idleMs);
+      maxTimer ??= setTimeout(due, maxMs);
     },
     flush: write,
-    saved() { clear(); again = false; },
-    stop() { clear(); unsubscribe(); },
+    saved() { clear(); if (holdTimer) { clearTimeout(holdTimer); holdTimer = null; } again = false; },
+    stop() { clear(); if (holdTimer) { clearTimeout(holdTimer); holdTimer = null; } unsubscribe(); },
     get lastSavedAt() { return lastSavedAt; },
   };
 }

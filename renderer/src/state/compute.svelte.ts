@@ -5,12 +5,14 @@
  */
 import type { MeasuredFile } from '../../../core/index.ts';
 import type { CompareOutput } from '../worker/measured-job.ts';
-import { ComputeClient, type Progress } from '../worker/client.ts';
+import { ComputeClient, type JobOutcome, type Progress } from '../worker/client.ts';
+import { unpackResponse, type ResponsePost } from '../worker/response-post.ts';
 import type { JobKind } from '../worker/protocol.ts';
 import { runJob } from '../worker/jobs.ts';
 import { designSweepSettings } from '../../../core/index.ts';
 import type { EditorState } from './editor.svelte.ts';
-import { figuresFrom, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
+import { FiguresCache, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
+import { LayoutReceiver, type LayoutPost } from '../worker/layout-post.ts';
 import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput, YieldOutput } from '../worker/jobs.ts';
 import type { SectionOutput } from '../worker/section-job.ts';
 import type { SectionSpec } from '../../../core/index.ts';
@@ -24,6 +26,8 @@ export const COARSE_POINTS = 21;
  * finishes, so a drag keeps showing full responses instead of cancelling each one before it ends.
  */
 export const LIVE_SWEEP_BUDGET_MS = 400;
+/** A design whose last full sweep took at most this (ms) is swept live without the coarse pass first. */
+export const DIRECT_FULL_MS = 100;
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -64,23 +68,43 @@ export class Compute {
     void this.layout();
   }
 
+  /** The layout result the page holds, which the worker's next result is written against. */
+  private readonly received = new LayoutReceiver();
+  /** Each piece's figures, kept while the worker sends the same piece again. */
+  private readonly figures = new FiguresCache();
+
   private async layout(): Promise<void> {
     this.running = true;
     const revision = this.editor.revision;
     const doc = this.editor.doc;
     const t = setTimeout(() => { this.busy = 'sizing…'; }, 150);
-    const out = await this.client.run<LayoutOutput>('layout', { doc, sensitivities: this.editor.showSensitivity });
+    // Only what changed since the result the page holds crosses from the worker (worker/layout-post.ts).
+    const post = await this.client.run<LayoutPost>('layout', { doc, sensitivities: this.editor.showSensitivity, base: this.received.token });
     clearTimeout(t);
     this.busy = null;
     this.running = false;
-    if (out.ok) {
-      const v: LayoutView = { revision, sized: out.value.sized, outlines: out.value.outlines, drills: out.value.drills, paths: out.value.paths, placed: placedFrom(out.value.sized), figures: figuresFrom(out.value.sized), notes: nodeNotes(out.value.sized), ms: out.ms };
-      this.editor.applyLayout(v, out.value.geometryError);
-      this.lastLayoutMs = out.ms;
-    } else if ('error' in out) {
-      this.editor.layoutFailed(out.error.message);
+    let value: LayoutOutput | null = null;
+    if (post.ok) {
+      try { value = this.received.decode(post.value); } catch {
+        // Out of step with the worker (never expected): ask again for the whole result.
+        this.received.reset();
+        this.queued = true;
+      }
+    }
+    if (post.ok && value) {
+      const v: LayoutView = { revision, sized: value.sized, outlines: value.outlines, drills: value.drills, paths: value.paths, placed: placedFrom(value.sized), figures: this.figures.of(value.sized), notes: nodeNotes(value.sized), ms: post.ms };
+      this.editor.applyLayout(v, value.geometryError);
+      this.lastLayoutMs = post.ms;
+    } else if (!post.ok && 'error' in post) {
+      this.editor.layoutFailed(post.error.message);
     }
     if (this.queued) { this.queued = false; void this.layout(); }
+  }
+
+  /** A response job on the sweeper, its series sent packed (worker/response-post.ts) and unpacked here. */
+  private async respond(input: ResponseInput, progress: (p: Progress) => void, signal: AbortSignal): Promise<JobOutcome<ResponseOutput>> {
+    const out = await this.sweeper.run<ResponsePost>('response', input, progress, signal);
+    return out.ok ? { ok: true, value: unpackResponse(out.value), ms: out.ms } : out;
   }
 
   /**
@@ -101,12 +125,12 @@ export class Compute {
     const onProgress = (p: Progress) => { if (this.sweepStop === stop) this.responseProgress = p; };
     // A coarse pass first, so the plots follow an edit at once; the full sweep replaces it when it is done.
     if (settings.points > COARSE_POINTS) {
-      const coarse = await this.sweeper.run<ResponseOutput>('response', { ...input, doc, settings: { ...settings, points: COARSE_POINTS } }, onProgress, stop.signal);
+      const coarse = await this.respond({ ...input, doc, settings: { ...settings, points: COARSE_POINTS } }, onProgress, stop.signal);
       if (this.sweepStop !== stop) return;
       if (coarse.ok) { this.responseCoarse = true; this.response = coarse.value; this.responseRevision = revision; }
       // A failed coarse pass says nothing the full sweep will not say again: go on to it.
     }
-    const out = await this.sweeper.run<ResponseOutput>('response', { ...input, doc, settings }, onProgress, stop.signal);
+    const out = await this.respond({ ...input, doc, settings }, onProgress, stop.signal);
     if (this.sweepStop !== stop) return; // a newer sweep took over
     this.sweepStop = null;
     this.responseProgress = null;
@@ -131,6 +155,18 @@ export class Compute {
     if (this.livePassFull && this.lastFullMs > LIVE_SWEEP_BUDGET_MS) this.livePass?.abort();
   }
 
+  /**
+   * The figure table is on screen: live passes work it out too. Otherwise they leave it out (a quarter of a pass of
+   * the 64-output feed), and showing the table asks for it (showFigures).
+   */
+  private figuresShown = false;
+
+  /** The Response panel shows (or hides) the figure table; a shown table of a response without figures is worked out (the sweep itself comes from the worker's cache). */
+  showFigures(on: boolean): void {
+    this.figuresShown = on;
+    if (on && this.response && this.response.figures === null) this.follow();
+  }
+
   private livePass: AbortController | null = null;
   private livePassFull = false;
 
@@ -144,18 +180,21 @@ export class Compute {
     // Cancel (or an explicit sweep) stops the loop; a newer revision stops only a long pass (follow).
     const cancel = () => this.livePass?.abort();
     stop.signal.addEventListener('abort', cancel);
+    let retried = false;
     try {
       for (;;) {
         const revision = this.editor.revision;
         const doc = this.editor.doc;
         const settings = designSweepSettings(doc);
         this.responseProgress = { done: 0, total: 1, label: 'starting' };
-        const passes = settings.points > COARSE_POINTS ? [{ ...settings, points: COARSE_POINTS }, settings] : [settings];
+        // A coarse pass first only where the full one is slow: a quick full pass is shown sooner alone.
+        const coarseFirst = settings.points > COARSE_POINTS && !(this.lastFullMs > 0 && this.lastFullMs <= DIRECT_FULL_MS);
+        const passes = coarseFirst ? [{ ...settings, points: COARSE_POINTS }, settings] : [settings];
         for (const s of passes) {
           const pass = new AbortController();
           this.livePass = pass;
           this.livePassFull = s === settings;
-          const out = await this.sweeper.run<ResponseOutput>('response', { doc, settings: s }, onProgress, pass.signal);
+          const out = await this.respond({ doc, settings: s, figures: this.figuresShown }, onProgress, pass.signal);
           if (this.sweepStop !== stop) return; // an explicit sweep took over
           if (out.ok) {
             this.responseCoarse = s !== settings;
@@ -170,7 +209,11 @@ export class Compute {
           if (stop.signal.aborted) { this.responseCancelled = true; return; }
           break; // a long pass of a stale revision, stopped for the newest one
         }
-        if (this.editor.revision === revision) return;
+        if (this.editor.revision === revision) {
+          // The table was asked for while a pass without it ran: once more, from the worker's cached sweep.
+          if (!retried && this.figuresShown && this.response?.figures === null) { retried = true; continue; }
+          return;
+        }
       }
     } finally {
       stop.signal.removeEventListener('abort', cancel);

@@ -134,6 +134,9 @@ export class EditorState {
     }
   }
 
+  /** A pointer drag is in progress (a live step not opened by typing in a field): autosave waits for its end. */
+  get dragging(): boolean { return this.history.isLive && this.field === null; }
+
   /** The field being typed in, if any (see fieldStart). */
   private field: { changed: boolean } | null = null;
 

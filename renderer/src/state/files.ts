@@ -18,6 +18,8 @@ export class FileActions {
       platform,
       snapshot: () => (editor.dirty ? { docId: editor.docId, name: editor.doc.name, path: editor.file?.path ?? null, text: editor.serialize() } : null),
       onError: (e) => { editor.status = `Recovery copy failed (${e.message}); save by hand to keep your work.`; },
+      // Serialising a large design mid-drag costs pointer frames: the copy waits for the drag's end.
+      holdWhile: () => editor.dragging,
     });
   }
 

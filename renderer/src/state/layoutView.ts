@@ -28,19 +28,36 @@ export interface LayoutView {
 }
 
 export function figuresFrom(sized: SizedView): Map<string, PieceFigures> {
-  const m = new Map<string, PieceFigures>();
-  for (const p of sized.pieces) {
-    m.set(p.id, {
-      id: p.id, width: p.width, widthEnd: p.widthB, z0: p.z0, eeff: p.line?.epsEff, length: p.length, electricalDeg: p.effectiveDeg,
-      compensations: p.compensations.filter((c) => !c.junction).map((c) => ({ model: c.model, source: c.source, amount: c.amount_m, applied: c.applied, node: c.node, note: c.note })),
-      junctions: p.compensations.filter((c) => c.junction).map((c) => ({
-        node: c.node, kind: c.junction!.kind, role: c.junction!.role, source: c.source, modelled: c.junction!.modelled, inRange: c.junction!.inRange,
-        validity: c.junction!.validity, shift: c.model === 'tee-planes' ? -c.amount_m : null, residual: c.junction!.residual,
-      })),
-      warnings: p.warnings,
-    });
+  return new Map(sized.pieces.map((p) => [p.id, pieceFigures(p)]));
+}
+
+/**
+ * figuresFrom for a stream of layouts: a piece object the worker did not send again (layout-post.ts keeps it) keeps
+ * its figures, so a drag re-derives only the pieces it changed.
+ */
+export class FiguresCache {
+  private readonly made = new WeakMap<SizedView['pieces'][number], PieceFigures>();
+  of(sized: SizedView): Map<string, PieceFigures> {
+    const m = new Map<string, PieceFigures>();
+    for (const p of sized.pieces) {
+      let f = this.made.get(p);
+      if (!f) { f = pieceFigures(p); this.made.set(p, f); }
+      m.set(p.id, f);
+    }
+    return m;
   }
-  return m;
+}
+
+function pieceFigures(p: SizedView['pieces'][number]): PieceFigures {
+  return {
+    id: p.id, width: p.width, widthEnd: p.widthB, z0: p.z0, eeff: p.line?.epsEff, length: p.length, electricalDeg: p.effectiveDeg,
+    compensations: p.compensations.filter((c) => !c.junction).map((c) => ({ model: c.model, source: c.source, amount: c.amount_m, applied: c.applied, node: c.node, note: c.note })),
+    junctions: p.compensations.filter((c) => c.junction).map((c) => ({
+      node: c.node, kind: c.junction!.kind, role: c.junction!.role, source: c.source, modelled: c.junction!.modelled, inRange: c.junction!.inRange,
+      validity: c.junction!.validity, shift: c.model === 'tee-planes' ? -c.amount_m : null, residual: c.junction!.residual,
+    })),
+    warnings: p.warnings,
+  };
 }
 
 /** One line about a node for the hover readout: the bend, tee, end or via as the sizing made it. */

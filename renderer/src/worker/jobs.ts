@@ -21,6 +21,9 @@ import { regionsPath } from '../board/paths.ts';
 import { sectionJob, type SectionInput } from './section-job.ts';
 import { equalizeJob, tuneJob, type EqualizeInput, type TuneInput } from './equalize-job.ts';
 import { compareJob, touchstoneFile, reportFile, type CompareInput } from './measured-job.ts';
+import { LayoutSender, type LayoutPost } from './layout-post.ts';
+import { sameData } from './layout-diff.ts';
+import { packResponse } from './response-post.ts';
 
 /** The sized design as it crosses to the page: without the document, which the editor already holds. */
 export type SizedView = Omit<SizedDesign, 'doc'>;
@@ -33,7 +36,11 @@ export interface LayoutInput { doc: DesignDoc; /** Also work out each path's pha
 export interface LayoutOutput { sized: SizedView; outlines: (PieceOutline & { d: string })[]; drills: DrillHit[]; paths: PathReport[]; geometryError: string | null }
 
 /** The design, and settings that override its own (absent: core designSweepSettings). */
-export interface ResponseInput { doc: DesignDoc; settings?: SweepSettings }
+export interface ResponseInput {
+  doc: DesignDoc; settings?: SweepSettings;
+  /** false: leave out the derived figure table (a live pass while the table is not on screen; it costs a quarter of a pass). */
+  figures?: boolean;
+}
 /** Plot-ready series: for every (i, j) pair |S| in dB, phase in degrees and group delay in s; reflections for Smith. */
 export interface ResponseOutput {
   freqs: number[];
@@ -48,7 +55,8 @@ export interface ResponseOutput {
   /** The settings swept (targets' band edges are added to their frequencies) and whether the cache answered. */
   settings: SweepSettings;
   cached: boolean;
-  figures: FigureTable;
+  /** The derived figures (core figureTable); null when the request left them out. */
+  figures: FigureTable | null;
   /** The design's targets on this sweep (core evaluateTargets, as `build`), null without targets or on an error. */
   targets: TargetEvaluation | null;
   targetError: string | null;
@@ -76,11 +84,11 @@ export const pipeline = new DesignPipeline({ capacity: 48 });
 export async function runJob(kind: JobKind, input: unknown, progress: (p: Progress) => void, signal?: AbortSignal): Promise<unknown> {
   switch (kind) {
     case 'yield': return yieldJob(input as YieldInput, progress, signal);
-    case 'layout': return layoutJob(input as LayoutInput, progress);
+    case 'layout': return layoutPostJob(input as LayoutPostInput, progress);
     case 'geometry': return geometryJob(input as LayoutInput);
     case 'export': return exportJob(input as ExportInput);
     case 'check': return checkJob(input as LayoutInput);
-    case 'response': return responseJob(input as ResponseInput, progress, signal);
+    case 'response': return packResponse(await responseJob(input as ResponseInput, progress, signal));
     case 'section': return sectionJob(input as SectionInput);
     case 'milling': return millingJob(input as MillingInput);
     case 'equalize': return equalizeJob(input as EqualizeInput);
@@ -90,7 +98,23 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
   }
 }
 
-export async function layoutJob(input: LayoutInput, progress: (p: Progress) => void): Promise<LayoutOutput> {
+/** The live layout's request from the page: the token of the result it holds (absent: send it whole). */
+export type LayoutPostInput = LayoutInput & { base?: number };
+
+/** The worker's recent live layouts, so each new one crosses to the page as changes (layout-post.ts). */
+const layoutSender = new LayoutSender();
+
+/** The live layout job as the page runs it: layoutJob, sent as changes against the result the page holds. */
+export async function layoutPostJob(input: LayoutPostInput, progress: (p: Progress) => void): Promise<LayoutPost> {
+  const { base, ...rest } = input;
+  const out = await layoutJob(rest, progress, layoutSender.held(base));
+  return layoutSender.encode(out, base);
+}
+
+/**
+ * @param prior a result of an earlier revision: a piece whose copper is unchanged keeps its path text from it
+ */
+export async function layoutJob(input: LayoutInput, progress: (p: Progress) => void, prior: LayoutOutput | null = null): Promise<LayoutOutput> {
   progress({ done: 0, total: 2, label: 'sizing' });
   const sized = pipeline.sized(input.doc);
   progress({ done: 1, total: 2, label: 'copper' });
@@ -99,7 +123,11 @@ export async function layoutJob(input: LayoutInput, progress: (p: Progress) => v
   let geometryError: string | null = null;
   try {
     const made = pieceOutlines(sized);
-    outlines = made.outlines.map((o) => ({ ...o, d: regionsPath(o.regions) }));
+    const before = new Map((prior?.outlines ?? []).map((o) => [o.id, o]));
+    outlines = made.outlines.map((o) => {
+      const was = before.get(o.id);
+      return { ...o, d: was && sameData(was.regions, o.regions) ? was.d : regionsPath(o.regions) };
+    });
     drills = made.drills;
   } catch (err) {
     // The sizes are still worth showing when the copper cannot be drawn (an unplaced piece, for example).
@@ -207,7 +235,7 @@ export async function responseJob(input: ResponseInput, progress: (p: Progress) 
   return {
     freqs: [...r.freqs], ports: ids, labels: ids.map(namer(doc)), zRef: r.ports.map((p) => p.zRef), input: inputPort,
     settings, cached, traces, smith: sm,
-    figures: figureTable(r, doc, inputPort), targets, targetError,
+    figures: input.figures === false ? null : figureTable(r, doc, inputPort), targets, targetError,
     warnings: [...meta.warnings, ...r.warnings.map((w) => w.message)],
   };
 }
