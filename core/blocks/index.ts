@@ -12,6 +12,7 @@ export type { BlockDef, BlockContext, BlockPieces } from './context.ts';
 export { generateBlock, makeBlockDesign, blockPlacement, placeBlock, handEdits, respecPlacement, freshBlockId, contextOf, fingerprint, type BlockPlacement } from './placed.ts';
 export { transformerSections, chebyshevT } from './kinds/transformer.ts';
 export { wilkinsonValues, branchlineValues } from './kinds/splitters.ts';
+export { equalRippleRow, rowLossDb, optimumLossDb, prototypeLossDb, type StubRow } from './bandstopRichards.ts';
 export { singleStubSolutions, doubleStubSolutions, throughLine, stubDegrees, loadFromTouchstone, type StubSolution } from './kinds/stubMatch.ts';
 
 import { couplerBlock, type CouplerOptions } from './coupler.ts';
