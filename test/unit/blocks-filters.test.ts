@@ -12,7 +12,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
-  makeBlockDesign, sizeDesign, netlistFromSized, solveNetwork, prototypeValues, equalRippleRow, rowLossDb, optimumLossDb, prototypeLossDb, type DesignDoc, type SubstrateSpec,
+  makeBlockDesign, sizeDesign, netlistFromSized, solveNetwork, prototypeValues, equalRippleRow, rowLossDb, optimumLossDb, prototypeLossDb, InputError, type DesignDoc, type SubstrateSpec,
 } from '../../core/index.ts';
 
 const FR4: SubstrateSpec = { er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6 };
@@ -75,4 +75,39 @@ describe('equal-ripple band-stop block, lossless copy with the tee models (Matth
     expect(() => makeBlockDesign('bandstop', { response: 'chebyshev', order: '3', rippleDb: '0.1', bw: '0.1' }, { f0: F0, substrate: FR4, asMade: MICROSTRIP }))
       .toThrow(/bandstop\.bw/);
   });
+});
+
+describe('open-stub low-pass at large ripple: made where the laminate allows, refused naming the largest it can make', () => {
+  // The equal-ripple prototype's ripple band ends at ω' = 1 (Matthaei, Young and Jones 1964, §4.03, eq. 4.03-3),
+  // which Richards' transform puts at the cut-off where the stubs are λ/8 (Pozar §8.4). Lossless copy with the tees.
+  const fc = 2e9;
+  const fs = Array.from({ length: 241 }, (_, k) => fc * (0.02 + (1.18 * k) / 240));
+  const make = (sub: SubstrateSpec, order: string, rippleDb: string) =>
+    makeBlockDesign('lowpass', { form: 'stubs', response: 'chebyshev', order, rippleDb, cutoff: '2 GHz' }, { f0: F0, substrate: sub, asMade: MICROSTRIP });
+  for (const [name, sub, order, ripple] of [['low-loss', LOW_LOSS, '3', '3'], ['low-loss', LOW_LOSS, '5', '2'], ['low-loss', LOW_LOSS, '7', '2'], ['FR-4', FR4, '3', '1.5']] as const) {
+    it(`${name}, N = ${order}, ${ripple} dB: the ripple edge within 5 % of the cut-off, no higher ripple inside it`, () => {
+      const il = insertionLoss(make(sub, order, ripple), fs);
+      const level = Number(ripple) + 0.05, k = il.findIndex((x) => x > level);
+      const edge = fs[k - 1]! + ((level - il[k - 1]!) / (il[k]! - il[k - 1]!)) * (fs[k]! - fs[k - 1]!);
+      expect(Math.abs(edge / fc - 1)).toBeLessThan(0.05);
+      expect(Math.max(...il.slice(0, k))).toBeGreaterThan(Number(ripple) * 0.8); // it does ripple
+    }, 60_000);
+  }
+  it('FR-4 1.6 mm, N = 3 at 2 dB (stubs wider than they are long) is refused on rippleDb, naming 1.5 dB; that one is made', () => {
+    let err: unknown;
+    try { make(FR4, '3', '2'); } catch (e) { err = e; }
+    expect(err).toBeInstanceOf(InputError);
+    const e = err as InputError;
+    expect(e.field).toBe('lowpass.rippleDb');
+    expect(e.message).toMatch(/up to 1\.5 dB/);
+    expect(e.message).toMatch(/mm wide on a .* mm stub/);
+    expect(() => make(FR4, '3', '1.5')).not.toThrow();
+  }, 60_000);
+  it('FR-4, N = 7 at 3 dB is refused too, naming a smaller ripple that its own check accepts', () => {
+    let err: unknown;
+    try { make(FR4, '7', '3'); } catch (e) { err = e; }
+    const m = /up to ([\d.]+) dB/.exec((err as Error).message);
+    expect(m).not.toBeNull();
+    expect(() => make(FR4, '7', m![1]!)).not.toThrow();
+  }, 120_000);
 });

@@ -23,7 +23,7 @@ import { netlistFromSized } from '../../network/fromSized.ts';
 import { solveNetwork } from '../../network/sweep.ts';
 import { prototypeValues } from '../lowpassPrototype.ts';
 import { equalRippleRow } from '../bandstopRichards.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec, contextDesign } from '../context.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 
 const RESPONSE = { name: 'response', type: 'choice', choices: ['maxflat', 'chebyshev'], default: 'chebyshev', meaning: 'Maximally flat (−3 dB at the edge) or equal ripple' } as const;
@@ -77,6 +77,59 @@ export const lowpassBlock: BlockDef = {
     Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext) {
+    const made = lowpassPieces(spec, ctx);
+    if (spec.form === 'stubs') {
+      const fc = (spec.cutoff as number | undefined) ?? ctx.f0;
+      if (!meetsCutoff(made, ctx, fc, edgeLevel(spec))) throw stubRefusal(spec, ctx, made);
+    }
+    return made;
+  },
+};
+
+/** The loss that marks a low-pass edge: the ripple (equal ripple) or 3.01 dB (maximally flat), +0.05 dB for the sweep. */
+const edgeLevel = (spec: Spec): number => (spec.response === 'chebyshev' ? (spec.rippleDb as number) + 0.05 : 3.0103);
+
+/**
+ * Whether the lossless sweep of the made low-pass (the sweep's junction models) keeps its pass band within `level`
+ * up to 0.95·fc and is past it at 1.05·fc: the edge within the issue's 5 %, and no higher ripple inside it.
+ */
+function meetsCutoff(made: BlockPieces, ctx: BlockContext, fc: number, level: number): boolean {
+  const doc = contextDesign(ctx);
+  doc.junctions = ctx.junctions; doc.nodes = made.nodes; doc.segments = made.segments;
+  const sized = sizeDesign(doc);
+  if (sized.problems.length) return false;
+  const fs = [...Array.from({ length: 48 }, (_, k) => (fc * 0.95 * (k + 1)) / 48), fc * 1.05];
+  const r = solveNetwork(netlistFromSized(sized, { lossless: true }), new Float64Array(fs));
+  const P = r.ports.length, i = r.ports.findIndex((p) => p.name === 'load'), j = r.ports.findIndex((p) => p.name === 'src');
+  const loss = fs.map((_, k) => { const t = 2 * ((k * P + i) * P + j); return -20 * Math.log10(Math.hypot(r.s[t]!, r.s[t + 1]!)); });
+  return loss.slice(0, -1).every((x) => x <= level) && loss[loss.length - 1]! > level;
+}
+
+/**
+ * The refusal of an open-stub low-pass whose stubs the laminate cannot make as stubs: a large ripple (or order) asks
+ * for capacitors of a few ohms, stubs as wide as they are long, where the tee model (Hammerstad 1981) no longer
+ * places the junction and the made filter misses its ripple or its edge. Names the largest equal ripple (of a
+ * ladder of common values) at this order that does make its figures on this laminate and process.
+ */
+function stubRefusal(spec: Spec, ctx: BlockContext, made: BlockPieces): InputError {
+  const fc = (spec.cutoff as number | undefined) ?? ctx.f0, n = spec.order as number;
+  const widest = made.segments.filter((x) => /^s\d+$/.test(x.id) && x.kind === 'line').map((x) => (x.kind === 'line' && x.width.by === 'z0' ? x.width.z0 : Infinity));
+  const zMin = Math.min(...widest), line = synthesizeLine(ctx.substrate, zMin, fc);
+  const works = (rippleDb: number): boolean => {
+    const trial = { ...spec, response: 'chebyshev', rippleDb };
+    try { return meetsCutoff(lowpassPieces(trial, ctx), ctx, fc, edgeLevel(trial)); } catch { return false; }
+  };
+  const asked = spec.response === 'chebyshev' ? spec.rippleDb as number : Infinity;
+  const best = [3, 2.5, 2, 1.5, 1, 0.75, 0.5, 0.25, 0.1, 0.05, 0.01].filter((x) => x < asked).find(works);
+  const what = spec.response === 'chebyshev' ? `${asked} dB equal ripple` : 'maximally flat';
+  return new InputError('out-of-range', spec.response === 'chebyshev' ? 'lowpass.rippleDb' : 'lowpass.order',
+    `an open-stub low-pass this laminate and process can make at order ${n}${best !== undefined ? ` (up to ${best} dB equal ripple)` : ' (none at this order)'}`,
+    `${what} needs stubs down to ${zMin.toFixed(1)} Ω, ${(line.width * 1e3).toFixed(1)} mm wide on a ${((line.lambdaG / 8) * 1e3).toFixed(1)} mm stub, where the tee model no longer holds: swept with it, the filter misses its ripple or its cut-off by more than 5 %`,
+    `${best !== undefined ? `ask for ${best} dB ripple or less, ` : ''}use a lower order, the stepped form, or a thinner laminate`);
+}
+
+/** The low-pass drawn from its spec (no check of its sweep). */
+function lowpassPieces(spec: Spec, ctx: BlockContext): BlockPieces {
     const z0 = spec.z0 as number, feed = spec.feed as number, fc = (spec.cutoff as number | undefined) ?? ctx.f0;
     const zh = spec.zHigh as number, zl = spec.zLow as number, stubs = spec.form === 'stubs';
     if (!(zh > z0) || !(zl < z0)) throw new InputError('out-of-range', 'lowpass.zHigh', `zHigh above and zLow below the ${z0} Ω ports`, `${zh} Ω and ${zl} Ω`, 'widen the two impedances apart');
@@ -152,8 +205,7 @@ export const lowpassBlock: BlockDef = {
       ],
       band: { start: fc * 0.05, stop: fc * 2 },
     };
-  },
-};
+}
 
 /** The band-stop's view band, as fractions of f0: its pass bands are checked from 0.2·f0 and up to 1.8·f0. */
 const VIEW = [0.2, 1.8] as const;
