@@ -45,6 +45,8 @@ function rebuilt(doc: DesignDoc, freqs: number[], sub: SubstrateSpec): NetworkRe
 const CASES: { name: string; kind: string; raw: Record<string, string>; sub: SubstrateSpec; pass: number[] }[] = [
   // Low-pass, cut-off 2 GHz: the pass band the block's own target spans (0.05–0.8 of the cut-off).
   { name: 'stub low-pass, 0.5 dB, N = 5, FR-4', kind: 'lowpass', raw: { form: 'stubs', response: 'chebyshev', order: '5', rippleDb: '0.5', cutoff: '2 GHz' }, sub: FR4, pass: [0.3e9, 0.8e9, 1.3e9, 1.6e9] },
+  { name: 'stepped low-pass, 0.5 dB, N = 5, FR-4', kind: 'lowpass', raw: { form: 'stepped', response: 'chebyshev', order: '5', rippleDb: '0.5', cutoff: '2 GHz' }, sub: FR4, pass: [0.3e9, 0.8e9, 1.3e9, 1.6e9] },
+  { name: 'stub low-pass, maximally flat, N = 3, low-loss', kind: 'lowpass', raw: { form: 'stubs', response: 'maxflat', order: '3', cutoff: '2 GHz' }, sub: LOW_LOSS, pass: [0.3e9, 0.8e9, 1.3e9, 1.6e9] },
   { name: 'stepped low-pass, maximally flat, N = 5, low-loss', kind: 'lowpass', raw: { form: 'stepped', response: 'maxflat', order: '5', cutoff: '2 GHz' }, sub: LOW_LOSS, pass: [0.3e9, 0.8e9, 1.3e9, 1.6e9] },
   // Band-stop at 2.45 GHz, 50 %: the pass bands, away from the skirts (below 0.6·f0, above 1.45·f0), where a small shift of phase between the two line models is not a large one of level.
   { name: 'band-stop, 0.5 dB, N = 3, FR-4', kind: 'bandstop', raw: { response: 'chebyshev', order: '3', rippleDb: '0.5', bw: '0.5' }, sub: FR4, pass: [0.6e9, 1.0e9, 1.4e9, 3.6e9, 4.0e9] },
