@@ -115,9 +115,9 @@ function simplex(f: (x: number[]) => number, start: number[], step: number, maxI
 /**
  * The equal-ripple row of order n (1–7) whose pass band ends at θc (0 < θc < π/2) with ripple `rippleDb`.
  * Starts from the narrow-band form in Richards' variable (Zs/Z0 = tan θc/g_k, lines at Z0) and two other line
- * levels, and keeps the best.
+ * levels, and keeps the best; a `near` row (one fitted for a slightly different band or ripple) is tried first.
  */
-export function equalRippleRow(g: readonly number[], n: number, rippleDb: number, thetaC: number): StubRow & { fitDb: number } {
+export function equalRippleRow(g: readonly number[], n: number, rippleDb: number, thetaC: number, near?: StubRow): StubRow & { fitDb: number } {
   if (!Number.isInteger(n) || n < 1 || n > 7) throw new InputError('out-of-range', 'bandstop.order', 'an equal-ripple band-stop order from 1 to 7', describe(n));
   const ns = Math.ceil(n / 2), nl = Math.ceil((n - 1) / 2);
   const grid = Array.from({ length: 64 }, (_, k) => (Math.min(thetaC * 1.6, Math.PI / 2 - 0.02) * (k + 1)) / 64);
@@ -130,8 +130,9 @@ export function equalRippleRow(g: readonly number[], n: number, rippleDb: number
   const clamp = (x: number[]) => x.map((v, i) => { const [lo, hi] = i < ns ? STUB_RANGE : LINE_RANGE; return v < lo ? lo : v > hi ? hi : v; });
   let best: { x: number[]; v: number } | null = null;
   // Line levels to start from: the fitted lines fall from about 1.2·Z0 (0.1 dB) to 0.6·Z0 (3 dB).
-  for (const line of [1, 0.85, 1.15, 0.6]) {
-    const start = [...Array.from({ length: ns }, (_, k) => Math.log(Math.tan(thetaC) / g[k + 1]!)), ...Array<number>(nl).fill(Math.log(line))];
+  const starts = [1, 0.85, 1.15, 0.6].map((line) => [...Array.from({ length: ns }, (_, k) => Math.log(Math.tan(thetaC) / g[k + 1]!)), ...Array<number>(nl).fill(Math.log(line))]);
+  if (near && near.stubZ.length === n) starts.unshift([...near.stubZ.slice(0, ns), ...near.lineZ.slice(0, nl)].map(Math.log));
+  for (const start of starts) {
     let r = simplex(cost, start, 0.1, 1500, clamp);
     r = simplex(cost, r.x, 0.02, 1500, clamp);
     if (!best || r.v < best.v) best = r;

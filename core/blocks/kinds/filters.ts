@@ -22,7 +22,7 @@ import { teeJunction } from '../../discontinuity/hammerstad1981TeeJunction.ts';
 import { netlistFromSized } from '../../network/fromSized.ts';
 import { solveNetwork } from '../../network/sweep.ts';
 import { prototypeValues } from '../lowpassPrototype.ts';
-import { equalRippleRow } from '../bandstopRichards.ts';
+import { equalRippleRow, type StubRow } from '../bandstopRichards.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 
@@ -282,6 +282,7 @@ export const bandstopBlock: BlockDef = {
       sk.line('out', prev, 'load', z0, { length: feed });
       return { sk, rows };
     };
+    let lastRow: StubRow | undefined; // the previous fit, where the next (for a corrected band or ripple) starts
     /** The filter designed for fractional bandwidth `d` (and design ripple `r`), stubs scaled by the tees' n². */
     const design = (d: number, r: number, n2: number[]): { sk: Sketch; rows: string[] } => {
       if (!ripple) {
@@ -289,7 +290,8 @@ export const bandstopBlock: BlockDef = {
         const zs = g.slice(1, n + 1).map((gk, k) => ((4 * z0) / (Math.PI * gk * d)) * (n2[k + 1] ?? 1));
         return draw(zs, Array<number>(n - 1).fill(z0), g.slice(1, n + 1).map((gk, k) => `g${k + 1} = ${gk.toFixed(4)}`));
       }
-      const row = equalRippleRow(g, n, r, (Math.PI / 2) * (1 - d / 2));
+      const row = equalRippleRow(g, n, r, (Math.PI / 2) * (1 - d / 2), lastRow);
+      lastRow = row;
       if (row.fitDb > 0.01) {
         throw new InputError('out-of-range', 'bandstop.bw', `a stop band wide enough for stubs below ${(5 * z0).toFixed(0)} Ω at order ${n}, ${r.toFixed(2)} dB`,
           `${(bw * 100).toFixed(1)} % (the nearest row misses the ripple by ${row.fitDb.toFixed(2)} dB)`, 'ask for a wider stop band, a lower order or a smaller ripple');
