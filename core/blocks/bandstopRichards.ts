@@ -120,27 +120,41 @@ function simplex(f: (x: number[]) => number, start: number[], step: number, maxI
 export function equalRippleRow(g: readonly number[], n: number, rippleDb: number, thetaC: number, near?: StubRow): StubRow & { fitDb: number } {
   if (!Number.isInteger(n) || n < 1 || n > 7) throw new InputError('out-of-range', 'bandstop.order', 'an equal-ripple band-stop order from 1 to 7', describe(n));
   const ns = Math.ceil(n / 2), nl = Math.ceil((n - 1) / 2);
-  const grid = Array.from({ length: 64 }, (_, k) => (Math.min(thetaC * 1.6, Math.PI / 2 - 0.02) * (k + 1)) / 64);
-  const want = grid.map((th) => optimumLossDb(n, rippleDb, thetaC, th));
-  const cost = (x: number[]) => {
-    const row = rowOf(x, n);
-    // dB errors, those in the stop band (tens of dB) weighted down so the ripple is fitted as closely.
-    return grid.reduce((sum, th, k) => { const e = rowLossDb(row, th) - want[k]!; return sum + (th <= thetaC ? e * e : (e * e) / 25); }, 0);
-  };
+  const pass = Array.from({ length: 48 }, (_, k) => (thetaC * (k + 1)) / 48);
+  const passWant = pass.map((th) => optimumLossDb(n, rippleDb, thetaC, th));
+  /** The worst pass-band error of a row, dB: near zero when it is the optimum. */
+  const passError = (row: StubRow) => Math.max(...pass.map((th, k) => Math.abs(rowLossDb(row, th) - passWant[k]!)));
   const clamp = (x: number[]) => x.map((v, i) => { const [lo, hi] = i < ns ? STUB_RANGE : LINE_RANGE; return v < lo ? lo : v > hi ? hi : v; });
-  let best: { x: number[]; v: number } | null = null;
   // Line levels to start from: the fitted lines fall from about 1.2·Z0 (0.1 dB) to 0.6·Z0 (3 dB).
   const starts = [1, 0.85, 1.15, 0.6].map((line) => [...Array.from({ length: ns }, (_, k) => Math.log(Math.tan(thetaC) / g[k + 1]!)), ...Array<number>(nl).fill(Math.log(line))]);
   if (near && near.stubZ.length === n) starts.unshift([...near.stubZ.slice(0, ns), ...near.lineZ.slice(0, nl)].map(Math.log));
-  for (const start of starts) {
-    let r = simplex(cost, start, 0.1, 1500, clamp);
-    r = simplex(cost, r.x, 0.02, 1500, clamp);
-    if (!best || r.v < best.v) best = r;
-    if (best.v < 1e-8) break;
+  let best: { row: StubRow; fitDb: number } | null = null;
+  // The fit runs over the pass band and part of the stop band: how much of it changes which local minimum the search
+  // finds (high orders at 3 dB), so a second and third span are tried when the first misses.
+  for (const span of [1.3, 1.6, 2]) {
+    const grid = Array.from({ length: 64 }, (_, k) => (Math.min(thetaC * span, Math.PI / 2 - 0.02) * (k + 1)) / 64);
+    const want = grid.map((th) => optimumLossDb(n, rippleDb, thetaC, th));
+    const cost = (x: number[]) => {
+      const row = rowOf(x, n);
+      // dB errors, those in the stop band (tens of dB) weighted down so the ripple is fitted as closely.
+      return grid.reduce((sum, th, k) => { const e = rowLossDb(row, th) - want[k]!; return sum + (th <= thetaC ? e * e : (e * e) / 25); }, 0);
+    };
+    for (const start of starts) {
+      // Restarted while it still improves (a simplex can stall on a ridge; a fresh one around its best goes on).
+      let r = simplex(cost, start, 0.1, 1500, clamp);
+      for (let again = 0; again < 4; again++) {
+        const next = simplex(cost, r.x, again % 2 ? 0.1 : 0.02, 1500, clamp);
+        const gain = r.v - next.v;
+        r = next.v < r.v ? next : r;
+        if (!(gain > 1e-9)) break;
+      }
+      const row = rowOf(r.x, n), fitDb = passError(row);
+      if (!best || fitDb < best.fitDb) best = { row, fitDb };
+      if (best.fitDb < 1e-3) break;
+    }
+    if (best!.fitDb < 1e-3) break;
   }
-  const row = rowOf(best!.x, n);
-  // The worst pass-band error of the fit, dB: near zero when the row is the optimum, larger when an impedance bound
-  // held it back (a band too narrow for stubs of 5·Z0).
-  const fitDb = Math.max(...grid.filter((th) => th <= thetaC).map((th, k) => Math.abs(rowLossDb(row, th) - want[k]!)));
+  // fitDb stays large when an impedance bound held the row back (a band too narrow for stubs of 5·Z0).
+  const { row, fitDb } = best!;
   return { ...row, fitDb };
 }
