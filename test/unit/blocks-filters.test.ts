@@ -31,7 +31,7 @@ function insertionLoss(doc: DesignDoc, fs: number[], lossless = true): number[] 
 }
 
 describe('equal-ripple band-stop in Richards\' variable (Horton and Wenzel 1965; Matthaei et al. 1964 eq. 4.03-3)', () => {
-  for (const [n, ripple, bw] of [[3, 0.5, 0.5], [4, 0.1, 0.6], [5, 1, 0.4]] as const) {
+  for (const [n, ripple, bw] of [[3, 0.5, 0.5], [4, 0.1, 0.6], [5, 1, 0.4], [7, 3, 0.5], [2, 0.5, 0.8]] as const) {
     it(`N = ${n}, ${ripple} dB, Δ = ${bw * 100} %: the row has the optimum response, its ripple and edge, and beats the prototype`, () => {
       const thc = (Math.PI / 2) * (1 - bw / 2);
       const row = equalRippleRow(prototypeValues('equal-ripple', n, ripple), n, ripple, thc);
@@ -47,6 +47,18 @@ describe('equal-ripple band-stop in Richards\' variable (Horton and Wenzel 1965;
       }
     });
   }
+});
+
+describe('why not the narrow-band form (Pozar §8.5, eq. 8.79)', () => {
+  it('0.5 dB, N = 3, Δ = 50 %: stubs of 4·Z0/(π·g·Δ) on Z0 lines ripple well above 0.5 dB; the fitted row does not', () => {
+    const n = 3, ripple = 0.5, bw = 0.5, thc = (Math.PI / 2) * (1 - bw / 2);
+    const g = prototypeValues('equal-ripple', n, ripple);
+    const narrow = { stubZ: g.slice(1, n + 1).map((gk) => 4 / (Math.PI * gk * bw)), lineZ: [1, 1] };
+    const ths = Array.from({ length: 200 }, (_, k) => (thc * (k + 1)) / 200);
+    expect(Math.max(...ths.map((th) => rowLossDb(narrow, th)))).toBeGreaterThan(2 * ripple);
+    const row = equalRippleRow(g, n, ripple, thc);
+    expect(Math.max(...ths.map((th) => rowLossDb(row, th)))).toBeLessThan(ripple + 0.01);
+  });
 });
 
 describe('equal-ripple band-stop block, lossless copy with the tee models (Matthaei et al. §4.03; Pozar §8.5)', () => {
