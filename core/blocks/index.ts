@@ -13,6 +13,7 @@ export { generateBlock, makeBlockDesign, blockPlacement, placeBlock, handEdits, 
 export { defaultTolerances, defaultTolerancesFor, DEFAULT_TOLERANCES_NOTE, type DefaultTolerances } from './tolerance-defaults.ts';
 export { transformerSections, chebyshevT } from './kinds/transformer.ts';
 export { wilkinsonValues, branchlineValues } from './kinds/splitters.ts';
+export { equalRippleRow, rowLossDb, optimumLossDb, prototypeLossDb, type StubRow } from './bandstopRichards.ts';
 export { singleStubSolutions, doubleStubSolutions, throughLine, stubDegrees, loadFromTouchstone, type StubSolution } from './kinds/stubMatch.ts';
 
 import { couplerBlock, type CouplerOptions } from './coupler.ts';
