@@ -17,7 +17,7 @@
  */
 import { InputError } from '../util/errors.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { microstripColumns, lineConstantsFrom, type LineColumns, type LineOptions } from '../line/index.ts';
+import { microstripColumns, lineConstantsAt, type LineColumns, type LineOptions } from '../line/index.ts';
 import type { SizedDesign, SizedPiece } from '../layout/types.ts';
 import { compileNetwork, solveAt, type CompiledNetwork } from '../network/mna.ts';
 import { netlistFromSized, type SizedNetlist } from '../network/fromSized.ts';
@@ -59,13 +59,16 @@ export class BatchSolver {
     this.nominalSub = nominal.doc.substrate;
     this.pieceDw = new Float64Array(nominal.pieces.length);
     this.pieceIndex = new Map(nominal.pieces.map((p, i) => [p.id, i]));
-    const { net, tags } = this.netlist(nominal, lam);
+    const { net, tables, tags } = this.netlist(nominal, lam);
     this.nominalWidth = Float64Array.from(net.elements, (e) => (e.kind === 'line' && tags.has(e.model) ? tags.get(e.model)!.width : NaN));
     this.cn = compileNetwork(net);
     const where = new Map(net.elements.map((e, i) => [e, i]));
     this.source = Int32Array.from(this.cn.stamped, (s) => where.get(s.el)!);
     this.fIndex = new Map(Array.from(freqs, (f, k) => [f, k]));
     this.points = new PointSolver(this.cn, freqs, columns);
+    // The nominal board's line arguments, from which every made board's are reached (point-solve.ts).
+    this.tabulate(tables);
+    this.points.setNominal(this.values(net, tags));
     this.ports = this.cn.ports.map((p) => ({ name: p.name, zRef: p.zRef }));
     this.input = net.input;
   }
@@ -135,7 +138,6 @@ export class BatchSolver {
    */
   private tabulate(tables: TableModel[]): void {
     const F = this.freqs.length;
-    const out: LineConstants = { zc: { re: 0, im: 0 }, gamma: { re: 0, im: 0 } };
     let slot = 0;
     const bySub = new Map<SubstrateSpec, TableModel[]>();
     for (const t of tables) { const l = bySub.get(t.sub) ?? []; l.push(t); bySub.set(t.sub, l); }
@@ -158,8 +160,7 @@ export class BatchSolver {
         slot++;
         for (let k = 0; k < F; k++) {
           const i = j * F + k;
-          lineConstantsFrom(c.z0[i]!, c.epsEff[i]!, c.alphaC[i]!, c.alphaD[i]!, this.freqs[k]!, out);
-          tab[4 * k] = out.zc.re; tab[4 * k + 1] = out.zc.im; tab[4 * k + 2] = out.gamma.re; tab[4 * k + 3] = out.gamma.im;
+          lineConstantsAt(c.z0[i]!, c.epsEff[i]!, c.alphaC[i]!, c.alphaD[i]!, this.freqs[k]!, tab, 4 * k);
         }
         t.table = tab;
       });
@@ -169,12 +170,10 @@ export class BatchSolver {
   /** Line constants of one laminate and width over the grid (the batch analysis, same numbers as lineConstants). */
   private tableOf(sub: SubstrateSpec, width: number): Float64Array {
     const F = this.freqs.length;
-    const out: LineConstants = { zc: { re: 0, im: 0 }, gamma: { re: 0, im: 0 } };
     const c = microstripColumns(sub, new Float64Array(F).fill(width), this.freqs, this.line);
     const t = new Float64Array(4 * F);
     for (let k = 0; k < F; k++) {
-      lineConstantsFrom(c.z0[k]!, c.epsEff[k]!, c.alphaC[k]!, c.alphaD[k]!, this.freqs[k]!, out);
-      t[4 * k] = out.zc.re; t[4 * k + 1] = out.zc.im; t[4 * k + 2] = out.gamma.re; t[4 * k + 3] = out.gamma.im;
+      lineConstantsAt(c.z0[k]!, c.epsEff[k]!, c.alphaC[k]!, c.alphaD[k]!, this.freqs[k]!, t, 4 * k);
     }
     return t;
   }
