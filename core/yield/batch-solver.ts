@@ -30,7 +30,7 @@ import { PointSolver } from './point-solve.ts';
 interface TableModel { sub: SubstrateSpec; width: number; table: Float64Array | null }
 
 /** What a line element's model stands for: its table, its piece and its nominal width (for the derivative). */
-interface Tag { table: TableModel; piece: number; width: number; model: LineModel }
+interface Tag { table: TableModel; piece: number; width: number; model: LineModel; deriv: Float64Array | null; delta: number }
 
 export class BatchSolver {
   private readonly cn: CompiledNetwork;
@@ -87,7 +87,7 @@ export class BatchSolver {
       if (!table) { table = { sub: lam.list[s]!, width, table: null }; ofSub.set(width, table); }
       // Each element gets its own model (it carries the element's piece); mna.ts calls it only on a fallback point.
       const scratch: LineConstants = { zc: { re: 0, im: 0 }, gamma: { re: 0, im: 0 } };
-      const tag: Tag = { table, piece: pi, width, model: () => scratch };
+      const tag: Tag = { table, piece: pi, width, model: () => scratch, deriv: null, delta: 0 };
       tag.model = (f) => {
         const k = this.fIndex.get(f);
         if (k === undefined || !table.table) throw new InputError('out-of-range', 'frequency', 'a frequency of the yield grid', String(f));
@@ -104,12 +104,9 @@ export class BatchSolver {
     return { net, tables: list, tags };
   }
 
-  /** Tag → the element's nominal width is resolved per solve (see `values`); this serves the fallback points. */
-  private fallbackDelta = new Map<Tag, { deriv: Float64Array | null; delta: number }>();
-
+  /** A line's constants at grid point k for the fallback points: its table plus its own width deviation (set by `values`). */
   private constantsAt(tag: Tag, k: number): [number, number, number, number] {
-    const t = tag.table.table!, fd = this.fallbackDelta.get(tag);
-    const d = fd?.deriv ?? null, x = fd?.delta ?? 0;
+    const t = tag.table.table!, d = tag.deriv, x = tag.delta;
     if (!d || x === 0) return [t[4 * k]!, t[4 * k + 1]!, t[4 * k + 2]!, t[4 * k + 3]!];
     return [t[4 * k]! + x * d[4 * k]!, t[4 * k + 1]! + x * d[4 * k + 1]!, t[4 * k + 2]! + x * d[4 * k + 2]!, t[4 * k + 3]! + x * d[4 * k + 3]!];
   }
@@ -183,7 +180,6 @@ export class BatchSolver {
 
   private values(net: SizedNetlist, tags: Map<LineModel, Tag>): Columns {
     if (net.elements.length !== this.nominalWidth.length) throw new InputError('invalid-design', 'design', 'a made board with the nominal board\'s network', 'a different network');
-    this.fallbackDelta.clear();
     const E = this.source.length;
     // One record refilled for every board: each element keeps its kind, so every field it reads is written again.
     const c = (this.cols ??= { kind: new Int8Array(E), table: new Array(E).fill(null), deriv: new Array(E).fill(null), delta: new Float64Array(E), num: new Float64Array(E), fn: new Array(E).fill(null) });
@@ -197,7 +193,7 @@ export class BatchSolver {
           const tag = tags.get(el.model)!;
           const delta = this.pieceDw[tag.piece] ?? 0;
           const deriv = delta !== 0 ? this.derivative(this.nominalWidth[i]!) : null;
-          this.fallbackDelta.set(tag, { deriv, delta });
+          tag.deriv = deriv; tag.delta = delta;
           c.kind[idx] = K_LINE; c.table[idx] = tag.table.table!; c.deriv[idx] = deriv; c.delta[idx] = delta; c.num[idx] = el.length;
           break;
         }
