@@ -8,7 +8,7 @@ export type { CrossSectionSource, CrossSectionStatics } from './cross-section.ts
 export { analyzeLine, analyzeLines, dielectricAt } from './analyze.ts';
 export { synthesizeLine } from './synthesize.ts';
 export { lengthForDegrees, degreesForLength, groupDelayPerM } from './electrical-length.ts';
-export { lineConstants, lineConstantsFrom } from './line-constants.ts';
+export { lineConstants, lineConstantsFrom, lineConstantsAt } from './line-constants.ts';
 export type { Complex } from './line-constants.ts';
 export { modeThresholds } from './mode-thresholds.ts';
 export type { ModeThresholds } from './mode-thresholds.ts';

@@ -134,7 +134,8 @@ export function netlistFromSized(sized: SizedDesign, given: FromSizedOptions = {
   const pieceModel = (p: SizedPiece): LineModel => (opts.lineModel ? opts.lineModel(p.width, p) : defaultModelFor(p.width));
   teeElements(sized, pieces, pieceModel, terminal, trimmed, elements, warnings, sub.h);
 
-  const legs = foldLegs(sized);
+  // A caller's own line models are used as given (no fold share): their folds need not be found.
+  const legs = opts.lineModel ? new Map<string, Fold[]>() : foldLegs(sized);
   for (const p of sized.pieces) {
     const a = endNode(p.id, p.a), b = endNode(p.id, p.b);
     const custom = opts.lineModel;

@@ -17,7 +17,7 @@
  */
 import { InputError } from '../util/errors.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { microstripColumns, lineConstantsFrom, type LineColumns, type LineOptions } from '../line/index.ts';
+import { microstripColumns, lineConstantsAt, type LineColumns, type LineOptions } from '../line/index.ts';
 import type { SizedDesign, SizedPiece } from '../layout/types.ts';
 import { compileNetwork, solveAt, type CompiledNetwork } from '../network/mna.ts';
 import { netlistFromSized, type SizedNetlist } from '../network/fromSized.ts';
@@ -30,7 +30,7 @@ import { PointSolver } from './point-solve.ts';
 interface TableModel { sub: SubstrateSpec; width: number; table: Float64Array | null }
 
 /** What a line element's model stands for: its table, its piece and its nominal width (for the derivative). */
-interface Tag { table: TableModel; piece: number; width: number; model: LineModel }
+interface Tag { table: TableModel; piece: number; width: number; model: LineModel; deriv: Float64Array | null; delta: number }
 
 export class BatchSolver {
   private readonly cn: CompiledNetwork;
@@ -59,13 +59,16 @@ export class BatchSolver {
     this.nominalSub = nominal.doc.substrate;
     this.pieceDw = new Float64Array(nominal.pieces.length);
     this.pieceIndex = new Map(nominal.pieces.map((p, i) => [p.id, i]));
-    const { net, tags } = this.netlist(nominal, lam);
+    const { net, tables, tags } = this.netlist(nominal, lam);
     this.nominalWidth = Float64Array.from(net.elements, (e) => (e.kind === 'line' && tags.has(e.model) ? tags.get(e.model)!.width : NaN));
     this.cn = compileNetwork(net);
     const where = new Map(net.elements.map((e, i) => [e, i]));
     this.source = Int32Array.from(this.cn.stamped, (s) => where.get(s.el)!);
     this.fIndex = new Map(Array.from(freqs, (f, k) => [f, k]));
     this.points = new PointSolver(this.cn, freqs, columns);
+    // The nominal board's line arguments, from which every made board's are reached (point-solve.ts).
+    this.tabulate(tables);
+    this.points.setNominal(this.values(net, tags));
     this.ports = this.cn.ports.map((p) => ({ name: p.name, zRef: p.zRef }));
     this.input = net.input;
   }
@@ -84,7 +87,7 @@ export class BatchSolver {
       if (!table) { table = { sub: lam.list[s]!, width, table: null }; ofSub.set(width, table); }
       // Each element gets its own model (it carries the element's piece); mna.ts calls it only on a fallback point.
       const scratch: LineConstants = { zc: { re: 0, im: 0 }, gamma: { re: 0, im: 0 } };
-      const tag: Tag = { table, piece: pi, width, model: () => scratch };
+      const tag: Tag = { table, piece: pi, width, model: () => scratch, deriv: null, delta: 0 };
       tag.model = (f) => {
         const k = this.fIndex.get(f);
         if (k === undefined || !table.table) throw new InputError('out-of-range', 'frequency', 'a frequency of the yield grid', String(f));
@@ -101,12 +104,9 @@ export class BatchSolver {
     return { net, tables: list, tags };
   }
 
-  /** Tag → the element's nominal width is resolved per solve (see `values`); this serves the fallback points. */
-  private fallbackDelta = new Map<Tag, { deriv: Float64Array | null; delta: number }>();
-
+  /** A line's constants at grid point k for the fallback points: its table plus its own width deviation (set by `values`). */
   private constantsAt(tag: Tag, k: number): [number, number, number, number] {
-    const t = tag.table.table!, fd = this.fallbackDelta.get(tag);
-    const d = fd?.deriv ?? null, x = fd?.delta ?? 0;
+    const t = tag.table.table!, d = tag.deriv, x = tag.delta;
     if (!d || x === 0) return [t[4 * k]!, t[4 * k + 1]!, t[4 * k + 2]!, t[4 * k + 3]!];
     return [t[4 * k]! + x * d[4 * k]!, t[4 * k + 1]! + x * d[4 * k + 1]!, t[4 * k + 2]! + x * d[4 * k + 2]!, t[4 * k + 3]! + x * d[4 * k + 3]!];
   }
@@ -135,7 +135,6 @@ export class BatchSolver {
    */
   private tabulate(tables: TableModel[]): void {
     const F = this.freqs.length;
-    const out: LineConstants = { zc: { re: 0, im: 0 }, gamma: { re: 0, im: 0 } };
     let slot = 0;
     const bySub = new Map<SubstrateSpec, TableModel[]>();
     for (const t of tables) { const l = bySub.get(t.sub) ?? []; l.push(t); bySub.set(t.sub, l); }
@@ -158,8 +157,7 @@ export class BatchSolver {
         slot++;
         for (let k = 0; k < F; k++) {
           const i = j * F + k;
-          lineConstantsFrom(c.z0[i]!, c.epsEff[i]!, c.alphaC[i]!, c.alphaD[i]!, this.freqs[k]!, out);
-          tab[4 * k] = out.zc.re; tab[4 * k + 1] = out.zc.im; tab[4 * k + 2] = out.gamma.re; tab[4 * k + 3] = out.gamma.im;
+          lineConstantsAt(c.z0[i]!, c.epsEff[i]!, c.alphaC[i]!, c.alphaD[i]!, this.freqs[k]!, tab, 4 * k);
         }
         t.table = tab;
       });
@@ -169,12 +167,10 @@ export class BatchSolver {
   /** Line constants of one laminate and width over the grid (the batch analysis, same numbers as lineConstants). */
   private tableOf(sub: SubstrateSpec, width: number): Float64Array {
     const F = this.freqs.length;
-    const out: LineConstants = { zc: { re: 0, im: 0 }, gamma: { re: 0, im: 0 } };
     const c = microstripColumns(sub, new Float64Array(F).fill(width), this.freqs, this.line);
     const t = new Float64Array(4 * F);
     for (let k = 0; k < F; k++) {
-      lineConstantsFrom(c.z0[k]!, c.epsEff[k]!, c.alphaC[k]!, c.alphaD[k]!, this.freqs[k]!, out);
-      t[4 * k] = out.zc.re; t[4 * k + 1] = out.zc.im; t[4 * k + 2] = out.gamma.re; t[4 * k + 3] = out.gamma.im;
+      lineConstantsAt(c.z0[k]!, c.epsEff[k]!, c.alphaC[k]!, c.alphaD[k]!, this.freqs[k]!, t, 4 * k);
     }
     return t;
   }
@@ -184,7 +180,6 @@ export class BatchSolver {
 
   private values(net: SizedNetlist, tags: Map<LineModel, Tag>): Columns {
     if (net.elements.length !== this.nominalWidth.length) throw new InputError('invalid-design', 'design', 'a made board with the nominal board\'s network', 'a different network');
-    this.fallbackDelta.clear();
     const E = this.source.length;
     // One record refilled for every board: each element keeps its kind, so every field it reads is written again.
     const c = (this.cols ??= { kind: new Int8Array(E), table: new Array(E).fill(null), deriv: new Array(E).fill(null), delta: new Float64Array(E), num: new Float64Array(E), fn: new Array(E).fill(null) });
@@ -198,7 +193,7 @@ export class BatchSolver {
           const tag = tags.get(el.model)!;
           const delta = this.pieceDw[tag.piece] ?? 0;
           const deriv = delta !== 0 ? this.derivative(this.nominalWidth[i]!) : null;
-          this.fallbackDelta.set(tag, { deriv, delta });
+          tag.deriv = deriv; tag.delta = delta;
           c.kind[idx] = K_LINE; c.table[idx] = tag.table.table!; c.deriv[idx] = deriv; c.delta[idx] = delta; c.num[idx] = el.length;
           break;
         }

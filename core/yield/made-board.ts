@@ -61,9 +61,17 @@ export class MadeBoard {
   /** Draws below a physical floor (tanδ or t below 0) taken as the floor, counted over the run. */
   floored = 0;
 
+  /** Per tolerance: its ΔW gain (0 where it changes no width), whether it is per piece, and its part kind. */
+  private readonly gain: Float64Array;
+  private readonly perPiece: Uint8Array;
+  private readonly partOf: ('resistor' | 'capacitor' | 'inductor' | undefined)[];
+
   constructor(readonly sized: SizedDesign, readonly draws: ToleranceDraws) {
     this.pieceIndex = new Map(sized.pieces.map((p, i) => [p.id, i]));
     this.gains = draws.tolerances.map((t) => widthGain(t.quantity, sized.doc['process']));
+    this.gain = Float64Array.from(this.gains, (g) => g ?? 0);
+    this.perPiece = Uint8Array.from(draws.tolerances, (t) => (t.scope === 'piece' ? 1 : 0));
+    this.partOf = draws.tolerances.map((t) => PART[t.quantity]);
   }
 
   /** Laminate of every piece for the current draws (`only` limits the draws used to one tolerance, for ranking). */
@@ -119,39 +127,44 @@ export class MadeBoard {
    * the batch solver takes to first order (batch-solver.ts). End models are evaluated at the full width.
    */
   make(only: number | null = null): { made: SizedDesign; laminate: SampleLaminate; pieceDw: Float64Array } {
-    const sized = this.sized;
+    const sized = this.sized, n = sized.pieces.length;
     const lam = this.laminate(only);
-    const subOf = (id: string) => lam.list[lam.ofPiece[this.pieceIndex.get(id)!]!]!;
-    const pieceDw = new Float64Array(sized.pieces.length);
-    const full = new Map<string, SizedPiece>();
-    const pieces = sized.pieces.map((p, i) => {
-      const d = this.deltaW(i, only);
-      pieceDw[i] = d.piece;
-      if (d.piece !== 0) full.set(p.id, { ...p, width: widen(p.width, d.board + d.piece, p.id), ...(p.widthB !== undefined ? { widthB: widen(p.widthB, d.board + d.piece, p.id) } : {}) });
-      const dw = d.board;
-      const factor = p.part ? this.partFactor(p, i, only) : 1;
-      if (dw === 0 && factor === 1) return p;
-      const q: SizedPiece = { ...p, width: widen(p.width, dw, p.id) };
-      if (p.widthB !== undefined) q.widthB = widen(p.widthB, dw, p.id);
-      if (p.sections) q.sections = p.sections.map((s) => ({ ...s, width: widen(s.width, dw, p.id) }));
-      if (p.part) q.part = { ...p.part, value: p.part.value * factor, footprint: { ...p.part.footprint, padAcross: widen(p.part.footprint.padAcross, dw, p.id) } };
-      return q;
-    });
-    const byId = new Map(pieces.map((p) => [p.id, full.get(p.id) ?? p]));
-    const boardById = new Map(pieces.map((p) => [p.id, p]));
-    const nominalById = new Map(sized.pieces.map((p) => [p.id, p]));
-    const nodes = sized.nodes.map((n) => this.madeNode(n, byId, boardById, nominalById, subOf));
+    const pieceDw = new Float64Array(n);
+    // Per piece index: the piece with the board-wide width change (and its part value), and with its own change too.
+    const pieces: SizedPiece[] = new Array<SizedPiece>(n), full: SizedPiece[] = new Array<SizedPiece>(n);
+    for (let i = 0; i < n; i++) {
+      const p = sized.pieces[i]!;
+      // ΔW of the piece (as deltaW, without a record per piece: this runs for every piece of every board).
+      let dw = 0, own = 0;
+      for (let k = 0; k < this.gain.length; k++) {
+        const g = this.gain[k]!;
+        if (g === 0 || (only !== null && only !== k)) continue;
+        if (this.perPiece[k] === 0) dw += g * this.draws.at(k, i); else own += g * this.draws.at(k, i);
+      }
+      pieceDw[i] = own;
+      const factor = p.part && this.partOf.includes(p.part.part) ? this.partFactor(p, i, only) : 1;
+      let q = p;
+      if (dw !== 0 || factor !== 1) {
+        q = { ...p, width: widen(p.width, dw, p.id) };
+        if (p.widthB !== undefined) q.widthB = widen(p.widthB, dw, p.id);
+        if (p.sections) q.sections = p.sections.map((s) => ({ ...s, width: widen(s.width, dw, p.id) }));
+        if (p.part) q.part = { ...p.part, value: p.part.value * factor, footprint: { ...p.part.footprint, padAcross: widen(p.part.footprint.padAcross, dw, p.id) } };
+      }
+      pieces[i] = q;
+      full[i] = own !== 0 ? { ...p, width: widen(p.width, dw + own, p.id), ...(p.widthB !== undefined ? { widthB: widen(p.widthB, dw + own, p.id) } : {}) } : q;
+    }
+    const nodes = sized.nodes.map((node) => this.madeNode(node, full, pieces, lam));
     const doc = { ...sized.doc, substrate: lam.list[0]! };
     return { made: { ...sized, pieces, nodes, doc }, laminate: lam, pieceDw };
   }
 
-  private madeNode(n: SizedNode, byId: Map<string, SizedPiece>, boardById: Map<string, SizedPiece>, nominal: Map<string, SizedPiece>, subOf: (id: string) => SubstrateSpec): SizedNode {
+  private madeNode(n: SizedNode, full: SizedPiece[], board: SizedPiece[], lam: SampleLaminate): SizedNode {
     const segId = n.segments[0];
     if (segId === undefined) return n;
-    const p = byId.get(segId)!, p0 = nominal.get(segId)!;
-    const sub = subOf(segId), sub0 = this.sized.doc.substrate;
+    const i = this.pieceIndex.get(segId)!;
+    const p = full[i]!, p0 = this.sized.pieces[i]!, pb = board[i]!;
+    const sub = lam.list[lam.ofPiece[i]!]!, sub0 = this.sized.doc.substrate;
     const sameSub = sub === sub0 || (sub.er === sub0.er && sub.h === sub0.h && sub.t === sub0.t && sub.tanDelta === sub0.tanDelta);
-    const pb = boardById.get(segId)!;
     if (n.kind === 'port' && n.port?.launch && pb !== p0) {
       // The pad's own share of a per-piece deviation comes to the pad's line through the batch solver.
       const dw = pb.width - p0.width;

@@ -18,6 +18,14 @@ import { K_C, K_G, K_L, K_LINE, K_N, K_RL, type Columns } from './board-columns.
 const SINH_LIMIT = 1e-4;
 /** Below this pivot ratio mna.ts abandons the fixed-order LU for its pivoting solve; the same limit here. */
 const PIVOT_LIMIT = 1e-8;
+/** Largest step from the nominal γl taken by the series (see PointSolver.nominal). */
+const REACH = 0.125;
+/** Most numbers kept for the nominal board's line arguments (32 MB). */
+const NOMINAL_MAX = 4_000_000;
+/** Taylor coefficients: sin d = d + d·(S3 d² + S5 d⁴ + …), 1 − cos d = C2 d² + C4 d⁴ + … (sinh, cosh: the same with
+ * every sign +, taken by flipping the signs of S3, S7, S11 and C4, C8). */
+const S3 = -1 / 6, S5 = 1 / 120, S7 = -1 / 5040, S9 = 1 / 362880, S11 = -1 / 39916800;
+const C2 = 1 / 2, C4 = -1 / 24, C6 = 1 / 720, C8 = -1 / 40320, C10 = 1 / 3628800;
 
 export class PointSolver {
   private readonly v: Float64Array;
@@ -50,14 +58,48 @@ export class PointSolver {
     this.portRead = Float64Array.from(cn.ports, (p) => 1 / Math.sqrt(p.zRef));
   }
 
+  /**
+   * The nominal board's γl of every line at every grid point with its cos, sin, sinh and cosh, as mna.ts takes them
+   * (xr, xi, cos xi, sin xi, sinh xr, cosh xr at 6(k·E + idx)); a network too large to keep them (over NOMINAL_MAX)
+   * keeps one row of NaN instead.
+   * A made board's γl differs from it by a small d (a few per cent of its phase): cos(x0 + d) = cos x0 cos d −
+   * sin x0 sin d and the like (the angle-sum identities) with cos d, sin d, cosh d, sinh d from their Taylor series,
+   * a few multiplications instead of four calls to Math. For |d| ≤ 1/8 the series below, through d¹¹ and d¹⁰, leave
+   * out less than 1e−20 of the result (the next terms, d¹³/13! and d¹²/12!), so the values are those of Math to a few
+   * units in the last place; on the nominal board itself (d = 0) they are exactly the nominal ones, the same bits as
+   * mna.ts (the zero-spread tests check this). Farther off, Math's functions are called as before.
+   */
+  private nominal = new Float64Array(0);
+  /** Whether `nominal` holds every grid point (else one NaN row that sends every line to Math). */
+  private nominalAll = false;
+
+  /** Records the nominal board's line arguments (its columns, with no deviation). */
+  setNominal(c: Columns): void {
+    const E = c.kind.length, F = this.freqs.length;
+    this.nominalAll = 6 * E * F <= NOMINAL_MAX;
+    const nom = new Float64Array(this.nominalAll ? 6 * E * F : 6 * E).fill(NaN);
+    this.nominal = nom;
+    if (!this.nominalAll) return;
+    for (let k = 0; k < F; k++) {
+      for (let idx = 0; idx < E; idx++) {
+        if (c.kind[idx] !== K_LINE || c.delta[idx] !== 0) continue;
+        const t = c.table[idx]!, len = c.num[idx]!;
+        const xr = t[4 * k + 2]! * len, xi = t[4 * k + 3]! * len, b = 6 * (k * E + idx);
+        nom[b] = xr; nom[b + 1] = xi;
+        nom[b + 2] = Math.cos(xi); nom[b + 3] = Math.sin(xi); nom[b + 4] = Math.sinh(xr); nom[b + 5] = Math.cosh(xr);
+      }
+    }
+  }
+
   /** S at grid point k into out[at … at + 2P² − 1]; false where mna.ts would take its pivoting path. */
   solve(c: Columns, k: number, out: Float64Array, at: number): boolean {
     const cn = this.cn, sym = cn.symbolic, v = this.v, f = this.freqs[k]!, slot4 = this.slot4;
     v.fill(0);
-    const E = c.kind.length;
+    // Every γl is compared with the nominal one (a NaN there, for a network too large to keep them, means Math).
+    const E = c.kind.length, nom = this.nominal, nomAt = this.nominalAll ? 6 * k * E : 0;
     for (let idx = 0; idx < E; idx++) {
       const kind = c.kind[idx]!;
-      let y11r: number, y11i: number, y12r: number, y12i: number;
+      let y11r = 0, y11i = 0, y12r = 0, y12i = 0;
       if (kind === K_LINE) {
         const t = c.table[idx]!, dd = c.deriv[idx], x = c.delta[idx]!, len = c.num[idx]!;
         let zcr = t[4 * k]!, zci = t[4 * k + 1]!, gr = t[4 * k + 2]!, gi = t[4 * k + 3]!;
@@ -66,9 +108,26 @@ export class PointSolver {
           throw new InputError('invalid-number', `${cn.stamped[idx]!.el.id}.zc`, 'a finite value from its model', `${zcr} + j${zci} at ${f} Hz`);
         }
         if (zcr === 0 && zci === 0) throw new InputError('out-of-range', `${cn.stamped[idx]!.el.id}.zc`, 'a non-zero characteristic impedance', '0');
-        // cosh and sinh of γl inline, as mna.ts's evaluate.
+        // cosh and sinh of γl = xr + j·xi inline, as mna.ts's evaluate: cosh γl = cosh xr cos xi + j sinh xr sin xi,
+        // sinh γl = sinh xr cos xi + j cosh xr sin xi, with cos, sin, sinh and cosh from the nominal board's (see
+        // `nominal`) or, far from it, from Math as mna.ts takes them.
         const xr = gr * len, xi = gi * len;
-        const co = Math.cos(xi), sn = Math.sin(xi), shr = Math.sinh(xr), chr = Math.cosh(xr);
+        let co = 0, sn = 0, shr = 0, chr = 0;
+        const b = nomAt + 6 * idx;
+        const di = xi - nom[b + 1]!;
+        if (di <= REACH && di >= -REACH) {
+          const c0 = nom[b + 2]!, s0 = nom[b + 3]!, z = di * di;
+          const sd = di + di * z * (S3 + z * (S5 + z * (S7 + z * (S9 + z * S11))));
+          const hd = z * (C2 + z * (C4 + z * (C6 + z * (C8 + z * C10))));
+          co = c0 - (c0 * hd + s0 * sd); sn = s0 - (s0 * hd - c0 * sd);
+        } else { co = Math.cos(xi); sn = Math.sin(xi); }
+        const dr = xr - nom[b]!;
+        if (dr <= REACH && dr >= -REACH) {
+          const sh0 = nom[b + 4]!, ch0 = nom[b + 5]!, z = dr * dr;
+          const sd = dr + dr * z * (-S3 + z * (S5 + z * (-S7 + z * (S9 - z * S11))));
+          const hd = z * (C2 + z * (-C4 + z * (C6 + z * (-C8 + z * C10))));
+          shr = sh0 + (sh0 * hd + ch0 * sd); chr = ch0 + (ch0 * hd + sh0 * sd);
+        } else { shr = Math.sinh(xr); chr = Math.cosh(xr); }
         const coR = chr * co, coI = shr * sn, siR = shr * co, siI = chr * sn;
         if (siR * siR + siI * siI < SINH_LIMIT * SINH_LIMIT) return false;
         // y12 = −1/(Zc sinh γl), y11 = cosh γl/(Zc sinh γl) = −cosh·y12.
