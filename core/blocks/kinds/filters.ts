@@ -13,13 +13,12 @@
  *   against the block's own lossless sweep so the edges fall where asked (stopBandwidth).
  */
 import { InputError } from '../../util/errors.ts';
-import { synthesizeLine } from '../../line/index.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
 import { teeJunction } from '../../discontinuity/hammerstad1981TeeJunction.ts';
 import { netlistFromSized } from '../../network/fromSized.ts';
 import { solveNetwork } from '../../network/sweep.ts';
 import { prototypeValues } from '../lowpassPrototype.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec, contextDesign } from '../context.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, stripOfZ0, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec, contextDesign } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 
 const RESPONSE = { name: 'response', type: 'choice', choices: ['maxflat', 'chebyshev'], default: 'chebyshev', meaning: 'Maximally flat (−3 dB at the edge) or equal ripple' } as const;
@@ -79,7 +78,7 @@ export const lowpassBlock: BlockDef = {
     widthFor(ctx, zh, 'lowpass.zHigh', 'the inductor lines');
     const g = gValues(spec), n = spec.order as number;
     const sub = ctx.substrate;
-    const lenAt = (z: number, rad: number) => (synthesizeLine(sub, z, fc).lambdaG * rad) / (2 * Math.PI);
+    const lenAt = (z: number, rad: number) => (stripOfZ0(sub, z, fc).lambdaG * rad) / (2 * Math.PI);
     const draw = (plan: ReturnType<typeof stubPlan> | null): { sk: Sketch; rows: string[] } => {
       const sk = new Sketch();
       sk.port('src', { x: -feed, y: 0 }, z0, 0, 'input');
