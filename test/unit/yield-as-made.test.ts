@@ -40,10 +40,15 @@ describe('the yield of a design sized as made uses its as-made lines', () => {
     const ev = evaluateTargets(sweep, doc);
     y.targets.forEach((t, i) => {
       expect(Object.is(t.nominal.worst.value, ev.results[i]!.worst.value)).toBe(true);
-      expect(t.nominal.worst.f).toBe(ev.results[i]!.worst.f);
+      expect(t.nominal.worst.freq).toBe(ev.results[i]!.worst.freq);
     });
-    // The envelopes' nominal traces are the same network's |S| too.
+    // The envelopes' nominal traces are the same network's |S| in dB (20·log10|S|, Pozar, Microwave Engineering, §4.3).
     expect(y.envelopes.length).toBeGreaterThan(0);
+    const P = sweep.ports.length;
+    for (const e of y.envelopes) e.nominal.forEach((db, k) => {
+      const q = 2 * ((k * P + e.i) * P + e.j);
+      expect(db).toBeCloseTo(20 * Math.log10(Math.hypot(sweep.s[q]!, sweep.s[q + 1]!)), 12);
+    });
   });
 
   it('with zero tolerances every board is the nominal board exactly (network yield and made boards\' S)', async () => {
