@@ -4,6 +4,7 @@
  * carries its cross-section tables in `sized.lineOptions`, and a caller's planted families in `sized.lineModels`;
  * the per-board tables (batch-solver.ts), the re-evaluated open ends (made-board.ts) and the fast path-phase
  * estimate (path-phase.ts) all ask here, so every made board is analysed with the lines its nominal was sized with.
+ * No model of its own: the project's own seam; the models it reaches cite their published sources in core/line.
  */
 import {
   lineModels as coreLineModels, stripAt, stripColumns,
