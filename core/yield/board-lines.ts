@@ -31,7 +31,9 @@ export function boardLines(sized: SizedDesign): BoardLines {
   const strip = models.strip();
   return {
     models, strip, sizedWith: sized.lineOptions,
-    columns: (sub, widths, freqs, options, into) => stripColumns(strip, sub, widths, freqs, options, into),
+    // A family's own batch form called straight (the path-phase estimate asks once per board).
+    columns: strip.columns ? (sub, widths, freqs, options, into) => strip.columns!(sub, widths, freqs, options, into)
+      : (sub, widths, freqs, options, into) => stripColumns(strip, sub, widths, freqs, options, into),
     at: (sub, width, f, options) => stripAt(strip, sub, width, f, options),
   };
 }
