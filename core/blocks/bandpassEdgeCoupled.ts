@@ -15,9 +15,9 @@
  * leave the first and last strips with a 90° optimal-miter bend, away from the strip beside them. A gap narrower than the process can cut is refused with the
  * tightest coupling it can make.
  */
-import type { DesignDoc, DesignNode, DesignSegment } from '../design/types.ts';
+import type { DesignDoc, DesignNode, DesignSegment, SubstrateSpec } from '../design/types.ts';
 import { newDesign } from '../design/defaults.ts';
-import { analyzeLine, couplingFromModes, synthesizeCoupled } from '../line/index.ts';
+import { lineModels, pairAt, stripAt, type PairAt, type PairModes } from '../line/index.ts';
 import { openEndExtension } from '../discontinuity/kirschningJansenKoster1981OpenEnd.ts';
 import { InputError, describe } from '../util/errors.ts';
 import { prototypeValues, type PrototypeKind } from './lowpassPrototype.ts';
@@ -225,21 +225,21 @@ function bandpassDraft(opts: BandpassOptions, knobs: DesignKnobs): DesignDoc {
   // Sizing sets each strip's open end back by its end extension Δl, so a section's strips overlap over 90° − 2βΔl,
   // not 90°. A shorter coupled run couples less (about as sin θ of its electrical length θ), so the inverters are
   // scaled by 1/sin θ and the sections synthesised again (our first-order compensation; two passes settle it).
-  let geo = sections.map((s) => synthesizeCoupled(sub, { z0Even: s.z0Even, z0Odd: s.z0Odd }, f0d));
+  let geo = sections.map((s) => pairFor(sub, { z0Even: s.z0Even, z0Odd: s.z0Odd }, f0d));
   for (let pass = 0; pass < 2; pass++) {
     geo = sections.map((s, i) => {
       const r = geo[i]!;
       const beta = (r.even.beta + r.odd.beta) / 2;
-      const single = analyzeLine(sub, r.width, 0);
+      const single = stripAt(lineModels.strip(), sub, r.width, 0);
       const dl = openEndExtension({ u: r.width / sub.h, er: sub.er, eeStatic: single.epsEffStatic, h: sub.h }).dl;
       const theta = Math.PI / 2 - 2 * beta * dl;
       if (!(theta > Math.PI / 4)) throw new InputError('out-of-range', 'f0', 'a frequency at which the open ends take less than a quarter of a coupled section', `${(dl * 1e3).toFixed(3)} mm of end extension on a ${(((Math.PI / 2) / beta) * 1e3).toFixed(3)} mm section`, 'use a thinner substrate');
       const j = s.j / Math.sin(theta);
-      return synthesizeCoupled(sub, { z0Even: z0 * (1 + j + j * j), z0Odd: z0 * (1 - j + j * j) }, f0d);
+      return pairFor(sub, { z0Even: z0 * (1 + j + j * j), z0Odd: z0 * (1 - j + j * j) }, f0d);
     });
   }
   geo.forEach((r, i) => {
-    requireCuttableGap(r.spacing, sub, doc.process, Math.sqrt(r.even.z0 * r.odd.z0), couplingFromModes(r.even.z0, r.odd.z0).db, 'bw',
+    requireCuttableGap(r.gap, sub, doc.process, Math.sqrt(r.even.z0 * r.odd.z0), r.couplingDb, 'bw',
       `coupled section ${i + 1} of ${n + 1}`, 'ask for a narrower bandwidth or a lower order, use a finer tool, or a thinner substrate');
   });
   const feed = opts.feedLength ?? Math.max(2e-3, 3 * sub.h);
@@ -249,7 +249,7 @@ function bandpassDraft(opts: BandpassOptions, knobs: DesignKnobs): DesignDoc {
   let y = 0;
   for (let k = 1; k <= n + 1; k++) {
     const r = geo[k - 1]!;
-    const x0 = (k - 1) * L, pitch = r.width + r.spacing;
+    const x0 = (k - 1) * L, pitch = r.width + r.gap;
     const a = k === 1 ? 'p1' : `r${k - 1}`, d = k === n + 1 ? `p2` : `r${k}`;
     if (k === 1) nodes.push({ id: a, kind: 'vertex', bend: { style: 'miter-optimal' }, at: { x: x0, y } });
     nodes.push({ id: `o${k}b`, kind: 'open', label: `open end, section ${k}`, at: { x: x0 + L, y } });
@@ -257,7 +257,7 @@ function bandpassDraft(opts: BandpassOptions, knobs: DesignKnobs): DesignDoc {
     nodes.push({ id: d, kind: 'vertex', bend: k <= n ? { style: 'square' } : { style: 'miter-optimal' }, ...(k <= n ? { label: `resonator ${k}` } : {}), at: { x: x0 + L, y: y - pitch } });
     segments.push({
       id: `s${k}`, kind: 'coupled', a, b: `o${k}b`, c: `o${k}c`, d, label: `coupled section ${k}`,
-      pair: { by: 'geometry', width: r.width, gap: r.spacing }, length: { by: 'degrees', deg: (90 * f0) / f0d },
+      pair: { by: 'geometry', width: r.width, gap: r.gap }, length: { by: 'degrees', deg: (90 * f0) / f0d },
     });
     y -= pitch;
   }
@@ -270,9 +270,16 @@ function bandpassDraft(opts: BandpassOptions, knobs: DesignKnobs): DesignDoc {
   doc.notes = [
     `Edge-coupled band-pass filter made by the band-pass block: order ${n}, centre ${(f0 / 1e9).toPrecision(5)} GHz, fractional bandwidth ${opts.bw}, ${kind === 'maximally-flat' ? 'maximally flat' : `equal ripple ${opts.rippleDb} dB`}, ${z0} Ω.`,
     `Prototype g0…g${n + 1} = ${gs} (Matthaei, Young and Jones 1964, §4.05); inverters and mode impedances by Cohn 1958 / Matthaei, Young and Jones §10.02.`,
-    ...sections.map((s, i) => `Section ${i + 1}: Z0·J ${s.j.toFixed(4)} (Z0e ${s.z0Even.toFixed(2)} Ω, Z0o ${s.z0Odd.toFixed(2)} Ω); with the overlap lost to the open ends made up, Z0e ${geo[i]!.even.z0.toFixed(2)} Ω, Z0o ${geo[i]!.odd.z0.toFixed(2)} Ω → strips ${(geo[i]!.width * 1e3).toFixed(3)} mm, gap ${(geo[i]!.spacing * 1e3).toFixed(3)} mm.`),
+    ...sections.map((s, i) => `Section ${i + 1}: Z0·J ${s.j.toFixed(4)} (Z0e ${s.z0Even.toFixed(2)} Ω, Z0o ${s.z0Odd.toFixed(2)} Ω); with the overlap lost to the open ends made up, Z0e ${geo[i]!.even.z0.toFixed(2)} Ω, Z0o ${geo[i]!.odd.z0.toFixed(2)} Ω → strips ${(geo[i]!.width * 1e3).toFixed(3)} mm, gap ${(geo[i]!.gap * 1e3).toFixed(3)} mm.`),
     'Each section is 90° at the design centre on its modes\' mean phase constant; the open ends are shortened by their end extension.',
   ].join('\n');
   drawAsPlaced(doc);
   return doc;
+}
+
+/** The pair of mode impedances `modes` on `sub` at f: its geometry and modes through the line-model interface. */
+function pairFor(sub: SubstrateSpec, modes: PairModes, f: number): PairAt {
+  const family = lineModels.pair();
+  const g = family.geometryFor(sub, modes, f);
+  return pairAt(family, sub, g.width, g.gap, f);
 }

@@ -7,7 +7,7 @@
 import type { AsMade, DesignDoc, DesignNode, DesignSegment, FabProcess, JunctionChoice, PhaseGroup, SubstrateSpec, Target } from '../design/types.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import { newDesign } from '../design/defaults.ts';
-import { synthesizeLine } from '../line/index.ts';
+import { lineModels, stripAt, type LineAt } from '../line/index.ts';
 import { cutWidth } from '../layout/checks.ts';
 import { InputError } from '../util/errors.ts';
 import type { ParamDef, ParamValue } from './params.ts';
@@ -69,7 +69,7 @@ export function narrowestWidth(p: FabProcess): number { return p.kind === 'etch'
  * make on this laminate (the nearest it can do).
  */
 export function widthFor(ctx: BlockContext, z: number, field: string, what: string): number {
-  const widthOf = (zz: number): number => { try { return synthesizeLine(ctx.substrate, zz, ctx.f0).width; } catch { return 0; } };
+  const widthOf = (zz: number): number => { try { return lineModels.strip().widthFor(ctx.substrate, zz, ctx.f0); } catch { return 0; } };
   const w = widthOf(z);
   const minW = narrowestWidth(ctx.process);
   if (w >= minW) return w;
@@ -81,7 +81,13 @@ export function widthFor(ctx: BlockContext, z: number, field: string, what: stri
 }
 
 /** Guided wavelength of a Z line at f, m. */
-export function lambdaG(ctx: BlockContext, z: number, f = ctx.f0): number { return synthesizeLine(ctx.substrate, z, f).lambdaG; }
+export function lambdaG(ctx: BlockContext, z: number, f = ctx.f0): number { return stripOfZ0(ctx.substrate, z, f).lambdaG; }
+
+/** The strip of impedance z on `sub` at f, through the line-model interface (the core's strip family). */
+export function stripOfZ0(sub: BlockContext['substrate'], z: number, f: number): LineAt {
+  const strip = lineModels.strip();
+  return stripAt(strip, sub, strip.widthFor(sub, z, f), f);
+}
 
 /** Collects nodes and segments with local ids, drawn at rough positions. */
 export class Sketch {

@@ -10,7 +10,7 @@
  */
 import type { DesignDoc, DesignNode, DesignSegment } from '../design/types.ts';
 import { newDesign } from '../design/defaults.ts';
-import { modesForCoupling, synthesizeCoupled } from '../line/index.ts';
+import { lineModels, modesForCoupling } from '../line/index.ts';
 import { InputError, describe } from '../util/errors.ts';
 import { sizeDesign } from '../layout/sizing.ts';
 import { netlistFromSized } from '../network/fromSized.ts';
@@ -35,10 +35,10 @@ export function couplerBlock(opts: CouplerOptions): DesignDoc {
   });
   const sub = doc.substrate;
   const modes = modesForCoupling(cdb, z0);
-  const r = synthesizeCoupled(sub, modes, opts.f0);
-  requireCuttableGap(r.spacing, sub, doc.process, z0, cdb, 'couplingDb', `a ${cdb} dB coupler`, 'ask for a looser coupling, use a finer tool, or a thinner substrate');
+  const r = lineModels.pair().geometryFor(sub, modes, opts.f0);
+  requireCuttableGap(r.gap, sub, doc.process, z0, cdb, 'couplingDb', `a ${cdb} dB coupler`, 'ask for a looser coupling, use a finer tool, or a thinner substrate');
   const feed = opts.feedLength ?? Math.max(2e-3, 3 * sub.h);
-  const L = 10e-3, pitch = r.width + r.spacing; // drawn only for directions; sizing places the block
+  const L = 10e-3, pitch = r.width + r.gap; // drawn only for directions; sizing places the block
   const bend = { style: 'miter-optimal' } as const;
   const nodes: DesignNode[] = [
     { id: 'in', kind: 'port', zRef: z0, heading: -Math.PI / 2, label: 'input', at: { x: 0, y: feed } },
@@ -53,7 +53,7 @@ export function couplerBlock(opts: CouplerOptions): DesignDoc {
   const port = (id: string, from: string, to: string): DesignSegment => ({ id, kind: 'line', a: from, b: to, width: { by: 'z0', z0 }, length: { by: 'length', length: feed } });
   const segments: DesignSegment[] = [
     port('feed-in', 'in', 'a'),
-    { id: 'pair', kind: 'coupled', a: 'a', b: 'b', c: 'c', d: 'd', label: 'coupled section', pair: { by: 'geometry', width: r.width, gap: r.spacing }, length: { by: 'degrees', deg: 90 } },
+    { id: 'pair', kind: 'coupled', a: 'a', b: 'b', c: 'c', d: 'd', label: 'coupled section', pair: { by: 'geometry', width: r.width, gap: r.gap }, length: { by: 'degrees', deg: 90 } },
     port('feed-through', 'b', 'through'),
     port('feed-coupled', 'c', 'coupled'),
     port('feed-isolated', 'd', 'isolated'),
@@ -62,7 +62,7 @@ export function couplerBlock(opts: CouplerOptions): DesignDoc {
   doc.segments = segments;
   doc.notes = [
     `Coupled-line coupler made by the coupler block: ${cdb} dB at ${(opts.f0 / 1e9).toPrecision(5)} GHz in ${z0} Ω.`,
-    `Mode impedances Z0e ${modes.z0Even.toFixed(2)} Ω, Z0o ${modes.z0Odd.toFixed(2)} Ω (Pozar, Microwave Engineering, 4th ed., §7.6); strips ${(r.width * 1e3).toFixed(3)} mm wide, gap ${(r.spacing * 1e3).toFixed(3)} mm (Kirschning–Jansen 1984 static model), 90° at f0 on the modes' mean phase constant.`,
+    `Mode impedances Z0e ${modes.z0Even.toFixed(2)} Ω, Z0o ${modes.z0Odd.toFixed(2)} Ω (Pozar, Microwave Engineering, 4th ed., §7.6); strips ${(r.width * 1e3).toFixed(3)} mm wide, gap ${(r.gap * 1e3).toFixed(3)} mm (Kirschning–Jansen 1984 static model), 90° at f0 on the modes' mean phase constant.`,
     'Microstrip\'s even and odd modes travel at different speeds, so the isolation (directivity) is finite; the response shows it.',
   ].join('\n');
   drawAsPlaced(doc);

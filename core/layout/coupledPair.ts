@@ -4,14 +4,15 @@
  * is then placed, drawn and corrected at its ends (bends, open ends, launch pads) like a line of its width; the
  * pair's data for the network (gap, mode figures) ride on both pieces as `pair`.
  *
- * Geometry from `pair`: given (width, gap), or synthesised from the even- and odd-mode impedances at f0 with the
- * Kirschning–Jansen 1984 static model (core/line coupled-synthesis.ts). Length by degrees at f0 on the mean of the
+ * Geometry from `pair`: given (width, gap), or chosen for the even- and odd-mode impedances at f0 — both through the
+ * coupled-pair family of the line-model interface (`LineModels.pair()`, core/line/line-model.ts; the core's is the
+ * Kirschning–Jansen 1984 static model, core/line kirschning-jansen-1984-coupled.ts, inverted in coupled-synthesis.ts). Length by degrees at f0 on the mean of the
  * two modes' phase constants (βe + βo)/2 — the coupled section's usual design length, common practice — or as given.
  */
 import type { DesignSegment, CoupledSpec, DesignNode } from '../design/types.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import type { Vec2 } from '../geometry/types.ts';
-import { analyzeCoupled, synthesizeCoupled } from '../line/index.ts';
+import { lineModels as coreLineModels, pairAt, type LineModels } from '../line/index.ts';
 import { InputError, describe } from '../util/errors.ts';
 import type { Warning } from '../util/warnings.ts';
 
@@ -54,17 +55,21 @@ export function splitPairs(segments: DesignSegment[]): { segments: DesignSegment
   return { segments: out, index };
 }
 
-/** Resolves a pair's geometry and mode figures at f0 (InputError for an impossible request). */
-export function sizePair(sub: SubstrateSpec, seg: CoupledSegment, f0: number, field: string): { data: Omit<PairData, 'strip' | 'partner' | 'segment'>; warnings: Warning[] } {
+/**
+ * Resolves a pair's geometry and mode figures at f0 through `models`' coupled-pair family (InputError for an
+ * impossible request).
+ */
+export function sizePair(sub: SubstrateSpec, seg: CoupledSegment, f0: number, field: string, models: LineModels = coreLineModels): { data: Omit<PairData, 'strip' | 'partner' | 'segment'>; warnings: Warning[] } {
   const p = seg.pair;
   if (!p || typeof p !== 'object') throw new InputError('invalid-design', `${field}.pair`, "a pair by 'geometry' or by 'modes'", describe(p));
-  const r = p.by === 'geometry'
-    ? analyzeCoupled(sub, p.width, p.gap, f0)
-    : p.by === 'modes' ? synthesizeCoupled(sub, { z0Even: p.z0Even, z0Odd: p.z0Odd }, f0)
+  const family = models.pair();
+  const geo = p.by === 'geometry' ? { width: p.width, gap: p.gap }
+    : p.by === 'modes' ? family.geometryFor(sub, { z0Even: p.z0Even, z0Odd: p.z0Odd }, f0)
       : (() => { throw new InputError('bad-choice', `${field}.pair.by`, "'geometry' or 'modes'", describe((p as { by?: unknown }).by)); })();
+  const r = pairAt(family, sub, geo.width, geo.gap, f0);
   return {
     data: {
-      width: r.width, gap: r.spacing, z0Even: r.even.z0, z0Odd: r.odd.z0, epsEffEven: r.even.epsEff, epsEffOdd: r.odd.epsEff,
+      width: r.width, gap: r.gap, z0Even: r.even.z0, z0Odd: r.odd.z0, epsEffEven: r.even.epsEff, epsEffOdd: r.odd.epsEff,
       betaEven: r.even.beta, betaOdd: r.odd.beta, couplingDb: r.couplingDb,
     },
     warnings: r.warnings,

@@ -23,8 +23,7 @@
  * centrelines less a strip width taken by the two corners.
  */
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { analyzeCoupled, COUPLED_G_MIN, COUPLED_U_MIN } from '../line/index.ts';
-import { COUPLED_U_MAX } from '../line/coupled.ts';
+import { COUPLED_G_MIN, COUPLED_U_MAX, COUPLED_U_MIN, lineModels, pairAt } from '../line/index.ts';
 import { C0 } from '../units/constants.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import type { SizedDesign, SizedPiece } from './types.ts';
@@ -48,7 +47,8 @@ function modesOf(sub: SubstrateSpec, width: number, gap: number): Modes {
   const key = `${sub.er}|${sub.h}|${sub.t}|${width}|${gap}`;
   let m = modeMemo.get(key);
   if (!m) {
-    const c = analyzeCoupled(sub, width, gap, 0, { dispersion: 'none' });
+    // The core's coupled-pair family (line-model interface), static: a fold's share is a drawing-level estimate.
+    const c = pairAt(lineModels.coupled(), sub, width, gap, 0, { dispersion: 'none' });
     m = { ze: c.even.z0, zo: c.odd.z0, se: Math.sqrt(c.even.epsEffStatic), so: Math.sqrt(c.odd.epsEffStatic) };
     if (modeMemo.size > 4096) modeMemo.clear();
     modeMemo.set(key, m);

@@ -11,7 +11,7 @@
  * share a node are left out.
  */
 import type { Vec2 } from '../geometry/types.ts';
-import { analyzeCoupled, COUPLED_G_MIN } from '../line/index.ts';
+import { COUPLED_G_MIN, lineModels, pairAt } from '../line/index.ts';
 import { InputError } from '../util/errors.ts';
 import { DEFAULT_PROXIMITY_LIMIT, proximityLimitFor } from '../design/proximity-limit.ts';
 import type { SizedDesign, SizedPiece } from './types.ts';
@@ -33,6 +33,8 @@ const COS_PARALLEL = Math.cos((10 * Math.PI) / 180);
 /** Runs closer than `limit` (m) and their estimated coupling at f0, strongest first. */
 export function proximityHits(sized: SizedDesign, limit: number): ProximityHit[] {
   const sub = sized.doc.substrate;
+  // Side-by-side runs estimated as coupled pairs of the models the design was sized with (line-model interface).
+  const pairs = (sized.lineModels ?? lineModels).coupled();
   const runs = sized.pieces.filter((p) => (p.kind === 'line' || p.kind === 'taper' || p.kind === 'coupled') && Number.isFinite(p.width) && sized.centrelines[p.id]);
   const ends = (p: SizedPiece) => (p.kind === 'coupled' ? [p.a, p.b] : [p.a, p.b]);
   const wMax = Math.max(0, ...runs.map((p) => Math.max(p.width, p.widthB ?? 0)));
@@ -61,7 +63,7 @@ export function proximityHits(sized: SizedDesign, limit: number): ProximityHit[]
       if (gap < COUPLED_G_MIN * sub.h) continue; // so close the copper check reports it as a gap the tool cannot cut
       let c: number, beta: number;
       try {
-        const r = analyzeCoupled(sub, w, gap, sized.f0);
+        const r = pairAt(pairs, sub, w, gap, sized.f0);
         c = r.couplingFactor; beta = (r.even.beta + r.odd.beta) / 2;
       } catch (e) {
         if (e instanceof InputError) continue; // outside what the coupled model accepts: nothing to estimate

@@ -23,11 +23,11 @@ export type { SubstratePreset } from '../substrate/index.ts';
 // Coupled microstrip pairs (issue 17).
 export type { CoupledOptions, CoupledResult, CoupledMode, GuidedWave, CoupledTarget, CoupledDispersion } from './coupled-types.ts';
 export { COUPLED_DISPERSIONS } from './coupled-types.ts';
-export { analyzeCoupled, couplingFromModes, modesForCoupling, coupledInto, coupledNumbers, COUPLED_G_MIN, COUPLED_U_MIN } from './coupled.ts';
+export { analyzeCoupled, couplingFromModes, modesForCoupling, coupledInto, coupledNumbers, COUPLED_G_MIN, COUPLED_U_MIN, COUPLED_U_MAX } from './coupled.ts';
 export { synthesizeCoupled, couplingAtGap, targetModes, coupledLine } from './coupled-synthesis.ts';
 export type { CoupledAsk } from './coupled-synthesis.ts';
 export { kjCoupledStatic, kjStatic, KJ1984_RANGE } from './kirschning-jansen-1984-coupled.ts';
 export { getsingerEpsEff } from './getsinger-1973-coupled-dispersion.ts';
 // The line-model interface (issue 12): cross-section description in, figures per mode out.
-export type { ModeFigures, ModalFigures, CrossSectionDescription, MicrostripSection, CoupledMicrostripSection, LineModelFamily, SingleMode, CoupledModeName, LineAt, StripLineFamily } from './line-model.ts';
-export { LineModels, lineModels, microstripFamily, coupledMicrostripFamily, microstripMode, microstripColumns, modeOfLine, stripAt, SINGLE_MODE } from './line-model.ts';
+export type { ModeFigures, ModalFigures, CrossSectionDescription, MicrostripSection, CoupledMicrostripSection, LineModelFamily, SingleMode, CoupledModeName, LineAt, StripLineFamily, CoupledPairFamily, PairModes, PairAt } from './line-model.ts';
+export { LineModels, lineModels, microstripFamily, coupledMicrostripFamily, microstripMode, microstripColumns, modeOfLine, stripAt, pairAt, stripColumns, SINGLE_MODE } from './line-model.ts';

@@ -18,7 +18,8 @@ import type { SubstrateSpec } from '../substrate/types.ts';
 import { InputError, describe } from '../util/errors.ts';
 import type { Warning } from '../util/warnings.ts';
 import { analyzeLine, analyzeLines } from './analyze.ts';
-import { analyzeCoupled } from './coupled.ts';
+import { analyzeCoupled, couplingFromModes } from './coupled.ts';
+import { synthesizeCoupled } from './coupled-synthesis.ts';
 import { synthesizeLine } from './synthesize.ts';
 import type { CoupledOptions, GuidedWave } from './coupled-types.ts';
 import type { LineColumns, LineOptions, LineResult } from './types.ts';
@@ -89,6 +90,24 @@ export interface LineAt extends ModeFigures {
 export interface StripLineFamily extends LineModelFamily<MicrostripSection, SingleMode> {
   /** The width, m, whose Z0 at f (Hz) is `z0` Ω on `substrate`; InputError('unreachable-target') when no width gives it. */
   widthFor(substrate: SubstrateSpec, z0: number, f: number, options?: LineOptions): number;
+  /** Optional batch form of `evaluate` (same numbers), for callers that analyse many strips at once (`stripColumns`). */
+  columns?(substrate: SubstrateSpec, widths: ArrayLike<number>, freqs: ArrayLike<number> | number, options?: LineOptions, into?: LineColumns): LineColumns;
+}
+
+/** Even- and odd-mode impedances a coupled pair is asked to have, Ω. */
+export interface PairModes { z0Even: number; z0Odd: number }
+
+/**
+ * A family of symmetric coupled pairs over the laminate that can also choose a geometry for a pair of mode
+ * impedances: what the coupled-line sizing (a pair by modes) and the network's coupled sections ask of a pair's
+ * copper. Asked for as kind 'coupled-microstrip'; a plug-in of that kind (`LineModels.with`) changes every pair.
+ */
+export interface CoupledPairFamily extends LineModelFamily<CoupledMicrostripSection, CoupledModeName> {
+  /**
+   * Width and edge-to-edge gap, m, of the pair whose even and odd Z0 at f (Hz) are `modes` on `substrate`;
+   * InputError('unreachable-target') when no geometry gives them.
+   */
+  geometryFor(substrate: SubstrateSpec, modes: PairModes, f: number, options?: CoupledOptions): { width: number; gap: number };
 }
 
 export const SINGLE_MODE = 'single' as const;
@@ -119,9 +138,10 @@ export const microstripFamily: StripLineFamily = {
   },
   // Exact synthesis of the same analysis (synthesize.ts), so the width's own evaluation gives back z0.
   widthFor(substrate, z0, f, options) { return synthesizeLine(substrate, z0, f, options).width; },
+  columns: analyzeLines,
 };
 
-export const coupledMicrostripFamily: LineModelFamily<CoupledMicrostripSection, CoupledModeName> = {
+export const coupledMicrostripFamily: CoupledPairFamily = {
   kind: 'coupled-microstrip',
   modes: ['even', 'odd'],
   source: 'Kirschning & Jansen 1984 (even/odd statics); Getsinger 1973 dispersion per mode',
@@ -132,6 +152,11 @@ export const coupledMicrostripFamily: LineModelFamily<CoupledMicrostripSection, 
       delayPerM: 1 / x.vp, alphaC: x.alphaC, alphaD: x.alphaD,
     });
     return { f, modes: { even: m(r.even), odd: m(r.odd) }, warnings: r.warnings, valid: isValid(r.warnings) };
+  },
+  // Newton inversion of the same statics (coupled-synthesis.ts); its geometry evaluated here gives back the modes.
+  geometryFor(substrate, modes, f, options) {
+    const r = synthesizeCoupled(substrate, { z0Even: modes.z0Even, z0Odd: modes.z0Odd }, f, options);
+    return { width: r.width, gap: r.spacing };
   },
 };
 
@@ -170,6 +195,21 @@ export class LineModels {
     return fam as StripLineFamily;
   }
 
+  /** The family the design's coupled pairs are analysed with (kind 'coupled-microstrip'), for callers that only evaluate. */
+  coupled(): LineModelFamily<CoupledMicrostripSection, CoupledModeName> {
+    return this.familyOf({ kind: 'coupled-microstrip' }) as unknown as LineModelFamily<CoupledMicrostripSection, CoupledModeName>;
+  }
+
+  /**
+   * The family the design's coupled pairs are sized and solved with (kind 'coupled-microstrip'). Refuses a plug-in
+   * of that kind that cannot choose a geometry for mode impedances, since sizing a pair by modes needs it.
+   */
+  pair(): CoupledPairFamily {
+    const fam = this.familyOf({ kind: 'coupled-microstrip' }) as Partial<CoupledPairFamily> & LineModelFamily;
+    if (typeof fam.geometryFor !== 'function') throw new InputError('bad-choice', 'lineModels.coupled-microstrip', 'a coupled-pair family with geometryFor (sizing chooses a pair\'s width and gap for mode impedances)', 'a family without it');
+    return fam as CoupledPairFamily;
+  }
+
   /** The modes of `section` at f. */
   evaluate<S extends CrossSectionDescription>(section: S, f: number): ModalFigures {
     return this.familyOf(section).evaluate(section, f);
@@ -192,6 +232,55 @@ export function stripAt(family: StripLineFamily, substrate: SubstrateSpec, width
     z0: m.z0, z0Static: m.z0Static, epsEff: m.epsEff, epsEffStatic: m.epsEffStatic, beta: m.beta, lambdaG: m.lambdaG,
     delayPerM: m.delayPerM, alphaC: m.alphaC, alphaD: m.alphaD, width, f, warnings: r.warnings,
   };
+}
+
+/** A pair's even and odd modes at f through `family`, with its geometry, the coupling they give and the warnings. */
+export interface PairAt {
+  width: number;
+  gap: number;
+  f: number;
+  even: ModeFigures;
+  odd: ModeFigures;
+  /** C = (Z0e − Z0o)/(Z0e + Z0o) and −20·log10 C, dB (capped at 400): a quarter-wave section's coupling at its centre. */
+  couplingFactor: number;
+  couplingDb: number;
+  warnings: Warning[];
+  valid: boolean;
+}
+
+export function pairAt(family: LineModelFamily<CoupledMicrostripSection, CoupledModeName>, substrate: SubstrateSpec, width: number, gap: number, f: number, options?: CoupledOptions): PairAt {
+  const r = family.evaluate({ kind: 'coupled-microstrip', substrate, width, gap, options }, f);
+  const { even, odd } = r.modes;
+  const c = couplingFromModes(even.z0, odd.z0);
+  return { width, gap, f, even, odd, couplingFactor: c.factor, couplingDb: c.db, warnings: r.warnings, valid: r.valid };
+}
+
+/**
+ * Many single strips on one substrate at once through `family` (the yield's tables, the coupon's fit): the family's
+ * own batch form when it has one (the microstrip family's is `analyzeLines`, the same numbers as `evaluate` to the
+ * last bit), else `evaluate` entry by entry. A family without a batch form gives no skin depth (0 in that column).
+ * `into`: columns of the same length from an earlier call, refilled instead of new ones.
+ */
+export function stripColumns(family: StripLineFamily, substrate: SubstrateSpec, widths: ArrayLike<number>, freqs: ArrayLike<number> | number, options?: LineOptions, into?: LineColumns): LineColumns {
+  if (family.columns) return family.columns(substrate, widths, freqs, options, into);
+  const n = widths.length;
+  const cols: LineColumns = into !== undefined && into.width.length === n ? into : {
+    width: new Float64Array(n), f: new Float64Array(n), z0: new Float64Array(n), z0Static: new Float64Array(n),
+    epsEff: new Float64Array(n), epsEffStatic: new Float64Array(n), lambdaG: new Float64Array(n), vp: new Float64Array(n),
+    delayPerM: new Float64Array(n), alphaC: new Float64Array(n), alphaD: new Float64Array(n), skinDepth: new Float64Array(n),
+    warnings: [],
+  };
+  cols.warnings.length = 0;
+  for (let i = 0; i < n; i++) {
+    const f = typeof freqs === 'number' ? freqs : freqs[i]!;
+    const r = family.evaluate({ kind: 'microstrip', substrate, width: widths[i]!, options }, f);
+    const m = r.modes.single;
+    cols.width[i] = widths[i]!; cols.f[i] = f; cols.z0[i] = m.z0; cols.z0Static[i] = m.z0Static; cols.epsEff[i] = m.epsEff;
+    cols.epsEffStatic[i] = m.epsEffStatic; cols.lambdaG[i] = m.lambdaG; cols.delayPerM[i] = m.delayPerM;
+    cols.vp[i] = m.delayPerM > 0 ? 1 / m.delayPerM : 0; cols.alphaC[i] = m.alphaC; cols.alphaD[i] = m.alphaD; cols.skinDepth[i] = 0;
+    for (const warning of r.warnings) cols.warnings.push({ index: i, warning });
+  }
+  return cols;
 }
 
 /**

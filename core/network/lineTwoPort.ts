@@ -7,7 +7,7 @@
  */
 import { cadd, ccoshSinh, cdiv, cexp, cmul, csub, cscale, type Complex } from './complex.ts';
 import type { LineConstants } from './netlist.ts';
-import { lineConstantsFrom } from '../line/line-constants.ts';
+import { lineConstantsFrom } from '../line/index.ts';
 import type { ModeFigures } from '../line/line-model.ts';
 import { InputError } from '../util/errors.ts';
 

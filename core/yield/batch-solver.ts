@@ -17,7 +17,8 @@
  */
 import { InputError } from '../util/errors.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
-import { microstripColumns, lineConstantsAt, type LineColumns, type LineOptions } from '../line/index.ts';
+import { lineConstantsAt, type LineColumns, type LineOptions } from '../line/index.ts';
+import { boardLines, type BoardLines } from './board-lines.ts';
 import type { SizedDesign, SizedPiece } from '../layout/types.ts';
 import { compileNetwork, solveAt, type CompiledNetwork } from '../network/mna.ts';
 import { netlistFromSized, type SizedNetlist } from '../network/fromSized.ts';
@@ -49,6 +50,8 @@ export class BatchSolver {
   private readonly nominalSub: SubstrateSpec;
   /** Each piece's own width deviation for the board being solved (first order). */
   private pieceDw: Float64Array;
+  /** The strips' family and the coupled pairs' models, as the nominal board was sized (board-lines.ts). */
+  private readonly lines: BoardLines;
 
   /**
    * `columns`: the ports whose excitation is solved (default all). S entries of the other columns are left as they
@@ -56,6 +59,7 @@ export class BatchSolver {
    */
   constructor(nominal: SizedDesign, readonly freqs: Float64Array, private readonly line?: LineOptions, columns?: readonly number[]) {
     const lam: SampleLaminate = { list: [nominal.doc.substrate], ofPiece: new Int32Array(nominal.pieces.length) };
+    this.lines = boardLines(nominal);
     this.nominalSub = nominal.doc.substrate;
     this.pieceDw = new Float64Array(nominal.pieces.length);
     this.pieceIndex = new Map(nominal.pieces.map((p, i) => [p.id, i]));
@@ -98,7 +102,7 @@ export class BatchSolver {
       tags.set(tag.model, tag);
       return tag.model;
     };
-    const net = netlistFromSized(made, { lineModel, ...(this.line ? { line: this.line } : {}) });
+    const net = netlistFromSized(made, { lineModel, models: this.lines.models, ...(this.line ? { line: this.line } : {}) });
     const list: TableModel[] = [];
     for (const ofSub of tables.values()) for (const t of ofSub.values()) list.push(t);
     return { net, tables: list, tags };
@@ -150,7 +154,7 @@ export class BatchSolver {
       }
       const widths = b.widths;
       for (let j = 0; j < K; j++) widths.fill(list[j]!.width, j * F, (j + 1) * F);
-      const c = microstripColumns(sub, widths, b.fs, this.line, b.cols ?? undefined);
+      const c = this.lines.columns(sub, widths, b.fs, this.line, b.cols ?? undefined);
       b.cols = c;
       list.forEach((t, j) => {
         const tab = (this.pool[slot] ??= new Float64Array(4 * F));
@@ -167,7 +171,7 @@ export class BatchSolver {
   /** Line constants of one laminate and width over the grid (the batch analysis, same numbers as lineConstants). */
   private tableOf(sub: SubstrateSpec, width: number): Float64Array {
     const F = this.freqs.length;
-    const c = microstripColumns(sub, new Float64Array(F).fill(width), this.freqs, this.line);
+    const c = this.lines.columns(sub, new Float64Array(F).fill(width), this.freqs, this.line);
     const t = new Float64Array(4 * F);
     for (let k = 0; k < F; k++) {
       lineConstantsAt(c.z0[k]!, c.epsEff[k]!, c.alphaC[k]!, c.alphaD[k]!, this.freqs[k]!, t, 4 * k);

@@ -12,7 +12,7 @@ import { InputError } from '../util/errors.ts';
 import type { FabProcess, SubstrateSpec, Tolerance, ToleranceQuantity } from '../design/types.ts';
 import { TOLERANCE_WORDS } from '../design/targets.ts';
 import type { SizedDesign, SizedNode, SizedPiece } from '../layout/types.ts';
-import { analyzeLine } from '../line/index.ts';
+import { boardLines, type BoardLines } from './board-lines.ts';
 import { openEndExtension, openEndCapacitance } from '../discontinuity/kirschningJansenKoster1981OpenEnd.ts';
 import { viaGround } from '../discontinuity/goldfarbPucel1991Via.ts';
 import type { ToleranceDraws } from './draws.ts';
@@ -58,6 +58,8 @@ export interface SampleLaminate { list: SubstrateSpec[]; ofPiece: Int32Array }
 export class MadeBoard {
   private readonly pieceIndex: Map<string, number>;
   private readonly gains: (number | null)[];
+  /** The lines the design was sized with (board-lines.ts), for the end models re-evaluated on a made board. */
+  private readonly lines: BoardLines;
   /** Draws below a physical floor (tanδ or t below 0) taken as the floor, counted over the run. */
   floored = 0;
 
@@ -72,6 +74,7 @@ export class MadeBoard {
     this.gain = Float64Array.from(this.gains, (g) => g ?? 0);
     this.perPiece = Uint8Array.from(draws.tolerances, (t) => (t.scope === 'piece' ? 1 : 0));
     this.partOf = draws.tolerances.map((t) => PART[t.quantity]);
+    this.lines = boardLines(sized);
   }
 
   /** Laminate of every piece for the current draws (`only` limits the draws used to one tolerance, for ranking). */
@@ -172,7 +175,7 @@ export class MadeBoard {
     }
     if (n.kind === 'open' && n.open && (p !== p0 || !sameSub)) {
       const w = p.a === n.id ? p.width : (p.widthB ?? p.width);
-      const r = analyzeLine(sub, w, this.sized.f0);
+      const r = this.lines.at(sub, w, this.sized.f0, this.lines.sizedWith);
       const oe = openEndExtension({ u: w / sub.h, er: sub.er, eeStatic: r.epsEffStatic, h: sub.h });
       return { ...n, open: { dl: oe.dl, capacitance: openEndCapacitance(oe.dl, r.epsEffStatic, r.z0Static) } };
     }

@@ -10,7 +10,8 @@
  */
 import { InputError, describe } from '../util/errors.ts';
 import type { SubstrateSpec, ToleranceQuantity } from '../design/types.ts';
-import { analyzeLines, type LineOptions } from '../line/index.ts';
+import type { LineOptions } from '../line/index.ts';
+import { boardLines } from './board-lines.ts';
 import { designPaths, phaseLength, type PathReport } from '../layout/paths.ts';
 import type { SizedDesign, SizedPiece } from '../layout/types.ts';
 import type { AbortLike } from '../network/sweep.ts';
@@ -21,6 +22,7 @@ import { summary, wilson, histogram, type Histogram, type Proportion, type Summa
 export interface PathPhaseOptions {
   samples: number;
   seed: number;
+  /** Line options (default: those the design was sized with, board-lines.ts). */
   line?: LineOptions;
   /** Paths to follow (default: the design's phase groups, as the ledger reports them). */
   reports?: PathReport[];
@@ -71,8 +73,10 @@ export async function pathPhaseMonteCarlo(sized: SizedDesign, opts: PathPhaseOpt
   const widths = [...new Set(sized.pieces.flatMap((p) => legs(p).map((l) => l.width)))];
   const wIndex = new Map(widths.map((w, i) => [w, i]));
   const K = widths.length;
+  // The lines the design was sized with (as made: its cross-section tables), unless the caller gives others.
+  const lines = boardLines(sized), line = opts.line ?? lines.sizedWith;
   const betaOf = (sub: SubstrateSpec, dw: number, out: Float64Array) => {
-    const c = analyzeLines(sub, widths.map((w) => w + dw), f0, opts.line);
+    const c = lines.columns(sub, widths.map((w) => w + dw), f0, line);
     for (let i = 0; i < K; i++) out[i] = (2 * Math.PI) / c.lambdaG[i]!;
   };
   // First-order derivatives of β per width for the per-piece tolerances.
@@ -89,7 +93,7 @@ export async function pathPhaseMonteCarlo(sized: SizedDesign, opts: PathPhaseOpt
       const g = widthGain(t.quantity, fab) ?? 0;
       for (let i = 0; i < K; i++) {
         const w = widths[i]!, h = 1e-4 * w;
-        const c = analyzeLines(sub0, [w + h, w - h], f0, opts.line);
+        const c = lines.columns(sub0, [w + h, w - h], f0, line);
         d[i] = (g * ((2 * Math.PI) / c.lambdaG[0]! - (2 * Math.PI) / c.lambdaG[1]!)) / (2 * h);
       }
     }

@@ -23,7 +23,7 @@ import { hypot } from '../util/hypot.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import type { DesignDoc, Target, Tolerance, ToleranceQuantity } from '../design/types.ts';
 import type { FigureUnit } from '../design/targets.ts';
-import type { LineOptions } from '../line/index.ts';
+import type { LineModels, LineOptions } from '../line/index.ts';
 import { sizeDesign } from '../layout/sizing.ts';
 import type { SizedDesign } from '../layout/types.ts';
 import { netlistFromSized } from '../network/fromSized.ts';
@@ -49,6 +49,8 @@ export interface YieldOptions {
   /** Samples per tolerance for the one-at-a-time ranking (default min(samples, 100); 0 skips the ranking). */
   rankingSamples?: number;
   line?: LineOptions;
+  /** Line models to size and solve every board with (the line-model interface; default the core's). */
+  models?: LineModels;
   onProgress?: (done: number, total: number) => void;
   signal?: AbortLike;
   /** Awaited between chunks so a host can deliver messages (a worker passes a timer). */
@@ -173,7 +175,7 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
   if (!targets.length) {
     throw new InputError('out-of-range', 'targets', 'at least one target (what a good board must meet)', 'none', 'add targets to the design (the yield panel\'s target table, or the file\'s "targets" list)');
   }
-  const sized = sizeDesign(doc, opts.line ? { line: opts.line } : {});
+  const sized = sizeDesign(doc, sizeOptions(opts));
   const nominalNet = netlistFromSized(sized, opts.line ? { line: opts.line } : {});
   const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, opts.points ?? 201), targets);
   const nominal = solveNetwork(nominalNet, freqs);
@@ -296,11 +298,11 @@ export async function runYield(doc: DesignDoc, opts: YieldOptions): Promise<Yiel
  * piece order) and its S over the grid, from the same generator, board maker and solver as runYield. For checks
  * against an independent rebuild (test/reference/yield-skrf.test.ts) and for anyone who wants the raw boards.
  */
-export function madeBoardResponses(doc: DesignDoc, opts: { samples: number; seed: number; points?: number; line?: LineOptions }): {
+export function madeBoardResponses(doc: DesignDoc, opts: { samples: number; seed: number; points?: number; line?: LineOptions; models?: LineModels }): {
   freqs: Float64Array; ports: { name: string; zRef: number }[]; tolerances: Tolerance[]; boards: { draws: number[][]; s: Float64Array }[];
 } {
   checkOptions({ samples: opts.samples, seed: opts.seed });
-  const sized = sizeDesign(doc, opts.line ? { line: opts.line } : {});
+  const sized = sizeDesign(doc, sizeOptions(opts));
   const freqs = targetFrequencies(bandSweep(doc.frequency.band, doc.frequency.f0, opts.points ?? 201), doc.targets ?? []);
   const solver = new BatchSolver(sized, freqs, opts.line ?? sized.lineOptions);
   const { tolerances } = applicableTolerances(sized);
@@ -316,4 +318,9 @@ export function madeBoardResponses(doc: DesignDoc, opts: { samples: number; seed
     boards.push({ draws: draws.values.map((v) => [...v]), s });
   }
   return { freqs, ports: solver.ports, tolerances, boards };
+}
+
+/** Sizing options of a run: the caller's line options and line models, if any (board-lines.ts reads them back). */
+function sizeOptions(opts: { line?: LineOptions; models?: LineModels }): { line?: LineOptions; models?: LineModels } {
+  return { ...(opts.line ? { line: opts.line } : {}), ...(opts.models ? { models: opts.models } : {}) };
 }

@@ -8,7 +8,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
-  analyzeCoupled, analyzeLine, InputError, lineModels, LineModels, microstripMode, modeOfLine, sectionTable, solvedSectionFamily,
+  analyzeCoupled, analyzeLine, analyzeLines, couplingFromModes, microstripFamily, pairAt, stripColumns, synthesizeCoupled, InputError, lineModels, LineModels, microstripMode, modeOfLine, sectionTable, solvedSectionFamily,
   type LineModelFamily, type ModalFigures, type CrossSectionDescription, type SubstrateSpec, type ModeFigures,
 } from '../../core/index.ts';
 import { lineConstants } from '../../core/line/line-constants.ts';
@@ -67,6 +67,41 @@ describe('coupled-microstrip family', () => {
     const single = analyzeLine({ ...SUB, t: 0 }, 2.8e-3, 1e9).z0;
     expect(Math.abs(far.even!.z0 / single - 1)).toBeLessThan(0.03);
     expect(Math.abs(far.odd!.z0 / single - 1)).toBeLessThan(0.03);
+  });
+  it('chooses the geometry the coupled synthesis chooses, and its modes and coupling are those of the synthesis, bit for bit', () => {
+    // 10 dB in 50 Ω: Z0e,o = 50·√((1 ± C)/(1 ∓ C)), C = 10^(−1/2) (Pozar §7.6).
+    const sub = { ...SUB, t: 0 }, c = 10 ** -0.5, f = 2.45e9;
+    const modes = { z0Even: 50 * Math.sqrt((1 + c) / (1 - c)), z0Odd: 50 * Math.sqrt((1 - c) / (1 + c)) };
+    const fam = lineModels.pair();
+    const g = fam.geometryFor(sub, modes, f);
+    const direct = synthesizeCoupled(sub, modes, f);
+    expect(g).toEqual({ width: direct.width, gap: direct.spacing });
+    const r = pairAt(fam, sub, g.width, g.gap, f);
+    expect(r.even.z0).toBe(direct.even.z0); expect(r.odd.z0).toBe(direct.odd.z0);
+    expect(r.even.beta).toBe(direct.even.beta); expect(r.odd.beta).toBe(direct.odd.beta);
+    expect(r.couplingDb).toBe(direct.couplingDb); expect(r.couplingFactor).toBe(couplingFromModes(r.even.z0, r.odd.z0).factor);
+    expect(r.couplingDb).toBeCloseTo(10, 6);
+    expect(r.warnings).toEqual(direct.warnings);
+  });
+  it('refuses an impossible pair in the user\'s words (InputError naming the field)', () => {
+    expect(() => lineModels.pair().geometryFor({ ...SUB, t: 0 }, { z0Even: 40, z0Odd: 60 }, 1e9)).toThrow(InputError);
+  });
+});
+
+describe('many strips at once (stripColumns)', () => {
+  const widths = [0.5e-3, 1e-3, 3e-3, 3e-3], freqs = [1e8, 1e9, 2.45e9, 6e9];
+  it('is the batch analysis itself for the microstrip family, bit for bit', () => {
+    const a = stripColumns(microstripFamily, SUB, widths, freqs), b = analyzeLines(SUB, widths, freqs);
+    expect(Array.from(a.z0)).toEqual(Array.from(b.z0)); expect(Array.from(a.lambdaG)).toEqual(Array.from(b.lambdaG));
+    expect(Array.from(a.alphaC)).toEqual(Array.from(b.alphaC)); expect(Array.from(a.alphaD)).toEqual(Array.from(b.alphaD));
+  });
+  it('asks evaluate entry by entry for a family without a batch form, with the same figures', () => {
+    const { columns: _drop, ...noBatch } = microstripFamily;
+    const a = stripColumns(noBatch, SUB, widths, freqs), b = analyzeLines(SUB, widths, freqs);
+    for (const k of ['z0', 'z0Static', 'epsEff', 'epsEffStatic', 'lambdaG', 'delayPerM', 'alphaC', 'alphaD'] as const) {
+      expect(Array.from(a[k]), k).toEqual(Array.from(b[k]));
+    }
+    expect(a.warnings.length).toBe(b.warnings.length);
   });
 });
 

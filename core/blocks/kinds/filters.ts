@@ -16,14 +16,13 @@
  *   sweep with the junction models, so the edges and the ripple fall where asked (bandstopSweep).
  */
 import { InputError } from '../../util/errors.ts';
-import { synthesizeLine } from '../../line/index.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
 import { teeJunction } from '../../discontinuity/hammerstad1981TeeJunction.ts';
 import { netlistFromSized } from '../../network/fromSized.ts';
 import { solveNetwork } from '../../network/sweep.ts';
 import { prototypeValues } from '../lowpassPrototype.ts';
 import { equalRippleRow, type StubRow } from '../bandstopRichards.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, stripOfZ0, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 
 const RESPONSE = { name: 'response', type: 'choice', choices: ['maxflat', 'chebyshev'], default: 'chebyshev', meaning: 'Maximally flat (−3 dB at the edge) or equal ripple' } as const;
@@ -114,7 +113,7 @@ function meetsCutoff(made: BlockPieces, ctx: BlockContext, fc: number, level: nu
 function stubRefusal(spec: Spec, ctx: BlockContext, made: BlockPieces): InputError {
   const fc = (spec.cutoff as number | undefined) ?? ctx.f0, n = spec.order as number;
   const widest = made.segments.filter((x) => /^s\d+$/.test(x.id) && x.kind === 'line').map((x) => (x.kind === 'line' && x.width.by === 'z0' ? x.width.z0 : Infinity));
-  const zMin = Math.min(...widest), line = synthesizeLine(ctx.substrate, zMin, fc);
+  const zMin = Math.min(...widest), line = stripOfZ0(ctx.substrate, zMin, fc);
   const works = (rippleDb: number): boolean => {
     const trial = { ...spec, response: 'chebyshev', rippleDb };
     try { return meetsCutoff(lowpassPieces(trial, ctx), ctx, fc, edgeLevel(trial)); } catch { return false; }
@@ -136,7 +135,7 @@ function lowpassPieces(spec: Spec, ctx: BlockContext): BlockPieces {
     widthFor(ctx, zh, 'lowpass.zHigh', 'the inductor lines');
     const g = gValues(spec), n = spec.order as number;
     const sub = ctx.substrate;
-    const lenAt = (z: number, rad: number) => (synthesizeLine(sub, z, fc).lambdaG * rad) / (2 * Math.PI);
+    const lenAt = (z: number, rad: number) => (stripOfZ0(sub, z, fc).lambdaG * rad) / (2 * Math.PI);
     const draw = (plan: ReturnType<typeof stubPlan> | null): { sk: Sketch; rows: string[] } => {
       const sk = new Sketch();
       sk.port('src', { x: -feed, y: 0 }, z0, 0, 'input');

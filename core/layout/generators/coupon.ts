@@ -26,9 +26,7 @@ import { newDesign } from '../../design/defaults.ts';
 import { copySelection } from '../../design/clipboard.ts';
 import type { SubstrateSpec } from '../../substrate/types.ts';
 import { validateSubstrate } from '../../substrate/validate.ts';
-import { analyzeLine } from '../../line/analyze.ts';
-import { synthesizeLine } from '../../line/synthesize.ts';
-import type { LineOptions } from '../../line/types.ts';
+import { lineModels, stripAt, type LineModels, type LineOptions, type StripLineFamily } from '../../line/index.ts';
 import { InputError, describe } from '../../util/errors.ts';
 import type { Warning } from '../../util/warnings.ts';
 
@@ -51,6 +49,8 @@ export interface CouponOptions {
   /** Largest f2/f1 one pair covers (default 5, i.e. β·Δl at least 30° from 0° and 180°). */
   maxRatio?: number;
   line?: LineOptions;
+  /** Line models the coupon's strips are asked of (the line-model interface; default the core's). */
+  models?: LineModels;
 }
 
 export interface CouponLinePlan {
@@ -105,8 +105,8 @@ function steppedOutline(strips: { half: number; top: number; bottom: number }[])
 }
 
 /** β (rad/m) of the strip at f by the line model. */
-function betaAt(sub: SubstrateSpec, width: number, f: number, line?: LineOptions): number {
-  return (2 * Math.PI * f) / 299_792_458 * Math.sqrt(analyzeLine(sub, width, f, line).epsEff);
+function betaAt(family: StripLineFamily, sub: SubstrateSpec, width: number, f: number, line?: LineOptions): number {
+  return (2 * Math.PI * f) / 299_792_458 * Math.sqrt(stripAt(family, sub, width, f, line).epsEff);
 }
 
 /** Sizes the coupon's lines for the laminate and band. Pure; throws InputError for bad options. */
@@ -116,9 +116,10 @@ export function planCoupon(opts: CouponOptions): CouponPlan {
   const f2 = checkPositive('band.stop', opts.band?.stop, 'a band stop above the start', 1e12);
   if (!(f2 > f1 * 1.01)) throw new InputError('out-of-range', 'band.stop', `a band stop above the start (${f1} Hz) by more than 1 %`, String(f2), 'a coupon needs some bandwidth to fit over');
   const fc = Math.sqrt(f1 * f2);
+  const family = (opts.models ?? lineModels).strip();
   const width = opts.width !== undefined
     ? checkPositive('width', opts.width, 'a strip width above 0 m', 0.1)
-    : synthesizeLine(sub, checkPositive('z0', opts.z0 ?? 50, 'an impedance above 0 Ω', 1000), fc, opts.line).width;
+    : family.widthFor(sub, checkPositive('z0', opts.z0 ?? 50, 'an impedance above 0 Ω', 1000), fc, opts.line);
   const padLength = checkPositive('padLength', opts.padLength ?? 2e-3, 'a launch pad length above 0 m', 0.05);
   const base = checkPositive('baseLength', opts.baseLength ?? Math.max(25e-3, 10 * sub.h, 2 * padLength + 10 * sub.h), 'the shortest line length above 0 m', 1);
   if (base < 2 * padLength + 2 * width) {
@@ -128,14 +129,14 @@ export function planCoupon(opts: CouponOptions): CouponPlan {
   if (typeof maxRatio !== 'number' || !(maxRatio >= 1.5 && maxRatio <= 8)) throw new InputError('out-of-range', 'maxRatio', 'a band ratio per pair from 1.5 to 8', describe(maxRatio));
   const warnings: Warning[] = [];
   // The top frequency must stay quasi-TEM for the model (and the measurement) to mean anything.
-  const top = analyzeLine(sub, width, f2, opts.line);
+  const top = stripAt(family, sub, width, f2, opts.line);
   warnings.push(...top.warnings.filter((w) => w.code === 'higher-order-mode'));
   const pairs = Math.max(1, Math.ceil(Math.log(f2 / f1) / Math.log(maxRatio) - 1e-9));
   const ratio = Math.pow(f2 / f1, 1 / pairs);
   const lines: CouponLinePlan[] = [{ name: 'A', length: base, delta: 0, ports: ['', ''], segment: '' }];
   for (let i = 0; i < pairs; i++) {
     const a = f1 * Math.pow(ratio, i), b = a * ratio;
-    const ba = betaAt(sub, width, a, opts.line), bb = betaAt(sub, width, b, opts.line);
+    const ba = betaAt(family, sub, width, a, opts.line), bb = betaAt(family, sub, width, b, opts.line);
     // Rounded to 10 µm, finer than any board shop holds (common practice).
     const delta = Math.round((Math.PI / (ba + bb)) * 1e5) / 1e5;
     lines.push({ name: String.fromCharCode(66 + i), length: base + delta, delta, band: { start: a, stop: b },
@@ -145,7 +146,7 @@ export function planCoupon(opts: CouponOptions): CouponPlan {
   let worst = 90;
   for (let k = 0; k <= 200; k++) {
     const f = f1 * Math.pow(f2 / f1, k / 200);
-    const b = betaAt(sub, width, f, opts.line);
+    const b = betaAt(family, sub, width, f, opts.line);
     let best = 0;
     for (const l of lines) {
       if (l.delta === 0) continue;

@@ -36,7 +36,7 @@ export function resolvePair(ctx: SizingContext, seg: CoupledSegment, field: stri
     if (drawing) { ctx.problem('bad-topology', drawing, [id]); return null; }
     let data = ctx.pairs.get(id);
     if (!data) {
-      const r = sizePair(ctx.subs, seg, ctx.f0, field);
+      const r = sizePair(ctx.subs, seg, ctx.f0, field, ctx.models);
       data = r.data;
       ctx.pairs.set(id, data);
       pushWarnings(ctx.warnings, r.warnings, id);

@@ -19,8 +19,7 @@ import { validateSubstrate } from '../../substrate/validate.ts';
 import { ANNEALED_COPPER_SIGMA } from '../../substrate/defaults.ts';
 import { DEBYE_F_HIGH, DEBYE_F_LOW } from '../../substrate/wideband-debye.ts';
 import { thresholdsFor } from '../../line/mode-thresholds.ts';
-import type { LineOptions } from '../../line/types.ts';
-import { analyzeLines } from '../../line/analyze.ts';
+import { lineModels, stripColumns, type LineModels, type LineOptions } from '../../line/index.ts';
 import { C0 } from '../../units/constants.ts';
 import { cabs } from '../complex.ts';
 import { readTouchstone, type TouchstoneData } from '../touchstoneRead.ts';
@@ -62,6 +61,8 @@ export interface CouponExtractInput {
   /** Conditioning margin, degrees (default 20): frequencies where no line pair has β·Δl this far from n·180° are left out. */
   minPhaseDeg?: number;
   line?: LineOptions;
+  /** Line models the coupon's strips are asked of (the line-model interface; default the core's). */
+  models?: LineModels;
 }
 
 export interface CouponPoint {
@@ -159,6 +160,7 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
   }
   if (input.lines.length > 16) throw new InputError('out-of-range', 'lines', 'at most 16 measured lines', `${input.lines.length}`);
   const width = positive('width', input.width, 'the strip width of the coupon lines, above 0 m', 0, 0.1);
+  const family = (input.models ?? lineModels).strip();
   const h = positive('h', input.h, 'the dielectric height, from 1 µm to 100 mm', 1e-6 - 1e-18, 0.1);
   const lengths = input.lines.map((l, i) => positive(`lines[${i}].length`, l?.length, 'the line length between the reference planes, above 0 m', 0, 10));
   const names = input.lines.map((l, i) => (typeof l?.name === 'string' && l.name !== '' ? l.name : `line ${i + 1}`));
@@ -212,7 +214,7 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
   for (let round = 0; round < 4; round++) {
     // γ guesses from the line model with the current laminate.
     // (only where the model applies: above 0 Hz and up to the higher-order-mode threshold).
-    const guess = modelEps(sub, width, inModel.map((k) => freqs[k]!), input.line);
+    const guess = modelEps(sub, width, inModel.map((k) => freqs[k]!), input.line, family);
     if (!guess) throw new InputError('out-of-range', 'erGuess', 'a first guess the line model accepts for this width and height', String(sub.er));
     est = freqs.map(() => null);
     inModel.forEach((k, i) => { if (t[k]) est[k] = multilineGamma(t[k]!, lengths, { re: guess.alpha[i]!, im: guess.beta[i]! }, minPhaseDeg); });
@@ -244,13 +246,13 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
     const wMean = weight.reduce((s, w) => s + w, 0) / weight.length;
     result = fitLaminate({
       freqs: used.map((k) => freqs[k]!), real: realM, loss: lossM, weight: weight.map((w) => w / wMean), spread,
-      width, substrate: withModel, fit: fitList, line: input.line,
+      width, substrate: withModel, fit: fitList, line: input.line, family,
     });
     if (!result) throw new InputError('out-of-range', 'lines', 'measurements the line model can follow', 'no laminate the model accepts fits them', 'check the lengths, width and height given for the coupon');
     sub = result.substrate;
   }
   const fit = result!;
-  const fitted = modelEps(fit.substrate, width, inModel.map((k) => freqs[k]!), input.line);
+  const fitted = modelEps(fit.substrate, width, inModel.map((k) => freqs[k]!), input.line, family);
   const fitAt = new Map<number, { eps: number; alpha: number }>();
   if (fitted) inModel.forEach((k, i) => { const k0 = (2 * Math.PI * freqs[k]!) / C0; fitAt.set(k, { eps: (fitted.beta[i]! / k0) ** 2, alpha: fitted.alpha[i]! }); });
   const points: CouponPoint[] = [];
@@ -273,7 +275,7 @@ export function extractLaminate(input: CouponExtractInput): CouponResult {
   }
   // The model's own warnings at the used frequencies (validity ranges, thin copper …), once each.
   try {
-    const cols = analyzeLines(fit.substrate, used.map(() => width), used.map((k) => freqs[k]!), input.line);
+    const cols = stripColumns(family, fit.substrate, used.map(() => width), used.map((k) => freqs[k]!), input.line);
     const seen = new Set<string>();
     for (const w of cols.warnings) if (!seen.has(w.warning.message.replace(/[\d.]+/g, '#'))) { seen.add(w.warning.message.replace(/[\d.]+/g, '#')); warnings.push(w.warning); }
   } catch { /* the fit already ran through the same model */ }

@@ -12,8 +12,7 @@
  * part, which also carries model misfit) and with σ_k from the measured spread of γ — and combined in quadrature.
  */
 import { C0 } from '../../units/constants.ts';
-import { analyzeLines } from '../../line/analyze.ts';
-import type { LineOptions } from '../../line/types.ts';
+import { microstripFamily, stripColumns, type LineOptions, type StripLineFamily } from '../../line/index.ts';
 import type { SubstrateSpec } from '../../substrate/types.ts';
 import { SUBSTRATE_LIMITS } from '../../substrate/validate.ts';
 
@@ -35,6 +34,8 @@ export interface FitProblem {
   substrate: SubstrateSpec;
   fit: FitParameter[];
   line?: LineOptions;
+  /** The strip family of the line-model interface the coupon's lines are (default the core's microstrip). */
+  family?: StripLineFamily;
 }
 
 export interface FitResult {
@@ -64,9 +65,9 @@ function withParams(sub: SubstrateSpec, fit: FitParameter[], p: number[]): Subst
 }
 
 /** The model's γ and ε_eff at the problem's frequencies, or null where the model refuses the laminate. */
-export function modelEps(sub: SubstrateSpec, width: number, freqs: number[], line?: LineOptions): FitResult['model'] | null {
+export function modelEps(sub: SubstrateSpec, width: number, freqs: number[], line?: LineOptions, family: StripLineFamily = microstripFamily): FitResult['model'] | null {
   let cols;
-  try { cols = analyzeLines(sub, new Array<number>(freqs.length).fill(width), freqs, line); } catch { return null; }
+  try { cols = stripColumns(family, sub, new Array<number>(freqs.length).fill(width), freqs, line); } catch { return null; }
   const real: number[] = [], loss: number[] = [], alpha: number[] = [], beta: number[] = [];
   for (let k = 0; k < freqs.length; k++) {
     const k0 = (2 * Math.PI * freqs[k]!) / C0;
@@ -98,8 +99,8 @@ function jacobian(pr: FitProblem, p: number[]): number[][] | null {
     const h = step(name, p[i]!);
     const lo = Math.max(LIMIT[name][0], p[i]! - h), hi = Math.min(LIMIT[name][1], p[i]! + h);
     const pa = [...p]; pa[i] = hi; const pb = [...p]; pb[i] = lo;
-    const ma = modelEps(withParams(pr.substrate, pr.fit, pa), pr.width, pr.freqs, pr.line);
-    const mb = modelEps(withParams(pr.substrate, pr.fit, pb), pr.width, pr.freqs, pr.line);
+    const ma = modelEps(withParams(pr.substrate, pr.fit, pa), pr.width, pr.freqs, pr.line, pr.family);
+    const mb = modelEps(withParams(pr.substrate, pr.fit, pb), pr.width, pr.freqs, pr.line, pr.family);
     if (!ma || !mb || !(hi > lo)) return null;
     const col: number[] = [];
     for (let k = 0; k < pr.freqs.length; k++) col.push((ma.real[k]! - mb.real[k]!) / (hi - lo), (ma.loss[k]! - mb.loss[k]!) / (hi - lo));
@@ -150,7 +151,7 @@ export function fitLaminate(pr: FitProblem): FitResult | null {
   if (pr.fit.includes('roughness')) { const i = pr.fit.indexOf('roughness'); if (!(p[i]! > 0)) p[i] = 1e-6; }
   const w2 = (i: number) => pr.weight[i >> 1]!; // row i belongs to frequency i >> 1
   const cost = (m: FitResult['model']) => residuals(pr, m).reduce((s, r, i) => s + w2(i) * r * r, 0);
-  let m = modelEps(withParams(pr.substrate, pr.fit, p), pr.width, pr.freqs, pr.line);
+  let m = modelEps(withParams(pr.substrate, pr.fit, p), pr.width, pr.freqs, pr.line, pr.family);
   if (!m) return null;
   let c = cost(m);
   let mu = 1e-3;
@@ -167,7 +168,7 @@ export function fitLaminate(pr: FitProblem): FitResult | null {
       const d = solveSmall(Ad, g);
       if (!d) { mu *= 10; continue; }
       const pn = p.map((v, i) => Math.min(LIMIT[pr.fit[i]!][1], Math.max(LIMIT[pr.fit[i]!][0], v + d[i]!)));
-      const mn = modelEps(withParams(pr.substrate, pr.fit, pn), pr.width, pr.freqs, pr.line);
+      const mn = modelEps(withParams(pr.substrate, pr.fit, pn), pr.width, pr.freqs, pr.line, pr.family);
       const cn = mn ? cost(mn) : Number.POSITIVE_INFINITY;
       if (cn <= c) {
         const small = pn.every((v, i) => Math.abs(v - p[i]!) <= 1e-10 * Math.max(Math.abs(v), 1e-12));

@@ -16,7 +16,7 @@ import type { DesignDoc, DesignNode, DesignSegment, PhaseGroup } from '../../des
 import { sizeDesign, tracePaths, foldsOf, foldShareRad, BOARD_SIZE_LIMIT, type PathReport, type SizedDesign, type SizedPiece } from '../../layout/index.ts';
 import type { Vec2 } from '../../geometry/types.ts';
 import { InputError } from '../../util/errors.ts';
-import { analyzeCoupled } from '../../line/index.ts';
+import { lineModels, pairAt } from '../../line/index.ts';
 import { warn, type Warning } from '../../util/warnings.ts';
 import { allocate, type Branch } from './allocate.ts';
 import { doglegHeight, meanderCorners, meanderExtra, meanderSpan, type MeanderShape } from './meander.ts';
@@ -342,7 +342,8 @@ function gapForCoupling(doc: DesignDoc, s: SizedDesign, limitDb: number): number
   const widths = s.pieces.filter((p) => p.kind === 'line' && Number.isFinite(p.width)).map((p) => p.width);
   if (!widths.length) return 3 * h;
   const w = Math.max(...widths); // wider strips couple more at one gap
-  const couples = (gap: number) => -analyzeCoupled(doc.substrate, w, gap, s.f0).couplingDb; // dB, negative
+  const pairs = (s.lineModels ?? lineModels).coupled();
+  const couples = (gap: number) => -pairAt(pairs, doc.substrate, w, gap, s.f0).couplingDb; // dB, negative
   let lo = 3 * h, hi = 100 * h;
   if (couples(lo) <= limitDb) return lo;
   if (couples(hi) > limitDb) throw new InputError('out-of-range', 'couplingLimitDb', `a limit the lines reach within 100 substrate heights (${couples(hi).toFixed(1)} dB there)`, `${limitDb} dB`);
