@@ -170,6 +170,11 @@ describe('equalize the 64-way feed with one long output run', () => {
     // The meanders do couple, and the ledger counts it.
     expect(Math.max(...arms.meanders.map((m) => Math.abs(m.couplingDeg[1])))).toBeGreaterThan(0.05);
     expect(sweepPhaseSpread(arms.doc, g.from, g.to)).toBeGreaterThan(1);
+    // The same pieces picked by the user: kept (they were chosen), with the sweep's spread reported and a warning.
+    const picked = equalizeGroup(long, { group: 'outputs', pieces: arms.meanders.map((m) => m.piece) });
+    expect(picked.meanders.map((m) => m.piece)).toEqual(arms.meanders.map((m) => m.piece));
+    expect(Math.max(...picked.sweepSpreadDeg!)).toBeGreaterThan(1);
+    expect(picked.warnings.map((w) => w.message).join(' ')).toMatch(/not matched at both ends.*choose pieces on lines matched to their ports/);
   });
 
   for (const mm of [3, 6]) {
