@@ -170,14 +170,22 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
   const limit = opts.sweepLimitDeg ?? SWEEP_LIMIT_DEG;
   const equalPhase = offsets.every((o) => o === 0);
   if (!equalPhase || !first.meanders.length) return first;
-  first.sweepSpreadDeg = sweepSpreadDeg(first.doc, g);
+  try { first.sweepSpreadDeg = sweepSpreadDeg(first.doc, g); } catch (e) {
+    // A design the sweep cannot solve (its own refusal names why) keeps the ledger's result, unchecked.
+    if (!(e instanceof InputError)) throw e;
+    first.warnings.push(warn('phase', `not checked in the sweep: ${e.message}`, { subjects: [g.id], severity: 'info' }));
+    return first;
+  }
   const worst1 = Math.max(...first.sweepSpreadDeg);
   if (worst1 <= limit) return first;
   const mismatchWarning = (why: string): EqualizeResult => {
     first.warnings.push(warn('phase', `the sweep's S21 phase spread of ${g.name} is ${worst1.toFixed(2)}° across the band, above ${limit}°: the meanders on ${first.meanders.filter((m) => !leads.has(m.piece)).map((m) => m.piece).join(', ')} sit on lines not matched at both ends, whose reflections off f0 a length cannot follow; ${why}`, { subjects: first.meanders.map((m) => m.piece), severity: 'warning' }));
     return first;
   };
-  if (first.meanders.every((m) => leads.has(m.piece))) return first;
+  if (first.meanders.every((m) => leads.has(m.piece))) {
+    first.warnings.push(warn('phase', `the sweep's S21 phase spread of ${g.name} is ${worst1.toFixed(2)}° across the band, above ${limit}°, with every meander on a matched port lead: what the junctions and parts on the paths reflect off f0 differs from path to path`, { subjects: [g.id], severity: 'warning' }));
+    return first;
+  }
   if (opts.pieces) return mismatchWarning('choose pieces on lines matched to their ports (a port lead of the port\'s impedance), or let the tool choose');
   let second: EqualizeResult;
   try { second = attempt(true); } catch (e) {
@@ -185,7 +193,7 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     return mismatchWarning('the port leads, which are matched, have no room for them');
   }
   second.sweepSpreadDeg = sweepSpreadDeg(second.doc, g);
-  if (Math.max(...second.sweepSpreadDeg) >= Math.max(...first.sweepSpreadDeg)) return first;
+  if (Math.max(...second.sweepSpreadDeg) >= worst1) return mismatchWarning(`on the matched port leads it would be ${Math.max(...second.sweepSpreadDeg).toFixed(2)}°, no better`);
   second.warnings.push(warn('phase', `meanders on the port leads (matched lines), not on ${first.meanders.map((m) => m.piece).join(', ')}: there the sweep's phase spread across the band was ${Math.max(...first.sweepSpreadDeg).toFixed(2)}°, above ${limit}°; now ${Math.max(...second.sweepSpreadDeg).toFixed(2)}°`, { subjects: second.meanders.map((m) => m.piece), severity: 'info' }));
   return second;
 
