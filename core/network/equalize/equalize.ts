@@ -18,8 +18,7 @@ import type { Vec2 } from '../../geometry/types.ts';
 import { InputError } from '../../util/errors.ts';
 import { analyzeCoupled } from '../../line/index.ts';
 import { miterCut } from '../../discontinuity/douvilleJames1978Miter.ts';
-import { netlistFromSized } from '../fromSized.ts';
-import { solveNetwork } from '../sweep.ts';
+import { matchedLeads, sweepSpreadDeg } from './sweep-check.ts';
 import { warn, type Warning } from '../../util/warnings.ts';
 import { allocate, type Branch } from './allocate.ts';
 import { doglegHeight, meanderCorners, meanderExtra, meanderSpan, type MeanderShape } from './meander.ts';
@@ -98,8 +97,7 @@ export interface EqualizeResult {
 const SMALL_DEG = 0.01;
 /** Band-edge phase spread of the sweep above which the tool moves its meanders to matched leads, degrees (issue's aim). */
 export const SWEEP_LIMIT_DEG = 1;
-/** A line within this fraction of the port's reference impedance counts as matched to it. */
-const MATCH_TOL = 0.03;
+
 const ITERATIONS = 6;
 
 export function findGroup(doc: DesignDoc, key: string): PhaseGroup {
@@ -454,47 +452,6 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     const a = doc.nodes.find((n) => n.id === seg.a), b = doc.nodes.find((n) => n.id === seg.b);
     return !!a && !!b && Math.abs(Math.hypot(b.at.x - a.at.x, b.at.y - a.at.y) - seg.length.length) < 1e-7;
   }
-}
-
-/**
- * The port leads of a group's paths that are matched lines: from the port back toward the start, line pieces whose
- * Z0 at f0 is within MATCH_TOL of the port's reference impedance, joined by plain vertices (no tee between). Seen
- * from the start, such a line ends in its own impedance, so a meander on it adds only its length at every frequency.
- */
-function matchedLeads(s: SizedDesign, report: PathReport): Set<string> {
-  const out = new Set<string>();
-  const nodeById = new Map(s.nodes.map((n) => [n.id, n]));
-  const pieceById = new Map(s.pieces.map((p) => [p.id, p]));
-  for (const path of report.paths) {
-    const zRef = nodeById.get(path.to)?.port?.zRef;
-    if (!zRef) continue;
-    for (let i = path.pieces.length - 1; i >= 0; i--) {
-      const piece = pieceById.get(path.pieces[i]!);
-      if (!piece || piece.kind !== 'line' || !(Math.abs(piece.z0 - zRef) <= MATCH_TOL * zRef)) break;
-      out.add(piece.id);
-      if (nodeById.get(path.nodes[i] ?? '')?.kind !== 'vertex') break;
-    }
-  }
-  return out;
-}
-
-/**
- * The sweep's S21 phase spread of an equal-phase group at the band's start, f0 and stop, degrees: ∠S(out, in) of
- * every output less the first one's, largest minus smallest (the nodal solve of the sized design, junction models in).
- */
-export function sweepSpreadDeg(doc: DesignDoc, g: PhaseGroup): [number, number, number] {
-  const s = sized(doc);
-  const b = doc.frequency.band;
-  const r = solveNetwork(netlistFromSized(s, { line: s.lineOptions }), [b.start, doc.frequency.f0, b.stop]);
-  const P = r.ports.length, i = r.ports.findIndex((p) => p.name === g.from);
-  const cols = g.to.map((t) => r.ports.findIndex((p) => p.name === t));
-  const at = (k: number): number => {
-    if (i < 0 || cols.some((j) => j < 0)) return 0;
-    const ph = cols.map((j) => { const x = 2 * ((k * P + j) * P + i); return (Math.atan2(r.s[x + 1]!, r.s[x]!) * 180) / Math.PI; });
-    const rel = ph.map((p) => ((p - ph[0]! + 540) % 360) - 180);
-    return Math.max(...rel) - Math.min(...rel);
-  };
-  return [at(0), at(1), at(2)];
 }
 
 /** The least edge gap (at least 3h) at which the narrowest line of the design couples no more than `limitDb`, m. */
