@@ -16,7 +16,9 @@ Lengthens the shorter paths of a phase group of DESIGN with meanders until all h
 f0 (or the offsets the group asks for), and writes the result to FILE. Meanders go on straight runs drawn to length
 (the pieces given, or as few as will do, nearest the group's start), inside the board outline, clear of keep-outs
 and other copper; their legs keep at least the gap apart (default 3 substrate heights), their corners are mitered
-and compensated, and their legs' coupling is counted in their electrical length. Nothing else moves.
+and compensated, and their legs' coupling is counted in their electrical length. Nothing else moves. An equal-phase
+group is also checked in the sweep at the band's start, f0 and stop: when the meanders the tool chose leave more
+than 1° there (lines mismatched at both ends reflect off f0), they move to the port leads matched to their ports.
 
 Options:
   --group ID|NAME   the phase group (its id or name)
@@ -81,6 +83,7 @@ export const equalizeCommand: CliCommand = {
       });
       await writeOutputFile(resolve(io.cwd, values.out), serializeDesign(r.doc));
       io.out(`${r.group.name}: ${r.meanders.length} meander(s); spread at f0 ${r.spreadDeg.toFixed(2)}° on the ledger (the legs' coupling counted), at the band edges ${r.bandSpreadDeg[0].toFixed(2)}° / ${r.bandSpreadDeg[1].toFixed(2)}°${r.group.offsetsDeg ? ' (the band-edge error the length offsets imply)' : ''}`);
+      if (r.sweepSpreadDeg) io.out(`  the sweep's S21 phase spread: ${r.sweepSpreadDeg.map((x) => x.toFixed(2)).join(' / ')}° at band start / f0 / stop`);
       for (const m of r.meanders) {
         const shape = m.shape.kind === 'serpentine' ? `${m.shape.bumps === 1 ? 'trombone' : `serpentine of ${m.shape.bumps} bumps`}, legs ${(m.shape.height * 1e3).toFixed(2)} mm` : `dogleg ${(m.shape.height * 1e3).toFixed(2)} mm high`;
         io.out(`  ${m.piece}: +${m.addedDeg.toFixed(2)}° (${(m.extraLength * 1e3).toFixed(2)} mm), ${shape}; legs' coupling ${m.couplingDeg[1].toFixed(2)}°`);

@@ -32,6 +32,17 @@ describe('stripwright equalize', () => {
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/mm is missing/);
   });
+  it('a serpentine-only equalize of a small difference says how much the smallest serpentine adds and what to try (exit 1)', () => {
+    const r = cli(['equalize', src, '--group', 'outputs', '--style', 'serpentine', '--out', join(dir, 'serp.json')]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/is [\d.]+° \([\d.]+ mm of line\) short, but the smallest serpentine \(two bumps or more\) on its runs \(armr.*\) adds [\d.]+ mm/);
+    expect(r.stderr).toMatch(/meander style auto .* or trombone/);
+  });
+  it('prints the sweep\'s phase spread at the band edges of an equal-phase group', () => {
+    const r = cli(['equalize', src, '--group', 'outputs', '--out', join(dir, 'eq2.json')]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/the sweep's S21 phase spread: \d+\.\d\d \/ \d+\.\d\d \/ \d+\.\d\d° at band start \/ f0 \/ stop/);
+  });
   it('a bad command line exits 2 with the usage', () => {
     const r = cli(['equalize', src, '--out', join(dir, 'x.json')]);
     expect(r.code).toBe(2);

@@ -32,6 +32,8 @@ test('equalize the demo\'s outputs after a riser was made longer; one undo step'
   await page.getByTestId('equalize-outputs').click();
   await expect(page.getByTestId('equalize-result')).toContainText('armr', { timeout: 30_000 });
   await expect(page.getByTestId('equalize-result')).toContainText('spread at f0');
+  // The result checked in the sweep's own phase too (band start / f0 / stop).
+  await expect(page.getByTestId('equalize-result')).toContainText('the sweep\'s S21 phase spread');
   await expect(page.getByTestId('path-out-out3')).toHaveCount(0, { timeout: 30_000 });
   await expect(page.getByTestId('path-out-out4')).toHaveCount(0);
 

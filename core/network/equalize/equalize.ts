@@ -17,6 +17,8 @@ import { sizeDesign, tracePaths, foldsOf, foldShareRad, BOARD_SIZE_LIMIT, type P
 import type { Vec2 } from '../../geometry/types.ts';
 import { InputError } from '../../util/errors.ts';
 import { lineModels, pairAt } from '../../line/index.ts';
+import { miterCut } from '../../discontinuity/douvilleJames1978Miter.ts';
+import { matchedLeads, sweepSpreadDeg } from './sweep-check.ts';
 import { warn, type Warning } from '../../util/warnings.ts';
 import { allocate, type Branch } from './allocate.ts';
 import { doglegHeight, meanderCorners, meanderExtra, meanderSpan, type MeanderShape } from './meander.ts';
@@ -43,6 +45,11 @@ export interface EqualizeOptions {
   coupling?: boolean;
   /** Most bumps in one serpentine (default 12). */
   maxBumps?: number;
+  /**
+   * Equal-phase groups: the sweep's band-edge phase spread above which meanders the tool placed move to matched port
+   * leads, degrees (default 1).
+   */
+  sweepLimitDeg?: number;
 }
 
 export interface MeanderReport {
@@ -82,10 +89,15 @@ export interface EqualizeResult {
   ledgerSpreadDeg: number;
   /** The same spread at the band's start and stop, degrees: for an offset group, the band-edge error its length offsets imply. */
   bandSpreadDeg: [number, number];
+  /** Equal-phase groups with meanders: the sweep's own S21 phase spread at band start, f0 and stop, degrees. */
+  sweepSpreadDeg?: [number, number, number];
   warnings: Warning[];
 }
 
 const SMALL_DEG = 0.01;
+/** Band-edge phase spread of the sweep above which the tool moves its meanders to matched leads, degrees (issue's aim). */
+export const SWEEP_LIMIT_DEG = 1;
+
 const ITERATIONS = 6;
 
 export function findGroup(doc: DesignDoc, key: string): PhaseGroup {
@@ -147,12 +159,52 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
   if (opts.pieces) {
     for (const id of opts.pieces) if (!segById.has(id)) throw new InputError('bad-choice', 'pieces', 'ids of segments of this design', JSON.stringify(id));
   }
+  const leads = matchedLeads(s0, before);
+  const first = attempt(false);
+  // The ledger counts lengths; the sweep also sees what the line a meander sits on reflects at its two ends. A meander
+  // on a mismatched line (a tee's arm before a quarter-wave transformer) moves those reflections' phase off f0, so an
+  // equal-phase group the tool placed is checked in the sweep at the band's start, f0 and stop; past the limit, its
+  // meanders move to the matched port leads, whose length is all they add (more meanders, each on a matched line).
+  const limit = opts.sweepLimitDeg ?? SWEEP_LIMIT_DEG;
+  const equalPhase = offsets.every((o) => o === 0);
+  if (!equalPhase || !first.meanders.length) return first;
+  try { first.sweepSpreadDeg = sweepSpreadDeg(first.doc, g); } catch (e) {
+    // A design the sweep cannot solve (its own refusal names why) keeps the ledger's result, unchecked.
+    if (!(e instanceof InputError)) throw e;
+    first.warnings.push(warn('phase', `not checked in the sweep: ${e.message}`, { subjects: [g.id], severity: 'info' }));
+    return first;
+  }
+  const worst1 = Math.max(...first.sweepSpreadDeg);
+  if (worst1 <= limit) return first;
+  const mismatchWarning = (why: string): EqualizeResult => {
+    first.warnings.push(warn('phase', `the sweep's S21 phase spread of ${g.name} is ${worst1.toFixed(2)}° across the band, above ${limit}°: the meanders on ${first.meanders.filter((m) => !leads.has(m.piece)).map((m) => m.piece).join(', ')} sit on lines not matched at both ends, whose reflections off f0 a length cannot follow; ${why}`, { subjects: first.meanders.map((m) => m.piece), severity: 'warning' }));
+    return first;
+  };
+  if (first.meanders.every((m) => leads.has(m.piece))) {
+    first.warnings.push(warn('phase', `the sweep's S21 phase spread of ${g.name} is ${worst1.toFixed(2)}° across the band, above ${limit}°, with every meander on a matched port lead: what the junctions and parts on the paths reflect off f0 differs from path to path`, { subjects: [g.id], severity: 'warning' }));
+    return first;
+  }
+  if (opts.pieces) return mismatchWarning('choose pieces on lines matched to their ports (a port lead of the port\'s impedance), or let the tool choose');
+  let second: EqualizeResult;
+  try { second = attempt(true); } catch (e) {
+    if (!(e instanceof InputError)) throw e;
+    return mismatchWarning('the port leads, which are matched, have no room for them');
+  }
+  second.sweepSpreadDeg = sweepSpreadDeg(second.doc, g);
+  if (Math.max(...second.sweepSpreadDeg) >= worst1) return mismatchWarning(`on the matched port leads it would be ${Math.max(...second.sweepSpreadDeg).toFixed(2)}°, no better`);
+  second.warnings.push(warn('phase', `meanders on the port leads (matched lines), not on ${first.meanders.map((m) => m.piece).join(', ')}: there the sweep's phase spread across the band was ${Math.max(...first.sweepSpreadDeg).toFixed(2)}°, above ${limit}°; now ${Math.max(...second.sweepSpreadDeg).toFixed(2)}°`, { subjects: second.meanders.map((m) => m.piece), severity: 'info' }));
+  return second;
+
+  function attempt(matchedOnly: boolean): EqualizeResult {
   const reason = new Map<string, string>();
+  /** Why the last shape tried on a piece did not fit (room or run length), for the refusal. */
+  const lastProblem = new Map<string, string>();
   const eligible = (id: string): boolean => {
     const seg = segById.get(id), p = pieceById.get(id);
     if (!seg || !p) return false;
     if (opts.pieces && !opts.pieces.includes(id)) return false;
-    if (seg.kind !== 'line' || seg.length.by !== 'drawn') { reason.set(id, 'only a straight run drawn to length can carry a meander'); return false; }
+    if (matchedOnly && !leads.has(id)) { reason.set(id, 'not a matched port lead'); return false; }
+    if (seg.kind !== 'line' || !(seg.length.by === 'drawn' || (seg.length.by === 'length' && drawnAsLong(id)))) { reason.set(id, 'only a straight run drawn to length can carry a meander'); return false; }
     if ((s0.centrelines[id]?.length ?? 0) !== 2) { reason.set(id, 'the run is not straight'); return false; }
     return true;
   };
@@ -185,9 +237,13 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
       const beta = piece.line?.beta ?? 0;
       if (!(beta > 0)) continue;
       const extra = ((shareDeg * Math.PI) / 180) / beta;
+      lastProblem.delete(id);
       const fit = fitShape(piece, extra);
       if (fit) return { ...fit, shareDeg, extra };
-      reason.set(id, `no room for ${(extra * 1e3).toFixed(2)} mm`);
+      const least = smallestExtra(piece);
+      reason.set(id, extra < least
+        ? `${(extra * 1e3).toFixed(2)} mm is less than the smallest ${styleWord()} there adds (${(least * 1e3).toFixed(2)} mm)${style === 'auto' ? `, and a shallow dogleg does not fit: ${lastProblem.get(id) ?? 'the run is too short for its ramps'}` : ''}`
+        : `no room for ${(extra * 1e3).toFixed(2)} mm: ${lastProblem.get(id) ?? 'no shape fits'}`);
     }
     return null;
   }
@@ -203,29 +259,34 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     const W = piece.width, L = Math.hypot(to.x - from.x, to.y - from.y);
     // Two strip widths of straight line before the first corner keep the corners' copper apart (our rule); the
     // room check keeps the legs clear of the neighbours at the run's ends.
-    const pitch = gap + W, hMin = 2 * W, leadMin = 2 * W;
+    // A serpentine's legs and joins run between two right-angle miters, each cutting back along the line (sizing
+    // refuses a piece shorter than its two cuts): they are at least two strip widths and the two cuts long.
+    const legMin = legLeast(W);
+    const pitch = Math.max(gap + W, legMin), hMin = 2 * W, leadMin = 2 * W;
     const ctx = roomContext(s0, piece.id, gap);
     const seg = segById.get(piece.id)!;
     const sides: (1 | -1)[] = only ? [only.side] : [1, -1];
     const tryShape = (shape: MeanderShape): Omit<Plan, 'shareDeg' | 'extra'> | null => {
       const free = L - meanderSpan(shape);
-      if (free < 2 * leadMin) return null;
+      if (free < 2 * leadMin) { if (!lastProblem.has(piece.id)) lastProblem.set(piece.id, `the run is ${(L * 1e3).toFixed(2)} mm long, too short for the meander's ${(meanderSpan(shape) * 1e3).toFixed(2)} mm along it and its straight ends`); return null; }
       // Centred first, then as far toward either end as the corners allow.
       const leads = only?.lead !== undefined ? [only.lead] : [free / 2, leadMin, free - leadMin, free / 4, (3 * free) / 4];
       for (const lead of leads) {
         if (lead < leadMin - 1e-12 || free - lead < leadMin - 1e-12) continue;
         for (const side of sides) {
           const path = [from, ...meanderCorners({ a: from, b: to, side, shape, lead }), to];
-          if (!roomProblem(ctx, path, W, gap)) return { piece, seg, shape, side, lead, from, to, shift };
+          const problem = roomProblem(ctx, path, W, gap);
+          if (!problem) return { piece, seg, shape, side, lead, from, to, shift };
+          if (!lastProblem.has(piece.id)) lastProblem.set(piece.id, problem);
         }
       }
       return null;
     };
-    if (extra >= 2 * hMin) {
+    if (extra >= 2 * legMin) {
       const k0 = style === 'serpentine' ? 2 : 1, k1 = style === 'trombone' ? 1 : maxBumps;
       for (let k = only?.bumps ?? k0; k <= (only?.bumps ?? k1); k++) {
         const height = extra / (2 * k);
-        if (height < hMin) break;
+        if (height < legMin) break;
         const hit = tryShape({ kind: 'serpentine', bumps: k, height, pitch });
         if (hit) return hit;
       }
@@ -239,30 +300,79 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
         const hit = tryShape({ kind: 'dogleg', reach, height: doglegHeight(extra, reach), top: pitch });
         if (hit) return hit;
       }
+      // A short run (a port lead): a steeper dogleg with a top of two strip widths, ramps reaching at least one width.
+      const top = legMin, steep = (L - 2 * leadMin - top) / 2 - 1e-9;
+      for (const reach of [steep, (steep + W) / 2, W]) {
+        if (!(reach >= W) || reach > steep) continue;
+        const hit = tryShape({ kind: 'dogleg', reach, height: doglegHeight(extra, reach), top });
+        if (hit) return hit;
+      }
     }
     return null;
+  }
+
+  /** The style's name as people say it. */
+  function styleWord(): string { return style === 'serpentine' ? 'serpentine (two bumps or more)' : style === 'trombone' ? 'trombone (one U)' : 'U-shaped meander'; }
+
+  /**
+   * Least length the chosen style adds on a piece, m: legs of at least two strip widths (our rule, so the two bends of
+   * a leg stay apart), 2 legs a bump; a serpentine has two bumps or more. 'auto' also has the shallow dogleg, which
+   * adds any small amount where the run is long enough, so its least is that of a U.
+   */
+  function smallestExtra(piece: SizedPiece): number {
+    return (style === 'serpentine' ? 4 : 2) * legLeast(piece.width);
+  }
+
+  /** Least leg of a serpentine of strip width W, m: two strip widths, and no less than two right-angle miters cut. */
+  function legLeast(W: number): number {
+    let cut = 0;
+    try {
+      const c = miterCut({ W, h: doc.substrate.h, er: doc.substrate.er, turnRad: Math.PI / 2 });
+      cut = Math.max(0, c.leg - W / 2);
+    } catch (e) { if (!(e instanceof InputError)) throw e; }
+    return Math.max(2 * W, 2 * cut * 1.02);
   }
 
   function refuse(unmet: Map<string, number>): never {
     const [worst, deg] = [...unmet].sort((a, b) => b[1] - a[1])[0]!;
     const path = before.paths.find((p) => p.to === worst)!;
     // Millimetres of the line a meander would be made of (an eligible run of the path), else of its first line.
-    const betaOf = (id: string) => pieceById.get(id)?.line?.beta ?? 0;
-    const beta = path.pieces.filter((id) => eligible(id)).map(betaOf).find((b) => b > 0) ?? path.pieces.map(betaOf).find((b) => b > 0) ?? 0;
-    const mm = beta > 0 ? ((deg * Math.PI) / 180 / beta) * 1e3 : 0;
     const onPath = path.pieces.filter((id) => !opts.pieces || opts.pieces.includes(id));
-    const room = onPath.map((id) => capacity(id)).reduce((a, b) => Math.max(a, b), 0) * 1e3;
-    const why = onPath.map((id) => reason.get(id) ? `${id}: ${reason.get(id)}` : '').filter(Boolean).slice(-4).join('; ');
-    if (room >= mm) {
+    const usableRuns = onPath.filter((id) => eligible(id));
+    // Of the runs tried first (their line is what a meander there is made of).
+    const tried = usableRuns.filter((id) => reason.has(id));
+    const betaOf = (id: string) => pieceById.get(id)?.line?.beta ?? 0;
+    const beta = [...tried, ...usableRuns, ...path.pieces].map(betaOf).find((b) => b > 0) ?? 0;
+    const mm = beta > 0 ? ((deg * Math.PI) / 180 / beta) * 1e3 : 0;
+    const short = `path ${g.from} → ${worst} is ${deg.toFixed(1)}° (${mm.toFixed(2)} mm of line) short`;
+    const why = (ids: string[]) => ids.filter((id) => reason.has(id)).slice(0, 4).map((id) => `${id}: ${reason.get(id)}`).join('; ');
+    if (!usableRuns.length) {
+      throw new InputError('impossible-layout', 'group', `a straight run on the paths of ${g.name} that can carry a meander`,
+        `${short}, and none of its pieces${opts.pieces ? ' among those chosen' : ''} is a straight run drawn to length${why(onPath) ? ` (${why(onPath)})` : ''}`,
+        opts.pieces ? 'choose a straight run on that path (or let the tool choose)' : 'draw a straight run on that path (a line drawn to its length), then equalize again');
+    }
+    const runs = tried.length ? tried : usableRuns;
+    const least = Math.min(...runs.map((id) => smallestExtra(pieceById.get(id)!))) * 1e3;
+    // ('auto' has the shallow dogleg for small needs: there a refusal is about room, below.)
+    if (style !== 'auto' && mm < least) {
+      // Too little for the style: no room is missing, the shape is too big for the need.
+      const other = style === 'serpentine' ? 'the meander style auto (a shallow dogleg adds small amounts) or trombone (one U, from half as much)' : 'the meander style auto (a shallow dogleg adds small amounts)';
+      throw new InputError('impossible-layout', 'group', `a lengthening the chosen meander style can make on the paths of ${g.name}`,
+        `${short}, but the smallest ${styleWord()} on its runs (${runs.slice(0, 6).join(', ')}) adds ${least.toFixed(2)} mm: each leg is at least ${(Math.min(...runs.map((id) => legLeast(pieceById.get(id)!.width))) * 1e3).toFixed(2)} mm long (two strip widths, and longer than its two corners' miter cuts)`,
+        `choose ${other}, or lengthen the group's longest path by at least ${(least - mm).toFixed(2)} mm so the others need ${least.toFixed(2)} mm or more`);
+    }
+    const caps = runs.map((id) => ({ id, mm: capacity(id) * 1e3 })).sort((a, b) => b.mm - a.mm);
+    const best = caps[0]!;
+    if (best.mm >= mm) {
       // Room enough for more, but not for this little: the corners need legs of two strip widths or long ramps.
       throw new InputError('impossible-layout', 'group',
         `room for meanders on the paths of ${g.name}`,
-        `path ${g.from} → ${worst} needs ${deg.toFixed(1)}° (${mm.toFixed(2)} mm of line) more, less than the smallest meander that fits its runs (legs of at least two strip widths; up to ${room.toFixed(2)} mm fit)${why ? ` (${why})` : ''}`,
+        `${short}, less than the smallest meander that fits its runs (legs of at least ${(legLeast(pieceById.get(best.id)!.width) * 1e3).toFixed(2)} mm; up to ${best.mm.toFixed(2)} mm fit on ${best.id})${why(runs) ? ` (${why(runs)})` : ''}`,
         'choose a longer or narrower run on that path, or lengthen the group\'s long path so the others need more');
     }
     throw new InputError('impossible-layout', 'group',
       `room for meanders on the paths of ${g.name}`,
-      `path ${g.from} → ${worst} needs ${deg.toFixed(1)}° (${mm.toFixed(2)} mm of line) more; the most one of its runs takes is ${room.toFixed(2)} mm, so ${Math.max(0, mm - room).toFixed(2)} mm is missing${why ? ` (${why})` : ''}`,
+      `${short}; ${best.mm < 0.01 ? `none of the runs it could use (${runs.slice(0, 6).join(', ')}) has room for a ${styleWord()}, so all ${mm.toFixed(2)} mm is missing` : `the most one of its runs takes is ${best.mm.toFixed(2)} mm (${best.id}), so ${Math.max(0, mm - best.mm).toFixed(2)} mm is missing`}${why(runs) ? ` (${why(runs)})` : ''}`,
       'make room beside a drawn run on that path (move other copper, widen the board), choose other pieces, or lower the leg gap');
   }
 
@@ -271,8 +381,8 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     if (!eligible(id)) return 0;
     const piece = pieceById.get(id)!;
     let best = 0;
-    for (let k = 1; k <= (style === 'trombone' ? 1 : maxBumps); k++) {
-      let lo = 2 * piece.width, hi = BOARD_SIZE_LIMIT;
+    for (let k = style === 'serpentine' ? 2 : 1; k <= (style === 'trombone' ? 1 : maxBumps); k++) {
+      let lo = legLeast(piece.width), hi = BOARD_SIZE_LIMIT;
       if (!fitShape(piece, 2 * k * lo, { side: 1, bumps: k }) && !fitShape(piece, 2 * k * lo, { side: -1, bumps: k })) continue;
       for (let i = 0; i < 30; i++) {
         const mid = (lo + hi) / 2;
@@ -333,6 +443,15 @@ export function equalizeGroup(doc: DesignDoc, opts: EqualizeOptions): EqualizeRe
     spreadDeg: spread(1, 'electricalDeg'), ledgerSpreadDeg: spread(1, 'ledgerDeg'),
     bandSpreadDeg: [spread(0, 'electricalDeg'), spread(2, 'electricalDeg')], warnings,
   };
+  }
+
+  /** A run given by length whose drawn ends already lie that far apart: its meander keeps both ends in place. */
+  function drawnAsLong(id: string): boolean {
+    const seg = segById.get(id);
+    if (!seg || seg.kind !== 'line' || seg.length.by !== 'length') return false;
+    const a = doc.nodes.find((n) => n.id === seg.a), b = doc.nodes.find((n) => n.id === seg.b);
+    return !!a && !!b && Math.abs(Math.hypot(b.at.x - a.at.x, b.at.y - a.at.y) - seg.length.length) < 1e-7;
+  }
 }
 
 /** The least edge gap (at least 3h) at which the narrowest line of the design couples no more than `limitDb`, m. */

@@ -24,6 +24,7 @@ export function equalizeJob(input: EqualizeInput): EqualizeOutput {
     return `${m.piece}: +${m.addedDeg.toFixed(2)}° (${(m.extraLength * 1e3).toFixed(2)} mm, ${shape}; legs' coupling ${m.couplingDeg[1].toFixed(2)}°)`;
   });
   lines.push(`spread at f0 ${r.spreadDeg.toFixed(2)}°, at the band edges ${r.bandSpreadDeg[0].toFixed(2)}° / ${r.bandSpreadDeg[1].toFixed(2)}°${r.group.offsetsDeg ? ' (the band-edge error the offsets imply)' : ''}`);
+  if (r.sweepSpreadDeg) lines.push(`the sweep's S21 phase spread ${r.sweepSpreadDeg.map((x) => x.toFixed(2)).join(' / ')}° at band start / f0 / stop`);
   for (const w of r.warnings) lines.push(w.message);
   return { nodes: r.doc.nodes, segments: r.doc.segments, lines, spreadDeg: r.spreadDeg, bandSpreadDeg: r.bandSpreadDeg };
 }
