@@ -29,6 +29,8 @@ test('equalize the demo\'s outputs after a riser was made longer; one undo step'
   // out1 and out2 are now the longer paths: out3 and out4 fall behind.
   await expect(page.getByTestId('path-out-out3')).toBeVisible({ timeout: 30_000 });
 
+  // The meander shape is a choice beside the button (the CLI's --style); auto is the default.
+  await expect(page.getByTestId('equalize-style-outputs')).toHaveValue('auto');
   await page.getByTestId('equalize-outputs').click();
   await expect(page.getByTestId('equalize-result')).toContainText('armr', { timeout: 30_000 });
   await expect(page.getByTestId('equalize-result')).toContainText('spread at f0');

@@ -4,10 +4,11 @@
  * (the editor applies them as one undo step) and what the panels show.
  */
 import type { DesignDoc, DesignNode, DesignSegment } from '../../../core/index.ts';
-import { equalizeGroup, tuneWithBlocks, type TuneVariable, type TunedVariable, type TargetEvaluation, type PlacedBlock, type PhaseGroup, type Target } from '../../../core/index.ts';
+import { equalizeGroup, tuneWithBlocks, type MeanderStyle, type TuneVariable, type TunedVariable, type TargetEvaluation, type PlacedBlock, type PhaseGroup, type Target } from '../../../core/index.ts';
 import type { Progress } from './client.ts';
 
-export interface EqualizeInput { doc: DesignDoc; group: string; pieces?: string[] }
+/** `style`: the meander shape, as `stripwright equalize --style` takes it (default auto). */
+export interface EqualizeInput { doc: DesignDoc; group: string; pieces?: string[]; style?: MeanderStyle }
 export interface EqualizeOutput {
   nodes: DesignNode[];
   segments: DesignSegment[];
@@ -18,7 +19,7 @@ export interface EqualizeOutput {
 }
 
 export function equalizeJob(input: EqualizeInput): EqualizeOutput {
-  const r = equalizeGroup(input.doc, { group: input.group, ...(input.pieces ? { pieces: input.pieces } : {}) });
+  const r = equalizeGroup(input.doc, { group: input.group, ...(input.pieces ? { pieces: input.pieces } : {}), ...(input.style ? { style: input.style } : {}) });
   const lines = r.meanders.map((m) => {
     const shape = m.shape.kind === 'serpentine' ? (m.shape.bumps === 1 ? 'trombone' : `serpentine, ${m.shape.bumps} bumps`) : 'dogleg';
     return `${m.piece}: +${m.addedDeg.toFixed(2)}° (${(m.extraLength * 1e3).toFixed(2)} mm, ${shape}; legs' coupling ${m.couplingDeg[1].toFixed(2)}°)`;
