@@ -64,7 +64,7 @@ export function isolationGapOf(cut: number, passes: number, overlap = ISOLATION_
 /** Passes that reach `clearance` with this cut and overlap (at least one; at most 10, what the planner allows). */
 export function passesFor(cut: number, clearance: number, overlap = ISOLATION_OVERLAP): number {
   const step = cut * (1 - overlap);
-  const n = 1 + Math.max(0, Math.ceil((clearance - cut) / step - 1e-9));
+  const n = 1 + Math.max(0, Math.ceil((clearance - cut - 1e-9) / step)); // 1 nm: a clearance written to 1 nm
   return Math.min(10, n);
 }
 
