@@ -66,7 +66,7 @@ export const frequencySchema = v.looseObject({
 
 const P = PROCESS_LIMITS;
 /** Process parameters are bounded by what tools are (limits.ts PROCESS_LIMITS), not only by sanity. */
-/** Isolation clearance of a milled process (format 13): bare laminate the isolation passes open beside copper, m. */
+/** Isolation clearance of milling, format 13: bare laminate the isolation passes open beside copper, m. */
 const CLEARANCE = num('an isolation clearance in metres above 0 and at most 5 mm (bare laminate beside the copper; 0.5 mm is 0.0005)', 0, 5e-3, { minExclusive: true });
 
 export const processSchema = v.variant('kind', [

@@ -148,7 +148,7 @@ function isolationGapFinding(sized: SizedDesign, sizedGap: number, milledGap: nu
   return [{
     severity: 'warning', code: 'isolation-gap', subjects: [],
     message: `${passes} isolation pass${passes === 1 ? '' : 'es'} open ${mmS(milledGap)} mm beside the copper, but the lines were sized as made beside ${mmS(sizedGap)} mm (the process's isolation clearance)`,
-    fix: 'leave the passes to the process (set its isolation clearance instead), or size the lines as plain microstrip',
+    fix: 'leave the pass count unset so the isolation clearance of the design sets it, or size the lines as plain microstrip',
   }];
 }
 
