@@ -49,16 +49,16 @@ export const corporateBlock: BlockDef = {
     FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext) {
-    if (spec.split === 'wilkinson') return corporateFeed(spec, ctx, 2);
+    if (spec.split === 'wilkinson') return feedAtLevel(spec, ctx, 2);
     // Tee splits: the textbook levels (higher arm 2·Z0) when the process can make them; else the low variant (higher
     // arm Z0: an equal split is a quarter wave from Z0 down to Z0/2 and two Z0 arms), which milled side copper allows
     // (it lowers Z0, so high impedances need copper narrower than the cut leaves). Refused, naming the nearest
     // impedance the process can make, when neither fits.
     try {
-      return corporateFeed(spec, ctx, 2);
+      return feedAtLevel(spec, ctx, 2);
     } catch (e) {
       if (!(e instanceof InputError) || e.code !== 'out-of-range' || e.field !== 'corporate.amplitudesDb') throw e;
-      const made = corporateFeed(spec, ctx, 1);
+      const made = feedAtLevel(spec, ctx, 1);
       made.notes.splice(1, 0, `Tee splits at the low level: the higher-impedance arm of each split is ${spec.z0 as number} Ω (the textbook ${2 * (spec.z0 as number)} Ω is beyond what the process makes here: ${e.expected}).`);
       return made;
     }
@@ -69,7 +69,7 @@ export const corporateBlock: BlockDef = {
  * The feed with tee junction levels set so each split's higher-impedance arm is `top`·Z0 (2: the textbook feed; 1:
  * the low variant). Wilkinson splits work at Z0 whatever `top` is.
  */
-function corporateFeed(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces {
+function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces {
     const n = spec.outputs as number, z0 = spec.z0 as number, feed = spec.feed as number;
     const wilk = spec.split === 'wilkinson';
     const dbs = (spec.amplitudesDb as number[] | undefined) ?? [];
