@@ -53,7 +53,7 @@ export function kindUsage(kind: string): string {
     '  --f0 FREQ                 design frequency, e.g. 2.45GHz (a filter\'s cut-off may equal it)',
     '  --preset NAME | --er N --h LEN [--t LEN] [--tand N] [--sigma S] [--rough LEN]   laminate, as for \'line\'',
     '  --min-gap LEN | --end-mill LEN   the process (default: the new-design 30° V-bit)',
-    '  --clearance LEN       milled: bare laminate the isolation passes open beside the copper (default 0.5 mm); lines sized as made see it',
+    '  --clearance LEN       milled: bare laminate the isolation passes open beside the copper (default 0.7 mm); lines sized as made see it',
     '  --junctions modelled|ideal      junction models in sizing and the sweep (default modelled)',
     '  --sizing microstrip|as-made     size the lines as plain microstrip (the default; copper cleared beside the',
     '                            lines) or as milled (side copper at the cut, from field solutions)',

@@ -13,10 +13,10 @@ export const FR4_DEFAULT: Readonly<SubstrateSpec> = Object.freeze({
 });
 
 /**
- * A 30° V-bit with a 0.1 mm tip cutting 0.05 mm deep: a usual isolation-milling setup for RF boards; 0.5 mm of
+ * A 30° V-bit with a 0.1 mm tip cutting 0.05 mm deep: a usual isolation-milling setup for RF boards; 0.7 mm of
  * isolation clearance beside the copper (DEFAULT_ISOLATION_CLEARANCE in core/layout/process-cut.ts gives the reason).
  */
-export const PROCESS_DEFAULT: Readonly<FabProcess> = Object.freeze({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3, clearance: 0.5e-3 });
+export const PROCESS_DEFAULT: Readonly<FabProcess> = Object.freeze({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3, clearance: 0.7e-3 });
 
 export const FREQUENCY_DEFAULT = Object.freeze({ f0: 2.45e9, band: Object.freeze({ start: 2.4e9, stop: 2.5e9 }) });
 

@@ -21,16 +21,16 @@ import { exhaustive } from '../util/errors.ts';
 export const ISOLATION_OVERLAP = 0.4;
 
 /**
- * Isolation clearance of a milled design whose process does not give one: 0.5 mm of bare laminate beside every
+ * Isolation clearance of a milled design whose process does not give one: 0.7 mm of bare laminate beside every
  * copper edge (the project's default, chosen for RF lines). Why this width: with the side copper this far from the
- * line, (1) a 1.6 mm glass-epoxy board can still carry lines up to about 120 Ω at the narrowest copper a 30° V-bit
- * leaves, so the usual divider, transformer and filter impedances can be made; (2) the line's Z0 is about 2.6 times
- * less sensitive to an error of the cut's width than beside a single 0.11 mm cut (0.29 Ω against 0.76 Ω per 20 µm
- * for a 2.9 mm line, from this project's cross-section solver), so a V-bit cutting a little deep or shallow moves the
- * impedance little; (3) it costs a handful of passes with a fine V-bit, not the hours of clearing all copper. A wider
- * clearance brings lines nearer plain microstrip at the cost of milling time.
+ * line, (1) a 1.6 mm glass-epoxy board can still carry lines up to about 128 Ω at the narrowest copper a 30° V-bit
+ * leaves (beside one cut: about 78 Ω), so the usual divider, feed and stub-filter impedances can be made; (2) the
+ * line's Z0 is about 4 times less sensitive to an error of the cut's width than beside a single 0.11 mm cut (0.19 Ω
+ * against 0.76 Ω per 20 µm for a 2.9 mm line, from this project's cross-section solver), so a V-bit cutting a little
+ * deep or shallow moves the impedance little; (3) it costs nine passes with the default V-bit, not the hours of
+ * clearing all copper. A wider clearance brings lines nearer plain microstrip at the cost of milling time.
  */
-export const DEFAULT_ISOLATION_CLEARANCE = 0.5e-3;
+export const DEFAULT_ISOLATION_CLEARANCE = 0.7e-3;
 
 /** Width of the cut the process makes (the narrowest gap it can open), m. */
 export function cutWidth(p: FabProcess): number {

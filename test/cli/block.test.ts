@@ -70,7 +70,7 @@ describe('stripwright block (registry)', () => {
     expect((await run(['block', 'corporate', '--outputs', '4', '--f0', '2.45GHz', '--out', 'wide.json'], dir)).code).toBe(0);
     const wide = read('wide.json');
     expect(wide.asMade).toEqual({ sizing: 'as-made', sideCopper: 'stitched' });
-    expect(wide.process).toMatchObject({ kind: 'v-bit', clearance: 0.5e-3 });
+    expect(wide.process).toMatchObject({ kind: 'v-bit', clearance: 0.7e-3 });
     const r = await run(['block', 'corporate', '--outputs', '4', '--f0', '2.45GHz', '--clearance', '0.1mm', '--out', 'narrow.json'], dir);
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/Tee splits at the low level.*about \d+\.\d Ω on this laminate beside its isolation channel/);

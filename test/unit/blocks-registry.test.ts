@@ -301,7 +301,7 @@ describe('blocks in a design sized as made', () => {
     expect(() => makeBlockDesign('wilkinson', { ratioDb: '3' }, { f0: F0, substrate: FR4, process: ONE_PASS, asMade: AS_MADE }))
       .toThrow(/about \d+\.\d Ω on this laminate beside its isolation channel/);
   }, 120_000);
-  it('the same split is made beside the default isolation clearance (0.5 mm), sized as made with no problem', () => {
+  it('the same split is made beside the default isolation clearance (0.7 mm), sized as made with no problem', () => {
     const d = makeBlockDesign('wilkinson', { ratioDb: '3' }, { f0: F0, substrate: FR4 });
     expect(asMadeOf(d).sizing).toBe('as-made');
     expect(sizeDesign(d).problems).toEqual([]);
@@ -315,7 +315,7 @@ describe('blocks in a design sized as made', () => {
     for (const o of outs) expect(Math.abs(wrap(o.deg - outs[0]!.deg))).toBeLessThan(1);
     expect(s(r, 0, 'b1.in', 'b1.in').db).toBeLessThan(-25);
   };
-  it('a 4-way tee feed on the default process (as made by default): the textbook 100 Ω arms fit beside 0.5 mm and meet the figures', () => {
+  it('a 4-way tee feed on the default process (as made by default): the textbook 100 Ω arms fit beside 0.7 mm and meet the figures', () => {
     const d = makeBlockDesign('corporate', { outputs: '4' }, { f0: F0, substrate: FR4 });
     expect(d.asMade).toEqual(AS_MADE);
     const arms = d.segments.filter((x) => x.kind === 'line' && /\.arm\d/.test(x.id));
