@@ -10,7 +10,7 @@ import { statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import {
   BLOCKS, bandChangeWords, blockDef, defaultText, makeBlockDesign, optionName, parseDesign, parseQuantity, placeBlock, rangeText, serializeDesign,
-  InputError, UNIT_WORDS, type FabProcess, type ParamDef,
+  InputError, UNIT_WORDS, PROCESS_DEFAULT, type FabProcess, type ParamDef,
 } from '../../core/index.ts';
 import { DESIGN_TEXT, TOUCHSTONE_INPUT, readInputText, writeOutputFile } from '../files.ts';
 import { UsageError, type CliIo } from '../registry.ts';
@@ -20,7 +20,7 @@ import { legacyUsage } from './block.ts';
 const COMMON = {
   f0: { type: 'string' }, preset: { type: 'string' }, er: { type: 'string' }, h: { type: 'string' }, t: { type: 'string' },
   tand: { type: 'string' }, sigma: { type: 'string' }, rough: { type: 'string' }, 'min-gap': { type: 'string' },
-  'end-mill': { type: 'string' }, junctions: { type: 'string' }, sizing: { type: 'string' }, name: { type: 'string' }, into: { type: 'string' },
+  'end-mill': { type: 'string' }, clearance: { type: 'string' }, junctions: { type: 'string' }, sizing: { type: 'string' }, name: { type: 'string' }, into: { type: 'string' },
   at: { type: 'string' }, out: { type: 'string' }, force: { type: 'boolean' }, help: { type: 'boolean' },
 } as const;
 
@@ -53,6 +53,7 @@ export function kindUsage(kind: string): string {
     '  --f0 FREQ                 design frequency, e.g. 2.45GHz (a filter\'s cut-off may equal it)',
     '  --preset NAME | --er N --h LEN [--t LEN] [--tand N] [--sigma S] [--rough LEN]   laminate, as for \'line\'',
     '  --min-gap LEN | --end-mill LEN   the process (default: the new-design 30° V-bit)',
+    '  --clearance LEN       milled: bare laminate the isolation passes open beside the copper (default 0.7 mm); lines sized as made see it',
     '  --junctions modelled|ideal      junction models in sizing and the sweep (default modelled)',
     '  --sizing microstrip|as-made     size the lines as plain microstrip (the default; copper cleared beside the',
     '                            lines) or as milled (side copper at the cut, from field solutions)',
@@ -106,9 +107,14 @@ export async function runRegistered(kind: string, argv: string[], io: CliIo): Pr
       const substrate = substrateOf({ preset: v.preset as string | undefined ?? (v.er === undefined && v.h === undefined ? 'glass-epoxy' : undefined), er: v.er as string | undefined, h: v.h as string | undefined, t: v.t as string | undefined, tand: v.tand as string | undefined, sigma: v.sigma as string | undefined, rough: v.rough as string | undefined });
       const process: FabProcess | undefined = typeof v['min-gap'] === 'string' ? { kind: 'etch', edgeBias: 0, minFeature: parseQuantity(v['min-gap'], 'length', 'min-gap') }
         : typeof v['end-mill'] === 'string' ? { kind: 'end-mill', toolDiameter: parseQuantity(v['end-mill'], 'length', 'end-mill'), depth: 0.1e-3 } : undefined;
+      if (typeof v.clearance === 'string' && process?.kind === 'etch') throw new UsageError('--clearance is the isolation of a milled process; an etched one (--min-gap) has none');
+      const clearance = typeof v.clearance === 'string' ? parseQuantity(v.clearance, 'length', 'clearance') : undefined;
+      if (clearance !== undefined && !(clearance > 0 && clearance <= 5e-3)) throw new InputError('out-of-range', 'clearance', 'an isolation clearance above 0 and at most 5 mm', String(v.clearance), 'e.g. --clearance 0.5mm');
+      const cleared: FabProcess | undefined = clearance !== undefined
+        ? { ...(process ?? PROCESS_DEFAULT) as Exclude<FabProcess, { kind: 'etch' }>, clearance } : process;
       const junctions = optionalChoice(v.junctions, 'junctions', ['modelled', 'ideal'] as const);
       const sizing = optionalChoice(v.sizing, 'sizing', ['as-made', 'microstrip'] as const, 'use --sizing microstrip when the copper beside the lines is cleared');
-      doc = makeBlockDesign(kind, raw, { f0: parseQuantity(String(v.f0), 'frequency', 'f0'), substrate, ...(process ? { process } : {}), ...(junctions ? { junctions } : {}), ...(sizing ? { asMade: { sizing, sideCopper: 'stitched' as const } } : {}), ...(typeof v.name === 'string' ? { name: v.name } : {}) });
+      doc = makeBlockDesign(kind, raw, { f0: parseQuantity(String(v.f0), 'frequency', 'f0'), substrate, ...(cleared ? { process: cleared } : {}), ...(junctions ? { junctions } : {}), ...(sizing ? { asMade: { sizing, sideCopper: 'stitched' as const } } : {}), ...(typeof v.name === 'string' ? { name: v.name } : {}) });
     }
     await writeOutputFile(target, serializeDesign(doc));
     const placed = doc.blocks![doc.blocks!.length - 1]!;

@@ -7,7 +7,8 @@
 import type { AsMade, DesignDoc, DesignNode, DesignSegment, FabProcess, JunctionChoice, PhaseGroup, SubstrateSpec, Target } from '../design/types.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import { newDesign } from '../design/defaults.ts';
-import { lineModels, stripAt, type LineAt } from '../line/index.ts';
+import { lineModels, stripAt, type LineAt, type LineOptions } from '../line/index.ts';
+import { asMadeLineOptions } from '../layout/as-made.ts';
 import { cutWidth } from '../layout/checks.ts';
 import { InputError } from '../util/errors.ts';
 import type { ParamDef, ParamValue } from './params.ts';
@@ -65,19 +66,27 @@ export function contextDesign(ctx: BlockContext, substrate: SubstrateSpec = ctx.
 export function narrowestWidth(p: FabProcess): number { return p.kind === 'etch' ? p.minFeature : cutWidth(p); }
 
 /**
- * Width of a Z line at f0, refused when the process cannot make it: the message names the highest impedance it can
- * make on this laminate (the nearest it can do).
+ * Width of a Z line at f0 as the host design sizes it (plain microstrip, or as made beside the process's isolation
+ * channel), refused when the process cannot make it: the message names the highest impedance it can make on this
+ * laminate (the nearest it can do).
  */
 export function widthFor(ctx: BlockContext, z: number, field: string, what: string): number {
-  const widthOf = (zz: number): number => { try { return lineModels.strip().widthFor(ctx.substrate, zz, ctx.f0); } catch { return 0; } };
+  const opts = madeLineOptions(ctx);
+  const widthOf = (zz: number): number => { try { return lineModels.strip().widthFor(ctx.substrate, zz, ctx.f0, opts); } catch { return 0; } };
   const w = widthOf(z);
   const minW = narrowestWidth(ctx.process);
   if (w >= minW) return w;
   // The synthesis is monotone in Z: step down until the width is makeable, to name the nearest the process can do.
   let zMax = z;
   for (let k = 0; k < 600 && widthOf(zMax) < minW; k++) zMax *= 0.99;
-  throw new InputError('out-of-range', field, `impedances the process can make (its narrowest copper is ${(minW * 1e3).toFixed(3)} mm, about ${zMax.toFixed(1)} Ω on this laminate)`,
-    `${what} needs ${z.toFixed(1)} Ω${w > 0 ? `, ${(w * 1e3).toFixed(3)} mm wide` : ', narrower than the line model reaches'}`, 'ask for a smaller ratio or impedance, use a thicker laminate, or a finer process');
+  const beside = opts?.crossSection ? ' beside its isolation channel' : '';
+  throw new InputError('out-of-range', field, `impedances the process can make (its narrowest copper is ${(minW * 1e3).toFixed(3)} mm, about ${zMax.toFixed(1)} Ω on this laminate${beside})`,
+    `${what} needs ${z.toFixed(1)} Ω${w > 0 ? `, ${(w * 1e3).toFixed(3)} mm wide` : ', narrower than the line model reaches'}`, 'ask for a smaller ratio or impedance, use a thicker laminate, a wider isolation clearance, or a finer process');
+}
+
+/** The line options the host sizes with (as made: the cross-section table of its process; else none). */
+function madeLineOptions(ctx: BlockContext): LineOptions | undefined {
+  return asMadeLineOptions(contextDesign(ctx));
 }
 
 /** Guided wavelength of a Z line at f, m. */

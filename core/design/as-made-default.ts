@@ -1,11 +1,11 @@
 /**
- * How a design's lines are sized when its file does not say: as plain microstrip, side copper stitched. Sizing as
- * made ('as-made': the cross-section isolation milling leaves, with the top copper standing beside every line) is
- * chosen per design (the Stack panel, `asMade` in the file; the examples that are milled choose it). It is not yet
- * the default for milled designs: the default 30° V-bit's 0.11 mm cut leaves side copper so close that lines above
- * about 88 Ω on 1.6 mm glass-epoxy cannot be made, and the 100 Ω arms of the tee-split blocks need them. From format 12
- * every file says which it uses (the 11 → 12 migration writes the choice into older files), so the default can change
- * later without changing what a saved file means. One place reads the setting: here.
+ * How a design's lines are sized when its file does not say: isolation milling (end mill or V-bit) leaves the rest
+ * of the top copper standing beside every line, so a milled design is sized as the cross-section it will be
+ * ('as-made', beside the isolation channel its process mills: core/layout/process-cut.ts `isolationPlan`); an etched
+ * design is sized as plain microstrip. Side copper is stitched unless the file says otherwise. From format 12 every
+ * saved file says which it uses (the 11 → 12 migration wrote the old choice, plain microstrip, into older files), and
+ * `newDesign` writes the choice into new ones, so this default only fills designs built in memory without one.
+ * One place reads the setting: here.
  */
 import type { AsMade, DesignDoc, FabProcess } from './types.ts';
 
@@ -14,7 +14,12 @@ export function isMilled(fab: FabProcess): boolean {
   return fab.kind === 'end-mill' || fab.kind === 'v-bit';
 }
 
-/** The design's as-made setting: its own, or plain microstrip with stitched side copper. */
+/** The setting a new design made with `process` gets: as made when milled, plain microstrip when etched. */
+export function defaultAsMade(process: FabProcess): AsMade {
+  return { sizing: isMilled(process) ? 'as-made' : 'microstrip', sideCopper: 'stitched' };
+}
+
+/** The design's as-made setting: its own, or the default for the way it is made. */
 export function asMadeOf(doc: Pick<DesignDoc, 'asMade' | 'process'>): AsMade {
-  return doc.asMade ?? { sizing: 'microstrip', sideCopper: 'stitched' };
+  return doc.asMade ?? defaultAsMade(doc.process);
 }

@@ -6,13 +6,17 @@
 import type { AsMade, DesignDoc, FabProcess, SubstrateSpec } from './types.ts';
 import { DESIGN_FORMAT } from './types.ts';
 import { DESIGN_VERSION } from './migrations.ts';
+import { defaultAsMade } from './as-made-default.ts';
 
 export const FR4_DEFAULT: Readonly<SubstrateSpec> = Object.freeze({
   preset: 'glass-epoxy', er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6,
 });
 
-/** A 30° V-bit with a 0.1 mm tip cutting 0.05 mm deep: a usual isolation-milling setup for RF boards. */
-export const PROCESS_DEFAULT: Readonly<FabProcess> = Object.freeze({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 });
+/**
+ * A 30° V-bit with a 0.1 mm tip cutting 0.05 mm deep: a usual isolation-milling setup for RF boards; 0.7 mm of
+ * isolation clearance beside the copper (DEFAULT_ISOLATION_CLEARANCE in core/layout/process-cut.ts gives the reason).
+ */
+export const PROCESS_DEFAULT: Readonly<FabProcess> = Object.freeze({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3, clearance: 0.7e-3 });
 
 export const FREQUENCY_DEFAULT = Object.freeze({ f0: 2.45e9, band: Object.freeze({ start: 2.4e9, stop: 2.5e9 }) });
 
@@ -52,7 +56,8 @@ export function newDesign(opts: NewDesignOptions = {}): DesignDoc {
     tolerances: [],
   };
   if (opts.notes !== undefined) doc.notes = opts.notes;
-  if (opts.asMade) doc.asMade = structuredCopy(opts.asMade);
+  // New files say how their lines are sized: as made when milled (the default), unless the caller chose.
+  doc.asMade = structuredCopy(opts.asMade ?? defaultAsMade(doc.process));
   return doc;
 }
 

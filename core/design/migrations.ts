@@ -20,6 +20,8 @@
  * - 11: `proximityLimit`: the shop check's limit for runs side by side (a multiple of h or a length); absent = 3 h.
  * - 12: every file says how its lines are sized (`asMade`): older files without it get plain-microstrip sizing
  *       written in (what absence meant), so a later change of the default cannot change them.
+ * - 13: a milled process carries its isolation clearance (`process.clearance`, m); older milled files get the
+ *       channel their G-code milled written in (two passes overlapping 0.4: 1.6 cuts), so their toolpaths stay.
  */
 type Json = Record<string, unknown>;
 
@@ -135,6 +137,22 @@ export const MIGRATIONS: readonly Migration[] = [
       // Literal value on purpose (see the first migration). A missing asMade meant plain microstrip sizing; boards may
       // have been cut from those widths, so the file says so explicitly from now on.
       return { ...doc, version: 12, asMade: doc.asMade ?? { sizing: 'microstrip', sideCopper: 'stitched' } };
+    },
+  },
+  {
+    from: 12,
+    summary: 'a milled process now says how wide its isolation is (clearance); this file milled two overlapping passes, so that channel (1.6 cut widths) is written in; lines sized as made now see that channel, not one cut',
+    up(doc) {
+      // Literal values on purpose (see the first migration): format 12 milled every design with 2 isolation passes
+      // overlapping 0.4 of the cut, a channel of cut + 0.6·cut. The cut is the tool's (end mill) or the V's width at
+      // the cutting depth, tip + 2·depth·tan(angle/2).
+      const p = doc.process as Json | undefined;
+      if (!p || typeof p !== 'object' || p.clearance !== undefined) return { ...doc, version: 13 };
+      const n = (x: unknown) => (typeof x === 'number' && Number.isFinite(x) ? x : NaN);
+      const cut = p.kind === 'end-mill' ? n(p.toolDiameter)
+        : p.kind === 'v-bit' ? n(p.tipWidth) + 2 * n(p.depth) * Math.tan((n(p.angleDeg) * Math.PI) / 360) : NaN;
+      if (!(cut > 0)) return { ...doc, version: 13 };
+      return { ...doc, version: 13, process: { ...p, clearance: Math.round(1.6 * cut * 1e9) / 1e9 } };
     },
   },
 ];

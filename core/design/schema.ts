@@ -66,17 +66,22 @@ export const frequencySchema = v.looseObject({
 
 const P = PROCESS_LIMITS;
 /** Process parameters are bounded by what tools are (limits.ts PROCESS_LIMITS), not only by sanity. */
+/** Isolation clearance of milling, format 13: bare laminate the isolation passes open beside copper, m. */
+const CLEARANCE = num('an isolation clearance in metres above 0 and at most 5 mm (bare laminate beside the copper; 0.5 mm is 0.0005)', 0, 5e-3, { minExclusive: true });
+
 export const processSchema = v.variant('kind', [
   v.looseObject({
     kind: v.literal('end-mill'),
     toolDiameter: num(`a tool diameter in metres from ${P.endMillDiameterMin * 1e3} mm to ${P.endMillDiameterMax * 1e3} mm (what end mills are; 0.4 mm is 0.0004)`, P.endMillDiameterMin, P.endMillDiameterMax),
     depth: num(`a cut depth in metres above 0 and at most ${P.endMillDepthMax * 1e3} mm`, 0, P.endMillDepthMax, { minExclusive: true }),
+    clearance: v.optional(CLEARANCE),
   }),
   v.looseObject({
     kind: v.literal('v-bit'),
     tipWidth: num(`a tip width in metres from 0 to ${P.vBitTipMax * 1e3} mm (what V-bits are; 0.1 mm is 0.0001)`, 0, P.vBitTipMax),
     angleDeg: num(`an included angle in degrees from ${P.vBitAngleDegMin} to ${P.vBitAngleDegMax} (what V-bits are; 30 is usual)`, P.vBitAngleDegMin, P.vBitAngleDegMax),
     depth: num(`a cut depth in metres above 0 and at most ${P.vBitDepthMax * 1e3} mm (an isolation cut goes just through the copper; 0.05 mm is 0.00005)`, 0, P.vBitDepthMax, { minExclusive: true }),
+    clearance: v.optional(CLEARANCE),
   }),
   v.looseObject({
     kind: v.literal('etch'),

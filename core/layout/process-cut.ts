@@ -1,17 +1,36 @@
 /**
  * What the design's fabrication process cuts: the one place the tool's cut width and the isolation gap come from.
- * The shop check (checks.ts), the milling planner (core/toolpath) and the export pipeline's isolation outlines all
- * read it, so the app and the CLI never ask the user again for a tool the design already holds.
+ * The shop check (checks.ts), the milling planner (core/toolpath), as-made sizing (as-made.ts) and the export
+ * pipeline's isolation outlines all read it, so the gap a line is sized for is the gap the G-code mills.
  *
  * - End mill: the cut is its diameter.
  * - V-bit: the V's width at the cutting depth, tip + 2·depth·tan(angle/2) (plain geometry).
  * - Etching: no tool; the narrowest gap the artwork can open is the minimum feature grown by the edge bias on both
  *   sides (artwork gaps shrink by 2 × bias).
- * The isolation gap (the channel a single isolation pass opens between copper and the rest) is one cut width, and
- * the tool-centre outline runs half a cut from the copper (common practice for isolation routing).
+ * Isolation of a milled design: pass k (0-based) runs with its centre w/2 + k·s from the copper, w the cut, s the
+ * stepover w·(1 − overlap) (core/toolpath/isolation.ts), so P passes open a channel of w + (P − 1)·s beside every
+ * copper edge. P is the fewest passes whose channel reaches the process's isolation clearance.
  */
 import type { FabProcess } from '../design/types.ts';
 import { exhaustive } from '../util/errors.ts';
+
+/**
+ * Fraction of the cut each further isolation pass overlaps the previous one, unless the milling options say
+ * otherwise: 0.4 leaves no copper whisker between passes with round or V tools (common practice).
+ */
+export const ISOLATION_OVERLAP = 0.4;
+
+/**
+ * Isolation clearance of a milled design whose process does not give one: 0.7 mm of bare laminate beside every
+ * copper edge (the project's default, chosen for RF lines). Why this width: with the side copper this far from the
+ * line, (1) a 1.6 mm glass-epoxy board can still carry lines up to about 128 Ω at the narrowest copper a 30° V-bit
+ * leaves (beside one cut: about 78 Ω), so the usual divider, feed and stub-filter impedances can be made; (2) the
+ * line's Z0 is about 4 times less sensitive to an error of the cut's width than beside a single 0.11 mm cut (0.19 Ω
+ * against 0.76 Ω per 20 µm for a 2.9 mm line, from this project's cross-section solver), so a V-bit cutting a little
+ * deep or shallow moves the impedance little; (3) it costs nine passes with the default V-bit, not the hours of
+ * clearing all copper. A wider clearance brings lines nearer plain microstrip at the cost of milling time.
+ */
+export const DEFAULT_ISOLATION_CLEARANCE = 0.7e-3;
 
 /** Width of the cut the process makes (the narrowest gap it can open), m. */
 export function cutWidth(p: FabProcess): number {
@@ -23,11 +42,46 @@ export function cutWidth(p: FabProcess): number {
   }
 }
 
+/** The isolation clearance a milled process asks for, m (its own, or the default). */
+export function isolationClearance(p: Exclude<FabProcess, { kind: 'etch' }>): number {
+  return typeof p.clearance === 'number' && p.clearance > 0 ? p.clearance : DEFAULT_ISOLATION_CLEARANCE;
+}
+
+/** How the isolation is milled: passes, stepover and the channel they open beside the copper (m). */
+export interface IsolationPlan {
+  passes: number;
+  /** Distance between neighbouring passes' centres, m: cut · (1 − overlap). */
+  stepover: number;
+  /** Width of the bare channel beside every copper edge, m: cut + (passes − 1) · stepover. */
+  gap: number;
+}
+
+/** Channel that `passes` isolation passes open: cut + (passes − 1)·stepover (what core/toolpath/isolation.ts mills). */
+export function isolationGapOf(cut: number, passes: number, overlap = ISOLATION_OVERLAP): number {
+  return cut + Math.max(0, passes - 1) * cut * (1 - overlap);
+}
+
+/** Passes that reach `clearance` with this cut and overlap (at least one; at most 10, what the planner allows). */
+export function passesFor(cut: number, clearance: number, overlap = ISOLATION_OVERLAP): number {
+  const step = cut * (1 - overlap);
+  const n = 1 + Math.max(0, Math.ceil((clearance - cut - 1e-9) / step)); // 1 nm: a clearance written to 1 nm
+  return Math.min(10, n);
+}
+
+/** The isolation of a milled process; `passes` overrides the count the clearance gives (milling options). */
+export function isolationPlan(p: Exclude<FabProcess, { kind: 'etch' }>, overlap = ISOLATION_OVERLAP, passes?: number): IsolationPlan {
+  const cut = cutWidth(p);
+  const n = passes ?? passesFor(cut, isolationClearance(p), overlap);
+  return { passes: n, stepover: cut * (1 - overlap), gap: isolationGapOf(cut, n, overlap) };
+}
+
 export interface ProcessCut {
   /** The tool's cut width at its depth, m. */
   cutWidth: number;
-  /** Width of the channel one isolation pass opens, m (the tool-centre outline sits half of it from the copper). */
+  /** Width of the channel the isolation passes open beside the copper, m (isolationPlan). */
   isolationGap: number;
+  /** Isolation passes that open it. */
+  passes: number;
   /** Words for notes and file comments, e.g. "V-bit 30°, 0.10 mm tip, 0.080 mm deep". */
   label: string;
 }
@@ -36,9 +90,10 @@ export interface ProcessCut {
 export function processCut(p: FabProcess): ProcessCut | null {
   if (p.kind === 'etch') return null;
   const w = cutWidth(p);
+  const iso = isolationPlan(p);
   const mm = (m: number) => (m * 1e3).toFixed(3);
   const label = p.kind === 'v-bit'
     ? `V-bit ${p.angleDeg}°, ${mm(p.tipWidth)} mm tip, ${mm(p.depth)} mm deep`
     : `${mm(p.toolDiameter)} mm end mill, ${mm(p.depth)} mm deep`;
-  return { cutWidth: w, isolationGap: w, label };
+  return { cutWidth: w, isolationGap: iso.gap, passes: iso.passes, label };
 }

@@ -204,5 +204,5 @@ export function isolationWidthOf(doc: DesignDoc): number {
     throw new InputError('bad-choice', 'tool', 'an end mill or V-bit as the process, or a tool width for the isolation outlines',
       'an etched design', 'set the design\'s process to the tool you mill with, or give the width (CLI: --tool 0.2mm)');
   }
-  return cut.isolationGap;
+  return cut.cutWidth; // the outline of one pass's tool centre: half a cut from the copper
 }

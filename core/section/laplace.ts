@@ -139,57 +139,46 @@ export function solve(f: Factored, volts: ArrayLike<number>, guess?: Float64Arra
     bNorm += b * b;
   }
   const stop = STOP_REL * STOP_REL * bNorm;
-  const precondition = (): void => {
-    for (let k = 0; k < n; k++) {
-      let s = r[k]!;
-      const i = k % nx;
-      if (i > 0) s += fx[k - 1]! * z[k - 1]!;
-      if (k >= nx) s += fy[k - nx]! * z[k - nx]!;
-      z[k] = s / piv[k]!;
+  // The bottom row (the ground plane) and the top row (the domain's top or the lid) are fixed (assemble), and fx, fy
+  // are zero at every fixed node and at the ends of rows, so the loops below run over rows 1..ny−2 without bounds or
+  // owner tests; z, p and q stay zero at fixed nodes (their r is zero and their couplings vanish).
+  const k0 = nx, k1 = n - nx;
+  const precondition = (): number => {
+    for (let k = k0; k < k1; k++) z[k] = (r[k]! + fx[k - 1]! * z[k - 1]! + fy[k - nx]! * z[k - nx]!) / piv[k]!;
+    let rz = 0;
+    for (let k = k1 - 1; k >= k0; k--) {
+      const zk = z[k]! + (fx[k]! * z[k + 1]! + fy[k]! * z[k + nx]!) / piv[k]!;
+      z[k] = zk;
+      rz += r[k]! * zk;
     }
-    for (let k = n - 1; k >= 0; k--) {
-      let s = 0;
-      if ((k + 1) % nx !== 0) s += fx[k]! * z[k + 1]!;
-      if (k + nx < n) s += fy[k]! * z[k + nx]!;
-      z[k] += s / piv[k]!;
-    }
+    return rz;
   };
   let rr = 0;
   for (let k = 0; k < n; k++) rr += r[k]! * r[k]!;
   if (rr <= stop || bNorm === 0) return { v, iterations: 0 };
-  precondition();
+  let rz = precondition();
   p.set(z);
-  let rz = 0;
-  for (let k = 0; k < n; k++) rz += r[k]! * z[k]!;
   let it = 0;
   for (; it < 20000; it++) {
     let pq = 0;
-    for (let k = 0; k < n; k++) {
-      if (owner[k]! >= 0) { q[k] = 0; continue; }
-      const i = k % nx;
-      let s = diag[k]! * p[k]!;
-      if (i + 1 < nx) s -= fx[k]! * p[k + 1]!;
-      if (i > 0) s -= fx[k - 1]! * p[k - 1]!;
-      if (k + nx < n) s -= fy[k]! * p[k + nx]!;
-      if (k >= nx) s -= fy[k - nx]! * p[k - nx]!;
+    for (let k = k0; k < k1; k++) {
+      const s = diag[k]! * p[k]! - fx[k]! * p[k + 1]! - fx[k - 1]! * p[k - 1]! - fy[k]! * p[k + nx]! - fy[k - nx]! * p[k - nx]!;
       q[k] = s;
       pq += p[k]! * s;
     }
     const alpha = rz / pq;
     rr = 0;
-    for (let k = 0; k < n; k++) {
+    for (let k = k0; k < k1; k++) {
       v[k] += alpha * p[k]!;
       const rk = r[k]! - alpha * q[k]!;
       r[k] = rk;
       rr += rk * rk;
     }
     if (rr <= stop) { it++; break; }
-    precondition();
-    let rzNew = 0;
-    for (let k = 0; k < n; k++) rzNew += r[k]! * z[k]!;
+    const rzNew = precondition();
     const beta = rzNew / rz;
     rz = rzNew;
-    for (let k = 0; k < n; k++) p[k] = z[k]! + beta * p[k]!;
+    for (let k = k0; k < k1; k++) p[k] = z[k]! + beta * p[k]!;
   }
   return { v, iterations: it };
 }

@@ -171,7 +171,9 @@ export function solveSection(spec: SectionSpec, opts: SolveOptions = {}): Sectio
     grids.forEach((lv, l) => {
       const guess = (sols: Float64Array[]) => (l ? sols.map((v) => prolong(v, grids[l - 1]!.x.length, grids[l - 1]!.y.length)) : []);
       const d = maxwell(lv.x, lv.y, shapes, material, cfg, guess(prevD));
-      const a = maxwell(lv.x, lv.y, shapes, null, cfg, guess(prevA));
+      // The vacuum solve starts from the dielectric one on the coarse grid (same conductors and potentials: a closer
+      // start than zero), from its own coarse solution on the finer grid.
+      const a = maxwell(lv.x, lv.y, shapes, null, cfg, l ? guess(prevA) : d.sols);
       iterations += d.iterations + a.iterations;
       prevD = d.sols; prevA = a.sols;
       if (pairNoSym) {

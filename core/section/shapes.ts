@@ -102,8 +102,11 @@ export function buildShapes(spec: SectionSpec, recede = 0, wideEdge = Infinity):
       const half = tr.angleDeg === undefined ? 0 : Math.tan(((tr.angleDeg / 2) * Math.PI) / 180);
       for (const g of gaps) {
         const d = trenchDepth(g, tr.depth, half);
-        keysY.push({ at: h - d, edge: false });
-        keysX.push({ at: g.x0 + d * half, edge: false }, { at: g.x1 - d * half, edge: false });
+        // Fine cells at the trench's corners: they sit within a trench depth of the copper edges, and a coarse key
+        // there would cut off the grading towards those edges (gradedAxis grades between neighbouring keys only), which
+        // left the field under the strip's edge on coarse cells and slowed convergence beside a wide channel.
+        keysY.push({ at: h - d, edge: true });
+        keysX.push({ at: g.x0 + d * half, edge: true }, { at: g.x1 - d * half, edge: true });
       }
     }
     const c = spec.cover;

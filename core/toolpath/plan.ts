@@ -10,6 +10,8 @@ import { unionRegions } from '../geometry/polygons.ts';
 import type { BoardGeometry, Region, Vec2 } from '../geometry/types.ts';
 import { cutWidth, checkFabrication } from '../layout/checks.ts';
 import type { SizedDesign } from '../layout/types.ts';
+import { isolationGapOf, isolationPlan } from '../layout/process-cut.ts';
+import { asMadeOf } from '../design/as-made-default.ts';
 import { InputError } from '../util/errors.ts';
 import { clearingPaths, isolationPaths } from './isolation.ts';
 import { drillMoves, groupDrills, holeMillMoves } from './drilling.ts';
@@ -75,6 +77,10 @@ export function planMilling(sized: SizedDesign, g: BoardGeometry, given: Partial
   const o = resolveMillingOptions(given);
   const tool = isolationTool(sized);
   const proc = sized.doc.process as Extract<SizedDesign['doc']['process'], { depth: number }>;
+  // Passes come from the process's isolation clearance (the channel as-made sizing assumed) unless asked for.
+  const sizedFor = isolationPlan(proc);
+  if (given.passes === undefined) o.passes = isolationPlan(proc, o.overlap).passes;
+  const isolationNote = isolationGapFinding(sized, sizedFor.gap, isolationGapOf(tool.cutWidth, o.passes, o.overlap), o.passes);
   const { h, t } = sized.doc.substrate;
   // Thin laminates: unless asked for, a tab keeps half the board (the default 0.6 mm is for 1.6 mm boards).
   if (given.tabHeight === undefined) o.tabHeight = Math.max(0.1e-3, Math.min(o.tabHeight, 0.5 * (h + t)));
@@ -125,12 +131,25 @@ export function planMilling(sized: SizedDesign, g: BoardGeometry, given: Partial
   const seconds = programs.reduce((s, p) => s + p.seconds, 0);
   if (opts.analyse === false) {
     const none: MilledBoard = { copper: [], swept: [], islands: [], designIslands: [], pieces: [] };
-    return { options: o, origin, size, board, programs, milled: none, findings: millReadiness(programs, origin, o, through), seconds };
+    return { options: o, origin, size, board, programs, milled: none, findings: [...isolationNote, ...millReadiness(programs, origin, o, through)], seconds };
   }
   const swept = unionRegions(programs.flatMap(programSwept));
   const milled = milledBoard(g, sized, board, swept, tool);
-  const findings = [...gapFindings(sized, g, milled, tool), ...millReadiness(programs, origin, o, through)];
+  const findings = [...isolationNote, ...gapFindings(sized, g, milled, tool), ...millReadiness(programs, origin, o, through)];
   return { options: o, origin, size, board, programs, milled, findings, seconds };
+}
+
+/**
+ * A warning when the passes asked for open a channel other than the one the lines were sized beside (as-made
+ * sizing only: plain microstrip sizing assumes no side copper at all). 5 µm is below what a router holds.
+ */
+function isolationGapFinding(sized: SizedDesign, sizedGap: number, milledGap: number, passes: number): MillFinding[] {
+  if (asMadeOf(sized.doc).sizing !== 'as-made' || Math.abs(milledGap - sizedGap) <= 5e-6) return [];
+  return [{
+    severity: 'warning', code: 'isolation-gap', subjects: [],
+    message: `${passes} isolation pass${passes === 1 ? '' : 'es'} open ${mmS(milledGap)} mm beside the copper, but the lines were sized as made beside ${mmS(sizedGap)} mm (the process's isolation clearance)`,
+    fix: 'leave the pass count unset so the isolation clearance of the design sets it, or size the lines as plain microstrip',
+  }];
 }
 
 /** Narrow gaps (from the shop check, naming the pieces) and islands the cut joins, destroys or cuts through. */

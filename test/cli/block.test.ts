@@ -64,6 +64,21 @@ describe('stripwright block (registry)', () => {
     expect(p.doc.blocks?.map((b) => b.kind)).toEqual(['corporate', 'stub-match']);
     expect(p.doc.nodes.find((n) => n.id === 'b2.src')!.at).toEqual({ x: 0.12, y: 0 });
   });
+  it('a milled block is written sized as made; --clearance sets the isolation, and a narrow one takes the low tee level', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const read = (f: string) => { const p = parseDesign(readFileSync(join(dir, f), 'utf8')); if (!p.ok) throw new Error('refused'); return p.doc; };
+    expect((await run(['block', 'corporate', '--outputs', '4', '--f0', '2.45GHz', '--out', 'wide.json'], dir)).code).toBe(0);
+    const wide = read('wide.json');
+    expect(wide.asMade).toEqual({ sizing: 'as-made', sideCopper: 'stitched' });
+    expect(wide.process).toMatchObject({ kind: 'v-bit', clearance: 0.7e-3 });
+    const r = await run(['block', 'corporate', '--outputs', '4', '--f0', '2.45GHz', '--clearance', '0.1mm', '--out', 'narrow.json'], dir);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/Tee splits at the low level.*about \d+\.\d Ω on this laminate beside its isolation channel/);
+    expect(read('narrow.json').process).toMatchObject({ kind: 'v-bit', clearance: 0.1e-3 });
+    expect((await run(['build', 'narrow.json'], dir)).code).toBe(0);
+    const bad = await run(['block', 'corporate', '--f0', '2.45GHz', '--min-gap', '0.2mm', '--clearance', '1mm', '--out', 'x.json'], dir);
+    expect(bad.code).toBe(2);
+  }, 240_000);
   it('a bad value is refused naming the field, what was expected and the fix (exit 1, no file)', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
     const r = await run(['block', 'corporate', '--outputs', '65', '--f0', '2.45GHz', '--out', 'x.json'], dir);

@@ -42,10 +42,12 @@ describe('piece sheet of a line sized as made', () => {
     render(StackPanel, { editor: ed });
     expect((screen.getByTestId('field-sizing') as HTMLSelectElement).value).toBe('microstrip');
   });
-  it('a new design (milled with the default V-bit, no setting of its own) shows plain microstrip in Stack & band', () => {
+  it('a new design (milled with the default V-bit) is sized as made, and says so in its file and in Stack & band', () => {
     const ed = new EditorState();
-    expect(ed.doc.asMade).toBeUndefined();
+    expect(ed.doc.asMade).toEqual({ sizing: 'as-made', sideCopper: 'stitched' });
     render(StackPanel, { editor: ed });
-    expect((screen.getByTestId('field-sizing') as HTMLSelectElement).value).toBe('microstrip');
+    expect((screen.getByTestId('field-sizing') as HTMLSelectElement).value).toBe('as-made');
+    // The default 30° V-bit (0.127 mm cut) reaches its 0.7 mm clearance in 1 + ⌈(0.7 − 0.127)/(0.6 · 0.127)⌉ = 9 passes.
+    expect(screen.getByTestId('clearance-passes').textContent).toMatch(/^9 isolation passes open 0\.735 mm/);
   });
 });

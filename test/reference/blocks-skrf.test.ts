@@ -35,7 +35,8 @@ describe('blocks rebuilt in scikit-rf from build --json agree in |S|', () => {
   for (const c of CASES) {
     it(`${c.kind} ${c.args.join(' ')}`, () => {
       const file = join(dir, `${c.kind}.json`);
-      cli(['block', c.kind, ...c.args, '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--t', '0', '--tand', '0', '--junctions', 'ideal', '--out', file, '--force']);
+      // Plain microstrip sizing: the oracle rebuilds every line as scikit-rf's microstrip (no side copper).
+      cli(['block', c.kind, ...c.args, '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--t', '0', '--tand', '0', '--junctions', 'ideal', '--sizing', 'microstrip', '--out', file, '--force']);
       const report = JSON.parse(cli(['build', file, '--json'])) as { pieces: { id: string; kind: string; a: string; b: string; width_m?: number; length_m: number; compensations?: { model: string; node: string; amount_m: number; applied: boolean }[] }[] };
       const parsed = parseDesign(readFileSync(file, 'utf8'));
       if (!parsed.ok) throw new Error('refused');

@@ -17,7 +17,8 @@ import { ezdxfAudit } from '../../scripts/oracles/dxf-audit.ts';
 
 const DIR = join(import.meta.dirname, '..', 'fixtures', 'export', 'golden');
 let sources: GoldenSource[] = [];
-beforeAll(async () => { sources = await goldenSources(); });
+// Sizing the milled examples as made builds their cross-section tables first (seconds of CPU on a shared machine).
+beforeAll(async () => { sources = await goldenSources(); }, 120_000);
 
 describe('export golden files', () => {
   it('the golden folder holds exactly the files the sources produce', () => {

@@ -89,7 +89,7 @@ describe('demo: four-way corporate feed (project scenario S1)', () => {
   it('substrate, band and process as in the scenario', () => {
     expect(d.substrate).toMatchObject({ er: 4.4, h: 1.6e-3, t: 35e-6, tanDelta: 0.02 });
     expect(d.frequency).toEqual({ f0: 5.8e9, band: { start: 5.725e9, stop: 5.875e9 } });
-    expect(d.process).toEqual({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 });
+    expect(d.process).toMatchObject({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 });
   });
   it('four 100 Ω outputs at 36.2 mm pitch in a row, one 50 Ω input with an edge launch', () => {
     const xs = outs.map((o) => node(d, o).at.x);

@@ -31,6 +31,14 @@ describe('migration list', () => {
   });
 });
 
+/** A file as it read before format 13, which wrote a milled process's isolation clearance in (the only field it adds). */
+function beforeV13<T extends object>(doc: T): T {
+  const p = (doc as { process?: Record<string, unknown> }).process;
+  if (!p || !('clearance' in p)) return doc;
+  const { clearance: _c, ...process } = p;
+  return { ...doc, process };
+}
+
 /** A file as it reads after format 7, which moved display units out of the design (the only field it drops). */
 function withoutUnits(doc: Record<string, unknown>): Record<string, unknown> {
   const view = doc.view as Record<string, unknown> | undefined;
@@ -117,7 +125,7 @@ describe('v3 → v4 (junction models)', () => {
     if (!r.ok) throw new Error('refused');
     expect(r.migrations).toContain(3);
     expect(r.doc.junctions).toBe('modelled');
-    const { version: _v, junctions: _j, targets: _t, tolerances: _x, asMade: _m, ...rest } = r.doc;
+    const { version: _v, junctions: _j, targets: _t, tolerances: _x, asMade: _m, ...rest } = beforeV13(r.doc);
     const { version: _w, ...before } = withoutUnits(JSON.parse(text) as Record<string, unknown>);
     expect(rest).toEqual(before);
     expect(r.warnings[0]!.message).toContain('3→4: junctions');
@@ -159,8 +167,8 @@ describe('v5 → v6 (coupled pairs)', () => {
     const text = readFileSync(join(FIX, 'v5', 'wilkinson-as-made-field.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([5, 6, 7, 8, 9, 10, 11]);
-    expect({ ...r.doc, version: 5 }).toEqual(withoutUnits(JSON.parse(text) as Record<string, unknown>));
+    expect(r.migrations).toEqual([5, 6, 7, 8, 9, 10, 11, 12]);
+    expect({ ...beforeV13(r.doc), version: 5 }).toEqual(withoutUnits(JSON.parse(text) as Record<string, unknown>));
   });
 });
 
@@ -184,7 +192,7 @@ describe('v7 → v8 (placed blocks)', () => {
     if (!r.ok) throw new Error('refused');
     expect(r.migrations?.[0]).toBe(7);
     expect(r.doc.blocks).toBeUndefined();
-    expect({ ...r.doc, version: 7 }).toEqual(JSON.parse(text));
+    expect({ ...beforeV13(r.doc), version: 7 }).toEqual(JSON.parse(text));
   });
 });
 
@@ -193,8 +201,8 @@ describe('v8 → v9 (a design\'s own sweep settings)', () => {
     const text = readFileSync(join(FIX, 'v8', 'open-stub-no-sweep.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([8, 9, 10, 11]);
-    expect({ ...r.doc, version: 8 }).toEqual(JSON.parse(text));
+    expect(r.migrations).toEqual([8, 9, 10, 11, 12]);
+    expect({ ...beforeV13(r.doc), version: 8 }).toEqual(JSON.parse(text));
     expect(r.doc.sweep).toBeUndefined();
   });
 });
@@ -204,9 +212,9 @@ describe('v9 → v10 (measured data)', () => {
     const text = readFileSync(join(FIX, 'v9', 'wilkinson-2g45.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([9, 10, 11]);
+    expect(r.migrations).toEqual([9, 10, 11, 12]);
     expect(r.doc.measured).toBeUndefined();
-    expect({ ...r.doc, version: 9 }).toEqual(JSON.parse(text));
+    expect({ ...beforeV13(r.doc), version: 9 }).toEqual(JSON.parse(text));
   });
   it('keeps measured files through save and load, and refuses a malformed one with its field named', () => {
     const r = parseDesign(readFileSync(join(FIX, 'v9', 'wilkinson-2g45.json'), 'utf8'));
@@ -227,9 +235,9 @@ describe('v10 → v11 (a design\'s own proximity limit)', () => {
     const text = readFileSync(join(FIX, 'v10', 'branchline-10g4.json'), 'utf8');
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([10, 11]); // then v11 → v12, which keeps its asMade
+    expect(r.migrations).toEqual([10, 11, 12]); // v11 → v12 keeps its asMade
     expect(r.doc.proximityLimit).toBeUndefined();
-    expect({ ...r.doc, version: 10 }).toEqual(JSON.parse(text));
+    expect({ ...beforeV13(r.doc), version: 10 }).toEqual(JSON.parse(text));
     expect(proximityLimitFor(r.doc)).toBeCloseTo(3 * r.doc.substrate.h, 15);
   });
   it('keeps a limit through save and load, and refuses a malformed one with its field named', () => {
@@ -251,18 +259,18 @@ describe('v11 → v12 (every file says how its lines are sized)', () => {
   it('writes the old meaning into a file that left asMade out: plain microstrip, stitched (nothing changes silently)', () => {
     const r = parseDesign(text);
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([10, 11]);
+    expect(r.migrations).toEqual([10, 11, 12]);
     expect(r.doc.process.kind).toBe('v-bit');
     expect(r.doc.asMade).toEqual({ sizing: 'microstrip', sideCopper: 'stitched' });
     expect(asMadeOf(r.doc).sizing).toBe('microstrip');
-    const { asMade: _a, ...rest } = r.doc;
+    const { asMade: _a, ...rest } = beforeV13(r.doc);
     expect({ ...rest, version: 10 }).toEqual(JSON.parse(text));
     expect(r.warnings.map((w) => w.message).join(' ')).toMatch(/says how its lines are sized/);
   });
   it('a format-11 file (proximity limit known, before the as-made default) without asMade gets the same: one step, microstrip written in', () => {
     const r = parseDesign(readFileSync(join(FIX, 'v11', 'milled-without-as-made.json'), 'utf8'));
     if (!r.ok) throw new Error('refused');
-    expect(r.migrations).toEqual([11]);
+    expect(r.migrations).toEqual([11, 12]);
     expect(r.doc.asMade).toEqual({ sizing: 'microstrip', sideCopper: 'stitched' });
   });
   it('keeps a choice the file made', () => {
@@ -270,12 +278,42 @@ describe('v11 → v12 (every file says how its lines are sized)', () => {
     const r = parseDesign(JSON.stringify({ ...doc, asMade: { sizing: 'as-made', sideCopper: 'floating' } }));
     expect(r.ok && r.doc.asMade).toEqual({ sizing: 'as-made', sideCopper: 'floating' });
   });
-  it('a current file without asMade is sized as plain microstrip whatever its process (as made is chosen per design)', () => {
+  it('a current file without asMade is sized as made when milled, as plain microstrip when etched; a new design writes its choice in', () => {
     const base = { ...JSON.parse(text), version: DESIGN_VERSION };
     const sizing = (process: unknown) => { const r = parseDesign(JSON.stringify({ ...base, process })); if (!r.ok) throw new Error('refused'); return asMadeOf(r.doc).sizing; };
-    expect(sizing({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 })).toBe('microstrip');
-    expect(sizing({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3 })).toBe('microstrip');
+    expect(sizing({ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 30, depth: 0.05e-3 })).toBe('as-made');
+    expect(sizing({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3 })).toBe('as-made');
     expect(sizing({ kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 })).toBe('microstrip');
-    expect(asMadeOf(newDesign()).sizing).toBe('microstrip');
+    expect(newDesign().asMade).toEqual({ sizing: 'as-made', sideCopper: 'stitched' });
+    expect(newDesign({ process: { kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 } }).asMade).toEqual({ sizing: 'microstrip', sideCopper: 'stitched' });
+  });
+});
+
+describe('v12 → v13 (a milled process says how wide its isolation is)', () => {
+  // The channel format 12's G-code milled: two isolation passes overlapping 0.4 of the cut (core/toolpath defaults
+  // then), cut + 0.6·cut; the cut of a V-bit is tip + 2·depth·tan(angle/2) (plain geometry).
+  const v12 = readFileSync(join(FIX, 'v12', 'vbit-as-made.json'), 'utf8');
+  it('writes the two-pass channel into a V-bit file, and nothing else changes', () => {
+    const r = parseDesign(v12);
+    if (!r.ok) throw new Error('refused');
+    expect(r.migrations).toEqual([12]);
+    const before = JSON.parse(v12) as { process: { tipWidth: number; depth: number; angleDeg: number } };
+    const cut = before.process.tipWidth + 2 * before.process.depth * Math.tan((before.process.angleDeg / 2) * Math.PI / 180);
+    expect(r.doc.process.kind === 'v-bit' && r.doc.process.clearance).toBeCloseTo(1.6 * cut, 9);
+    expect({ ...beforeV13(r.doc), version: 12 }).toEqual(before);
+    expect(r.warnings.map((w) => w.message).join(' ')).toMatch(/isolation is \(clearance\)/);
+  });
+  it('the toolpaths of that file keep their two passes (the clearance gives the same count)', async () => {
+    const { isolationPlan } = await import('../../core/layout/index.ts');
+    const r = parseDesign(v12);
+    if (!r.ok || r.doc.process.kind !== 'v-bit') throw new Error('refused');
+    expect(isolationPlan(r.doc.process).passes).toBe(2);
+  });
+  it('an end-mill file gets 1.6 tool diameters; an etched file and a file that says its clearance are left alone', () => {
+    const doc = JSON.parse(v12);
+    const up = (process: unknown) => { const r = parseDesign(JSON.stringify({ ...doc, process })); if (!r.ok) throw new Error(r.errors.map((e) => e.message).join('; ')); return r.doc.process; };
+    expect(up({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3 })).toEqual({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3, clearance: 0.64e-3 });
+    expect(up({ kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 })).toEqual({ kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 });
+    expect(up({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3, clearance: 1e-3 })).toEqual({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3, clearance: 1e-3 });
   });
 });

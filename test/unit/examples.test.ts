@@ -10,6 +10,7 @@ import { parseDesign } from '../../core/design/parse.ts';
 import type { DesignDoc } from '../../core/design/types.ts';
 import { initPolygons } from '../../core/geometry/polygons.ts';
 import { sizeDesign } from '../../core/layout/sizing.ts';
+import { asMadeTemplate } from '../../core/layout/as-made.ts';
 import { buildBoardGeometry } from '../../core/layout/geometry.ts';
 import { checkFabrication } from '../../core/layout/checks.ts';
 import { designPaths } from '../../core/layout/paths.ts';
@@ -73,12 +74,17 @@ describe('milled examples are sized as made (design asMade "as-made")', () => {
       const s = sizeDesign(doc), m = sizeDesign(plain(doc));
       const lines = s.pieces.filter((p) => p.kind === 'line' && doc.segments.find((x) => x.id === p.id && x.kind === 'line' && x.width.by === 'z0'));
       expect(lines.length).toBeGreaterThan(0);
+      // Side copper close to the line (a channel narrower than the laminate is thick) dominates what milling changes.
+      const close = asMadeTemplate(doc)!.side!.gap < doc.substrate.h;
       for (const p of lines) {
         const shift = p.asMade!;
         expect(shift.label).toMatch(/side copper/);
-        // The as-made width gives the asked Z0 on the cross-section (its table), and plain microstrip of that width
-        // is higher: side copper adds capacitance (a grounded coplanar line is lower in Z0 than microstrip; common practice).
         expect(shift.z0).toBeCloseTo(p.z0, 6);
+        expect(Number.isFinite(shift.z0Plain) && shift.z0Plain > 0).toBe(true); // the shift is reported
+        if (!close) continue;
+        // The as-made width gives the asked Z0 on the cross-section (its table), and plain microstrip of that width
+        // is higher: close side copper adds capacitance (a grounded coplanar line is lower in Z0 than microstrip;
+        // common practice). A wide channel with a trench can go the other way (less dielectric under the edges).
         expect(shift.z0Plain).toBeGreaterThan(shift.z0);
         // Sized as made, the copper is narrower than the plain microstrip width of the same Z0.
         expect(p.width).toBeLessThan(piece(m, p.id).width);

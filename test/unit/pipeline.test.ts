@@ -80,14 +80,19 @@ describe('stages', () => {
 describe('the isolation width comes from the process', () => {
   it('V-bit: tip + 2·depth·tan(angle/2); end mill: its diameter; etching: none', () => {
     const v: FabProcess = { kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 60, depth: 0.1e-3 };
-    expect(processCut(v)!.isolationGap).toBeCloseTo(0.1e-3 + 2 * 0.1e-3 * Math.tan(Math.PI / 6), 12);
+    const w = 0.1e-3 + 2 * 0.1e-3 * Math.tan(Math.PI / 6);
+    expect(processCut(v)!.cutWidth).toBeCloseTo(w, 12);
+    // The channel beside the copper: the passes the default 0.7 mm clearance needs, each 0.6 of a cut further out.
+    const cut = processCut(v)!;
+    expect(cut.passes).toBe(1 + Math.ceil((0.7e-3 - w) / (0.6 * w)));
+    expect(cut.isolationGap).toBeCloseTo(w + (cut.passes - 1) * 0.6 * w, 12);
     expect(processCut({ kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3 })!.cutWidth).toBe(0.4e-3);
     expect(processCut({ kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 })).toBeNull();
   });
   it('the isolation layer uses the process cut unless a tool overrides it', () => {
     const p = new DesignPipeline();
     const doc = load('branchline-10g4.json'); // end mill 0.4 mm
-    const cut = processCut(doc.process)!.isolationGap;
+    const cut = processCut(doc.process)!.cutWidth; // the outline of one pass's tool centre
     const own = p.prepared(doc, { isolation: true });
     const wide = p.prepared(doc, { isolation: true, tool: 2 * cut });
     expect(own.isolationWidth).toBe(cut);

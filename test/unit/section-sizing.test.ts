@@ -8,7 +8,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import {
   analyzeLine, synthesizeLine, sectionTable, solveSection, parseDesign, sizeDesign, asMadeTemplate, fenceFindings, fencePitchLimit,
-  netlistFromSized, sweepNetwork, type DesignDoc,
+  netlistFromSized, sweepNetwork, isolationPlan, type DesignDoc,
 } from '../../core/index.ts';
 
 const SUB = { er: 3.66, h: 0.508e-3, t: 35e-6, tanDelta: 0.0037, sigma: 5.8e7, roughness: 0 };
@@ -56,7 +56,11 @@ describe('design asMade', () => {
     expect(asMadeTemplate(plainDoc)).toBeNull(); // a file that says microstrip (as older files do after migration) keeps it
     const doc: DesignDoc = { ...plainDoc, asMade: { sizing: 'as-made', sideCopper: 'stitched' } };
     const t = asMadeTemplate(doc)!;
-    expect(t.side!.gap).toBe(0.4e-3); // the end mill's diameter (the example's process)
+    // The channel the G-code mills (core/toolpath/isolation.ts): the example's 0.4 mm end mill in the passes its
+    // isolation clearance asks for, each further pass 0.6 of a cut out (format 12 files: two passes, 1.6 cuts).
+    const iso = isolationPlan(doc.process as Extract<DesignDoc['process'], { kind: 'end-mill' }>);
+    expect(t.side!.gap).toBeCloseTo(0.4e-3 + (iso.passes - 1) * 0.6 * 0.4e-3, 12);
+    expect(iso.passes).toBe(2);
     expect(t.trench!.depth).toBeCloseTo(80e-6 - 35e-6, 12);
     const plain = sizeDesign(plainDoc), made = sizeDesign(doc);
     expect(made.problems).toEqual([]);

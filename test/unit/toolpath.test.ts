@@ -8,7 +8,7 @@ import fc from 'fast-check';
 import {
   InputError, initPolygons, resolveMillingOptions, MILLING_DEFAULTS, cutWidth, isolationPaths, ringArea, orderItems, tourLength,
   drillMoves, cutoutMoves, exportGcode, planDesignMilling, estimateProgram, PROCESS_DEFAULT, parseQuantity, sweptArea, regionsArea,
-  type FabProcess, type Region, type ToolProgram,
+  isolationPlan, asMadeOf, asMadeTemplate, type FabProcess, type Region, type ToolProgram,
 } from '../../core/index.ts';
 import { twoStrips } from './toolpath-fixtures.ts';
 
@@ -83,6 +83,27 @@ describe('toolpaths from geometry', () => {
       expect(per).toBeLessThanOrEqual(24e-3 + 2 * Math.PI * d + 1e-9);
       expect(per).toBeGreaterThan(24e-3 + 2 * Math.PI * d - 1e-5);
     });
+  });
+  it('the isolation clearance sets the passes, and the channel they mill is the gap as-made sizing uses (one function)', () => {
+    // 0.2 mm end mill, 1 mm clearance: stepover 0.12 mm, passes 1 + ⌈(1 − 0.2)/0.12⌉ = 8, channel 0.2 + 7·0.12 = 1.04 mm.
+    const proc = { kind: 'end-mill', toolDiameter: 0.2e-3, depth: 0.1e-3, clearance: 1e-3 } as const;
+    const iso = isolationPlan(proc);
+    expect(iso.passes).toBe(8);
+    expect(iso.gap).toBeCloseTo(1.04e-3, 12);
+    const paths = isolationPaths([strip], board, cutWidth(proc), 0.1e-3, resolveMillingOptions({ passes: iso.passes }));
+    // The outermost loop's centre runs gap − cut/2 from the copper, so its cut ends at the gap (box grows by δ).
+    const ys = paths.flatMap((p) => p.points.map((q) => q.y));
+    expect(Math.max(...ys) - 2e-3 + 0.1e-3).toBeCloseTo(iso.gap, 6);
+    // The design's as-made template sees that channel beside every line.
+    const doc = { ...twoStrips(2e-3, 2e-3, 3e-3, proc), asMade: { sizing: 'as-made', sideCopper: 'stitched' } as const };
+    expect(asMadeOf(doc).sizing).toBe('as-made');
+    expect(asMadeTemplate(doc)!.side!.gap).toBeCloseTo(iso.gap, 12);
+    // The planner takes the passes from the process; passes asked for that open another channel are warned about.
+    expect(planDesignMilling(doc).plan.options.passes).toBe(8);
+    const asked = planDesignMilling(doc, { passes: 2 }).plan.findings.find((f) => f.code === 'isolation-gap');
+    expect(asked?.severity).toBe('warning');
+    expect(asked?.message).toMatch(/0\.320 mm .* 1\.040 mm/);
+    expect(planDesignMilling(doc).plan.findings.some((f) => f.code === 'isolation-gap')).toBe(false);
   });
   it('climb runs around an island counter-clockwise (copper on the left with an M3 spindle); conventional the other way', () => {
     const climb = isolationPaths([strip], board, 0.2e-3, 0.1e-3, resolveMillingOptions({ passes: 1 }));

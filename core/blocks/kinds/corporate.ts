@@ -6,8 +6,9 @@
  * - a lossless tee splits power as the admittances of its arms (§7.2): arms Za = Zj·Ptot/Pa and Zb = Zj·Ptot/Pb in
  *   parallel present Zj; each arm is brought to the next junction's level by a quarter-wave transformer
  *   Zq = √(Z_arm·Z_next) (§5.4). The junction level Zj is chosen so the higher-impedance arm is 2·Z0 (the
- *   equal-split arms of the textbook feed), and the input reaches the first junction through a quarter wave
- *   √(Z0·Zj) when Zj ≠ Z0;
+ *   equal-split arms of the textbook feed), or Z0 when the process cannot make 2·Z0 (milled side copper lowers Z0,
+ *   so a high impedance needs copper narrower than the cut leaves), and the input reaches the first junction
+ *   through a quarter wave √(Z0·Zj) when Zj ≠ Z0;
  * - a Wilkinson split (Wilkinson 1960; unequal form Pozar §7.3, eqs. 7.37–7.39) with its resistor, its outputs
  *   brought back to Z0 by quarter waves.
  * The N outputs split as ⌈n/2⌉ and ⌊n/2⌋ at every level, so any count is reached with the fewest levels.
@@ -19,7 +20,7 @@ import type { DesignDoc } from '../../design/types.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
 import { InputError } from '../../util/errors.ts';
 import { C0 } from '../../units/index.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type Spec, contextDesign } from '../context.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 import { fitSpans, levelTargets, matchPhases, placeAsSized, type SpanFit } from '../drawn.ts';
 import { wilkinsonValues } from './splitters.ts';
@@ -48,6 +49,27 @@ export const corporateBlock: BlockDef = {
     FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext) {
+    if (spec.split === 'wilkinson') return feedAtLevel(spec, ctx, 2);
+    // Tee splits: the textbook levels (higher arm 2·Z0) when the process can make them; else the low variant (higher
+    // arm Z0: an equal split is a quarter wave from Z0 down to Z0/2 and two Z0 arms), which milled side copper allows
+    // (it lowers Z0, so high impedances need copper narrower than the cut leaves). Refused, naming the nearest
+    // impedance the process can make, when neither fits.
+    try {
+      return feedAtLevel(spec, ctx, 2);
+    } catch (e) {
+      if (!(e instanceof InputError) || e.code !== 'out-of-range' || e.field !== 'corporate.amplitudesDb') throw e;
+      const made = feedAtLevel(spec, ctx, 1);
+      made.notes.splice(1, 0, `Tee splits at the low level: the higher-impedance arm of each split is ${spec.z0 as number} Ω (the textbook ${2 * (spec.z0 as number)} Ω is beyond what the process makes here: ${e.expected}).`);
+      return made;
+    }
+  },
+};
+
+/**
+ * The feed with tee junction levels set so each split's higher-impedance arm is `top`·Z0 (2: the textbook feed; 1:
+ * the low variant). Wilkinson splits work at Z0 whatever `top` is.
+ */
+function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces {
     const n = spec.outputs as number, z0 = spec.z0 as number, feed = spec.feed as number;
     const wilk = spec.split === 'wilkinson';
     const dbs = (spec.amplitudesDb as number[] | undefined) ?? [];
@@ -66,7 +88,7 @@ export const corporateBlock: BlockDef = {
     /** Quarter waves that feed a tee: the impedances they join and the tee below them (the n² pass reads it). */
     const feedsTee = new Map<string, { zAbove: number; zj: number; tee: string }>();
     /** Junction level Zj of a split: the higher arm is 2·Z0 (tee); a Wilkinson split works at Z0. */
-    const level = (t: Tree): number => (!t.left || wilk ? z0 : (2 * z0 * Math.min(t.left.power, t.right!.power)) / t.power);
+    const level = (t: Tree): number => (!t.left || wilk ? z0 : (top * z0 * Math.min(t.left.power, t.right!.power)) / t.power);
     const drop = (z: number) => lambdaG(ctx, z) / 4;
     /** Grows the split of `t` below node `jid` at (x, y); returns nothing: leaves become ports. */
     const grow = (t: Tree, jid: string, x: number, y: number): void => {
@@ -182,8 +204,7 @@ export const corporateBlock: BlockDef = {
       notes,
       band: { start: f0 * 0.8, stop: f0 * 1.2 },
     };
-  },
-};
+}
 
 /**
  * Each split's input is the branch of a tee (its arms leave sideways), and the tee model the sweep uses (Hammerstad
