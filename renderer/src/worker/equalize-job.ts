@@ -30,7 +30,8 @@ export function equalizeJob(input: EqualizeInput): EqualizeOutput {
   return { nodes: r.doc.nodes, segments: r.doc.segments, lines, spreadDeg: r.spreadDeg, bandSpreadDeg: r.bandSpreadDeg };
 }
 
-export interface TuneInput { doc: DesignDoc; variables: TuneVariable[]; seed: number }
+/** `weights`: one per design target, in the targets' order (default 1 each), as the CLI's goals file's `weight`. */
+export interface TuneInput { doc: DesignDoc; variables: TuneVariable[]; seed: number; weights?: number[] }
 export interface TuneOutput {
   nodes: DesignNode[];
   segments: DesignSegment[];
@@ -46,8 +47,9 @@ export interface TuneOutput {
 }
 
 export async function tuneJob(input: TuneInput, progress: (p: Progress) => void, signal?: AbortSignal): Promise<TuneOutput> {
+  const goals = input.weights ? input.doc.targets.map((target, i) => ({ target, weight: input.weights![i] ?? 1 })) : undefined;
   const r = await tuneWithBlocks(input.doc, {
-    variables: input.variables, seed: input.seed, ...(signal ? { signal } : {}),
+    variables: input.variables, seed: input.seed, ...(goals ? { goals } : {}), ...(signal ? { signal } : {}),
     onProgress: (f) => progress({ done: Math.round(f * 1000), total: 1000, label: 'tuning' }),
     yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
   });
