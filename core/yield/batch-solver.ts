@@ -24,7 +24,7 @@ import { compileNetwork, solveAt, type CompiledNetwork } from '../network/mna.ts
 import { netlistFromSized, type SizedNetlist } from '../network/fromSized.ts';
 import type { LineConstants, LineModel, NetElement } from '../network/netlist.ts';
 import type { SampleLaminate } from './made-board.ts';
-import { K_C, K_G, K_L, K_LINE, K_N, K_RL, K_Y, type Columns } from './board-columns.ts';
+import { Columns, K_C, K_G, K_L, K_LINE, K_N, K_RL, K_Y } from './board-columns.ts';
 import { PointSolver } from './point-solve.ts';
 
 /** Constants of one (laminate, width) at every grid point: zc re, im, γ re, im at 4k … 4k + 3. */
@@ -186,7 +186,7 @@ export class BatchSolver {
     if (net.elements.length !== this.nominalWidth.length) throw new InputError('invalid-design', 'design', 'a made board with the nominal board\'s network', 'a different network');
     const E = this.source.length;
     // One record refilled for every board: each element keeps its kind, so every field it reads is written again.
-    const c = (this.cols ??= { kind: new Int8Array(E), table: new Array(E).fill(null), deriv: new Array(E).fill(null), delta: new Float64Array(E), num: new Float64Array(E), fn: new Array(E).fill(null) });
+    const c = (this.cols ??= new Columns(E));
     for (let idx = 0; idx < E; idx++) {
       const i = this.source[idx]!;
       const el: NetElement = net.elements[i]!;
