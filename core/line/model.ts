@@ -157,8 +157,11 @@ function undefinedFit(er: number, fn: number): never {
  */
 export function evaluateModel(q: ModelQuery): void {
   const u = q.u; const tn = q.tn; const er = q.er; const h = q.h; const f = q.f; const disp = q.disp;
-  if (u === m.u && tn === m.tn && er === m.er && f === m.f && h === m.h && disp === m.disp) return;
-  if (u !== m.u || tn !== m.tn || er !== m.er) staticPart(q, f > 0 && disp === 1);
+  // The frequency part is compared on its own, not only after the static part matched: the yield loop never got that
+  // far, so a later sizing found those loads without engine feedback and deoptimised this function (node --trace-deopt).
+  const sameStatic = u === m.u && tn === m.tn && er === m.er, sameRest = f === m.f && h === m.h && disp === m.disp;
+  if (sameStatic && sameRest) return;
+  if (!sameStatic) staticPart(q, f > 0 && disp === 1);
   const z0s = scratch.z0s; const ees = scratch.ees;
   let z0f = z0s;
   let eef = ees;
