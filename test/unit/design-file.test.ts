@@ -53,7 +53,7 @@ describe('round trip', () => {
     expect(b).toBe(a);
     expect(a.endsWith('}\n')).toBe(true);
     expect(a.split('\n')[1]).toBe('  "format": "stripwright-design",');
-    expect(Object.keys(JSON.parse(a))).toEqual(['format', 'version', 'name', 'substrate', 'frequency', 'process', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'targets', 'tolerances']);
+    expect(Object.keys(JSON.parse(a))).toEqual(['format', 'version', 'name', 'substrate', 'frequency', 'process', 'board', 'nodes', 'segments', 'areas', 'phaseGroups', 'targets', 'tolerances', 'asMade']);
   });
   it('keeps unknown fields at the top level and inside records (written after the known keys, sorted)', () => {
     const text = withDoc((d) => {

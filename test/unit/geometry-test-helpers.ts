@@ -32,14 +32,18 @@ export function shoelace(ring: Ring): number {
 function cross(o: Vec2, a: Vec2, b: Vec2): number { return (a.x - o.x) * (b.y - o.y) - (a.y - o.y) * (b.x - o.x); }
 
 /** True when two non-adjacent edges of the ring cross or touch (brute force, O(n²)). */
-export function selfIntersects(ring: Ring, eps = 1e-12): boolean {
+export function selfIntersects(ring: Ring, eps = 1e-8): boolean {
+  // eps is a distance, m: a vertex within the polygon engine's 10 nm snapping grid of another edge touches it (a
+  // pinch point the union may leave where two lobes meet), it does not cross it. The side tests are distances of a
+  // point from a line (cross product over the segment's length), so the tolerance does not depend on edge lengths.
   const n = ring.length;
+  const side = (p: Vec2, q: Vec2, r: Vec2) => cross(p, q, r) / (Math.hypot(q.x - p.x, q.y - p.y) || 1);
   for (let i = 0; i < n; i++) {
     const a = ring[i]!, b = ring[(i + 1) % n]!;
     for (let j = i + 1; j < n; j++) {
       if (j === i || (j + 1) % n === i || (i + 1) % n === j) continue;
       const c = ring[j]!, d = ring[(j + 1) % n]!;
-      const d1 = cross(c, d, a), d2 = cross(c, d, b), d3 = cross(a, b, c), d4 = cross(a, b, d);
+      const d1 = side(c, d, a), d2 = side(c, d, b), d3 = side(a, b, c), d4 = side(a, b, d);
       if (((d1 > eps && d2 < -eps) || (d1 < -eps && d2 > eps)) && ((d3 > eps && d4 < -eps) || (d3 < -eps && d4 > eps))) return true;
     }
   }
