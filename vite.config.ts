@@ -13,6 +13,8 @@ export default defineConfig({
   preview: { host: '127.0.0.1', port: 4173, strictPort: true },
   test: {
     root: '.',
+    // Both cores: CI runs on a two-core machine and the default (cores - 1) leaves one idle.
+    maxWorkers: 2,
     projects: [
       {
         extends: true,
@@ -22,6 +24,7 @@ export default defineConfig({
           include: ['test/unit/**/*.test.ts', 'test/reference/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/electron/**/*.test.ts', 'test/fuzz/**/*.test.ts'],
           environment: 'node',
           testTimeout: 60_000,
+          setupFiles: ['test/setup/fast-check-seed.ts'],
         },
       },
       {
@@ -32,6 +35,7 @@ export default defineConfig({
           include: ['test/component/**/*.test.ts'],
           environment: 'happy-dom',
           testTimeout: 60_000,
+          setupFiles: ['test/setup/fast-check-seed.ts'],
         },
       },
     ],
