@@ -23,9 +23,10 @@ import type { Vec2 } from '../geometry/types.ts';
 import { cutWidth } from '../layout/checks.ts';
 import { pieceOutlines } from '../layout/geometry.ts';
 import { DEFAULT_PROXIMITY_LIMIT_H, proximityHits } from '../layout/proximity.ts';
+import { netlistFromSized } from '../network/fromSized.ts';
+import { solveNetwork } from '../network/sweep.ts';
 import { sizeDesign } from '../layout/sizing.ts';
 import type { SizedDesign } from '../layout/types.ts';
-import { InputError } from '../util/errors.ts';
 import { placeAsSized } from './drawn.ts';
 
 export interface Box { w: number; h: number }
@@ -55,11 +56,15 @@ export function foldBranched(doc: DesignDoc, kind: string, fp: Box): { fits: boo
   let sized = sizeDesign(doc);
   let size = copperBox(sized), folded = 0;
   for (let step = 0; step < 24 && overflow(size, fp) > 1e-9; step++) {
-    const next = bestFold(doc, kind, sized, size, fp);
+    const next = bestFold(doc, sized, size, fp);
     if (!next) break;
     doc.nodes = next.doc.nodes; doc.segments = next.doc.segments;
     placeAsSized(doc, kind);
     sized = sizeDesign(doc); size = copperBox(sized); folded += next.count;
+  }
+  if (overflow(size, fp) <= 1e-9 && folded > 0) {
+    settlePhases(doc, kind, start);
+    sized = sizeDesign(doc); size = copperBox(sized);
   }
   if (overflow(size, fp) > 1e-9) {
     const reached = size;
@@ -70,8 +75,86 @@ export function foldBranched(doc: DesignDoc, kind: string, fp: Box): { fits: boo
 }
 
 /** Tabs anchored at the start or the end of the line, near (bend room) or far (3h from the node's other pieces). */
+/**
+ * Each folded line's transmission phase at f0 on its own (a lossless sweep of the line between two ports, with the
+ * bend models and the coupling of its U's legs that the sweep uses, core/layout/folds.ts) is brought back to the
+ * unfolded line's by its last part: the bends and the legs' coupling add phase that sizing does not see. Two passes
+ * (the coupling moves a little with the lengths).
+ */
+function settlePhases(doc: DesignDoc, kind: string, original: DesignDoc): void {
+  for (let pass = 0; pass < 2; pass++) {
+    let moved = false;
+    const sized = sizeDesign(doc);
+    for (const chain of foldedChains(doc)) {
+      // The same run unfolded: the original lines its pieces came from.
+      const bases = new Set(chain.map((x) => x.id.split(FOLD_MARK)[0]!));
+      const orig = original.segments.filter((x) => bases.has(x.id));
+      const last = [...chain].reverse().find((x) => x.id.includes(`${FOLD_MARK}-part`))!;
+      const piece = sized.pieces.find((x) => x.id === last.id);
+      if (last.kind !== 'line' || last.length.by === 'drawn' || !piece || !(piece.nominalLength > 0)) continue;
+      const d = phaseAlone(original, orig) - phaseAlone(doc, chain), lag = ((((d + 180) % 360) + 360) % 360) - 180;
+      // lag > 0: the folded run is electrically longer by that many degrees.
+      if (!Number.isFinite(lag) || Math.abs(lag) < 1e-3 || !(piece.effectiveDeg > lag)) continue;
+      if (last.length.by === 'degrees') last.length = { by: 'degrees', deg: round9(last.length.deg - lag) };
+      else last.length = { by: 'length', length: round9(last.length.length - (lag * piece.nominalLength) / piece.effectiveDeg) };
+      moved = true;
+    }
+    if (!moved) return;
+    placeAsSized(doc, kind);
+  }
+}
+
+/**
+ * Runs of lines through plain corners (vertices of two lines) that hold a folded line, in order: a fold's legs may
+ * couple with the next line of the run (a port line drawn as an L), so the run is what keeps its phase.
+ */
+function foldedChains(doc: DesignDoc): DesignSegment[][] {
+  const touching = new Map<string, DesignSegment[]>();
+  for (const s of doc.segments) for (const e of endsOf(s)) touching.set(e, [...(touching.get(e) ?? []), s]);
+  const kindOf = new Map(doc.nodes.map((n) => [n.id, n.kind]));
+  const through = (node: string) => kindOf.get(node) === 'vertex' && (touching.get(node) ?? []).length === 2 && touching.get(node)!.every((x) => x.kind === 'line');
+  const seen = new Set<string>();
+  const out: DesignSegment[][] = [];
+  for (const s of doc.segments) {
+    if (!s.id.includes(FOLD_MARK) || seen.has(s.id)) continue;
+    const run: DesignSegment[] = [s];
+    seen.add(s.id);
+    for (const [end, front] of [[s.b, true], [s.a, false]] as const) {
+      let node: string = end, cur: DesignSegment = s;
+      while (through(node)) {
+        const next = touching.get(node)!.find((x) => x.id !== cur.id)!;
+        if (seen.has(next.id)) break;
+        seen.add(next.id);
+        if (front) run.push(next); else run.unshift(next);
+        node = next.a === node ? next.b : next.a; cur = next;
+      }
+    }
+    out.push(run);
+  }
+  return out;
+}
+
+/** Phase of S21 at f0 (degrees) of a chain of line pieces of `doc` alone, its two ends made ports. */
+function phaseAlone(doc: DesignDoc, chain: DesignSegment[]): number {
+  const count = new Map<string, number>();
+  for (const s of chain) for (const e of endsOf(s)) count.set(e, (count.get(e) ?? 0) + 1);
+  const ends = [...count].filter(([, c]) => c === 1).map(([id]) => id);
+  if (ends.length !== 2) return NaN;
+  const zRef = doc.nodes.find((n) => n.kind === 'port')?.kind === 'port' ? (doc.nodes.find((n) => n.kind === 'port') as { zRef: number }).zRef : 50;
+  const nodes: DesignNode[] = doc.nodes.filter((n) => count.has(n.id)).map((n) => (ends.includes(n.id) ? { id: n.id, kind: 'port', zRef, heading: 0, at: n.at } : n));
+  const alone: DesignDoc = { ...doc, nodes, segments: chain, phaseGroups: [], targets: [], blocks: [] };
+  const sized = sizeDesign(alone);
+  if (sized.problems.length) return NaN;
+  const r = solveNetwork(netlistFromSized(sized, { lossless: true }), new Float64Array([doc.frequency.f0]));
+  const P = r.ports.length, i = r.ports.findIndex((p) => p.name === ends[1]), j = r.ports.findIndex((p) => p.name === ends[0]);
+  const t = 2 * (i * P + j);
+  const deg = (Math.atan2(r.s[t + 1]!, r.s[t]!) * 180) / Math.PI;
+  return deg;
+}
+
 type Shape = 'tab-sn' | 'tab-sf' | 'tab-en' | 'tab-ef' | 'ell' | 'hook';
-type Side = 1 | -1 | 'out' | 'in';
+/** A fixed side; away from or toward the block's middle; or away from the other pieces at the line's ends ('clear'). */
+type Side = 1 | -1 | 'out' | 'in' | 'clear';
 
 /** A line that may fold: oriented from `a` (its end toward the rest of the block) to `b`. */
 interface Foldable {
@@ -81,7 +164,7 @@ interface Foldable {
 }
 
 /** Tries every kind of line, shape and side; returns the folded copy that overflows least (and crowds nothing), or null. */
-function bestFold(doc: DesignDoc, kind: string, sized: SizedDesign, size: Box, fp: Box): { doc: DesignDoc; count: number } | null {
+function bestFold(doc: DesignDoc, sized: SizedDesign, size: Box, fp: Box): { doc: DesignDoc; count: number } | null {
   const groups = new Map<string, Foldable[]>();
   for (const f of foldables(doc, sized)) groups.set(f.key, [...(groups.get(f.key) ?? []), f]);
   const centre = centroid(doc.nodes.map((n) => n.at));
@@ -94,27 +177,20 @@ function bestFold(doc: DesignDoc, kind: string, sized: SizedDesign, size: Box, f
     const want = Math.abs(d.x) * Math.max(0, size.w - fp.w) + Math.abs(d.y) * Math.max(0, size.h - fp.h);
     if (want < 1e-6) continue;
     const shapes: Shape[] = members[0]!.leaf ? ['ell', 'hook', 'tab-sn', 'tab-sf'] : ['tab-sn', 'tab-sf', 'tab-en', 'tab-ef'];
-    const sides: Side[] = members.length > 1 ? [1, -1, 'out', 'in'] : [1, -1];
+    const sides: Side[] = members.length > 1 ? [1, -1, 'out', 'in', 'clear'] : [1, -1];
     for (const shape of shapes) for (const side of sides) {
       const trial = snapshot(doc);
       let ok = true;
-      for (const m of members) ok &&= foldLine(trial, m, shape, sideOf(m, side, centre), want, doc.substrate.h);
-      const dbg = (globalThis as { foldDebug?: (x: unknown) => void }).foldDebug;
-      if (!ok) { dbg?.(['short', members[0]!.seg.id, shape, side]); continue; }
+      for (const m of members) ok &&= foldLine(trial, m, shape, sideOf(doc, m, side, centre), want, doc.substrate.h);
+      if (!ok) continue;
       const s = sizeDesign(trial);
-      if (s.problems.length) { dbg?.(['problem', members[0]!.seg.id, shape, side, s.problems[0]!.message]); continue; }
+      if (s.problems.length) continue;
       const over = overflow(copperBox(s), fp);
-      dbg?.(['try', members[0]!.seg.id, members.length, shape, side, now, over]);
       if (over < now - 0.05e-3) tries.push({ doc: trial, over, sized: s, count: members.length });
     }
   }
   tries.sort((x, y) => x.over - y.over);
-  for (const t of tries) {
-    const after = crowding(t.doc, t.sized);
-    if (!crowdsMore(before, after)) return { doc: t.doc, count: t.count };
-    (globalThis as { foldDebug?: (x: unknown) => void }).foldDebug?.(['crowds', [...after].filter((k) => !before.has(k))]);
-  }
-  void kind;
+  for (const t of tries) if (!crowdsMore(before, crowding(t.doc, t.sized))) return { doc: t.doc, count: t.count };
   return null;
 }
 
@@ -166,13 +242,13 @@ function foldLine(doc: DesignDoc, g: Foldable, shape: Shape, side: 1 | -1, want:
   if (shape === 'ell' || shape === 'hook') {
     const rest = Math.max(minRun, 0); // the last part, beyond the last bend, at least this long
     if (shape === 'ell') {
-      const a = Math.min(L - rest, Math.max(f.cA, L - want - f.w));
+      const a = Math.min(L - rest, Math.max(f.cA, L - want - f.w - 0.5e-3));
       if (!(a >= f.cA - 1e-12)) return false;
       moves = [mul(d, a), mul(n, L - a)];
     } else {
       // Forward a, across a pitch, back r = L − a − pitch; the back leg stops short of the first one's start.
       const aMin = Math.max(f.cA, (L - pitch + f.cA) / 2);
-      const a = Math.max(aMin, L - want - f.w);
+      const a = Math.max(aMin, L - want - f.w - 0.5e-3);
       const r = L - a - pitch;
       if (!(r >= rest)) return false;
       moves = [mul(d, a), mul(n, pitch), mul(d, -r)];
@@ -216,18 +292,35 @@ function foldLine(doc: DesignDoc, g: Foldable, shape: Shape, side: 1 | -1, want:
   return true;
 }
 
-/** The side a member folds to: fixed, or away from (out) or toward (in) the middle of the block. */
-function sideOf(f: Foldable, side: Side, centre: Vec2): 1 | -1 {
+/** The side a member folds to: fixed, away from (out) or toward (in) the middle of the block, or clear of its neighbours. */
+function sideOf(doc: DesignDoc, f: Foldable, side: Side, centre: Vec2): 1 | -1 {
   if (side === 1 || side === -1) return side;
   const d = unit(sub(f.B, f.A)), n = { x: -d.y, y: d.x }, mid = mul(add(f.A, f.B), 0.5);
+  if (side === 'clear') {
+    // The other pieces at its two ends: fold to the side they do not lean to.
+    const at = new Map(doc.nodes.map((nd) => [nd.id, nd.at]));
+    let lean = 0;
+    for (const s of doc.segments) {
+      if (s.id === f.seg.id || s.kind === 'coupled') continue;
+      for (const [node, o] of [[s.a, s.b], [s.b, s.a]] as const) {
+        if (node !== f.a && node !== f.b) continue;
+        const u = unit(sub(at.get(o)!, at.get(node)!));
+        lean += n.x * u.x + n.y * u.y;
+      }
+    }
+    return lean > 1e-9 ? -1 : 1;
+  }
   const away = n.x * (mid.x - centre.x) + n.y * (mid.y - centre.y) >= 0 ? 1 : -1;
   return side === 'out' ? away : (-away as 1 | -1);
 }
 
-/** Pairs of pieces or node patches crowding each other, by ids: runs side by side within 3h, copper within the gap. */
-function crowding(doc: DesignDoc, sized: SizedDesign): Set<string> {
-  const out = new Set<string>();
-  for (const hit of proximityHits(sized, DEFAULT_PROXIMITY_LIMIT_H * doc.substrate.h)) out.add(pairKey(hit.a, hit.b));
+/**
+ * Pairs of pieces or node patches crowding each other, by ids, with their gap: runs side by side within 3h ('run'),
+ * copper within the gap ('gap').
+ */
+function crowding(doc: DesignDoc, sized: SizedDesign): Map<string, number> {
+  const out = new Map<string, number>();
+  for (const hit of proximityHits(sized, DEFAULT_PROXIMITY_LIMIT_H * doc.substrate.h)) out.set(`run:${pairKey(hit.a, hit.b)}`, hit.gap);
   const minGap = Math.max(2 * cutWidth(doc.process), 0.5e-3);
   const ends = new Map(doc.segments.map((s) => [s.id, new Set(endsOf(s))]));
   const joined = (x: string, y: string): boolean => {
@@ -242,12 +335,14 @@ function crowding(doc: DesignDoc, sized: SizedDesign): Set<string> {
     const p = shapes[i]!, q = shapes[j]!;
     if (p.box.x0 > q.box.x1 + minGap || q.box.x0 > p.box.x1 + minGap || p.box.y0 > q.box.y1 + minGap || q.box.y0 > p.box.y1 + minGap) continue;
     if (joined(p.id, q.id)) continue;
-    if (ringsGap(p.rings, q.rings) < minGap) out.add(pairKey(p.id, q.id));
+    const g = ringsGap(p.rings, q.rings);
+    if (g < minGap) out.set(`gap:${pairKey(p.id, q.id)}`, g);
   }
   return out;
 }
 
-const crowdsMore = (before: Set<string>, after: Set<string>) => [...after].some((k) => !before.has(k));
+/** A pair crowding that did not before, or closer than it was (a pair already close may stay as close, no closer). */
+const crowdsMore = (before: Map<string, number>, after: Map<string, number>) => [...after].some(([k, g]) => !(g >= (before.get(k) ?? Infinity) - 1e-6));
 const pairKey = (a: string, b: string) => (a < b ? `${a}|${b}` : `${b}|${a}`);
 
 /** Smallest distance between two sets of rings (0 when they touch or one holds the other), m. */
@@ -342,8 +437,3 @@ function sub(a: Vec2, b: Vec2): Vec2 { return { x: a.x - b.x, y: a.y - b.y }; }
 function mul(a: Vec2, k: number): Vec2 { return { x: a.x * k, y: a.y * k }; }
 function unit(v: Vec2): Vec2 { const l = Math.hypot(v.x, v.y) || 1; return { x: v.x / l, y: v.y / l }; }
 function round9(x: number): number { return Math.round(x * 1e9) / 1e9; }
-
-/** An InputError for a fold that cannot be made as asked (kept here so the wording is one). */
-export function foldRefusal(kind: string, need: string, got: string, why: string): InputError {
-  return new InputError('out-of-range', `${kind}.footprint`, need, got, why);
-}
