@@ -50,7 +50,8 @@ export function copperSize(doc: DesignDoc): { w: number; h: number } {
 }
 
 const fits = (s: { w: number; h: number }, fp: Footprint) => s.w <= fp.w + 1e-9 && s.h <= fp.h + 1e-9;
-const mm = (x: number) => `${(Math.ceil(x * 1e4) / 10).toFixed(1)} mm`;
+// Rounded up to 0.1 mm (less a hair, so 72 mm is not read as 72.1 mm from 0.072·10⁴ = 720.0000000001).
+const mm = (x: number) => `${(Math.ceil(x * 1e4 - 1e-6) / 10).toFixed(1)} mm`;
 
 /**
  * Makes `doc` (a placed block) fit `fp`, in place. Returns a note saying what was done, or null when nothing was
