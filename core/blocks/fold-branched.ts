@@ -178,10 +178,12 @@ function bestFold(doc: DesignDoc, sized: SizedDesign, size: Box, fp: Box): { doc
     if (want < 1e-6) continue;
     const shapes: Shape[] = members[0]!.leaf ? ['ell', 'hook', 'tab-sn', 'tab-sf'] : ['tab-sn', 'tab-sf', 'tab-en', 'tab-ef'];
     const sides: Side[] = members.length > 1 ? [1, -1, 'out', 'in', 'clear'] : [1, -1];
-    for (const shape of shapes) for (const side of sides) {
+    // Each fold takes what is missing (with a little to spare), or all the line allows: the compensated bends move the
+    // copper a little, so the first can fall just short.
+    for (const shape of shapes) for (const side of sides) for (const take of [want, Infinity]) {
       const trial = snapshot(doc);
       let ok = true;
-      for (const m of members) ok &&= foldLine(trial, m, shape, sideOf(doc, m, side, centre), want, doc.substrate.h);
+      for (const m of members) ok &&= foldLine(trial, m, shape, sideOf(doc, m, side, centre), take, doc.substrate.h);
       if (!ok) continue;
       const s = sizeDesign(trial);
       if (s.problems.length) continue;
