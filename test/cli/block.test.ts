@@ -106,7 +106,7 @@ describe('stripwright block (registry)', () => {
     expect(r.code, r.stderr).toBe(0);
     const p = parseDesign(readFileSync(join(dir, 'f.json'), 'utf8'));
     expect(p.ok && p.doc.nodes.some((n) => n.id.includes('.fold'))).toBe(true);
-    expect(p.ok && String(p.doc.notes ?? '')).toMatch(/Folded \d+ lines/);
+    expect(p.ok && String(p.doc.notes ?? '')).toMatch(/Folded \d+ lines? \(mitered bends/);
     expect((await run(['build', 'f.json'], dir)).code).toBe(0);
   });
   it('a block design carries default tolerances, so `stripwright yield` on it shows a spread (common practice defaults, core/blocks/tolerance-defaults.ts)', async () => {
