@@ -4,8 +4,9 @@
  * transformer, the stepped low-pass and the launch are) is folded into a serpentine whose turns are pairs of
  * mitered bends, each bend inside one line, so sizing compensates it (core/layout's bend model, as the meanders of
  * equalize use) and every piece keeps its electrical length (its degrees, or its length, shared between its parts).
- * Anything else that does not fit is refused, naming the footprint it needs and why it was not folded (branchedWhy:
- * outputs a pitch apart on a row, or lines too short for a U-turn to gain what is missing).
+ * A block with branches folds its bridge lines (fold-branched.ts: tabs, ells and hooks of mitered bends, each folded
+ * run's phase kept). What still does not fit is refused, naming the footprint it needs as laid out and as folded (or,
+ * for a row of outputs set by a pitch, the largest pitch that fits).
  *
  * Runs of the serpentine keep an edge-to-edge gap of at least the shop check's proximity limit (3h by default,
  * core/layout/proximity.ts: the distance beyond which the single-line model is taken to hold, common practice), so
