@@ -118,7 +118,7 @@ function fitBranched(doc: DesignDoc, kind: string, fp: Footprint, size: { w: num
   // The folds aim at the footprint asked, so a slightly different one may fold differently: the footprint named is
   // the first of a few, from the size reached up, that folds again (checked here, so what is named does fit).
   let named: { w: number; h: number } | null = null;
-  for (const extra of [0, 0.5e-3, 1e-3, 2e-3]) {
+  for (const extra of [0, 1e-3]) {
     const fp2 = { w: Math.ceil((best.size.w + extra) * 1e4) / 1e4, h: Math.ceil((best.size.h + extra) * 1e4) / 1e4 };
     if (fp2.w * fp2.h >= size.w * size.h - 1e-9) break;
     const check = { ...doc, nodes: clone(doc.nodes), segments: clone(doc.segments) };
