@@ -161,6 +161,16 @@ describe('a branched block folded to fit its footprint', () => {
     });
   });
 
+  it('a short footprint turns the band-stop\'s stubs along the board: each an L (one mitered bend), its open end kept', () => {
+    const doc = make('bandstop', { footprint: '50mm,13mm' });
+    for (const k of [1, 2, 3]) {
+      const parts = doc.segments.filter((x) => x.id === `b1.s${k}` || x.id.startsWith(`b1.s${k}.fold-part`));
+      expect(parts.map((x) => x.id)).toEqual([`b1.s${k}`, `b1.s${k}.fold-part2`]);
+      expect(parts[1]!.b).toBe(`b1.s${k}-end`);
+      expect(doc.nodes.find((n) => n.id === `b1.s${k}-end`)?.kind).toBe('open');
+    }
+  });
+
   it('a footprint too small is refused naming the smallest that fits, and that one fits', () => {
     let err: unknown;
     try { make('stub-match', { load: '30-20j', footprint: '20mm,10mm' }); } catch (e) { err = e; }
