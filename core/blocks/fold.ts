@@ -4,8 +4,9 @@
  * transformer, the stepped low-pass and the launch are) is folded into a serpentine whose turns are pairs of
  * mitered bends, each bend inside one line, so sizing compensates it (core/layout's bend model, as the meanders of
  * equalize use) and every piece keeps its electrical length (its degrees, or its length, shared between its parts).
- * Anything else that does not fit is refused, naming the footprint it needs and why it was not folded (branchedWhy:
- * outputs a pitch apart on a row, or lines too short for a U-turn to gain what is missing).
+ * A block with branches folds its bridge lines (fold-branched.ts: tabs, ells and hooks of mitered bends, each folded
+ * run's phase kept). What still does not fit is refused, naming the footprint it needs as laid out and as folded (or,
+ * for a row of outputs set by a pitch, the largest pitch that fits).
  *
  * Runs of the serpentine keep an edge-to-edge gap of at least the shop check's proximity limit (3h by default,
  * core/layout/proximity.ts: the distance beyond which the single-line model is taken to hold, common practice), so
@@ -19,6 +20,7 @@ import { sizeDesign } from '../layout/sizing.ts';
 import { InputError } from '../util/errors.ts';
 import type { ParamDef, ParamValue } from './params.ts';
 import { placeAsSized } from './drawn.ts';
+import { foldBranched } from './fold-branched.ts';
 
 /** The optional footprint every block with long lines declares. */
 export const FOOTPRINT_PARAM: ParamDef = {
@@ -49,19 +51,20 @@ export function copperSize(doc: DesignDoc): { w: number; h: number } {
 }
 
 const fits = (s: { w: number; h: number }, fp: Footprint) => s.w <= fp.w + 1e-9 && s.h <= fp.h + 1e-9;
-const mm = (x: number) => `${(Math.ceil(x * 1e4) / 10).toFixed(1)} mm`;
+// Rounded up to 0.1 mm (less a hair, so 72 mm is not read as 72.1 mm from 0.072·10⁴ = 720.0000000001).
+const mm = (x: number) => `${(Math.ceil(x * 1e4 - 1e-6) / 10).toFixed(1)} mm`;
 
 /**
  * Makes `doc` (a placed block) fit `fp`, in place. Returns a note saying what was done, or null when nothing was
  * needed. Refuses, naming the footprint the block needs, when neither turning nor folding makes it fit.
  */
-export function fitFootprint(doc: DesignDoc, kind: string, fp: Footprint): string | null {
+export function fitFootprint(doc: DesignDoc, kind: string, fp: Footprint, opts: { pitchRow?: boolean } = {}): string | null {
   const size = copperSize(doc);
   if (fits(size, fp)) return null;
   if (fits({ w: size.h, h: size.w }, fp)) { turnQuarter(doc); return `Turned a quarter turn to fit the ${mm(fp.w)} × ${mm(fp.h)} footprint.`; }
   const chain = chainOf(doc);
   const need = `a footprint of at least ${mm(size.w)} × ${mm(size.h)} (its copper as laid out)`;
-  if (!chain) throw new InputError('out-of-range', `${kind}.footprint`, need, `${mm(fp.w)} × ${mm(fp.h)}`, branchedWhy(doc, size, fp));
+  if (!chain) return fitBranched(doc, kind, fp, size, opts.pitchRow ?? false);
   // Fold along the footprint's longer side; the runs are shortened until the copper (pads, bends) fits.
   const wide = fp.w >= fp.h;
   const along = wide ? fp.w : fp.h, across = wide ? fp.h : fp.w;
@@ -88,40 +91,65 @@ export function fitFootprint(doc: DesignDoc, kind: string, fp: Footprint): strin
 }
 
 /**
- * Why a block with branches (tees, a ring, stubs) is not folded to fit, in numbers, with what would fit instead.
- * Only a row from port to port folds: a U-turn inside a line between junctions would have to keep every path through
- * them matched and keep 3h from the lines of the other paths, which this fold does not attempt. What the refusal can
- * say exactly: outputs on a row are set apart by the spec's pitch (no fold brings them closer), and a single U-turn
- * (two mitered bends a row pitch apart) saves at most half of what a line is longer than that pitch.
+ * A block with branches (tees, a ring, stubs): its bridge lines fold (fold-branched.ts), unturned or turned a quarter
+ * turn, whichever fits. Refused when a row of outputs set by the spec's pitch is longer than the footprint (no fold
+ * brings them closer: the refusal names the largest pitch that fits), or when the folds cannot reach the footprint:
+ * the refusal then names the smallest footprint the block does fit, as laid out and as folded.
  */
-function branchedWhy(doc: DesignDoc, size: { w: number; h: number }, fp: Footprint): string {
+function fitBranched(doc: DesignDoc, kind: string, fp: Footprint, size: { w: number; h: number }, pitchRow: boolean): string {
+  const got = `${mm(fp.w)} × ${mm(fp.h)}`;
+  const need = `a footprint of at least ${mm(size.w)} × ${mm(size.h)} (its copper as laid out)`;
+  const pitch = pitchRow ? pitchBound(doc, size, fp) : null;
+  if (pitch) throw new InputError('out-of-range', `${kind}.footprint`, need, got, pitch);
+  const tries: { turned: boolean; size: { w: number; h: number } }[] = [];
+  for (const turned of [false, true]) {
+    const work = { ...doc, nodes: clone(doc.nodes), segments: clone(doc.segments) };
+    if (turned) { turnQuarter(work); placeAsSized(work, kind); }
+    const r = foldBranched(work, kind, fp);
+    if (r.fits) {
+      doc.nodes = work.nodes; doc.segments = work.segments;
+      headPorts(doc);
+      return `Folded ${r.folded} line${r.folded === 1 ? '' : 's'} (mitered bends, compensated; electrical lengths kept${turned ? '; turned a quarter turn' : ''}) to fit the ${got} footprint; its copper is ${mm(r.size.w)} × ${mm(r.size.h)}.`;
+    }
+    tries.push({ turned, size: r.size });
+  }
+  // The smallest the folds reached (by area), checked to fold into itself again, is named with the size as laid out.
+  const best = tries.sort((a, b) => a.size.w * a.size.h - b.size.w * b.size.h)[0]!;
+  // The folds aim at the footprint asked, so a slightly different one may fold differently: the footprint named is
+  // the first of a few, from the size reached up, that folds again (checked here, so what is named does fit).
+  let named: { w: number; h: number } | null = null;
+  for (const extra of [0, 1e-3]) {
+    const fp2 = { w: Math.ceil((best.size.w + extra) * 1e4) / 1e4, h: Math.ceil((best.size.h + extra) * 1e4) / 1e4 };
+    if (fp2.w * fp2.h >= size.w * size.h - 1e-9) break;
+    const check = { ...doc, nodes: clone(doc.nodes), segments: clone(doc.segments) };
+    if (best.turned) { turnQuarter(check); placeAsSized(check, kind); }
+    if (foldBranched(check, kind, fp2).fits) { named = fp2; break; }
+  }
+  const folded = named !== null;
+  throw new InputError('out-of-range', `${kind}.footprint`,
+    `${need}${named ? `, or folded, at least ${mm(named.w)} × ${mm(named.h)}` : ''}`, got,
+    `its lines that lead to ports, stubs and junctions fold into U-turns of mitered bends, keeping 3 substrate heights between runs, but not enough for this footprint${folded ? '' : ' (folding does not make it smaller)'}; lines inside a loop (a ring, a divider's arms) keep their shape; give a larger footprint or leave it empty`);
+}
+
+/**
+ * Outputs spread along one row (a feed's; `pitchRow` for blocks with a pitch parameter) are set apart by the spec's pitch: when the row is longer than the
+ * footprint's longer side, no fold helps. Says so in numbers, naming the largest pitch that fits; else null.
+ */
+function pitchBound(doc: DesignDoc, size: { w: number; h: number }, fp: Footprint): string | null {
   const long = Math.max(fp.w, fp.h), short = Math.min(fp.w, fp.h);
-  const ports = doc.nodes.filter((n) => n.kind === 'port');
-  const outs = ports.slice(1);
+  const outs = doc.nodes.filter((n) => n.kind === 'port').slice(1);
+  if (outs.length < 2) return null;
   const sized = sizeDesign(doc);
   const wMax = Math.max(0, ...sized.pieces.map((p) => (Number.isFinite(p.width) ? p.width : 0)));
-  // Outputs spread along one line (a feed's row): their spread is the spec's, whatever is folded.
-  if (outs.length >= 2) {
-    const xs = outs.map((n) => n.at.x), ys = outs.map((n) => n.at.y);
-    const alongX = Math.max(...xs) - Math.min(...xs) >= Math.max(...ys) - Math.min(...ys);
-    const spread = alongX ? Math.max(...xs) - Math.min(...xs) : Math.max(...ys) - Math.min(...ys);
-    const rowLen = alongX ? size.w : size.h, depth = alongX ? size.h : size.w;
-    if (spread + wMax > long + 1e-9) {
-      const fit = Math.floor(((long - (rowLen - spread)) / (outs.length - 1)) * 1e4) / 10;
-      const deep = depth > short + 1e-9 ? `; its depth, ${mm(depth)}, is set by the quarter-wave levels between its splits and does not fit ${mm(short)} either` : '';
-      return `its ${outs.length} outputs are ${mm(spread)} apart end to end on their row, set by the pitch; folding lines cannot bring them closer${deep}` +
-        (fit > 0 && !deep ? `: a pitch of at most ${fit.toFixed(1)} mm fits ${mm(long)}` : '') + '; give a larger footprint or leave it empty';
-    }
-  }
-  const uTurn = wMax + DEFAULT_PROXIMITY_LIMIT_H * doc.substrate.h * 1.05;
-  const longest = sized.pieces.filter((p) => p.kind === 'line').reduce<{ id: string; length: number; width: number } | null>((a, p) => (!a || p.length > a.length ? { id: p.id, length: p.length, width: p.width } : a), null);
-  const over = Math.max(0, Math.min(Math.max(size.w - fp.w, size.h - fp.h), Math.max(size.h - fp.w, size.w - fp.h)));
-  const saves = longest ? Math.max(0, (longest.length - uTurn) / 2 - longest.width - 0.5e-3) : 0;
-  const base = 'it branches (junctions join three lines, or a ring closes), and only a row of lines from port to port folds here';
-  if (longest && saves < over) {
-    return `${base}; even so, its longest line (${longest.id}, ${mm(longest.length)}) folded once (two mitered bends ${mm(uTurn)} apart: 3 substrate heights between runs) would save at most ${mm(saves)} of the ${mm(over)} it is too large; give a larger footprint or leave it empty`;
-  }
-  return `${base}: a U-turn between its junctions would have to keep every path through them matched and clear of the others' lines, which is not done; give a larger footprint or leave it empty`;
+  const xs = outs.map((n) => n.at.x), ys = outs.map((n) => n.at.y);
+  const alongX = Math.max(...xs) - Math.min(...xs) >= Math.max(...ys) - Math.min(...ys);
+  const spread = alongX ? Math.max(...xs) - Math.min(...xs) : Math.max(...ys) - Math.min(...ys);
+  const rowLen = alongX ? size.w : size.h, depth = alongX ? size.h : size.w;
+  if (!(spread + wMax > long + 1e-9)) return null;
+  const fit = Math.floor(((long - (rowLen - spread)) / (outs.length - 1)) * 1e4) / 10;
+  const deep = depth > short + 1e-9 ? `; its depth, ${mm(depth)}, does not fit ${mm(short)} either` : '';
+  return `its ${outs.length} outputs are ${mm(spread)} apart end to end on their row, set by the pitch; folding lines cannot bring them closer${deep}` +
+    (fit > 0 ? `: a pitch of at most ${fit.toFixed(1)} mm fits ${mm(long)}` : '') + '; give a larger footprint or leave it empty';
 }
 
 interface Chain {

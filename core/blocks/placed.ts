@@ -35,7 +35,7 @@ export function generateBlock(kind: string, raw: Record<string, unknown>, ctx: B
   placeAsSized(probe, kind);
   // An optional footprint: the block is turned or folded to fit it, or refused naming the footprint it needs.
   const fp = footprintOf(spec, kind);
-  const note = fp ? fitFootprint(probe, kind, fp) : null;
+  const note = fp ? fitFootprint(probe, kind, fp, { pitchRow: def.params.some((x) => x.name === 'pitch') }) : null;
   if (note) return { spec, pieces: { ...pieces, nodes: probe.nodes, segments: probe.segments, notes: [...pieces.notes, note] } };
   return { spec, pieces };
 }

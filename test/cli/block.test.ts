@@ -100,6 +100,15 @@ describe('stripwright block (registry)', () => {
     expect(no.stderr).toMatch(/footprint of at least/);
     expect(existsSync(join(dir, 'c.json'))).toBe(false);
   });
+  it('--footprint folds a branched block too (a feed of 20 mm lines into 200 × 80 mm), and build takes it as is', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const r = await run(['block', 'corporate', '--outputs', '4', '--feed', '20mm', '--footprint', '200mm,80mm', '--sizing', 'microstrip', '--f0', '2.45GHz', '--out', 'f.json'], dir);
+    expect(r.code, r.stderr).toBe(0);
+    const p = parseDesign(readFileSync(join(dir, 'f.json'), 'utf8'));
+    expect(p.ok && p.doc.nodes.some((n) => n.id.includes('.fold'))).toBe(true);
+    expect(p.ok && String(p.doc.notes ?? '')).toMatch(/Folded \d+ lines? \(mitered bends/);
+    expect((await run(['build', 'f.json'], dir)).code).toBe(0);
+  });
   it('a block design carries default tolerances, so `stripwright yield` on it shows a spread (common practice defaults, core/blocks/tolerance-defaults.ts)', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
     expect((await run(['block', 'wilkinson', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--sizing', 'microstrip', '--out', 'w.json'], dir)).code).toBe(0);

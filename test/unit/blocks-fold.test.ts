@@ -3,7 +3,8 @@
  * (united by the board geometry) lies inside the footprint, the shop check finds nothing, and the electrical length
  * from port to port is kept: the path report's degrees (core/layout/paths.ts) and the phase of S21 of a lossless
  * sweep (the sweep's own bend models: Douville and James 1978 mitered bends, sized with compensation) each within 0.5°
- * of the unfolded block's. What does not fit, and cannot fold, is refused naming the footprint it needs.
+ * of the unfolded block's. What does not fit, and cannot fold, is refused naming the footprint it needs (branched
+ * blocks folded: test/unit/blocks-fold-branched.test.ts).
  * Footprints and specs are scenarios of our own.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -83,11 +84,12 @@ describe('a block folded to fit its footprint', () => {
     const doc = make('corporate', { outputs: '4', pitch: `${pitch}mm`, footprint: '150mm,80mm' });
     expect(doc.blocks?.[0]?.kind).toBe('corporate');
   });
-  it('a branched block whose lines are too short to gain from a fold is refused with the numbers: its longest line, what one U-turn saves, how much too large it is', () => {
+  it('a branched block that even folded does not fit is refused, naming the footprint it needs as laid out and as folded, and why', () => {
     let err: unknown;
     try { make('stub-match', { load: '30-20j', footprint: '10mm,10mm' }); } catch (e) { err = e; }
     expect(err).toBeInstanceOf(InputError);
-    expect((err as InputError).hint).toMatch(/only a row of lines from port to port folds here; even so, its longest line \(\S+, \d+\.\d mm\) folded once \(two mitered bends \d+\.\d mm apart: 3 substrate heights between runs\) would save at most \d+\.\d mm of the \d+\.\d mm it is too large/);
+    expect((err as InputError).expected).toMatch(/^a footprint of at least \d+\.\d mm × \d+\.\d mm \(its copper as laid out\)(, or folded, at least \d+\.\d mm × \d+\.\d mm)?$/);
+    expect((err as InputError).hint).toMatch(/fold into U-turns of mitered bends, keeping 3 substrate heights between runs, but not enough for this footprint/);
   });
   it('a footprint that is not two lengths is refused in words', () => {
     expect(() => make('transformer', { footprint: '30mm' })).toThrow(/width,height/);

@@ -14,6 +14,7 @@
 import type { DesignSegment, PhaseGroup, Target } from '../../design/types.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
+import { FOOTPRINT_PARAM } from '../fold.ts';
 import { fitSpans, levelTargets, matchPhases, placeAsSized } from '../drawn.ts';
 
 export function wilkinsonValues(z0: number, ratioDb: number): { k: number; z2: number; z3: number; r: number; t2: number; t3: number } {
@@ -41,7 +42,7 @@ export const wilkinsonBlock: BlockDef = {
   params: [
     Z0_PARAM,
     { name: 'ratioDb', type: 'number', unit: 'db', min: -15, max: 15, default: 0, meaning: 'Power to output 1 over output 2, dB (0 = equal split)' },
-    FEED_PARAM,
+    FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec, ctx) {
     const z0 = spec.z0 as number, ratio = spec.ratioDb as number, feed = spec.feed as number;
@@ -103,7 +104,7 @@ export const branchlineBlock: BlockDef = {
   title: 'Branch-line hybrid',
   summary: 'quadrature (90°) hybrid, equal or unequal split',
   source: 'Pozar, Microwave Engineering, 4th ed., 2012, §7.5',
-  params: [Z0_PARAM, { name: 'ratioDb', type: 'number', unit: 'db', min: -10, max: 10, default: 0, meaning: 'Power to the through port over the coupled port, dB (0 = 3 dB hybrid)' }, FEED_PARAM],
+  params: [Z0_PARAM, { name: 'ratioDb', type: 'number', unit: 'db', min: -10, max: 10, default: 0, meaning: 'Power to the through port over the coupled port, dB (0 = 3 dB hybrid)' }, FEED_PARAM, FOOTPRINT_PARAM],
   generate(spec, ctx) {
     const z0 = spec.z0 as number, ratio = spec.ratioDb as number, feed = spec.feed as number;
     const v = branchlineValues(z0, ratio);
@@ -162,7 +163,7 @@ export const ratraceBlock: BlockDef = {
   title: 'Rat-race hybrid',
   summary: '180° hybrid ring: sum and difference ports',
   source: 'Pozar, Microwave Engineering, 4th ed., 2012, §7.8',
-  params: [Z0_PARAM, FEED_PARAM],
+  params: [Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM],
   generate(spec, ctx) {
     const z0 = spec.z0 as number, feed = spec.feed as number, zr = Math.SQRT2 * z0;
     widthFor(ctx, zr, 'ratrace.z0', 'the ring');
