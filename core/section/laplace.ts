@@ -36,23 +36,12 @@ const STOP_REL = 1e-5;
 
 /** Couplings and conductor map of the grid x × y for the shapes, with `material` (null = vacuum everywhere); with
  * `wallAtZero` the line x = 0 is held at 0 V (the odd mode's symmetry plane). */
-export function assemble(x: Float64Array, y: Float64Array, shapes: Shapes, material: Material | null, wallAtZero = false): Grid {
+export function assemble(x: Float64Array, y: Float64Array, shapes: Shapes, material: Material | null, wallAtZero = false, cache?: AssemblyCache): Grid {
   const nx = x.length, ny = y.length;
-  const eps = new Float64Array((nx - 1) * (ny - 1));
-  if (material) {
-    for (let j = 0; j + 1 < ny; j++) {
-      const y0 = y[j]!, dy = y[j + 1]! - y0;
-      for (let i = 0; i + 1 < nx; i++) {
-        const x0 = x[i]!, dx = x[i + 1]! - x0;
-        let sum = 0, n = 0;
-        for (let a = 0; a < 2; a++) for (let b = 0; b < 2; b++) {
-          const e = material(x0 + dx * (0.25 + 0.5 * a), y0 + dy * (0.25 + 0.5 * b));
-          if (e === e) { sum += e; n++; } // NaN (copper) carries no field
-        }
-        eps[j * (nx - 1) + i] = n ? sum / n : 1;
-      }
-    }
-  } else eps.fill(1);
+  let eps = cache?.eps.get(material);
+  if (!eps) { eps = cellPermittivity(x, y, material); cache?.eps.set(material, eps); }
+  let owner = cache?.owner.get(wallAtZero);
+  if (!owner) { owner = ownerMap(x, y, shapes, wallAtZero); cache?.owner.set(wallAtZero, owner); }
   const wx = new Float64Array(nx * ny), wy = new Float64Array(nx * ny);
   for (let j = 0; j < ny; j++) {
     for (let i = 0; i < nx; i++) {
@@ -73,6 +62,40 @@ export function assemble(x: Float64Array, y: Float64Array, shapes: Shapes, mater
       }
     }
   }
+  return { nx, ny, x, y, wx, wy, owner };
+}
+
+/** What the solves on one grid share: the cells' permittivity per material (null = vacuum) and the conductor map
+ * per symmetry wall. */
+export interface AssemblyCache { eps: Map<Material | null, Float64Array>; owner: Map<boolean, Int8Array> }
+
+export function assemblyCache(): AssemblyCache {
+  return { eps: new Map(), owner: new Map() };
+}
+
+/** Each cell's relative permittivity: the mean of 2 × 2 samples inside it (copper samples carry no field). */
+function cellPermittivity(x: Float64Array, y: Float64Array, material: Material | null): Float64Array {
+  const nx = x.length, ny = y.length;
+  const eps = new Float64Array((nx - 1) * (ny - 1));
+  if (!material) return eps.fill(1);
+  for (let j = 0; j + 1 < ny; j++) {
+    const y0 = y[j]!, dy = y[j + 1]! - y0;
+    for (let i = 0; i + 1 < nx; i++) {
+      const x0 = x[i]!, dx = x[i + 1]! - x0;
+      let sum = 0, n = 0;
+      for (let a = 0; a < 2; a++) for (let b = 0; b < 2; b++) {
+        const e = material(x0 + dx * (0.25 + 0.5 * a), y0 + dy * (0.25 + 0.5 * b));
+        if (e === e) { sum += e; n++; } // NaN (copper) carries no field
+      }
+      eps[j * (nx - 1) + i] = n ? sum / n : 1;
+    }
+  }
+  return eps;
+}
+
+/** Conductor id of every node (−1 free); the top row is grounded, and with `wallAtZero` the line x = 0 too. */
+function ownerMap(x: Float64Array, y: Float64Array, shapes: Shapes, wallAtZero: boolean): Int8Array {
+  const nx = x.length, ny = y.length;
   let minCell = Infinity;
   for (let i = 0; i + 1 < nx; i++) minCell = Math.min(minCell, x[i + 1]! - x[i]!);
   for (let j = 0; j + 1 < ny; j++) minCell = Math.min(minCell, y[j + 1]! - y[j]!);
@@ -81,11 +104,16 @@ export function assemble(x: Float64Array, y: Float64Array, shapes: Shapes, mater
   for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) {
     owner[j * nx + i] = j === ny - 1 || (wallAtZero && Math.abs(x[i]!) <= tol) ? 0 : conductorAt(shapes, x[i]!, y[j]!, tol);
   }
-  return { nx, ny, x, y, wx, wy, owner };
+  return owner;
 }
 
 /** Free-to-free couplings, the diagonal and the MIC(0) pivots of a grid: everything the iterations need, built once. */
-export interface Factored { g: Grid; fx: Float64Array; fy: Float64Array; diag: Float64Array; piv: Float64Array }
+export interface Factored {
+  g: Grid; fx: Float64Array; fy: Float64Array; diag: Float64Array; piv: Float64Array;
+  /** 1/piv, and the couplings divided by the pivot of their row (fx/piv, fy/piv): the triangular sweeps are sequential
+   * recurrences, and a division on their critical path costs several times a multiplication. */
+  ipiv: Float64Array; gx: Float64Array; gy: Float64Array;
+}
 
 export function factor(g: Grid): Factored {
   const { nx, ny, wx, wy, owner } = g;
@@ -111,7 +139,9 @@ export function factor(g: Grid): Factored {
     if (k >= nx) { const w = fy[k - nx]!; if (w) p -= (w * w + OMEGA * w * (k - nx + 1 < n ? fx[k - nx]! : 0)) / piv[k - nx]!; }
     piv[k] = p > 1e-3 * diag[k]! ? p : diag[k]!;
   }
-  return { g, fx, fy, diag, piv };
+  const ipiv = new Float64Array(n), gx = new Float64Array(n), gy = new Float64Array(n);
+  for (let k = 0; k < n; k++) { const q = 1 / piv[k]!; ipiv[k] = q; gx[k] = fx[k]! * q; gy[k] = fy[k]! * q; }
+  return { g, fx, fy, diag, piv, ipiv, gx, gy };
 }
 
 /**
@@ -119,11 +149,12 @@ export function factor(g: Grid): Factored {
  * Returns the node potentials and the iterations spent. Stops at a residual 1e-6 of the right-hand side's.
  */
 export function solve(f: Factored, volts: ArrayLike<number>, guess?: Float64Array): { v: Float64Array; iterations: number } {
-  const { g, fx, fy, diag, piv } = f;
+  const { g, fx, fy, diag, ipiv, gx, gy } = f;
   const { nx, wx, wy, owner } = g;
   const n = nx * g.ny;
   const v = guess ? Float64Array.from(guess) : new Float64Array(n);
   for (let k = 0; k < n; k++) { const o = owner[k]!; if (o >= 0) v[k] = volts[o]!; }
+  if (!guess) columnStart(g, v);
   // r = b − A·v on free nodes, where b carries the fixed neighbours: r_k = Σ_nbr w·v_nbr − diag·v_k.
   const r = new Float64Array(n), z = new Float64Array(n), p = new Float64Array(n), q = new Float64Array(n);
   let bNorm = 0;
@@ -143,25 +174,23 @@ export function solve(f: Factored, volts: ArrayLike<number>, guess?: Float64Arra
   // are zero at every fixed node and at the ends of rows, so the loops below run over rows 1..ny−2 without bounds or
   // owner tests; z, p and q stay zero at fixed nodes (their r is zero and their couplings vanish).
   const k0 = nx, k1 = n - nx;
-  const precondition = (): number => {
-    for (let k = k0; k < k1; k++) z[k] = (r[k]! + fx[k - 1]! * z[k - 1]! + fy[k - nx]! * z[k - nx]!) / piv[k]!;
-    let rz = 0;
-    for (let k = k1 - 1; k >= k0; k--) {
-      const zk = z[k]! + (fx[k]! * z[k + 1]! + fy[k]! * z[k + nx]!) / piv[k]!;
-      z[k] = zk;
-      rz += r[k]! * zk;
-    }
-    return rz;
-  };
   let rr = 0;
   for (let k = 0; k < n; k++) rr += r[k]! * r[k]!;
   if (rr <= stop || bNorm === 0) return { v, iterations: 0 };
-  let rz = precondition();
-  p.set(z);
+  // z = M⁻¹·r: forward sweep (the first, separately; later fused with the update of v and r), then backward.
+  for (let k = k0; k < k1; k++) z[k] = (r[k]! + fx[k - 1]! * z[k - 1]! + fy[k - nx]! * z[k - nx]!) * ipiv[k]!;
+  let rz = backward(z, r, gx, gy, nx, k0, k1);
+  let beta = 0;
   let it = 0;
+  // The loops are fused where data allow (p's update into the product q = A·p, the update of v and r into the
+  // forward sweep): the sweeps are sequential recurrences, and independent work beside them costs little.
   for (; it < 20000; it++) {
+    // p ← z + β·p, a row ahead of the product, which reads p one row up and down.
+    for (let k = k0; k < k0 + nx; k++) p[k] = z[k]! + beta * p[k]!;
     let pq = 0;
+    const kp = k1 - nx;
     for (let k = k0; k < k1; k++) {
+      if (k < kp) p[k + nx] = z[k + nx]! + beta * p[k + nx]!;
       const s = diag[k]! * p[k]! - fx[k]! * p[k + 1]! - fx[k - 1]! * p[k - 1]! - fy[k]! * p[k + nx]! - fy[k - nx]! * p[k - nx]!;
       q[k] = s;
       pq += p[k]! * s;
@@ -173,14 +202,47 @@ export function solve(f: Factored, volts: ArrayLike<number>, guess?: Float64Arra
       const rk = r[k]! - alpha * q[k]!;
       r[k] = rk;
       rr += rk * rk;
+      z[k] = (rk + fx[k - 1]! * z[k - 1]! + fy[k - nx]! * z[k - nx]!) * ipiv[k]!;
     }
     if (rr <= stop) { it++; break; }
-    const rzNew = precondition();
-    const beta = rzNew / rz;
+    const rzNew = backward(z, r, gx, gy, nx, k0, k1);
+    beta = rzNew / rz;
     rz = rzNew;
-    for (let k = k0; k < k1; k++) p[k] = z[k]! + beta * p[k]!;
   }
   return { v, iterations: it };
+}
+
+/**
+ * A start without a coarser solution: in each column, the potential linear in y between the fixed nodes below and
+ * above each free node. Far from the strip's edges that is the field of parallel plates, which is where conjugate
+ * gradients are slowest to find it (a smooth, domain-wide potential such as floating copper's at 1 V); near the edges
+ * the iterations correct it.
+ */
+function columnStart(g: Grid, v: Float64Array): void {
+  const { nx, ny, y, owner } = g;
+  for (let i = 0; i < nx; i++) {
+    let jl = 0; // last fixed row below (row 0 is always fixed)
+    for (let j = 1; j < ny; j++) {
+      const k = j * nx + i;
+      if (owner[k]! < 0) continue;
+      if (j > jl + 1) {
+        const va = v[jl * nx + i]!, vb = v[k]!, ya = y[jl]!, span = y[j]! - ya;
+        for (let m = jl + 1; m < j; m++) v[m * nx + i] = va + ((vb - va) * (y[m]! - ya)) / span;
+      }
+      jl = j;
+    }
+  }
+}
+
+/** The backward sweep of the MIC(0) preconditioner, in place on z (after the forward sweep); returns r·z. */
+function backward(z: Float64Array, r: Float64Array, gx: Float64Array, gy: Float64Array, nx: number, k0: number, k1: number): number {
+  let rz = 0;
+  for (let k = k1 - 1; k >= k0; k--) {
+    const zk = z[k]! + gx[k]! * z[k + 1]! + gy[k]! * z[k + nx]!;
+    z[k] = zk;
+    rz += r[k]! * zk;
+  }
+  return rz;
 }
 
 /** Charge on each conductor id 0..count−1 of the potential v, in units of ε0 (C/m per ε0): Σ w·(V_k − V_nbr). */
