@@ -8,8 +8,7 @@
  * cross-section the line was sized as: its field solution gives the line's own 50 Ω. With STRIPWRIGHT_SCREENSHOTS=1
  * (npm run screenshots:section) that view is docs/screenshots/cross-section.png.
  */
-import { writeFileSync } from 'node:fs';
-import { readmeShotPath } from './readme-shots.ts';
+import { stableReadmeShot } from './readme-shots.ts';
 import { expect, test } from '@playwright/test';
 
 const ohms = (t: string) => Number(t.replace(/[^\d.]/g, ''));
@@ -62,17 +61,6 @@ test('a line sized as made: the view opens on the cross-section it was sized as,
   // Sized from a table of the same solver (interpolated to within 0.1 %, each value within its 0.2 % estimate), so a
   // direct solve at the sized width lands on the 50 Ω asked for within 1 %.
   await expect.poll(async () => Math.abs(ohms(await z0.innerText()) - 50), { timeout: 30_000 }).toBeLessThan(0.5);
-  if (process.env.STRIPWRIGHT_SCREENSHOTS === '1') {
-    // Byte-stable: the status bar's layout time differs run to run, and the picture is taken once it stops changing.
-    await page.getByTestId('layout-ms').evaluate((e) => { (e as HTMLElement).style.display = 'none'; });
-    let last = await page.screenshot({ animations: 'disabled', caret: 'hide' });
-    for (let k = 0; k < 20; k++) {
-      await page.waitForTimeout(250);
-      const next = await page.screenshot({ animations: 'disabled', caret: 'hide' });
-      if (next.equals(last)) break;
-      last = next;
-    }
-    writeFileSync(readmeShotPath('cross-section.png'), last);
-  }
+  if (process.env.STRIPWRIGHT_SCREENSHOTS === '1') await stableReadmeShot(page, 'cross-section.png');
   expect(errors).toEqual([]);
 });
