@@ -48,7 +48,8 @@ Options:
 
 G-code options (defaults suit small desktop routers; X0 Y0 = the board's lower-left corner, Z0 = top of the copper):
   --units mm|inch         G21 (default) or G20
-  --passes N              isolation passes around each copper island (1–10, default 2)
+  --passes N              isolation passes around each copper island (1–10; default: as many as the process's
+                          isolation clearance needs, at most 10, with a warning when it needs more)
   --overlap X             overlap of further passes, fraction of the cut (0.1–0.9, default 0.4)
   --direction climb|conventional   cutting direction with the spindle turning clockwise (default climb)
   --clear                 also remove all copper that is not part of the design (slow with a fine tool)

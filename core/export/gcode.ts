@@ -59,6 +59,11 @@ export function toGcode(plan: MillingPlan, program: ToolProgram, info: GcodeInfo
   c(`Safe height ${Z(o.safeHeight)} ${u}, travel height ${Z(o.travelHeight)} ${u}, spindle ${program.spindleRpm} rpm`);
   c(`Estimated time ${Math.ceil(program.seconds / 60)} min: ${L(program.cutLength)} ${u} cutting, ${L(program.travelLength)} ${u} travel`);
   for (const s of MILLING_CAUTIONS) c(`CAUTION: ${s}`);
+  // What the isolation mills differently from what the design asks (fewer passes than its clearance needs, or a
+  // channel other than the one the lines were sized beside) travels with the file that mills it.
+  if (program.operations.includes('isolation')) {
+    for (const f of plan.findings) if (f.code === 'isolation-passes' || f.code === 'isolation-gap') c(`NOTE: ${f.message}`);
+  }
   lines.push(`G90 G17 ${inch ? 'G20' : 'G21'}`);
   lines.push(`G0 Z${Z(o.safeHeight)}`);
   if (o.toolChange) { c(`Change to tool ${t.number}: ${t.label}`); lines.push(`T${t.number} M6`); lines.push(`G0 Z${Z(o.safeHeight)}`); }

@@ -17,7 +17,7 @@ export type { PieceOutline } from './geometry.ts';
 export { tracePaths, designPaths, pathLength, phaseLength, DEFAULT_PHASE_TOLERANCE_DEG } from './paths.ts';
 export type { PathEntry, PathReport, PathOptions } from './paths.ts';
 export { boardGeometryOf, checkBoard } from './board.ts';
-export { processCut, isolationPlan, isolationClearance, isolationGapOf, passesFor, ISOLATION_OVERLAP, DEFAULT_ISOLATION_CLEARANCE, type IsolationPlan } from './process-cut.ts';
+export { processCut, isolationPlan, isolationClearance, isolationGapOf, passesFor, passesNeeded, MAX_ISOLATION_PASSES, ISOLATION_OVERLAP, DEFAULT_ISOLATION_CLEARANCE, type IsolationPlan } from './process-cut.ts';
 export type { ProcessCut } from './process-cut.ts';
 export { checkFabrication, problemFindings, cutWidth, referenceGroundShiftPct, untoolableCopper, DEFAULT_LOSS_LIMIT_DB } from './checks.ts';
 export type { Finding, FindingCode, CheckOptions } from './checks.ts';

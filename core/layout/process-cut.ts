@@ -13,6 +13,7 @@
  */
 import type { FabProcess } from '../design/types.ts';
 import { exhaustive } from '../util/errors.ts';
+import { warn, type Warning } from '../util/warnings.ts';
 
 /**
  * Fraction of the cut each further isolation pass overlaps the previous one, unless the milling options say
@@ -47,6 +48,16 @@ export function isolationClearance(p: Exclude<FabProcess, { kind: 'etch' }>): nu
   return typeof p.clearance === 'number' && p.clearance > 0 ? p.clearance : DEFAULT_ISOLATION_CLEARANCE;
 }
 
+/**
+ * Most isolation passes a plan mills, the bound of the milling options' `passes` too (core/toolpath/options.ts). Kept,
+ * for two reasons: every pass is one more loop of the cut around every copper island, so milling time grows with the
+ * count while the line's Z0 changes ever less as the side copper moves away (a channel of a few substrate heights is
+ * already close to plain microstrip); and a clearance that needs more is the mark of a cut much narrower than the
+ * clearance, which a wider tool mills in a fraction of the time. Where the clearance asks for more, the plan mills
+ * this many and says so (IsolationPlan.warnings); sizing uses the channel actually milled.
+ */
+export const MAX_ISOLATION_PASSES = 10;
+
 /** How the isolation is milled: passes, stepover and the channel they open beside the copper (m). */
 export interface IsolationPlan {
   passes: number;
@@ -54,6 +65,8 @@ export interface IsolationPlan {
   stepover: number;
   /** Width of the bare channel beside every copper edge, m: cut + (passes − 1) · stepover. */
   gap: number;
+  /** Why the channel is narrower than the clearance asks (more passes than MAX_ISOLATION_PASSES); empty otherwise. */
+  warnings: Warning[];
 }
 
 /** Channel that `passes` isolation passes open: cut + (passes − 1)·stepover (what core/toolpath/isolation.ts mills). */
@@ -61,18 +74,32 @@ export function isolationGapOf(cut: number, passes: number, overlap = ISOLATION_
   return cut + Math.max(0, passes - 1) * cut * (1 - overlap);
 }
 
-/** Passes that reach `clearance` with this cut and overlap (at least one; at most 10, what the planner allows). */
-export function passesFor(cut: number, clearance: number, overlap = ISOLATION_OVERLAP): number {
+/** Passes that reach `clearance` with this cut and overlap (at least one), before the MAX_ISOLATION_PASSES bound. */
+export function passesNeeded(cut: number, clearance: number, overlap = ISOLATION_OVERLAP): number {
   const step = cut * (1 - overlap);
-  const n = 1 + Math.max(0, Math.ceil((clearance - cut - 1e-9) / step)); // 1 nm: a clearance written to 1 nm
-  return Math.min(10, n);
+  return 1 + Math.max(0, Math.ceil((clearance - cut - 1e-9) / step)); // 1 nm: a clearance written to 1 nm
+}
+
+/** Passes that reach `clearance` with this cut and overlap (at least one; at most MAX_ISOLATION_PASSES). */
+export function passesFor(cut: number, clearance: number, overlap = ISOLATION_OVERLAP): number {
+  return Math.min(MAX_ISOLATION_PASSES, passesNeeded(cut, clearance, overlap));
 }
 
 /** The isolation of a milled process; `passes` overrides the count the clearance gives (milling options). */
 export function isolationPlan(p: Exclude<FabProcess, { kind: 'etch' }>, overlap = ISOLATION_OVERLAP, passes?: number): IsolationPlan {
   const cut = cutWidth(p);
-  const n = passes ?? passesFor(cut, isolationClearance(p), overlap);
-  return { passes: n, stepover: cut * (1 - overlap), gap: isolationGapOf(cut, n, overlap) };
+  const clearance = isolationClearance(p);
+  const needed = passesNeeded(cut, clearance, overlap);
+  const n = passes ?? Math.min(MAX_ISOLATION_PASSES, needed);
+  const gap = isolationGapOf(cut, n, overlap);
+  const warnings: Warning[] = [];
+  if (passes === undefined && needed > MAX_ISOLATION_PASSES) {
+    const mm = (m: number) => `${(m * 1e3).toFixed(3)} mm`;
+    warnings.push(warn('fabrication',
+      `the isolation clearance of ${mm(clearance)} needs ${needed} passes of the ${mm(cut)} cut; at most ${MAX_ISOLATION_PASSES} are milled, which open ${mm(gap)} beside the copper, and the lines are sized beside that channel. For the full clearance use a wider cut, or give a clearance of at most ${mm(gap)}.`,
+      { source: 'isolation-passes' }));
+  }
+  return { passes: n, stepover: cut * (1 - overlap), gap, warnings };
 }
 
 export interface ProcessCut {
@@ -84,6 +111,8 @@ export interface ProcessCut {
   passes: number;
   /** Words for notes and file comments, e.g. "V-bit 30°, 0.10 mm tip, 0.080 mm deep". */
   label: string;
+  /** The isolation plan's warnings (a clearance needing more than MAX_ISOLATION_PASSES). */
+  warnings: Warning[];
 }
 
 /** The cut of a milling process: end mill or V-bit; null for etching, which has no tool. */
@@ -95,5 +124,5 @@ export function processCut(p: FabProcess): ProcessCut | null {
   const label = p.kind === 'v-bit'
     ? `V-bit ${p.angleDeg}°, ${mm(p.tipWidth)} mm tip, ${mm(p.depth)} mm deep`
     : `${mm(p.toolDiameter)} mm end mill, ${mm(p.depth)} mm deep`;
-  return { cutWidth: w, isolationGap: iso.gap, passes: iso.passes, label };
+  return { cutWidth: w, isolationGap: iso.gap, passes: iso.passes, label, warnings: iso.warnings };
 }

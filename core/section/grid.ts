@@ -20,6 +20,13 @@ export function gradedAxis(lo: number, hi: number, keys: Key[], growth: number):
   }
   const g = growth - 1;
   const bounds: Key[] = [{ at: lo, size: keys.find((k) => k.at <= lo)?.size ?? span / 4 }, ...merged, { at: hi, size: keys.find((k) => k.at >= hi)?.size ?? span / 4 }];
+  // A key's cell is no larger than the grading from any other key allows (size + g·distance): the cells below are
+  // graded between neighbouring keys only, so a coarse key (an interface, a cover's edge) a little way from a copper
+  // edge would otherwise cut off the fine grading towards that edge on its far side.
+  for (let pass = 0; pass < 2; pass++) {
+    for (let b = 1; b < bounds.length; b++) bounds[b]!.size = Math.min(bounds[b]!.size, bounds[b - 1]!.size + g * (bounds[b]!.at - bounds[b - 1]!.at));
+    for (let b = bounds.length - 2; b >= 0; b--) bounds[b]!.size = Math.min(bounds[b]!.size, bounds[b + 1]!.size + g * (bounds[b + 1]!.at - bounds[b]!.at));
+  }
   const out: number[] = [lo];
   for (let b = 0; b + 1 < bounds.length; b++) {
     const a = bounds[b]!.at, c = bounds[b + 1]!.at, sa = bounds[b]!.size, sc = bounds[b + 1]!.size;

@@ -7,7 +7,11 @@ import type { SectionSpec } from './types.ts';
 
 interface Seg { ax: number; ay: number; bx: number; by: number }
 
-export type Material = (x: number, y: number) => number;
+/**
+ * Relative permittivity at (x, y), NaN in copper. Every point with 0 < y < `below` is plain substrate (`substrate`),
+ * every point above `above` is vacuum (`1`): cells wholly in those bands need no sampling.
+ */
+export type Material = ((x: number, y: number) => number) & { below: number; above: number; substrate: number };
 
 function distToSeg(s: Seg, x: number, y: number): number {
   const dx = s.bx - s.ax, dy = s.by - s.ay;
@@ -54,11 +58,18 @@ export function materialOf(spec: SectionSpec, s: Shapes, tol: number): Material 
   }
   const reach = cover ? cover.thickness : 0;
   const topOfAll = h + spec.t + reach;
-  return (x: number, y: number): number => {
+  const at = (x: number, y: number): number => {
     if (conductorAt(s, x, y, tol) >= 0) return Number.NaN;
     if (y < h && !inTrench(x, y)) return er;
     if (!cover || y > topOfAll) return 1;
-    for (const sg of segs) if (distToSeg(sg, x, y) <= reach) return cover.er;
+    for (const sg of segs) {
+      // Most segments are far from the point: a bounding-box test first spares the distance.
+      if (x < Math.min(sg.ax, sg.bx) - reach || x > Math.max(sg.ax, sg.bx) + reach || y < Math.min(sg.ay, sg.by) - reach || y > Math.max(sg.ay, sg.by) + reach) continue;
+      if (distToSeg(sg, x, y) <= reach) return cover.er;
+    }
     return 1;
   };
+  const deepest = notches.reduce((m, n) => Math.max(m, n.d), 0);
+  // Copper starts at h (bodies stand on the substrate) and ends at h + t; the cover reaches `reach` above anything.
+  return Object.assign(at, { below: h - deepest - tol, above: Math.max(h, topOfAll) + tol, substrate: er });
 }

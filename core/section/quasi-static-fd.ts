@@ -21,13 +21,14 @@
  * Validity: quasi-TEM, i.e. cross-section small against the wavelength (the dispersion of the sized lines is a
  * separate model, see line-source.ts); lossless dielectrics and perfect conductors for C and L.
  */
-import { C0, EPS0 } from '../units/constants.ts';
+import { C0 } from '../units/constants.ts';
 import { warn, type Warning } from '../util/warnings.ts';
 import { checkSection } from './check-spec.ts';
 import { buildShapes, FLOATING, STRIP_1, STRIP_2, type Shapes } from './shapes.ts';
+import { solveConfig, type Config, type ConfigSolve } from './config-solve.ts';
 import { materialOf, type Material } from './materials.ts';
 import { bisect, gradedAxis, mapAxis, type Key } from './grid.ts';
-import { assemble, energy, factor, prolong, solve } from './laplace.ts';
+import { assemblyCache, prolong } from './laplace.ts';
 import type { SectionMode, SectionModeName, SectionResult, SectionSpec, SolveOptions } from './types.ts';
 
 /**
@@ -37,13 +38,14 @@ import type { SectionMode, SectionModeName, SectionResult, SectionSpec, SolveOpt
  */
 export const ORDER = 1.6;
 
-/** Grid parameters at fineness 1 (tuned in test/unit/section-convergence.test.ts and bench/section.bench.ts). */
-export const GRID = { edgeDivisor: 120, edgeDivisorThick: 40, interfaceDivisor: 4, growth: 1.3, thicknessCells: 3 };
+/**
+ * Grid parameters at fineness 1 (tuned in test/unit/section-convergence.test.ts and bench/section.bench.ts): 1.15 times
+ * finer than the first tuning (edge cells W/120 and W/40, interfaces h/4, growth 1.3, three cells across the copper),
+ * so that every milled cross-section of the benchmark, cover included, carries an estimate of at most 0.2 % in Z0.
+ */
+export const GRID = { edgeDivisor: 138, edgeDivisorThick: 46, interfaceDivisor: 4.6, growth: 1.26, thicknessCells: 3.45 };
 
 interface Level { x: Float64Array; y: Float64Array }
-
-/** One solve family: which conductors are excited, where the symmetry plane is, and the factor to the mode's C. */
-interface Config { mode: SectionModeName; ids: number[]; wall: boolean; scale: number }
 
 function isSymmetric(spec: SectionSpec): boolean {
   return !spec.side || (spec.side.sides ?? 'both') === 'both';
@@ -85,53 +87,6 @@ function coarseGrid(spec: SectionSpec, s: Shapes, fineness: number, X: number, Y
   return { x: Float64Array.from(gradedAxis(sym ? 0 : -X, X, keysX, growth)), y: Float64Array.from(gradedAxis(0, Y, keysY, growth)) };
 }
 
-/** Maxwell capacitance matrix (F/m) among `ids` on one grid, and the solutions. */
-function maxwell(x: Float64Array, y: Float64Array, shapes: Shapes, material: Material | null, cfg: Config, guesses: Float64Array[]): { K: number[][]; sols: Float64Array[]; iterations: number } {
-  const g = assemble(x, y, shapes, material, cfg.wall);
-  const f = factor(g);
-  const ids = cfg.ids;
-  const K: number[][] = ids.map(() => ids.map(() => 0));
-  const sols: Float64Array[] = [];
-  let iterations = 0;
-  ids.forEach((id, a) => {
-    const volts = new Float64Array(4);
-    volts[id] = 1;
-    const { v, iterations: it } = solve(f, volts, guesses[a]);
-    iterations += it;
-    sols.push(v);
-  });
-  // The energy form, not the charge sum: second-order in the iteration error (laplace.ts energy), symmetric as is.
-  for (let a = 0; a < ids.length; a++) for (let b = a; b < ids.length; b++) {
-    const k = energy(g, sols[a]!, sols[b]!) * EPS0; K[a]![b] = k; K[b]![a] = k;
-  }
-  return { K, sols, iterations };
-}
-
-/** The mode's capacitance from its Maxwell matrix (floating copper eliminated), and the weights of the solutions
- * that make up its potential. */
-function modal(K: number[][], cfg: Config): { c: number; weights: number[] } {
-  const ids = cfg.ids;
-  const fi = ids.indexOf(FLOATING);
-  const strips = ids.map((id, k) => (id === FLOATING ? -1 : k)).filter((k) => k >= 0);
-  const weights = ids.map(() => 0);
-  let u: number[];
-  if (cfg.mode !== 'single' || strips.length === 1) u = [1];
-  else u = [1, 0]; // unsymmetric pair: strip 1 at 1 V, strip 2 at 0 (see modesFromMatrix)
-  strips.forEach((k, n) => { weights[k] = u[n] ?? 0; });
-  if (fi >= 0) weights[fi] = -strips.reduce((acc, k) => acc + K[fi]![k]! * weights[k]!, 0) / K[fi]![fi]!;
-  let q = 0;
-  for (let b = 0; b < ids.length; b++) q += K[strips[0]!]![b]! * weights[b]!;
-  return { c: cfg.scale * q, weights };
-}
-
-/** Unsymmetric cross-sections with two strips: even and odd capacitances of strip 1 from the reduced matrix. */
-function pairFromMatrix(K: number[][], ids: number[]): { even: number; odd: number } {
-  const fi = ids.indexOf(FLOATING);
-  const red = (a: number, b: number) => K[a]![b]! - (fi >= 0 ? (K[a]![fi]! * K[fi]![b]!) / K[fi]![fi]! : 0);
-  const c11 = red(0, 0), c12 = red(0, 1);
-  return { even: c11 + c12, odd: c11 - c12 };
-}
-
 /** Richardson extrapolation of a coarse/fine pair, and the estimated error of the result (relative). */
 function richardson(coarse: number, fine: number, order: number): { value: number; rel: number } {
   const d = (fine - coarse) / (2 ** order - 1);
@@ -164,32 +119,31 @@ export function solveSection(spec: SectionSpec, opts: SolveOptions = {}): Sectio
     ? [{ mode: 'even', c: [], ca: [] }, { mode: 'odd', c: [], ca: [] }]
     : configs.map((c) => ({ mode: c.mode, c: [], ca: [] }));
   let potential: Float64Array | null = null;
-  const vacuumK: number[][][] = [];
-  const vacuumSols: Float64Array[][] = [];
+  const vacuum: ConfigSolve[] = [];
+  const caches = grids.map(() => assemblyCache());
   configs.forEach((cfg, ci) => {
-    let prevD: Float64Array[] = [], prevA: Float64Array[] = [];
+    let prevD: ConfigSolve | null = null, prevA: ConfigSolve | null = null;
     grids.forEach((lv, l) => {
-      const guess = (sols: Float64Array[]) => (l ? sols.map((v) => prolong(v, grids[l - 1]!.x.length, grids[l - 1]!.y.length)) : []);
-      const d = maxwell(lv.x, lv.y, shapes, material, cfg, guess(prevD));
+      const up = (prev: ConfigSolve | null) => (prev && l ? prev.sols.map((v) => prolong(v, grids[l - 1]!.x.length, grids[l - 1]!.y.length)) : []);
+      // Floating copper: per conductor on the coarse grid, then in one solve at the potential found there.
+      const d = solveConfig(lv.x, lv.y, shapes, material, cfg, up(prevD), prevD?.weights ?? [], pairNoSym, l ? prevD?.hint : undefined, caches[l]);
       // The vacuum solve starts from the dielectric one on the coarse grid (same conductors and potentials: a closer
       // start than zero), from its own coarse solution on the finer grid.
-      const a = maxwell(lv.x, lv.y, shapes, null, cfg, l ? guess(prevA) : d.sols);
+      const a = l
+        ? solveConfig(lv.x, lv.y, shapes, null, cfg, up(prevA), prevA?.weights ?? [], pairNoSym, prevA?.hint, caches[l])
+        : solveConfig(lv.x, lv.y, shapes, null, cfg, d.sols, d.weights, pairNoSym, undefined, caches[l]);
       iterations += d.iterations + a.iterations;
-      prevD = d.sols; prevA = a.sols;
+      prevD = d; prevA = a;
       if (pairNoSym) {
-        const pd = pairFromMatrix(d.K, cfg.ids), pa = pairFromMatrix(a.K, cfg.ids);
-        values[0]!.c.push(pd.even); values[0]!.ca.push(pa.even); values[1]!.c.push(pd.odd); values[1]!.ca.push(pa.odd);
+        values[0]!.c.push(d.pair!.even); values[0]!.ca.push(a.pair!.even); values[1]!.c.push(d.pair!.odd); values[1]!.ca.push(a.pair!.odd);
       } else {
-        values[ci]!.c.push(modal(d.K, cfg).c); values[ci]!.ca.push(modal(a.K, cfg).c);
+        values[ci]!.c.push(d.c); values[ci]!.ca.push(a.c);
       }
       if (l === levels - 1) {
-        vacuumK.push(a.K);
-        vacuumSols.push(a.sols);
+        vacuum.push(a);
         if (ci === 0 && opts.potential) {
-          const w = pairNoSym ? [1, 1, ...(cfg.ids.length > 2 ? [0] : [])] : modal(d.K, cfg).weights;
-          if (pairNoSym && cfg.ids.length > 2) { const fi = 2; w[fi] = -(d.K[fi]![0]! + d.K[fi]![1]!) / d.K[fi]![fi]!; }
           const v = new Float64Array(lv.x.length * lv.y.length);
-          d.sols.forEach((sol, k) => { const wk = w[k]!; if (wk) for (let i = 0; i < v.length; i++) v[i] += wk * sol[i]!; });
+          d.sols.forEach((sol, k) => { const wk = d.weights[k]!; if (wk) for (let i = 0; i < v.length; i++) v[i] += wk * sol[i]!; });
           potential = v;
         }
       }
@@ -200,7 +154,7 @@ export function solveSection(spec: SectionSpec, opts: SolveOptions = {}): Sectio
   const order = ORDER;
   const wantLoss = opts.loss ?? spec.t > 0;
   let dLdn = values.map(() => 0);
-  if (wantLoss && spec.t > 0) dLdn = wheelerDerivative(spec, shapes, grids[grids.length - 1]!, configs, vacuumK, vacuumSols, X, pairNoSym);
+  if (wantLoss && spec.t > 0) dLdn = wheelerDerivative(spec, shapes, grids[grids.length - 1]!, configs, vacuum, X, pairNoSym);
   if (wantLoss && spec.t === 0) warnings.push(warn('validity', "Wheeler's incremental-inductance rule needs copper thickness above 0 (a thin sheet's edges have unbounded loss in it); no conductor loss is given.", { source: 'wheeler-1942', severity: 'info' }));
 
   const modes: SectionMode[] = values.map((mv, k) => {
@@ -235,7 +189,7 @@ export function solveSection(spec: SectionSpec, opts: SolveOptions = {}): Sectio
  * ∂L/∂n per mode, H/m per m, on the finest grid: the vacuum solve of the cross-section with every conductor surface
  * receded by δ, on the same grid with its conductor key lines moved along (so the difference is smooth in δ).
  */
-function wheelerDerivative(spec: SectionSpec, base: Shapes, lv: Level, configs: Config[], vacuumK: number[][][], vacuumSols: Float64Array[][], X: number, pairNoSym: boolean): number[] {
+function wheelerDerivative(spec: SectionSpec, base: Shapes, lv: Level, configs: Config[], vacuum: ConfigSolve[], X: number, pairNoSym: boolean): number[] {
   const delta = Math.min(spec.t / 20, base.feature / 200);
   const rec = buildShapes(spec, delta, X);
   const lo = lv.x[0]!;
@@ -254,12 +208,13 @@ function wheelerDerivative(spec: SectionSpec, base: Shapes, lv: Level, configs: 
   const L = (c: number) => 1 / (C0 * C0 * c);
   const out: number[] = [];
   configs.forEach((cfg, ci) => {
-    const m = maxwell(x, y, rec, null, cfg, vacuumSols[ci]!); // the unreceded solution is a close start
+    const base0 = vacuum[ci]!;
+    // The unreceded solution is a close start; floating copper in one solve at its unreceded potential.
+    const m = solveConfig(x, y, rec, null, cfg, base0.sols, base0.weights, pairNoSym, base0.hint);
     if (pairNoSym) {
-      const p0 = pairFromMatrix(vacuumK[ci]!, cfg.ids), p1 = pairFromMatrix(m.K, cfg.ids);
-      out.push((L(p1.even) - L(p0.even)) / delta, (L(p1.odd) - L(p0.odd)) / delta);
+      out.push((L(m.pair!.even) - L(base0.pair!.even)) / delta, (L(m.pair!.odd) - L(base0.pair!.odd)) / delta);
     } else {
-      out.push((L(modal(m.K, cfg).c) - L(modal(vacuumK[ci]!, cfg).c)) / delta);
+      out.push((L(m.c) - L(base0.c)) / delta);
     }
   });
   return out;

@@ -111,6 +111,17 @@ export function buildShapes(spec: SectionSpec, recede = 0, wideEdge = Infinity):
     }
     const c = spec.cover;
     if (c && c.thickness > 0) {
+      // The cover also lines the trenches: its inner faces there are interfaces too (an unkeyed interface cuts cells
+      // at a place that moves with refinement, and the convergence study saw C's level-to-level change grow).
+      if (tr && tr.depth > 0) {
+        const half = tr.angleDeg === undefined ? 0 : Math.tan(((tr.angleDeg / 2) * Math.PI) / 180);
+        for (const g of gaps) {
+          const d = trenchDepth(g, tr.depth, half);
+          if (c.thickness >= d) continue;
+          keysY.push({ at: h - d + c.thickness, edge: false });
+          if (half === 0 && 2 * c.thickness < g.x1 - g.x0) keysX.push({ at: g.x0 + c.thickness, edge: false }, { at: g.x1 - c.thickness, edge: false });
+        }
+      }
       keysY.push({ at: h + c.thickness, edge: false });
       if (tt > 0) keysY.push({ at: h + tt + c.thickness, edge: false });
       for (const b of bodies) {

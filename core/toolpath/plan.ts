@@ -80,7 +80,14 @@ export function planMilling(sized: SizedDesign, g: BoardGeometry, given: Partial
   // Passes come from the process's isolation clearance (the channel as-made sizing assumed) unless asked for.
   const sizedFor = isolationPlan(proc);
   if (given.passes === undefined) o.passes = isolationPlan(proc, o.overlap).passes;
-  const isolationNote = isolationGapFinding(sized, sizedFor.gap, isolationGapOf(tool.cutWidth, o.passes, o.overlap), o.passes);
+  const isolationNote = [
+    ...isolationGapFinding(sized, sizedFor.gap, isolationGapOf(tool.cutWidth, o.passes, o.overlap), o.passes),
+    // The clearance asks for more passes than are milled (MAX_ISOLATION_PASSES): said with the plan, not silently.
+    ...(given.passes === undefined ? isolationPlan(proc, o.overlap).warnings.map((w): MillFinding => ({
+      severity: 'warning', code: 'isolation-passes', subjects: [], message: w.message,
+      fix: 'use a wider cut (a larger tool, or a deeper V-bit cut), or set the isolation clearance to the channel milled',
+    })) : []),
+  ];
   const { h, t } = sized.doc.substrate;
   // Thin laminates: unless asked for, a tab keeps half the board (the default 0.6 mm is for 1.6 mm boards).
   if (given.tabHeight === undefined) o.tabHeight = Math.max(0.1e-3, Math.min(o.tabHeight, 0.5 * (h + t)));

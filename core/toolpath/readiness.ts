@@ -9,7 +9,7 @@ import type { Vec2 } from '../geometry/types.ts';
 import type { MillingOptions } from './options.ts';
 import type { ToolProgram, Vec3 } from './types.ts';
 
-export type MillFindingCode = 'narrow-gap' | 'joined' | 'destroyed' | 'split' | 'leftover' | 'work-area' | 'depth' | 'isolation-gap';
+export type MillFindingCode = 'narrow-gap' | 'joined' | 'destroyed' | 'split' | 'leftover' | 'work-area' | 'depth' | 'isolation-gap' | 'isolation-passes';
 
 export interface MillFinding {
   severity: 'error' | 'warning' | 'info';

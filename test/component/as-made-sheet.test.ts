@@ -5,7 +5,7 @@
  * formulas and every field solution agree on the direction; the numbers themselves come from the sizing run inline.
  */
 import { describe, expect, it, vi } from 'vitest';
-import { render, screen } from '@testing-library/svelte';
+import { render, screen, waitFor } from '@testing-library/svelte';
 import { editorOn, sized } from './harness.ts';
 import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
 import PieceSheet from '../../renderer/src/components/PieceSheet.svelte';
@@ -49,5 +49,15 @@ describe('piece sheet of a line sized as made', () => {
     expect((screen.getByTestId('field-sizing') as HTMLSelectElement).value).toBe('as-made');
     // The default 30° V-bit (0.127 mm cut) reaches its 0.7 mm clearance in 1 + ⌈(0.7 − 0.127)/(0.6 · 0.127)⌉ = 9 passes.
     expect(screen.getByTestId('clearance-passes').textContent).toMatch(/^9 isolation passes open 0\.735 mm/);
+    expect(screen.queryByTestId('clearance-warning')).toBeNull();
+  });
+  it('a clearance that needs more passes than are milled is said under the field (ten open 0.811 mm)', async () => {
+    const ed = new EditorState();
+    // 2 mm with the default V-bit's 0.127 mm cut: 1 + ⌈(2 − 0.127)/(0.6 · 0.127)⌉ = 26 passes needed; ten open
+    // 0.1268 + 9 · 0.6 · 0.1268 = 0.811 mm (the pass arithmetic of core/layout/process-cut.ts, by hand).
+    ed.setProcess({ ...(ed.doc.process as Extract<typeof ed.doc.process, { kind: 'v-bit' }>), clearance: 2e-3 });
+    render(StackPanel, { editor: ed });
+    await waitFor(() => expect(screen.getByTestId('clearance-passes').textContent).toMatch(/^10 isolation passes open 0\.811 mm/));
+    expect(screen.getByTestId('clearance-warning').textContent).toMatch(/needs 26 passes .* at most 10 are milled/);
   });
 });

@@ -9,7 +9,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import DxfParser from 'dxf-parser';
 import { readFileSync } from 'node:fs';
-import { readmeShot } from './readme-shots.ts';
+import { stableReadmeShot } from './readme-shots.ts';
 
 let actions = 0;
 const act = async (what: Promise<unknown>): Promise<void> => { actions++; await what; };
@@ -30,7 +30,7 @@ test('a four-output 2.45 GHz feed as a block, checked and exported, in ten actio
   await expect(page.getByTestId('block-outputs')).toHaveValue('4');
   const preview = page.getByTestId('block-preview-response');
   await expect(preview).toContainText('out4', { timeout: 30_000 });
-  await readmeShot(page, 'block-picker.png');
+  await stableReadmeShot(page, 'block-picker.png');
   await act(page.getByTestId('block-place').click());       // 4: place
   await expect(page.getByTestId('block-picker')).toHaveCount(0);
   await expect(page.getByTestId('status')).toContainText('Placed: 4-way corporate feed');
@@ -48,7 +48,7 @@ test('a four-output 2.45 GHz feed as a block, checked and exported, in ten actio
   expect(through.length).toBeGreaterThan(0);
   // −6.02 dB ideal (equal four-way split) less FR-4's line loss at 2.45 GHz (about 1 dB here): between −8 and −6 dB.
   for (const l of through) expect(l.db).toBeGreaterThan(-8), expect(l.db).toBeLessThan(-6);
-  await readmeShot(page, 'block-feed.png');
+  await stableReadmeShot(page, 'block-feed.png');
   await chord(page, 'Control+e');                           // 7: outputs
   await expect(page.getByTestId('export-preview').locator('img')).toBeVisible({ timeout: 60_000 });
   const download = page.waitForEvent('download');

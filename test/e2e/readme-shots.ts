@@ -3,7 +3,7 @@
  * docs/screenshots/ only by `npm run screenshots` (scripts/screenshots.ts sets STRIPWRIGHT_SCREENSHOTS=1). An
  * ordinary test run writes them under test-results/ (ignored by git), so `npm test` leaves the tree clean.
  */
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from '@playwright/test';
 
@@ -21,4 +21,22 @@ export function readmeShotPath(name: string): string {
   const dir = folder();
   mkdirSync(dir, { recursive: true });
   return join(dir, name);
+}
+
+/**
+ * A README picture that is the same bytes on every run: the status bar's layout time (which differs run to run) is
+ * hidden, and the page is taken once two screenshots in a row agree (at most 20 tries, 250 ms apart), so a frame half
+ * drawn or a chart still settling is never kept.
+ */
+export async function stableReadmeShot(page: Page, name: string): Promise<void> {
+  const layoutMs = page.getByTestId('layout-ms');
+  if (await layoutMs.count()) await layoutMs.evaluate((e) => { (e as HTMLElement).style.display = 'none'; });
+  let last = await page.screenshot({ animations: 'disabled', caret: 'hide' });
+  for (let k = 0; k < 20; k++) {
+    await page.waitForTimeout(250);
+    const next = await page.screenshot({ animations: 'disabled', caret: 'hide' });
+    if (next.equals(last)) break;
+    last = next;
+  }
+  writeFileSync(readmeShotPath(name), last);
 }

@@ -11,6 +11,11 @@ import { solveSection, SECTION_ORDER, type SectionSpec } from '../../core/index.
 const CASES: [string, SectionSpec][] = [
   ['plain microstrip, thin sheet', { er: 4.4, h: 1e-3, width: 1e-3, t: 0 }],
   ['milled line: thick copper, stitched side copper, V trench', { er: 3.66, h: 0.508e-3, width: 1.1e-3, t: 35e-6, side: { gap: 0.4e-3, width: Infinity, connection: 'stitched' }, trench: { depth: 0.1e-3, angleDeg: 60 } }],
+  // Floating copper is solved per conductor on the coarse grid and in one solve on the finer ones (config-solve.ts):
+  // the study holds that path to the same order and the same honest estimate.
+  ['one V-bit pass, floating side copper', { er: 4.4, h: 1.6e-3, width: 2.6e-3, t: 35e-6, etchAngleDeg: 75, side: { gap: 0.11e-3, width: Infinity, connection: 'floating' }, trench: { depth: 15e-6, angleDeg: 30 } }],
+  // A cover's edges are coarse grid keys a cover thickness from the copper's edges (grid.ts carries the grading on).
+  ['end-milled line under a 25 µm cover', { er: 3.66, h: 0.508e-3, width: 1.0e-3, t: 35e-6, side: { gap: 0.4e-3, width: Infinity, connection: 'stitched' }, trench: { depth: 45e-6 }, cover: { er: 3.5, thickness: 25e-6 } }],
 ];
 
 describe('section solver convergence study', () => {
@@ -23,14 +28,18 @@ describe('section solver convergence study', () => {
         expect(d1).toBeGreaterThan(0);
         expect(d2).toBeGreaterThan(0);
         const p = Math.log2(d1 / d2);
+        // An observed order below ORDER would make the estimate understate the error: that bound is the one honesty
+        // needs. Above it (V-bit gaps converge at 2–2.5 on these grids) the estimate overstates it; the upper bound
+        // only catches a series that is not converging steadily at all.
         expect(p).toBeGreaterThan(SECTION_ORDER - 0.4);
-        expect(p).toBeLessThan(SECTION_ORDER + 0.6);
+        expect(p).toBeLessThan(SECTION_ORDER + 1);
       }
       const two = solveSection(spec, { levels: 2, loss: false }).modes[0]!;
-      // The three-level result is the better one; the two-level result's own estimate must cover the gap to it.
+      // The three-level result is the better one (every cell quartered); the two-level result's own estimate must
+      // cover the distance to it and that result's own remaining error.
       const gap = Math.abs(two.z0 / three.z0 - 1);
-      expect(gap).toBeLessThan(Math.max(2 * two.error.z0, 5e-4));
-      expect(three.error.z0).toBeLessThan(two.error.z0);
+      expect(gap + three.error.z0).toBeLessThan(two.error.z0);
+      expect(Math.abs(two.epsEff / three.epsEff - 1) + three.error.epsEff).toBeLessThan(Math.max(two.error.epsEff, 2e-4));
     });
   }
 });

@@ -8,7 +8,7 @@ import fc from 'fast-check';
 import {
   InputError, initPolygons, resolveMillingOptions, MILLING_DEFAULTS, cutWidth, isolationPaths, ringArea, orderItems, tourLength,
   drillMoves, cutoutMoves, exportGcode, planDesignMilling, estimateProgram, PROCESS_DEFAULT, parseQuantity, sweptArea, regionsArea,
-  isolationPlan, asMadeOf, asMadeTemplate, type FabProcess, type Region, type ToolProgram,
+  isolationPlan, MAX_ISOLATION_PASSES, asMadeOf, asMadeTemplate, type FabProcess, type Region, type ToolProgram,
 } from '../../core/index.ts';
 import { twoStrips } from './toolpath-fixtures.ts';
 
@@ -104,6 +104,30 @@ describe('toolpaths from geometry', () => {
     expect(asked?.severity).toBe('warning');
     expect(asked?.message).toMatch(/0\.320 mm .* 1\.040 mm/);
     expect(planDesignMilling(doc).plan.findings.some((f) => f.code === 'isolation-gap')).toBe(false);
+  });
+  it('a clearance that needs more than the most passes milled: ten are milled, and the plan, its findings and the G-code header say so', () => {
+    // 0.2 mm end mill, 2 mm clearance: stepover 0.12 mm, 1 + ⌈(2 − 0.2)/0.12⌉ = 16 passes needed; ten open
+    // 0.2 + 9·0.12 = 1.28 mm (plain arithmetic of the pass offsets, as in the test above).
+    const proc = { kind: 'end-mill', toolDiameter: 0.2e-3, depth: 0.1e-3, clearance: 2e-3 } as const;
+    const iso = isolationPlan(proc);
+    expect(iso.passes).toBe(MAX_ISOLATION_PASSES);
+    expect(iso.gap).toBeCloseTo(1.28e-3, 12);
+    expect(iso.warnings).toHaveLength(1);
+    expect(iso.warnings[0]!.message).toMatch(/2\.000 mm needs 16 passes .* 1\.280 mm beside the copper/);
+    // Exactly at the bound (0.2 + 9·0.12 = 1.28 mm asks for ten) and passes given by the user: no warning.
+    expect(isolationPlan({ ...proc, clearance: 1.28e-3 }).warnings).toEqual([]);
+    expect(isolationPlan({ ...proc, clearance: 1.28e-3 }).passes).toBe(10);
+    expect(isolationPlan(proc, undefined, 3).warnings).toEqual([]);
+    // Sizing sees the channel milled, and the plan and the isolation tool's G-code carry the warning.
+    const doc = { ...twoStrips(2e-3, 3e-3, 4e-3, proc), asMade: { sizing: 'as-made', sideCopper: 'stitched' } as const };
+    expect(asMadeTemplate(doc)!.side!.gap).toBeCloseTo(iso.gap, 12);
+    const g = exportGcode(doc, {}, INFO);
+    const f = g.plan.findings.find((x) => x.code === 'isolation-passes');
+    expect(f?.severity).toBe('warning');
+    const iso1 = g.files.find((x) => /isolation/.test(x.text.split('\n').slice(0, 4).join(' ')))!;
+    expect(iso1.text).toMatch(/\(NOTE: the isolation clearance of 2\.000 mm needs 16 passes/);
+    // With the passes given, the planner mills them and warns of the other channel instead (isolation-gap).
+    expect(planDesignMilling(doc, { passes: 10 }).plan.findings.some((x) => x.code === 'isolation-passes')).toBe(false);
   });
   it('climb runs around an island counter-clockwise (copper on the left with an M3 spindle); conventional the other way', () => {
     const climb = isolationPaths([strip], board, 0.2e-3, 0.1e-3, resolveMillingOptions({ passes: 1 }));
