@@ -105,7 +105,7 @@ function printEdit(e: EditLatency): void {
   const row = (xs: number[]) => (xs.length ? `median ${median(xs).toFixed(1)} ms, p90 ${pct(xs, 0.9).toFixed(1)} ms` : 'never');
   const miss = (n: number) => (n ? ` (${n} of ${e.moves} moves never shown)` : '');
   console.log(`edit to screen, ${e.moves} pointer moves one per animation frame with the Response tab open (${e.draws.coarse} coarse and ${e.draws.full} full response draws):`);
-  console.log(`  pointer move → copper redrawn:            ${row(e.copper)} (target < 16.7 ms)${miss(e.missing.copper)}`);
+  console.log(`  pointer move → copper redrawn:            ${row(e.copper)} (target < 16.7 ms)${miss(e.missing.copper)}; ${e.ownCopper} of ${e.moves} moves showed their own revision's copper first, the rest a later move's`);
   console.log(`  pointer move → first response drawn:      ${row(e.first)}${miss(e.missing.first)}`);
   console.log(`  pointer move → ${e.fullPoints}-point response drawn:  ${row(e.full)} (target < 150 ms)${miss(e.missing.full)}`);
   const cpu = (ms: number | null) => (ms === null ? 'n/a' : `${ms.toFixed(0)} ms`);

@@ -18,6 +18,7 @@ import { sizeWithEnds, type SizeOptions } from './sizing.ts';
 import { sizeEndsMemo, type EndMemo } from './sizing/end-memo.ts';
 import { nodeOutline, outlineSite, pieceOutline, type PieceOutline } from './geometry.ts';
 import type { SizedDesign, SizedNode, SizedPiece } from './types.ts';
+import type { LineCache } from './lineCache.ts';
 
 /** How far apart two nodes' moves may be and still count as one rigid move, m (rounding of the placement sums). */
 const RIGID_TOL = 1e-12;
@@ -37,6 +38,8 @@ export interface LiveLayout {
 interface LiveMemo {
   /** Board-wide inputs the memo is valid for (the options object, and the document's board-wide figures). */
   global: { opts: SizeOptions; key: string };
+  /** The line cache sizing used (kept for the next layout when `opts` brings none). */
+  cache: LineCache;
   ends: EndMemo;
   /** Nodes whose ends were replayed unchanged in this layout. */
   replayed: Set<string>;
@@ -49,7 +52,8 @@ function globalKey(doc: DesignDoc): string {
 
 /**
  * The live layout of `doc`, reusing `prev` (the live layout of an earlier revision of the same design, or null).
- * `opts` must be the same object on every call for the memo to be kept (a face keeps one, with its line cache).
+ * `opts` must be the same object on every call for the memo to be kept (a face keeps one constant). Without a line
+ * cache in `opts`, the one of `prev` is used again where it fits (sizing makes a new one where it does not).
  */
 export function liveLayout(prev: LiveLayout | null, doc: DesignDoc, opts: SizeOptions = {}): LiveLayout {
   const key = globalKey(doc);
@@ -57,14 +61,16 @@ export function liveLayout(prev: LiveLayout | null, doc: DesignDoc, opts: SizeOp
   const ends: EndMemo = new Map();
   const replayed = new Set<string>();
   let handled = 0;
-  const sized = sizeWithEnds(doc, opts, (ctx, adj, byId) => {
+  let cache: LineCache | null = null;
+  const sized = sizeWithEnds(doc, opts.cache || !prev ? opts : { ...opts, cache: prev.memo.cache }, (ctx, adj, byId) => {
+    cache = ctx.cache;
     const r = sizeEndsMemo(ctx, adj, byId, usable?.memo.ends ?? new Map(), ends);
     handled = r.handled;
     for (const [id, e] of ends) if (usable?.memo.ends.get(id)?.effect === e.effect) replayed.add(id);
     return r.nodes;
   });
   const copper = liveOutlines(usable, sized, replayed);
-  return { sized, ...copper, redone: { ends: handled, ...copper.redone }, memo: { global: { opts, key }, ends, replayed } };
+  return { sized, ...copper, redone: { ends: handled, ...copper.redone }, memo: { global: { opts, key }, cache: cache!, ends, replayed } };
 }
 
 /** Each outline reused, translated or drawn afresh (see the file comment). */
@@ -105,7 +111,7 @@ function liveOutlines(prev: LiveLayout | null, sized: SizedDesign, replayed: Set
 }
 
 function count(r: { drawn: number; moved: number; kept: number }, o: PieceOutline | undefined, by: Vec2 | undefined): void {
-  if (!o || !by) r.drawn++;
+  if (!by) r.drawn++;
   else if (isZero(by)) r.kept++;
   else r.moved++;
 }

@@ -5,13 +5,14 @@
  * which follow from the spec and the board-wide figures) and the drawn positions of those pieces' far ends (their
  * directions). That is the node's key. Its effects are: fields of its sized node, compensations appended to the
  * pieces, sums added to the pieces' end totals (`cut`, `pads`, `arcExtra`, `straightNeed`, `teeReserve`), and
- * problems and warnings appended to the context. A node whose key is unchanged replays its recorded effects in the
+ * problems and warnings appended to the context. A node whose key is unchanged (endKey) replays its recorded effects in the
  * same node order, with the same operands added in the same order, so the totals come out bit for bit as a full run
  * gives them (test/unit/layout-incremental.test.ts checks this on random drags).
  *
  * The handlers only ever add to the end totals (`w.cut += x`), never read them: the recording view of a piece
  * reads them as 0, so each recorded operand is exactly the x the handler added.
  */
+import type { DesignSegment } from '../../design/types.ts';
 import type { SizedNode } from '../types.ts';
 import type { Compensation, LayoutProblem } from '../types.ts';
 import type { Warning } from '../../util/warnings.ts';
@@ -37,17 +38,29 @@ export interface EndEffect {
 }
 
 /** The recorded effects of every node by id, with the key each was recorded under. */
-export type EndMemo = Map<string, { key: string; effect: EndEffect }>;
+export type EndMemo = Map<string, { key: unknown[]; effect: EndEffect }>;
 
-/** A node's key: the node, and per piece meeting it (in order) its spec and the drawn position of its far end. */
-export function endKey(ctx: SizingContext, nodeIndex: number, ids: string[], specs: Map<string, unknown>): string {
+/**
+ * A node's key: the node record, and per piece meeting it (in order) the piece's record and the record of its far
+ * node (whose drawn position gives the direction). Design documents are immutable values (every edit makes new
+ * records for what it changes and keeps the others: core/design/commands.ts, History), so the very same records
+ * mean the very same inputs; comparing them by identity costs nothing, where writing them out cost more than the
+ * handlers it saves. A record made anew with equal contents is handled afresh (correct, only slower).
+ */
+export function endKey(ctx: SizingContext, nodeIndex: number, ids: string[], specs: Map<string, DesignSegment>): unknown[] {
   const n = ctx.doc.nodes[nodeIndex]!;
-  const parts: unknown[] = [n];
+  const key: unknown[] = [n];
   for (const id of ids) {
-    const s = specs.get(id) as { a: string; b: string } | undefined;
-    parts.push(s ?? id, s ? ctx.nodeById.get(other(s as never, n.id))?.at ?? null : null);
+    const s = specs.get(id);
+    key.push(s, s ? ctx.nodeById.get(other(s, n.id)) : undefined);
   }
-  return JSON.stringify(parts);
+  return key;
+}
+
+function sameKey(a: unknown[], b: unknown[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
 }
 
 /**
@@ -55,13 +68,13 @@ export function endKey(ctx: SizingContext, nodeIndex: number, ids: string[], spe
  * unchanged and recording the others into `next`. Returns the sized nodes and how many nodes were handled afresh.
  */
 export function sizeEndsMemo(ctx: SizingContext, adj: Adjacency, byId: Map<string, Work>, memo: EndMemo, next: EndMemo): { nodes: SizedNode[]; handled: number } {
-  const specs = new Map<string, unknown>(ctx.segments.map((s) => [s.id, s]));
+  const specs = new Map<string, DesignSegment>(ctx.segments.map((s) => [s.id, s]));
   let handled = 0;
   const nodes = ctx.doc.nodes.map((n, i) => {
     const ids = adj.get(n.id)!;
     const key = endKey(ctx, i, ids, specs);
     const was = memo.get(n.id);
-    const effect = was && was.key === key ? was.effect : (handled++, record(ctx, i, ids, byId));
+    const effect = was && sameKey(was.key, key) ? was.effect : (handled++, record(ctx, i, ids, byId));
     next.set(n.id, { key, effect });
     return replay(ctx, effect, byId);
   });
@@ -101,8 +114,8 @@ function record(ctx: SizingContext, i: number, ids: string[], byId: Map<string, 
 function replay(ctx: SizingContext, e: EndEffect, byId: Map<string, Work>): SizedNode {
   for (const s of e.sums) byId.get(s.piece)![s.field] += s.value;
   for (const c of e.comps) byId.get(c.piece)!.piece.compensations.push(...c.list);
-  ctx.problems.push(...e.problems);
-  ctx.warnings.push(...e.warnings);
+  if (e.problems.length) ctx.problems.push(...e.problems);
+  if (e.warnings.length) ctx.warnings.push(...e.warnings);
   // Keys in sizeEnds' order (id, kind, at, pos, segments, warnings, then what the handler added).
   const { id, kind, at, segments, warnings, ...added } = e.node;
   return { id, kind, at, pos: { x: NaN, y: NaN }, segments: segments.slice(), warnings: warnings.slice(), ...added };
