@@ -24,15 +24,12 @@ import type { LineCache } from './lineCache.ts';
 const RIGID_TOL = 1e-12;
 
 /** A live layout, carrying what the next one reuses. */
-export interface LiveLayout {
-  sized: SizedDesign;
+export interface LiveLayout extends LiveSizing {
   /** Each piece's and node's own copper, in pieceOutlines' order. */
   outlines: PieceOutline[];
   drills: DrillHit[];
   /** What this layout redid: nodes whose ends were handled afresh, outlines drawn afresh, moved, kept. */
   redone: { ends: number; drawn: number; moved: number; kept: number };
-  /** The reuse state (not for display). */
-  readonly memo: LiveMemo;
 }
 
 interface LiveMemo {
@@ -50,12 +47,24 @@ function globalKey(doc: DesignDoc): string {
   return JSON.stringify([doc.frequency, doc.substrate, doc.junctions ?? null, doc.asMade ?? null, doc.process ?? null]);
 }
 
+/** Sizing alone, memoised per node: what the live layout and a sweep of a dragged design share. */
+export interface LiveSizing {
+  /** Bit for bit sizeDesign(doc, opts). */
+  sized: SizedDesign;
+  /** Nodes whose ends were handled afresh (the rest were replayed). */
+  ends: number;
+  /** Whether the memo of the previous sizing was used (false after a board-wide change). */
+  reused: boolean;
+  /** The reuse state (not for display). */
+  readonly memo: LiveMemo;
+}
+
 /**
- * The live layout of `doc`, reusing `prev` (the live layout of an earlier revision of the same design, or null).
- * `opts` must be the same object on every call for the memo to be kept (a face keeps one constant). Without a line
- * cache in `opts`, the one of `prev` is used again where it fits (sizing makes a new one where it does not).
+ * `doc` sized as sizeDesign sizes it, reusing `prev` (an earlier sizing of the same design, or null). `opts` must be
+ * the same object on every call for the memo to be kept (a face keeps one constant). Without a line cache in
+ * `opts`, the one of `prev` is used again where it fits (sizing makes a new one where it does not).
  */
-export function liveLayout(prev: LiveLayout | null, doc: DesignDoc, opts: SizeOptions = {}): LiveLayout {
+export function liveSizing(prev: LiveSizing | null, doc: DesignDoc, opts: SizeOptions = {}): LiveSizing {
   const key = globalKey(doc);
   const usable = prev && prev.memo.global.opts === opts && prev.memo.global.key === key ? prev : null;
   const ends: EndMemo = new Map();
@@ -69,8 +78,14 @@ export function liveLayout(prev: LiveLayout | null, doc: DesignDoc, opts: SizeOp
     for (const [id, e] of ends) if (usable?.memo.ends.get(id)?.effect === e.effect) replayed.add(id);
     return r.nodes;
   });
-  const copper = liveOutlines(usable, sized, replayed);
-  return { sized, ...copper, redone: { ends: handled, ...copper.redone }, memo: { global: { opts, key }, cache: cache!, ends, replayed } };
+  return { sized, ends: handled, reused: usable !== null, memo: { global: { opts, key }, cache: cache!, ends, replayed } };
+}
+
+/** The live layout of `doc`, reusing `prev` (see liveSizing for `opts`). */
+export function liveLayout(prev: LiveLayout | null, doc: DesignDoc, opts: SizeOptions = {}): LiveLayout {
+  const s = liveSizing(prev, doc, opts);
+  const copper = liveOutlines(s.reused ? prev : null, s.sized, s.memo.replayed);
+  return { ...s, ...copper, redone: { ends: s.ends, ...copper.redone } };
 }
 
 /** Each outline reused, translated or drawn afresh (see the file comment). */

@@ -9,7 +9,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { corporateFeed, liveLayout, parseDesign, pieceOutlines, runCommand, sizeDesign, LineCache, type DesignDoc, type LiveLayout } from '../../core/index.ts';
+import { corporateFeed, liveLayout, liveSizing, parseDesign, pieceOutlines, runCommand, sizeDesign, LineCache, type DesignDoc, type LiveLayout, type LiveSizing } from '../../core/index.ts';
 
 const EXAMPLES = join(__dirname, '../../assets/examples');
 
@@ -67,6 +67,9 @@ describe('live layout equals a full sizing', () => {
       let doc = start;
       let live = liveLayout(null, doc, opts);
       expectSameAsFull(live, doc, opts);
+      // The sizing alone (what a sweep of the dragged design may use), with options of its own and no line cache.
+      const bare = {};
+      let sizing: LiveSizing = liveSizing(null, doc, bare);
       const bends = doc.nodes.filter((n) => n.kind === 'vertex').map((n) => n.id);
       const movable = bends.length ? bends : doc.nodes.map((n) => n.id);
       let reused = 0;
@@ -77,6 +80,8 @@ describe('live layout equals a full sizing', () => {
           doc = runCommand(doc, 'selection.translate', { ids: [id], by: { x: (next() - 0.5) * 4e-4, y: (next() - 0.5) * 4e-4 } });
           live = liveLayout(live, doc, opts);
           expectSameAsFull(live, doc, opts);
+          sizing = liveSizing(sizing, doc, bare);
+          expect(firstDifference(exact({ ...sizing.sized, doc: null }), exact({ ...sizeDesign(doc), doc: null }))).toBe('');
           reused += doc.nodes.length - live.redone.ends;
         }
       }
