@@ -14,9 +14,17 @@ import { nodeNotes, placedFrom, type FiguresCache, type LayoutView } from './lay
 
 /** One options object for every drag: the core keeps its memo while the object is the same. */
 const OPTIONS: SizeOptions = {};
+/**
+ * A live layout slower than this (ms) hands the next SKIP_AFTER_SLOW moves to the worker, so a design too large to
+ * lay out within a few frames never freezes the page (the worker coalesces moves to the newest).
+ */
+export const LIVE_BUDGET_MS = 100;
+const SKIP_AFTER_SLOW = 10;
 
 export class LiveDragLayout {
   private last: LiveLayout | null = null;
+  /** Moves still left to the worker after a slow live layout. */
+  private skip = 0;
   /** Path text per outline object: an outline the move did not touch is the same object, and keeps its text. */
   private readonly text = new WeakMap<PieceOutline, string>();
 
@@ -24,9 +32,10 @@ export class LiveDragLayout {
 
   /**
    * The layout view of `doc` at `revision`, or null when the core refuses the design as a whole (the worker then
-   * says why). `held` is the view on screen, whose path reports are kept.
+   * says why) or after a slow one (LIVE_BUDGET_MS). `held` is the view on screen, whose path reports are kept.
    */
   view(doc: Parameters<typeof liveLayout>[1], revision: number, held: LayoutView | null): LayoutView | null {
+    if (this.skip > 0) { this.skip--; return null; }
     const t0 = performance.now();
     try {
       this.last = liveLayout(this.last, doc, OPTIONS);
@@ -36,10 +45,12 @@ export class LiveDragLayout {
     }
     const { doc: _doc, ...sized } = this.last.sized;
     const outlines = this.last.outlines.map((o) => ({ ...o, d: this.pathOf(o) }));
-    return {
+    const view: LayoutView = {
       revision, sized, outlines, drills: this.last.drills, paths: held?.paths ?? [], placed: placedFrom(sized),
       figures: this.figures.of(sized), notes: nodeNotes(sized), ms: performance.now() - t0,
     };
+    if (view.ms > LIVE_BUDGET_MS) this.skip = SKIP_AFTER_SLOW;
+    return view;
   }
 
   private pathOf(o: PieceOutline): string {
