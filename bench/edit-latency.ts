@@ -19,6 +19,8 @@ export interface EditLatency {
   copper: number[];
   first: number[];
   full: number[];
+  /** Moves whose copper on screen was their own revision's (the rest were shown a later move's copper first). */
+  ownCopper: number;
   /** Moves whose revision never reached the screen before the drag settled (superseded by a newer one is fine). */
   missing: { copper: number; first: number; full: number };
   fullPoints: number;
@@ -114,7 +116,7 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
   const after = (t0: number, rev: number, ok: (e: PageRecord['events'][number]) => boolean) =>
     rec.events.find((e) => e.t >= t0 && e.rev >= rev && ok(e));
   const out: EditLatency = {
-    moves: rec.moves.length, copper: [], first: [], full: [], missing: { copper: 0, first: 0, full: 0 }, fullPoints,
+    moves: rec.moves.length, ownCopper: 0, copper: [], first: [], full: [], missing: { copper: 0, first: 0, full: 0 }, fullPoints,
     draws: { coarse: rec.events.filter((e) => e.kind === 'response' && e.points < fullPoints).length, full: rec.events.filter((e) => e.kind === 'response' && e.points >= fullPoints).length },
     wallMs: rec.t1 - (rec.moves[0]?.t0 ?? rec.t1),
     // Headless chromium may report ThreadTime as 0 throughout: then it says nothing, and is printed as n/a.
@@ -128,6 +130,7 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
     const f = after(m.t0, m.rev, (e) => e.kind === 'response');
     const g = after(m.t0, m.rev, (e) => e.kind === 'response' && e.points >= fullPoints);
     if (c) out.copper.push(c.t - m.t0); else out.missing.copper++;
+    if (c && c.rev === m.rev) out.ownCopper++;
     if (f) out.first.push(f.t - m.t0); else out.missing.first++;
     if (g) out.full.push(g.t - m.t0); else out.missing.full++;
   }

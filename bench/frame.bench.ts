@@ -1,6 +1,7 @@
 /**
  * Frame time of the board editor while dragging a bend of the 64-output corporate feed (core/layout/generators),
  * in Debian chromium against the built renderer under the app's CSP. Target: median under 16 ms (one 60 Hz frame).
+ * First, without the browser, the drag's own work per move in Node (liveLayoutInNode).
  *
  * Per pointer move it measures the main-thread work from the event to the board's DOM being updated and laid out:
  * the pointer handler, the live History edit, Svelte's effects, the svg.js redraw and a forced style/layout. The
@@ -11,16 +12,46 @@
  */
 import { median, pct, withBuiltApp } from './built-app.ts';
 import { editToScreen, type EditLatency } from './edit-latency.ts';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { corporateFeed } from '../core/layout/index.ts';
-import { serializeDesign } from '../core/design/index.ts';
+import { corporateFeed, liveLayout, pieceOutlines, sizeDesign } from '../core/layout/index.ts';
+import { runCommand, serializeDesign } from '../core/design/index.ts';
+import { regionsPath } from '../renderer/src/board/paths.ts';
 
 const OUTPUTS = 64;
 const MOVES = 120;
 
+/**
+ * The drag's own work in Node, without the browser: per pointer move, the translate command and the core's live
+ * layout (core liveLayout) plus the path text of the outlines it made afresh, as renderer/src/state/live-layout.ts
+ * does it on the page. CPU time of this process, so other jobs on the machine barely change it.
+ */
+export function liveLayoutInNode(): void {
+  const start = corporateFeed({ outputs: OUTPUTS, pitch: 12e-3 });
+  const bend = start.nodes.find((n) => n.kind === 'vertex')!.id;
+  const opts = {};
+  let doc = start;
+  let live = liveLayout(null, doc, opts);
+  const cpu: number[] = [], wall: number[] = [], full: number[] = [];
+  const cpuMs = () => { const u = process.cpuUsage(); return (u.user + u.system) / 1000; };
+  for (let k = 1; k <= 40; k++) {
+    const c0 = cpuMs(), t0 = performance.now();
+    doc = runCommand(doc, 'selection.translate', { ids: [bend], by: { x: 5e-5, y: (k % 3) * 1e-5 } });
+    const was = new Set(live.outlines);
+    live = liveLayout(live, doc, opts);
+    for (const o of live.outlines) if (!was.has(o)) regionsPath(o.regions);
+    cpu.push(cpuMs() - c0); wall.push(performance.now() - t0);
+    const c1 = cpuMs();
+    pieceOutlines(sizeDesign(doc, { cache: live.memo.cache }));
+    full.push(cpuMs() - c1);
+  }
+  const load = readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ');
+  console.log(`live layout of one pointer move in Node (translate command + core liveLayout + path text of the outlines it changed), 40 moves of bend ${bend}: CPU median ${median(cpu).toFixed(1)} ms, p90 ${pct(cpu, 0.9).toFixed(1)} ms; wall median ${median(wall).toFixed(1)} ms; last move redid ${live.redone.ends} ends, drew ${live.redone.drawn}, moved ${live.redone.moved}, kept ${live.redone.kept} outlines; a full sizing + outlines: CPU median ${median(full).toFixed(1)} ms (load average ${load})`);
+}
+
 export async function run(): Promise<void> {
+  liveLayoutInNode();
   await withBuiltApp(async (page) => {
     // A pitch that keeps the 64-output row inside the 1 m board limit (sizing refuses larger boards).
     const doc = corporateFeed({ outputs: OUTPUTS, pitch: 12e-3 });
@@ -105,7 +136,7 @@ function printEdit(e: EditLatency): void {
   const row = (xs: number[]) => (xs.length ? `median ${median(xs).toFixed(1)} ms, p90 ${pct(xs, 0.9).toFixed(1)} ms` : 'never');
   const miss = (n: number) => (n ? ` (${n} of ${e.moves} moves never shown)` : '');
   console.log(`edit to screen, ${e.moves} pointer moves one per animation frame with the Response tab open (${e.draws.coarse} coarse and ${e.draws.full} full response draws):`);
-  console.log(`  pointer move → copper redrawn:            ${row(e.copper)} (target < 16.7 ms)${miss(e.missing.copper)}`);
+  console.log(`  pointer move → copper redrawn:            ${row(e.copper)} (target < 16.7 ms)${miss(e.missing.copper)}; ${e.ownCopper} of ${e.moves} moves showed their own revision's copper first, the rest a later move's`);
   console.log(`  pointer move → first response drawn:      ${row(e.first)}${miss(e.missing.first)}`);
   console.log(`  pointer move → ${e.fullPoints}-point response drawn:  ${row(e.full)} (target < 150 ms)${miss(e.missing.full)}`);
   const cpu = (ms: number | null) => (ms === null ? 'n/a' : `${ms.toFixed(0)} ms`);

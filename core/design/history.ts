@@ -61,19 +61,22 @@ export class History {
 
   /**
    * Runs a command. Outside live mode its change joins the open step (closed by mark(), undo() or the next live
-   * drag); in live mode it only moves the document on. Throws InputError from the command; then nothing changes.
-   * Returns what changed.
+   * drag) and is returned; in live mode it only moves the document on, and null is returned: a drag's change is
+   * worked out once, when it ends (commitLive), not on every pointer move. Throws InputError from the command; then
+   * nothing changes.
    */
-  apply(commandId: string, args: unknown = {}, label?: string): DesignDiff {
+  apply(commandId: string, args: unknown = {}, label?: string): DesignDiff | null {
     const before = this.current;
     const after = this.runFn(before, commandId, args);
+    if (this.liveStart !== null) {
+      if (!sameRecords(before, after)) this.set(after);
+      return null;
+    }
     const diff = diffDesigns(before, after);
     if (isEmptyDiff(diff)) return diff;
-    if (this.liveStart === null) {
-      if (!this.open) this.open = { label: label ?? commandLabel(commandId), diffs: [] };
-      this.open.diffs.push(diff);
-      this.redoStack = [];
-    }
+    if (!this.open) this.open = { label: label ?? commandLabel(commandId), diffs: [] };
+    this.open.diffs.push(diff);
+    this.redoStack = [];
     this.set(after);
     return diff;
   }
@@ -154,6 +157,24 @@ export class History {
     this.rev++;
     for (const fn of this.listeners) fn(doc, this.rev);
   }
+}
+
+/**
+ * The very same records (commands keep every record they do not change): no change, found without a diff. A record
+ * made anew with equal contents counts as a change here; commitLive's diff then drops it.
+ */
+function sameRecords(a: DesignDoc, b: DesignDoc): boolean {
+  if (a === b) return true;
+  const x = a as unknown as Record<string, unknown>, y = b as unknown as Record<string, unknown>;
+  const keys = Object.keys(x);
+  if (keys.length !== Object.keys(y).length) return false;
+  for (const k of keys) {
+    const u = x[k], v = y[k];
+    if (u === v) continue;
+    if (!Array.isArray(u) || !Array.isArray(v) || u.length !== v.length) return false;
+    for (let i = 0; i < u.length; i++) if (u[i] !== v[i]) return false;
+  }
+  return true;
 }
 
 function commandLabel(id: string): string { return DESIGN_COMMANDS.get(id)?.label ?? id; }

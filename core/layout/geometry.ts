@@ -32,134 +32,147 @@ const MIN_PATCH_AREA = 1e-12;
 
 const R = (outer: Ring): Region => ({ outer: ccw(outer), holes: [] });
 
+/** What one piece's or node's outline is drawn from: the sized design's pieces and nodes by id. */
+export interface OutlineSite { nodes: Map<string, SizedNode>; pieces: Map<string, SizedPiece> }
+
+export function outlineSite(sized: Pick<SizedDesign, 'nodes' | 'pieces'>): OutlineSite {
+  return { nodes: new Map(sized.nodes.map((n) => [n.id, n])), pieces: new Map(sized.pieces.map((p) => [p.id, p])) };
+}
+
+const placed = (n: SizedNode | undefined): n is SizedNode => !!n && Number.isFinite(n.pos.x) && Number.isFinite(n.pos.y);
+const isLine = (p: SizedPiece) => p.kind === 'line' || p.kind === 'taper' || p.kind === 'coupled';
+const widthAt = (p: SizedPiece, node: string) => (p.kind === 'taper' && p.b === node ? p.widthB! : p.width);
+/** Unit direction leaving node n along piece p (placed). */
+const dirAlong = (site: OutlineSite, n: SizedNode, p: SizedPiece): Vec2 => {
+  const o = site.nodes.get(p.a === n.id ? p.b : p.a)!;
+  return unit(sub(o.pos, n.pos));
+};
+
 /** Outlines of every piece and node, before union. */
 export function pieceOutlines(sized: SizedDesign): { outlines: PieceOutline[]; drills: DrillHit[] } {
-  const nodes = new Map(sized.nodes.map((n) => [n.id, n]));
-  const pieces = new Map(sized.pieces.map((p) => [p.id, p]));
+  const site = outlineSite(sized);
   const outlines: PieceOutline[] = [];
   const drills: DrillHit[] = [];
-  const placed = (n: SizedNode | undefined): n is SizedNode => !!n && Number.isFinite(n.pos.x) && Number.isFinite(n.pos.y);
-
-  /** Unit direction leaving node n along piece p (placed). */
-  const dirFrom = (n: SizedNode, p: SizedPiece): Vec2 => {
-    const o = nodes.get(p.a === n.id ? p.b : p.a)!;
-    return unit(sub(o.pos, n.pos));
-  };
-  const isLine = (p: SizedPiece) => p.kind === 'line' || p.kind === 'taper' || p.kind === 'coupled';
-  const widthAt = (p: SizedPiece, node: string) => (p.kind === 'taper' && p.b === node ? p.widthB! : p.width);
-
-  for (const p of sized.pieces) {
-    const na = nodes.get(p.a), nb = nodes.get(p.b);
-    if (!placed(na) || !placed(nb) || !Number.isFinite(p.width) || len(sub(nb.pos, na.pos)) < 1e-12) continue;
-    const d = unit(sub(nb.pos, na.pos));
-    if (p.kind === 'lumped' || p.kind === 'sparams') {
-      const regions: Region[] = [];
-      if (p.kind === 'lumped') {
-        const fp = p.part!.footprint;
-        const across = Math.max(fp.padAcross, p.width);
-        for (const c of [na.pos, nb.pos]) regions.push(R(rectAlong(sub(c, mul(d, fp.padAlong / 2)), add(c, mul(d, fp.padAlong / 2)), across)));
-      } else {
-        for (const c of [na.pos, nb.pos]) regions.push(R(rectAlong(sub(c, mul(d, p.width / 2)), add(c, mul(d, p.width / 2)), p.width)));
-      }
-      outlines.push({ id: p.id, regions, centreline: [na.pos, nb.pos] });
-      continue;
-    }
-    // Ends of the straight copper, trimmed at arc bends.
-    let p0 = na.pos, p1 = nb.pos;
-    if (na.bend?.arc) p0 = add(na.pos, mul(d, na.bend.arc.tangent));
-    if (nb.bend?.arc) p1 = sub(nb.pos, mul(d, nb.bend.arc.tangent));
-    let ring: Ring;
-    if (p.kind === 'taper' && p.taperWidths && p.taperWidths.length > 1) {
-      const n = p.taperWidths.length - 1;
-      ring = taperOutline(p0, p1, p.taperWidths.map((_, k) => k / n), p.taperWidths);
-    } else {
-      ring = rectAlong(p0, p1, p.width);
-    }
-    // Miter cuts at either end.
-    for (const end of [na, nb]) {
-      if (!end.bend?.miter) continue;
-      const [pa, pb] = end.segments.map((id) => pieces.get(id)!);
-      if (!pa || !pb || !isLine(pa) || !isLine(pb)) continue;
-      const d1 = mul(dirFrom(end, pa), -1), d2 = dirFrom(end, pb);
-      const cut = miterCutLine(end.pos, d1, d2, end.bend.width, end.bend.miter.x);
-      ring = clipHalfPlane(ring, cut.p, cut.n);
-    }
-    outlines.push({ id: p.id, regions: ring.length >= 3 ? [R(ring)] : [], centreline: [na.pos, nb.pos] });
-  }
-
-  for (const n of sized.nodes) {
-    if (!placed(n)) continue;
-    const segs = n.segments.map((id) => pieces.get(id)).filter((p): p is SizedPiece => !!p && Number.isFinite(p.width) && placed(nodes.get(p.a === n.id ? p.b : p.a)));
-    const regions: Region[] = [];
-    if (n.bend && segs.length === 2 && segs.every(isLine)) {
-      const [pa, pb] = segs as [SizedPiece, SizedPiece];
-      const d1 = mul(dirFrom(n, pa), -1), d2 = dirFrom(n, pb);
-      const W = n.bend.width;
-      if (n.bend.arc) {
-        const g = cornerGeometry(n.pos, d1, d2, W);
-        const t = n.bend.arc.tangent, Rr = n.bend.arc.radius;
-        const T1 = sub(n.pos, mul(d1, t));
-        const c = add(T1, mul(left(d1), g.side * Rr));
-        const a0 = Math.atan2(T1.y - c.y, T1.x - c.x);
-        // The band uses each side's own width where they differ: draw with the wider, the narrower is inside it.
-        const Wb = Math.max(widthAt(pa, n.id), widthAt(pb, n.id));
-        regions.push(R(arcBand(c, Rr - Wb / 2, Rr + Wb / 2, a0, g.side * g.turn)));
-      } else {
-        let patch = squareCornerPatch(n.pos, d1, d2, W);
-        if (n.bend.miter) {
-          const cut = miterCutLine(n.pos, d1, d2, W, n.bend.miter.x);
-          patch = clipHalfPlane(patch, cut.p, cut.n);
-        }
-        if (patch.length >= 3) regions.push(R(patch));
-      }
-    } else if (n.kind === 'junction' && segs.filter(isLine).length >= 2) {
-      // Junction square: aligned with the main line, as long as the widest other arm and as wide as the main line,
-      // plus the hull of the line arms' end edges so arms at other angles meet without notches. Parts meeting here
-      // (a Wilkinson resistor) bring their own pads.
-      const arms = segs.filter(isLine);
-      const pts: Vec2[] = [];
-      for (const p of arms) {
-        const d = dirFrom(n, p), nn = mul(left(d), widthAt(p, n.id) / 2);
-        pts.push(add(n.pos, nn), sub(n.pos, nn));
-      }
-      const first = arms[0]!;
-      const opposite = arms.find((p) => p !== first && dot(dirFrom(n, p), dirFrom(n, first)) < -0.99);
-      const mainIds = n.tee ? n.tee.main : [first.id, ...(opposite ? [opposite.id] : [])];
-      const main = arms.find((p) => p.id === mainIds[0]) ?? first;
-      const dm = dirFrom(n, main);
-      const wMain = Math.max(...arms.filter((p) => mainIds.includes(p.id)).map((p) => widthAt(p, n.id)));
-      const others = arms.filter((p) => !mainIds.includes(p.id));
-      // The square only where the main line runs straight through: elsewhere it would poke out opposite an arm.
-      if (others.length && mainIds.length === 2 && arms.some((p) => p.id === mainIds[1]) && dot(dirFrom(n, main), dirFrom(n, arms.find((p) => p.id === mainIds[1])!)) < -0.99) {
-        const wOther = Math.max(...others.map((p) => widthAt(p, n.id)));
-        const nm = left(dm);
-        for (const sa of [-1, 1]) for (const sb of [-1, 1]) pts.push(add(n.pos, add(mul(dm, sa * wOther / 2), mul(nm, sb * wMain / 2))));
-      }
-      // A straight line through a junction whose other arms are parts (a resistor to one side) has no corner to fill:
-      // the hull of its arms' end edges is then a flat line, which is no copper at all.
-      const hull = convexHull(pts);
-      if (hull.length >= 3 && Math.abs(ringArea(hull)) > MIN_PATCH_AREA) regions.push(R(hull));
-    } else if (n.kind === 'short' && n.via && segs[0]) {
-      const d = dirFrom(n, segs[0]);
-      const across = left(d);
-      const count = Math.max(1, Math.round(n.via.count));
-      const pitch = n.via.pad * 1.25;
-      const pts: Vec2[] = [];
-      for (let i = 0; i < count; i++) {
-        const c = add(n.pos, mul(across, (i - (count - 1) / 2) * pitch));
-        drills.push({ at: c, diameter: n.via.drill, plated: true, use: 'via', owner: n.id });
-        pts.push(...circle(c, n.via.pad / 2));
-      }
-      regions.push(R(count === 1 ? circle(n.pos, n.via.pad / 2) : convexHull(pts)));
-    } else if (n.kind === 'port' && n.port?.launch && segs[0]) {
-      const d = dirFrom(n, segs[0]);
-      const L = n.port.launch;
-      regions.push(R(rectAlong(n.pos, add(n.pos, mul(d, L.padLength)), L.padWidth)));
-      if (L.pinDrill) drills.push({ at: add(n.pos, mul(d, L.padLength / 2)), diameter: L.pinDrill, plated: true, use: 'pin', owner: n.id });
-    }
-    if (regions.length) outlines.push({ id: n.id, regions, centreline: [n.pos] });
-  }
+  for (const p of sized.pieces) { const o = pieceOutline(site, p); if (o) outlines.push(o); }
+  for (const n of sized.nodes) { const o = nodeOutline(site, n, drills); if (o) outlines.push(o); }
   return { outlines, drills };
+}
+
+/** One piece's own copper (null when it is not placed or has no width or length). */
+export function pieceOutline(site: OutlineSite, p: SizedPiece): PieceOutline | null {
+  const { nodes, pieces } = site;
+  const dirFrom = (n: SizedNode, q: SizedPiece) => dirAlong(site, n, q);
+  const na = nodes.get(p.a), nb = nodes.get(p.b);
+  if (!placed(na) || !placed(nb) || !Number.isFinite(p.width) || len(sub(nb.pos, na.pos)) < 1e-12) return null;
+  const d = unit(sub(nb.pos, na.pos));
+  if (p.kind === 'lumped' || p.kind === 'sparams') {
+    const regions: Region[] = [];
+    if (p.kind === 'lumped') {
+      const fp = p.part!.footprint;
+      const across = Math.max(fp.padAcross, p.width);
+      for (const c of [na.pos, nb.pos]) regions.push(R(rectAlong(sub(c, mul(d, fp.padAlong / 2)), add(c, mul(d, fp.padAlong / 2)), across)));
+    } else {
+      for (const c of [na.pos, nb.pos]) regions.push(R(rectAlong(sub(c, mul(d, p.width / 2)), add(c, mul(d, p.width / 2)), p.width)));
+    }
+    return { id: p.id, regions, centreline: [na.pos, nb.pos] };
+  }
+  // Ends of the straight copper, trimmed at arc bends.
+  let p0 = na.pos, p1 = nb.pos;
+  if (na.bend?.arc) p0 = add(na.pos, mul(d, na.bend.arc.tangent));
+  if (nb.bend?.arc) p1 = sub(nb.pos, mul(d, nb.bend.arc.tangent));
+  let ring: Ring;
+  if (p.kind === 'taper' && p.taperWidths && p.taperWidths.length > 1) {
+    const n = p.taperWidths.length - 1;
+    ring = taperOutline(p0, p1, p.taperWidths.map((_, k) => k / n), p.taperWidths);
+  } else {
+    ring = rectAlong(p0, p1, p.width);
+  }
+  // Miter cuts at either end.
+  for (const end of [na, nb]) {
+    if (!end.bend?.miter) continue;
+    const [pa, pb] = end.segments.map((id) => pieces.get(id)!);
+    if (!pa || !pb || !isLine(pa) || !isLine(pb)) continue;
+    const d1 = mul(dirFrom(end, pa), -1), d2 = dirFrom(end, pb);
+    const cut = miterCutLine(end.pos, d1, d2, end.bend.width, end.bend.miter.x);
+    ring = clipHalfPlane(ring, cut.p, cut.n);
+  }
+  return { id: p.id, regions: ring.length >= 3 ? [R(ring)] : [], centreline: [na.pos, nb.pos] };
+}
+
+/** One node's own copper (bend, junction, via pads, launch pad), its drills added to `drills`; null for none. */
+export function nodeOutline(site: OutlineSite, n: SizedNode, drills: DrillHit[]): PieceOutline | null {
+  const { nodes, pieces } = site;
+  const dirFrom = (m: SizedNode, q: SizedPiece) => dirAlong(site, m, q);
+  if (!placed(n)) return null;
+  const segs = n.segments.map((id) => pieces.get(id)).filter((p): p is SizedPiece => !!p && Number.isFinite(p.width) && placed(nodes.get(p.a === n.id ? p.b : p.a)));
+  const regions: Region[] = [];
+  if (n.bend && segs.length === 2 && segs.every(isLine)) {
+    const [pa, pb] = segs as [SizedPiece, SizedPiece];
+    const d1 = mul(dirFrom(n, pa), -1), d2 = dirFrom(n, pb);
+    const W = n.bend.width;
+    if (n.bend.arc) {
+      const g = cornerGeometry(n.pos, d1, d2, W);
+      const t = n.bend.arc.tangent, Rr = n.bend.arc.radius;
+      const T1 = sub(n.pos, mul(d1, t));
+      const c = add(T1, mul(left(d1), g.side * Rr));
+      const a0 = Math.atan2(T1.y - c.y, T1.x - c.x);
+      // The band uses each side's own width where they differ: draw with the wider, the narrower is inside it.
+      const Wb = Math.max(widthAt(pa, n.id), widthAt(pb, n.id));
+      regions.push(R(arcBand(c, Rr - Wb / 2, Rr + Wb / 2, a0, g.side * g.turn)));
+    } else {
+      let patch = squareCornerPatch(n.pos, d1, d2, W);
+      if (n.bend.miter) {
+        const cut = miterCutLine(n.pos, d1, d2, W, n.bend.miter.x);
+        patch = clipHalfPlane(patch, cut.p, cut.n);
+      }
+      if (patch.length >= 3) regions.push(R(patch));
+    }
+  } else if (n.kind === 'junction' && segs.filter(isLine).length >= 2) {
+    // Junction square: aligned with the main line, as long as the widest other arm and as wide as the main line,
+    // plus the hull of the line arms' end edges so arms at other angles meet without notches. Parts meeting here
+    // (a Wilkinson resistor) bring their own pads.
+    const arms = segs.filter(isLine);
+    const pts: Vec2[] = [];
+    for (const p of arms) {
+      const d = dirFrom(n, p), nn = mul(left(d), widthAt(p, n.id) / 2);
+      pts.push(add(n.pos, nn), sub(n.pos, nn));
+    }
+    const first = arms[0]!;
+    const opposite = arms.find((p) => p !== first && dot(dirFrom(n, p), dirFrom(n, first)) < -0.99);
+    const mainIds = n.tee ? n.tee.main : [first.id, ...(opposite ? [opposite.id] : [])];
+    const main = arms.find((p) => p.id === mainIds[0]) ?? first;
+    const dm = dirFrom(n, main);
+    const wMain = Math.max(...arms.filter((p) => mainIds.includes(p.id)).map((p) => widthAt(p, n.id)));
+    const others = arms.filter((p) => !mainIds.includes(p.id));
+    // The square only where the main line runs straight through: elsewhere it would poke out opposite an arm.
+    if (others.length && mainIds.length === 2 && arms.some((p) => p.id === mainIds[1]) && dot(dirFrom(n, main), dirFrom(n, arms.find((p) => p.id === mainIds[1])!)) < -0.99) {
+      const wOther = Math.max(...others.map((p) => widthAt(p, n.id)));
+      const nm = left(dm);
+      for (const sa of [-1, 1]) for (const sb of [-1, 1]) pts.push(add(n.pos, add(mul(dm, sa * wOther / 2), mul(nm, sb * wMain / 2))));
+    }
+    // A straight line through a junction whose other arms are parts (a resistor to one side) has no corner to fill:
+    // the hull of its arms' end edges is then a flat line, which is no copper at all.
+    const hull = convexHull(pts);
+    if (hull.length >= 3 && Math.abs(ringArea(hull)) > MIN_PATCH_AREA) regions.push(R(hull));
+  } else if (n.kind === 'short' && n.via && segs[0]) {
+    const d = dirFrom(n, segs[0]);
+    const across = left(d);
+    const count = Math.max(1, Math.round(n.via.count));
+    const pitch = n.via.pad * 1.25;
+    const pts: Vec2[] = [];
+    for (let i = 0; i < count; i++) {
+      const c = add(n.pos, mul(across, (i - (count - 1) / 2) * pitch));
+      drills.push({ at: c, diameter: n.via.drill, plated: true, use: 'via', owner: n.id });
+      pts.push(...circle(c, n.via.pad / 2));
+    }
+    regions.push(R(count === 1 ? circle(n.pos, n.via.pad / 2) : convexHull(pts)));
+  } else if (n.kind === 'port' && n.port?.launch && segs[0]) {
+    const d = dirFrom(n, segs[0]);
+    const L = n.port.launch;
+    regions.push(R(rectAlong(n.pos, add(n.pos, mul(d, L.padLength)), L.padWidth)));
+    if (L.pinDrill) drills.push({ at: add(n.pos, mul(d, L.padLength / 2)), diameter: L.pinDrill, plated: true, use: 'pin', owner: n.id });
+  }
+  return regions.length ? { id: n.id, regions, centreline: [n.pos] } : null;
 }
 
 function boxOf(rings: Ring[]): Box {

@@ -28,9 +28,9 @@
 import type { DesignDoc } from '../design/types.ts';
 import type { Vec2 } from '../geometry/types.ts';
 import { InputError } from '../util/errors.ts';
-import type { SizedDesign, SmdFootprint } from './types.ts';
-import { sizingContext, type SizeOptions, type Work } from './sizing/context.ts';
-import { buildTopology } from './sizing/topology.ts';
+import type { SizedDesign, SizedNode, SmdFootprint } from './types.ts';
+import { sizingContext, type SizeOptions, type SizingContext, type Work } from './sizing/context.ts';
+import { buildTopology, type Adjacency } from './sizing/topology.ts';
 import { sizeWidths } from './sizing/widths.ts';
 import { sizeLengths } from './sizing/lengths.ts';
 import { sizeEnds } from './sizing/ends/index.ts';
@@ -47,12 +47,20 @@ export { DEFAULT_TAPER_RIPPLE_DB } from './sizing/lengths.ts';
 export { MAX_CORNER_TURN } from './sizing/ends/index.ts';
 
 export function sizeDesign(doc: DesignDoc, opts: SizeOptions = {}): SizedDesign {
+  return sizeWithEnds(doc, opts, sizeEnds);
+}
+
+/** The ends step as a function of the context (sizeEnds, or the memoised one of incremental.ts). */
+export type EndsStep = (ctx: SizingContext, adj: Adjacency, byId: Map<string, Work>) => SizedNode[];
+
+/** sizeDesign with the ends step given: every other step is the same code. */
+export function sizeWithEnds(doc: DesignDoc, opts: SizeOptions, ends: EndsStep): SizedDesign {
   const ctx = sizingContext(doc, opts);
   const adj = buildTopology(ctx);
   const works = sizeWidths(ctx);
   const byId = new Map<string, Work>(works.map((w) => [w.seg.id, w]));
   sizeLengths(ctx, works);
-  const sizedNodes = sizeEnds(ctx, adj, byId);
+  const sizedNodes = ends(ctx, adj, byId);
   sizeSpans(ctx, works);
   const nodeOut = new Map(sizedNodes.map((n) => [n.id, n]));
   const anchor = placeDesign(ctx, works, byId, adj, nodeOut);

@@ -3,6 +3,7 @@
  * puts the results on the editor. Requests made while a job runs coalesce: at most one job waits, always for the
  * newest revision, so fast typing or a drag never piles up stale work and the canvas never waits for it.
  */
+import { untrack } from 'svelte';
 import type { MeasuredFile } from '../../../core/index.ts';
 import type { CompareOutput } from '../worker/measured-job.ts';
 import { ComputeClient, type JobOutcome, type Progress } from '../worker/client.ts';
@@ -13,6 +14,7 @@ import { designSweepSettings } from '../../../core/index.ts';
 import type { EditorState } from './editor.svelte.ts';
 import { FiguresCache, nodeNotes, placedFrom, type LayoutView } from './layoutView.ts';
 import { LayoutReceiver, type LayoutPost } from '../worker/layout-post.ts';
+import { LiveDragLayout } from './live-layout.ts';
 import type { CheckOutput, ExportInput, ExportOutput, LayoutOutput, MillingInput, MillingOutput, ResponseInput, ResponseOutput, YieldOutput } from '../worker/jobs.ts';
 import type { SectionOutput } from '../worker/section-job.ts';
 import type { SectionSpec } from '../../../core/index.ts';
@@ -62,8 +64,9 @@ export class Compute {
   /** Runs any worker job (the equalize button and the tune panel use it). */
   run<T>(kind: JobKind, input: unknown, progress?: (p: Progress) => void, signal?: AbortSignal) { return this.client.run<T>(kind, input, progress, signal); }
 
-  /** Ask for the layout of the current revision. */
+  /** Ask for the layout of the current revision (while a drag is live: laid out here at once, live-layout.ts). */
   request(): void {
+    if (this.editor.dragging && this.liveDrag()) return;
     if (this.running) { this.queued = true; return; }
     void this.layout();
   }
@@ -99,6 +102,18 @@ export class Compute {
       this.editor.layoutFailed(post.error.message);
     }
     if (this.queued) { this.queued = false; void this.layout(); }
+  }
+
+  /** The drag's layouts, made on this thread (state/live-layout.ts). */
+  private readonly drag = new LiveDragLayout(this.figures);
+
+  private liveDrag(): boolean {
+    // Untracked: the caller is an effect, and the layout it sets must not make it run again.
+    return untrack(() => {
+      const v = this.drag.view(this.editor.doc, this.editor.revision, this.editor.layout);
+      if (v) this.editor.applyLayout(v, null);
+      return v !== null;
+    });
   }
 
   /** A response job on the sweeper, its series sent packed (worker/response-post.ts) and unpacked here. */

@@ -134,6 +134,9 @@ export class EditorState {
     }
   }
 
+  /** Rises when a drag ends: the settled design is laid out by the worker again (its copper was made live). */
+  settled = $state(0);
+
   /** A pointer drag is in progress (a live step not opened by typing in a field): autosave waits for its end. */
   get dragging(): boolean { return this.history.isLive && this.field === null; }
 

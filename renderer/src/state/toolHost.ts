@@ -49,6 +49,7 @@ export function createToolHost(ed: EditorState): ToolHost {
     },
     endMove: (commit) => {
       if (commit) ed.history.commitLive(); else ed.history.cancelLive();
+      ed.settled++;
       ed.canUndo = ed.history.canUndo;
       ed.canRedo = ed.history.canRedo;
     },
