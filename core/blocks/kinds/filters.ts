@@ -227,22 +227,36 @@ export function bandstopSweep(sk: Sketch, ctx: BlockContext, levelDb: number): {
     return fs.map((_, k) => { const t = 2 * ((k * P + i) * P + j); return -20 * Math.log10(Math.hypot(r.s[t]!, r.s[t + 1]!)); });
   };
   const f0 = ctx.f0;
-  /** Walking from f0 towards `to`, the first frequency where the loss falls under the level, bisected. */
+  /** Loss at frequencies walking from f0 outwards (the solver takes rising frequencies: a falling walk is solved reversed). */
+  const walk = (fs: number[]): number[] => (fs[fs.length - 1]! > fs[0]! ? lossAt(fs) : lossAt([...fs].reverse()).reverse());
+  /**
+   * Walking from f0 towards `to`, the first frequency where the loss falls under the level: found on 60 steps, then
+   * on 32 finer ones inside the step that crosses, then read between the two points around it (one solve each: a
+   * bisection compiled the network once per halving).
+   */
   const edge = (to: number): number => {
     const fs = Array.from({ length: 61 }, (_, k) => f0 + ((to - f0) * k) / 60);
-    const up = to > f0, l = up ? lossAt(fs) : lossAt([...fs].reverse()).reverse(); // the solver takes rising frequencies
-    const k = l.findIndex((x) => x < levelDb);
+    const k = walk(fs).findIndex((x) => x < levelDb);
     if (k <= 0) return NaN;
-    let a = fs[k - 1]!, b = fs[k]!;
-    for (let it = 0; it < 20; it++) { const m = (a + b) / 2; if (lossAt([m])[0]! < levelDb) b = m; else a = m; }
-    return (a + b) / 2;
+    const fine = Array.from({ length: 33 }, (_, i) => fs[k - 1]! + ((fs[k]! - fs[k - 1]!) * i) / 32);
+    const l = walk(fine);
+    const i = l.findIndex((x) => x < levelDb);
+    if (i <= 0) return (fs[k - 1]! + fs[k]!) / 2;
+    return fine[i - 1]! + ((fine[i]! - fine[i - 1]!) * (l[i - 1]! - levelDb)) / (l[i - 1]! - l[i]!);
   };
   const lo = edge(f0 * VIEW[0]), hi = edge(f0 * VIEW[1]);
   if (!Number.isFinite(lo) || !Number.isFinite(hi)) return { lo, hi, passMaxDb: NaN };
   // The pass bands stop 0.5 % of f0 short of the edges, where the skirt has fallen below the level's last 0.05 dB.
   const a = lo - 0.005 * f0, b = hi + 0.005 * f0;
   const pass = [...Array.from({ length: 80 }, (_, k) => f0 * VIEW[0] + ((a - f0 * VIEW[0]) * k) / 79), ...Array.from({ length: 80 }, (_, k) => b + ((f0 * VIEW[1] - b) * k) / 79)];
-  return { lo, hi, passMaxDb: Math.max(...lossAt(pass)) };
+  const coarse = lossAt(pass);
+  // Ripple peaks are narrow near the edges: the three highest local peaks of the coarse look are looked at again
+  // on a fine grid between their neighbours (one solve).
+  // (The two bands are one list, lower then upper: a peak is looked at only between neighbours of its own band.)
+  const peaks = coarse.map((l, k) => ({ l, k })).filter(({ l, k }) => k % 80 > 0 && k % 80 < 79 && l >= coarse[k - 1]! && l >= coarse[k + 1]!)
+    .sort((x, y) => y.l - x.l).slice(0, 3);
+  const fine = peaks.flatMap(({ k }) => Array.from({ length: 17 }, (_, i) => pass[k - 1]! + ((pass[k + 1]! - pass[k - 1]!) * i) / 16)).sort((x, y) => x - y);
+  return { lo, hi, passMaxDb: Math.max(...coarse, ...(fine.length ? lossAt(fine) : [])) };
 }
 
 export const bandstopBlock: BlockDef = {
@@ -256,6 +270,88 @@ export const bandstopBlock: BlockDef = {
     Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec, ctx) {
+    let made;
+    try { made = bandstopDesign(spec, ctx); } catch (e) {
+      // A row the fit or the process cannot make: the same refusal, with the nearest spec the block does make.
+      if (e instanceof InputError && e.field.startsWith('bandstop.')) throw withNearest(e, bandstopNearest(spec, ctx, 'band'));
+      throw e;
+    }
+    const miss = bandstopMiss(spec, made.made);
+    if (miss) throw bandstopRefusal(spec, made.made, miss, bandstopNearest(spec, ctx, made.made.rippleDb > (bandstopAsk(spec).rippleDb ?? Infinity) + 0.03 ? 'ripple' : 'band'));
+    return made.pieces;
+  },
+};
+
+/** The asked band-stop's figures: its stop bandwidth and (equal ripple) its pass-band ripple, as the spec gives them. */
+function bandstopAsk(spec: Spec): { n: number; bw: number; rippleDb: number | null } {
+  return { n: spec.order as number, bw: spec.bw as number, rippleDb: spec.response === 'chebyshev' ? spec.rippleDb as number : null };
+}
+
+/**
+ * How a made band-stop misses its own spec, or null when it meets it: the edges (at the ripple + 0.05 dB, or −3 dB)
+ * within 5 % of the asked stop bandwidth, and the pass bands' loss at most 0.03 dB above the asked ripple (the
+ * issue's figures for a filter block). What the lossless sweep with the junction models shows is what is judged.
+ */
+function bandstopMiss(spec: Spec, made: { bw: number; rippleDb: number }): string | null {
+  const ask = bandstopAsk(spec);
+  if (!Number.isFinite(made.bw)) return 'its stop band did not reach the edge level in the sweep';
+  const off = made.bw / ask.bw - 1;
+  if (Math.abs(off) > 0.05) return `its edges fall ${(made.bw * 100).toFixed(1)} % apart (${(off * 100).toFixed(1)} % off)`;
+  if (ask.rippleDb !== null && made.rippleDb > ask.rippleDb + 0.03) return `its pass bands ripple ${made.rippleDb.toFixed(3)} dB`;
+  return null;
+}
+
+/** A refusal of the design steps with the nearest spec the block makes added to its fix. */
+function withNearest(e: InputError, nearest: string | null): InputError {
+  return new InputError(e.code, e.field, e.expected, e.got, nearest ? `the nearest it makes within spec: ${nearest}` : e.hint);
+}
+
+/** The refusal of a band-stop that was made but misses its spec. */
+function bandstopRefusal(spec: Spec, made: { bw: number; rippleDb: number }, miss: string, nearest: string | null): InputError {
+  const ask = bandstopAsk(spec);
+  const what = `order ${ask.n}, ${ask.rippleDb !== null ? `${ask.rippleDb} dB ripple, ` : 'maximally flat, '}${(ask.bw * 100).toFixed(1)} %`;
+  return new InputError('out-of-range', ask.rippleDb !== null && made.rippleDb > ask.rippleDb + 0.03 ? 'bandstop.rippleDb' : 'bandstop.bw',
+    'a band-stop that meets its own spec in the lossless sweep with the junction models (ripple within 0.03 dB, edges within 5 % of the stop bandwidth)',
+    `${what}: ${miss}`, nearest ? `the nearest it makes within spec: ${nearest}` : 'ask for a lower order, a larger ripple or a band nearer 50 %');
+}
+
+/**
+ * The nearest spec the block makes within spec, tried in this order (each by designing it and sweeping it): for
+ * equal ripple a larger ripple at the same order and band (the junctions add a small fixed reflection a very small
+ * ripple cannot hide; the impedances also ease), then a wider stop band at the same order and ripple (narrow bands
+ * need stubs too thin to make), then the next lower order. Null when none of them is made.
+ */
+function bandstopNearest(spec: Spec, ctx: BlockContext, first: 'ripple' | 'band'): string | null {
+  const ask = bandstopAsk(spec);
+  const meets = (s: Spec): boolean => {
+    try { return bandstopMiss(s, bandstopDesign(s, ctx).made) === null; } catch (e) { if (e instanceof InputError) return false; throw e; }
+  };
+  const pct = (x: number) => `${+(x * 100).toFixed(1)} %`;
+  const ripple = (): string | null => {
+    if (ask.rippleDb === null) return null;
+    for (const r of [ask.rippleDb * 2, ask.rippleDb * 5, ask.rippleDb * 20, ask.rippleDb * 100].map((x) => Math.min(3, +x.toPrecision(1))).filter((x, i, a) => x > ask.rippleDb! && a.indexOf(x) === i)) {
+      if (meets({ ...spec, rippleDb: r })) return `${r} dB ripple at order ${ask.n} and ${pct(ask.bw)}`;
+    }
+    return null;
+  };
+  const band = (): string | null => {
+    for (const bw of [0.2, 0.3, 0.5, 0.8].filter((x) => x > ask.bw + 1e-9)) {
+      if (meets({ ...spec, bw })) return `a ${pct(bw)} stop band at order ${ask.n}${ask.rippleDb !== null ? ` and ${ask.rippleDb} dB` : ''}`;
+    }
+    return null;
+  };
+  const found = first === 'ripple' ? ripple() ?? band() : band() ?? ripple();
+  if (found) return found;
+  for (let k = ask.n - 1; k >= 1; k--) if (meets({ ...spec, order: k })) return `order ${k} at the same ${ask.rippleDb !== null ? 'ripple and ' : ''}band`;
+  // Last, the middle of the range at the same order: a 50 % band (and at least 1 dB of ripple for equal ripple).
+  const middle = { ...spec, bw: 0.5, ...(ask.rippleDb !== null ? { rippleDb: Math.max(1, ask.rippleDb) } : {}) };
+  if (meets(middle)) return `a 50 % stop band at order ${ask.n}${ask.rippleDb !== null ? ` and ${middle.rippleDb} dB` : ''}`;
+  return null;
+}
+
+/** The band-stop designed and corrected against its own lossless sweep, with what that sweep shows of it. */
+function bandstopDesign(spec: Spec, ctx: BlockContext): { pieces: BlockPieces; made: { bw: number; rippleDb: number } } {
+  {
     const z0 = spec.z0 as number, feed = spec.feed as number, bw = spec.bw as number, f0 = ctx.f0;
     const g = gValues(spec), n = spec.order as number, ripple = spec.response === 'chebyshev';
     const rippleDb = ripple ? spec.rippleDb as number : 3.0103;
@@ -322,27 +418,35 @@ export const bandstopBlock: BlockDef = {
     // The junctions also lift the ripple a little near the edges (most on thick FR-4): the design ripple is
     // lowered by what the sweep shows above the asked one.
     let measured = NaN, r = rippleDb, seen = NaN;
+    // The draft kept is the measured one nearest its spec (the steps need not settle monotonically).
+    let best: { drawn: typeof drawn; measured: number; seen: number; d: number; r: number; score: number } | null = null;
     for (let it = 0; it < 8; it++) {
       const m = bandstopSweep(drawn.sk, ctx, level);
       measured = (m.hi - m.lo) / f0; seen = m.passMaxDb;
       if (!Number.isFinite(measured)) break;
       const over = ripple ? seen - rippleDb : 0;
+      const score = Math.max(Math.abs(measured / bw - 1) / 0.05, over / 0.03);
+      if (!best || score < best.score) best = { drawn, measured, seen, d, r, score };
       if (Math.abs(measured / bw - 1) < 0.005 && over < 0.02) break;
       d *= bw / measured;
-      if (over > 0.02) r = Math.max(0.01, r * rippleDb / seen);
+      if (over > 0.02) r = Math.max(0.002, r * rippleDb / seen);
       drawn = design(d, r, n2);
     }
+    if (best) ({ drawn, measured, seen, d, r } = best);
     const { sk, rows } = drawn;
     rows.push(`Designed with Δ = ${(d * 100).toFixed(1)} %${ripple ? ` and ${r.toFixed(3)} dB ripple` : ''} so the ${level.toFixed(2)} dB edges fall ${(bw * 100).toFixed(1)} % apart (lossless sweep${Number.isFinite(measured) ? `: ${(measured * 100).toFixed(1)} %${ripple ? `, pass bands within ${seen.toFixed(3)} dB` : ''}` : ''}).`);
     const kind = ripple ? `equal ripple ${rippleDb} dB (N stubs and N − 1 lines fitted to the optimum response, Horton and Wenzel 1965)` : 'maximally flat';
     return {
-      name: `Order ${n} band-stop, ${ghz(f0)}, ${(bw * 100).toFixed(0)} %`, nodes: sk.nodes, segments: sk.segments, phaseGroups: [],
-      targets: [{ id: 'stop', name: 'stop band', figure: 'insertion-loss', ports: ['src', 'load'], band: { start: f0, stop: f0 }, limit: { min: 20 } }],
-      notes: [`${bandstopBlock.title} (${bandstopBlock.source}): order ${n}, ${kind}, centre ${ghz(f0)}, ${(bw * 100).toFixed(1)} % bandwidth, ${z0} Ω.`, ...rows],
-      band: { start: f0 * 0.2, stop: f0 * 1.8 },
+      pieces: {
+        name: `Order ${n} band-stop, ${ghz(f0)}, ${(bw * 100).toFixed(0)} %`, nodes: sk.nodes, segments: sk.segments, phaseGroups: [],
+        targets: [{ id: 'stop', name: 'stop band', figure: 'insertion-loss', ports: ['src', 'load'], band: { start: f0, stop: f0 }, limit: { min: 20 } }],
+        notes: [`${bandstopBlock.title} (${bandstopBlock.source}): order ${n}, ${kind}, centre ${ghz(f0)}, ${(bw * 100).toFixed(1)} % bandwidth, ${z0} Ω.`, ...rows],
+        band: { start: f0 * 0.2, stop: f0 * 1.8 },
+      },
+      made: { bw: measured, rippleDb: ripple ? seen : 0 },
     };
-  },
-};
+  }
+}
 
 export const launchBlock: BlockDef = {
   kind: 'launch',
