@@ -9,7 +9,7 @@ import { parseArgs } from 'node:util';
 import { statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import {
-  BLOCKS, bandChangeWords, blockDef, defaultText, makeBlockDesign, optionName, parseDesign, parseQuantity, placeBlock, rangeText, serializeDesign,
+  BLOCKS, bandChangeWords, nameFromBlock, blockDef, defaultText, makeBlockDesign, optionName, parseDesign, parseQuantity, placeBlock, rangeText, serializeDesign,
   InputError, UNIT_WORDS, PROCESS_DEFAULT, type FabProcess, type ParamDef,
 } from '../../core/index.ts';
 import { DESIGN_TEXT, TOUCHSTONE_INPUT, readInputText, writeOutputFile } from '../files.ts';
@@ -103,6 +103,9 @@ export async function runRegistered(kind: string, argv: string[], io: CliIo): Pr
       if (x === undefined || y === undefined) throw new UsageError('give --at as X,Y, e.g. 40mm,0mm');
       doc = placeBlock(parsed.doc, kind, raw, { x: parseQuantity(x, 'length', 'at.x'), y: parseQuantity(y, 'length', 'at.y') });
       band = bandChangeWords(parsed.doc, doc);
+      // An empty design nobody has named takes the block's name, as in the app.
+      const named = nameFromBlock(parsed.doc, def.title);
+      if (named) doc = { ...doc, name: named };
     } else {
       const substrate = substrateOf({ preset: v.preset as string | undefined ?? (v.er === undefined && v.h === undefined ? 'glass-epoxy' : undefined), er: v.er as string | undefined, h: v.h as string | undefined, t: v.t as string | undefined, tand: v.tand as string | undefined, sigma: v.sigma as string | undefined, rough: v.rough as string | undefined });
       const process: FabProcess | undefined = typeof v['min-gap'] === 'string' ? { kind: 'etch', edgeBias: 0, minFeature: parseQuantity(v['min-gap'], 'length', 'min-gap') }

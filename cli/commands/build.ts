@@ -6,7 +6,7 @@
  */
 import { parseArgs } from 'node:util';
 import { resolve } from 'node:path';
-import { InputError, parseDesign, namer, initPolygons, DesignPipeline, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText, proximityLimitFor, FIGURE_UNIT_SUFFIX } from '../../core/index.ts';
+import { InputError, parseDesign, namer, initPolygons, DesignPipeline, solveNetwork, designSweepSettings, evaluateTargets, targetFrequencies, targetText, proximityLimitFor, FIGURE_UNIT_SUFFIX, pairNetworkFigures } from '../../core/index.ts';
 import type { Warning, PathReport, Finding, JunctionInfo, SizedDesign, JunctionChoice, TargetEvaluation } from '../../core/index.ts';
 import { UsageError, type CliCommand, type CliIo } from '../registry.ts';
 import { DESIGN_TEXT, readInputText } from '../files.ts';
@@ -50,6 +50,8 @@ export interface BuildReport {
     id: string; kind: string; a: string; b: string; z0_ohm?: number; width_m?: number; width_b_m?: number;
     length_m: number; span_m: number; deg_at_f0: number; drawn_deg: number;
     compensations: { model: string; source: string; amount_m: number; applied: boolean; node: string; note: string; junction?: JunctionInfo }[];
+    /** A coupled pair (on its first strip): the runs and mode figures the sweep uses (band start, f0, band stop). */
+    pair?: PairJson;
   }[];
   /** The junction choice the design was sized with. */
   junctions: JunctionChoice;
@@ -84,6 +86,7 @@ export function buildReport(sized: SizedDesign, paths: PathReport[], findings: F
       ...(Number.isFinite(p.z0) ? { z0_ohm: p.z0 } : {}), ...(Number.isFinite(p.width) ? { width_m: p.width } : {}), ...(p.widthB !== undefined ? { width_b_m: p.widthB } : {}),
       length_m: p.length, span_m: p.span, deg_at_f0: p.effectiveDeg, drawn_deg: p.deg,
       compensations: p.compensations.map((c) => ({ ...c })),
+      ...pairJson(sized, p),
     })),
     nodes: sized.nodes.filter((n) => Number.isFinite(n.pos.x)).map((n) => ({
       id: n.id, kind: n.kind, x_m: n.pos.x, y_m: n.pos.y,
@@ -99,6 +102,20 @@ export function buildReport(sized: SizedDesign, paths: PathReport[], findings: F
     })),
     paths, findings, warnings,
   };
+}
+
+type ModeJson = { z0_ohm: number; eps_eff: number; alpha_c_np_m: number; alpha_d_np_m: number };
+interface PairJson {
+  partner: string; width_m: number; gap_m: number; overlap_m: number; alone_m: { a: number; b: number; c: number; d: number };
+  modes: { f_hz: number; even: ModeJson; odd: ModeJson }[];
+}
+
+/** A coupled pair's network figures in the report's units (core pairNetworkFigures), on its first strip only. */
+function pairJson(sized: SizedDesign, p: SizedDesign['pieces'][number]): { pair?: PairJson } {
+  const r = pairNetworkFigures(sized, p);
+  if (!r) return {};
+  const mode = (m: { z0: number; epsEff: number; alphaC: number; alphaD: number }): ModeJson => ({ z0_ohm: m.z0, eps_eff: m.epsEff, alpha_c_np_m: m.alphaC, alpha_d_np_m: m.alphaD });
+  return { pair: { partner: r.partner, width_m: r.width, gap_m: r.gap, overlap_m: r.overlap, alone_m: r.alone, modes: r.modes.map((x) => ({ f_hz: x.f, even: mode(x.even), odd: mode(x.odd) })) } };
 }
 
 function table(rows: string[][]): string[] {

@@ -119,6 +119,22 @@ function simplex(f: (x: number[]) => number, start: number[], step: number, maxI
  */
 export function equalRippleRow(g: readonly number[], n: number, rippleDb: number, thetaC: number, near?: StubRow): StubRow & { fitDb: number } {
   if (!Number.isInteger(n) || n < 1 || n > 7) throw new InputError('out-of-range', 'bandstop.order', 'an equal-ripple band-stop order from 1 to 7', describe(n));
+  // The same question gets the same answer from the memo (a block is generated again for its preview, placing, a
+  // re-opened spec): the fit is a pure function of its inputs, so remembering it keeps results identical.
+  const key = JSON.stringify([g, n, rippleDb, thetaC, near?.stubZ, near?.lineZ]);
+  const known = FITS.get(key);
+  if (known) return { stubZ: [...known.stubZ], lineZ: [...known.lineZ], fitDb: known.fitDb };
+  const fit = fitRow(g, n, rippleDb, thetaC, near);
+  if (FITS.size >= FITS_KEPT) FITS.delete(FITS.keys().next().value!);
+  FITS.set(key, fit);
+  return { stubZ: [...fit.stubZ], lineZ: [...fit.lineZ], fitDb: fit.fitDb };
+}
+
+/** Fits already made, oldest first (a bounded memo: a block's correction loop asks about ten). */
+const FITS = new Map<string, StubRow & { fitDb: number }>();
+const FITS_KEPT = 64;
+
+function fitRow(g: readonly number[], n: number, rippleDb: number, thetaC: number, near?: StubRow): StubRow & { fitDb: number } {
   const ns = Math.ceil(n / 2), nl = Math.ceil((n - 1) / 2);
   const pass = Array.from({ length: 48 }, (_, k) => (thetaC * (k + 1)) / 48);
   const passWant = pass.map((th) => optimumLossDb(n, rippleDb, thetaC, th));

@@ -42,3 +42,4 @@ export function buildBlock(spec: BlockSpec): DesignDoc {
   return { ...doc, tolerances: d.tolerances, notes: [doc.notes ?? '', DEFAULT_TOLERANCES_NOTE, ...d.reasons.map((r) => `- ${r}`)].filter((x) => x).join('\n') };
 }
 export { tuneWithBlocks, regenerateBlock, blockVariables } from './tune-blocks.ts';
+export { nameFromBlock, placedWords } from './placed-words.ts';

@@ -17,6 +17,7 @@ import { contextDesign, type BlockContext, type BlockPieces } from './context.ts
 import { placeAsSized } from './drawn.ts';
 import { fitFootprint, footprintOf } from './fold.ts';
 import { sizeDesign } from '../layout/sizing.ts';
+import { processCautions } from '../layout/cautions.ts';
 import { DEFAULT_TOLERANCES_NOTE, defaultTolerances } from './tolerance-defaults.ts';
 
 /** The design's own laminate, process, f0 and junctions, as a block context. */
@@ -126,7 +127,7 @@ export function placeBlock(doc: DesignDoc, kind: string, raw: Record<string, unk
     const e = extent(pl.nodes), m = 5e-3 + widest;
     const band = pl.band;
     next = {
-      ...next, name: opts.name ?? pl.name, notes: [...pl.notes, ...(pl.toleranceReasons ? [DEFAULT_TOLERANCES_NOTE, ...pl.toleranceReasons.map((r) => `- ${r}`)] : []), 'Safety: transmitting into a made board needs the usual RF-exposure care and a licence where your local rules ask for one; milling glass-epoxy makes fine dust (extraction and a mask, common practice).'].join('\n'),
+      ...next, name: opts.name ?? pl.name, notes: [...pl.notes, ...(pl.toleranceReasons ? [DEFAULT_TOLERANCES_NOTE, ...pl.toleranceReasons.map((r) => `- ${r}`)] : []), `Safety: transmitting into a made board needs the usual RF-exposure care and a licence where your local rules ask for one. ${processCautions(doc.process).join(' ')}`].join('\n'),
       frequency: { f0: doc.frequency.f0, band },
       board: { outline: [{ x: nm(e.x0 - m), y: nm(e.y0 - m) }, { x: nm(e.x1 + m), y: nm(e.y0 - m) }, { x: nm(e.x1 + m), y: nm(e.y1 + m) }, { x: nm(e.x0 - m), y: nm(e.y1 + m) }] },
     };

@@ -19,6 +19,7 @@ export type { PathEntry, PathReport, PathOptions } from './paths.ts';
 export { boardGeometryOf, checkBoard } from './board.ts';
 export { processCut, isolationPlan, isolationClearance, isolationGapOf, passesFor, passesNeeded, MAX_ISOLATION_PASSES, ISOLATION_OVERLAP, DEFAULT_ISOLATION_CLEARANCE, type IsolationPlan } from './process-cut.ts';
 export type { ProcessCut } from './process-cut.ts';
+export { processCautions, DUST_CAUTION, ETCHANT_CAUTION } from './cautions.ts';
 export { checkFabrication, problemFindings, cutWidth, referenceGroundShiftPct, untoolableCopper, DEFAULT_LOSS_LIMIT_DB } from './checks.ts';
 export type { Finding, FindingCode, CheckOptions } from './checks.ts';
 export { proximityHits, proximityLimitFrom, DEFAULT_PROXIMITY_LIMIT_H } from './proximity.ts';

@@ -34,7 +34,7 @@
  */
 import { InputError } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
-import { lineModels as coreLineModels, type CoupledModeName, type LineModels, type LineOptions, type ModalFigures } from '../line/index.ts';
+import { lineModels as coreLineModels, type CoupledModeName, type LineModels, type LineOptions, type ModalFigures, type ModeFigures } from '../line/index.ts';
 import type { SubstrateSpec } from '../substrate/types.ts';
 import { coupledPairYOfModes } from './coupledPair.ts';
 import { lineConstantsOfMode, losslessConstantsOfMode } from './lineTwoPort.ts';
@@ -176,18 +176,15 @@ export function netlistFromSized(sized: SizedDesign, given: FromSizedOptions = {
         let [a1, b1] = padsAround(p, a, b, pads, elements, modelFor);
         let [c1, d1] = padsAround(p2, endNode(p2.id, p2.a), endNode(p2.id, p2.b), pads, elements, modelFor);
         // The strips overlap where neither is cut; the strip cut less at an end runs on alone there as a plain line.
-        const c1s = pair.cuts ?? { near: 0, far: 0 }, c2s = p2.pair?.cuts ?? { near: 0, far: 0 };
-        const near = Math.max(c1s.near, c2s.near), far = Math.max(c1s.far, c2s.far);
-        const overlap = p.nominalLength - near - far;
-        if (!(overlap > 0)) throw new InputError('impossible-layout', p.id, 'a coupled pair whose strips still overlap after their end corrections', `${(overlap * 1e3).toFixed(3)} mm of overlap`);
+        const { overlap, alone: runs } = pairRuns(p, p2);
         const alone = (from: string, extra: number, tag: string): string => {
           if (extra <= 1e-12) return from;
           const inner = `${p.id}~${tag}`;
           elements.push({ kind: 'line', id: `${p.id}:${tag}`, a: from, b: inner, length: extra, model: modelFor(pair.width) });
           return inner;
         };
-        a1 = alone(a1, near - c1s.near, 'alone-a'); b1 = alone(b1, far - c1s.far, 'alone-b');
-        c1 = alone(c1, near - c2s.near, 'alone-c'); d1 = alone(d1, far - c2s.far, 'alone-d');
+        a1 = alone(a1, runs.a, 'alone-a'); b1 = alone(b1, runs.b, 'alone-b');
+        c1 = alone(c1, runs.c, 'alone-c'); d1 = alone(d1, runs.d, 'alone-d');
         elements.push({ kind: 'nport', id: p.id, nodes: [a1, b1, c1, d1], y: pairModel(lineSet, sub, pair.width, pair.gap, overlap, opts.line?.dispersion === 'none' ? 0 : 1, opts.lossless === true) });
         break;
       }
@@ -271,6 +268,51 @@ export function sweepRangeWarnings(sized: SizedDesign, fStop: number, opts: From
     }
   }
   return [...out.values()].map((x) => ({ ...x, message: `${x.message} (top of the sweep, ${fStop / 1e9} GHz; pieces ${(x.subjects ?? []).slice(0, 6).join(', ')}${(x.subjects ?? []).length > 6 ? ', …' : ''})` }));
+}
+
+/**
+ * Where a pair's strips run together and alone: they overlap where neither is cut (nominal length less the larger cut
+ * at each end); the strip cut less at an end runs on alone there as a plain line of its width (terminals a, b of the
+ * first strip, c, d of the second). One place for the network and for the build report (`build --json`).
+ */
+export function pairRuns(p: SizedPiece, p2: SizedPiece): { overlap: number; alone: { a: number; b: number; c: number; d: number } } {
+  const c1s = p.pair?.cuts ?? { near: 0, far: 0 }, c2s = p2.pair?.cuts ?? { near: 0, far: 0 };
+  const near = Math.max(c1s.near, c2s.near), far = Math.max(c1s.far, c2s.far);
+  const overlap = p.nominalLength - near - far;
+  if (!(overlap > 0)) throw new InputError('impossible-layout', p.id, 'a coupled pair whose strips still overlap after their end corrections', `${(overlap * 1e3).toFixed(3)} mm of overlap`);
+  return { overlap, alone: { a: near - c1s.near, b: far - c1s.far, c: near - c2s.near, d: far - c2s.far } };
+}
+
+/** A pair's even and odd mode figures at `f` as the sweep takes them (the sized design's line models, Getsinger dispersion unless `dispersion` is 'none'). */
+export function pairModesAt(sized: SizedDesign, p: SizedPiece, f: number, opts: FromSizedOptions = {}): ModalFigures<CoupledModeName> {
+  const pair = p.pair;
+  if (!pair) throw new InputError('impossible-layout', p.id, 'a coupled strip with its pair data', 'none');
+  const section = { kind: 'coupled-microstrip', substrate: sized.doc.substrate, width: pair.width, gap: pair.gap, options: { dispersion: opts.line?.dispersion === 'none' ? 'none' : 'getsinger' } } as const;
+  return modelsOf(sized, opts).evaluate(section, f) as ModalFigures<CoupledModeName>;
+}
+
+/** What the sweep takes of a coupled pair (its first strip `p`): runs, and mode figures at the design band's edges and f0. */
+export interface PairNetworkFigures {
+  partner: string; width: number; gap: number; overlap: number; alone: { a: number; b: number; c: number; d: number };
+  modes: { f: number; even: PairModeFigures; odd: PairModeFigures }[];
+}
+export interface PairModeFigures { z0: number; epsEff: number; alphaC: number; alphaD: number }
+
+/**
+ * The pair's figures as the sweep uses them, for the build report: an outside rebuild of the network (a reference
+ * test) takes them from there, so it checks the network and not the line model. Modes at the band's start, f0 and
+ * its stop (smooth in f: a rebuild may interpolate between them). Undefined for a second strip or a plain piece.
+ */
+export function pairNetworkFigures(sized: SizedDesign, p: SizedPiece): PairNetworkFigures | undefined {
+  if (p.kind !== 'coupled' || !p.pair || p.pair.strip !== 1) return undefined;
+  const p2 = sized.pieces.find((x) => x.id === p.pair!.partner);
+  if (!p2) return undefined;
+  const { overlap, alone } = pairRuns(p, p2);
+  const band = sized.doc.frequency.band;
+  const fs = [...new Set([Math.min(band.start, sized.f0), sized.f0, Math.max(band.stop, sized.f0)])];
+  const pick = (m: ModeFigures): PairModeFigures => ({ z0: m.z0, epsEff: m.epsEff, alphaC: m.alphaC, alphaD: m.alphaD });
+  const modes = fs.map((f) => { const r = pairModesAt(sized, p, f); return { f, even: pick(r.modes.even), odd: pick(r.modes.odd) }; });
+  return { partner: p.pair.partner, width: p.pair.width, gap: p.pair.gap, overlap, alone, modes };
 }
 
 /** A coupled pair's four-port at each frequency: even and odd modes from the line-model interface, then coupledPairY. */

@@ -18,7 +18,7 @@ export * from './touchstoneWrite.ts';
 export * from './touchstoneRead.ts';
 export * from './sparamsPart.ts';
 export * from './lineTwoPort.ts';
-export { netlistFromSized, sweepRangeWarnings, type FromSizedOptions, type SizedNetlist } from './fromSized.ts';
+export { netlistFromSized, sweepRangeWarnings, pairNetworkFigures, type FromSizedOptions, type SizedNetlist, type PairNetworkFigures } from './fromSized.ts';
 export { starAdmittance, type StarArm, type StarState } from './junctionStar.ts';
 export { compareResponses, type ResponseDifference, type EntryDifference } from './compare.ts';
 export { guessPortMap, measuredPortCount, measuredForDesign, compareMeasured } from './measured.ts';

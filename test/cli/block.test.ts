@@ -1,10 +1,10 @@
 /** `stripwright block`: writes a complete design that build and sweep take as is; refusals in words. */
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, readFileSync, existsSync } from 'node:fs';
+import { mkdtempSync, readFileSync, existsSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../../cli/main.ts';
-import { parseDesign } from '../../core/index.ts';
+import { parseDesign, newDesign, serializeDesign } from '../../core/index.ts';
 
 async function run(args: string[], cwd: string) {
   const out: string[] = []; const err: string[] = [];
@@ -132,5 +132,19 @@ describe('stripwright block (registry)', () => {
     expect(p.doc.frequency.band.stop).toBeGreaterThanOrEqual(host.doc.frequency.band.stop);
     const same = await run(['block', 'wilkinson', '--into', 'w.json', '--at', '0mm,60mm', '--out', 'two.json'], dir);
     expect(same.stdout).not.toMatch(/widened/);
+  });
+  it('--into an empty design nobody named names it after the block and f0, as the app does; a named host keeps its name', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    writeFileSync(join(dir, 'empty.json'), serializeDesign(newDesign({ name: 'Untitled feed', asMade: { sizing: 'microstrip', sideCopper: 'stitched' } })));
+    const i = await run(['block', 'branchline', '--into', 'empty.json', '--at', '0mm,0mm', '--out', 'named.json'], dir);
+    expect(i.code, i.stderr).toBe(0);
+    const p = parseDesign(readFileSync(join(dir, 'named.json'), 'utf8'));
+    if (!p.ok) throw new Error('refused');
+    expect(p.doc.name).toBe('Branch-line hybrid 2.45 GHz');
+    writeFileSync(join(dir, 'mine.json'), serializeDesign(newDesign({ name: 'Mast feed', asMade: { sizing: 'microstrip', sideCopper: 'stitched' } })));
+    expect((await run(['block', 'branchline', '--into', 'mine.json', '--at', '0mm,0mm', '--out', 'kept.json'], dir)).code).toBe(0);
+    const k = parseDesign(readFileSync(join(dir, 'kept.json'), 'utf8'));
+    if (!k.ok) throw new Error('refused');
+    expect(k.doc.name).toBe('Mast feed');
   });
 });

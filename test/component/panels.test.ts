@@ -130,10 +130,22 @@ describe('stack panel', () => {
     expect(ed.doc.substrate.h).toBe(1.6e-3);
   });
 
-  it('shows the dust caution for milling glass-fibre laminate', () => {
+  it('shows the dust caution for milling glass-fibre laminate, and no etchant caution for a milled board', () => {
     const ed = editorOn('demo');
+    ed.edit('design.setProcess', { process: { kind: 'end-mill', toolDiameter: 0.4e-3, depth: 0.1e-3 } });
     render(StackPanel, { editor: ed });
     expect(screen.getByTestId('stack-panel').textContent).toMatch(/dust/);
+    expect(screen.getByTestId('stack-panel').textContent).not.toMatch(/[Ee]tchant/);
+  });
+
+  it('an etched process shows the etchant cautions (corrosive, fumes, never down the drain) and the dust of drilling and cutting (common practice)', () => {
+    const ed = editorOn('demo');
+    ed.edit('design.setProcess', { process: { kind: 'etch', edgeBias: 0, minFeature: 0.2e-3 } });
+    render(StackPanel, { editor: ed });
+    const text = screen.getAllByTestId('process-caution').map((p) => p.textContent).join(' ');
+    expect(text).toMatch(/Etchants .* corrosive/);
+    expect(text).toMatch(/never pour etchant .* down the drain/);
+    expect(text).toMatch(/drilling or cutting .* dust/);
   });
 });
 

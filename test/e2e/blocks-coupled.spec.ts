@@ -22,6 +22,9 @@ test('place a 10 dB coupler from the command finder, read its coupling at f0, un
   await page.getByTestId('block-place').click();
   await expect(page.getByTestId('block-form')).toHaveCount(0);
   await expect(page.getByTestId('status')).toContainText('Placed: 10 dB coupled-line coupler');
+  // The coupler's band (0.8–1.2·f0) is wider than the new design's: the status says so, in the CLI's words.
+  await expect(page.getByTestId('status')).toContainText('design band widened from 2.4 GHz–2.5 GHz to 1.96 GHz–2.94 GHz');
+  await expect(page.getByTestId('design-name')).toHaveText('Coupled-line coupler 2.45 GHz');
   await page.getByTestId('dock-response').click();
   const f0 = page.locator('[data-testid^="f0-"]');
   await expect(f0).toHaveCount(4, { timeout: 30_000 });

@@ -66,6 +66,26 @@ describe('coupler block', () => {
       expect((e as InputError).expected).toMatch(/tightest coupling at 50\.0 Ω on this substrate is \d+\.\d\d dB/);
     }
   });
+  it('a malformed process (a hand-edited file) is refused naming its field, what it must be, what was found and the fix — never a NaN', () => {
+    const cases: [unknown, string, RegExp][] = [
+      [{ kind: 'end-mill', depth: 0.1e-3 }, 'process.toolDiameter', /nothing/],
+      [{ kind: 'v-bit', tipWidth: 0.1e-3, angleDeg: 'thirty', depth: 0.1e-3 }, 'process.angleDeg', /"thirty"/],
+      [{ kind: 'etch', edgeBias: 0, minFeature: -1 }, 'process.minFeature', /-1/],
+      [{ kind: 'laser' }, 'process.kind', /"laser"/],
+    ];
+    for (const [process, field, got] of cases) {
+      for (const make of [() => couplerBlock({ couplingDb: 10, f0: 2.45e9, substrate: FR4, process: process as never }), () => bandpassBlock({ order: 3, f0: 2.45e9, bw: 0.1, substrate: LOW_LOSS, process: process as never })]) {
+        let err: unknown = null;
+        try { make(); } catch (e) { err = e; }
+        expect(err).toBeInstanceOf(InputError);
+        const e = err as InputError;
+        expect(e.field).toBe(field);
+        expect(e.got).toMatch(got);
+        expect(e.hint).toMatch(/Process panel/);
+        expect(e.message).not.toMatch(/NaN/);
+      }
+    }
+  });
 });
 
 /** Band edges: the outermost crossings of `level` below the peak, interpolated. */

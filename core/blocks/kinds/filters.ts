@@ -227,22 +227,41 @@ export function bandstopSweep(sk: Sketch, ctx: BlockContext, levelDb: number): {
     return fs.map((_, k) => { const t = 2 * ((k * P + i) * P + j); return -20 * Math.log10(Math.hypot(r.s[t]!, r.s[t + 1]!)); });
   };
   const f0 = ctx.f0;
-  /** Walking from f0 towards `to`, the first frequency where the loss falls under the level, bisected. */
+  /** Loss at frequencies walking from f0 outwards (the solver takes rising frequencies: a falling walk is solved reversed). */
+  const walk = (fs: number[]): number[] => (fs[fs.length - 1]! > fs[0]! ? lossAt(fs) : lossAt([...fs].reverse()).reverse());
+  /**
+   * Walking from f0 towards `to`, the first frequency where the loss falls under the level: found on 60 steps, then
+   * on 32 finer ones inside the step that crosses, then read between the two points around it (one solve each: a
+   * bisection compiled the network once per halving).
+   */
   const edge = (to: number): number => {
     const fs = Array.from({ length: 61 }, (_, k) => f0 + ((to - f0) * k) / 60);
-    const up = to > f0, l = up ? lossAt(fs) : lossAt([...fs].reverse()).reverse(); // the solver takes rising frequencies
-    const k = l.findIndex((x) => x < levelDb);
+    const k = walk(fs).findIndex((x) => x < levelDb);
     if (k <= 0) return NaN;
-    let a = fs[k - 1]!, b = fs[k]!;
-    for (let it = 0; it < 20; it++) { const m = (a + b) / 2; if (lossAt([m])[0]! < levelDb) b = m; else a = m; }
-    return (a + b) / 2;
+    const fine = Array.from({ length: 33 }, (_, i) => fs[k - 1]! + ((fs[k]! - fs[k - 1]!) * i) / 32);
+    const l = walk(fine);
+    const i = l.findIndex((x) => x < levelDb);
+    if (i <= 0) return (fs[k - 1]! + fs[k]!) / 2;
+    return fine[i - 1]! + ((fine[i]! - fine[i - 1]!) * (l[i - 1]! - levelDb)) / (l[i - 1]! - l[i]!);
   };
   const lo = edge(f0 * VIEW[0]), hi = edge(f0 * VIEW[1]);
   if (!Number.isFinite(lo) || !Number.isFinite(hi)) return { lo, hi, passMaxDb: NaN };
   // The pass bands stop 0.5 % of f0 short of the edges, where the skirt has fallen below the level's last 0.05 dB.
   const a = lo - 0.005 * f0, b = hi + 0.005 * f0;
   const pass = [...Array.from({ length: 80 }, (_, k) => f0 * VIEW[0] + ((a - f0 * VIEW[0]) * k) / 79), ...Array.from({ length: 80 }, (_, k) => b + ((f0 * VIEW[1] - b) * k) / 79)];
-  return { lo, hi, passMaxDb: Math.max(...lossAt(pass)) };
+  const coarse = lossAt(pass);
+  // Ripple peaks are narrow near the edges: the three highest local peaks of the coarse look are looked at again
+  // on a fine grid between their neighbours (one solve).
+  // (The two bands are one list of 80 each, lower then upper: a peak is looked at between neighbours of its own band,
+  // and a band's end next to the stop band counts as a peak when it is higher than its one neighbour.)
+  const first = (k: number) => k % 80 === 0, last = (k: number) => k % 80 === 79;
+  const peaks = coarse.map((l, k) => ({ l, k })).filter(({ l, k }) => (first(k) || l >= coarse[k - 1]!) && (last(k) || l >= coarse[k + 1]!))
+    .sort((x, y) => y.l - x.l).slice(0, 4);
+  // The last ripple peak of each pass band sits right by the stop band's edge, where the junctions lift it most:
+  // the two coarse steps next to each edge are always looked at again too.
+  const windows: [number, number][] = [...peaks.map(({ k }): [number, number] => [pass[first(k) ? k : k - 1]!, pass[last(k) ? k : k + 1]!]), [pass[77]!, pass[79]!], [pass[80]!, pass[82]!]];
+  const fine = [...new Set(windows.flatMap(([wa, wb]) => Array.from({ length: 17 }, (_, i) => wa + ((wb - wa) * i) / 16)))].sort((x, y) => x - y);
+  return { lo, hi, passMaxDb: Math.max(...coarse, ...(fine.length ? lossAt(fine) : [])) };
 }
 
 export const bandstopBlock: BlockDef = {
@@ -256,6 +275,90 @@ export const bandstopBlock: BlockDef = {
     Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec, ctx) {
+    let made;
+    try { made = bandstopDesign(spec, ctx); } catch (e) {
+      // A row the fit or the process cannot make: the same refusal, with the nearest spec the block does make.
+      if (!(e instanceof InputError)) throw e;
+      if (e.field.startsWith('bandstop.')) throw withNearest(e, bandstopNearest(spec, ctx, 'band'));
+      // A model refusing the block's own sweep (a tee beyond its fit at the top of the view band): the block's spec.
+      const nearest = bandstopNearest(spec, ctx, 'band');
+      throw new InputError('out-of-range', 'bandstop.bw', 'a band-stop the junction models can sweep from 0.2·f0 to 1.8·f0', `${e.field}: ${e.got}`, nearest ? `the nearest it makes within spec: ${nearest}` : e.hint);
+    }
+    const miss = bandstopMiss(spec, made.made);
+    if (miss) throw bandstopRefusal(spec, made.made, miss, bandstopNearest(spec, ctx, made.made.rippleDb > (bandstopAsk(spec).rippleDb ?? Infinity) + 0.03 ? 'ripple' : 'band'));
+    return made.pieces;
+  },
+};
+
+/** The asked band-stop's figures: its stop bandwidth and (equal ripple) its pass-band ripple, as the spec gives them. */
+function bandstopAsk(spec: Spec): { n: number; bw: number; rippleDb: number | null } {
+  return { n: spec.order as number, bw: spec.bw as number, rippleDb: spec.response === 'chebyshev' ? spec.rippleDb as number : null };
+}
+
+/**
+ * How a made band-stop misses its own spec, or null when it meets it: the edges (at the ripple + 0.05 dB, or −3 dB)
+ * 5 % of the asked stop bandwidth apart at most, each within 5 % of its place f0·(1 ∓ Δ/2), and the pass bands' loss at most 0.03 dB above the asked ripple (the
+ * issue's figures for a filter block). What the lossless sweep with the junction models shows is what is judged.
+ */
+/** What the lossless sweep shows of a made band-stop: stop bandwidth and edges (fractions of f0), pass-band loss (dB). */
+interface Made { bw: number; lo: number; hi: number; rippleDb: number }
+
+function bandstopMiss(spec: Spec, made: Made): string | null {
+  const ask = bandstopAsk(spec);
+  if (!Number.isFinite(made.bw)) return 'its stop band did not reach the edge level in the sweep';
+  const off = made.bw / ask.bw - 1;
+  if (Math.abs(off) > 0.05) return `its edges fall ${(made.bw * 100).toFixed(1)} % apart (${(off * 100).toFixed(1)} % off)`;
+  const loOff = made.lo / (1 - ask.bw / 2) - 1, hiOff = made.hi / (1 + ask.bw / 2) - 1;
+  if (Math.abs(loOff) > 0.05 || Math.abs(hiOff) > 0.05) return `its edges fall at ${made.lo.toFixed(3)}·f0 and ${made.hi.toFixed(3)}·f0 (${(loOff * 100).toFixed(1)} % and ${(hiOff * 100).toFixed(1)} % off: the band is not centred)`;
+  if (ask.rippleDb !== null && made.rippleDb > ask.rippleDb + 0.03) return `its pass bands ripple ${made.rippleDb.toFixed(3)} dB`;
+  return null;
+}
+
+/** A refusal of the design steps with the nearest spec the block makes added to its fix. */
+function withNearest(e: InputError, nearest: string | null): InputError {
+  return new InputError(e.code, e.field, e.expected, e.got, nearest ? `the nearest it makes within spec: ${nearest}` : e.hint);
+}
+
+/** The refusal of a band-stop that was made but misses its spec. */
+function bandstopRefusal(spec: Spec, made: Made, miss: string, nearest: string | null): InputError {
+  const ask = bandstopAsk(spec);
+  const what = `order ${ask.n}, ${ask.rippleDb !== null ? `${ask.rippleDb} dB ripple, ` : 'maximally flat, '}${(ask.bw * 100).toFixed(1)} %`;
+  return new InputError('out-of-range', ask.rippleDb !== null && made.rippleDb > ask.rippleDb + 0.03 ? 'bandstop.rippleDb' : 'bandstop.bw',
+    'a band-stop that meets its own spec in the lossless sweep with the junction models (pass-band ripple at most 0.03 dB over the asked, edges within 5 % of their places and of the stop bandwidth)',
+    `${what}: ${miss}`, nearest ? `the nearest it makes within spec: ${nearest}` : 'ask for a lower order, a larger ripple or a band nearer 50 %');
+}
+
+/**
+ * The nearest spec the block makes within spec, tried in this order (each by designing it and sweeping it): for
+ * equal ripple a larger ripple at the same order and band (the junctions add a small fixed reflection a very small
+ * ripple cannot hide; the impedances also ease), then a wider stop band at the same order and ripple (narrow bands
+ * need stubs too thin to make), then the next lower order. Null when none of them is made.
+ */
+function bandstopNearest(spec: Spec, ctx: BlockContext, first: 'ripple' | 'band'): string | null {
+  const ask = bandstopAsk(spec);
+  const pct = (x: number) => `${+(x * 100).toFixed(1)} %`;
+  const dB = ask.rippleDb;
+  type Try = { spec: Spec; words: string };
+  const ripples: Try[] = dB === null ? [] : [dB * 2, dB * 5, dB * 20, dB * 100].map((x) => Math.min(3, +x.toPrecision(1)))
+    .filter((x, i, a) => x > dB && a.indexOf(x) === i).map((x) => ({ spec: { ...spec, rippleDb: x }, words: `${x} dB ripple at order ${ask.n} and ${pct(ask.bw)}` }));
+  const bands: Try[] = [0.2, 0.3, 0.5, 0.8].filter((x) => x > ask.bw + 1e-9)
+    .map((x) => ({ spec: { ...spec, bw: x }, words: `a ${pct(x)} stop band at order ${ask.n}${dB !== null ? ` and ${dB} dB` : ''}` }));
+  const orders: Try[] = Array.from({ length: ask.n - 1 }, (_, i) => ask.n - 1 - i)
+    .map((k) => ({ spec: { ...spec, order: k }, words: `order ${k} at the same ${dB !== null ? 'ripple and ' : ''}band` }));
+  // Last, the middle of the range (a 50 % band, and at least 1 dB of ripple for equal ripple), from the asked order down.
+  const middle: Try[] = Array.from({ length: ask.n }, (_, i) => ask.n - i).map((k) => ({
+    spec: { ...spec, order: k, bw: 0.5, ...(dB !== null ? { rippleDb: Math.max(1, dB) } : {}) },
+    words: `a 50 % stop band at order ${k}${dB !== null ? ` and ${Math.max(1, dB)} dB` : ''}`,
+  }));
+  for (const t of [...(first === 'ripple' ? [...ripples, ...bands] : [...bands, ...ripples]), ...orders, ...middle]) {
+    try { if (bandstopMiss(t.spec, bandstopDesign(t.spec, ctx).made) === null) return t.words; } catch (e) { if (!(e instanceof InputError)) throw e; }
+  }
+  return null;
+}
+
+/** The band-stop designed and corrected against its own lossless sweep, with what that sweep shows of it. */
+function bandstopDesign(spec: Spec, ctx: BlockContext): { pieces: BlockPieces; made: Made } {
+  {
     const z0 = spec.z0 as number, feed = spec.feed as number, bw = spec.bw as number, f0 = ctx.f0;
     const g = gValues(spec), n = spec.order as number, ripple = spec.response === 'chebyshev';
     const rippleDb = ripple ? spec.rippleDb as number : 3.0103;
@@ -321,28 +424,36 @@ export const bandstopBlock: BlockDef = {
     for (let pass = 0; pass < 2; pass++) { n2 = teeN2(drawn.sk); drawn = design(d, rippleDb, n2); }
     // The junctions also lift the ripple a little near the edges (most on thick FR-4): the design ripple is
     // lowered by what the sweep shows above the asked one.
-    let measured = NaN, r = rippleDb, seen = NaN;
+    let measured = NaN, r = rippleDb, seen = NaN, lo = NaN, hi = NaN;
+    // The draft kept is the measured one nearest its spec (the steps need not settle monotonically).
+    let best: { drawn: typeof drawn; measured: number; seen: number; lo: number; hi: number; d: number; r: number; score: number } | null = null;
     for (let it = 0; it < 8; it++) {
       const m = bandstopSweep(drawn.sk, ctx, level);
-      measured = (m.hi - m.lo) / f0; seen = m.passMaxDb;
+      measured = (m.hi - m.lo) / f0; seen = m.passMaxDb; lo = m.lo / f0; hi = m.hi / f0;
       if (!Number.isFinite(measured)) break;
       const over = ripple ? seen - rippleDb : 0;
+      const score = Math.max(Math.abs(measured / bw - 1) / 0.05, over / 0.03, Math.abs(lo / (1 - bw / 2) - 1) / 0.05, Math.abs(hi / (1 + bw / 2) - 1) / 0.05);
+      if (!best || score < best.score) best = { drawn, measured, seen, lo, hi, d, r, score };
       if (Math.abs(measured / bw - 1) < 0.005 && over < 0.02) break;
       d *= bw / measured;
-      if (over > 0.02) r = Math.max(0.01, r * rippleDb / seen);
+      if (over > 0.02) r = Math.max(0.002, r * rippleDb / seen);
       drawn = design(d, r, n2);
     }
+    if (best) ({ drawn, measured, seen, lo, hi, d, r } = best);
     const { sk, rows } = drawn;
     rows.push(`Designed with Δ = ${(d * 100).toFixed(1)} %${ripple ? ` and ${r.toFixed(3)} dB ripple` : ''} so the ${level.toFixed(2)} dB edges fall ${(bw * 100).toFixed(1)} % apart (lossless sweep${Number.isFinite(measured) ? `: ${(measured * 100).toFixed(1)} %${ripple ? `, pass bands within ${seen.toFixed(3)} dB` : ''}` : ''}).`);
     const kind = ripple ? `equal ripple ${rippleDb} dB (N stubs and N − 1 lines fitted to the optimum response, Horton and Wenzel 1965)` : 'maximally flat';
     return {
-      name: `Order ${n} band-stop, ${ghz(f0)}, ${(bw * 100).toFixed(0)} %`, nodes: sk.nodes, segments: sk.segments, phaseGroups: [],
-      targets: [{ id: 'stop', name: 'stop band', figure: 'insertion-loss', ports: ['src', 'load'], band: { start: f0, stop: f0 }, limit: { min: 20 } }],
-      notes: [`${bandstopBlock.title} (${bandstopBlock.source}): order ${n}, ${kind}, centre ${ghz(f0)}, ${(bw * 100).toFixed(1)} % bandwidth, ${z0} Ω.`, ...rows],
-      band: { start: f0 * 0.2, stop: f0 * 1.8 },
+      pieces: {
+        name: `Order ${n} band-stop, ${ghz(f0)}, ${(bw * 100).toFixed(0)} %`, nodes: sk.nodes, segments: sk.segments, phaseGroups: [],
+        targets: [{ id: 'stop', name: 'stop band', figure: 'insertion-loss', ports: ['src', 'load'], band: { start: f0, stop: f0 }, limit: { min: 20 } }],
+        notes: [`${bandstopBlock.title} (${bandstopBlock.source}): order ${n}, ${kind}, centre ${ghz(f0)}, ${(bw * 100).toFixed(1)} % bandwidth, ${z0} Ω.`, ...rows],
+        band: { start: f0 * 0.2, stop: f0 * 1.8 },
+      },
+      made: { bw: measured, lo, hi, rippleDb: ripple ? seen : 0 },
     };
-  },
-};
+  }
+}
 
 export const launchBlock: BlockDef = {
   kind: 'launch',

@@ -27,17 +27,22 @@ export function placeBlock(ed: EditorState, ask: BlockAsk): string | null {
   const clipboard = JSON.stringify({ format: 'stripwright-clipboard', version: 1, nodes: block.nodes, segments: block.segments, areas: [] });
   const before = new Set([...doc.nodes.map((n) => n.id), ...doc.segments.map((s) => s.id)]);
   // One step with the block's band (widening the design's) and, for an empty design, its default tolerances.
-  const ok = ed.edit('block.paste', { clipboard, offset, band: block.frequency.band, tolerances: block.tolerances }, ask.kind === 'coupler' ? 'Place coupler' : 'Place band-pass filter');
+  const was = ed.doc;
+  const named = nameFromBlock(was, ask.kind === 'coupler' ? 'Coupled-line coupler' : 'Edge-coupled band-pass');
+  const ok = ed.editAll([
+    { id: 'block.paste', args: { clipboard, offset, band: block.frequency.band, tolerances: block.tolerances } },
+    ...(named ? [{ id: 'design.setInfo', args: { name: named } }] : []),
+  ], ask.kind === 'coupler' ? 'Place coupler' : 'Place band-pass filter');
   if (!ok) return ed.status;
   const added = [...ed.doc.nodes.map((n) => n.id), ...ed.doc.segments.map((s) => s.id)].filter((id) => !before.has(id));
   ed.selectAndFrame(added);
-  ed.status = `Placed: ${block.name}`;
+  ed.status = placedWords(block.name, was, ed.doc, !(was.tolerances ?? []).length && (ed.doc.tolerances ?? []).length > 0);
   return null;
 }
 
 // ---- blocks of the registry (core/blocks/registry.ts), placed with their spec (block.put) -------------------------
 
-import { BLOCKS, bandChangeWords, blockPlacement, contextOf, generateBlock, respecPlacement, sizeDesign, netlistFromSized, solveNetwork, type BlockPlacement, type PlacedBlock } from '../../../core/index.ts';
+import { BLOCKS, blockPlacement, contextOf, generateBlock, respecPlacement, sizeDesign, netlistFromSized, solveNetwork, nameFromBlock, placedWords, type BlockPlacement, type PlacedBlock } from '../../../core/index.ts';
 
 /** The placed block a record (node or segment id) belongs to, if any. */
 export function blockOf(ed: EditorState, id: string | null): PlacedBlock | null {
@@ -68,10 +73,13 @@ export function previewBlock(ed: EditorState, kind: string, raw: Record<string, 
   return { name: pieces.name, notes: pieces.notes, pieces: shapes, levels, match: db(at(0, 0)) };
 }
 
-function put(ed: EditorState, pl: BlockPlacement, label: string): boolean {
-  // One step: the pieces, the design band widened to the block's (never narrowed), and for an empty design the
-  // default tolerances of its laminate and process.
-  return ed.edit('block.put', { record: pl.record, nodes: pl.nodes, segments: pl.segments, phaseGroups: pl.phaseGroups, targets: pl.targets, band: pl.band, ...(pl.tolerances ? { tolerances: pl.tolerances } : {}) }, label);
+function put(ed: EditorState, pl: BlockPlacement, label: string, name: string | null = null): boolean {
+  // One step: the pieces, the design band widened to the block's (never narrowed), for an empty design the default
+  // tolerances of its laminate and process, and for an empty unnamed design its name from the block.
+  return ed.editAll([
+    { id: 'block.put', args: { record: pl.record, nodes: pl.nodes, segments: pl.segments, phaseGroups: pl.phaseGroups, targets: pl.targets, band: pl.band, ...(pl.tolerances ? { tolerances: pl.tolerances } : {}) } },
+    ...(name ? [{ id: 'design.setInfo', args: { name } }] : []),
+  ], label);
 }
 
 /** Places a block of the registry at `at`; returns null, or the reason it was not placed (in the user's words). */
@@ -80,11 +88,9 @@ export function placeRegistered(ed: EditorState, kind: string, raw: Record<strin
   try { pl = blockPlacement(ed.doc, kind, raw, at); } catch (e) { if (e instanceof InputError) return words(e); throw e; }
   const title = BLOCKS.find((b) => b.kind === kind)?.title ?? kind;
   const before = ed.doc;
-  if (!put(ed, pl, `Place ${title.toLowerCase()}`)) return ed.status;
+  if (!put(ed, pl, `Place ${title.toLowerCase()}`, nameFromBlock(before, title))) return ed.status;
   ed.selectAndFrame(pl.record.members);
-  const b = ed.doc.frequency.band, widened = bandChangeWords(before, ed.doc) !== null;
-  const ghz = (f: number) => `${+(f / 1e9).toFixed(4)}`;
-  ed.status = `Placed: ${pl.name}${widened ? `; band now ${ghz(b.start)}–${ghz(b.stop)} GHz` : ''}${pl.tolerances ? '; default tolerances added' : ''}`;
+  ed.status = placedWords(pl.name, before, ed.doc, !!pl.tolerances);
   return null;
 }
 

@@ -137,6 +137,22 @@ export class EditorState {
   /** Rises when a drag ends: the settled design is laid out by the worker again (its copper was made live). */
   settled = $state(0);
 
+  /** Runs several design commands as one undo step (all or nothing: a refusal undoes the ones already run). */
+  editAll(steps: { id: string; args: unknown }[], label: string): boolean {
+    if (steps.length === 1) return this.edit(steps[0]!.id, steps[0]!.args, label);
+    this.history.beginLive(label);
+    try {
+      for (const s of steps) this.history.apply(s.id, s.args);
+      this.history.commitLive();
+      this.canUndo = this.history.canUndo;
+      return true;
+    } catch (err) {
+      this.history.cancelLive();
+      this.status = err instanceof InputError ? `Not done: ${errorWords(err)}` : `Not done: ${String(err)}`;
+      return false;
+    }
+  }
+
   /** A pointer drag is in progress (a live step not opened by typing in a field): autosave waits for its end. */
   get dragging(): boolean { return this.history.isLive && this.field === null; }
 
