@@ -11,7 +11,7 @@
  *    ∠S_ai − ∠S_bi − expected, wrapped into (−180°, 180°];
  *  - Smith-chart data: Γ = S_ii as re/im (the chart is the Γ plane; normalised impedance z = (1 + Γ)/(1 − Γ)).
  */
-import type { NetworkResponse } from './response.ts';
+import { requireEntry, type NetworkResponse } from './response.ts';
 
 const DB_FLOOR = -400; // |S| = 0 exactly (an ideal null) shows as −400 dB instead of −∞.
 
@@ -20,6 +20,7 @@ export function toDb(mag: number): number {
 }
 
 function series(r: NetworkResponse, i: number, j: number): { re: Float64Array; im: Float64Array } {
+  requireEntry(r, i, j);
   const P = r.ports.length, F = r.freqs.length;
   const re = new Float64Array(F), im = new Float64Array(F);
   for (let k = 0; k < F; k++) { const t = 2 * ((k * P + i) * P + j); re[k] = r.s[t]; im[k] = r.s[t + 1]; }

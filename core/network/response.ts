@@ -20,16 +20,37 @@ export interface NetworkResponse {
   /** S[k][i][j] (b_i / a_j at freqs[k]): re at 2·((k·P + i)·P + j), im one after. Power waves, real references. */
   s: Float64Array;
   warnings: Warning[];
+  /**
+   * Absent: every S_ij was computed. Present: only these (a sweep asked for some entries, mna.ts SolveEntries); the
+   * others hold 0 and must not be read — `requireEntry` refuses them, and every reader of series checks it.
+   */
+  computed?: Uint8Array;
+}
+
+/** Refuses a read of S_ij that the sweep did not compute (a sweep asked for some entries only). */
+export function requireEntry(r: Pick<NetworkResponse, 'ports' | 'computed'>, i: number, j: number): void {
+  const P = r.ports.length;
+  if (r.computed && !r.computed[i * P + j]) {
+    throw new InputError('out-of-range', `S${i + 1},${j + 1}`, 'an S-parameter the sweep computed (this sweep was asked for some entries only)', 'an entry left out', 'sweep with every entry');
+  }
+}
+
+/** Refuses a response whose sweep left some entries out, for readers of the whole matrix (Touchstone, conversions). */
+export function requireAll(r: Pick<NetworkResponse, 'ports' | 'computed'>): void {
+  const at = r.computed ? r.computed.indexOf(0) : -1;
+  if (at >= 0) requireEntry(r, Math.floor(at / r.ports.length), at % r.ports.length);
 }
 
 /** S_ij at point k. i, j are zero-based port indices. */
 export function sAt(r: NetworkResponse, k: number, i: number, j: number): Complex {
+  requireEntry(r, i, j);
   const P = r.ports.length, t = 2 * ((k * P + i) * P + j);
   return { re: r.s[t], im: r.s[t + 1] };
 }
 
 /** The P×P matrix at point k (a view, not a copy). */
 export function matrixAt(r: NetworkResponse, k: number): Float64Array {
+  requireAll(r);
   const P = r.ports.length;
   return r.s.subarray(2 * k * P * P, 2 * (k + 1) * P * P);
 }

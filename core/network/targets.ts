@@ -10,7 +10,7 @@ import { InputError } from '../util/errors.ts';
 import { hypot } from '../util/hypot.ts';
 import type { DesignDoc, Target, TargetFigure } from '../design/types.ts';
 import { FIGURE_UNIT_SUFFIX, FIGURE_WORDS, type FigureUnit } from '../design/targets.ts';
-import type { NetworkResponse } from './response.ts';
+import { requireEntry, type NetworkResponse } from './response.ts';
 import { sweepFrequencies, type SweepSettings } from './sweep.ts';
 import { groupDelay, toDb, wrap180 } from './figures.ts';
 
@@ -57,11 +57,13 @@ function port(r: NetworkResponse, id: string, field: string): number {
 }
 
 function sMag(r: NetworkResponse, k: number, i: number, j: number): number {
+  requireEntry(r, i, j);
   const P = r.ports.length, t = 2 * ((k * P + i) * P + j);
   return hypot(r.s[t]!, r.s[t + 1]!);
 }
 
 function sDeg(r: NetworkResponse, k: number, i: number, j: number): number {
+  requireEntry(r, i, j);
   const P = r.ports.length, t = 2 * ((k * P + i) * P + j);
   return (Math.atan2(r.s[t + 1]!, r.s[t]!) * 180) / Math.PI;
 }

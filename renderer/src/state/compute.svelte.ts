@@ -53,9 +53,13 @@ export class Compute {
   private following = false;
   private lastFullMs = 0;
 
-  constructor(private readonly editor: EditorState, makeWorker: (() => Worker) | null = defaultWorker()) {
+  /**
+   * @param makeWorker the compute worker (layout and the rest); null runs every job inline (component tests)
+   * @param makeResponseWorker the response worker (worker/response.worker.ts); by default one when `makeWorker` is given
+   */
+  constructor(private readonly editor: EditorState, makeWorker: (() => Worker) | null = defaultWorker(), makeResponseWorker: (() => Worker) | null = makeWorker ? responseWorker() : null) {
     this.client = new ComputeClient(makeWorker, runJob);
-    this.sweeper = new ComputeClient(makeWorker, runJob);
+    this.sweeper = new ComputeClient(makeResponseWorker, runJob);
   }
 
   get threaded(): boolean { return this.client.threaded; }
@@ -312,6 +316,11 @@ export class Compute {
   }
 
   destroy(): void { this.client.destroy(); this.sweeper.destroy(); }
+}
+
+function responseWorker(): (() => Worker) | null {
+  if (typeof Worker === 'undefined') return null;
+  return () => new Worker(new URL('../worker/response.worker.ts', import.meta.url), { type: 'module' });
 }
 
 function defaultWorker(): (() => Worker) | null {
