@@ -27,7 +27,7 @@ import { cdiv, cmul, type Complex } from './complex.ts';
 import { denseLuFactor, denseLuSolve } from './denseLu.ts';
 import { GROUND, type NetElement, type Netlist } from './netlist.ts';
 import type { GridValues } from './sweepValues.ts';
-import { forwardColumns, selectedInverse, sparseFactor, sparseSolveMany, sparseSolveTransposed, symbolicFactor, type Symbolic } from './ordering.ts';
+import { forwardColumns, selectedInverse, sparseFactorInPlace, sparseSolveMany, sparseSolveTransposed, symbolicFactor, type Symbolic } from './ordering.ts';
 
 /** Below this |sinh γl| a line is stamped in ABCD form (the Y stamp loses about 4 digits there). */
 const SINH_LIMIT = 1e-4;
@@ -205,8 +205,26 @@ interface Evaluated {
    */
   flat: Float64Array;
   nport: (Float64Array | null)[];
+  /** Where each n-port's matrix starts in `nport[idx]` (a kept block holds every frequency's). */
+  nportAt: Int32Array;
   abcd: Uint8Array;
   anyAbcd: boolean;
+}
+
+/**
+ * Buffers one frequency's solve writes and reads, reused at every point (solveAt is synchronous): a fresh typed
+ * array per point for each of these cost more than the arithmetic on them.
+ */
+interface Work { flat: Float64Array; nport: (Float64Array | null)[]; nportAt: Int32Array; abcd: Uint8Array; v: Float64Array; rowScale: Float64Array }
+const works = new WeakMap<CompiledNetwork, Work>();
+function workOf(cn: CompiledNetwork): Work {
+  let w = works.get(cn);
+  if (!w) {
+    const E = cn.stamped.length;
+    w = { flat: new Float64Array(8 * E), nport: new Array<Float64Array | null>(E).fill(null), nportAt: new Int32Array(E), abcd: new Uint8Array(E), v: new Float64Array(2 * cn.symbolic.nnz), rowScale: new Float64Array(cn.symbolic.n) };
+    works.set(cn, w);
+  }
+  return w;
 }
 
 function finite(c: Complex, what: string, f: number): Complex {
@@ -232,9 +250,8 @@ export function valueBlocks(cn: CompiledNetwork, grid: GridValues): (Float64Arra
 
 function evaluate(cn: CompiledNetwork, f: number, kept?: PointValues): Evaluated {
   const E = cn.stamped.length;
-  const flat = new Float64Array(8 * E);
-  const nport: (Float64Array | null)[] = new Array(E).fill(null);
-  const abcd = new Uint8Array(E);
+  const { flat, nport, nportAt, abcd } = workOf(cn);
+  nport.fill(null); nportAt.fill(0); abcd.fill(0);
   let anyAbcd = false;
   for (let idx = 0; idx < E; idx++) {
     const s = cn.stamped[idx], o = 8 * idx;
@@ -243,7 +260,7 @@ function evaluate(cn: CompiledNetwork, f: number, kept?: PointValues): Evaluated
       // A kept value: the same key computed these very numbers at this frequency before (state 1: Y form, 2: ABCD).
       const w = s.kind === 'nport' ? 2 * s.nodes.length * s.nodes.length : 8, at = (w + 1) * kept!.k, state = block[at + w];
       if (state !== 0) {
-        if (s.kind === 'nport') nport[idx] = block.subarray(at, at + w);
+        if (s.kind === 'nport') { nport[idx] = block; nportAt[idx] = at; }
         else {
           for (let q = 0; q < 8; q++) flat[o + q] = block[at + q];
           if (state === 2) { abcd[idx] = 1; anyAbcd = true; }
@@ -251,7 +268,7 @@ function evaluate(cn: CompiledNetwork, f: number, kept?: PointValues): Evaluated
         continue;
       }
       evaluateOne(s, idx, f, flat, nport, abcd);
-      if (s.kind === 'nport') { block.set(nport[idx]!, at); nport[idx] = block.subarray(at, at + w); } else block.set(flat.subarray(o, o + 8), at);
+      if (s.kind === 'nport') { block.set(nport[idx]!, at); nport[idx] = block; nportAt[idx] = at; } else block.set(flat.subarray(o, o + 8), at);
       block[at + w] = abcd[idx] ? 2 : 1;
       if (abcd[idx]) anyAbcd = true;
       continue;
@@ -259,7 +276,7 @@ function evaluate(cn: CompiledNetwork, f: number, kept?: PointValues): Evaluated
     evaluateOne(s, idx, f, flat, nport, abcd);
     if (abcd[idx]) anyAbcd = true;
   }
-  return { flat, nport, abcd, anyAbcd };
+  return { flat, nport, nportAt, abcd, anyAbcd };
 }
 
 /** One element's values at f into the flat arrays (8 numbers at 8·idx, or its n-port matrix). */
@@ -326,13 +343,16 @@ export function solveAt(cn: CompiledNetwork, f: number, out?: Float64Array, opts
 /** Stamps every element into the fixed pattern and factors it (no pivoting); returns the values and the smallest pivot ratio. */
 function assembleAndFactor(cn: CompiledNetwork, ev: Evaluated): { v: Float64Array; minRatio: number } {
   const sym = cn.symbolic;
-  const v = new Float64Array(2 * sym.nnz);
-  const { flat, nport } = ev;
+  const work = workOf(cn);
+  const v = work.v;
+  v.fill(0);
+  const { flat, nport, nportAt } = ev;
   for (let idx = 0; idx < cn.stamped.length; idx++) {
     const sl = cn.slots[idx];
     const x = nport[idx];
     if (x) {
-      for (let t = 0; t < sl.length; t++) if (sl[t] >= 0) { v[2 * sl[t]] += x[2 * t]; v[2 * sl[t] + 1] += x[2 * t + 1]; }
+      const x0 = nportAt[idx];
+      for (let t = 0; t < sl.length; t++) if (sl[t] >= 0) { v[2 * sl[t]] += x[x0 + 2 * t]; v[2 * sl[t] + 1] += x[x0 + 2 * t + 1]; }
       continue;
     }
     const o = 8 * idx;
@@ -342,15 +362,15 @@ function assembleAndFactor(cn: CompiledNetwork, ev: Evaluated): { v: Float64Arra
     }
   }
   for (const p of cn.ports) v[2 * sym.diag[sym.position[p.node]]] += 1 / p.zRef;
-  const rowScale = new Float64Array(sym.n);
+  const rowScale = work.rowScale;
+  rowScale.fill(0);
   const rows = sym.rowOfSlot;
   for (let t = 0; t < sym.nnz; t++) {
     const a = v[2 * t], b = v[2 * t + 1], m = a * a + b * b, r = rows[t];
     if (m > rowScale[r]) rowScale[r] = m;
   }
   for (let r = 0; r < sym.n; r++) rowScale[r] = Math.sqrt(rowScale[r]);
-  const { minRatio } = sparseFactor(sym, v, rowScale);
-  return { v, minRatio };
+  return { v, minRatio: sparseFactorInPlace(sym, v, rowScale) };
 }
 
 function solveSparse(cn: CompiledNetwork, ev: Evaluated, s: Float64Array): number {
@@ -392,8 +412,10 @@ export interface EntryPlan {
   diag: boolean;
   /** fromInverse[i] = 1 where S_ii comes from the selected inverse (in no asked column or row). */
   fromInverse: Uint8Array;
-  /** computed[i·P + j] = 1 where S_ij is computed. */
-  computed: Uint8Array;
+  /** computed[i·P + j]: 0 where S_ij is left out, else its place among the computed entries, from 1 (response.ts). */
+  computed: Int32Array;
+  /** The dense offsets i·P + j of the computed entries, in their order. */
+  gather: Int32Array;
   X: Float64Array;
   Y: Float64Array;
   Z: Float64Array;
@@ -407,15 +429,17 @@ export function planEntries(cn: CompiledNetwork, e: SolveEntries): EntryPlan {
     return Int32Array.from(new Set(xs)).sort();
   };
   const cols = pick(e.columns, 'columns'), rows = pick(e.rows, 'rows');
-  const computed = new Uint8Array(P * P);
+  const computed = new Int32Array(P * P);
   for (const j of cols) for (let i = 0; i < P; i++) computed[i * P + j] = 1;
   for (const i of rows) for (let j = 0; j < P; j++) computed[i * P + j] = 1;
   let diag = false;
   const fromInverse = new Uint8Array(P);
   if (e.diagonal) for (let i = 0; i < P; i++) if (!computed[i * P + i]) { diag = true; fromInverse[i] = 1; computed[i * P + i] = 1; }
+  const gather: number[] = [];
+  for (let t = 0; t < P * P; t++) if (computed[t]) { gather.push(t); computed[t] = gather.length; }
   const sym = cn.symbolic, n = sym.n;
   return {
-    entries: { columns: [...cols], rows: [...rows], diagonal: e.diagonal }, cols, rows, diag, fromInverse, computed,
+    entries: { columns: [...cols], rows: [...rows], diagonal: e.diagonal }, cols, rows, diag, fromInverse, computed, gather: Int32Array.from(gather),
     ranges: forwardColumns(sym, Array.from(cols, (j) => sym.position[cn.ports[j].node])),
     X: new Float64Array(2 * n * cols.length), Y: new Float64Array(2 * n * rows.length), Z: new Float64Array(diag ? 2 * sym.nnz : 0),
   };
@@ -480,7 +504,7 @@ function solveDense(cn: CompiledNetwork, ev: Evaluated, f: number, s: Float64Arr
   const add = (i: number, j: number, re: number, im: number) => { if (i >= 0 && j >= 0) { const p = 2 * (i * n + j); a[p] += re; a[p + 1] += im; } };
   cn.stamped.forEach((st, idx) => {
     const o = 8 * idx;
-    const x = st.kind === 'nport' ? ev.nport[idx]! : ev.flat.subarray(o, o + 8);
+    const x = st.kind === 'nport' ? ev.nport[idx]!.subarray(ev.nportAt[idx], ev.nportAt[idx] + 2 * st.nodes.length * st.nodes.length) : ev.flat.subarray(o, o + 8);
     if (st.kind === 'nport') {
       const m = st.nodes.length;
       for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) add(st.nodes[i], st.nodes[j], x[2 * (i * m + j)], x[2 * (i * m + j) + 1]);

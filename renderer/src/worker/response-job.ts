@@ -8,7 +8,7 @@
  * the view reads (core viewEntries: the input's column and row and every reflection, plus what the targets read).
  */
 import type { DesignDoc } from '../../../core/index.ts';
-import { namer, magnitudeDb, phaseDeg, groupDelay, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, viewEntries, sweepDesign, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/index.ts';
+import { namer, magnitudeDb, phaseDeg, groupDelayOfPhase, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, viewEntries, sweepDesign, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/index.ts';
 import { InputError, errorWords } from '../../../core/index.ts';
 import type { Progress } from './client.ts';
 import { pipeline } from './worker-pipeline.ts';
@@ -44,6 +44,13 @@ export interface ResponseOutput {
 const sweepCache = new SweepCache(8);
 /** The netlist's input port and notes of each cached sweep (the cache keeps only the response). */
 const sweepMeta = new Map<string, { input: number; warnings: string[] }>();
+
+/** A typed array as a list (a plain loop: spreading walks it through the iterator protocol, several times slower). */
+function list(xs: Float64Array): number[] {
+  const out = new Array<number>(xs.length);
+  for (let k = 0; k < xs.length; k++) out[k] = xs[k]!;
+  return out;
+}
 
 function errorText(err: unknown): string {
   return err instanceof InputError ? errorWords(err) : err instanceof Error ? err.message : String(err);
@@ -84,9 +91,11 @@ export async function responseJob(input: ResponseInput, progress: (p: Progress) 
   for (let i = 0; i < P; i++) for (let j = 0; j < P; j++) {
     // Large networks: the input's row and column (what the panel offers); S itself stays in the cache.
     if (P > 4 && i !== inputPort && j !== inputPort) continue;
-    traces.push({ i, j, db: [...magnitudeDb(r, i, j)], phase: [...phaseDeg(r, i, j)], delay: [...groupDelay(r, i, j)] });
+    // The phase once, for its trace and its delay (core groupDelay's own arithmetic on it).
+    const phase = phaseDeg(r, i, j);
+    traces.push({ i, j, db: list(magnitudeDb(r, i, j)), phase: list(phase), delay: list(groupDelayOfPhase(r.freqs, phase)) });
   }
-  const sm = Array.from({ length: P }, (_, i) => { const s = smith(r, i); return { i, re: [...s.re], im: [...s.im] }; });
+  const sm = Array.from({ length: P }, (_, i) => { const s = smith(r, i); return { i, re: list(s.re), im: list(s.im) }; });
   let targets: TargetEvaluation | null = null, targetError: string | null = null;
   if (doc.targets?.length) {
     try { targets = evaluateTargets(r, doc); } catch (err) { targetError = errorText(err); }
