@@ -26,8 +26,12 @@ export const COARSE_POINTS = 21;
  * finishes, so a drag keeps showing full responses instead of cancelling each one before it ends.
  */
 export const LIVE_SWEEP_BUDGET_MS = 400;
-/** A design whose last full sweep took at most this (ms) is swept live without the coarse pass first. */
-export const DIRECT_FULL_MS = 100;
+/**
+ * A design whose last full sweep took at most this (ms) is swept live without the coarse pass first: the coarse pass
+ * only delays the full response, and since a drag's sweep re-computes only what the drag changed (core sweepDesign)
+ * the 64-output feed's full pass fits here.
+ */
+export const DIRECT_FULL_MS = 300;
 
 export class Compute {
   private readonly client: ComputeClient;
