@@ -129,6 +129,8 @@ export async function run(): Promise<void> {
   await initPolygons();
   workerPipeline.memo.clear();
   await editFrame();
+  // PIPELINE_BENCH_ONLY=edit: the edit frame alone.
+  if (process.env.PIPELINE_BENCH_ONLY === 'edit') return;
   await growth();
   reuse();
 }

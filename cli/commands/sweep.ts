@@ -8,7 +8,7 @@ import { parseArgs } from 'node:util';
 import { existsSync } from 'node:fs';
 import { basename, resolve } from 'node:path';
 import {
-  InputError, parseDesign, formatQuantity, portLabel, sizeDesign, netlistFromSized, sweepRangeWarnings, sweepNetwork,
+  InputError, parseDesign, formatQuantity, portLabel, sweepRangeWarnings, DesignPipeline, sweepDesign,
   readTouchstone, writeTouchstone, summarize, magnitudeDb, phaseDeg, groupDelay, returnLoss, vswr, amplitudeBalance,
   phaseBalance, isolation, portIndex, compareResponses, compareMeasured, guessPortMap, MAX_POINTS, designSweepSettings, type MeasuredFile,
   type NetworkResponse, type DesignDoc, type TouchstoneData, type JunctionChoice, type ResponseDifference, type SweepSettings, type TouchstoneFormat, type FrequencyUnit, type Warning,
@@ -162,12 +162,15 @@ async function loadDesign(text: string, shown: string, s: SweepFlags, io: CliIo)
     return null;
   }
   const doc = parsed.doc;
-  const sized = sizeDesign(doc, s.junctions ? { junctions: s.junctions } : {});
-  const net = netlistFromSized(sized, sized.lineOptions ? { line: sized.lineOptions } : {});
+  // The core's one sweep of a design (the app's response worker calls the same); --junctions is the design's own
+  // setting for this run.
+  const pipeline = new DesignPipeline({ capacity: 4 });
+  const asSwept = s.junctions ? { ...doc, junctions: s.junctions } : doc;
+  const sized = pipeline.sized(asSwept);
   const settings: SweepSettings | Float64Array = s.freqs ?? settingsFor(doc, s);
   let lastShown = -1;
   const tty = Boolean((process.stderr as { isTTY?: boolean }).isTTY);
-  const response = await sweepNetwork(net, settings, {
+  const { response, net } = await sweepDesign(pipeline, asSwept, settings, {
     chunk: 200,
     onProgress: (done, total) => {
       if (!tty || total < 2000) return;

@@ -11,7 +11,7 @@
  *    ∠S_ai − ∠S_bi − expected, wrapped into (−180°, 180°];
  *  - Smith-chart data: Γ = S_ii as re/im (the chart is the Γ plane; normalised impedance z = (1 + Γ)/(1 − Γ)).
  */
-import type { NetworkResponse } from './response.ts';
+import { entryAt, type NetworkResponse } from './response.ts';
 
 const DB_FLOOR = -400; // |S| = 0 exactly (an ideal null) shows as −400 dB instead of −∞.
 
@@ -20,9 +20,9 @@ export function toDb(mag: number): number {
 }
 
 function series(r: NetworkResponse, i: number, j: number): { re: Float64Array; im: Float64Array } {
-  const P = r.ports.length, F = r.freqs.length;
+  const { base, stride } = entryAt(r, i, j), F = r.freqs.length;
   const re = new Float64Array(F), im = new Float64Array(F);
-  for (let k = 0; k < F; k++) { const t = 2 * ((k * P + i) * P + j); re[k] = r.s[t]; im[k] = r.s[t + 1]; }
+  for (let k = 0; k < F; k++) { const t = base + k * stride; re[k] = r.s[t]; im[k] = r.s[t + 1]; }
   return { re, im };
 }
 
@@ -57,7 +57,12 @@ export function unwrapDeg(p: Float64Array): Float64Array {
 
 /** Group delay of S_ij, s: −dφ/dω with φ the unwrapped phase (central differences; NaN-free, 0 for one point). */
 export function groupDelay(r: NetworkResponse, i: number, j: number): Float64Array {
-  const ph = phaseDeg(r, i, j), f = r.freqs, F = f.length;
+  return groupDelayOfPhase(r.freqs, phaseDeg(r, i, j));
+}
+
+/** Group delay, s, from the unwrapped phase `ph` (degrees) at frequencies `f` (Hz): groupDelay's arithmetic, for a caller that has the phase already. */
+export function groupDelayOfPhase(f: Float64Array, ph: Float64Array): Float64Array {
+  const F = f.length;
   const out = new Float64Array(F);
   if (F < 2) return out;
   for (let k = 0; k < F; k++) {

@@ -46,6 +46,7 @@ import { foldLegs, foldShareRad, type Fold } from '../layout/folds.ts';
 import { GROUND, type LineModel, type NetElement, type NetPort, type Netlist } from './netlist.ts';
 import { sparamsAdmittance } from './sparamsPart.ts';
 import { namer } from '../design/names.ts';
+import { objectId, type SweepValues } from './sweepValues.ts';
 
 export interface FromSizedOptions {
   /** Line options; default: those the sizing used (`sized.lineOptions`, the as-made cross-section tables). */
@@ -65,6 +66,11 @@ export interface FromSizedOptions {
   /** Drop conductor and dielectric loss from every line and coupled pair (a lossless copy, for checking a design
    * against its ideal response). Lumped parts and vias keep theirs. */
   lossless?: boolean;
+  /**
+   * Line constants kept across revisions (sweepValues.ts), by cross-section and frequency: a drag that changes
+   * lengths asks the line model nothing new. The same numbers as without it.
+   */
+  values?: SweepValues;
 }
 
 export interface SizedNetlist extends Netlist {
@@ -94,19 +100,26 @@ export function netlistFromSized(sized: SizedDesign, given: FromSizedOptions = {
   };
 
   // One memo per width: the sweep asks every piece at one frequency before the next, and pieces share widths.
+  // Each model carries a key naming all its numbers depend on, so a sweep may keep its values across revisions.
+  const sectionKey = `${objectId(lineSet)}|${JSON.stringify(sub)}|${lineOptionsKey(opts.line)}|${opts.lossless ? 'lossless' : 'lossy'}`;
   const models = new Map<number, LineModel>();
+  const values = opts.values;
   const defaultModelFor = (width: number): LineModel => {
     let m = models.get(width);
     if (!m) {
       let lastF = NaN, last: ReturnType<LineModel> | null = null;
-      m = (f) => {
+      const key = `${sectionKey}|w=${width}`;
+      const compute = (f: number) => {
+        const mode = strip.evaluate({ kind: 'microstrip', substrate: sub, width, options: opts.line }, f).modes.single;
+        return opts.lossless ? losslessConstantsOfMode(mode) : lineConstantsOfMode(mode, f);
+      };
+      m = Object.assign((f: number) => {
         if (f !== lastF || !last) {
-          const mode = strip.evaluate({ kind: 'microstrip', substrate: sub, width, options: opts.line }, f).modes.single;
-          last = opts.lossless ? losslessConstantsOfMode(mode) : lineConstantsOfMode(mode, f);
+          last = values ? values.line(key, f, () => compute(f)) : compute(f);
           lastF = f;
         }
         return last;
-      };
+      }, { key });
       models.set(width, m);
     }
     return m;
@@ -133,6 +146,7 @@ export function netlistFromSized(sized: SizedDesign, given: FromSizedOptions = {
 
   const pieceModel = (p: SizedPiece): LineModel => (opts.lineModel ? opts.lineModel(p.width, p) : defaultModelFor(p.width));
   teeElements(sized, pieces, pieceModel, terminal, trimmed, elements, warnings, sub.h);
+  const pairKey = `${objectId(lineSet)}|${JSON.stringify(sub)}|${opts.lossless ? 'lossless' : 'lossy'}`;
 
   // A caller's own line models are used as given (no fold share): their folds need not be found.
   const legs = opts.lineModel ? new Map<string, Fold[]>() : foldLegs(sized);
@@ -185,7 +199,8 @@ export function netlistFromSized(sized: SizedDesign, given: FromSizedOptions = {
         };
         a1 = alone(a1, runs.a, 'alone-a'); b1 = alone(b1, runs.b, 'alone-b');
         c1 = alone(c1, runs.c, 'alone-c'); d1 = alone(d1, runs.d, 'alone-d');
-        elements.push({ kind: 'nport', id: p.id, nodes: [a1, b1, c1, d1], y: pairModel(lineSet, sub, pair.width, pair.gap, overlap, opts.line?.dispersion === 'none' ? 0 : 1, opts.lossless === true) });
+        const disp = opts.line?.dispersion === 'none' ? 0 : 1;
+        elements.push({ kind: 'nport', id: p.id, nodes: [a1, b1, c1, d1], y: pairModel(lineSet, sub, pair.width, pair.gap, overlap, disp, opts.lossless === true), key: `pair|${pairKey}|${pair.width}|${pair.gap}|${overlap}|${disp}` });
         break;
       }
       case 'sparams': {
@@ -231,12 +246,18 @@ export function netlistFromSized(sized: SizedDesign, given: FromSizedOptions = {
 
 /** A leg's line model with half of each of its folds' coupling share added to β over the leg's length. */
 function withFoldShare(base: LineModel, sub: SubstrateSpec, folds: readonly Fold[], length: number): LineModel {
-  return (f) => {
+  const model = (f: number) => {
     const c = base(f);
     let extra = 0;
     for (const fold of folds) extra += foldShareRad(sub, fold, f) / 2;
     return { zc: c.zc, gamma: { re: c.gamma.re, im: c.gamma.im + extra / length } };
   };
+  return base.key === undefined ? model : Object.assign(model, { key: `${base.key}|folds=${JSON.stringify(folds)}|${length}` });
+}
+
+/** The line options as text for keys: the models chosen and the cross-section source's own key. */
+function lineOptionsKey(o: LineOptions | undefined): string {
+  return `${o?.dispersion ?? ''}|${o?.conductorLoss ?? ''}|${o?.crossSection?.key ?? ''}`;
 }
 
 /**
@@ -393,13 +414,16 @@ function teeElements(
       return inner;
     });
     const arms = ids.map((id) => ({ model: pieceModel(pieces.get(id)!) }));
+    const armKeys = arms.map((a) => a.model.key);
+    // Everything y(f) below reads: the arms' lines, the kept lengths and the junction's own figures.
+    const key = armKeys.every((k) => k !== undefined) ? `tee|${JSON.stringify(t.arms)}|${h}|${keep.join(',')}|${armKeys.join('§')}` : undefined;
     const where = `nodes.${n.id}`;
     const planes = new Float64Array(4);
     const prep = prepareTee(t.arms.main, t.arms.branch, h);
     const state = { lengths: [0, 0, 0], n: [1, 1, 1] };
     const buf = starBuffers(3);
     elements.push({
-      kind: 'nport', id: `${n.id}:tee`, nodes,
+      kind: 'nport', id: `${n.id}:tee`, nodes, ...(key !== undefined ? { key } : {}),
       y: (f) => {
         teeShiftsInto(prep, f, planes);
         state.lengths[0] = keep[0]! - planes[0]!; state.lengths[1] = keep[1]! - planes[1]!; state.lengths[2] = keep[2]! - planes[2]!;

@@ -9,10 +9,12 @@
  */
 export * from './complex.ts';
 export * from './netlist.ts';
-export { compileNetwork, solveAt, type CompiledNetwork, type PointSolution } from './mna.ts';
+export { compileNetwork, solveAt, planEntries, type CompiledNetwork, type PointSolution, type SolveEntries, type EntryPlan } from './mna.ts';
 export * from './conversions.ts';
 export * from './response.ts';
 export * from './sweep.ts';
+export { SweepValues } from './sweepValues.ts';
+export { viewEntries } from './entries.ts';
 export * from './figures.ts';
 export * from './touchstoneWrite.ts';
 export * from './touchstoneRead.ts';

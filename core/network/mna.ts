@@ -26,7 +26,8 @@ import { InputError } from '../util/errors.ts';
 import { cdiv, cmul, type Complex } from './complex.ts';
 import { denseLuFactor, denseLuSolve } from './denseLu.ts';
 import { GROUND, type NetElement, type Netlist } from './netlist.ts';
-import { forwardColumns, sparseFactor, sparseSolveMany, symbolicFactor, type Symbolic } from './ordering.ts';
+import type { GridValues } from './sweepValues.ts';
+import { forwardColumns, selectedInverse, sparseFactorInPlace, sparseSolveMany, sparseSolveTransposed, symbolicFactor, type Symbolic } from './ordering.ts';
 
 /** Below this |sinh γl| a line is stamped in ABCD form (the Y stamp loses about 4 digits there). */
 const SINH_LIMIT = 1e-4;
@@ -35,10 +36,11 @@ const PIVOT_LIMIT = 1e-8;
 /** Below this pivot ratio the pivoting solve reports the network as singular. */
 const SINGULAR_LIMIT = 1e-13;
 
+/** `key`: the element's values at a frequency are a function of it alone (null: compute them every time). */
 type Stamped =
-  | { kind: 'y2'; el: NetElement; a: number; b: number; y: (f: number) => Complex }
-  | { kind: 'line'; el: Extract<NetElement, { kind: 'line' }>; a: number; b: number }
-  | { kind: 'nport'; el: Extract<NetElement, { kind: 'nport' }>; nodes: number[] };
+  | { kind: 'y2'; el: NetElement; a: number; b: number; y: (f: number) => Complex; key: null }
+  | { kind: 'line'; el: Extract<NetElement, { kind: 'line' }>; a: number; b: number; key: string | null }
+  | { kind: 'nport'; el: Extract<NetElement, { kind: 'nport' }>; nodes: number[]; key: string | null };
 
 /** A netlist prepared for repeated solves: nodes merged and numbered, pattern and ordering fixed. */
 export interface CompiledNetwork {
@@ -59,8 +61,14 @@ function requirePositive(field: string, v: number, what: string): void {
   if (typeof v !== 'number' || !Number.isFinite(v) || v < 0) throw new InputError('out-of-range', field, what, String(v));
 }
 
-/** Checks, merges zero-length wires, numbers nodes, fixes the elimination order. Throws InputError. */
-export function compileNetwork(net: Netlist): CompiledNetwork {
+/** Somewhere to keep elimination orders by the network's shape (sweepValues.ts): a drag changes lengths, not shape. */
+export interface SymbolicMemo { symbolic(key: string, make: () => Symbolic): Symbolic }
+
+/**
+ * Checks, merges zero-length wires, numbers nodes, fixes the elimination order. Throws InputError. With `memo`, the
+ * order of a network of the same shape (nodes and who joins whom) is reused: the same computation, the same order.
+ */
+export function compileNetwork(net: Netlist, memo?: SymbolicMemo): CompiledNetwork {
   if (net.ports.length === 0) throw new InputError('singular-network', 'ports', 'at least one port', 'none');
   // Union-find over node names: zero-length lines, 0 Ω resistors and 0 H inductors are wires.
   const parent = new Map<string, string>();
@@ -136,17 +144,17 @@ export function compileNetwork(net: Netlist): CompiledNetwork {
   const stamped: Stamped[] = [];
   for (const el of kept) {
     switch (el.kind) {
-      case 'line': stamped.push({ kind: 'line', el, a: num(el.a), b: num(el.b) }); break;
-      case 'resistor': { const g = 1 / el.value; stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: () => ({ re: g, im: 0 }) }); break; }
-      case 'capacitor': { const c = el.value; stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: (f) => ({ re: 0, im: 2 * Math.PI * f * c }) }); break; }
-      case 'inductor': { const l = el.value; stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: (f) => ({ re: 0, im: -1 / (2 * Math.PI * f * l) }) }); break; }
+      case 'line': stamped.push({ kind: 'line', el, a: num(el.a), b: num(el.b), key: el.model.key !== undefined ? `L|${el.model.key}|${el.length}` : null }); break;
+      case 'resistor': { const g = 1 / el.value; stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: () => ({ re: g, im: 0 }), key: null }); break; }
+      case 'capacitor': { const c = el.value; stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: (f) => ({ re: 0, im: 2 * Math.PI * f * c }), key: null }); break; }
+      case 'inductor': { const l = el.value; stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: (f) => ({ re: 0, im: -1 / (2 * Math.PI * f * l) }), key: null }); break; }
       case 'series-rl': {
         const { r, l } = el;
-        stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: (f) => cdiv({ re: 1, im: 0 }, { re: typeof r === 'number' ? r : r(f), im: 2 * Math.PI * f * l }) });
+        stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: (f) => cdiv({ re: 1, im: 0 }, { re: typeof r === 'number' ? r : r(f), im: 2 * Math.PI * f * l }), key: null });
         break;
       }
-      case 'admittance': stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: el.y }); break;
-      case 'nport': stamped.push({ kind: 'nport', el, nodes: el.nodes.map(num) }); break;
+      case 'admittance': stamped.push({ kind: 'y2', el, a: num(el.a), b: num(el.b), y: el.y, key: null }); break;
+      case 'nport': stamped.push({ kind: 'nport', el, nodes: el.nodes.map(num), key: el.key !== undefined ? `N|${el.nodes.length}|${el.key}` : null }); break;
     }
   }
   const n = nodeNames.length;
@@ -166,7 +174,7 @@ export function compileNetwork(net: Netlist): CompiledNetwork {
       `node${floating.length > 1 ? 's' : ''} ${floating.slice(0, 6).join(', ')}${floating.length > 6 ? ', …' : ''} floating (reaching no port)`,
       'join them to the network or delete them');
   }
-  const symbolic = symbolicFactor(n, adj);
+  const symbolic = memo ? memo.symbolic(shapeKey(n, adj), () => symbolicFactor(n, adj)) : symbolicFactor(n, adj);
   const P = symbolic.position;
   const slotOr = (i: number, j: number) => (i < 0 || j < 0 ? -1 : symbolic.slot(P[i], P[j]));
   const slots = stamped.map((s) => {
@@ -182,6 +190,13 @@ export function compileNetwork(net: Netlist): CompiledNetwork {
   return { nodeNames, ports, stamped, symbolic, slots, portColumns, scratch: new Float64Array(2 * n * ports.length) };
 }
 
+/** The network's shape as text: each node's neighbours in the order symbolicFactor reads them. */
+function shapeKey(n: number, adj: number[][]): string {
+  let s = `${n}`;
+  for (let i = 0; i < n; i++) s += `;${adj[i].join(',')}`;
+  return s;
+}
+
 /** Element values at one frequency, shared by both paths. */
 interface Evaluated {
   /**
@@ -190,8 +205,26 @@ interface Evaluated {
    */
   flat: Float64Array;
   nport: (Float64Array | null)[];
+  /** Where each n-port's matrix starts in `nport[idx]` (a kept block holds every frequency's). */
+  nportAt: Int32Array;
   abcd: Uint8Array;
   anyAbcd: boolean;
+}
+
+/**
+ * Buffers one frequency's solve writes and reads, reused at every point (solveAt is synchronous): a fresh typed
+ * array per point for each of these cost more than the arithmetic on them.
+ */
+interface Work { flat: Float64Array; nport: (Float64Array | null)[]; nportAt: Int32Array; abcd: Uint8Array; v: Float64Array; rowScale: Float64Array }
+const works = new WeakMap<CompiledNetwork, Work>();
+function workOf(cn: CompiledNetwork): Work {
+  let w = works.get(cn);
+  if (!w) {
+    const E = cn.stamped.length;
+    w = { flat: new Float64Array(8 * E), nport: new Array<Float64Array | null>(E).fill(null), nportAt: new Int32Array(E), abcd: new Uint8Array(E), v: new Float64Array(2 * cn.symbolic.nnz), rowScale: new Float64Array(cn.symbolic.n) };
+    works.set(cn, w);
+  }
+  return w;
 }
 
 function finite(c: Complex, what: string, f: number): Complex {
@@ -201,14 +234,55 @@ function finite(c: Complex, what: string, f: number): Complex {
   return c;
 }
 
-function evaluate(cn: CompiledNetwork, f: number): Evaluated {
+/**
+ * Kept values of one sweep point (sweepValues.ts): per stamped element its block of the grid (null: not kept), and
+ * the point's index in the grid.
+ */
+export interface PointValues { blocks: (Float64Array | null)[]; k: number }
+
+/** Each stamped element's block in a grid's kept values (by its key; null for elements without one). */
+export function valueBlocks(cn: CompiledNetwork, grid: GridValues): (Float64Array | null)[] {
+  return cn.stamped.map((s) => {
+    if (s.key === null) return null;
+    return grid.stamp(s.key, s.kind === 'nport' ? 2 * s.nodes.length * s.nodes.length : 8);
+  });
+}
+
+function evaluate(cn: CompiledNetwork, f: number, kept?: PointValues): Evaluated {
   const E = cn.stamped.length;
-  const flat = new Float64Array(8 * E);
-  const nport: (Float64Array | null)[] = new Array(E).fill(null);
-  const abcd = new Uint8Array(E);
+  const { flat, nport, nportAt, abcd } = workOf(cn);
+  nport.fill(null); nportAt.fill(0); abcd.fill(0);
   let anyAbcd = false;
   for (let idx = 0; idx < E; idx++) {
     const s = cn.stamped[idx], o = 8 * idx;
+    const block = kept ? kept.blocks[idx] : null;
+    if (block) {
+      // A kept value: the same key computed these very numbers at this frequency before (state 1: Y form, 2: ABCD).
+      const w = s.kind === 'nport' ? 2 * s.nodes.length * s.nodes.length : 8, at = (w + 1) * kept!.k, state = block[at + w];
+      if (state !== 0) {
+        if (s.kind === 'nport') { nport[idx] = block; nportAt[idx] = at; }
+        else {
+          for (let q = 0; q < 8; q++) flat[o + q] = block[at + q];
+          if (state === 2) { abcd[idx] = 1; anyAbcd = true; }
+        }
+        continue;
+      }
+      evaluateOne(s, idx, f, flat, nport, abcd);
+      if (s.kind === 'nport') { block.set(nport[idx]!, at); nport[idx] = block; nportAt[idx] = at; } else block.set(flat.subarray(o, o + 8), at);
+      block[at + w] = abcd[idx] ? 2 : 1;
+      if (abcd[idx]) anyAbcd = true;
+      continue;
+    }
+    evaluateOne(s, idx, f, flat, nport, abcd);
+    if (abcd[idx]) anyAbcd = true;
+  }
+  return { flat, nport, nportAt, abcd, anyAbcd };
+}
+
+/** One element's values at f into the flat arrays (8 numbers at 8·idx, or its n-port matrix). */
+function evaluateOne(s: Stamped, idx: number, f: number, flat: Float64Array, nport: (Float64Array | null)[], abcd: Uint8Array): void {
+  const o = 8 * idx;
+  {
     if (s.kind === 'y2') {
       const y = finite(s.y(f), `${s.el.id}.admittance`, f);
       flat[o] = y.re; flat[o + 1] = y.im; flat[o + 2] = y.re; flat[o + 3] = y.im;
@@ -222,7 +296,7 @@ function evaluate(cn: CompiledNetwork, f: number): Evaluated {
       const c = Math.cos(xi), sn = Math.sin(xi), shr = Math.sinh(xr), chr = Math.cosh(xr);
       const coR = chr * c, coI = shr * sn, siR = shr * c, siI = chr * sn;
       if (siR * siR + siI * siI < SINH_LIMIT * SINH_LIMIT) {
-        abcd[idx] = 1; anyAbcd = true;
+        abcd[idx] = 1;
         const B = cmul(zc, { re: siR, im: siI }), C = cdiv({ re: siR, im: siI }, zc);
         flat[o] = coR; flat[o + 1] = coI; flat[o + 2] = B.re; flat[o + 3] = B.im;
         flat[o + 4] = C.re; flat[o + 5] = C.im; flat[o + 6] = coR; flat[o + 7] = coI;
@@ -243,7 +317,6 @@ function evaluate(cn: CompiledNetwork, f: number): Evaluated {
       nport[idx] = y;
     }
   }
-  return { flat, nport, abcd, anyAbcd };
 }
 
 /** Result of one frequency: S (P×P, row-major interleaved) and whether the pivoting path was needed. */
@@ -254,28 +327,32 @@ export interface PointSolution { s: Float64Array; robust: boolean; pivotRatio: n
  * `method: 'dense'` forces the pivoting path (for cross-checks). Throws InputError('singular-network') when the
  * network itself is singular at f.
  */
-export function solveAt(cn: CompiledNetwork, f: number, out?: Float64Array, opts: { method?: 'auto' | 'dense' } = {}): PointSolution {
+export function solveAt(cn: CompiledNetwork, f: number, out?: Float64Array, opts: { method?: 'auto' | 'dense'; entries?: EntryPlan; kept?: PointValues } = {}): PointSolution {
   if (!(f > 0) || !Number.isFinite(f)) throw new InputError('out-of-range', 'frequency', 'a frequency > 0 Hz', String(f));
   const P = cn.ports.length;
   const s = out ?? new Float64Array(2 * P * P);
-  const ev = evaluate(cn, f);
+  const ev = evaluate(cn, f, opts.kept);
   if (!ev.anyAbcd && opts.method !== 'dense') {
-    const r = solveSparse(cn, ev, s);
+    const r = opts.entries ? solveSparseEntries(cn, ev, s, opts.entries) : solveSparse(cn, ev, s);
     if (r >= PIVOT_LIMIT) return { s, robust: false, pivotRatio: r };
   }
   const ratio = solveDense(cn, ev, f, s);
   return { s, robust: true, pivotRatio: ratio };
 }
 
-function solveSparse(cn: CompiledNetwork, ev: Evaluated, s: Float64Array): number {
+/** Stamps every element into the fixed pattern and factors it (no pivoting); returns the values and the smallest pivot ratio. */
+function assembleAndFactor(cn: CompiledNetwork, ev: Evaluated): { v: Float64Array; minRatio: number } {
   const sym = cn.symbolic;
-  const v = new Float64Array(2 * sym.nnz);
-  const { flat, nport } = ev;
+  const work = workOf(cn);
+  const v = work.v;
+  v.fill(0);
+  const { flat, nport, nportAt } = ev;
   for (let idx = 0; idx < cn.stamped.length; idx++) {
     const sl = cn.slots[idx];
     const x = nport[idx];
     if (x) {
-      for (let t = 0; t < sl.length; t++) if (sl[t] >= 0) { v[2 * sl[t]] += x[2 * t]; v[2 * sl[t] + 1] += x[2 * t + 1]; }
+      const x0 = nportAt[idx];
+      for (let t = 0; t < sl.length; t++) if (sl[t] >= 0) { v[2 * sl[t]] += x[x0 + 2 * t]; v[2 * sl[t] + 1] += x[x0 + 2 * t + 1]; }
       continue;
     }
     const o = 8 * idx;
@@ -285,14 +362,20 @@ function solveSparse(cn: CompiledNetwork, ev: Evaluated, s: Float64Array): numbe
     }
   }
   for (const p of cn.ports) v[2 * sym.diag[sym.position[p.node]]] += 1 / p.zRef;
-  const rowScale = new Float64Array(sym.n);
+  const rowScale = work.rowScale;
+  rowScale.fill(0);
   const rows = sym.rowOfSlot;
   for (let t = 0; t < sym.nnz; t++) {
     const a = v[2 * t], b = v[2 * t + 1], m = a * a + b * b, r = rows[t];
     if (m > rowScale[r]) rowScale[r] = m;
   }
   for (let r = 0; r < sym.n; r++) rowScale[r] = Math.sqrt(rowScale[r]);
-  const { minRatio } = sparseFactor(sym, v, rowScale);
+  return { v, minRatio: sparseFactorInPlace(sym, v, rowScale) };
+}
+
+function solveSparse(cn: CompiledNetwork, ev: Evaluated, s: Float64Array): number {
+  const sym = cn.symbolic;
+  const { v, minRatio } = assembleAndFactor(cn, ev);
   if (!(minRatio >= PIVOT_LIMIT)) return minRatio;
   const P = cn.ports.length;
   // All port excitations at once: column j is port j driven with E_j = 2√Z_j (injected current E_j/Z_j).
@@ -311,6 +394,107 @@ function solveSparse(cn: CompiledNetwork, ev: Evaluated, s: Float64Array): numbe
   return minRatio;
 }
 
+/**
+ * Which S entries a solve is asked for: whole columns (the excitations j: every S_ij), whole rows (every S_ij of an
+ * i, from one solve with the transposed factors) and the diagonal (every reflection S_ii, from the selected inverse).
+ * A plot of a feed reads the input's column and row and every port's reflection: three solves' worth per point
+ * instead of one per port.
+ */
+export interface SolveEntries { columns: readonly number[]; rows: readonly number[]; diagonal: boolean }
+
+/** SolveEntries checked and prepared for one compiled network (buffers and the forward-substitution ranges). */
+export interface EntryPlan {
+  entries: SolveEntries;
+  cols: Int32Array;
+  ranges: Int32Array;
+  rows: Int32Array;
+  /** The diagonal needs the selected inverse (some reflection is in no asked column or row). */
+  diag: boolean;
+  /** fromInverse[i] = 1 where S_ii comes from the selected inverse (in no asked column or row). */
+  fromInverse: Uint8Array;
+  /** computed[i·P + j]: 0 where S_ij is left out, else its place among the computed entries, from 1 (response.ts). */
+  computed: Int32Array;
+  /** The dense offsets i·P + j of the computed entries, in their order. */
+  gather: Int32Array;
+  X: Float64Array;
+  Y: Float64Array;
+  Z: Float64Array;
+}
+
+/** Checks `e` against the network's ports (InputError naming the bad index) and prepares its buffers. */
+export function planEntries(cn: CompiledNetwork, e: SolveEntries): EntryPlan {
+  const P = cn.ports.length;
+  const pick = (xs: readonly number[], field: string) => {
+    for (const [k, x] of xs.entries()) if (!Number.isInteger(x) || x < 0 || x >= P) throw new InputError('out-of-range', `entries.${field}[${k}]`, `a port index from 0 to ${P - 1}`, String(x));
+    return Int32Array.from(new Set(xs)).sort();
+  };
+  const cols = pick(e.columns, 'columns'), rows = pick(e.rows, 'rows');
+  const computed = new Int32Array(P * P);
+  for (const j of cols) for (let i = 0; i < P; i++) computed[i * P + j] = 1;
+  for (const i of rows) for (let j = 0; j < P; j++) computed[i * P + j] = 1;
+  let diag = false;
+  const fromInverse = new Uint8Array(P);
+  if (e.diagonal) for (let i = 0; i < P; i++) if (!computed[i * P + i]) { diag = true; fromInverse[i] = 1; computed[i * P + i] = 1; }
+  const gather: number[] = [];
+  for (let t = 0; t < P * P; t++) if (computed[t]) { gather.push(t); computed[t] = gather.length; }
+  const sym = cn.symbolic, n = sym.n;
+  return {
+    entries: { columns: [...cols], rows: [...rows], diagonal: e.diagonal }, cols, rows, diag, fromInverse, computed, gather: Int32Array.from(gather),
+    ranges: forwardColumns(sym, Array.from(cols, (j) => sym.position[cn.ports[j].node])),
+    X: new Float64Array(2 * n * cols.length), Y: new Float64Array(2 * n * rows.length), Z: new Float64Array(diag ? 2 * sym.nnz : 0),
+  };
+}
+
+/** The fast path for some entries only: the asked excitations, transposed solves for the rows, the selected inverse for the diagonal. */
+function solveSparseEntries(cn: CompiledNetwork, ev: Evaluated, s: Float64Array, plan: EntryPlan): number {
+  const sym = cn.symbolic;
+  const { v, minRatio } = assembleAndFactor(cn, ev);
+  if (!(minRatio >= PIVOT_LIMIT)) return minRatio;
+  const P = cn.ports.length, pos = sym.position, ports = cn.ports;
+  const g = (i: number) => 1 / Math.sqrt(ports[i].zRef);
+  const { cols, rows, X, Y } = plan;
+  const mc = cols.length, mr = rows.length;
+  if (mc) {
+    // As solveSparse: column c is port cols[c] driven with E_j = 2√Z_j.
+    X.fill(0);
+    for (let c = 0; c < mc; c++) X[2 * (pos[ports[cols[c]].node] * mc + c)] = 2 / Math.sqrt(ports[cols[c]].zRef);
+    sparseSolveMany(sym, v, X, mc, plan.ranges);
+    for (let i = 0; i < P; i++) {
+      const row = 2 * pos[ports[i].node] * mc, gi = g(i);
+      for (let c = 0; c < mc; c++) {
+        const j = cols[c], t = 2 * (i * P + j);
+        s[t] = X[row + 2 * c] * gi - (i === j ? 1 : 0);
+        s[t + 1] = X[row + 2 * c + 1] * gi;
+      }
+    }
+  }
+  if (mr) {
+    // Row i of A⁻¹ from Aᵀ·y = e_i: S_ij = (A⁻¹)_ij · 2/√Z_j · 1/√Z_i − δ_ij.
+    Y.fill(0);
+    for (let r = 0; r < mr; r++) Y[2 * (pos[ports[rows[r]].node] * mr + r)] = 1;
+    sparseSolveTransposed(sym, v, Y, mr);
+    for (let r = 0; r < mr; r++) {
+      const i = rows[r], gi = g(i);
+      for (let j = 0; j < P; j++) {
+        const at = 2 * (pos[ports[j].node] * mr + r), k = (2 / Math.sqrt(ports[j].zRef)) * gi, t = 2 * (i * P + j);
+        s[t] = Y[at] * k - (i === j ? 1 : 0);
+        s[t + 1] = Y[at + 1] * k;
+      }
+    }
+  }
+  if (plan.diag) {
+    const Z = plan.Z;
+    selectedInverse(sym, v, Z);
+    for (let i = 0; i < P; i++) {
+      if (!plan.fromInverse[i]) continue;
+      const d = 2 * sym.diag[pos[ports[i].node]], k = (2 / Math.sqrt(ports[i].zRef)) * g(i), t = 2 * (i * P + i);
+      s[t] = Z[d] * k - 1;
+      s[t + 1] = Z[d + 1] * k;
+    }
+  }
+  return minRatio;
+}
+
 function solveDense(cn: CompiledNetwork, ev: Evaluated, f: number, s: Float64Array): number {
   const n0 = cn.nodeNames.length;
   const extra: number[] = [];
@@ -320,7 +504,7 @@ function solveDense(cn: CompiledNetwork, ev: Evaluated, f: number, s: Float64Arr
   const add = (i: number, j: number, re: number, im: number) => { if (i >= 0 && j >= 0) { const p = 2 * (i * n + j); a[p] += re; a[p + 1] += im; } };
   cn.stamped.forEach((st, idx) => {
     const o = 8 * idx;
-    const x = st.kind === 'nport' ? ev.nport[idx]! : ev.flat.subarray(o, o + 8);
+    const x = st.kind === 'nport' ? ev.nport[idx]!.subarray(ev.nportAt[idx], ev.nportAt[idx] + 2 * st.nodes.length * st.nodes.length) : ev.flat.subarray(o, o + 8);
     if (st.kind === 'nport') {
       const m = st.nodes.length;
       for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) add(st.nodes[i], st.nodes[j], x[2 * (i * m + j)], x[2 * (i * m + j) + 1]);

@@ -17,8 +17,12 @@ export interface LineConstants {
   gamma: Complex;
 }
 
-/** Gives a line's constants at a frequency (Hz). Called once per line per frequency. */
-export type LineModel = (f: number) => LineConstants;
+/**
+ * Gives a line's constants at a frequency (Hz). Called once per line per frequency. `key`, when present, names
+ * everything the constants depend on (two models with one key give the same numbers), so a sweep may keep its
+ * values from one revision to the next (sweepValues.ts).
+ */
+export type LineModel = ((f: number) => LineConstants) & { readonly key?: string };
 
 /** Frequency-dependent admittance, S. */
 export type AdmittanceFn = (f: number) => Complex;
@@ -36,7 +40,7 @@ export type NetElement =
    * An n-port against ground given by its admittance matrix (n×n, row-major, interleaved re/im, S).
    * Nodes may repeat GROUND for a terminal tied to the return.
    */
-  | { kind: 'nport'; id: string; nodes: string[]; y: (f: number) => Float64Array };
+  | { kind: 'nport'; id: string; nodes: string[]; y: (f: number) => Float64Array; /** Names all that y depends on (as LineModel's key). */ key?: string };
 
 /** A port: the node it drives and its real reference impedance (Ω, > 0). */
 export interface NetPort { name: string; node: string; zRef: number; /** What people call the port (its label), when it has one. */ label?: string }

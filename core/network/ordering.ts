@@ -213,3 +213,92 @@ export function sparseSolveMany(s: Symbolic, v: Float64Array, X: Float64Array, m
     }
   }
 }
+
+/**
+ * Solves Aᵀ·Y = B with the factors from sparseFactor (A = L·U, L unit lower at lowSlot, U with the pivots on its
+ * diagonal and U_ku at upSlot), for `m` right-hand sides laid out as in sparseSolveMany. Row i of A⁻¹ is the
+ * solution for the i-th unit vector, so one such solve gives every S_ij of one row i (every excitation j) without
+ * solving each excitation. Forward with Uᵀ (lower, pivots on the diagonal), then back with Lᵀ (unit upper).
+ */
+export function sparseSolveTransposed(s: Symbolic, v: Float64Array, Y: Float64Array, m: number): void {
+  const { n, diag, upStart, upper, lowSlot, upSlot } = s;
+  const w = 2 * m;
+  for (let k = 0; k < n; k++) {
+    const bk = k * w;
+    const d = 2 * diag[k];
+    const pr = v[d], pi = v[d + 1], m2 = pr * pr + pi * pi;
+    const ir = pr / m2, ii = -pi / m2;
+    for (let c = 0; c < w; c += 2) {
+      const xr = Y[bk + c], xi = Y[bk + c + 1];
+      Y[bk + c] = xr * ir - xi * ii;
+      Y[bk + c + 1] = xr * ii + xi * ir;
+    }
+    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
+      const bi = upper[t] * w, p = 2 * upSlot[t];
+      const ur = v[p], ui = v[p + 1];
+      for (let c = 0; c < w; c += 2) {
+        const xr = Y[bk + c], xi = Y[bk + c + 1];
+        Y[bi + c] -= ur * xr - ui * xi;
+        Y[bi + c + 1] -= ur * xi + ui * xr;
+      }
+    }
+  }
+  for (let k = n - 1; k >= 0; k--) {
+    const bk = k * w;
+    for (let t = upStart[k]; t < upStart[k + 1]; t++) {
+      const bj = upper[t] * w, p = 2 * lowSlot[t];
+      const lr = v[p], li = v[p + 1];
+      for (let c = 0; c < w; c += 2) {
+        const xr = Y[bj + c], xi = Y[bj + c + 1];
+        Y[bk + c] -= lr * xr - li * xi;
+        Y[bk + c + 1] -= lr * xi + li * xr;
+      }
+    }
+  }
+}
+
+/**
+ * The entries of A⁻¹ on the filled pattern of its factors (diagonal included), from the factors of sparseFactor, into
+ * `Z` (2·nnz, slot by slot like `v`). The recurrences of K. Takahashi, J. Fagan and M.-S. Chen, "Formation of a sparse
+ * bus impedance matrix and its application to short circuit study", Proc. 8th PICA Conference, 1973, as set out by
+ * A. M. Erisman and W. F. Tinney, "On computing certain elements of the inverse of a sparse matrix", Communications
+ * of the ACM 18(3), 1975, pp. 177–179: with A = L·D·Ũ (Ũ = D⁻¹·U unit upper), for k from the last pivot down and
+ * j among k's later neighbours,
+ *   Z_kj = −Σ_u Ũ_ku·Z_uj,   Z_jk = −Σ_u Z_ju·L_uk,   Z_kk = 1/d_k − Σ_u Ũ_ku·Z_uk   (u over k's later neighbours).
+ * Every Z_uj these read lies in the filled pattern (k's later neighbours form a clique there), so the whole diagonal
+ * of A⁻¹ — each port's driving-point impedance, hence every reflection S_ii — costs about one more factorisation,
+ * instead of one solve per port. The symbolic `ops` of pivot k list (i, j) over its sorted later neighbours i, j in
+ * row-major order, which gives each Z_uj's slot without a lookup.
+ */
+export function selectedInverse(s: Symbolic, v: Float64Array, Z: Float64Array): void {
+  const { n, diag, upStart, lowSlot, upSlot, opStart, ops } = s;
+  for (let k = n - 1; k >= 0; k--) {
+    const d = 2 * diag[k];
+    const pr = v[d], pi = v[d + 1], m2 = pr * pr + pi * pi;
+    const ir = pr / m2, ii = -pi / m2;
+    const u0 = upStart[k], m = upStart[k + 1] - u0, o0 = opStart[k];
+    for (let b = 0; b < m; b++) {
+      let kr = 0, ki = 0, jr = 0, ji = 0;
+      for (let a = 0; a < m; a++) {
+        // Ũ_ku = U_ku / d_k; Z_uj at op (a, b); Z_ju at op (b, a); L_uk is stored already divided by d_k.
+        const up = 2 * upSlot[u0 + a], ur0 = v[up], ui0 = v[up + 1];
+        const ur = ur0 * ir - ui0 * ii, ui = ur0 * ii + ui0 * ir;
+        const zuj = 2 * ops[3 * (o0 + a * m + b)], zr = Z[zuj], zi = Z[zuj + 1];
+        kr -= ur * zr - ui * zi; ki -= ur * zi + ui * zr;
+        const zju = 2 * ops[3 * (o0 + b * m + a)], yr = Z[zju], yi = Z[zju + 1];
+        const lp = 2 * lowSlot[u0 + a], lr = v[lp], li = v[lp + 1];
+        jr -= yr * lr - yi * li; ji -= yr * li + yi * lr;
+      }
+      const kj = 2 * upSlot[u0 + b], jk = 2 * lowSlot[u0 + b];
+      Z[kj] = kr; Z[kj + 1] = ki; Z[jk] = jr; Z[jk + 1] = ji;
+    }
+    let dr = ir, di = ii;
+    for (let a = 0; a < m; a++) {
+      const up = 2 * upSlot[u0 + a], ur0 = v[up], ui0 = v[up + 1];
+      const ur = ur0 * ir - ui0 * ii, ui = ur0 * ii + ui0 * ir;
+      const zuk = 2 * lowSlot[u0 + a], zr = Z[zuk], zi = Z[zuk + 1];
+      dr -= ur * zr - ui * zi; di -= ur * zi + ui * zr;
+    }
+    Z[d] = dr; Z[d + 1] = di;
+  }
+}

@@ -4,7 +4,8 @@
  */
 import { InputError } from '../util/errors.ts';
 import { warn, type Warning } from '../util/warnings.ts';
-import { compileNetwork, solveAt, type CompiledNetwork } from './mna.ts';
+import { compileNetwork, planEntries, solveAt, valueBlocks, type CompiledNetwork, type SolveEntries } from './mna.ts';
+import type { SweepValues } from './sweepValues.ts';
 import type { Netlist } from './netlist.ts';
 import type { NetworkResponse } from './response.ts';
 
@@ -59,18 +60,54 @@ export interface SweepOptions {
    * Default: a resolved promise (no host timer in the pure core).
    */
   yieldTo?: () => Promise<void>;
+  /** Only these S entries (absent: all); the response's `computed` says which. See mna.ts SolveEntries. */
+  entries?: SolveEntries;
+  /** Element values kept from earlier sweeps (sweepValues.ts): same numbers, computed once per key and frequency. */
+  values?: SweepValues;
 }
 
-/** Solves at every frequency (synchronous). */
-export function solveNetwork(net: Netlist | CompiledNetwork, freqs: ArrayLike<number>): NetworkResponse {
+/** What solveNetwork may be asked besides the frequencies (see SweepOptions). */
+export type NetworkSolveOptions = Pick<SweepOptions, 'entries' | 'values'>;
+
+/** Solves at every frequency (synchronous); `opts.entries` asks for some S entries only (absent: all). */
+export function solveNetwork(net: Netlist | CompiledNetwork, freqs: ArrayLike<number>, opts: NetworkSolveOptions = {}): NetworkResponse {
   const cn = 'symbolic' in net ? net : compileNetwork(net);
-  const P = cn.ports.length, F = freqs.length;
-  const s = new Float64Array(2 * P * P * F);
   const fr = Float64Array.from(freqs);
   checkIncreasing(fr);
   const acc = newAccumulator();
-  for (let k = 0; k < F; k++) acc.note(fr[k], solveAt(cn, fr[k], s.subarray(2 * P * P * k, 2 * P * P * (k + 1))));
-  return { freqs: fr, ports: cn.ports.map((p) => ({ name: p.name, zRef: p.zRef, ...(p.label !== undefined ? { label: p.label } : {}) })), s, warnings: acc.warnings() };
+  const how = pointSolver(cn, fr, opts);
+  for (let k = 0; k < fr.length; k++) acc.note(fr[k], how.solve(k));
+  return responseOf(cn, fr, how.s, acc, how.computed);
+}
+
+/**
+ * The points of a sweep: each solved with the entry plan and its kept values, into the response's array. A sweep of
+ * some entries keeps only those (response.ts layout): each point is solved into one reused P×P block and its
+ * computed entries copied out, so a 65-port feed's response is a few hundred kB instead of 14 MB per sweep.
+ */
+function pointSolver(cn: CompiledNetwork, fr: Float64Array, opts: NetworkSolveOptions) {
+  const P = cn.ports.length, F = fr.length;
+  const plan = opts.entries ? planEntries(cn, opts.entries) : undefined;
+  const blocks = opts.values ? valueBlocks(cn, opts.values.grid(fr)) : undefined;
+  // A plan that reaches every entry (a small network asked for its input's row and column) is a whole response.
+  const partial = plan && plan.gather.length < P * P ? plan : undefined;
+  const C = partial ? partial.gather.length : P * P;
+  const s = new Float64Array(2 * C * F);
+  const block = partial ? new Float64Array(2 * P * P) : null;
+  const solve = (k: number) => {
+    const how = { ...(plan ? { entries: plan } : {}), ...(blocks ? { kept: { blocks, k } } : {}) };
+    if (!block || !partial) return solveAt(cn, fr[k], s.subarray(2 * P * P * k, 2 * P * P * (k + 1)), how);
+    const r = solveAt(cn, fr[k], block, how);
+    const g = partial.gather, o = 2 * C * k;
+    for (let c = 0; c < C; c++) { s[o + 2 * c] = block[2 * g[c]]; s[o + 2 * c + 1] = block[2 * g[c] + 1]; }
+    return r;
+  };
+  return { s, solve, computed: partial?.computed };
+}
+
+function responseOf(cn: CompiledNetwork, freqs: Float64Array, s: Float64Array, acc: ReturnType<typeof newAccumulator>, computed: Int32Array | undefined): NetworkResponse {
+  const ports = cn.ports.map((p) => ({ name: p.name, zRef: p.zRef, ...(p.label !== undefined ? { label: p.label } : {}) }));
+  return { freqs, ports, s, warnings: acc.warnings(), ...(computed ? { computed } : {}) };
 }
 
 /** Solves a sweep in chunks, reporting progress and stopping with an AbortError when the signal fires. */
@@ -78,18 +115,18 @@ export async function sweepNetwork(net: Netlist | CompiledNetwork, settings: Swe
   const fr = 'points' in settings ? sweepFrequencies(settings) : Float64Array.from(settings);
   checkIncreasing(fr);
   const cn = 'symbolic' in net ? net : compileNetwork(net);
-  const P = cn.ports.length, F = fr.length, chunk = Math.max(1, Math.floor(opts.chunk ?? 64));
-  const s = new Float64Array(2 * P * P * F);
+  const F = fr.length, chunk = Math.max(1, Math.floor(opts.chunk ?? 64));
   const acc = newAccumulator();
   const pause = opts.yieldTo ?? (() => Promise.resolve());
+  const how = pointSolver(cn, fr, opts);
   for (let k0 = 0; k0 < F; k0 += chunk) {
     if (opts.signal?.aborted) throw abortError(opts.signal);
     const k1 = Math.min(F, k0 + chunk);
-    for (let k = k0; k < k1; k++) acc.note(fr[k], solveAt(cn, fr[k], s.subarray(2 * P * P * k, 2 * P * P * (k + 1))));
+    for (let k = k0; k < k1; k++) acc.note(fr[k], how.solve(k));
     opts.onProgress?.(k1, F);
     if (k1 < F) await pause();
   }
-  return { freqs: fr, ports: cn.ports.map((p) => ({ name: p.name, zRef: p.zRef, ...(p.label !== undefined ? { label: p.label } : {}) })), s, warnings: acc.warnings() };
+  return responseOf(cn, fr, how.s, acc, how.computed);
 }
 
 function abortError(signal: AbortLike): Error {

@@ -10,7 +10,7 @@ import { InputError } from '../util/errors.ts';
 import { hypot } from '../util/hypot.ts';
 import type { DesignDoc, Target, TargetFigure } from '../design/types.ts';
 import { FIGURE_UNIT_SUFFIX, FIGURE_WORDS, type FigureUnit } from '../design/targets.ts';
-import type { NetworkResponse } from './response.ts';
+import { entryAt, type NetworkResponse } from './response.ts';
 import { sweepFrequencies, type SweepSettings } from './sweep.ts';
 import { groupDelay, toDb, wrap180 } from './figures.ts';
 
@@ -57,12 +57,19 @@ function port(r: NetworkResponse, id: string, field: string): number {
 }
 
 function sMag(r: NetworkResponse, k: number, i: number, j: number): number {
-  const P = r.ports.length, t = 2 * ((k * P + i) * P + j);
+  const t = offset(r, k, i, j);
   return hypot(r.s[t]!, r.s[t + 1]!);
 }
 
+/** Offset of S_ij at point k in r.s (the dense layout, or a sweep of some entries: response.ts entryAt). */
+function offset(r: NetworkResponse, k: number, i: number, j: number): number {
+  if (!r.computed) { const P = r.ports.length; return 2 * ((k * P + i) * P + j); }
+  const { base, stride } = entryAt(r, i, j);
+  return base + k * stride;
+}
+
 function sDeg(r: NetworkResponse, k: number, i: number, j: number): number {
-  const P = r.ports.length, t = 2 * ((k * P + i) * P + j);
+  const t = offset(r, k, i, j);
   return (Math.atan2(r.s[t + 1]!, r.s[t]!) * 180) / Math.PI;
 }
 

@@ -10,7 +10,7 @@
  */
 import { InputError } from '../util/errors.ts';
 import { renormalize } from './conversions.ts';
-import { matrixAt, type NetworkResponse } from './response.ts';
+import { matrixAt, requireAll, type NetworkResponse } from './response.ts';
 
 export type TouchstoneFormat = 'ri' | 'ma' | 'db';
 export type FrequencyUnit = 'hz' | 'khz' | 'mhz' | 'ghz';
@@ -41,6 +41,7 @@ export function writeTouchstone(r: NetworkResponse, opts: TouchstoneWriteOptions
   const format = opts.format ?? 'ri', unit = opts.unit ?? 'ghz';
   if (!['ri', 'ma', 'db'].includes(format)) throw new InputError('bad-choice', 'format', 'ri, ma or db', String(format));
   if (!(unit in UNIT_SCALE)) throw new InputError('bad-choice', 'unit', 'hz, khz, mhz or ghz', String(unit));
+  requireAll(r);
   const P = r.ports.length;
   if (P < 1) throw new InputError('out-of-range', 'ports', 'at least one port', '0');
   const refs = r.ports.map((p) => p.zRef);

@@ -7,3 +7,4 @@ export * from './request.ts';
 export * from './formats.ts';
 export * from './export.ts';
 export * from './gcode.ts';
+export * from './sweep.ts';

@@ -25,6 +25,7 @@ import { processCut } from '../layout/process-cut.ts';
 import { sizeDesign } from '../layout/sizing.ts';
 import type { SizedDesign } from '../layout/types.ts';
 import { netlistFromSized, type SizedNetlist } from '../network/fromSized.ts';
+import { SweepValues } from '../network/sweepValues.ts';
 import { planMilling, type MillingOptions, type MillingPlan } from '../toolpath/index.ts';
 import { InputError } from '../util/errors.ts';
 import type { Warning } from '../util/warnings.ts';
@@ -71,6 +72,8 @@ export interface Prepared { geometry: ExportGeometry; warnings: Warning[]; /** I
 export class DesignPipeline {
   readonly memo: StageMemo;
   private lines: { key: string; cache: LineCache } | null = null;
+  /** Line constants and element values of sweeps, kept across revisions (core/network/sweepValues.ts). */
+  readonly values = new SweepValues();
 
   constructor(opts: { capacity?: number } = {}) { this.memo = new StageMemo(opts.capacity ?? 48); }
 
@@ -182,7 +185,7 @@ export class DesignPipeline {
   netlist(doc: DesignDoc): SizedNetlist {
     return this.memo.get('netlist', this.revision(doc), () => {
       const sized = this.sized(doc);
-      return netlistFromSized(sized, sized.lineOptions ? { line: sized.lineOptions } : {});
+      return netlistFromSized(sized, { ...(sized.lineOptions ? { line: sized.lineOptions } : {}), values: this.values });
     });
   }
 

@@ -155,9 +155,13 @@ describe('the response follows edits (Compute.follow)', () => {
     expect(revisions.at(-1)).toBe(last);
     // Its coarse pass is left out when the full sweep before it was quick (DIRECT_FULL_MS; the machine decides).
     expect([[COARSE_POINTS, full], [full]]).toContainEqual(shown.filter((s) => s.revision === last).map((s) => s.points));
-    // The same numbers as an explicit sweep of the same design.
+    // The same numbers as an explicit sweep of the same design, to rounding: a live pass of a network of more than
+    // four ports solves only the entries the panel reads (core viewEntries; the input's row from the transposed
+    // factors), which may differ from the whole solve in the last digit (the core's bound: |ΔS| < 1e-12).
     const again = await responseJob({ doc: ed.doc }, () => {});
-    expect(compute.response!.traces[1]!.db).toEqual(again.traces[1]!.db);
+    const live = compute.response!.traces[1]!.db, whole = again.traces[1]!.db;
+    expect(live.length).toBe(whole.length);
+    live.forEach((x, k) => expect(Math.abs(x - whole[k]!)).toBeLessThan(1e-9));
     compute.destroy();
   }, 120_000);
 });

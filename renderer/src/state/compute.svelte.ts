@@ -28,8 +28,12 @@ export const COARSE_POINTS = 21;
  * finishes, so a drag keeps showing full responses instead of cancelling each one before it ends.
  */
 export const LIVE_SWEEP_BUDGET_MS = 400;
-/** A design whose last full sweep took at most this (ms) is swept live without the coarse pass first. */
-export const DIRECT_FULL_MS = 100;
+/**
+ * A design whose last full sweep took at most this (ms) is swept live without the coarse pass first: the coarse pass
+ * only delays the full response, and since a drag's sweep re-computes only what the drag changed (core sweepDesign)
+ * the 64-output feed's full pass fits here.
+ */
+export const DIRECT_FULL_MS = 300;
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -55,9 +59,13 @@ export class Compute {
   private following = false;
   private lastFullMs = 0;
 
-  constructor(private readonly editor: EditorState, makeWorker: (() => Worker) | null = defaultWorker()) {
+  /**
+   * @param makeWorker the compute worker (layout and the rest); null runs every job inline (component tests)
+   * @param makeResponseWorker the response worker (worker/response.worker.ts); by default one when `makeWorker` is given
+   */
+  constructor(private readonly editor: EditorState, makeWorker: (() => Worker) | null = defaultWorker(), makeResponseWorker: (() => Worker) | null = makeWorker ? responseWorker() : null) {
     this.client = new ComputeClient(makeWorker, runJob);
-    this.sweeper = new ComputeClient(makeWorker, runJob);
+    this.sweeper = new ComputeClient(makeResponseWorker, runJob);
   }
 
   get threaded(): boolean { return this.client.threaded; }
@@ -327,6 +335,11 @@ export class Compute {
   }
 
   destroy(): void { this.client.destroy(); this.sweeper.destroy(); }
+}
+
+function responseWorker(): (() => Worker) | null {
+  if (typeof Worker === 'undefined') return null;
+  return () => new Worker(new URL('../worker/response.worker.ts', import.meta.url), { type: 'module' });
 }
 
 function defaultWorker(): (() => Worker) | null {

@@ -5,15 +5,17 @@
  */
 import type { DesignDoc } from '../../../core/index.ts';
 import type { BoardGeometry, DrillHit, Region } from '../../../core/index.ts';
-import { initPolygons, namer } from '../../../core/index.ts';
+import { initPolygons } from '../../../core/index.ts';
 import { pieceOutlines, problemFindings, type SizedDesign, type PathReport } from '../../../core/index.ts';
 import type { PieceOutline } from '../../../core/index.ts';
 import type { Finding } from '../../../core/index.ts';
-import { sweepNetwork, magnitudeDb, phaseDeg, groupDelay, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/index.ts';
 import { InputError, errorWords, exhaustive } from '../../../core/index.ts';
 import { runYield, type YieldResult } from '../../../core/index.ts';
 import { EXPORT_FILE_NAMES, millingPreviewSvg } from '../../../core/index.ts';
-import { DesignPipeline, exportDesign, type ExportRequest } from '../../../core/index.ts';
+import { exportDesign, type ExportRequest } from '../../../core/index.ts';
+import { pipeline } from './worker-pipeline.ts';
+import { responseJob, type ResponseInput } from './response-job.ts';
+export { responseJob } from './response-job.ts';
 import type { MilledPiece, MillFinding, MillingOptions } from '../../../core/index.ts';
 import type { JobKind } from './protocol.ts';
 import type { Progress } from './client.ts';
@@ -35,32 +37,7 @@ export interface LayoutInput { doc: DesignDoc; /** Also work out each path's pha
  */
 export interface LayoutOutput { sized: SizedView; outlines: (PieceOutline & { d: string })[]; drills: DrillHit[]; paths: PathReport[]; geometryError: string | null }
 
-/** The design, and settings that override its own (absent: core designSweepSettings). */
-export interface ResponseInput {
-  doc: DesignDoc; settings?: SweepSettings;
-  /** false: leave out the derived figure table (a live pass while the table is not on screen; it costs a quarter of a pass). */
-  figures?: boolean;
-}
-/** Plot-ready series: for every (i, j) pair |S| in dB, phase in degrees and group delay in s; reflections for Smith. */
-export interface ResponseOutput {
-  freqs: number[];
-  ports: string[];
-  input: number;
-  traces: { i: number; j: number; db: number[]; phase: number[]; delay: number[] }[];
-  smith: { i: number; re: number[]; im: number[] }[];
-  warnings: string[];
-  /** Each port's label in the design (its node id where it has none), its reference impedance (Ω). */
-  labels: string[];
-  zRef: number[];
-  /** The settings swept (targets' band edges are added to their frequencies) and whether the cache answered. */
-  settings: SweepSettings;
-  cached: boolean;
-  /** The derived figures (core figureTable); null when the request left them out. */
-  figures: FigureTable | null;
-  /** The design's targets on this sweep (core evaluateTargets, as `build`), null without targets or on an error. */
-  targets: TargetEvaluation | null;
-  targetError: string | null;
-}
+export type { ResponseInput, ResponseOutput } from './response-job.ts';
 
 export interface CheckOutput { findings: Finding[]; /** Ground copper left after clearing around the network. */ ground: Region[] }
 
@@ -75,11 +52,8 @@ function polygons(): Promise<void> {
   return polygonsReady;
 }
 
-/**
- * The worker's one pipeline (core/pipeline): every job of one design revision shares its sizing, board, paths,
- * plan and network, whichever job asks first. Bounded, so a long session keeps only recent revisions.
- */
-export const pipeline = new DesignPipeline({ capacity: 48 });
+/** The worker's one pipeline (worker-pipeline.ts), shared by every job of one revision. */
+export { pipeline };
 
 export async function runJob(kind: JobKind, input: unknown, progress: (p: Progress) => void, signal?: AbortSignal): Promise<unknown> {
   switch (kind) {
@@ -188,56 +162,6 @@ export async function checkJob(input: LayoutInput): Promise<CheckOutput> {
   if (sized.problems.length) return { findings: problemFindings(sized), ground: [] };
   await polygons();
   return { findings: pipeline.findings(input.doc), ground: pipeline.board(input.doc).groundCopper };
-}
-
-/** Recent sweeps by design physics and settings (core SweepCache): a repeated sweep, or undo back, costs nothing. */
-const sweepCache = new SweepCache(8);
-/** The netlist's input port and notes of each cached sweep (the cache keeps only the response). */
-const sweepMeta = new Map<string, { input: number; warnings: string[] }>();
-
-/**
- * A sweep of the sized network at the design's own settings (core designSweepSettings, the frequencies the CLI
- * uses) plus every target band edge, chunked so progress reaches the editor and a cancel stops it between chunks;
- * then the plot series, the derived figures and the targets' pass/fail from the core. The netlist comes from the
- * revision's one pipeline (sized once, shared with layout, check and export).
- */
-export async function responseJob(input: ResponseInput, progress: (p: Progress) => void, signal?: AbortSignal): Promise<ResponseOutput> {
-  const doc = input.doc;
-  const settings = input.settings ?? designSweepSettings(doc);
-  const key = responseCacheKey(doc, settings);
-  let cached = true;
-  const r: NetworkResponse = await sweepCache.getOrSweep(key, async () => {
-    cached = false;
-    const net = pipeline.netlist(doc);
-    sweepMeta.set(key, { input: net.input, warnings: net.warnings.map((w) => w.message) });
-    if (sweepMeta.size > 32) sweepMeta.delete(sweepMeta.keys().next().value as string);
-    return sweepNetwork(net, targetFrequencies(settings, doc.targets ?? []), {
-      chunk: 64, ...(signal ? { signal } : {}),
-      onProgress: (done, total) => progress({ done, total, label: 'sweeping' }),
-      yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
-    });
-  });
-  const meta = sweepMeta.get(key) ?? { input: 0, warnings: [] };
-  const inputPort = meta.input;
-  const P = r.ports.length;
-  const ids = r.ports.map((p) => p.name);
-  const traces: ResponseOutput['traces'] = [];
-  for (let i = 0; i < P; i++) for (let j = 0; j < P; j++) {
-    // Large networks: the input's row and column (what the panel offers); S itself stays in the cache.
-    if (P > 4 && i !== inputPort && j !== inputPort) continue;
-    traces.push({ i, j, db: [...magnitudeDb(r, i, j)], phase: [...phaseDeg(r, i, j)], delay: [...groupDelay(r, i, j)] });
-  }
-  const sm = Array.from({ length: P }, (_, i) => { const s = smith(r, i); return { i, re: [...s.re], im: [...s.im] }; });
-  let targets: TargetEvaluation | null = null, targetError: string | null = null;
-  if (doc.targets?.length) {
-    try { targets = evaluateTargets(r, doc); } catch (err) { targetError = errorText(err); }
-  }
-  return {
-    freqs: [...r.freqs], ports: ids, labels: ids.map(namer(doc)), zRef: r.ports.map((p) => p.zRef), input: inputPort,
-    settings, cached, traces, smith: sm,
-    figures: input.figures === false ? null : figureTable(r, doc, inputPort), targets, targetError,
-    warnings: [...meta.warnings, ...r.warnings.map((w) => w.message)],
-  };
 }
 
 export interface MillingInput {

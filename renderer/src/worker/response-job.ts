@@ -1,0 +1,109 @@
+/**
+ * The response job: a sweep of the design's network and the plot series, the figure table and the targets' pass/fail
+ * from the core. Runs in the response worker (response.worker.ts), apart from layout, so a sweep never delays copper;
+ * also inline in tests and in the compute worker's job table.
+ *
+ * The sweep is the core's one `sweepDesign` (core/pipeline/sweep.ts): the revision's network from the worker's
+ * pipeline, element values kept across revisions, and — for a live pass without the figure table — only the entries
+ * the view reads (core viewEntries: the input's column and row and every reflection, plus what the targets read).
+ */
+import type { DesignDoc } from '../../../core/index.ts';
+import { namer, magnitudeDb, phaseDeg, groupDelayOfPhase, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, viewEntries, sweepDesign, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/index.ts';
+import { InputError, errorWords } from '../../../core/index.ts';
+import type { Progress } from './client.ts';
+import { pipeline } from './worker-pipeline.ts';
+
+/** The design, and settings that override its own (absent: core designSweepSettings). */
+export interface ResponseInput {
+  doc: DesignDoc; settings?: SweepSettings;
+  /** false: leave out the derived figure table (a live pass while the table is not on screen; it costs a quarter of a pass). */
+  figures?: boolean;
+}
+/** Plot-ready series: for every (i, j) pair |S| in dB, phase in degrees and group delay in s; reflections for Smith. */
+export interface ResponseOutput {
+  freqs: number[];
+  ports: string[];
+  input: number;
+  traces: { i: number; j: number; db: number[]; phase: number[]; delay: number[] }[];
+  smith: { i: number; re: number[]; im: number[] }[];
+  warnings: string[];
+  /** Each port's label in the design (its node id where it has none), its reference impedance (Ω). */
+  labels: string[];
+  zRef: number[];
+  /** The settings swept (targets' band edges are added to their frequencies) and whether the cache answered. */
+  settings: SweepSettings;
+  cached: boolean;
+  /** The derived figures (core figureTable); null when the request left them out. */
+  figures: FigureTable | null;
+  /** The design's targets on this sweep (core evaluateTargets, as `build`), null without targets or on an error. */
+  targets: TargetEvaluation | null;
+  targetError: string | null;
+}
+
+/** Recent sweeps by design physics, settings and entries (core SweepCache): a repeated sweep, or undo back, costs nothing. */
+const sweepCache = new SweepCache(8);
+/** The netlist's input port and notes of each cached sweep (the cache keeps only the response). */
+const sweepMeta = new Map<string, { input: number; warnings: string[] }>();
+
+/** A typed array as a list (a plain loop: spreading walks it through the iterator protocol, several times slower). */
+function list(xs: Float64Array): number[] {
+  const out = new Array<number>(xs.length);
+  for (let k = 0; k < xs.length; k++) out[k] = xs[k]!;
+  return out;
+}
+
+function errorText(err: unknown): string {
+  return err instanceof InputError ? errorWords(err) : err instanceof Error ? err.message : String(err);
+}
+
+/**
+ * A sweep of the sized network at the design's own settings (core designSweepSettings, the frequencies the CLI
+ * uses) plus every target band edge, chunked so progress reaches the editor and a cancel stops it between chunks;
+ * then the plot series, the derived figures and the targets' pass/fail from the core.
+ */
+export async function responseJob(input: ResponseInput, progress: (p: Progress) => void, signal?: AbortSignal): Promise<ResponseOutput> {
+  const doc = input.doc;
+  const settings = input.settings ?? designSweepSettings(doc);
+  const base = responseCacheKey(doc, settings);
+  const whole = `${base}|all`, live = `${base}|view`;
+  const wantAll = input.figures !== false;
+  // A whole sweep answers a live request too; a live one only a live request.
+  const key = wantAll || sweepCache.get(whole) ? whole : live;
+  let cached = true;
+  const r: NetworkResponse = await sweepCache.getOrSweep(key, async () => {
+    cached = false;
+    const net = pipeline.netlist(doc);
+    sweepMeta.set(key, { input: net.input, warnings: net.warnings.map((w) => w.message) });
+    if (sweepMeta.size > 32) sweepMeta.delete(sweepMeta.keys().next().value as string);
+    const entries = key === live ? viewEntries(net, doc) : undefined;
+    const { response } = await sweepDesign(pipeline, doc, targetFrequencies(settings, doc.targets ?? []), {
+      chunk: 64, ...(signal ? { signal } : {}), ...(entries ? { entries } : {}),
+      onProgress: (done, total) => progress({ done, total, label: 'sweeping' }),
+      yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
+    });
+    return response;
+  });
+  const meta = sweepMeta.get(key) ?? { input: 0, warnings: [] };
+  const inputPort = meta.input;
+  const P = r.ports.length;
+  const ids = r.ports.map((p) => p.name);
+  const traces: ResponseOutput['traces'] = [];
+  for (let i = 0; i < P; i++) for (let j = 0; j < P; j++) {
+    // Large networks: the input's row and column (what the panel offers); S itself stays in the cache.
+    if (P > 4 && i !== inputPort && j !== inputPort) continue;
+    // The phase once, for its trace and its delay (core groupDelay's own arithmetic on it).
+    const phase = phaseDeg(r, i, j);
+    traces.push({ i, j, db: list(magnitudeDb(r, i, j)), phase: list(phase), delay: list(groupDelayOfPhase(r.freqs, phase)) });
+  }
+  const sm = Array.from({ length: P }, (_, i) => { const s = smith(r, i); return { i, re: list(s.re), im: list(s.im) }; });
+  let targets: TargetEvaluation | null = null, targetError: string | null = null;
+  if (doc.targets?.length) {
+    try { targets = evaluateTargets(r, doc); } catch (err) { targetError = errorText(err); }
+  }
+  return {
+    freqs: [...r.freqs], ports: ids, labels: ids.map(namer(doc)), zRef: r.ports.map((p) => p.zRef), input: inputPort,
+    settings, cached, traces, smith: sm,
+    figures: input.figures === false ? null : figureTable(r, doc, inputPort), targets, targetError,
+    warnings: [...meta.warnings, ...r.warnings.map((w) => w.message)],
+  };
+}
