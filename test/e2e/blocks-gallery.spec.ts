@@ -8,21 +8,14 @@
 import { expect, test } from '@playwright/test';
 import { writeFileSync } from 'node:fs';
 import type { Page } from '@playwright/test';
-import { readmeShotPath } from './readme-shots.ts';
+import { readmeShotPath, settledScreenshot } from './readme-shots.ts';
 
 /**
  * The page once it has stopped changing: screenshots are taken until two in a row are the same (at most 20), so an
  * image never catches a frame half drawn. Animations are stopped and the caret hidden.
  */
 async function stableShot(page: Page, name: string): Promise<void> {
-  let last = await page.screenshot({ animations: 'disabled', caret: 'hide' });
-  for (let k = 0; k < 20; k++) {
-    await page.waitForTimeout(250);
-    const next = await page.screenshot({ animations: 'disabled', caret: 'hide' });
-    if (next.equals(last)) break;
-    last = next;
-  }
-  writeFileSync(readmeShotPath(name), last);
+  writeFileSync(readmeShotPath(name), await settledScreenshot(page));
 }
 
 /** Fields a block has no default for (our own example load). */

@@ -31,6 +31,11 @@ export function readmeShotPath(name: string): string {
 export async function stableReadmeShot(page: Page, name: string): Promise<void> {
   const layoutMs = page.getByTestId('layout-ms');
   if (await layoutMs.count()) await layoutMs.evaluate((e) => { (e as HTMLElement).style.display = 'none'; });
+  writeFileSync(readmeShotPath(name), await settledScreenshot(page));
+}
+
+/** The page once it has stopped changing: screenshots until two in a row agree (at most 20, 250 ms apart). */
+export async function settledScreenshot(page: Page): Promise<Buffer> {
   let last = await page.screenshot({ animations: 'disabled', caret: 'hide' });
   for (let k = 0; k < 20; k++) {
     await page.waitForTimeout(250);
@@ -38,5 +43,5 @@ export async function stableReadmeShot(page: Page, name: string): Promise<void> 
     if (next.equals(last)) break;
     last = next;
   }
-  writeFileSync(readmeShotPath(name), last);
+  return last;
 }

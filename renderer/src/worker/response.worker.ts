@@ -8,13 +8,9 @@
  */
 import { responseJob } from './response-job.ts';
 import { packResponse } from './response-post.ts';
-import type { CancelRequest, JobRequest, WorkerMessage } from './protocol.ts';
-import { toJobError } from './client.ts';
+import type { JobRequest } from './protocol.ts';
 import type { Progress } from './client.ts';
-
-const post = (m: WorkerMessage) => (self as unknown as { postMessage(m: WorkerMessage): void }).postMessage(m);
-
-const running = new Map<number, AbortController>();
+import { serveJobs } from './serve-jobs.ts';
 
 /** The response job as the page receives it: packed into one block of numbers (response-post.ts). */
 async function runResponse(kind: JobRequest['kind'], input: unknown, progress: (p: Progress) => void, signal?: AbortSignal): Promise<unknown> {
@@ -22,18 +18,4 @@ async function runResponse(kind: JobRequest['kind'], input: unknown, progress: (
   return packResponse(await responseJob(input as Parameters<typeof responseJob>[0], progress, signal));
 }
 
-self.onmessage = async (e: MessageEvent<JobRequest | CancelRequest>) => {
-  if (e.data.type === 'cancel') { running.get(e.data.id)?.abort(); return; }
-  const { id, kind, input } = e.data;
-  const t0 = performance.now();
-  const ctl = new AbortController();
-  running.set(id, ctl);
-  try {
-    const value = await runResponse(kind, input, (p) => post({ type: 'progress', id, ...p }), ctl.signal);
-    post({ type: 'result', id, value, ms: performance.now() - t0 });
-  } catch (err) {
-    post({ type: 'error', id, ...toJobError(err) });
-  } finally {
-    running.delete(id);
-  }
-};
+serveJobs(runResponse);
