@@ -7,13 +7,8 @@
  */
 import { generateBlock, contextOf } from '../core/blocks/index.ts';
 import { newDesign } from '../core/design/index.ts';
+import { timed } from './timing.ts';
 
-function timed(body: () => void): { cpu: number; wall: number } {
-  const c = process.cpuUsage(), t = performance.now();
-  body();
-  const d = process.cpuUsage(c);
-  return { cpu: (d.user + d.system) / 1000, wall: performance.now() - t };
-}
 
 export async function run(): Promise<void> {
   const ctx = contextOf(newDesign({ f0: 2.45e9, asMade: { sizing: 'microstrip', sideCopper: 'stitched' } }));

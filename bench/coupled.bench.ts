@@ -9,6 +9,7 @@ import { analyzeCoupled, coupledInto, coupledNumbers } from '../core/line/index.
 import { bandpassBlock } from '../core/blocks/index.ts';
 import { sizeDesign } from '../core/layout/index.ts';
 import { compileNetwork, netlistFromSized, solveNetwork, sweepFrequencies } from '../core/network/index.ts';
+import { timed } from './timing.ts';
 
 const SUB = { er: 3.66, h: 0.508e-3, t: 35e-6, tanDelta: 0.0037, sigma: 5.8e7, roughness: 0 };
 
@@ -21,12 +22,6 @@ function rate(n: number, body: (i: number) => void): { cpu: number; wall: number
   return { cpu: n / ((d.user + d.system) / 1e6), wall: n / ((performance.now() - t) / 1000) };
 }
 
-function timed(body: () => void): { cpu: number; wall: number } {
-  const c = process.cpuUsage(), t = performance.now();
-  body();
-  const d = process.cpuUsage(c);
-  return { cpu: (d.user + d.system) / 1000, wall: performance.now() - t };
-}
 
 export async function run(): Promise<void> {
   const N = 400_000;

@@ -11,8 +11,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { corporateFeed, equalizeGroup, parseDesign, tuneDesign, sizeDesign, netlistFromSized, solveNetwork, sweepFrequencies, type DesignDoc } from '../core/index.ts';
+import { cpuMs } from './timing.ts';
 
-function cpuMs(t0: NodeJS.CpuUsage): number { const c = process.cpuUsage(t0); return (c.user + c.system) / 1000; }
 
 function longFeed(extra: number): DesignDoc {
   const feed = corporateFeed({ outputs: 64, f0: 5.8e9, pitch: 15e-3, substrate: { h: 0.5e-3 } });

@@ -13,8 +13,8 @@ import { readFileSync } from 'node:fs';
 import { availableParallelism, loadavg } from 'node:os';
 import { join } from 'node:path';
 import { corporateFeed, sizeDesign, designPaths, parseDesign, runYield, pathPhaseMonteCarlo } from '../core/index.ts';
+import { cpuMs } from './timing.ts';
 
-function cpuMs(t0: NodeJS.CpuUsage): number { const c = process.cpuUsage(t0); return (c.user + c.system) / 1000; }
 
 /** CPU time of this process (every thread: the engine's compiler and collector too) and wall time of one call. */
 async function measure<T>(run: () => Promise<T>): Promise<{ value: T; cpu: number; wall: number }> {
