@@ -10,7 +10,8 @@ import { corporateBlock } from './kinds/corporate.ts';
 import { wilkinsonBlock, branchlineBlock, ratraceBlock } from './kinds/splitters.ts';
 import { transformerBlock, taperBlock } from './kinds/transformer.ts';
 import { stubMatchBlock } from './kinds/stubMatch.ts';
-import { lowpassBlock, bandstopBlock, launchBlock } from './kinds/filters.ts';
+import { lowpassBlock, bandstopBlock } from './kinds/filters.ts';
+import { launchBlock } from './kinds/launch.ts';
 
 export const BLOCKS: readonly BlockDef[] = [
   corporateBlock, wilkinsonBlock, branchlineBlock, ratraceBlock, transformerBlock, taperBlock, stubMatchBlock,

@@ -76,11 +76,16 @@ export const lowpassBlock: BlockDef = {
     Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext) {
-    const made = lowpassPieces(spec, ctx);
-    if (spec.form === 'stubs') {
-      const fc = (spec.cutoff as number | undefined) ?? ctx.f0;
-      if (!meetsCutoff(made, ctx, fc, edgeLevel(spec))) throw stubRefusal(spec, ctx, made);
+    if (spec.form !== 'stubs') return lowpassPieces(spec, ctx);
+    const fc = (spec.cutoff as number | undefined) ?? ctx.f0;
+    let made: BlockPieces;
+    try { made = lowpassPieces(spec, ctx); } catch (e) {
+      // Stubs so wide for their length that the tee model (Hammerstad 1981) turns its branch ratio n² to zero or
+      // below at the cut-off: no stub impedance can be drawn. Refused like a filter that misses, naming the nearest.
+      if (e instanceof InputError && e.field === 'lowpass.form') throw stubRefusal(spec, ctx, null, e);
+      throw e;
     }
+    if (!meetsCutoff(made, ctx, fc, edgeLevel(spec))) throw stubRefusal(spec, ctx, made);
     return made;
   },
 };
@@ -110,21 +115,30 @@ function meetsCutoff(made: BlockPieces, ctx: BlockContext, fc: number, level: nu
  * places the junction and the made filter misses its ripple or its edge. Names the largest equal ripple (of a
  * ladder of common values) at this order that does make its figures on this laminate and process.
  */
-function stubRefusal(spec: Spec, ctx: BlockContext, made: BlockPieces): InputError {
+function stubRefusal(spec: Spec, ctx: BlockContext, made: BlockPieces | null, inner?: InputError): InputError {
   const fc = (spec.cutoff as number | undefined) ?? ctx.f0, n = spec.order as number;
-  const widest = made.segments.filter((x) => /^s\d+$/.test(x.id) && x.kind === 'line').map((x) => (x.kind === 'line' && x.width.by === 'z0' ? x.width.z0 : Infinity));
-  const zMin = Math.min(...widest), line = stripOfZ0(ctx.substrate, zMin, fc);
-  const works = (rippleDb: number): boolean => {
-    const trial = { ...spec, response: 'chebyshev', rippleDb };
+  const works = (trial: Spec): boolean => {
     try { return meetsCutoff(lowpassPieces(trial, ctx), ctx, fc, edgeLevel(trial)); } catch { return false; }
   };
   const asked = spec.response === 'chebyshev' ? spec.rippleDb as number : Infinity;
-  const best = [3, 2.5, 2, 1.5, 1, 0.75, 0.5, 0.25, 0.1, 0.05, 0.01].filter((x) => x < asked).find(works);
+  // First a smaller ripple at the asked order (narrower stubs), then the asked response at a lower order.
+  const ripple = [3, 2.5, 2, 1.5, 1, 0.75, 0.5, 0.25, 0.1, 0.05, 0.01].filter((x) => x < asked).find((x) => works({ ...spec, response: 'chebyshev', rippleDb: x }));
+  const order = ripple === undefined ? Array.from({ length: n - 1 }, (_, i) => n - 1 - i).find((k) => works({ ...spec, order: k })) : undefined;
   const what = spec.response === 'chebyshev' ? `${asked} dB equal ripple` : 'maximally flat';
+  const nearest = ripple !== undefined ? `${ripple} dB equal ripple at order ${n}` : order !== undefined ? `order ${order} ${what}` : null;
+  let why: string;
+  if (made) {
+    const widest = made.segments.filter((x) => /^s\d+$/.test(x.id) && x.kind === 'line').map((x) => (x.kind === 'line' && x.width.by === 'z0' ? x.width.z0 : Infinity));
+    const zMin = Math.min(...widest), line = stripOfZ0(ctx.substrate, zMin, fc);
+    why = `${what} needs stubs down to ${zMin.toFixed(1)} Ω, ${(line.width * 1e3).toFixed(1)} mm wide on a ${((line.lambdaG / 8) * 1e3).toFixed(1)} mm stub, where the tee model no longer holds: swept with it, the filter misses its ripple or its cut-off by more than 5 %`;
+  } else if (inner && !/needs -/.test(inner.got)) {
+    why = `${what}: ${inner.got}`;
+  } else {
+    why = `${what} needs stubs wider than they are long at ${ghz(fc)}, where the tee model (Hammerstad 1981) no longer places the junction: no stub impedance meets the capacitors`;
+  }
   return new InputError('out-of-range', spec.response === 'chebyshev' ? 'lowpass.rippleDb' : 'lowpass.order',
-    `an open-stub low-pass this laminate and process can make at order ${n}${best !== undefined ? ` (up to ${best} dB equal ripple)` : ' (none at this order)'}`,
-    `${what} needs stubs down to ${zMin.toFixed(1)} Ω, ${(line.width * 1e3).toFixed(1)} mm wide on a ${((line.lambdaG / 8) * 1e3).toFixed(1)} mm stub, where the tee model no longer holds: swept with it, the filter misses its ripple or its cut-off by more than 5 %`,
-    `${best !== undefined ? `ask for ${best} dB ripple or less, ` : ''}use a lower order, the stepped form, or a thinner laminate`);
+    `an open-stub low-pass this laminate and process can make at order ${n}${ripple !== undefined ? ` (up to ${ripple} dB equal ripple)` : ' (none at this order)'}`,
+    why, nearest ? `the nearest it makes within spec: ${nearest}; or the stepped form, or a thinner laminate` : 'use the stepped form, or a thinner laminate');
 }
 
 /** The low-pass drawn from its spec (no check of its sweep). */
@@ -350,7 +364,11 @@ function bandstopNearest(spec: Spec, ctx: BlockContext, first: 'ripple' | 'band'
     spec: { ...spec, order: k, bw: 0.5, ...(dB !== null ? { rippleDb: Math.max(1, dB) } : {}) },
     words: `a 50 % stop band at order ${k}${dB !== null ? ` and ${Math.max(1, dB)} dB` : ''}`,
   }));
-  for (const t of [...(first === 'ripple' ? [...ripples, ...bands] : [...bands, ...ripples]), ...orders, ...middle]) {
+  // Maximally flat asks the stubs alone to set the band (Pozar eq. 8.79: a 50 % band at order 3 wants a 127 Ω stub,
+  // too thin on a thin laminate); the equal-ripple row frees the lines' impedances too (Horton and Wenzel 1965), so
+  // a small ripple at the same order and band is the nearest spec for a maximally flat one.
+  const equalRipple: Try[] = dB !== null ? [] : [0.1, 0.5].map((x) => ({ spec: { ...spec, response: 'chebyshev', rippleDb: x }, words: `${x} dB equal ripple at order ${ask.n} and ${pct(ask.bw)}` }));
+  for (const t of [...equalRipple, ...(first === 'ripple' ? [...ripples, ...bands] : [...bands, ...ripples]), ...orders, ...middle]) {
     try { if (bandstopMiss(t.spec, bandstopDesign(t.spec, ctx).made) === null) return t.words; } catch (e) { if (!(e instanceof InputError)) throw e; }
   }
   return null;
@@ -454,33 +472,3 @@ function bandstopDesign(spec: Spec, ctx: BlockContext): { pieces: BlockPieces; m
     };
   }
 }
-
-export const launchBlock: BlockDef = {
-  kind: 'launch',
-  title: 'Connector launch',
-  summary: 'connector pad with a taper to the line',
-  source: 'pad and taper sizes are the user\'s (common practice: the pad as wide as the connector pin\'s footprint); taper per core/layout',
-  params: [
-    { name: 'padWidth', type: 'number', unit: 'length', min: 0.3e-3, max: 10e-3, default: 1.5e-3, meaning: 'Width of the connector pad' },
-    { name: 'padLength', type: 'number', unit: 'length', min: 0.3e-3, max: 20e-3, default: 3e-3, meaning: 'Length of the connector pad' },
-    { name: 'taperLength', type: 'number', unit: 'length', min: 0.5e-3, max: 50e-3, default: 3e-3, meaning: 'Length of the taper from the pad to the line' },
-    Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM,
-  ],
-  generate(spec, ctx) {
-    const z0 = spec.z0 as number, feed = spec.feed as number, pw = spec.padWidth as number, pl = spec.padLength as number, tl = spec.taperLength as number;
-    widthFor(ctx, z0, 'launch.z0', 'the line');
-    const sk = new Sketch();
-    sk.port('conn', { x: 0, y: 0 }, z0, 0, 'connector', { padWidth: pw, padLength: pl });
-    sk.vertex('k1', { x: pl + tl, y: 0 }, 'square');
-    sk.segments.push({ id: 'taper', kind: 'taper', a: 'conn', b: 'k1', profile: 'linear', from: { by: 'width', width: pw }, to: { by: 'z0', z0 }, length: { by: 'length', length: pl + tl }, label: 'pad taper (the pad is its first part)' });
-    sk.port('line', { x: pl + tl + feed, y: 0 }, z0, Math.PI, 'line');
-    sk.line('run', 'k1', 'line', z0, { length: feed });
-    const f0 = ctx.f0;
-    return {
-      name: `Connector launch, ${(pw * 1e3).toFixed(2)} mm pad`, nodes: sk.nodes, segments: sk.segments, phaseGroups: [],
-      targets: [{ id: 'match', name: 'launch matched', figure: 'return-loss', ports: ['conn'], band: { start: f0 * 0.9, stop: f0 * 1.1 }, limit: { min: 15 } }],
-      notes: [`${launchBlock.title}: ${(pw * 1e3).toFixed(2)} × ${(pl * 1e3).toFixed(2)} mm pad, ${(tl * 1e3).toFixed(2)} mm linear taper to ${z0} Ω.`],
-      band: { start: f0 * 0.5, stop: f0 * 1.5 },
-    };
-  },
-};
