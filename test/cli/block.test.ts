@@ -52,6 +52,21 @@ describe('stripwright block (registry)', () => {
     expect(h.stdout).toMatch(/--sections VALUE\s+Number of quarter-wave sections \(1 to 8; default 3\)/);
     expect(h.stdout).toContain('Pozar');
   });
+  it('launch: --help lists the pin, pad and taper with units and what an empty one means; the default builds; a pad that misses −25 dB is refused naming the nearest', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
+    const h = await run(['block', 'launch', '--help'], dir);
+    expect(h.stdout).toMatch(/--pin-width VALUE\s+Width of the connector's centre pin on the pad .*\(0\.2 to 5 mm; default 1\.27 mm\)/);
+    expect(h.stdout).toMatch(/--pad-width VALUE\s+Width of the connector pad \(not given: the wider of the line and the pin\) \(0\.3 to 10 mm\)/);
+    expect(h.stdout).toMatch(/--taper-length VALUE\s+.*not given: a 30° flare/);
+    expect((await run(['block', 'launch', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--out', 'l.json'], dir)).code).toBe(0);
+    expect((await run(['build', 'l.json'], dir)).code).toBe(0);
+    // A 1.5 mm pad, 3 mm long, on the ~3 mm line: a short high-impedance section (Pozar §5.5), about −23 dB.
+    const r = await run(['block', 'launch', '--pad-width', '1.5mm', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--out', 'n.json'], dir);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/launch\.padWidth/);
+    expect(r.stderr).toMatch(/the nearest that meets it: a pad at most [\d.]+ mm long at 1\.5 mm wide/);
+    expect(existsSync(join(dir, 'n.json'))).toBe(false);
+  });
   it('--out writes a complete design that build accepts; --into … --at adds a block to a copy', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));
     const r = await run(['block', 'corporate', '--outputs', '3', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--out', 'feed.json'], dir);

@@ -53,7 +53,10 @@ function meetsSpec(s: Spec): void {
 /** The spec a refusal names as the nearest it makes (the wordings of core/blocks/kinds/filters.ts bandstopNearest). */
 function named(s: Spec, hint: string): Spec {
   const pct = (x: string) => Number(x) / 100;
-  let m = /the nearest it makes within spec: ([\d.]+) dB ripple at order (\d) and ([\d.]+) %/.exec(hint);
+  // A maximally flat spec's nearest may be the equal-ripple row at its order and band.
+  let m = /the nearest it makes within spec: ([\d.]+) dB equal ripple at order (\d) and ([\d.]+) %/.exec(hint);
+  if (m) return { ...s, response: 'chebyshev', rippleDb: Number(m[1]), order: Number(m[2]), bw: pct(m[3]!) };
+  m = /the nearest it makes within spec: ([\d.]+) dB ripple at order (\d) and ([\d.]+) %/.exec(hint);
   if (m) return { ...s, rippleDb: Number(m[1]), order: Number(m[2]), bw: pct(m[3]!) };
   m = /the nearest it makes within spec: a ([\d.]+) % stop band at order (\d)(?: and ([\d.]+) dB)?/.exec(hint);
   if (m) return { ...s, bw: pct(m[1]!), order: Number(m[2]), ...(m[3] ? { rippleDb: Number(m[3]) } : {}) };

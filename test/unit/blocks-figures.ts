@@ -107,7 +107,7 @@ export function nearestSpec(c: Case, hint: string): Record<string, unknown> | nu
   let m: RegExpExecArray | null;
   if (c.kind === 'launch' && (m = /a pad at most ([\d.]+) mm long at ([\d.]+) mm wide/.exec(first))) return { ...c.raw, padLength: `${m[1]} mm`, padWidth: `${m[2]} mm` };
   if (c.kind === 'launch' && (m = /a pad (?:at most|at least) ([\d.]+) mm wide at ([\d.]+) mm long/.exec(first))) return { ...c.raw, padWidth: `${m[1]} mm`, padLength: `${m[2]} mm` };
-  if ((m = /^([\d.]+) dB equal ripple at order (\d+)(?: and ([\d.]+) %)?/.exec(first))) return { ...c.raw, response: 'chebyshev', rippleDb: `${m[1]} dB`, order: m[2], ...(m[3] ? { bw: String(Number(m[3]) / 100) } : {}) };
+  if ((m = /^([\d.]+) dB (?:equal )?ripple at order (\d+)(?: and ([\d.]+) %)?/.exec(first))) return { ...c.raw, response: 'chebyshev', rippleDb: `${m[1]} dB`, order: m[2], ...(m[3] ? { bw: String(Number(m[3]) / 100) } : {}) };
   if ((m = /^a ([\d.]+) % stop band at order (\d+)/.exec(first))) return { ...c.raw, bw: String(Number(m[1]) / 100), order: m[2] };
   if ((m = /^order (\d+)/.exec(first))) return { ...c.raw, order: m[1] };
   return null;

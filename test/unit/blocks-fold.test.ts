@@ -62,7 +62,7 @@ describe('a block folded to fit its footprint', () => {
     });
   }
   it('a block that fits a quarter turn is turned, not folded', () => {
-    const doc = make('launch', { footprint: '8mm,20mm' });
+    const doc = make('launch', { footprint: '6mm,20mm' }); // 8 mm long (pad and port line), about 2.3 mm wide
     expect(String(doc.notes ?? '')).toMatch(/quarter turn/);
     expect(doc.nodes.some((n) => n.kind === 'vertex' && n.id.includes('.turn'))).toBe(false);
   });

@@ -96,10 +96,10 @@ export const launchBlock: BlockDef = {
   summary: 'pad for an edge-mounted connector\'s pin, with a taper to the line when the pad is not the line\'s width',
   source: 'the pad as wide as the line or the pin (common practice); its reflection by the theory of small reflections, Pozar, Microwave Engineering, 4th ed., 2012, §5.5 and §5.8; judged by the sweep with the Garg and Bahl 1978 step model',
   params: [
-    { name: 'pinWidth', type: 'number', unit: 'length', min: 0.2e-3, max: 5e-3, default: 1.27e-3, meaning: 'Width of the connector\'s centre pin where it lies on the pad (1.27 mm: SMA class; the connector\'s drawing wins)' },
-    { name: 'padWidth', type: 'number', unit: 'length', min: 0.3e-3, max: 10e-3, optional: true, meaning: 'Width of the connector pad (empty: the wider of the line and the pin)' },
+    { name: 'pinWidth', type: 'number', unit: 'length', min: 0.2e-3, max: 5e-3, default: 1.27e-3, meaning: 'Width of the connector\'s centre pin on the pad (1.27 mm: SMA class; your connector\'s drawing wins)' },
+    { name: 'padWidth', type: 'number', unit: 'length', min: 0.3e-3, max: 10e-3, optional: true, meaning: 'Width of the connector pad (not given: the wider of the line and the pin)' },
     { name: 'padLength', type: 'number', unit: 'length', min: 0.3e-3, max: 20e-3, default: 3e-3, meaning: 'Length of the pad the pin lies on, from the board edge' },
-    { name: 'taperLength', type: 'number', unit: 'length', min: 0.1e-3, max: 50e-3, optional: true, meaning: 'Length of the linear taper from the pad to the line (empty: a 30° flare, the shortest the models describe)' },
+    { name: 'taperLength', type: 'number', unit: 'length', min: 0.1e-3, max: 50e-3, optional: true, meaning: 'Length of the linear taper from the pad to the line (not given: a 30° flare, the shortest the models describe)' },
     Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec, ctx) {
