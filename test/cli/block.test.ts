@@ -60,12 +60,19 @@ describe('stripwright block (registry)', () => {
     expect(h.stdout).toMatch(/--taper-length VALUE\s+.*not given: a 30° flare/);
     expect((await run(['block', 'launch', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--out', 'l.json'], dir)).code).toBe(0);
     expect((await run(['build', 'l.json'], dir)).code).toBe(0);
-    // A 1.5 mm pad, 3 mm long, on the ~3 mm line: a short high-impedance section (Pozar §5.5), about −23 dB.
-    const r = await run(['block', 'launch', '--pad-width', '1.5mm', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--out', 'n.json'], dir);
+    // A 1.5 mm pad, 3 mm long, on the ~3 mm line: a short high-impedance section (Pozar §5.5), about −23 dB with a
+    // 3 mm taper: the asked taper is kept and the launch refused, naming the nearest that meets −25 dB.
+    const r = await run(['block', 'launch', '--pad-width', '1.5mm', '--taper-length', '3mm', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--out', 'n.json'], dir);
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/launch\.padWidth/);
-    expect(r.stderr).toMatch(/the nearest that meets it: a pad at most [\d.]+ mm long at 1\.5 mm wide/);
+    expect(r.stderr).toMatch(/the nearest that meets it: no taper length \(the generator's [\d.]+ mm flare, or its compensating section\); or a pad at most [\d.]+ mm long at 1\.5 mm wide/);
     expect(existsSync(join(dir, 'n.json'))).toBe(false);
+    // Left to the generator, the same pad gets its compensating section (Z0²/Zp, Pozar §5.5), and builds.
+    expect((await run(['block', 'launch', '--pad-width', '1.5mm', '--f0', '2.45GHz', '--er', '4.4', '--h', '1.6mm', '--out', 'c.json'], dir)).code).toBe(0);
+    const p = parseDesign(readFileSync(join(dir, 'c.json'), 'utf8'));
+    if (!p.ok) throw new Error('refused');
+    expect(p.doc.segments.map((x) => x.id)).toContain('b1.comp');
+    expect((await run(['build', 'c.json'], dir)).code).toBe(0);
   });
   it('--out writes a complete design that build accepts; --into … --at adds a block to a copy', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'sw-block-'));

@@ -52,6 +52,7 @@ export const CASES: Case[] = [
   { name: 'bandstop chebyshev', kind: 'bandstop', raw: { response: 'chebyshev' } },
   { name: 'launch', kind: 'launch', raw: {} },
   { name: 'launch narrow pad', kind: 'launch', raw: { padWidth: '1.5 mm', padLength: '1.5 mm' } },
+  { name: 'launch pad, 3 mm taper', kind: 'launch', raw: { padWidth: '1.5 mm', taperLength: '3 mm' } },
 ];
 
 export interface Verdict {
@@ -105,6 +106,8 @@ function stopEdges(doc: DesignDoc, f0: number, level: number): [number, number] 
 export function nearestSpec(c: Case, hint: string): Record<string, unknown> | null {
   const first = /nearest[^:]*: ([^;]*)/.exec(hint)?.[1] ?? '';
   let m: RegExpExecArray | null;
+  if (c.kind === 'launch' && /^no taper length/.test(first)) { const { taperLength: _t, ...rest } = c.raw; return rest; }
+  if (c.kind === 'launch' && /^no pad width/.test(first)) { const { padWidth: _w, ...rest } = c.raw; return rest; }
   if (c.kind === 'launch' && (m = /a pad at most ([\d.]+) mm long at ([\d.]+) mm wide/.exec(first))) return { ...c.raw, padLength: `${m[1]} mm`, padWidth: `${m[2]} mm` };
   if (c.kind === 'launch' && (m = /a pad (?:at most|at least) ([\d.]+) mm wide at ([\d.]+) mm long/.exec(first))) return { ...c.raw, padWidth: `${m[1]} mm`, padLength: `${m[2]} mm` };
   if ((m = /^([\d.]+) dB (?:equal )?ripple at order (\d+)(?: and ([\d.]+) %)?/.exec(first))) return { ...c.raw, response: 'chebyshev', rippleDb: `${m[1]} dB`, order: m[2], ...(m[3] ? { bw: String(Number(m[3]) / 100) } : {}) };

@@ -9,7 +9,7 @@
  * no cross-section table.
  */
 import { describe, expect, it } from 'vitest';
-import { analyzeLine, makeBlockDesign, netlistFromSized, sizeDesign, solveNetwork, FR4_DEFAULT, InputError } from '../../core/index.ts';
+import { analyzeLine, synthesizeLine, makeBlockDesign, netlistFromSized, sizeDesign, solveNetwork, FR4_DEFAULT, InputError } from '../../core/index.ts';
 import { autoTaperLength } from '../../core/blocks/kinds/launch.ts';
 
 const F0 = 2.45e9;
@@ -34,6 +34,26 @@ function sectionDb(w: number, len: number): number {
   return 20 * Math.log10(num / den);
 }
 
+/** Width of a z-ohm line on the test's laminate (the core's synthesis; plain microstrip). */
+function widthOf(z: number): number { return synthesizeLine(FR4_DEFAULT, z, F0).width; }
+
+/** |Γ| in dB at the input of cascaded line sections [Z, θ] between 50 Ω lines (ABCD matrices, Pozar Table 4.1). */
+function abcdGammaDb(sections: [number, number][]): number {
+  // Complex 2×2 product; entries [re, im].
+  type C = [number, number];
+  const mul = (a: C, b: C): C => [a[0] * b[0] - a[1] * b[1], a[0] * b[1] + a[1] * b[0]];
+  const add = (a: C, b: C): C => [a[0] + b[0], a[1] + b[1]];
+  let M: [C, C, C, C] = [[1, 0], [0, 0], [0, 0], [1, 0]];
+  for (const [z, th] of sections) {
+    const L: [C, C, C, C] = [[Math.cos(th), 0], [0, z * Math.sin(th)], [0, Math.sin(th) / z], [Math.cos(th), 0]];
+    M = [add(mul(M[0], L[0]), mul(M[1], L[2])), add(mul(M[0], L[1]), mul(M[1], L[3])), add(mul(M[2], L[0]), mul(M[3], L[2])), add(mul(M[2], L[1]), mul(M[3], L[3]))];
+  }
+  const z0 = 50;
+  const num: C = [M[0][0] + M[1][0] / z0 - M[2][0] * z0 - M[3][0], M[0][1] + M[1][1] / z0 - M[2][1] * z0 - M[3][1]];
+  const den: C = [M[0][0] + M[1][0] / z0 + M[2][0] * z0 + M[3][0], M[0][1] + M[1][1] / z0 + M[2][1] * z0 + M[3][1]];
+  return 20 * Math.log10(Math.hypot(...num) / Math.hypot(...den));
+}
+
 describe('connector launch: the pad reflects as the theory of small reflections says (Pozar §5.5, §5.8)', () => {
   for (const [pw, pl] of [[1.5e-3, 0.5e-3], [1.5e-3, 1e-3], [2.4e-3, 3e-3]] as const) {
     it(`a ${pw * 1e3} × ${pl * 1e3} mm pad on 1.6 mm glass-epoxy: |S11| between a return step at the pad's end and at the taper's end`, () => {
@@ -51,6 +71,32 @@ describe('connector launch: the pad reflects as the theory of small reflections 
     try { makeBlockDesign('launch', { padWidth: '1.2 mm', padLength: '4 mm' }, base); } catch (e) { err = e; }
     expect(err).toBeInstanceOf(InputError);
     expect((err as InputError).hint).toMatch(/a pad at most [\d.]+ mm long at 1\.2 mm wide/);
+  });
+  it('a pad that misses gets a compensating section of Z0²/Zp and the pad\'s electrical length, and reflects as that cascade does (Pozar §4.4 Table 4.1, §5.5)', () => {
+    // 1.5 × 1.5 mm on 1.6 mm glass-epoxy etched: about −23 dB alone (refused with a 3 mm taper, below), so the
+    // generator adds the section.
+    const doc = makeBlockDesign('launch', { padWidth: '1.5 mm', padLength: '1.5 mm' }, base);
+    const comp = doc.segments.find((x) => x.id === 'b1.comp');
+    const pad = doc.segments.find((x) => x.id === 'b1.pad');
+    expect(comp?.kind === 'line' && comp.width.by === 'z0' && pad?.kind === 'line' && pad.length.by === 'length').toBe(true);
+    if (comp?.kind !== 'line' || comp.width.by !== 'z0' || comp.length.by !== 'length' || pad?.kind !== 'line' || pad.length.by !== 'length') return;
+    const p = analyzeLine(FR4_DEFAULT, 1.5e-3, F0);
+    expect(comp.width.z0).toBeCloseTo((50 * 50) / p.z0, 0);
+    // The cascade pad · section between 50 Ω lines with ideal steps, from the lines' ABCD matrices (Pozar Table 4.1).
+    const c = analyzeLine(FR4_DEFAULT, widthOf(comp.width.z0), F0);
+    const cascade = abcdGammaDb([[p.z0, (2 * Math.PI * pad.length.length) / p.lambdaG], [c.z0, (2 * Math.PI * comp.length.length) / c.lambdaG]]);
+    const got = s11Db({ padWidth: '1.5 mm', padLength: '1.5 mm' });
+    expect(got, `sweep ${got.toFixed(2)} dB, ideal-step cascade ${cascade.toFixed(2)} dB`).toBeLessThan(-25);
+    expect(Math.abs(got - cascade)).toBeLessThan(3);
+    // Second order only: well below the pad alone (2|Γ1| sin θ against 4|Γ1| sin² θ).
+    expect(got).toBeLessThan(sectionDb(1.5e-3, 1.5e-3) - 5);
+  });
+  it('an asked taper is kept: the same pad with a 3 mm taper is refused, naming the generator\'s way first', () => {
+    let err: unknown;
+    try { makeBlockDesign('launch', { padWidth: '1.5 mm', padLength: '1.5 mm', taperLength: '3 mm' }, base); } catch (e) { err = e; }
+    expect(err).toBeInstanceOf(InputError);
+    expect((err as InputError).field).toBe('launch.padWidth');
+    expect((err as InputError).hint).toMatch(/^the nearest that meets it: no taper length/);
   });
   it('left to itself the pad is the line where the line is wider than the pin: no step, so no reflection', () => {
     expect(s11Db({})).toBeLessThan(-60);

@@ -14,6 +14,13 @@
  *   pad only moves that return step further away, so the generator's taper (taper length left empty) is the
  *   shortest one whose model stays meaningful: a linear flare whose edges turn at most 30° from the line's axis
  *   (the project's rule: a sharper flare is a step, whose fringing the taper's quasi-static sections leave out).
+ * - When that pad and flare miss the match and the taper was left to the generator, a compensating section follows
+ *   the pad: impedance Zc = Z0²/Zp, so in ln Z the three changes (into the pad, into the section, back to the line)
+ *   are −L, 2L and −L; they sum to zero, and their first-order reflection (Pozar §5.5: Γ(θ) ≈ ½·Σ Δln Z·e^{−2jθ_k})
+ *   cancels when the return to the line lies at twice the electrical distance of the step into the section: the
+ *   section as long electrically as the pad, the two meeting in abrupt steps (compensationFor). What remains is of second order, 4·|Γ1|·sin²θ against the
+ *   pad's 2·|Γ1|·sin θ. A narrow pad (a connector's ground tabs close by) is then followed by a wider section, a
+ *   wide pad (a thin laminate) by a narrower one.
  * - The made launch is judged by the lossless sweep with the line models and the in-line step model the sweep
  *   uses (Garg and Bahl 1978, core/network/fromSized.ts): its match must be below −25 dB at f0 and 20 dB return loss
  *   over the block's band (0.5·f0 to 1.5·f0). A spec that misses is refused, naming the nearest spec that meets it
@@ -25,7 +32,9 @@ import { InputError } from '../../util/errors.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
 import { netlistFromSized } from '../../network/fromSized.ts';
 import { solveNetwork } from '../../network/sweep.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, contextDesign, widthFor, type BlockContext, type BlockDef, type BlockPieces, type Spec } from '../context.ts';
+import { analyzeLine } from '../../line/index.ts';
+import { asMadeLineOptions } from '../../layout/as-made.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, contextDesign, round6, round9, widthFor, type BlockContext, type BlockDef, type BlockPieces, type Spec } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 
 /** Match at f0 (the blocks issue's figure) and return loss over the block's band, dB. */
@@ -35,11 +44,20 @@ export const LAUNCH_BAND_RL_DB = 20;
 const BAND = [0.5, 1.5] as const;
 /** Steepest flare of the generator's taper, each edge from the line's axis (the project's rule, see above). */
 const FLARE_DEG = 30;
+/** The pad's strip runs this far past the port's pad where a compensating section follows, m (the step needs a line). */
+const PAD_TAIL = 0.1e-3;
 /** Pad and line widths closer than this are one strip (no transition drawn), m. */
 const SAME_WIDTH = 1e-6;
 
-/** The launch's geometry, all in metres: pad width and length, taper length (0: none), line width. */
-export interface LaunchShape { pw: number; pl: number; tl: number; wl: number }
+/**
+ * A compensating section after the pad: impedance Z0²/Zp (ohms), its width and its length (m).
+ */
+export interface Compensation { z: number; w: number; len: number }
+/**
+ * The launch's geometry, all in metres: pad width and length, taper length (0: none), line width, and the
+ * compensating section when there is one (it then replaces the taper: the pad meets it, and it the line, in steps).
+ */
+export interface LaunchShape { pw: number; pl: number; tl: number; wl: number; comp?: Compensation }
 
 /** Length of the generator's taper between widths `a` and `b`: a linear flare of FLARE_DEG per edge, at least 0.1 mm. */
 export function autoTaperLength(a: number, b: number): number {
@@ -51,7 +69,19 @@ export function autoTaperLength(a: number, b: number): number {
 function drawLaunch(s: LaunchShape, z0: number, feed: number): Sketch {
   const sk = new Sketch();
   sk.port('conn', { x: 0, y: 0 }, z0, 0, 'connector', { padWidth: s.pw, padLength: s.pl });
-  if (s.tl > 0) {
+  if (s.comp) {
+    // The pad as a strip of its own width (the port's pad is its first part, a short tail of it joins the steps),
+    // then the section and the line, each meeting the next in a width step (the sweep's Garg and Bahl 1978 model).
+    const c = s.comp, z = round6(c.z);
+    let x = s.pl + PAD_TAIL;
+    sk.vertex('k1', { x, y: 0 }, 'square');
+    sk.segments.push({ id: 'pad', kind: 'line', a: 'conn', b: 'k1', width: { by: 'width', width: round9(s.pw) }, length: { by: 'length', length: round9(s.pl + PAD_TAIL) }, label: 'connector pad (the port\'s pad is its first part)' });
+    x += c.len;
+    sk.vertex('k2', { x, y: 0 }, 'square');
+    sk.line('comp', 'k1', 'k2', z, { length: c.len }, 'compensating section (Z0²/Zp, the pad\'s electrical length)');
+    sk.port('line', { x: x + feed, y: 0 }, z0, Math.PI, 'line');
+    sk.line('run', 'k2', 'line', z0, { length: feed });
+  } else if (s.tl > 0) {
     sk.vertex('k1', { x: s.pl + s.tl, y: 0 }, 'square');
     sk.segments.push({ id: 'taper', kind: 'taper', a: 'conn', b: 'k1', profile: 'linear', from: { by: 'width', width: s.pw }, to: { by: 'z0', z0 }, length: { by: 'length', length: s.pl + s.tl }, label: 'pad taper (the pad is its first part)' });
     sk.port('line', { x: s.pl + s.tl + feed, y: 0 }, z0, Math.PI, 'line');
@@ -67,7 +97,7 @@ function drawLaunch(s: LaunchShape, z0: number, feed: number): Sketch {
 /** What the lossless sweep (line, taper and step models as the sweep uses them) shows of a launch: |S11| in dB. */
 export interface LaunchMatch { atF0Db: number; worstDb: number }
 
-function launchMatch(s: LaunchShape, z0: number, feed: number, ctx: BlockContext): LaunchMatch | null {
+export function launchMatch(s: LaunchShape, z0: number, feed: number, ctx: BlockContext): LaunchMatch | null {
   const sk = drawLaunch(s, z0, feed);
   const doc = contextDesign(ctx);
   doc.junctions = ctx.junctions; doc.nodes = sk.nodes; doc.segments = sk.segments;
@@ -81,6 +111,37 @@ function launchMatch(s: LaunchShape, z0: number, feed: number, ctx: BlockContext
 }
 
 const meets = (m: LaunchMatch | null): boolean => !!m && m.atF0Db < LAUNCH_MATCH_DB && m.worstDb < -LAUNCH_BAND_RL_DB;
+
+/**
+ * The compensating section for a pad that is not the line's width (see the doc comment): Zc = Z0²/Zp, so the three
+ * steps (into the pad, into the section, back to the line) are −L, 2L and −L in ln Z, and their first-order
+ * reflection cancels when the return to the line lies at twice the electrical distance of the step into the section
+ * (Pozar §5.5: Γ(θ) ≈ ½·Σ Δln Z·e^{−2jθ_k}): the section is as long, electrically, as the pad's strip. The steps are
+ * abrupt (a flare would spread them and push the return further out). Null when the process cannot make the section.
+ */
+export function compensationFor(s: LaunchShape, z0: number, ctx: BlockContext): Compensation | null {
+  const opts = asMadeLineOptions(contextDesign(ctx));
+  const at = (w: number) => analyzeLine(ctx.substrate, w, ctx.f0, opts);
+  const zp = at(s.pw).z0, z = (z0 * z0) / zp;
+  let w: number;
+  try { w = widthFor(ctx, z, 'launch.padWidth', 'the compensating section'); } catch (e) { if (e instanceof InputError) return null; throw e; }
+  // θc = θp: the section has the pad's electrical length (its strip, tail included).
+  const len = ((s.pl + PAD_TAIL) * at(w).lambdaG) / at(s.pw).lambdaG;
+  return { z, w, len };
+}
+
+/**
+ * The launch made from a shape: as drawn when it meets the match, else, when the taper was left to the generator,
+ * with the compensating section when that meets it. The figures are those of the one returned.
+ */
+function madeLaunch(s: LaunchShape, autoTaper: boolean, z0: number, feed: number, ctx: BlockContext): { shape: LaunchShape; m: LaunchMatch | null } {
+  const m = launchMatch(s, z0, feed, ctx);
+  if (meets(m) || !autoTaper || s.tl === 0) return { shape: s, m };
+  const comp = compensationFor(s, z0, ctx);
+  if (!comp) return { shape: s, m };
+  const c = { ...s, comp }, mc = launchMatch(c, z0, feed, ctx);
+  return meets(mc) || (mc && (!m || mc.atF0Db < m.atF0Db)) ? { shape: c, m: mc } : { shape: s, m };
+}
 
 /** The launch's shape from its spec: the pad and taper as asked, or the generator's where left empty. */
 function shapeOf(spec: Spec, wl: number): LaunchShape {
@@ -105,12 +166,13 @@ export const launchBlock: BlockDef = {
   generate(spec, ctx) {
     const z0 = spec.z0 as number, feed = spec.feed as number;
     const wl = widthFor(ctx, z0, 'launch.z0', 'the line');
-    const shape = shapeOf(spec, wl);
-    const m = launchMatch(shape, z0, feed, ctx);
+    const { shape, m } = madeLaunch(shapeOf(spec, wl), spec.taperLength === undefined, z0, feed, ctx);
     if (!meets(m)) throw launchRefusal(spec, ctx, shape, m);
     const sk = drawLaunch(shape, z0, feed);
     const f0 = ctx.f0, mm = (x: number) => `${(x * 1e3).toFixed(2)} mm`;
-    const how = shape.tl > 0
+    const how = shape.comp
+      ? `${mm(shape.pw)} × ${mm(shape.pl)} pad, then a ${shape.comp.z.toFixed(1)} Ω compensating section ${mm(shape.comp.len)} long (Z0²/Zp; Zp = ${((z0 * z0) / shape.comp.z).toFixed(1)} Ω: the first-order reflections cancel), meeting the pad and the ${mm(wl)} ${z0} Ω line in steps`
+      : shape.tl > 0
       ? `${mm(shape.pw)} × ${mm(shape.pl)} pad, ${mm(shape.tl)} linear taper${spec.taperLength === undefined ? ` (${FLARE_DEG}° flare)` : ''} to the ${mm(wl)} ${z0} Ω line`
       : `${mm(shape.pl)} pad on the ${mm(wl)} ${z0} Ω line itself (the line is at least as wide as the ${mm(spec.pinWidth as number)} pin)`;
     return {
@@ -133,15 +195,18 @@ export const launchBlock: BlockDef = {
  * the generator's taper (when one was given), the longest pad at the asked width, the width nearest the asked at
  * the asked length (towards the line's width, which always meets: no step at all), and the automatic pad.
  */
-function launchRefusal(spec: Spec, ctx: BlockContext, shape: LaunchShape, m: LaunchMatch | null): InputError {
-  const z0 = spec.z0 as number, feed = spec.feed as number, wl = shape.wl;
+function launchRefusal(spec: Spec, ctx: BlockContext, made: LaunchShape, m: LaunchMatch | null): InputError {
+  const z0 = spec.z0 as number, feed = spec.feed as number, wl = made.wl;
+  // The neighbours are tried as asked shapes: the generator adds (or sizes anew) a compensating section for each.
+  const shape: LaunchShape = { pw: made.pw, pl: made.pl, tl: made.tl, wl };
   const mm = (x: number) => `${+(x * 1e3).toFixed(2)} mm`;
-  const ok = (s: LaunchShape): boolean => { try { return meets(launchMatch(s, z0, feed, ctx)); } catch (e) { if (e instanceof InputError) return false; throw e; } };
+  const auto = spec.taperLength === undefined;
+  const ok = (s: LaunchShape): boolean => { try { return meets(madeLaunch(s, auto, z0, feed, ctx).m); } catch (e) { if (e instanceof InputError) return false; throw e; } };
   const taper = (pw: number): number => (Math.abs(pw - wl) < SAME_WIDTH ? 0 : (spec.taperLength as number | undefined) ?? autoTaperLength(pw, wl));
   const ways: string[] = [];
-  if (spec.taperLength !== undefined) {
-    const auto = { ...shape, tl: autoTaperLength(shape.pw, wl) };
-    if (ok(auto)) ways.push(`an empty taper length (the generator's ${mm(auto.tl)})`);
+  if (!auto) {
+    const gen = { ...shape, tl: autoTaperLength(shape.pw, wl) };
+    if (meets(madeLaunch(gen, true, z0, feed, ctx).m)) ways.push(`no taper length (the generator's ${mm(gen.tl)} flare, or its compensating section)`);
   }
   // Longest pad at the asked width: the reflection grows with the pad's length (2·|Γ1|·sin βℓ).
   const minLen = 0.3e-3;
@@ -159,13 +224,14 @@ function launchRefusal(spec: Spec, ctx: BlockContext, shape: LaunchShape, m: Lau
   }
   if (spec.padWidth !== undefined) {
     const { padWidth: _asked, ...rest } = spec;
-    const auto = shapeOf(rest, wl);
-    if (ok(auto)) ways.push(`an empty pad width (the generator's ${mm(auto.pw)}${auto.tl === 0 ? ', the line\'s own' : ''})`);
+    const own = shapeOf(rest, wl);
+    if (ok(own)) ways.push(`no pad width (the generator's ${mm(own.pw)}${own.tl === 0 ? ', the line\'s own' : ''})`);
   }
   const field = spec.padWidth !== undefined ? 'launch.padWidth' : spec.taperLength !== undefined ? 'launch.taperLength' : 'launch.padLength';
   const seen = m ? `${m.atF0Db.toFixed(1)} dB at f0, ${m.worstDb.toFixed(1)} dB at worst over ${BAND[0]}–${BAND[1]}·f0` : 'a layout the sizing refuses';
+  if (!ways.length) ways.push('a connector with a pin nearer the line\'s width, or a laminate whose line is as wide as the pin');
   return new InputError('out-of-range', field,
     `a launch matched below ${LAUNCH_MATCH_DB} dB at f0 with ${LAUNCH_BAND_RL_DB} dB return loss over ${BAND[0]}–${BAND[1]}·f0 (lossless sweep with the line and step models)`,
-    `a ${mm(shape.pw)} × ${mm(shape.pl)} pad${shape.tl > 0 ? ` with a ${mm(shape.tl)} taper` : ''} to the ${mm(wl)} ${z0} Ω line: ${seen}`,
+    `a ${mm(made.pw)} × ${mm(made.pl)} pad${made.comp ? ` with a ${made.comp.z.toFixed(1)} Ω compensating section` : made.tl > 0 ? ` with a ${mm(made.tl)} taper` : ''} to the ${mm(wl)} ${z0} Ω line: ${seen}`,
     `the nearest that meets it: ${ways.join('; or ')}`);
 }
