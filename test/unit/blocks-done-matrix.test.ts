@@ -17,8 +17,9 @@
  * matched at every port: Pozar §7.1): its input match and transmissions are what is checked.
  * The connector launch: all the power through and matched at f0 (Pozar §5.5: a pad as wide as the line is no step at
  * all; the default pad is the wider of the line and the connector's pin, and on 1.6 mm glass-epoxy the line is the
- * wider). An asked pad narrower than the line is a short high-impedance section: made when its sweep meets −25 dB,
- * refused otherwise, naming the nearest pad that does (and that pad, made, meets it).
+ * wider). An asked pad narrower than the line is a short high-impedance section: made when its sweep meets −25 dB
+ * (with a compensating section when the taper is left to the block), refused otherwise, naming the nearest pad that
+ * does (and that pad, made, meets it).
  * Other boards, frequencies and processes: test/unit/blocks-board-matrix.test.ts (scripts/blocks-matrix.ts prints all).
  */
 import { describe, expect, it } from 'vitest';

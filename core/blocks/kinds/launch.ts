@@ -110,6 +110,9 @@ export function launchMatch(s: LaunchShape, z0: number, feed: number, ctx: Block
   return { atF0Db: db[5]!, worstDb: Math.max(...db) };
 }
 
+/** A match in words: below −60 dB the figure says nothing more (no step at all gives numbers near the solver's floor). */
+const dbWords = (db: number): string => (db < -60 ? 'below −60 dB' : `${db.toFixed(1)} dB`);
+
 const meets = (m: LaunchMatch | null): boolean => !!m && m.atF0Db < LAUNCH_MATCH_DB && m.worstDb < -LAUNCH_BAND_RL_DB;
 
 /**
@@ -182,8 +185,8 @@ export const launchBlock: BlockDef = {
         { id: 'band', name: 'launch over its band', figure: 'return-loss', ports: ['conn'], band: { start: f0 * BAND[0], stop: f0 * BAND[1] }, limit: { min: LAUNCH_BAND_RL_DB } },
       ],
       notes: [
-        `${launchBlock.title} (${launchBlock.source}): ${how}.`,
-        `Lossless sweep with the line and step models: match ${m!.atF0Db.toFixed(1)} dB at f0, ${m!.worstDb.toFixed(1)} dB at worst over ${BAND[0]}–${BAND[1]}·f0. The connector itself is not modelled.`,
+        `${launchBlock.title} (${launchBlock.source}).`,
+        `${how[0]!.toUpperCase()}${how.slice(1)}; lossless sweep with the line and step models: match ${dbWords(m!.atF0Db)} at f0, ${dbWords(m!.worstDb)} at worst over ${BAND[0]}–${BAND[1]}·f0. The connector itself is not modelled.`,
       ],
       band: { start: f0 * BAND[0], stop: f0 * BAND[1] },
     } satisfies BlockPieces;
