@@ -6,7 +6,7 @@
  * - The pad's width, when the user leaves it empty, is the wider of the line and the connector's pin: the pin must
  *   lie wholly on copper to be soldered, and where the line is already wider than the pin it simply runs to the
  *   board edge under it (common practice for edge launches). The pin's default width, 1.27 mm, is the centre
- *   conductor of the common 3.5 mm-class (SMA) interface (from memory; the connector's own drawing wins).
+ *   conductor of the common SMA interface (from memory; the connector's own drawing wins).
  * - A pad of another width than the line is a short line of another impedance at the port. By the theory of small
  *   reflections (D. M. Pozar, Microwave Engineering, 4th ed., 2012, §5.5; §5.8 for a taper as a continuum of small
  *   steps) its reflection is the port's step Γ1 plus the opposite step where the pad returns to the line, delayed
@@ -18,8 +18,8 @@
  *   the pad: impedance Zc = Z0²/Zp, so in ln Z the three changes (into the pad, into the section, back to the line)
  *   are −L, 2L and −L; they sum to zero, and their first-order reflection (Pozar §5.5: Γ(θ) ≈ ½·Σ Δln Z·e^{−2jθ_k})
  *   cancels when the return to the line lies at twice the electrical distance of the step into the section: the
- *   section as long electrically as the pad, the two meeting in abrupt steps (compensationFor). What remains is of second order, 4·|Γ1|·sin²θ against the
- *   pad's 2·|Γ1|·sin θ. A narrow pad (a connector's ground tabs close by) is then followed by a wider section, a
+ *   section as long electrically as the pad, the two meeting in abrupt steps (compensationFor). What remains is of
+ *   second order, 4·|Γ1|·sin²θ against the pad's 2·|Γ1|·sin θ. A narrow pad (a connector's ground tabs close by) is then followed by a wider section, a
  *   wide pad (a thin laminate) by a narrower one.
  * - The made launch is judged by the lossless sweep with the line models and the in-line step model the sweep
  *   uses (Garg and Bahl 1978, core/network/fromSized.ts): its match must be below −25 dB at f0 and 20 dB return loss
@@ -157,8 +157,8 @@ function shapeOf(spec: Spec, wl: number): LaunchShape {
 export const launchBlock: BlockDef = {
   kind: 'launch',
   title: 'Connector launch',
-  summary: 'pad for an edge-mounted connector\'s pin, with a taper to the line when the pad is not the line\'s width',
-  source: 'the pad as wide as the line or the pin (common practice); its reflection by the theory of small reflections, Pozar, Microwave Engineering, 4th ed., 2012, §5.5 and §5.8; judged by the sweep with the Garg and Bahl 1978 step model',
+  summary: 'pad for an edge-mounted connector\'s pin, with a taper or a compensating section to the line when the pad is not the line\'s width',
+  source: 'the pad as wide as the line or the pin (common practice); its reflection and compensating section by the theory of small reflections, Pozar, Microwave Engineering, 4th ed., 2012, §5.5 and §5.8; judged by the sweep with the Garg and Bahl 1978 step model',
   params: [
     { name: 'pinWidth', type: 'number', unit: 'length', min: 0.2e-3, max: 5e-3, default: 1.27e-3, meaning: 'Width of the connector\'s centre pin on the pad (1.27 mm: SMA class; your connector\'s drawing wins)' },
     { name: 'padWidth', type: 'number', unit: 'length', min: 0.3e-3, max: 10e-3, optional: true, meaning: 'Width of the connector pad (not given: the wider of the line and the pin)' },
