@@ -11,6 +11,7 @@
 import { expect, test } from '@playwright/test';
 
 test('typing into the form while a 16-output folded feed previews: every key reaches its field while the fold runs', async ({ page }) => {
+  test.setTimeout(180_000);
   await page.goto('/');
   await page.locator('[data-piece]').first().waitFor();
   await page.keyboard.press('Control+Alt+n');
@@ -56,4 +57,4 @@ test('typing into the form while a 16-output folded feed previews: every key rea
   expect(levels).toHaveLength(16);
   // −12.04 dB (equal 16-way split, lossless) less the line loss of glass-epoxy over a few hundred mm: between −16 and −12.
   for (const db of levels) expect(db).toBeLessThan(-12.04), expect(db).toBeGreaterThan(-16);
-}, { timeout: 180_000 });
+});
