@@ -116,7 +116,7 @@ function settlePhases(doc: DesignDoc, kind: string, original: DesignDoc): void {
  */
 function foldedChains(doc: DesignDoc): DesignSegment[][] {
   const touching = new Map<string, DesignSegment[]>();
-  for (const s of doc.segments) for (const e of endsOf(s)) touching.set(e, [...(touching.get(e) ?? []), s]);
+  for (const s of doc.segments) for (const e of endsOf(s)) pushTo(touching, e, s);
   const kindOf = new Map(doc.nodes.map((n) => [n.id, n.kind]));
   const through = (node: string) => kindOf.get(node) === 'vertex' && (touching.get(node) ?? []).length === 2 && touching.get(node)!.every((x) => x.kind === 'line');
   const seen = new Set<string>();
@@ -258,7 +258,7 @@ function foldables(doc: DesignDoc, sized: SizedDesign): Foldable[] {
   const at = new Map(doc.nodes.map((n) => [n.id, n]));
   const widths = new Map(sized.pieces.map((p) => [p.id, Math.max(p.width, p.widthB ?? 0)]));
   const touching = new Map<string, DesignSegment[]>();
-  for (const s of doc.segments) for (const end of ends(s)) touching.set(end, [...(touching.get(end) ?? []), s]);
+  for (const s of doc.segments) for (const end of ends(s)) pushTo(touching, end, s);
   const widest = (node: string) => Math.max(0, ...(touching.get(node) ?? []).map((s) => widths.get(s.id) ?? 0));
   const hops = hopsFromAnchor(doc, touching);
   const out: Foldable[] = [];
@@ -501,8 +501,14 @@ function isBridge(doc: DesignDoc, s: DesignSegment, touching: Map<string, Design
 /** The nodes on `from`'s side of `cut` (reached from `from` without it). */
 function sideOfBridge(doc: DesignDoc, cut: DesignSegment, from: string): Set<string> {
   const touching = new Map<string, DesignSegment[]>();
-  for (const s of doc.segments) for (const e of endsOf(s)) touching.set(e, [...(touching.get(e) ?? []), s]);
+  for (const s of doc.segments) for (const e of endsOf(s)) pushTo(touching, e, s);
   return reach(from, cut, touching);
+}
+
+/** Adds `s` to the list kept under `key` (in place: rebuilding the list per entry made folding quadratic). */
+function pushTo(m: Map<string, DesignSegment[]>, key: string, s: DesignSegment): void {
+  const l = m.get(key);
+  if (l) l.push(s); else m.set(key, [s]);
 }
 
 function reach(from: string, cut: DesignSegment, touching: Map<string, DesignSegment[]>): Set<string> {
