@@ -17,6 +17,12 @@
  * A fold is kept only when it adds no crowding: no new pair of runs side by side closer than the proximity limit
  * (3h, the distance beyond which the single-line model is taken to hold, common practice; core/layout/proximity.ts),
  * and no new pair of pieces closer than twice the process's cut (at least 0.5 mm, our margin over the shop check).
+ *
+ * The search is greedy and bounded: each step tries every kind of line, shape and side on the drawing (the nodes
+ * move; nothing is sized), puts first the folds whose centrelines crowd nothing new and then those whose moved nodes
+ * overflow least, and sizes and checks only the first `SIZED_PER_STEP` of them; at most `MAX_STEPS` steps. So a
+ * footprint that cannot be reached is refused after a bounded number of sizings, and a fold a wider search would find
+ * may be missed.
  */
 import type { DesignDoc, DesignNode, DesignSegment } from '../design/types.ts';
 import type { Vec2 } from '../geometry/types.ts';
@@ -55,7 +61,7 @@ export function foldBranched(doc: DesignDoc, kind: string, fp: Box): { fits: boo
   const start = snapshot(doc);
   let sized = sizeDesign(doc);
   let size = copperBox(sized), folded = 0;
-  for (let step = 0; step < 24 && overflow(size, fp) > 1e-9; step++) {
+  for (let step = 0; step < MAX_STEPS && overflow(size, fp) > 1e-9; step++) {
     const next = bestFold(doc, sized, size, fp);
     if (!next) break;
     doc.nodes = next.doc.nodes; doc.segments = next.doc.segments;
@@ -110,7 +116,7 @@ function settlePhases(doc: DesignDoc, kind: string, original: DesignDoc): void {
  */
 function foldedChains(doc: DesignDoc): DesignSegment[][] {
   const touching = new Map<string, DesignSegment[]>();
-  for (const s of doc.segments) for (const e of endsOf(s)) touching.set(e, [...(touching.get(e) ?? []), s]);
+  for (const s of doc.segments) for (const e of endsOf(s)) pushTo(touching, e, s);
   const kindOf = new Map(doc.nodes.map((n) => [n.id, n.kind]));
   const through = (node: string) => kindOf.get(node) === 'vertex' && (touching.get(node) ?? []).length === 2 && touching.get(node)!.every((x) => x.kind === 'line');
   const seen = new Set<string>();
@@ -163,14 +169,52 @@ interface Foldable {
   cA: number; cB: number; fA: number; fB: number;
 }
 
-/** Tries every kind of line, shape and side; returns the folded copy that overflows least (and crowds nothing), or null. */
+/**
+ * How many folded copies one step sizes and checks at most. Every kind of line, shape and side is tried on the drawing
+ * (cheap: the nodes move), ranked by the copper the moved nodes would give, and only the most promising are sized and
+ * checked for crowding: the search is bounded, so a footprint that cannot be reached is refused after at most
+ * `MAX_STEPS` × `SIZED_PER_STEP` sizings, not after every combination.
+ */
+export const SIZED_PER_STEP = 8;
+/** Steps (one kind of line folded per step) before the search stops. */
+export const MAX_STEPS = 24;
+
+/** Extent of the copper of a sized design (pieces and node patches before their union), m. */
+function copperExtent(sized: SizedDesign): { x0: number; y0: number; x1: number; y1: number } {
+  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+  for (const o of pieceOutlines(sized).outlines) for (const r of o.regions) for (const p of r.outer) {
+    x0 = Math.min(x0, p.x); x1 = Math.max(x1, p.x); y0 = Math.min(y0, p.y); y1 = Math.max(y1, p.y);
+  }
+  return Number.isFinite(x0) ? { x0, y0, x1, y1 } : { x0: 0, y0: 0, x1: 0, y1: 0 };
+}
+
+function nodeExtent(nodes: DesignNode[]): { x0: number; y0: number; x1: number; y1: number } {
+  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+  for (const n of nodes) { x0 = Math.min(x0, n.at.x); x1 = Math.max(x1, n.at.x); y0 = Math.min(y0, n.at.y); y1 = Math.max(y1, n.at.y); }
+  return { x0, y0, x1, y1 };
+}
+
+/**
+ * Tries every kind of line, shape and side on the drawing; sizes the most promising few (those whose centrelines
+ * crowd nothing new, by the overflow their moved nodes give) and returns the one that overflows least and crowds
+ * nothing, or null.
+ */
 function bestFold(doc: DesignDoc, sized: SizedDesign, size: Box, fp: Box): { doc: DesignDoc; count: number } | null {
   const groups = new Map<string, Foldable[]>();
   for (const f of foldables(doc, sized)) groups.set(f.key, [...(groups.get(f.key) ?? []), f]);
   const centre = centroid(doc.nodes.map((n) => n.at));
-  const before = crowding(doc, sized);
   const now = overflow(size, fp);
-  const tries: { doc: DesignDoc; over: number; sized: SizedDesign; count: number }[] = [];
+  // The copper reaches beyond the outermost nodes by pads, widths and junction patches: kept as margins for the estimate.
+  const c = copperExtent(sized), n0 = nodeExtent(doc.nodes);
+  const margin = { x0: n0.x0 - c.x0, y0: n0.y0 - c.y0, x1: c.x1 - n0.x1, y1: c.y1 - n0.y1 };
+  const guess = (d: DesignDoc) => { const e = nodeExtent(d.nodes); return overflow({ w: e.x1 + margin.x1 - (e.x0 - margin.x0), h: e.y1 + margin.y1 - (e.y0 - margin.y0) }, fp); };
+  // Crowding as drawn (centrelines between nodes), to put first the folds that will likely pass the real check.
+  const widths = new Map(sized.pieces.map((p) => [p.id, Number.isFinite(p.width) ? Math.max(p.width, p.widthB ?? 0) : 0]));
+  const limit = DEFAULT_PROXIMITY_LIMIT_H * doc.substrate.h;
+  const minGap = Math.max(2 * cutWidth(doc.process), 0.5e-3);
+  const drawnBefore = drawnCrowding(doc, widths, limit, minGap);
+  const trials: { doc: DesignDoc; guess: number; clear: boolean; count: number }[] = [];
+  const seen = new Set<string>();
   for (const members of groups.values()) {
     const d = unit(sub(members[0]!.B, members[0]!.A));
     // What is missing along the line's own direction: a fold shortens the extent along it.
@@ -181,19 +225,32 @@ function bestFold(doc: DesignDoc, sized: SizedDesign, size: Box, fp: Box): { doc
     // Each fold takes what is missing (with a little to spare), or all the line allows: the compensated bends move the
     // copper a little, so the first can fall just short.
     for (const shape of shapes) for (const side of sides) for (const take of [want, Infinity]) {
-      const trial = snapshot(doc);
+      const trial = shallow(doc);
       let ok = true;
       for (const m of members) ok &&= foldLine(trial, m, shape, sideOf(doc, m, side, centre), take, doc.substrate.h);
       if (!ok) continue;
-      const s = sizeDesign(trial);
-      if (s.problems.length) continue;
-      const over = overflow(copperBox(s), fp);
-      if (over < now - 0.05e-3) tries.push({ doc: trial, over, sized: s, count: members.length });
+      // The same drawing reached another way (a side that resolves to the same, all the line allows) is tried once.
+      const key = trial.nodes.map((x) => `${x.id}:${x.at.x.toFixed(7)},${x.at.y.toFixed(7)}`).join(';');
+      if (seen.has(key)) continue;
+      seen.add(key);
+      trials.push({ doc: trial, guess: guess(trial), clear: !crowdsMore(drawnBefore, drawnCrowding(trial, widths, limit, minGap)), count: members.length });
     }
   }
-  tries.sort((x, y) => x.over - y.over);
-  for (const t of tries) if (!crowdsMore(before, crowding(t.doc, t.sized))) return { doc: t.doc, count: t.count };
-  return null;
+  // Likely clear first, then by the overflow the moved nodes give.
+  trials.sort((x, y) => Number(y.clear) - Number(x.clear) || x.guess - y.guess);
+  let before: Map<string, number> | null = null;
+  let best: { doc: DesignDoc; over: number; count: number } | null = null;
+  for (const t of trials.slice(0, SIZED_PER_STEP)) {
+    const s = sizeDesign(t.doc);
+    if (s.problems.length) continue;
+    const over = overflow(copperBox(s), fp);
+    if (!(over < now - 0.05e-3) || (best && over >= best.over)) continue;
+    before ??= crowding(doc, sized);
+    if (crowdsMore(before, crowding(t.doc, s))) continue;
+    best = { doc: t.doc, over, count: t.count };
+    if (over <= 1e-9) break; // it fits: nothing does better
+  }
+  return best ? { doc: best.doc, count: best.count } : null;
 }
 
 /** The lines that may fold: bridges given by degrees or length, not yet folded, with their end clearances. */
@@ -201,7 +258,7 @@ function foldables(doc: DesignDoc, sized: SizedDesign): Foldable[] {
   const at = new Map(doc.nodes.map((n) => [n.id, n]));
   const widths = new Map(sized.pieces.map((p) => [p.id, Math.max(p.width, p.widthB ?? 0)]));
   const touching = new Map<string, DesignSegment[]>();
-  for (const s of doc.segments) for (const end of ends(s)) touching.set(end, [...(touching.get(end) ?? []), s]);
+  for (const s of doc.segments) for (const end of ends(s)) pushTo(touching, end, s);
   const widest = (node: string) => Math.max(0, ...(touching.get(node) ?? []).map((s) => widths.get(s.id) ?? 0));
   const hops = hopsFromAnchor(doc, touching);
   const out: Foldable[] = [];
@@ -317,6 +374,50 @@ function sideOf(doc: DesignDoc, f: Foldable, side: Side, centre: Vec2): 1 | -1 {
 }
 
 /**
+ * Pairs of lines crowding each other as drawn, by the rules of `crowding` on centrelines straight from node to node
+ * (a folded part counts with the width of the line it came from): runs parallel within 10° side by side over at
+ * least the narrower width, closer than `limit` edge to edge ('run'), or any two closer than `minGap` ('gap'). A cheap
+ * stand-in for `crowding`, used only to order the folds tried; the sized check decides.
+ */
+function drawnCrowding(doc: DesignDoc, widths: Map<string, number>, limit: number, minGap: number): Map<string, number> {
+  const at = new Map(doc.nodes.map((n) => [n.id, n.at]));
+  const sticks: { id: string; a: string; b: string; p: Vec2; q: Vec2; w: number; x0: number; y0: number; x1: number; y1: number }[] = [];
+  for (const s of doc.segments) {
+    if (s.kind === 'coupled') continue;
+    const p = at.get(s.a), q = at.get(s.b);
+    if (!p || !q) continue;
+    const w = widths.get(s.id) ?? widths.get(s.id.split(FOLD_MARK)[0]!) ?? 0;
+    sticks.push({ id: s.id, a: s.a, b: s.b, p, q, w, x0: Math.min(p.x, q.x) - w / 2, y0: Math.min(p.y, q.y) - w / 2, x1: Math.max(p.x, q.x) + w / 2, y1: Math.max(p.y, q.y) + w / 2 });
+  }
+  const reach = Math.max(limit, minGap);
+  const out = new Map<string, number>();
+  for (let i = 0; i < sticks.length; i++) for (let j = i + 1; j < sticks.length; j++) {
+    const u = sticks[i]!, v = sticks[j]!;
+    if (u.x0 > v.x1 + reach || v.x0 > u.x1 + reach || u.y0 > v.y1 + reach || v.y0 > u.y1 + reach) continue;
+    if (u.a === v.a || u.a === v.b || u.b === v.a || u.b === v.b) continue;
+    const side = besideDrawn(u.p, u.q, v.p, v.q);
+    const run = side && side.overlap >= Math.min(u.w, v.w) ? side.distance - (u.w + v.w) / 2 : Infinity;
+    if (run > 0 && run < limit) out.set(`run:${pairKey(u.id, v.id)}`, run);
+    const gap = segGap(u.p, u.q, v.p, v.q) - (u.w + v.w) / 2;
+    if (gap < minGap) out.set(`gap:${pairKey(u.id, v.id)}`, Math.max(0, gap));
+  }
+  return out;
+}
+
+/** Centreline distance and overlap of two segments parallel within 10°, or null. */
+function besideDrawn(p0: Vec2, p1: Vec2, q0: Vec2, q1: Vec2): { distance: number; overlap: number } | null {
+  const L = Math.hypot(p1.x - p0.x, p1.y - p0.y), M = Math.hypot(q1.x - q0.x, q1.y - q0.y);
+  if (!(L > 0) || !(M > 0)) return null;
+  const ux = (p1.x - p0.x) / L, uy = (p1.y - p0.y) / L;
+  if (Math.abs((ux * (q1.x - q0.x) + uy * (q1.y - q0.y)) / M) < Math.cos((10 * Math.PI) / 180)) return null;
+  const t0 = (q0.x - p0.x) * ux + (q0.y - p0.y) * uy, t1 = (q1.x - p0.x) * ux + (q1.y - p0.y) * uy;
+  const overlap = Math.min(L, Math.max(t0, t1)) - Math.max(0, Math.min(t0, t1));
+  if (!(overlap > 0)) return null;
+  const mx = (q0.x + q1.x) / 2 - p0.x, my = (q0.y + q1.y) / 2 - p0.y;
+  return { distance: Math.abs(mx * -uy + my * ux), overlap };
+}
+
+/**
  * Pairs of pieces or node patches crowding each other, by ids, with their gap: runs side by side within 3h ('run'),
  * copper within the gap ('gap').
  */
@@ -400,8 +501,14 @@ function isBridge(doc: DesignDoc, s: DesignSegment, touching: Map<string, Design
 /** The nodes on `from`'s side of `cut` (reached from `from` without it). */
 function sideOfBridge(doc: DesignDoc, cut: DesignSegment, from: string): Set<string> {
   const touching = new Map<string, DesignSegment[]>();
-  for (const s of doc.segments) for (const e of endsOf(s)) touching.set(e, [...(touching.get(e) ?? []), s]);
+  for (const s of doc.segments) for (const e of endsOf(s)) pushTo(touching, e, s);
   return reach(from, cut, touching);
+}
+
+/** Adds `s` to the list kept under `key` (in place: rebuilding the list per entry made folding quadratic). */
+function pushTo(m: Map<string, DesignSegment[]>, key: string, s: DesignSegment): void {
+  const l = m.get(key);
+  if (l) l.push(s); else m.set(key, [s]);
 }
 
 function reach(from: string, cut: DesignSegment, touching: Map<string, DesignSegment[]>): Set<string> {
@@ -428,6 +535,11 @@ function hopsFromAnchor(doc: DesignDoc, touching: Map<string, DesignSegment[]>):
     for (const s of touching.get(n) ?? []) for (const e of endsOf(s)) if (!hops.has(e)) { hops.set(e, hops.get(n)! + 1); queue.push(e); }
   }
   return hops;
+}
+
+/** A copy whose lists can be replaced without touching `doc` (foldLine replaces records, it never edits them). */
+function shallow(doc: DesignDoc): DesignDoc {
+  return { ...doc, nodes: [...doc.nodes], segments: [...doc.segments] };
 }
 
 function snapshot(doc: DesignDoc): DesignDoc {

@@ -171,6 +171,33 @@ describe('a branched block folded to fit its footprint', () => {
     }
   });
 
+  it('a 16-output feed (20 mm pitch, 1.6 mm glass-epoxy) too large for 310 × 70 mm is refused naming a folded footprint, and that one folds: copper inside, outputs at −12.04 dB and in phase', () => {
+    // The bounded search (fold-branched.ts: a few sized tries per step) still names a footprint that folds when given.
+    const FR4_16 = { ...FR4_08, h: 1.6e-3 };
+    // Made as the app's new design makes it (its default as-made sizing).
+    const feed = (footprint: string) => makeBlockDesign('corporate', { outputs: '16', pitch: '20mm', footprint }, { f0: F0, substrate: FR4_16 });
+    let err: unknown;
+    try { feed('310mm,70mm'); } catch (e) { err = e; }
+    expect(err).toBeInstanceOf(InputError);
+    const m = /or folded, at least (\d+\.\d) mm × (\d+\.\d) mm/.exec((err as InputError).expected);
+    expect(m, (err as InputError).expected).not.toBeNull();
+    const doc = feed(`${m![1]}mm,${m![2]}mm`);
+    expect(String(doc.notes ?? '')).toMatch(/Folded \d+ lines? \(mitered bends/);
+    const box = copperBox(doc);
+    expect(box.w).toBeLessThanOrEqual(Number(m![1]) * 1e-3 + 1e-9);
+    expect(box.h).toBeLessThanOrEqual(Number(m![2]) * 1e-3 + 1e-9);
+    expect(box.bad.filter((f) => f.severity === 'error')).toEqual([]);
+    // An equal 16-way split: 10·log10(1/16) = −12.04 dB each, lossless (Pozar §7.3's equal split, four levels deep);
+    // outputs in phase within 1°, match below −25 dB.
+    const s = sweep(doc, [F0]);
+    const outs = s.ports.filter((p) => /^out\d+$/.test(p));
+    expect(outs).toHaveLength(16);
+    for (const o of outs) expect(Math.abs(s.db(o, 'in') + 12.0412), o).toBeLessThan(0.1);
+    const ph = outs.map((o) => s.deg(o, 'in'));
+    expect(Math.max(...ph.map((p) => Math.abs(wrap(p - ph[0]!))))).toBeLessThan(1);
+    expect(s.db('in', 'in')).toBeLessThan(-25);
+  });
+
   it('a footprint too small is refused naming the smallest that fits, and that one fits', () => {
     let err: unknown;
     try { make('stub-match', { load: '30-20j', footprint: '20mm,10mm' }); } catch (e) { err = e; }

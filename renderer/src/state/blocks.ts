@@ -42,7 +42,7 @@ export function placeBlock(ed: EditorState, ask: BlockAsk): string | null {
 
 // ---- blocks of the registry (core/blocks/registry.ts), placed with their spec (block.put) -------------------------
 
-import { BLOCKS, blockPlacement, contextOf, generateBlock, respecPlacement, sizeDesign, netlistFromSized, solveNetwork, nameFromBlock, placedWords, type BlockPlacement, type PlacedBlock } from '../../../core/index.ts';
+import { BLOCKS, blockPlacement, respecPlacement, nameFromBlock, placedWords, type BlockPlacement, type PlacedBlock } from '../../../core/index.ts';
 
 /** The placed block a record (node or segment id) belongs to, if any. */
 export function blockOf(ed: EditorState, id: string | null): PlacedBlock | null {
@@ -55,22 +55,6 @@ export function placementPoint(ed: EditorState): { x: number; y: number } {
   if (ed.hoverAt) return { ...ed.hoverAt };
   const xs = ed.doc.nodes.map((n) => n.at.x), ys = ed.doc.nodes.map((n) => n.at.y);
   return xs.length ? { x: Math.max(...xs) + 10e-3, y: Math.max(...ys) } : { x: 0, y: 0 };
-}
-
-/** A preview of a block for the form: its placed nodes and pieces, and its ports' transmissions from the first port at f0. */
-export interface BlockPreview { name: string; notes: string[]; pieces: { points: { x: number; y: number }[]; width: number }[]; levels: { port: string; db: number; deg: number }[]; match: number }
-
-export function previewBlock(ed: EditorState, kind: string, raw: Record<string, unknown>): BlockPreview {
-  const { pieces } = generateBlock(kind, raw, contextOf(ed.doc));
-  const doc = { ...ed.doc, nodes: pieces.nodes, segments: pieces.segments, phaseGroups: [], targets: [], blocks: [] };
-  const sized = sizeDesign(doc);
-  const shapes = sized.pieces.filter((p) => sized.centrelines[p.id]).map((p) => ({ points: sized.centrelines[p.id]!, width: Number.isFinite(p.width) ? p.width : 0.5e-3 }));
-  const r = solveNetwork(netlistFromSized(sized), new Float64Array([doc.frequency.f0]));
-  const P = r.ports.length;
-  const at = (i: number, j: number) => { const t = 2 * (i * P + j); return { re: r.s[t]!, im: r.s[t + 1]! }; };
-  const db = (c: { re: number; im: number }) => 20 * Math.log10(Math.max(1e-20, Math.hypot(c.re, c.im)));
-  const levels = r.ports.slice(1).map((p, k) => { const c = at(k + 1, 0); return { port: p.name, db: db(c), deg: (Math.atan2(c.im, c.re) * 180) / Math.PI }; });
-  return { name: pieces.name, notes: pieces.notes, pieces: shapes, levels, match: db(at(0, 0)) };
 }
 
 function put(ed: EditorState, pl: BlockPlacement, label: string, name: string | null = null): boolean {

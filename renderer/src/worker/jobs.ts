@@ -26,6 +26,7 @@ import { compareJob, touchstoneFile, reportFile, type CompareInput } from './mea
 import { LayoutSender, type LayoutPost } from './layout-post.ts';
 import { sameData } from './layout-diff.ts';
 import { packResponse } from './response-post.ts';
+import { blockPreviewJob, type BlockPreviewInput } from './block-preview-job.ts';
 
 /** The sized design as it crosses to the page: without the document, which the editor already holds. */
 export type SizedView = Omit<SizedDesign, 'doc'>;
@@ -68,6 +69,7 @@ export async function runJob(kind: JobKind, input: unknown, progress: (p: Progre
     case 'equalize': return equalizeJob(input as EqualizeInput);
     case 'tune': return tuneJob(input as TuneInput, progress, signal);
     case 'compare': return compareJob(input as CompareInput, progress);
+    case 'block-preview': return blockPreviewJob(input as BlockPreviewInput);
     default: return exhaustive(kind, 'job');
   }
 }

@@ -3,7 +3,7 @@
  * of progress messages and then one result or one error. A newer job of the same kind supersedes an older one
  * (the older result is dropped on arrival), so typing fast never queues stale work on screen.
  */
-export type JobKind = 'layout' | 'geometry' | 'check' | 'response' | 'export' | 'section' | 'milling' | 'yield' | 'equalize' | 'tune' | 'compare';
+export type JobKind = 'layout' | 'geometry' | 'check' | 'response' | 'export' | 'section' | 'milling' | 'yield' | 'equalize' | 'tune' | 'compare' | 'block-preview';
 
 export interface JobRequest<K extends JobKind = JobKind, I = unknown> { type: 'job'; id: number; kind: K; input: I }
 
