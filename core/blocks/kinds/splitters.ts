@@ -13,9 +13,15 @@
  */
 import type { DesignSegment, PhaseGroup, Target } from '../../design/types.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
+import { asMadeLineOptions } from '../../layout/as-made.ts';
+import { lineModels } from '../../line/index.ts';
+import { InputError } from '../../util/errors.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, narrowestWidth, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 import { fitSpans, levelTargets, matchPhases, placeAsSized } from '../drawn.ts';
+import { processCutWidth } from '../common.ts';
+import { requireFigures, type SplitFigures } from './split-check.ts';
+import { armPlans, noResistorFits, resistorSpan, toWorld } from './wilkinson-arms.ts';
 
 export function wilkinsonValues(z0: number, ratioDb: number): { k: number; z2: number; z3: number; r: number; t2: number; t3: number } {
   const k2 = Math.pow(10, -ratioDb / 10); // K² = P3/P2: ratioDb = 10·log10(P2/P3)
@@ -29,6 +35,31 @@ export function branchlineValues(z0: number, ratioDb: number): { series: number;
   const r = Math.pow(10, ratioDb / 10); // P_through / P_coupled
   const a = Math.sqrt(r / (1 + r)), b = Math.sqrt(1 / (1 + r));
   return { series: z0 * a, shunt: (z0 * a) / b, through: a, coupled: b };
+}
+
+/** Whether the process makes every impedance of `zs` on this laminate (as the host sizes them), quietly. */
+function makesAll(ctx: BlockContext, zs: number[]): boolean {
+  const opts = asMadeLineOptions(contextDesign(ctx)), minW = narrowestWidth(ctx.process);
+  return zs.every((z) => { try { return lineModels.strip().widthFor(ctx.substrate, z, ctx.f0, opts) >= minW; } catch { return false; } });
+}
+
+/**
+ * The largest split (dB, same sign as `want`, rounded toward 0 dB to 0.1 dB) that `ok` accepts, by bisection on its
+ * size; 0 when even the equal split is not made.
+ */
+export function largestRatio(want: number, ok: (ratioDb: number) => boolean): number {
+  const s = Math.sign(want) || 1;
+  let lo = 0, hi = Math.abs(want);
+  if (!ok(0)) return 0;
+  for (let k = 0; k < 24; k++) { const m = (lo + hi) / 2; if (ok(s * m)) lo = m; else hi = m; }
+  return s * Math.floor(lo * 10 + 1e-9) / 10;
+}
+
+/** Refuses a split ratio the process cannot make here, naming the largest it makes. */
+function ratioRefusal(field: string, what: string, want: number, best: number, cut: number): InputError {
+  return new InputError('out-of-range', field,
+    `a split the process makes on this laminate (its narrowest copper and its ${(cut * 1e3).toFixed(3)} mm cut): ${best === 0 ? 'here only the equal split' : `up to ${best > 0 ? '' : '−'}${Math.abs(best).toFixed(1)} dB`}`,
+    `${want} dB, whose ${what} the process cannot make here`, `give --ratio-db ${best.toFixed(1)}${best === 0 ? '' : ' or less'}, or use a thicker laminate, a wider isolation clearance or a finer process`);
 }
 
 const band = (f0: number, frac: number) => ({ start: f0 * (1 - frac), stop: f0 * (1 + frac) });
@@ -45,26 +76,51 @@ export const wilkinsonBlock: BlockDef = {
     FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec, ctx) {
+    const p1 = 1 / (1 + wilkinsonValues(spec.z0 as number, spec.ratioDb as number).k ** 2);
+    const figs: SplitFigures = { paths: [{ from: 'in', outs: ['o1', 'o2'], levelsDb: [10 * Math.log10(p1), 10 * Math.log10(1 - p1)], phasesDeg: [0, 0] }], matched: ['in', 'o1', 'o2'], isolated: [['o1', 'o2']] };
+    return requireFigures('Wilkinson divider', (c) => makeWilkinson(spec, c), ctx, figs);
+  },
+};
+
+function makeWilkinson(spec: Spec, ctx: BlockContext): BlockPieces {
     const z0 = spec.z0 as number, ratio = spec.ratioDb as number, feed = spec.feed as number;
     const v = wilkinsonValues(z0, ratio);
+    const cut = processCutWidth(ctx.process);
+    // Arms, output lines (or transformers) and a resistor that bridges them, all made here.
+    const wilkOk = (r: number) => {
+      const x = wilkinsonValues(z0, r), eq = Math.abs(r) < 1e-9, zs = [x.z2, x.z3, eq ? z0 : x.t2, eq ? z0 : x.t3];
+      if (!makesAll(ctx, zs)) return false;
+      const w = zs.map((z) => widthFor(ctx, z, 'wilkinson.ratioDb', 'a line'));
+      return resistorSpan([w[0]!, w[1]!], [w[2]!, w[3]!], cut) !== null;
+    };
+    if (!wilkOk(ratio)) {
+      const best = largestRatio(ratio, wilkOk);
+      if (best !== 0 || wilkOk(0)) throw ratioRefusal('wilkinson.ratioDb', 'arms, output lines or resistor', ratio, best, cut);
+    }
     const w2 = widthFor(ctx, v.z2, 'wilkinson.ratioDb', 'arm 1'), w3 = widthFor(ctx, v.z3, 'wilkinson.ratioDb', 'arm 2');
     const equal = Math.abs(ratio) < 1e-9;
-    if (!equal) { widthFor(ctx, v.t2, 'wilkinson.ratioDb', 'output 1 transformer'); widthFor(ctx, v.t3, 'wilkinson.ratioDb', 'output 2 transformer'); }
+    const wo1 = widthFor(ctx, equal ? z0 : v.t2, 'wilkinson.ratioDb', equal ? 'output 1 line' : 'output 1 transformer');
+    const wo2 = widthFor(ctx, equal ? z0 : v.t3, 'wilkinson.ratioDb', equal ? 'output 2 line' : 'output 2 transformer');
     const sk = new Sketch();
-    // Diamond: each arm leaves the split at 45°, turns 90° and meets the resistor; the resistor (1206) spans the ends.
-    const fp = resistorFor(w2, w3), span = fp.pitch;
+    // Each arm: two legs to a bend and back toward the axis, ending beside the other arm's end across the resistor
+    // (wilkinson-arms.ts); the outputs leave the ends 45° outward. The resistor is the smallest chip whose pitch
+    // keeps the process's cut between the copper there.
+    const fp = resistorSpan([w2, w3], [wo1, wo2], cut);
+    if (!fp) throw noResistorFits('wilkinson.ratioDb', [w2, w3], [wo1, wo2], cut);
+    const span = fp.pitch;
     sk.port('in', { x: -feed, y: 0 }, z0, 0, 'input');
     sk.junction('j', { x: 0, y: 0 });
     sk.line('feed', 'in', 'j', z0, { length: feed });
+    const plans = armPlans([lambdaG(ctx, v.z2) / 4, lambdaG(ctx, v.z3) / 4], span);
     const arm = (side: 1 | -1, z: number, tag: string) => {
-      const L = lambdaG(ctx, z) / 4;
-      const l1 = (L + span / Math.SQRT2) / 2, l2 = L - l1;
-      const d = Math.SQRT1_2;
-      const vtx = sk.vertex(`v${tag}`, { x: l1 * d, y: side * l1 * d });
-      const end = sk.vertex(`j${tag}`, { x: (l1 + l2) * d, y: side * (l1 - l2) * d });
-      sk.line(`arm${tag}1`, 'j', vtx, z, { deg: (90 * l1) / L }, `arm ${tag}, first leg`);
-      sk.line(`arm${tag}2`, vtx, end, z, { deg: (90 * l2) / L }, `arm ${tag}, second leg`);
+      const plan = plans[side === 1 ? 0 : 1];
+      const O = { x: 0, y: 0 }, axis = { x: 1, y: 0 }, out = { x: 0, y: side };
+      const vtx = sk.vertex(`v${tag}`, toWorld(O, axis, out, plan.bend));
+      const end = sk.vertex(`j${tag}`, toWorld(O, axis, out, plan.end));
+      sk.line(`arm${tag}1`, 'j', vtx, z, { deg: plan.deg[0] }, `arm ${tag}, first leg`);
+      sk.line(`arm${tag}2`, vtx, end, z, { deg: plan.deg[1] }, `arm ${tag}, second leg`);
       const e = sk.at(end);
+      const L = lambdaG(ctx, z) / 4;
       const turn = sk.vertex(`w${tag}`, { x: e.x + feed, y: e.y + side * feed });
       sk.line(`out${tag}a`, end, turn, equal ? z0 : tag === '1' ? v.t2 : v.t3, equal ? { length: feed } : { deg: 90 }, equal ? undefined : `output ${tag} transformer`);
       const p = sk.port(`o${tag}`, { x: e.x + 2 * feed + (equal ? 0 : L), y: e.y + side * feed }, z0, Math.PI, `output ${tag}`);
@@ -96,8 +152,7 @@ export const wilkinsonBlock: BlockDef = {
       ],
       band: band(f0, 0.25),
     };
-  },
-};
+}
 
 export const branchlineBlock: BlockDef = {
   kind: 'branchline',
@@ -106,8 +161,20 @@ export const branchlineBlock: BlockDef = {
   source: 'Pozar, Microwave Engineering, 4th ed., 2012, §7.5',
   params: [Z0_PARAM, { name: 'ratioDb', type: 'number', unit: 'db', min: -10, max: 10, default: 0, meaning: 'Power to the through port over the coupled port, dB (0 = 3 dB hybrid)' }, FEED_PARAM, FOOTPRINT_PARAM],
   generate(spec, ctx) {
+    const v = branchlineValues(spec.z0 as number, spec.ratioDb as number);
+    const figs: SplitFigures = {
+      paths: [{ from: 'p1', outs: ['p2', 'p3'], levelsDb: [20 * Math.log10(v.through), 20 * Math.log10(v.coupled)], phasesDeg: [0, -90] }],
+      matched: ['p1', 'p2', 'p3', 'p4'], isolated: [['p1', 'p4'], ['p2', 'p3']],
+    };
+    return requireFigures('branch-line hybrid', (c) => makeBranchline(spec, c), ctx, figs);
+  },
+};
+
+function makeBranchline(spec: Spec, ctx: BlockContext): BlockPieces {
     const z0 = spec.z0 as number, ratio = spec.ratioDb as number, feed = spec.feed as number;
     const v = branchlineValues(z0, ratio);
+    const lineOk = (r: number) => { const x = branchlineValues(z0, r); return makesAll(ctx, [x.series, x.shunt]); };
+    if (!lineOk(ratio) && lineOk(0)) throw ratioRefusal('branchline.ratioDb', 'shunt arms', ratio, largestRatio(ratio, lineOk), processCutWidth(ctx.process));
     widthFor(ctx, v.series, 'branchline.ratioDb', 'the series arms'); widthFor(ctx, v.shunt, 'branchline.ratioDb', 'the shunt arms');
     const a = lambdaG(ctx, v.series) / 4, b = lambdaG(ctx, v.shunt) / 4;
     const sk = new Sketch();
@@ -155,8 +222,7 @@ export const branchlineBlock: BlockDef = {
       ],
       band: band(f0, 0.3),
     };
-  },
-};
+}
 
 export const ratraceBlock: BlockDef = {
   kind: 'ratrace',
@@ -165,6 +231,16 @@ export const ratraceBlock: BlockDef = {
   source: 'Pozar, Microwave Engineering, 4th ed., 2012, §7.8',
   params: [Z0_PARAM, FEED_PARAM, FOOTPRINT_PARAM],
   generate(spec, ctx) {
+    const half = 10 * Math.log10(0.5);
+    const figs: SplitFigures = {
+      paths: [{ from: 's', outs: ['o1', 'o2'], levelsDb: [half, half], phasesDeg: [0, 0] }, { from: 'd', outs: ['o1', 'o2'], levelsDb: [half, half], phasesDeg: [0, 180] }],
+      matched: ['s', 'd', 'o1', 'o2'], isolated: [['s', 'd'], ['o1', 'o2']],
+    };
+    return requireFigures('rat-race hybrid', (c) => makeRatrace(spec, c), ctx, figs);
+  },
+};
+
+function makeRatrace(spec: Spec, ctx: BlockContext): BlockPieces {
     const z0 = spec.z0 as number, feed = spec.feed as number, zr = Math.SQRT2 * z0;
     widthFor(ctx, zr, 'ratrace.z0', 'the ring');
     const a = lambdaG(ctx, zr) / 4;
@@ -222,5 +298,5 @@ export const ratraceBlock: BlockDef = {
       ],
       band: band(f0, 0.3),
     };
-  },
-};
+}
+
