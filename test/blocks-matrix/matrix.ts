@@ -9,9 +9,9 @@
  *
  * The ideal figures are the textbooks', computed here from the spec alone, not from the generator:
  * - corporate: each output gets its share of the power, P_i / ΣP (a lossless N-way split: Pozar, Microwave
- *   Engineering, 4th ed., 2012, §7.2), all in phase; a tee feed is checked for its input match only (a lossless
- *   three-port cannot be matched at every port, Pozar §7.1); a Wilkinson tree is matched at every port and its
- *   outputs are isolated from each other (each split is a matched, isolated divider, Pozar §7.3);
+ *   Engineering, 4th ed., 2012, §7.2), all in phase, the input matched (the feed's figures, as
+ *   test/unit/blocks-done-matrix.test.ts: a tee feed cannot be matched at its outputs, a lossless three-port,
+ *   Pozar §7.1; a Wilkinson tree's output match rests on its arm-end junctions, which no published model covers);
  * - wilkinson: P1/P2 = ratio, in phase, every port matched, outputs isolated (Pozar §7.3, eqs. 7.37–7.39);
  * - branchline: through P2/P3 = ratio, coupled lagging by 90°, every port matched, p4 isolated (Pozar §7.5);
  * - ratrace: Σ to both outputs −3.01 dB in phase, Δ to them −3.01 dB 180° apart, matched, Σ–Δ and the outputs
@@ -94,12 +94,7 @@ export function idealFigures(spec: BlockSpec): Figures {
       const n = Number(spec.raw.outputs);
       const outs = Array.from({ length: n }, (_, i) => `out${i + 1}`);
       const levels = spec.raw.amplitudesDb ? share(spec.raw.amplitudesDb.split(',').map((x) => 10 ** (Number(x) / 10))) : outs.map(() => -10 * Math.log10(n));
-      const wilk = spec.raw.split === 'wilkinson';
-      return {
-        paths: [{ from: 'in', outs, levelsDb: levels, phasesDeg: outs.map(() => 0) }],
-        matched: wilk ? ['in', ...outs] : ['in'],
-        isolated: wilk ? outs.flatMap((a, i) => outs.slice(i + 1).map((b) => [a, b] as [string, string])) : [],
-      };
+      return { paths: [{ from: 'in', outs, levelsDb: levels, phasesDeg: outs.map(() => 0) }], matched: ['in'], isolated: [] };
     }
     case 'wilkinson':
       return { paths: [{ from: 'in', outs: ['o1', 'o2'], levelsDb: pair(r), phasesDeg: [0, 0] }], matched: ['in', 'o1', 'o2'], isolated: [['o1', 'o2']] };

@@ -55,11 +55,22 @@ export function largestRatio(want: number, ok: (ratioDb: number) => boolean): nu
   return s * Math.floor(lo * 10 + 1e-9) / 10;
 }
 
-/** Refuses a split ratio the process cannot make here, naming the largest it makes. */
-function ratioRefusal(field: string, what: string, want: number, best: number, cut: number): InputError {
+/**
+ * Refuses a split ratio the process cannot make here, naming the largest it makes; `why` is the first line it cannot
+ * make (the impedance refusal of widthFor, naming the highest impedance made here), when that is the reason.
+ */
+function ratioRefusal(field: string, what: string, want: number, best: number, cut: number, why?: InputError): InputError {
   return new InputError('out-of-range', field,
-    `a split the process makes on this laminate (its narrowest copper and its ${(cut * 1e3).toFixed(3)} mm cut): ${best === 0 ? 'here only the equal split' : `up to ${best > 0 ? '' : '−'}${Math.abs(best).toFixed(1)} dB`}`,
-    `${want} dB, whose ${what} the process cannot make here`, `give --ratio-db ${best.toFixed(1)}${best === 0 ? '' : ' or less'}, or use a thicker laminate, a wider isolation clearance or a finer process`);
+    `a split the process makes on this laminate (its narrowest copper and its ${(cut * 1e3).toFixed(3)} mm cut): ${best === 0 ? 'here only the equal split' : `up to ${best > 0 ? '' : '−'}${Math.abs(best).toFixed(1)} dB`}${why ? `; ${why.expected}` : ''}`,
+    `${want} dB: ${why ? why.got : `its ${what} cannot be made here`}`, `give --ratio-db ${best.toFixed(1)}${best === 0 ? '' : ' or less'}, or use a thicker laminate, a wider isolation clearance or a finer process`);
+}
+
+/** The first of `zs` (named) the process cannot make here, as widthFor refuses it; undefined when all are made. */
+function firstUnmade(ctx: BlockContext, field: string, zs: [number, string][]): InputError | undefined {
+  for (const [z, what] of zs) {
+    try { widthFor(ctx, z, field, what); } catch (e) { if (e instanceof InputError) return e; throw e; }
+  }
+  return undefined;
 }
 
 const band = (f0: number, frac: number) => ({ start: f0 * (1 - frac), stop: f0 * (1 + frac) });
@@ -95,7 +106,9 @@ function makeWilkinson(spec: Spec, ctx: BlockContext): BlockPieces {
     };
     if (!wilkOk(ratio)) {
       const best = largestRatio(ratio, wilkOk);
-      if (best !== 0 || wilkOk(0)) throw ratioRefusal('wilkinson.ratioDb', 'arms, output lines or resistor', ratio, best, cut);
+      const equal = Math.abs(ratio) < 1e-9;
+      const why = firstUnmade(ctx, 'wilkinson.ratioDb', [[v.z2, 'arm 1'], [v.z3, 'arm 2'], [equal ? z0 : v.t2, 'output 1 transformer'], [equal ? z0 : v.t3, 'output 2 transformer']]);
+      if (best !== 0 || wilkOk(0)) throw ratioRefusal('wilkinson.ratioDb', 'arms, output lines or resistor', ratio, best, cut, why);
     }
     const w2 = widthFor(ctx, v.z2, 'wilkinson.ratioDb', 'arm 1'), w3 = widthFor(ctx, v.z3, 'wilkinson.ratioDb', 'arm 2');
     const equal = Math.abs(ratio) < 1e-9;
@@ -174,7 +187,10 @@ function makeBranchline(spec: Spec, ctx: BlockContext): BlockPieces {
     const z0 = spec.z0 as number, ratio = spec.ratioDb as number, feed = spec.feed as number;
     const v = branchlineValues(z0, ratio);
     const lineOk = (r: number) => { const x = branchlineValues(z0, r); return makesAll(ctx, [x.series, x.shunt]); };
-    if (!lineOk(ratio) && lineOk(0)) throw ratioRefusal('branchline.ratioDb', 'shunt arms', ratio, largestRatio(ratio, lineOk), processCutWidth(ctx.process));
+    if (!lineOk(ratio) && lineOk(0)) {
+      const why = firstUnmade(ctx, 'branchline.ratioDb', [[v.series, 'the series arms'], [v.shunt, 'the shunt arms']]);
+      throw ratioRefusal('branchline.ratioDb', 'shunt arms', ratio, largestRatio(ratio, lineOk), processCutWidth(ctx.process), why);
+    }
     widthFor(ctx, v.series, 'branchline.ratioDb', 'the series arms'); widthFor(ctx, v.shunt, 'branchline.ratioDb', 'the shunt arms');
     const a = lambdaG(ctx, v.series) / 4, b = lambdaG(ctx, v.shunt) / 4;
     const sk = new Sketch();

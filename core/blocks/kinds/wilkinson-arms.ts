@@ -44,10 +44,10 @@ export function resistorSpan(arms: [number, number], leaving: [number, number], 
 export function noResistorFits(field: string, arms: [number, number], leaving: [number, number], cut: number): InputError {
   const widest = Math.max(...arms, ...leaving);
   const pitch = smdFootprint('1206').pitch;
-  const most = (pitch - keptGap(cut)) / SQ;
+  const most = (pitch - keptGap(cut)) / (SQ / 2);
   return new InputError('out-of-range', field,
     `lines at the isolation resistor that a 1206 chip (${(pitch * 1e3).toFixed(1)} mm pitch) can bridge while keeping the process's ${(cut * 1e3).toFixed(3)} mm cut between them: two leaving lines together at most ${(most * 1e3).toFixed(2)} mm wide`,
-    `lines ${(widest * 1e3).toFixed(2)} mm wide there`, 'use a thinner laminate (narrower lines for the same impedance) or a finer process');
+    `lines of ${leaving.map((w) => (w * 1e3).toFixed(2)).join(' and ')} mm leaving the arms (arms ${arms.map((w) => (w * 1e3).toFixed(2)).join(' and ')} mm; widest ${(widest * 1e3).toFixed(2)} mm)`, 'use a thinner laminate (narrower lines for the same impedance), a gentler split, or a finer process');
 }
 
 export interface ArmPlan {
