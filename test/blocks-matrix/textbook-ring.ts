@@ -16,10 +16,12 @@ const mul = (a: C, b: C): C => [a[0] * b[0] - a[1] * b[1], a[0] * b[1] + a[1] * 
 const div = (a: C, b: C): C => { const d = b[0] * b[0] + b[1] * b[1]; return [(a[0] * b[0] + a[1] * b[1]) / d, (a[1] * b[0] - a[0] * b[1]) / d]; };
 
 export interface RingLine { a: string; b: string; z: number; deg: number; lossDb: number }
+/** A resistor between two nodes, Ω. */
+export interface RingResistor { a: string; b: string; r: number }
 
 /** |S(to, from)| in dB of lines joined at named nodes, with ports of `z0` at `ports`. */
-export function ringS(lines: RingLine[], ports: string[], z0: number): (to: string, from: string) => number {
-  const names = [...new Set([...ports, ...lines.flatMap((l) => [l.a, l.b])])];
+export function ringS(lines: RingLine[], ports: string[], z0: number, resistors: RingResistor[] = []): (to: string, from: string) => number {
+  const names = [...new Set([...ports, ...lines.flatMap((l) => [l.a, l.b]), ...resistors.flatMap((r) => [r.a, r.b])])];
   const N = names.length, at = (n: string) => names.indexOf(n);
   const Y: C[][] = Array.from({ length: N }, () => Array.from({ length: N }, (): C => [0, 0]));
   for (const l of lines) {
@@ -29,6 +31,10 @@ export function ringS(lines: RingLine[], ports: string[], z0: number): (to: stri
     const i = at(l.a), j = at(l.b);
     Y[i]![i] = add(Y[i]![i]!, y11); Y[j]![j] = add(Y[j]![j]!, y11);
     Y[i]![j] = add(Y[i]![j]!, y12); Y[j]![i] = add(Y[j]![i]!, y12);
+  }
+  for (const r of resistors) {
+    const i = at(r.a), j = at(r.b), g: C = [1 / r.r, 0];
+    Y[i]![i] = add(Y[i]![i]!, g); Y[j]![j] = add(Y[j]![j]!, g); Y[i]![j] = sub(Y[i]![j]!, g); Y[j]![i] = sub(Y[j]![i]!, g);
   }
   for (const p of ports) Y[at(p)]![at(p)] = add(Y[at(p)]![at(p)]!, [1 / z0, 0]);
   const cache = new Map<string, C[]>();
