@@ -67,6 +67,13 @@ describe('refused, naming the nearest spec, which is then made', () => {
     const best = /--ratio-db ([\d.]+)/.exec(e.hint ?? '')![1]!;
     made(spec('branchline', { ratioDb: best }), board('fr4-0.8'), 2.45e9, proc('end-mill'));
   });
+  it('a 3-output −6 dB edge taper of Wilkinson splits on 0.8 mm FR-4 etched names the same taper, shallower', () => {
+    const e = refusal(spec('corporate', { outputs: '3', split: 'wilkinson', amplitudesDb: '-6,0,-6' }), board('fr4-0.8'), 2.45e9, proc('etch'));
+    expect(e.field).toBe('corporate.amplitudesDb');
+    const near = /--amplitudes-db ([-\d.,]*\d)/.exec(e.hint ?? '')![1]!;
+    expect(near.split(',').map(Number)[0]).toBeGreaterThan(-6);
+    made(spec('corporate', { outputs: '3', split: 'wilkinson', amplitudesDb: near }), board('fr4-0.8'), 2.45e9, proc('etch'));
+  });
   it('a rat-race on 1.6 mm FR-4 at 5.8 GHz (its junctions too large for the ring) names the thinner sheet', () => {
     const e = refusal(spec('ratrace'), board('fr4-1.6'), 5.8e9, proc('etch'));
     expect(e.field).toBe('substrate.h');

@@ -59,6 +59,7 @@ export const corporateBlock: BlockDef = {
     const total = power.reduce((a, b) => a + b, 0);
     const outs = Array.from({ length: n }, (_, i) => `out${i + 1}`);
     requireRowFits(n, (spec.pitch as number | undefined) ?? C0 / ctx.f0 / 2);
+    requireMakeableTaper(spec, ctx);
     // The feed's figures: every output's share in phase, and the input matched. A tee feed cannot be matched at its
     // outputs (a lossless three-port: Pozar §7.1); a Wilkinson tree's output match and isolation (§7.3) depend on
     // the junctions at its arm ends, which no published model covers: they are shown by the sweep, not held here.
@@ -87,6 +88,35 @@ function requireRowFits(n: number, pitch: number): void {
     `give --pitch ${most}mm or less, fewer outputs, or a higher design frequency`);
 }
 
+/** Whether every line of the feed (its impedances, and the resistors' lines) is made here: the sketch alone. */
+function sketchable(spec: Spec, ctx: BlockContext): boolean {
+  for (const top of spec.split === 'wilkinson' ? [2] as const : [2, 1] as const) {
+    try { feedAtLevel(spec, ctx, top, true); return true; } catch (e) {
+      if (!(e instanceof InputError) || e.field !== 'corporate.amplitudesDb' || e.code !== 'out-of-range') throw e;
+    }
+  }
+  return false;
+}
+
+/**
+ * A taper whose splits need lines the process cannot make is refused naming the nearest taper it makes: the same
+ * levels scaled toward equal (the largest share of their depth, to 1 %), when the equal feed is made.
+ */
+function requireMakeableTaper(spec: Spec, ctx: BlockContext): void {
+  const dbs = spec.amplitudesDb as number[] | undefined;
+  if (!dbs?.length || sketchable(spec, ctx)) return;
+  const scaled = (k: number) => ({ ...spec, amplitudesDb: dbs.map((d) => Math.round(d * k * 100) / 100) });
+  if (!sketchable(scaled(0), ctx)) return; // even equal levels are not made: the line's own refusal says why
+  let lo = 0, hi = 1;
+  for (let it = 0; it < 12; it++) { const m = (lo + hi) / 2; if (sketchable(scaled(m), ctx)) lo = m; else hi = m; }
+  const k = Math.floor(lo * 100) / 100, near = (scaled(k).amplitudesDb as number[]).map((d) => +d.toFixed(2));
+  let why = '';
+  try { feedAtLevel(spec, ctx, spec.split === 'wilkinson' ? 2 : 1, true); } catch (e) { if (e instanceof InputError) why = `; ${e.expected}`; }
+  throw new InputError('out-of-range', 'corporate.amplitudesDb',
+    `levels whose splits the process makes on this laminate: this taper at up to ${Math.round(k * 100)} % of its depth, ${near.join(', ')} dB${why}`,
+    dbs.join(', '), `give --amplitudes-db ${near.join(',')}; or use a thicker laminate, a wider isolation clearance or a finer process`);
+}
+
 function makeFeed(spec: Spec, ctx: BlockContext): BlockPieces {
     if (spec.split === 'wilkinson') return feedAtLevel(spec, ctx, 2);
     // Tee splits: the textbook levels (higher arm 2·Z0) when the process can make them; else the low variant (higher
@@ -107,7 +137,9 @@ function makeFeed(spec: Spec, ctx: BlockContext): BlockPieces {
  * The feed with tee junction levels set so each split's higher-impedance arm is `top`·Z0 (2: the textbook feed; 1:
  * the low variant). Wilkinson splits work at Z0 whatever `top` is.
  */
-function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces {
+function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces;
+function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2, sketchOnly: true): null;
+function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2, sketchOnly = false): BlockPieces | null {
     const n = spec.outputs as number, z0 = spec.z0 as number, feed = spec.feed as number;
     const wilk = spec.split === 'wilkinson';
     const dbs = (spec.amplitudesDb as number[] | undefined) ?? [];
@@ -219,6 +251,7 @@ function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces {
       sk.line('feed', 'in', 'j', z0, { length: 2 * feed });
     }
     grow(tree, 'j', 0, 0);
+    if (sketchOnly) return null;
     outputs.sort((a, b) => Number(a.slice(3)) - Number(b.slice(3)));
     const f0 = ctx.f0;
     const doc: DesignDoc = contextDesign(ctx);
