@@ -10,8 +10,9 @@
  * - The lines leaving the arm ends head outward at 45°: their copper comes nearest the axis at their end edges,
  *   span/2 − (w/2)·sin 45° from it. The resistor footprint is the smallest chip size whose pitch keeps the process's
  *   cut between those edges (and between the arms' end edges), and the pads' reach of half the arm widths plus
- *   0.5 mm (common practice for hand soldering); the gap between the resistor's own pads is the part's, not a gap
- *   the process must cut.
+ *   0.5 mm (common practice for hand soldering). The gap between the resistor's own pads is the one place the
+ *   lines come closer than that: it is the part's (its land pattern), and only has to be cut, so the chip is one
+ *   whose pad gap is at least the process's cut (the shop check finds an uncut pad gap as a gap between the arm ends).
  */
 import type { Vec2 } from '../../geometry/types.ts';
 import { smdFootprint } from '../../design/footprints.ts';
@@ -30,13 +31,14 @@ export function keptGap(cut: number): number { return cut * 1.1 + 20e-6; }
 
 /**
  * The resistor for a split: the smallest chip whose pitch both reaches the arms (half their widths plus 0.5 mm) and
- * keeps `cut` between the arms' end edges and between the leaving lines' (45° outward). Null when even the largest
- * does not (the lines at the resistor are too wide for this process).
+ * keeps `cut` between the arms' end edges and between the leaving lines' (45° outward), and whose pads' own gap the
+ * process cuts. Null when even the largest does not (the lines at the resistor are too wide for this process).
  */
 export function resistorSpan(arms: [number, number], leaving: [number, number], cut: number): { size: ResistorSize; pitch: number } | null {
   const g = keptGap(cut);
   const need = Math.max((arms[0] + arms[1]) / 2 + 0.5e-3, (SQ / 2) * (arms[0] + arms[1]) + g, (SQ / 2) * (leaving[0] + leaving[1]) + g);
-  for (const size of SIZES) { const pitch = smdFootprint(size).pitch; if (pitch >= need) return { size, pitch }; }
+  // The gap between the chip's own pads must be cut too (copper left there would short the resistor).
+  for (const size of SIZES) { const f = smdFootprint(size); if (f.pitch >= need && f.pitch - f.padAlong >= g) return { size, pitch: f.pitch }; }
   return null;
 }
 
