@@ -118,19 +118,19 @@ function requireMakeableTaper(spec: Spec, ctx: BlockContext): void {
 }
 
 function makeFeed(spec: Spec, ctx: BlockContext): BlockPieces {
-    if (spec.split === 'wilkinson') return feedAtLevel(spec, ctx, 2);
-    // Tee splits: the textbook levels (higher arm 2·Z0) when the process can make them; else the low variant (higher
-    // arm Z0: an equal split is a quarter wave from Z0 down to Z0/2 and two Z0 arms), which milled side copper allows
-    // (it lowers Z0, so high impedances need copper narrower than the cut leaves). Refused, naming the nearest
-    // impedance the process can make, when neither fits.
-    try {
-      return feedAtLevel(spec, ctx, 2);
-    } catch (e) {
-      if (!(e instanceof InputError) || e.code !== 'out-of-range' || e.field !== 'corporate.amplitudesDb') throw e;
-      const made = feedAtLevel(spec, ctx, 1);
-      made.notes.splice(1, 0, `Tee splits at the low level: the higher-impedance arm of each split is ${spec.z0 as number} Ω (the textbook ${2 * (spec.z0 as number)} Ω is beyond what the process makes here: ${e.expected}).`);
-      return made;
-    }
+  if (spec.split === 'wilkinson') return feedAtLevel(spec, ctx, 2);
+  // Tee splits: the textbook levels (higher arm 2·Z0) when the process can make them; else the low variant (higher
+  // arm Z0: an equal split is a quarter wave from Z0 down to Z0/2 and two Z0 arms), which milled side copper allows
+  // (it lowers Z0, so high impedances need copper narrower than the cut leaves). Refused, naming the nearest
+  // impedance the process can make, when neither fits.
+  try {
+    return feedAtLevel(spec, ctx, 2);
+  } catch (e) {
+    if (!(e instanceof InputError) || e.code !== 'out-of-range' || e.field !== 'corporate.amplitudesDb') throw e;
+    const made = feedAtLevel(spec, ctx, 1);
+    made.notes.splice(1, 0, `Tee splits at the low level: the higher-impedance arm of each split is ${spec.z0 as number} Ω (the textbook ${2 * (spec.z0 as number)} Ω is beyond what the process makes here: ${e.expected}).`);
+    return made;
+  }
 }
 
 /**
