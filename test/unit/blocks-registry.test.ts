@@ -151,9 +151,11 @@ describe('rat-race (Pozar §7.8), lossless, at f0', () => {
 
 describe('corporate feed, lossless, at f0', () => {
   // Steep tapers (levels of our own choosing): an 8-output −10 dB edge taper and a 4-output Taylor-like one; their
-  // low-impedance tees are where the tee model's branch transformer matters (corporate.ts, teeLevels).
+  // low-impedance tees are where the tee model's branch transformer matters (corporate.ts, teeLevels). The 6-output
+  // Wilkinson taper is −2 dB at the edges: at −3 dB its 2:1 split's 26 Ω run (7.8 mm on 1.6 mm FR-4) cannot leave the
+  // resistor's arm end with the V-bit's cut beside it (refused; the next test).
   for (const [n, split, amps] of [[4, 'tee', ''], [3, 'tee', ''], [5, 'tee', '0,-1,-3,-1,0'], [4, 'wilkinson', ''],
-    [8, 'tee', '-10,-6,-2.5,0,0,-2.5,-6,-10'], [4, 'tee', '-4.5,0,0,-4.5'], [6, 'wilkinson', '-3,-1,0,0,-1,-3'], [3, 'wilkinson', '']] as const) {
+    [8, 'tee', '-10,-6,-2.5,0,0,-2.5,-6,-10'], [4, 'tee', '-4.5,0,0,-4.5'], [6, 'wilkinson', '-2,-1,0,0,-1,-2'], [3, 'wilkinson', '']] as const) {
     it(`${n} outputs, ${split} splits${amps ? `, levels ${amps} dB` : ''}: each level within 0.1 dB of the ideal share, all in phase within 1°, matched below −25 dB`, () => {
       const doc = make('corporate', { outputs: `${n}`, split, ...(amps ? { amplitudesDb: amps } : {}) });
       const r = sweep(doc, [F0]);
@@ -165,6 +167,13 @@ describe('corporate feed, lossless, at f0', () => {
       expect(s(r, 0, 'b1.in', 'b1.in').db).toBeLessThan(-25);
     });
   }
+});
+
+describe('corporate feed the process cannot draw', () => {
+  it('a 6-output Wilkinson taper with −3 dB edges on 1.6 mm FR-4 is refused, naming the shallower taper it makes and why', () => {
+    expect(() => make('corporate', { outputs: '6', split: 'wilkinson', amplitudesDb: '-3,-1,0,0,-1,-3' }))
+      .toThrow(/this taper at up to \d+ % of its depth, -2\.\d+, .*1206 chip \(3\.1 mm pitch\) can bridge/);
+  });
 });
 
 describe('stub match (Pozar §5.2–5.3)', () => {
@@ -333,6 +342,6 @@ describe('blocks in a design sized as made', () => {
   it('a split no level can make there is refused, naming the nearest impedance', () => {
     // −20 dB edge outputs: even at the low level the weak arm of the outer splits needs a high impedance.
     expect(() => makeBlockDesign('corporate', { outputs: '4', amplitudesDb: '-20,0,0,-20' }, { f0: F0, substrate: FR4, process: ONE_PASS, asMade: AS_MADE }))
-      .toThrow(/corporate\.amplitudesDb: expected impedances the process can make .* beside its isolation channel/);
+      .toThrow(/corporate\.amplitudesDb: expected levels .*; impedances the process can make .* beside its isolation channel/);
   }, 120_000);
 });

@@ -18,12 +18,16 @@
  */
 import type { DesignDoc } from '../../design/types.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
+import { BOARD_SIZE_LIMIT } from '../../layout/sizing/board-size.ts';
 import { InputError } from '../../util/errors.ts';
 import { C0 } from '../../units/index.ts';
-import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, resistorFor, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
+import { FEED_PARAM, Sketch, Z0_PARAM, lambdaG, widthFor, ghz, ohm, type BlockContext, type BlockDef, type BlockPieces, type Spec, contextDesign } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
 import { fitSpans, levelTargets, matchPhases, placeAsSized, type SpanFit } from '../drawn.ts';
 import { wilkinsonValues } from './splitters.ts';
+import { processCutWidth } from '../common.ts';
+import { requireFigures, type SplitFigures } from './split-check.ts';
+import { armPlans, leavingDir, noResistorFits, resistorSpan, toWorld } from './wilkinson-arms.ts';
 
 interface Tree { leaves: number[]; power: number; left?: Tree; right?: Tree }
 
@@ -49,27 +53,93 @@ export const corporateBlock: BlockDef = {
     FEED_PARAM, FOOTPRINT_PARAM,
   ],
   generate(spec: Spec, ctx: BlockContext) {
-    if (spec.split === 'wilkinson') return feedAtLevel(spec, ctx, 2);
-    // Tee splits: the textbook levels (higher arm 2·Z0) when the process can make them; else the low variant (higher
-    // arm Z0: an equal split is a quarter wave from Z0 down to Z0/2 and two Z0 arms), which milled side copper allows
-    // (it lowers Z0, so high impedances need copper narrower than the cut leaves). Refused, naming the nearest
-    // impedance the process can make, when neither fits.
-    try {
-      return feedAtLevel(spec, ctx, 2);
-    } catch (e) {
-      if (!(e instanceof InputError) || e.code !== 'out-of-range' || e.field !== 'corporate.amplitudesDb') throw e;
-      const made = feedAtLevel(spec, ctx, 1);
-      made.notes.splice(1, 0, `Tee splits at the low level: the higher-impedance arm of each split is ${spec.z0 as number} Ω (the textbook ${2 * (spec.z0 as number)} Ω is beyond what the process makes here: ${e.expected}).`);
-      return made;
-    }
+    const n = spec.outputs as number;
+    const dbs = (spec.amplitudesDb as number[] | undefined) ?? [];
+    const power = Array.from({ length: n }, (_, i) => Math.pow(10, (dbs[i] ?? 0) / 10));
+    const total = power.reduce((a, b) => a + b, 0);
+    const outs = Array.from({ length: n }, (_, i) => `out${i + 1}`);
+    requireRowFits(n, (spec.pitch as number | undefined) ?? C0 / ctx.f0 / 2);
+    requireMakeableTaper(spec, ctx);
+    // The feed's figures: every output's share in phase, and the input matched. A tee feed cannot be matched at its
+    // outputs (a lossless three-port: Pozar §7.1); a Wilkinson tree's output match and isolation (§7.3) depend on
+    // the junctions at its arm ends, which no published model covers: they are shown by the sweep, not held here.
+    const figs: SplitFigures = {
+      paths: [{ from: 'in', outs, levelsDb: power.map((p) => 10 * Math.log10(p / total)), phasesDeg: outs.map(() => 0) }],
+      matched: ['in'], isolated: [],
+    };
+    return requireFigures('corporate feed', (c) => makeFeed(spec, c), ctx, figs);
   },
 };
+
+/**
+ * Room the drawing needs beside its row of outputs (its 5 mm board margin each side, the widest lines, and the turns
+ * of the outer splits), m: a generous allowance of ours.
+ */
+const ROW_ALLOWANCE = 30e-3;
+
+/** Refuses a row of outputs longer than the largest board laid out, naming the widest pitch that fits. */
+function requireRowFits(n: number, pitch: number): void {
+  const room = BOARD_SIZE_LIMIT - ROW_ALLOWANCE;
+  if ((n - 1) * pitch <= room) return;
+  const most = Math.floor((room / (n - 1)) * 1e4) / 10;
+  throw new InputError('out-of-range', 'corporate.pitch',
+    `a row of outputs within the largest board laid out (${BOARD_SIZE_LIMIT * 1e3} mm a side): at most ${most} mm between ${n} outputs, or at most ${Math.floor(room / pitch) + 1} outputs at this pitch`,
+    `${n} outputs at ${(pitch * 1e3).toFixed(1)} mm (the default pitch is half a free-space wavelength at f0), a row of ${((n - 1) * pitch * 1e3).toFixed(0)} mm`,
+    `give --pitch ${most}mm or less, fewer outputs, or a higher design frequency`);
+}
+
+/** Whether every line of the feed (its impedances, and the resistors' lines) is made here: the sketch alone. */
+function sketchable(spec: Spec, ctx: BlockContext): boolean {
+  for (const top of spec.split === 'wilkinson' ? [2] as const : [2, 1] as const) {
+    try { feedAtLevel(spec, ctx, top, true); return true; } catch (e) {
+      if (!(e instanceof InputError) || e.field !== 'corporate.amplitudesDb' || e.code !== 'out-of-range') throw e;
+    }
+  }
+  return false;
+}
+
+/**
+ * A taper whose splits need lines the process cannot make is refused naming the nearest taper it makes: the same
+ * levels scaled toward equal (the largest share of their depth, to 1 %), when the equal feed is made.
+ */
+function requireMakeableTaper(spec: Spec, ctx: BlockContext): void {
+  const dbs = spec.amplitudesDb as number[] | undefined;
+  if (!dbs?.length || sketchable(spec, ctx)) return;
+  const scaled = (k: number) => ({ ...spec, amplitudesDb: dbs.map((d) => Math.round(d * k * 100) / 100) });
+  if (!sketchable(scaled(0), ctx)) return; // even equal levels are not made: the line's own refusal says why
+  let lo = 0, hi = 1;
+  for (let it = 0; it < 12; it++) { const m = (lo + hi) / 2; if (sketchable(scaled(m), ctx)) lo = m; else hi = m; }
+  const k = Math.floor(lo * 100) / 100, near = (scaled(k).amplitudesDb as number[]).map((d) => +d.toFixed(2));
+  let why = '';
+  try { feedAtLevel(spec, ctx, spec.split === 'wilkinson' ? 2 : 1, true); } catch (e) { if (e instanceof InputError) why = `; ${e.expected}`; }
+  throw new InputError('out-of-range', 'corporate.amplitudesDb',
+    `levels whose splits the process makes on this laminate: this taper at up to ${Math.round(k * 100)} % of its depth, ${near.join(', ')} dB${why}`,
+    dbs.join(', '), `give --amplitudes-db ${near.join(',')}; or use a thicker laminate, a wider isolation clearance or a finer process`);
+}
+
+function makeFeed(spec: Spec, ctx: BlockContext): BlockPieces {
+  if (spec.split === 'wilkinson') return feedAtLevel(spec, ctx, 2);
+  // Tee splits: the textbook levels (higher arm 2·Z0) when the process can make them; else the low variant (higher
+  // arm Z0: an equal split is a quarter wave from Z0 down to Z0/2 and two Z0 arms), which milled side copper allows
+  // (it lowers Z0, so high impedances need copper narrower than the cut leaves). Refused, naming the nearest
+  // impedance the process can make, when neither fits.
+  try {
+    return feedAtLevel(spec, ctx, 2);
+  } catch (e) {
+    if (!(e instanceof InputError) || e.code !== 'out-of-range' || e.field !== 'corporate.amplitudesDb') throw e;
+    const made = feedAtLevel(spec, ctx, 1);
+    made.notes.splice(1, 0, `Tee splits at the low level: the higher-impedance arm of each split is ${spec.z0 as number} Ω (the textbook ${2 * (spec.z0 as number)} Ω is beyond what the process makes here: ${e.expected}).`);
+    return made;
+  }
+}
 
 /**
  * The feed with tee junction levels set so each split's higher-impedance arm is `top`·Z0 (2: the textbook feed; 1:
  * the low variant). Wilkinson splits work at Z0 whatever `top` is.
  */
-function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces {
+function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces;
+function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2, sketchOnly: true): null;
+function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2, sketchOnly = false): BlockPieces | null {
     const n = spec.outputs as number, z0 = spec.z0 as number, feed = spec.feed as number;
     const wilk = spec.split === 'wilkinson';
     const dbs = (spec.amplitudesDb as number[] | undefined) ?? [];
@@ -107,31 +177,40 @@ function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces {
         });
         return;
       }
-      // Wilkinson split pointing down: arms leave at ±45°, turn and meet the resistor's pads (resistorFor).
+      // Wilkinson split pointing down: two-leg arms ending side by side across the resistor (wilkinson-arms.ts), the
+      // runs to the children leaving the arm ends 45° outward; the resistor is the smallest chip whose pitch keeps
+      // the process's cut between the copper there.
       const v = wilkinsonValues(z0, 10 * Math.log10(t.left.power / t.right!.power));
-      const fp = resistorFor(widthFor(ctx, v.z2, 'corporate.amplitudesDb', 'a Wilkinson arm'), widthFor(ctx, v.z3, 'corporate.amplitudesDb', 'a Wilkinson arm'));
+      const toward = (c: Tree) => `outputs ${c.leaves.map((i) => i + 1).join(', ')}`;
+      const zArm = [v.z2, v.z3] as const;
+      // The arm end sits at R2 = Z0·K or R3 = Z0/K (Pozar §7.3): the run to the child's quarter wave stays at that
+      // level, so its drawn length does not mismatch the split (a Z0 run there left an unequal split at −21 dB match).
+      const zEnd = [z0 * v.k, z0 / v.k] as const;
+      const wArm = kids.map((c, i) => widthFor(ctx, zArm[i]!, 'corporate.amplitudesDb', `a Wilkinson arm toward ${toward(c)}`)) as [number, number];
+      const wEnd = kids.map((c, i) => widthFor(ctx, zEnd[i]!, 'corporate.amplitudesDb', `the run from a Wilkinson arm toward ${toward(c)}`)) as [number, number];
+      const cut = processCutWidth(ctx.process);
+      const fp = resistorSpan(wArm, wEnd, cut);
+      if (!fp) throw noResistorFits('corporate.amplitudesDb', wArm, wEnd, cut);
       const span = fp.pitch;
+      const plans = armPlans([drop(v.z2), drop(v.z3)], span);
       const ks: number[] = [];
       const ends = kids.map((c, side) => {
         const k = seq++;
         ks.push(k);
-        const z = side === 0 ? v.z2 : v.z3;
-        widthFor(ctx, z, 'corporate.amplitudesDb', `a Wilkinson arm toward outputs ${c.leaves.map((i) => i + 1).join(', ')}`);
-        const L = drop(z), l1 = (L + span / Math.SQRT2) / 2, l2 = L - l1, d = Math.SQRT1_2, s = side === 0 ? -1 : 1;
-        const a = sk.vertex(`w${k}`, { x: x + s * l1 * d, y: y - l1 * d });
-        const e = sk.vertex(`e${k}`, { x: x + s * (l1 - l2) * d, y: y - (l1 + l2) * d });
-        sk.line(`wa${k}`, jid, a, z, { deg: (90 * l1) / L });
-        sk.line(`wb${k}`, a, e, z, { deg: (90 * l2) / L });
-        // Down from the arm end first (a 45° turn), then across to the child and down again.
-        const xc = centre(c), ye = sk.at(e).y - 2 * span, xe = sk.at(e).x;
-        // The arm end sits at R2 = Z0·K or R3 = Z0/K (Pozar §7.3): the run to the child's quarter wave stays at that
-        // level, so its drawn length does not mismatch the split (a Z0 run there left an unequal split at −21 dB match).
-        const zEnd = side === 0 ? z0 * v.k : z0 / v.k;
-        widthFor(ctx, zEnd, 'corporate.amplitudesDb', `the run from a Wilkinson arm toward outputs ${c.leaves.map((i) => i + 1).join(', ')}`);
-        const low = sk.vertex(`d${k}`, { x: xe, y: ye });
-        sk.line(`dn${k}`, e, low, zEnd, { length: 2 * span });
+        const z = zArm[side]!, plan = plans[side]!, s = side === 0 ? -1 : 1;
+        const O = { x, y }, axis = { x: 0, y: -1 }, out = { x: s, y: 0 };
+        const a = sk.vertex(`w${k}`, toWorld(O, axis, out, plan.bend));
+        const e = sk.vertex(`e${k}`, toWorld(O, axis, out, plan.end));
+        sk.line(`wa${k}`, jid, a, z, { deg: plan.deg[0] });
+        sk.line(`wb${k}`, a, e, z, { deg: plan.deg[1] });
+        // Away from the arm end 45° outward (the copper there keeps the cut from the other side's), then across to
+        // the child and down again.
+        const dir = leavingDir(axis, out), L = 2 * span;
+        const low = sk.vertex(`d${k}`, { x: sk.at(e).x + dir.x * L, y: sk.at(e).y + dir.y * L });
+        sk.line(`dn${k}`, e, low, zEnd[side]!, { length: L });
+        const xc = centre(c), ye = sk.at(low).y;
         const turn = sk.vertex(`h${k}`, { x: xc, y: ye });
-        sk.line(`run${k}`, low, turn, zEnd, 'drawn');
+        sk.line(`run${k}`, low, turn, zEnd[side]!, 'drawn');
         descend(c, turn, xc, ye, side === 0 ? v.t2 : v.t3, k);
         return e;
       });
@@ -172,6 +251,7 @@ function feedAtLevel(spec: Spec, ctx: BlockContext, top: 1 | 2): BlockPieces {
       sk.line('feed', 'in', 'j', z0, { length: 2 * feed });
     }
     grow(tree, 'j', 0, 0);
+    if (sketchOnly) return null;
     outputs.sort((a, b) => Number(a.slice(3)) - Number(b.slice(3)));
     const f0 = ctx.f0;
     const doc: DesignDoc = contextDesign(ctx);
