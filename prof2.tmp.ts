@@ -1,0 +1,12 @@
+import { corporateFeed, type DesignDoc } from './core/index.ts';
+import { DesignPipeline } from './core/pipeline/index.ts';
+import { responseJob } from './renderer/src/worker/response-job.ts';
+import { packResponse } from './renderer/src/worker/response-post.ts';
+import { DesignReplica, DesignSender } from './renderer/src/worker/response-doc.ts';
+const doc0 = corporateFeed({ outputs: 64, pitch: 12e-3 });
+const bend = doc0.nodes.find((n) => n.kind === 'vertex')!.id;
+const moved = (doc: DesignDoc, k: number) => ({ ...doc, nodes: doc.nodes.map((n) => (n.id === bend ? { ...n, at: { x: n.at.x + k * 5e-5, y: n.at.y } } : n)) });
+const p = new DesignPipeline({ live: true });
+const s = new DesignSender(), r = new DesignReplica();
+const none = () => {};
+for (let k = 0; k <= 60; k++) packResponse(await responseJob({ doc: r.receive(s.post(moved(doc0, k))), figures: false }, none, undefined, p));
