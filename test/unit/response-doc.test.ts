@@ -3,8 +3,9 @@
  * the change from the one sent before, cloned as postMessage clones it (v8 serialize, the structured clone), and the
  * worker applies it to its own copy.
  *  - After random edit sequences (commands, live drags committed or cancelled, undo, redo) the worker's copy is
- *    deep-equal to the page's design at every revision, has the same revision key, and keeps the identity of every
- *    record the revision left alone (what the core's sizing memo keys on).
+ *    deep-equal to the page's design at every revision, has the same revision key (core documentHash, which keeps
+ *    each record's text, equal to designHash of a fresh copy), and keeps the identity of every record the revision
+ *    left alone (what the core's sizing memo keys on).
  *  - The response the worker computes from its patched copy with its live pipeline (sizing each revision from the
  *    one before, element values kept across revisions, only the view's entries) equals a fresh sweep of the page's
  *    design (a new pipeline, full sizing, every entry) to 1e-12 in every computed S entry.
@@ -16,7 +17,7 @@ import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { deserialize, serialize } from 'node:v8';
-import { History, InputError, corporateFeed, parseDesign, designSweepSettings, viewEntries, compileNetwork, netlistFromSized, sizeDesign, sweepNetwork, entryAt, type DesignDoc, type NetworkResponse } from '../../core/index.ts';
+import { History, InputError, corporateFeed, parseDesign, designSweepSettings, viewEntries, compileNetwork, netlistFromSized, sizeDesign, sweepNetwork, entryAt, designHash, documentHash, type DesignDoc, type NetworkResponse } from '../../core/index.ts';
 import { DesignPipeline, revisionOf, sweepDesign } from '../../core/pipeline/index.ts';
 import { DesignReplica, DesignSender, OUT_OF_STEP, type DesignPost } from '../../renderer/src/worker/response-doc.ts';
 import { responseSeries } from '../../renderer/src/worker/response-job.ts';
@@ -74,6 +75,8 @@ describe('the response worker\'s copy of the design', () => {
         const next = replica.receive(cloned(sender.post(h.doc)));
         expect(next).toEqual(h.doc);
         expect(revisionOf(next)).toBe(revisionOf(h.doc));
+        // The revision key's hash keeps each record's text by the record: the same hash as written out whole.
+        expect(documentHash(next)).toBe(designHash(structuredClone(h.doc)));
         // A record the page kept (the same object) is the same object in the worker's copy too.
         for (const list of ['nodes', 'segments'] as const) {
           const before = new Map(page[list].map((r, n) => [r, held[list][n]]));
