@@ -19,6 +19,7 @@ import { DesignReplica, type DesignPost } from './response-doc.ts';
 import type { JobRequest } from './protocol.ts';
 import type { Progress } from './client.ts';
 import { serveJobs } from './serve-jobs.ts';
+import { Turns } from './response-turns.ts';
 
 /** A response request as the page sends it to this worker: the design as a post of response-doc.ts. */
 export type ResponseRequest = Omit<ResponseInput, 'doc'> & { design: DesignPost };
@@ -26,17 +27,8 @@ export type ResponseRequest = Omit<ResponseInput, 'doc'> & { design: DesignPost 
 const pipeline = new DesignPipeline({ capacity: 48, live: true });
 const replica = new DesignReplica();
 
-/**
- * One pass at a time. The page sends the newest revision while a pass runs (compute.svelte.ts follow), so the next
- * pass starts the moment this one ends, not after a round trip through the busy page; of the requests waiting
- * meanwhile only the newest is run, the others are answered as cancelled.
- */
-let turn: Promise<void> = Promise.resolve();
-let newest = 0;
-
-function superseded(): Error {
-  return Object.assign(new Error('a newer revision was asked for before this one was swept'), { name: 'AbortError' });
-}
+/** One pass at a time; of the requests waiting meanwhile only the newest runs (response-turns.ts). */
+const turns = new Turns();
 
 /** The response job as the page receives it: packed into one block of numbers (response-post.ts). */
 async function runResponse(kind: JobRequest['kind'], input: unknown, progress: (p: Progress) => void, signal?: AbortSignal, begin?: () => void): Promise<unknown> {
@@ -44,18 +36,10 @@ async function runResponse(kind: JobRequest['kind'], input: unknown, progress: (
   // Applied as the request arrives (before any pause), so the copy follows the page's posts in order.
   const { design, ...rest } = input as ResponseRequest;
   const doc = replica.receive(design);
-  const ticket = ++newest;
-  const before = turn;
-  let done!: () => void;
-  turn = new Promise<void>((ok) => { done = ok; });
-  try {
-    await before;
-    if (ticket !== newest || signal?.aborted) throw superseded();
+  return turns.run(() => {
     begin?.();
-    return packResponse(await responseSeries({ ...rest, doc }, progress, signal, pipeline));
-  } finally {
-    done();
-  }
+    return responseSeries({ ...rest, doc }, progress, signal, pipeline).then(packResponse);
+  }, signal);
 }
 
 serveJobs(runResponse);
