@@ -30,11 +30,13 @@ export const COARSE_POINTS = 21;
  */
 export const LIVE_SWEEP_BUDGET_MS = 400;
 /**
- * A design whose last full sweep took at most this (ms) is swept live without the coarse pass first: the coarse pass
- * only delays the full response, and since a drag's sweep re-computes only what the drag changed (core sweepDesign)
- * the 64-output feed's full pass fits here.
+ * A design whose last full sweep took at most this (ms) is swept live without the coarse pass first. Measured on
+ * the 64-output feed (bench/pipeline.bench.ts, Node): the coarse pass sizes the revision and builds its network,
+ * which the full pass then reuses, yet coarse then full took 90 ms against 74 ms for the full pass alone, and a
+ * drag then spends a pass on a coarse response before every full one. So the coarse pass goes first only where a full pass is as
+ * slow as one that is stopped when stale (LIVE_SWEEP_BUDGET_MS): there something must move on screen meanwhile.
  */
-export const DIRECT_FULL_MS = 300;
+export const DIRECT_FULL_MS = LIVE_SWEEP_BUDGET_MS;
 
 export class Compute {
   private readonly client: ComputeClient;
