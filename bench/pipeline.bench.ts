@@ -22,6 +22,7 @@ import { DesignPipeline, exportDesign } from '../core/pipeline/index.ts';
 import { layoutPostJob, responseJob, pipeline as workerPipeline } from '../renderer/src/worker/jobs.ts';
 import { LayoutReceiver, type LayoutPost } from '../renderer/src/worker/layout-post.ts';
 import { packResponse } from '../renderer/src/worker/response-post.ts';
+import { responseSeries } from '../renderer/src/worker/response-job.ts';
 import { DesignReplica, DesignSender, type DesignPost } from '../renderer/src/worker/response-doc.ts';
 import { deserialize, serialize } from 'node:v8';
 
@@ -52,12 +53,17 @@ async function editFrame(): Promise<void> {
   const sender = new DesignSender(), replica = new DesignReplica();
   const received = (d: DesignDoc) => replica.receive(deserialize(serialize(sender.post(d))) as DesignPost);
   const respond = async (d: DesignDoc, points: number) =>
-    deserialize(serialize(packResponse(await responseJob({ doc: received(d), settings: { ...designSweepSettings(d), points }, figures: false }, none, undefined, respPipeline))));
+    deserialize(serialize(packResponse(await responseSeries({ doc: received(d), settings: { ...designSweepSettings(d), points }, figures: false }, none, undefined, respPipeline))));
+  // As it was before: the whole design cloned per revision (new records) and sized from scratch in the worker.
+  const wholePipeline = new DesignPipeline({ capacity: 48 });
+  const respondWhole = async (d: DesignDoc, points: number) =>
+    deserialize(serialize(packResponse(await responseJob({ doc: deserialize(serialize(d)) as DesignDoc, settings: { ...designSweepSettings(d), points }, figures: false }, none, undefined, wholePipeline))));
   page.decode(await layoutPostJob({ doc, base: page.token }, none)); // warm the line cache and the JIT, as an open editor is
   await respond(doc, 21);
   await respond(doc, 201);
-  const wall = { copper: [] as number[], alone: [] as number[], coarse: [] as number[], full: [] as number[] };
-  const cpu = { copper: [] as number[], alone: [] as number[], coarse: [] as number[], full: [] as number[] };
+  await respondWhole(doc, 201);
+  const wall = { copper: [] as number[], alone: [] as number[], coarse: [] as number[], full: [] as number[], whole: [] as number[] };
+  const cpu = { copper: [] as number[], alone: [] as number[], coarse: [] as number[], full: [] as number[], whole: [] as number[] };
   for (let k = 1; k <= 2 * moves; k++) {
     const d = moved(doc, bend, k);
     const t0 = performance.now(), c0 = cpuMs();
@@ -70,6 +76,9 @@ async function editFrame(): Promise<void> {
       // Odd moves: the 201-point response alone, as the app sweeps a drag (no coarse pass: see compute.svelte.ts).
       await respond(d, 201);
       wall.alone.push(performance.now() - t1); cpu.alone.push(cpuMs() - c1);
+      const t4 = performance.now(), c4 = cpuMs();
+      await respondWhole(moved(doc, bend, k + 0.5), 201);
+      wall.whole.push(performance.now() - t4); cpu.whole.push(cpuMs() - c4);
       continue;
     }
     // Even moves: a coarse 21-point pass first, then the 201 points (sharing the revision's sizing and network).
@@ -84,6 +93,7 @@ async function editFrame(): Promise<void> {
   console.log(`edit frame, 64-output feed (${doc.segments.length} pieces), drag of bend ${bend}, ${2 * moves} moves (the workers' jobs in Node; load average ${loadAvg()}):`);
   console.log(`  to copper (sizing + outlines):            ${both('copper')} (target < 16.7 ms)`);
   console.log(`  201-point response of the moved revision: ${both('alone')} (target < 150 ms; the response worker's own live sizing, network and sweep)`);
+  console.log(`  the same as before (whole design cloned, sized from scratch): ${both('whole')}`);
   console.log(`  or a coarse 21-point response first:      ${both('coarse')}`);
   console.log(`     and the 201 points after it:           ${both('full')} (the sizing and network reused from the coarse pass)`);
 }
