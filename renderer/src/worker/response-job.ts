@@ -12,6 +12,7 @@ import { namer, magnitudeDb, phaseDeg, groupDelayOfPhase, smith, SweepCache, res
 import { InputError, errorWords } from '../../../core/index.ts';
 import type { Progress } from './client.ts';
 import { pipeline } from './worker-pipeline.ts';
+import { yieldToHost } from './response-yield.ts';
 
 /** The design, and settings that override its own (absent: core designSweepSettings). */
 export interface ResponseInput {
@@ -96,7 +97,7 @@ export async function responseSeries(input: ResponseInput, progress: (p: Progres
     const { response } = await sweepDesign(pipeline, doc, targetFrequencies(settings, doc.targets ?? []), {
       chunk: 64, ...(signal ? { signal } : {}), ...(entries ? { entries } : {}),
       onProgress: (done, total) => progress({ done, total, label: 'sweeping' }),
-      yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
+      yieldTo: yieldToHost,
     });
     return response;
   });
