@@ -5,11 +5,11 @@
  */
 import type { DesignDoc } from '../design/types.ts';
 import type { FromSizedOptions } from './fromSized.ts';
-import { SweepCache, designHash, type SweepSettings } from './sweep.ts';
+import { SweepCache, designHash, documentHash, type SweepSettings } from './sweep.ts';
 
 export function responseCacheKey(doc: DesignDoc, settings: SweepSettings, opts: FromSizedOptions = {}): string {
   // The design's own sweep settings are left out too: the settings themselves are part of the key.
   const { name: _name, notes: _notes, view: _view, app: _app, sweep: _sweep, ...physics } = doc;
   void _name; void _notes; void _view; void _app; void _sweep;
-  return SweepCache.key(designHash(physics), settings, designHash(opts));
+  return SweepCache.key(documentHash(physics), settings, designHash(opts));
 }

@@ -47,10 +47,20 @@ export function entryAt(r: Pick<NetworkResponse, 'ports' | 'computed'>, i: numbe
   requireEntry(r, i, j);
   const P = r.ports.length;
   if (!r.computed) return { base: 2 * (i * P + j), stride: 2 * P * P };
-  let C = 0;
-  for (const c of r.computed) if (c > C) C = c;
-  return { base: 2 * (r.computed[i * P + j]! - 1), stride: 2 * C };
+  return { base: 2 * (r.computed[i * P + j]! - 1), stride: 2 * computedCount(r.computed) };
 }
+
+/** How many entries each point's block holds (the largest place); kept per map, read for every series of a response. */
+function computedCount(computed: Int32Array): number {
+  let C = counts.get(computed);
+  if (C === undefined) {
+    C = 0;
+    for (const c of computed) if (c > C) C = c;
+    counts.set(computed, C);
+  }
+  return C;
+}
+const counts = new WeakMap<Int32Array, number>();
 
 /** Refuses a response whose sweep left some entries out, for readers of the whole matrix (Touchstone, conversions). */
 export function requireAll(r: Pick<NetworkResponse, 'ports' | 'computed'>): void {

@@ -208,15 +208,34 @@ export class SweepCache {
  * For cache keys only; not for security.
  */
 export function designHash(value: unknown): string {
-  const text = canonical(value);
+  return fnv(canonical(value, null));
+}
+
+/**
+ * designHash of a design document or a value made of its parts, which are never changed in place (an edit makes new
+ * records for what it changes and keeps the others): each object's canonical text is kept by the object, so a
+ * revision that changed one node writes out only that node afresh. Same hash as designHash.
+ */
+export function documentHash(value: unknown): string {
+  return fnv(canonical(value, documentTexts));
+}
+const documentTexts = new WeakMap<object, string>();
+
+function fnv(text: string): string {
   let h = 0x811c9dc5;
   for (let i = 0; i < text.length; i++) { h ^= text.charCodeAt(i); h = Math.imul(h, 0x01000193) >>> 0; }
   return h.toString(16).padStart(8, '0') + ':' + text.length.toString(36);
 }
 
-function canonical(v: unknown): string {
+function canonical(v: unknown, memo: WeakMap<object, string> | null): string {
   if (v === null || typeof v !== 'object') return JSON.stringify(v) ?? 'null';
-  if (Array.isArray(v)) return `[${v.map(canonical).join(',')}]`;
-  const o = v as Record<string, unknown>;
-  return `{${Object.keys(o).sort().filter((k) => o[k] !== undefined).map((k) => `${JSON.stringify(k)}:${canonical(o[k])}`).join(',')}}`;
+  let text = memo?.get(v);
+  if (text !== undefined) return text;
+  if (Array.isArray(v)) text = `[${v.map((x) => canonical(x, memo)).join(',')}]`;
+  else {
+    const o = v as Record<string, unknown>;
+    text = `{${Object.keys(o).sort().filter((k) => o[k] !== undefined).map((k) => `${JSON.stringify(k)}:${canonical(o[k], memo)}`).join(',')}}`;
+  }
+  memo?.set(v, text);
+  return text;
 }

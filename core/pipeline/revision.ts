@@ -5,14 +5,14 @@
  * a document in place: an edit makes a new one.
  */
 import type { DesignDoc } from '../design/types.ts';
-import { designHash } from '../network/sweep.ts';
+import { documentHash } from '../network/sweep.ts';
 
 const known = new WeakMap<object, string>();
 
 export function revisionOf(doc: DesignDoc): string {
   let r = known.get(doc);
   if (r === undefined) {
-    r = designHash({ ...doc, app: undefined });
+    r = documentHash({ ...doc, app: undefined });
     known.set(doc, r);
   }
   return r;

@@ -23,6 +23,8 @@ import { LineCache } from '../layout/lineCache.ts';
 import { designPaths, tracePaths, type PathReport } from '../layout/paths.ts';
 import { processCut } from '../layout/process-cut.ts';
 import { sizeDesign } from '../layout/sizing.ts';
+import { liveSizing, type LiveSizing } from '../layout/incremental.ts';
+import type { SizeOptions } from '../layout/sizing/context.ts';
 import type { SizedDesign } from '../layout/types.ts';
 import { netlistFromSized, type SizedNetlist } from '../network/fromSized.ts';
 import { SweepValues } from '../network/sweepValues.ts';
@@ -75,7 +77,19 @@ export class DesignPipeline {
   /** Line constants and element values of sweeps, kept across revisions (core/network/sweepValues.ts). */
   readonly values = new SweepValues();
 
-  constructor(opts: { capacity?: number } = {}) { this.memo = new StageMemo(opts.capacity ?? 48); }
+  /**
+   * Size each revision from the one sized before it (core/layout/incremental.ts liveSizing: only the ends whose own
+   * inputs changed are handled afresh; bit for bit sizeDesign). For a face that sizes a design being edited a little
+   * at a time in a worker of its own (the app's response worker during a drag).
+   */
+  private readonly live: boolean;
+  /** The last live sizing, and the one options object its memo is kept for (per line cache). */
+  private lastLive: { opts: SizeOptions; sizing: LiveSizing | null } | null = null;
+
+  constructor(opts: { capacity?: number; live?: boolean } = {}) {
+    this.memo = new StageMemo(opts.capacity ?? 48);
+    this.live = opts.live === true;
+  }
 
   revision(doc: DesignDoc): string { return revisionOf(doc); }
 
@@ -93,7 +107,20 @@ export class DesignPipeline {
 
   /** Sized pieces and placed nodes; problems stay data here (the live layout shows them). */
   sized(doc: DesignDoc): SizedDesign {
-    return this.memo.get('sized', this.revision(doc), () => sizeDesign(doc, { cache: this.lineCache(doc) }));
+    return this.memo.get('sized', this.revision(doc), () => (this.live ? this.sizedLive(doc) : sizeDesign(doc, { cache: this.lineCache(doc) })));
+  }
+
+  private sizedLive(doc: DesignDoc): SizedDesign {
+    const cache = this.lineCache(doc);
+    if (this.lastLive?.opts.cache !== cache) this.lastLive = { opts: { cache }, sizing: null };
+    const live = this.lastLive;
+    try {
+      live.sizing = liveSizing(live.sizing, doc, live.opts);
+    } catch (err) {
+      live.sizing = null; // a refusal leaves no memo to build on
+      throw err;
+    }
+    return live.sizing.sized;
   }
 
   /** The sized design of a finished network with no sizing problems; refuses naming the pieces. */

@@ -8,6 +8,7 @@ import type { MeasuredFile } from '../../../core/index.ts';
 import type { CompareOutput } from '../worker/measured-job.ts';
 import { ComputeClient, type JobOutcome, type Progress } from '../worker/client.ts';
 import { unpackResponse, type ResponsePost } from '../worker/response-post.ts';
+import { DesignSender, OUT_OF_STEP } from '../worker/response-doc.ts';
 import type { JobKind } from '../worker/protocol.ts';
 import { runJob } from '../worker/jobs.ts';
 import { designSweepSettings } from '../../../core/index.ts';
@@ -29,11 +30,13 @@ export const COARSE_POINTS = 21;
  */
 export const LIVE_SWEEP_BUDGET_MS = 400;
 /**
- * A design whose last full sweep took at most this (ms) is swept live without the coarse pass first: the coarse pass
- * only delays the full response, and since a drag's sweep re-computes only what the drag changed (core sweepDesign)
- * the 64-output feed's full pass fits here.
+ * A design whose last full sweep took at most this (ms) is swept live without the coarse pass first. Measured on
+ * the 64-output feed (bench/pipeline.bench.ts, Node): the coarse pass sizes the revision and builds its network,
+ * which the full pass then reuses, yet coarse then full took 90 ms against 74 ms for the full pass alone, and a
+ * drag then spends a pass on a coarse response before every full one. So the coarse pass goes first only where a full pass is as
+ * slow as one that is stopped when stale (LIVE_SWEEP_BUDGET_MS): there something must move on screen meanwhile.
  */
-export const DIRECT_FULL_MS = 300;
+export const DIRECT_FULL_MS = LIVE_SWEEP_BUDGET_MS;
 
 export class Compute {
   private readonly client: ComputeClient;
@@ -124,9 +127,20 @@ export class Compute {
     });
   }
 
+  /** What the response worker holds of the design: each revision goes to it as a change (worker/response-doc.ts). */
+  private readonly sent = new DesignSender();
+
   /** A response job on the sweeper, its series sent packed (worker/response-post.ts) and unpacked here. */
   private async respond(input: ResponseInput, progress: (p: Progress) => void, signal: AbortSignal): Promise<JobOutcome<ResponseOutput>> {
-    const out = await this.sweeper.run<ResponsePost>('response', input, progress, signal);
+    const ask = () => {
+      if (!this.sweeper.threaded) return input;
+      const { doc, ...rest } = input;
+      return { ...rest, design: this.sent.post(doc) };
+    };
+    // No lane: the live loop sends the next revision while a pass runs, and tells stale results apart itself.
+    let out = await this.sweeper.run<ResponsePost>('response', ask(), progress, signal, null);
+    // The worker lost step with the page's posts (never expected): once more with the whole design.
+    if (!out.ok && 'error' in out && out.error.field === OUT_OF_STEP) { this.sent.reset(); out = await this.sweeper.run<ResponsePost>('response', ask(), progress, signal, null); }
     return out.ok ? { ok: true, value: unpackResponse(out.value), ms: out.ms } : out;
   }
 
@@ -167,15 +181,19 @@ export class Compute {
 
   /**
    * Keeps the response up with the design while it is edited (the Response panel calls this on every revision).
-   * One live sweep at a time, each a coarse pass then the full sweep of the newest revision; revisions made
-   * meanwhile wait, and only the newest of them is swept next. A drag therefore shows a fresh response every
-   * sweep's time, and the last position's full response as soon as the sweep before it ends. A design whose full
-   * sweep is long (LIVE_SWEEP_BUDGET_MS) has its stale sweep stopped instead. Numbers are those of `sweep()`.
+   * One live sweep at a time; the newest revision made meanwhile is sent to the response worker at once and waits
+   * there (older waiting ones are dropped), so the next pass starts the moment the running one ends. During a drag
+   * the running pass of a stale revision finishes (stopping it at every pointer move would show nothing until the
+   * drag ends); an edit made outside a drag (the drag's last move included: the pointer is up) and any revision of
+   * a design whose full sweep is long (LIVE_SWEEP_BUDGET_MS) stop the stale pass between frequency chunks instead.
+   * A design whose full sweep is slow gets a coarse pass first (DIRECT_FULL_MS). Numbers are those of `sweep()`.
    */
   follow(): void {
     if (!this.following) { void this.followLoop(); return; }
+    if (this.livePassRevision === this.editor.revision) return; // the figure table asked for: the loop sees to it
     // Only a full pass is stopped: the coarse pass is short, and drawing it keeps the plots moving during a drag.
-    if (this.livePassFull && this.lastFullMs > LIVE_SWEEP_BUDGET_MS) this.livePass?.abort();
+    if (this.livePassFull && (this.lastFullMs > LIVE_SWEEP_BUDGET_MS || !this.editor.dragging)) this.livePass?.abort();
+    this.sendAhead();
   }
 
   /**
@@ -192,6 +210,27 @@ export class Compute {
 
   private livePass: AbortController | null = null;
   private livePassFull = false;
+  private livePassRevision: number | null = null;
+  /** The newest revision's full pass, sent while another pass runs (follow); the loop takes it up next. */
+  private ahead: { revision: number; out: Promise<JobOutcome<ResponseOutput>>; pass: AbortController } | null = null;
+  private liveProgress: (p: Progress) => void = () => {};
+
+  /** The full settings of `doc` when its live sweep goes without a coarse pass (null: with one). */
+  private directSettings(doc: typeof this.editor.doc) {
+    const settings = designSweepSettings(doc);
+    return settings.points > COARSE_POINTS && !(this.lastFullMs > 0 && this.lastFullMs <= DIRECT_FULL_MS) ? null : settings;
+  }
+
+  /** Sends the newest revision's full pass to wait in the response worker behind the running one. */
+  private sendAhead(): void {
+    const revision = this.editor.revision, doc = this.editor.doc;
+    if (!this.sweeper.threaded || this.ahead?.revision === revision) return;
+    const settings = this.directSettings(doc);
+    if (!settings) return;
+    this.ahead?.pass.abort();
+    const pass = new AbortController();
+    this.ahead = { revision, pass, out: this.respond({ doc, settings, figures: this.figuresShown }, (p) => this.liveProgress(p), pass.signal) };
+  }
 
   private async followLoop(): Promise<void> {
     this.sweepStop?.abort();
@@ -200,8 +239,9 @@ export class Compute {
     this.sweepStop = stop;
     this.responseCancelled = false;
     const onProgress = (p: Progress) => { if (this.sweepStop === stop) this.responseProgress = p; };
+    this.liveProgress = onProgress;
     // Cancel (or an explicit sweep) stops the loop; a newer revision stops only a long pass (follow).
-    const cancel = () => this.livePass?.abort();
+    const cancel = () => { this.livePass?.abort(); this.ahead?.pass.abort(); };
     stop.signal.addEventListener('abort', cancel);
     let retried = false;
     try {
@@ -211,13 +251,18 @@ export class Compute {
         const settings = designSweepSettings(doc);
         this.responseProgress = { done: 0, total: 1, label: 'starting' };
         // A coarse pass first only where the full one is slow: a quick full pass is shown sooner alone.
-        const coarseFirst = settings.points > COARSE_POINTS && !(this.lastFullMs > 0 && this.lastFullMs <= DIRECT_FULL_MS);
+        const coarseFirst = this.directSettings(doc) === null;
         const passes = coarseFirst ? [{ ...settings, points: COARSE_POINTS }, settings] : [settings];
         for (const s of passes) {
-          const pass = new AbortController();
+          // The pass sent ahead for this very revision is already waiting in the worker (or running).
+          const sent = s === settings && this.ahead?.revision === revision ? this.ahead : null;
+          if (this.ahead && this.ahead !== sent) this.ahead.pass.abort();
+          this.ahead = null;
+          const pass = sent?.pass ?? new AbortController();
           this.livePass = pass;
           this.livePassFull = s === settings;
-          const out = await this.respond({ doc, settings: s, figures: this.figuresShown }, onProgress, pass.signal);
+          this.livePassRevision = revision;
+          const out = await (sent?.out ?? this.respond({ doc, settings: s, figures: this.figuresShown }, onProgress, pass.signal));
           if (this.sweepStop !== stop) return; // an explicit sweep took over
           if (out.ok) {
             this.responseCoarse = s !== settings;
@@ -230,8 +275,9 @@ export class Compute {
           if (!('error' in out)) break;
           if (out.error.field !== 'cancelled') { this.responseError = out.error.message; break; }
           if (stop.signal.aborted) { this.responseCancelled = true; return; }
-          break; // a long pass of a stale revision, stopped for the newest one
+          break; // a pass of a stale revision, stopped for the newest one
         }
+        this.livePassRevision = null;
         if (this.editor.revision === revision) {
           // The table was asked for while a pass without it ran: once more, from the worker's cached sweep.
           if (!retried && this.figuresShown && this.response?.figures === null) { retried = true; continue; }
@@ -241,6 +287,7 @@ export class Compute {
     } finally {
       stop.signal.removeEventListener('abort', cancel);
       this.livePass = null;
+      this.livePassRevision = null;
       if (this.sweepStop === stop) {
         this.sweepStop = null;
         this.responseProgress = null;

@@ -39,17 +39,18 @@ export class ComputeClient {
 
   /**
    * Runs a job. A newer job in the same `lane` (by default its kind) makes an older one's result stale; callers with
-   * two independent streams of one kind (the Outputs preview and a write) give them lanes of their own.
+   * two independent streams of one kind (the Outputs preview and a write) give them lanes of their own; a caller that
+   * tells stale results apart itself (the live response, compute.svelte.ts) gives none (null).
    */
-  run<T>(kind: JobKind, input: unknown, progress?: (p: Progress) => void, signal?: AbortSignal, lane: string = kind): Promise<JobOutcome<T>> {
+  run<T>(kind: JobKind, input: unknown, progress?: (p: Progress) => void, signal?: AbortSignal, lane: string | null = kind): Promise<JobOutcome<T>> {
     const id = this.next++;
     // A cancelled job stops at its next pause and answers with an AbortError.
     signal?.addEventListener('abort', () => { if (this.worker && this.pending.has(id)) this.worker.postMessage({ type: 'cancel', id }); }, { once: true });
-    this.latest.set(lane, id);
+    if (lane !== null) this.latest.set(lane, id);
     return new Promise<JobOutcome<T>>((resolve) => {
       const done = (o: JobOutcome<unknown>) => {
         // A newer job in the same lane makes this one stale.
-        if (o.ok && this.latest.get(lane) !== id) resolve({ ok: false, superseded: true });
+        if (o.ok && lane !== null && this.latest.get(lane) !== id) resolve({ ok: false, superseded: true });
         else resolve(o as JobOutcome<T>);
       };
       if (this.worker) {

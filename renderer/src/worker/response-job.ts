@@ -7,11 +7,12 @@
  * pipeline, element values kept across revisions, and — for a live pass without the figure table — only the entries
  * the view reads (core viewEntries: the input's column and row and every reflection, plus what the targets read).
  */
-import type { DesignDoc } from '../../../core/index.ts';
+import type { DesignDoc, DesignPipeline } from '../../../core/index.ts';
 import { namer, magnitudeDb, phaseDeg, groupDelayOfPhase, smith, SweepCache, responseCacheKey, designSweepSettings, targetFrequencies, evaluateTargets, figureTable, viewEntries, sweepDesign, type NetworkResponse, type SweepSettings, type FigureTable, type TargetEvaluation } from '../../../core/index.ts';
 import { InputError, errorWords } from '../../../core/index.ts';
 import type { Progress } from './client.ts';
 import { pipeline } from './worker-pipeline.ts';
+import { yieldToHost } from './response-yield.ts';
 
 /** The design, and settings that override its own (absent: core designSweepSettings). */
 export interface ResponseInput {
@@ -61,7 +62,24 @@ function errorText(err: unknown): string {
  * uses) plus every target band edge, chunked so progress reaches the editor and a cancel stops it between chunks;
  * then the plot series, the derived figures and the targets' pass/fail from the core.
  */
-export async function responseJob(input: ResponseInput, progress: (p: Progress) => void, signal?: AbortSignal): Promise<ResponseOutput> {
+export async function responseJob(input: ResponseInput, progress: (p: Progress) => void, signal?: AbortSignal, on: DesignPipeline = pipeline): Promise<ResponseOutput> {
+  const r = await responseSeries(input, progress, signal, on);
+  return {
+    ...r,
+    traces: r.traces.map((t) => ({ i: t.i, j: t.j, db: list(t.db), phase: list(t.phase), delay: list(t.delay) })),
+    smith: r.smith.map((t) => ({ i: t.i, re: list(t.re), im: list(t.im) })),
+  };
+}
+
+/** The response with its series as the core computes them (typed arrays), for a face that packs them (response-post.ts) instead of making lists. */
+export interface ResponseSeries extends Omit<ResponseOutput, 'traces' | 'smith'> {
+  traces: { i: number; j: number; db: Float64Array; phase: Float64Array; delay: Float64Array }[];
+  smith: { i: number; re: Float64Array; im: Float64Array }[];
+}
+
+/** responseJob with the series left as typed arrays (the response worker packs them as they are). */
+export async function responseSeries(input: ResponseInput, progress: (p: Progress) => void, signal?: AbortSignal, on: DesignPipeline = pipeline): Promise<ResponseSeries> {
+  const pipeline = on;
   const doc = input.doc;
   const settings = input.settings ?? designSweepSettings(doc);
   const base = responseCacheKey(doc, settings);
@@ -79,7 +97,7 @@ export async function responseJob(input: ResponseInput, progress: (p: Progress) 
     const { response } = await sweepDesign(pipeline, doc, targetFrequencies(settings, doc.targets ?? []), {
       chunk: 64, ...(signal ? { signal } : {}), ...(entries ? { entries } : {}),
       onProgress: (done, total) => progress({ done, total, label: 'sweeping' }),
-      yieldTo: () => new Promise((ok) => setTimeout(ok, 0)),
+      yieldTo: yieldToHost,
     });
     return response;
   });
@@ -87,15 +105,15 @@ export async function responseJob(input: ResponseInput, progress: (p: Progress) 
   const inputPort = meta.input;
   const P = r.ports.length;
   const ids = r.ports.map((p) => p.name);
-  const traces: ResponseOutput['traces'] = [];
+  const traces: ResponseSeries['traces'] = [];
   for (let i = 0; i < P; i++) for (let j = 0; j < P; j++) {
     // Large networks: the input's row and column (what the panel offers); S itself stays in the cache.
     if (P > 4 && i !== inputPort && j !== inputPort) continue;
     // The phase once, for its trace and its delay (core groupDelay's own arithmetic on it).
     const phase = phaseDeg(r, i, j);
-    traces.push({ i, j, db: list(magnitudeDb(r, i, j)), phase: list(phase), delay: list(groupDelayOfPhase(r.freqs, phase)) });
+    traces.push({ i, j, db: magnitudeDb(r, i, j), phase, delay: groupDelayOfPhase(r.freqs, phase) });
   }
-  const sm = Array.from({ length: P }, (_, i) => { const s = smith(r, i); return { i, re: list(s.re), im: list(s.im) }; });
+  const sm = Array.from({ length: P }, (_, i) => ({ i, ...smith(r, i) }));
   let targets: TargetEvaluation | null = null, targetError: string | null = null;
   if (doc.targets?.length) {
     try { targets = evaluateTargets(r, doc); } catch (err) { targetError = errorText(err); }

@@ -17,8 +17,14 @@ export interface ResponsePost {
   series: Float64Array;
 }
 
+/** A response whose series are any list of numbers (the core's typed arrays in the response worker). */
+type AnySeries = Omit<ResponseOutput, 'traces' | 'smith'> & {
+  traces: { i: number; j: number; db: ArrayLike<number>; phase: ArrayLike<number>; delay: ArrayLike<number> }[];
+  smith: { i: number; re: ArrayLike<number>; im: ArrayLike<number> }[];
+};
+
 /** The worker's side: one block of numbers. */
-export function packResponse(r: ResponseOutput): ResponsePost {
+export function packResponse(r: AnySeries): ResponsePost {
   const { traces, smith, ...head } = r;
   const n = r.freqs.length;
   const series = new Float64Array(n * (3 * traces.length + 2 * smith.length));
