@@ -15,7 +15,7 @@ export interface LayoutView {
   revision: number;
   sized: SizedView;
   /** Each piece's and node's own copper (before union) with its centreline. */
-  outlines: (PieceOutline & { d?: string })[];
+  outlines: (PieceOutline & { d?: string; by?: Vec2 })[];
   drills: DrillHit[];
   /** Path and phase reports (phase groups, or the anchor port to every other port). */
   paths: PathReport[];

@@ -8,7 +8,7 @@ import { formatQuantity, type QuantityKind } from '../../../core/index.ts';
 import type { DrillHit, Region, Vec2 } from '../../../core/index.ts';
 import type { PieceOutline } from '../../../core/index.ts';
 
-export interface SceneCopper { outlines: (PieceOutline & { d?: string })[]; drills: DrillHit[] }
+export interface SceneCopper { outlines: (PieceOutline & { d?: string; by?: Vec2 })[]; drills: DrillHit[] }
 import type { Scene, SceneSegment } from '../board/scene.ts';
 
 export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed: ReadonlyMap<string, { at: Vec2; pos: Vec2 }> | null = null, ground: Region[] = []): Scene {

@@ -1,0 +1,65 @@
+/**
+ * Moving what a drag translates with one transform per layer instead of new coordinates on every element.
+ *
+ * The live layout (core liveLayout) says which copper it translated, and by how much since that copper was last
+ * drawn afresh (`by` of a scene piece). The board draws such copper once, in a group whose transform is that
+ * translation; a later move only sets the group's transform. Marks (centrelines, node marks, port labels) follow the
+ * same vector, the drift: a mark whose new place is where it was written plus the drift joins the drift group of its
+ * layer, and keeps the coordinates it was written with. Anything else is written afresh in place.
+ *
+ * Exactness: a translated piece's true copper is its base outline plus `by` (core, to about 1e-15 m); the group
+ * draws the base's path text under `translate(by)`, so the two differ by the rounding of the mm conversion only
+ * (test/unit/board-drift.test.ts). Marks are matched to DRIFT_EPS of a millimetre: far below a pixel at any zoom.
+ */
+import type { Vec2 } from '../../../core/index.ts';
+
+/** How close (in the layer's own units: mm on the board, px on screen) a mark must be to count as moved by the drift. */
+export const DRIFT_EPS = 1e-6;
+
+/** The translation in board millimetres of a shift given in metres. */
+export function driftMm(by: Vec2 | null | undefined): { x: number; y: number } | null {
+  return by ? { x: by.x * 1000, y: by.y * 1000 } : null;
+}
+
+/** The SVG transform of a translation in the layer's units. */
+export function translateText(d: { x: number; y: number }): string {
+  return `translate(${d.x} ${d.y})`;
+}
+
+/**
+ * The shift most translated pieces share (the one the marks follow): pieces moved together carry the very same
+ * vector object (core liveLayout), so counting by identity is enough.
+ */
+export function commonShift(pieces: readonly { by?: Vec2 }[]): Vec2 | null {
+  const count = new Map<Vec2, number>();
+  let best: Vec2 | null = null, most = 0;
+  for (const p of pieces) {
+    if (!p.by) continue;
+    const n = (count.get(p.by) ?? 0) + 1;
+    count.set(p.by, n);
+    if (n > most) { most = n; best = p.by; }
+  }
+  return best;
+}
+
+/**
+ * Whether points `now` (x, y pairs in the layer's units) are the points `written` plus `off` (or equal to them when
+ * `off` is null), each coordinate to DRIFT_EPS.
+ */
+export function movedBy(now: ArrayLike<number>, written: ArrayLike<number>, off: { x: number; y: number } | null): boolean {
+  if (now.length !== written.length) return false;
+  const ox = off?.x ?? 0, oy = off?.y ?? 0;
+  for (let i = 0; i < now.length; i += 2) {
+    if (Math.abs(now[i]! - ox - written[i]!) > DRIFT_EPS || Math.abs(now[i + 1]! - oy - written[i + 1]!) > DRIFT_EPS) return false;
+  }
+  return true;
+}
+
+/** Where a mark goes this scene: into the drift group as written, left as it is, or written afresh in place. */
+export type MarkPlace = 'drift' | 'stay' | 'write';
+
+export function placeMark(now: ArrayLike<number>, written: ArrayLike<number>, inDrift: boolean, drift: { x: number; y: number } | null): MarkPlace {
+  if (drift && movedBy(now, written, drift)) return 'drift';
+  if (!inDrift && movedBy(now, written, null)) return 'stay';
+  return 'write';
+}
