@@ -349,6 +349,8 @@ export class BoardController {
     if (style === this.movingStyle) return;
     this.movingStyle = style;
     (this.moving.node as unknown as SVGSVGElement).style.transform = style;
+    // The drift in board mm at full precision (the style's text is rounded), for tests that check where it lands.
+    this.moving.node.setAttribute('data-drift-mm', t ? `${t.x * 1000} ${t.y * 1000}` : '');
   }
 
   /**
