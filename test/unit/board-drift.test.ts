@@ -37,7 +37,7 @@ describe('the live layout says how translated copper moved', () => {
         if (!o.shift) continue;
         shifts.add(o.shift.by);
         // The base is an outline as drawn afresh: never itself a translated one.
-        expect(o.shift.base.shift).toBeUndefined();
+        expect((o.shift.base as { shift?: unknown }).shift).toBeUndefined();
         const f = fresh.get(o.id)!;
         o.shift.base.regions.forEach((r, i) => r.outer.forEach((p, j) => {
           // Drawn: the base's points in mm under translate(by in mm), back in metres.
