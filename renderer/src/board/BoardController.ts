@@ -12,7 +12,7 @@ import { type View, fitBox, panBy, toBoard, toScreen, zoomAt } from './viewport.
 import { gridLines, rulerLabel, rulerSteps, UNIT_METRES, type LengthUnit } from './grid.ts';
 import { hitTest, type Hit } from './hit.ts';
 import { regionsPath } from './paths.ts';
-import { commonShift, driftMm, placeMark, translateText } from './drift.ts';
+import { commonShift, driftMm, placeMark, placeMarkMm, translateText } from './drift.ts';
 
 export { regionsPath };
 
@@ -117,8 +117,10 @@ export class BoardController {
   private readonly labelDrift: G;
   private movingStyle = '';
   /** Marks: element, class, coordinates as written (x, y pairs), and whether it sits in its layer's drift group. */
-  private lineEls = new Map<string, { el: SvgElement; cls: string; pts: number[]; inDrift: boolean }>();
-  private nodeEls = new Map<string, { el: SvgElement; cls: string; kind: string; r: number; pts: number[]; inDrift: boolean }>();
+  private lineEls = new Map<string, { el: SvgElement; cls: string; v: number; kind: string; unsized: boolean; pts: number[]; inDrift: boolean }>();
+  /** Rises with every new set of marks: a mark's class is worked out again only then (or when its kind changes). */
+  private marksV = 0;
+  private nodeEls = new Map<string, { el: SvgElement; cls: string; v: number; kind: string; r: number; pts: number[]; inDrift: boolean }>();
   private portLabelEls = new Map<string, { el: SvgElement; text: string; pts: number[]; inDrift: boolean }>();
   private partValueEls: SvgElement[] = [];
   private drillKey = '';
@@ -241,6 +243,7 @@ export class BoardController {
 
   setMarks(m: Marks): void {
     this.marks = m;
+    this.marksV++;
     for (const [id, { el }] of this.pieceEls) {
       el.attr('class', this.pieceClass(id));
     }
@@ -361,36 +364,50 @@ export class BoardController {
     const seen = new Set<string>();
     for (const s of this.scene.segments) {
       const pts = s.centreline && s.centreline.length >= 2 ? s.centreline : [s.a, s.b];
-      const cls = ['cl', `cl-${s.kind}`];
-      if (this.marks.selected.has(s.id)) cls.push('selected');
-      if (this.marks.flagged.has(s.id)) cls.push('flagged');
-      if (this.marks.near?.has(s.id)) cls.push('near');
-      if (this.marks.hovered === s.id) cls.push('hovered');
-      if (!s.centreline) cls.push('unsized');
-      const c = cls.join(' ');
+      const unsized = !s.centreline;
       seen.add(s.id);
-      const flat = flatMm(pts);
       const have = this.lineEls.get(s.id);
-      const place = have ? placeMark(flat, have.pts, have.inDrift, this.drift) : 'write';
+      // The class changes only with the marks, the kind or sizing: kept from the last draw otherwise.
+      const c = have && have.v === this.marksV && have.kind === s.kind && have.unsized === unsized ? have.cls : this.lineClass(s.id, s.kind, unsized);
+      const place = have ? placeMarkMm(pts, have.pts, have.inDrift, this.drift) : 'write';
       if (have && place !== 'write') {
-        setClass(have.el, c);
-        have.cls = c;
+        if (c !== have.cls) setClass(have.el, c);
+        Object.assign(have, { cls: c, v: this.marksV, kind: s.kind, unsized });
         if (place === 'drift' && !have.inDrift) { this.lineDrift.node.appendChild(have.el.node); have.inDrift = true; }
         continue;
       }
+      const flat = flatMm(pts);
       const text = pairsText(flat);
       if (have) {
         have.el.node.setAttribute('points', text);
         setClass(have.el, c);
         if (have.inDrift) this.lineLayer.node.appendChild(have.el.node);
-        Object.assign(have, { cls: c, pts: flat, inDrift: false });
+        Object.assign(have, { cls: c, v: this.marksV, kind: s.kind, unsized, pts: flat, inDrift: false });
         continue;
       }
       const el = this.lineLayer.polyline().attr({ class: c, 'data-seg': s.id });
       el.node.setAttribute('points', text);
-            this.lineEls.set(s.id, { el, cls: c, pts: flat, inDrift: false });
+      this.lineEls.set(s.id, { el, cls: c, v: this.marksV, kind: s.kind, unsized, pts: flat, inDrift: false });
     }
     for (const [id, { el }] of this.lineEls) if (!seen.has(id)) { el.remove(); this.lineEls.delete(id); }
+  }
+
+  private nodeClass(id: string, kind: string): string {
+    const cls = ['node', `node-${kind}`];
+    if (this.marks.selected.has(id)) cls.push('selected');
+    if (this.marks.flagged.has(id)) cls.push('flagged');
+    if (this.marks.hovered === id) cls.push('hovered');
+    return cls.join(' ');
+  }
+
+  private lineClass(id: string, kind: string, unsized: boolean): string {
+    const cls = ['cl', `cl-${kind}`];
+    if (this.marks.selected.has(id)) cls.push('selected');
+    if (this.marks.flagged.has(id)) cls.push('flagged');
+    if (this.marks.near?.has(id)) cls.push('near');
+    if (this.marks.hovered === id) cls.push('hovered');
+    if (unsized) cls.push('unsized');
+    return cls.join(' ');
   }
 
   /** Lumped parts: a body between the pads, turned along the line (world space, mm). */
@@ -419,23 +436,20 @@ export class BoardController {
     // Node marks keep a constant screen size: radius in mm from pixels at the current zoom.
     const r = mm(5 / this.view.scale);
     for (const n of this.scene.nodes) {
-      const cls = ['node', `node-${n.kind}`];
-      if (this.marks.selected.has(n.id)) cls.push('selected');
-      if (this.marks.flagged.has(n.id)) cls.push('flagged');
-      if (this.marks.hovered === n.id) cls.push('hovered');
-      const x = mm(n.at.x), y = mm(n.at.y);
-      const c = cls.join(' ');
       seen.add(n.id);
-      const at = [x, y];
       const have = this.nodeEls.get(n.id);
       const same = have && have.kind === n.kind && have.r === r;
-      const place = same ? placeMark(at, have.pts, have.inDrift, this.drift) : 'write';
+      const c = have && have.v === this.marksV && same ? have.cls : this.nodeClass(n.id, n.kind);
+      const one = [n.at];
+      const place = same ? placeMarkMm(one, have.pts, have.inDrift, this.drift) : 'write';
       if (have && same && place !== 'write') {
-        setClass(have.el, c);
-        have.cls = c;
+        if (c !== have.cls) setClass(have.el, c);
+        have.cls = c; have.v = this.marksV;
         if (place === 'drift' && !have.inDrift) { this.nodeDrift.node.appendChild(have.el.node); have.inDrift = true; }
         continue;
       }
+      const x = mm(n.at.x), y = mm(n.at.y);
+      const at = [x, y];
       // A moved circle mark (bends, tees, ends) and a port's square take their new place in place.
       const rr = r * (n.kind === 'vertex' ? 0.7 : 1);
       if (have && same && (n.kind !== 'short')) {
@@ -443,7 +457,7 @@ export class BoardController {
         else { have.el.node.setAttribute('cx', String(x)); have.el.node.setAttribute('cy', String(y)); }
         setClass(have.el, c);
         if (have.inDrift) this.nodeLayer.node.appendChild(have.el.node);
-        Object.assign(have, { cls: c, pts: at, inDrift: false });
+        Object.assign(have, { cls: c, v: this.marksV, pts: at, inDrift: false });
         continue;
       }
       have?.el.remove();
@@ -453,7 +467,7 @@ export class BoardController {
       else if (n.kind === 'short') el = this.nodeLayer.polygon([[x, y + 1.4 * r], [x + 1.4 * r, y], [x, y - 1.4 * r], [x - 1.4 * r, y]]);
       else el = this.nodeLayer.circle(2 * rr).attr({ cx: x, cy: y });
       el.attr({ class: c, 'data-node': n.id });
-      this.nodeEls.set(n.id, { el, cls: c, kind: n.kind, r, pts: at, inDrift: false });
+      this.nodeEls.set(n.id, { el, cls: c, v: this.marksV, kind: n.kind, r, pts: at, inDrift: false });
     }
     for (const [id, { el }] of this.nodeEls) if (!seen.has(id)) { el.remove(); this.nodeEls.delete(id); }
     const drillKey = this.scene.drills.map((d) => `${d.at.x},${d.at.y},${d.diameter}`).join(';');

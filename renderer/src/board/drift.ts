@@ -63,3 +63,18 @@ export function placeMark(now: ArrayLike<number>, written: ArrayLike<number>, in
   if (!inDrift && movedBy(now, written, null)) return 'stay';
   return 'write';
 }
+
+/** placeMark for points in metres drawn in millimetres, without making the mm list (most marks stay or drift). */
+export function placeMarkMm(now: readonly Vec2[], written: ArrayLike<number>, inDrift: boolean, drift: { x: number; y: number } | null): MarkPlace {
+  if (now.length * 2 !== written.length) return 'write';
+  const near = (ox: number, oy: number): boolean => {
+    for (let i = 0; i < now.length; i++) {
+      const p = now[i]!;
+      if (Math.abs(p.x * 1000 - ox - written[2 * i]!) > DRIFT_EPS || Math.abs(p.y * 1000 - oy - written[2 * i + 1]!) > DRIFT_EPS) return false;
+    }
+    return true;
+  };
+  if (drift && near(drift.x, drift.y)) return 'drift';
+  if (!inDrift && near(0, 0)) return 'stay';
+  return 'write';
+}

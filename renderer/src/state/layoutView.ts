@@ -21,10 +21,20 @@ export interface LayoutView {
   paths: PathReport[];
   /** Each node's drawn position the layout was made from, and where it placed the node, by node id. */
   placed: Map<string, { at: Vec2; pos: Vec2 }>;
-  figures: Map<string, PieceFigures>;
+  /** Each piece's figures by id (a Map, or made on the first look-up: a drag's layouts are mostly never asked). */
+  figures: Lookup<PieceFigures>;
   /** A line about each node (bend, tee, end, via, port) for the hover readout. */
-  notes?: Map<string, string>;
+  notes?: Lookup<string>;
   ms: number;
+}
+
+/** What the panels read of a per-id table. */
+export interface Lookup<T> { get(id: string): T | undefined }
+
+/** A table made the first time it is read (`make` runs at most once). */
+export function lazy<T>(make: () => Map<string, T>): Lookup<T> {
+  let m: Map<string, T> | null = null;
+  return { get: (id) => (m ??= make()).get(id) };
 }
 
 export function figuresFrom(sized: SizedView): Map<string, PieceFigures> {

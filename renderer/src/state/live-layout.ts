@@ -10,7 +10,7 @@
  */
 import { liveLayout, type LiveLayout, type LiveOutline, type PieceOutline, type SizeOptions } from '../../../core/index.ts';
 import { regionsPath } from '../board/paths.ts';
-import { nodeNotes, placedFrom, type FiguresCache, type LayoutView } from './layoutView.ts';
+import { lazy, nodeNotes, placedFrom, type FiguresCache, type LayoutView } from './layoutView.ts';
 
 /** One options object for every drag: the core keeps its memo while the object is the same. */
 const OPTIONS: SizeOptions = {};
@@ -53,7 +53,8 @@ export class LiveDragLayout {
     const outlines = this.last.outlines.map((o) => ({ ...o, d: this.pathOf(o.shift?.base ?? o), by: o.shift?.by }));
     const view: LayoutView = {
       revision, sized, outlines, drills: this.last.drills, paths: held?.paths ?? [], placed: placedFrom(sized),
-      figures: this.figures.of(sized), notes: nodeNotes(sized), ms: performance.now() - t0,
+      // Figures and notes are only read by a hover readout or a panel: made when first asked, not on every move.
+      figures: lazy(() => this.figures.of(sized)), notes: lazy(() => nodeNotes(sized)), ms: performance.now() - t0,
     };
     // Only a layout that could reuse the last one counts: the first of all (or after a board-wide change) sizes
     // every piece with cold code, and says nothing about how long the moves after it take.
