@@ -69,10 +69,11 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
     // Frame bookkeeping for "on screen" (see the file comment): each frame's first callback opens it and posts the
     // task that closes it; copper seen while a frame is open is painted by it, copper seen between frames by the next.
     let inFrame = false, thisFrame = [], nextFrame = [], ticking = true;
+    const ch = new MessageChannel();
+    ch.port1.onmessage = () => { inFrame = false; const t = performance.now(); for (const e of thisFrame) e.shown = t; thisFrame = []; };
     const tick = () => {
-      inFrame = true; thisFrame.push(...nextFrame); nextFrame = [];
-      const ch = new MessageChannel();
-      ch.port1.onmessage = () => { inFrame = false; const t = performance.now(); for (const e of thisFrame) e.shown = t; thisFrame = []; };
+      inFrame = true;
+      if (nextFrame.length) { for (const e of nextFrame) thisFrame.push(e); nextFrame = []; }
       ch.port2.postMessage(0);
       if (ticking) requestAnimationFrame(tick);
     };
@@ -119,6 +120,7 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
     while (performance.now() < end && !events.some((e) => e.kind === 'response' && e.points >= fullPoints && e.rev >= last)) await new Promise((ok) => setTimeout(ok, 20));
     seen.disconnect();
     ticking = false;
+    ch.port1.close();
     const words = (id) => document.querySelector('[data-testid="' + id + '"]')?.textContent?.trim() ?? '';
     return { moves: log, events, t1: performance.now(), panel: [words('sweep-summary'), words('response-error'), words('sweep-cancelled')].filter(Boolean).join(' / ') };
   })(${JSON.stringify(vertex)}, ${moves}, ${fullPoints})`)) as PageRecord;

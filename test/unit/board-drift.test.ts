@@ -8,7 +8,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { corporateFeed, liveLayout, pieceOutlines, runCommand, sizeDesign, type DesignDoc, type LiveLayout, type Vec2 } from '../../core/index.ts';
-import { commonShift, driftMm, movedBy, placeMark, translateText, DRIFT_EPS } from '../../renderer/src/board/drift.ts';
+import { commonShift, driftMm, less, movedBy, placeMark, translateText, DRIFT_EPS } from '../../renderer/src/board/drift.ts';
 import { toScreen, type View } from '../../renderer/src/board/viewport.ts';
 
 /** mulberry32, seeded, so a failure can be replayed. */
@@ -63,9 +63,13 @@ describe('marks follow the drift', () => {
   it('a mark moved by the drift joins the group as written; a still one stays; anything else is written', () => {
     expect(placeMark([1.25, 0.5], [1, 2], false, drift)).toBe('drift');
     expect(placeMark([1, 2], [1, 2], false, drift)).toBe('stay');
-    expect(placeMark([1, 2], [1, 2], true, drift)).toBe('write'); // in the group but no longer moving with it
-    expect(placeMark([1.3, 0.5], [1, 2], true, drift)).toBe('write');
+    // In the group but no longer moving with it, or moved otherwise: written again, in the group less the drift.
+    expect(placeMark([1, 2], [1, 2], true, drift)).toBe('write-drift');
+    expect(placeMark([1.3, 0.5], [1, 2], false, drift)).toBe('write-drift');
     expect(placeMark([1.25, 0.5], [1, 2], true, null)).toBe('write'); // the drag ended: back to the board
+    // Written in the group less the drift, a mark that then moves with the drift is left alone.
+    const local = less([1.3, 0.5], drift), next = { x: drift.x + 0.1, y: drift.y - 0.2 };
+    expect(placeMark([1.4, 0.3], local, true, next)).toBe('drift');
     expect(movedBy([1 + DRIFT_EPS / 2, 2], [1, 2], null)).toBe(true);
     expect(movedBy([1 + DRIFT_EPS * 2, 2], [1, 2], null)).toBe(false);
     expect(movedBy([1, 2, 3, 4], [1, 2], null)).toBe(false);

@@ -12,7 +12,7 @@ import { type View, fitBox, panBy, toBoard, toScreen, zoomAt } from './viewport.
 import { gridLines, rulerLabel, rulerSteps, UNIT_METRES, type LengthUnit } from './grid.ts';
 import { hitTest, type Hit } from './hit.ts';
 import { regionsPath } from './paths.ts';
-import { commonShift, driftMm, placeMark, placeMarkMm, translateText } from './drift.ts';
+import { commonShift, driftMm, less, placeMark, placeMarkMm, translateText } from './drift.ts';
 
 export { regionsPath };
 
@@ -370,19 +370,20 @@ export class BoardController {
       // The class changes only with the marks, the kind or sizing: kept from the last draw otherwise.
       const c = have && have.v === this.marksV && have.kind === s.kind && have.unsized === unsized ? have.cls : this.lineClass(s.id, s.kind, unsized);
       const place = have ? placeMarkMm(pts, have.pts, have.inDrift, this.drift) : 'write';
-      if (have && place !== 'write') {
+      if (have && (place === 'drift' || place === 'stay')) {
         if (c !== have.cls) setClass(have.el, c);
         Object.assign(have, { cls: c, v: this.marksV, kind: s.kind, unsized });
         if (place === 'drift' && !have.inDrift) { this.lineDrift.node.appendChild(have.el.node); have.inDrift = true; }
         continue;
       }
-      const flat = flatMm(pts);
+      const into = place === 'write-drift';
+      const flat = less(flatMm(pts), into ? this.drift : null);
       const text = pairsText(flat);
       if (have) {
         have.el.node.setAttribute('points', text);
         setClass(have.el, c);
-        if (have.inDrift) this.lineLayer.node.appendChild(have.el.node);
-        Object.assign(have, { cls: c, v: this.marksV, kind: s.kind, unsized, pts: flat, inDrift: false });
+        if (have.inDrift !== into) (into ? this.lineDrift : this.lineLayer).node.appendChild(have.el.node);
+        Object.assign(have, { cls: c, v: this.marksV, kind: s.kind, unsized, pts: flat, inDrift: into });
         continue;
       }
       const el = this.lineLayer.polyline().attr({ class: c, 'data-seg': s.id });
@@ -442,24 +443,27 @@ export class BoardController {
       const c = have && have.v === this.marksV && same ? have.cls : this.nodeClass(n.id, n.kind);
       const one = [n.at];
       const place = same ? placeMarkMm(one, have.pts, have.inDrift, this.drift) : 'write';
-      if (have && same && place !== 'write') {
+      if (have && same && (place === 'drift' || place === 'stay')) {
         if (c !== have.cls) setClass(have.el, c);
         have.cls = c; have.v = this.marksV;
         if (place === 'drift' && !have.inDrift) { this.nodeDrift.node.appendChild(have.el.node); have.inDrift = true; }
         continue;
       }
-      const x = mm(n.at.x), y = mm(n.at.y);
-      const at = [x, y];
       // A moved circle mark (bends, tees, ends) and a port's square take their new place in place.
       const rr = r * (n.kind === 'vertex' ? 0.7 : 1);
       if (have && same && (n.kind !== 'short')) {
+        const into = place === 'write-drift';
+        const at = less([mm(n.at.x), mm(n.at.y)], into ? this.drift : null);
+        const [x, y] = at as [number, number];
         if (n.kind === 'port') { have.el.node.setAttribute('x', String(x - 1.2 * r)); have.el.node.setAttribute('y', String(y - 1.2 * r)); }
         else { have.el.node.setAttribute('cx', String(x)); have.el.node.setAttribute('cy', String(y)); }
         setClass(have.el, c);
-        if (have.inDrift) this.nodeLayer.node.appendChild(have.el.node);
-        Object.assign(have, { cls: c, v: this.marksV, pts: at, inDrift: false });
+        if (have.inDrift !== into) (into ? this.nodeDrift : this.nodeLayer).node.appendChild(have.el.node);
+        Object.assign(have, { cls: c, v: this.marksV, pts: at, inDrift: into });
         continue;
       }
+      const x = mm(n.at.x), y = mm(n.at.y);
+      const at = [x, y];
       have?.el.remove();
       let el: SvgElement;
       // Positions as attributes: svg.js's center() asks the browser for a bounding box (a layout) per mark.
@@ -556,10 +560,12 @@ export class BoardController {
       if (have && have.text === text) {
         const place = placeMark(at, have.pts, have.inDrift, drift);
         if (place === 'drift' && !have.inDrift) { this.labelDrift.node.appendChild(have.el.node); have.inDrift = true; }
-        if (place !== 'write') continue;
-        have.el.node.setAttribute('x', String(at[0])); have.el.node.setAttribute('y', String(at[1]));
-        if (have.inDrift) this.labelLayer.node.appendChild(have.el.node);
-        Object.assign(have, { pts: at, inDrift: false });
+        if (place === 'drift' || place === 'stay') continue;
+        const into = place === 'write-drift';
+        const xy = less(at, into ? drift : null);
+        have.el.node.setAttribute('x', String(xy[0])); have.el.node.setAttribute('y', String(xy[1]));
+        if (have.inDrift !== into) (into ? this.labelDrift : this.labelLayer).node.appendChild(have.el.node);
+        Object.assign(have, { pts: xy, inDrift: into });
         continue;
       }
       have?.el.remove();

@@ -55,18 +55,24 @@ export function movedBy(now: ArrayLike<number>, written: ArrayLike<number>, off:
   return true;
 }
 
-/** Where a mark goes this scene: into the drift group as written, left as it is, or written afresh in place. */
-export type MarkPlace = 'drift' | 'stay' | 'write';
+/**
+ * Where a mark goes this scene: into (or left in) the drift group as written ('drift'), left where it is ('stay'),
+ * written afresh in the drift group at its place less the drift ('write-drift': it moved while a drag drifts, so it
+ * will most likely move with the drift from now on), or written afresh on the board ('write').
+ * Coordinates written in the drift group are board coordinates less the drift of that moment, so a mark that moved
+ * exactly by the drift since it was written, in the group or not, is drawn right by the group as it stands.
+ */
+export type MarkPlace = 'drift' | 'stay' | 'write-drift' | 'write';
 
 export function placeMark(now: ArrayLike<number>, written: ArrayLike<number>, inDrift: boolean, drift: { x: number; y: number } | null): MarkPlace {
   if (drift && movedBy(now, written, drift)) return 'drift';
   if (!inDrift && movedBy(now, written, null)) return 'stay';
-  return 'write';
+  return drift ? 'write-drift' : 'write';
 }
 
 /** placeMark for points in metres drawn in millimetres, without making the mm list (most marks stay or drift). */
 export function placeMarkMm(now: readonly Vec2[], written: ArrayLike<number>, inDrift: boolean, drift: { x: number; y: number } | null): MarkPlace {
-  if (now.length * 2 !== written.length) return 'write';
+  if (now.length * 2 !== written.length) return drift ? 'write-drift' : 'write';
   const near = (ox: number, oy: number): boolean => {
     for (let i = 0; i < now.length; i++) {
       const p = now[i]!;
@@ -76,5 +82,13 @@ export function placeMarkMm(now: readonly Vec2[], written: ArrayLike<number>, in
   };
   if (drift && near(drift.x, drift.y)) return 'drift';
   if (!inDrift && near(0, 0)) return 'stay';
-  return 'write';
+  return drift ? 'write-drift' : 'write';
+}
+
+/** x, y pairs less an offset (the coordinates a mark is written with inside the drift group). */
+export function less(flat: number[], off: { x: number; y: number } | null): number[] {
+  if (!off) return flat;
+  const out = flat.slice();
+  for (let i = 0; i < out.length; i += 2) { out[i]! -= off.x; out[i + 1]! -= off.y; }
+  return out;
 }

@@ -92,5 +92,8 @@ export function nodeNotes(sized: SizedView): Map<string, string> {
 }
 
 export function placedFrom(sized: SizedView): Map<string, { at: Vec2; pos: Vec2 }> {
-  return new Map(sized.nodes.map((n) => [n.id, { at: n.at, pos: n.pos }]));
+  // The sized nodes themselves carry `at` and `pos`: no new object per node (a drag makes this every move).
+  const m = new Map<string, { at: Vec2; pos: Vec2 }>();
+  for (const n of sized.nodes) m.set(n.id, n);
+  return m;
 }
