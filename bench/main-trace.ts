@@ -33,12 +33,12 @@ function summarize(trace: { traceEvents: TraceEvent[] }): string {
     stack.push({ end: e.ts + e.dur!, name: e.name });
   }
   // The renderer's pool threads (raster, V8's helpers): their busiest kinds of work.
-  const poolTids = new Set(ev.filter((e) => e.ph === 'M' && e.name === 'thread_name' && e.pid === main.pid && /ThreadPool|Worker/.test(e.args?.name ?? '')).map((e) => e.tid));
+  const poolTids = new Set(ev.filter((e) => e.ph === 'M' && e.name === 'thread_name' && e.pid === main.pid && /ThreadPool/.test(e.args?.name ?? '')).map((e) => e.tid));
   const pool = new Map<string, number>();
   for (const e of ev) if (e.pid === main.pid && poolTids.has(e.tid) && e.ph === 'X' && e.dur) pool.set(e.name, (pool.get(e.name) ?? 0) + e.dur);
-  const poolRows = [...pool].sort((a, b) => b[1] - a[1]).slice(0, 8).map(([n, us]) => `${n} ${(us / 1000).toFixed(0)} ms`).join(', ');
+  const poolRows = [...pool].sort((a, b) => b[1] - a[1]).slice(0, 14).map(([n, us]) => `${n} ${(us / 1000).toFixed(0)} ms`).join(', ');
   const rows = [...self].filter(([, us]) => us > 2000).sort((a, b) => b[1] - a[1]).slice(0, 18);
   return `main-thread trace over the drag (self time; ${(top / 1000).toFixed(0)} ms in top-level tasks):\n` +
     rows.map(([n, us]) => `  ${(us / 1000).toFixed(1).padStart(8)} ms  ${n}`).join('\n') +
-    `\nrenderer pool and worker threads (time per kind of event, nested ones included): ${poolRows}`;
+    `\nrenderer pool threads (raster, V8's background work; time per kind of event, nested ones included): ${poolRows}`;
 }
