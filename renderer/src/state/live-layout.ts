@@ -63,6 +63,21 @@ export class LiveDragLayout {
     return view;
   }
 
+  /**
+   * Lays `doc` out once while the page is idle, if no drag did yet: the first drag of a session then starts from a
+   * kept sizing (and with the line models' tables made), instead of sizing every piece with cold code on its first move.
+   */
+  prime(doc: Parameters<typeof liveLayout>[1]): void {
+    if (this.last || this.priming || typeof requestIdleCallback !== 'function') return;
+    this.priming = true;
+    requestIdleCallback(() => {
+      this.priming = false;
+      if (this.last) return;
+      try { this.last = liveLayout(null, doc, OPTIONS); } catch { /* the worker says why; the drag then starts cold */ }
+    }, { timeout: 3000 });
+  }
+  private priming = false;
+
   private pathOf(o: PieceOutline): string {
     let d = this.text.get(o);
     if (d === undefined) { d = regionsPath(o.regions); this.text.set(o, d); }
