@@ -5,18 +5,26 @@
  * two attributes (`data-copper-revision` on the board drawing, `data-drawn` = "revision:points" on the response
  * plot); a MutationObserver in the page notes when each changes, so nothing inside the app is timed or patched.
  *
- * Moves are paced one per animation frame, as a browser delivers pointer moves. CPU time comes from the page's own
- * counters (Chrome DevTools Protocol Performance.getMetrics: ThreadTime for the main thread, ProcessTime for the
- * whole renderer process, compute workers included), so a busy machine can be told from slow code.
+ * Moves are paced one per animation frame, as Chromium delivers pointer moves (at the start of a frame, before its
+ * animation-frame callbacks). "On screen" for the copper is the end of the main thread's work on the frame that
+ * shows it: a change made while a frame's callbacks run (a move's own live layout) is painted by that frame, which
+ * ends when a task posted from its first callback runs (style, layout, paint and commit are done by then); a change
+ * made in a task between frames (a worker's layout) by the next frame. Rasterising and compositing then happen off
+ * the main thread (in the GPU process, in software here) and are not in the figure; their CPU time is printed.
+ * CPU time comes from Linux's counters per thread (renderer-threads.ts), so a busy machine can be told from slow code.
  * Not a bench itself (no `.bench.ts`): frame.bench.ts calls it.
  */
 import type { Page } from 'playwright-core';
 import { readFileSync } from 'node:fs';
+import { threadCpu, type ThreadCpu } from './renderer-threads.ts';
+import { startTrace } from './main-trace.ts';
 
 export interface EditLatency {
   moves: number;
   /** Per move, ms from the pointer event to the copper / first response / full response of its revision on screen. */
   copper: number[];
+  /** Per move, ms from the pointer event until that copper was in the board's DOM (before style, layout and paint). */
+  copperDom: number[];
   first: number[];
   full: number[];
   /** Moves whose copper on screen was their own revision's (the rest were shown a later move's copper first). */
@@ -27,25 +35,16 @@ export interface EditLatency {
   /** Coarse and full response draws seen during the drag. */
   draws: { coarse: number; full: number };
   wallMs: number;
-  /** CPU time over the drag, ms (null when this chromium does not report it). */
-  mainCpuMs: number | null;
-  processCpuMs: number | null;
+  /** CPU time of the browser's threads over the drag, ms (null where /proc cannot be read). */
+  cpu: ThreadCpu | null;
   load: { before: string; after: string };
   /** The last moves and screen updates, when some move never reached the screen (to see why). */
   tail: string;
 }
 
-interface PageRecord { moves: { t0: number; rev: number }[]; events: { kind: 'copper' | 'response'; rev: number; points: number; t: number }[]; t1: number; panel: string }
+interface PageRecord { moves: { t0: number; rev: number }[]; events: { kind: 'copper' | 'response'; rev: number; points: number; t: number; shown?: number }[]; t1: number; panel: string }
 
 const loadAvg = () => { try { return readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' '); } catch { return 'unknown'; } };
-
-async function cpuSeconds(page: Page): Promise<{ thread: number | null; process: number | null; close: () => Promise<void> }> {
-  const cdp = await page.context().newCDPSession(page);
-  await cdp.send('Performance.enable');
-  const { metrics } = (await cdp.send('Performance.getMetrics')) as { metrics: { name: string; value: number }[] };
-  const get = (n: string) => metrics.find((m) => m.name === n)?.value ?? null;
-  return { thread: get('ThreadTime'), process: get('ProcessTime'), close: () => cdp.detach() };
-}
 
 /** Opens the Response tab, waits for the full response of the design as it stands, then drags the bend `vertex`. */
 export async function editToScreen(page: Page, vertex: string, moves = 60, fullPoints = 201): Promise<EditLatency> {
@@ -58,13 +57,27 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
   for (let i = 0; i < 600 && !(await page.evaluate(settled)); i++) await page.waitForTimeout(200);
   await page.waitForTimeout(300);
   const load0 = loadAvg();
-  const cpu0 = await cpuSeconds(page);
+  const browser = page.context().browser();
+  const cpu = browser ? await threadCpu(browser) : async () => null;
   const profiler = process.env.FRAME_BENCH_PROFILE ? await startProfile(page) : null;
+  const tracer = process.env.FRAME_BENCH_TRACE && browser ? await startTrace(browser, page) : null;
   // In-page code is a string: tsx would otherwise wrap functions in helpers the page does not have.
   const rec = (await page.evaluate(`(async (id, moves, fullPoints) => {
     const svg = document.querySelector('[data-testid="board-canvas"]');
     const panel = document.querySelector('[data-testid="response-panel"]');
     const events = [];
+    // Frame bookkeeping for "on screen" (see the file comment): each frame's first callback opens it and posts the
+    // task that closes it; copper seen while a frame is open is painted by it, copper seen between frames by the next.
+    let inFrame = false, thisFrame = [], nextFrame = [], ticking = true;
+    const ch = new MessageChannel();
+    ch.port1.onmessage = () => { inFrame = false; const t = performance.now(); for (const e of thisFrame) e.shown = t; thisFrame = []; };
+    const tick = () => {
+      inFrame = true;
+      if (nextFrame.length) { for (const e of nextFrame) thisFrame.push(e); nextFrame = []; }
+      ch.port2.postMessage(0);
+      if (ticking) requestAnimationFrame(tick);
+    };
+    requestAnimationFrame(tick);
     let lastCopper = svg.getAttribute('data-copper-revision');
     let lastDrawn = document.querySelector('[data-testid="response-plot"]')?.getAttribute('data-drawn') ?? null;
     const seen = new MutationObserver((list) => {
@@ -72,7 +85,7 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
       for (const m of list) {
         if (m.attributeName === 'data-copper-revision') {
           const v = svg.getAttribute('data-copper-revision');
-          if (v !== lastCopper) { lastCopper = v; events.push({ kind: 'copper', rev: Number(v), points: 0, t }); }
+          if (v !== lastCopper) { lastCopper = v; const e = { kind: 'copper', rev: Number(v), points: 0, t }; events.push(e); (inFrame ? thisFrame : nextFrame).push(e); }
         } else if (m.attributeName === 'data-drawn') {
           // A redraw of the same response (a window or theme change) is not a new response on screen.
           const v = m.target.getAttribute('data-drawn');
@@ -85,6 +98,7 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
     });
     seen.observe(svg, { attributes: true, attributeFilter: ['data-copper-revision'] });
     seen.observe(panel, { attributes: true, subtree: true, attributeFilter: ['data-drawn'] });
+    await new Promise((ok) => requestAnimationFrame(() => requestAnimationFrame(ok)));
     const el = document.querySelector('[data-node="' + id + '"]');
     const r = el.getBoundingClientRect();
     const x0 = r.left + r.width / 2, y0 = r.top + r.height / 2;
@@ -105,23 +119,23 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
     const end = performance.now() + 60000;
     while (performance.now() < end && !events.some((e) => e.kind === 'response' && e.points >= fullPoints && e.rev >= last)) await new Promise((ok) => setTimeout(ok, 20));
     seen.disconnect();
+    ticking = false;
+    ch.port1.close();
     const words = (id) => document.querySelector('[data-testid="' + id + '"]')?.textContent?.trim() ?? '';
     return { moves: log, events, t1: performance.now(), panel: [words('sweep-summary'), words('response-error'), words('sweep-cancelled')].filter(Boolean).join(' / ') };
   })(${JSON.stringify(vertex)}, ${moves}, ${fullPoints})`)) as PageRecord;
-  const cpu1 = await cpuSeconds(page);
+  const cpuUsed = await cpu();
   if (profiler) console.log(await profiler());
-  await cpu0.close(); await cpu1.close();
+  if (tracer) console.log(await tracer());
   const load1 = loadAvg();
 
   const after = (t0: number, rev: number, ok: (e: PageRecord['events'][number]) => boolean) =>
     rec.events.find((e) => e.t >= t0 && e.rev >= rev && ok(e));
   const out: EditLatency = {
-    moves: rec.moves.length, ownCopper: 0, copper: [], first: [], full: [], missing: { copper: 0, first: 0, full: 0 }, fullPoints,
+    moves: rec.moves.length, ownCopper: 0, copper: [], copperDom: [], first: [], full: [], missing: { copper: 0, first: 0, full: 0 }, fullPoints,
     draws: { coarse: rec.events.filter((e) => e.kind === 'response' && e.points < fullPoints).length, full: rec.events.filter((e) => e.kind === 'response' && e.points >= fullPoints).length },
     wallMs: rec.t1 - (rec.moves[0]?.t0 ?? rec.t1),
-    // Headless chromium may report ThreadTime as 0 throughout: then it says nothing, and is printed as n/a.
-    mainCpuMs: cpu0.thread !== null && cpu1.thread !== null && cpu1.thread > cpu0.thread ? (cpu1.thread - cpu0.thread) * 1000 : null,
-    processCpuMs: cpu0.process !== null && cpu1.process !== null ? (cpu1.process - cpu0.process) * 1000 : null,
+    cpu: cpuUsed,
     load: { before: load0, after: load1 },
     tail: '',
   };
@@ -129,7 +143,10 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
     const c = after(m.t0, m.rev, (e) => e.kind === 'copper');
     const f = after(m.t0, m.rev, (e) => e.kind === 'response');
     const g = after(m.t0, m.rev, (e) => e.kind === 'response' && e.points >= fullPoints);
-    if (c) out.copper.push(c.t - m.t0); else out.missing.copper++;
+    // On screen: the first copper of this revision or a later one whose frame was painted.
+    const shown = rec.events.filter((e) => e.kind === 'copper' && e.t >= m.t0 && e.rev >= m.rev && e.shown !== undefined).sort((a, b) => a.shown! - b.shown!)[0];
+    if (c) out.copperDom.push(c.t - m.t0);
+    if (shown) out.copper.push(shown.shown! - m.t0); else out.missing.copper++;
     if (c && c.rev === m.rev) out.ownCopper++;
     if (f) out.first.push(f.t - m.t0); else out.missing.first++;
     if (g) out.full.push(g.t - m.t0); else out.missing.full++;
@@ -147,7 +164,7 @@ export async function editToScreen(page: Page, vertex: string, moves = 60, fullP
  * FRAME_BENCH_PROFILE=1: the page's main-thread CPU profile over the drag (CDP Profiler), as the functions with the
  * most self time — where a slow move spends its time.
  */
-async function startProfile(page: Page): Promise<() => Promise<string>> {
+export async function startProfile(page: Page): Promise<() => Promise<string>> {
   const cdp = await page.context().newCDPSession(page);
   await cdp.send('Profiler.enable');
   await cdp.send('Profiler.setSamplingInterval', { interval: 200 });

@@ -136,10 +136,12 @@ function printEdit(e: EditLatency): void {
   const row = (xs: number[]) => (xs.length ? `median ${median(xs).toFixed(1)} ms, p90 ${pct(xs, 0.9).toFixed(1)} ms` : 'never');
   const miss = (n: number) => (n ? ` (${n} of ${e.moves} moves never shown)` : '');
   console.log(`edit to screen, ${e.moves} pointer moves one per animation frame with the Response tab open (${e.draws.coarse} coarse and ${e.draws.full} full response draws):`);
-  console.log(`  pointer move → copper redrawn:            ${row(e.copper)} (target < 16.7 ms)${miss(e.missing.copper)}; ${e.ownCopper} of ${e.moves} moves showed their own revision's copper first, the rest a later move's`);
+  console.log(`  pointer move → copper on screen:          ${row(e.copper)} (target < 16.7 ms)${miss(e.missing.copper)}; ${e.ownCopper} of ${e.moves} moves showed their own revision's copper, the rest a later move's (the measure ends when the main thread has painted the frame showing that move's copper or a later one's)`);
+  console.log(`  pointer move → copper in the DOM:         ${row(e.copperDom)} (script only: before the browser's style, layout and paint)`);
   console.log(`  pointer move → first response drawn:      ${row(e.first)}${miss(e.missing.first)}`);
   console.log(`  pointer move → ${e.fullPoints}-point response drawn:  ${row(e.full)} (target < 150 ms)${miss(e.missing.full)}`);
-  const cpu = (ms: number | null) => (ms === null ? 'n/a' : `${ms.toFixed(0)} ms`);
   if (e.tail) console.log(`  last moves and screen updates: ${e.tail}`);
-  console.log(`  over ${e.wallMs.toFixed(0)} ms of wall time: CPU main thread ${cpu(e.mainCpuMs)}, renderer process with its workers ${cpu(e.processCpuMs)}; load average ${e.load.before} before, ${e.load.after} after (2 cores shared with other jobs: wall times above include waiting for a core)`);
+  const c = e.cpu;
+  const cpu = c ? `CPU (Linux per-thread counters, 10 ms ticks): page main thread ${c.main} ms, its workers ${c.workers} ms, rest of the renderer ${c.rendererOther} ms (${Object.entries(c.otherByName).map(([n, ms]) => `${n} ${ms}`).join(', ')}), GPU process (software raster and compositing) ${c.gpu} ms` : 'CPU: n/a (no /proc)';
+  console.log(`  over ${e.wallMs.toFixed(0)} ms of wall time (${(e.wallMs / e.moves).toFixed(1)} ms per move): ${cpu}; load average ${e.load.before} before, ${e.load.after} after (2 cores shared with other jobs: wall times above include waiting for a core)`);
 }

@@ -23,10 +23,18 @@ import type { LineCache } from './lineCache.ts';
 /** How far apart two nodes' moves may be and still count as one rigid move, m (rounding of the placement sums). */
 const RIGID_TOL = 1e-12;
 
+/**
+ * An outline of the live layout. A translated one says what it was translated from: `shift.base` is the outline as
+ * last drawn afresh (never itself translated) and `shift.by` the whole translation since, so a face can draw `base`
+ * once and move it with one transform per move instead of new path text. `regions` hold the translated copper all
+ * the same (to rounding: base + by, and regions translated move by move, agree to about 1e-15 m).
+ */
+export interface LiveOutline extends PieceOutline { shift?: { base: PieceOutline; by: Vec2 } }
+
 /** A live layout, carrying what the next one reuses. */
 export interface LiveLayout extends LiveSizing {
   /** Each piece's and node's own copper, in pieceOutlines' order. */
-  outlines: PieceOutline[];
+  outlines: LiveOutline[];
   drills: DrillHit[];
   /** What this layout redid: nodes whose ends were handled afresh, outlines drawn afresh, moved, kept. */
   redone: { ends: number; drawn: number; moved: number; kept: number };
@@ -95,12 +103,21 @@ function liveOutlines(prev: LiveLayout | null, sized: SizedDesign, replayed: Set
   const old = new Map((prev?.outlines ?? []).map((o) => [o.id, o]));
   const oldDrills = new Map<string, DrillHit[]>();
   for (const d of prev?.drills ?? []) { const l = oldDrills.get(d.owner) ?? []; l.push(d); oldDrills.set(d.owner, l); }
-  const outlines: PieceOutline[] = [], drills: DrillHit[] = [];
+  const outlines: LiveOutline[] = [], drills: DrillHit[] = [];
   const redone = { drawn: 0, moved: 0, kept: 0 };
-  const reuse = (id: string, deps: string[], same: boolean): { o: PieceOutline | undefined; by: Vec2 } | null => {
+  // Everything a move translates (the copper below a dragged bend) takes one and the same vector, the first one
+  // found: the vectors differ only by the rounding of the placement sums (RIGID_TOL), and one vector lets a face move
+  // all of it as one group, its shifts staying equal to the bit over the whole drag.
+  let common: Vec2 | null = null;
+  const reuse = (id: string, deps: string[], same: boolean): { o: LiveOutline | undefined; by: Vec2 } | null => {
     if (!before || !same) return null;
-    const by = rigidMove(deps, site.nodes, before.nodes);
-    return by ? { o: old.get(id), by } : null;
+    let by = rigidMove(deps, site.nodes, before.nodes);
+    if (!by) return null;
+    if (!isZero(by)) {
+      if (common && Math.abs(by.x - common.x) <= RIGID_TOL && Math.abs(by.y - common.y) <= RIGID_TOL) by = common;
+      else common ??= by;
+    }
+    return { o: old.get(id), by };
   };
   for (const p of sized.pieces) {
     const was = before?.pieces.get(p.id);
@@ -171,9 +188,26 @@ function rigidMove(ids: string[], now: Map<string, SizedNode>, before: Map<strin
 const isZero = (v: Vec2) => v.x === 0 && v.y === 0;
 const shift = (p: Vec2, by: Vec2): Vec2 => ({ x: p.x + by.x, y: p.y + by.y });
 
-/** An outline moved by `by` (the very same object when it did not move), its centreline at the placed nodes. */
-function moved(o: PieceOutline, by: Vec2, centreline: Vec2[]): PieceOutline {
+/**
+ * An outline moved by `by` (the very same object when it did not move), its centreline at the placed nodes, and its
+ * shift from the outline last drawn afresh (LiveOutline).
+ */
+function moved(o: LiveOutline, by: Vec2, centreline: Vec2[]): LiveOutline {
   if (isZero(by)) return o;
   const regions: Region[] = o.regions.map((r) => ({ outer: r.outer.map((p) => shift(p, by)), holes: r.holes.map((h) => h.map((p) => shift(p, by))) }));
-  return { id: o.id, regions, centreline };
+  const base = o.shift?.base ?? o;
+  return { id: o.id, regions, centreline, shift: { base, by: o.shift ? sumShift(o.shift.by, by) : by } };
+}
+
+/**
+ * The whole shift after one more move. Memoised on the pair of vectors, so outlines that shared their shift and their
+ * move share the sum as well (one object: a face can group them by identity).
+ */
+const sums = new WeakMap<Vec2, WeakMap<Vec2, Vec2>>();
+function sumShift(a: Vec2, b: Vec2): Vec2 {
+  let m = sums.get(a);
+  if (!m) { m = new WeakMap(); sums.set(a, m); }
+  let s = m.get(b);
+  if (!s) { s = shift(a, b); m.set(b, s); }
+  return s;
 }

@@ -31,4 +31,4 @@ export { fencePitchLimit, fenceFindings } from './fence-check.ts';
 export { foldsOf, foldShareRad, foldsOnPathRad, foldLegs, FOLD_GAP_MAX_H } from './folds.ts';
 export type { Fold, FoldShape } from './folds.ts';
 export { liveLayout, liveSizing } from './incremental.ts';
-export type { LiveLayout, LiveSizing } from './incremental.ts';
+export type { LiveLayout, LiveOutline, LiveSizing } from './incremental.ts';

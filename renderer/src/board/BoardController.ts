@@ -12,6 +12,7 @@ import { type View, fitBox, panBy, toBoard, toScreen, zoomAt } from './viewport.
 import { gridLines, rulerLabel, rulerSteps, UNIT_METRES, type LengthUnit } from './grid.ts';
 import { hitTest, type Hit } from './hit.ts';
 import { regionsPath } from './paths.ts';
+import { commonShift, driftMm, less, placeMark, placeMarkMm, translateText } from './drift.ts';
 
 export { regionsPath };
 
@@ -48,7 +49,19 @@ function setClass(el: SvgElement, c: string): void {
   if (el.node.getAttribute('class') !== c) el.node.setAttribute('class', c);
 }
 
-function remember<K extends object, V>(m: WeakMap<K, V>, k: K, v: V): V { m.set(k, v); return v; }
+/** Points in board mm as x, y pairs. */
+function flatMm(pts: Vec2[]): number[] {
+  const out = new Array<number>(pts.length * 2);
+  for (let i = 0; i < pts.length; i++) { out[2 * i] = mm(pts[i]!.x); out[2 * i + 1] = mm(pts[i]!.y); }
+  return out;
+}
+
+/** SVG points text of x, y pairs. */
+function pairsText(flat: number[]): string {
+  let t = '';
+  for (let i = 0; i < flat.length; i += 2) t += (i ? ' ' : '') + flat[i] + ',' + flat[i + 1];
+  return t;
+}
 
 function polyPoints(pts: Vec2[]): [number, number][] {
   return pts.map((p) => [mm(p.x), mm(p.y)]);
@@ -79,12 +92,36 @@ export class BoardController {
   private scene: Scene = EMPTY_SCENE;
   private marks: Marks = { selected: new Set(), flagged: new Set(), hovered: null };
   private options: BoardOptions;
-  private pieceEls = new Map<string, { el: Path; src: ScenePiece; d: string }>();
-  private lineEls = new Map<string, { el: SvgElement; key: string }>();
-  private nodeEls = new Map<string, { el: SvgElement; key: string }>();
-  private readonly clPoints = new WeakMap<Vec2[], [number, number][]>();
-  private readonly clText = new WeakMap<Vec2[], string>();
-  private portLabelEls = new Map<string, { el: SvgElement; text: string; x: string; y: string }>();
+  /** Each piece's element: its path text as written and the copper group it sits in (null: the copper layer). */
+  private pieceEls = new Map<string, { el: Path; src: ScenePiece; d: string; parent: G }>();
+  /**
+   * Groups of translated copper whose shift is not the drift, by the shift they draw (drift.ts); each keeps its
+   * elements from move to move.
+   */
+  private copperGroups = new Map<Vec2, G>();
+  /** The drift of this scene (the shift most translated copper shares, m), and in board mm. */
+  private driftShift: Vec2 | null = null;
+  private drift: { x: number; y: number } | null = null;
+  /**
+   * What moves with the drift is drawn in a second svg over the board, moved as a whole by a CSS transform in its
+   * own compositing layer (app.css `.board-moving`): a drag then changes one style per move, and the browser
+   * neither paints nor rasterises the moved copper and marks again (software raster of the whole board cost more
+   * than a 60 Hz frame per move). Its world group has the board's view transform; its content is written where it
+   * was when it joined (board coordinates less the drift).
+   */
+  private readonly moving: Svg;
+  private readonly movingWorld: G;
+  private readonly movingCopper: G;
+  private readonly lineDrift: G;
+  private readonly nodeDrift: G;
+  private readonly labelDrift: G;
+  private movingStyle = '';
+  /** Marks: element, class, coordinates as written (x, y pairs), and whether it sits in its layer's drift group. */
+  private lineEls = new Map<string, { el: SvgElement; cls: string; v: number; kind: string; unsized: boolean; pts: number[]; inDrift: boolean }>();
+  /** Rises with every new set of marks: a mark's class is worked out again only then (or when its kind changes). */
+  private marksV = 0;
+  private nodeEls = new Map<string, { el: SvgElement; cls: string; v: number; kind: string; r: number; pts: number[]; inDrift: boolean }>();
+  private portLabelEls = new Map<string, { el: SvgElement; text: string; pts: number[]; inDrift: boolean }>();
   private partValueEls: SvgElement[] = [];
   private drillKey = '';
   private panning: { x: number; y: number; id: number } | null = null;
@@ -109,6 +146,12 @@ export class BoardController {
     this.partLayer = this.world.group().addClass('parts');
     this.nodeLayer = this.world.group().addClass('nodes');
     this.labelLayer = this.root.group().addClass('labels');
+    this.moving = SVG().addTo(host).addClass('board-svg board-moving').attr({ 'aria-hidden': 'true', 'data-testid': 'board-moving' });
+    this.movingWorld = this.moving.group().addClass('world');
+    this.movingCopper = this.movingWorld.group().addClass('copper');
+    this.lineDrift = this.movingWorld.group().addClass('centrelines');
+    this.nodeDrift = this.movingWorld.group().addClass('nodes');
+    this.labelDrift = this.moving.group().addClass('labels');
     this.overlay = this.root.group().addClass('overlay');
     this.rulerX = SVG().addTo(host).addClass('ruler ruler-x');
     this.rulerY = SVG().addTo(host).addClass('ruler ruler-y');
@@ -200,6 +243,7 @@ export class BoardController {
 
   setMarks(m: Marks): void {
     this.marks = m;
+    this.marksV++;
     for (const [id, { el }] of this.pieceEls) {
       el.attr('class', this.pieceClass(id));
     }
@@ -235,6 +279,7 @@ export class BoardController {
     this.resizeObs?.disconnect();
     for (const c of this.cleanup) c();
     this.root.remove();
+    this.moving.remove();
     this.rulerX.remove();
     this.rulerY.remove();
     this.rulerCorner.remove();
@@ -252,60 +297,118 @@ export class BoardController {
     return c.join(' ');
   }
 
+  /**
+   * Copper: an element per piece, touched only where its copper changed. A piece the live layout translated (`by`)
+   * is drawn as its base path text inside a group moved by `by` (drift.ts), so a drag sets one transform per move
+   * for all the copper it carries instead of ~300 new path texts.
+   */
   private drawPieces(): void {
     const seen = new Set<string>();
+    // The marks follow the shift most of the copper shares (a drag's whole moved subtree): the drift.
+    this.driftShift = commonShift(this.scene.pieces);
+    this.drift = driftMm(this.driftShift);
+    const groups = new Map<Vec2, G>();
+    const claimed = new Set<G>();
+    const groupFor = (by: Vec2, was: G | null): G => {
+      if (by === this.driftShift) return this.movingCopper;
+      let g = groups.get(by);
+      if (g) return g;
+      // The group these elements sat in moves on with them (one transform), unless another shift took it already.
+      g = was && was !== this.movingCopper && was !== this.copperLayer && !claimed.has(was) ? was : this.copperLayer.group().addClass('shifted');
+      claimed.add(g);
+      groups.set(by, g);
+      g.node.setAttribute('transform', translateText(driftMm(by)!));
+      return g;
+    };
     for (const p of this.scene.pieces) {
       seen.add(p.id);
       const have = this.pieceEls.get(p.id);
-      if (have && have.src === p) continue;
       // The worker sends each piece's path text ready-made, so comparing is all the main thread does.
       const d = p.d ?? regionsPath(p.regions);
+      const parent = p.by ? groupFor(p.by, have?.parent ?? null) : this.copperLayer;
       if (have) {
         // Touch the DOM only where the copper moved. The path text goes straight to the attribute: svg.js's plot()
         // would parse it into segments and print it again, for every moved piece of a drag.
         if (have.d !== d) { have.el.node.setAttribute('d', d); have.d = d; }
+        if (have.parent !== parent) { parent.node.appendChild(have.el.node); have.parent = parent; }
         have.src = p;
         continue;
       }
-      const el = this.copperLayer.path().attr({ class: this.pieceClass(p.id), 'fill-rule': 'evenodd', 'data-piece': p.id });
+      const el = parent.path().attr({ class: this.pieceClass(p.id), 'fill-rule': 'evenodd', 'data-piece': p.id });
       el.node.setAttribute('d', d);
-      this.pieceEls.set(p.id, { el, src: p, d });
+      this.pieceEls.set(p.id, { el, src: p, d, parent });
     }
     for (const [id, { el }] of this.pieceEls) if (!seen.has(id)) { el.remove(); this.pieceEls.delete(id); }
+    for (const g of this.copperGroups.values()) if (!claimed.has(g)) g.remove();
+    this.copperGroups = groups;
+    this.placeMoving();
+  }
+
+  /** The moving svg's CSS transform: the drift in screen pixels (none without a drift). */
+  private placeMoving(): void {
+    const t = this.driftShift;
+    const v = this.view;
+    const style = t ? `translate(${t.x * v.scale}px, ${-t.y * v.scale}px)` : '';
+    if (style === this.movingStyle) return;
+    this.movingStyle = style;
+    (this.moving.node as unknown as SVGSVGElement).style.transform = style;
+    // The drift in board mm at full precision (the style's text is rounded), for tests that check where it lands.
+    this.moving.node.setAttribute('data-drift-mm', t ? `${t.x * 1000} ${t.y * 1000}` : '');
   }
 
   /**
-   * Keeps one element per id, touching it only when its key (shape and class) changed: then `update` sets its
-   * attributes in place (a drag moves half the marks of a feed on every layout; making them anew costs frames), or,
-   * without `update` or when it says it cannot (another shape), the element is made again.
+   * Centrelines: one polyline per segment, written only when it moved otherwise than with the drift (drift.ts); one
+   * that moved with it joins the drift group as it was written.
    */
-  private keyed(map: Map<string, { el: SvgElement; key: string }>, id: string, key: string, make: () => SvgElement, seen: Set<string>, update?: (el: SvgElement) => boolean): void {
-    seen.add(id);
-    const have = map.get(id);
-    if (have && have.key === key) return;
-    if (have && update?.(have.el)) { have.key = key; return; }
-    have?.el.remove();
-    map.set(id, { el: make(), key });
-  }
-
   private drawLines(): void {
     const seen = new Set<string>();
     for (const s of this.scene.segments) {
       const pts = s.centreline && s.centreline.length >= 2 ? s.centreline : [s.a, s.b];
-      const cls = ['cl', `cl-${s.kind}`];
-      if (this.marks.selected.has(s.id)) cls.push('selected');
-      if (this.marks.flagged.has(s.id)) cls.push('flagged');
-      if (this.marks.near?.has(s.id)) cls.push('near');
-      if (this.marks.hovered === s.id) cls.push('hovered');
-      if (!s.centreline) cls.push('unsized');
-      // A centreline the layout did not change is the same array as before: its text is kept, not made again.
-      const points = s.centreline ? (this.clPoints.get(s.centreline) ?? remember(this.clPoints, s.centreline, polyPoints(pts))) : polyPoints(pts);
-      const c = cls.join(' ');
-      const text = s.centreline ? (this.clText.get(s.centreline) ?? remember(this.clText, s.centreline, points.join(' '))) : points.join(' ');
-      this.keyed(this.lineEls, s.id, `${c}|${text}`, () => this.lineLayer.polyline(points).attr({ class: c, 'data-seg': s.id }), seen,
-        (el) => { el.node.setAttribute('points', text); setClass(el, c); return true; });
+      const unsized = !s.centreline;
+      seen.add(s.id);
+      const have = this.lineEls.get(s.id);
+      // The class changes only with the marks, the kind or sizing: kept from the last draw otherwise.
+      const c = have && have.v === this.marksV && have.kind === s.kind && have.unsized === unsized ? have.cls : this.lineClass(s.id, s.kind, unsized);
+      const place = have ? placeMarkMm(pts, have.pts, have.inDrift, this.drift) : 'write';
+      if (have && (place === 'drift' || place === 'stay')) {
+        if (c !== have.cls) setClass(have.el, c);
+        Object.assign(have, { cls: c, v: this.marksV, kind: s.kind, unsized });
+        if (place === 'drift' && !have.inDrift) { this.lineDrift.node.appendChild(have.el.node); have.inDrift = true; }
+        continue;
+      }
+      const into = place === 'write-drift';
+      const flat = less(flatMm(pts), into ? this.drift : null);
+      const text = pairsText(flat);
+      if (have) {
+        have.el.node.setAttribute('points', text);
+        setClass(have.el, c);
+        if (have.inDrift !== into) (into ? this.lineDrift : this.lineLayer).node.appendChild(have.el.node);
+        Object.assign(have, { cls: c, v: this.marksV, kind: s.kind, unsized, pts: flat, inDrift: into });
+        continue;
+      }
+      const el = this.lineLayer.polyline().attr({ class: c, 'data-seg': s.id });
+      el.node.setAttribute('points', text);
+      this.lineEls.set(s.id, { el, cls: c, v: this.marksV, kind: s.kind, unsized, pts: flat, inDrift: false });
     }
     for (const [id, { el }] of this.lineEls) if (!seen.has(id)) { el.remove(); this.lineEls.delete(id); }
+  }
+
+  private nodeClass(id: string, kind: string): string {
+    const cls = ['node', `node-${kind}`];
+    if (this.marks.selected.has(id)) cls.push('selected');
+    if (this.marks.flagged.has(id)) cls.push('flagged');
+    if (this.marks.hovered === id) cls.push('hovered');
+    return cls.join(' ');
+  }
+
+  private lineClass(id: string, kind: string, unsized: boolean): string {
+    const cls = ['cl', `cl-${kind}`];
+    if (this.marks.selected.has(id)) cls.push('selected');
+    if (this.marks.flagged.has(id)) cls.push('flagged');
+    if (this.marks.near?.has(id)) cls.push('near');
+    if (this.marks.hovered === id) cls.push('hovered');
+    if (unsized) cls.push('unsized');
+    return cls.join(' ');
   }
 
   /** Lumped parts: a body between the pads, turned along the line (world space, mm). */
@@ -325,33 +428,50 @@ export class BoardController {
     }
   }
 
+  /**
+   * Node marks at a constant screen size, each written only when it moved otherwise than with the drift (as the
+   * centrelines); a circle moves in place, other shapes are made again.
+   */
   private drawNodes(): void {
     const seen = new Set<string>();
     // Node marks keep a constant screen size: radius in mm from pixels at the current zoom.
     const r = mm(5 / this.view.scale);
     for (const n of this.scene.nodes) {
-      const cls = ['node', `node-${n.kind}`];
-      if (this.marks.selected.has(n.id)) cls.push('selected');
-      if (this.marks.flagged.has(n.id)) cls.push('flagged');
-      if (this.marks.hovered === n.id) cls.push('hovered');
+      seen.add(n.id);
+      const have = this.nodeEls.get(n.id);
+      const same = have && have.kind === n.kind && have.r === r;
+      const c = have && have.v === this.marksV && same ? have.cls : this.nodeClass(n.id, n.kind);
+      const one = [n.at];
+      const place = same ? placeMarkMm(one, have.pts, have.inDrift, this.drift) : 'write';
+      if (have && same && (place === 'drift' || place === 'stay')) {
+        if (c !== have.cls) setClass(have.el, c);
+        have.cls = c; have.v = this.marksV;
+        if (place === 'drift' && !have.inDrift) { this.nodeDrift.node.appendChild(have.el.node); have.inDrift = true; }
+        continue;
+      }
+      // A moved circle mark (bends, tees, ends) and a port's square take their new place in place.
+      const rr = r * (n.kind === 'vertex' ? 0.7 : 1);
+      if (have && same && (n.kind !== 'short')) {
+        const into = place === 'write-drift';
+        const at = less([mm(n.at.x), mm(n.at.y)], into ? this.drift : null);
+        const [x, y] = at as [number, number];
+        if (n.kind === 'port') { have.el.node.setAttribute('x', String(x - 1.2 * r)); have.el.node.setAttribute('y', String(y - 1.2 * r)); }
+        else { have.el.node.setAttribute('cx', String(x)); have.el.node.setAttribute('cy', String(y)); }
+        setClass(have.el, c);
+        if (have.inDrift !== into) (into ? this.nodeDrift : this.nodeLayer).node.appendChild(have.el.node);
+        Object.assign(have, { cls: c, v: this.marksV, pts: at, inDrift: into });
+        continue;
+      }
       const x = mm(n.at.x), y = mm(n.at.y);
-      const c = cls.join(' ');
-      // A moved circle mark (bends, tees, ends: most of a drag) takes its new centre in place.
-      const round = n.kind !== 'port' && n.kind !== 'short';
-      const rr = String(r * (n.kind === 'vertex' ? 0.7 : 1));
-      const update = (el: SvgElement): boolean => {
-        if (!round || el.node.nodeName !== 'circle' || el.node.getAttribute('r') !== rr) return false;
-        el.node.setAttribute('cx', String(x)); el.node.setAttribute('cy', String(y)); setClass(el, c);
-        return true;
-      };
-      this.keyed(this.nodeEls, n.id, `${c}|${x}|${y}|${r}`, () => {
-        let el: SvgElement;
-        // Positions as attributes: svg.js's center() asks the browser for a bounding box (a layout) per mark.
-        if (n.kind === 'port') el = this.nodeLayer.rect(2.4 * r, 2.4 * r).attr({ x: x - 1.2 * r, y: y - 1.2 * r });
-        else if (n.kind === 'short') el = this.nodeLayer.polygon([[x, y + 1.4 * r], [x + 1.4 * r, y], [x, y - 1.4 * r], [x - 1.4 * r, y]]);
-        else el = this.nodeLayer.circle(2 * r * (n.kind === 'vertex' ? 0.7 : 1)).attr({ cx: x, cy: y });
-        return el.attr({ class: c, 'data-node': n.id });
-      }, seen, update);
+      const at = [x, y];
+      have?.el.remove();
+      let el: SvgElement;
+      // Positions as attributes: svg.js's center() asks the browser for a bounding box (a layout) per mark.
+      if (n.kind === 'port') el = this.nodeLayer.rect(2.4 * r, 2.4 * r).attr({ x: x - 1.2 * r, y: y - 1.2 * r });
+      else if (n.kind === 'short') el = this.nodeLayer.polygon([[x, y + 1.4 * r], [x + 1.4 * r, y], [x, y - 1.4 * r], [x - 1.4 * r, y]]);
+      else el = this.nodeLayer.circle(2 * rr).attr({ cx: x, cy: y });
+      el.attr({ class: c, 'data-node': n.id });
+      this.nodeEls.set(n.id, { el, cls: c, v: this.marksV, kind: n.kind, r, pts: at, inDrift: false });
     }
     for (const [id, { el }] of this.nodeEls) if (!seen.has(id)) { el.remove(); this.nodeEls.delete(id); }
     const drillKey = this.scene.drills.map((d) => `${d.at.x},${d.at.y},${d.diameter}`).join(';');
@@ -406,7 +526,10 @@ export class BoardController {
   private applyView(): void {
     const v = this.view;
     const k = v.scale / 1000; // px per mm
-    this.world.attr('transform', `matrix(${k} 0 0 ${-k} ${v.width / 2 - mm(v.cx) * k} ${v.height / 2 + mm(v.cy) * k})`);
+    const m = `matrix(${k} 0 0 ${-k} ${v.width / 2 - mm(v.cx) * k} ${v.height / 2 + mm(v.cy) * k})`;
+    this.world.attr('transform', m);
+    this.movingWorld.attr('transform', m);
+    this.placeMoving();
     this.drawGrid();
     this.drawNodes();
     this.drawLabels();
@@ -422,7 +545,8 @@ export class BoardController {
       + '|' + parts.map((s) => `${s.id}:${s.part!.value}:${s.a.x},${s.a.y},${s.b.x},${s.b.y}`).join(';');
     if (key === this.labelKey) return;
     this.labelKey = key;
-    // Port labels are kept per port and moved in place (a drag moves many ports of a feed); part values are few.
+    // Port labels are kept per port: moved with the drift (in screen px) or in place (a drag moves many ports).
+    const drift = this.drift ? { x: (this.drift.x / 1000) * v.scale, y: (-this.drift.y / 1000) * v.scale } : null;
     for (const el of this.partValueEls) el.remove();
     this.partValueEls = [];
     const seen = new Set<string>();
@@ -430,16 +554,23 @@ export class BoardController {
       const sp = toScreen(v, n.at);
       if (sp.x < -50 || sp.y < -20 || sp.x > v.width + 50 || sp.y > v.height + 20) continue;
       const text = n.label ?? n.id;
-      const x = String(sp.x + 9), y = String(sp.y - 8);
+      const at = [sp.x + 9, sp.y - 8];
       seen.add(n.id);
       const have = this.portLabelEls.get(n.id);
       if (have && have.text === text) {
-        if (have.x !== x || have.y !== y) { have.el.node.setAttribute('x', x); have.el.node.setAttribute('y', y); have.x = x; have.y = y; }
+        const place = placeMark(at, have.pts, have.inDrift, drift);
+        if (place === 'drift' && !have.inDrift) { this.labelDrift.node.appendChild(have.el.node); have.inDrift = true; }
+        if (place === 'drift' || place === 'stay') continue;
+        const into = place === 'write-drift';
+        const xy = less(at, into ? drift : null);
+        have.el.node.setAttribute('x', String(xy[0])); have.el.node.setAttribute('y', String(xy[1]));
+        if (have.inDrift !== into) (into ? this.labelDrift : this.labelLayer).node.appendChild(have.el.node);
+        Object.assign(have, { pts: xy, inDrift: into });
         continue;
       }
       have?.el.remove();
-      const el = this.labelLayer.plain(text).attr({ x: sp.x + 9, y: sp.y - 8, 'data-label': n.id }).addClass('port-label');
-      this.portLabelEls.set(n.id, { el, text, x: el.node.getAttribute('x') ?? x, y: el.node.getAttribute('y') ?? y });
+      const el = this.labelLayer.plain(text).attr({ x: at[0], y: at[1], 'data-label': n.id }).addClass('port-label');
+      this.portLabelEls.set(n.id, { el, text, pts: at, inDrift: false });
     }
     for (const [id, { el }] of this.portLabelEls) if (!seen.has(id)) { el.remove(); this.portLabelEls.delete(id); }
     // Each part's value beside its body, offset across the line so it never covers the copper.

@@ -22,7 +22,15 @@ export interface SceneSegment {
   part?: { name: string; value: string; size: string; body: { along: number; across: number } };
 }
 
-export interface ScenePiece { id: string; regions: Region[]; /** SVG path text of the regions in mm, when prepared by the worker. */ d?: string }
+export interface ScenePiece {
+  id: string;
+  /** The piece's true copper. */
+  regions: Region[];
+  /** SVG path text of the regions in mm, when prepared beforehand; with `by`, the text of the copper before it. */
+  d?: string;
+  /** The live layout translated this copper by `by` (m) since `d` was drawn (core LiveOutline): drawn as `d` moved. */
+  by?: Vec2;
+}
 
 export interface Scene {
   nodes: SceneNode[];

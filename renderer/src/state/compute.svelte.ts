@@ -109,6 +109,7 @@ export class Compute {
       const v: LayoutView = { revision, sized: value.sized, outlines: value.outlines, drills: value.drills, paths: value.paths, placed: placedFrom(value.sized), figures: this.figures.of(value.sized), notes: nodeNotes(value.sized), ms: post.ms };
       this.editor.applyLayout(v, value.geometryError);
       this.lastLayoutMs = post.ms;
+      this.drag.prime(doc);
     } else if (!post.ok && 'error' in post) {
       this.editor.layoutFailed(post.error.message);
     }

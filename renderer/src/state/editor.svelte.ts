@@ -11,7 +11,7 @@ import type { SubstrateSpec } from '../../../core/index.ts';
 import { InputError } from '../../../core/index.ts';
 import { couponForDesign, defaultGroundClearance, smdFootprint, type CouponPlan } from '../../../core/index.ts';
 import { sparamsAdmittance } from '../../../core/index.ts';
-import { errorWords, namer, nameOf } from '../../../core/index.ts';
+import { errorWords, namer } from '../../../core/index.ts';
 import type { Scene } from '../board/scene.ts';
 import type { Preview } from '../board/BoardController.ts';
 import { ToolMachine, type ToolId } from '../board/tools.ts';
@@ -397,7 +397,12 @@ export class EditorState {
 
   /** A node's label, or its id where it has none. */
   /** A record's name for people, the same in every face (core namer: its label, else its id). */
-  nodeName(id: string): string { return nameOf(this.doc, id); }
+  nodeName(id: string): string {
+    // One namer per design revision: panels name dozens of ports per revision (a drag makes one every frame).
+    if (this.names?.doc !== this.doc) this.names = { doc: this.doc, name: namer(this.doc) };
+    return this.names.name(id);
+  }
+  private names: { doc: DesignDoc; name: (id: string) => string } | null = null;
 
   figuresOf(id: string): PieceFigures | null { return this.layout?.figures.get(id) ?? null; }
 

@@ -15,16 +15,26 @@ export interface LayoutView {
   revision: number;
   sized: SizedView;
   /** Each piece's and node's own copper (before union) with its centreline. */
-  outlines: (PieceOutline & { d?: string })[];
+  outlines: (PieceOutline & { d?: string; by?: Vec2 })[];
   drills: DrillHit[];
   /** Path and phase reports (phase groups, or the anchor port to every other port). */
   paths: PathReport[];
   /** Each node's drawn position the layout was made from, and where it placed the node, by node id. */
   placed: Map<string, { at: Vec2; pos: Vec2 }>;
-  figures: Map<string, PieceFigures>;
+  /** Each piece's figures by id (a Map, or made on the first look-up: a drag's layouts are mostly never asked). */
+  figures: Lookup<PieceFigures>;
   /** A line about each node (bend, tee, end, via, port) for the hover readout. */
-  notes?: Map<string, string>;
+  notes?: Lookup<string>;
   ms: number;
+}
+
+/** What the panels read of a per-id table. */
+export interface Lookup<T> { get(id: string): T | undefined }
+
+/** A table made the first time it is read (`make` runs at most once). */
+export function lazy<T>(make: () => Map<string, T>): Lookup<T> {
+  let m: Map<string, T> | null = null;
+  return { get: (id) => (m ??= make()).get(id) };
 }
 
 export function figuresFrom(sized: SizedView): Map<string, PieceFigures> {
@@ -82,5 +92,8 @@ export function nodeNotes(sized: SizedView): Map<string, string> {
 }
 
 export function placedFrom(sized: SizedView): Map<string, { at: Vec2; pos: Vec2 }> {
-  return new Map(sized.nodes.map((n) => [n.id, { at: n.at, pos: n.pos }]));
+  // The sized nodes themselves carry `at` and `pos`: no new object per node (a drag makes this every move).
+  const m = new Map<string, { at: Vec2; pos: Vec2 }>();
+  for (const n of sized.nodes) m.set(n.id, n);
+  return m;
 }

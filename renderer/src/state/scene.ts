@@ -8,18 +8,26 @@ import { formatQuantity, type QuantityKind } from '../../../core/index.ts';
 import type { DrillHit, Region, Vec2 } from '../../../core/index.ts';
 import type { PieceOutline } from '../../../core/index.ts';
 
-export interface SceneCopper { outlines: (PieceOutline & { d?: string })[]; drills: DrillHit[] }
+export interface SceneCopper { outlines: (PieceOutline & { d?: string; by?: Vec2 })[]; drills: DrillHit[] }
 import type { Scene, SceneSegment } from '../board/scene.ts';
 
 export function buildScene(doc: DesignDoc, geometry: SceneCopper | null, placed: ReadonlyMap<string, { at: Vec2; pos: Vec2 }> | null = null, ground: Region[] = []): Scene {
   const byId = new Map<string, DesignNode>(doc.nodes.map((n) => [n.id, n]));
   // Where the layout placed a node (sized lengths move nodes off their drawn spots), plus how far the node was
   // dragged since that layout: a dragged node follows the pointer at once, before the worker's new layout lands.
-  const moved = (n: DesignNode): boolean => { const p = placed?.get(n.id); return !!p && (p.at.x !== n.at.x || p.at.y !== n.at.y); };
-  const at = (n: DesignNode): Vec2 => {
+  // Each node's place worked out once (a drag builds the scene every move): where the layout put it, unless the node
+  // was dragged since, and which nodes were.
+  const where = new Map<string, Vec2>();
+  const movedIds = new Set<string>();
+  for (const n of doc.nodes) {
     const p = placed?.get(n.id);
-    return p ? { x: p.pos.x + n.at.x - p.at.x, y: p.pos.y + n.at.y - p.at.y } : n.at;
-  };
+    if (!p) { where.set(n.id, n.at); continue; }
+    const still = p.at.x === n.at.x && p.at.y === n.at.y;
+    if (!still) movedIds.add(n.id);
+    where.set(n.id, still ? p.pos : { x: p.pos.x + n.at.x - p.at.x, y: p.pos.y + n.at.y - p.at.y });
+  }
+  const moved = (n: DesignNode): boolean => movedIds.has(n.id);
+  const at = (n: DesignNode): Vec2 => where.get(n.id) ?? n.at;
   const pieces = new Map((geometry?.outlines ?? []).map((p) => [p.id, p]));
   const segments: SceneSegment[] = [];
   const stale = new Set<string>();
