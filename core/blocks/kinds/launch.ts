@@ -32,7 +32,7 @@ import { InputError } from '../../util/errors.ts';
 import { sizeDesign } from '../../layout/sizing.ts';
 import { netlistFromSized } from '../../network/fromSized.ts';
 import { solveNetwork } from '../../network/sweep.ts';
-import { analyzeLine } from '../../line/index.ts';
+import { lineModels, stripAt } from '../../line/index.ts';
 import { asMadeLineOptions } from '../../layout/as-made.ts';
 import { FEED_PARAM, Sketch, Z0_PARAM, contextDesign, round6, round9, widthFor, type BlockContext, type BlockDef, type BlockPieces, type Spec } from '../context.ts';
 import { FOOTPRINT_PARAM } from '../fold.ts';
@@ -124,7 +124,7 @@ const meets = (m: LaunchMatch | null): boolean => !!m && m.atF0Db < LAUNCH_MATCH
  */
 export function compensationFor(s: LaunchShape, z0: number, ctx: BlockContext): Compensation | null {
   const opts = asMadeLineOptions(contextDesign(ctx));
-  const at = (w: number) => analyzeLine(ctx.substrate, w, ctx.f0, opts);
+  const at = (w: number) => stripAt(lineModels.strip(), ctx.substrate, w, ctx.f0, opts);
   const zp = at(s.pw).z0, z = (z0 * z0) / zp;
   let w: number;
   try { w = widthFor(ctx, z, 'launch.padWidth', 'the compensating section'); } catch (e) { if (e instanceof InputError) return null; throw e; }
