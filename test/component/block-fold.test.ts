@@ -9,18 +9,11 @@
  */
 import { describe, expect, it, vi } from 'vitest';
 import { render, fireEvent, screen, waitFor } from '@testing-library/svelte';
-import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
-import { newDesign, serializeDesign } from '../../core/index.ts';
+import { thinGlassEpoxyEditor as editor } from './block-picker-editor.ts';
 import BlockPicker from '../../renderer/src/components/BlockPicker.svelte';
 
 vi.mock('uplot', () => ({ default: class { destroy() {} } }));
 
-function editor(): EditorState {
-  const ed = new EditorState();
-  const doc = newDesign({ f0: 2.45e9, substrate: { er: 4.4, h: 0.8e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6 }, asMade: { sizing: 'microstrip', sideCopper: 'stitched' } });
-  expect(ed.loadText(serializeDesign(doc), null)).toBeNull();
-  return ed;
-}
 
 const paths = () => screen.getByTestId('block-preview-copper').querySelectorAll('path').length;
 /** The preview's levels to each output, dB. */

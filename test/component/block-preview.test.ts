@@ -12,8 +12,8 @@
  */
 import { describe, expect, it, vi } from 'vitest';
 import { render, fireEvent, screen, waitFor } from '@testing-library/svelte';
-import { EditorState } from '../../renderer/src/state/editor.svelte.ts';
-import { newDesign, serializeDesign } from '../../core/index.ts';
+import { thinGlassEpoxyEditor as editor } from './block-picker-editor.ts';
+import { newDesign } from '../../core/index.ts';
 import BlockPicker from '../../renderer/src/components/BlockPicker.svelte';
 import { responseJob } from '../../renderer/src/worker/response-job.ts';
 import { BlockPreviewer, type PreviewState } from '../../renderer/src/state/block-preview.ts';
@@ -21,12 +21,6 @@ import { PREVIEW_POINTS, type BlockPreviewInput } from '../../renderer/src/worke
 
 vi.mock('uplot', () => ({ default: class { destroy() {} } }));
 
-function editor(): EditorState {
-  const ed = new EditorState();
-  const doc = newDesign({ f0: 2.45e9, substrate: { er: 4.4, h: 0.8e-3, t: 35e-6, tanDelta: 0.02, sigma: 5.8e7, roughness: 1.5e-6 }, asMade: { sizing: 'microstrip', sideCopper: 'stitched' } });
-  expect(ed.loadText(serializeDesign(doc), null)).toBeNull();
-  return ed;
-}
 
 /** The figure rows beside the plot: label → dB (and degrees where given), at full precision. */
 function figures(): Map<string, { db: number; deg?: number }> {
