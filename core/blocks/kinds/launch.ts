@@ -125,11 +125,11 @@ const meets = (m: LaunchMatch | null): boolean => !!m && m.atF0Db < LAUNCH_MATCH
 export function compensationFor(s: LaunchShape, z0: number, ctx: BlockContext): Compensation | null {
   const opts = asMadeLineOptions(contextDesign(ctx));
   const at = (w: number) => stripAt(lineModels.strip(), ctx.substrate, w, ctx.f0, opts);
-  const zp = at(s.pw).z0, z = (z0 * z0) / zp;
+  const pad = at(s.pw), z = (z0 * z0) / pad.z0;
   let w: number;
   try { w = widthFor(ctx, z, 'launch.padWidth', 'the compensating section'); } catch (e) { if (e instanceof InputError) return null; throw e; }
   // θc = θp: the section has the pad's electrical length (its strip, tail included).
-  const len = ((s.pl + PAD_TAIL) * at(w).lambdaG) / at(s.pw).lambdaG;
+  const len = ((s.pl + PAD_TAIL) * at(w).lambdaG) / pad.lambdaG;
   return { z, w, len };
 }
 
